@@ -1,0 +1,19 @@
+/**
+ * `npm run bench`: the benchmarks, printed as one table. Not a test: nothing here fails a build.
+ * Sections can be chosen: `npm run bench -- thermo equilibrium`.
+ */
+import { benchThermo } from './thermo.ts';
+import { printTable, type Row } from './measure.ts';
+
+const sections: Record<string, () => Promise<Row[]> | Row[]> = {
+  thermo: benchThermo,
+};
+
+const wanted = process.argv.slice(2).filter((a) => !a.startsWith('-'));
+const rows: Row[] = [];
+for (const [name, run] of Object.entries(sections)) {
+  if (wanted.length > 0 && !wanted.includes(name)) continue;
+  process.stderr.write(`bench: ${name}...\n`);
+  rows.push(...(await run()));
+}
+printTable(rows);

@@ -1,0 +1,67 @@
+/**
+ * cellbasis command line: dispatches to one command, turns user mistakes into one clear line
+ * on stderr and an exit code (0 ok, 1 validation or audit failure, 2 usage, 3 internal).
+ */
+import { helpText, parseCommandArgs, type Command, type Io } from './command.ts';
+import { UserError, EXIT_INTERNAL, EXIT_USAGE } from '../errors.ts';
+import { reactionCommand } from './commands/reaction.ts';
+import { speciesCommand } from './commands/species.ts';
+import { toolVersion } from './version.ts';
+
+export const COMMANDS: Command[] = [reactionCommand, speciesCommand];
+
+function overview(): string {
+  const width = Math.max(...COMMANDS.map((c) => c.name.length)) + 2;
+  return [
+    `cellbasis ${toolVersion()}: design-basis calculation packages for fuel-cell and electrolyser plants`,
+    '',
+    'usage: cellbasis COMMAND [options]   (cellbasis COMMAND --help for its options)',
+    '',
+    'commands:',
+    ...COMMANDS.map((c) => `  ${c.name.padEnd(width)}${c.summary}`),
+    '',
+    'exit codes: 0 success, 1 validation or audit failure, 2 usage error, 3 internal error',
+    '',
+  ].join('\n');
+}
+
+export const processIo = (): Io => ({
+  out: (t) => process.stdout.write(t),
+  err: (t) => process.stderr.write(t),
+  isTTY: process.stderr.isTTY === true,
+  cwd: process.cwd(),
+});
+
+export async function main(argv: string[], io: Io = processIo()): Promise<number> {
+  const [name, ...rest] = argv;
+  if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
+    io.out(overview());
+    return name === undefined ? EXIT_USAGE : 0;
+  }
+  if (name === '--version') {
+    io.out(`${toolVersion()}\n`);
+    return 0;
+  }
+  const command = COMMANDS.find((c) => c.name === name);
+  if (!command) {
+    io.err(`cellbasis: unknown command "${name}"; commands: ${COMMANDS.map((c) => c.name).join(', ')}\n`);
+    return EXIT_USAGE;
+  }
+  try {
+    const args = parseCommandArgs(command, rest);
+    if (args === 'help') {
+      io.out(helpText(command));
+      return 0;
+    }
+    return await command.run(args, io);
+  } catch (error) {
+    if (error instanceof UserError) {
+      io.err(`cellbasis: ${error.message}\n`);
+      return error.exitCode;
+    }
+    const message = error instanceof Error ? error.message : String(error);
+    io.err(`cellbasis: internal error: ${message}\n`);
+    if (process.env.CELLBASIS_DEBUG && error instanceof Error && error.stack) io.err(`${error.stack}\n`);
+    return EXIT_INTERNAL;
+  }
+}

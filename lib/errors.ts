@@ -1,0 +1,51 @@
+/**
+ * Typed errors that carry a message meant for the user. The CLI prints `userMessage` on one
+ * line and exits with `exitCode`; it never prints a stack trace for these.
+ *
+ * Exit codes (documented in README.md): 0 success, 1 validation or audit failure,
+ * 2 usage error (bad option, unknown species, unparsable value), 3 internal error.
+ */
+export const EXIT_OK = 0;
+export const EXIT_VALIDATION = 1;
+export const EXIT_USAGE = 2;
+export const EXIT_INTERNAL = 3;
+
+export class UserError extends Error {
+  readonly exitCode: number;
+  constructor(message: string, exitCode: number = EXIT_USAGE) {
+    super(message);
+    this.name = 'UserError';
+    this.exitCode = exitCode;
+  }
+}
+
+/** A value outside the temperature range where a species record is valid. */
+export class TemperatureRangeError extends UserError {
+  constructor(
+    readonly species: string,
+    readonly temperatureK: number,
+    readonly lowK: number,
+    readonly highK: number,
+  ) {
+    super(
+      `${species}: temperature ${temperatureK.toFixed(2)} K is outside the range of its species data, ${lowK} K to ${highK} K`,
+    );
+    this.name = 'TemperatureRangeError';
+  }
+}
+
+/** An iteration that did not converge; names the method, the iterations spent and the residual. */
+export class ConvergenceError extends UserError {
+  constructor(
+    readonly method: string,
+    readonly iterations: number,
+    readonly residual: number,
+    detail = '',
+  ) {
+    super(
+      `${method} did not converge after ${iterations} iterations (residual ${residual.toExponential(2)})${detail ? `: ${detail}` : ''}`,
+      EXIT_VALIDATION,
+    );
+    this.name = 'ConvergenceError';
+  }
+}
