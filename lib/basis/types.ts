@@ -1,0 +1,203 @@
+/**
+ * The validated design basis: what lib/basis hands to the calculation, everything in SI
+ * (K, bar absolute, A/m2, ohm m2, m2, W, V, kg/s, mole fractions). The YAML a user writes
+ * (projects/<id>/basis.yaml, documented in lib/basis/schema.ts and the JSON Schema) is
+ * parsed, checked and converted into this shape; the calculation never sees unit strings.
+ */
+import type { Mode, TechnologyId } from '../electrochem/technologies.ts';
+
+export type DocumentStatus = 'draft' | 'issued for review' | 'issued for approval' | 'approved' | 'superseded';
+
+export const DOCUMENT_STATUSES: readonly DocumentStatus[] = ['draft', 'issued for review', 'issued for approval', 'approved', 'superseded'];
+
+export interface Signatory {
+  name: string;
+  /** ISO date, YYYY-MM-DD. */
+  date?: string;
+}
+
+export interface DocumentInfo {
+  title: string;
+  number: string;
+  revision: string;
+  status: DocumentStatus;
+  client: string;
+  site: string;
+  paper: 'A4' | 'Letter';
+  purpose: string;
+  scope: string;
+  signOff: { prepared?: Signatory; checked?: Signatory; approved?: Signatory };
+}
+
+export interface CellInfo {
+  technology: TechnologyId;
+  mode: Mode;
+  fuelElectrode?: string;
+  airElectrode?: string;
+  electrolyte?: string;
+  /** Whether the fuel electrode (or a reformer catalyst named in the basis) contains nickel. */
+  nickelBearing: boolean;
+  /** How nickelBearing was decided: stated in the basis, or read from the material text. */
+  nickelBearingFrom: 'stated' | 'material text' | 'default';
+  /** Ionic transference number t_ion in (0, 1]; the open-circuit voltage is t_ion × E_Nernst. 1 when not given. */
+  ionicTransferenceNumber: number;
+  /** Voltage allowance for gas crossover and internal leakage subtracted from the open-circuit voltage, V. 0 when not given. */
+  crossoverAllowanceV: number;
+}
+
+export interface Conditions {
+  /** Stack operating temperature (cell temperature, isothermal model), K. */
+  temperatureK: number;
+  /** Temperature range for the sweep charts, K. */
+  sweepFromK: number;
+  sweepToK: number;
+  /** Fuel-electrode and air-electrode feed temperatures at the stack inlet, K (default: operating temperature). */
+  fuelInletTemperatureK: number;
+  airInletTemperatureK: number;
+  /** Allowed temperature rise of the air through the stack, for the cooling-air estimate, K. */
+  allowedAirTemperatureRiseK: number;
+  /** Absolute pressures of the fuel-electrode and air-electrode gas, bar. */
+  fuelPressureBar: number;
+  airPressureBar: number;
+  /** Cold-sink temperature for the Carnot comparison, K (default 298.15 K). */
+  ambientTemperatureK: number;
+}
+
+export type PreReforming = { kind: 'none' } | { kind: 'equilibrium'; temperatureK: number };
+
+export interface FuelStream {
+  /** Mixture name if the composition came from a preset or a named mixture of the basis. */
+  compositionName?: string;
+  /** Dry fuel (or feed) composition before steam is added, mole fractions summing to 1. */
+  composition: Record<string, number>;
+  /**
+   * Steam-to-carbon ratio, if given: mol of H2O added per mol of combustible carbon in the dry
+   * fuel (carbon of hydrocarbons, alcohols and CO; carbon of CO2 excluded), the reformer convention.
+   */
+  steamToCarbon?: number;
+  /** Steam added per mole of the dry fuel, if given instead of steamToCarbon. */
+  steamPerMoleFuel?: number;
+  preReforming: PreReforming;
+  /** The feed entering the stack (or the pre-reformer) after steam addition, mole fractions summing to 1. */
+  feed: Record<string, number>;
+}
+
+export interface AirStream {
+  compositionName?: string;
+  /** Mole fractions summing to 1 (humid air includes its H2O). */
+  composition: Record<string, number>;
+  /** Humidity as stated, for the inputs table; the composition already includes it. */
+  humidity?: { dewPointK: number } | { relativeHumidity: number; atK: number };
+}
+
+export type AirSupply =
+  | { kind: 'utilization'; value: number }
+  | { kind: 'ratio'; value: number }
+  /** Electrolysis: sweep-gas moles per mole of O2 produced. */
+  | { kind: 'sweep-ratio'; value: number }
+  /** Electrolysis without sweep gas: pure oxygen leaves the air electrode. */
+  | { kind: 'none' };
+
+export type VoltageModel = { kind: 'given'; cellVoltageV: number } | { kind: 'area-specific-resistance'; ohmM2: number };
+
+export type StackSize =
+  | { kind: 'cells'; cells: number }
+  /** Target stack power: net electric output (power mode) or electric input (electrolysis), W. */
+  | { kind: 'power'; powerW: number }
+  /** Electrolysis: target hydrogen production, kg/s. */
+  | { kind: 'hydrogen'; kgPerS: number };
+
+export interface OperatingPoint {
+  /** Fuel utilization (power) or steam conversion (electrolysis), in (0, 1). */
+  utilization: number;
+  air: AirSupply;
+  currentDensityAPerM2: number;
+  voltage: VoltageModel;
+  activeAreaM2: number;
+  size: StackSize;
+  /** When both a cell count and a target were given (and agree within 2 %), the cell count. */
+  statedCells?: number;
+  /** Fraction of the gross DC power used by the balance of plant (power mode), in [0, 1). */
+  parasiticFraction: number;
+}
+
+export interface Sensitivity {
+  temperatureK: number;
+  /** Relative change of both electrode pressures. */
+  pressureFraction: number;
+  /** Absolute change of fuel utilization or steam conversion. */
+  utilization: number;
+  /** Absolute change of steam-to-carbon ratio (ignored when the fuel has no carbon). */
+  steamToCarbon: number;
+  /** Relative change of current density. */
+  currentDensityFraction: number;
+}
+
+export interface Assumption {
+  id: string;
+  text: string;
+  /** Needs later verification: reported as an open item. */
+  open: boolean;
+  reference?: string;
+}
+
+export interface Reference {
+  id: string;
+  citation: string;
+}
+
+/** One design input as the engineer wrote it, for the design-inputs table and revision comparison. */
+export interface InputRecord {
+  /** YAML field path, e.g. "conditions.operating-temperature". */
+  path: string;
+  /** Human label, e.g. "operating temperature". */
+  label: string;
+  /** The value as written, e.g. "800 C" or "0.85". */
+  text: string;
+  /** The unit as written ("" for dimensionless). */
+  unit: string;
+  /** SI value, with its SI unit. */
+  si: number;
+  siUnit: string;
+  /** Reference id or justification given with the value. */
+  source?: string;
+}
+
+export interface Diagnostic {
+  severity: 'error' | 'warning';
+  file: string;
+  line: number;
+  column: number;
+  /** Dotted field path, e.g. "conditions.operating-temperature"; "" for the whole file. */
+  path: string;
+  message: string;
+}
+
+export interface DesignBasis {
+  /** Project id (the folder name under projects/). */
+  id: string;
+  /** Path of the basis file as given to the loader. */
+  file: string;
+  document: DocumentInfo;
+  cell: CellInfo;
+  conditions: Conditions;
+  /**
+   * Feed of the fuel electrode: the fuel (power mode); steam with some H2, or steam and CO2 for
+   * co-electrolysis (solid-oxide electrolysis). Null where that electrode has no feed
+   * (electrolysis in proton-conducting, PEM and alkaline cells, whose water is on the other side
+   * or in the electrolyte).
+   */
+  fuelElectrode: FuelStream | null;
+  /**
+   * Feed of the air (oxygen) electrode: air or oxygen (power mode); sweep air (solid-oxide
+   * electrolysis), steam (proton-ceramic electrolysis) or liquid water, {"H2O(L)": 1} (PEM
+   * electrolysis). Null for electrolysis without sweep gas and for alkaline electrolysis.
+   */
+  airElectrode: AirStream | null;
+  operatingPoint: OperatingPoint;
+  sensitivity: Sensitivity;
+  assumptions: Assumption[];
+  references: Reference[];
+  inputs: InputRecord[];
+  warnings: Diagnostic[];
+}
