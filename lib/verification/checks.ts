@@ -8,6 +8,7 @@ import { parse as parseYaml } from 'yaml';
 import { getSpecies } from '../thermo/species-data.ts';
 import { cp, entropy, formationEnthalpy, formationGibbs } from '../thermo/properties.ts';
 import { evaluateReaction } from '../electrochem/reaction.ts';
+import { saturationPressureBar } from '../thermo/saturation.ts';
 
 export interface ReferenceCheck {
   id: string;
@@ -60,6 +61,7 @@ const evaluators = new Map<string, Evaluator>([
   ['reaction-enthalpy', (c) => evaluateReaction(str(c, 'reaction'), num(c, 'temperature_K')).deltaH_J_per_mol],
   ['reversible-voltage', (c) => evaluateReaction(str(c, 'reaction'), num(c, 'temperature_K')).reversibleVoltage_V],
   ['thermoneutral-voltage', (c) => evaluateReaction(str(c, 'reaction'), num(c, 'temperature_K')).thermoneutralVoltage_V],
+  ['saturation-pressure', (c) => saturationPressureBar(num(c, 'temperature_K')) * 1e5],
 ]);
 
 /** Lets other modules add evaluators (equilibrium constants, plant quantities) without a cycle. */
