@@ -1,0 +1,42 @@
+/**
+ * The standards, codes and regulations the hazard cautions cite (data/standards.yaml), parsed
+ * and checked at first use. Cited for orientation only; editions and adoption are for the
+ * engineer responsible and the authority having jurisdiction to confirm.
+ */
+import { readFileSync } from 'node:fs';
+import { parse as parseYaml } from 'yaml';
+import { z } from 'zod';
+import type { StandardRef } from './types.ts';
+
+const RawStandard = z.strictObject({
+  number: z.string(),
+  title: z.string(),
+  publisher: z.string(),
+  scope: z.string(),
+  memory: z.boolean(),
+});
+
+export interface Standard extends z.infer<typeof RawStandard> {
+  id: string;
+}
+
+let cache: Map<string, Standard> | undefined;
+
+export function standards(): Map<string, Standard> {
+  if (cache) return cache;
+  const raw = z.record(z.string(), RawStandard).parse(parseYaml(readFileSync(new URL('./data/standards.yaml', import.meta.url), 'utf8')));
+  cache = new Map(Object.entries(raw).map(([id, s]) => [id, { id, ...s }]));
+  return cache;
+}
+
+export function standard(id: string): Standard {
+  const s = standards().get(id);
+  if (!s) throw new Error(`lib/hazards: unknown standard "${id}" (not in data/standards.yaml)`);
+  return s;
+}
+
+/** The reference a caution carries: id, number and title. */
+export function standardRef(id: string): StandardRef {
+  const s = standard(id);
+  return { id, number: s.number, title: s.title };
+}

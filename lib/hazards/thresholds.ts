@@ -1,0 +1,36 @@
+/**
+ * Thresholds of the hazard indicators and cautions (data/thresholds.yaml), each with its source:
+ * the presence threshold, the nickel-carbonyl temperature, the detector alarm fraction of the
+ * LFL and the high-temperature hydrogen attack screening temperature.
+ */
+import { readFileSync } from 'node:fs';
+import { parse as parseYaml } from 'yaml';
+import { z } from 'zod';
+
+const Threshold = z.strictObject({ value: z.number(), source: z.string(), memory: z.boolean(), why: z.string() });
+
+const File = z.strictObject({
+  presence_ppm: Threshold,
+  nickelCarbonyl_C: Threshold,
+  detectorAlarm_percentOfLfl: Threshold,
+  hydrogenAttack_C: Threshold,
+});
+
+export type ThresholdId = keyof z.infer<typeof File>;
+export type Threshold = z.infer<typeof Threshold>;
+
+let cache: z.infer<typeof File> | undefined;
+
+export function thresholds(): Record<ThresholdId, Threshold> {
+  cache ??= File.parse(parseYaml(readFileSync(new URL('./data/thresholds.yaml', import.meta.url), 'utf8')));
+  return cache;
+}
+
+export function threshold(id: ThresholdId): number {
+  return thresholds()[id].value;
+}
+
+/** Mole fraction at or above which a species counts as present in a stream. */
+export function presenceFraction(): number {
+  return threshold('presence_ppm') * 1e-6;
+}

@@ -1,0 +1,163 @@
+// Hazard data against the tables they cite. Each value is checked exactly (toBe): the data file
+// copies the published table, so there is no tolerance to allow; the source and whether it is
+// quoted from memory are named beside each check, as in substances.yaml.
+import { describe, expect, it } from 'vitest';
+import { allSubstances, substance } from '../../lib/hazards/substances.ts';
+import { standard, standards } from '../../lib/hazards/standards.ts';
+import { thresholds } from '../../lib/hazards/thresholds.ts';
+import { getSpecies } from '../../lib/thermo/species-data.ts';
+
+const limits = (label: string) => [substance(label).lfl_percent?.value, substance(label).ufl_percent?.value];
+
+describe('flammability limits in air, vol %', () => {
+  it('hydrogen 4.0 to 75 (ISO/TR 15916:2015, from memory; Zabetakis 1965 and NFPA 497 agree, from memory)', () => {
+    expect(limits('H2')).toEqual([4.0, 75]);
+    expect(substance('H2').lfl_percent!.source).toBe('ISO/TR 15916:2015');
+    expect(substance('H2').lfl_percent!.memory).toBe(true);
+  });
+  it('carbon monoxide 12.5 to 74 (OSHA chemical database, read; Zabetakis 1965 agrees, from memory)', () => {
+    expect(limits('CO')).toEqual([12.5, 74]);
+    expect(substance('CO').lfl_percent!.memory).toBe(false);
+  });
+  it('methane 5.0 to 15.0 (Zabetakis 1965, Bulletin 627, from memory); IEC 60079-20-1 4.4 to 17 listed, not used', () => {
+    expect(limits('CH4')).toEqual([5.0, 15.0]);
+    expect(substance('CH4').alsoPublished).toContainEqual(expect.objectContaining({ lfl_percent: 4.4, ufl_percent: 17.0 }));
+  });
+  it.each([
+    ['C2H6', 3.0, 12.4],
+    ['C3H8', 2.1, 9.5],
+    ['n-C4H10', 1.8, 8.4],
+    ['NH3', 15, 28],
+    ['CH3OH', 6.7, 36],
+    ['C2H5OH', 3.3, 19],
+    ['H2S', 4.0, 44],
+  ])('%s %d to %d (Zabetakis 1965, Bulletin 627, from memory)', (label, lfl, ufl) => {
+    expect(limits(label)).toEqual([lfl, ufl]);
+    expect(substance(label).lfl_percent!.source).toMatch(/Zabetakis 1965/);
+  });
+  it('nickel carbonyl LFL 2 % (NIOSH IDLH documentation 1994, read); no UFL recorded', () => {
+    expect(limits('Ni(CO)4')).toEqual([2, undefined]);
+  });
+  it('hydrogen in oxygen from 4.0 to 94 (Zabetakis 1965, from memory)', () => {
+    expect(substance('H2').inOxygen).toMatchObject({ lfl_percent: 4.0, ufl_percent: 94 });
+  });
+});
+
+describe('autoignition temperatures, °C: every source kept, the lowest used', () => {
+  it('hydrogen 585 (ISO/TR 15916), 560 (IEC 60079-20-1), 500 (NFPA 497), 400 (Zabetakis 1965), all from memory; 400 used', () => {
+    const h2 = substance('H2');
+    expect(h2.autoignition_C.map((v) => [v.value, v.source])).toEqual([
+      [585, 'ISO/TR 15916:2015'],
+      [560, 'IEC 60079-20-1:2010'],
+      [500, 'NFPA 497'],
+      [400, 'Zabetakis 1965, USBM Bulletin 627'],
+    ]);
+    expect(h2.lowestAutoignition_C).toMatchObject({ value: 400, source: 'Zabetakis 1965, USBM Bulletin 627' });
+  });
+  it('methane 600 (IEC 60079-20-1) and 537 (NFPA 325, historical), from memory; 537 used', () => {
+    expect(substance('CH4').lowestAutoignition_C!.value).toBe(537);
+  });
+  it('carbon monoxide 609 (NFPA 325) and 605 (IEC 60079-20-1), from memory; 605 used', () => {
+    expect(substance('CO').lowestAutoignition_C!.value).toBe(605);
+  });
+  it('methanol 385 (National Research Council, Prudent Practices 1995, read) is the lowest of its three', () => {
+    expect(substance('CH3OH').autoignition_C).toHaveLength(3);
+    expect(substance('CH3OH').lowestAutoignition_C).toMatchObject({ value: 385, memory: false });
+  });
+  it('hydrogen sulfide 260 (NFPA 325, from memory)', () => {
+    expect(substance('H2S').lowestAutoignition_C!.value).toBe(260);
+  });
+});
+
+describe('minimum ignition energy, mJ', () => {
+  it('hydrogen 0.017 (ISO/TR 15916) and 0.019 (Lewis and von Elbe 1987), both from memory: within 0.017-0.02', () => {
+    const mie = substance('H2').minimumIgnitionEnergy_mJ.map((v) => v.value);
+    expect(mie).toEqual([0.017, 0.019]);
+    for (const v of mie) expect(v >= 0.017 && v <= 0.02).toBe(true);
+  });
+  it('methane 0.28 (Lewis and von Elbe 1987, from memory)', () => {
+    expect(substance('CH4').minimumIgnitionEnergy_mJ[0]!.value).toBe(0.28);
+  });
+});
+
+describe('exposure limits, ppm', () => {
+  it('carbon monoxide: IDLH 1200, NIOSH REL 35 TWA and 200 ceiling, OSHA PEL 50, ACGIH TLV 25 (NIOSH IDLH documentation, May 1994)', () => {
+    const e = substance('CO').exposure_ppm;
+    expect([e.idlh?.value, e.nioshRelTwa?.value, e.nioshRelCeiling?.value, e.oshaPelTwa?.value, e.acgihTlvTwa?.value]).toEqual([1200, 35, 200, 50, 25]);
+  });
+  it('nickel carbonyl: OSHA PEL and NIOSH REL 0.001 TWA, IDLH 2, ACGIH TLV 0.05 (NIOSH IDLH documentation and OSHA database, read); a carcinogen', () => {
+    const n = substance('Ni(CO)4');
+    expect([n.exposure_ppm.oshaPelTwa?.value, n.exposure_ppm.nioshRelTwa?.value, n.exposure_ppm.idlh?.value, n.exposure_ppm.acgihTlvTwa?.value]).toEqual([0.001, 0.001, 2, 0.05]);
+    expect(n.carcinogen?.value).toMatch(/carcinogen/);
+    expect(n.formsOnly).toBe(true);
+  });
+  it('ammonia: NIOSH REL 25 TWA and 35 STEL, OSHA PEL 50, IDLH 300 (NIOSH IDLH documentation 1994)', () => {
+    const e = substance('NH3').exposure_ppm;
+    expect([e.nioshRelTwa?.value, e.nioshRelStel?.value, e.oshaPelTwa?.value, e.idlh?.value]).toEqual([25, 35, 50, 300]);
+  });
+  it('methanol: NIOSH REL 200 TWA and 250 STEL, OSHA PEL 200, IDLH 6000 (NIOSH IDLH documentation 1994)', () => {
+    const e = substance('CH3OH').exposure_ppm;
+    expect([e.nioshRelTwa?.value, e.nioshRelStel?.value, e.oshaPelTwa?.value, e.idlh?.value]).toEqual([200, 250, 200, 6000]);
+  });
+  it('hydrogen sulfide: NIOSH REL 10 ceiling, OSHA PEL 20 ceiling and 50 peak, IDLH 100 (NIOSH IDLH documentation 1994)', () => {
+    const e = substance('H2S').exposure_ppm;
+    expect([e.nioshRelCeiling?.value, e.oshaPelCeiling?.value, e.oshaPelPeak?.value, e.idlh?.value]).toEqual([10, 20, 50, 100]);
+  });
+  it('carbon dioxide: NIOSH REL 5000 TWA, IDLH 40000 (NIOSH Pocket Guide, from memory)', () => {
+    expect([substance('CO2').exposure_ppm.nioshRelTwa?.value, substance('CO2').exposure_ppm.idlh?.value]).toEqual([5000, 40000]);
+  });
+});
+
+describe('the data file itself', () => {
+  it('covers every substance of the brief under the species labels of lib/thermo', () => {
+    for (const label of ['H2', 'CO', 'CH4', 'C2H6', 'C3H8', 'n-C4H10', 'NH3', 'CH3OH', 'C2H5OH', 'H2S', 'Ni(CO)4']) {
+      expect(substance(label).species).toBe(label);
+    }
+    for (const s of allSubstances().filter((s) => !s.formsOnly)) expect(getSpecies(s.species).label).toBe(s.species);
+  });
+  it('gives every value a source and a memory flag, and UFL ≥ LFL', () => {
+    for (const s of allSubstances()) {
+      const values = [s.lfl_percent, s.ufl_percent, ...s.autoignition_C, ...s.minimumIgnitionEnergy_mJ, s.limitingOxygen_percent, s.gasGroup, ...Object.values(s.exposure_ppm), ...s.notes];
+      for (const v of values.filter((v) => v !== null)) {
+        expect(v!.source.length, s.species).toBeGreaterThan(0);
+        expect(v!.citation.length, s.species).toBeGreaterThan(0);
+        expect(typeof v!.memory).toBe('boolean');
+      }
+      if (s.lfl_percent && s.ufl_percent) expect(s.ufl_percent.value).toBeGreaterThan(s.lfl_percent.value);
+    }
+  });
+  it('oxygen: 20.95 % in dry air (U.S. Standard Atmosphere 1976), enriched above 23.5 % (29 CFR 1910.146), both from memory', () => {
+    expect(substance('O2').inAir_percent!.value).toBe(20.95);
+    expect(substance('O2').enrichedAbove_percent!.value).toBe(23.5);
+  });
+  it('states every threshold with its source', () => {
+    for (const [id, t] of Object.entries(thresholds())) {
+      expect(t.source.length, id).toBeGreaterThan(10);
+      expect(t.why.length, id).toBeGreaterThan(10);
+    }
+    expect(thresholds().detectorAlarm_percentOfLfl.value).toBe(25);
+    expect(thresholds().nickelCarbonyl_C.value).toBe(200);
+  });
+});
+
+describe('standards cited by the cautions', () => {
+  it('has the full number and title of the standards the brief names', () => {
+    expect(standard('nfpa-2')).toMatchObject({ number: 'NFPA 2', title: 'Hydrogen Technologies Code' });
+    expect(standard('nfpa-853').title).toBe('Standard for the Installation of Stationary Fuel Cell Power Systems');
+    expect(standard('iec-62282-3-100').title).toMatch(/Stationary fuel cell power systems - Safety/);
+    expect(standard('iec-62282-3-300').title).toMatch(/Installation/);
+    expect(standard('iso-tr-15916').title).toBe('Basic considerations for the safety of hydrogen systems');
+    expect(standard('iec-60079-10-1').title).toMatch(/Classification of areas - Explosive gas atmospheres/);
+    expect(standard('asme-b31-12').title).toBe('Hydrogen Piping and Pipelines');
+    expect(standard('cga-g-5-4').title).toBe('Standard for Hydrogen Piping Systems at User Locations');
+    expect(standard('cga-g-5-5').title).toBe('Standard for Hydrogen Vent Systems');
+    expect(standard('iso-22734').title).toMatch(/water electrolysis/);
+  });
+  it('gives every standard a publisher, a scope and the memory flag of its title', () => {
+    for (const s of standards().values()) {
+      expect(s.publisher.length, s.id).toBeGreaterThan(0);
+      expect(s.scope.length, s.id).toBeGreaterThan(10);
+      expect(s.memory, s.id).toBe(true);
+    }
+  });
+});
