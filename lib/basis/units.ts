@@ -85,6 +85,11 @@ export interface Quantity {
   text: string;
 }
 
+/** What a value of the dimension looks like, as messages say it: 'a temperature such as "800 C" or "1073.15 K"'. */
+export function expectedText(dimension: Dimension): string {
+  return `${ARTICLE[dimension]} such as ${EXAMPLE[dimension]}`;
+}
+
 export class UnitError extends Error {
   constructor(readonly expected: string, readonly got: string) {
     super(`expected ${expected}, got ${got}`);
@@ -123,7 +128,7 @@ const NUMBER = /^\s*([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(.*?)\s*$/;
  * Throws UnitError with what was expected and what was found.
  */
 export function parseQuantity(input: string | number, dimension: Dimension): Quantity {
-  const expected = `${ARTICLE[dimension]} such as ${EXAMPLE[dimension]}`;
+  const expected = expectedText(dimension);
   if (typeof input === 'number') {
     if (dimension === 'fraction' && Number.isFinite(input)) {
       return { si: input, value: input, unit: '', dimension, gauge: false, text: String(input) };

@@ -1,0 +1,25 @@
+/**
+ * Humid air: dry air plus water vapour. The water mole fraction is the vapour partial pressure
+ * over the total pressure (ideal gas, Dalton's law):
+ *   at a dew point T_d:                 x_H2O = p_sat(T_d) / p
+ *   at relative humidity φ at T:        x_H2O = φ · p_sat(T) / p
+ * with p_sat from the species data (lib/thermo/saturation.ts) and p the air-electrode pressure.
+ * The dry-air fractions are scaled by (1 − x_H2O).
+ */
+import { saturationPressureBar } from '../thermo/saturation.ts';
+
+export function waterFractionAtDewPoint(dewPointK: number, pressureBar: number): number {
+  return saturationPressureBar(dewPointK) / pressureBar;
+}
+
+export function waterFractionAtRelativeHumidity(relativeHumidity: number, atK: number, pressureBar: number): number {
+  return (relativeHumidity * saturationPressureBar(atK)) / pressureBar;
+}
+
+/** Dry-air fractions scaled by (1 − x) with water vapour x added. */
+export function humidAir(dryAir: Readonly<Record<string, number>>, waterFraction: number): Record<string, number> {
+  const out: Record<string, number> = {};
+  for (const [species, x] of Object.entries(dryAir)) out[species] = x * (1 - waterFraction);
+  out.H2O = (out.H2O ?? 0) + waterFraction;
+  return out;
+}

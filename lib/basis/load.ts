@@ -1,0 +1,63 @@
+/**
+ * Loads a design basis: bytes → text (source-text.ts) → YAML tree (yaml-syntax.ts) → schema
+ * (zod-findings.ts) → physics and consistency (interpret.ts) → `DesignBasis`, or every problem
+ * found, each located at `file:line:col` and sorted by position. Warnings never stop a basis.
+ */
+import { readFileSync, statSync } from 'node:fs';
+import { decodeBasisBytes, MAX_BASIS_BYTES, tooLargeError } from './source-text.ts';
+import { parseBasisYaml } from './yaml-syntax.ts';
+import { schemaFindings } from './zod-findings.ts';
+import { interpret } from './interpret.ts';
+import { locate } from './locate.ts';
+import { Reader } from './reader.ts';
+import { Findings, sortDiagnostics } from './diagnostics.ts';
+import type { DesignBasis, Diagnostic } from './types.ts';
+import { UserError } from '../errors.ts';
+
+export type LoadResult = { ok: true; basis: DesignBasis; warnings: Diagnostic[] } | { ok: false; errors: Diagnostic[]; warnings: Diagnostic[] };
+
+function failed(errors: Diagnostic[], warnings: Diagnostic[] = []): LoadResult {
+  return { ok: false, errors: sortDiagnostics(errors), warnings: sortDiagnostics(warnings) };
+}
+
+/**
+ * Checks the text (or bytes) of a basis. `file` names it in diagnostics (as the user gave it);
+ * `id` is the project id.
+ */
+export function loadBasisText(text: string | Uint8Array, file: string, id: string): LoadResult {
+  const decoded = decodeBasisBytes(text, file);
+  if (!decoded.ok) return failed(decoded.errors);
+  const parsed = parseBasisYaml(decoded.text, file);
+  if (parsed.data === undefined) return failed(parsed.errors, parsed.warnings);
+  const findings = new Findings();
+  const flagged = schemaFindings(parsed.data, findings);
+  const reader = new Reader(parsed.data, flagged, findings);
+  const result = interpret(reader);
+  const place = (f: Parameters<typeof locate>[3]) => locate(parsed.doc, parsed.lines, file, f);
+  const located = findings.list.map(place);
+  const errors = [...parsed.errors, ...located.filter((d) => d.severity === 'error')];
+  const warnings = sortDiagnostics([...parsed.warnings, ...located.filter((d) => d.severity === 'warning')]);
+  if (errors.length || !result) return failed(errors, warnings);
+  const position = (d: Diagnostic) => d.line * 1e6 + d.column;
+  const inputs = reader.inputs
+    .map((input) => ({ input, at: position(place({ severity: 'warning', at: input.at, target: 'value', message: '' })) }))
+    .sort((a, b) => a.at - b.at)
+    .map(({ input }) => input.record);
+  return { ok: true, basis: { id, file, ...result, inputs, warnings }, warnings };
+}
+
+/** Reads and checks a basis file; the id defaults to the name of its folder. */
+export function loadBasisFile(path: string, options: { id?: string; displayPath?: string } = {}): LoadResult {
+  const file = options.displayPath ?? path;
+  const id = options.id ?? path.split(/[\\/]/).slice(-2, -1)[0] ?? 'basis';
+  let stat;
+  try {
+    stat = statSync(path);
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException).code;
+    throw new UserError(code === 'ENOENT' ? `${file}: no such file` : `${file}: cannot read (${code ?? (error as Error).message})`);
+  }
+  if (!stat.isFile()) throw new UserError(`${file}: not a file`);
+  if (stat.size > MAX_BASIS_BYTES) return failed([tooLargeError(file, stat.size)]);
+  return loadBasisText(readFileSync(path), file, id);
+}

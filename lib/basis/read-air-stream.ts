@@ -1,0 +1,95 @@
+/**
+ * `streams.air-electrode`: its composition, and for humid-air the humidity that completes it,
+ * { dew-point } or { relative-humidity, at }, turned into a water mole fraction at the
+ * air-electrode pressure (humid-air.ts). The humidity temperatures must lie within the
+ * liquid-water data, where the saturation pressure is defined.
+ */
+import { getSpecies } from '../thermo/species-data.ts';
+import { inRange } from '../thermo/properties.ts';
+import { saturationPressureBar } from '../thermo/saturation.ts';
+import { findPreset } from './presets.ts';
+import { humidAir, waterFractionAtDewPoint, waterFractionAtRelativeHumidity } from './humid-air.ts';
+import { kelvinText, readTemperature } from './read-conditions.ts';
+import { resolveComposition, type Composition } from './composition.ts';
+import type { Path } from './diagnostics.ts';
+import type { Read, Reader } from './reader.ts';
+import type { AirStream } from './types.ts';
+
+export interface AirStreamRead {
+  stream: AirStream;
+  feed: Composition;
+}
+
+const HUMIDITY_FORMS = '{ dew-point: "15 C" } or { relative-humidity: "60 %", at: "25 C" }';
+
+/** A humidity temperature, which needs the liquid-water data for its saturation pressure. */
+function saturationTemperature(reader: Reader, path: Path, label: string): Read | undefined {
+  const read = readTemperature(reader, path, label);
+  const water = getSpecies('H2O(L)');
+  if (read && !inRange(water, read.si)) {
+    reader.findings.error(read.at, `the ${label} must lie within the liquid-water data, ${kelvinText(water.lowK)} to ${kelvinText(water.highK)}, got ${read.text}`);
+    return undefined;
+  }
+  return read;
+}
+
+type Humidity = NonNullable<AirStream['humidity']>;
+
+function readHumidity(reader: Reader, path: Path, pressureBar: number | undefined): { humidity: Humidity; water: number; at: Path } | undefined {
+  const has = (key: string) => reader.has([...path, key]);
+  if (has('dew-point') && (has('relative-humidity') || has('at'))) {
+    reader.findings.error([...path, has('relative-humidity') ? 'relative-humidity' : 'at'], `give the humidity as ${HUMIDITY_FORMS}, not both`, 'key');
+    return undefined;
+  }
+  if (!has('dew-point') && !(has('relative-humidity') && has('at'))) {
+    const missing = has('relative-humidity') ? 'at' : has('at') ? 'relative-humidity' : 'dew-point';
+    reader.findings.error([...path, missing], `the humidity needs ${HUMIDITY_FORMS}`, 'missing');
+    return undefined;
+  }
+  if (has('dew-point')) {
+    const dew = saturationTemperature(reader, [...path, 'dew-point'], 'dew point');
+    if (!dew || pressureBar === undefined) return undefined;
+    return { humidity: { dewPointK: dew.si }, water: waterFractionAtDewPoint(dew.si, pressureBar), at: dew.at };
+  }
+  const rh = reader.scalar([...path, 'relative-humidity'], 'fraction', 'relative humidity');
+  const at = saturationTemperature(reader, [...path, 'at'], 'relative-humidity temperature');
+  if (rh && (rh.si < 0 || rh.si > 1)) {
+    reader.findings.error(rh.at, `a relative humidity lies between 0 and 100 %, got ${rh.text}`);
+    return undefined;
+  }
+  if (!rh || !at || pressureBar === undefined) return undefined;
+  return { humidity: { relativeHumidity: rh.si, atK: at.si }, water: waterFractionAtRelativeHumidity(rh.si, at.si, pressureBar), at: rh.at };
+}
+
+export function readAirStream(reader: Reader, path: Path, mixtures: ReadonlyMap<string, Composition>, pressureBar: number | undefined, inletK: number | undefined): AirStreamRead | undefined {
+  const source = reader.source([...path, 'source']);
+  const composition = resolveComposition(reader, [...path, 'composition'], 'air-electrode feed', mixtures, source);
+  const humidityPath = [...path, 'humidity'];
+  const hasHumidity = reader.has(humidityPath);
+  if (!composition) return undefined;
+  if (!composition.humid) {
+    if (hasHumidity) reader.findings.error(humidityPath, `humidity applies to composition humid-air only; this stream's composition is ${composition.name ?? 'given inline'}`, 'key');
+    const stream: AirStream = { ...(composition.name ? { compositionName: composition.name } : {}), composition: composition.fractions };
+    return { stream, feed: composition };
+  }
+  if (!hasHumidity) {
+    reader.findings.error(composition.at, `humid-air needs a humidity beside it: humidity: ${HUMIDITY_FORMS}`);
+    return undefined;
+  }
+  const humidity = readHumidity(reader, humidityPath, pressureBar);
+  if (!humidity || pressureBar === undefined) return undefined;
+  if (humidity.water >= 1) {
+    reader.findings.error(humidity.at, `this humidity needs a water partial pressure above the air-electrode pressure, ${pressureBar} bar: the air would be all steam`);
+    return undefined;
+  }
+  if (inletK !== undefined && inRange(getSpecies('H2O(L)'), inletK) && humidity.water * pressureBar > saturationPressureBar(inletK)) {
+    reader.findings.warning(humidity.at, `this much water vapour would condense at the air-electrode feed temperature, ${kelvinText(inletK)}`);
+  }
+  const dry = findPreset(findPreset(composition.name ?? '')?.base ?? 'dry-air')!;
+  const fractions = humidAir(dry.composition, humidity.water);
+  const speciesAt = Object.fromEntries(Object.keys(fractions).map((s) => [s, composition.at]));
+  return {
+    stream: { compositionName: composition.name ?? 'humid-air', composition: fractions, humidity: humidity.humidity },
+    feed: { ...composition, fractions, speciesAt },
+  };
+}

@@ -1,0 +1,58 @@
+/**
+ * The `cell:` section: technology (phosphoric-acid read as ht-pem) and a mode it supports
+ * (lib/electrochem/data/technologies.yaml), the material notes, whether the fuel electrode
+ * bears nickel (stated, else read from the fuel-electrode text, else the technology's usual
+ * electrode), the ionic transference number in (0, 1] and the crossover allowance.
+ */
+import { technology, type Mode, type Technology, type TechnologyId } from '../electrochem/technologies.ts';
+import { quotedList } from './suggest.ts';
+import type { Reader } from './reader.ts';
+import type { CellInfo } from './types.ts';
+
+/** How the fuel-electrode text names nickel: "Ni-YSZ", "Ni cermet", "nickel". */
+const NICKEL_TEXT = /\bni\b|nickel|Ni-/i;
+
+/** Technology and mode, checked against each other; read first since every later section depends on them. */
+export function readTechnology(reader: Reader): { technology: Technology; mode: Mode } | undefined {
+  const name = reader.text(['cell', 'technology']);
+  const mode = reader.text(['cell', 'mode']) as Mode | undefined;
+  if (name === undefined || mode === undefined) return undefined;
+  const tech = technology((name === 'phosphoric-acid' ? 'ht-pem' : name) as TechnologyId);
+  if (!tech.modes.includes(mode)) {
+    reader.findings.error(['cell', 'mode'], `${tech.id} cells (${tech.name}) run in ${quotedList(tech.modes)} mode only, not ${mode}`);
+    return undefined;
+  }
+  return { technology: tech, mode };
+}
+
+function nickel(reader: Reader, tech: Technology, fuelElectrode: string | undefined): Pick<CellInfo, 'nickelBearing' | 'nickelBearingFrom'> {
+  const stated = reader.flag(['cell', 'nickel-bearing']);
+  if (stated !== undefined) return { nickelBearing: stated, nickelBearingFrom: 'stated' };
+  if (fuelElectrode !== undefined) return { nickelBearing: NICKEL_TEXT.test(fuelElectrode), nickelBearingFrom: 'material text' };
+  // Without either, the usual electrode of the technology: nickel where the fuel gas is re-equilibrated at the electrode.
+  return { nickelBearing: tech.fuelGasEquilibrium, nickelBearingFrom: 'default' };
+}
+
+export function readCell(reader: Reader, tech: Technology, mode: Mode): CellInfo | undefined {
+  const fuelElectrode = reader.text(['cell', 'fuel-electrode']);
+  const airElectrode = reader.text(['cell', 'air-electrode']);
+  const electrolyte = reader.text(['cell', 'electrolyte']);
+  const transference = reader.scalar(['cell', 'ionic-transference-number'], 'fraction', 'ionic transference number');
+  let ionicTransferenceNumber = 1;
+  if (transference) {
+    if (transference.si > 0 && transference.si <= 1) ionicTransferenceNumber = transference.si;
+    else reader.findings.error(transference.at, `the ionic transference number lies in (0, 1], got ${transference.text}`);
+  }
+  const crossover = reader.scalar(['cell', 'crossover-allowance'], 'voltage', 'crossover allowance');
+  if (crossover && crossover.si < 0) reader.findings.error(crossover.at, `the crossover allowance is a voltage lost, 0 or more, got ${crossover.text}`);
+  return {
+    technology: tech.id,
+    mode,
+    ...(fuelElectrode !== undefined ? { fuelElectrode } : {}),
+    ...(airElectrode !== undefined ? { airElectrode } : {}),
+    ...(electrolyte !== undefined ? { electrolyte } : {}),
+    ...nickel(reader, tech, fuelElectrode),
+    ionicTransferenceNumber,
+    crossoverAllowanceV: crossover && crossover.si >= 0 ? crossover.si : 0,
+  };
+}

@@ -1,0 +1,88 @@
+/**
+ * The `conditions:` section: temperatures (above absolute zero; the operating temperature
+ * compared with the technology's typical range) and pressures (absolute, above zero; gauge
+ * values referred to one standard atmosphere). The sweep range and the species-data range
+ * checks need the streams, so they follow in temperature-ranges.ts.
+ */
+import { PA_PER_BAR, REFERENCE_TEMPERATURE_K } from '../thermo/constants.ts';
+import type { Technology } from '../electrochem/technologies.ts';
+import type { Path } from './diagnostics.ts';
+import type { Read, Reader } from './reader.ts';
+
+/** "1073.15 K (800 °C)" for messages. */
+export function kelvinText(kelvin: number): string {
+  const round = (x: number) => String(Number(x.toFixed(2)));
+  return `${round(kelvin)} K (${round(kelvin - 273.15)} °C)`;
+}
+
+/** A temperature input, refused at or below absolute zero. */
+export function readTemperature(reader: Reader, path: Path, label: string): Read | undefined {
+  const read = reader.scalar(path, 'temperature', label);
+  if (!read) return undefined;
+  if (read.si <= 0) {
+    reader.findings.error(read.at, `${read.text} is at or below absolute zero (${String(Number(read.si.toFixed(2)))} K)`);
+    return undefined;
+  }
+  return read;
+}
+
+/** A pressure input in bar absolute, refused at or below zero absolute (a gauge value below vacuum included). */
+function readPressure(reader: Reader, path: Path, label: string): number | undefined {
+  const read = reader.scalar(path, 'pressure', label);
+  if (!read) return undefined;
+  const bar = read.si / PA_PER_BAR;
+  if (read.si <= 0) {
+    const absolute = `${String(Number(bar.toFixed(5)))} bar absolute`;
+    reader.findings.error(
+      read.at,
+      read.gauge
+        ? `${read.text} is below vacuum: ${absolute} (gauge pressures are referred to 1 atm = 1.01325 bar)`
+        : `an absolute pressure must be above zero, got ${read.text} (for a gauge pressure write barg or bar(g))`,
+    );
+    return undefined;
+  }
+  return bar;
+}
+
+export interface ConditionsRead {
+  temperature?: Read;
+  sweep?: { from: Read; to: Read };
+  fuelInlet?: Read;
+  airInlet?: Read;
+  allowedAirTemperatureRiseK: number;
+  fuelPressureBar?: number;
+  airPressureBar?: number;
+  ambientTemperatureK: number;
+}
+
+const C = (key: string): Path => ['conditions', key];
+
+export function readConditions(reader: Reader, tech: Technology | undefined): ConditionsRead {
+  const temperature = readTemperature(reader, C('operating-temperature'), 'operating temperature');
+  if (temperature && tech && (temperature.si < tech.typicalFromK || temperature.si > tech.typicalToK)) {
+    reader.findings.warning(
+      temperature.at,
+      `${temperature.text} is outside the typical range of ${tech.id} cells, ${kelvinText(tech.typicalFromK)} to ${kelvinText(tech.typicalToK)} (common practice, no source)`,
+    );
+  }
+  const from = readTemperature(reader, [...C('temperature-sweep'), 'from'], 'temperature sweep start');
+  const to = readTemperature(reader, [...C('temperature-sweep'), 'to'], 'temperature sweep end');
+  if (from && to && from.si >= to.si) reader.findings.error(to.at, `the sweep must end above where it starts (${from.text}), got ${to.text}`);
+  const rise = reader.scalar(C('allowed-air-temperature-rise'), 'temperature-difference', 'allowed air temperature rise');
+  if (rise && rise.si <= 0) reader.findings.error(rise.at, `the allowed temperature rise must be above zero, got ${rise.text}`);
+  const ambient = readTemperature(reader, C('ambient-temperature'), 'ambient temperature');
+  const fuelInlet = readTemperature(reader, C('fuel-inlet-temperature'), 'fuel inlet temperature');
+  const airInlet = readTemperature(reader, C('air-inlet-temperature'), 'air inlet temperature');
+  const fuelPressureBar = readPressure(reader, C('fuel-electrode-pressure'), 'fuel-electrode pressure');
+  const airPressureBar = readPressure(reader, C('air-electrode-pressure'), 'air-electrode pressure');
+  return {
+    ...(temperature ? { temperature } : {}),
+    ...(from && to && from.si < to.si ? { sweep: { from, to } } : {}),
+    ...(fuelInlet ? { fuelInlet } : {}),
+    ...(airInlet ? { airInlet } : {}),
+    allowedAirTemperatureRiseK: rise && rise.si > 0 ? rise.si : 100,
+    ...(fuelPressureBar !== undefined ? { fuelPressureBar } : {}),
+    ...(airPressureBar !== undefined ? { airPressureBar } : {}),
+    ambientTemperatureK: ambient?.si ?? REFERENCE_TEMPERATURE_K,
+  };
+}

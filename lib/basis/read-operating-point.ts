@@ -1,0 +1,149 @@
+/**
+ * `operating-point:`: utilization (fuel-utilization in power mode, steam-conversion in
+ * electrolysis), the air supply (air-utilization or air-ratio in power mode; sweep-ratio or
+ * nothing in electrolysis), current density, the voltage model (cell-voltage or
+ * area-specific-resistance), active area, and the stack size: cells and/or a target. When both
+ * a cell count and a target are given, both are kept (statedCells) and the calculation checks
+ * that they agree within 2 %, since only it knows the power per cell.
+ */
+import type { Mode } from '../electrochem/technologies.ts';
+import type { Path } from './diagnostics.ts';
+import type { Read, Reader } from './reader.ts';
+import type { AirSupply, OperatingPoint, StackSize, VoltageModel } from './types.ts';
+import type { Dimension } from './units.ts';
+
+const OP = (key: string): Path => ['operating-point', key];
+
+type Check = (si: number) => boolean;
+
+const positive: Check = (x) => x > 0;
+const openUnit: Check = (x) => x > 0 && x < 1;
+
+/** Reads a scalar and checks its range; `rule` words the range for the message. */
+function bounded(reader: Reader, key: string, dimension: Dimension, label: string, check: Check, rule: string): Read | undefined {
+  const read = reader.scalar(OP(key), dimension, label);
+  if (read && !check(read.si)) {
+    reader.findings.error(read.at, `the ${label} ${rule}, got ${read.text}`);
+    return undefined;
+  }
+  return read;
+}
+
+/**
+ * Which one of `keys` is written: an error when several are, and when none is but one is
+ * required. Keys not allowed in this mode are refused with `refusal`.
+ */
+function oneOf(reader: Reader, keys: string[], required: string | undefined, refused: Record<string, string>): string | undefined {
+  for (const [key, why] of Object.entries(refused)) if (reader.has(OP(key))) reader.findings.error(OP(key), why, 'key');
+  const given = keys.filter((k) => reader.has(OP(k)));
+  if (given.length > 1) {
+    reader.findings.error(OP(given[1]!), `give ${keys.join(' or ')}, not both`, 'key');
+    return undefined;
+  }
+  if (given.length === 0 && required) reader.findings.error(OP(keys[0]!), required, 'missing');
+  return given[0];
+}
+
+function utilization(reader: Reader, mode: Mode): number | undefined {
+  const [key, label, other] = mode === 'power' ? ['fuel-utilization', 'fuel utilization', 'steam-conversion'] : ['steam-conversion', 'steam conversion', 'fuel-utilization'];
+  const required = reader.has(OP(other)) ? undefined : `${mode} mode needs ${key}, a fraction such as 0.8 or "80 %"`;
+  const given = oneOf(reader, [key], required, {
+    [other]: `${other} belongs to ${mode === 'power' ? 'electrolysis' : 'power mode'}; in ${mode} mode give ${key}`,
+  });
+  return given ? bounded(reader, key, 'fraction', label, openUnit, 'lies strictly between 0 and 1')?.si : undefined;
+}
+
+function airSupply(reader: Reader, mode: Mode, sweep: { allowed: boolean; feed: boolean }): AirSupply | undefined {
+  if (mode === 'power') {
+    const given = oneOf(reader, ['air-utilization', 'air-ratio'], 'power mode needs air-utilization (e.g. 0.25) or air-ratio (e.g. 4)', {
+      'sweep-ratio': 'sweep-ratio belongs to electrolysis; in power mode give air-utilization or air-ratio',
+    });
+    if (given === 'air-utilization') {
+      const read = bounded(reader, given, 'fraction', 'air utilization', openUnit, 'lies strictly between 0 and 1');
+      return read && { kind: 'utilization', value: read.si };
+    }
+    if (given === 'air-ratio') {
+      const read = bounded(reader, given, 'fraction', 'air ratio', (x) => x > 1, 'must be above 1 (more oxygen fed than consumed)');
+      return read && { kind: 'ratio', value: read.si };
+    }
+    return undefined;
+  }
+  const refused = Object.fromEntries(['air-utilization', 'air-ratio'].map((k) => [k, `${k} belongs to power mode; in electrolysis give sweep-ratio for a sweep gas, or nothing`]));
+  if (!sweep.allowed) refused['sweep-ratio'] = 'sweep-ratio applies to a sweep gas at the air electrode, which this technology does not take in electrolysis';
+  const given = oneOf(reader, sweep.allowed ? ['sweep-ratio'] : [], undefined, refused);
+  if (!sweep.allowed) return { kind: 'none' };
+  if (given && !sweep.feed) {
+    reader.findings.error(OP('sweep-ratio'), 'sweep-ratio needs the sweep gas under streams.air-electrode', 'key');
+    return undefined;
+  }
+  if (!given && sweep.feed) {
+    reader.findings.error(OP('sweep-ratio'), 'the sweep gas of streams.air-electrode needs sweep-ratio (sweep-gas moles per mole of O2 produced)', 'missing');
+    return undefined;
+  }
+  if (!given) return { kind: 'none' };
+  const read = bounded(reader, 'sweep-ratio', 'fraction', 'sweep ratio', positive, 'must be above zero');
+  return read && { kind: 'sweep-ratio', value: read.si };
+}
+
+function voltage(reader: Reader): VoltageModel | undefined {
+  const given = oneOf(reader, ['cell-voltage', 'area-specific-resistance'], 'give cell-voltage (e.g. "0.80 V") or area-specific-resistance (e.g. "0.35 ohm cm2")', {});
+  if (given === 'cell-voltage') {
+    const read = bounded(reader, given, 'voltage', 'cell voltage', positive, 'must be above zero');
+    return read && { kind: 'given', cellVoltageV: read.si };
+  }
+  if (given === 'area-specific-resistance') {
+    const read = bounded(reader, given, 'area-specific-resistance', 'area-specific resistance', positive, 'must be above zero');
+    return read && { kind: 'area-specific-resistance', ohmM2: read.si };
+  }
+  return undefined;
+}
+
+function size(reader: Reader, mode: Mode): { size: StackSize; statedCells?: number } | undefined {
+  const refused: Record<string, string> = mode === 'power' ? { 'target-hydrogen': 'target-hydrogen belongs to electrolysis; in power mode give target-power or cells' } : {};
+  const target = oneOf(reader, mode === 'power' ? ['target-power'] : ['target-power', 'target-hydrogen'], undefined, refused);
+  const hasCells = reader.has(OP('cells'));
+  if (!target && !hasCells && !reader.has(OP('target-hydrogen'))) {
+    reader.findings.error(OP('cells'), `give cells, target-power${mode === 'electrolysis' ? ' or target-hydrogen' : ''} (or cells and a target)`, 'missing');
+    return undefined;
+  }
+  const cells = bounded(reader, 'cells', 'fraction', 'number of cells', (x) => Number.isInteger(x) && x > 0, 'must be a positive whole number');
+  if (hasCells && !cells) return undefined;
+  if (!target) return cells && { size: { kind: 'cells', cells: cells.si } };
+  const read = bounded(reader, target, target === 'target-power' ? 'power' : 'mass-flow', target === 'target-power' ? 'target power' : 'target hydrogen production', positive, 'must be above zero');
+  if (!read) return undefined;
+  const sized: StackSize = target === 'target-power' ? { kind: 'power', powerW: read.si } : { kind: 'hydrogen', kgPerS: read.si };
+  return { size: sized, ...(cells ? { statedCells: cells.si } : {}) };
+}
+
+function parasitic(reader: Reader, mode: Mode): number | undefined {
+  if (mode === 'electrolysis') {
+    oneOf(reader, [], undefined, { 'parasitic-load': 'parasitic-load applies to power mode (the balance-of-plant share of the gross output)' });
+    return reader.has(OP('parasitic-load')) ? undefined : 0;
+  }
+  if (!reader.has(OP('parasitic-load'))) return 0;
+  return bounded(reader, 'parasitic-load', 'fraction', 'parasitic load', (x) => x >= 0 && x < 1, 'lies in [0, 1)')?.si;
+}
+
+export function readOperatingPoint(reader: Reader, mode: Mode, sweep: { allowed: boolean; feed: boolean }): OperatingPoint | undefined {
+  const values = {
+    utilization: utilization(reader, mode),
+    air: airSupply(reader, mode, sweep),
+    currentDensity: bounded(reader, 'current-density', 'current-density', 'current density', positive, 'must be above zero'),
+    voltage: voltage(reader),
+    activeArea: bounded(reader, 'active-area', 'area', 'active area', positive, 'must be above zero'),
+    size: size(reader, mode),
+    parasiticFraction: parasitic(reader, mode),
+  };
+  const { utilization: u, air, currentDensity, voltage: v, activeArea, size: s, parasiticFraction } = values;
+  if (u === undefined || !air || !currentDensity || !v || !activeArea || !s || parasiticFraction === undefined) return undefined;
+  return {
+    utilization: u,
+    air,
+    currentDensityAPerM2: currentDensity.si,
+    voltage: v,
+    activeAreaM2: activeArea.si,
+    size: s.size,
+    ...(s.statedCells !== undefined ? { statedCells: s.statedCells } : {}),
+    parasiticFraction,
+  };
+}

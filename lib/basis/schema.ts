@@ -1,0 +1,200 @@
+/**
+ * The shape of a design-basis YAML file (projects/<id>/basis.yaml): every section and key, its
+ * type and what it means. The loader checks files against it and the JSON Schema for editors
+ * (schema/design-basis.schema.json, `cellbasis schema`) is generated from it, so the two cannot
+ * drift. Keys are kebab-case plain English; every dimensional value is text with its unit.
+ * Which keys each technology and mode needs, and every physical limit, are checked after this
+ * shape by the read-*.ts modules.
+ */
+import { z } from 'zod';
+import { TECHNOLOGY_IDS } from '../electrochem/technologies.ts';
+import { DOCUMENT_STATUSES } from './types.ts';
+import { choice, composition, flag, fraction, isoDate, number, quantity, speciesFractions, strict, text } from './schema-parts.ts';
+
+/** Technology names a basis may give: the technology ids, and phosphoric-acid for ht-pem. */
+export const TECHNOLOGY_NAMES = [...TECHNOLOGY_IDS, 'phosphoric-acid'] as const;
+
+const STATUSES = DOCUMENT_STATUSES as unknown as readonly [string, ...string[]];
+
+const signatory = (role: string) =>
+  strict(
+    {
+      name: text(`who ${role} the document`),
+      date: isoDate('when, YYYY-MM-DD').optional(),
+    },
+    `the person who ${role} the document`,
+  );
+
+const documentSection = strict(
+  {
+    title: text('document title, e.g. "250 kW solid oxide CHP module, stack design basis"'),
+    number: text('document number, e.g. HLX-DB-1042'),
+    revision: text('revision, e.g. A (quote a number: "1")'),
+    status: choice(STATUSES, 'document status'),
+    client: text('the client (invented names in demos)'),
+    site: text('the site'),
+    paper: choice(['A4', 'Letter'] as const, 'paper size of the printed document (default A4)').optional(),
+    purpose: text('why this design basis exists'),
+    scope: text('what it covers and what it leaves out'),
+    'sign-off': strict(
+      {
+        prepared: signatory('prepared'),
+        checked: signatory('checked').optional(),
+        approved: signatory('approved').optional(),
+      },
+      'who prepared, checked and approved the document, with dates',
+    ),
+  },
+  'document control: title, number, revision, status, client, site, purpose, scope, sign-off',
+);
+
+const cellSection = strict(
+  {
+    technology: choice(TECHNOLOGY_NAMES, 'cell technology (phosphoric-acid is read as ht-pem)'),
+    mode: choice(['power', 'electrolysis'] as const, 'power (fuel cell) or electrolysis; must be a mode of the technology'),
+    'fuel-electrode': text('fuel-electrode material (free text), e.g. Ni-YSZ cermet').optional(),
+    'air-electrode': text('air-electrode material (free text), e.g. LSM-YSZ').optional(),
+    electrolyte: text('electrolyte material (free text), e.g. 8YSZ').optional(),
+    'nickel-bearing': flag('whether the fuel electrode contains nickel; when omitted, read from the fuel-electrode text (Ni, nickel)').optional(),
+    'ionic-transference-number': fraction(
+      'ionic transference number t_ion of the electrolyte, in (0, 1]; open-circuit voltage = t_ion × Nernst voltage (default 1)',
+    ).optional(),
+    'crossover-allowance': quantity('voltage', 'voltage subtracted from the open-circuit voltage for gas crossover and leakage, e.g. "10 mV" (default 0)').optional(),
+  },
+  'the cell: technology, mode and materials',
+);
+
+const conditionsSection = strict(
+  {
+    'operating-temperature': quantity('temperature', 'stack operating temperature, e.g. "800 C"'),
+    'temperature-sweep': strict(
+      {
+        from: quantity('temperature', 'lowest temperature of the sweep charts'),
+        to: quantity('temperature', 'highest temperature of the sweep charts'),
+      },
+      'temperature range of the sweep charts (default: 150 K either side of the operating temperature, within the species data)',
+    ).optional(),
+    'fuel-inlet-temperature': quantity('temperature', 'fuel-electrode feed temperature at the stack inlet (default: operating temperature)').optional(),
+    'air-inlet-temperature': quantity('temperature', 'air-electrode feed temperature at the stack inlet (default: operating temperature)').optional(),
+    'allowed-air-temperature-rise': quantity('temperature-difference', 'allowed temperature rise of the air through the stack, e.g. "150 K" (default 100 K)').optional(),
+    'fuel-electrode-pressure': quantity('pressure', 'fuel-electrode gas pressure, absolute unless the unit says gauge (barg, bar(g), psig, kPa(g))'),
+    'air-electrode-pressure': quantity('pressure', 'air-electrode gas pressure, absolute unless the unit says gauge'),
+    'ambient-temperature': quantity('temperature', 'ambient (cold-sink) temperature for the Carnot comparison (default 25 C)').optional(),
+  },
+  'temperatures and pressures',
+);
+
+const mixture = strict(
+  {
+    source: text('where the composition comes from: a reference id or a justification'),
+    composition: speciesFractions('species and mole fractions; they must sum to 1 (within 0.5 %, then normalised)'),
+  },
+  'a composition defined by this project',
+);
+
+const PRE_REFORMING = 'none, or { kind: equilibrium, temperature: "480 C" }';
+
+const preReforming = z
+  .union(
+    [
+      z.literal('none', { error: `expected ${PRE_REFORMING}` }),
+      strict({
+        kind: choice(['equilibrium'] as const, 'equilibrium: the gas leaves the pre-reformer at chemical equilibrium'),
+        temperature: quantity('temperature', 'pre-reformer outlet temperature'),
+      }),
+    ],
+    { error: (issue) => `expected ${PRE_REFORMING}, got ${JSON.stringify(issue.input)}` },
+  )
+  .meta({ description: `${PRE_REFORMING}: a pre-reformer ahead of the stack whose outlet gas is at chemical equilibrium at that temperature` });
+
+const fuelStream = strict(
+  {
+    composition: composition('a mixture name, a preset name (hydrogen, natural-gas, biogas, steam, ...) or { species: mole fraction }'),
+    source: text('where the composition comes from').optional(),
+    'steam-to-carbon': number('mol of steam added per mol of combustible carbon of the dry fuel (power mode)', '2.5').optional(),
+    'steam-per-mole-fuel': number('mol of steam added per mol of dry fuel, instead of steam-to-carbon (power mode)', '0.5').optional(),
+    'pre-reforming': preReforming.optional(),
+  },
+  'feed of the fuel electrode: the fuel in power mode; steam (+ H2, CO2) in solid-oxide electrolysis',
+);
+
+const airStream = strict(
+  {
+    composition: composition('a mixture name, a preset name (dry-air, humid-air, oxygen, steam, liquid-water) or { species: mole fraction }'),
+    source: text('where the composition comes from').optional(),
+    humidity: strict(
+      {
+        'dew-point': quantity('temperature', 'dew point of the air at the air-electrode pressure').optional(),
+        'relative-humidity': fraction('relative humidity, e.g. "60 %"').optional(),
+        at: quantity('temperature', 'temperature at which the relative humidity is stated').optional(),
+      },
+      'humidity of humid-air: { dew-point: "15 C" } or { relative-humidity: "60 %", at: "25 C" }',
+    ).optional(),
+  },
+  'feed of the air electrode: air or oxygen (power); sweep air, steam or liquid water (electrolysis)',
+);
+
+const streamsSection = strict(
+  {
+    'fuel-electrode': fuelStream.optional(),
+    'air-electrode': airStream.optional(),
+  },
+  'the feeds of the two electrodes (which are needed depends on technology and mode)',
+);
+
+const operatingPointSection = strict(
+  {
+    'fuel-utilization': fraction('fraction of the fuel fed that reacts (power mode), in (0, 1)').optional(),
+    'steam-conversion': fraction('fraction of the water fed that is split (electrolysis), in (0, 1)').optional(),
+    'air-utilization': fraction('fraction of the oxygen fed that reacts (power mode), in (0, 1); or give air-ratio').optional(),
+    'air-ratio': number('oxygen fed per oxygen consumed (power mode), above 1; or give air-utilization', '4').optional(),
+    'sweep-ratio': number('electrolysis: sweep-gas moles per mole of O2 produced; omit for pure oxygen', '2').optional(),
+    'current-density': quantity('current-density', 'current density, e.g. "0.4 A/cm2"'),
+    'cell-voltage': quantity('voltage', 'cell voltage, e.g. "0.80 V"; or give area-specific-resistance').optional(),
+    'area-specific-resistance': quantity('area-specific-resistance', 'area-specific resistance, e.g. "0.35 ohm cm2"; or give cell-voltage').optional(),
+    'active-area': quantity('area', 'active area of one cell, e.g. "100 cm2"'),
+    cells: number('number of cells (a positive whole number)', '1200').optional(),
+    'target-power': quantity('power', 'net electric output (power mode) or electric input (electrolysis), e.g. "250 kW"').optional(),
+    'target-hydrogen': quantity('mass-flow', 'hydrogen production (electrolysis), e.g. "500 kg/day"').optional(),
+    'parasitic-load': fraction('fraction of the gross DC power used by the balance of plant (power mode), in [0, 1) (default 0)').optional(),
+  },
+  'the operating point. Give cells, a target, or both; when both, the calculation checks that they agree within 2 % and reports where they do not',
+);
+
+const sensitivitySection = strict(
+  {
+    temperature: quantity('temperature-difference', 'temperature step (default "25 K")').optional(),
+    pressure: fraction('relative pressure step (default "10 %")').optional(),
+    utilization: fraction('absolute step of fuel utilization or steam conversion (default 0.05)').optional(),
+    'steam-to-carbon': number('absolute step of the steam-to-carbon ratio (default 0.5)', '0.5').optional(),
+    'current-density': fraction('relative current-density step (default "10 %")').optional(),
+  },
+  'steps of the sensitivity study; the defaults (25 K, 10 %, 0.05, 0.5, 10 %) are common practice, no source',
+);
+
+const assumption = strict({
+  id: text('assumption id, e.g. A1'),
+  text: text('the assumption'),
+  open: flag('true when it still needs verification (listed as an open item)').optional(),
+  reference: text('a reference id of `references`').optional(),
+});
+
+const reference = strict({
+  id: text('reference id, e.g. R1'),
+  citation: text('the full citation'),
+});
+
+export const basisSchema = strict(
+  {
+    document: documentSection,
+    cell: cellSection,
+    conditions: conditionsSection,
+    mixtures: z.record(z.string(), mixture).meta({ description: 'named compositions defined by this project, e.g. site-natural-gas' }).optional(),
+    streams: streamsSection.optional(),
+    'operating-point': operatingPointSection,
+    sensitivity: sensitivitySection.optional(),
+    assumptions: z.array(assumption).meta({ description: 'assumptions, each with an id; open: true marks those still to verify' }).optional(),
+    references: z.array(reference).meta({ description: 'references cited by id from sources and assumptions' }).optional(),
+  },
+  'A cellbasis design basis for a fuel-cell or electrolyser plant. Every dimensional value is text with its unit, e.g. "800 C", "1.2 bar".',
+);
