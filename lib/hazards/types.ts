@@ -16,6 +16,11 @@ export type StreamRole = 'feed' | 'internal' | 'outlet' | 'product';
 
 export const STREAM_ROLES: readonly StreamRole[] = ['feed', 'internal', 'outlet', 'product'];
 
+/** The fuel-electrode (and reformer) side or the air-electrode side of the plant. */
+export type StreamSide = 'fuel' | 'air';
+
+export const STREAM_SIDES: readonly StreamSide[] = ['fuel', 'air'];
+
 export interface HazardStream {
   id: string;
   name: string;
@@ -26,6 +31,8 @@ export interface HazardStream {
   moleFractions: Record<string, number>;
   /** What the stream is; when omitted it is treated as an outlet (the rules then err towards cautioning). */
   role?: StreamRole;
+  /** Which electrode's gas it is; when omitted, the rules that depend on it treat it as fuel side. */
+  side?: StreamSide;
 }
 
 export interface HazardInput {
@@ -125,6 +132,7 @@ export interface StreamIndicators {
   role: StreamRole;
   /** True where the role was not given and `outlet` was assumed. */
   roleAssumed: boolean;
+  side: StreamSide | 'not given';
   temperature_K: number;
   temperature_C: number;
   pressure_bar: number;

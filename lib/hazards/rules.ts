@@ -1,0 +1,98 @@
+/**
+ * The caution rule table (data/rules.yaml), checked at first use: every condition names a
+ * predicate of predicates.ts, every standard an entry of standards.yaml, every substance an entry
+ * of substances.yaml. Evaluating it renders each triggered rule's title and text from its
+ * templates (template.ts) with the condition's values and the data values (data-values.ts).
+ */
+import { readFileSync } from 'node:fs';
+import { parse as parseYaml } from 'yaml';
+import { z } from 'zod';
+import { TECHNOLOGY_IDS } from '../electrochem/technologies.ts';
+import { dataValue } from './data-values.ts';
+import { PREDICATES, type Match, type RuleContext, type Values } from './predicates.ts';
+import { standardRef, standards } from './standards.ts';
+import { findSubstance } from './substances.ts';
+import { renderTemplate, sentence, type Resolver } from './template.ts';
+import { SEVERITIES, type Caution } from './types.ts';
+
+const SeverityId = z.enum(SEVERITIES);
+
+const RawRule = z.strictObject({
+  id: z.string().regex(/^[a-z0-9-]+$/),
+  title: z.string(),
+  when: z.string(),
+  substance: z.string().optional(),
+  technology: z.enum(TECHNOLOGY_IDS).optional(),
+  severity: SeverityId,
+  escalate: z.strictObject({ to: SeverityId, when: z.string() }).optional(),
+  concerns: z.array(z.string()).optional(),
+  each: z.string().optional(),
+  text: z.string(),
+  standards: z.array(z.string()),
+});
+
+export type Rule = z.infer<typeof RawRule>;
+
+const WHERE = 'lib/hazards/data/rules.yaml';
+
+function check(rule: Rule): void {
+  const fail = (why: string) => {
+    throw new Error(`${WHERE}: rule ${rule.id}: ${why}`);
+  };
+  if (!(rule.when in PREDICATES)) fail(`unknown condition "${rule.when}"`);
+  if (rule.when === 'substance-present' && !rule.substance) fail('substance-present needs a substance');
+  if (rule.when === 'technology-is' && !rule.technology) fail('technology-is needs a technology');
+  for (const label of [rule.substance, ...(rule.concerns ?? [])]) {
+    if (label !== undefined && !findSubstance(label)) fail(`unknown substance "${label}"`);
+  }
+  for (const id of rule.standards) if (!standards().has(id)) fail(`unknown standard "${id}"`);
+}
+
+let cache: Rule[] | undefined;
+
+export function rules(): Rule[] {
+  if (cache) return cache;
+  const table = z.array(RawRule).parse(parseYaml(readFileSync(new URL('./data/rules.yaml', import.meta.url), 'utf8')));
+  const ids = new Set<string>();
+  for (const rule of table) {
+    check(rule);
+    if (ids.has(rule.id)) throw new Error(`${WHERE}: rule id ${rule.id} is used twice`);
+    ids.add(rule.id);
+  }
+  cache = table;
+  return cache;
+}
+
+function resolverOf(rule: Rule, ...layers: Values[]): Resolver {
+  return (name) => {
+    for (const layer of layers) if (name in layer) return layer[name];
+    return dataValue(name, rule.substance);
+  };
+}
+
+function render(rule: Rule, match: Match): Caution {
+  const where = `${WHERE}: rule ${rule.id}`;
+  const lines = rule.each ? match.each.map((values) => renderTemplate(rule.each!, resolverOf(rule, values, match.values), `${where} (each)`)) : [];
+  const resolve = resolverOf(rule, { each: lines.length ? lines.join('; ') : undefined }, match.values);
+  return {
+    id: rule.id,
+    title: sentence(renderTemplate(rule.title, resolve, `${where} (title)`)),
+    severity: match.escalate && rule.escalate ? rule.escalate.to : rule.severity,
+    text: sentence(renderTemplate(rule.text, resolve, where)),
+    standards: rule.standards.map(standardRef),
+    triggeredBy: match.triggeredBy,
+  };
+}
+
+export interface TriggeredRule {
+  rule: Rule;
+  caution: Caution;
+}
+
+/** Every rule whose condition holds, with its rendered caution, in the order of the table. */
+export function evaluateRules(ctx: RuleContext): TriggeredRule[] {
+  return rules().flatMap((rule) => {
+    const match = PREDICATES[rule.when]!(ctx, { substance: rule.substance, technology: rule.technology });
+    return match ? [{ rule, caution: render(rule, match) }] : [];
+  });
+}

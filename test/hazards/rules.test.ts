@@ -1,0 +1,176 @@
+// Every caution rule triggered by a minimal input and not triggered by the nearest input that
+// misses its condition. The thresholds the cases straddle come from the data: LFL of H2 4 % and
+// CH4 5 % (ISO/TR 15916, Zabetakis 1965), lowest AIT of H2 400 °C (Zabetakis 1965), the nickel
+// carbonyl temperature 200 °C (common practice), the hydrogen-attack screen 200 °C (API RP 941,
+// from memory), oxygen-enriched above 23.5 % (29 CFR 1910.146), IDLHs of NIOSH (1994).
+import { describe, expect, it } from 'vitest';
+import { assessHazards } from '../../lib/hazards/assessment.ts';
+import { rules } from '../../lib/hazards/rules.ts';
+import type { HazardInput, HazardStream } from '../../lib/hazards/types.ts';
+
+const C = 273.15;
+const ATM = 1.01325;
+
+const base: HazardInput = {
+  streams: [],
+  technology: 'pem',
+  mode: 'power',
+  nickelBearing: false,
+  operatingTemperatureK: 70 + C,
+  fuelPressureBar: ATM,
+  airPressureBar: ATM,
+  ambientTemperatureK: 25 + C,
+};
+
+function stream(moleFractions: Record<string, number>, over: Partial<HazardStream> = {}): HazardStream {
+  return { id: 'x', name: 'test stream', role: 'feed', temperatureK: 25 + C, pressureBar: ATM, moleFractions, ...over };
+}
+
+const withStream = (moleFractions: Record<string, number>, over: Partial<HazardStream> = {}, basis: Partial<HazardInput> = {}): HazardInput => ({
+  ...base,
+  ...basis,
+  streams: [stream(moleFractions, over)],
+});
+
+const inAir = (fuel: Record<string, number>): Record<string, number> => {
+  const rest = 1 - Object.values(fuel).reduce((a, b) => a + b, 0);
+  return { ...fuel, O2: rest * 0.2095, N2: rest * 0.7905 };
+};
+
+const COSTREAM = { CO: 0.1, N2: 0.9 };
+const H2STREAM = { H2: 0.5, N2: 0.5 };
+
+/** Rule id → [input that triggers it, nearest input that does not]. */
+const CASES: Record<string, [HazardInput, HazardInput]> = {
+  'nickel-carbonyl-in-operation': [
+    withStream(COSTREAM, {}, { nickelBearing: true, operatingTemperatureK: 150 + C }),
+    withStream(COSTREAM, {}, { nickelBearing: true, operatingTemperatureK: 250 + C }),
+  ],
+  'nickel-carbonyl-shutdown': [withStream(COSTREAM, {}, { nickelBearing: true }), withStream(COSTREAM, {}, { nickelBearing: false })],
+  'carbon-monoxide': [withStream({ CO: 0.001, N2: 0.999 }), withStream({ N2: 1 })],
+  'stream-flammable': [withStream(inAir({ H2: 0.1 })), withStream(inAir({ H2: 0.02 }))],
+  autoignition: [withStream(H2STREAM, { temperatureK: 450 + C }), withStream(H2STREAM, { temperatureK: 350 + C })],
+  'offgas-oxidation': [withStream(H2STREAM, { role: 'outlet' }), withStream(H2STREAM, { role: 'product' })],
+  'hot-surface-ignition': [withStream(H2STREAM, {}, { operatingTemperatureK: 450 + C }), withStream(H2STREAM, {}, { operatingTemperatureK: 350 + C })],
+  'hydrogen-leak': [withStream(H2STREAM), withStream({ CH4: 0.5, N2: 0.5 })],
+  'hydrogen-flame': [withStream(H2STREAM), withStream({ CH4: 0.5, N2: 0.5 })],
+  'flammable-area-classification': [withStream({ CH4: 0.06, N2: 0.94 }), withStream({ CH4: 0.04, N2: 0.96 })],
+  'gas-detection-alarm': [withStream({ CH4: 0.06, N2: 0.94 }), withStream({ CH4: 0.04, N2: 0.96 })],
+  'hydrogen-piping': [withStream(H2STREAM), withStream({ CH4: 0.5, N2: 0.5 })],
+  'hydrogen-hot-materials': [withStream(H2STREAM, { temperatureK: 250 + C }), withStream(H2STREAM, { temperatureK: 150 + C })],
+  'hydrogen-vent': [withStream(H2STREAM), withStream({ CH4: 0.5, N2: 0.5 })],
+  'oxygen-enriched': [withStream({ O2: 0.3, N2: 0.7 }), withStream({ O2: 0.2095, N2: 0.7905 })],
+  'electrolysis-gas-purity': [{ ...base, mode: 'electrolysis' }, { ...base, mode: 'power' }],
+  'toxic-ammonia': [withStream({ NH3: 0.001, N2: 0.999 }), withStream({ N2: 1 })],
+  'ammonia-fuel': [withStream({ NH3: 0.001, N2: 0.999 }), withStream({ N2: 1 })],
+  'toxic-methanol': [withStream({ CH3OH: 0.001, N2: 0.999 }), withStream({ N2: 1 })],
+  'toxic-hydrogen-sulfide': [withStream({ H2S: 0.00001, N2: 0.99999 }), withStream({ N2: 1 })],
+  'toxic-carbon-dioxide': [withStream({ CO2: 0.01, N2: 0.99 }), withStream({ N2: 1 })],
+  'caustic-electrolyte': [{ ...base, technology: 'alkaline' }, { ...base, technology: 'pem' }],
+  'pressure-equipment': [{ ...base, fuelPressureBar: 2 }, base],
+  'unassessed-species': [withStream({ SO2: 0.00001, N2: 0.99999 }), withStream({ N2: 1 })],
+};
+
+const ids = (input: HazardInput) => assessHazards(input).cautions.map((c) => c.id);
+const caution = (input: HazardInput, id: string) => assessHazards(input).cautions.find((c) => c.id === id)!;
+
+describe('caution rules', () => {
+  it('has a trigger and a non-trigger case for every rule of the table', () => {
+    expect(Object.keys(CASES).sort()).toEqual(rules().map((r) => r.id).sort());
+  });
+
+  it('the bare basis (PEM power, no streams, atmospheric) triggers nothing', () => {
+    expect(ids(base)).toEqual([]);
+  });
+
+  for (const [id, [yes, no]] of Object.entries(CASES)) {
+    it(`${id}: triggered, and not triggered when its condition is missed`, () => {
+      const c = caution(yes, id);
+      expect(c, `${id} not triggered`).toBeDefined();
+      expect(ids(no)).not.toContain(id);
+      expect(c.text).not.toMatch(/[{}]|\[\[|\]\]/);
+      expect(c.title).not.toMatch(/[{}]/);
+      expect(c.text.length).toBeGreaterThan(100);
+      expect(c.standards.length).toBeGreaterThan(0);
+      for (const s of c.standards) expect(s.title.length).toBeGreaterThan(5);
+    });
+  }
+});
+
+describe('caution texts carry the computed numbers', () => {
+  it('CO: the stream, its ppm and its multiple of the IDLH; danger at or above the IDLH, warning below', () => {
+    const high = caution(withStream({ CO: 0.002, N2: 0.998 }), 'carbon-monoxide');
+    expect(high.severity).toBe('danger');
+    expect(high.text).toMatch(/test stream 0\.2 % CO \(2,000 ppm, 1\.67 times the IDLH of 1,200 ppm\)/);
+    expect(high.text).toMatch(/diluted about 1\.67-fold/);
+    const low = caution(withStream({ CO: 0.0005, N2: 0.9995 }), 'carbon-monoxide');
+    expect(low.severity).toBe('warning');
+    expect(low.text).toMatch(/500 ppm, 0\.417 times the IDLH/);
+    expect(low.text).not.toMatch(/immediately dangerous/);
+  });
+  it('nickel carbonyl: Ni(CO)4 limits from the data (0.001 ppm, IDLH 2 ppm) and the purge temperature of 200 °C', () => {
+    const a = assessHazards(withStream(COSTREAM, {}, { nickelBearing: true }));
+    const c = a.cautions.find((x) => x.id === 'nickel-carbonyl-shutdown')!;
+    expect(c.severity).toBe('danger');
+    expect(c.text).toMatch(/0\.001 ppm TWA, IDLH 2 ppm/);
+    expect(c.text).toMatch(/above about 200 °C/);
+    expect(c.text).toMatch(/Never expose a cooled nickel anode or catalyst to CO/);
+    expect(a.substances.find((s) => s.species === 'Ni(CO)4')?.presence).toBe('can form');
+  });
+  it('nickel carbonyl looks at fuel-side CO only: CO in an air-side exhaust does not meet the nickel', () => {
+    const exhaust = withStream({ CO: 0.00002, O2: 0.1, N2: 0.89998 }, { side: 'air' }, { nickelBearing: true });
+    expect(ids(exhaust)).toContain('carbon-monoxide');
+    expect(ids(exhaust)).not.toContain('nickel-carbonyl-shutdown');
+    expect(ids(withStream(COSTREAM, { side: 'fuel' }, { nickelBearing: true }))).toContain('nickel-carbonyl-shutdown');
+  });
+  it('autoignition: stream temperature, the lowest AIT and its source', () => {
+    const c = caution(withStream(H2STREAM, { temperatureK: 450 + C }), 'autoignition');
+    expect(c.text).toMatch(/^Test stream at 450 °C, above the 400 °C autoignition temperature of hydrogen \(lowest recorded value, Zabetakis 1965/);
+  });
+  it('detection alarm: 25 % of the LFL as combustibles in air and as the gas itself', () => {
+    // 6 % CH4 in N2: LFL_mix 5 %, alarm 1.25 % CH4 in air; stream LFL 5/0.06 = 83.3 %, alarm 20.8 %.
+    expect(caution(withStream({ CH4: 0.06, N2: 0.94 }), 'gas-detection-alarm').text).toMatch(/test stream: 1\.25 % combustibles in air \(20\.8 % of the gas itself in air\)/);
+  });
+  it('area classification: the most demanding gas group and class of the combustibles, and those without one', () => {
+    const t = caution(withStream({ H2: 0.3, CO: 0.2, CH4: 0.1, N2: 0.4 }), 'flammable-area-classification').text;
+    expect(t).toMatch(/gas group IIC and temperature class T1 \(the most demanding recorded here, among hydrogen and methane\)/);
+    expect(t).toMatch(/no gas group or temperature class is recorded here for carbon monoxide/);
+    expect(caution(withStream({ H2S: 0.1, CH4: 0.5, N2: 0.4 }), 'flammable-area-classification').text).toMatch(/gas group IIB and temperature class T3/);
+  });
+  it('pressure: the highest absolute and gauge pressure and where it is', () => {
+    const t = caution(withStream(H2STREAM, { pressureBar: 30, name: 'hydrogen product' }), 'pressure-equipment').text;
+    expect(t).toMatch(/up to 30 bar absolute \(29 bar above the standard atmosphere of 1\.01325 bar\), in hydrogen product/);
+    expect(t).toMatch(/ASME BPVC Section VIII/);
+    expect(t).toMatch(/2014\/68\/EU/);
+  });
+  it('hydrogen piping: partial pressure per stream and the highest', () => {
+    expect(caution(withStream(H2STREAM, { pressureBar: 30 }), 'hydrogen-piping').text).toMatch(/test stream 15 bar H2 at 25 °C.*highest here: 15 bar/s);
+  });
+  it('electrolysis: names the streams that carry both gases when there are any', () => {
+    const mixed = caution(withStream({ O2: 0.99, H2: 0.01 }, {}, { mode: 'electrolysis' }), 'electrolysis-gas-purity');
+    expect(mixed.text).toMatch(/streams of this basis carrying both: test stream 1 % H2 with 99 % O2/);
+    expect(mixed.triggeredBy).toEqual(['x']);
+    expect(caution({ ...base, mode: 'electrolysis' }, 'electrolysis-gas-purity').text).not.toMatch(/carrying both/);
+  });
+  it('toxic gases escalate to danger at or above their IDLH (NH3 300 ppm, NIOSH)', () => {
+    expect(caution(withStream({ NH3: 0.0001, N2: 0.9999 }), 'toxic-ammonia').severity).toBe('warning');
+    expect(caution(withStream({ NH3: 0.0003, N2: 0.9997 }), 'toxic-ammonia').severity).toBe('danger');
+  });
+  it('cautions come danger first, then warning, then caution', () => {
+    const order = { danger: 0, warning: 1, caution: 2 };
+    const sev = assessHazards(withStream({ H2: 0.3, CO: 0.1, N2: 0.6 }, { role: 'outlet', temperatureK: 800 + C }, { nickelBearing: true, fuelPressureBar: 2 })).cautions.map(
+      (c) => order[c.severity],
+    );
+    expect(sev).toEqual([...sev].sort((a, b) => a - b));
+  });
+});
+
+describe('input checks of the basis', () => {
+  it('rejects duplicate stream ids, unknown roles and non-positive basis numbers', () => {
+    expect(() => assessHazards({ ...base, streams: [stream({ N2: 1 }), stream({ N2: 1 })] })).toThrow(/stream id "x" is used twice/);
+    expect(() => assessHazards(withStream({ N2: 1 }, { role: 'vent' as never }))).toThrow(/unknown role "vent"/);
+    expect(() => assessHazards(withStream({ N2: 1 }, { side: 'cathode' as never }))).toThrow(/unknown side "cathode"/);
+    expect(() => assessHazards({ ...base, fuelPressureBar: 0 })).toThrow(/fuelPressureBar must be a positive finite number/);
+    expect(() => assessHazards({ ...base, technology: 'steam-engine' as never })).toThrow(/unknown technology "steam-engine"/);
+  });
+});
