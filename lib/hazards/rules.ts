@@ -1,13 +1,13 @@
 /**
  * The caution rule table (data/rules.yaml), checked at first use: every condition names a
- * predicate of predicates.ts, every standard an entry of standards.yaml, every substance an entry
- * of substances.yaml. Evaluating it renders each triggered rule's title and text from its
+ * predicate of predicates.ts, every standard an entry of standards.yaml (and every rule cites at
+ * least one in each mode), every substance an entry of substances.yaml. Evaluating it renders each triggered rule's title and text from its
  * templates (template.ts) with the condition's values and the data values (data-values.ts).
  */
 import { readFileSync } from 'node:fs';
 import { parse as parseYaml } from 'yaml';
 import { z } from 'zod';
-import { TECHNOLOGY_IDS } from '../electrochem/technologies.ts';
+import { TECHNOLOGY_IDS, type Mode } from '../electrochem/technologies.ts';
 import { dataValue } from './data-values.ts';
 import { PREDICATES, type Match, type RuleContext, type Values } from './predicates.ts';
 import { standardRef, standards } from './standards.ts';
@@ -29,11 +29,14 @@ const RawRule = z.strictObject({
   each: z.string().optional(),
   text: z.string(),
   standards: z.array(z.string()),
+  standardsByMode: z.strictObject({ power: z.array(z.string()).optional(), electrolysis: z.array(z.string()).optional() }).optional(),
 });
 
 export type Rule = z.infer<typeof RawRule>;
 
 const WHERE = 'lib/hazards/data/rules.yaml';
+
+const MODES: readonly Mode[] = ['power', 'electrolysis'];
 
 function check(rule: Rule): void {
   const fail = (why: string) => {
@@ -45,7 +48,16 @@ function check(rule: Rule): void {
   for (const label of [rule.substance, ...(rule.concerns ?? [])]) {
     if (label !== undefined && !findSubstance(label)) fail(`unknown substance "${label}"`);
   }
-  for (const id of rule.standards) if (!standards().has(id)) fail(`unknown standard "${id}"`);
+  for (const mode of MODES) {
+    const ids = citedStandards(rule, mode);
+    if (ids.length === 0) fail(`cites no standard in ${mode} mode`);
+    for (const id of ids) if (!standards().has(id)) fail(`unknown standard "${id}"`);
+  }
+}
+
+/** Standards a rule cites in a mode: its mode-specific ones first, then those of both modes. */
+export function citedStandards(rule: Rule, mode: Mode): string[] {
+  return [...(rule.standardsByMode?.[mode] ?? []), ...rule.standards];
 }
 
 let cache: Rule[] | undefined;
@@ -70,7 +82,7 @@ function resolverOf(rule: Rule, ...layers: Values[]): Resolver {
   };
 }
 
-function render(rule: Rule, match: Match): Caution {
+function render(rule: Rule, match: Match, mode: Mode): Caution {
   const where = `${WHERE}: rule ${rule.id}`;
   const lines = rule.each ? match.each.map((values) => renderTemplate(rule.each!, resolverOf(rule, values, match.values), `${where} (each)`)) : [];
   const resolve = resolverOf(rule, { each: lines.length ? lines.join('; ') : undefined }, match.values);
@@ -79,7 +91,7 @@ function render(rule: Rule, match: Match): Caution {
     title: sentence(renderTemplate(rule.title, resolve, `${where} (title)`)),
     severity: match.escalate && rule.escalate ? rule.escalate.to : rule.severity,
     text: sentence(renderTemplate(rule.text, resolve, where)),
-    standards: rule.standards.map(standardRef),
+    standards: citedStandards(rule, mode).map(standardRef),
     triggeredBy: match.triggeredBy,
   };
 }
@@ -93,6 +105,6 @@ export interface TriggeredRule {
 export function evaluateRules(ctx: RuleContext): TriggeredRule[] {
   return rules().flatMap((rule) => {
     const match = PREDICATES[rule.when]!(ctx, { substance: rule.substance, technology: rule.technology });
-    return match ? [{ rule, caution: render(rule, match) }] : [];
+    return match ? [{ rule, caution: render(rule, match, ctx.input.mode) }] : [];
   });
 }

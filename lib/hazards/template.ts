@@ -7,11 +7,11 @@
 
 export type Resolver = (name: string) => string | undefined;
 
-const PLACEHOLDER = /\{([A-Za-z0-9_.]+)\}/g;
+const NAME = /\{([A-Za-z0-9_.]+)\}/g;
 const OPTIONAL = /\[\[([\s\S]*?)\]\]/g;
 
 function fill(text: string, resolve: Resolver, where: string): string {
-  return text.replace(PLACEHOLDER, (_, name: string) => {
+  return text.replace(NAME, (_, name: string) => {
     const value = resolve(name);
     if (value === undefined) throw new Error(`${where}: the template names {${name}}, which has no value here`);
     return value;
@@ -20,7 +20,7 @@ function fill(text: string, resolve: Resolver, where: string): string {
 
 export function renderTemplate(template: string, resolve: Resolver, where: string): string {
   const withOptional = template.replace(OPTIONAL, (_, inner: string) => {
-    const names = [...inner.matchAll(PLACEHOLDER)].map((m) => m[1]!);
+    const names = [...inner.matchAll(NAME)].map((m) => m[1]!);
     return names.every((n) => resolve(n) !== undefined) ? inner : '';
   });
   return fill(withOptional, resolve, where);

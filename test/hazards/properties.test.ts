@@ -24,7 +24,7 @@ const composition = fc
 
 const stream = fc.record({
   id: fc.string({ minLength: 1, maxLength: 8 }),
-  // Names without braces, so that a left-over template placeholder is detectable in the texts.
+  // Names without braces, so that an unrendered {name} of a template is detectable in the texts.
   name: fc.stringMatching(/^[a-z][a-z0-9 -]{0,19}$/),
   temperatureK: fc.double({ min: 200, max: 1400, noNaN: true }),
   pressureBar: fc.double({ min: 0.5, max: 700, noNaN: true }),

@@ -5,7 +5,8 @@
 // from memory), oxygen-enriched above 23.5 % (29 CFR 1910.146), IDLHs of NIOSH (1994).
 import { describe, expect, it } from 'vitest';
 import { assessHazards } from '../../lib/hazards/assessment.ts';
-import { rules } from '../../lib/hazards/rules.ts';
+import { citedStandards, rules } from '../../lib/hazards/rules.ts';
+import { standards } from '../../lib/hazards/standards.ts';
 import type { HazardInput, HazardStream } from '../../lib/hazards/types.ts';
 
 const C = 273.15;
@@ -79,6 +80,19 @@ describe('caution rules', () => {
     expect(Object.keys(CASES).sort()).toEqual(rules().map((r) => r.id).sort());
   });
 
+  it('every standard of standards.yaml is cited by some rule, and each rule cites one in each mode', () => {
+    const cited = new Set(rules().flatMap((r) => [...citedStandards(r, 'power'), ...citedStandards(r, 'electrolysis')]));
+    expect([...standards().keys()].filter((id) => !cited.has(id))).toEqual([]);
+    for (const r of rules()) for (const mode of ['power', 'electrolysis'] as const) expect(citedStandards(r, mode).length, `${r.id} ${mode}`).toBeGreaterThan(0);
+  });
+
+  it('cites fuel-cell standards for a fuel cell and ISO 22734 for an electrolyser', () => {
+    const power = caution(withStream(H2STREAM), 'hydrogen-leak').standards.map((s) => s.id);
+    const electrolysis = caution(withStream(H2STREAM, {}, { mode: 'electrolysis' }), 'hydrogen-leak').standards.map((s) => s.id);
+    expect(power).toEqual(['iec-62282-3-300', 'nfpa-853', 'nfpa-2', 'iso-tr-15916']);
+    expect(electrolysis).toEqual(['iso-22734', 'nfpa-2', 'iso-tr-15916']);
+  });
+
   it('the bare basis (PEM power, no streams, atmospheric) triggers nothing', () => {
     expect(ids(base)).toEqual([]);
   });
@@ -133,7 +147,7 @@ describe('caution texts carry the computed numbers', () => {
   });
   it('area classification: the most demanding gas group and class of the combustibles, and those without one', () => {
     const t = caution(withStream({ H2: 0.3, CO: 0.2, CH4: 0.1, N2: 0.4 }), 'flammable-area-classification').text;
-    expect(t).toMatch(/gas group IIC and temperature class T1 \(the most demanding recorded here, among hydrogen and methane\)/);
+    expect(t).toMatch(/gas group IIC and temperature class T1 \(the most demanding of the classifications recorded here for hydrogen and methane\)/);
     expect(t).toMatch(/no gas group or temperature class is recorded here for carbon monoxide/);
     expect(caution(withStream({ H2S: 0.1, CH4: 0.5, N2: 0.4 }), 'flammable-area-classification').text).toMatch(/gas group IIB and temperature class T3/);
   });

@@ -1,4 +1,4 @@
-// The text templates of the hazard data: placeholders, optional parts, data values, and the
+// The text templates of the hazard data: named values, optional parts, data values, and the
 // error a template naming a missing value raises (so a broken rule text fails the tests).
 import { describe, expect, it } from 'vitest';
 import { renderTemplate, sentence } from '../../lib/hazards/template.ts';
@@ -8,7 +8,7 @@ const values: Record<string, string> = { a: 'one', b: 'two' };
 const resolve = (name: string) => values[name];
 
 describe('templates', () => {
-  it('replaces placeholders and keeps an optional part only when all its names have values', () => {
+  it('replaces {name} by its value and keeps an optional part only when all its names have values', () => {
     expect(renderTemplate('{a} and {b}', resolve, 't')).toBe('one and two');
     expect(renderTemplate('{a}[[ with {b}]][[ with {c}]].', resolve, 't')).toBe('one with two.');
   });
