@@ -1,0 +1,48 @@
+import type { Command } from '../command.ts';
+import { table } from '../format.ts';
+import { listProjects, resolveProjectArg } from '../../basis/projects.ts';
+import { loadBasisFile } from '../../basis/load.ts';
+import { formatDiagnostic } from '../../basis/diagnostics.ts';
+import { basisSummaryRows } from '../../basis/summary.ts';
+import { EXIT_OK, EXIT_USAGE, EXIT_VALIDATION, UserError } from '../../errors.ts';
+
+export const checkCommand: Command = {
+  name: 'check',
+  summary: 'validate design bases and print a summary of each valid one',
+  usage: 'check [ID | FILE]...',
+  details:
+    'Without arguments, checks every projects/*/basis.yaml under the current folder.\n' +
+    'Problems go to stderr as file:line:col: path: message; warnings do not fail the check.\n' +
+    'Exit code 1 when any basis has errors, 2 when an argument names no basis.',
+  positionals: [0, Number.POSITIVE_INFINITY],
+  options: [],
+  run(args, io) {
+    const targets = args.positionals.length ? args.positionals : listProjects(io.cwd);
+    if (targets.length === 0) {
+      throw new UserError('check: no design bases under projects/ here; create one with cellbasis new ID --technology TECH');
+    }
+    let code = EXIT_OK;
+    for (const target of targets) {
+      let result;
+      let ref;
+      try {
+        ref = resolveProjectArg(target, io.cwd);
+        result = loadBasisFile(ref.path, { id: ref.id, displayPath: ref.displayPath });
+      } catch (error) {
+        if (!(error instanceof UserError)) throw error;
+        io.err(`cellbasis: check: ${error.message}\n`);
+        code = EXIT_USAGE;
+        continue;
+      }
+      for (const d of [...(result.ok ? [] : result.errors), ...result.warnings]) io.err(`${formatDiagnostic(d)}\n`);
+      if (!result.ok) {
+        io.err(`${ref.displayPath}: ${result.errors.length} error${result.errors.length === 1 ? '' : 's'}\n`);
+        if (code === EXIT_OK) code = EXIT_VALIDATION;
+        continue;
+      }
+      const warnings = result.warnings.length ? ` (${result.warnings.length} warning${result.warnings.length === 1 ? '' : 's'})` : '';
+      io.out(`${ref.displayPath}: valid${warnings}\n${table(basisSummaryRows(result.basis))}\n`);
+    }
+    return code;
+  },
+};

@@ -1,0 +1,51 @@
+// Humid air: the water mole fraction is the vapour pressure over the electrode pressure, with
+// the saturation pressure from the species data (lib/thermo/saturation.ts).
+import { describe, expect, it } from 'vitest';
+import { loadBasisText } from '../../lib/basis/load.ts';
+import { saturationPressureBar } from '../../lib/thermo/saturation.ts';
+import { findPreset } from '../../lib/basis/presets.ts';
+import { BASE, edit } from './helpers.ts';
+
+function airFeed(text: string): Record<string, number> {
+  const result = loadBasisText(text, 'projects/t/basis.yaml', 't');
+  if (!result.ok) throw new Error(JSON.stringify(result.errors));
+  return result.basis.airElectrode!.composition;
+}
+
+describe('humid air', () => {
+  it('dew point 15 °C: p_sat = 1.7058 kPa (IAPWS-95, Wagner & Pruss 2002; from memory), x_H2O = p_sat / p', () => {
+    const pSatBar = saturationPressureBar(288.15);
+    // The species data read 0.1 % low near room temperature (ideal vapour; see saturation.ts).
+    expect(pSatBar * 100).toBeCloseTo(1.7058, 2);
+    const air = airFeed(BASE);
+    expect(air.H2O).toBeCloseTo(pSatBar / 1.2, 12);
+    expect(air.H2O).toBeCloseTo(0.017058 / 1.2, 4);
+  });
+
+  it('the dry part keeps the dry-air ratios, scaled by 1 − x_H2O, and everything sums to 1', () => {
+    const air = airFeed(BASE);
+    const dry = findPreset('dry-air')!.composition;
+    for (const [species, x] of Object.entries(dry)) expect(air[species], species).toBeCloseTo(x * (1 - air.H2O!), 12);
+    expect(Object.values(air).reduce((a, b) => a + b, 0)).toBeCloseTo(1, 12);
+  });
+
+  it('relative humidity 60 % at 25 °C, 1.01325 bar: x = 0.6 · 3.1699 kPa / 101.325 kPa (p_sat from IAPWS-95; from memory)', () => {
+    const text = edit(BASE, ['humidity: { dew-point: "15 C" }', 'humidity: { relative-humidity: "60 %", at: "25 C" }'], ['air-electrode-pressure: "1.2 bar"', 'air-electrode-pressure: "1 atm"']);
+    const air = airFeed(text);
+    expect(air.H2O).toBeCloseTo((0.6 * saturationPressureBar(298.15)) / 1.01325, 12);
+    expect(air.H2O).toBeCloseTo((0.6 * 3.1699) / 101.325, 4);
+  });
+
+  it('standard dry air: O2 20.9476 %, Ar 0.934 % (U.S. Standard Atmosphere 1976; from memory), CO2 about 420 ppm, N2 the balance', () => {
+    const dry = findPreset('dry-air')!.composition;
+    expect(dry).toEqual({ O2: 0.209476, Ar: 0.00934, CO2: 0.00042, N2: 0.780764 });
+    expect(Object.values(dry).reduce((a, b) => a + b, 0)).toBeCloseTo(1, 12);
+  });
+
+  it('a humidity that needs more water pressure than the electrode pressure is refused', () => {
+    const text = edit(BASE, ['dew-point: "15 C"', 'dew-point: "110 C"'], ['air-electrode-pressure: "1.2 bar"', 'air-electrode-pressure: "1 bar"']);
+    const result = loadBasisText(text, 'f.yaml', 't');
+    expect(result.ok).toBe(false);
+    if (!result.ok) expect(result.errors.map((e) => e.message)).toEqual(['this humidity needs a water partial pressure above the air-electrode pressure, 1 bar: the air would be all steam']);
+  });
+});

@@ -1,0 +1,70 @@
+// Project resolution: ids under projects/, files by path, and nothing that leads outside.
+import { mkdirSync, mkdtempSync, symlinkSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { listProjects, resolveProjectArg } from '../../lib/basis/projects.ts';
+import { UserError } from '../../lib/errors.ts';
+
+function workspace(): string {
+  const cwd = mkdtempSync(join(tmpdir(), 'cellbasis-projects-'));
+  for (const id of ['beta', 'alpha', 'no-basis', 'Bad_Name']) mkdirSync(join(cwd, 'projects', id), { recursive: true });
+  for (const id of ['beta', 'alpha', 'Bad_Name']) writeFileSync(join(cwd, 'projects', id, 'basis.yaml'), 'document: {}\n');
+  return cwd;
+}
+
+function refusal(arg: string, cwd: string): UserError {
+  try {
+    resolveProjectArg(arg, cwd);
+  } catch (error) {
+    if (error instanceof UserError) return error;
+    throw error;
+  }
+  throw new Error(`${arg} was not refused`);
+}
+
+describe('projects', () => {
+  it('an id names projects/<id>/basis.yaml', () => {
+    const cwd = workspace();
+    expect(resolveProjectArg('alpha', cwd)).toEqual({ path: join(cwd, 'projects', 'alpha', 'basis.yaml'), displayPath: 'projects/alpha/basis.yaml', id: 'alpha' });
+  });
+
+  it('an argument ending in .yaml or .yml, or with a path separator, is a file', () => {
+    const cwd = workspace();
+    expect(resolveProjectArg('site.yml', cwd)).toEqual({ path: join(cwd, 'site.yml'), displayPath: 'site.yml', id: 'basis' });
+    expect(resolveProjectArg('projects/beta/basis.yaml', cwd)).toMatchObject({ path: join(cwd, 'projects/beta/basis.yaml'), id: 'beta' });
+    expect(resolveProjectArg('somewhere/else', cwd).path).toBe(join(cwd, 'somewhere/else'));
+  });
+
+  it('refuses ids that are not plain names or contain "..", with exit code 2', () => {
+    const cwd = workspace();
+    for (const id of ['..', 'a..b', 'Alpha', '-x', '.hidden', 'x'.repeat(65), 'a b']) {
+      const error = refusal(id, cwd);
+      expect(error.exitCode, id).toBe(2);
+    }
+    expect(refusal('a..b', cwd).message).toBe('project id "a..b" may not contain ".."');
+    expect(refusal('Alpha', cwd).message).toBe('project id "Alpha" must be 1 to 64 characters of a-z, 0-9, ".", "_" and "-", starting with a letter or digit');
+  });
+
+  it('refuses a project folder or basis file that links outside projects/', () => {
+    const cwd = workspace();
+    const outside = mkdtempSync(join(tmpdir(), 'cellbasis-outside-'));
+    writeFileSync(join(outside, 'basis.yaml'), 'document: {}\n');
+    symlinkSync(outside, join(cwd, 'projects', 'escape'));
+    mkdirSync(join(cwd, 'projects', 'linked'));
+    symlinkSync(join(outside, 'basis.yaml'), join(cwd, 'projects', 'linked', 'basis.yaml'));
+    for (const id of ['escape', 'linked']) {
+      const error = refusal(id, cwd);
+      expect(error.exitCode).toBe(2);
+      expect(error.message).toMatch(new RegExp(`^projects/${id} leads outside projects/ \\(to .*\\); a project must lie inside projects/$`));
+    }
+    // A link that stays inside projects/ is fine.
+    symlinkSync(join(cwd, 'projects', 'alpha'), join(cwd, 'projects', 'alias'));
+    expect(resolveProjectArg('alias', cwd).id).toBe('alias');
+  });
+
+  it('lists the ids of every projects/*/basis.yaml, sorted, skipping folders without one and invalid names', () => {
+    expect(listProjects(workspace())).toEqual(['alpha', 'beta']);
+    expect(listProjects(mkdtempSync(join(tmpdir(), 'cellbasis-empty-')))).toEqual([]);
+  });
+});

@@ -1,0 +1,83 @@
+// Unit conversion spot checks against NIST SP 811 (2008), Appendix B, and the unit-string
+// patterns of the schema against parseQuantity: they must accept exactly the same strings.
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { parseQuantity, unitsOf, type Dimension } from '../../lib/basis/units.ts';
+import { quantityPattern } from '../../lib/basis/unit-pattern.ts';
+
+const si = (text: string, dimension: Dimension) => parseQuantity(text, dimension).si;
+
+describe('conversion factors (NIST SP 811, Appendix B)', () => {
+  it('pressure: psi = 6.894 757 kPa, atm = 101.325 kPa (exact), bar = 100 kPa (exact)', () => {
+    expect(si('1 psi', 'pressure')).toBeCloseTo(6894.757, 3);
+    expect(si('14.6959 psia', 'pressure')).toBeCloseTo(101325, 0);
+    expect(si('1 atm', 'pressure')).toBe(101325);
+    expect(si('1 bar', 'pressure')).toBe(100000);
+    expect(si('0 psig', 'pressure')).toBe(101325);
+    expect(si('10 psig', 'pressure')).toBeCloseTo(101325 + 68947.57, 1);
+  });
+
+  it('temperature: T/K = (t/°F + 459.67)/1.8 and T/K = t/°C + 273.15', () => {
+    expect(si('212 F', 'temperature')).toBeCloseTo(373.15, 10);
+    expect(si('32 °F', 'temperature')).toBeCloseTo(273.15, 10);
+    expect(si('-40 F', 'temperature')).toBeCloseTo(si('-40 C', 'temperature'), 10);
+    expect(si('491.67 R', 'temperature')).toBeCloseTo(273.15, 10);
+    expect(si('800 °C', 'temperature')).toBeCloseTo(1073.15, 10);
+    expect(si('18 F', 'temperature-difference')).toBeCloseTo(10, 12);
+  });
+
+  it('current density, area-specific resistance and mass flow (SI prefixes; day = 86 400 s)', () => {
+    expect(si('0.4 A/cm²', 'current-density')).toBeCloseTo(4000, 9);
+    expect(si('400 mA/cm^2', 'current-density')).toBeCloseTo(4000, 9);
+    expect(si('0.35 Ω·cm²', 'area-specific-resistance')).toBeCloseTo(3.5e-5, 15);
+    expect(si('86.4 kg/day', 'mass-flow')).toBeCloseTo(0.001, 12);
+  });
+});
+
+/** Whether parseQuantity reads the text as the dimension. */
+function parses(text: string, dimension: Dimension): boolean {
+  try {
+    parseQuantity(text, dimension);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+const DIMENSIONS: Dimension[] = ['temperature', 'temperature-difference', 'pressure', 'current-density', 'area-specific-resistance', 'area', 'power', 'voltage', 'current', 'mass-flow', 'fraction'];
+
+/** Unit spellings: the table's, with the variants the normalisation maps onto them, and near misses. */
+const spellings = [...new Set(DIMENSIONS.flatMap((d) => unitsOf(d)))].flatMap((u) => [
+  u,
+  u.replace(/2$/, '²'),
+  u.replace(/2$/, '^2'),
+  u.replace('ohm', 'Ω'),
+  u.replace('ohm', 'Ohm'),
+  u.replace(' ', '·'),
+  u.replace(' ', ' * '),
+  u.replace(/^([CFR])$/, '°$1'),
+  u.replace(/^([CFR])$/, '° $1'),
+  u.replace('(', ' ( '),
+  u.toLowerCase(),
+  u.toUpperCase(),
+  `${u}s`,
+]);
+
+describe('unit-string patterns', () => {
+  it('accept exactly what parseQuantity accepts, for every dimension', () => {
+    const number = fc.constantFrom('800', '-1.5', '+2', '.5', '3.', '1e5', '2.5E-3', '1e', 'x', '', '1.2.3');
+    const space = fc.constantFrom('', ' ', '  ', '\t');
+    const unit = fc.oneof(fc.constantFrom(...spellings), fc.string({ maxLength: 4 }));
+    fc.assert(
+      fc.property(space, number, space, unit, space, fc.constantFrom(...DIMENSIONS), (a, n, b, u, c, dimension) => {
+        const text = `${a}${n}${b}${u}${c}`;
+        expect(quantityPattern(dimension).test(text), `${JSON.stringify(text)} as ${dimension}`).toBe(parses(text, dimension));
+      }),
+      { numRuns: 20000 },
+    );
+  });
+
+  it('cover every unit of the table', () => {
+    for (const dimension of DIMENSIONS) for (const u of unitsOf(dimension)) expect(quantityPattern(dimension).test(`1 ${u}`), `${u}`).toBe(true);
+  });
+});
