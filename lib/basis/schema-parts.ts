@@ -14,7 +14,7 @@ import { didYouMean, quotedList } from './suggest.ts';
 export function describeValue(value: unknown): string {
   if (value === null || value === undefined) return 'nothing (the key has no value)';
   if (typeof value === 'string') return JSON.stringify(value);
-  if (typeof value === 'number') return `the number ${value}`;
+  if (typeof value === 'number') return Number.isFinite(value) ? `the number ${value}` : `the YAML value ${Number.isNaN(value) ? '.nan' : value > 0 ? '.inf' : '-.inf'}`;
   if (typeof value === 'boolean') return `${value}`;
   if (Array.isArray(value)) return 'a list';
   return 'a mapping';
@@ -22,7 +22,7 @@ export function describeValue(value: unknown): string {
 
 /** The message for a string that is not a quantity of the dimension (parseQuantity's own words). */
 export function quantityMessage(input: unknown, dimension: Dimension): string {
-  if (typeof input === 'string' || typeof input === 'number') {
+  if (typeof input === 'string' || (typeof input === 'number' && Number.isFinite(input))) {
     try {
       parseQuantity(input, dimension);
     } catch (error) {

@@ -29,7 +29,7 @@ function generalMessage(issue: z.core.$ZodRawIssue): string | undefined {
     return `a design basis is a mapping of sections (document:, cell:, conditions:, streams:, operating-point:, ...), got ${describeValue(issue.input)}`;
   }
   const expected = EXPECTED[issue.expected] ?? issue.expected;
-  const quoteHint = issue.expected === 'string' && (typeof issue.input === 'number' || typeof issue.input === 'boolean') ? ` (to keep it as text, quote it: "${String(issue.input)}")` : '';
+  const quoteHint = issue.expected === 'string' && ((typeof issue.input === 'number' && Number.isFinite(issue.input)) || typeof issue.input === 'boolean') ? ` (to keep it as text, quote it: "${String(issue.input)}")` : '';
   return `expected ${expected}, got ${describeValue(issue.input)}${quoteHint}`;
 }
 

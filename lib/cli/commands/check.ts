@@ -1,3 +1,8 @@
+/**
+ * `cellbasis check [ID | FILE]...`: validates design bases (every project when none is named),
+ * prints each problem as file:line:col: path: message on stderr and a summary of each valid
+ * basis on stdout. Exit 1 when any basis has errors, 2 when an argument names no basis.
+ */
 import type { Command } from '../command.ts';
 import { table } from '../format.ts';
 import { listProjects, resolveProjectArg } from '../../basis/projects.ts';

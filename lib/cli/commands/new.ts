@@ -1,3 +1,8 @@
+/**
+ * `cellbasis new ID --technology TECH [--mode MODE]`: writes projects/ID/basis.yaml from the
+ * scaffold of that technology and mode (lib/basis/scaffolds), checked valid before it is
+ * written, and never over an existing file.
+ */
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { dirname } from 'node:path';
 import type { Command } from '../command.ts';

@@ -1,3 +1,4 @@
+/** `cellbasis schema`: prints the JSON Schema of a design basis, for editors. */
 import type { Command } from '../command.ts';
 import { designBasisJsonSchemaText, SCHEMA_FILE } from '../../basis/json-schema.ts';
 
