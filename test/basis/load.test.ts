@@ -160,6 +160,18 @@ describe('warnings', () => {
   });
 });
 
+describe('document control', () => {
+  it('warns when the status claims approval without an approver, and when sign-off dates run backwards', () => {
+    const text = edit(BASE, ['status: draft', 'status: approved'], ['    prepared: { name: T. Tester, date: 2026-11-20 }\n', '    prepared: { name: T. Tester, date: 2026-11-20 }\n    checked: { name: C. Checker, date: 2026-11-19 }\n']);
+    const { basis, warnings } = valid(text);
+    expect(warnings).toEqual([
+      `${FILE}:7:11: warning: document.status: the status is approved but sign-off has no approved: { name, date }`,
+      `${FILE}:14:40: warning: document.sign-off.checked.date: checked on 2026-11-19, before it was prepared on 2026-11-20`,
+    ]);
+    expect(basis.document.signOff).toEqual({ prepared: { name: 'T. Tester', date: '2026-11-20' }, checked: { name: 'C. Checker', date: '2026-11-19' } });
+  });
+});
+
 describe('electrolysis feeds by technology', () => {
   const electrolysis = (tech: string, temperature: string, streams: string, extra: [string, string][] = []) =>
     edit(
