@@ -35,10 +35,6 @@ export class Findings {
   warning(at: Path, message: string, target: Target = 'value'): void {
     this.list.push({ severity: 'warning', at, target, message });
   }
-
-  get errorCount(): number {
-    return this.list.filter((f) => f.severity === 'error').length;
-  }
 }
 
 /** The dotted path of messages: `streams.fuel-electrode.composition.CH4`, `references[2].id`. */

@@ -71,7 +71,7 @@ function fileError(file: string, message: string): Diagnostic {
 export function tooLargeError(file: string, bytes: number): Diagnostic {
   return fileError(
     file,
-    `the file is ${(bytes / 1024 / 1024).toFixed(1)} MB; a design basis is limited to ${MAX_BASIS_BYTES / 1024 / 1024} MB (is this the right file?)`,
+    `the file is ${bytes.toLocaleString('en-US')} bytes; a design basis may be at most ${MAX_BASIS_BYTES / 1024 / 1024} MB (${MAX_BASIS_BYTES.toLocaleString('en-US')} bytes): is this the right file?`,
   );
 }
 

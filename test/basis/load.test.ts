@@ -1,6 +1,6 @@
 // The validated DesignBasis: SI conversion, defaults, steam addition, inputs in file order,
 // what each technology and mode hands to the calculation, and the loader API.
-import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, truncateSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -228,7 +228,15 @@ describe('loader API', () => {
   it('refuses a file over the size limit before parsing', () => {
     const result = loadBasisText('#'.repeat(MAX_BASIS_BYTES + 1), FILE, 't');
     expect(result.ok).toBe(false);
-    if (!result.ok) expect(formatDiagnostic(result.errors[0]!)).toBe(`${FILE}:1:1: the file is 5.0 MB; a design basis is limited to 5 MB (is this the right file?)`);
+    if (!result.ok) expect(formatDiagnostic(result.errors[0]!)).toBe(`${FILE}:1:1: the file is 5,242,881 bytes; a design basis may be at most 5 MB (5,242,880 bytes): is this the right file?`);
+  });
+
+  it('loadBasisFile refuses a large file from its size, before reading it', () => {
+    const path = join(mkdtempSync(join(tmpdir(), 'cellbasis-big-')), 'basis.yaml');
+    writeFileSync(path, '');
+    truncateSync(path, 6 * 1024 * 1024);
+    const result = loadBasisFile(path, { displayPath: 'big.yaml' });
+    expect(result.ok ? [] : result.errors.map(formatDiagnostic)).toEqual(['big.yaml:1:1: the file is 6,291,456 bytes; a design basis may be at most 5 MB (5,242,880 bytes): is this the right file?']);
   });
 
   it('loadBasisFile reads the file, names it as displayed and takes the id from its folder', () => {
