@@ -7,7 +7,8 @@ import { readFileSync } from 'node:fs';
 import { parse as parseYaml } from 'yaml';
 import { getSpecies } from '../thermo/species-data.ts';
 import { cp, entropy, formationEnthalpy, formationGibbs } from '../thermo/properties.ts';
-import { evaluateReaction } from '../electrochem/reaction.ts';
+import { evaluateReaction, lnEquilibriumConstant } from '../electrochem/reaction.ts';
+import { parseEquation } from '../electrochem/equation.ts';
 import { saturationPressureBar } from '../thermo/saturation.ts';
 
 export interface ReferenceCheck {
@@ -61,6 +62,7 @@ const evaluators = new Map<string, Evaluator>([
   ['reaction-enthalpy', (c) => evaluateReaction(str(c, 'reaction'), num(c, 'temperature_K')).deltaH_J_per_mol],
   ['reversible-voltage', (c) => evaluateReaction(str(c, 'reaction'), num(c, 'temperature_K')).reversibleVoltage_V],
   ['thermoneutral-voltage', (c) => evaluateReaction(str(c, 'reaction'), num(c, 'temperature_K')).thermoneutralVoltage_V],
+  ['equilibrium-constant', (c) => Math.exp(lnEquilibriumConstant(parseEquation(str(c, 'reaction')).terms, num(c, 'temperature_K')))],
   ['saturation-pressure', (c) => saturationPressureBar(num(c, 'temperature_K')) * 1e5],
 ]);
 

@@ -1,0 +1,396 @@
+/**
+ * Ideal-gas chemical equilibrium at fixed temperature and pressure by Gibbs-energy minimisation
+ * with element potentials (Lagrange multipliers), optionally with graphite as a pure condensed
+ * phase.
+ *
+ * Minimise  G/RT = Σ_j n_j (g°_j/RT + ln(P/P°) + ln(n_j/n)) + n_c g°_c/RT
+ * subject to Σ_j a_ij n_j + a_ic n_c = b_i for each element i, n_j ≥ 0.
+ *
+ * Method: S. Gordon and B. J. McBride, "Computer Program for Calculation of Complex Chemical
+ * Equilibrium Compositions and Applications, I. Analysis", NASA RP-1311 (1994), ch. 2-3: Newton
+ * iteration on the corrections Δln n_j, the element potentials π_i, Δn_c and Δln n, reduced to
+ * (elements + condensed + 1) equations (RP-1311 eqs. 2.24-2.26 for fixed T and P):
+ *   Σ_k Σ_j a_kj a_ij n_j π_k + Σ_c a_ic Δn_c + b_i^gas Δln n = b_i° − b_i + Σ_j a_ij n_j μ_j/RT
+ *   Σ_i a_ic π_i = μ_c/RT                                         (each condensed phase c)
+ *   Σ_i b_i^gas π_i + (Σ_j n_j − n) Δln n = n − Σ_j n_j + Σ_j n_j μ_j/RT
+ *   Δln n_j = −μ_j/RT + Σ_i a_ij π_i + Δln n
+ * with RP-1311's step control (eqs. 3.1-3.2): no major species' ln n_j moves by more than 2 per
+ * iteration, and a trace species (mole fraction below 1e-8) rises at most to 1e-4. The linear
+ * system is solved after symmetric diagonal scaling, since element amounts may differ by 30
+ * orders of magnitude.
+ * Amounts are carried as logarithms, so mole fractions far below 1e-30 neither underflow the
+ * iteration nor ever become negative. Graphite enters when the converged gas has carbon
+ * activity exp(π_C − g°_C/RT) above 1 (RP-1311 §3.5) and leaves if its amount turns negative.
+ * The same element-potential formulation is derived in W. R. Smith and R. W. Missen, Chemical
+ * Reaction Equilibrium Analysis (Wiley, 1982), ch. 6.
+ */
+import { solveScaledInPlace } from './linear.ts';
+import type { ChemicalSystem } from './species-set.ts';
+import { ConvergenceError } from '../errors.ts';
+
+export interface MinimiserOptions {
+  /** ln n_j of a previous solution on the normalised scale (Σ b = 1), to start from. */
+  warmStart?: Float64Array;
+  /** Let graphite form as a pure phase (default false: gas only). */
+  allowGraphite?: boolean;
+  maxIterations?: number;
+}
+
+export interface MinimiserResult {
+  /** Gas amounts n_j, mol, on the scale of the element amounts given. */
+  n: Float64Array;
+  /** ln n_j on the normalised scale (Σ b = 1): pass as warmStart to a neighbouring problem. */
+  lnScaled: Float64Array;
+  /** Total gas amount, mol. */
+  totalGas: number;
+  /** Graphite formed, mol (0 when gas only). */
+  graphite: number;
+  /** Element potentials π_i = μ_i/RT at equilibrium. */
+  pi: Float64Array;
+  /** Carbon activity relative to graphite, exp(π_C − g°_C(gr)/RT); 0 without carbon; 1 with graphite present. */
+  carbonActivity: number;
+  iterations: number;
+  /** Largest relative element-balance error max_i |b_i − Σ a_ij n_j − a_ic n_c| / b_i. */
+  elementBalanceError: number;
+}
+
+/** ln(1e-8): below it a species is "trace" for step control (RP-1311 SIZE = 18.420681). */
+const TRACE_LN = -18.420681;
+/** ln(1e-4): the highest a trace species may rise in one step (RP-1311 eq. 3.2, 9.2103404). */
+const TRACE_CAP_LN = -9.2103404;
+/**
+ * Convergence: a full step whose corrections, weighted by mole fraction (RP-1311 §3.3, tightened
+ * from 5e-6 to 1e-12), are negligible, and every element conserved to 1e-13 relative. Trace
+ * species are not held to an unweighted test: where the feed fixes an element ratio more finely
+ * than double precision resolves (CO2 with 1e-30 of extra carbon), their amounts are determined
+ * only to that precision, while they always stay mutually at equilibrium.
+ */
+const CONVERGED = 1e-12;
+const ELEMENT_TOLERANCE = 5e-13;
+/**
+ * In those ill-conditioned cases the weighted correction stalls at the rounding floor instead
+ * of reaching 1e-12; a step is then accepted when it is below 1e-9, elements balance, and it has
+ * not halved over the last STALL iterations.
+ */
+const STALLED = 1e-9;
+const STALL = 4;
+
+interface Work {
+  matrix: Float64Array;
+  rhs: Float64Array;
+  mu: Float64Array;
+  dln: Float64Array;
+  nj: Float64Array;
+}
+
+const works = new Map<string, Work>();
+
+/** Scratch arrays, reused across calls of the same shape (no allocation inside a fuel path). */
+function workFor(ns: number, size: number): Work {
+  const key = `${ns}:${size}`;
+  let w = works.get(key);
+  if (!w) {
+    w = { matrix: new Float64Array(size * size), rhs: new Float64Array(size), mu: new Float64Array(ns), dln: new Float64Array(ns), nj: new Float64Array(ns) };
+    works.set(key, w);
+  }
+  return w;
+}
+
+interface Attempt {
+  ln: Float64Array;
+  lnTotal: number;
+  graphite: number;
+  pi: Float64Array;
+  iterations: number;
+}
+
+/** One Newton iteration sequence with or without graphite, on the normalised element amounts. */
+function iterate(
+  system: ChemicalSystem,
+  gRT: Float64Array,
+  lnP: number,
+  b: Float64Array,
+  ln: Float64Array,
+  lnTotalStart: number,
+  withGraphite: boolean,
+  gGraphite: number,
+  graphiteStart: number,
+  maxIterations: number,
+  iterationsSoFar: number,
+): Attempt {
+  const ne = system.elements.length;
+  const ns = system.gas.length;
+  const a = system.a;
+  const cIndex = system.carbonIndex;
+  const hasC = withGraphite && cIndex >= 0;
+  const size = ne + (hasC ? 1 : 0) + 1;
+  const last = size - 1;
+  const w = workFor(ns, size);
+  const { matrix, rhs, mu, dln, nj } = w;
+  let lnTotal = lnTotalStart;
+  let graphite = hasC ? graphiteStart : 0;
+  const pi = new Float64Array(ne);
+  let residual = Infinity;
+  let best = Infinity;
+  let sinceBest = 0;
+
+  for (let iteration = 1; iteration <= maxIterations; iteration++) {
+    const total = Math.exp(lnTotal);
+    let sumN = 0;
+    let sumNMu = 0;
+    for (let j = 0; j < ns; j++) {
+      const n = Math.exp(ln[j]!);
+      nj[j] = n;
+      const m = gRT[j]! + lnP + ln[j]! - lnTotal;
+      mu[j] = m;
+      sumN += n;
+      sumNMu += n * m;
+    }
+    matrix.fill(0);
+    rhs.fill(0);
+    for (let i = 0; i < ne; i++) {
+      let bGas = 0;
+      let aNMu = 0;
+      for (let j = 0; j < ns; j++) {
+        const aij = a[j * ne + i]!;
+        if (aij === 0) continue;
+        const n = nj[j]!;
+        bGas += aij * n;
+        aNMu += aij * n * mu[j]!;
+        for (let k = 0; k <= i; k++) {
+          const akj = a[j * ne + k]!;
+          if (akj !== 0) matrix[i * size + k] = matrix[i * size + k]! + akj * aij * n;
+        }
+      }
+      for (let k = 0; k < i; k++) matrix[k * size + i] = matrix[i * size + k]!;
+      const bNow = bGas + (hasC && i === cIndex ? graphite : 0);
+      rhs[i] = b[i]! - bNow + aNMu;
+      matrix[i * size + last] = bGas;
+      matrix[last * size + i] = bGas;
+    }
+    if (hasC) {
+      const row = ne;
+      matrix[cIndex * size + row] = 1;
+      matrix[row * size + cIndex] = 1;
+      rhs[row] = gGraphite;
+    }
+    matrix[last * size + last] = sumN - total;
+    rhs[last] = total - sumN + sumNMu;
+
+    if (!solveScaledInPlace(matrix, rhs, size, ne, pi)) {
+      throw new ConvergenceError('gas equilibrium (Gibbs minimisation)', iterationsSoFar + iteration, residual, 'the element-potential matrix is singular');
+    }
+    for (let i = 0; i < ne; i++) pi[i] = rhs[i]!;
+    const dGraphite = hasC ? rhs[ne]! : 0;
+    const dlnTotal = rhs[last]!;
+
+    // Corrections and step control (RP-1311 eqs. 3.1-3.2).
+    let maxMajor = 5 * Math.abs(dlnTotal);
+    let lambda2 = 1;
+    let maxChange = Math.abs(dlnTotal);
+    const weight = 1 / sumN;
+    for (let j = 0; j < ns; j++) {
+      let s = -mu[j]! + dlnTotal;
+      for (let i = 0; i < ne; i++) {
+        const aij = a[j * ne + i]!;
+        if (aij !== 0) s += aij * pi[i]!;
+      }
+      dln[j] = s;
+      const lnX = ln[j]! - lnTotal;
+      if (lnX > TRACE_LN) {
+        if (s > maxMajor) maxMajor = s;
+      } else if (s >= 0 && s - dlnTotal > 0) {
+        const cap = Math.abs((-lnX + TRACE_CAP_LN) / (s - dlnTotal));
+        if (cap < lambda2) lambda2 = cap;
+      }
+      maxChange = Math.max(maxChange, nj[j]! * weight * Math.abs(s));
+    }
+    const lambda1 = maxMajor > 2 ? 2 / maxMajor : 1;
+    const lambda = Math.min(1, lambda1, lambda2);
+    if (!Number.isFinite(lambda) || !Number.isFinite(dlnTotal)) {
+      throw new ConvergenceError('gas equilibrium (Gibbs minimisation)', iterationsSoFar + iteration, residual, 'the iteration produced a non-finite step');
+    }
+    for (let j = 0; j < ns; j++) ln[j] = ln[j]! + lambda * dln[j]!;
+    lnTotal += lambda * dlnTotal;
+    graphite += lambda * dGraphite;
+    residual = maxChange;
+    if (maxChange < best / 2) {
+      best = maxChange;
+      sinceBest = 0;
+    } else sinceBest++;
+    const small = maxChange < CONVERGED || (maxChange < STALLED && sinceBest >= STALL);
+    if (lambda === 1 && small && Math.abs(dGraphite) <= STALLED * (1 + Math.abs(graphite))) {
+      // A full Newton step leaves every species, trace ones included, at μ_j = Σ a_ij π_i, so all
+      // reactions among them are at equilibrium; what remains is that every element balances.
+      for (let j = 0; j < ns; j++) nj[j] = Math.exp(ln[j]!);
+      if (elementError(system, b, nj, hasC ? graphite : 0) >= ELEMENT_TOLERANCE) polishTraceElements(system, b, ln, pi, nj, hasC);
+      if (elementError(system, b, nj, hasC ? graphite : 0) < ELEMENT_TOLERANCE) {
+        return { ln, lnTotal, graphite, pi, iterations: iterationsSoFar + iteration };
+      }
+    }
+  }
+  throw new ConvergenceError('gas equilibrium (Gibbs minimisation)', iterationsSoFar + maxIterations, residual);
+}
+
+/** Elements below this share of all atoms are "trace" for the polishing step. */
+const TRACE_ELEMENT = 1e-6;
+
+/**
+ * Balances the trace elements exactly, holding the potentials of the others: Newton on the
+ * trace rows alone, Σ_k (Σ_j a_ij a_kj n_j) Δπ_k = b_i − Σ_j a_ij n_j, moving only species that
+ * contain trace elements, so every species stays at μ_j = Σ a_ij π_i. A trace element cannot
+ * move the major species, but its balance, relative to its own tiny amount, feels every
+ * rounding-level drift of the major potentials; here each trace residual is formed from trace
+ * species only, so it is accurate to its own scale. Steps are limited to 2 in π.
+ */
+function polishTraceElements(system: ChemicalSystem, b: Float64Array, ln: Float64Array, pi: Float64Array, nj: Float64Array, graphite: boolean): void {
+  const ne = system.elements.length;
+  const ns = system.gas.length;
+  const a = system.a;
+  const trace: number[] = [];
+  for (let i = 0; i < ne; i++) if (b[i]! < TRACE_ELEMENT && !(graphite && i === system.carbonIndex)) trace.push(i);
+  const m = trace.length;
+  if (m === 0) return;
+  const matrix = new Float64Array(m * m);
+  const rhs = new Float64Array(m);
+  const previous = new Float64Array(m);
+  for (let iteration = 0; iteration < 50; iteration++) {
+    for (let j = 0; j < ns; j++) nj[j] = Math.exp(ln[j]!);
+    matrix.fill(0);
+    let worst = 0;
+    for (let p = 0; p < m; p++) {
+      const i = trace[p]!;
+      let held = 0;
+      for (let j = 0; j < ns; j++) {
+        const aij = a[j * ne + i]!;
+        if (aij === 0) continue;
+        held += aij * nj[j]!;
+        for (let q = 0; q < m; q++) {
+          const akj = a[j * ne + trace[q]!]!;
+          if (akj !== 0) matrix[p * m + q] = matrix[p * m + q]! + aij * akj * nj[j]!;
+        }
+      }
+      rhs[p] = b[i]! - held;
+      worst = Math.max(worst, Math.abs(rhs[p]!) / b[i]!);
+    }
+    if (worst < 1e-15) break;
+    if (!solveScaledInPlace(matrix, rhs, m, m, previous)) return;
+    for (let p = 0; p < m; p++) {
+      const step = Math.max(-2, Math.min(2, rhs[p]!));
+      const i = trace[p]!;
+      pi[i] = pi[i]! + step;
+      for (let j = 0; j < ns; j++) {
+        const aij = a[j * ne + i]!;
+        if (aij !== 0) ln[j] = ln[j]! + aij * step;
+      }
+    }
+  }
+  for (let j = 0; j < ns; j++) nj[j] = Math.exp(ln[j]!);
+}
+
+function elementError(system: ChemicalSystem, b: Float64Array, n: Float64Array, graphite: number): number {
+  const ne = system.elements.length;
+  let worst = 0;
+  for (let i = 0; i < ne; i++) {
+    let s = i === system.carbonIndex ? graphite : 0;
+    for (let j = 0; j < system.gas.length; j++) s += system.a[j * ne + i]! * n[j]!;
+    worst = Math.max(worst, Math.abs(b[i]! - s) / b[i]!);
+  }
+  return worst;
+}
+
+/**
+ * Starting amounts: each species gets the share of its scarcest element, n_j = min_i b_i / (a_ij S_i)
+ * with S_i the number of species containing element i. (RP-1311 starts every species at 0.1/NS;
+ * that overstates an element present at 1e-30 by thirty orders and costs dozens of damped
+ * iterations, whereas this start never puts more of an element in play than the feed holds.)
+ * Returns ln of the total.
+ */
+function initialEstimate(system: ChemicalSystem, b: Float64Array, ln: Float64Array): number {
+  const ne = system.elements.length;
+  const ns = system.gas.length;
+  const holders = new Float64Array(ne);
+  for (let j = 0; j < ns; j++) for (let i = 0; i < ne; i++) if (system.a[j * ne + i]! > 0) holders[i] = holders[i]! + 1;
+  let total = 0;
+  for (let j = 0; j < ns; j++) {
+    let share = Infinity;
+    for (let i = 0; i < ne; i++) {
+      const aij = system.a[j * ne + i]!;
+      if (aij > 0) share = Math.min(share, b[i]! / (aij * holders[i]!));
+    }
+    ln[j] = Math.log(share);
+    total += share;
+  }
+  return Math.log(total);
+}
+
+/**
+ * Equilibrium of `system` at T (through gRT = g°_j/RT at T) and pressure P (lnP = ln(P/1 bar))
+ * for element amounts b (mol, all positive, in system.elements order). gGraphiteRT is g°/RT of
+ * graphite at T (needed only with allowGraphite).
+ */
+export function minimiseGibbs(
+  system: ChemicalSystem,
+  gRT: Float64Array,
+  lnP: number,
+  bMol: Float64Array,
+  gGraphiteRT: number,
+  options: MinimiserOptions = {},
+): MinimiserResult {
+  const ne = system.elements.length;
+  const ns = system.gas.length;
+  let scale = 0;
+  for (let i = 0; i < ne; i++) {
+    if (!(bMol[i]! > 0) || !Number.isFinite(bMol[i]!)) {
+      throw new ConvergenceError('gas equilibrium (Gibbs minimisation)', 0, NaN, `element ${system.elements[i]} has amount ${bMol[i]}; every element must be present in a positive amount`);
+    }
+    scale += bMol[i]!;
+  }
+  const b = new Float64Array(ne);
+  for (let i = 0; i < ne; i++) b[i] = bMol[i]! / scale;
+  const maxIterations = options.maxIterations ?? 400;
+
+  const ln = new Float64Array(ns);
+  let lnTotal: number;
+  if (options.warmStart && options.warmStart.length === ns) {
+    ln.set(options.warmStart);
+    let s = 0;
+    for (let j = 0; j < ns; j++) s += Math.exp(ln[j]!);
+    lnTotal = Math.log(s);
+  } else {
+    lnTotal = initialEstimate(system, b, ln);
+  }
+
+  let attempt = iterate(system, gRT, lnP, b, ln, lnTotal, false, gGraphiteRT, 0, maxIterations, 0);
+  let carbonActivity = system.carbonIndex >= 0 ? Math.exp(attempt.pi[system.carbonIndex]! - gGraphiteRT) : 0;
+  let withGraphite = false;
+  if (options.allowGraphite && system.carbonIndex >= 0 && carbonActivity > 1) {
+    const gasOnly = attempt;
+    const graphiteAttempt = iterate(system, gRT, lnP, b, new Float64Array(attempt.ln), attempt.lnTotal, true, gGraphiteRT, 0, maxIterations, attempt.iterations);
+    if (graphiteAttempt.graphite > 0) {
+      attempt = graphiteAttempt;
+      withGraphite = true;
+      carbonActivity = 1;
+    } else {
+      attempt = gasOnly;
+    }
+  }
+
+  const n = new Float64Array(ns);
+  let total = 0;
+  for (let j = 0; j < ns; j++) {
+    n[j] = Math.exp(attempt.ln[j]!) * scale;
+    total += n[j]!;
+  }
+  const graphite = withGraphite ? attempt.graphite * scale : 0;
+  return {
+    n,
+    lnScaled: attempt.ln,
+    totalGas: total,
+    graphite,
+    pi: attempt.pi,
+    carbonActivity,
+    iterations: attempt.iterations,
+    elementBalanceError: elementError(system, bMol, n, graphite),
+  };
+}
