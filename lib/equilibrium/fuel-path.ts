@@ -1,0 +1,349 @@
+/**
+ * The fuel path of a co-flow cell: fuel-electrode and air-electrode gas, local Nernst voltage and
+ * carbon activity from the inlet to the design utilization.
+ *
+ * The charge passed up to a point moves through the electrolyte what its ion carries
+ * (lib/equilibrium/electrolyte-exchange.ts). Where the fuel electrode catalyses reforming and
+ * shift (technology data: fuel-gas-equilibrium) the fuel gas is re-equilibrated at every point
+ * with the element potentials of lib/equilibrium/gibbs-minimiser.ts, warm-started from the
+ * solutions already found on either side (interpolated, or extrapolated beyond the last two); elsewhere only H2 reacts and the other species pass through. The air gas is
+ * not reactive. Local Nernst voltage: lib/electrochem/nernst.ts with both electrodes' local
+ * partial pressures (co-flow: the same position on both sides).
+ *
+ * Utilization U = q / Q. Power mode: Q = F Σ ṅ_i z_i, the charge of complete oxidation of the
+ * fuel feed (lib/electrochem/charge.ts). Electrolysis: Q = 2F (ṅ_H2O + ṅ_CO2) of the
+ * water-electrode feed (steam, or steam and CO2, conversion; CO2 only for oxide-ion cells).
+ *
+ * Liquid-water cells (PEM, alkaline) keep both gases saturated with vapour at cell temperature,
+ * x_H2O = p_sat/P; their water balance closes through the liquid (lib/plant does it).
+ *
+ * The mean Nernst voltage and the grid are in lib/equilibrium/path-integral.ts.
+ */
+import { FARADAY_C_PER_MOL as F } from '../thermo/constants.ts';
+import { gOverRT } from '../thermo/properties.ts';
+import { saturationPressureBar } from '../thermo/saturation.ts';
+import { electronsOfStream } from '../electrochem/charge.ts';
+import { hydrogenStandardVoltage, nernstLogQuotient } from '../electrochem/nernst.ts';
+import { GAS_CONSTANT_J_PER_MOL_K as R } from '../thermo/constants.ts';
+import type { Mode, Technology } from '../electrochem/technologies.ts';
+import { minimiseGibbs } from './gibbs-minimiser.ts';
+import { elementAmounts, elementsOfFeed, gasGibbsOverRT, systemFor, type ChemicalSystem } from './species-set.ts';
+import { exchangeFor, type Exchange } from './electrolyte-exchange.ts';
+import { amountsOn, layout, moleFractions, shifted, sum, toRecord, type GasLayout } from './gas-state.ts';
+import { integrateAlongUtilization, type Sample } from './path-integral.ts';
+import { UserError } from '../errors.ts';
+
+export interface FuelPathRequest {
+  technology: Technology;
+  mode: Mode;
+  temperatureK: number;
+  fuelPressureBar: number;
+  airPressureBar: number;
+  /** Fuel-electrode feed, species label → mol/s; null when that electrode has no feed. */
+  fuelFeed: Readonly<Record<string, number>> | null;
+  /** Air-electrode feed, mol/s on the same scale; null when it has none. */
+  airFeed: Readonly<Record<string, number>> | null;
+  /** Design fuel utilization (power) or steam/CO2 conversion (electrolysis), in (0, 1). */
+  utilization: number;
+  /**
+   * Base number of intervals (default 120; a reported path uses at least 100). Sensitivity runs
+   * may use fewer (not below 20): they difference two paths on the same grid.
+   */
+  intervals?: number;
+  /** Refine intervals whose end values differ by more than this, V (default 1e-3; Infinity: no refinement). */
+  refineV?: number;
+}
+
+export interface PathPoint {
+  utilization: number;
+  /** Local Nernst voltage, V. */
+  nernstV: number;
+  /** Carbon activity of the fuel-electrode gas relative to graphite (0 without carbon). */
+  carbonActivity: number;
+  /** Mole fractions of the fuel-electrode and air-electrode gas (species that reach 1e-5 anywhere on the path). */
+  fuelSide: Record<string, number>;
+  airSide: Record<string, number>;
+}
+
+export interface FuelPath {
+  points: PathPoint[];
+  /** Charge that corresponds to U = 1, A (C/s) on the feed's scale. */
+  chargeBasisA: number;
+  /** Charge passed at the design utilization, A. */
+  currentA: number;
+  /** E at U = 0, or null where a dry inlet (no product species) makes it unbounded. */
+  inletNernstV: number | null;
+  outletNernstV: number;
+  meanNernstV: number;
+  maxCarbonActivity: number;
+  /** Gases at the inlet (the fuel gas equilibrated at cell temperature where the electrode reforms) and outlet, mol/s. Liquid-water cells: dry gases. */
+  fuelInlet: Record<string, number>;
+  fuelOutlet: Record<string, number>;
+  airInlet: Record<string, number>;
+  airOutlet: Record<string, number>;
+  /** Largest relative element-balance error of any equilibrium along the path. */
+  elementBalanceError: number;
+  /** E° of H2 + ½O2 → H2O at T used by the Nernst equation, V. */
+  standardVoltageV: number;
+  /** Vapour mole fraction p_sat/P of each side for liquid-water cells (0 otherwise). */
+  vapourFractionFuel: number;
+  vapourFractionAir: number;
+}
+
+type Stream = Readonly<Record<string, number>>;
+
+function pct(x: number): string {
+  return `${(x * 100).toPrecision(4)} %`;
+}
+
+/** Water of a feed as one species (H2O(L) in a feed is the same water; the cell fixes the phase); without water for liquid-water cells. */
+function normaliseFeed(feed: Stream | null, liquid: boolean): Record<string, number> | null {
+  if (!feed) return null;
+  const out: Record<string, number> = {};
+  for (const [k, v] of Object.entries(feed)) {
+    const key = k === 'H2O(L)' ? 'H2O' : k;
+    if (liquid && key === 'H2O') continue;
+    out[key] = (out[key] ?? 0) + v;
+  }
+  return out;
+}
+
+function withoutWater(change: Stream, liquid: boolean): Stream {
+  if (!liquid) return change;
+  const { H2O: _water, ...rest } = change;
+  return rest;
+}
+
+/** Q for U = 1 (A), with the check that the design utilization can be reached. */
+function chargeBasis(request: FuelPathRequest): number {
+  const { technology, mode } = request;
+  if (mode === 'power') {
+    if (!request.fuelFeed) throw new UserError('power mode needs a fuel-electrode feed');
+    const q = F * electronsOfStream(request.fuelFeed);
+    if (!(q > 0)) throw new UserError('the fuel-electrode feed has no oxidisable fuel (its charge on complete oxidation is not positive)');
+    if (!technology.fuelGasEquilibrium) {
+      const reachable = (2 * F * (request.fuelFeed.H2 ?? 0)) / q;
+      if (request.utilization >= reachable) {
+        throw new UserError(
+          `the fuel cannot reach the requested utilization ${pct(request.utilization)}: a ${technology.name} fuel electrode oxidises only H2, which carries ${pct(reachable)} of the feed's charge`,
+        );
+      }
+    }
+    return q;
+  }
+  const feed = technology.waterElectrode === 'fuel' ? request.fuelFeed : request.airFeed;
+  const reactant = feed ? (feed.H2O ?? 0) + (feed['H2O(L)'] ?? 0) + (technology.ion === 'oxide' ? (feed.CO2 ?? 0) : 0) : 0;
+  if (!(reactant > 0)) throw new UserError(`electrolysis in a ${technology.name} cell needs water in the ${technology.waterElectrode}-electrode feed`);
+  return 2 * F * reactant;
+}
+
+interface State {
+  fuel: Float64Array;
+  air: Float64Array;
+  carbonActivity: number;
+  elementError: number;
+}
+
+/** The gases of both electrodes as a function of the charge passed. */
+class PathModel {
+  readonly fuelGas: GasLayout;
+  readonly airGas: GasLayout;
+  readonly vapourFuel: number;
+  readonly vapourAir: number;
+  /** An element reaches the fuel gas only through the electrolyte (a dry inlet): E(0) is unbounded. */
+  readonly seeded: boolean;
+  private readonly sign: number;
+  private readonly exchange: Exchange;
+  private readonly fuelChange: Stream;
+  private readonly airChange: Stream;
+  private readonly fuelIn: Float64Array;
+  private readonly airIn: Float64Array;
+  private readonly system: ChemicalSystem | null = null;
+  private readonly gRT: Float64Array | null = null;
+  private readonly gGraphite: number = 0;
+  private readonly bInlet: Float64Array | null = null;
+  private readonly elementChange: Float64Array | null = null;
+  /** Solutions found so far, by charge: the start of each new equilibrium is predicted from them. */
+  private readonly solved: { charge: number; ln: Float64Array }[] = [];
+
+  constructor(private readonly request: FuelPathRequest) {
+    const { technology, temperatureK } = request;
+    const liquid = technology.waterPhase === 'liquid';
+    const pSat = liquid ? saturationPressureBar(temperatureK) : 0;
+    this.vapourFuel = pSat / request.fuelPressureBar;
+    this.vapourAir = pSat / request.airPressureBar;
+    if (this.vapourFuel >= 1 || this.vapourAir >= 1) {
+      throw new UserError(`at ${temperatureK.toFixed(2)} K water boils at the electrode pressure (saturation pressure ${pSat.toFixed(3)} bar): raise the pressure or lower the temperature`);
+    }
+    this.sign = request.mode === 'power' ? 1 : -1;
+    this.exchange = exchangeFor(technology.ion);
+    this.fuelChange = withoutWater(this.exchange.fuelSpecies, liquid);
+    this.airChange = withoutWater(this.exchange.airSpecies, liquid);
+    const fuelFeed = normaliseFeed(request.fuelFeed, liquid);
+    const airFeed = normaliseFeed(request.airFeed, liquid);
+    this.airGas = layout([...Object.keys(airFeed ?? {}), ...Object.keys(this.airChange), ...(liquid ? ['H2O'] : [])]);
+    this.airIn = amountsOn(this.airGas, airFeed);
+
+    if (technology.fuelGasEquilibrium && fuelFeed && sum(Object.values(fuelFeed)) > 0) {
+      const inFeed = new Set(elementsOfFeed(fuelFeed));
+      const elements = new Set(inFeed);
+      for (const [e, v] of Object.entries(this.exchange.fuelElements)) if (v * this.sign > 0) elements.add(e);
+      this.seeded = [...elements].some((e) => !inFeed.has(e));
+      const system = systemFor(elements);
+      this.system = system;
+      this.gRT = gasGibbsOverRT(system, temperatureK);
+      this.gGraphite = system.graphite ? gOverRT(system.graphite, temperatureK) : 0;
+      const b = elementAmounts(system, fuelFeed);
+      // An element introduced only by the electrolyte is seeded at a trace so the system is complete.
+      const seed = 1e-12 * sum(Object.values(fuelFeed));
+      for (let i = 0; i < b.length; i++) if (!(b[i]! > 0)) b[i] = seed;
+      this.bInlet = b;
+      this.elementChange = new Float64Array(system.elements.map((e) => this.exchange.fuelElements[e] ?? 0));
+      this.fuelGas = layout(system.gas.map((s) => s.label));
+      this.fuelIn = new Float64Array(system.gas.length);
+    } else {
+      this.seeded = false;
+      this.fuelGas = layout([...Object.keys(fuelFeed ?? {}), ...Object.keys(this.fuelChange), ...(liquid ? ['H2O'] : [])]);
+      this.fuelIn = amountsOn(this.fuelGas, fuelFeed);
+    }
+  }
+
+  private predict(charge: number): Float64Array | undefined {
+    return predictFrom(this.solved, charge);
+  }
+
+  private remember(charge: number, ln: Float64Array): void {
+    let k = this.solved.length;
+    while (k > 0 && this.solved[k - 1]!.charge > charge) k--;
+    this.solved.splice(k, 0, { charge, ln });
+  }
+
+  at(chargeA: number): State {
+    const electrons = (this.sign * chargeA) / F;
+    const air = shifted(this.airGas, this.airIn, this.airChange, electrons);
+    let fuel: Float64Array;
+    let carbonActivity = 0;
+    let elementError = 0;
+    if (this.system) {
+      const b = new Float64Array(this.bInlet!);
+      for (let i = 0; i < b.length; i++) b[i] = b[i]! + this.elementChange![i]! * electrons;
+      for (let i = 0; i < b.length; i++) {
+        if (!(b[i]! > 0)) {
+          throw new UserError(`the fuel-electrode gas runs out of ${this.system.elements[i]} before the design utilization`);
+        }
+      }
+      const warm = this.predict(chargeA);
+      const r = minimiseGibbs(this.system, this.gRT!, Math.log(this.request.fuelPressureBar), b, this.gGraphite, warm ? { warmStart: warm } : {});
+      this.remember(chargeA, r.lnScaled);
+      fuel = r.n;
+      carbonActivity = r.carbonActivity;
+      elementError = r.elementBalanceError;
+    } else {
+      fuel = shifted(this.fuelGas, this.fuelIn, this.fuelChange, electrons);
+    }
+    checkNonNegative(this.fuelGas, fuel, 'fuel');
+    checkNonNegative(this.airGas, air, 'air');
+    return { fuel, air, carbonActivity, elementError };
+  }
+}
+
+/** Linear prediction of ln n at `charge` from the two nearest solutions (interpolation between neighbours where there are). */
+function predictFrom(solved: readonly { charge: number; ln: Float64Array }[], charge: number): Float64Array | undefined {
+  if (solved.length === 0) return undefined;
+  let upper = solved.findIndex((s) => s.charge >= charge);
+  if (upper === -1) upper = solved.length;
+  const pick = upper === 0 ? [0, 1] : upper === solved.length ? [solved.length - 2, solved.length - 1] : [upper - 1, upper];
+  const a = solved[pick[0]!];
+  const b = solved[pick[1]!];
+  if (!a || !b || a.charge === b.charge) return (a ?? b)!.ln;
+  const f = (charge - a.charge) / (b.charge - a.charge);
+  const out = new Float64Array(a.ln.length);
+  for (let j = 0; j < out.length; j++) out[j] = a.ln[j]! + f * (b.ln[j]! - a.ln[j]!);
+  return out;
+}
+
+function checkNonNegative(gas: GasLayout, n: Float64Array, side: string): void {
+  const scale = sum(n) || 1;
+  for (let i = 0; i < n.length; i++) {
+    if (n[i]! < -1e-12 * scale) {
+      throw new UserError(`the ${side}-electrode gas runs out of ${gas.labels[i]} before the design utilization: supply more ${gas.labels[i]} to that electrode`);
+    }
+    if (n[i]! < 0) n[i] = 0;
+  }
+}
+
+interface Evaluated extends Sample {
+  state: State;
+  xFuel: Float64Array;
+  xAir: Float64Array;
+}
+
+export function fuelPath(request: FuelPathRequest): FuelPath {
+  if (!(request.utilization > 0 && request.utilization < 1)) {
+    throw new UserError(`utilization must lie strictly between 0 and 1, got ${request.utilization}`);
+  }
+  const basisA = chargeBasis(request);
+  const model = new PathModel(request);
+  const { technology, temperatureK } = request;
+  const e0 = hydrogenStandardVoltage(temperatureK, technology.waterPhase);
+  const rtOver2F = (R * temperatureK) / (2 * F);
+  const pf = request.fuelPressureBar;
+  const pa = request.airPressureBar;
+  const fuelP: Record<string, number> = {};
+  const airP: Record<string, number> = {};
+  const nernstSpecies = ['H2', 'H2O', 'CO2', 'O2'];
+  const fIdx = nernstSpecies.map((s) => model.fuelGas.index.get(s));
+  const aIdx = nernstSpecies.map((s) => model.airGas.index.get(s));
+
+  const evaluate = (utilization: number): Evaluated => {
+    const state = model.at(utilization * basisA);
+    const xFuel = moleFractions(model.fuelGas, state.fuel, model.vapourFuel);
+    const xAir = moleFractions(model.airGas, state.air, model.vapourAir);
+    nernstSpecies.forEach((s, k) => {
+      fuelP[s] = fIdx[k] === undefined ? 0 : xFuel[fIdx[k]!]! * pf;
+      airP[s] = aIdx[k] === undefined ? 0 : xAir[aIdx[k]!]! * pa;
+    });
+    let nernstV = e0 + rtOver2F * nernstLogQuotient(technology.ion, technology.waterPhase, fuelP, airP);
+    if (Number.isNaN(nernstV)) nernstV = Infinity;
+    return { utilization, value: nernstV, state, xFuel, xAir };
+  };
+
+  const result = integrateAlongUtilization(evaluate, request.utilization, Math.max(20, Math.round(request.intervals ?? 120)), request.refineV ?? 1e-3);
+  const points = result.points;
+  const first = points[0]!;
+  const last = points[points.length - 1]!;
+  const inletNernstV = model.seeded || !Number.isFinite(first.value) ? null : first.value;
+  if (inletNernstV === null) first.value = result.firstFinite;
+
+  // Species worth reporting along the path: those that reach 1e-5 anywhere.
+  const keep = (gas: GasLayout, key: 'xFuel' | 'xAir') =>
+    gas.labels.filter((_, i) => points.some((p) => p[key][i]! >= 1e-5));
+  const fuelKeep = keep(model.fuelGas, 'xFuel');
+  const airKeep = keep(model.airGas, 'xAir');
+  const pick = (gas: GasLayout, x: Float64Array, labels: string[]) =>
+    Object.fromEntries(labels.map((l) => [l, x[gas.index.get(l)!]!]));
+  const all = result.all as Evaluated[];
+  return {
+    points: points.map((p) => ({
+      utilization: p.utilization,
+      nernstV: p.value,
+      carbonActivity: p.state.carbonActivity,
+      fuelSide: pick(model.fuelGas, p.xFuel, fuelKeep),
+      airSide: pick(model.airGas, p.xAir, airKeep),
+    })),
+    chargeBasisA: basisA,
+    currentA: request.utilization * basisA,
+    inletNernstV,
+    outletNernstV: last.value,
+    meanNernstV: result.mean,
+    maxCarbonActivity: Math.max(...all.map((p) => p.state.carbonActivity)),
+    fuelInlet: toRecord(model.fuelGas, first.state.fuel),
+    fuelOutlet: toRecord(model.fuelGas, last.state.fuel),
+    airInlet: toRecord(model.airGas, first.state.air),
+    airOutlet: toRecord(model.airGas, last.state.air),
+    elementBalanceError: Math.max(...all.map((p) => p.state.elementError)),
+    standardVoltageV: e0,
+    vapourFractionFuel: technology.waterPhase === 'liquid' ? model.vapourFuel : 0,
+    vapourFractionAir: technology.waterPhase === 'liquid' ? model.vapourAir : 0,
+  };
+}
