@@ -3,10 +3,12 @@
  * Sections can be chosen: `npm run bench -- thermo equilibrium`.
  */
 import { benchThermo } from './thermo.ts';
+import { benchEquilibrium } from './equilibrium.ts';
 import { printTable, type Row } from './measure.ts';
 
 const sections: Record<string, () => Promise<Row[]> | Row[]> = {
   thermo: benchThermo,
+  equilibrium: benchEquilibrium,
 };
 
 const wanted = process.argv.slice(2).filter((a) => !a.startsWith('-'));

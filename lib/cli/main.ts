@@ -6,12 +6,14 @@ import { helpText, parseCommandArgs, type Command, type Io } from './command.ts'
 import { UserError, EXIT_INTERNAL, EXIT_USAGE } from '../errors.ts';
 import { reactionCommand } from './commands/reaction.ts';
 import { speciesCommand } from './commands/species.ts';
+import { equilibriumCommand } from './commands/equilibrium.ts';
+import { steamLimitCommand } from './commands/steam-limit.ts';
 import { newCommand } from './commands/new.ts';
 import { checkCommand } from './commands/check.ts';
 import { schemaCommand } from './commands/schema.ts';
 import { toolVersion } from './version.ts';
 
-export const COMMANDS: Command[] = [reactionCommand, speciesCommand, newCommand, checkCommand, schemaCommand];
+export const COMMANDS: Command[] = [reactionCommand, speciesCommand, equilibriumCommand, steamLimitCommand, newCommand, checkCommand, schemaCommand];
 
 function overview(): string {
   const width = Math.max(...COMMANDS.map((c) => c.name.length)) + 2;

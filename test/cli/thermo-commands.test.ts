@@ -2,16 +2,7 @@
 // one-line messages for user mistakes (no stack traces).
 import { execFileSync, spawnSync } from 'node:child_process';
 import { describe, expect, it } from 'vitest';
-import { main } from '../../lib/cli/main.ts';
-import type { Io } from '../../lib/cli/command.ts';
-
-export async function run(argv: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: Io = { out: (t) => (out += t), err: (t) => (err += t), isTTY: false, cwd: process.cwd() };
-  const code = await main(argv, io);
-  return { code, out, err };
-}
+import { run } from './run.ts';
 
 describe('cellbasis reaction', () => {
   it('--json prints exactly one object with the documented SI keys', async () => {

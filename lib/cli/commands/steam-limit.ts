@@ -1,0 +1,42 @@
+import type { Command } from '../command.ts';
+import { JSON_OPTION, requireString } from '../command.ts';
+import { minimumSteamToCarbon } from '../../equilibrium/carbon.ts';
+import { parseFeedOption } from '../feed.ts';
+import { pressureOption, temperatureOption } from '../values.ts';
+import { json, sig, table } from '../format.ts';
+
+export const steamLimitCommand: Command = {
+  name: 'steam-limit',
+  summary: 'least steam-to-carbon ratio that keeps the equilibrated fuel gas free of carbon',
+  usage: 'steam-limit --fuel "CH4=1" --temperature T --pressure P [--json]',
+  details:
+    'S/C counts mol of steam per mol of combustible carbon (every carbon but that of CO2). The limit is\n' +
+    'the S/C at which the gas-only equilibrium has carbon activity 1 relative to graphite.',
+  positionals: [0, 0],
+  options: [
+    { name: 'fuel', type: 'string', value: 'FUEL', description: 'dry fuel composition, "CH4=0.95, C2H6=0.03, CO2=0.02"' },
+    { name: 'temperature', type: 'string', value: 'T', description: 'temperature with unit (K, C, F)' },
+    { name: 'pressure', type: 'string', value: 'P', description: 'absolute pressure with unit' },
+    JSON_OPTION,
+  ],
+  run(args, io) {
+    const fuel = parseFeedOption(requireString(args, 'fuel', 'steam-limit'), 'fuel');
+    const temperatureK = temperatureOption(requireString(args, 'temperature', 'steam-limit'));
+    const pressureBar = pressureOption(requireString(args, 'pressure', 'steam-limit'));
+    const limit = minimumSteamToCarbon(fuel, temperatureK, pressureBar);
+    if (args.values.json) {
+      io.out(json({ temperature_K: temperatureK, pressure_bar: pressureBar, fuel, minimumSteamToCarbon: limit.minimumSteamToCarbon }));
+      return 0;
+    }
+    io.out(
+      table([
+        ['fuel', Object.entries(fuel).map(([k, v]) => `${k}=${sig(v)}`).join(', ')],
+        ['temperature', `${sig(temperatureK)} K (${sig(temperatureK - 273.15)} °C)`],
+        ['pressure', `${sig(pressureBar)} bar`],
+        ['carbon activity without steam', sig(limit.dryCarbonActivity, 4)],
+        ['minimum steam-to-carbon ratio', sig(limit.minimumSteamToCarbon, 4)],
+      ]),
+    );
+    return 0;
+  },
+};
