@@ -18,8 +18,8 @@ import { streamRules } from './stream-rules.ts';
 import type { Reader } from './reader.ts';
 import type { Conditions, DesignBasis } from './types.ts';
 
-/** The basis without what the loader adds (id, file, inputs in file order, warnings). */
-export type InterpretedBasis = Omit<DesignBasis, 'id' | 'file' | 'inputs' | 'warnings'>;
+/** The basis without what the loader adds (id, file, inputs in file order, warnings, positions). */
+export type InterpretedBasis = Omit<DesignBasis, 'id' | 'file' | 'inputs' | 'warnings' | 'positions'>;
 
 export function interpret(reader: Reader): InterpretedBasis | undefined {
   const document = readDocument(reader);

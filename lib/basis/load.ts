@@ -4,6 +4,7 @@
  * found, each located at `file:line:col` and sorted by position. Warnings never stop a basis.
  */
 import { readFileSync, statSync } from 'node:fs';
+import { isMap, isScalar, isSeq } from 'yaml';
 import { decodeBasisBytes, MAX_BASIS_BYTES, tooLargeError } from './source-text.ts';
 import { parseBasisYaml } from './yaml-syntax.ts';
 import { schemaFindings } from './zod-findings.ts';
@@ -18,6 +19,37 @@ export type LoadResult = { ok: true; basis: DesignBasis; warnings: Diagnostic[] 
 
 function failed(errors: Diagnostic[], warnings: Diagnostic[] = []): LoadResult {
   return { ok: false, errors: sortDiagnostics(errors), warnings: sortDiagnostics(warnings) };
+}
+
+/** Line and column of every value of the document, keyed by dotted path. */
+function valuePositions(doc: Parameters<typeof locate>[0], lines: Parameters<typeof locate>[1]): Record<string, { line: number; column: number }> {
+  const out: Record<string, { line: number; column: number }> = {};
+  const walk = (node: unknown, path: string) => {
+    if (isMap(node)) {
+      for (const pair of node.items) {
+        const key = isScalar(pair.key) ? String(pair.key.value) : String(pair.key);
+        const child = path ? `${path}.${key}` : key;
+        const target = (pair.value as { range?: [number, number, number] } | null)?.range ?? (pair.key as { range?: [number, number, number] } | null)?.range;
+        if (target) {
+          const { line, col } = lines.linePos(target[0]);
+          out[child] = { line, column: col };
+        }
+        walk(pair.value, child);
+      }
+    } else if (isSeq(node)) {
+      node.items.forEach((item, i) => {
+        const child = `${path}.${i}`;
+        const range = (item as { range?: [number, number, number] } | null)?.range;
+        if (range) {
+          const { line, col } = lines.linePos(range[0]);
+          out[child] = { line, column: col };
+        }
+        walk(item, child);
+      });
+    }
+  };
+  walk(doc.contents, '');
+  return out;
 }
 
 /**
@@ -40,10 +72,11 @@ export function loadBasisText(text: string | Uint8Array, file: string, id: strin
   if (errors.length || !result) return failed(errors, warnings);
   const position = (d: Diagnostic) => d.line * 1e6 + d.column;
   const inputs = reader.inputs
-    .map((input) => ({ input, at: position(place({ severity: 'warning', at: input.at, target: 'value', message: '' })) }))
-    .sort((a, b) => a.at - b.at)
-    .map(({ input }) => input.record);
-  return { ok: true, basis: { id, file, ...result, inputs, warnings }, warnings };
+    .map((input) => ({ input, where: place({ severity: 'warning', at: input.at, target: 'value', message: '' }) }))
+    .sort((a, b) => position(a.where) - position(b.where))
+    .map(({ input, where }) => ({ ...input.record, line: where.line, column: where.column }));
+  const positions = valuePositions(parsed.doc, parsed.lines);
+  return { ok: true, basis: { id, file, ...result, inputs, warnings, positions }, warnings };
 }
 
 /** Reads and checks a basis file; the id defaults to the name of its folder. */

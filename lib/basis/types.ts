@@ -161,6 +161,9 @@ export interface InputRecord {
   siUnit: string;
   /** Reference id or justification given with the value. */
   source?: string;
+  /** Where the value stands in the basis file (1-based). */
+  line?: number;
+  column?: number;
 }
 
 export interface Diagnostic {
@@ -200,4 +203,10 @@ export interface DesignBasis {
   references: Reference[];
   inputs: InputRecord[];
   warnings: Diagnostic[];
+  /**
+   * Position (1-based line and column) of every value in the file by dotted path
+   * ("operating-point.cells", "streams.fuel-electrode.composition"), for errors the
+   * calculation finds in a basis that passed validation.
+   */
+  positions: Record<string, { line: number; column: number }>;
 }

@@ -80,7 +80,11 @@ describe('the base fixture', () => {
       'operating-point.active-area',
       'operating-point.cells',
     ]);
-    expect(basis.inputs[1]).toEqual({ path: 'conditions.fuel-electrode-pressure', label: 'fuel-electrode pressure', text: '1.2 bar', unit: 'bar', si: 120000, siUnit: 'Pa' });
+    expect(basis.inputs[1]).toEqual({ path: 'conditions.fuel-electrode-pressure', label: 'fuel-electrode pressure', text: '1.2 bar', unit: 'bar', si: 120000, siUnit: 'Pa', line: expect.any(Number), column: expect.any(Number) });
+    // Each input carries the position of its value, the same the position map gives.
+    for (const input of basis.inputs) {
+      expect(basis.positions[`${input.path}.value`] ?? basis.positions[input.path], input.path).toEqual({ line: input.line, column: input.column });
+    }
     expect(basis.inputs[3]!.source).toBe('R1');
     expect(basis.inputs[12]).toMatchObject({ text: '0.4 A/cm2', unit: 'A/cm2', si: 4000, siUnit: 'A/m2' });
   });
