@@ -11,7 +11,7 @@ import { STANDARD_ATMOSPHERE_PA, PA_PER_BAR, ZERO_CELSIUS_K } from '../thermo/co
 import { formatCelsius, formatList, formatNumber as fmt } from './numbers.ts';
 import { findSubstance, substance } from './substances.ts';
 import { threshold } from './thresholds.ts';
-import type { HazardInput, SpeciesShare, StreamIndicators } from './types.ts';
+import type { HazardInput, SpeciesShare, StreamIndicators, StreamRole } from './types.ts';
 
 export type Values = Record<string, string | undefined>;
 
@@ -24,6 +24,8 @@ export interface RuleContext {
 export interface RuleParams {
   substance?: string;
   technology?: TechnologyId;
+  /** Only streams of these roles count (e.g. feed: a substance the plant is fed, not a trace an equilibrium forms). */
+  roles?: readonly StreamRole[];
 }
 
 export interface Match {
@@ -57,7 +59,7 @@ function basisMatch(values: Values): Match {
 const substancePresent: Predicate = (ctx, params) => {
   const label = params.substance!;
   const idlh = substance(label).exposure_ppm.idlh?.value;
-  const streams = ctx.streams.filter((s) => shareOf(s, label));
+  const streams = ctx.streams.filter((s) => shareOf(s, label) && (!params.roles || params.roles.includes(s.role)));
   if (streams.length === 0) return null;
   const percent = (s: StreamIndicators) => shareOf(s, label)!.mole_percent;
   const maxPercent = Math.max(...streams.map(percent));

@@ -13,7 +13,7 @@ import { PREDICATES, type Match, type RuleContext, type Values } from './predica
 import { standardRef, standards } from './standards.ts';
 import { findSubstance } from './substances.ts';
 import { renderTemplate, sentence, type Resolver } from './template.ts';
-import { SEVERITIES, type Caution } from './types.ts';
+import { SEVERITIES, STREAM_ROLES, type Caution } from './types.ts';
 
 const SeverityId = z.enum(SEVERITIES);
 
@@ -23,6 +23,7 @@ const RawRule = z.strictObject({
   when: z.string(),
   substance: z.string().optional(),
   technology: z.enum(TECHNOLOGY_IDS).optional(),
+  roles: z.array(z.enum(STREAM_ROLES)).optional(),
   severity: SeverityId,
   escalate: z.strictObject({ to: SeverityId, when: z.string() }).optional(),
   concerns: z.array(z.string()).optional(),
@@ -104,7 +105,7 @@ export interface TriggeredRule {
 /** Every rule whose condition holds, with its rendered caution, in the order of the table. */
 export function evaluateRules(ctx: RuleContext): TriggeredRule[] {
   return rules().flatMap((rule) => {
-    const match = PREDICATES[rule.when]!(ctx, { substance: rule.substance, technology: rule.technology });
+    const match = PREDICATES[rule.when]!(ctx, { substance: rule.substance, technology: rule.technology, ...(rule.roles ? { roles: rule.roles } : {}) });
     return match ? [{ rule, caution: render(rule, match, ctx.input.mode) }] : [];
   });
 }
