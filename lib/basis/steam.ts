@@ -7,17 +7,9 @@
  *   n_steam = S/C · Σ x_i c_i      (c_i carbon atoms of species i, CO2 excluded)
  *   feed_i  = (x_i + n_steam δ_i,H2O) / (1 + n_steam)
  */
-import { getSpecies } from '../thermo/species-data.ts';
 
-/** Mol of combustible carbon per mol of the mixture (CO2's carbon excluded). */
-export function combustibleCarbon(fractions: Readonly<Record<string, number>>): number {
-  let carbon = 0;
-  for (const [label, x] of Object.entries(fractions)) {
-    if (label === 'CO2') continue;
-    carbon += x * (getSpecies(label).formula.C ?? 0);
-  }
-  return carbon;
-}
+/** Mol of combustible carbon per mol of the mixture (CO2's carbon excluded): one definition, lib/equilibrium/carbon.ts. */
+export { combustibleCarbon } from '../equilibrium/carbon.ts';
 
 /** The feed after adding `steamPerMole` mol of H2O per mol of dry fuel, mole fractions summing to 1. */
 export function addSteam(fractions: Readonly<Record<string, number>>, steamPerMole: number): Record<string, number> {
