@@ -61,11 +61,18 @@ export function withSteam(fuel: Readonly<Record<string, number>>, steamToCarbon:
   return { ...fuel, H2O: (fuel.H2O ?? 0) + steam };
 }
 
-/** Carbon activity of the gas-only equilibrium of `feed` at T, P (graphite not allowed to form). */
-export function equilibriumCarbonActivity(feed: Readonly<Record<string, number>>, temperatureK: number, pressureBar: number): number {
+/**
+ * Carbon activity of the gas-only equilibrium of `feed` at T, P (graphite not allowed to form).
+ * A `chain` carries the last solution from call to call (a sweep or a root search over nearby
+ * feeds starts each equilibrium from the previous one).
+ */
+export function equilibriumCarbonActivity(feed: Readonly<Record<string, number>>, temperatureK: number, pressureBar: number, chain?: { last?: { key: string; ln: Float64Array } }): number {
   const system = systemFor(elementsOfFeed(feed));
   if (system.carbonIndex < 0) return 0;
-  const r = minimiseGibbs(system, gasGibbsOverRT(system, temperatureK), Math.log(pressureBar), elementAmounts(system, feed), gOverRT(system.graphite!, temperatureK));
+  const key = system.elements.join(',');
+  const warm = chain?.last && chain.last.key === key ? { warmStart: chain.last.ln } : {};
+  const r = minimiseGibbs(system, gasGibbsOverRT(system, temperatureK), Math.log(pressureBar), elementAmounts(system, feed), gOverRT(system.graphite!, temperatureK), warm);
+  if (chain) chain.last = { key, ln: r.lnScaled };
   return r.carbonActivity;
 }
 
@@ -88,7 +95,8 @@ export function minimumSteamToCarbon(fuel: Readonly<Record<string, number>>, tem
   if (!(combustibleCarbon(fuel) > 0)) {
     throw new UserError('the fuel contains no combustible carbon, so it cannot deposit carbon and a steam-to-carbon ratio is not defined');
   }
-  const f = (s: number) => Math.log(equilibriumCarbonActivity(withSteam(fuel, s), temperatureK, pressureBar));
+  const chain = {};
+  const f = (s: number) => Math.log(equilibriumCarbonActivity(withSteam(fuel, s), temperatureK, pressureBar, chain));
   const dry = f(0);
   if (dry <= 0) return { minimumSteamToCarbon: 0, dryCarbonActivity: Math.exp(dry), iterations: 1 };
   let low = 0;

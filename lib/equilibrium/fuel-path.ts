@@ -52,6 +52,14 @@ export interface FuelPathRequest {
   intervals?: number;
   /** Refine intervals whose end values differ by more than this, V (default 1e-3; Infinity: no refinement). */
   refineV?: number;
+  /** Solutions of a neighbouring path (FuelPath.solutions) to start this one's equilibria from. */
+  seeds?: readonly Solution[];
+}
+
+/** An equilibrium solved along a path: ln n on the minimiser's normalised scale, at a utilization. */
+export interface Solution {
+  utilization: number;
+  ln: Float64Array;
 }
 
 export interface PathPoint {
@@ -88,6 +96,8 @@ export interface FuelPath {
   /** Vapour mole fraction p_sat/P of each side for liquid-water cells (0 otherwise). */
   vapourFractionFuel: number;
   vapourFractionAir: number;
+  /** The equilibria solved, by utilization, to seed a neighbouring path (empty without fuel-gas equilibrium). */
+  solutions: Solution[];
 }
 
 type Stream = Readonly<Record<string, number>>;
@@ -163,11 +173,15 @@ class PathModel {
   private readonly gGraphite: number = 0;
   private readonly bInlet: Float64Array | null = null;
   private readonly elementChange: Float64Array | null = null;
-  /** Solutions found so far, by charge: the start of each new equilibrium is predicted from them. */
-  private readonly solved: { charge: number; ln: Float64Array }[] = [];
+  /** Solutions found so far, by utilization: the start of each new equilibrium is predicted from them. */
+  readonly solved: Solution[] = [];
+  private readonly seeds: readonly Solution[];
+  private readonly basisA: number;
 
-  constructor(private readonly request: FuelPathRequest) {
+  constructor(private readonly request: FuelPathRequest, basisA: number) {
     const { technology, temperatureK } = request;
+    this.basisA = basisA;
+    this.seeds = request.seeds ?? [];
     const liquid = technology.waterPhase === 'liquid';
     const pSat = liquid ? saturationPressureBar(temperatureK) : 0;
     this.vapourFuel = pSat / request.fuelPressureBar;
@@ -208,14 +222,27 @@ class PathModel {
     }
   }
 
-  private predict(charge: number): Float64Array | undefined {
-    return predictFrom(this.solved, charge);
+  /**
+   * Start for the equilibrium at utilization u: interpolated between this path's neighbours, or,
+   * with seeds from a neighbouring path, the seed at u shifted by how this path differs from the
+   * seeds at its nearest solved point.
+   */
+  private predict(u: number): Float64Array | undefined {
+    const seeds = this.seeds;
+    if (seeds.length < 2 || seeds[0]!.ln.length !== this.system?.gas.length) return predictFrom(this.solved, u);
+    const seeded = predictFrom(seeds, u)!;
+    if (this.solved.length === 0) return seeded;
+    let nearest = this.solved[0]!;
+    for (const s of this.solved) if (Math.abs(s.utilization - u) < Math.abs(nearest.utilization - u)) nearest = s;
+    const offset = predictFrom(seeds, nearest.utilization)!;
+    for (let j = 0; j < seeded.length; j++) seeded[j] = seeded[j]! + nearest.ln[j]! - offset[j]!;
+    return seeded;
   }
 
-  private remember(charge: number, ln: Float64Array): void {
+  private remember(u: number, ln: Float64Array): void {
     let k = this.solved.length;
-    while (k > 0 && this.solved[k - 1]!.charge > charge) k--;
-    this.solved.splice(k, 0, { charge, ln });
+    while (k > 0 && this.solved[k - 1]!.utilization > u) k--;
+    this.solved.splice(k, 0, { utilization: u, ln });
   }
 
   at(chargeA: number): State {
@@ -232,9 +259,10 @@ class PathModel {
           throw new UserError(`the fuel-electrode gas runs out of ${this.system.elements[i]} before the design utilization`);
         }
       }
-      const warm = this.predict(chargeA);
+      const u = chargeA / this.basisA;
+      const warm = this.predict(u);
       const r = minimiseGibbs(this.system, this.gRT!, Math.log(this.request.fuelPressureBar), b, this.gGraphite, warm ? { warmStart: warm } : {});
-      this.remember(chargeA, r.lnScaled);
+      this.remember(u, r.lnScaled);
       fuel = r.n;
       carbonActivity = r.carbonActivity;
       elementError = r.elementBalanceError;
@@ -247,16 +275,16 @@ class PathModel {
   }
 }
 
-/** Linear prediction of ln n at `charge` from the two nearest solutions (interpolation between neighbours where there are). */
-function predictFrom(solved: readonly { charge: number; ln: Float64Array }[], charge: number): Float64Array | undefined {
+/** Linear prediction of ln n at utilization u from the two nearest solutions (interpolation between neighbours where there are). */
+function predictFrom(solved: readonly Solution[], u: number): Float64Array | undefined {
   if (solved.length === 0) return undefined;
-  let upper = solved.findIndex((s) => s.charge >= charge);
+  let upper = solved.findIndex((s) => s.utilization >= u);
   if (upper === -1) upper = solved.length;
   const pick = upper === 0 ? [0, 1] : upper === solved.length ? [solved.length - 2, solved.length - 1] : [upper - 1, upper];
   const a = solved[pick[0]!];
   const b = solved[pick[1]!];
-  if (!a || !b || a.charge === b.charge) return (a ?? b)!.ln;
-  const f = (charge - a.charge) / (b.charge - a.charge);
+  if (!a || !b || a.utilization === b.utilization) return new Float64Array((a ?? b)!.ln);
+  const f = (u - a.utilization) / (b.utilization - a.utilization);
   const out = new Float64Array(a.ln.length);
   for (let j = 0; j < out.length; j++) out[j] = a.ln[j]! + f * (b.ln[j]! - a.ln[j]!);
   return out;
@@ -283,7 +311,7 @@ export function fuelPath(request: FuelPathRequest): FuelPath {
     throw new UserError(`utilization must lie strictly between 0 and 1, got ${request.utilization}`);
   }
   const basisA = chargeBasis(request);
-  const model = new PathModel(request);
+  const model = new PathModel(request, basisA);
   const { technology, temperatureK } = request;
   const e0 = hydrogenStandardVoltage(temperatureK, technology.waterPhase);
   const rtOver2F = (R * temperatureK) / (2 * F);
@@ -345,5 +373,6 @@ export function fuelPath(request: FuelPathRequest): FuelPath {
     standardVoltageV: e0,
     vapourFractionFuel: technology.waterPhase === 'liquid' ? model.vapourFuel : 0,
     vapourFractionAir: technology.waterPhase === 'liquid' ? model.vapourAir : 0,
+    solutions: model.solved,
   };
 }

@@ -83,6 +83,39 @@ interface Work {
   nj: Float64Array;
 }
 
+/** The formula matrix by species as sparse (element, count) entries. */
+interface SparseFormula {
+  start: Int32Array;
+  element: Int32Array;
+  count: Float64Array;
+}
+
+const sparseCache = new WeakMap<ChemicalSystem, SparseFormula>();
+
+function sparseFormula(system: ChemicalSystem): SparseFormula {
+  const cached = sparseCache.get(system);
+  if (cached) return cached;
+  const ne = system.elements.length;
+  const ns = system.gas.length;
+  const start = new Int32Array(ns + 1);
+  const elements: number[] = [];
+  const counts: number[] = [];
+  for (let j = 0; j < ns; j++) {
+    start[j] = elements.length;
+    for (let i = 0; i < ne; i++) {
+      const aij = system.a[j * ne + i]!;
+      if (aij !== 0) {
+        elements.push(i);
+        counts.push(aij);
+      }
+    }
+  }
+  start[ns] = elements.length;
+  const sparse = { start, element: Int32Array.from(elements), count: Float64Array.from(counts) };
+  sparseCache.set(system, sparse);
+  return sparse;
+}
+
 const works = new Map<string, Work>();
 
 /** Scratch arrays, reused across calls of the same shape (no allocation inside a fuel path). */
@@ -127,6 +160,9 @@ function iterate(
   const last = size - 1;
   const w = workFor(ns, size);
   const { matrix, rhs, mu, dln, nj } = w;
+  const sparse = sparseFormula(system);
+  const bGasWork = new Float64Array(ne);
+  const aNMuWork = new Float64Array(ne);
   let lnTotal = lnTotalStart;
   let graphite = hasC ? graphiteStart : 0;
   const pi = new Float64Array(ne);
@@ -148,23 +184,37 @@ function iterate(
     }
     matrix.fill(0);
     rhs.fill(0);
-    for (let i = 0; i < ne; i++) {
-      let bGas = 0;
-      let aNMu = 0;
-      for (let j = 0; j < ns; j++) {
-        const aij = a[j * ne + i]!;
-        if (aij === 0) continue;
-        const n = nj[j]!;
-        bGas += aij * n;
-        aNMu += aij * n * mu[j]!;
-        for (let k = 0; k <= i; k++) {
-          const akj = a[j * ne + k]!;
-          if (akj !== 0) matrix[i * size + k] = matrix[i * size + k]! + akj * aij * n;
+    // Element sums over the sparse formula entries; a species too scarce to matter for any of its
+    // elements (n_j a_ij below 1e-18 of b_i) is left out of the Jacobian only.
+    bGasWork.fill(0);
+    aNMuWork.fill(0);
+    for (let j = 0; j < ns; j++) {
+      const n = nj[j]!;
+      const m = mu[j]!;
+      const start = sparse.start[j]!;
+      const end = sparse.start[j + 1]!;
+      let keep = false;
+      for (let e = start; e < end; e++) {
+        const i = sparse.element[e]!;
+        const aij = sparse.count[e]!;
+        bGasWork[i] = bGasWork[i]! + aij * n;
+        aNMuWork[i] = aNMuWork[i]! + aij * n * m;
+        if (n * aij > 1e-18 * b[i]!) keep = true;
+      }
+      if (!keep) continue;
+      for (let e = start; e < end; e++) {
+        const i = sparse.element[e]!;
+        const ai = sparse.count[e]! * n;
+        for (let f = start; f < end; f++) {
+          const k = sparse.element[f]!;
+          matrix[i * size + k] = matrix[i * size + k]! + ai * sparse.count[f]!;
         }
       }
-      for (let k = 0; k < i; k++) matrix[k * size + i] = matrix[i * size + k]!;
+    }
+    for (let i = 0; i < ne; i++) {
+      const bGas = bGasWork[i]!;
       const bNow = bGas + (hasC && i === cIndex ? graphite : 0);
-      rhs[i] = b[i]! - bNow + aNMu;
+      rhs[i] = b[i]! - bNow + aNMuWork[i]!;
       matrix[i * size + last] = bGas;
       matrix[last * size + i] = bGas;
     }

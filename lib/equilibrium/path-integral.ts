@@ -6,8 +6,9 @@
  *   U_k = U_f (1 − (1 − k/N)^1.5);
  * - refinement: an interval whose end values differ by more than 1 mV is halved, up to 6 times
  *   (adaptive near the outlet, where E falls steeply as the fuel runs out);
- * - six geometric points U_1·10^−k between the inlet and the first grid point: a dry inlet (no
- *   product species) gives E ≈ α − c ln U, unbounded at U = 0 but integrable. On [0, u_min],
+ * - an inlet that is not linear over the first interval (tested at its midpoint, 0.1 mV) gets six
+ *   geometric points U_1·10^−k below the first grid point: a dry inlet (no product species)
+ *   gives E ≈ α − c ln U, unbounded at U = 0 but integrable. On [0, u_min],
  *   ∫ E dU = u_min (E(u_min) + c) with c from the first decade; on the geometric intervals E is
  *   integrated exactly for the form α + β ln U; elsewhere by the trapezoidal rule.
  * For a regular inlet the log terms vanish and the rule is the trapezoidal rule.
@@ -50,8 +51,13 @@ export function integrateAlongUtilization<S extends Sample>(
   const grid = Array.from({ length: intervals + 1 }, (_, k) => utilizationF * (1 - Math.pow(1 - k / intervals, 1.5)));
   const inlet = evaluate(0);
   const u1 = grid[1]!;
-  const decades = Array.from({ length: INLET_DECADES }, (_, k) => evaluate(u1 * 10 ** (k - INLET_DECADES)));
   let body = grid.slice(1).map(evaluate);
+  // A regular inlet is linear over the first interval (checked at its midpoint to 0.1 mV); anything
+  // else is treated as the logarithmic inlet of a (nearly) dry feed.
+  const mid = evaluate(u1 / 2);
+  const regular = Number.isFinite(inlet.value) && Math.abs(mid.value - (inlet.value + body[0]!.value) / 2) < 1e-4;
+  const decades = regular ? [] : Array.from({ length: INLET_DECADES }, (_, k) => evaluate(u1 * 10 ** (k - INLET_DECADES)));
+  if (regular) body = [mid, ...body];
   for (let pass = 0; pass < MAX_REFINE; pass++) {
     const refined: S[] = [body[0]!];
     let added = 0;
@@ -68,15 +74,20 @@ export function integrateAlongUtilization<S extends Sample>(
     if (added === 0) break;
   }
 
-  const uMin = decades[0]!;
-  const c = -(decades[1]!.value - uMin.value) / Math.log(10);
-  let integral = uMin.utilization * (uMin.value + c);
-  const geometric = [...decades, body[0]!];
-  for (let k = 1; k < geometric.length; k++) integral += logLinear(geometric[k - 1]!, geometric[k]!);
+  let integral = 0;
+  if (regular) {
+    integral += ((inlet.value + body[0]!.value) / 2) * body[0]!.utilization;
+  } else {
+    const uMin = decades[0]!;
+    const c = -(decades[1]!.value - uMin.value) / Math.log(10);
+    integral += uMin.utilization * (uMin.value + c);
+    const geometric = [...decades, body[0]!];
+    for (let k = 1; k < geometric.length; k++) integral += logLinear(geometric[k - 1]!, geometric[k]!);
+  }
   for (let k = 1; k < body.length; k++) {
     const a = body[k - 1]!;
     const b = body[k]!;
     integral += ((a.value + b.value) / 2) * (b.utilization - a.utilization);
   }
-  return { points: [inlet, ...body], all: [inlet, ...decades, ...body], mean: integral / utilizationF, firstFinite: uMin.value };
+  return { points: [inlet, ...body], all: [inlet, ...decades, ...body], mean: integral / utilizationF, firstFinite: (decades[0] ?? body[0]!).value };
 }

@@ -10,6 +10,9 @@ import { cp, entropy, formationEnthalpy, formationGibbs } from '../thermo/proper
 import { evaluateReaction, lnEquilibriumConstant } from '../electrochem/reaction.ts';
 import { parseEquation } from '../electrochem/equation.ts';
 import { saturationPressureBar } from '../thermo/saturation.ts';
+import { heatingValue } from '../plant/heating-values.ts';
+import { oxidationGibbsW } from '../plant/efficiency.ts';
+import { FARADAY_C_PER_MOL } from '../thermo/constants.ts';
 
 export interface ReferenceCheck {
   id: string;
@@ -64,6 +67,24 @@ const evaluators = new Map<string, Evaluator>([
   ['thermoneutral-voltage', (c) => evaluateReaction(str(c, 'reaction'), num(c, 'temperature_K')).thermoneutralVoltage_V],
   ['equilibrium-constant', (c) => Math.exp(lnEquilibriumConstant(parseEquation(str(c, 'reaction')).terms, num(c, 'temperature_K')))],
   ['saturation-pressure', (c) => saturationPressureBar(num(c, 'temperature_K')) * 1e5],
+  // −ΔG(T) of the fuel's oxidation over its HHV at 25 °C (water as stated), as a fraction.
+  ['efficiency-limit-hhv', (c) => {
+    const fuel = getSpecies(str(c, 'species'));
+    return oxidationGibbsW({ [fuel.label]: 1 }, num(c, 'temperature_K'), str(c, 'water') === 'liquid' ? 'liquid' : 'gas') / heatingValue(fuel).hhvJPerMol;
+  }],
+  ['heating-value-mass', (c) => {
+    const fuel = getSpecies(str(c, 'species'));
+    const hv = heatingValue(fuel);
+    return (str(c, 'basis') === 'HHV' ? hv.hhvJPerMol : hv.lhvJPerMol) / fuel.molarMassKgPerMol;
+  }],
+  // mol/s of H2 per ampere: 1/(2F).
+  ['faraday-hydrogen', () => 1 / (2 * FARADAY_C_PER_MOL)],
+  // Electric energy per kg of H2 at 100 % efficiency on a heating-value basis, J/kg.
+  ['electrolysis-energy', (c) => {
+    const h2 = getSpecies('H2');
+    const hv = heatingValue(h2);
+    return (str(c, 'basis') === 'HHV' ? hv.hhvJPerMol : hv.lhvJPerMol) / h2.molarMassKgPerMol;
+  }],
 ]);
 
 /** Lets other modules add evaluators (equilibrium constants, plant quantities) without a cycle. */

@@ -1,0 +1,239 @@
+/**
+ * Everything cellbasis computes for one design basis, as the results object of
+ * lib/plant/results-schema.ts: the design point (fuel path, voltage, size, streams, heat,
+ * efficiency), the carbon margin, the chart sweeps, the sensitivities and the hazards.
+ * Calculation errors in a valid basis are located at the field they concern.
+ */
+import { FARADAY_C_PER_MOL as F } from '../thermo/constants.ts';
+import { getSpecies, speciesDataHash } from '../thermo/species-data.ts';
+import { enthalpy } from '../thermo/properties.ts';
+import { evaluateReaction } from '../electrochem/reaction.ts';
+import { assessHazards } from '../hazards/assessment.ts';
+import type { DesignBasis } from '../basis/types.ts';
+import { toolVersion } from '../cli/version.ts';
+import { designInputs } from './design-inputs.ts';
+import { evaluateDesignPoint, type DesignPoint } from './design-point.ts';
+import { carbonMargin } from './carbon-margin.ts';
+import { currentDensitySweep, steamToCarbonSweep, temperatureSweep } from './sweeps.ts';
+import { sensitivities } from './sensitivity.ts';
+import { hazardInput } from './hazard-streams.ts';
+import { atPath } from './located-error.ts';
+import { enthalpyFlowW, gasFlow, gasMoleFractions, massFlowKgPerS, normalVolumeM3PerS, totalFlow, type Stream } from './streams.ts';
+import type { Results, StreamResult } from './results-schema.ts';
+
+const HOUR = 3600;
+
+function streamResult(s: Stream): StreamResult {
+  return {
+    id: s.id,
+    name: s.name,
+    temperature_K: s.temperatureK,
+    pressure_bar: s.pressureBar,
+    flow_mol_per_s: totalFlow(s.flows),
+    gasFlow_mol_per_s: gasFlow(s.flows),
+    massFlow_kg_per_h: massFlowKgPerS(s.flows) * HOUR,
+    normalVolume_Nm3_per_h: normalVolumeM3PerS(s.flows) * HOUR,
+    enthalpyFlow_W: enthalpyFlowW(s.flows, s.temperatureK),
+    moleFractions: gasMoleFractions(s.flows),
+    speciesFlows_mol_per_s: { ...s.flows },
+  };
+}
+
+/** Combustibles of a dry fuel other than H2 (a pure-hydrogen fuel has none). */
+function onlyHydrogen(dry: Readonly<Record<string, number>> | null): boolean {
+  if (!dry) return false;
+  return Object.entries(dry).every(([k, v]) => v === 0 || k === 'H2' || ['H2O', 'N2', 'Ar', 'He', 'CO2'].includes(k));
+}
+
+/** Water (vapour and liquid) leaving the stack minus water entering it, mol/s. */
+function netWater(point: DesignPoint): number {
+  const water = (s: Stream) => (s.flows.H2O ?? 0) + (s.flows['H2O(L)'] ?? 0);
+  const inlets = point.streams.filter((s) => s.id === 'fuel-inlet' || s.id === 'air-inlet');
+  const outlets = point.streams.filter((s) => s.id === 'fuel-outlet' || s.id === 'air-outlet');
+  return outlets.reduce((a, s) => a + water(s), 0) - inlets.reduce((a, s) => a + water(s), 0);
+}
+
+/** The design point, with library errors located at the operating-point fields they come from. */
+export function evaluateBasis(basis: DesignBasis): DesignPoint {
+  const path = basis.cell.mode === 'power' ? 'operating-point.fuel-utilization' : 'operating-point.steam-conversion';
+  return atPath(basis, path, () => {
+    try {
+      return evaluateDesignPoint(designInputs(basis));
+    } catch (error) {
+      const message = (error as Error).message;
+      if (/cell voltage|resistance gives/.test(message)) {
+        const field = basis.operatingPoint.voltage.kind === 'given' ? 'operating-point.cell-voltage' : 'operating-point.area-specific-resistance';
+        return atPath(basis, field, () => {
+          throw error;
+        });
+      }
+      if (/conflicting inputs|cell count/.test(message)) {
+        return atPath(basis, 'operating-point.cells', () => {
+          throw error;
+        });
+      }
+      if (/air-electrode/.test(message)) {
+        return atPath(basis, 'streams.air-electrode', () => {
+          throw error;
+        });
+      }
+      throw error;
+    }
+  });
+}
+
+export function calculate(basis: DesignBasis): Results {
+  const point = evaluateBasis(basis);
+  const inputs = point.inputs;
+  const tech = inputs.technology;
+  const power = inputs.mode === 'power';
+  const t = inputs.temperatureK;
+  const waterLabel = tech.waterPhase === 'gas' ? 'H2O' : 'H2O(L)';
+  const hydrogen = evaluateReaction(`H2 + 1/2 O2 -> ${waterLabel}`, t);
+  const carbon = carbonMargin(point);
+  const airIn = point.streams.find((s) => s.id === 'air-inlet');
+  const airFlowKgPerH = airIn ? massFlowKgPerS(airIn.flows) * HOUR : null;
+  const o2Consumed = power ? point.totalCurrentA / (4 * F) : null;
+  const o2Fed = airIn ? (airIn.flows.O2 ?? 0) : null;
+  const h2MolPerS = point.electrolysis?.hydrogenMolPerS ?? null;
+  const h2KgPerH = h2MolPerS === null ? null : h2MolPerS * getSpecies('H2').molarMassKgPerMol * HOUR;
+  const coolingRatio =
+    point.coolingAirMolPerS !== null && o2Consumed && inputs.airFeed?.O2 ? point.coolingAirMolPerS / (o2Consumed / inputs.airFeed.O2) : null;
+  const coolingKgPerH =
+    point.coolingAirMolPerS !== null && inputs.airFeed ? point.coolingAirMolPerS * massFlowKgPerS(inputs.airFeed) * HOUR : null;
+  // Pure hydrogen, gaseous water: the isothermal heat must equal I (−ΔH(T)/2F − V).
+  const crossCheck =
+    power && tech.waterPhase === 'gas' && onlyHydrogen(inputs.dryFuel) && inputs.preReforming.kind === 'none'
+      ? point.totalCurrentA * (-(enthalpy(getSpecies('H2O'), t) - enthalpy(getSpecies('H2'), t) - 0.5 * enthalpy(getSpecies('O2'), t)) / (2 * F) - point.voltage.cellVoltageV)
+      : null;
+  const eff = point.power;
+  const el = point.electrolysis;
+  const notes = [...point.notes];
+  if (carbon.margin !== null && carbon.margin < 0) {
+    notes.push({ path: 'streams.fuel-electrode.steam-to-carbon', message: `the steam-to-carbon ratio ${inputs.steamToCarbon} is below the carbon-free minimum ${carbon.minimum!.toFixed(3)}` });
+  }
+  const sweepFrom = basis.conditions.sweepFromK;
+  const sweepTo = basis.conditions.sweepToK;
+  return {
+    format: 'cellbasis-results/1',
+    tool: { name: 'cellbasis', version: toolVersion() },
+    speciesData_sha256: speciesDataHash(),
+    project: { id: basis.id, title: basis.document.title, number: basis.document.number, revision: basis.document.revision, status: basis.document.status },
+    technology: { id: tech.id, name: tech.name, mode: inputs.mode, ion: tech.ion, waterPhase: tech.waterPhase, fuelGasEquilibrium: tech.fuelGasEquilibrium },
+    conditions: {
+      temperature_K: t,
+      fuelPressure_bar: inputs.fuelPressureBar,
+      airPressure_bar: inputs.airPressureBar,
+      fuelInletTemperature_K: inputs.fuelInletTemperatureK,
+      airInletTemperature_K: inputs.airInletTemperatureK,
+      ambientTemperature_K: inputs.ambientTemperatureK,
+    },
+    headline: {
+      meanNernst_V: point.path.meanNernstV,
+      inletNernst_V: point.path.inletNernstV,
+      outletNernst_V: point.path.outletNernstV,
+      openCircuit_V: point.voltage.openCircuitV,
+      cellVoltage_V: point.voltage.cellVoltageV,
+      stackVoltage_V: point.stackVoltageV,
+      cells: point.sizing.cells,
+      cellCurrent_A: point.cellCurrentA,
+      totalCurrent_A: point.totalCurrentA,
+      stackPower_W: point.stackPowerW,
+      netPower_W: point.netPowerW,
+      electricalEfficiencyLhv: eff?.electricalLhvNet ?? null,
+      electricalEfficiencyHhv: eff?.electricalHhvNet ?? null,
+      thermodynamicLimitLhv: eff?.limitLhv ?? null,
+      thermodynamicLimitHhv: eff?.limitHhv ?? null,
+      stackHeat_W: point.heat.isothermalHeatW,
+      airFlow_kg_per_h: airFlowKgPerH,
+      hydrogenProduction_kg_per_h: h2KgPerH,
+      hydrogenProduction_kg_per_day: h2KgPerH === null ? null : h2KgPerH * 24,
+      specificEnergy_kWh_per_kg: el?.specificEnergyKWhPerKg ?? null,
+      minimumSteamToCarbon: carbon.minimum,
+      carbonMargin: carbon.margin,
+      maxCarbonActivity: carbon.maxCarbonActivity,
+    },
+    electrochemistry: {
+      standardVoltage_V: point.path.standardVoltageV,
+      reversibleVoltage_V: hydrogen.reversibleVoltage_V,
+      thermoneutralVoltage_V: hydrogen.thermoneutralVoltage_V,
+      effectiveThermoneutralVoltage_V: point.heat.thermoneutralVoltageV,
+      effectiveNernst_V: point.voltage.effectiveNernstV,
+      areaSpecificResistance_ohm_m2: point.voltage.areaSpecificResistanceOhmM2,
+      voltageSource: point.voltage.source,
+      ionicTransferenceNumber: inputs.ionicTransferenceNumber,
+      crossoverAllowance_V: inputs.crossoverAllowanceV,
+      chargeBasis_A: point.path.chargeBasisA * point.scale,
+      utilization: inputs.utilization,
+      elementBalanceError: point.path.elementBalanceError,
+    },
+    operatingPoint: {
+      currentDensity_A_per_m2: inputs.currentDensityAPerM2,
+      activeArea_m2: inputs.activeAreaM2,
+      totalActiveArea_m2: inputs.activeAreaM2 * point.sizing.cells,
+      cellsFrom: point.sizing.from,
+      parasiticFraction: inputs.parasiticFraction,
+      airUtilization: o2Consumed && o2Fed ? o2Consumed / o2Fed : null,
+      airRatio: o2Consumed && o2Fed ? o2Fed / o2Consumed : null,
+      oxygenConsumed_mol_per_s: o2Consumed,
+      netWaterProduced_mol_per_s: netWater(point),
+    },
+    streams: point.streams.map(streamResult),
+    efficiency: {
+      fuelLhvInput_W: eff?.fuelLhvW ?? null,
+      fuelHhvInput_W: eff?.fuelHhvW ?? null,
+      thermodynamicLimitLhv: eff?.limitLhv ?? null,
+      thermodynamicLimitHhv: eff?.limitHhv ?? null,
+      carnotLimit: eff?.carnot ?? null,
+      voltageEfficiency: eff?.voltageEfficiency ?? el!.voltageEfficiency,
+      electricalEfficiencyLhvGross: eff?.electricalLhvGross ?? null,
+      electricalEfficiencyHhvGross: eff?.electricalHhvGross ?? null,
+      electricalEfficiencyLhvNet: eff?.electricalLhvNet ?? null,
+      electricalEfficiencyHhvNet: eff?.electricalHhvNet ?? null,
+      electrolysisEfficiencyLhv: el?.efficiencyLhv ?? null,
+      electrolysisEfficiencyHhv: el?.efficiencyHhv ?? null,
+      specificEnergy_kWh_per_kg: el?.specificEnergyKWhPerKg ?? null,
+      hydrogenProduction_mol_per_s: el?.hydrogenMolPerS ?? null,
+      oxygenProduction_mol_per_s: el?.oxygenMolPerS ?? null,
+      carbonMonoxideProduction_mol_per_s: el ? el.carbonMonoxideMolPerS : null,
+    },
+    heat: {
+      isothermalHeat_W: point.heat.isothermalHeatW,
+      asFedHeat_W: point.heat.asFedHeatW,
+      inletEnthalpyIsothermal_W: point.heat.inletEnthalpyIsothermalW,
+      inletEnthalpyAsFed_W: point.heat.inletEnthalpyAsFedW,
+      outletEnthalpy_W: point.heat.outletEnthalpyW,
+      electricWorkIn_W: point.heat.workInW,
+      heatPerCell_W: point.heat.isothermalHeatW / point.sizing.cells,
+      heatPerArea_W_per_m2: point.heat.isothermalHeatW / (point.sizing.cells * inputs.activeAreaM2),
+      coolingAir_mol_per_s: point.coolingAirMolPerS,
+      coolingAir_kg_per_h: coolingKgPerH,
+      coolingAirRatio: coolingRatio,
+      allowedAirTemperatureRise_K: inputs.allowedAirTemperatureRiseK,
+      hydrogenCrossCheck_W: crossCheck,
+      heatDemand_W: power ? null : Math.max(0, -point.heat.isothermalHeatW),
+      liquidWaterOut_mol_per_s: point.water ? point.water.liquid : null,
+      outletsSaturated: point.water ? point.water.saturated : null,
+    },
+    carbon: {
+      steamToCarbon: carbon.steamToCarbon,
+      minimumSteamToCarbonStack: carbon.minimumSteamToCarbonStack,
+      minimumSteamToCarbonPreReformer: carbon.minimumSteamToCarbonPreReformer,
+      preReformerCarbonActivity: carbon.preReformerCarbonActivity,
+      inletCarbonActivity: carbon.inletCarbonActivity,
+      maxCarbonActivity: carbon.maxCarbonActivity,
+    },
+    fuelPath: {
+      points: point.path.points.map((p) => ({ utilization: p.utilization, nernst_V: p.nernstV, carbonActivity: p.carbonActivity, fuelSide: p.fuelSide, airSide: p.airSide })),
+      standardVoltage_V: point.path.standardVoltageV,
+    },
+    sweeps: {
+      temperature: temperatureSweep(point, sweepFrom, sweepTo),
+      currentDensity: currentDensitySweep(point),
+      steamToCarbon: steamToCarbonSweep(point),
+    },
+    sensitivities: sensitivities(point, basis.sensitivity),
+    hazards: assessHazards(hazardInput(basis, point)) as unknown as Record<string, unknown>,
+    notes,
+  };
+}

@@ -1,0 +1,79 @@
+/**
+ * The numbers one evaluation of the stack needs, taken from a validated basis (SI), and the
+ * perturbed copies the sensitivity study evaluates. Keeping them apart from the basis lets a
+ * sensitivity run change one input and hold the rest, including the cell count of the design.
+ */
+import type { AirStream, DesignBasis, FuelStream, OperatingPoint, PreReforming } from '../basis/types.ts';
+import { technology, type Mode, type Technology } from '../electrochem/technologies.ts';
+import { withSteam } from '../equilibrium/carbon.ts';
+import type { Solution } from '../equilibrium/fuel-path.ts';
+
+/** The operating point of the basis (OperatingPoint) and the conditions and feeds, in SI. */
+export interface DesignInputs extends OperatingPoint {
+  technology: Technology;
+  mode: Mode;
+  temperatureK: number;
+  fuelPressureBar: number;
+  airPressureBar: number;
+  fuelInletTemperatureK: number;
+  airInletTemperatureK: number;
+  ambientTemperatureK: number;
+  allowedAirTemperatureRiseK: number;
+  /** Dry fuel (before steam) and feed (after steam) of the fuel electrode, mole fractions; null where it has no feed. */
+  dryFuel: Record<string, number> | null;
+  fuelFeed: Record<string, number> | null;
+  steamToCarbon?: number;
+  preReforming: PreReforming;
+  airFeed: Record<string, number> | null;
+  ionicTransferenceNumber: number;
+  crossoverAllowanceV: number;
+  /** Resolution of the fuel path (reported paths: at least 100). */
+  intervals: number;
+  refineV: number;
+  /** Equilibria of a neighbouring path to start from (sensitivity runs). */
+  seeds?: readonly Solution[];
+}
+
+function feedOf(stream: FuelStream | null): { dry: Record<string, number> | null; feed: Record<string, number> | null } {
+  if (!stream) return { dry: null, feed: null };
+  return { dry: { ...stream.composition }, feed: { ...stream.feed } };
+}
+
+function airOf(stream: AirStream | null): Record<string, number> | null {
+  return stream ? { ...stream.composition } : null;
+}
+
+export function designInputs(basis: DesignBasis): DesignInputs {
+  const fuel = feedOf(basis.fuelElectrode);
+  const c = basis.conditions;
+  const op = basis.operatingPoint;
+  return {
+    technology: technology(basis.cell.technology),
+    mode: basis.cell.mode,
+    temperatureK: c.temperatureK,
+    fuelPressureBar: c.fuelPressureBar,
+    airPressureBar: c.airPressureBar,
+    fuelInletTemperatureK: c.fuelInletTemperatureK,
+    airInletTemperatureK: c.airInletTemperatureK,
+    ambientTemperatureK: c.ambientTemperatureK,
+    allowedAirTemperatureRiseK: c.allowedAirTemperatureRiseK,
+    dryFuel: fuel.dry,
+    fuelFeed: fuel.feed,
+    ...(basis.fuelElectrode?.steamToCarbon !== undefined ? { steamToCarbon: basis.fuelElectrode.steamToCarbon } : {}),
+    preReforming: basis.fuelElectrode?.preReforming ?? { kind: 'none' },
+    airFeed: airOf(basis.airElectrode),
+    ...op,
+    ionicTransferenceNumber: basis.cell.ionicTransferenceNumber,
+    crossoverAllowanceV: basis.cell.crossoverAllowanceV,
+    intervals: 120,
+    refineV: 1e-3,
+  };
+}
+
+/** The same inputs with a different steam-to-carbon ratio (the feed rebuilt from the dry fuel). */
+export function withSteamToCarbon(inputs: DesignInputs, steamToCarbon: number): DesignInputs {
+  if (!inputs.dryFuel) return inputs;
+  const feed = withSteam(inputs.dryFuel, steamToCarbon);
+  const total = Object.values(feed).reduce((a, b) => a + b, 0);
+  return { ...inputs, steamToCarbon, fuelFeed: Object.fromEntries(Object.entries(feed).map(([k, v]) => [k, v / total])) };
+}

@@ -1,0 +1,45 @@
+/**
+ * The streams of a design point as the hazards library reads them (lib/hazards/types.ts): gas
+ * mole fractions (traces below 1e-12 dropped), with what each stream is (feed, internal, outlet,
+ * product) and which electrode side it belongs to.
+ */
+import type { HazardInput, HazardStream, StreamRole } from '../hazards/types.ts';
+import type { DesignBasis } from '../basis/types.ts';
+import type { DesignPoint } from './design-point.ts';
+import { gasMoleFractions } from './streams.ts';
+
+function role(id: string, point: DesignPoint): StreamRole {
+  const power = point.inputs.mode === 'power';
+  switch (id) {
+    case 'fuel-feed':
+      return 'feed';
+    case 'pre-reformer-outlet':
+      return 'internal';
+    case 'fuel-inlet':
+      return point.inputs.preReforming.kind === 'equilibrium' ? 'internal' : 'feed';
+    case 'air-inlet':
+      return 'feed';
+    default:
+      return power ? 'outlet' : 'product';
+  }
+}
+
+export function hazardInput(basis: DesignBasis, point: DesignPoint): HazardInput {
+  const streams: HazardStream[] = point.streams
+    .map((s) => {
+      const x = gasMoleFractions(s.flows);
+      const moleFractions = Object.fromEntries(Object.entries(x).filter(([, v]) => v >= 1e-12));
+      return { id: s.id, name: s.name, temperatureK: s.temperatureK, pressureBar: s.pressureBar, moleFractions, role: role(s.id, point), side: s.id.startsWith('air') ? 'air' : 'fuel' } as HazardStream;
+    })
+    .filter((s) => Object.keys(s.moleFractions).length > 0);
+  return {
+    streams,
+    technology: basis.cell.technology,
+    mode: basis.cell.mode,
+    nickelBearing: basis.cell.nickelBearing,
+    operatingTemperatureK: point.inputs.temperatureK,
+    fuelPressureBar: point.inputs.fuelPressureBar,
+    airPressureBar: point.inputs.airPressureBar,
+    ambientTemperatureK: point.inputs.ambientTemperatureK,
+  };
+}

@@ -1,0 +1,58 @@
+/**
+ * Heat balance of the stack, with the enthalpies of the species data (heats of formation
+ * included, so internal reforming and shift are in it):
+ *
+ *   Q = Σ_in ṅ h(T_in) − Σ_out ṅ h(T_out) + W_in,   W_in = −P (power) or +P (electrolysis)
+ *
+ * Q > 0: heat the stack releases and must reject; Q < 0: heat it needs. Two boundaries:
+ * "isothermal" with every stream at the stack temperature (the heat the stack itself produces,
+ * the number cooling is sized on) and "as fed" with the inlets at their own temperatures (what
+ * is left after the feeds are heated in the stack). The effective thermoneutral voltage of the
+ * actual gases is V_tn = (H_in − H_out)(T)/I in power mode, (H_out − H_in)(T)/I in electrolysis,
+ * so Q_iso = I (V_tn − V) or I (V − V_tn); for pure hydrogen it is −ΔH(T)/2F (methods note of
+ * this project; Larminie & Dicks, §2.4).
+ * Cooling air for an allowed temperature rise ΔT (air leaving at stack temperature):
+ *   ṅ_air = Q_iso / (h_air(T) − h_air(T − ΔT))   per mol of air of the feed composition.
+ */
+import { enthalpyFlowW, type Stream } from './streams.ts';
+import type { Mode } from '../electrochem/technologies.ts';
+
+export interface HeatBalance {
+  /** Σ ṅ h of the inlets at the stack temperature and at their own temperatures, and of the outlets, W. */
+  inletEnthalpyIsothermalW: number;
+  inletEnthalpyAsFedW: number;
+  outletEnthalpyW: number;
+  /** Electric work into the stack: −P in power mode, +P in electrolysis, W. */
+  workInW: number;
+  /** Heat released by the stack, all streams at the stack temperature, W. */
+  isothermalHeatW: number;
+  /** Heat released with the inlets at their own temperatures, W. */
+  asFedHeatW: number;
+  /** Effective thermoneutral voltage of the actual gases, V. */
+  thermoneutralVoltageV: number;
+}
+
+export function heatBalance(mode: Mode, inlets: Stream[], outlets: Stream[], stackTemperatureK: number, powerW: number, totalCurrentA: number): HeatBalance {
+  const inletIso = inlets.reduce((s, st) => s + enthalpyFlowW(st.flows, stackTemperatureK), 0);
+  const inletFed = inlets.reduce((s, st) => s + enthalpyFlowW(st.flows, st.temperatureK), 0);
+  const outlet = outlets.reduce((s, st) => s + enthalpyFlowW(st.flows, st.temperatureK), 0);
+  const workInW = mode === 'power' ? -powerW : powerW;
+  const isothermalHeatW = inletIso - outlet + workInW;
+  const asFedHeatW = inletFed - outlet + workInW;
+  const released = mode === 'power' ? inletIso - outlet : outlet - inletIso;
+  return {
+    inletEnthalpyIsothermalW: inletIso,
+    inletEnthalpyAsFedW: inletFed,
+    outletEnthalpyW: outlet,
+    workInW,
+    isothermalHeatW,
+    asFedHeatW,
+    thermoneutralVoltageV: released / totalCurrentA,
+  };
+}
+
+/** Air (of the given composition) needed to take up `heatW` warming by ΔT to the stack temperature, mol/s. */
+export function coolingAirMolPerS(heatW: number, air: Readonly<Record<string, number>>, stackTemperatureK: number, riseK: number): number {
+  const perMol = enthalpyFlowW(air, stackTemperatureK) - enthalpyFlowW(air, stackTemperatureK - riseK);
+  return heatW > 0 ? heatW / perMol : 0;
+}

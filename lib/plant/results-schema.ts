@@ -1,0 +1,215 @@
+/**
+ * The results file of `cellbasis calc --json`: one object with every number of the design basis.
+ * This zod schema is the single definition: the TypeScript type is inferred from it and the JSON
+ * Schema in schema/results.schema.json is generated from it (scripts/write-schema.ts). Every
+ * quantity carries its unit in its key (`_K`, `_bar`, `_V`, `_W`, `_mol_per_s`, `_kg_per_h`,
+ * `_Nm3_per_h` at 0 °C and 1 atm, `_kWh_per_kg`; fractions are plain numbers from 0 to 1).
+ */
+import { z } from 'zod';
+
+const num = (description: string) => z.number().describe(description);
+const nullableNum = (description: string) => z.number().nullable().describe(description);
+const fractions = z.record(z.string(), z.number()).describe('mole fractions by species label');
+
+export const streamSchema = z
+  .object({
+    id: z.string().describe('stream id: fuel-feed, pre-reformer-outlet, fuel-inlet, fuel-outlet, air-inlet, air-outlet'),
+    name: z.string(),
+    temperature_K: num('temperature'),
+    pressure_bar: num('absolute pressure'),
+    flow_mol_per_s: num('total molar flow, gas and liquid'),
+    gasFlow_mol_per_s: num('molar flow of the gas phase'),
+    massFlow_kg_per_h: num('mass flow'),
+    normalVolume_Nm3_per_h: num('gas volume flow at normal conditions, 0 °C and 1 atm (101.325 kPa)'),
+    enthalpyFlow_W: num('Σ ṅ h(T), heats of formation included (NASA convention)'),
+    moleFractions: fractions.describe('gas-phase mole fractions, every species'),
+    speciesFlows_mol_per_s: z.record(z.string(), z.number()).describe('molar flow of every species; liquid water as "H2O(L)"'),
+  })
+  .describe('a process stream');
+
+const pathPointSchema = z.object({
+  utilization: num('fraction of the charge basis passed from the inlet'),
+  nernst_V: num('local Nernst voltage'),
+  carbonActivity: num('carbon activity of the fuel-electrode gas relative to graphite'),
+  fuelSide: fractions,
+  airSide: fractions,
+});
+
+const caseSchema = z.object({
+  base: num('the design point evaluated at the resolution of the study'),
+  low: nullableNum('the low case; null where it cannot be evaluated (see note)'),
+  high: nullableNum('the high case; null where it cannot be evaluated (see note)'),
+});
+
+const sensitivitySchema = z.object({
+  input: z.string().describe('the input perturbed'),
+  path: z.string().describe('its field in the basis'),
+  step: z.string().describe('the perturbation, as stated'),
+  low: z.string().describe('the input value of the low case'),
+  high: z.string().describe('the input value of the high case'),
+  meanNernst_V: caseSchema,
+  efficiency: caseSchema.describe('power mode: net electrical efficiency (LHV); electrolysis: efficiency on the LHV of hydrogen'),
+  stackHeat_W: caseSchema,
+  note: z.string().nullable().describe('why a case could not be evaluated'),
+});
+
+export const resultsSchema = z
+  .object({
+    format: z.literal('cellbasis-results/1'),
+    tool: z.object({ name: z.literal('cellbasis'), version: z.string() }),
+    speciesData_sha256: z.string().describe('SHA-256 of the species data file the numbers come from'),
+    project: z.object({ id: z.string(), title: z.string(), number: z.string(), revision: z.string(), status: z.string() }),
+    technology: z.object({
+      id: z.string(),
+      name: z.string(),
+      mode: z.enum(['power', 'electrolysis']),
+      ion: z.enum(['oxide', 'proton', 'carbonate', 'hydroxide']),
+      waterPhase: z.enum(['gas', 'liquid']),
+      fuelGasEquilibrium: z.boolean().describe('the fuel gas is re-equilibrated along the cell (reforming and shift at the electrode)'),
+    }),
+    conditions: z.object({
+      temperature_K: num('stack operating temperature'),
+      fuelPressure_bar: num('absolute pressure at the fuel electrode'),
+      airPressure_bar: num('absolute pressure at the air electrode'),
+      fuelInletTemperature_K: num('fuel-electrode feed at the stack inlet'),
+      airInletTemperature_K: num('air-electrode feed at the stack inlet'),
+      ambientTemperature_K: num('cold sink of the Carnot comparison'),
+    }),
+    headline: z
+      .object({
+        meanNernst_V: num('charge-averaged Nernst voltage along the fuel path'),
+        inletNernst_V: nullableNum('Nernst voltage at the inlet; null where a dry inlet makes it unbounded'),
+        outletNernst_V: num('Nernst voltage at the outlet'),
+        openCircuit_V: nullableNum('open-circuit voltage at the inlet: t_ion E − crossover allowance (power mode)'),
+        cellVoltage_V: num('operating cell voltage'),
+        stackVoltage_V: num('cells × cell voltage'),
+        cells: z.number().int().describe('number of cells'),
+        cellCurrent_A: num('current of one cell, j × A'),
+        totalCurrent_A: num('Σ cell currents, the charge rate that sets the flows'),
+        stackPower_W: num('stack DC power: output (power mode) or input (electrolysis)'),
+        netPower_W: num('power mode: net output after the balance-of-plant load; electrolysis: stack input'),
+        electricalEfficiencyLhv: nullableNum('power mode: net electric power over fuel LHV input'),
+        electricalEfficiencyHhv: nullableNum('power mode: net electric power over fuel HHV input'),
+        thermodynamicLimitLhv: nullableNum('power mode: −ΔG(T) of the fuel oxidation over its LHV'),
+        thermodynamicLimitHhv: nullableNum('power mode: −ΔG(T) of the fuel oxidation over its HHV'),
+        stackHeat_W: num('heat released by the stack, all streams at the stack temperature (negative: heat needed)'),
+        airFlow_kg_per_h: nullableNum('air-electrode feed'),
+        hydrogenProduction_kg_per_h: nullableNum('electrolysis: hydrogen produced'),
+        hydrogenProduction_kg_per_day: nullableNum('electrolysis: hydrogen produced'),
+        specificEnergy_kWh_per_kg: nullableNum('electrolysis: electric energy per kg of hydrogen'),
+        minimumSteamToCarbon: nullableNum('least S/C keeping the equilibrated fuel gas free of carbon (the higher of stack and pre-reformer temperature); null without carbon'),
+        carbonMargin: nullableNum('design S/C minus the minimum; null without carbon or steam'),
+        maxCarbonActivity: nullableNum('highest carbon activity along the fuel path; null without carbon'),
+      })
+      .describe('the headline numbers a review looks at first'),
+    electrochemistry: z.object({
+      standardVoltage_V: num('E° of H2 + ½O2 → H2O at T (water as the cell forms it)'),
+      reversibleVoltage_V: num('−ΔG°/2F of the hydrogen reaction at T'),
+      thermoneutralVoltage_V: num('−ΔH°/2F of the hydrogen reaction at T'),
+      effectiveThermoneutralVoltage_V: num('(H_in − H_out)/I of the actual gases (power mode), (H_out − H_in)/I (electrolysis)'),
+      effectiveNernst_V: num('t_ion Ē − crossover allowance (power mode); Ē (electrolysis)'),
+      areaSpecificResistance_ohm_m2: num('resistance used, or implied by a given voltage: |Ē_eff − V| / j'),
+      voltageSource: z.enum(['given', 'area-specific-resistance']),
+      ionicTransferenceNumber: num('t_ion'),
+      crossoverAllowance_V: num('voltage allowance for crossover and leakage'),
+      chargeBasis_A: num('charge of complete reaction of the feed (U = 1) on the stack scale'),
+      utilization: num('fuel utilization (power) or steam conversion (electrolysis)'),
+      elementBalanceError: num('largest relative element-balance error of the equilibria along the fuel path'),
+    }),
+    operatingPoint: z.object({
+      currentDensity_A_per_m2: num('current density'),
+      activeArea_m2: num('active area per cell'),
+      totalActiveArea_m2: num('cells × active area'),
+      cellsFrom: z.enum(['cells', 'power', 'hydrogen']).describe('what set the cell count'),
+      parasiticFraction: num('balance-of-plant share of the gross DC output (power mode)'),
+      airUtilization: nullableNum('O2 consumed / O2 fed (power mode)'),
+      airRatio: nullableNum('O2 fed / O2 consumed (power mode)'),
+      oxygenConsumed_mol_per_s: nullableNum('power mode: I/4F'),
+      netWaterProduced_mol_per_s: num('water leaving the stack minus water entering it (negative: consumed)'),
+    }),
+    streams: z.array(streamSchema),
+    efficiency: z.object({
+      fuelLhvInput_W: nullableNum('power mode: fuel flow × LHV (25 °C)'),
+      fuelHhvInput_W: nullableNum('power mode: fuel flow × HHV (25 °C)'),
+      thermodynamicLimitLhv: nullableNum('power mode'),
+      thermodynamicLimitHhv: nullableNum('power mode'),
+      carnotLimit: nullableNum('1 − T_ambient/T_stack, for comparison (power mode)'),
+      voltageEfficiency: num('V/Ē (power) or Ē/V (electrolysis)'),
+      electricalEfficiencyLhvGross: nullableNum('stack DC power over LHV input'),
+      electricalEfficiencyHhvGross: nullableNum('stack DC power over HHV input'),
+      electricalEfficiencyLhvNet: nullableNum('net power over LHV input'),
+      electricalEfficiencyHhvNet: nullableNum('net power over HHV input'),
+      electrolysisEfficiencyLhv: nullableNum('hydrogen LHV out over electric power in'),
+      electrolysisEfficiencyHhv: nullableNum('hydrogen HHV out over electric power in'),
+      specificEnergy_kWh_per_kg: nullableNum('electrolysis: electric energy per kg of hydrogen'),
+      hydrogenProduction_mol_per_s: nullableNum('electrolysis'),
+      oxygenProduction_mol_per_s: nullableNum('electrolysis'),
+      carbonMonoxideProduction_mol_per_s: nullableNum('co-electrolysis'),
+    }),
+    heat: z.object({
+      isothermalHeat_W: num('Σ_in ṅh(T) − Σ_out ṅh(T) + W_in, every stream at the stack temperature'),
+      asFedHeat_W: num('the same with the inlets at their own temperatures'),
+      inletEnthalpyIsothermal_W: num('Σ_in ṅ h at the stack temperature'),
+      inletEnthalpyAsFed_W: num('Σ_in ṅ h at the inlet temperatures'),
+      outletEnthalpy_W: num('Σ_out ṅ h'),
+      electricWorkIn_W: num('−P (power mode), +P (electrolysis)'),
+      heatPerCell_W: num('isothermal heat per cell'),
+      heatPerArea_W_per_m2: num('isothermal heat per unit active area'),
+      coolingAir_mol_per_s: nullableNum('air for the allowed temperature rise to carry the isothermal heat (power mode)'),
+      coolingAir_kg_per_h: nullableNum('the same, kg/h'),
+      coolingAirRatio: nullableNum('cooling air over the air that the O2 consumed needs (λ for cooling)'),
+      allowedAirTemperatureRise_K: num('allowed air temperature rise through the stack'),
+      hydrogenCrossCheck_W: nullableNum('pure-hydrogen fuel: I (−ΔH(T)/2F − V), equal to the isothermal heat'),
+      heatDemand_W: nullableNum('electrolysis below thermoneutral: heat to supply (positive)'),
+      liquidWaterOut_mol_per_s: nullableNum('liquid-water cells: liquid water leaving'),
+      outletsSaturated: z.boolean().nullable().describe('liquid-water cells: whether both outlet gases can be saturated'),
+    }),
+    carbon: z.object({
+      steamToCarbon: nullableNum('design S/C'),
+      minimumSteamToCarbonStack: nullableNum('at the stack temperature and fuel pressure'),
+      minimumSteamToCarbonPreReformer: nullableNum('at the pre-reformer temperature'),
+      preReformerCarbonActivity: nullableNum('carbon activity of the pre-reformer outlet'),
+      inletCarbonActivity: nullableNum('carbon activity of the fuel gas at the stack inlet (equilibrated)'),
+      maxCarbonActivity: nullableNum('along the fuel path'),
+    }),
+    fuelPath: z.object({
+      points: z.array(pathPointSchema),
+      standardVoltage_V: num('E° used by the Nernst equation'),
+    }),
+    sweeps: z.object({
+      temperature: z.array(
+        z.object({
+          temperature_K: num('temperature'),
+          reversibleVoltage_V: num('−ΔG°/2F of the hydrogen reaction'),
+          thermoneutralVoltage_V: num('−ΔH°/2F of the hydrogen reaction'),
+          fuelReversibleVoltage_V: nullableNum('−ΔG°/zF of the actual fuel (power mode)'),
+          limitLhv: nullableNum('−ΔG(T)/LHV of the actual fuel (power mode)'),
+          limitHhv: nullableNum('−ΔG(T)/HHV of the actual fuel (power mode)'),
+          hydrogenLimitHhv: num('−ΔG(T)/HHV of hydrogen (the textbook curve)'),
+          carnot: num('1 − T_ambient/T'),
+        }),
+      ),
+      currentDensity: z.array(
+        z.object({
+          currentDensity_A_per_m2: num('current density'),
+          cellVoltage_V: num('t_ion Ē − crossover ∓ j ASR'),
+          stackPower_W: num('stack DC power'),
+          stackHeat_W: num('isothermal stack heat, I (V_tn,eff − V) or I (V − V_tn,eff)'),
+        }),
+      ),
+      steamToCarbon: z.array(
+        z.object({
+          steamToCarbon: num('S/C'),
+          carbonActivityStack: num('carbon activity of the equilibrated fuel gas at the stack temperature'),
+          carbonActivityPreReformer: nullableNum('the same at the pre-reformer temperature'),
+        }),
+      ),
+    }),
+    sensitivities: z.array(sensitivitySchema),
+    hazards: z.record(z.string(), z.unknown()).describe('hazard assessment from lib/hazards (notice, substances, stream indicators, cautions with their standards)'),
+    notes: z.array(z.object({ path: z.string(), message: z.string() })).describe('findings of the calculation for the reviewer'),
+  })
+  .describe('cellbasis results of one design basis');
+
+export type Results = z.infer<typeof resultsSchema>;
+export type StreamResult = z.infer<typeof streamSchema>;

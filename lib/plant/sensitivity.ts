@@ -1,0 +1,107 @@
+/**
+ * One-at-a-time sensitivities of the headline results (mean Nernst voltage, electrical
+ * efficiency, stack heat) to the main inputs, for the tornado chart: each input is moved down and
+ * up by the step the basis states (defaults: ±25 K, ±10 % pressure, ±0.05 utilization, ±0.5 S/C,
+ * ±10 % current density; common practice, no source) with everything else held, the cell count
+ * included (the sensitivity of the stack as designed). The cases use a coarser fuel path
+ * (20 intervals, no refinement) than the reported one; the base case is evaluated on the same
+ * grid, so the differences carry no grid error of their own.
+ */
+import type { Sensitivity } from '../basis/types.ts';
+import { UserError } from '../errors.ts';
+import { withSteamToCarbon, type DesignInputs } from './design-inputs.ts';
+import { evaluateDesignPoint, type DesignPoint } from './design-point.ts';
+import type { Results } from './results-schema.ts';
+
+type Entry = Results['sensitivities'][number];
+
+interface Perturbation {
+  input: string;
+  path: string;
+  step: string;
+  apply: (inputs: DesignInputs, sign: 1 | -1) => DesignInputs;
+  show: (inputs: DesignInputs) => string;
+}
+
+const fmt = (x: number, digits = 4) => String(Number(x.toPrecision(digits)));
+
+function perturbations(step: Sensitivity, inputs: DesignInputs): Perturbation[] {
+  const list: Perturbation[] = [
+    {
+      input: 'operating temperature',
+      path: 'conditions.operating-temperature',
+      step: `±${fmt(step.temperatureK)} K`,
+      apply: (i, s) => ({ ...i, temperatureK: i.temperatureK + s * step.temperatureK }),
+      show: (i) => `${fmt(i.temperatureK - 273.15)} °C`,
+    },
+    {
+      input: 'electrode pressures',
+      path: 'conditions.fuel-electrode-pressure',
+      step: `±${fmt(step.pressureFraction * 100)} %`,
+      apply: (i, s) => ({ ...i, fuelPressureBar: i.fuelPressureBar * (1 + s * step.pressureFraction), airPressureBar: i.airPressureBar * (1 + s * step.pressureFraction) }),
+      show: (i) => `${fmt(i.fuelPressureBar)} / ${fmt(i.airPressureBar)} bar`,
+    },
+    {
+      input: inputs.mode === 'power' ? 'fuel utilization' : 'steam conversion',
+      path: inputs.mode === 'power' ? 'operating-point.fuel-utilization' : 'operating-point.steam-conversion',
+      step: `±${fmt(step.utilization)}`,
+      apply: (i, s) => ({ ...i, utilization: Math.min(0.99, Math.max(0.01, i.utilization + s * step.utilization)) }),
+      show: (i) => fmt(i.utilization, 3),
+    },
+    {
+      input: 'current density',
+      path: 'operating-point.current-density',
+      step: `±${fmt(step.currentDensityFraction * 100)} %`,
+      apply: (i, s) => ({ ...i, currentDensityAPerM2: i.currentDensityAPerM2 * (1 + s * step.currentDensityFraction) }),
+      show: (i) => `${fmt(i.currentDensityAPerM2 / 1e4)} A/cm2`,
+    },
+  ];
+  if (inputs.steamToCarbon !== undefined && inputs.dryFuel) {
+    list.push({
+      input: 'steam-to-carbon ratio',
+      path: 'streams.fuel-electrode.steam-to-carbon',
+      step: `±${fmt(step.steamToCarbon)}`,
+      apply: (i, s) => withSteamToCarbon(i, Math.max(0, i.steamToCarbon! + s * step.steamToCarbon)),
+      show: (i) => fmt(i.steamToCarbon!, 3),
+    });
+  }
+  return list;
+}
+
+function efficiencyOf(point: DesignPoint): number {
+  return point.power ? point.power.electricalLhvNet : point.electrolysis!.efficiencyLhv;
+}
+
+export function sensitivities(design: DesignPoint, step: Sensitivity): Entry[] {
+  const fixed: DesignInputs = { ...design.inputs, size: { kind: 'cells', cells: design.sizing.cells }, intervals: 20, refineV: Infinity };
+  delete fixed.statedCells;
+  const base = evaluateDesignPoint(fixed);
+  // Each case starts its equilibria from the base case's at the same utilization.
+  fixed.seeds = base.path.solutions;
+  return perturbations(step, fixed).map((p) => {
+    const notes: string[] = [];
+    const run = (sign: 1 | -1): DesignPoint | null => {
+      try {
+        return evaluateDesignPoint(p.apply(fixed, sign));
+      } catch (error) {
+        if (!(error instanceof UserError)) throw error;
+        notes.push(`${sign < 0 ? 'low' : 'high'} case: ${error.message}`);
+        return null;
+      }
+    };
+    const low = run(-1);
+    const high = run(1);
+    const pick = (f: (d: DesignPoint) => number) => ({ base: f(base), low: low ? f(low) : null, high: high ? f(high) : null });
+    return {
+      input: p.input,
+      path: p.path,
+      step: p.step,
+      low: p.show(p.apply(fixed, -1)),
+      high: p.show(p.apply(fixed, 1)),
+      meanNernst_V: pick((d) => d.path.meanNernstV),
+      efficiency: pick(efficiencyOf),
+      stackHeat_W: pick((d) => d.heat.isothermalHeatW),
+      note: notes.length ? notes.join('; ') : null,
+    };
+  });
+}

@@ -1,0 +1,92 @@
+/**
+ * The curves of the design document's charts:
+ * - temperature: E_rev = −ΔG°/2F and V_tn = −ΔH°/2F of H2 + ½O2 → H2O, the actual fuel's
+ *   −ΔG°/zF, the thermodynamic efficiency limits −ΔG(T)/LHV and −ΔG(T)/HHV of the fuel and of
+ *   hydrogen, and the Carnot limit 1 − T_cold/T (Larminie & Dicks, §2.3-2.4);
+ * - current density: V(j) = Ē_eff − j ASR (power) or Ē + j ASR (electrolysis) at the design
+ *   utilization (Ē does not depend on j at fixed utilization), P = N A j V, Q = N A j (V_tn − V)
+ *   (power) or N A j (V − V_tn) (electrolysis), with the design point's effective V_tn;
+ * - steam-to-carbon: carbon activity of the equilibrated fuel gas against S/C, at the stack and
+ *   pre-reformer temperatures.
+ */
+import { FARADAY_C_PER_MOL as F } from '../thermo/constants.ts';
+import { evaluateReaction } from '../electrochem/reaction.ts';
+import { electronsOfStream } from '../electrochem/charge.ts';
+import { equilibriumCarbonActivity, withSteam } from '../equilibrium/carbon.ts';
+import { getSpecies } from '../thermo/species-data.ts';
+import { inRange } from '../thermo/properties.ts';
+import { heatingValue, streamHeatingValueW } from './heating-values.ts';
+import { oxidationGibbsW } from './efficiency.ts';
+import type { DesignPoint } from './design-point.ts';
+import type { Results } from './results-schema.ts';
+
+type Sweeps = Results['sweeps'];
+
+function linspace(from: number, to: number, n: number): number[] {
+  return Array.from({ length: n }, (_, k) => from + ((to - from) * k) / (n - 1));
+}
+
+export function temperatureSweep(point: DesignPoint, fromK: number, toK: number, count = 31): Sweeps['temperature'] {
+  const inputs = point.inputs;
+  const phase = inputs.technology.waterPhase;
+  const water = getSpecies(phase === 'gas' ? 'H2O' : 'H2O(L)');
+  const low = Math.max(fromK, water.lowK);
+  const high = Math.min(toK, water.highK);
+  const dryFuel = inputs.mode === 'power' ? inputs.dryFuel : null;
+  const fuelElectrons = dryFuel ? electronsOfStream(dryFuel) : 0;
+  const hv = dryFuel ? streamHeatingValueW(dryFuel) : null;
+  const h2 = heatingValue(getSpecies('H2'));
+  const fuelOk = (t: number) => !!dryFuel && Object.keys(dryFuel).every((k) => inRange(getSpecies(k), t));
+  return linspace(low, high, count).map((t) => {
+    const hydrogen = evaluateReaction(`H2 + 1/2 O2 -> ${water.label}`, t);
+    const dG = fuelOk(t) ? oxidationGibbsW(dryFuel!, t, phase) : null;
+    return {
+      temperature_K: t,
+      reversibleVoltage_V: hydrogen.reversibleVoltage_V,
+      thermoneutralVoltage_V: hydrogen.thermoneutralVoltage_V,
+      fuelReversibleVoltage_V: dG !== null && fuelElectrons > 0 ? dG / (fuelElectrons * F) : null,
+      limitLhv: dG !== null && hv ? dG / hv.lhvJPerMol : null,
+      limitHhv: dG !== null && hv ? dG / hv.hhvJPerMol : null,
+      hydrogenLimitHhv: -hydrogen.deltaG_J_per_mol / h2.hhvJPerMol,
+      carnot: 1 - inputs.ambientTemperatureK / t,
+    };
+  });
+}
+
+export function currentDensitySweep(point: DesignPoint, count = 25): Sweeps['currentDensity'] {
+  const { inputs, voltage, heat, sizing } = point;
+  const power = inputs.mode === 'power';
+  const asr = voltage.areaSpecificResistanceOhmM2;
+  const area = sizing.cells * inputs.activeAreaM2;
+  const jMax = 1.6 * inputs.currentDensityAPerM2;
+  const out: Sweeps['currentDensity'] = [];
+  for (const j of linspace(jMax / count, jMax, count)) {
+    const v = power ? voltage.effectiveNernstV - j * asr : voltage.effectiveNernstV + j * asr;
+    if (power && v <= 0) break;
+    const current = area * j;
+    out.push({
+      currentDensity_A_per_m2: j,
+      cellVoltage_V: v,
+      stackPower_W: current * v,
+      stackHeat_W: power ? current * (heat.thermoneutralVoltageV - v) : current * (v - heat.thermoneutralVoltageV),
+    });
+  }
+  return out;
+}
+
+export function steamToCarbonSweep(point: DesignPoint, count = 25): Sweeps['steamToCarbon'] {
+  const inputs = point.inputs;
+  if (inputs.mode !== 'power' || !inputs.dryFuel || inputs.steamToCarbon === undefined) return [];
+  const top = Math.max(3, 1.5 * inputs.steamToCarbon);
+  const pre = inputs.preReforming.kind === 'equilibrium' ? inputs.preReforming.temperatureK : null;
+  const stackChain = {};
+  const preChain = {};
+  return linspace(top / count, top, count).map((s) => {
+    const feed = withSteam(inputs.dryFuel!, s);
+    return {
+      steamToCarbon: s,
+      carbonActivityStack: equilibriumCarbonActivity(feed, inputs.temperatureK, inputs.fuelPressureBar, stackChain),
+      carbonActivityPreReformer: pre === null ? null : equilibriumCarbonActivity(feed, pre, inputs.fuelPressureBar, preChain),
+    };
+  });
+}
