@@ -11,9 +11,11 @@ import { steamLimitCommand } from './commands/steam-limit.ts';
 import { newCommand } from './commands/new.ts';
 import { checkCommand } from './commands/check.ts';
 import { schemaCommand } from './commands/schema.ts';
+import { calcCommand } from './commands/calc.ts';
+import { hazardsCommand } from './commands/hazards.ts';
 import { toolVersion } from './version.ts';
 
-export const COMMANDS: Command[] = [reactionCommand, speciesCommand, equilibriumCommand, steamLimitCommand, newCommand, checkCommand, schemaCommand];
+export const COMMANDS: Command[] = [reactionCommand, speciesCommand, equilibriumCommand, steamLimitCommand, newCommand, checkCommand, schemaCommand, calcCommand, hazardsCommand];
 
 function overview(): string {
   const width = Math.max(...COMMANDS.map((c) => c.name.length)) + 2;

@@ -9,6 +9,10 @@ import { listProjects, resolveProjectArg } from '../../basis/projects.ts';
 import { loadBasisFile } from '../../basis/load.ts';
 import { formatDiagnostic } from '../../basis/diagnostics.ts';
 import { basisSummaryRows } from '../../basis/summary.ts';
+import { calculate } from '../../plant/calculate.ts';
+import { locatedDiagnostic } from '../../plant/located-error.ts';
+import { BasisError } from '../../basis/diagnostics.ts';
+import { headlineRows } from '../results-table.ts';
 import { EXIT_OK, EXIT_USAGE, EXIT_VALIDATION, UserError } from '../../errors.ts';
 
 export const checkCommand: Command = {
@@ -45,8 +49,21 @@ export const checkCommand: Command = {
         if (code === EXIT_OK) code = EXIT_VALIDATION;
         continue;
       }
+      // The calculation may still find a problem (a voltage above the Nernst voltage, conflicting sizes).
+      let calculated: [string, string][] = [];
+      try {
+        const results = calculate(result.basis);
+        for (const note of results.notes) io.err(`${formatDiagnostic(locatedDiagnostic(result.basis, note.path, note.message, 'warning'))}\n`);
+        calculated = headlineRows(results);
+      } catch (error) {
+        if (!(error instanceof BasisError)) throw error;
+        for (const d of error.errors) io.err(`${formatDiagnostic(d)}\n`);
+        io.err(`${ref.displayPath}: ${error.errors.length} error${error.errors.length === 1 ? '' : 's'} found by the calculation\n`);
+        if (code === EXIT_OK) code = EXIT_VALIDATION;
+        continue;
+      }
       const warnings = result.warnings.length ? ` (${result.warnings.length} warning${result.warnings.length === 1 ? '' : 's'})` : '';
-      io.out(`${ref.displayPath}: valid${warnings}\n${table(basisSummaryRows(result.basis))}\n`);
+      io.out(`${ref.displayPath}: valid${warnings}\n${table([...basisSummaryRows(result.basis), ...calculated])}\n`);
     }
     return code;
   },

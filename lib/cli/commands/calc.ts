@@ -1,0 +1,33 @@
+/**
+ * `cellbasis calc ID|FILE [--json]`: everything the calculation gives for one design basis;
+ * with --json the results object of lib/plant/results-schema.ts (schema/results.schema.json).
+ */
+import type { Command } from '../command.ts';
+import { JSON_OPTION } from '../command.ts';
+import { loadProject } from '../load-project.ts';
+import { calculate } from '../../plant/calculate.ts';
+import { formatDiagnostic } from '../../basis/diagnostics.ts';
+import { locatedDiagnostic } from '../../plant/located-error.ts';
+import { json, table } from '../format.ts';
+import { headlineRows } from '../results-table.ts';
+
+export const calcCommand: Command = {
+  name: 'calc',
+  summary: 'compute the design point, efficiencies, heat, carbon margin, sweeps, sensitivities and hazards of a basis',
+  usage: 'calc ID|FILE [--json]',
+  details: 'With --json prints one results object (documented by schema/results.schema.json; units in the key names).',
+  positionals: [1, 1],
+  options: [JSON_OPTION],
+  run(args, io) {
+    const basis = loadProject(args.positionals[0]!, io);
+    const results = calculate(basis);
+    for (const note of results.notes) io.err(`${formatDiagnostic(locatedDiagnostic(basis, note.path, note.message, 'warning'))}\n`);
+    if (args.values.json) {
+      io.out(json(results));
+      return 0;
+    }
+    io.out(`${basis.file}: ${results.project.title} (${results.technology.name}, ${results.technology.mode} mode)\n`);
+    io.out(table(headlineRows(results)));
+    return 0;
+  },
+};

@@ -1,0 +1,24 @@
+/** `cellbasis hazards ID|FILE [--json]`: the hazard assessment of a basis, standing notice first. */
+import type { Command } from '../command.ts';
+import { JSON_OPTION } from '../command.ts';
+import { loadProject } from '../load-project.ts';
+import { evaluateBasis } from '../../plant/calculate.ts';
+import { hazardInput } from '../../plant/hazard-streams.ts';
+import { assessHazards } from '../../hazards/assessment.ts';
+import { formatHazardsText } from '../../hazards/format-text.ts';
+import { json } from '../format.ts';
+
+export const hazardsCommand: Command = {
+  name: 'hazards',
+  summary: 'hazards and handling cautions that follow from the streams of a basis, with their standards',
+  usage: 'hazards ID|FILE [--json]',
+  details: 'Informational only: local codes, the authority having jurisdiction and licensed professional practice govern.',
+  positionals: [1, 1],
+  options: [JSON_OPTION],
+  run(args, io) {
+    const basis = loadProject(args.positionals[0]!, io);
+    const assessment = assessHazards(hazardInput(basis, evaluateBasis(basis)));
+    io.out(args.values.json ? json(assessment) : formatHazardsText(assessment));
+    return 0;
+  },
+};

@@ -1,0 +1,31 @@
+/** The headline numbers of a results object as label / value rows for the terminal. */
+import type { Results } from '../plant/results-schema.ts';
+import { sig } from './format.ts';
+
+const pct = (x: number | null) => (x === null ? '' : `${sig(x * 100, 4)} %`);
+const kw = (w: number) => `${sig(w / 1000, 5)} kW`;
+
+export function headlineRows(r: Results): [string, string][] {
+  const h = r.headline;
+  const power = r.technology.mode === 'power';
+  const rows: [string, string][] = [
+    ['Nernst voltage, inlet / mean / outlet', `${h.inletNernst_V === null ? 'unbounded (dry inlet)' : `${sig(h.inletNernst_V, 5)} V`} / ${sig(h.meanNernst_V, 5)} V / ${sig(h.outletNernst_V, 5)} V`],
+    ['cell voltage', `${sig(h.cellVoltage_V, 4)} V (${r.electrochemistry.voltageSource === 'given' ? 'given' : 'from area-specific resistance'})`],
+    ['cells, cell current, total current', `${h.cells}, ${sig(h.cellCurrent_A, 5)} A, ${sig(h.totalCurrent_A, 5)} A`],
+    [power ? 'stack DC power / net power' : 'stack power input', power ? `${kw(h.stackPower_W)} / ${kw(h.netPower_W)}` : kw(h.stackPower_W)],
+  ];
+  if (power) {
+    rows.push(['electrical efficiency, net (LHV / HHV)', `${pct(h.electricalEfficiencyLhv)} / ${pct(h.electricalEfficiencyHhv)}`]);
+    rows.push(['thermodynamic limit at T (LHV / HHV)', `${pct(h.thermodynamicLimitLhv)} / ${pct(h.thermodynamicLimitHhv)}`]);
+  } else {
+    rows.push(['hydrogen production', `${sig(h.hydrogenProduction_kg_per_h!, 5)} kg/h (${sig(h.hydrogenProduction_kg_per_day!, 5)} kg/day)`]);
+    rows.push(['specific energy', `${sig(h.specificEnergy_kWh_per_kg!, 4)} kWh/kg (LHV efficiency ${pct(r.efficiency.electrolysisEfficiencyLhv)}, HHV ${pct(r.efficiency.electrolysisEfficiencyHhv)})`]);
+  }
+  rows.push([h.stackHeat_W >= 0 ? 'stack heat released (isothermal)' : 'stack heat needed (isothermal)', kw(Math.abs(h.stackHeat_W))]);
+  if (h.airFlow_kg_per_h !== null) rows.push(['air-electrode feed', `${sig(h.airFlow_kg_per_h, 5)} kg/h`]);
+  if (h.minimumSteamToCarbon !== null) {
+    rows.push(['minimum steam-to-carbon / margin', `${sig(h.minimumSteamToCarbon, 4)} / ${h.carbonMargin === null ? 'no steam given' : sig(h.carbonMargin, 4)}`]);
+  }
+  if (h.maxCarbonActivity !== null) rows.push(['highest carbon activity on the fuel path', sig(h.maxCarbonActivity, 4)]);
+  return rows;
+}

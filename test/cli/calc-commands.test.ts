@@ -1,0 +1,92 @@
+// cellbasis calc and cellbasis hazards on bases written to a temporary projects/ folder:
+// the results object, located calculation errors (exit 1), and the hazard cautions the issue
+// names for a methane-fed nickel-anode solid oxide plant and a pure-hydrogen PEM unit.
+import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { parseDocument } from 'yaml';
+import { renderScaffold } from '../../lib/basis/scaffolds.ts';
+import type { Mode, TechnologyId } from '../../lib/electrochem/technologies.ts';
+import { run } from './run.ts';
+
+function project(technology: TechnologyId, mode: Mode, edits: Record<string, unknown> = {}): string {
+  const root = mkdtempSync(join(tmpdir(), 'cellbasis-calc-'));
+  const doc = parseDocument(renderScaffold(technology, mode, 'p1', '2026-11-30'));
+  for (const [path, value] of Object.entries(edits)) {
+    if (value === undefined) doc.deleteIn(path.split('.'));
+    else doc.setIn(path.split('.'), value);
+  }
+  mkdirSync(join(root, 'projects', 'p1'), { recursive: true });
+  writeFileSync(join(root, 'projects', 'p1', 'basis.yaml'), doc.toString());
+  return root;
+}
+
+describe('cellbasis calc', () => {
+  it('prints the headline table, and with --json the results object', async () => {
+    const root = project('solid-oxide', 'power');
+    const table = await run(['calc', 'p1'], root);
+    expect(table.code).toBe(0);
+    expect(table.out).toMatch(/Nernst voltage, inlet \/ mean \/ outlet\s+0\.9\d+ V/);
+    expect(table.out).toMatch(/electrical efficiency, net \(LHV \/ HHV\)/);
+    const json = await run(['calc', 'p1', '--json'], root);
+    const r = JSON.parse(json.out);
+    expect(r.format).toBe('cellbasis-results/1');
+    expect(r.headline.meanNernst_V).toBeGreaterThan(0.85);
+    expect(r.headline.meanNernst_V).toBeLessThan(r.headline.inletNernst_V);
+  });
+
+  it('a cell voltage above the mean Nernst voltage is located at operating-point.cell-voltage, exit 1', async () => {
+    const root = project('solid-oxide', 'power', { 'operating-point.cell-voltage': '1.05 V' });
+    const r = await run(['calc', 'p1'], root);
+    expect(r.code).toBe(1);
+    expect(r.err).toMatch(/^cellbasis: projects\/p1\/basis\.yaml:\d+:\d+: operating-point\.cell-voltage: the cell voltage 1\.0500 V is not below the mean Nernst voltage available/m);
+  });
+
+  it('a cell count that contradicts the target power is located at operating-point.cells', async () => {
+    const root = project('solid-oxide', 'power', { 'operating-point.cells': 4000 });
+    const r = await run(['calc', 'p1'], root);
+    expect(r.code).toBe(1);
+    expect(r.err).toMatch(/operating-point\.cells: conflicting inputs: 4000 cells give \d+(\.\d+)? kW net .* but the target is 250\.0 kW/);
+  });
+
+  it('a PEM fed with methane-rich gas cannot reach its utilization: located, exit 1', async () => {
+    const root = project('pem', 'power', { 'streams.fuel-electrode.composition': { H2: 0.6, CH4: 0.4 } });
+    const r = await run(['calc', 'p1'], root);
+    expect(r.code).toBe(1);
+    expect(r.err).toMatch(/operating-point\.fuel-utilization: the fuel cannot reach the requested utilization/);
+  });
+
+  it('check prints the calculated headline numbers too', async () => {
+    const root = project('pem', 'electrolysis');
+    const r = await run(['check', 'p1'], root);
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/specific energy\s+\d+(\.\d+)? kWh\/kg/);
+  });
+});
+
+describe('cellbasis hazards', () => {
+  it('methane-fed solid oxide plant with a nickel anode: CO, nickel carbonyl, flammable off-gas and hydrogen cautions, with sources', async () => {
+    const root = project('solid-oxide', 'power');
+    const r = await run(['hazards', 'p1', '--json'], root);
+    expect(r.code).toBe(0);
+    const a = JSON.parse(r.out);
+    const ids = a.cautions.map((c: { id: string }) => c.id);
+    expect(ids).toEqual(expect.arrayContaining(['carbon-monoxide', 'nickel-carbonyl-shutdown']));
+    expect(ids.some((id: string) => /off-?gas/.test(id))).toBe(true);
+    expect(ids.some((id: string) => /hydrogen/.test(id))).toBe(true);
+    for (const c of a.cautions) expect(c.standards.length, c.id).toBeGreaterThan(0);
+    const text = await run(['hazards', 'p1'], root);
+    expect(text.out).toMatch(/^HAZARDS\n\nInformational only\./);
+    expect(text.out).toMatch(/authority having jurisdiction/);
+  });
+
+  it('pure-hydrogen PEM unit: hydrogen cautions, no CO and no nickel carbonyl', async () => {
+    const root = project('pem', 'power', { 'streams.fuel-electrode.composition': 'hydrogen' });
+    const a = JSON.parse((await run(['hazards', 'p1', '--json'], root)).out);
+    const ids: string[] = a.cautions.map((c: { id: string }) => c.id);
+    expect(ids.some((id) => /hydrogen/.test(id))).toBe(true);
+    expect(ids).not.toContain('carbon-monoxide');
+    expect(ids).not.toContain('nickel-carbonyl-shutdown');
+  });
+});
