@@ -1,0 +1,67 @@
+/**
+ * Where sealed revisions live and what their manifest holds. A sealed revision is a folder that
+ * no command but `cellbasis seal` ever writes:
+ *
+ *   projects/<id>/sealed/<rev>/
+ *     basis.yaml      the basis as sealed (document revision and status set to the sealed ones)
+ *     results.json    the results object of that basis (lib/plant/results-schema.ts)
+ *     document.html   the design-basis document as one self-contained file (CSS, fonts, scripts inlined)
+ *     document.pdf    the same document printed to PDF
+ *     manifest.json   this module's SealManifest: SHA-256 of every file above, and the context
+ *     manifest.sig    optional: Ed25519 signature of the exact bytes of manifest.json (base64)
+ *
+ * The site builds each sealed revision's page from basis.yaml and results.json as sealed, never by
+ * recomputing. This module only names the paths and the manifest's shape; sealing, auditing and
+ * comparing live beside it in lib/archive.
+ */
+import { join } from 'node:path';
+import type { DocumentStatus } from '../basis/types.ts';
+
+export const SEALED_DIR = 'sealed';
+
+export const SEALED_FILES = {
+  basis: 'basis.yaml',
+  results: 'results.json',
+  html: 'document.html',
+  pdf: 'document.pdf',
+  manifest: 'manifest.json',
+  signature: 'manifest.sig',
+} as const;
+
+/** The files a manifest lists, in this order. */
+export const HASHED_FILES = [SEALED_FILES.basis, SEALED_FILES.results, SEALED_FILES.html, SEALED_FILES.pdf] as const;
+
+export interface SealManifest {
+  format: 'cellbasis-seal/1';
+  project: string;
+  /** Document number and title as sealed. */
+  documentNumber: string;
+  title: string;
+  revision: string;
+  status: DocumentStatus;
+  /** The note given to `seal --note`, or "". */
+  note: string;
+  /** The seal date (ISO date, YYYY-MM-DD) used for every timestamp in the sealed files. */
+  sealedOn: string;
+  tool: { name: 'cellbasis'; version: string };
+  /** SHA-256 of the species data file (lib/thermo/data/nasa-glenn-excerpt.inp) used. */
+  speciesData_sha256: string;
+  /** SHA-256 (hex) of each sealed file by name. */
+  files: Record<string, string>;
+  /** The revision this one follows and the SHA-256 of its manifest.json, or null for the first. */
+  previous: { revision: string; manifest_sha256: string } | null;
+  /** Signatories as sealed (from the basis's sign-off). */
+  signOff: { role: 'prepared' | 'checked' | 'approved'; name: string; date?: string }[];
+  /** SPKI PEM of the public key whose signature is in manifest.sig, when signed. */
+  publicKey?: string;
+}
+
+/** projects/<id>/sealed under the working folder. */
+export function sealedRoot(cwd: string, projectId: string): string {
+  return join(cwd, 'projects', projectId, SEALED_DIR);
+}
+
+/** projects/<id>/sealed/<rev>. */
+export function sealedDir(cwd: string, projectId: string, revision: string): string {
+  return join(sealedRoot(cwd, projectId), revision);
+}
