@@ -22,6 +22,7 @@
 import { FARADAY_C_PER_MOL as F } from '../thermo/constants.ts';
 import { gOverRT } from '../thermo/properties.ts';
 import { saturationPressureBar } from '../thermo/saturation.ts';
+import { getSpecies } from '../thermo/species-data.ts';
 import { electronsOfStream } from '../electrochem/charge.ts';
 import { hydrogenStandardVoltage, nernstLogQuotient } from '../electrochem/nernst.ts';
 import { GAS_CONSTANT_J_PER_MOL_K as R } from '../thermo/constants.ts';
@@ -31,7 +32,7 @@ import { elementAmounts, elementsOfFeed, gasGibbsOverRT, systemFor, type Chemica
 import { exchangeFor, type Exchange } from './electrolyte-exchange.ts';
 import { amountsOn, layout, moleFractions, shifted, sum, toRecord, type GasLayout } from './gas-state.ts';
 import { integrateAlongUtilization, type Sample } from './path-integral.ts';
-import { UserError } from '../errors.ts';
+import { ConvergenceError, UserError } from '../errors.ts';
 
 export interface FuelPathRequest {
   technology: Technology;
@@ -124,6 +125,12 @@ function withoutWater(change: Stream, liquid: boolean): Stream {
   return rest;
 }
 
+function atomsOf(stream: Stream, element: string): number {
+  let n = 0;
+  for (const [k, v] of Object.entries(stream)) n += v * (getSpecies(k).formula[element] ?? 0);
+  return n;
+}
+
 /** Q for U = 1 (A), with the check that the design utilization can be reached. */
 function chargeBasis(request: FuelPathRequest): number {
   const { technology, mode } = request;
@@ -131,6 +138,16 @@ function chargeBasis(request: FuelPathRequest): number {
     if (!request.fuelFeed) throw new UserError('power mode needs a fuel-electrode feed');
     const q = F * electronsOfStream(request.fuelFeed);
     if (!(q > 0)) throw new UserError('the fuel-electrode feed has no oxidisable fuel (its charge on complete oxidation is not positive)');
+    if (technology.ion === 'proton' && technology.fuelGasEquilibrium) {
+      // A proton conductor takes only hydrogen from the fuel gas, one electron per H atom: the
+      // carbon stays behind, so the H of the feed (steam's included) bounds the utilization.
+      const reachable = (F * atomsOf(request.fuelFeed, 'H')) / q;
+      if (request.utilization >= reachable) {
+        throw new UserError(
+          `the fuel cannot reach the requested utilization ${pct(request.utilization)}: a ${technology.name} electrolyte takes only hydrogen from the fuel gas, and the feed's hydrogen (steam included) carries ${pct(reachable)} of its charge; add steam`,
+        );
+      }
+    }
     if (!technology.fuelGasEquilibrium) {
       const reachable = (2 * F * (request.fuelFeed.H2 ?? 0)) / q;
       if (request.utilization >= reachable) {
@@ -261,7 +278,16 @@ class PathModel {
       }
       const u = chargeA / this.basisA;
       const warm = this.predict(u);
-      const r = minimiseGibbs(this.system, this.gRT!, Math.log(this.request.fuelPressureBar), b, this.gGraphite, warm ? { warmStart: warm } : {});
+      let r;
+      try {
+        r = minimiseGibbs(this.system, this.gRT!, Math.log(this.request.fuelPressureBar), b, this.gGraphite, warm ? { warmStart: warm } : {});
+      } catch (error) {
+        if (!(error instanceof ConvergenceError)) throw error;
+        const held = this.system.elements.map((e, i) => `${e} ${b[i]!.toPrecision(4)}`).join(', ');
+        throw new UserError(
+          `the fuel-electrode gas has no gas-phase equilibrium at utilization ${pct(u)} (atoms per second on the feed's scale: ${held}): too little hydrogen and oxygen remain to hold its carbon as gas, so carbon would deposit; add steam or lower the utilization (${error.message})`,
+        );
+      }
       this.remember(u, r.lnScaled);
       fuel = r.n;
       carbonActivity = r.carbonActivity;

@@ -128,3 +128,20 @@ describe('fuel path: inputs it cannot honour', () => {
     }
   });
 });
+
+describe('fuel path: proton conductors take only hydrogen from the fuel', () => {
+  it('dry methane in a proton-ceramic cell cannot pass 50 % utilization: its 4 H carry half of its 8 electrons', () => {
+    expect(() =>
+      fuelPath({ technology: technology('proton-ceramic'), mode: 'power', temperatureK: 873.15, fuelPressureBar: 1, airPressureBar: 1, fuelFeed: { CH4: 1 }, airFeed: air(20), utilization: 0.8 }),
+    ).toThrow(/takes only hydrogen from the fuel gas, and the feed's hydrogen \(steam included\) carries 50\.00 % of its charge; add steam/);
+  });
+
+  it('with steam (S/C 2.5) the same cell reaches 80 %: reforming and shift supply the hydrogen', () => {
+    const path = fuelPath({ technology: technology('proton-ceramic'), mode: 'power', temperatureK: 873.15, fuelPressureBar: 1, airPressureBar: 1, fuelFeed: { CH4: 1, H2O: 2.5 }, airFeed: air(20), utilization: 0.8 });
+    expect(path.meanNernstV).toBeGreaterThan(0.8);
+    // The fuel side loses H at one per electron (Faraday); C and O stay.
+    expect(atoms(path.fuelOutlet, 'H')).toBeCloseTo(9 - path.currentA / F, 9);
+    expect(atoms(path.fuelOutlet, 'C')).toBeCloseTo(1, 12);
+    expect(atoms(path.fuelOutlet, 'O')).toBeCloseTo(2.5, 12);
+  });
+});
