@@ -1,0 +1,22 @@
+/**
+ * The loop of a calculation worker thread (lib/plant/batch.ts): receives validated bases,
+ * answers with their results or with the located error the calculation raised.
+ */
+import { parentPort } from 'node:worker_threads';
+import { calculate } from './calculate.ts';
+import { BasisError } from '../basis/diagnostics.ts';
+import { UserError } from '../errors.ts';
+import type { DesignBasis } from '../basis/types.ts';
+import type { WorkerReply } from './batch.ts';
+
+parentPort!.on('message', (message: { job: number; basis: DesignBasis }) => {
+  let reply: WorkerReply;
+  try {
+    reply = { job: message.job, kind: 'results', results: calculate(message.basis) };
+  } catch (error) {
+    if (error instanceof BasisError) reply = { job: message.job, kind: 'basis-error', diagnostics: error.errors };
+    else if (error instanceof UserError) reply = { job: message.job, kind: 'user-error', message: error.message };
+    else reply = { job: message.job, kind: 'crash', message: error instanceof Error ? `${error.message}\n${error.stack ?? ''}` : String(error) };
+  }
+  parentPort!.postMessage(reply);
+});

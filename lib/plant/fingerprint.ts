@@ -1,0 +1,34 @@
+/**
+ * A fingerprint of the calculation library: SHA-256 over the tool version and every source and
+ * data file under lib/ (sorted by path). Cached results are keyed by it, so a changed equation,
+ * coefficient or hazard table never serves a stale result, whether or not the version was raised.
+ */
+import { createHash } from 'node:crypto';
+import { readdirSync, readFileSync } from 'node:fs';
+import { join, relative } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { toolVersion } from '../cli/version.ts';
+
+const LIB = fileURLToPath(new URL('..', import.meta.url));
+const KINDS = /\.(ts|yaml|yml|json|inp|txt)$/;
+
+let fingerprint: string | undefined;
+
+function files(dir: string): string[] {
+  return readdirSync(dir, { withFileTypes: true }).flatMap((entry) => {
+    const path = join(dir, entry.name);
+    if (entry.isDirectory()) return files(path);
+    return KINDS.test(entry.name) ? [path] : [];
+  });
+}
+
+export function libraryFingerprint(): string {
+  if (fingerprint) return fingerprint;
+  const hash = createHash('sha256').update(`cellbasis ${toolVersion()}\n`);
+  for (const path of files(LIB).sort()) {
+    hash.update(`${relative(LIB, path)}\n`);
+    hash.update(readFileSync(path));
+  }
+  fingerprint = hash.digest('hex');
+  return fingerprint;
+}
