@@ -1,0 +1,55 @@
+// The batch calculator and the results cache: worker threads give exactly the results of this
+// thread; a cached result is served only for the same basis bytes, id and library.
+import { mkdtempSync, readFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { writeSyntheticProjects } from '../../bench/synthetic.ts';
+import { loadBasisText } from '../../lib/basis/load.ts';
+import { calculateAll, type CalculationJob } from '../../lib/plant/batch.ts';
+import { calculate } from '../../lib/plant/calculate.ts';
+import { ResultsCache, resultsKey } from '../../lib/plant/results-cache.ts';
+
+function jobs(count: number): { root: string; list: CalculationJob[] } {
+  const root = mkdtempSync(join(tmpdir(), 'cellbasis-batch-'));
+  const list = writeSyntheticProjects(root, count).map((id) => {
+    const file = `projects/${id}/basis.yaml`;
+    const text = readFileSync(join(root, file));
+    const loaded = loadBasisText(text, file, id);
+    if (!loaded.ok) throw new Error(`${id}: ${loaded.errors.map((e) => e.message).join('; ')}`);
+    return { basis: loaded.basis, text };
+  });
+  return { root, list };
+}
+
+describe('batch calculation', () => {
+  it('worker threads return exactly what this thread computes, in job order', async () => {
+    const { list } = jobs(14);
+    const outcomes = await calculateAll(list, { workers: 2 });
+    expect(outcomes).toHaveLength(14);
+    outcomes.forEach((o, i) => {
+      expect(o.ok).toBe(true);
+      if (o.ok) expect(JSON.stringify(o.results)).toBe(JSON.stringify(calculate(list[i]!.basis)));
+    });
+  }, 120_000);
+
+  it('a second run is served from the cache; another basis text is a miss', async () => {
+    const { root, list } = jobs(3);
+    const cache = new ResultsCache(root);
+    const first = await calculateAll(list, { cache, workers: 1 });
+    expect(first.every((o) => o.ok && !o.cached)).toBe(true);
+    const second = await calculateAll(list, { cache, workers: 1 });
+    expect(second.every((o) => o.ok && o.cached)).toBe(true);
+    expect(JSON.stringify(second.map((o) => o.ok && o.results))).toBe(JSON.stringify(first.map((o) => o.ok && o.results)));
+    const job = list[0]!;
+    expect(resultsKey(`${job.text.toString()}\n# edited`, job.basis.id, job.basis.file)).not.toBe(resultsKey(job.text, job.basis.id, job.basis.file));
+    expect(resultsKey(job.text, 'other-id', job.basis.file)).not.toBe(resultsKey(job.text, job.basis.id, job.basis.file));
+  });
+
+  it('reports progress once per job', async () => {
+    const { list } = jobs(3);
+    const seen: number[] = [];
+    await calculateAll(list, { workers: 1, onProgress: (done, total) => seen.push(done * 10 + total) });
+    expect(seen).toEqual([13, 23, 33]);
+  });
+});
