@@ -1,0 +1,290 @@
+/**
+ * What changed between two revisions of a design basis: `compareRevisions(a, b)` is a pure
+ * function of the two revisions' bases and results (the earlier first) and returns a
+ * `RevisionChanges`, the one source of the `cellbasis compare` table and of the revision-history
+ * section of the document (each revision's change summary against the one before it).
+ *
+ *   - inputs: every design input by its field path (basis.inputs), as written with its unit:
+ *     "operating temperature 800 C → 780 C"; added and removed inputs; source changes;
+ *   - fields: other changes of the YAML data (title, sign-off, materials, composition names,
+ *     mixture sources), found by a structural diff of the two YAML texts when `source` is given,
+ *     else of the document and cell data of the bases; revision and status are in from/to;
+ *   - assumptions and references by id: added, removed, changed (text, open flag, reference);
+ *   - results: the headline numbers that changed, with old, new, absolute and relative change:
+ *     "mean Nernst voltage 0.9286 V → 0.9340 V (+5.4 mV, +0.58 %)". Numbers that agree within
+ *     rounding (tolerance.ts) count as unchanged.
+ *
+ * `summary` holds one readable line per change, in that order; `unchanged` is true when there is
+ * none. Usage (site build, revision history):
+ *
+ *   const changes = compareRevisions({ basis: basisA, results: resultsA, source: yamlA },
+ *                                    { basis: basisB, results: resultsB, source: yamlB });
+ *   changes.summary   // ["operating temperature 800 C → 780 C", "mean Nernst voltage …", …]
+ */
+import { parse as parseYaml } from 'yaml';
+import type { Assumption, DesignBasis, InputRecord, Reference } from '../basis/types.ts';
+import type { Results } from '../plant/results-schema.ts';
+import { childPath, diffTrees, treeText, type Tree } from './tree-diff.ts';
+import { sameWithinRounding } from './tolerance.ts';
+import { HEADLINE_QUANTITIES, formatChange, formatValue } from './headline-quantities.ts';
+
+export interface RevisionSide {
+  basis: DesignBasis;
+  results: Results;
+  /** The YAML text of the basis, for the structural diff of the fields that are not inputs. */
+  source?: string;
+}
+
+export interface InputValue {
+  /** As written, unit included ("800 C"). */
+  text: string;
+  unit: string;
+  si: number;
+  siUnit: string;
+  source?: string;
+}
+
+export interface InputChange {
+  path: string;
+  label: string;
+  kind: 'added' | 'removed' | 'changed';
+  old?: InputValue;
+  new?: InputValue;
+  /** Changed: whether the SI value is the same (only the writing or the source changed). */
+  sameValue?: boolean;
+  text: string;
+}
+
+export interface FieldChange {
+  path: string;
+  kind: 'added' | 'removed' | 'changed';
+  old?: string;
+  new?: string;
+  text: string;
+}
+
+export interface AssumptionChange {
+  id: string;
+  kind: 'added' | 'removed' | 'changed';
+  old?: Assumption;
+  new?: Assumption;
+  /** Changed: which parts. */
+  parts: ('text' | 'open' | 'reference')[];
+  text: string;
+}
+
+export interface ReferenceChange {
+  id: string;
+  kind: 'added' | 'removed' | 'changed';
+  old?: string;
+  new?: string;
+  text: string;
+}
+
+export interface ResultChange {
+  /** Key in results.headline. */
+  key: string;
+  label: string;
+  /** SI unit of old, new and delta ("V", "W", "1" for fractions and counts). */
+  unit: string;
+  old: number | null;
+  new: number | null;
+  /** new − old (SI), null when either is null. */
+  delta: number | null;
+  /** delta / |old|, null when either is null or old is 0. */
+  relative: number | null;
+  text: string;
+}
+
+export interface RevisionChanges {
+  from: { revision: string; status: string };
+  to: { revision: string; status: string };
+  inputs: InputChange[];
+  fields: FieldChange[];
+  assumptions: AssumptionChange[];
+  references: ReferenceChange[];
+  results: ResultChange[];
+  summary: string[];
+  unchanged: boolean;
+}
+
+function inputValue(record: InputRecord): InputValue {
+  return { text: record.text, unit: record.unit, si: record.si, siUnit: record.siUnit, ...(record.source ? { source: record.source } : {}) };
+}
+
+function inputChanges(a: InputRecord[], b: InputRecord[]): InputChange[] {
+  const before = new Map(a.map((r) => [r.path, r]));
+  const after = new Map(b.map((r) => [r.path, r]));
+  const out: InputChange[] = [];
+  for (const old of a) {
+    const next = after.get(old.path);
+    if (!next) {
+      out.push({ path: old.path, label: old.label, kind: 'removed', old: inputValue(old), text: `${old.label} ${old.text} removed` });
+      continue;
+    }
+    const textChanged = old.text !== next.text;
+    const sourceChanged = (old.source ?? '') !== (next.source ?? '');
+    if (!textChanged && !sourceChanged) continue;
+    const parts: string[] = [];
+    if (textChanged) parts.push(`${next.label} ${old.text} → ${next.text}${old.si === next.si ? ' (same value)' : ''}`);
+    if (sourceChanged) parts.push(`${textChanged ? 'source' : `${next.label}: source`} ${old.source ?? 'none'} → ${next.source ?? 'none'}`);
+    out.push({ path: old.path, label: next.label, kind: 'changed', old: inputValue(old), new: inputValue(next), sameValue: old.si === next.si, text: parts.join('; ') });
+  }
+  for (const next of b) {
+    if (!before.has(next.path)) out.push({ path: next.path, label: next.label, kind: 'added', new: inputValue(next), text: `${next.label} ${next.text} added` });
+  }
+  return out;
+}
+
+/** The data of a basis that is not an input, named as in the YAML, when its text is not at hand. */
+function projection(basis: DesignBasis): Tree {
+  const d = basis.document;
+  const signOff: Record<string, Tree> = {};
+  for (const [role, person] of Object.entries(d.signOff)) if (person) signOff[role] = { ...person };
+  const optional = (value: string | undefined): Tree => value ?? null;
+  return {
+    document: { title: d.title, number: d.number, client: d.client, site: d.site, paper: d.paper, purpose: d.purpose, scope: d.scope, 'sign-off': signOff },
+    cell: {
+      technology: basis.cell.technology,
+      mode: basis.cell.mode,
+      'fuel-electrode': optional(basis.cell.fuelElectrode),
+      'air-electrode': optional(basis.cell.airElectrode),
+      electrolyte: optional(basis.cell.electrolyte),
+      'nickel-bearing': basis.cell.nickelBearing,
+    },
+    streams: {
+      'fuel-electrode': basis.fuelElectrode ? { composition: basis.fuelElectrode.compositionName ?? null, 'pre-reforming': basis.fuelElectrode.preReforming.kind } : null,
+      'air-electrode': basis.airElectrode ? { composition: basis.airElectrode.compositionName ?? null } : null,
+    },
+  };
+}
+
+const OWN_SECTIONS = new Set(['assumptions', 'references', 'document.revision', 'document.status']);
+
+/** The path and each path above it: `a.b[2].c`, `a.b[2]`, `a.b`, `a`. */
+function selfAndAncestors(path: string): string[] {
+  const out: string[] = [];
+  for (let p = path; p !== ''; ) {
+    out.push(p);
+    const parent = p.replace(/(?:\.[^.[\]]+|\[\d+\])$/, '');
+    if (parent === p) break;
+    p = parent;
+  }
+  return out;
+}
+
+/** Whether a path is an input, lies below one, or is handled by its own section. */
+function coveredBy(inputPaths: Set<string>): (path: string) => boolean {
+  return (path) => selfAndAncestors(path).some((p) => inputPaths.has(p) || OWN_SECTIONS.has(p));
+}
+
+/** A subtree with the covered paths removed; undefined when nothing is left. */
+function prune(value: Tree, path: string, covered: (path: string) => boolean): Tree | undefined {
+  if (covered(path)) return undefined;
+  if (typeof value !== 'object' || value === null) return value;
+  if (Array.isArray(value)) {
+    const items = value.map((v, i) => prune(v, childPath(path, i), covered));
+    return items.every((v) => v === undefined) ? undefined : items.map((v) => v ?? null);
+  }
+  const out: Record<string, Tree> = {};
+  for (const [key, child] of Object.entries(value)) {
+    const kept = prune(child, childPath(path, key), covered);
+    if (kept !== undefined) out[key] = kept;
+  }
+  return Object.keys(out).length ? out : undefined;
+}
+
+function fieldChanges(a: RevisionSide, b: RevisionSide): FieldChange[] {
+  const trees: [Tree, Tree] =
+    a.source !== undefined && b.source !== undefined ? [parseYaml(a.source) as Tree, parseYaml(b.source) as Tree] : [projection(a.basis), projection(b.basis)];
+  const covered = coveredBy(new Set([...a.basis.inputs, ...b.basis.inputs].map((r) => r.path)));
+  const out: FieldChange[] = [];
+  for (const d of diffTrees(trees[0], trees[1], { skip: covered })) {
+    const old = d.old === undefined ? undefined : prune(d.old, d.path, covered);
+    const next = d.new === undefined ? undefined : prune(d.new, d.path, covered);
+    if (d.kind !== 'changed' && old === undefined && next === undefined) continue;
+    const text =
+      d.kind === 'added' ? `${d.path} added: ${treeText(next)}` : d.kind === 'removed' ? `${d.path} removed (was ${treeText(old)})` : `${d.path}: ${treeText(old)} → ${treeText(next)}`;
+    out.push({ path: d.path, kind: d.kind, ...(old !== undefined ? { old: treeText(old) } : {}), ...(next !== undefined ? { new: treeText(next) } : {}), text });
+  }
+  return out;
+}
+
+function assumptionChanges(a: Assumption[], b: Assumption[]): AssumptionChange[] {
+  const after = new Map(b.map((x) => [x.id, x]));
+  const before = new Set(a.map((x) => x.id));
+  const open = (x: Assumption) => (x.open ? ' (open)' : '');
+  const out: AssumptionChange[] = [];
+  for (const old of a) {
+    const next = after.get(old.id);
+    if (!next) {
+      out.push({ id: old.id, kind: 'removed', old, parts: [], text: `assumption ${old.id} removed: ${old.text}` });
+      continue;
+    }
+    const parts: AssumptionChange['parts'] = [];
+    const words: string[] = [];
+    if (old.text !== next.text) {
+      parts.push('text');
+      words.push(`text "${old.text}" → "${next.text}"`);
+    }
+    if (old.open !== next.open) {
+      parts.push('open');
+      words.push(next.open ? 'reopened (open again)' : 'closed (no longer open)');
+    }
+    if ((old.reference ?? '') !== (next.reference ?? '')) {
+      parts.push('reference');
+      words.push(`reference ${old.reference ?? 'none'} → ${next.reference ?? 'none'}`);
+    }
+    if (parts.length) out.push({ id: old.id, kind: 'changed', old, new: next, parts, text: `assumption ${old.id} ${words.join('; ')}` });
+  }
+  for (const next of b) if (!before.has(next.id)) out.push({ id: next.id, kind: 'added', new: next, parts: [], text: `assumption ${next.id} added${open(next)}: ${next.text}` });
+  return out;
+}
+
+function referenceChanges(a: Reference[], b: Reference[]): ReferenceChange[] {
+  const after = new Map(b.map((x) => [x.id, x.citation]));
+  const before = new Set(a.map((x) => x.id));
+  const out: ReferenceChange[] = [];
+  for (const old of a) {
+    const next = after.get(old.id);
+    if (next === undefined) out.push({ id: old.id, kind: 'removed', old: old.citation, text: `reference ${old.id} removed: ${old.citation}` });
+    else if (next !== old.citation) out.push({ id: old.id, kind: 'changed', old: old.citation, new: next, text: `reference ${old.id} changed: "${old.citation}" → "${next}"` });
+  }
+  for (const next of b) if (!before.has(next.id)) out.push({ id: next.id, kind: 'added', new: next.citation, text: `reference ${next.id} added: ${next.citation}` });
+  return out;
+}
+
+function resultChanges(a: Results, b: Results): ResultChange[] {
+  const out: ResultChange[] = [];
+  for (const q of HEADLINE_QUANTITIES) {
+    const old = a.headline[q.key];
+    const next = b.headline[q.key];
+    if (old === null && next === null) continue;
+    if (old !== null && next !== null && sameWithinRounding(old, next)) continue;
+    const delta = old !== null && next !== null ? next - old : null;
+    const relative = delta !== null && old !== 0 ? delta / Math.abs(old!) : null;
+    const text = `${q.label} ${formatValue(q, old)} → ${formatValue(q, next)}${delta === null ? '' : ` (${formatChange(q, delta, relative)})`}`;
+    out.push({ key: q.key, label: q.label, unit: q.unit, old, new: next, delta, relative, text });
+  }
+  return out;
+}
+
+export function compareRevisions(a: RevisionSide, b: RevisionSide): RevisionChanges {
+  const inputs = inputChanges(a.basis.inputs, b.basis.inputs);
+  const fields = fieldChanges(a, b);
+  const assumptions = assumptionChanges(a.basis.assumptions, b.basis.assumptions);
+  const references = referenceChanges(a.basis.references, b.basis.references);
+  const results = resultChanges(a.results, b.results);
+  const summary = [...inputs, ...fields, ...assumptions, ...references, ...results].map((c) => c.text);
+  return {
+    from: { revision: a.basis.document.revision, status: a.basis.document.status },
+    to: { revision: b.basis.document.revision, status: b.basis.document.status },
+    inputs,
+    fields,
+    assumptions,
+    references,
+    results,
+    summary,
+    unchanged: summary.length === 0,
+  };
+}

@@ -1,0 +1,89 @@
+// compareRevisions: the change summary of two revisions, checked against two independent runs of
+// calculate() on the bases it compares.
+import { describe, expect, it } from 'vitest';
+import { renderScaffold } from '../../lib/basis/scaffolds.ts';
+import { loadBasisText } from '../../lib/basis/load.ts';
+import { calculate } from '../../lib/plant/calculate.ts';
+import { compareRevisions, type RevisionSide } from '../../lib/archive/compare.ts';
+import { edit } from '../basis/helpers.ts';
+
+const BASE = renderScaffold('solid-oxide', 'power', 'demo', '2026-11-30');
+
+function side(text: string): RevisionSide {
+  const loaded = loadBasisText(text, 'projects/demo/basis.yaml', 'demo');
+  if (!loaded.ok) throw new Error(loaded.errors.map((e) => e.message).join('\n'));
+  return { basis: loaded.basis, results: calculate(loaded.basis), source: text };
+}
+
+describe('compareRevisions', () => {
+  const colder = edit(BASE, ['value: "800 C", source: A1', 'value: "780 C", source: A1']);
+
+  it('reports a changed operating temperature as written and the change in Nernst voltage it causes', () => {
+    const a = side(BASE);
+    const b = side(colder);
+    const changes = compareRevisions(a, b);
+    expect(changes.inputs).toEqual([
+      expect.objectContaining({ path: 'conditions.operating-temperature', kind: 'changed', sameValue: false, text: 'operating temperature 800 C → 780 C' }),
+    ]);
+    expect(changes.inputs[0]!.old).toMatchObject({ text: '800 C', si: 1073.15, siUnit: 'K' });
+    expect(changes.inputs[0]!.new).toMatchObject({ text: '780 C', si: 1053.15 });
+    expect(changes.fields).toEqual([]);
+
+    // Two independent calculations give the numbers the comparison must report.
+    const before = calculate(side(BASE).basis).headline.meanNernst_V;
+    const after = calculate(side(colder).basis).headline.meanNernst_V;
+    const nernst = changes.results.find((r) => r.key === 'meanNernst_V')!;
+    expect(nernst.old).toBe(before);
+    expect(nernst.new).toBe(after);
+    expect(nernst.delta).toBeCloseTo(after - before, 15);
+    expect(nernst.relative).toBeCloseTo((after - before) / before, 15);
+    const mV = ((after - before) * 1000).toPrecision(2);
+    const pct = (((after - before) / before) * 100).toPrecision(2);
+    expect(nernst.text).toBe(`mean Nernst voltage ${before.toFixed(4)} V → ${after.toFixed(4)} V (+${Number(mV)} mV, +${Number(pct)} %)`);
+    // A colder SOFC on the same gas has the higher Nernst voltage (ΔS of H2 oxidation < 0).
+    expect(after).toBeGreaterThan(before);
+    expect(changes.summary[0]).toBe('operating temperature 800 C → 780 C');
+    expect(changes.unchanged).toBe(false);
+  });
+
+  it('finds no change between a revision and itself, and ignores the revision and status', () => {
+    const sealed = edit(BASE, ['revision: A ', 'revision: B '], ['status: draft ', 'status: approved ']);
+    const changes = compareRevisions(side(BASE), side(sealed));
+    expect(changes.summary).toEqual([]);
+    expect(changes.unchanged).toBe(true);
+    expect(changes.from).toEqual({ revision: 'A', status: 'draft' });
+    expect(changes.to).toEqual({ revision: 'B', status: 'approved' });
+  });
+
+  it('reports assumptions, open flags, references, sources and other fields', () => {
+    const changed = edit(
+      BASE,
+      ['open: true, reference: R1 }', 'open: false, reference: R1 }'],
+      ['  title: 250 kW', '  title: 260 kW'],
+      ['    # checked: { name: ..., date: ... }', '    checked: { name: B. Checker, date: 2026-12-01 }'],
+      ['value: "800 C", source: A1', 'value: "1073.15 K", source: R1'],
+      ['  - { id: R1, citation:', '  - { id: R2, citation: "Stack supplier datasheet (invented)" }\n  - { id: R1, citation:'],
+      ['  - { id: A1, text: The stack runs isothermal at the operating temperature., open: false }\n', ''],
+    );
+    const withA3 = changed.replace('\nreferences:', '  - { id: A3, text: Pressure drop is neglected., open: true }\n\nreferences:');
+    const changes = compareRevisions(side(BASE), side(withA3));
+    expect(changes.inputs.map((c) => c.text)).toEqual(['operating temperature 800 C → 1073.15 K (same value); source A1 → R1']);
+    expect(changes.fields.map((c) => c.text)).toEqual([
+      'document.title: 250 kW solid oxide CHP module, stack design basis → 260 kW solid oxide CHP module, stack design basis',
+      'document.sign-off.checked added: {"name":"B. Checker","date":"2026-12-01"}',
+    ]);
+    expect(changes.assumptions.map((c) => c.text)).toEqual([
+      'assumption A1 removed: The stack runs isothermal at the operating temperature.',
+      'assumption A2 closed (no longer open)',
+      'assumption A3 added (open): Pressure drop is neglected.',
+    ]);
+    expect(changes.references.map((c) => c.text)).toEqual(['reference R2 added: Stack supplier datasheet (invented)']);
+    expect(changes.results).toEqual([]);
+  });
+
+  it('compares the data of the bases when their texts are not given', () => {
+    const { source: _a, ...a } = side(BASE);
+    const { source: _b, ...b } = side(edit(BASE, ['  title: 250 kW', '  title: 260 kW']));
+    expect(compareRevisions(a, b).fields.map((c) => c.path)).toEqual(['document.title']);
+  });
+});
