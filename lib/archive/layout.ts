@@ -43,6 +43,12 @@ export interface SealManifest {
   note: string;
   /** The seal date (ISO date, YYYY-MM-DD) used for every timestamp in the sealed files. */
   sealedOn: string;
+  /**
+   * The timestamp written into the files (PDF CreationDate and ModDate), ISO 8601 UTC: 00:00 of
+   * sealedOn, or the SOURCE_DATE_EPOCH second when that set the date. Absent in manifests that
+   * predate it; read as 00:00 UTC of sealedOn then.
+   */
+  sealedAt?: string;
   tool: { name: 'cellbasis'; version: string };
   /** SHA-256 of the species data file (lib/thermo/data/nasa-glenn-excerpt.inp) used. */
   speciesData_sha256: string;
@@ -54,6 +60,8 @@ export interface SealManifest {
   signOff: { role: 'prepared' | 'checked' | 'approved'; name: string; date?: string }[];
   /** SPKI PEM of the public key whose signature is in manifest.sig, when signed. */
   publicKey?: string;
+  /** The Chromium that printed document.pdf (its version), for reproducing the PDF. */
+  pdf?: { chromium: string };
 }
 
 /** projects/<id>/sealed under the working folder. */

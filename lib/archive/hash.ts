@@ -1,0 +1,6 @@
+/** SHA-256 of bytes as lower-case hex, the digest every manifest records. */
+import { createHash } from 'node:crypto';
+
+export function sha256Hex(bytes: Uint8Array | string): string {
+  return createHash('sha256').update(bytes).digest('hex');
+}

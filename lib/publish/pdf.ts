@@ -1,0 +1,372 @@
+/**
+ * Design-basis documents to PDF through headless Chromium (Debian's /usr/bin/chromium, driven by
+ * playwright-core; cellbasis never downloads a browser), finished with pdf-lib.
+ *
+ * One browser per run, a small pool of pages, every network request from the page refused
+ * (anything but file: and data: URLs is aborted, so a document can only show what it carries):
+ *
+ *   import { findChromium, withPdfPrinter, documentPdfMeta } from '../publish/pdf.ts';
+ *
+ *   if (findChromium() === null) say(chromiumMissingMessage());   // HTML only, and say so
+ *   else await withPdfPrinter(async (printer) => {
+ *     const bytes = await printer.print('site/p/x/index.html', documentPdfMeta({ basis, results }, { date }));
+ *     writeFileSync('site/p/x/document.pdf', bytes);
+ *   });
+ *
+ * `print(htmlPathOrUrl, meta)` accepts a file path or a file: URL and may be called concurrently
+ * (up to `pages` prints run at once; the rest wait). For each print the printer
+ *   - lays the page out for print (print media, the paper's text width as viewport, device scale
+ *     factor 2 so chart canvases are drawn at twice their CSS size and stay sharp);
+ *   - waits for the load event, for `document.fonts.ready`, and, when the page has a <canvas>
+ *     or a `data-charts-ready` attribute on <html>, until `<html data-charts-ready="true">`
+ *     (the site's chart script sets it once every chart is drawn);
+ *   - prints `meta.paper` (A4 or Letter) with its own margins (a page's CSS @page size is not
+ *     used), a running header (document number, title, revision, status) and footer (number,
+ *     revision, status, date, "page X of Y") on every page, an outline from the headings and a
+ *     tagged (accessible) PDF;
+ *   - sets the document properties with pdf-lib: title (shown in the viewer's title bar), author,
+ *     subject, keywords, language, creator and producer ("cellbasis <version>"), CreationDate and
+ *     ModDate = `meta.date` (the seal date, never the clock), and attaches `meta.attachments`
+ *     (a sealed document carries its basis YAML and results JSON).
+ * The output has no /ID and no XMP metadata, so the same HTML and meta give the same bytes on
+ * the same Chromium (README "Issuing revisions" lists what another Chromium may change).
+ *
+ * Without Chromium, `withPdfPrinter` throws a ChromiumMissingError (a UserError saying how to
+ * install it). `CELLBASIS_CHROMIUM` names another browser binary; set to a path that does not
+ * exist it makes Chromium absent, which is how the tests check that message.
+ */
+import { accessSync, constants, existsSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { AFRelationship, PDFDocument } from 'pdf-lib';
+import type { DesignBasis } from '../basis/types.ts';
+import type { Results } from '../plant/results-schema.ts';
+import { toolVersion } from '../cli/version.ts';
+import { EXIT_VALIDATION, UserError } from '../errors.ts';
+
+export const DEFAULT_CHROMIUM = '/usr/bin/chromium';
+
+export const CHROMIUM_ARGS = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+  '--no-first-run',
+];
+
+/** The Chromium binary to use, or null when there is none: CELLBASIS_CHROMIUM if set, else /usr/bin/chromium. */
+export function findChromium(): string | null {
+  const path = process.env.CELLBASIS_CHROMIUM || DEFAULT_CHROMIUM;
+  try {
+    accessSync(path, constants.X_OK);
+    return path;
+  } catch {
+    return null;
+  }
+}
+
+export function chromiumMissingMessage(): string {
+  const named = process.env.CELLBASIS_CHROMIUM;
+  const where = named ? `CELLBASIS_CHROMIUM names ${named}, which is not an executable file` : `Chromium was not found at ${DEFAULT_CHROMIUM}`;
+  return `${where}: PDFs need Debian's Chromium (apt-get install -y chromium), or CELLBASIS_CHROMIUM set to a Chromium binary; cellbasis never downloads a browser`;
+}
+
+export class ChromiumMissingError extends UserError {
+  constructor() {
+    super(chromiumMissingMessage(), EXIT_VALIDATION);
+    this.name = 'ChromiumMissingError';
+  }
+}
+
+export interface PdfAttachment {
+  name: string;
+  bytes: Uint8Array;
+  mimeType: string;
+  description: string;
+  /** How the file relates to the document (PDF/A-3 AFRelationship): Source for the basis, Data for the results. */
+  relationship: 'Source' | 'Data' | 'Supplement';
+}
+
+export interface PdfMeta {
+  title: string;
+  documentNumber: string;
+  revision: string;
+  status: string;
+  /** The preparer (document.sign-off.prepared). */
+  author: string;
+  subject: string;
+  keywords: string[];
+  paper: 'A4' | 'Letter';
+  /** CreationDate and ModDate of the PDF, and the date in the footer (UTC day). */
+  date: Date;
+  /** BCP 47 language of the document; default "en". */
+  language?: string;
+  attachments?: PdfAttachment[];
+}
+
+export interface PdfPrinter {
+  /** Prints a page (file path or file: URL) to PDF bytes. */
+  print(htmlPathOrUrl: string, meta: PdfMeta): Promise<Uint8Array>;
+  /** Version of the Chromium in use, e.g. "156.0.8078.114". */
+  readonly chromiumVersion: string;
+}
+
+export interface PrinterOptions {
+  /** Pages printing at once (default 2). */
+  pages?: number;
+  /** Chromium binary (default: findChromium()). */
+  executablePath?: string;
+  /** Longest wait for one page to load and draw its charts, ms (default 60 000). */
+  timeoutMs?: number;
+  /** Told of each request the page tried to make and that was refused. */
+  onBlockedRequest?: (url: string) => void;
+}
+
+/** Paper size and margins, mm. The header and footer stand in the top and bottom margins. */
+const PAPER = {
+  A4: { width: 210, height: 297 },
+  Letter: { width: 215.9, height: 279.4 },
+} as const;
+const MARGIN_MM = { top: 20, bottom: 18, side: 16 };
+const CSS_PX_PER_MM = 96 / 25.4;
+const DEVICE_SCALE = 2;
+
+export function escapeHtml(text: string): string {
+  return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+}
+
+function isoDay(date: Date): string {
+  return date.toISOString().slice(0, 10);
+}
+
+/** Inline style of both bands: Chromium renders them apart from the page, without its CSS. */
+const BAND_STYLE = [
+  "font-family: 'DejaVu Sans', 'Liberation Sans', Arial, sans-serif",
+  'font-size: 7.5pt',
+  'line-height: 1.2',
+  'color: #333',
+  'width: 100%',
+  `margin: 0 ${MARGIN_MM.side}mm`,
+  'display: flex',
+  'justify-content: space-between',
+  'gap: 6mm',
+  '-webkit-print-color-adjust: exact',
+].join('; ');
+const CELL_STYLE = 'white-space: nowrap; overflow: hidden; text-overflow: ellipsis';
+
+/** The running header: document number and title left, revision and status right. */
+export function headerTemplate(meta: PdfMeta): string {
+  return (
+    `<div style="${BAND_STYLE}; border-bottom: 0.5pt solid #888; padding-bottom: 1.2mm">` +
+    `<span style="${CELL_STYLE}">${escapeHtml(meta.documentNumber)} · ${escapeHtml(meta.title)}</span>` +
+    `<span style="white-space: nowrap">Rev ${escapeHtml(meta.revision)} · ${escapeHtml(meta.status)}</span>` +
+    '</div>'
+  );
+}
+
+/** The running footer: number, revision, status and date left, "page X of Y" right. */
+export function footerTemplate(meta: PdfMeta): string {
+  return (
+    `<div style="${BAND_STYLE}; border-top: 0.5pt solid #888; padding-top: 1.2mm">` +
+    `<span style="${CELL_STYLE}">${escapeHtml(meta.documentNumber)} rev ${escapeHtml(meta.revision)}, ${escapeHtml(meta.status)}, ${isoDay(meta.date)}</span>` +
+    '<span style="white-space: nowrap">page <span class="pageNumber"></span> of <span class="totalPages"></span></span>' +
+    '</div>'
+  );
+}
+
+/** The properties of the PDF of a design-basis document, from its basis and results. */
+export function documentPdfMeta(
+  { basis, results }: { basis: DesignBasis; results: Results },
+  options: { date: Date; basisYaml?: Uint8Array; resultsJson?: Uint8Array },
+): PdfMeta {
+  const d = basis.document;
+  const attachments: PdfAttachment[] = [];
+  if (options.basisYaml) {
+    attachments.push({ name: 'basis.yaml', bytes: options.basisYaml, mimeType: 'application/yaml', description: `design basis ${d.number} rev ${d.revision} as sealed`, relationship: 'Source' });
+  }
+  if (options.resultsJson) {
+    attachments.push({ name: 'results.json', bytes: options.resultsJson, mimeType: 'application/json', description: `calculated results of ${d.number} rev ${d.revision}`, relationship: 'Data' });
+  }
+  const technology = results.technology;
+  return {
+    title: d.title,
+    documentNumber: d.number,
+    revision: d.revision,
+    status: d.status,
+    author: d.signOff.prepared?.name ?? '',
+    subject: `Design-basis calculation: ${technology.name}, ${technology.mode} mode; ${d.client}, ${d.site}`,
+    keywords: ['design basis', d.number, `revision ${d.revision}`, d.status, technology.name, `${technology.mode} mode`, d.client, d.site],
+    paper: d.paper,
+    date: options.date,
+    attachments,
+  };
+}
+
+/** Sets the document properties, dates and attachments of a printed PDF. */
+export async function finishPdf(printed: Uint8Array, meta: PdfMeta): Promise<Uint8Array> {
+  const pdf = await PDFDocument.load(printed, { updateMetadata: false });
+  const tool = `cellbasis ${toolVersion()}`;
+  pdf.setTitle(meta.title, { showInWindowTitleBar: true });
+  pdf.setAuthor(meta.author);
+  pdf.setSubject(meta.subject);
+  pdf.setKeywords(meta.keywords);
+  pdf.setCreator(tool);
+  pdf.setProducer(tool);
+  pdf.setLanguage(meta.language ?? 'en');
+  pdf.setCreationDate(meta.date);
+  pdf.setModificationDate(meta.date);
+  for (const file of meta.attachments ?? []) {
+    await pdf.attach(file.bytes, file.name, {
+      mimeType: file.mimeType,
+      description: file.description,
+      creationDate: meta.date,
+      modificationDate: meta.date,
+      afRelationship: AFRelationship[file.relationship],
+    });
+  }
+  return pdf.save({ useObjectStreams: false });
+}
+
+function pageUrl(htmlPathOrUrl: string): string {
+  if (/^file:/i.test(htmlPathOrUrl)) return htmlPathOrUrl;
+  if (/^[a-z][a-z0-9+.-]*:\/\//i.test(htmlPathOrUrl)) throw new UserError(`pdf: ${htmlPathOrUrl}: only local files are printed (network requests are blocked)`);
+  const path = resolve(htmlPathOrUrl);
+  if (!existsSync(path)) throw new UserError(`pdf: ${htmlPathOrUrl}: no such file`);
+  return pathToFileURL(path).href;
+}
+
+/** Loads a page and waits until its fonts and charts are drawn. */
+async function loadForPrint(page: Page, url: string, timeoutMs: number): Promise<void> {
+  await page.goto(url, { waitUntil: 'load', timeout: timeoutMs });
+  await page.evaluate(() => document.fonts.ready.then(() => undefined));
+  const hasCharts = await page.evaluate(() => document.documentElement.hasAttribute('data-charts-ready') || document.querySelector('canvas') !== null);
+  if (!hasCharts) return;
+  try {
+    await page.waitForFunction(() => document.documentElement.dataset.chartsReady === 'true', undefined, { timeout: timeoutMs });
+  } catch {
+    throw new UserError(`pdf: ${url}: the charts did not report ready (<html data-charts-ready="true">) within ${Math.round(timeoutMs / 1000)} s`, EXIT_VALIDATION);
+  }
+}
+
+/** Waiting list of a fixed number of pages. */
+class PagePool {
+  private readonly idle: Page[] = [];
+  private readonly waiting: ((page: Page) => void)[] = [];
+  private created = 0;
+
+  constructor(
+    private readonly context: BrowserContext,
+    private readonly size: number,
+  ) {}
+
+  async acquire(): Promise<Page> {
+    const idle = this.idle.pop();
+    if (idle) return idle;
+    if (this.created < this.size) {
+      this.created += 1;
+      try {
+        return await this.context.newPage();
+      } catch (error) {
+        this.created -= 1;
+        throw error;
+      }
+    }
+    return new Promise((resolve) => this.waiting.push(resolve));
+  }
+
+  release(page: Page): void {
+    const next = this.waiting.shift();
+    if (next) next(page);
+    else this.idle.push(page);
+  }
+
+  /** A page that failed is closed and replaced by a fresh one for whoever waits. */
+  async discard(page: Page): Promise<void> {
+    await page.close().catch(() => undefined);
+    this.created -= 1;
+    const next = this.waiting.shift();
+    if (next) this.acquire().then(next, () => this.waiting.unshift(next));
+  }
+}
+
+async function openBrowser(options: PrinterOptions): Promise<Browser> {
+  const executablePath = options.executablePath ?? findChromium();
+  if (executablePath === null) throw new ChromiumMissingError();
+  try {
+    return await chromium.launch({ executablePath, args: CHROMIUM_ARGS, headless: true, timeout: options.timeoutMs ?? 60_000 });
+  } catch (error) {
+    throw new UserError(`pdf: Chromium (${executablePath}) did not start: ${(error as Error).message.split('\n')[0]}`, EXIT_VALIDATION);
+  }
+}
+
+/**
+ * Runs `work` with a printer on one Chromium, closed when `work` settles (also when it throws).
+ * Throws ChromiumMissingError when there is no Chromium.
+ */
+export async function withPdfPrinter<T>(work: (printer: PdfPrinter) => Promise<T>, options: PrinterOptions = {}): Promise<T> {
+  const browser = await openBrowser(options);
+  const timeoutMs = options.timeoutMs ?? 60_000;
+  try {
+    const contexts = new Map<PdfMeta['paper'], { context: BrowserContext; pool: PagePool }>();
+    const poolFor = async (paper: PdfMeta['paper']) => {
+      let entry = contexts.get(paper);
+      if (!entry) {
+        const widthPx = Math.round((PAPER[paper].width - 2 * MARGIN_MM.side) * CSS_PX_PER_MM);
+        const heightPx = Math.round((PAPER[paper].height - MARGIN_MM.top - MARGIN_MM.bottom) * CSS_PX_PER_MM);
+        const context = await browser.newContext({
+          viewport: { width: widthPx, height: heightPx },
+          deviceScaleFactor: DEVICE_SCALE,
+          serviceWorkers: 'block',
+          reducedMotion: 'reduce',
+          colorScheme: 'light',
+          timezoneId: 'UTC',
+          locale: 'en-GB',
+        });
+        await context.route('**/*', (route) => {
+          const url = route.request().url();
+          if (/^(file|data):/i.test(url)) return route.continue();
+          options.onBlockedRequest?.(url);
+          return route.abort('blockedbyclient');
+        });
+        entry = { context, pool: new PagePool(context, Math.max(1, options.pages ?? 2)) };
+        contexts.set(paper, entry);
+      }
+      return entry.pool;
+    };
+    const printer: PdfPrinter = {
+      chromiumVersion: browser.version(),
+      async print(htmlPathOrUrl, meta) {
+        const url = pageUrl(htmlPathOrUrl);
+        const pool = await poolFor(meta.paper);
+        const page = await pool.acquire();
+        let printed: Buffer;
+        try {
+          await page.emulateMedia({ media: 'print' });
+          await loadForPrint(page, url, timeoutMs);
+          printed = await page.pdf({
+            format: meta.paper,
+            printBackground: true,
+            displayHeaderFooter: true,
+            headerTemplate: headerTemplate(meta),
+            footerTemplate: footerTemplate(meta),
+            margin: { top: `${MARGIN_MM.top}mm`, bottom: `${MARGIN_MM.bottom}mm`, left: `${MARGIN_MM.side}mm`, right: `${MARGIN_MM.side}mm` },
+            preferCSSPageSize: false,
+            outline: true,
+            tagged: true,
+          });
+        } catch (error) {
+          await pool.discard(page);
+          throw error;
+        }
+        pool.release(page);
+        return finishPdf(printed, meta);
+      },
+    };
+    return await work(printer);
+  } finally {
+    await browser.close().catch(() => undefined);
+  }
+}

@@ -1,0 +1,110 @@
+// The PDF printer on a page of its own: paper, running header and footer on every page,
+// document properties and dates, attachments, charts waited for, network refused.
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, expect, it } from 'vitest';
+import { PDFDocument } from 'pdf-lib';
+import { footerTemplate, headerTemplate, withPdfPrinter, type PdfMeta } from '../../lib/publish/pdf.ts';
+import { toolVersion } from '../../lib/cli/version.ts';
+import { announceChromiumSkip, describeWithChromium } from './chromium.ts';
+import { compact, pageTexts, pdfAttachments, pdfInfo } from './pdf-inspect.ts';
+
+announceChromiumSkip('the PDF printer tests');
+
+const dir = mkdtempSync(join(tmpdir(), 'cellbasis-pdf-'));
+
+function page(body: string, htmlAttributes = ''): string {
+  const path = join(dir, `page-${Math.random().toString(36).slice(2)}.html`);
+  writeFileSync(path, `<!doctype html><html lang="en" ${htmlAttributes}><head><meta charset="utf-8"><title>t</title></head><body>${body}</body></html>`);
+  return path;
+}
+
+const long = Array.from({ length: 5 }, (_, i) => `<h1>Section ${i + 1}</h1><p style="height: 250mm">text ${i + 1}</p>`).join('');
+
+const meta: PdfMeta = {
+  title: 'Stack <design> basis & "more"',
+  documentNumber: 'DB-X-001',
+  revision: 'B',
+  status: 'issued for review',
+  author: 'A. Engineer',
+  subject: 'Design-basis calculation: test',
+  keywords: ['design basis', 'DB-X-001'],
+  paper: 'Letter',
+  date: new Date('2026-11-30T00:00:00Z'),
+  attachments: [{ name: 'basis.yaml', bytes: Buffer.from('a: 1\n'), mimeType: 'application/yaml', description: 'the basis', relationship: 'Source' }],
+};
+
+it('escapes the user text in the header and footer templates and styles them inline', () => {
+  const header = headerTemplate(meta);
+  expect(header).toContain('Stack &lt;design&gt; basis &amp; &quot;more&quot;');
+  expect(header).toMatch(/^<div style="[^"]*font-size: 7.5pt/);
+  expect(footerTemplate(meta)).toContain('<span class="pageNumber"></span> of <span class="totalPages"></span>');
+  expect(footerTemplate(meta)).toContain('DB-X-001 rev B, issued for review, 2026-11-30');
+});
+
+describeWithChromium('PDF printer', () => {
+  let pdf: Uint8Array;
+  const blocked: string[] = [];
+
+  beforeAll(async () => {
+    const html = page(`<link rel="stylesheet" href="https://example.invalid/a.css"><img src="http://example.invalid/i.png">${long}`);
+    pdf = await withPdfPrinter((printer) => printer.print(html, meta), { onBlockedRequest: (url) => blocked.push(url) });
+  });
+
+  it('prints every page with the running header and footer, on the paper asked for', async () => {
+    const doc = await PDFDocument.load(pdf);
+    expect(doc.getPageCount()).toBeGreaterThan(1);
+    const { width, height } = doc.getPage(0).getSize();
+    expect([Math.round(width), Math.round(height)]).toEqual([612, 792]); // Letter, 8.5 × 11 in
+    const texts = await pageTexts(pdf);
+    expect(texts.length).toBe(doc.getPageCount());
+    texts.forEach((t, i) => {
+      const words = compact(t);
+      for (const field of ['DB-X-001', 'Stack <design> basis & "more"', 'Rev B', 'issued for review', '2026-11-30', `page ${i + 1} of ${texts.length}`]) {
+        expect(words, `page ${i + 1}: ${field}`).toContain(compact(field));
+      }
+    });
+    expect(compact(texts[2]!)).toContain('Section3');
+  });
+
+  it('sets the document properties and the dates from the meta, never the clock', async () => {
+    const info = await pdfInfo(pdf);
+    expect(info).toMatchObject({
+      title: meta.title,
+      author: 'A. Engineer',
+      subject: 'Design-basis calculation: test',
+      keywords: 'design basis DB-X-001',
+      creator: `cellbasis ${toolVersion()}`,
+      producer: `cellbasis ${toolVersion()}`,
+      creationDate: 'D:20261130000000Z',
+      modDate: 'D:20261130000000Z',
+    });
+    const files = await pdfAttachments(pdf);
+    expect([...files.keys()]).toEqual(['basis.yaml']);
+    expect(files.get('basis.yaml')!.bytes.toString()).toBe('a: 1\n');
+    expect(files.get('basis.yaml')!.creationDate).toBe('D:20261130000000Z');
+    expect(Buffer.from(pdf).toString('latin1')).toMatch(/\/Outlines/);
+  });
+
+  it('refuses every request that is not to a local file', () => {
+    expect(blocked.sort()).toEqual(['http://example.invalid/i.png', 'https://example.invalid/a.css']);
+  });
+
+  it('waits for the charts to report ready, and prints the same bytes for the same page', async () => {
+    const charts = page(
+      `<canvas id="c" width="200" height="100"></canvas>${long}<script>setTimeout(() => { document.body.insertAdjacentHTML('afterbegin', '<p>charts drawn</p>'); document.documentElement.dataset.chartsReady = 'true'; }, 400);</script>`,
+      'data-charts-ready="false"',
+    );
+    const [a, b] = await withPdfPrinter((printer) => Promise.all([printer.print(charts, meta), printer.print(charts, meta)]), { pages: 2 });
+    expect(compact((await pageTexts(a))[0]!)).toContain('chartsdrawn');
+    expect(Buffer.from(a).equals(Buffer.from(b))).toBe(true);
+  });
+
+  it('says so when the charts never report ready', async () => {
+    const stuck = page('<canvas></canvas>', 'data-charts-ready="false"');
+    await expect(withPdfPrinter((printer) => printer.print(stuck, meta), { timeoutMs: 1500 })).rejects.toThrow(/charts did not report ready/);
+  });
+});
+
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
