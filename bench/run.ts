@@ -4,11 +4,13 @@
  */
 import { benchThermo } from './thermo.ts';
 import { benchEquilibrium } from './equilibrium.ts';
+import { benchCalc } from './calc.ts';
 import { printTable, type Row } from './measure.ts';
 
 const sections: Record<string, () => Promise<Row[]> | Row[]> = {
   thermo: benchThermo,
   equilibrium: benchEquilibrium,
+  calc: () => benchCalc([10, 100, 500]),
 };
 
 const wanted = process.argv.slice(2).filter((a) => !a.startsWith('-'));
