@@ -93,6 +93,10 @@ export interface ResultChange {
   delta: number | null;
   /** delta / |old|, null when either is null or old is 0. */
   relative: number | null;
+  /** As the document writes them: "0.9286 V", "0.9340 V", "+5.4 mV, +0.58 %" ("" when either is none). */
+  oldText: string;
+  newText: string;
+  changeText: string;
   text: string;
 }
 
@@ -263,8 +267,11 @@ function resultChanges(a: Results, b: Results): ResultChange[] {
     if (old !== null && next !== null && sameWithinRounding(old, next)) continue;
     const delta = old !== null && next !== null ? next - old : null;
     const relative = delta !== null && old !== 0 ? delta / Math.abs(old!) : null;
-    const text = `${q.label} ${formatValue(q, old)} → ${formatValue(q, next)}${delta === null ? '' : ` (${formatChange(q, delta, relative)})`}`;
-    out.push({ key: q.key, label: q.label, unit: q.unit, old, new: next, delta, relative, text });
+    const oldText = formatValue(q, old);
+    const newText = formatValue(q, next);
+    const changeText = delta === null ? '' : formatChange(q, delta, relative);
+    const text = `${q.label} ${oldText} → ${newText}${changeText ? ` (${changeText})` : ''}`;
+    out.push({ key: q.key, label: q.label, unit: q.unit, old, new: next, delta, relative, oldText, newText, changeText, text });
   }
   return out;
 }

@@ -5,7 +5,7 @@
  * named, so an audit can say what is wrong with a damaged manifest.
  */
 import { z } from 'zod';
-import { DOCUMENT_STATUSES } from '../basis/types.ts';
+import { DOCUMENT_STATUSES, type DesignBasis } from '../basis/types.ts';
 import { HASHED_FILES, type SealManifest } from './layout.ts';
 
 const hex64 = z.string().regex(/^[0-9a-f]{64}$/, 'a SHA-256 in lower-case hex');
@@ -69,4 +69,12 @@ export function parseManifest(bytes: Uint8Array): ParsedManifest {
     return { ok: false, problems: parsed.error.issues.map((i) => `manifest.json: ${i.path.length ? i.path.join('.') : '(root)'}: ${i.message}`) };
   }
   return { ok: true, manifest: parsed.data as SealManifest };
+}
+
+/** The signatories of a basis as a manifest records them, in the order prepared, checked, approved. */
+export function signOffOf(basis: DesignBasis): SealManifest['signOff'] {
+  return (['prepared', 'checked', 'approved'] as const).flatMap((role) => {
+    const person = basis.document.signOff[role];
+    return person ? [{ role, name: person.name, ...(person.date ? { date: person.date } : {}) }] : [];
+  });
 }

@@ -5,7 +5,7 @@
  * told which key it must be. Key files: PKCS#8 PEM private keys, SPKI PEM public keys, as
  * `cellbasis keygen` writes them.
  */
-import { createPrivateKey, createPublicKey, generateKeyPairSync, sign, verify, type KeyObject } from 'node:crypto';
+import { createHash, createPrivateKey, createPublicKey, generateKeyPairSync, sign, verify, type KeyObject } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { UserError } from '../errors.ts';
 
@@ -50,9 +50,14 @@ export function readPublicKey(path: string, display = path): KeyObject {
   return readKey(path, display, 'public');
 }
 
+/** The public key of a PEM text or key object (the public half of a private key). */
+function asPublic(key: string | KeyObject): KeyObject {
+  return typeof key !== 'string' && key.type === 'public' ? key : createPublicKey(key);
+}
+
 /** SPKI PEM of the public half of a key. */
 export function publicKeyPem(key: KeyObject): string {
-  return createPublicKey(key).export({ type: 'spki', format: 'pem' }).toString();
+  return asPublic(key).export({ type: 'spki', format: 'pem' }).toString();
 }
 
 /** The base64 signature of bytes, with a trailing newline, as manifest.sig holds it. */
@@ -60,10 +65,16 @@ export function signBytes(bytes: Uint8Array, privateKey: KeyObject): string {
   return `${sign(null, bytes, privateKey).toString('base64')}\n`;
 }
 
-/** Whether the text of manifest.sig is a valid signature of bytes by the key of the PEM. */
+/**
+ * Whether the text of manifest.sig is a valid signature of bytes by the key of the PEM. The text
+ * must be exactly what signBytes writes (canonical base64 and one newline), so no byte of the
+ * file can change without the check failing.
+ */
 export function verifyBytes(bytes: Uint8Array, signatureText: string, publicPem: string): boolean {
-  const text = signatureText.trim();
+  const text = signatureText.endsWith('\n') ? signatureText.slice(0, -1) : signatureText;
   if (!/^[A-Za-z0-9+/]+={0,2}$/.test(text)) return false;
+  const signature = Buffer.from(text, 'base64');
+  if (signature.toString('base64') !== text) return false;
   let key: KeyObject;
   try {
     key = createPublicKey(publicPem);
@@ -71,13 +82,13 @@ export function verifyBytes(bytes: Uint8Array, signatureText: string, publicPem:
     return false;
   }
   if (key.asymmetricKeyType !== 'ed25519') return false;
-  return verify(null, bytes, key, Buffer.from(text, 'base64'));
+  return verify(null, bytes, key, signature);
 }
 
 /** Whether two PEM public keys are the same key (compared as DER, so line breaks do not matter). */
 export function sameKey(a: string | KeyObject, b: string | KeyObject): boolean {
   try {
-    const der = (k: string | KeyObject) => createPublicKey(k).export({ type: 'spki', format: 'der' });
+    const der = (k: string | KeyObject) => asPublic(k).export({ type: 'spki', format: 'der' });
     return der(a).equals(der(b));
   } catch {
     return false;
@@ -91,4 +102,9 @@ export function newKeyPair(): { privatePem: string; publicPem: string } {
     privatePem: privateKey.export({ type: 'pkcs8', format: 'pem' }).toString(),
     publicPem: publicKey.export({ type: 'spki', format: 'pem' }).toString(),
   };
+}
+
+/** A short name of a public key: the first 16 hex digits of the SHA-256 of its SPKI DER. */
+export function keyFingerprint(key: string | KeyObject): string {
+  return createHash('sha256').update(asPublic(key).export({ type: 'spki', format: 'der' })).digest('hex').slice(0, 16);
 }

@@ -13,9 +13,12 @@ import { checkCommand } from './commands/check.ts';
 import { schemaCommand } from './commands/schema.ts';
 import { calcCommand } from './commands/calc.ts';
 import { hazardsCommand } from './commands/hazards.ts';
+import { auditCommand } from './commands/audit.ts';
+import { compareCommand } from './commands/compare.ts';
+import { keygenCommand } from './commands/keygen.ts';
 import { toolVersion } from './version.ts';
 
-export const COMMANDS: Command[] = [reactionCommand, speciesCommand, equilibriumCommand, steamLimitCommand, newCommand, checkCommand, schemaCommand, calcCommand, hazardsCommand];
+export const COMMANDS: Command[] = [reactionCommand, speciesCommand, equilibriumCommand, steamLimitCommand, newCommand, checkCommand, schemaCommand, calcCommand, hazardsCommand, auditCommand, compareCommand, keygenCommand];
 
 function overview(): string {
   const width = Math.max(...COMMANDS.map((c) => c.name.length)) + 2;

@@ -21,11 +21,12 @@
  *     or a `data-charts-ready` attribute on <html>, until `<html data-charts-ready="true">`
  *     (the site's chart script sets it once every chart is drawn);
  *   - prints `meta.paper` (A4 or Letter) with its own margins (a page's CSS @page size is not
- *     used), a running header (document number, title, revision, status) and footer (number,
+ *     used, and @page margin boxes of the page's print CSS are switched off), a running header (document number, title, revision, status) and footer (number,
  *     revision, status, date, "page X of Y") on every page, an outline from the headings and a
  *     tagged (accessible) PDF;
  *   - sets the document properties with pdf-lib: title (shown in the viewer's title bar), author,
- *     subject, keywords, language, creator and producer ("cellbasis <version>"), CreationDate and
+ *     subject, keywords, language, creator ("cellbasis <version>") and producer (the same and the
+ *     Chromium version, "cellbasis 0.1.0 (Chromium 156.0.8078.114)"), CreationDate and
  *     ModDate = `meta.date` (the seal date, never the clock), and attaches `meta.attachments`
  *     (a sealed document carries its basis YAML and results JSON).
  * The output has no /ID and no XMP metadata, so the same HTML and meta give the same bytes on
@@ -39,7 +40,7 @@ import { accessSync, constants, existsSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
-import { AFRelationship, PDFDocument } from 'pdf-lib';
+import { AFRelationship, PDFArray, PDFDict, PDFDocument, PDFHexString, PDFName, PDFRawStream, PDFString, decodePDFRawStream } from 'pdf-lib';
 import type { DesignBasis } from '../basis/types.ts';
 import type { Results } from '../plant/results-schema.ts';
 import { toolVersion } from '../cli/version.ts';
@@ -205,16 +206,20 @@ export function documentPdfMeta(
   };
 }
 
+/** The producer a PDF names: the cellbasis version, and the Chromium that printed it. */
+export function producerName(chromiumVersion: string): string {
+  return `cellbasis ${toolVersion()} (Chromium ${chromiumVersion})`;
+}
+
 /** Sets the document properties, dates and attachments of a printed PDF. */
-export async function finishPdf(printed: Uint8Array, meta: PdfMeta): Promise<Uint8Array> {
+export async function finishPdf(printed: Uint8Array, meta: PdfMeta, chromiumVersion: string): Promise<Uint8Array> {
   const pdf = await PDFDocument.load(printed, { updateMetadata: false });
-  const tool = `cellbasis ${toolVersion()}`;
   pdf.setTitle(meta.title, { showInWindowTitleBar: true });
   pdf.setAuthor(meta.author);
   pdf.setSubject(meta.subject);
   pdf.setKeywords(meta.keywords);
-  pdf.setCreator(tool);
-  pdf.setProducer(tool);
+  pdf.setCreator(`cellbasis ${toolVersion()}`);
+  pdf.setProducer(producerName(chromiumVersion));
   pdf.setLanguage(meta.language ?? 'en');
   pdf.setCreationDate(meta.date);
   pdf.setModificationDate(meta.date);
@@ -230,6 +235,27 @@ export async function finishPdf(printed: Uint8Array, meta: PdfMeta): Promise<Uin
   return pdf.save({ useObjectStreams: false });
 }
 
+/** What a finished PDF says about itself, as the audit compares it with the manifest. */
+export interface PdfProperties {
+  creationDate: Date | undefined;
+  modificationDate: Date | undefined;
+  producer: string | undefined;
+  /** Embedded files by name. */
+  attachments: Map<string, Uint8Array>;
+}
+
+export async function readPdfProperties(bytes: Uint8Array): Promise<PdfProperties> {
+  const pdf = await PDFDocument.load(bytes, { updateMetadata: false });
+  const attachments = new Map<string, Uint8Array>();
+  const list = pdf.catalog.lookupMaybe(PDFName.of('Names'), PDFDict)?.lookupMaybe(PDFName.of('EmbeddedFiles'), PDFDict)?.lookupMaybe(PDFName.of('Names'), PDFArray);
+  for (let i = 0; list && i + 1 < list.size(); i += 2) {
+    const name = list.lookup(i);
+    const stream = list.lookup(i + 1, PDFDict).lookupMaybe(PDFName.of('EF'), PDFDict)?.lookup(PDFName.of('F'));
+    if ((name instanceof PDFHexString || name instanceof PDFString) && stream instanceof PDFRawStream) attachments.set(name.decodeText(), decodePDFRawStream(stream).decode());
+  }
+  return { creationDate: pdf.getCreationDate(), modificationDate: pdf.getModificationDate(), producer: pdf.getProducer(), attachments };
+}
+
 function pageUrl(htmlPathOrUrl: string): string {
   if (/^file:/i.test(htmlPathOrUrl)) return htmlPathOrUrl;
   if (/^[a-z][a-z0-9+.-]*:\/\//i.test(htmlPathOrUrl)) throw new UserError(`pdf: ${htmlPathOrUrl}: only local files are printed (network requests are blocked)`);
@@ -238,9 +264,16 @@ function pageUrl(htmlPathOrUrl: string): string {
   return pathToFileURL(path).href;
 }
 
+/**
+ * The printer draws the running header and footer itself; margin boxes a page's own print CSS
+ * may declare (for printing from a browser) are switched off so that nothing is drawn twice.
+ */
+const NO_MARGIN_BOXES = `@page { ${['top-left', 'top-center', 'top-right', 'bottom-left', 'bottom-center', 'bottom-right'].map((box) => `@${box} { content: none; }`).join(' ')} }`;
+
 /** Loads a page and waits until its fonts and charts are drawn. */
 async function loadForPrint(page: Page, url: string, timeoutMs: number): Promise<void> {
   await page.goto(url, { waitUntil: 'load', timeout: timeoutMs });
+  await page.addStyleTag({ content: NO_MARGIN_BOXES });
   await page.evaluate(() => document.fonts.ready.then(() => undefined));
   const hasCharts = await page.evaluate(() => document.documentElement.hasAttribute('data-charts-ready') || document.querySelector('canvas') !== null);
   if (!hasCharts) return;
@@ -362,7 +395,7 @@ export async function withPdfPrinter<T>(work: (printer: PdfPrinter) => Promise<T
           throw error;
         }
         pool.release(page);
-        return finishPdf(printed, meta);
+        return finishPdf(printed, meta, browser.version());
       },
     };
     return await work(printer);

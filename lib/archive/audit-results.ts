@@ -1,0 +1,40 @@
+/**
+ * The sealed results against a recalculation of the sealed basis, field by field: each
+ * difference with its JSON path, the sealed and the recomputed value (numbers in full, with
+ * their relative difference). Numbers agreeing within rounding (tolerance.ts) are equal. The
+ * tool version is not a difference (a later cellbasis may audit an earlier seal; the audit
+ * notes it); the species-data hash is compared by the audit itself, once, not here.
+ */
+import type { Results } from '../plant/results-schema.ts';
+import { diffTrees, treeText, type Tree } from './tree-diff.ts';
+import { sameWithinRounding } from './tolerance.ts';
+
+/** At most this many differences are listed; the count says how many more there are. */
+export const MAX_LISTED = 25;
+
+const NOT_COMPARED = new Set(['tool.version', 'speciesData_sha256']);
+
+function valueText(value: Tree | undefined): string {
+  return typeof value === 'number' ? String(value) : treeText(value);
+}
+
+export interface ResultsComparison {
+  /** Total number of differences. */
+  count: number;
+  /** The first MAX_LISTED, one line each: "headline.meanNernst_V: sealed 0.93, recomputed 0.94 (relative 1.1e-2)". */
+  lines: string[];
+}
+
+export function compareResults(sealed: unknown, recomputed: Results): ResultsComparison {
+  const all = diffTrees(sealed as Tree, recomputed as unknown as Tree, { sameNumber: sameWithinRounding, skip: (p) => NOT_COMPARED.has(p) });
+  const lines = all.slice(0, MAX_LISTED).map((d) => {
+    const where = d.path === '' ? '(the whole file)' : d.path;
+    if (d.kind === 'added') return `${where}: not in the sealed results, recomputed ${valueText(d.new)}`;
+    if (d.kind === 'removed') return `${where}: sealed ${valueText(d.old)}, not in the recomputed results`;
+    const relative =
+      typeof d.old === 'number' && typeof d.new === 'number' && d.old !== 0 ? ` (relative difference ${((d.new - d.old) / Math.abs(d.old)).toExponential(2)})` : '';
+    return `${where}: sealed ${valueText(d.old)}, recomputed ${valueText(d.new)}${relative}`;
+  });
+  if (all.length > MAX_LISTED) lines.push(`… and ${all.length - MAX_LISTED} more`);
+  return { count: all.length, lines };
+}

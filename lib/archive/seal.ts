@@ -1,0 +1,265 @@
+/**
+ * Sealing a revision: `sealRevision(options)` writes projects/<id>/sealed/<rev>/ (layout.ts)
+ * from the working basis, or refuses and changes nothing.
+ *
+ * Refused (UserError; exit 1 for a basis with errors or a damaged archive, 2 for the request)
+ * when the status is not one a revision is issued with (draft is the working state; superseded
+ * follows from a later seal), the revision exists already or does not follow the last sealed
+ * one (revisions.ts), the seal date lies before the last revision's, the basis has errors, or
+ * Chromium is missing (a sealed revision must be complete, PDF included).
+ *
+ * Otherwise, holding the seal lock (sealed-folder.ts), it removes temporary folders that killed
+ * seals left, writes every file into `.tmp-<rev>-<pid>` beside the revisions (each flushed to
+ * disk), and renames that folder to <rev> as the last step: whenever the process stops, the
+ * revision is either complete or absent. The working basis is only read.
+ *
+ * The files: basis.yaml (sealed-basis.ts: the working text with revision and status set),
+ * results.json (calculate() of that basis), document.html (the document as one self-contained
+ * file, by `options.render`), document.pdf (lib/publish/pdf.ts, with the basis and results
+ * attached) and manifest.json (manifest.ts), and with a key manifest.sig (signature.ts). Every
+ * timestamp is the seal date (seal-date.ts).
+ *
+ * For tests of interruption, `pauseAt` names a step (SEAL_STEPS) at which the seal stops and
+ * waits until it is killed; the CLI takes it from CELLBASIS_SEAL_PAUSE.
+ */
+import { existsSync, mkdirSync, readFileSync, rmSync, renameSync, rmdirSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import type { KeyObject } from 'node:crypto';
+import { loadBasisText } from '../basis/load.ts';
+import { BasisError } from '../basis/diagnostics.ts';
+import { projectBasisPath } from '../basis/projects.ts';
+import { DOCUMENT_STATUSES, type DesignBasis, type Diagnostic, type DocumentStatus } from '../basis/types.ts';
+import { calculate } from '../plant/calculate.ts';
+import type { Results } from '../plant/results-schema.ts';
+import { speciesDataHash } from '../thermo/species-data.ts';
+import { toolVersion } from '../cli/version.ts';
+import { decodeBasisBytes } from '../basis/source-text.ts';
+import { documentPdfMeta, findChromium, ChromiumMissingError, withPdfPrinter } from '../publish/pdf.ts';
+import { EXIT_USAGE, EXIT_VALIDATION, UserError } from '../errors.ts';
+import { SEALED_FILES, sealedDir, sealedRoot, type SealManifest } from './layout.ts';
+import { checkFollows, successors } from './revisions.ts';
+import { acquireSealLock, lastRevision, readSealedFolder, tempDirName, type SealedFolder } from './sealed-folder.ts';
+import { readSealedRevision, type SealedRevision } from './sealed-revision.ts';
+import { sealedBasisText } from './sealed-basis.ts';
+import { resolveSealDate, type SealDate } from './seal-date.ts';
+import { manifestBytes, signOffOf } from './manifest.ts';
+import { sha256Hex } from './hash.ts';
+import { publicKeyPem, readPrivateKey, signBytes } from './signature.ts';
+import { syncFolder, writeFileDurably } from './durable-write.ts';
+
+/** The statuses a revision may be sealed with. */
+export const SEALABLE_STATUSES: readonly DocumentStatus[] = DOCUMENT_STATUSES.filter((s) => s !== 'draft' && s !== 'superseded');
+
+/** The steps of a seal, in order, where `pauseAt` may stop it. */
+export const SEAL_STEPS = ['locked', 'temp-created', 'basis-written', 'results-written', 'html-written', 'pdf-written', 'manifest-written', 'renamed'] as const;
+export type SealStep = (typeof SEAL_STEPS)[number];
+
+/** What the document renderer is given for the revision being sealed. */
+export interface SealDocumentInput {
+  basis: DesignBasis;
+  results: Results;
+  /** The revision being sealed: number, status, date, note, sign-off, previous revision. */
+  manifest: SealManifest;
+  /** The revisions sealed before it, in issue order. */
+  previous: SealedRevision[];
+  /** The text of the sealed basis. */
+  basisText: string;
+}
+
+/** Renders the sealed document as one self-contained HTML file. */
+export type RenderSealedHtml = (input: SealDocumentInput) => Promise<string> | string;
+
+export interface SealOptions {
+  cwd: string;
+  project: string;
+  revision: string;
+  status: string;
+  note?: string;
+  /** Private key file (PKCS#8 PEM), relative to cwd. */
+  keyPath?: string;
+  /** --date, YYYY-MM-DD. */
+  date?: string;
+  /** Environment (SOURCE_DATE_EPOCH). */
+  env?: Record<string, string | undefined>;
+  now?: () => Date;
+  render: RenderSealedHtml;
+  /** Told each warning of the basis. */
+  warn?: (diagnostic: Diagnostic) => void;
+  /** Stop at this step and wait to be killed (tests). */
+  pauseAt?: string;
+  onPause?: (step: SealStep) => void;
+}
+
+export interface SealOutcome {
+  /** projects/<id>/sealed/<rev>. */
+  display: string;
+  manifest: SealManifest;
+  manifestSha256: string;
+  signed: boolean;
+  sealDate: SealDate;
+  /** Stale temporary folders of killed seals that were removed. */
+  removedTemporary: string[];
+}
+
+function checkStatus(status: string): DocumentStatus {
+  if (status === 'superseded') {
+    throw new UserError('seal: a revision is not sealed as superseded; it becomes superseded when the next revision is sealed', EXIT_USAGE);
+  }
+  if (!(SEALABLE_STATUSES as readonly string[]).includes(status)) {
+    throw new UserError(`seal: --status must be one of ${SEALABLE_STATUSES.map((s) => `"${s}"`).join(', ')}, got "${status}"${status === 'draft' ? ' (draft is the working basis, never sealed)' : ''}`, EXIT_USAGE);
+  }
+  return status as DocumentStatus;
+}
+
+/** Refuses a revision that exists or does not follow the last sealed one. */
+function checkNext(folder: SealedFolder, revision: string, display: string): void {
+  if (folder.revisions.includes(revision)) {
+    const next = successors(lastRevision(folder)).join(' or ');
+    throw new UserError(`seal: revision ${revision} of ${display} is sealed already (${display}/sealed/${revision}); a sealed revision is never rewritten: seal the next revision, ${next}`, EXIT_USAGE);
+  }
+  try {
+    checkFollows(lastRevision(folder), revision);
+  } catch (error) {
+    throw new UserError(`seal: ${display}: ${(error as Error).message}`, EXIT_USAGE);
+  }
+}
+
+async function pause(options: SealOptions, step: SealStep): Promise<void> {
+  if (options.pauseAt !== step) return;
+  options.onPause?.(step);
+  await new Promise(() => setInterval(() => undefined, 1 << 30));
+}
+
+/** The working basis: its bytes as read once, validated; errors throw a BasisError. */
+function readWorkingBasis(options: SealOptions): { text: string; basis: DesignBasis; display: string } {
+  const path = projectBasisPath(options.project, options.cwd);
+  const display = `projects/${options.project}/basis.yaml`;
+  if (!existsSync(path)) throw new UserError(`seal: ${display}: no such file (create the project with cellbasis new ${options.project})`, EXIT_USAGE);
+  const bytes = readFileSync(path);
+  const loaded = loadBasisText(bytes, display, options.project);
+  for (const w of loaded.warnings) options.warn?.(w);
+  if (!loaded.ok) throw new BasisError(loaded.errors, loaded.warnings);
+  const decoded = decodeBasisBytes(bytes, display);
+  if (!decoded.ok) throw new BasisError(decoded.errors);
+  return { text: decoded.text, basis: loaded.basis, display };
+}
+
+/** The sealed basis and its results; a calculation error is reported against the working file. */
+function sealedContent(working: { text: string; basis: DesignBasis }, options: SealOptions, status: DocumentStatus): { text: string; basis: DesignBasis; results: Results } {
+  const text = sealedBasisText(working.text, options.revision, status);
+  const loaded = loadBasisText(text, `projects/${options.project}/sealed/${options.revision}/${SEALED_FILES.basis}`, options.project);
+  if (!loaded.ok) throw new BasisError(loaded.errors, loaded.warnings);
+  try {
+    return { text, basis: loaded.basis, results: calculate(loaded.basis) };
+  } catch (error) {
+    if (error instanceof BasisError) calculate(working.basis);
+    throw error;
+  }
+}
+
+export async function sealRevision(options: SealOptions): Promise<SealOutcome> {
+  const display = `projects/${options.project}`;
+  const status = checkStatus(options.status);
+  const sealDate = resolveSealDate(options.date, options.env ?? {}, options.now);
+  const key: KeyObject | undefined = options.keyPath ? readPrivateKey(resolve(options.cwd, options.keyPath), options.keyPath) : undefined;
+  checkNext(readSealedFolder(options.cwd, options.project), options.revision, display);
+  const working = readWorkingBasis(options);
+  if (findChromium() === null) throw new ChromiumMissingError();
+
+  const root = sealedRoot(options.cwd, options.project);
+  const rootExisted = existsSync(root);
+  mkdirSync(root, { recursive: true });
+  let release: (() => void) | undefined;
+  let temp: string | undefined;
+  try {
+    release = acquireSealLock(root, display);
+    await pause(options, 'locked');
+    const folder = readSealedFolder(options.cwd, options.project);
+    checkNext(folder, options.revision, display);
+    const removedTemporary = folder.temporary;
+    for (const name of removedTemporary) rmSync(join(root, name), { recursive: true, force: true });
+
+    const previous = folder.revisions.map((rev) => readSealedRevision(options.cwd, options.project, rev));
+    const last = previous[previous.length - 1];
+    if (last && last.manifest.sealedOn > sealDate.day) {
+      throw new UserError(`seal: the seal date ${sealDate.day} is before ${last.manifest.sealedOn}, when revision ${last.revision} was sealed; revisions are sealed in date order`, EXIT_USAGE);
+    }
+    const content = sealedContent(working, options, status);
+
+    temp = join(root, tempDirName(options.revision, process.pid));
+    mkdirSync(temp);
+    await pause(options, 'temp-created');
+    const basisBytes = Buffer.from(content.text, 'utf8');
+    writeFileDurably(join(temp, SEALED_FILES.basis), basisBytes);
+    await pause(options, 'basis-written');
+    const resultsBytes = Buffer.from(`${JSON.stringify(content.results, null, 2)}\n`, 'utf8');
+    writeFileDurably(join(temp, SEALED_FILES.results), resultsBytes);
+    await pause(options, 'results-written');
+
+    const manifest: SealManifest = {
+      format: 'cellbasis-seal/1',
+      project: options.project,
+      documentNumber: content.basis.document.number,
+      title: content.basis.document.title,
+      revision: options.revision,
+      status,
+      note: options.note ?? '',
+      sealedOn: sealDate.day,
+      sealedAt: sealDate.at.toISOString(),
+      tool: { name: 'cellbasis', version: toolVersion() },
+      speciesData_sha256: speciesDataHash(),
+      files: {},
+      previous: last ? { revision: last.revision, manifest_sha256: sha256Hex(last.manifestBytes) } : null,
+      signOff: signOffOf(content.basis),
+      ...(key ? { publicKey: publicKeyPem(key) } : {}),
+    };
+    const html = await options.render({ basis: content.basis, results: content.results, manifest, previous, basisText: content.text });
+    const htmlPath = join(temp, SEALED_FILES.html);
+    writeFileDurably(htmlPath, html);
+    await pause(options, 'html-written');
+
+    const meta = documentPdfMeta({ basis: content.basis, results: content.results }, { date: sealDate.at, basisYaml: basisBytes, resultsJson: resultsBytes });
+    const { pdf, chromium } = await withPdfPrinter(async (printer) => ({ pdf: await printer.print(htmlPath, meta), chromium: printer.chromiumVersion }), { pages: 1 });
+    writeFileDurably(join(temp, SEALED_FILES.pdf), pdf);
+    await pause(options, 'pdf-written');
+
+    const files: Record<string, string> = {};
+    for (const [name, bytes] of [
+      [SEALED_FILES.basis, basisBytes],
+      [SEALED_FILES.results, resultsBytes],
+      [SEALED_FILES.html, Buffer.from(html, 'utf8')],
+      [SEALED_FILES.pdf, pdf],
+    ] as const) {
+      files[name] = sha256Hex(bytes);
+    }
+    const final: SealManifest = { ...manifest, files, pdf: { chromium } };
+    const bytes = manifestBytes(final);
+    writeFileDurably(join(temp, SEALED_FILES.manifest), bytes);
+    if (key) writeFileDurably(join(temp, SEALED_FILES.signature), signBytes(bytes, key));
+    syncFolder(temp);
+    await pause(options, 'manifest-written');
+
+    const target = sealedDir(options.cwd, options.project, options.revision);
+    try {
+      renameSync(temp, target);
+    } catch (error) {
+      const code = (error as NodeJS.ErrnoException).code;
+      if (code === 'ENOTEMPTY' || code === 'EEXIST') throw new UserError(`seal: revision ${options.revision} of ${display} appeared while sealing; nothing written`, EXIT_VALIDATION);
+      throw error;
+    }
+    temp = undefined;
+    syncFolder(root);
+    await pause(options, 'renamed');
+    return { display: `${display}/sealed/${options.revision}`, manifest: final, manifestSha256: sha256Hex(bytes), signed: key !== undefined, sealDate, removedTemporary };
+  } finally {
+    if (temp) rmSync(temp, { recursive: true, force: true });
+    release?.();
+    if (!rootExisted) {
+      try {
+        rmdirSync(root);
+      } catch {
+        // Not empty: a revision was sealed.
+      }
+    }
+  }
+}
