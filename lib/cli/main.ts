@@ -13,12 +13,14 @@ import { checkCommand } from './commands/check.ts';
 import { schemaCommand } from './commands/schema.ts';
 import { calcCommand } from './commands/calc.ts';
 import { hazardsCommand } from './commands/hazards.ts';
+import { buildCommand } from './commands/build.ts';
+import { serveCommand } from './commands/serve.ts';
 import { auditCommand } from './commands/audit.ts';
 import { compareCommand } from './commands/compare.ts';
 import { keygenCommand } from './commands/keygen.ts';
 import { toolVersion } from './version.ts';
 
-export const COMMANDS: Command[] = [reactionCommand, speciesCommand, equilibriumCommand, steamLimitCommand, newCommand, checkCommand, schemaCommand, calcCommand, hazardsCommand, auditCommand, compareCommand, keygenCommand];
+export const COMMANDS: Command[] = [reactionCommand, speciesCommand, equilibriumCommand, steamLimitCommand, newCommand, checkCommand, schemaCommand, calcCommand, hazardsCommand, auditCommand, compareCommand, keygenCommand, buildCommand, serveCommand];
 
 function overview(): string {
   const width = Math.max(...COMMANDS.map((c) => c.name.length)) + 2;

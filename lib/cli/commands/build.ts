@@ -1,0 +1,33 @@
+/**
+ * `cellbasis build [--out DIR]`: builds the design-basis site of every projects/<id>/basis.yaml
+ * and its sealed revisions into site/ (lib/publish/build.ts): all or nothing, the old site kept
+ * on any error. Exit 1 with every located problem when a basis or sealed revision is wrong.
+ */
+import { join, relative } from 'node:path';
+import type { Command } from '../command.ts';
+import { optionalString } from '../command.ts';
+import { listProjects } from '../../basis/projects.ts';
+import { UserError } from '../../errors.ts';
+import { buildSite } from '../../publish/build.ts';
+
+export const buildCommand: Command = {
+  name: 'build',
+  summary: 'build the design-basis documents of every project into site/ (atomically)',
+  usage: 'build [--out DIR]',
+  details:
+    'Renders each projects/<id>/basis.yaml as its working draft, each sealed revision as its own page, and the\n' +
+    'portfolio index, into a fresh folder that replaces site/ only when everything was written.\n' +
+    'Pages are reproducible: the draft date is SOURCE_DATE_EPOCH when set, else the latest sign-off date.',
+  positionals: [0, 0],
+  options: [{ name: 'out', type: 'string', value: 'DIR', description: 'write the site to DIR instead of site/' }],
+  async run(args, io) {
+    if (listProjects(io.cwd).length === 0) {
+      throw new UserError('build: no design bases under projects/ here; create one with cellbasis new ID --technology TECH');
+    }
+    const out = optionalString(args, 'out');
+    const report = await buildSite({ root: io.cwd, out: out === undefined ? join(io.cwd, 'site') : join(io.cwd, out) });
+    for (const w of report.warnings) io.err(`${w}\n`);
+    io.out(`built ${report.documents} document page${report.documents === 1 ? '' : 's'} and the index into ${relative(io.cwd, report.out) || '.'}/\n`);
+    return 0;
+  },
+};

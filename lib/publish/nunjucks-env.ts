@@ -1,0 +1,50 @@
+/**
+ * The one Nunjucks environment of the design documents, used by the Eleventy site (handed over
+ * with eleventyConfig.setLibrary('njk', ...)) and by renderDocumentHtml, so a sealed document and
+ * its site page are rendered by the same code. Autoescaping is on and undefined output throws;
+ * the only way to insert unescaped HTML is the `trusted` filter, which accepts nothing but the
+ * TrustedHtml values lib/report makes (KaTeX of our own LaTeX, chart JSON, CSS strings) and throws
+ * on any other value, user text included.
+ *
+ * Nunjucks is Eleventy's own copy (resolved from @11ty/eleventy), so the environment is of the
+ * version Eleventy drives; the few members used here are typed below.
+ */
+import { createRequire } from 'node:module';
+import { join } from 'node:path';
+import { isTrustedHtml } from '../report/trusted-html.ts';
+import { TEMPLATES_DIR } from './paths.ts';
+
+export interface NunjucksEnvironment {
+  render(name: string, context: object): string;
+  renderString(source: string, context: object): string;
+  addFilter(name: string, filter: (...args: never[]) => unknown): NunjucksEnvironment;
+}
+
+interface NunjucksModule {
+  Environment: new (loader: unknown, options: { autoescape: boolean; throwOnUndefined: boolean; trimBlocks: boolean; lstripBlocks: boolean }) => NunjucksEnvironment;
+  FileSystemLoader: new (paths: string[], options?: { noCache?: boolean }) => unknown;
+  runtime: { SafeString: new (html: string) => unknown };
+}
+
+const fromEleventy = createRequire(createRequire(import.meta.url).resolve('@11ty/eleventy'));
+const nunjucks = fromEleventy('nunjucks') as NunjucksModule;
+
+let shared: NunjucksEnvironment | undefined;
+
+function trusted(value: unknown): unknown {
+  if (!isTrustedHtml(value)) throw new Error(`the trusted filter was given ${typeof value === 'string' ? 'a plain string' : typeof value}; only HTML made by lib/report may be inserted unescaped`);
+  return new nunjucks.runtime.SafeString(value.html);
+}
+
+export function createEnvironment(): NunjucksEnvironment {
+  const loader = new nunjucks.FileSystemLoader([join(TEMPLATES_DIR, '_includes'), TEMPLATES_DIR]);
+  const env = new nunjucks.Environment(loader, { autoescape: true, throwOnUndefined: true, trimBlocks: true, lstripBlocks: true });
+  env.addFilter('trusted', trusted);
+  return env;
+}
+
+/** The shared environment of this process. */
+export function nunjucksEnvironment(): NunjucksEnvironment {
+  shared ??= createEnvironment();
+  return shared;
+}

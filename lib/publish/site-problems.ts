@@ -1,0 +1,32 @@
+/**
+ * Everything wrong with the projects of a site, collected over all of them before the build
+ * gives up, so that one run names every problem: basis diagnostics as file:line:col: path:
+ * message, problems of sealed revisions (manifest, results) as file: message. SiteError carries
+ * them to the command, which prints them one a line and exits 1.
+ */
+import { formatDiagnostic } from '../basis/diagnostics.ts';
+import type { Diagnostic } from '../basis/types.ts';
+import { EXIT_VALIDATION, UserError } from '../errors.ts';
+
+export class SiteProblems {
+  readonly errors: string[] = [];
+  readonly warnings: string[] = [];
+
+  diagnostics(list: readonly Diagnostic[]): void {
+    for (const d of list) (d.severity === 'error' ? this.errors : this.warnings).push(formatDiagnostic(d));
+  }
+
+  error(file: string, message: string): void {
+    this.errors.push(`${file}: ${message}`);
+  }
+}
+
+export class SiteError extends UserError {
+  constructor(
+    readonly errors: readonly string[],
+    readonly warnings: readonly string[] = [],
+  ) {
+    super(`${[...errors, ...warnings].join('\n')}\nthe site was not built: ${errors.length} error${errors.length === 1 ? '' : 's'} in the projects (the previous site is left as it was)`, EXIT_VALIDATION);
+    this.name = 'SiteError';
+  }
+}

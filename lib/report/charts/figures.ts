@@ -1,0 +1,331 @@
+/**
+ * The figures of section 7, each drawn from the results (sweeps, fuel path, sensitivities) with
+ * the design point marked: voltages and efficiency limits against temperature, Nernst voltage
+ * and gas composition along the fuel path, carbon activity against steam-to-carbon ratio (or a
+ * statement where the fuel has no carbon), polarisation, heat and power against current
+ * density, and a tornado per headline result of the sensitivity study.
+ */
+import type { Results } from '../../plant/results-schema.ts';
+import { formatNumber, formatPercent } from '../format.ts';
+import { jsonForScript } from './json-script.ts';
+import { chartData, type ChartData, type DataColumn } from './data-table.ts';
+import type { Axis, ChartSpec, LineSeries } from './spec.ts';
+import type { TrustedHtml } from '../trusted-html.ts';
+
+export const CHART_WIDTH = 640;
+export const CHART_HEIGHT = 300;
+
+export interface DrawnFigure {
+  kind: 'chart';
+  id: string;
+  number: number;
+  title: string;
+  caption: string;
+  width: number;
+  height: number;
+  spec: TrustedHtml;
+  data: ChartData;
+  /** Remarks under the chart (cases that could not be evaluated). */
+  notes: string[];
+}
+
+export interface StatedFigure {
+  kind: 'statement';
+  id: string;
+  number: number;
+  title: string;
+  statement: string;
+}
+
+export type Figure = DrawnFigure | StatedFigure;
+
+type Draft = Omit<DrawnFigure, 'number' | 'spec' | 'width' | 'height' | 'kind'> & { spec: ChartSpec } | Omit<StatedFigure, 'number'>;
+
+const C = (k: number) => k - 273.15;
+
+function vertical(x: number, y0: number, y1: number, label: string): LineSeries {
+  return { label, points: [[x, y0], [x, y1]], style: 0, dashed: true, reference: true };
+}
+
+function span(values: number[]): [number, number] {
+  const finite = values.filter(Number.isFinite);
+  return [Math.min(...finite), Math.max(...finite)];
+}
+
+/** The temperature axis over the sweep, in °C. */
+function temperatureAxis(r: Results): Axis {
+  const t = r.sweeps.temperature.map((p) => C(p.temperature_K));
+  return { title: 'Temperature (°C)', min: Math.min(...t), max: Math.max(...t) };
+}
+
+function voltagesAgainstTemperature(r: Results): Draft {
+  const s = r.sweeps.temperature;
+  const t = s.map((p) => C(p.temperature_K));
+  const fuel = s.some((p) => p.fuelReversibleVoltage_V !== null);
+  const series: LineSeries[] = [
+    { label: 'reversible voltage E° (H₂)', points: s.map((p) => [C(p.temperature_K), p.reversibleVoltage_V]), style: 0 },
+    { label: 'thermoneutral voltage (H₂)', points: s.map((p) => [C(p.temperature_K), p.thermoneutralVoltage_V]), style: 1 },
+  ];
+  if (fuel) series.push({ label: 'reversible voltage of the fuel, −ΔG°/zF', points: s.filter((p) => p.fuelReversibleVoltage_V !== null).map((p) => [C(p.temperature_K), p.fuelReversibleVoltage_V!]), style: 2, dashed: true });
+  const td = C(r.conditions.temperature_K);
+  series.push({ label: 'design point: E°, V_tn and cell voltage at the operating temperature', points: [[td, r.electrochemistry.standardVoltage_V], [td, r.electrochemistry.thermoneutralVoltage_V], [td, r.headline.cellVoltage_V]], style: 0, marker: true });
+  const columns: DataColumn[] = [
+    { header: 'temperature (°C)', values: t, digits: 5 },
+    { header: 'reversible voltage E° (V)', values: s.map((p) => p.reversibleVoltage_V), digits: 5 },
+    { header: 'thermoneutral voltage (V)', values: s.map((p) => p.thermoneutralVoltage_V), digits: 5 },
+  ];
+  if (fuel) columns.push({ header: 'fuel reversible voltage (V)', values: s.map((p) => p.fuelReversibleVoltage_V), digits: 5 });
+  return {
+    id: 'fig-voltage-temperature',
+    title: 'Reversible and thermoneutral voltage against temperature',
+    caption: `Standard voltages of H₂ + ½O₂ → H₂O (${r.technology.waterPhase === 'liquid' ? 'liquid' : 'gaseous'} water, 1 bar) from the species data; the markers are the design point at ${formatNumber(td, 4)} °C.`,
+    spec: { kind: 'line', x: temperatureAxis(r), y: { title: 'Voltage (V)' }, series },
+    data: chartData(columns, `${r.project.id}-voltage-temperature.csv`),
+    notes: [],
+  };
+}
+
+function limitsAgainstTemperature(r: Results): Draft {
+  const s = r.sweeps.temperature;
+  const pct = (v: number) => v * 100;
+  const series: LineSeries[] = [];
+  const columns: DataColumn[] = [{ header: 'temperature (°C)', values: s.map((p) => C(p.temperature_K)), digits: 5 }];
+  const add = (label: string, get: (p: (typeof s)[number]) => number | null, style: number, dashed = false) => {
+    if (!s.some((p) => get(p) !== null)) return;
+    series.push({ label, points: s.filter((p) => get(p) !== null).map((p) => [C(p.temperature_K), pct(get(p)!)]), style, dashed });
+    columns.push({ header: `${label} (%)`, values: s.map((p) => (get(p) === null ? null : pct(get(p)!))) });
+  };
+  add('limit of the fuel, LHV', (p) => p.limitLhv, 0);
+  add('limit of the fuel, HHV', (p) => p.limitHhv, 2);
+  add('limit of hydrogen, HHV', (p) => p.hydrogenLimitHhv, 1, true);
+  add('Carnot, 1 − T₀/T', (p) => p.carnot, 3);
+  const td = C(r.conditions.temperature_K);
+  const eff = r.technology.mode === 'power' ? r.headline.electricalEfficiencyLhv : r.efficiency.electrolysisEfficiencyLhv;
+  if (eff !== null) series.push({ label: r.technology.mode === 'power' ? 'design point: net electrical efficiency (LHV)' : 'design point: electrolysis efficiency (LHV)', points: [[td, pct(eff)]], style: 0, marker: true });
+  const [lo, hi] = span(series.flatMap((x) => x.points.map((p) => p[1])));
+  series.push(vertical(td, Math.max(0, lo - 5), Math.min(105, hi + 5), 'operating temperature'));
+  return {
+    id: 'fig-efficiency-temperature',
+    title: 'Efficiency limits against temperature',
+    caption: `Thermodynamic limits −ΔG(T)/heating value and the Carnot efficiency between T and ${formatNumber(C(r.conditions.ambientTemperature_K), 3)} °C, with the design point.`,
+    spec: { kind: 'line', x: temperatureAxis(r), y: { title: 'Efficiency (%)' }, series },
+    data: chartData(columns, `${r.project.id}-efficiency-temperature.csv`),
+    notes: [],
+  };
+}
+
+function pathAxis(r: Results): { title: string; label: string } {
+  return r.technology.mode === 'power' ? { title: 'Fuel utilization (%)', label: 'fuel utilization (%)' } : { title: 'Conversion of the feed (%)', label: 'conversion (%)' };
+}
+
+function nernstAlongPath(r: Results): Draft {
+  const p = r.fuelPath.points;
+  const u = p.map((x) => x.utilization * 100);
+  const finite = p.filter((x) => Number.isFinite(x.nernst_V));
+  const uEnd = r.electrochemistry.utilization * 100;
+  const axis = pathAxis(r);
+  const series: LineSeries[] = [
+    { label: 'local Nernst voltage', points: finite.map((x) => [x.utilization * 100, x.nernst_V]), style: 0 },
+    { label: 'mean Nernst voltage Ē', points: [[0, r.headline.meanNernst_V], [uEnd, r.headline.meanNernst_V]], style: 2, dashed: true },
+    { label: 'cell voltage', points: [[0, r.headline.cellVoltage_V], [uEnd, r.headline.cellVoltage_V]], style: 1 },
+    { label: 'design point: outlet at the design utilization', points: [[uEnd, r.headline.outletNernst_V]], style: 0, marker: true },
+  ];
+  return {
+    id: 'fig-nernst-path',
+    title: 'Nernst voltage along the fuel path',
+    caption: `Local Nernst voltage from inlet to outlet, its charge average and the cell voltage; the marker is the outlet at ${formatPercent(r.electrochemistry.utilization, 3)}.`,
+    spec: { kind: 'line', x: { title: axis.title, min: 0, max: uEnd }, y: { title: 'Voltage (V)' }, series },
+    data: chartData(
+      [
+        { header: axis.label, values: u, digits: 4 },
+        { header: 'Nernst voltage (V)', values: p.map((x) => (Number.isFinite(x.nernst_V) ? x.nernst_V : null)), digits: 5 },
+        { header: 'carbon activity', values: p.map((x) => x.carbonActivity), digits: 4 },
+      ],
+      `${r.project.id}-nernst-path.csv`,
+    ),
+    notes: finite.length < p.length ? ['The inlet point is left out of the curve: with no product at the inlet its Nernst voltage is unbounded.'] : [],
+  };
+}
+
+function compositionAlongPath(r: Results): Draft {
+  const p = r.fuelPath.points;
+  const axis = pathAxis(r);
+  const peak = (side: 'fuelSide' | 'airSide', k: string) => Math.max(...p.map((x) => x[side][k] ?? 0));
+  const fuel = Object.keys(p[0]!.fuelSide).filter((k) => peak('fuelSide', k) >= 0.01).sort((a, b) => peak('fuelSide', b) - peak('fuelSide', a));
+  const air = ['O2', 'H2O', 'CO2'].filter((k) => (p[0]!.airSide[k] ?? 0) > 0 && peak('airSide', k) >= 0.01);
+  const series: LineSeries[] = [
+    ...fuel.map((k, i): LineSeries => ({ label: `${k}, fuel electrode`, points: p.map((x) => [x.utilization * 100, (x.fuelSide[k] ?? 0) * 100]), style: i })),
+    ...air.map((k, i): LineSeries => ({ label: `${k}, air electrode`, points: p.map((x) => [x.utilization * 100, (x.airSide[k] ?? 0) * 100]), style: fuel.length + i, dashed: true })),
+  ];
+  const uEnd = r.electrochemistry.utilization * 100;
+  series.push(vertical(uEnd, 0, 100, 'design utilization'));
+  const columns: DataColumn[] = [
+    { header: axis.label, values: p.map((x) => x.utilization * 100) },
+    ...fuel.map((k): DataColumn => ({ header: `${k} fuel side (mol %)`, values: p.map((x) => (x.fuelSide[k] ?? 0) * 100) })),
+    ...air.map((k): DataColumn => ({ header: `${k} air side (mol %)`, values: p.map((x) => (x.airSide[k] ?? 0) * 100) })),
+  ];
+  return {
+    id: 'fig-composition-path',
+    title: 'Gas composition along the fuel path',
+    caption: `Mole fractions of the species that reach 1 % (solid: fuel electrode${r.technology.fuelGasEquilibrium ? ', equilibrated' : ''}; dashed: air electrode), with the design utilization marked.`,
+    spec: { kind: 'line', x: { title: axis.title, min: 0, max: uEnd }, y: { title: 'Mole fraction (%)', min: 0 }, series },
+    data: chartData(columns, `${r.project.id}-composition-path.csv`),
+    notes: [],
+  };
+}
+
+function carbonAgainstSteam(r: Results): Draft {
+  const s = r.sweeps.steamToCarbon;
+  const id = 'fig-carbon-steam';
+  const title = 'Carbon activity against steam-to-carbon ratio';
+  if (!s.length) {
+    const statement =
+      r.technology.mode !== 'power'
+        ? 'In electrolysis there is no fuel to reform, so the steam-to-carbon ratio does not apply and no carbon-activity curve is drawn.'
+        : r.carbon.maxCarbonActivity === null && r.carbon.minimumSteamToCarbonStack === null
+          ? 'The fuel contains no carbon, so carbon cannot deposit and there is no carbon-activity curve to draw.'
+          : 'The basis adds steam per mole of fuel rather than by steam-to-carbon ratio, so no sweep over the ratio is made; the carbon activities along the fuel path are in the table of the Nernst-voltage figure.';
+    return { kind: 'statement', id, title, statement };
+  }
+  const series: LineSeries[] = [{ label: 'equilibrated fuel gas at the stack temperature', points: s.map((p) => [p.steamToCarbon, p.carbonActivityStack]), style: 0 }];
+  const pre = s.some((p) => p.carbonActivityPreReformer !== null);
+  if (pre) series.push({ label: 'at the pre-reformer temperature', points: s.filter((p) => p.carbonActivityPreReformer !== null).map((p) => [p.steamToCarbon, p.carbonActivityPreReformer!]), style: 1 });
+  const x = s.map((p) => p.steamToCarbon);
+  series.push({ label: 'carbon limit: activity 1', points: [[Math.min(...x), 1], [Math.max(...x), 1]], style: 0, dashed: true, reference: true });
+  const sc = r.carbon.steamToCarbon;
+  const marks: [number, number][] = [];
+  if (sc !== null && r.carbon.inletCarbonActivity !== null && r.carbon.inletCarbonActivity > 0) marks.push([sc, r.carbon.inletCarbonActivity]);
+  if (sc !== null && r.carbon.preReformerCarbonActivity !== null && r.carbon.preReformerCarbonActivity > 0) marks.push([sc, r.carbon.preReformerCarbonActivity]);
+  if (marks.length) series.push({ label: 'design point: design steam-to-carbon ratio', points: marks, style: 0, marker: true });
+  const columns: DataColumn[] = [
+    { header: 'steam-to-carbon ratio', values: x },
+    { header: 'carbon activity at the stack temperature', values: s.map((p) => p.carbonActivityStack) },
+  ];
+  if (pre) columns.push({ header: 'carbon activity at the pre-reformer temperature', values: s.map((p) => p.carbonActivityPreReformer) });
+  return {
+    id,
+    title,
+    caption: `Carbon activity of the feed brought to equilibrium, on a logarithmic scale; above 1 graphite can deposit.${sc !== null ? ` The design ratio is ${formatNumber(sc)}.` : ''}`,
+    spec: { kind: 'line', x: { title: 'Steam-to-carbon ratio (mol H₂O per mol C)' }, y: { title: 'Carbon activity (relative to graphite)', log: true }, series },
+    data: chartData(columns, `${r.project.id}-carbon-steam.csv`),
+    notes: [],
+  };
+}
+
+function jAxis(): Axis {
+  return { title: 'Current density (A/cm²)', min: 0 };
+}
+
+function polarisation(r: Results): Draft {
+  const s = r.sweeps.currentDensity;
+  const j = r.operatingPoint.currentDensity_A_per_m2 / 1e4;
+  return {
+    id: 'fig-polarisation',
+    title: 'Cell voltage against current density',
+    caption: `The lumped-resistance line of the voltage model at the design utilization (area-specific resistance ${formatNumber(r.electrochemistry.areaSpecificResistance_ohm_m2 * 1e4)} Ω cm²), with the design point.`,
+    spec: {
+      kind: 'line',
+      x: jAxis(),
+      y: { title: 'Cell voltage (V)' },
+      series: [
+        { label: 'cell voltage', points: s.map((p) => [p.currentDensity_A_per_m2 / 1e4, p.cellVoltage_V]), style: 0 },
+        { label: 'effective mean Nernst voltage', points: [[0, r.electrochemistry.effectiveNernst_V], [s[s.length - 1]!.currentDensity_A_per_m2 / 1e4, r.electrochemistry.effectiveNernst_V]], style: 2, dashed: true },
+        { label: 'design point', points: [[j, r.headline.cellVoltage_V]], style: 0, marker: true },
+      ],
+    },
+    data: chartData(
+      [
+        { header: 'current density (A/cm²)', values: s.map((p) => p.currentDensity_A_per_m2 / 1e4) },
+        { header: 'cell voltage (V)', values: s.map((p) => p.cellVoltage_V), digits: 5 },
+      ],
+      `${r.project.id}-polarisation.csv`,
+    ),
+    notes: [],
+  };
+}
+
+function heatAndPower(r: Results): Draft {
+  const s = r.sweeps.currentDensity;
+  const j = r.operatingPoint.currentDensity_A_per_m2 / 1e4;
+  const power = r.technology.mode === 'power';
+  return {
+    id: 'fig-heat-power',
+    title: 'Heat release and power against current density',
+    caption: `Stack ${power ? 'DC output' : 'power input'} (left axis) and isothermal stack heat (right axis, negative: heat needed) of the ${formatNumber(r.headline.cells)} cells, with the design point.`,
+    spec: {
+      kind: 'line',
+      x: jAxis(),
+      y: { title: power ? 'Stack DC power (kW)' : 'Stack power input (kW)' },
+      y2: { title: 'Stack heat (kW)' },
+      series: [
+        { label: power ? 'stack DC power' : 'stack power input', points: s.map((p) => [p.currentDensity_A_per_m2 / 1e4, p.stackPower_W / 1000]), style: 0 },
+        { label: 'stack heat', points: s.map((p) => [p.currentDensity_A_per_m2 / 1e4, p.stackHeat_W / 1000]), style: 1, right: true, dashed: true },
+        { label: 'design point: power', points: [[j, r.headline.stackPower_W / 1000]], style: 0, marker: true },
+        { label: 'design point: heat', points: [[j, r.headline.stackHeat_W / 1000]], style: 0, marker: true, right: true },
+      ],
+    },
+    data: chartData(
+      [
+        { header: 'current density (A/cm²)', values: s.map((p) => p.currentDensity_A_per_m2 / 1e4) },
+        { header: 'stack power (kW)', values: s.map((p) => p.stackPower_W / 1000) },
+        { header: 'stack heat (kW)', values: s.map((p) => p.stackHeat_W / 1000) },
+      ],
+      `${r.project.id}-heat-power.csv`,
+    ),
+    notes: [],
+  };
+}
+
+type Output = 'meanNernst_V' | 'efficiency' | 'stackHeat_W';
+
+function tornado(r: Results, output: Output): Draft {
+  const power = r.technology.mode === 'power';
+  const meta: Record<Output, { title: string; axis: string; scale: number; file: string }> = {
+    meanNernst_V: { title: 'Sensitivity of the mean Nernst voltage', axis: 'Change of the mean Nernst voltage (mV)', scale: 1000, file: 'nernst' },
+    efficiency: { title: power ? 'Sensitivity of the net electrical efficiency' : 'Sensitivity of the electrolysis efficiency', axis: 'Change of the efficiency (percentage points)', scale: 100, file: 'efficiency' },
+    stackHeat_W: { title: 'Sensitivity of the stack heat', axis: 'Change of the stack heat (kW)', scale: 0.001, file: 'heat' },
+  };
+  const m = meta[output];
+  const list = r.sensitivities;
+  const delta = (v: number | null, base: number) => (v === null ? 0 : (v - base) * m.scale);
+  const low = list.map((e) => delta(e[output].low, e[output].base));
+  const high = list.map((e) => delta(e[output].high, e[output].base));
+  const labels = list.map((e) => `${e.input} ${e.step}`);
+  const notes = list.filter((e) => e.note !== null && (e[output].low === null || e[output].high === null)).map((e) => `${e.input}: ${e.note}`);
+  const base = list[0]?.[output].base;
+  return {
+    id: `fig-tornado-${m.file}`,
+    title: m.title,
+    caption: `Change from the base case${base === undefined ? '' : ` (${output === 'meanNernst_V' ? `${formatNumber(base, 5)} V` : output === 'efficiency' ? formatPercent(base) : `${formatNumber(base / 1000)} kW`})`} when one input at a time moves down (low case) or up (high case) by the step given, all else held, the cell count included.`,
+    spec: { kind: 'tornado', x: { title: m.axis }, categories: labels, low, high, lowLabel: 'low case', highLabel: 'high case' },
+    data: chartData(
+      [
+        { header: 'input and step', labels },
+        { header: 'low case', labels: list.map((e) => e.low) },
+        { header: 'high case', labels: list.map((e) => e.high) },
+        { header: `${m.axis.replace(/^Change of the /, 'change, ')}, low`, values: list.map((e) => (e[output].low === null ? null : delta(e[output].low, e[output].base))) },
+        { header: `${m.axis.replace(/^Change of the /, 'change, ')}, high`, values: list.map((e) => (e[output].high === null ? null : delta(e[output].high, e[output].base))) },
+      ],
+      `${r.project.id}-sensitivity-${m.file}.csv`,
+    ),
+    notes,
+  };
+}
+
+export function figures(r: Results): Figure[] {
+  const drafts: Draft[] = [
+    voltagesAgainstTemperature(r),
+    limitsAgainstTemperature(r),
+    nernstAlongPath(r),
+    compositionAlongPath(r),
+    carbonAgainstSteam(r),
+    polarisation(r),
+    heatAndPower(r),
+  ];
+  if (r.sensitivities.length) drafts.push(tornado(r, 'meanNernst_V'), tornado(r, 'efficiency'), tornado(r, 'stackHeat_W'));
+  return drafts.map((d, i): Figure => {
+    if ('kind' in d && d.kind === 'statement') return { ...d, number: i + 1 };
+    const drawn = d as Exclude<Draft, { kind: 'statement' }>;
+    return { kind: 'chart', ...drawn, number: i + 1, width: CHART_WIDTH, height: CHART_HEIGHT, spec: jsonForScript(drawn.spec) };
+  });
+}

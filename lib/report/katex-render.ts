@@ -1,0 +1,37 @@
+/**
+ * LaTeX to HTML at build time with KaTeX, for the equations the view model writes itself. An
+ * expression KaTeX cannot parse, or one it would only render with a warning (strict mode), is a
+ * fault in cellbasis and fails the build: throwOnError is on, `trust` is off (no \href, \url,
+ * \includegraphics, \htmlClass ...), and user text never enters LaTeX (lib/report/tex.ts builds
+ * every expression from numbers and our own symbols).
+ *
+ * Identical expressions are rendered once: the HTML is cached by display mode and source, so a
+ * site of many pages that share the method's equations renders each of them a single time.
+ */
+import katex from 'katex';
+import { trustedHtml, type TrustedHtml } from './trusted-html.ts';
+
+const cache = new Map<string, TrustedHtml>();
+let renders = 0;
+
+/** Renders our own LaTeX (inline, or display for a numbered equation); throws on any error. */
+export function renderTex(tex: string, display = false): TrustedHtml {
+  const key = `${display ? 'D' : 'I'}${tex}`;
+  const cached = cache.get(key);
+  if (cached) return cached;
+  let html: string;
+  try {
+    html = katex.renderToString(tex, { displayMode: display, throwOnError: true, trust: false, strict: 'error', output: 'htmlAndMathml' });
+  } catch (error) {
+    throw new Error(`KaTeX cannot render the equation "${tex}": ${(error as Error).message}`);
+  }
+  renders++;
+  const value = trustedHtml(html);
+  cache.set(key, value);
+  return value;
+}
+
+/** How many distinct expressions were rendered, and how many are cached (for the tests). */
+export function texCacheStats(): { renders: number; cached: number } {
+  return { renders, cached: cache.size };
+}

@@ -1,0 +1,95 @@
+/**
+ * The view model of the portfolio index: every project of the site with its technology, the
+ * revision last issued (sealed) and its status, the working draft, the headline numbers of the
+ * draft and how many assumptions are still open. Problems of a build that failed while the dev
+ * server runs are shown on the same page.
+ */
+import type { DesignBasis, DocumentStatus } from '../basis/types.ts';
+import type { Results } from '../plant/results-schema.ts';
+import { ASSETS, assetLinks, type AssetLinks } from './assets.ts';
+import { formatInteger, formatPercent, formatPower, formatQuantity } from './format.ts';
+import { relativeHref } from './links.ts';
+import { hazardAssessment } from './sections/hazards.ts';
+
+export const INDEX_PATH = 'index.html';
+
+export interface PortfolioProject {
+  id: string;
+  basis: DesignBasis;
+  results: Results;
+  draftPath: string;
+  issued: { revision: string; status: DocumentStatus; sealedOn: string; path: string } | null;
+  revisionsSealed: number;
+}
+
+export interface PortfolioRow {
+  id: string;
+  title: string;
+  number: string;
+  href: string;
+  client: string;
+  technology: string;
+  mode: string;
+  issued: { label: string; status: string; href: string; kind: 'issued' | 'approved' } | null;
+  draft: { label: string; status: string };
+  output: string;
+  efficiency: string;
+  cellVoltage: string;
+  heat: string;
+  openAssumptions: string;
+  openCount: number;
+  cautions: string;
+}
+
+export interface PortfolioView {
+  pageTitle: string;
+  assets: AssetLinks;
+  rows: PortfolioRow[];
+  summary: string;
+  /** Problems of the last build (dev server only); empty in a built site. */
+  problems: string[];
+}
+
+function row(p: PortfolioProject): PortfolioRow {
+  const r = p.results;
+  const h = r.headline;
+  const power = r.technology.mode === 'power';
+  const open = p.basis.assumptions.filter((a) => a.open).length;
+  const cautions = hazardAssessment(r).cautions;
+  const danger = cautions.filter((c) => c.severity === 'danger').length;
+  return {
+    id: p.id,
+    title: p.basis.document.title,
+    number: p.basis.document.number,
+    href: relativeHref(INDEX_PATH, p.draftPath),
+    client: p.basis.document.client,
+    technology: r.technology.name,
+    mode: power ? 'power' : 'electrolysis',
+    issued: p.issued
+      ? { label: `Rev. ${p.issued.revision}, ${p.issued.sealedOn}`, status: p.issued.status, href: relativeHref(INDEX_PATH, p.issued.path), kind: p.issued.status === 'approved' ? 'approved' : 'issued' }
+      : null,
+    draft: { label: `Rev. ${p.basis.document.revision}`, status: p.basis.document.status },
+    output: power ? `${formatPower(h.netPower_W)} net` : h.hydrogenProduction_kg_per_day === null ? formatPower(h.stackPower_W) : `${formatQuantity(h.hydrogenProduction_kg_per_day, 'kg/day')} H₂`,
+    efficiency: power
+      ? h.electricalEfficiencyLhv === null ? '' : `${formatPercent(h.electricalEfficiencyLhv, 3)} LHV`
+      : h.specificEnergy_kWh_per_kg === null ? '' : formatQuantity(h.specificEnergy_kWh_per_kg, 'kWh/kg'),
+    cellVoltage: `${formatQuantity(h.cellVoltage_V, 'V')} × ${formatInteger(h.cells)}`,
+    heat: `${h.stackHeat_W >= 0 ? '' : 'needs '}${formatPower(Math.abs(h.stackHeat_W))}`,
+    openAssumptions: `${open} of ${p.basis.assumptions.length}`,
+    openCount: open,
+    cautions: `${cautions.length}${danger ? ` (${danger} danger)` : ''}`,
+  };
+}
+
+export function portfolioView(projects: readonly PortfolioProject[], problems: string[] = []): PortfolioView {
+  const sealed = projects.reduce((n, p) => n + p.revisionsSealed, 0);
+  const open = projects.reduce((n, p) => n + p.basis.assumptions.filter((a) => a.open).length, 0);
+  return {
+    pageTitle: 'Design bases',
+    // No charts on the index: only our script, which marks the page ready for printing.
+    assets: { stylesheets: assetLinks('assets/').stylesheets, scripts: [`assets/${ASSETS.chartsScript}`] },
+    rows: projects.map(row),
+    summary: `${projects.length} design bases, ${sealed} sealed revision${sealed === 1 ? '' : 's'}, ${open} open assumption${open === 1 ? '' : 's'} in the working drafts.`,
+    problems,
+  };
+}

@@ -1,0 +1,26 @@
+/**
+ * Paragraphs of our own wording with inline mathematics: `prose('the potential $\mu_i$ of ...')`
+ * splits the text at $...$ into plain segments, which the templates escape, and KaTeX segments
+ * rendered here. Only for text written in this code base, never for user text (which is shown
+ * as plain strings and escaped by the templates).
+ */
+import { renderTex } from './katex-render.ts';
+import type { TrustedHtml } from './trusted-html.ts';
+
+export type Segment = { text: string; math?: undefined } | { math: TrustedHtml; text?: undefined };
+
+export type Paragraph = Segment[];
+
+export function prose(source: string): Paragraph {
+  const pieces = source.split('$');
+  if (pieces.length % 2 === 0) throw new Error(`unbalanced $ in the method text: ${source}`);
+  return pieces.flatMap((piece, i): Segment[] => {
+    if (i % 2 === 1) return [{ math: renderTex(piece) }];
+    return piece === '' ? [] : [{ text: piece }];
+  });
+}
+
+/** Inline mathematics alone, e.g. a symbol in a table cell. */
+export function inlineMath(tex: string): TrustedHtml {
+  return renderTex(tex);
+}

@@ -1,0 +1,148 @@
+/**
+ * The tables of section 6 beside the worked lines: the remaining figures of each part of the
+ * results (electrochemistry, operating point, efficiency, heat, carbon) and the stream table,
+ * one column per stream with its state, flows, enthalpy flow and gas composition.
+ */
+import type { Results, StreamResult } from '../../plant/results-schema.ts';
+import { formatFixed, formatInteger, formatNumber, formatPercent, formatPower, formatQuantity } from '../format.ts';
+import { pairs, table, type Table, type TableRow } from '../table.ts';
+
+export interface FigureTable {
+  id: string;
+  title: string;
+  table: Table;
+}
+
+type Row = [string, string];
+
+function present(rows: (Row | null)[]): Row[] {
+  return rows.filter((r): r is Row => r !== null);
+}
+
+function opt(label: string, value: number | null, show: (v: number) => string): Row | null {
+  return value === null ? null : [label, show(value)];
+}
+
+function electrochemistry(r: Results): Row[] {
+  const e = r.electrochemistry;
+  return present([
+    ['Standard voltage E° at T (Nernst equation)', formatQuantity(e.standardVoltage_V, 'V', 5)],
+    ['Thermoneutral voltage of H₂ + ½O₂ → H₂O at T', formatQuantity(e.thermoneutralVoltage_V, 'V', 5)],
+    ['Effective thermoneutral voltage of the actual gases', formatQuantity(e.effectiveThermoneutralVoltage_V, 'V', 5)],
+    [r.technology.mode === 'power' ? 'Effective mean Nernst voltage t_ion Ē − ΔVx' : 'Mean Nernst voltage Ē', formatQuantity(e.effectiveNernst_V, 'V', 5)],
+    ['Area-specific resistance', `${formatQuantity(e.areaSpecificResistance_ohm_m2 * 1e4, 'Ω cm²')} (${e.voltageSource === 'given' ? 'implied by the given voltage' : 'given'})`],
+    ['Ionic transference number / crossover allowance', `${formatNumber(e.ionicTransferenceNumber)} / ${formatQuantity(e.crossoverAllowance_V * 1000, 'mV')}`],
+    [r.technology.mode === 'power' ? 'Fuel utilization' : 'Conversion of the feed', formatPercent(e.utilization)],
+    ['Charge of complete reaction of the feed', formatQuantity(e.chargeBasis_A, 'A', 6)],
+    ['Largest element-balance error along the fuel path', formatNumber(e.elementBalanceError, 2)],
+  ]);
+}
+
+function operatingPoint(r: Results): Row[] {
+  const o = r.operatingPoint;
+  return present([
+    ['Current density', `${formatQuantity(o.currentDensity_A_per_m2, 'A/m²')} (${formatQuantity(o.currentDensity_A_per_m2 / 1e4, 'A/cm²')})`],
+    ['Active area per cell / total', `${formatQuantity(o.activeArea_m2 * 1e4, 'cm²')} / ${formatQuantity(o.totalActiveArea_m2, 'm²')}`],
+    ['Cell count set by', o.cellsFrom === 'cells' ? 'the cell count of the basis' : o.cellsFrom === 'power' ? 'the target power' : 'the target hydrogen production'],
+    ['Cells', formatInteger(r.headline.cells)],
+    ['Stack voltage', formatQuantity(r.headline.stackVoltage_V, 'V')],
+    r.technology.mode === 'power' ? ['Balance-of-plant share', formatPercent(o.parasiticFraction)] : null,
+    opt('Air utilization', o.airUtilization, (v) => formatPercent(v)),
+    opt('Air ratio (O₂ fed / O₂ consumed)', o.airRatio, (v) => formatNumber(v)),
+    opt('Oxygen consumed', o.oxygenConsumed_mol_per_s, (v) => formatQuantity(v, 'mol/s')),
+    ['Net water produced (negative: consumed)', formatQuantity(o.netWaterProduced_mol_per_s, 'mol/s')],
+  ]);
+}
+
+function efficiency(r: Results): Row[] {
+  const e = r.efficiency;
+  const pct = (v: number) => formatPercent(v);
+  return present([
+    opt('Fuel input, LHV', e.fuelLhvInput_W, (v) => formatPower(v)),
+    opt('Fuel input, HHV', e.fuelHhvInput_W, (v) => formatPower(v)),
+    opt('Thermodynamic limit at T, LHV', e.thermodynamicLimitLhv, pct),
+    opt('Thermodynamic limit at T, HHV', e.thermodynamicLimitHhv, pct),
+    opt('Carnot limit (for comparison)', e.carnotLimit, pct),
+    ['Voltage efficiency', pct(e.voltageEfficiency)],
+    opt('Electrical efficiency, gross, LHV', e.electricalEfficiencyLhvGross, pct),
+    opt('Electrical efficiency, gross, HHV', e.electricalEfficiencyHhvGross, pct),
+    opt('Electrical efficiency, net, LHV', e.electricalEfficiencyLhvNet, pct),
+    opt('Electrical efficiency, net, HHV', e.electricalEfficiencyHhvNet, pct),
+    opt('Electrolysis efficiency, LHV', e.electrolysisEfficiencyLhv, pct),
+    opt('Electrolysis efficiency, HHV', e.electrolysisEfficiencyHhv, pct),
+    opt('Specific energy', e.specificEnergy_kWh_per_kg, (v) => formatQuantity(v, 'kWh/kg')),
+    opt('Hydrogen produced', e.hydrogenProduction_mol_per_s, (v) => formatQuantity(v, 'mol/s')),
+    opt('Oxygen produced', e.oxygenProduction_mol_per_s, (v) => formatQuantity(v, 'mol/s')),
+    e.carbonMonoxideProduction_mol_per_s ? ['Carbon monoxide produced', formatQuantity(e.carbonMonoxideProduction_mol_per_s, 'mol/s')] : null,
+  ]);
+}
+
+function heat(r: Results): Row[] {
+  const h = r.heat;
+  return present([
+    ['Heat released, isothermal boundary (negative: needed)', formatPower(h.isothermalHeat_W)],
+    ['Heat released with the feeds at their inlet temperatures', formatPower(h.asFedHeat_W)],
+    ['Enthalpy flow in, at the stack temperature / as fed', `${formatPower(h.inletEnthalpyIsothermal_W)} / ${formatPower(h.inletEnthalpyAsFed_W)}`],
+    ['Enthalpy flow out', formatPower(h.outletEnthalpy_W)],
+    ['Electric work into the stack', formatPower(h.electricWorkIn_W)],
+    ['Heat per cell / per unit active area', `${formatQuantity(h.heatPerCell_W, 'W')} / ${formatQuantity(h.heatPerArea_W_per_m2, 'W/m²')}`],
+    opt('Cooling air for the allowed rise', h.coolingAir_kg_per_h, (v) => `${formatQuantity(v, 'kg/h')} (${formatNumber(h.allowedAirTemperatureRise_K)} K rise)`),
+    opt('Cooling air over the air the oxygen needs', h.coolingAirRatio, (v) => formatNumber(v)),
+    opt('Cross-check for pure hydrogen, I(−ΔH(T)/2F − V)', h.hydrogenCrossCheck_W, (v) => formatPower(v)),
+    opt('Heat to supply', h.heatDemand_W, (v) => formatPower(v)),
+    opt('Liquid water leaving', h.liquidWaterOut_mol_per_s, (v) => formatQuantity(v, 'mol/s')),
+    h.outletsSaturated === null ? null : ['Both outlet gases saturated with water vapour', h.outletsSaturated ? 'yes' : 'no: the cell dries out'],
+  ]);
+}
+
+function carbon(r: Results): Row[] {
+  const c = r.carbon;
+  return present([
+    opt('Design steam-to-carbon ratio', c.steamToCarbon, (v) => formatNumber(v)),
+    opt('Least carbon-free S/C at the stack temperature', c.minimumSteamToCarbonStack, (v) => formatNumber(v)),
+    opt('Least carbon-free S/C at the pre-reformer temperature', c.minimumSteamToCarbonPreReformer, (v) => formatNumber(v)),
+    opt('Carbon activity at the pre-reformer outlet', c.preReformerCarbonActivity, (v) => formatNumber(v)),
+    opt('Carbon activity of the equilibrated gas at the stack inlet', c.inletCarbonActivity, (v) => formatNumber(v)),
+    opt('Highest carbon activity along the fuel path', c.maxCarbonActivity, (v) => formatNumber(v)),
+  ]);
+}
+
+export function figureTables(r: Results): FigureTable[] {
+  const list: FigureTable[] = [
+    { id: 'figures-electrochemistry', title: 'Electrochemistry', table: pairs(electrochemistry(r)) },
+    { id: 'figures-operating-point', title: 'Operating point', table: pairs(operatingPoint(r)) },
+    { id: 'figures-efficiency', title: 'Efficiency figures', table: pairs(efficiency(r)) },
+    { id: 'figures-heat', title: 'Heat balance', table: pairs(heat(r)) },
+  ];
+  const c = carbon(r);
+  if (c.length) list.push({ id: 'figures-carbon', title: 'Carbon deposition', table: pairs(c) });
+  return list;
+}
+
+/** Species shown in the stream table: every one reaching 1 ppm in some stream, largest first. */
+function speciesOf(streams: readonly StreamResult[]): string[] {
+  const peak = new Map<string, number>();
+  for (const s of streams) for (const [k, x] of Object.entries(s.moleFractions)) peak.set(k, Math.max(peak.get(k) ?? 0, x));
+  return [...peak.entries()].filter(([, x]) => x >= 1e-6).sort((a, b) => b[1] - a[1]).map(([k]) => k);
+}
+
+export function streamTable(r: Results): Table {
+  const streams = r.streams;
+  const row = (label: string, cell: (s: StreamResult) => string): TableRow => ({ cells: [label, ...streams.map(cell)] });
+  const rows: TableRow[] = [
+    row('Temperature, °C', (s) => formatFixed(s.temperature_K - 273.15, 1)),
+    row('Pressure, bar', (s) => formatNumber(s.pressure_bar)),
+    row('Molar flow, mol/s', (s) => formatNumber(s.flow_mol_per_s)),
+    row('Mass flow, kg/h', (s) => formatNumber(s.massFlow_kg_per_h)),
+    row('Gas volume flow, m³(n)/h', (s) => formatNumber(s.normalVolume_Nm3_per_h)),
+    row('Enthalpy flow, kW', (s) => formatNumber(s.enthalpyFlow_W / 1000)),
+  ];
+  if (streams.some((s) => (s.speciesFlows_mol_per_s['H2O(L)'] ?? 0) > 0)) {
+    rows.push(row('Liquid water, mol/s', (s) => formatNumber(s.speciesFlows_mol_per_s['H2O(L)'] ?? 0)));
+  }
+  rows.push({ group: 'Gas composition, mol %', cells: [] });
+  for (const species of speciesOf(streams)) {
+    rows.push(row(species, (s) => (s.moleFractions[species] === undefined ? '' : formatNumber(s.moleFractions[species]! * 100, 4))));
+  }
+  return table(['', ...streams.map((s) => s.name)], ['left', ...streams.map(() => 'right' as const)], rows);
+}

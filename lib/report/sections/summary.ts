@@ -1,0 +1,113 @@
+/**
+ * Section 2, the summary: the headline numbers a review reads first, the findings of the
+ * calculation and of the basis check (results.notes and the loader's warnings, each with the
+ * field it concerns) and the conclusions that follow from the numbers, in plain sentences.
+ */
+import type { DesignBasis } from '../../basis/types.ts';
+import type { Results } from '../../plant/results-schema.ts';
+import type { HazardAssessment } from '../../hazards/types.ts';
+import type { CheckResult } from '../../verification/checks.ts';
+import { formatInteger, formatNumber, formatPercent, formatPower, formatQuantity, formatTemperature } from '../format.ts';
+import { pairs, type Table } from '../table.ts';
+import { sectionNumber } from '../outline.ts';
+
+export interface Finding {
+  /** The basis field it concerns, e.g. "operating-point.cell-voltage". */
+  field: string;
+  text: string;
+  source: 'calculation' | 'basis check';
+}
+
+export interface SummarySection {
+  headline: Table;
+  findings: Finding[];
+  conclusions: string[];
+}
+
+function headlineRows(r: Results): [string, string][] {
+  const h = r.headline;
+  const power = r.technology.mode === 'power';
+  const rows: [string, string][] = [
+    ['Operating temperature', formatTemperature(r.conditions.temperature_K)],
+    ['Fuel-electrode / air-electrode pressure', `${formatNumber(r.conditions.fuelPressure_bar)} / ${formatNumber(r.conditions.airPressure_bar)} bar`],
+    ['Nernst voltage, inlet / mean / outlet', `${h.inletNernst_V === null ? 'unbounded (dry inlet)' : formatQuantity(h.inletNernst_V, 'V')} / ${formatQuantity(h.meanNernst_V, 'V')} / ${formatQuantity(h.outletNernst_V, 'V')}`],
+    ['Cell voltage', `${formatQuantity(h.cellVoltage_V, 'V')} (${r.electrochemistry.voltageSource === 'given' ? 'given' : 'from the area-specific resistance'})`],
+    ['Cells / cell current / stack current', `${formatInteger(h.cells)} / ${formatQuantity(h.cellCurrent_A, 'A')} / ${formatQuantity(h.totalCurrent_A, 'A')}`],
+  ];
+  if (power) {
+    rows.push(['Stack DC power / net power', `${formatPower(h.stackPower_W)} / ${formatPower(h.netPower_W)}`]);
+    if (h.electricalEfficiencyLhv !== null && h.electricalEfficiencyHhv !== null) {
+      rows.push(['Net electrical efficiency, LHV / HHV', `${formatPercent(h.electricalEfficiencyLhv)} / ${formatPercent(h.electricalEfficiencyHhv)}`]);
+    }
+    if (h.thermodynamicLimitLhv !== null && h.thermodynamicLimitHhv !== null) {
+      rows.push(['Thermodynamic limit at T, LHV / HHV', `${formatPercent(h.thermodynamicLimitLhv)} / ${formatPercent(h.thermodynamicLimitHhv)}`]);
+    }
+  } else {
+    rows.push(['Stack power input', formatPower(h.stackPower_W)]);
+    if (h.hydrogenProduction_kg_per_h !== null && h.hydrogenProduction_kg_per_day !== null) {
+      rows.push(['Hydrogen production', `${formatQuantity(h.hydrogenProduction_kg_per_h, 'kg/h')} (${formatQuantity(h.hydrogenProduction_kg_per_day, 'kg/day')})`]);
+    }
+    if (h.specificEnergy_kWh_per_kg !== null && r.efficiency.electrolysisEfficiencyLhv !== null && r.efficiency.electrolysisEfficiencyHhv !== null) {
+      rows.push(['Specific energy / efficiency LHV / HHV', `${formatQuantity(h.specificEnergy_kWh_per_kg, 'kWh/kg')} / ${formatPercent(r.efficiency.electrolysisEfficiencyLhv)} / ${formatPercent(r.efficiency.electrolysisEfficiencyHhv)}`]);
+    }
+  }
+  rows.push([h.stackHeat_W >= 0 ? 'Stack heat released (isothermal)' : 'Stack heat needed (isothermal)', formatPower(Math.abs(h.stackHeat_W))]);
+  if (h.airFlow_kg_per_h !== null) rows.push(['Air-electrode feed', formatQuantity(h.airFlow_kg_per_h, 'kg/h')]);
+  if (h.minimumSteamToCarbon !== null) {
+    rows.push(['Minimum steam-to-carbon ratio / margin', `${formatNumber(h.minimumSteamToCarbon)} / ${h.carbonMargin === null ? 'no steam given' : formatNumber(h.carbonMargin)}`]);
+  }
+  if (h.maxCarbonActivity !== null) rows.push(['Highest carbon activity on the fuel path', formatNumber(h.maxCarbonActivity)]);
+  return rows;
+}
+
+function conclusions(r: Results, basis: DesignBasis, hazards: HazardAssessment, checks: readonly CheckResult[]): string[] {
+  const h = r.headline;
+  const out: string[] = [];
+  const j = formatQuantity(r.operatingPoint.currentDensity_A_per_m2 / 1e4, 'A/cm²');
+  if (r.technology.mode === 'power') {
+    const eff = h.electricalEfficiencyLhv === null ? '' : ` at a net electrical efficiency of ${formatPercent(h.electricalEfficiencyLhv)} (LHV)`;
+    out.push(`${formatInteger(h.cells)} cells at ${formatQuantity(h.cellVoltage_V, 'V')} and ${j} deliver ${formatPower(h.netPower_W)} net${eff}.`);
+    out.push(
+      h.stackHeat_W >= 0
+        ? `The stack releases ${formatPower(h.stackHeat_W)} of heat at the design point, to be carried away by ${r.heat.coolingAir_kg_per_h !== null ? `the air (${formatQuantity(r.heat.coolingAir_kg_per_h, 'kg/h')} for a ${formatNumber(r.heat.allowedAirTemperatureRise_K)} K rise)` : 'the cooling circuit'}.`
+        : `The stack needs ${formatPower(-h.stackHeat_W)} of heat at the design point.`,
+    );
+  } else {
+    const production = h.hydrogenProduction_kg_per_day === null ? '' : ` produce ${formatQuantity(h.hydrogenProduction_kg_per_day, 'kg/day')} of hydrogen`;
+    const energy = h.specificEnergy_kWh_per_kg === null ? '' : ` at ${formatQuantity(h.specificEnergy_kWh_per_kg, 'kWh/kg')}`;
+    out.push(`${formatInteger(h.cells)} cells at ${formatQuantity(h.cellVoltage_V, 'V')} and ${j}${production}${energy}, taking ${formatPower(h.stackPower_W)}.`);
+    out.push(
+      h.stackHeat_W >= 0
+        ? `Above the thermoneutral voltage (${formatQuantity(r.electrochemistry.effectiveThermoneutralVoltage_V, 'V')}) the stack releases ${formatPower(h.stackHeat_W)} of heat, to be removed.`
+        : `Below the thermoneutral voltage (${formatQuantity(r.electrochemistry.effectiveThermoneutralVoltage_V, 'V')}) the stack absorbs ${formatPower(-h.stackHeat_W)}: this heat must be supplied to hold the stack temperature.`,
+    );
+  }
+  if (h.carbonMargin !== null && h.minimumSteamToCarbon !== null) {
+    out.push(
+      h.carbonMargin >= 0
+        ? `The steam-to-carbon ratio is ${formatNumber(h.carbonMargin)} above the carbon limit of ${formatNumber(h.minimumSteamToCarbon)}; the equilibrated fuel gas stays free of carbon${h.maxCarbonActivity !== null ? ` (highest carbon activity ${formatNumber(h.maxCarbonActivity)})` : ''}.`
+        : `The steam-to-carbon ratio is ${formatNumber(-h.carbonMargin)} below the carbon limit of ${formatNumber(h.minimumSteamToCarbon)}: carbon can deposit, and the design must change before it is issued.`,
+    );
+  } else if (h.maxCarbonActivity === null && r.technology.mode === 'power') {
+    out.push('The fuel contains no carbon, so carbon deposition does not arise.');
+  }
+  const open = basis.assumptions.filter((a) => a.open);
+  out.push(
+    open.length
+      ? `${open.length} of ${basis.assumptions.length} assumptions are still open (${open.map((a) => a.id).join(', ')}); the results hold only once they are confirmed.`
+      : `All ${basis.assumptions.length} assumptions are confirmed.`,
+  );
+  const danger = hazards.cautions.filter((c) => c.severity === 'danger').length;
+  out.push(`Section ${sectionNumber('hazards')} raises ${hazards.cautions.length} hazard cautions, ${danger} of them at danger level, for the hazard study of the design.`);
+  const failed = checks.filter((c) => !c.pass).length;
+  out.push(failed === 0 ? `All ${checks.length} checks of the calculation library against published values pass (section ${sectionNumber('verification')}).` : `${failed} of ${checks.length} checks against published values fail (section ${sectionNumber('verification')}): the results are not to be relied on until this is resolved.`);
+  return out;
+}
+
+export function summarySection(r: Results, basis: DesignBasis, hazards: HazardAssessment, checks: readonly CheckResult[]): SummarySection {
+  const findings: Finding[] = [
+    ...r.notes.map((n): Finding => ({ field: n.path, text: n.message, source: 'calculation' })),
+    ...basis.warnings.map((w): Finding => ({ field: w.path, text: w.message, source: 'basis check' })),
+  ];
+  return { headline: pairs(headlineRows(r)), findings, conclusions: conclusions(r, basis, hazards, checks) };
+}

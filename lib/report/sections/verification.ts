@@ -1,0 +1,48 @@
+/**
+ * Section 9, verification: the calculation library's checks against published values
+ * (lib/verification, `runAllChecks()`: the same table the tests assert), each with the value
+ * computed, the published value, the deviation against its tolerance, pass or fail, the source
+ * and whether the published value is quoted from memory.
+ */
+import type { CheckResult } from '../../verification/checks.ts';
+import { formatNumber } from '../format.ts';
+import { table, type Table } from '../table.ts';
+
+export interface VerificationSection {
+  table: Table;
+  passed: number;
+  failed: number;
+  fromMemory: number;
+  /** Which tool ran the checks, and when that is not the tool that calculated a sealed revision. */
+  ranBy: string;
+}
+
+function unit(u: string): string {
+  return u === '1' ? '' : ` ${u}`;
+}
+
+export function verificationSection(checks: readonly CheckResult[], toolVersion: string, resultsToolVersion: string): VerificationSection {
+  const rows = checks.map((c) => ({
+    cells: [
+      c.check.id,
+      c.check.what,
+      `${formatNumber(c.computed, 6)}${unit(c.check.unit)}`,
+      `${formatNumber(c.check.expected, 6)}${unit(c.check.unit)}`,
+      `${formatNumber(c.deviation, 2)} (± ${formatNumber(c.check.tolerance, 2)})`,
+      c.pass ? 'pass' : 'FAIL',
+      c.check.source,
+      c.check.memory ? 'from memory' : 're-read',
+    ],
+    flag: !c.pass,
+  }));
+  const same = toolVersion === resultsToolVersion;
+  return {
+    table: table(['Check', 'Quantity', 'Computed', 'Published', 'Deviation (tolerance)', 'Result', 'Source', 'Published value'], ['left', 'left', 'right', 'right', 'right', 'left', 'left', 'left'], rows),
+    passed: checks.filter((c) => c.pass).length,
+    failed: checks.filter((c) => !c.pass).length,
+    fromMemory: checks.filter((c) => c.check.memory).length,
+    ranBy: same
+      ? `Run by cellbasis ${toolVersion}, the version that calculated this document.`
+      : `Run by cellbasis ${toolVersion} when this site was built; this revision was calculated by cellbasis ${resultsToolVersion}, and its sealed document holds the checks as they stood then.`,
+  };
+}
