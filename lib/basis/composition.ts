@@ -9,6 +9,7 @@ import { findPreset, presetNames } from './presets.ts';
 import { didYouMean } from './suggest.ts';
 import type { Path } from './diagnostics.ts';
 import type { Reader } from './reader.ts';
+import { quoted } from './quote.ts';
 
 /** Largest departure of the sum of mole fractions from 1 that is normalised rather than refused. */
 export const SUM_TOLERANCE = 0.005;
@@ -44,6 +45,8 @@ export function readFractions(reader: Reader, path: Path, label: string, source?
   }
   const fractions: Record<string, number> = {};
   const speciesAt: Record<string, Path> = {};
+  /** The key each species was first written as (H2O(g) and H2O are one species). */
+  const givenAs = new Map<string, string>();
   let complete = true;
   for (const { key, usable } of keys) {
     const at = [...path, key];
@@ -53,11 +56,12 @@ export function readFractions(reader: Reader, path: Path, label: string, source?
       complete = false;
       continue;
     }
-    if (species.label in fractions) {
-      reader.findings.error(at, `${key} is the same species as ${species.label}, already given in this composition`, 'key');
+    if (givenAs.has(species.label)) {
+      reader.findings.error(at, `${key} is the same species as ${givenAs.get(species.label)}, already given in this composition`, 'key');
       complete = false;
       continue;
     }
+    givenAs.set(species.label, key);
     const read = usable ? reader.scalar(at, 'fraction', `${label}: ${species.label} mole fraction`, source) : undefined;
     if (!read) {
       complete = false;
@@ -119,7 +123,7 @@ export function resolveComposition(reader: Reader, path: Path, label: string, mi
   const known = [...reader.keys(['mixtures']).map((k) => k.key), ...presetNames()];
   reader.findings.error(
     path,
-    `unknown mixture or preset "${name}"${didYouMean(name, known)} (presets: ${presetNames().join(', ')}; define your own under mixtures:)`,
+    `unknown mixture or preset ${quoted(name)}${didYouMean(name, known)} (presets: ${presetNames().join(', ')}; define your own under mixtures:)`,
   );
   return undefined;
 }

@@ -3,7 +3,7 @@
  * (zod-findings.ts) → physics and consistency (interpret.ts) → `DesignBasis`, or every problem
  * found, each located at `file:line:col` and sorted by position. Warnings never stop a basis.
  */
-import { readFileSync, statSync } from 'node:fs';
+import { closeSync, openSync, readSync, statSync } from 'node:fs';
 import { isMap, isScalar, isSeq } from 'yaml';
 import { decodeBasisBytes, MAX_BASIS_BYTES, tooLargeError } from './source-text.ts';
 import { parseBasisYaml } from './yaml-syntax.ts';
@@ -60,16 +60,17 @@ export function loadBasisText(text: string | Uint8Array, file: string, id: strin
   const decoded = decodeBasisBytes(text, file);
   if (!decoded.ok) return failed(decoded.errors);
   const parsed = parseBasisYaml(decoded.text, file);
-  if (parsed.data === undefined) return failed(parsed.errors, parsed.warnings);
+  if (!parsed.ok) return failed(parsed.errors, parsed.warnings);
   const findings = new Findings();
   const flagged = schemaFindings(parsed.data, findings);
   const reader = new Reader(parsed.data, flagged, findings);
   const result = interpret(reader);
   const place = (f: Parameters<typeof locate>[3]) => locate(parsed.doc, parsed.lines, file, f);
   const located = findings.list.map(place);
-  const errors = [...parsed.errors, ...located.filter((d) => d.severity === 'error')];
+  const errors = located.filter((d) => d.severity === 'error');
   const warnings = sortDiagnostics([...parsed.warnings, ...located.filter((d) => d.severity === 'warning')]);
-  if (errors.length || !result) return failed(errors, warnings);
+  if (errors.length) return failed(errors, warnings);
+  if (!result) throw new Error(`${file}: the basis could not be read, yet no problem was found in it`);
   const position = (d: Diagnostic) => d.line * 1e6 + d.column;
   const inputs = reader.inputs
     .map((input) => ({ input, where: place({ severity: 'warning', at: input.at, target: 'value', message: '' }) }))
@@ -92,5 +93,25 @@ export function loadBasisFile(path: string, options: { id?: string; displayPath?
   }
   if (!stat.isFile()) throw new UserError(`${file}: not a file`);
   if (stat.size > MAX_BASIS_BYTES) return failed([tooLargeError(file, stat.size)]);
-  return loadBasisText(readFileSync(path), file, id);
+  // Never more than the limit, whatever the size said (a file that grows, a /proc file of size 0).
+  const bytes = readAtMost(path, MAX_BASIS_BYTES + 1);
+  if (bytes.length > MAX_BASIS_BYTES) return failed([tooLargeError(file, bytes.length, true)]);
+  return loadBasisText(bytes, file, id);
+}
+
+/** The first `limit` bytes of a file (all of it when shorter). */
+function readAtMost(path: string, limit: number): Uint8Array {
+  const fd = openSync(path, 'r');
+  try {
+    const buffer = Buffer.alloc(limit);
+    let length = 0;
+    while (length < limit) {
+      const read = readSync(fd, buffer, length, limit - length, null);
+      if (read === 0) break;
+      length += read;
+    }
+    return buffer.subarray(0, length);
+  } finally {
+    closeSync(fd);
+  }
 }

@@ -17,8 +17,17 @@ function resolve(doc: Document.Parsed, node: unknown): unknown {
   return isAlias(node) ? node.resolve(doc) : node;
 }
 
+/** The pairs of each mapping by key (the first where a key repeats), built once per mapping: a file of many findings is located in linear time. */
+const pairIndex = new WeakMap<object, Map<string, Pair>>();
+
 function pairFor(map: { items: Pair[] }, segment: string | number): Pair | undefined {
-  return map.items.find((p) => isScalar(p.key) && String(p.key.value) === String(segment));
+  let index = pairIndex.get(map);
+  if (!index) {
+    index = new Map();
+    for (const p of map.items) if (isScalar(p.key) && !index.has(String(p.key.value))) index.set(String(p.key.value), p);
+    pairIndex.set(map, index);
+  }
+  return index.get(String(segment));
 }
 
 /** The steps from the root along `path`, as far as the tree goes. */

@@ -7,6 +7,7 @@
 import { parseQuantity, SI_UNIT, UnitError, type Dimension } from './units.ts';
 import { pathText, type Findings, type Path } from './diagnostics.ts';
 import type { InputRecord } from './types.ts';
+import { quoted } from './quote.ts';
 
 /** A scalar input as read: SI value, the text and unit as written, where it stands. */
 export interface Read {
@@ -44,11 +45,14 @@ export class Reader {
     readonly findings: Findings,
   ) {}
 
-  /** The value at the path as written, whether or not the schema accepted it. */
+  /**
+   * The value at the path as written, whether or not the schema accepted it. Only keys written
+   * in the file count: a name such as `constructor` or `toString` is not found on every mapping.
+   */
   raw(path: Path): unknown {
     let current: unknown = this.data;
     for (const segment of path) {
-      if (current === null || typeof current !== 'object') return undefined;
+      if (current === null || typeof current !== 'object' || !Object.hasOwn(current, String(segment))) return undefined;
       current = (current as Record<string, unknown>)[String(segment)];
     }
     return current;
@@ -120,7 +124,7 @@ export class Reader {
       return undefined;
     }
     if (!Number.isFinite(quantity.si)) {
-      this.findings.error(at, `${JSON.stringify(String(value))} is not a finite number`);
+      this.findings.error(at, `${quoted(String(value))} is not a finite number`);
       return undefined;
     }
     const text = String(value);

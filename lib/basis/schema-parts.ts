@@ -9,11 +9,12 @@ import { z } from 'zod';
 import { expectedText, parseQuantity, UnitError, type Dimension } from './units.ts';
 import { quantityPattern } from './unit-pattern.ts';
 import { didYouMean, quotedList } from './suggest.ts';
+import { quoted } from './quote.ts';
 
 /** How a YAML value reads in a message: `"hot"`, `the number 5`, `a list`, `nothing`. */
 export function describeValue(value: unknown): string {
   if (value === null || value === undefined) return 'nothing (the key has no value)';
-  if (typeof value === 'string') return JSON.stringify(value);
+  if (typeof value === 'string') return quoted(value);
   if (typeof value === 'number') return Number.isFinite(value) ? `the number ${value}` : `the YAML value ${Number.isNaN(value) ? '.nan' : value > 0 ? '.inf' : '-.inf'}`;
   if (typeof value === 'boolean') return `${value}`;
   if (Array.isArray(value)) return 'a list';

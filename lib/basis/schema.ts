@@ -9,7 +9,7 @@
 import { z } from 'zod';
 import { TECHNOLOGY_IDS } from '../electrochem/technologies.ts';
 import { DOCUMENT_STATUSES } from './types.ts';
-import { choice, composition, flag, fraction, isoDate, number, quantity, speciesFractions, strict, text } from './schema-parts.ts';
+import { choice, composition, describeValue, flag, fraction, isoDate, number, quantity, speciesFractions, strict, text } from './schema-parts.ts';
 
 /** Technology names a basis may give: the technology ids, and phosphoric-acid for ht-pem. */
 export const TECHNOLOGY_NAMES = [...TECHNOLOGY_IDS, 'phosphoric-acid'] as const;
@@ -103,7 +103,7 @@ const preReforming = z
         temperature: quantity('temperature', 'pre-reformer outlet temperature'),
       }),
     ],
-    { error: (issue) => `expected ${PRE_REFORMING}, got ${JSON.stringify(issue.input)}` },
+    { error: (issue) => `expected ${PRE_REFORMING}, got ${describeValue(issue.input)}` },
   )
   .meta({ description: `${PRE_REFORMING}: a pre-reformer ahead of the stack whose outlet gas is at chemical equilibrium at that temperature` });
 

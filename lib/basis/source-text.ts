@@ -1,13 +1,18 @@
 /**
  * From the bytes of a basis file to the text the YAML parser reads: refuses files over the
- * size limit, decodes strict UTF-8 (locating every bad byte by line and column), drops a byte
- * order mark and turns CRLF line ends into LF. Line and column numbers are 1-based; a column
+ * size limit, decodes strict UTF-8 (locating every bad byte by line and column; a UTF-16 file
+ * is named as such), refuses the control characters YAML does not allow, drops a byte order
+ * mark and turns CRLF line ends into LF. Line and column numbers are 1-based; a column
  * counts UTF-16 code units, as the YAML parser's do.
  */
 import type { Diagnostic } from './types.ts';
 
-/** Largest basis file read, bytes (a real basis is a few kilobytes). */
-export const MAX_BASIS_BYTES = 5 * 1024 * 1024;
+/**
+ * Largest basis file read, bytes: a real basis is a few kilobytes, and the YAML parser takes
+ * about a second per 200 kB of the most tightly packed keys, so the limit also bounds the time
+ * a hostile file can take.
+ */
+export const MAX_BASIS_BYTES = 256 * 1024;
 
 /** At most this many bad bytes are reported; the rest of the file is then unreadable anyway. */
 const MAX_ENCODING_DIAGNOSTICS = 10;
@@ -63,15 +68,35 @@ function encodingErrors(bytes: Uint8Array, file: string): Diagnostic[] {
   return errors;
 }
 
+/**
+ * Characters YAML 1.2 does not allow in a file (its c-printable set, section 5.1): the C0 controls
+ * but tab, line feed and carriage return, DEL, the C1 controls but NEL, and U+FFFE and U+FFFF.
+ */
+const NOT_PRINTABLE = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F-\u0084\u0086-\u009F\uFFFE\uFFFF]/g;
+
+/** Every character YAML does not allow, with its line and column (at most MAX_ENCODING_DIAGNOSTICS). */
+function controlCharacterErrors(text: string, file: string): Diagnostic[] {
+  const errors: Diagnostic[] = [];
+  for (const match of text.matchAll(NOT_PRINTABLE)) {
+    if (errors.length === MAX_ENCODING_DIAGNOSTICS) break;
+    const before = text.slice(0, match.index);
+    const line = before.split('\n').length;
+    const column = match.index - before.lastIndexOf('\n');
+    const code = `U+${match[0].charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')}`;
+    errors.push({ severity: 'error', file, line, column, path: '', message: `the control character ${code} is not allowed in a YAML file; delete it` });
+  }
+  return errors;
+}
+
 function fileError(file: string, message: string): Diagnostic {
   return { severity: 'error', file, line: 1, column: 1, path: '', message };
 }
 
-/** The size error, for callers that check the size before reading the file. */
-export function tooLargeError(file: string, bytes: number): Diagnostic {
+/** The size error, for callers that check the size before reading the file; `atLeast` when reading stopped at `bytes`. */
+export function tooLargeError(file: string, bytes: number, atLeast = false): Diagnostic {
   return fileError(
     file,
-    `the file is ${bytes.toLocaleString('en-US')} bytes; a design basis may be at most ${MAX_BASIS_BYTES / 1024 / 1024} MB (${MAX_BASIS_BYTES.toLocaleString('en-US')} bytes): is this the right file?`,
+    `the file is ${atLeast ? 'more than ' : ''}${(atLeast ? MAX_BASIS_BYTES : bytes).toLocaleString('en-US')} bytes; a design basis may be at most ${MAX_BASIS_BYTES / 1024} KiB (${MAX_BASIS_BYTES.toLocaleString('en-US')} bytes): is this the right file?`,
   );
 }
 
@@ -83,12 +108,16 @@ export function decodeBasisBytes(input: string | Uint8Array, file: string): Deco
     text = input.replace(/^\uFEFF/, '');
   } else {
     if (input.length > MAX_BASIS_BYTES) return { ok: false, errors: [tooLargeError(file, input.length)] };
+    const utf16 = (input[0] === 0xff && input[1] === 0xfe) || (input[0] === 0xfe && input[1] === 0xff);
+    if (utf16) return { ok: false, errors: [fileError(file, `the file is saved as UTF-16 (it starts with the bytes ${hex(input[0]!)} ${hex(input[1]!)}); save it as UTF-8`)] };
     try {
       text = new TextDecoder('utf-8', { fatal: true }).decode(input);
     } catch {
       return { ok: false, errors: encodingErrors(input, file) };
     }
   }
+  const controls = controlCharacterErrors(text, file);
+  if (controls.length) return { ok: false, errors: controls };
   text = text.replace(/\r\n/g, '\n');
   if (text.trim() === '') return { ok: false, errors: [fileError(file, 'the file is empty; start from `cellbasis new`')] };
   return { ok: true, text };

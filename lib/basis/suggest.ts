@@ -8,6 +8,7 @@ import { editDistance } from '../thermo/species-data.ts';
 export function closest(name: string, candidates: readonly string[], most = 2): string[] {
   const limit = Math.max(2, Math.floor(name.length / 3));
   return candidates
+    .filter((c) => Math.abs(c.length - name.length) <= limit)
     .map((c) => ({ c, d: editDistance(name, c) }))
     .filter((x) => x.d <= limit)
     .sort((a, b) => a.d - b.d || a.c.localeCompare(b.c))

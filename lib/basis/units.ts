@@ -6,6 +6,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { parse as parseYaml } from 'yaml';
+import { quoted } from './quote.ts';
 
 export type Dimension =
   | 'temperature'
@@ -136,15 +137,15 @@ export function parseQuantity(input: string | number, dimension: Dimension): Qua
     throw new UnitError(expected, `the bare number ${input} (write the unit)`);
   }
   const match = NUMBER.exec(input);
-  if (!match) throw new UnitError(expected, JSON.stringify(input));
+  if (!match) throw new UnitError(expected, quoted(input));
   const value = Number(match[1]);
   const unit = normaliseUnit(match[2]!);
   const def = TABLE[dimension][unit];
   if (!def) {
     const other = dimensionOfUnit(unit);
-    if (unit === '') throw new UnitError(expected, `${JSON.stringify(input)} with no unit`);
-    if (other) throw new UnitError(expected, `${JSON.stringify(input)}, which is ${ARTICLE[other]}`);
-    throw new UnitError(`${expected} (units: ${unitsOf(dimension).join(', ')})`, `${JSON.stringify(input)} with unknown unit "${unit}"`);
+    if (unit === '') throw new UnitError(expected, `${quoted(input)} with no unit`);
+    if (other) throw new UnitError(expected, `${quoted(input)}, which is ${ARTICLE[other]}`);
+    throw new UnitError(`${expected} (units: ${unitsOf(dimension).join(', ')})`, `${quoted(input)} with unknown unit ${quoted(unit)}`);
   }
   return {
     si: value * def.factor + (def.offset ?? 0),

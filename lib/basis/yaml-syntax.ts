@@ -1,45 +1,62 @@
 /**
  * YAML text to a document tree and plain data, with every syntax problem as a located
  * diagnostic in plain words: tabs in indentation, duplicate keys (with the line of the first),
- * unclosed quotes (at the opening quote), bad indentation, several documents in one file, and
- * alias bombs (refused past a small alias count). Parsing follows YAML 1.2 core schema, so
+ * unclosed quotes (at the opening quote), bad indentation, several documents in one file,
+ * alias bombs (refused past a small alias count), and what yaml-limits.ts refuses before the
+ * tree is built (deep nesting, tags). Parsing follows YAML 1.2 core schema, so
  * `2026-11-20` stays text and `yes` is not a boolean.
  */
-import { isScalar, LineCounter, parseDocument, visit, type Document, type YAMLError } from 'yaml';
+import { Composer, isAlias, isMap, isScalar, LineCounter, Parser, visit, YAMLParseError, type Document, type Node, type YAMLError } from 'yaml';
+import { flowDepthProblem, tokenProblems } from './yaml-limits.ts';
 import type { Diagnostic } from './types.ts';
 
 /** Aliases (*name) a basis may expand; a handful is all a basis needs, and it stops alias bombs. */
 export const MAX_ALIASES = 50;
 
-export interface ParsedYaml {
-  doc: Document.Parsed;
-  lines: LineCounter;
-  /** The plain data, when the syntax allowed it to be read. */
-  data?: unknown;
-  errors: Diagnostic[];
-  warnings: Diagnostic[];
-}
+/** Longest key accepted: keys are names (sections, species, mixtures), and messages repeat them. */
+export const MAX_KEY_CHARACTERS = 200;
+
+/** The document tree and its plain data, or the syntax errors that stopped the reading. */
+export type ParsedYaml =
+  | { ok: true; doc: Document.Parsed; lines: LineCounter; data: unknown; warnings: Diagnostic[] }
+  | { ok: false; errors: Diagnostic[]; warnings: Diagnostic[] };
 
 function at(lines: LineCounter, file: string, offset: number, message: string, severity: 'error' | 'warning' = 'error'): Diagnostic {
   const { line, col } = lines.linePos(offset);
   return { severity, file, line, column: col, path: '', message };
 }
 
-/** The key at `offset` and where the same key first stands in its mapping. */
-function duplicateKey(doc: Document.Parsed, lines: LineCounter, offset: number): string {
-  let message = 'duplicate key; each key may appear once in a mapping';
+/**
+ * Keys that are not plain text (a mapping, list or alias as a key, which the data cannot hold)
+ * or are too long to be a name, and every key given a second time in its mapping, at the repeat, naming the line of the first: one
+ * pass with a set per mapping (the parser's own check compares every pair of keys, which takes
+ * minutes on a file of many keys). Keys are compared as the data will hold them, as text.
+ */
+function keyProblems(doc: Document.Parsed, lines: LineCounter, file: string): Diagnostic[] {
+  const found: Diagnostic[] = [];
   visit(doc, {
     Map(_, map) {
-      const pair = map.items.find((p) => isScalar(p.key) && p.key.range?.[0] === offset);
-      if (!pair || !isScalar(pair.key)) return undefined;
-      const name = String(pair.key.value);
-      const first = map.items.find((p) => isScalar(p.key) && String(p.key.value) === name);
-      const firstLine = first && isScalar(first.key) && first.key.range ? lines.linePos(first.key.range[0]).line : undefined;
-      message = `duplicate key "${name}"${firstLine ? ` (first given at line ${firstLine})` : ''}; each key may appear once in a mapping`;
-      return visit.BREAK;
+      const first = new Map<string, number>();
+      for (const pair of map.items) {
+        const key = pair.key as Node | null;
+        const start = key?.range?.[0];
+        if (start === undefined) continue;
+        if (!isScalar(key)) {
+          found.push(at(lines, file, start, `a key must be plain text, but this key is ${isAlias(key) ? 'an alias (*name)' : isMap(key) ? 'a mapping' : 'a list'}`));
+          continue;
+        }
+        const name = String(key.value);
+        if (name.length > MAX_KEY_CHARACTERS) {
+          found.push(at(lines, file, start, `this key is ${name.length.toLocaleString('en-US')} characters long; the keys of a design basis are names of at most ${MAX_KEY_CHARACTERS} characters`));
+          continue;
+        }
+        const earlier = first.get(name);
+        if (earlier === undefined) first.set(name, start);
+        else found.push(at(lines, file, start, `duplicate key "${name}" (first given at line ${lines.linePos(earlier).line}); each key may appear once in a mapping`));
+      }
     },
   });
-  return message;
+  return found;
 }
 
 /** Start of the last quoted scalar that opens before `offset` (where an unclosed quote began). */
@@ -66,11 +83,12 @@ function describe(doc: Document.Parsed, text: string, lines: LineCounter, file: 
   switch (error.code) {
     case 'TAB_AS_INDENT':
       return at(lines, file, offset, 'a tab is used for indentation; YAML indents with spaces only');
-    case 'DUPLICATE_KEY':
-      return at(lines, file, offset, duplicateKey(doc, lines, offset));
     case 'MISSING_CHAR': {
       const quote = /closing (["'])/.exec(error.message)?.[1];
       if (quote) return at(lines, file, openingQuote(doc, offset), `this quoted text has no closing ${quote}`);
+      if (/^Implicit map keys need to be followed by map values/.test(error.message)) {
+        return at(lines, file, offset, 'cannot read this line as "key: value": a key ends with a colon and a space, as in "cells: 1200"');
+      }
       return at(lines, file, offset, plain(error));
     }
     case 'BAD_INDENT':
@@ -100,16 +118,14 @@ function describe(doc: Document.Parsed, text: string, lines: LineCounter, file: 
 }
 
 /**
- * The errors worth showing: every duplicate key, and the first other error only, since the
- * parser's recovery after a syntax error reports follow-on errors that are not mistakes. A
- * compact-mapping error is dropped in favour of the multi-line one at the same place, which
- * knows the line that caused it.
+ * The parser error worth showing: the first only, since the parser's recovery after a syntax
+ * error reports follow-on errors that are not mistakes. A compact-mapping error is dropped in
+ * favour of the multi-line one at the same place, which knows the line that caused it.
  */
 function worthShowing(errors: readonly YAMLError[]): YAMLError[] {
   const multiline = new Set(errors.filter((e) => e.code === 'MULTILINE_IMPLICIT_KEY').map((e) => e.pos[0]));
-  const kept = errors.filter((e) => !(e.code === 'BLOCK_AS_IMPLICIT_KEY' && multiline.has(e.pos[0])));
-  const first = kept.find((e) => e.code !== 'DUPLICATE_KEY');
-  return kept.filter((e) => e.code === 'DUPLICATE_KEY' || e === first);
+  const first = errors.find((e) => !(e.code === 'BLOCK_AS_IMPLICIT_KEY' && multiline.has(e.pos[0])));
+  return first ? [first] : [];
 }
 
 /** The first alias of the document, for locating an alias-count error. */
@@ -124,28 +140,49 @@ function firstAliasOffset(doc: Document.Parsed): number {
   return offset;
 }
 
+/** Text to tokens to one document, as the yaml package's parseDocument does, refusing what yaml-limits.ts refuses before the tree is built. */
+function compose(text: string, lines: LineCounter, file: string): { doc: Document.Parsed } | { problems: Diagnostic[] } {
+  const deep = flowDepthProblem(text);
+  if (deep) {
+    // The parser, which counts lines, has not run.
+    lines.addNewLine(0);
+    for (let i = text.indexOf('\n'); i >= 0; i = text.indexOf('\n', i + 1)) lines.addNewLine(i + 1);
+    return { problems: [at(lines, file, deep.offset, deep.message)] };
+  }
+  const tokens = [...new Parser(lines.addNewLine).parse(text)];
+  const problems = tokenProblems(tokens);
+  if (problems.length) return { problems: problems.map((p) => at(lines, file, p.offset, p.message)) };
+  let doc: Document.Parsed | undefined;
+  for (const next of new Composer({ uniqueKeys: false }).compose(tokens, true, text.length)) {
+    if (!doc) doc = next;
+    else {
+      doc.errors.push(new YAMLParseError([next.range[0], next.range[1]], 'MULTIPLE_DOCS', 'the file holds more than one document'));
+      break;
+    }
+  }
+  return { doc: doc! };
+}
+
 /**
  * Parses the text. Any syntax error stops the check there: the tree after it is unreliable,
  * and checking it would report mistakes that are not there.
  */
 export function parseBasisYaml(text: string, file: string): ParsedYaml {
   const lines = new LineCounter();
-  const doc = parseDocument(text, { lineCounter: lines, prettyErrors: false, uniqueKeys: true });
-  const errors = worthShowing(doc.errors).map((e) => describe(doc, text, lines, file, e));
+  const composed = compose(text, lines, file);
+  if ('problems' in composed) return { ok: false, errors: composed.problems, warnings: [] };
+  const { doc } = composed;
   const warnings = doc.warnings.map((w) => ({ ...describe(doc, text, lines, file, w), severity: 'warning' as const }));
-  const result: ParsedYaml = { doc, lines, errors, warnings };
-  if (errors.length) return result;
+  const errors = [...worthShowing(doc.errors).map((e) => describe(doc, text, lines, file, e)), ...keyProblems(doc, lines, file)];
+  if (errors.length) return { ok: false, errors, warnings };
   if (doc.contents === null || (isScalar(doc.contents) && doc.contents.value === null)) {
-    errors.push(at(lines, file, 0, 'the file holds only comments; start from `cellbasis new`'));
-    return result;
+    return { ok: false, errors: [at(lines, file, 0, 'the file holds only comments; start from `cellbasis new`')], warnings };
   }
   try {
-    result.data = doc.toJS({ maxAliasCount: MAX_ALIASES });
+    return { ok: true, doc, lines, data: doc.toJS({ maxAliasCount: MAX_ALIASES }), warnings };
   } catch (error) {
     if (!/alias/i.test((error as Error).message)) throw error;
-    errors.push(
-      at(lines, file, firstAliasOffset(doc), `the aliases (*name) here expand to too much data; a design basis may expand at most ${MAX_ALIASES} aliases`),
-    );
+    const message = `the aliases (*name) here expand to too much data; a design basis may expand at most ${MAX_ALIASES} aliases`;
+    return { ok: false, errors: [at(lines, file, firstAliasOffset(doc), message)], warnings };
   }
-  return result;
 }

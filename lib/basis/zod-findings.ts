@@ -36,7 +36,7 @@ function generalMessage(issue: z.core.$ZodRawIssue): string | undefined {
 function valueAt(data: unknown, path: Path): { present: boolean } {
   let current: unknown = data;
   for (const segment of path) {
-    if (current === null || typeof current !== 'object' || !(String(segment) in (current as object))) return { present: false };
+    if (current === null || typeof current !== 'object' || !Object.hasOwn(current, String(segment))) return { present: false };
     current = (current as Record<string, unknown>)[String(segment)];
   }
   return { present: current !== undefined };

@@ -30,7 +30,7 @@ export function sizeStack(size: StackSize, statedCells: number | undefined, perC
     const what = size.kind === 'hydrogen' ? `${(delivered * 86400).toFixed(1)} kg/day of hydrogen` : `${(delivered / 1000).toPrecision(4)} kW ${mode === 'power' ? 'net' : 'input'}`;
     const wanted = size.kind === 'hydrogen' ? `${(target * 86400).toFixed(1)} kg/day` : `${(target / 1000).toPrecision(4)} kW`;
     throw new UserError(
-      `conflicting inputs: ${statedCells} cells give ${what} at this operating point, but the target is ${wanted} (${(gap * 100).toFixed(1)} % apart; they must agree within ${AGREEMENT * 100} %, or give only one of them); ${needed} cells would meet the target`,
+      `conflicting inputs: ${statedCells} cells give ${what} at this operating point, but the target is ${wanted} (${(Math.abs(gap) * 100).toFixed(1)} % ${gap < 0 ? 'short of' : 'over'} it; they must agree within ${AGREEMENT * 100} %, or give only one of them); ${needed} cells would meet the target`,
     );
   }
   return { cells: statedCells, from: 'cells' };

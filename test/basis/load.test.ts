@@ -232,7 +232,7 @@ describe('loader API', () => {
   it('refuses a file over the size limit before parsing', () => {
     const result = loadBasisText('#'.repeat(MAX_BASIS_BYTES + 1), FILE, 't');
     expect(result.ok).toBe(false);
-    if (!result.ok) expect(formatDiagnostic(result.errors[0]!)).toBe(`${FILE}:1:1: the file is 5,242,881 bytes; a design basis may be at most 5 MB (5,242,880 bytes): is this the right file?`);
+    if (!result.ok) expect(formatDiagnostic(result.errors[0]!)).toBe(`${FILE}:1:1: the file is 262,145 bytes; a design basis may be at most 256 KiB (262,144 bytes): is this the right file?`);
   });
 
   it('loadBasisFile refuses a large file from its size, before reading it', () => {
@@ -240,7 +240,7 @@ describe('loader API', () => {
     writeFileSync(path, '');
     truncateSync(path, 6 * 1024 * 1024);
     const result = loadBasisFile(path, { displayPath: 'big.yaml' });
-    expect(result.ok ? [] : result.errors.map(formatDiagnostic)).toEqual(['big.yaml:1:1: the file is 6,291,456 bytes; a design basis may be at most 5 MB (5,242,880 bytes): is this the right file?']);
+    expect(result.ok ? [] : result.errors.map(formatDiagnostic)).toEqual(['big.yaml:1:1: the file is 6,291,456 bytes; a design basis may be at most 256 KiB (262,144 bytes): is this the right file?']);
   });
 
   it('loadBasisFile reads the file, names it as displayed and takes the id from its folder', () => {

@@ -1,0 +1,55 @@
+// Every case of the hostile-input corpus (corpus.ts, test/hardening/corpus/) through the real
+// command line, in process: `cellbasis check <id>` and `cellbasis calc <id>` give exactly the
+// exit code and the stderr lines of the case's .expect.json, never a stack trace, in bounded
+// time and memory.
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { run } from '../cli/run.ts';
+import { corpusCases, lines, placeCase, type Outcome } from './corpus.ts';
+
+const CASES = corpusCases();
+
+/** Generous bounds on one run, not a benchmark (npm run bench measures speed): a hostile file must not hang or swell the process. */
+const MAX_SECONDS = 10;
+const MAX_RSS_GROWTH_BYTES = 256 * 1024 * 1024;
+
+/** The outcome check shared with the child-process test. */
+export function expectOutcome(name: string, got: { code: number; out: string; err: string }, want: Outcome): void {
+  expect(got.err, `${name}: a stack trace`).not.toMatch(/\n\s+at /);
+  expect(got.err, `${name}: an internal error`).not.toMatch(/internal error/);
+  const err = lines(got.err);
+  if (want.stderr) expect(err, name).toEqual(want.stderr);
+  if (want.stderrHead) expect(err.slice(0, want.stderrHead.length), name).toEqual(want.stderrHead);
+  if (want.stderrLineCount !== undefined) expect(err.length, name).toBe(want.stderrLineCount);
+  if (want.stdoutFirstLine !== undefined) expect(lines(got.out)[0], name).toBe(want.stdoutFirstLine);
+  expect(got.code, `${name}: exit code`).toBe(want.exit);
+}
+
+describe('hostile-input corpus', () => {
+  it('holds at least 60 committed files and covers every kind the hardening issue names', () => {
+    const files = CASES.filter((c) => !c.generate);
+    expect(files.length).toBeGreaterThanOrEqual(60);
+    const kinds = ['yaml-tab', 'yaml-duplicate', 'yaml-unclosed', 'yaml-wrong-indentation', 'encoding-bom-accepted', 'encoding-crlf-accepted', 'encoding-latin1', 'empty-file', 'whitespace-only', 'size-50-mb', 'nesting-10000-lists', 'nesting-10000-mappings', 'alias-billion-laughs', 'tag-js-function', 'tag-custom', 'type-', 'unit-', 'range-', 'composition-sum', 'composition-unknown-species', 'conflict-cells-and-target-power', 'fuel-cannot-reach-utilization', 'voltage-above-nernst', 'range-7000-k', 'range-minus-300-c', 'range-liquid-water-800-c'];
+    for (const kind of kinds) expect(CASES.some((c) => c.name.startsWith(kind)), kind).toBe(true);
+    for (const c of CASES) {
+      expect(c.about, c.name).toMatch(/\S/);
+      expect(Object.keys(c.commands).sort(), c.name).toEqual(['calc', 'check']);
+    }
+  });
+
+  it.each(CASES.map((c) => [c.name, c] as const))('%s', async (_name, c) => {
+    const root = mkdtempSync(join(tmpdir(), 'cellbasis-corpus-'));
+    placeCase(c, root);
+    for (const [command, want] of Object.entries(c.commands)) {
+      const rssBefore = process.memoryUsage().rss;
+      const started = performance.now();
+      const got = await run([command, c.name], root);
+      const seconds = (performance.now() - started) / 1000;
+      expectOutcome(`${c.name} (${command})`, got, want);
+      expect(seconds, `${c.name} (${command}): seconds`).toBeLessThan(MAX_SECONDS);
+      expect(process.memoryUsage().rss - rssBefore, `${c.name} (${command}): RSS growth`).toBeLessThan(MAX_RSS_GROWTH_BYTES);
+    }
+  });
+});

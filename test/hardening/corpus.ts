@@ -1,0 +1,81 @@
+// The hostile-input corpus of test/hardening/corpus/: each case is a file <name>.yaml (or, for
+// the few too large to commit, a recipe to make one) and <name>.expect.json with, for each
+// command run on it, the exit code and every line it writes on stderr.
+import { closeSync, copyFileSync, mkdirSync, openSync, readdirSync, readFileSync, writeSync } from 'node:fs';
+import { join } from 'node:path';
+
+export const CORPUS = new URL('./corpus/', import.meta.url).pathname;
+
+/** What one command must give on the case. */
+export interface Outcome {
+  exit: number;
+  /** Every line on stderr, in order. */
+  stderr?: string[];
+  /** For cases whose stderr is too long to list: its first lines and its line count. */
+  stderrHead?: string[];
+  stderrLineCount?: number;
+  /** The first line on stdout, for accepted files. */
+  stdoutFirstLine?: string;
+}
+
+/** A file made by the test instead of committed: `sparse` of `bytes` zero bytes, or `numbered-lines` of "k<i>: 1" up to `bytes`. */
+export interface Recipe {
+  kind: 'sparse' | 'numbered-lines' | 'comment';
+  bytes: number;
+}
+
+export interface CorpusCase {
+  name: string;
+  about: string;
+  /** Commands by name (check, calc) with what each must give. */
+  commands: Record<string, Outcome>;
+  /** Commands also run as child processes (node bin/cellbasis.js). */
+  process?: string[];
+  generate?: Recipe;
+}
+
+export function corpusCases(): CorpusCase[] {
+  return readdirSync(CORPUS)
+    .filter((f) => f.endsWith('.expect.json'))
+    .sort()
+    .map((f) => {
+      const name = f.slice(0, -'.expect.json'.length);
+      const { about, process, generate, ...commands } = JSON.parse(readFileSync(join(CORPUS, f), 'utf8'));
+      return { name, about, commands, ...(process ? { process } : {}), ...(generate ? { generate } : {}) };
+    });
+}
+
+/** Writes a recipe's file: sparse (no disk or memory used for its size), or text in 64 KiB writes. */
+function make(recipe: Recipe, path: string): void {
+  const fd = openSync(path, 'w');
+  try {
+    if (recipe.kind === 'sparse') {
+      if (recipe.bytes > 0) writeSync(fd, Buffer.alloc(1), 0, 1, recipe.bytes - 1);
+      return;
+    }
+    let text = '';
+    for (let i = 0; ; i += 1) {
+      const line = recipe.kind === 'comment' ? `#${'-'.repeat(62)}\n` : `k${i}: 1\n`;
+      if (text.length + line.length > recipe.bytes) break;
+      text += line;
+    }
+    if (recipe.kind === 'comment') text += '#'.repeat(recipe.bytes - text.length);
+    writeSync(fd, text);
+  } finally {
+    closeSync(fd);
+  }
+}
+
+/** Puts the case at projects/<name>/basis.yaml under `root`, so messages name projects/<name>/basis.yaml. */
+export function placeCase(c: CorpusCase, root: string): void {
+  const folder = join(root, 'projects', c.name);
+  mkdirSync(folder, { recursive: true });
+  const target = join(folder, 'basis.yaml');
+  if (c.generate) make(c.generate, target);
+  else copyFileSync(join(CORPUS, `${c.name}.yaml`), target);
+}
+
+/** Stderr as lines (without the final newline's empty line). */
+export function lines(text: string): string[] {
+  return text === '' ? [] : text.replace(/\n$/, '').split('\n');
+}
