@@ -22,7 +22,7 @@
  * For tests of interruption, `pauseAt` names a step (SEAL_STEPS) at which the seal stops and
  * waits until it is killed; the CLI takes it from CELLBASIS_SEAL_PAUSE.
  */
-import { existsSync, mkdirSync, readFileSync, rmSync, renameSync, rmdirSync } from 'node:fs';
+import { existsSync, mkdirSync, rmSync, renameSync, rmdirSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import type { KeyObject } from 'node:crypto';
 import { loadBasisText } from '../basis/load.ts';
@@ -33,7 +33,6 @@ import { calculate } from '../plant/calculate.ts';
 import type { Results } from '../plant/results-schema.ts';
 import { speciesDataHash } from '../thermo/species-data.ts';
 import { toolVersion } from '../cli/version.ts';
-import { decodeBasisBytes } from '../basis/source-text.ts';
 import { documentPdfMeta, findChromium, ChromiumMissingError, withPdfPrinter } from '../publish/pdf.ts';
 import { EXIT_USAGE, EXIT_VALIDATION, UserError } from '../errors.ts';
 import { SEALED_FILES, sealedDir, sealedRoot, type SealManifest } from './layout.ts';
@@ -46,6 +45,7 @@ import { manifestBytes, signOffOf } from './manifest.ts';
 import { sha256Hex } from './hash.ts';
 import { publicKeyPem, readPrivateKey, signBytes } from './signature.ts';
 import { syncFolder, writeFileDurably } from './durable-write.ts';
+import { readWorkingBasis } from './working-basis.ts';
 
 /** The statuses a revision may be sealed with. */
 export const SEALABLE_STATUSES: readonly DocumentStatus[] = DOCUMENT_STATUSES.filter((s) => s !== 'draft' && s !== 'superseded');
@@ -130,20 +130,6 @@ async function pause(options: SealOptions, step: SealStep): Promise<void> {
   await new Promise(() => setInterval(() => undefined, 1 << 30));
 }
 
-/** The working basis: its bytes as read once, validated; errors throw a BasisError. */
-function readWorkingBasis(options: SealOptions): { text: string; basis: DesignBasis; display: string } {
-  const path = projectBasisPath(options.project, options.cwd);
-  const display = `projects/${options.project}/basis.yaml`;
-  if (!existsSync(path)) throw new UserError(`seal: ${display}: no such file (create the project with cellbasis new ${options.project})`, EXIT_USAGE);
-  const bytes = readFileSync(path);
-  const loaded = loadBasisText(bytes, display, options.project);
-  for (const w of loaded.warnings) options.warn?.(w);
-  if (!loaded.ok) throw new BasisError(loaded.errors, loaded.warnings);
-  const decoded = decodeBasisBytes(bytes, display);
-  if (!decoded.ok) throw new BasisError(decoded.errors);
-  return { text: decoded.text, basis: loaded.basis, display };
-}
-
 /** The sealed basis and its results; a calculation error is reported against the working file. */
 function sealedContent(working: { text: string; basis: DesignBasis }, options: SealOptions, status: DocumentStatus): { text: string; basis: DesignBasis; results: Results } {
   const text = sealedBasisText(working.text, options.revision, status);
@@ -158,12 +144,13 @@ function sealedContent(working: { text: string; basis: DesignBasis }, options: S
 }
 
 export async function sealRevision(options: SealOptions): Promise<SealOutcome> {
+  projectBasisPath(options.project, options.cwd);
   const display = `projects/${options.project}`;
   const status = checkStatus(options.status);
   const sealDate = resolveSealDate(options.date, options.env ?? {}, options.now);
   const key: KeyObject | undefined = options.keyPath ? readPrivateKey(resolve(options.cwd, options.keyPath), options.keyPath) : undefined;
   checkNext(readSealedFolder(options.cwd, options.project), options.revision, display);
-  const working = readWorkingBasis(options);
+  const working = readWorkingBasis(options.cwd, options.project, options.warn);
   if (findChromium() === null) throw new ChromiumMissingError();
 
   const root = sealedRoot(options.cwd, options.project);

@@ -13,16 +13,15 @@ import { readRevisionSide } from '../../archive/revision-sides.ts';
 
 function sections(changes: RevisionChanges): string {
   const out: string[] = [];
+  const lines = (title: string, list: { text: string }[]) => (list.length ? [`${title}\n${list.map((c) => `  ${c.text}\n`).join('')}`] : []);
   if (changes.inputs.length) {
-    out.push('inputs changed', grid(['input', 'old', 'new', 'field'], changes.inputs.map((c) => [c.label, oldInput(c), newInput(c), c.path])));
+    out.push(`inputs changed\n${grid(['input', 'old', 'new', 'field'], changes.inputs.map((c) => [c.label, oldInput(c), newInput(c), c.path]))}`);
   }
-  if (changes.fields.length) out.push('other fields changed', ...changes.fields.map((c) => `  ${c.text}\n`));
-  if (changes.assumptions.length) out.push('assumptions', ...changes.assumptions.map((c) => `  ${c.text}\n`));
-  if (changes.references.length) out.push('references', ...changes.references.map((c) => `  ${c.text}\n`));
+  out.push(...lines('other fields changed', changes.fields), ...lines('assumptions', changes.assumptions), ...lines('references', changes.references));
   if (changes.results.length) {
-    out.push('headline results changed', grid(['result', 'old', 'new', 'change'], changes.results.map((r) => [r.label, r.oldText, r.newText, r.changeText])));
+    out.push(`headline results changed\n${grid(['result', 'old', 'new', 'change'], changes.results.map((r) => [r.label, r.oldText, r.newText, r.changeText]))}`);
   }
-  return out.map((s) => (s.endsWith('\n') ? s : `${s}\n`)).join('');
+  return out.join('\n');
 }
 
 function withSource(text: string | undefined, source: string | undefined): string {
