@@ -113,6 +113,9 @@ function checkStatus(status: string): DocumentStatus {
 
 /** Refuses a revision that exists or does not follow the last sealed one. */
 function checkNext(folder: SealedFolder, revision: string, display: string): void {
+  if (folder.other.includes(revision)) {
+    throw new UserError(`seal: ${display}/sealed/${revision} exists and is not a sealed revision folder; move it away before sealing revision ${revision}`, EXIT_USAGE);
+  }
   if (folder.revisions.includes(revision)) {
     const next = successors(lastRevision(folder)).join(' or ');
     throw new UserError(`seal: revision ${revision} of ${display} is sealed already (${display}/sealed/${revision}); a sealed revision is never rewritten: seal the next revision, ${next}`, EXIT_USAGE);

@@ -1,6 +1,6 @@
 // cellbasis seal: what a sealed revision holds, the PDF in it, what seal refuses (changing
 // nothing), reproducibility and SOURCE_DATE_EPOCH.
-import { readFileSync, statSync, writeFileSync } from 'node:fs';
+import { readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { run } from '../cli/run.ts';
@@ -144,6 +144,12 @@ describeWithChromium('seal', () => {
       expect(result.err.split('\n').length, 'one line, no stack').toBe(2);
     }
     expect((await run(['seal', PROJECT, '--status', 'approved'], cwd)).err).toMatch(/--rev is required/);
+    writeFileSync(join(cwd, 'projects', PROJECT, 'sealed', 'B'), 'not a revision\n');
+    const blocked = await seal(cwd, ['B', '--status', 'approved']);
+    expect(blocked.code).toBe(2);
+    expect(blocked.err).toMatch(/warning: revision B is a letter, the numbering before approval/);
+    expect(blocked.err).toMatch(/projects\/demo\/sealed\/B exists and is not a sealed revision folder/);
+    rmSync(join(cwd, 'projects', PROJECT, 'sealed', 'B'));
     expect(treeDigest(cwd)).toEqual(before);
   });
 

@@ -32,12 +32,17 @@ export const sealCommand: Command = {
   ],
   async run(args, io) {
     const project = args.positionals[0]!;
+    const revision = requireString(args, 'rev', 'seal');
+    const status = requireString(args, 'status', 'seal');
+    if (status === 'approved' && /^[A-Z]/.test(revision)) {
+      io.err(`cellbasis: warning: revision ${revision} is a letter, the numbering before approval; an approved revision is usually numbered 0, 1, 2, ... (ASME Y14.35 practice)\n`);
+    }
     const pauseAt = process.env.CELLBASIS_SEAL_PAUSE;
     const outcome = await sealRevision({
       cwd: io.cwd,
       project,
-      revision: requireString(args, 'rev', 'seal'),
-      status: requireString(args, 'status', 'seal'),
+      revision,
+      status,
       note: optionalString(args, 'note'),
       keyPath: optionalString(args, 'key'),
       date: optionalString(args, 'date'),
