@@ -14,7 +14,8 @@
  * recomputing. This module only names the paths and the manifest's shape; sealing, auditing and
  * comparing live beside it in lib/archive.
  */
-import { join } from 'node:path';
+import { existsSync, readdirSync } from 'node:fs';
+import { isAbsolute, join, relative, resolve, sep } from 'node:path';
 import type { DocumentStatus } from '../basis/types.ts';
 
 export const SEALED_DIR = 'sealed';
@@ -72,4 +73,29 @@ export function sealedRoot(cwd: string, projectId: string): string {
 /** projects/<id>/sealed/<rev>. */
 export function sealedDir(cwd: string, projectId: string, revision: string): string {
   return join(sealedRoot(cwd, projectId), revision);
+}
+
+/**
+ * The sealed folder that writing or replacing `target` would touch, or null: `target` inside a
+ * projects/<id>/sealed folder, or a folder that holds one (replacing `projects/` or the working
+ * folder itself would take the sealed revisions with it). For commands that write or replace
+ * folders they are given (`build --out`), so that no command but seal ever writes there.
+ */
+export function sealedFolderAt(cwd: string, target: string): string | null {
+  const projects = resolve(cwd, 'projects');
+  const path = resolve(cwd, target);
+  const within = (outer: string, inner: string) => {
+    const rel = relative(outer, inner);
+    return rel === '' || (!rel.startsWith('..') && !isAbsolute(rel));
+  };
+  if (within(projects, path)) {
+    const [id, dir] = relative(projects, path).split(sep);
+    if (id && dir === SEALED_DIR) return join(projects, id, SEALED_DIR);
+  }
+  if (!existsSync(projects)) return null;
+  for (const id of readdirSync(projects)) {
+    const sealed = join(projects, id, SEALED_DIR);
+    if (existsSync(sealed) && within(path, sealed)) return sealed;
+  }
+  return null;
 }
