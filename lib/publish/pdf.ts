@@ -284,10 +284,10 @@ async function loadForPrint(page: Page, url: string, timeoutMs: number): Promise
   }
 }
 
-/** Waiting list of a fixed number of pages. */
+/** At most `size` pages; a print waits for a free one. */
 class PagePool {
   private readonly idle: Page[] = [];
-  private readonly waiting: ((page: Page) => void)[] = [];
+  private readonly waiting: { resolve: (page: Page) => void; reject: (error: unknown) => void }[] = [];
   private created = 0;
 
   constructor(
@@ -295,33 +295,35 @@ class PagePool {
     private readonly size: number,
   ) {}
 
-  async acquire(): Promise<Page> {
-    const idle = this.idle.pop();
-    if (idle) return idle;
-    if (this.created < this.size) {
-      this.created += 1;
-      try {
-        return await this.context.newPage();
-      } catch (error) {
-        this.created -= 1;
-        throw error;
-      }
+  private async create(): Promise<Page> {
+    this.created += 1;
+    try {
+      return await this.context.newPage();
+    } catch (error) {
+      this.created -= 1;
+      throw error;
     }
-    return new Promise((resolve) => this.waiting.push(resolve));
+  }
+
+  acquire(): Promise<Page> {
+    const idle = this.idle.pop();
+    if (idle) return Promise.resolve(idle);
+    if (this.created < this.size) return this.create();
+    return new Promise((resolve, reject) => this.waiting.push({ resolve, reject }));
   }
 
   release(page: Page): void {
     const next = this.waiting.shift();
-    if (next) next(page);
+    if (next) next.resolve(page);
     else this.idle.push(page);
   }
 
-  /** A page that failed is closed and replaced by a fresh one for whoever waits. */
+  /** A page that failed is closed; whoever waits gets a fresh one. */
   async discard(page: Page): Promise<void> {
-    await page.close().catch(() => undefined);
     this.created -= 1;
+    await page.close().catch(() => undefined);
     const next = this.waiting.shift();
-    if (next) this.acquire().then(next, () => this.waiting.unshift(next));
+    if (next) this.create().then(next.resolve, next.reject);
   }
 }
 
