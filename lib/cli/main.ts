@@ -3,7 +3,7 @@
  * on stderr and an exit code (0 ok, 1 validation or audit failure, 2 usage, 3 internal).
  */
 import { helpText, parseCommandArgs, type Command, type Io } from './command.ts';
-import { UserError, EXIT_INTERNAL, EXIT_USAGE } from '../errors.ts';
+import { UserError, EXIT_INTERNAL, EXIT_OK, EXIT_USAGE } from '../errors.ts';
 import { reactionCommand } from './commands/reaction.ts';
 import { speciesCommand } from './commands/species.ts';
 import { equilibriumCommand } from './commands/equilibrium.ts';
@@ -38,35 +38,37 @@ function overview(): string {
   ].join('\n');
 }
 
-export const processIo = (): Io => ({
-  out: (t) => process.stdout.write(t),
-  err: (t) => process.stderr.write(t),
-  isTTY: process.stderr.isTTY === true,
-  cwd: process.cwd(),
-});
+let pipesWatched = false;
 
+/**
+ * A reader that stops early (`cellbasis schema | head -1`) closes the pipe, and the next write
+ * fails with EPIPE as an event no caller can catch: end quietly then, as other command-line
+ * tools do, rather than with Node's report of an unhandled error.
+ */
+function endQuietlyOnClosedPipes(): void {
+  if (pipesWatched) return;
+  pipesWatched = true;
+  for (const stream of [process.stdout, process.stderr]) {
+    stream.on('error', (error: NodeJS.ErrnoException) => {
+      process.exit(error.code === 'EPIPE' ? (process.exitCode ?? EXIT_OK) : EXIT_INTERNAL);
+    });
+  }
+}
+
+export const processIo = (): Io => {
+  endQuietlyOnClosedPipes();
+  return {
+    out: (t) => process.stdout.write(t),
+    err: (t) => process.stderr.write(t),
+    isTTY: process.stderr.isTTY === true,
+    cwd: process.cwd(),
+  };
+};
+
+/** Runs one command; every error becomes a message on stderr and an exit code, never a stack trace (unless CELLBASIS_DEBUG is set). */
 export async function main(argv: string[], io: Io = processIo()): Promise<number> {
-  const [name, ...rest] = argv;
-  if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
-    io.out(overview());
-    return name === undefined ? EXIT_USAGE : 0;
-  }
-  if (name === '--version') {
-    io.out(`${toolVersion()}\n`);
-    return 0;
-  }
-  const command = COMMANDS.find((c) => c.name === name);
-  if (!command) {
-    io.err(`cellbasis: unknown command "${name}"; commands: ${COMMANDS.map((c) => c.name).join(', ')}\n`);
-    return EXIT_USAGE;
-  }
   try {
-    const args = parseCommandArgs(command, rest);
-    if (args === 'help') {
-      io.out(helpText(command));
-      return 0;
-    }
-    return await command.run(args, io);
+    return await dispatch(argv, io);
   } catch (error) {
     if (error instanceof UserError) {
       io.err(`cellbasis: ${error.message}\n`);
@@ -77,4 +79,27 @@ export async function main(argv: string[], io: Io = processIo()): Promise<number
     if (process.env.CELLBASIS_DEBUG && error instanceof Error && error.stack) io.err(`${error.stack}\n`);
     return EXIT_INTERNAL;
   }
+}
+
+async function dispatch(argv: string[], io: Io): Promise<number> {
+  const [name, ...rest] = argv;
+  if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
+    io.out(overview());
+    return name === undefined ? EXIT_USAGE : EXIT_OK;
+  }
+  if (name === '--version') {
+    io.out(`${toolVersion()}\n`);
+    return EXIT_OK;
+  }
+  const command = COMMANDS.find((c) => c.name === name);
+  if (!command) {
+    io.err(`cellbasis: unknown command ${JSON.stringify(name)}; commands: ${COMMANDS.map((c) => c.name).join(', ')}\n`);
+    return EXIT_USAGE;
+  }
+  const args = parseCommandArgs(command, rest);
+  if (args === 'help') {
+    io.out(helpText(command));
+    return EXIT_OK;
+  }
+  return await command.run(args, io);
 }

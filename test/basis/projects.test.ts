@@ -29,11 +29,13 @@ describe('projects', () => {
     expect(resolveProjectArg('alpha', cwd)).toEqual({ path: join(cwd, 'projects', 'alpha', 'basis.yaml'), displayPath: 'projects/alpha/basis.yaml', id: 'alpha' });
   });
 
-  it('an argument ending in .yaml or .yml, or with a path separator, is a file', () => {
+  it('an argument ending in .yaml or .yml is a file; another with a path separator is refused (exit 2)', () => {
     const cwd = workspace();
     expect(resolveProjectArg('site.yml', cwd)).toEqual({ path: join(cwd, 'site.yml'), displayPath: 'site.yml', id: 'basis' });
     expect(resolveProjectArg('projects/beta/basis.yaml', cwd)).toMatchObject({ path: join(cwd, 'projects/beta/basis.yaml'), id: 'beta' });
-    expect(resolveProjectArg('somewhere/else', cwd).path).toBe(join(cwd, 'somewhere/else'));
+    const error = refusal('somewhere/else', cwd);
+    expect(error.exitCode).toBe(2);
+    expect(error.message).toBe('"somewhere/else" names neither a project (an id such as chp-1, for projects/chp-1/basis.yaml) nor a design-basis file (a path ending in .yaml or .yml)');
   });
 
   it('refuses ids that are not plain names or contain "..", with exit code 2', () => {

@@ -7,25 +7,13 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { run } from '../cli/run.ts';
-import { corpusCases, lines, placeCase, type Outcome } from './corpus.ts';
+import { corpusCases, expectOutcome, placeCase } from './corpus.ts';
 
 const CASES = corpusCases();
 
 /** Generous bounds on one run, not a benchmark (npm run bench measures speed): a hostile file must not hang or swell the process. */
 const MAX_SECONDS = 10;
 const MAX_RSS_GROWTH_BYTES = 256 * 1024 * 1024;
-
-/** The outcome check shared with the child-process test. */
-export function expectOutcome(name: string, got: { code: number; out: string; err: string }, want: Outcome): void {
-  expect(got.err, `${name}: a stack trace`).not.toMatch(/\n\s+at /);
-  expect(got.err, `${name}: an internal error`).not.toMatch(/internal error/);
-  const err = lines(got.err);
-  if (want.stderr) expect(err, name).toEqual(want.stderr);
-  if (want.stderrHead) expect(err.slice(0, want.stderrHead.length), name).toEqual(want.stderrHead);
-  if (want.stderrLineCount !== undefined) expect(err.length, name).toBe(want.stderrLineCount);
-  if (want.stdoutFirstLine !== undefined) expect(lines(got.out)[0], name).toBe(want.stdoutFirstLine);
-  expect(got.code, `${name}: exit code`).toBe(want.exit);
-}
 
 describe('hostile-input corpus', () => {
   it('holds at least 60 committed files and covers every kind the hardening issue names', () => {

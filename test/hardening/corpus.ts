@@ -3,6 +3,7 @@
 // command run on it, the exit code and every line it writes on stderr.
 import { closeSync, copyFileSync, mkdirSync, openSync, readdirSync, readFileSync, writeSync } from 'node:fs';
 import { join } from 'node:path';
+import { expect } from 'vitest';
 
 export const CORPUS = new URL('./corpus/', import.meta.url).pathname;
 
@@ -78,4 +79,16 @@ export function placeCase(c: CorpusCase, root: string): void {
 /** Stderr as lines (without the final newline's empty line). */
 export function lines(text: string): string[] {
   return text === '' ? [] : text.replace(/\n$/, '').split('\n');
+}
+
+/** Checks one run against its outcome: no stack trace, no internal error, the exact stderr lines, the exit code. */
+export function expectOutcome(name: string, got: { code: number; out: string; err: string }, want: Outcome): void {
+  expect(got.err, `${name}: a stack trace`).not.toMatch(/\n\s+at /);
+  expect(got.err, `${name}: an internal error`).not.toMatch(/internal error/);
+  const err = lines(got.err);
+  if (want.stderr) expect(err, name).toEqual(want.stderr);
+  if (want.stderrHead) expect(err.slice(0, want.stderrHead.length), name).toEqual(want.stderrHead);
+  if (want.stderrLineCount !== undefined) expect(err.length, name).toBe(want.stderrLineCount);
+  if (want.stdoutFirstLine !== undefined) expect(lines(got.out)[0], name).toBe(want.stdoutFirstLine);
+  expect(got.code, `${name}: exit code`).toBe(want.exit);
 }
