@@ -7,7 +7,7 @@ import type { QuotientTerm } from './electrode-reactions.ts';
 import { texPressure } from './tex.ts';
 
 function factor(term: QuotientTerm, base: string): string {
-  return Math.abs(term.power) === 0.5 ? `${base}^{1/2}` : base;
+  return Math.abs(term.power) === 0.5 ? `{${base}}^{1/2}` : base;
 }
 
 /** `\frac{numerator}{denominator}` (or the numerator alone) of the terms, each shown by `show`. */

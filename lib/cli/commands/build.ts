@@ -7,8 +7,9 @@ import { join, relative } from 'node:path';
 import type { Command } from '../command.ts';
 import { optionalString } from '../command.ts';
 import { listProjects } from '../../basis/projects.ts';
-import { UserError } from '../../errors.ts';
+import { EXIT_VALIDATION, UserError } from '../../errors.ts';
 import { buildSite } from '../../publish/build.ts';
+import { SiteError } from '../../publish/site-problems.ts';
 
 export const buildCommand: Command = {
   name: 'build',
@@ -25,7 +26,15 @@ export const buildCommand: Command = {
       throw new UserError('build: no design bases under projects/ here; create one with cellbasis new ID --technology TECH');
     }
     const out = optionalString(args, 'out');
-    const report = await buildSite({ root: io.cwd, out: out === undefined ? join(io.cwd, 'site') : join(io.cwd, out) });
+    let report;
+    try {
+      report = await buildSite({ root: io.cwd, out: out === undefined ? join(io.cwd, 'site') : join(io.cwd, out) });
+    } catch (error) {
+      if (!(error instanceof SiteError)) throw error;
+      // Each problem on a line of its own, as check prints them; then the one-line verdict.
+      for (const line of [...error.errors, ...error.warnings]) io.err(`${line}\n`);
+      throw new UserError(`build: ${error.errors.length} error${error.errors.length === 1 ? '' : 's'} in the projects; the site was not built and the previous site is left as it was`, EXIT_VALIDATION);
+    }
     for (const w of report.warnings) io.err(`${w}\n`);
     io.out(`built ${report.documents} document page${report.documents === 1 ? '' : 's'} and the index into ${relative(io.cwd, report.out) || '.'}/\n`);
     return 0;

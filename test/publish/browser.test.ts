@@ -1,0 +1,137 @@
+// The built site in a real browser, opened from disk with no network: Debian's Chromium driven by
+// playwright-core (never a downloaded browser). Every page: no console error, no failed request
+// and no request that is not file://, no KaTeX error, every chart drawn, every section present,
+// the page marked ready for printing, and the data tables shown in print. Full-page screenshots go
+// to test-artifacts/. Without /usr/bin/chromium the test skips loudly, except under CI, where it fails.
+import { existsSync, mkdirSync, rmSync } from 'node:fs';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { chromium, type Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { buildSite } from '../../lib/publish/build.ts';
+import { PACKAGE_ROOT } from '../../lib/publish/paths.ts';
+import { EPOCH, htmlPages, sealedDemoRoot } from './helpers.ts';
+
+const CHROMIUM = '/usr/bin/chromium';
+const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];
+const ARTIFACTS = join(PACKAGE_ROOT, 'test-artifacts');
+const DOCUMENT_SECTIONS = ['title-block', 'contents', 'purpose', 'summary', 'inputs', 'assumptions', 'method', 'results', 'charts', 'hazards', 'verification', 'references', 'history'];
+
+const available = existsSync(CHROMIUM);
+if (!available && !process.env.CI) {
+  console.warn(`\n*** SKIPPED the browser test of the site: no Chromium at ${CHROMIUM} (apt-get install -y chromium); it runs, and must pass, whenever CI is set ***\n`);
+}
+
+interface PageReport {
+  consoleErrors: string[];
+  failed: string[];
+  foreign: string[];
+  katexErrors: number;
+  ready: string | undefined;
+  sections: string[];
+  canvases: { id: string; painted: number; width: number }[];
+  hiddenInPrint: number;
+}
+
+describe.skipIf(!available && !process.env.CI)('the built site in Chromium, from disk', () => {
+  let root: string;
+  let site: string;
+  let browser: Browser;
+  const reports = new Map<string, PageReport>();
+
+  beforeAll(async () => {
+    root = await sealedDemoRoot();
+    site = join(root, 'site');
+    await buildSite({ root, env: EPOCH });
+    browser = await chromium.launch({ executablePath: CHROMIUM, args: ARGS });
+    rmSync(ARTIFACTS, { recursive: true, force: true });
+    mkdirSync(ARTIFACTS, { recursive: true });
+    for (const path of htmlPages(site)) reports.set(path, await visit(browser, join(site, path), path));
+  }, 300_000);
+
+  afterAll(async () => {
+    await browser?.close();
+    if (root) rmSync(root, { recursive: true, force: true });
+  });
+
+  async function visit(b: Browser, file: string, path: string): Promise<PageReport> {
+    const context = await b.newContext({ viewport: { width: 1000, height: 1400 }, deviceScaleFactor: 1 });
+    const page = await context.newPage();
+    const report: PageReport = { consoleErrors: [], failed: [], foreign: [], katexErrors: 0, ready: undefined, sections: [], canvases: [], hiddenInPrint: 0 };
+    await page.route('**/*', (route) => {
+      const url = route.request().url();
+      if (url.startsWith('file://')) return route.continue();
+      report.foreign.push(url);
+      return route.abort();
+    });
+    page.on('console', (m) => {
+      if (m.type() === 'error') report.consoleErrors.push(m.text());
+    });
+    page.on('pageerror', (e) => report.consoleErrors.push(e.message));
+    page.on('requestfailed', (r) => report.failed.push(`${r.url()} (${r.failure()?.errorText ?? 'failed'})`));
+    await page.goto(pathToFileURL(file).href, { waitUntil: 'load' });
+    await page.waitForFunction(() => document.documentElement.dataset.chartsReady === 'true', null, { timeout: 30_000 }).catch(() => undefined);
+    report.ready = await page.evaluate(() => document.documentElement.dataset.chartsReady);
+    report.katexErrors = await page.locator('.katex-error').count();
+    report.sections = await page.evaluate(() => [...document.querySelectorAll('[id]')].map((e) => e.id));
+    report.canvases = await page.evaluate(() =>
+      [...document.querySelectorAll('canvas')].map((c) => {
+        const ctx = (c as HTMLCanvasElement).getContext('2d')!;
+        const { data } = ctx.getImageData(0, 0, (c as HTMLCanvasElement).width, (c as HTMLCanvasElement).height);
+        let painted = 0;
+        for (let i = 3; i < data.length; i += 4) if (data[i]! > 0) painted++;
+        return { id: c.id, painted, width: c.getBoundingClientRect().width };
+      }),
+    );
+    await page.screenshot({ path: join(ARTIFACTS, `${path.replace(/\/index\.html$|\.html$/, '').replace(/\//g, '_') || 'index'}.png`), fullPage: true });
+    await page.emulateMedia({ media: 'print' });
+    report.hiddenInPrint = await page.evaluate(() => [...document.querySelectorAll('details table')].filter((t) => t.getBoundingClientRect().height === 0).length);
+    await context.close();
+    return report;
+  }
+
+  it('opened every page: the index, four drafts and two sealed revisions', () => {
+    expect([...reports.keys()].length).toBe(7);
+  });
+
+  it('logs no console error and fails no request', () => {
+    for (const [path, r] of reports) {
+      expect(r.consoleErrors, path).toEqual([]);
+      expect(r.failed, path).toEqual([]);
+    }
+  });
+
+  it('asks for nothing but files from disk', () => {
+    for (const [path, r] of reports) expect(r.foreign, path).toEqual([]);
+  });
+
+  it('renders every equation without a KaTeX error', () => {
+    for (const [path, r] of reports) expect(r.katexErrors, path).toBe(0);
+  });
+
+  it('draws every chart: each canvas has paint on it, at its fixed size', () => {
+    for (const [path, r] of reports) {
+      if (path === 'index.html') continue;
+      expect(r.canvases.length, path).toBeGreaterThanOrEqual(6);
+      for (const c of r.canvases) {
+        expect(c.painted, `${path} ${c.id}`).toBeGreaterThan(2000);
+        expect(c.width, `${path} ${c.id}`).toBe(640);
+      }
+    }
+  });
+
+  it('has every section of the document, and the index its table', () => {
+    for (const [path, r] of reports) {
+      if (path === 'index.html') expect(r.sections).toContain('portfolio');
+      else for (const id of DOCUMENT_SECTIONS) expect(r.sections, `${path} #${id}`).toContain(id);
+    }
+  });
+
+  it('marks every page ready for the PDF printer', () => {
+    for (const [path, r] of reports) expect(r.ready, path).toBe('true');
+  });
+
+  it('shows the data tables of the charts when printed', () => {
+    for (const [path, r] of reports) expect(r.hiddenInPrint, path).toBe(0);
+  });
+});

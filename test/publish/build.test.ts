@@ -1,0 +1,127 @@
+// cellbasis build: every page of the demo projects and their sealed revisions, byte-identical on a
+// second build, the draft date from SOURCE_DATE_EPOCH, and all or nothing: a basis with errors
+// fails with its located diagnostics (exit 1) and leaves the previous site exactly as it was.
+import { existsSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { buildSite } from '../../lib/publish/build.ts';
+import { loadSiteModel } from '../../lib/publish/site-model.ts';
+import { renderView } from '../../lib/publish/render.ts';
+import { run } from '../cli/run.ts';
+import { basisFile, demoRoot, EPOCH, htmlPages, sealedDemoRoot, SOFC, treeDigest } from './helpers.ts';
+
+let root: string;
+
+beforeAll(async () => {
+  root = await sealedDemoRoot();
+}, 120_000);
+
+afterAll(() => rmSync(root, { recursive: true, force: true }));
+
+describe('a build of the demo projects', () => {
+  let site: string;
+  beforeAll(async () => {
+    site = join(root, 'site');
+    await buildSite({ root, env: EPOCH });
+  }, 180_000);
+
+  it('writes the index, one page per working draft and one per sealed revision, with the sealed PDFs and the assets', () => {
+    expect(htmlPages(site)).toEqual([
+      'index.html',
+      'projects/corrin-beck-mcfc-biogas/index.html',
+      'projects/hob-tor-pem-backup/index.html',
+      'projects/kestrelford-pem-electrolyser/index.html',
+      'projects/thistlemere-sofc-chp/index.html',
+      'projects/thistlemere-sofc-chp/rev-A/index.html',
+      'projects/thistlemere-sofc-chp/rev-B/index.html',
+    ]);
+    expect(existsSync(join(site, 'projects', SOFC, 'rev-A', 'document.pdf'))).toBe(true);
+    for (const asset of ['assets/katex/katex.min.css', 'assets/katex/fonts/KaTeX_Main-Regular.woff2', 'assets/chart.umd.min.js', 'assets/charts.js', 'assets/report.css']) {
+      expect(existsSync(join(site, asset)), asset).toBe(true);
+    }
+    expect(readdirSync(root).filter((n) => n.endsWith('.tmp'))).toEqual([]);
+  });
+
+  it('stamps the draft as not issued, the old revision as superseded and links the sealed PDF', () => {
+    const draft = readFileSync(join(site, 'projects', SOFC, 'index.html'), 'utf8');
+    const a = readFileSync(join(site, 'projects', SOFC, 'rev-A', 'index.html'), 'utf8');
+    const b = readFileSync(join(site, 'projects', SOFC, 'rev-B', 'index.html'), 'utf8');
+    expect(draft).toContain('Draft, not issued');
+    expect(draft).toContain('<td>2026-01-01</td>');
+    expect(a).toContain('>Superseded<');
+    expect(a).toContain('superseded by revision B');
+    expect(b).toContain('>Issued for review<');
+    expect(b).toContain('href="document.pdf"');
+    expect(b).toContain('<td>2026-09-22</td>');
+  });
+
+  it('builds a sealed page from the sealed basis and results, not from the working draft', () => {
+    const a = readFileSync(join(site, 'projects', SOFC, 'rev-A', 'index.html'), 'utf8');
+    const draft = readFileSync(join(site, 'projects', SOFC, 'index.html'), 'utf8');
+    expect(a).toContain('1033.15 K (760.0 °C)');
+    expect(draft).toContain('1023.15 K (750.0 °C)');
+  });
+
+  it('lists every revision in the history with the change summary against the one before', () => {
+    const draft = readFileSync(join(site, 'projects', SOFC, 'index.html'), 'utf8');
+    expect(draft).toContain('href="rev-A/index.html"');
+    expect(draft).toContain('href="rev-B/index.html"');
+    expect(draft).toMatch(/operating temperature 760 C → 750 C/);
+  });
+
+  it('renders each page exactly as renderDocumentHtml renders the same view', () => {
+    const model = loadSiteModel(root, { env: EPOCH });
+    for (const doc of model.pages) expect(readFileSync(join(site, doc.pagePath), 'utf8'), doc.pagePath).toBe(renderView(doc));
+  }, 60_000);
+
+  it('gives byte-identical files when built again from the same inputs', async () => {
+    const again = join(root, 'site-again');
+    await buildSite({ root, out: again, env: EPOCH });
+    expect(treeDigest(again)).toEqual(treeDigest(site));
+  }, 180_000);
+
+  it('keeps the previous site when a basis has errors, and names each error at file:line:col', async () => {
+    const before = treeDigest(site);
+    const good = readFileSync(basisFile(root, 'hob-tor-pem-backup'), 'utf8');
+    writeFileSync(basisFile(root, 'hob-tor-pem-backup'), good.replace('value: "62 C", source: R2', 'value: "hot", source: R2').replace('target-power: { value: "8 kW"', 'target-power: { value: "8 parsecs"'));
+    try {
+      const r = await run(['build'], root);
+      expect(r.code).toBe(1);
+      expect(r.err).toMatch(/^projects\/hob-tor-pem-backup\/basis\.yaml:\d+:\d+: conditions\.operating-temperature\.value: expected a temperature/m);
+      expect(r.err).toMatch(/^projects\/hob-tor-pem-backup\/basis\.yaml:\d+:\d+: operating-point\.target-power\.value: /m);
+      expect(r.err).toContain('the previous site is left as it was');
+      expect(r.err).not.toMatch(/\n\s+at /);
+      expect(treeDigest(site)).toEqual(before);
+      expect(readdirSync(root).filter((n) => n.endsWith('.tmp'))).toEqual([]);
+    } finally {
+      writeFileSync(basisFile(root, 'hob-tor-pem-backup'), good);
+    }
+  }, 120_000);
+
+  it('keeps the previous site when a sealed results file is damaged', async () => {
+    const before = treeDigest(site);
+    const file = join(root, 'projects', SOFC, 'sealed', 'A', 'results.json');
+    const good = readFileSync(file, 'utf8');
+    writeFileSync(file, good.replace('"format": "cellbasis-results/1"', '"format": "something else"'));
+    try {
+      const r = await run(['build'], root);
+      expect(r.code).toBe(1);
+      expect(r.err).toContain('projects/thistlemere-sofc-chp/sealed/A/results.json: is not a cellbasis results file: format:');
+      expect(treeDigest(site)).toEqual(before);
+    } finally {
+      writeFileSync(file, good);
+    }
+  }, 120_000);
+});
+
+it('says so when there is nothing to build', async () => {
+  const empty = demoRoot([]);
+  try {
+    const r = await run(['build'], empty);
+    expect(r.code).toBe(2);
+    expect(r.err).toContain('no design bases under projects/');
+    expect(existsSync(join(empty, 'site'))).toBe(false);
+  } finally {
+    rmSync(empty, { recursive: true, force: true });
+  }
+});

@@ -1,0 +1,118 @@
+/**
+ * Shared by the publishing tests: a working folder holding copies of the demo projects, sealed
+ * revisions written into it in the layout of lib/archive/layout.ts (the basis as sealed, its
+ * results, a one-page PDF and the manifest with the SHA-256 of each), a digest of a folder tree
+ * (to show a failed build changed nothing) and captured runs of the command line.
+ */
+import { createHash } from 'node:crypto';
+import { cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, relative } from 'node:path';
+import { PDFDocument, StandardFonts } from 'pdf-lib';
+import { loadBasisText } from '../../lib/basis/load.ts';
+import { calculate } from '../../lib/plant/calculate.ts';
+import { manifestBytes, signOffOf } from '../../lib/archive/manifest.ts';
+import type { SealManifest } from '../../lib/archive/layout.ts';
+import { SEALED_FILES, sealedDir } from '../../lib/archive/layout.ts';
+import type { DocumentStatus } from '../../lib/basis/types.ts';
+import { PACKAGE_ROOT } from '../../lib/publish/paths.ts';
+
+export const DEMO_PROJECTS = ['corrin-beck-mcfc-biogas', 'hob-tor-pem-backup', 'kestrelford-pem-electrolyser', 'thistlemere-sofc-chp'];
+
+/** A temporary folder with projects/ holding copies of the demo projects (their working drafts). */
+export function demoRoot(projects: readonly string[] = DEMO_PROJECTS): string {
+  const root = mkdtempSync(join(tmpdir(), 'cellbasis-site-'));
+  for (const id of projects) cpSync(join(PACKAGE_ROOT, 'projects', id, 'basis.yaml'), join(root, 'projects', id, 'basis.yaml'));
+  return root;
+}
+
+export function basisFile(root: string, id: string): string {
+  return join(root, 'projects', id, 'basis.yaml');
+}
+
+/** The basis text with its document revision and status set (and any other edit). */
+export function withRevision(text: string, revision: string, status: DocumentStatus, edit: (t: string) => string = (t) => t): string {
+  return edit(text.replace(/^ {2}revision: .*$/m, `  revision: "${revision}"`).replace(/^ {2}status: .*$/m, `  status: ${status}`));
+}
+
+async function onePagePdf(title: string): Promise<Uint8Array> {
+  const pdf = await PDFDocument.create();
+  const page = pdf.addPage([595, 842]);
+  page.drawText(title, { x: 60, y: 780, size: 12, font: await pdf.embedFont(StandardFonts.Helvetica) });
+  pdf.setCreationDate(new Date('2026-01-01T00:00:00Z'));
+  pdf.setModificationDate(new Date('2026-01-01T00:00:00Z'));
+  return pdf.save();
+}
+
+const sha256 = (bytes: Uint8Array | string) => createHash('sha256').update(bytes).digest('hex');
+
+/** Writes projects/<id>/sealed/<rev>/ from the project's basis text as edited. */
+export async function sealFixture(root: string, id: string, revision: string, status: DocumentStatus, sealedOn: string, edit?: (t: string) => string): Promise<void> {
+  const text = withRevision(readFileSync(basisFile(root, id), 'utf8'), revision, status, edit);
+  const loaded = loadBasisText(text, `projects/${id}/sealed/${revision}/basis.yaml`, id);
+  if (!loaded.ok) throw new Error(loaded.errors.map((e) => e.message).join('\n'));
+  const results = calculate(loaded.basis);
+  const dir = sealedDir(root, id, revision);
+  mkdirSync(dir, { recursive: true });
+  const files: Record<string, Uint8Array | string> = {
+    [SEALED_FILES.basis]: text,
+    [SEALED_FILES.results]: `${JSON.stringify(results, null, 2)}\n`,
+    [SEALED_FILES.pdf]: await onePagePdf(`${loaded.basis.document.number} revision ${revision}`),
+  };
+  for (const [name, bytes] of Object.entries(files)) writeFileSync(join(dir, name), bytes);
+  const manifest: SealManifest = {
+    format: 'cellbasis-seal/1',
+    project: id,
+    documentNumber: loaded.basis.document.number,
+    title: loaded.basis.document.title,
+    revision,
+    status,
+    note: `revision ${revision} for the test`,
+    sealedOn,
+    tool: { name: 'cellbasis', version: results.tool.version },
+    speciesData_sha256: results.speciesData_sha256,
+    files: Object.fromEntries(Object.entries(files).map(([name, bytes]) => [name, sha256(bytes)])),
+    previous: null,
+    signOff: signOffOf(loaded.basis),
+  };
+  writeFileSync(join(dir, SEALED_FILES.manifest), manifestBytes(manifest));
+}
+
+export const SOFC = 'thistlemere-sofc-chp';
+
+/** SOURCE_DATE_EPOCH of the test builds: 2026-01-01. */
+export const EPOCH = { SOURCE_DATE_EPOCH: '1767225600' };
+
+/**
+ * The demo projects with two sealed revisions of the solid oxide project (A at 760 °C, then B as
+ * the project stands) and its working draft moved on to revision C.
+ */
+export async function sealedDemoRoot(): Promise<string> {
+  const root = demoRoot();
+  await sealFixture(root, SOFC, 'A', 'issued for review', '2026-06-02', (t) => t.replace('value: "750 C", source: R3', 'value: "760 C", source: R3'));
+  await sealFixture(root, SOFC, 'B', 'issued for review', '2026-09-22');
+  writeFileSync(basisFile(root, SOFC), withRevision(readFileSync(basisFile(root, SOFC), 'utf8'), 'C', 'draft'));
+  return root;
+}
+
+/** Every file under `root` with its SHA-256, and every folder. */
+export function treeDigest(root: string): Record<string, string> {
+  const out: Record<string, string> = {};
+  if (!existsSync(root)) return out;
+  const walk = (dir: string) => {
+    for (const entry of readdirSync(dir, { withFileTypes: true })) {
+      const path = join(dir, entry.name);
+      if (entry.isDirectory()) {
+        out[`${relative(root, path)}/`] = 'dir';
+        walk(path);
+      } else out[relative(root, path)] = sha256(readFileSync(path));
+    }
+  };
+  walk(root);
+  return out;
+}
+
+/** Every HTML page under a built site, as site paths. */
+export function htmlPages(site: string): string[] {
+  return Object.keys(treeDigest(site)).filter((p) => p.endsWith('.html')).sort();
+}

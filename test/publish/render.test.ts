@@ -1,0 +1,55 @@
+// One document on its own, for sealing: renderDocumentHtml with the site's templates, and
+// inlineAssets making it a single file that needs nothing beside it.
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { renderDocumentHtml, renderStandaloneHtml } from '../../lib/publish/render.ts';
+import { inlineAssets } from '../../lib/publish/inline-assets.ts';
+import { writeSiteAssets } from '../../lib/publish/write-assets.ts';
+import { scaffoldCase } from '../report/helpers.ts';
+
+const c = scaffoldCase('molten-carbonate', 'power');
+const input = { basis: c.basis, results: c.results, revision: { kind: 'sealed' as const, revision: 'A', status: 'issued for review' as const, sealedOn: '2026-10-01', note: '', supersededBy: null, pdfHref: 'document.pdf' }, history: [] };
+const dir = mkdtempSync(join(tmpdir(), 'cellbasis-render-'));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+describe('renderDocumentHtml', () => {
+  const html = renderDocumentHtml(input, { assetBase: '../../assets/' });
+  it('links the assets relative to the page and carries every section', () => {
+    expect(html).toContain('<link rel="stylesheet" href="../../assets/katex/katex.min.css">');
+    expect(html).toContain('<script src="../../assets/charts.js"></script>');
+    for (const id of ['title-block', 'purpose', 'summary', 'inputs', 'assumptions', 'method', 'results', 'charts', 'hazards', 'verification', 'references', 'history']) expect(html).toContain(`id="${id}"`);
+  });
+  it('is the same for the same input', () => {
+    expect(renderDocumentHtml(input, { assetBase: '../../assets/' })).toBe(html);
+  });
+});
+
+describe('inlineAssets', () => {
+  const assets = join(dir, 'assets');
+  writeSiteAssets(assets);
+  const single = inlineAssets(renderDocumentHtml(input, { assetBase: '' }), assets);
+
+  it('leaves no link to a stylesheet or script file', () => {
+    expect(single).not.toMatch(/<link\b[^>]*stylesheet/);
+    expect(single).not.toMatch(/<script\b[^>]*\bsrc=/);
+    expect(single).toContain('new window.Chart(');
+  });
+  it('embeds the KaTeX fonts as WOFF2 data URIs and drops the other formats', () => {
+    expect(single).toMatch(/url\(data:font\/woff2;base64,[A-Za-z0-9+/]{100}/);
+    expect(single).not.toMatch(/url\([^)]*\.(woff|ttf)\)/);
+    expect(single).not.toContain('url(fonts/');
+  });
+  it('keeps links to other documents such as the sealed PDF', () => {
+    expect(single).toContain('href="document.pdf"');
+  });
+  it('matches renderStandaloneHtml', () => {
+    expect(renderStandaloneHtml(input)).toBe(single);
+  });
+  it('refuses an asset URL that leads outside the asset folder or names nothing', () => {
+    writeFileSync(join(dir, 'secret.css'), 'body{}');
+    expect(() => inlineAssets('<link rel="stylesheet" href="../secret.css">', assets)).toThrow(/outside the asset folder/);
+    expect(() => inlineAssets('<script src="missing.js"></script>', assets)).toThrow(/not in the asset folder/);
+  });
+});

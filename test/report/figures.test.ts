@@ -1,0 +1,95 @@
+// The figures of section 7: at least six drawn charts for every technology, the design point
+// marked, a statement instead of an empty chart where the fuel has no carbon, the data table and
+// a CSV download under each, and chart JSON that parses back to the numbers of the results.
+import { describe, expect, it } from 'vitest';
+import { figures, type DrawnFigure } from '../../lib/report/charts/figures.ts';
+import type { ChartSpec } from '../../lib/report/charts/spec.ts';
+import { CASES, scaffoldCase } from './helpers.ts';
+
+function drawn(list: ReturnType<typeof figures>): DrawnFigure[] {
+  return list.filter((f): f is DrawnFigure => f.kind === 'chart');
+}
+
+/** The rows of the CSV of a figure (RFC 4180: quoted cells may hold commas and doubled quotes). */
+function csvOf(f: DrawnFigure): string[][] {
+  const text = decodeURIComponent(f.data.csvHref.replace(/^data:text\/csv;charset=utf-8,/, ''));
+  return text
+    .trimEnd()
+    .split('\r\n')
+    .map((line) => [...line.matchAll(/("(?:[^"]|"")*"|[^,]*)(?:,|$)/g)].map((m) => m[1]!.replace(/^"|"$/g, '').replace(/""/g, '"')).slice(0, -1));
+}
+
+describe.each(CASES)('figures of the %s %s scaffold', (technology, mode) => {
+  const c = scaffoldCase(technology, mode);
+  const list = figures(c.results);
+  const charts = drawn(list);
+
+  it('draws at least six charts, numbered in order, each with titled axes and units', () => {
+    expect(charts.length).toBeGreaterThanOrEqual(6);
+    expect(list.map((f) => f.number)).toEqual(list.map((_, i) => i + 1));
+    for (const f of charts) {
+      const spec = JSON.parse(f.spec.html) as ChartSpec;
+      expect(spec.x.title).toMatch(/\(.+\)/);
+      if (spec.kind === 'line') expect(spec.y.title).toMatch(/\(.+\)/);
+    }
+  });
+
+  it('marks the design point on every line chart', () => {
+    for (const f of charts) {
+      const spec = JSON.parse(f.spec.html) as ChartSpec;
+      if (spec.kind !== 'line') continue;
+      expect(spec.series.some((s) => s.marker || s.reference), f.id).toBe(true);
+    }
+  });
+
+  it('puts its data under each chart as a table and a CSV with one row per point', () => {
+    for (const f of charts) {
+      expect(f.data.table.rows.length).toBeGreaterThan(0);
+      expect(f.data.table.rows.length).toBeLessThanOrEqual(32);
+      expect(f.data.csvName).toMatch(/^demo-[a-z-]+\.csv$/);
+      const rows = csvOf(f);
+      expect(rows[0]!.length).toBe(f.data.table.head.length);
+    }
+    const path = charts.find((f) => f.id === 'fig-nernst-path')!;
+    expect(csvOf(path).length - 1).toBe(c.results.fuelPath.points.length);
+    expect(Number(csvOf(path)[1]![0])).toBe(0);
+  });
+});
+
+it('the voltage chart carries the sweep of the results unchanged', () => {
+  const c = scaffoldCase('solid-oxide', 'power');
+  const f = drawn(figures(c.results)).find((x) => x.id === 'fig-voltage-temperature')!;
+  const spec = JSON.parse(f.spec.html) as Extract<ChartSpec, { kind: 'line' }>;
+  const rev = spec.series[0]!;
+  expect(rev.points.map((p) => p[1])).toEqual(c.results.sweeps.temperature.map((p) => p.reversibleVoltage_V));
+});
+
+it('says that a fuel without carbon has no carbon curve, and still draws six charts', () => {
+  const c = scaffoldCase('pem', 'power');
+  const list = figures(c.results);
+  const carbon = list.find((f) => f.id === 'fig-carbon-steam')!;
+  expect(carbon.kind).toBe('statement');
+  expect(carbon.kind === 'statement' && carbon.statement).toMatch(/no carbon/);
+  expect(drawn(list).length).toBeGreaterThanOrEqual(6);
+});
+
+it('draws the carbon activity on a logarithmic axis with the design ratio marked', () => {
+  const c = scaffoldCase('solid-oxide', 'power');
+  const f = drawn(figures(c.results)).find((x) => x.id === 'fig-carbon-steam')!;
+  const spec = JSON.parse(f.spec.html) as Extract<ChartSpec, { kind: 'line' }>;
+  expect(spec.y.log).toBe(true);
+  const marker = spec.series.find((s) => s.marker)!;
+  expect(marker.points.every((p) => p[0] === c.results.carbon.steamToCarbon)).toBe(true);
+});
+
+it('tornado bars are the deviations of the low and high cases from the base', () => {
+  const c = scaffoldCase('solid-oxide', 'power');
+  const f = drawn(figures(c.results)).find((x) => x.id === 'fig-tornado-heat')!;
+  const spec = JSON.parse(f.spec.html) as Extract<ChartSpec, { kind: 'tornado' }>;
+  const s = c.results.sensitivities;
+  expect(spec.categories.length).toBe(s.length);
+  s.forEach((e, i) => {
+    expect(spec.low[i]).toBeCloseTo(((e.stackHeat_W.low ?? e.stackHeat_W.base) - e.stackHeat_W.base) / 1000, 9);
+    expect(spec.high[i]).toBeCloseTo(((e.stackHeat_W.high ?? e.stackHeat_W.base) - e.stackHeat_W.base) / 1000, 9);
+  });
+});

@@ -1,0 +1,38 @@
+/** Shared by the report tests: scaffold bases of several technologies, calculated once each. */
+import { renderScaffold } from '../../lib/basis/scaffolds.ts';
+import { loadBasisText } from '../../lib/basis/load.ts';
+import type { DesignBasis } from '../../lib/basis/types.ts';
+import type { Mode, TechnologyId } from '../../lib/electrochem/technologies.ts';
+import { calculate } from '../../lib/plant/calculate.ts';
+import type { Results } from '../../lib/plant/results-schema.ts';
+
+export interface Case {
+  name: string;
+  basis: DesignBasis;
+  results: Results;
+}
+
+export const CASES: [TechnologyId, Mode][] = [
+  ['solid-oxide', 'power'],
+  ['solid-oxide', 'electrolysis'],
+  ['molten-carbonate', 'power'],
+  ['pem', 'power'],
+  ['pem', 'electrolysis'],
+  ['alkaline', 'electrolysis'],
+  ['proton-ceramic', 'power'],
+];
+
+const cache = new Map<string, Case>();
+
+/** A scaffold basis, its YAML edited by `edit`, loaded and calculated. */
+export function scaffoldCase(technology: TechnologyId, mode: Mode, edit: (yaml: string) => string = (y) => y): Case {
+  const key = `${technology}/${mode}/${edit.toString()}`;
+  const cached = cache.get(key);
+  if (cached) return cached;
+  const text = edit(renderScaffold(technology, mode, 'demo', '2026-11-30'));
+  const loaded = loadBasisText(text, 'projects/demo/basis.yaml', 'demo');
+  if (!loaded.ok) throw new Error(loaded.errors.map((e) => `${e.path}: ${e.message}`).join('\n'));
+  const one = { name: `${technology} ${mode}`, basis: loaded.basis, results: calculate(loaded.basis) };
+  cache.set(key, one);
+  return one;
+}
