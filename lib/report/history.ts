@@ -80,7 +80,7 @@ export function revisionHistory(input: { sealed: readonly SealedRevisionRecord[]
       revision: d.revision,
       status: d.status,
       date: '',
-      note: 'working draft, not issued',
+      note: `basis status: ${d.status}`,
       prepared: draftSignatory(d.basis, 'prepared'),
       checked: draftSignatory(d.basis, 'checked'),
       approved: draftSignatory(d.basis, 'approved'),

@@ -27,7 +27,7 @@ export function table(head: string[], align: Align[], rows: TableRow[]): Table {
   return { head, align, rows };
 }
 
-/** Label and value rows (two columns). */
-export function pairs(rows: [string, string][], head: [string, string] = ['Quantity', 'Value']): Table {
-  return table(head, ['left', 'right'], rows.map((cells) => ({ cells })));
+/** Label and value rows (two columns): numbers right-aligned, or text left-aligned. */
+export function pairs(rows: [string, string][], head: [string, string] = ['Quantity', 'Value'], values: Align = 'right'): Table {
+  return table(head, ['left', values], rows.map((cells) => ({ cells })));
 }

@@ -42,19 +42,60 @@
     return scale;
   }
 
+  // A small drawing of the line as the legend shows it, dash pattern included.
+  function legendLine(c, width, dash) {
+    var icon = document.createElement('canvas');
+    icon.width = 24;
+    icon.height = 6;
+    var g = icon.getContext('2d');
+    g.strokeStyle = c;
+    g.lineWidth = width;
+    g.setLineDash(dash);
+    g.beginPath();
+    g.moveTo(0, 3);
+    g.lineTo(24, 3);
+    g.stroke();
+    return icon;
+  }
+
+  // The design-point cross of the legend, at its own size rather than stretched to the line icons' width.
+  function legendCross() {
+    var icon = document.createElement('canvas');
+    icon.width = 24;
+    icon.height = 10;
+    var g = icon.getContext('2d');
+    g.strokeStyle = MARKER;
+    g.lineWidth = 2;
+    g.beginPath();
+    g.moveTo(7, 0); g.lineTo(17, 10);
+    g.moveTo(17, 0); g.lineTo(7, 10);
+    g.stroke();
+    return icon;
+  }
+
+  function legendLabels(chart) {
+    var items = window.Chart.defaults.plugins.legend.labels.generateLabels(chart);
+    items.forEach(function (item) {
+      if (chart.data.datasets[item.datasetIndex].isMarker) item.pointStyle = legendCross();
+    });
+    return items.sort(function (a, b) { return a.datasetIndex - b.datasetIndex; });
+  }
+
   function lineDataset(series, index) {
     var c = colour(series);
     var points = series.points.map(function (p) { return { x: p[0], y: p[1] }; });
     if (series.marker) {
       return {
         label: series.label, data: points, yAxisID: series.right ? 'y2' : 'y', showLine: false,
-        pointStyle: 'crossRot', pointRadius: 7, pointBorderWidth: 2, borderColor: c, backgroundColor: c, order: 0
+        pointStyle: 'crossRot', pointRadius: 7, pointBorderWidth: 2, borderColor: c, backgroundColor: c, order: 0, clip: false, isMarker: true
       };
     }
+    var width = series.reference ? 1 : 1.8;
+    var dash = series.dashed ? DASHES[1 + (index % 3)] : [];
     return {
       label: series.label, data: points, yAxisID: series.right ? 'y2' : 'y', showLine: true,
-      borderColor: c, backgroundColor: c, borderWidth: series.reference ? 1 : 1.8, pointStyle: 'line',
-      borderDash: series.dashed ? DASHES[1 + (index % 3)] : [], pointRadius: 0, tension: 0, order: 1
+      borderColor: c, backgroundColor: c, borderWidth: width, pointStyle: legendLine(c, width, dash),
+      borderDash: dash, pointRadius: 0, tension: 0, order: 1
     };
   }
 
@@ -70,8 +111,8 @@
       data: {
         labels: spec.categories,
         datasets: [
-          { label: spec.lowLabel, data: spec.low, backgroundColor: PALETTE[0], borderColor: PALETTE[0], barPercentage: 0.8, categoryPercentage: 0.7 },
-          { label: spec.highLabel, data: spec.high, backgroundColor: PALETTE[1], borderColor: PALETTE[1], barPercentage: 0.8, categoryPercentage: 0.7 }
+          { label: spec.lowLabel, data: spec.low, backgroundColor: PALETTE[0], borderColor: PALETTE[0], pointStyle: 'rect', barPercentage: 0.8, categoryPercentage: 0.7 },
+          { label: spec.highLabel, data: spec.high, backgroundColor: PALETTE[1], borderColor: PALETTE[1], pointStyle: 'rect', barPercentage: 0.8, categoryPercentage: 0.7 }
         ]
       },
       options: { indexAxis: 'y', scales: { x: axis(spec.x, 'bottom'), y: { ticks: { font: FONT, color: '#222' }, grid: { display: false } } } }
@@ -91,7 +132,7 @@
     config.options.plugins = {
       legend: {
         position: 'top', align: 'start',
-        labels: { font: FONT, color: '#222', usePointStyle: true, pointStyleWidth: 22, sort: function (a, b) { return a.datasetIndex - b.datasetIndex; } }
+        labels: { font: FONT, color: '#222', usePointStyle: true, pointStyleWidth: 24, boxHeight: 8, padding: 12, generateLabels: legendLabels }
       },
       tooltip: { enabled: false }
     };

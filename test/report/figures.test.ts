@@ -93,3 +93,19 @@ it('tornado bars are the deviations of the low and high cases from the base', ()
     expect(spec.high[i]).toBeCloseTo(((e.stackHeat_W.high ?? e.stackHeat_W.base) - e.stackHeat_W.base) / 1000, 9);
   });
 });
+
+it('states that no input moves a result rather than drawing bars of rounding noise', () => {
+  // With the cell voltage given, the electrolysis efficiency of a PEM stack follows from the voltage alone.
+  const c = scaffoldCase('pem', 'electrolysis');
+  const f = figures(c.results).find((x) => x.id === 'fig-tornado-efficiency')!;
+  expect(f.kind).toBe('statement');
+  expect(f.kind === 'statement' && f.statement).toMatch(/follows from the voltage alone/);
+});
+
+it('centres the tornado axis on zero', () => {
+  const c = scaffoldCase('solid-oxide', 'power');
+  const f = drawn(figures(c.results)).find((x) => x.id === 'fig-tornado-nernst')!;
+  const spec = JSON.parse(f.spec.html) as Extract<ChartSpec, { kind: 'tornado' }>;
+  expect(spec.x.min).toBe(-spec.x.max!);
+  expect(Math.max(...spec.low.map(Math.abs), ...spec.high.map(Math.abs))).toBeLessThanOrEqual(spec.x.max!);
+});

@@ -11,6 +11,7 @@ import { jsonForScript } from './json-script.ts';
 import { chartData, type ChartData, type DataColumn } from './data-table.ts';
 import type { Axis, ChartSpec, LineSeries } from './spec.ts';
 import type { TrustedHtml } from '../trusted-html.ts';
+import { speciesText } from '../species-text.ts';
 
 export const CHART_WIDTH = 640;
 export const CHART_HEIGHT = 300;
@@ -41,7 +42,8 @@ export type Figure = DrawnFigure | StatedFigure;
 
 type Draft = Omit<DrawnFigure, 'number' | 'spec' | 'width' | 'height' | 'kind'> & { spec: ChartSpec } | Omit<StatedFigure, 'number'>;
 
-const C = (k: number) => k - 273.15;
+/** °C from K, rounded to the microkelvin so that 923.15 K reads 650 °C on an axis. */
+const C = (k: number) => Math.round((k - 273.15) * 1e6) / 1e6;
 
 function vertical(x: number, y0: number, y1: number, label: string): LineSeries {
   return { label, points: [[x, y0], [x, y1]], style: 0, dashed: true, reference: true };
@@ -154,21 +156,21 @@ function compositionAlongPath(r: Results): Draft {
   const fuel = Object.keys(p[0]!.fuelSide).filter((k) => peak('fuelSide', k) >= 0.01).sort((a, b) => peak('fuelSide', b) - peak('fuelSide', a));
   const air = ['O2', 'H2O', 'CO2'].filter((k) => (p[0]!.airSide[k] ?? 0) > 0 && peak('airSide', k) >= 0.01);
   const series: LineSeries[] = [
-    ...fuel.map((k, i): LineSeries => ({ label: `${k}, fuel electrode`, points: p.map((x) => [x.utilization * 100, (x.fuelSide[k] ?? 0) * 100]), style: i })),
-    ...air.map((k, i): LineSeries => ({ label: `${k}, air electrode`, points: p.map((x) => [x.utilization * 100, (x.airSide[k] ?? 0) * 100]), style: fuel.length + i, dashed: true })),
+    ...fuel.map((k, i): LineSeries => ({ label: `${speciesText(k)}, fuel electrode`, points: p.map((x) => [x.utilization * 100, (x.fuelSide[k] ?? 0) * 100]), style: i })),
+    ...air.map((k, i): LineSeries => ({ label: `${speciesText(k)}, air electrode`, points: p.map((x) => [x.utilization * 100, (x.airSide[k] ?? 0) * 100]), style: fuel.length + i, dashed: true })),
   ];
   const uEnd = r.electrochemistry.utilization * 100;
   series.push(vertical(uEnd, 0, 100, 'design utilization'));
   const columns: DataColumn[] = [
     { header: axis.label, values: p.map((x) => x.utilization * 100) },
-    ...fuel.map((k): DataColumn => ({ header: `${k} fuel side (mol %)`, values: p.map((x) => (x.fuelSide[k] ?? 0) * 100) })),
-    ...air.map((k): DataColumn => ({ header: `${k} air side (mol %)`, values: p.map((x) => (x.airSide[k] ?? 0) * 100) })),
+    ...fuel.map((k): DataColumn => ({ header: `${speciesText(k)} fuel side (mol %)`, values: p.map((x) => (x.fuelSide[k] ?? 0) * 100) })),
+    ...air.map((k): DataColumn => ({ header: `${speciesText(k)} air side (mol %)`, values: p.map((x) => (x.airSide[k] ?? 0) * 100) })),
   ];
   return {
     id: 'fig-composition-path',
     title: 'Gas composition along the fuel path',
     caption: `Mole fractions of the species that reach 1 % (solid: fuel electrode${r.technology.fuelGasEquilibrium ? ', equilibrated' : ''}; dashed: air electrode), with the design utilization marked.`,
-    spec: { kind: 'line', x: { title: axis.title, min: 0, max: uEnd }, y: { title: 'Mole fraction (%)', min: 0 }, series },
+    spec: { kind: 'line', x: { title: axis.title, min: 0, max: uEnd }, y: { title: 'Mole fraction (%)', min: 0, max: 100 }, series },
     data: chartData(columns, `${r.project.id}-composition-path.csv`),
     notes: [],
   };
@@ -278,6 +280,14 @@ function heatAndPower(r: Results): Draft {
 
 type Output = 'meanNernst_V' | 'efficiency' | 'stackHeat_W';
 
+/** Axis limits centred on zero that hold every value, on a 1-2-5 step. */
+function symmetric(values: number[]): { min: number; max: number } {
+  const peak = Math.max(...values.map(Math.abs));
+  const power = 10 ** Math.floor(Math.log10(peak));
+  const step = [1, 2, 2.5, 5, 10].find((k) => k * power >= peak * 1.05)! * power;
+  return { min: -step, max: step };
+}
+
 function tornado(r: Results, output: Output): Draft {
   const power = r.technology.mode === 'power';
   const meta: Record<Output, { title: string; axis: string; scale: number; file: string }> = {
@@ -287,17 +297,26 @@ function tornado(r: Results, output: Output): Draft {
   };
   const m = meta[output];
   const list = r.sensitivities;
-  const delta = (v: number | null, base: number) => (v === null ? 0 : (v - base) * m.scale);
+  // Differences at rounding level (a result that does not depend on the input) count as none.
+  const delta = (v: number | null, base: number) => (v === null || Math.abs(v - base) <= 1e-9 * Math.max(Math.abs(base), 1e-12) ? 0 : (v - base) * m.scale);
   const low = list.map((e) => delta(e[output].low, e[output].base));
   const high = list.map((e) => delta(e[output].high, e[output].base));
   const labels = list.map((e) => `${e.input} ${e.step}`);
   const notes = list.filter((e) => e.note !== null && (e[output].low === null || e[output].high === null)).map((e) => `${e.input}: ${e.note}`);
   const base = list[0]?.[output].base;
+  if ([...low, ...high].every((d) => d === 0)) {
+    return {
+      kind: 'statement',
+      id: `fig-tornado-${m.file}`,
+      title: m.title,
+      statement: `None of the inputs studied moves the ${output === 'efficiency' ? 'efficiency' : output === 'meanNernst_V' ? 'mean Nernst voltage' : 'stack heat'} by more than rounding: ${output === 'efficiency' ? 'with the cell voltage given, the efficiency follows from the voltage alone' : 'it does not depend on them at this design point'}, so there are no bars to draw.`,
+    };
+  }
   return {
     id: `fig-tornado-${m.file}`,
     title: m.title,
     caption: `Change from the base case${base === undefined ? '' : ` (${output === 'meanNernst_V' ? `${formatNumber(base, 5)} V` : output === 'efficiency' ? formatPercent(base) : `${formatNumber(base / 1000)} kW`})`} when one input at a time moves down (low case) or up (high case) by the step given, all else held, the cell count included.`,
-    spec: { kind: 'tornado', x: { title: m.axis }, categories: labels, low, high, lowLabel: 'low case', highLabel: 'high case' },
+    spec: { kind: 'tornado', x: { title: m.axis, ...symmetric([...low, ...high]) }, categories: labels, low, high, lowLabel: 'low case', highLabel: 'high case' },
     data: chartData(
       [
         { header: 'input and step', labels },

@@ -8,6 +8,7 @@ import type { Caution, HazardAssessment, StreamIndicators, SubstanceRow } from '
 import type { Results } from '../../plant/results-schema.ts';
 import { formatFixed, formatNumber } from '../format.ts';
 import { table, type Table } from '../table.ts';
+import { speciesText } from '../species-text.ts';
 
 export interface CautionItem {
   id: string;
@@ -34,35 +35,37 @@ export function hazardAssessment(r: Results): HazardAssessment {
   return r.hazards as unknown as HazardAssessment;
 }
 
-function streamRow(s: StreamIndicators): string[] {
-  const f = s.flammability;
-  const co = s.carbonMonoxide;
-  const ait = s.autoignition;
-  return [
-    s.name,
-    s.role,
-    `${formatFixed(s.temperature_C, 0)} °C, ${formatNumber(s.pressure_bar)} bar`,
-    s.combustibles.length ? `${formatNumber(s.combustible_percent, 3)} %` : 'none',
-    f ? `${formatNumber(f.streamLfl_percent, 3)} %` : '',
-    s.flammableOnMixingWithAir ? 'yes' : 'no',
-    s.insideFlammableRangeFinding,
-    co ? `${formatNumber(co.coConcentration_ppm, 3)} ppm (${formatNumber(co.timesIdlh, 3)} × IDLH)` : '',
-    formatNumber(s.hydrogenPartialPressure_bar, 3),
-    ait ? `${formatFixed(ait.lowest_C, 0)} °C (${ait.species})${ait.streamAbove ? ', stream above it' : ''}` : '',
-  ];
+/** One indicator as a row across the streams. */
+type IndicatorRow = [label: string, cell: (s: StreamIndicators) => string];
+
+const INDICATORS: IndicatorRow[] = [
+  ['Role', (s) => s.role],
+  ['Temperature, °C', (s) => formatFixed(s.temperature_C, 0)],
+  ['Pressure, bar', (s) => formatNumber(s.pressure_bar)],
+  ['Combustibles, mol %', (s) => (s.combustibles.length ? formatNumber(s.combustible_percent, 3) : 'none')],
+  ['Oxygen, mol %', (s) => formatNumber(s.oxygen_percent, 3)],
+  ['Lower flammable limit of the stream in air, vol %', (s) => (s.flammability ? formatNumber(s.flammability.streamLfl_percent, 3) : '')],
+  ['Flammable on mixing with air', (s) => (s.flammableOnMixingWithAir ? 'yes' : 'no')],
+  ['The stream as it is', (s) => s.insideFlammableRangeFinding],
+  ['Carbon monoxide, ppm', (s) => (s.carbonMonoxide ? `${formatNumber(s.carbonMonoxide.coConcentration_ppm, 3)} (${formatNumber(s.carbonMonoxide.timesIdlh, 3)} × IDLH)` : '')],
+  ['Hydrogen partial pressure, bar', (s) => formatNumber(s.hydrogenPartialPressure_bar, 3)],
+  ['Lowest autoignition temperature', (s) => (s.autoignition ? `${formatFixed(s.autoignition.lowest_C, 0)} °C (${speciesText(s.autoignition.species)})${s.autoignition.streamAbove ? ', stream above it' : ''}` : '')],
+];
+
+function streamTable(streams: readonly StreamIndicators[]): Table {
+  return table(
+    ['', ...streams.map((s) => s.name)],
+    ['left', ...streams.map(() => 'right' as const)],
+    INDICATORS.map(([label, cell]) => ({ cells: [label, ...streams.map(cell)] })),
+  );
 }
 
+/** A substance's limits in one row, the publications they come from in the last cell. */
 function substanceRow(s: SubstanceRow): string[] {
-  const value = (v: { value: number; source: string } | null | undefined, unit: string) => (v ? `${formatNumber(v.value, 3)}${unit} (${v.source})` : '');
-  return [
-    `${s.name} (${s.species})`,
-    s.cas,
-    s.presence,
-    value(s.lfl_percent, ' %'),
-    value(s.ufl_percent, ' %'),
-    value(s.lowestAutoignition_C, ' °C'),
-    value(s.exposure_ppm.idlh, ' ppm'),
-  ];
+  const values = [s.lfl_percent, s.ufl_percent, s.lowestAutoignition_C, s.exposure_ppm.idlh];
+  const shown = (v: { value: number } | null | undefined, unit: string) => (v ? `${formatNumber(v.value, 3)}${unit}` : '');
+  const sources = [...new Set(values.flatMap((v) => (v ? [v.source] : [])))];
+  return [`${s.name} (${speciesText(s.species)})`, s.cas, s.presence, shown(s.lfl_percent, ' %'), shown(s.ufl_percent, ' %'), shown(s.lowestAutoignition_C, ' °C'), shown(s.exposure_ppm.idlh, ' ppm'), sources.join('; ')];
 }
 
 export function hazardsSection(r: Results): HazardsSection {
@@ -79,12 +82,8 @@ export function hazardsSection(r: Results): HazardsSection {
       raisedBy: c.triggeredBy.length ? `Raised by: ${c.triggeredBy.map((id) => names.get(id) ?? id).join('; ')}` : 'Raised by the basis itself',
       standards: c.standards.map((s) => `${s.number}, ${s.title}`),
     })),
-    streams: table(
-      ['Stream', 'Role', 'State', 'Combustibles', 'LFL of the stream in air', 'Flammable on mixing with air', 'Own composition', 'Carbon monoxide', 'p(H₂), bar', 'Lowest autoignition'],
-      ['left', 'left', 'right', 'right', 'right', 'left', 'left', 'right', 'right', 'left'],
-      a.streams.map((s) => ({ cells: streamRow(s) })),
-    ),
-    substances: table(['Substance', 'CAS', 'Presence', 'LFL in air', 'UFL in air', 'Lowest autoignition', 'IDLH'], ['left', 'left', 'left', 'right', 'right', 'right', 'right'], a.substances.map((s) => ({ cells: substanceRow(s) }))),
+    streams: streamTable(a.streams),
+    substances: table(['Substance', 'CAS', 'Presence', 'LFL in air', 'UFL in air', 'Lowest autoignition', 'IDLH', 'Sources'], ['left', 'left', 'left', 'right', 'right', 'right', 'right', 'left'], a.substances.map((s) => ({ cells: substanceRow(s) }))),
     method: a.method,
   };
 }

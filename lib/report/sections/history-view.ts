@@ -16,6 +16,8 @@ export interface HistoryRow {
   checked: string;
   approved: string;
   changes: string[] | null;
+  /** The revision the changes are counted from. */
+  changesFrom: string;
   href: string | null;
   /** This page's own revision. */
   current: boolean;
@@ -31,7 +33,7 @@ export interface HistorySection {
 }
 
 export function historySection(entries: readonly RevisionHistoryEntry[], revision: RevisionContext, link: ((path: string) => string) | null): HistorySection {
-  const rows = entries.map((e) => {
+  const rows = entries.map((e, i) => {
     const current = revision.kind === 'draft' ? e.kind === 'draft' : e.kind === 'sealed' && e.revision === revision.revision;
     return {
       revision: e.kind === 'draft' ? `${e.revision} (draft)` : e.revision,
@@ -42,6 +44,7 @@ export function historySection(entries: readonly RevisionHistoryEntry[], revisio
       checked: e.checked,
       approved: e.approved,
       changes: e.changes,
+      changesFrom: i > 0 ? entries[i - 1]!.revision : '',
       href: !current && link && e.path ? link(e.path) : null,
       current,
       superseded: e.superseded,

@@ -9,6 +9,7 @@ import type { Results } from '../../plant/results-schema.ts';
 import { formatNumber, formatPercent, formatTemperature, formatTrimmed } from '../format.ts';
 import { pairs, table, type Table, type TableRow } from '../table.ts';
 import { prettyUnit } from '../units.ts';
+import { speciesText } from '../species-text.ts';
 
 export interface InputsSection {
   description: Table;
@@ -32,7 +33,7 @@ function composition(fractions: Readonly<Record<string, number>>): string {
   return Object.entries(fractions)
     .filter(([, x]) => x > 0)
     .sort((a, b) => b[1] - a[1])
-    .map(([species, x]) => `${species} ${formatPercent(x, 3)}`)
+    .map(([species, x]) => `${speciesText(species)} ${formatPercent(x, 3)}`)
     .join(', ');
 }
 
@@ -64,7 +65,7 @@ function description(basis: DesignBasis, r: Results): Table {
   else rows.push(['Fuel-electrode feed', 'none']);
   if (basis.airElectrode) rows.push(...airRows(basis.airElectrode));
   else rows.push(['Air-electrode feed', 'none']);
-  return pairs(rows, ['Item', 'As designed']);
+  return pairs(rows, ['Item', 'As designed'], 'left');
 }
 
 function inputCells(basis: DesignBasis, i: InputRecord): string[] {

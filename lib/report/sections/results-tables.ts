@@ -6,6 +6,7 @@
 import type { Results, StreamResult } from '../../plant/results-schema.ts';
 import { formatFixed, formatInteger, formatNumber, formatPercent, formatPower, formatQuantity } from '../format.ts';
 import { pairs, table, type Table, type TableRow } from '../table.ts';
+import { speciesText } from '../species-text.ts';
 
 export interface FigureTable {
   id: string;
@@ -142,7 +143,7 @@ export function streamTable(r: Results): Table {
   }
   rows.push({ group: 'Gas composition, mol %', cells: [] });
   for (const species of speciesOf(streams)) {
-    rows.push(row(species, (s) => (s.moleFractions[species] === undefined ? '' : formatNumber(s.moleFractions[species]! * 100, 4))));
+    rows.push(row(speciesText(species), (s) => (s.moleFractions[species] === undefined ? '' : formatNumber(s.moleFractions[species]! * 100, 4))));
   }
   return table(['', ...streams.map((s) => s.name)], ['left', ...streams.map(() => 'right' as const)], rows);
 }

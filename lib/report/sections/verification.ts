@@ -30,14 +30,13 @@ export function verificationSection(checks: readonly CheckResult[], toolVersion:
       `${formatNumber(c.check.expected, 6)}${unit(c.check.unit)}`,
       `${formatNumber(c.deviation, 2)} (± ${formatNumber(c.check.tolerance, 2)})`,
       c.pass ? 'pass' : 'FAIL',
-      c.check.source,
-      c.check.memory ? 'from memory' : 're-read',
+      `${c.check.source}${c.check.memory ? ' (quoted from memory)' : ''}`,
     ],
     flag: !c.pass,
   }));
   const same = toolVersion === resultsToolVersion;
   return {
-    table: table(['Check', 'Quantity', 'Computed', 'Published', 'Deviation (tolerance)', 'Result', 'Source', 'Published value'], ['left', 'left', 'right', 'right', 'right', 'left', 'left', 'left'], rows),
+    table: table(['Check', 'Quantity', 'Computed', 'Published', 'Deviation (tolerance)', 'Result', 'Source of the published value'], ['left', 'left', 'right', 'right', 'right', 'left', 'left'], rows),
     passed: checks.filter((c) => c.pass).length,
     failed: checks.filter((c) => !c.pass).length,
     fromMemory: checks.filter((c) => c.check.memory).length,
