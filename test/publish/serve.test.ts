@@ -1,0 +1,49 @@
+// cellbasis serve: Eleventy's dev server on the site, rebuilt when a basis changes; a basis with
+// errors shows its located diagnostics on the index page and the server keeps running.
+import { readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { afterAll, beforeAll, expect, it } from 'vitest';
+import { serveSite } from '../../lib/publish/serve.ts';
+import { basisFile, demoRoot } from './helpers.ts';
+
+const ID = 'hob-tor-pem-backup';
+const PORT = 20000 + (process.pid % 20000);
+let root: string;
+let server: { stop(): Promise<void> };
+
+async function page(path: string): Promise<string> {
+  const response = await fetch(`http://127.0.0.1:${PORT}/${path}`);
+  return response.text();
+}
+
+/** Polls a page until `test` holds (the rebuild after a change takes a moment), at most 30 s. */
+async function until(path: string, test: (html: string) => boolean): Promise<string> {
+  let html = '';
+  for (let i = 0; i < 60; i++) {
+    html = await page(path).catch(() => '');
+    if (test(html)) return html;
+    await new Promise((r) => setTimeout(r, 500));
+  }
+  return html;
+}
+
+beforeAll(async () => {
+  root = demoRoot([ID]);
+  server = await serveSite({ root, port: PORT });
+}, 120_000);
+
+afterAll(async () => {
+  await server?.stop();
+  rmSync(root, { recursive: true, force: true });
+});
+
+it('serves the site, rebuilds it when a basis changes, and shows a broken basis on the index page', async () => {
+  expect(await until(`projects/${ID}/`, (h) => h.includes('8 kW PEM backup power unit'))).toContain('8 kW PEM backup power unit');
+  const good = readFileSync(basisFile(root, ID), 'utf8');
+  writeFileSync(basisFile(root, ID), good.replace('title: 8 kW PEM backup power unit', 'title: 9 kW PEM backup power unit'));
+  expect(await until(`projects/${ID}/`, (h) => h.includes('9 kW PEM backup power unit'))).toContain('9 kW PEM backup power unit');
+  writeFileSync(basisFile(root, ID), good.replace('value: "62 C", source: R2', 'value: "warm", source: R2'));
+  const index = await until('', (h) => h.includes('The last build failed'));
+  expect(index).toMatch(/projects\/hob-tor-pem-backup\/basis\.yaml:\d+:\d+: conditions\.operating-temperature\.value: expected a temperature/);
+  writeFileSync(basisFile(root, ID), good);
+  expect(await until('', (h) => h.includes('8 kW PEM backup power unit') && !h.includes('The last build failed'))).toContain('8 kW PEM backup power unit');
+}, 120_000);
