@@ -270,11 +270,25 @@ function pageUrl(htmlPathOrUrl: string): string {
  */
 const NO_MARGIN_BOXES = `@page { ${['top-left', 'top-center', 'top-right', 'bottom-left', 'bottom-center', 'bottom-right'].map((box) => `@${box} { content: none; }`).join(' ')} }`;
 
+/**
+ * Every font the page declares, loaded before anything is measured for print: a font that
+ * only print content needs (or that the browser would fetch lazily) must not arrive while the
+ * pages are laid out, or the layout, and so the PDF, would depend on timing. Then the layout is
+ * given two frames to settle.
+ */
+async function settleFonts(page: Page): Promise<void> {
+  await page.evaluate(async () => {
+    await Promise.allSettled([...document.fonts].map((font) => font.load()));
+    await document.fonts.ready;
+    await new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve)));
+  });
+}
+
 /** Loads a page and waits until its fonts and charts are drawn. */
 async function loadForPrint(page: Page, url: string, timeoutMs: number): Promise<void> {
   await page.goto(url, { waitUntil: 'load', timeout: timeoutMs });
   await page.addStyleTag({ content: NO_MARGIN_BOXES });
-  await page.evaluate(() => document.fonts.ready.then(() => undefined));
+  await settleFonts(page);
   const hasCharts = await page.evaluate(() => document.documentElement.hasAttribute('data-charts-ready') || document.querySelector('canvas') !== null);
   if (!hasCharts) return;
   try {

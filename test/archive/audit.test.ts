@@ -12,7 +12,7 @@ import { manifestBytes, parseManifest } from '../../lib/archive/manifest.ts';
 import { sha256Hex } from '../../lib/archive/hash.ts';
 import { newKeyPair, signBytes } from '../../lib/archive/signature.ts';
 import { announceChromiumSkip, describeWithChromium } from './chromium.ts';
-import { basisPath, flipByte, PROJECT, removeWorkspace, seal, sealedPath, workspace } from './helpers.ts';
+import { SEAL_TIMEOUT, basisPath, flipByte, PROJECT, removeWorkspace, seal, sealedPath, workspace } from './helpers.ts';
 
 announceChromiumSkip('the audit tests');
 
@@ -55,7 +55,7 @@ describeWithChromium('audit', () => {
     const text = readFileSync(basisPath(base), 'utf8').replace('value: "800 C", source: A1', 'value: "780 C", source: A1');
     writeFileSync(basisPath(base), text);
     expect((await seal(base, ['B', '--status', 'issued for approval', '--date', '2026-12-01', '--key', 'signer.key', '--note', 'colder stack'])).code).toBe(0);
-  });
+  }, SEAL_TIMEOUT);
 
   afterAll(() => {
     removeWorkspace(base);
@@ -76,7 +76,7 @@ describeWithChromium('audit', () => {
     ['the only revision, unsigned', () => single, 'A', 'manifest.json'],
   ];
   for (const [label, from, revision, name] of cases) {
-    it(`fails when one byte of ${name} of ${label} changes, naming ${name}`, async () => {
+    it(`fails when one byte of ${name} of ${label} changes, naming ${name}`, { timeout: 180_000 }, async () => {
       const positions = name === 'manifest.json' ? Array.from({ length: 16 }, (_, i) => (i + 0.5) / 16) : [0.02, 0.5, 0.97];
       for (const at of positions) {
         const cwd = copy(from());

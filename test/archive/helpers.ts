@@ -13,6 +13,9 @@ import { run } from '../cli/run.ts';
 
 export const PROJECT = 'demo';
 
+/** Time allowed to set up tests that seal a few revisions (each prints a PDF of some 30 pages). */
+export const SEAL_TIMEOUT = 300_000;
+
 /** A temporary working folder holding projects/demo/basis.yaml from a scaffold. */
 export function workspace(technology: TechnologyId = 'solid-oxide', mode: Mode = 'power'): string {
   const cwd = mkdtempSync(join(tmpdir(), 'cellbasis-archive-'));
