@@ -8,6 +8,7 @@ import { PA_PER_BAR, REFERENCE_TEMPERATURE_K } from '../thermo/constants.ts';
 import type { Technology } from '../electrochem/technologies.ts';
 import type { Path } from './diagnostics.ts';
 import type { Read, Reader } from './reader.ts';
+import { limitProblem } from './limits.ts';
 
 /** "1073.15 K (800 °C)" for messages. */
 export function kelvinText(kelvin: number): string {
@@ -41,6 +42,11 @@ function readPressure(reader: Reader, path: Path, label: string): number | undef
     );
     return undefined;
   }
+  const beyond = limitProblem('pressure', label, read);
+  if (beyond) {
+    reader.findings.error(read.at, beyond);
+    return undefined;
+  }
   return bar;
 }
 
@@ -49,6 +55,8 @@ export interface ConditionsRead {
   sweep?: { from: Read; to: Read };
   fuelInlet?: Read;
   airInlet?: Read;
+  /** The allowed air temperature rise as written, when written and sound. */
+  rise?: Read;
   allowedAirTemperatureRiseK: number;
   fuelPressureBar?: number;
   airPressureBar?: number;
@@ -68,8 +76,10 @@ export function readConditions(reader: Reader, tech: Technology | undefined): Co
   const from = readTemperature(reader, [...C('temperature-sweep'), 'from'], 'temperature sweep start');
   const to = readTemperature(reader, [...C('temperature-sweep'), 'to'], 'temperature sweep end');
   if (from && to && from.si >= to.si) reader.findings.error(to.at, `the sweep must end above where it starts (${from.text}), got ${to.text}`);
-  const rise = reader.scalar(C('allowed-air-temperature-rise'), 'temperature-difference', 'allowed air temperature rise');
-  if (rise && rise.si <= 0) reader.findings.error(rise.at, `the allowed temperature rise must be above zero, got ${rise.text}`);
+  const rawRise = reader.scalar(C('allowed-air-temperature-rise'), 'temperature-difference', 'allowed air temperature rise');
+  const riseProblem = rawRise && (rawRise.si <= 0 ? `the allowed temperature rise must be above zero, got ${rawRise.text}` : limitProblem('allowed-air-temperature-rise', 'allowed air temperature rise', rawRise));
+  if (rawRise && riseProblem) reader.findings.error(rawRise.at, riseProblem);
+  const rise = riseProblem ? undefined : rawRise;
   const ambient = readTemperature(reader, C('ambient-temperature'), 'ambient temperature');
   const fuelInlet = readTemperature(reader, C('fuel-inlet-temperature'), 'fuel inlet temperature');
   const airInlet = readTemperature(reader, C('air-inlet-temperature'), 'air inlet temperature');
@@ -80,7 +90,8 @@ export function readConditions(reader: Reader, tech: Technology | undefined): Co
     ...(from && to && from.si < to.si ? { sweep: { from, to } } : {}),
     ...(fuelInlet ? { fuelInlet } : {}),
     ...(airInlet ? { airInlet } : {}),
-    allowedAirTemperatureRiseK: rise && rise.si > 0 ? rise.si : 100,
+    ...(rise ? { rise } : {}),
+    allowedAirTemperatureRiseK: rise?.si ?? 100,
     ...(fuelPressureBar !== undefined ? { fuelPressureBar } : {}),
     ...(airPressureBar !== undefined ? { airPressureBar } : {}),
     ambientTemperatureK: ambient?.si ?? REFERENCE_TEMPERATURE_K,

@@ -11,6 +11,7 @@ import type { Path } from './diagnostics.ts';
 import type { Read, Reader } from './reader.ts';
 import type { AirSupply, OperatingPoint, StackSize, VoltageModel } from './types.ts';
 import type { Dimension } from './units.ts';
+import { limitProblem, type LimitedInput } from './limits.ts';
 
 const OP = (key: string): Path => ['operating-point', key];
 
@@ -19,11 +20,16 @@ type Check = (si: number) => boolean;
 const positive: Check = (x) => x > 0;
 const openUnit: Check = (x) => x > 0 && x < 1;
 
-/** Reads a scalar and checks its range; `rule` words the range for the message. */
-function bounded(reader: Reader, key: string, dimension: Dimension, label: string, check: Check, rule: string): Read | undefined {
+/** Reads a scalar and checks its range (`rule` words it for the message), then its limits of data/limits.yaml, if it has any. */
+function bounded(reader: Reader, key: string, dimension: Dimension, label: string, check: Check, rule: string, limited?: LimitedInput): Read | undefined {
   const read = reader.scalar(OP(key), dimension, label);
   if (read && !check(read.si)) {
     reader.findings.error(read.at, `the ${label} ${rule}, got ${read.text}`);
+    return undefined;
+  }
+  const beyond = read && limited ? limitProblem(limited, label, read) : undefined;
+  if (beyond) {
+    reader.findings.error(read!.at, beyond);
     return undefined;
   }
   return read;
@@ -50,7 +56,7 @@ function utilization(reader: Reader, mode: Mode): number | undefined {
   const given = oneOf(reader, [key], required, {
     [other]: `${other} belongs to ${mode === 'power' ? 'electrolysis' : 'power mode'}; in ${mode} mode give ${key}`,
   });
-  return given ? bounded(reader, key, 'fraction', label, openUnit, 'lies strictly between 0 and 1')?.si : undefined;
+  return given ? bounded(reader, key, 'fraction', label, openUnit, 'lies strictly between 0 and 1', 'utilization')?.si : undefined;
 }
 
 function airSupply(reader: Reader, mode: Mode, sweep: { allowed: boolean; feed: boolean }): AirSupply | undefined {
@@ -88,7 +94,7 @@ function airSupply(reader: Reader, mode: Mode, sweep: { allowed: boolean; feed: 
 function voltage(reader: Reader): VoltageModel | undefined {
   const given = oneOf(reader, ['cell-voltage', 'area-specific-resistance'], 'give cell-voltage (e.g. "0.80 V") or area-specific-resistance (e.g. "0.35 ohm cm2")', {});
   if (given === 'cell-voltage') {
-    const read = bounded(reader, given, 'voltage', 'cell voltage', positive, 'must be above zero');
+    const read = bounded(reader, given, 'voltage', 'cell voltage', positive, 'must be above zero', 'cell-voltage');
     return read && { kind: 'given', cellVoltageV: read.si };
   }
   if (given === 'area-specific-resistance') {
@@ -109,7 +115,8 @@ function size(reader: Reader, mode: Mode): { size: StackSize; statedCells?: numb
   const cells = bounded(reader, 'cells', 'fraction', 'number of cells', (x) => Number.isInteger(x) && x > 0, 'must be a positive whole number');
   if (hasCells && !cells) return undefined;
   if (!target) return cells && { size: { kind: 'cells', cells: cells.si } };
-  const read = bounded(reader, target, target === 'target-power' ? 'power' : 'mass-flow', target === 'target-power' ? 'target power' : 'target hydrogen production', positive, 'must be above zero');
+  const power = target === 'target-power';
+  const read = bounded(reader, target, power ? 'power' : 'mass-flow', power ? 'target power' : 'target hydrogen production', positive, 'must be above zero', power ? 'target-power' : 'target-hydrogen');
   if (!read) return undefined;
   const sized: StackSize = target === 'target-power' ? { kind: 'power', powerW: read.si } : { kind: 'hydrogen', kgPerS: read.si };
   return { size: sized, ...(cells ? { statedCells: cells.si } : {}) };
@@ -128,9 +135,9 @@ export function readOperatingPoint(reader: Reader, mode: Mode, sweep: { allowed:
   const values = {
     utilization: utilization(reader, mode),
     air: airSupply(reader, mode, sweep),
-    currentDensity: bounded(reader, 'current-density', 'current-density', 'current density', positive, 'must be above zero'),
+    currentDensity: bounded(reader, 'current-density', 'current-density', 'current density', positive, 'must be above zero', 'current-density'),
     voltage: voltage(reader),
-    activeArea: bounded(reader, 'active-area', 'area', 'active area', positive, 'must be above zero'),
+    activeArea: bounded(reader, 'active-area', 'area', 'active area', positive, 'must be above zero', 'active-area'),
     size: size(reader, mode),
     parasiticFraction: parasitic(reader, mode),
   };

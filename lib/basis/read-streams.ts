@@ -23,7 +23,7 @@ export interface StreamsRead {
 
 const ELECTRODES: Electrode[] = ['fuel-electrode', 'air-electrode'];
 
-function temperatureUses(conditions: ConditionsRead, preReforming: TemperatureUse['read'] | undefined): TemperatureUse[] {
+function temperatureUses(conditions: ConditionsRead, preReforming: TemperatureUse['read'] | undefined, mode: Mode): TemperatureUse[] {
   const uses: TemperatureUse[] = [];
   const both = ELECTRODES;
   if (conditions.temperature) uses.push({ read: conditions.temperature, label: 'operating temperature', electrodes: both, cell: true });
@@ -34,6 +34,13 @@ function temperatureUses(conditions: ConditionsRead, preReforming: TemperatureUs
     uses.push({ read: conditions.sweep.to, label: 'sweep end', electrodes: both, cell: true });
   }
   if (preReforming) uses.push({ read: preReforming, label: 'pre-reforming temperature', electrodes: ['fuel-electrode'], cell: false });
+  // Cooling air (power mode) enters at the operating temperature less the allowed rise.
+  const { temperature, rise } = conditions;
+  if (mode === 'power' && temperature && rise) {
+    const coolingInletK = temperature.si - rise.si;
+    const text = `${String(Number(coolingInletK.toPrecision(6)))} K, the operating temperature less the allowed air temperature rise (${rise.text}),`;
+    uses.push({ read: { ...rise, si: coolingInletK, text }, label: 'cooling-air inlet temperature', electrodes: ['air-electrode'], cell: false });
+  }
   return uses;
 }
 
@@ -81,7 +88,7 @@ export function readStreams(reader: Reader, tech: Technology, mode: Mode, condit
       }
     }
   }
-  const reported = checkSpeciesRanges(reader, feeds, temperatureUses(conditions, preReforming), tech);
+  const reported = checkSpeciesRanges(reader, feeds, temperatureUses(conditions, preReforming, mode), tech);
   for (const feed of feeds) {
     const skip = new Set([...reported].filter((k) => k.startsWith(`${feed.electrode}:`)).map((k) => k.slice(feed.electrode.length + 1)));
     checkFeed(reader, feed.electrode, rules[feed.electrode], feed.composition, tech, skip);

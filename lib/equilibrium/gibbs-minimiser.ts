@@ -28,6 +28,26 @@ import { solveScaledInPlace } from './linear.ts';
 import type { ChemicalSystem } from './species-set.ts';
 import { ConvergenceError } from '../errors.ts';
 
+const METHOD = 'gas equilibrium (Gibbs minimisation)';
+
+/**
+ * A ConvergenceError (so every caller that handles one handles it) worded for the cases a
+ * residual does not describe: an iteration whose numbers stopped being finite, and a system
+ * the iteration cannot start from. Its message never says "residual NaN".
+ */
+class EquilibriumFailure extends ConvergenceError {
+  constructor(iterations: number, message: string) {
+    super(METHOD, iterations, Number.NaN);
+    this.message = message;
+  }
+}
+
+/** The error of an iteration that stopped after `iterations`, worded by whether its residual is still a number. */
+function notConverged(iterations: number, residual: number, detail?: string): ConvergenceError {
+  if (Number.isFinite(residual)) return new ConvergenceError(METHOD, iterations, residual, detail);
+  return new EquilibriumFailure(iterations, `${METHOD} diverged after ${iterations} iterations (its numbers stopped being finite)${detail ? `: ${detail}` : ''}`);
+}
+
 export interface MinimiserOptions {
   /** ln n_j of a previous solution on the normalised scale (Σ b = 1), to start from. */
   warmStart?: Float64Array;
@@ -228,7 +248,7 @@ function iterate(
     rhs[last] = total - sumN + sumNMu;
 
     if (!solveScaledInPlace(matrix, rhs, size, ne, pi)) {
-      throw new ConvergenceError('gas equilibrium (Gibbs minimisation)', iterationsSoFar + iteration, residual, 'the element-potential matrix is singular');
+      throw notConverged(iterationsSoFar + iteration, residual, 'the element-potential matrix is singular');
     }
     for (let i = 0; i < ne; i++) pi[i] = rhs[i]!;
     const dGraphite = hasC ? rhs[ne]! : 0;
@@ -258,7 +278,7 @@ function iterate(
     const lambda1 = maxMajor > 2 ? 2 / maxMajor : 1;
     const lambda = Math.min(1, lambda1, lambda2);
     if (!Number.isFinite(lambda) || !Number.isFinite(dlnTotal)) {
-      throw new ConvergenceError('gas equilibrium (Gibbs minimisation)', iterationsSoFar + iteration, residual, 'the iteration produced a non-finite step');
+      throw notConverged(iterationsSoFar + iteration, residual, 'the iteration produced a non-finite step');
     }
     for (let j = 0; j < ns; j++) ln[j] = ln[j]! + lambda * dln[j]!;
     lnTotal += lambda * dlnTotal;
@@ -279,7 +299,7 @@ function iterate(
       }
     }
   }
-  throw new ConvergenceError('gas equilibrium (Gibbs minimisation)', iterationsSoFar + maxIterations, residual);
+  throw notConverged(iterationsSoFar + maxIterations, residual);
 }
 
 /** Elements below this share of all atoms are "trace" for the polishing step. */
@@ -392,7 +412,7 @@ export function minimiseGibbs(
   let scale = 0;
   for (let i = 0; i < ne; i++) {
     if (!(bMol[i]! > 0) || !Number.isFinite(bMol[i]!)) {
-      throw new ConvergenceError('gas equilibrium (Gibbs minimisation)', 0, NaN, `element ${system.elements[i]} has amount ${bMol[i]}; every element must be present in a positive amount`);
+      throw new EquilibriumFailure(0, `${METHOD} cannot start: element ${system.elements[i]} has amount ${bMol[i]}; every element must be present in a positive amount`);
     }
     scale += bMol[i]!;
   }

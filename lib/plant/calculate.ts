@@ -82,7 +82,29 @@ export function evaluateBasis(basis: DesignBasis): DesignPoint {
   });
 }
 
+/** The path of the first number in the value that is NaN or infinite, if any. */
+function firstNonFinite(value: unknown, path: string): string | undefined {
+  if (typeof value === 'number') return Number.isFinite(value) ? undefined : path;
+  if (value === null || typeof value !== 'object') return undefined;
+  for (const [key, item] of Object.entries(value)) {
+    const found = firstNonFinite(item, Array.isArray(value) ? `${path}[${key}]` : `${path}.${key}`);
+    if (found) return found;
+  }
+  return undefined;
+}
+
+/**
+ * The results of a basis. A number that is NaN or infinite would be printed and sealed as if it
+ * were one: that is a gap in the validation, so it stops here as an internal error naming it.
+ */
 export function calculate(basis: DesignBasis): Results {
+  const results = calculateResults(basis);
+  const bad = firstNonFinite(results, 'results');
+  if (bad) throw new Error(`${basis.file}: the calculation gave a number that is not finite at ${bad}`);
+  return results;
+}
+
+function calculateResults(basis: DesignBasis): Results {
   const point = evaluateBasis(basis);
   const inputs = point.inputs;
   const tech = inputs.technology;

@@ -22,7 +22,8 @@ export function sizeStack(size: StackSize, statedCells: number | undefined, perC
   if (size.kind === 'cells') return { cells: size.cells, from: 'cells' };
   const target = size.kind === 'power' ? size.powerW : size.kgPerS;
   if (!(perCell > 0)) throw new UserError('one cell delivers nothing at this operating point, so no cell count meets the target');
-  const needed = Math.ceil(target / perCell - 1e-9);
+  // At least one cell, however small the target (a target below 1e-9 cells' output rounded to none).
+  const needed = Math.max(1, Math.ceil(target / perCell - 1e-9));
   if (statedCells === undefined) return { cells: needed, from: size.kind };
   const delivered = statedCells * perCell;
   const gap = (delivered - target) / target;
