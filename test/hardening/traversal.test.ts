@@ -103,6 +103,18 @@ describe('path traversal', () => {
     });
   });
 
+  it('check without arguments refuses the linked projects one by one and still checks the good one', async () => {
+    const { root } = workspace();
+    const r = await run(['check'], root);
+    expect(r.err.split('\n').filter(Boolean)).toEqual([
+      expect.stringMatching(/^cellbasis: check: projects\/link-out leads outside projects\/ \(to .*cellbasis-outside-.*\); a project must lie inside projects\/$/),
+      'cellbasis: check: projects/passwd-link leads outside projects/ (to /etc/passwd); a project must lie inside projects/',
+    ]);
+    expect(r.out).toMatch(/^projects\/good\/basis\.yaml: valid/);
+    expect(r.out + r.err).not.toMatch(/root:x?:0:/);
+    expect(r.code).toBe(2);
+  });
+
   it('a basis named by its path inside projects/ is held to projects/ too; one named elsewhere is read as given', async () => {
     const { root, outside } = workspace();
     const inside = await run(['check', 'projects/passwd-link/basis.yaml'], root);
