@@ -50,6 +50,11 @@ export interface PortfolioView {
   problems: string[];
 }
 
+/** Keeps a number with its unit on one line in the narrow columns of the index. */
+function together(text: string): string {
+  return text.replace(/ (?=[A-Za-z%°Ω×])/g, '\u00a0').replace(/× /g, '×\u00a0');
+}
+
 function row(p: PortfolioProject): PortfolioRow {
   const r = p.results;
   const h = r.headline;
@@ -69,12 +74,14 @@ function row(p: PortfolioProject): PortfolioRow {
       ? { label: `Rev. ${p.issued.revision}, ${p.issued.sealedOn}`, status: p.issued.status, href: relativeHref(INDEX_PATH, p.issued.path), kind: p.issued.status === 'approved' ? 'approved' : 'issued' }
       : null,
     draft: { label: `Rev. ${p.basis.document.revision}`, status: p.basis.document.status },
-    output: power ? `${formatPower(h.netPower_W)} net` : h.hydrogenProduction_kg_per_day === null ? formatPower(h.stackPower_W) : `${formatQuantity(h.hydrogenProduction_kg_per_day, 'kg/day')} H₂`,
-    efficiency: power
-      ? h.electricalEfficiencyLhv === null ? '' : `${formatPercent(h.electricalEfficiencyLhv, 3)} LHV`
-      : h.specificEnergy_kWh_per_kg === null ? '' : formatQuantity(h.specificEnergy_kWh_per_kg, 'kWh/kg'),
-    cellVoltage: `${formatQuantity(h.cellVoltage_V, 'V')} × ${formatInteger(h.cells)}`,
-    heat: `${h.stackHeat_W >= 0 ? '' : 'needs '}${formatPower(Math.abs(h.stackHeat_W))}`,
+    output: together(power ? `${formatPower(h.netPower_W)} net` : h.hydrogenProduction_kg_per_day === null ? formatPower(h.stackPower_W) : `${formatQuantity(h.hydrogenProduction_kg_per_day, 'kg/day')} H₂`),
+    efficiency: together(
+      power
+        ? h.electricalEfficiencyLhv === null ? '' : `${formatPercent(h.electricalEfficiencyLhv, 3)} LHV`
+        : h.specificEnergy_kWh_per_kg === null ? '' : formatQuantity(h.specificEnergy_kWh_per_kg, 'kWh/kg'),
+    ),
+    cellVoltage: `${together(formatQuantity(h.cellVoltage_V, 'V'))} × ${formatInteger(h.cells)}`,
+    heat: together(`${h.stackHeat_W >= 0 ? '' : 'needs '}${formatPower(Math.abs(h.stackHeat_W))}`),
     openAssumptions: `${open} of ${p.basis.assumptions.length}`,
     openCount: open,
     cautions: `${cautions.length}${danger ? ` (${danger} danger)` : ''}`,
