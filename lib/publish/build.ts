@@ -8,9 +8,16 @@
  *     root  the folder holding projects/ (the command's working folder)
  *     out   the site folder (default root/site)
  */
-import { existsSync, mkdirSync, renameSync, rmSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, renameSync, rmSync } from 'node:fs';
 import { randomBytes } from 'node:crypto';
-import { basename, dirname, join, resolve } from 'node:path';
+import { basename, dirname, isAbsolute, join, relative, resolve } from 'node:path';
+import { listProjects } from '../basis/projects.ts';
+import { loadBasisText } from '../basis/load.ts';
+import { sealedFolderAt } from '../archive/layout.ts';
+import { calculateAll, type CalculationJob, type CalculationOutcome } from '../plant/batch.ts';
+import { ResultsCache } from '../plant/results-cache.ts';
+import { ChromiumMissingError, chromiumMissingMessage, findChromium } from './pdf.ts';
+import { printDrafts } from './draft-pdfs.ts';
 import { UserError, EXIT_INTERNAL } from '../errors.ts';
 import { setBuildContext } from './build-context.ts';
 import { createEleventy } from './eleventy-api.ts';
@@ -21,6 +28,8 @@ export interface BuildReport {
   out: string;
   /** Document pages written (drafts and sealed revisions). */
   documents: number;
+  /** Draft PDFs written (sealed revisions carry their own). */
+  pdfs: number;
   warnings: string[];
 }
 
@@ -52,10 +61,54 @@ async function runEleventy(output: string): Promise<void> {
   }
 }
 
-export async function buildSite(options: { root: string; out?: string } & SiteOptions): Promise<BuildReport> {
+export interface BuildOptions extends SiteOptions {
+  root: string;
+  out?: string;
+  /** Print each working draft to PDF (default: when Chromium is found). */
+  pdf?: boolean;
+  /** Progress of the build's long steps: calculation and printing. */
+  onProgress?: (step: 'calculate' | 'print', done: number, total: number) => void;
+}
+
+/** Refuses an output folder whose replacement would take projects or sealed revisions with it. */
+function checkOutput(root: string, out: string): void {
+  const projects = join(root, 'projects');
+  const within = (outer: string, inner: string) => {
+    const rel = relative(outer, inner);
+    return rel === '' || (!rel.startsWith('..') && !isAbsolute(rel));
+  };
+  if (within(out, root) || within(out, projects) || within(projects, out)) {
+    throw new UserError(`build: --out ${relative(root, out) || '.'} would replace the working folder or write inside projects/; choose a folder of its own, such as site/`);
+  }
+  const sealed = sealedFolderAt(root, out);
+  if (sealed) throw new UserError(`build: --out would replace the sealed revisions in ${relative(root, sealed)}; only cellbasis seal writes there`);
+}
+
+/** Every project's results, from the cache or calculated (in worker threads when there are many). */
+async function precompute(root: string, options: BuildOptions): Promise<Map<string, CalculationOutcome>> {
+  const jobs: { id: string; job: CalculationJob }[] = [];
+  for (const id of listProjects(root)) {
+    const file = join(root, 'projects', id, 'basis.yaml');
+    const text = readFileSync(file);
+    const loaded = loadBasisText(text, `projects/${id}/basis.yaml`, id);
+    if (loaded.ok) jobs.push({ id, job: { basis: loaded.basis, text } });
+  }
+  const outcomes = await calculateAll(
+    jobs.map((j) => j.job),
+    { cache: new ResultsCache(root), onProgress: (done, total) => options.onProgress?.('calculate', done, total) },
+  );
+  return new Map(jobs.map((j, i) => [j.id, outcomes[i]!]));
+}
+
+export async function buildSite(options: BuildOptions): Promise<BuildReport> {
   const root = resolve(options.root);
   const out = resolve(options.out ?? join(root, 'site'));
-  const model = loadSiteModel(root, options);
+  checkOutput(root, out);
+  const chromium = findChromium();
+  const printing = options.pdf ?? chromium !== null;
+  if (printing && chromium === null) throw new ChromiumMissingError();
+  const results = options.results ?? (await precompute(root, options));
+  const model = loadSiteModel(root, { ...options, results, draftPdfs: printing });
   mkdirSync(dirname(out), { recursive: true });
   const fresh = sibling(out, 'build');
   mkdirSync(fresh);
@@ -65,6 +118,7 @@ export async function buildSite(options: { root: string; out?: string } & SiteOp
     for (const page of [...model.pages.map((p) => p.pagePath), 'index.html']) {
       if (!existsSync(join(fresh, page))) throw new UserError(`the build did not write ${page}`, EXIT_INTERNAL);
     }
+    if (printing) await printDrafts(root, fresh, model.drafts, (done, total) => options.onProgress?.('print', done, total));
   } catch (error) {
     rmSync(fresh, { recursive: true, force: true });
     throw error;
@@ -81,5 +135,6 @@ export async function buildSite(options: { root: string; out?: string } & SiteOp
     throw error;
   }
   if (old) rmSync(old, { recursive: true, force: true });
-  return { out, documents: model.pages.length, warnings: model.warnings };
+  const warnings = printing ? model.warnings : [...model.warnings, `no PDFs were printed: ${options.pdf === false ? 'HTML only was asked for' : chromiumMissingMessage()}`];
+  return { out, documents: model.pages.length, pdfs: printing ? model.drafts.length : 0, warnings };
 }

@@ -50,7 +50,7 @@ function siteData(): SiteModel {
     if (context.mode !== 'serve' || !(error instanceof UserError)) throw error;
     const lines = error instanceof SiteError ? [...error.errors, ...error.warnings] : [error.message];
     process.stderr.write(`${lines.join('\n')}\n`);
-    return { pages: [], portfolio: portfolioView([], lines), warnings: [] };
+    return { pages: [], portfolio: portfolioView([], lines), warnings: [], drafts: [] };
   }
 }
 

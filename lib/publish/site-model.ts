@@ -15,6 +15,9 @@ import { listProjects } from '../basis/projects.ts';
 import { loadBasisFile } from '../basis/load.ts';
 import { BasisError } from '../basis/diagnostics.ts';
 import { calculate } from '../plant/calculate.ts';
+import type { CalculationOutcome } from '../plant/batch.ts';
+import type { Results } from '../plant/results-schema.ts';
+import { ResultsCache, resultsKey } from '../plant/results-cache.ts';
 import { locatedDiagnostic } from '../plant/located-error.ts';
 import { runAllChecks } from '../verification/checks.ts';
 import { documentView, type DocumentView } from '../report/document.ts';
@@ -32,12 +35,18 @@ export interface SiteModel {
   portfolio: PortfolioView;
   /** Warnings of the bases and the calculation, as file:line:col: warning: ... lines. */
   warnings: string[];
+  /** Each working draft's page with its basis and results (to print it). */
+  drafts: { id: string; pagePath: string; basis: DesignBasis; results: Results }[];
 }
 
 export interface SiteOptions {
   /** The change summary between revisions; default: lib/archive/compare.ts over the basis texts. */
   changeSummary?: ChangeSummary;
   env?: NodeJS.ProcessEnv;
+  /** Results calculated beforehand (lib/plant/batch.ts), by project id; others are calculated here. */
+  results?: ReadonlyMap<string, CalculationOutcome>;
+  /** Whether the build prints each draft to projects/<id>/document.pdf (the page links it). */
+  draftPdfs?: boolean;
 }
 
 function pageOptions(path: string) {
@@ -55,6 +64,8 @@ export function loadSiteModel(root: string, options: SiteOptions = {}): SiteMode
   const checks = runAllChecks();
   const pages: DocumentView[] = [];
   const projects: PortfolioProject[] = [];
+  const drafts: SiteModel['drafts'] = [];
+  const cache = new ResultsCache(root);
   for (const id of listProjects(root)) {
     const shown = `projects/${id}/basis.yaml`;
     const loaded = loadBasisFile(join(root, 'projects', id, 'basis.yaml'), { id, displayPath: shown });
@@ -62,12 +73,28 @@ export function loadSiteModel(root: string, options: SiteOptions = {}): SiteMode
     const sealed = readSealedRevisions(root, id, problems);
     if (!loaded.ok) continue;
     let results;
-    try {
-      results = calculate(loaded.basis);
-    } catch (error) {
-      if (!(error instanceof BasisError)) throw error;
-      problems.diagnostics(error.errors);
-      continue;
+    const given = options.results?.get(id);
+    if (given) {
+      if (!given.ok) {
+        if (given.diagnostics.length) problems.diagnostics(given.diagnostics);
+        else problems.error(shown, given.message);
+        continue;
+      }
+      results = given.results;
+    } else {
+      try {
+        // The dev server rebuilds from here on every change: unchanged projects come from the cache.
+        const key = resultsKey(readFileSync(join(root, 'projects', id, 'basis.yaml')), id, shown);
+        results = cache.get(key);
+        if (!results) {
+          results = calculate(loaded.basis);
+          cache.put(key, results);
+        }
+      } catch (error) {
+        if (!(error instanceof BasisError)) throw error;
+        problems.diagnostics(error.errors);
+        continue;
+      }
     }
     problems.diagnostics(results.notes.map((n) => locatedDiagnostic(loaded.basis, n.path, n.message, 'warning')));
     const draftPath = draftPagePath(id);
@@ -78,8 +105,9 @@ export function loadSiteModel(root: string, options: SiteOptions = {}): SiteMode
       draft: { revision: loaded.basis.document.revision, status: loaded.basis.document.status, basis: loaded.basis, results, path: draftPath },
       changeSummary: options.changeSummary ?? compareWith(sources),
     });
-    const draft: RevisionContext = { kind: 'draft', date: draftDate(loaded.basis, options.env) };
+    const draft: RevisionContext = { kind: 'draft', date: draftDate(loaded.basis, options.env), pdfHref: options.draftPdfs ? 'document.pdf' : null };
     pages.push(documentView({ basis: loaded.basis, results, revision: draft, history }, { ...pageOptions(draftPath), checks }));
+    drafts.push({ id, pagePath: draftPath, basis: loaded.basis, results });
     sealed.forEach((s, i) => {
       const path = revisionPagePath(id, s.revision);
       const next = sealed[i + 1];
@@ -105,5 +133,5 @@ export function loadSiteModel(root: string, options: SiteOptions = {}): SiteMode
     });
   }
   if (problems.errors.length) throw new SiteError(problems.errors, problems.warnings);
-  return { pages, portfolio: portfolioView(projects), warnings: problems.warnings };
+  return { pages, portfolio: portfolioView(projects), warnings: problems.warnings, drafts };
 }

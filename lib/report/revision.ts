@@ -10,6 +10,8 @@ export type RevisionContext =
       kind: 'draft';
       /** The date the draft is shown with (YYYY-MM-DD): SOURCE_DATE_EPOCH, else its latest sign-off date; null when neither exists. */
       date: string | null;
+      /** Link to the draft's PDF beside the page (relative), when the build prints one. */
+      pdfHref?: string | null;
     }
   | {
       kind: 'sealed';

@@ -42,7 +42,7 @@ describe.skipIf(!available && !process.env.CI)('the built site in Chromium, from
   beforeAll(async () => {
     root = await sealedDemoRoot();
     site = join(root, 'site');
-    await buildSite({ root, env: EPOCH });
+    await buildSite({ root, env: EPOCH, pdf: false });
     browser = await chromium.launch({ executablePath: CHROMIUM, args: ARGS });
     rmSync(ARTIFACTS, { recursive: true, force: true });
     mkdirSync(ARTIFACTS, { recursive: true });

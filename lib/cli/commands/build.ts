@@ -10,17 +10,24 @@ import { listProjects } from '../../basis/projects.ts';
 import { EXIT_VALIDATION, UserError } from '../../errors.ts';
 import { buildSite } from '../../publish/build.ts';
 import { SiteError } from '../../publish/site-problems.ts';
+import { progressReporter } from '../progress.ts';
 
 export const buildCommand: Command = {
   name: 'build',
   summary: 'build the design-basis documents of every project into site/ (atomically)',
-  usage: 'build [--out DIR]',
+  usage: 'build [--out DIR] [--html-only] [--quiet]',
   details:
     'Renders each projects/<id>/basis.yaml as its working draft, each sealed revision as its own page, and the\n' +
     'portfolio index, into a fresh folder that replaces site/ only when everything was written.\n' +
-    'Pages are reproducible: the draft date is SOURCE_DATE_EPOCH when set, else the latest sign-off date.',
+    'Pages are reproducible: the draft date is SOURCE_DATE_EPOCH when set, else the latest sign-off date.\n' +
+    'Each draft is also printed to projects/<id>/document.pdf when Chromium is found (the build says so when\n' +
+    'it is not). Results and PDFs of unchanged projects come from .cellbasis-cache/.',
   positionals: [0, 0],
-  options: [{ name: 'out', type: 'string', value: 'DIR', description: 'write the site to DIR instead of site/' }],
+  options: [
+    { name: 'out', type: 'string', value: 'DIR', description: 'write the site to DIR instead of site/' },
+    { name: 'html-only', type: 'boolean', description: 'do not print the drafts to PDF' },
+    { name: 'quiet', type: 'boolean', description: 'no progress output (for scripts)' },
+  ],
   async run(args, io) {
     if (listProjects(io.cwd).length === 0) {
       throw new UserError('build: no design bases under projects/ here; create one with cellbasis new ID --technology TECH');
@@ -28,7 +35,12 @@ export const buildCommand: Command = {
     const out = optionalString(args, 'out');
     let report;
     try {
-      report = await buildSite({ root: io.cwd, out: out === undefined ? join(io.cwd, 'site') : join(io.cwd, out) });
+      report = await buildSite({
+        root: io.cwd,
+        out: out === undefined ? join(io.cwd, 'site') : join(io.cwd, out),
+        ...(args.values['html-only'] ? { pdf: false } : {}),
+        onProgress: progressReporter(io, args.values.quiet === true),
+      });
     } catch (error) {
       if (!(error instanceof SiteError)) throw error;
       // Each problem on a line of its own, as check prints them; then the one-line verdict.
@@ -36,7 +48,8 @@ export const buildCommand: Command = {
       throw new UserError(`build: ${error.errors.length} error${error.errors.length === 1 ? '' : 's'} in the projects; the site was not built and the previous site is left as it was`, EXIT_VALIDATION);
     }
     for (const w of report.warnings) io.err(`${w}\n`);
-    io.out(`built ${report.documents} document page${report.documents === 1 ? '' : 's'} and the index into ${relative(io.cwd, report.out) || '.'}/\n`);
+    const pdfs = report.pdfs ? ` and ${report.pdfs} draft PDF${report.pdfs === 1 ? '' : 's'}` : '';
+    io.out(`built ${report.documents} document page${report.documents === 1 ? '' : 's'}${pdfs} and the index into ${relative(io.cwd, report.out) || '.'}/\n`);
     return 0;
   },
 };

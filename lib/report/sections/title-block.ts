@@ -24,6 +24,8 @@ export interface TitleBlock {
   date: string;
   signOff: SignOffRow[];
   pdfHref: string | null;
+  /** The words of the PDF link. */
+  pdfLabel: string;
   toolLine: string;
 }
 
@@ -48,7 +50,8 @@ export function titleBlock(basis: DesignBasis, results: Results, revision: Revis
       const s = doc.signOff[key];
       return { role, name: s?.name ?? '', date: s?.date ?? '' };
     }),
-    pdfHref: revision.kind === 'sealed' ? revision.pdfHref : null,
+    pdfHref: revision.pdfHref ?? null,
+    pdfLabel: revision.kind === 'sealed' ? 'The sealed PDF of this revision' : 'This draft as PDF (not issued)',
     toolLine: `Calculated by ${results.tool.name} ${results.tool.version}; species data SHA-256 ${results.speciesData_sha256.slice(0, 16)}…`,
   };
 }

@@ -1,0 +1,55 @@
+// cellbasis build's options and refusals: an output folder that would replace projects/ or the
+// working folder is refused before anything is written; without Chromium the build says so and
+// writes HTML; --html-only prints nothing; a second build takes results from the cache.
+import { existsSync, mkdirSync, mkdtempSync, readdirSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { renderScaffold } from '../../lib/basis/scaffolds.ts';
+import { CACHE_DIR } from '../../lib/plant/results-cache.ts';
+import { run } from '../cli/run.ts';
+
+function root(): string {
+  const dir = mkdtempSync(join(tmpdir(), 'cellbasis-build-options-'));
+  mkdirSync(join(dir, 'projects', 'p1'), { recursive: true });
+  writeFileSync(join(dir, 'projects', 'p1', 'basis.yaml'), renderScaffold('pem', 'power', 'p1', '2026-11-30'));
+  return dir;
+}
+
+describe('cellbasis build options', () => {
+  it('refuses --out that is the working folder, projects/ or inside it, and writes nothing', async () => {
+    const dir = root();
+    for (const out of ['.', 'projects', 'projects/p1', 'projects/p1/sealed/A', '..']) {
+      const r = await run(['build', '--out', out, '--html-only'], dir);
+      expect(r.code, out).toBe(2);
+      expect(r.err, out).toMatch(/would replace the working folder or write inside projects\//);
+    }
+    expect(readdirSync(dir).sort()).toEqual(['projects']);
+  });
+
+  it('without Chromium: builds the HTML and says clearly that no PDF was printed', async () => {
+    const dir = root();
+    const before = process.env.CELLBASIS_CHROMIUM;
+    process.env.CELLBASIS_CHROMIUM = join(dir, 'no-such-browser');
+    try {
+      const r = await run(['build', '--quiet'], dir);
+      expect(r.code).toBe(0);
+      expect(r.err).toMatch(/no PDFs were printed: CELLBASIS_CHROMIUM names .* PDFs need Debian's Chromium \(apt-get install -y chromium\)/);
+      expect(existsSync(join(dir, 'site', 'projects', 'p1', 'index.html'))).toBe(true);
+      expect(existsSync(join(dir, 'site', 'projects', 'p1', 'document.pdf'))).toBe(false);
+    } finally {
+      if (before === undefined) delete process.env.CELLBASIS_CHROMIUM;
+      else process.env.CELLBASIS_CHROMIUM = before;
+    }
+  });
+
+  it('--html-only prints nothing and keeps results in the cache for the next build', async () => {
+    const dir = root();
+    const r = await run(['build', '--html-only'], dir);
+    expect(r.code).toBe(0);
+    expect(r.err).toMatch(/no PDFs were printed: HTML only was asked for/);
+    expect(readdirSync(join(dir, CACHE_DIR, 'results'))).toHaveLength(1);
+    const again = await run(['build', '--html-only'], dir);
+    expect(again.out).toBe(r.out);
+  });
+});
