@@ -9,7 +9,7 @@ import { join, resolve } from 'node:path';
 import type { Command } from '../command.ts';
 import { optionalString } from '../command.ts';
 import { projectBasisPath, projectIdProblem } from '../../basis/projects.ts';
-import { auditProject, type AuditLine } from '../../archive/audit.ts';
+import type { AuditLine } from '../../archive/audit.ts';
 import { SEALED_DIR } from '../../archive/layout.ts';
 import { publicKeyPem, readPublicKey } from '../../archive/signature.ts';
 import { EXIT_OK, EXIT_VALIDATION } from '../../errors.ts';
@@ -52,7 +52,7 @@ export const auditCommand: Command = {
     let revisions = 0;
     let failed = 0;
     for (const project of projects) {
-      const { lines, notes } = await auditProject(io.cwd, project, { requireKey });
+      const { lines, notes } = await (await import('../../archive/audit.ts')).auditProject(io.cwd, project, { requireKey });
       for (const line of lines) {
         io.out(lineText(line));
         if (line.revision !== null) revisions += 1;

@@ -8,7 +8,6 @@ import type { Command } from '../command.ts';
 import { optionalString } from '../command.ts';
 import { listProjects } from '../../basis/projects.ts';
 import { EXIT_VALIDATION, UserError } from '../../errors.ts';
-import { buildSite } from '../../publish/build.ts';
 import { SiteError } from '../../publish/site-problems.ts';
 import { progressReporter } from '../progress.ts';
 
@@ -33,6 +32,8 @@ export const buildCommand: Command = {
       throw new UserError('build: no design bases under projects/ here; create one with cellbasis new ID --technology TECH');
     }
     const out = optionalString(args, 'out');
+    // Eleventy and the PDF printer load only when a build runs.
+    const { buildSite } = await import('../../publish/build.ts');
     let report;
     try {
       report = await buildSite({

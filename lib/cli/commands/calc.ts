@@ -5,9 +5,7 @@
 import type { Command } from '../command.ts';
 import { JSON_OPTION } from '../command.ts';
 import { loadProject } from '../load-project.ts';
-import { calculate } from '../../plant/calculate.ts';
 import { formatDiagnostic } from '../../basis/diagnostics.ts';
-import { locatedDiagnostic } from '../../plant/located-error.ts';
 import { json, table } from '../format.ts';
 import { headlineRows } from '../results-table.ts';
 
@@ -18,8 +16,10 @@ export const calcCommand: Command = {
   details: 'With --json prints one results object (documented by schema/results.schema.json; units in the key names).',
   positionals: [1, 1],
   options: [JSON_OPTION],
-  run(args, io) {
+  async run(args, io) {
     const basis = loadProject(args.positionals[0]!, io);
+    const { calculate } = await import('../../plant/calculate.ts');
+    const { locatedDiagnostic } = await import('../../plant/located-error.ts');
     const results = calculate(basis);
     for (const note of results.notes) io.err(`${formatDiagnostic(locatedDiagnostic(basis, note.path, note.message, 'warning'))}\n`);
     if (args.values.json) {

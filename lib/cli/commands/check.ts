@@ -9,8 +9,6 @@ import { listProjects, resolveProjectArg } from '../../basis/projects.ts';
 import { loadBasisFile } from '../../basis/load.ts';
 import { formatDiagnostic } from '../../basis/diagnostics.ts';
 import { basisSummaryRows } from '../../basis/summary.ts';
-import { calculate } from '../../plant/calculate.ts';
-import { locatedDiagnostic } from '../../plant/located-error.ts';
 import { BasisError } from '../../basis/diagnostics.ts';
 import { headlineRows } from '../results-table.ts';
 import { EXIT_OK, EXIT_USAGE, EXIT_VALIDATION, UserError } from '../../errors.ts';
@@ -25,7 +23,7 @@ export const checkCommand: Command = {
     'Exit code 1 when any basis has errors, 2 when an argument names no basis.',
   positionals: [0, Number.POSITIVE_INFINITY],
   options: [],
-  run(args, io) {
+  async run(args, io) {
     const targets = args.positionals.length ? args.positionals : listProjects(io.cwd);
     if (targets.length === 0) {
       throw new UserError('check: no design bases under projects/ here; create one with cellbasis new ID --technology TECH');
@@ -52,6 +50,8 @@ export const checkCommand: Command = {
       // The calculation may still find a problem (a voltage above the Nernst voltage, conflicting sizes).
       let calculated: [string, string][] = [];
       try {
+        const { calculate } = await import('../../plant/calculate.ts');
+        const { locatedDiagnostic } = await import('../../plant/located-error.ts');
         const results = calculate(result.basis);
         for (const note of results.notes) io.err(`${formatDiagnostic(locatedDiagnostic(result.basis, note.path, note.message, 'warning'))}\n`);
         calculated = headlineRows(results);

@@ -8,8 +8,7 @@ import type { Command } from '../command.ts';
 import { JSON_OPTION } from '../command.ts';
 import { grid, json } from '../format.ts';
 import { formatDiagnostic } from '../../basis/diagnostics.ts';
-import { compareRevisions, type RevisionChanges } from '../../archive/compare.ts';
-import { readRevisionSide } from '../../archive/revision-sides.ts';
+import type { RevisionChanges } from '../../archive/compare.ts';
 
 function sections(changes: RevisionChanges): string {
   const out: string[] = [];
@@ -42,9 +41,11 @@ export const compareCommand: Command = {
     'results (old, new, delta and relative change in SI) and summary lines.',
   positionals: [3, 3],
   options: [JSON_OPTION],
-  run(args, io) {
+  async run(args, io) {
     const [project, revA, revB] = args.positionals as [string, string, string];
     const warn = (d: Parameters<typeof formatDiagnostic>[0]) => io.err(`${formatDiagnostic(d)}\n`);
+    const { readRevisionSide } = await import('../../archive/revision-sides.ts');
+    const { compareRevisions } = await import('../../archive/compare.ts');
     const a = readRevisionSide(io.cwd, project, revA, warn);
     const b = readRevisionSide(io.cwd, project, revB, warn);
     const changes = compareRevisions(a, b);

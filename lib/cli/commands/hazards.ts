@@ -2,10 +2,6 @@
 import type { Command } from '../command.ts';
 import { JSON_OPTION } from '../command.ts';
 import { loadProject } from '../load-project.ts';
-import { evaluateBasis } from '../../plant/calculate.ts';
-import { hazardInput } from '../../plant/hazard-streams.ts';
-import { assessHazards } from '../../hazards/assessment.ts';
-import { formatHazardsText } from '../../hazards/format-text.ts';
 import { json } from '../format.ts';
 
 export const hazardsCommand: Command = {
@@ -15,8 +11,12 @@ export const hazardsCommand: Command = {
   details: 'Informational only: local codes, the authority having jurisdiction and licensed professional practice govern.',
   positionals: [1, 1],
   options: [JSON_OPTION],
-  run(args, io) {
+  async run(args, io) {
     const basis = loadProject(args.positionals[0]!, io);
+    const { evaluateBasis } = await import('../../plant/calculate.ts');
+    const { hazardInput } = await import('../../plant/hazard-streams.ts');
+    const { assessHazards } = await import('../../hazards/assessment.ts');
+    const { formatHazardsText } = await import('../../hazards/format-text.ts');
     const assessment = assessHazards(hazardInput(basis, evaluateBasis(basis)));
     io.out(args.values.json ? json(assessment) : formatHazardsText(assessment));
     return 0;

@@ -8,9 +8,11 @@
 import type { Command } from '../command.ts';
 import { optionalString, requireString } from '../command.ts';
 import { formatDiagnostic } from '../../basis/diagnostics.ts';
-import { sealRevision, SEALABLE_STATUSES, SEAL_STEPS } from '../../archive/seal.ts';
-import { sealedDocumentInput } from '../../archive/sealed-document.ts';
-import { renderStandaloneHtml } from '../../publish/render.ts';
+import { DOCUMENT_STATUSES } from '../../basis/types.ts';
+
+// The sealing, rendering and printing modules load only when a seal runs (they pull in Eleventy's
+// Nunjucks and Playwright), so that every other command starts quickly.
+const SEALABLE_STATUSES = DOCUMENT_STATUSES.filter((s) => s !== 'draft' && s !== 'superseded');
 
 export const sealCommand: Command = {
   name: 'seal',
@@ -38,6 +40,9 @@ export const sealCommand: Command = {
       io.err(`cellbasis: warning: revision ${revision} is a letter, the numbering before approval; an approved revision is usually numbered 0, 1, 2, ... (ASME Y14.35 practice)\n`);
     }
     const pauseAt = process.env.CELLBASIS_SEAL_PAUSE;
+    const { sealRevision, SEAL_STEPS } = await import('../../archive/seal.ts');
+    const { sealedDocumentInput } = await import('../../archive/sealed-document.ts');
+    const { renderStandaloneHtml } = await import('../../publish/render.ts');
     const outcome = await sealRevision({
       cwd: io.cwd,
       project,

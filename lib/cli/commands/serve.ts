@@ -5,7 +5,6 @@
 import type { Command } from '../command.ts';
 import { optionalString } from '../command.ts';
 import { UserError } from '../../errors.ts';
-import { serveSite } from '../../publish/serve.ts';
 
 export const serveCommand: Command = {
   name: 'serve',
@@ -18,7 +17,7 @@ export const serveCommand: Command = {
     const text = optionalString(args, 'port') ?? '8080';
     const port = Number(text);
     if (!Number.isInteger(port) || port < 1 || port > 65535) throw new UserError(`serve: --port must be a whole number from 1 to 65535, got "${text}"`);
-    const server = await serveSite({ root: io.cwd, port });
+    const server = await (await import('../../publish/serve.ts')).serveSite({ root: io.cwd, port });
     io.err(`serving the design-basis site on http://localhost:${port}/ (Ctrl-C stops)\n`);
     await new Promise<void>((done) => process.once('SIGINT', () => done()));
     await server.stop();
