@@ -1,8 +1,11 @@
-// cellbasis serve: Eleventy's dev server on the site, rebuilt when a basis changes; a basis with
-// errors shows its located diagnostics on the index page and the server keeps running.
+// cellbasis serve: Eleventy's dev server on the site, rebuilt incrementally when a basis changes,
+// with the same bytes as the built site; a basis with errors shows its located diagnostics on the
+// index page and the server keeps running.
 import { readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { serveSite } from '../../lib/publish/serve.ts';
+import { buildSite } from '../../lib/publish/build.ts';
+import { join } from 'node:path';
 import { basisFile, demoRoot } from './helpers.ts';
 
 const ID = 'hob-tor-pem-backup';
@@ -46,4 +49,13 @@ it('serves the site, rebuilds it when a basis changes, and shows a broken basis 
   expect(index).toMatch(/projects\/hob-tor-pem-backup\/basis\.yaml:\d+:\d+: conditions\.operating-temperature\.value: expected a temperature/);
   writeFileSync(basisFile(root, ID), good);
   expect(await until('', (h) => h.includes('8 kW PEM backup power unit') && !h.includes('The last build failed'))).toContain('8 kW PEM backup power unit');
+}, 120_000);
+
+it('serves each page byte for byte as cellbasis build writes it (one renderer for both)', async () => {
+  await until(`projects/${ID}/`, (h) => h.includes('8 kW PEM backup power unit'));
+  const built = join(root, 'built');
+  await buildSite({ root, out: built, pdf: false });
+  for (const path of [`projects/${ID}/index.html`, 'index.html']) {
+    expect(await page(path), path).toBe(readFileSync(join(built, path), 'utf8'));
+  }
 }, 120_000);
