@@ -30,8 +30,17 @@ import { SiteError, SiteProblems } from './site-problems.ts';
 import { draftDate } from './source-date.ts';
 import { ASSET_DIR } from './site-assets.ts';
 
+/**
+ * A document page: its path, and its view model made when the page is rendered (not kept: the
+ * views of hundreds of projects would otherwise all sit in memory at once).
+ */
+export interface PageEntry {
+  pagePath: string;
+  view(): DocumentView;
+}
+
 export interface SiteModel {
-  pages: DocumentView[];
+  pages: PageEntry[];
   portfolio: PortfolioView;
   /** Warnings of the bases and the calculation, as file:line:col: warning: ... lines. */
   warnings: string[];
@@ -58,79 +67,114 @@ function compareWith(sources: Map<DesignBasis, string>): ChangeSummary {
   return (before, after) => compareRevisions({ ...before, source: sources.get(before.basis) }, { ...after, source: sources.get(after.basis) }).summary;
 }
 
-/** Loads every project of `root`; throws SiteError with every problem found. */
-export function loadSiteModel(root: string, options: SiteOptions = {}): SiteModel {
-  const problems = new SiteProblems();
-  const checks = runAllChecks();
-  const pages: DocumentView[] = [];
-  const projects: PortfolioProject[] = [];
-  const drafts: SiteModel['drafts'] = [];
-  const cache = new ResultsCache(root);
-  for (const id of listProjects(root)) {
-    const shown = `projects/${id}/basis.yaml`;
-    const loaded = loadBasisFile(join(root, 'projects', id, 'basis.yaml'), { id, displayPath: shown });
-    problems.diagnostics(loaded.ok ? loaded.warnings : [...loaded.errors, ...loaded.warnings]);
-    const sealed = readSealedRevisions(root, id, problems);
-    if (!loaded.ok) continue;
-    let results;
-    const given = options.results?.get(id);
-    if (given) {
-      if (!given.ok) {
-        if (given.diagnostics.length) problems.diagnostics(given.diagnostics);
-        else problems.error(shown, given.message);
-        continue;
-      }
-      results = given.results;
-    } else {
-      try {
-        // The dev server rebuilds from here on every change: unchanged projects come from the cache.
-        const key = resultsKey(readFileSync(join(root, 'projects', id, 'basis.yaml')), id, shown);
-        results = cache.get(key);
-        if (!results) {
-          results = calculate(loaded.basis);
-          cache.put(key, results);
-        }
-      } catch (error) {
-        if (!(error instanceof BasisError)) throw error;
-        problems.diagnostics(error.errors);
-        continue;
-      }
+/** What one project contributes to the site. */
+export interface ProjectPages {
+  pages: PageEntry[];
+  draft: SiteModel['drafts'][number] | null;
+  portfolio: PortfolioProject | null;
+}
+
+/** The shared inputs of loading projects: the verification table and the results cache. */
+export interface ProjectLoader {
+  root: string;
+  options: SiteOptions;
+  checks: ReturnType<typeof runAllChecks>;
+  cache: ResultsCache;
+}
+
+export function projectLoader(root: string, options: SiteOptions = {}): ProjectLoader {
+  return { root, options, checks: runAllChecks(), cache: new ResultsCache(root) };
+}
+
+/**
+ * One project: its working draft and sealed revisions as document views, and its portfolio row.
+ * Problems go to `problems`; a project with an error contributes no pages.
+ */
+export function loadProjectPages(loader: ProjectLoader, id: string, problems: SiteProblems): ProjectPages {
+  const { root, options, checks, cache } = loader;
+  const none: ProjectPages = { pages: [], draft: null, portfolio: null };
+  const shown = `projects/${id}/basis.yaml`;
+  const loaded = loadBasisFile(join(root, 'projects', id, 'basis.yaml'), { id, displayPath: shown });
+  problems.diagnostics(loaded.ok ? loaded.warnings : [...loaded.errors, ...loaded.warnings]);
+  const sealed = readSealedRevisions(root, id, problems);
+  if (!loaded.ok) return none;
+  let results;
+  const given = options.results?.get(id);
+  if (given) {
+    if (!given.ok) {
+      if (given.diagnostics.length) problems.diagnostics(given.diagnostics);
+      else problems.error(shown, given.message);
+      return none;
     }
-    problems.diagnostics(results.notes.map((n) => locatedDiagnostic(loaded.basis, n.path, n.message, 'warning')));
-    const draftPath = draftPagePath(id);
-    const sources = new Map<DesignBasis, string>(sealed.map((s) => [s.basis, s.source]));
-    sources.set(loaded.basis, readFileSync(join(root, 'projects', id, 'basis.yaml'), 'utf8'));
-    const history = revisionHistory({
-      sealed: sealed.map((s) => ({ revision: s.revision, basis: s.basis, results: s.results, manifest: s.manifest, path: revisionPagePath(id, s.revision) })),
-      draft: { revision: loaded.basis.document.revision, status: loaded.basis.document.status, basis: loaded.basis, results, path: draftPath },
-      changeSummary: options.changeSummary ?? compareWith(sources),
-    });
-    const draft: RevisionContext = { kind: 'draft', date: draftDate(loaded.basis, options.env), pdfHref: options.draftPdfs ? 'document.pdf' : null };
-    pages.push(documentView({ basis: loaded.basis, results, revision: draft, history }, { ...pageOptions(draftPath), checks }));
-    drafts.push({ id, pagePath: draftPath, basis: loaded.basis, results });
-    sealed.forEach((s, i) => {
-      const path = revisionPagePath(id, s.revision);
-      const next = sealed[i + 1];
-      const revision: RevisionContext = {
-        kind: 'sealed',
-        revision: s.revision,
-        status: s.manifest.status,
-        sealedOn: s.manifest.sealedOn,
-        note: s.manifest.note,
-        supersededBy: next ? next.revision : null,
-        pdfHref: s.pdf ? 'document.pdf' : null,
-      };
-      pages.push(documentView({ basis: s.basis, results: s.results, revision, history }, { ...pageOptions(path), checks }));
-    });
-    const last = sealed[sealed.length - 1];
-    projects.push({
+    results = given.results;
+  } else {
+    try {
+      // The dev server rebuilds from here on every change: unchanged projects come from the cache.
+      const key = resultsKey(readFileSync(join(root, 'projects', id, 'basis.yaml')), id, shown);
+      results = cache.get(key);
+      if (!results) {
+        results = calculate(loaded.basis);
+        cache.put(key, results);
+      }
+    } catch (error) {
+      if (!(error instanceof BasisError)) throw error;
+      problems.diagnostics(error.errors);
+      return none;
+    }
+  }
+  problems.diagnostics(results.notes.map((n) => locatedDiagnostic(loaded.basis, n.path, n.message, 'warning')));
+  const draftPath = draftPagePath(id);
+  const sources = new Map<DesignBasis, string>(sealed.map((s) => [s.basis, s.source]));
+  sources.set(loaded.basis, readFileSync(join(root, 'projects', id, 'basis.yaml'), 'utf8'));
+  const history = revisionHistory({
+    sealed: sealed.map((s) => ({ revision: s.revision, basis: s.basis, results: s.results, manifest: s.manifest, path: revisionPagePath(id, s.revision) })),
+    draft: { revision: loaded.basis.document.revision, status: loaded.basis.document.status, basis: loaded.basis, results, path: draftPath },
+    changeSummary: options.changeSummary ?? compareWith(sources),
+  });
+  const pages: PageEntry[] = [];
+  const draft: RevisionContext = { kind: 'draft', date: draftDate(loaded.basis, options.env), pdfHref: options.draftPdfs ? 'document.pdf' : null };
+  pages.push({ pagePath: draftPath, view: () => documentView({ basis: loaded.basis, results, revision: draft, history }, { ...pageOptions(draftPath), checks }) });
+  sealed.forEach((s, i) => {
+    const path = revisionPagePath(id, s.revision);
+    const next = sealed[i + 1];
+    const revision: RevisionContext = {
+      kind: 'sealed',
+      revision: s.revision,
+      status: s.manifest.status,
+      sealedOn: s.manifest.sealedOn,
+      note: s.manifest.note,
+      supersededBy: next ? next.revision : null,
+      pdfHref: s.pdf ? 'document.pdf' : null,
+    };
+    pages.push({ pagePath: path, view: () => documentView({ basis: s.basis, results: s.results, revision, history }, { ...pageOptions(path), checks }) });
+  });
+  const last = sealed[sealed.length - 1];
+  return {
+    pages,
+    draft: { id, pagePath: draftPath, basis: loaded.basis, results },
+    portfolio: {
       id,
       basis: loaded.basis,
       results,
       draftPath,
       issued: last ? { revision: last.revision, status: last.manifest.status, sealedOn: last.manifest.sealedOn, path: revisionPagePath(id, last.revision) } : null,
       revisionsSealed: sealed.length,
-    });
+    },
+  };
+}
+
+/** Loads every project of `root`; throws SiteError with every problem found. */
+export function loadSiteModel(root: string, options: SiteOptions = {}): SiteModel {
+  const problems = new SiteProblems();
+  const loader = projectLoader(root, options);
+  const pages: PageEntry[] = [];
+  const projects: PortfolioProject[] = [];
+  const drafts: SiteModel['drafts'] = [];
+  for (const id of listProjects(root)) {
+    const project = loadProjectPages(loader, id, problems);
+    pages.push(...project.pages);
+    if (project.draft) drafts.push(project.draft);
+    if (project.portfolio) projects.push(project.portfolio);
   }
   if (problems.errors.length) throw new SiteError(problems.errors, problems.warnings);
   return { pages, portfolio: portfolioView(projects), warnings: problems.warnings, drafts };

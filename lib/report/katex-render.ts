@@ -7,12 +7,15 @@
  * own symbols.
  *
  * Identical expressions are rendered once: the HTML is cached by display mode and source, so a
- * site of many pages that share the method's equations renders each of them a single time.
+ * site of many pages that share the method's equations renders each of them a single time. The
+ * cache keeps the most recently used CACHE_LIMIT expressions: the worked lines of each project
+ * carry its own numbers, and a cache that kept them all would hold every page of a large site.
  */
 import katex from 'katex';
 import { trustedHtml, type TrustedHtml } from './trusted-html.ts';
 
 const cache = new Map<string, TrustedHtml>();
+const CACHE_LIMIT = 4000;
 
 /** KaTeX draws what it will not render (an untrusted command) in this colour; we look for it and fail. */
 const REFUSED = '#b10dc9';
@@ -22,7 +25,12 @@ let renders = 0;
 export function renderTex(tex: string, display = false): TrustedHtml {
   const key = `${display ? 'D' : 'I'}${tex}`;
   const cached = cache.get(key);
-  if (cached) return cached;
+  if (cached) {
+    // Most recently used last: a Map keeps insertion order.
+    cache.delete(key);
+    cache.set(key, cached);
+    return cached;
+  }
   let html: string;
   try {
     html = katex.renderToString(tex, { displayMode: display, throwOnError: true, trust: false, strict: 'error', output: 'htmlAndMathml', errorColor: REFUSED });
@@ -33,6 +41,7 @@ export function renderTex(tex: string, display = false): TrustedHtml {
   renders++;
   const value = trustedHtml(html);
   cache.set(key, value);
+  if (cache.size > CACHE_LIMIT) cache.delete(cache.keys().next().value!);
   return value;
 }
 
