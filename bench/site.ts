@@ -1,0 +1,147 @@
+/**
+ * Site benchmarks on synthetic projects: the full HTML build (cold: empty caches; warm: results
+ * from the cache), a bare Eleventy site of the same number of trivial pages built in the same run
+ * (the yardstick of the 1.5× target), PDF printing per document (one browser, and two browsers in
+ * parallel), the time from saving a changed basis to its rebuilt page under `cellbasis serve`,
+ * and the peak memory (RSS) of a full build, measured in a child process.
+ */
+import { spawn } from 'node:child_process';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { writeSyntheticProjects } from './synthetic.ts';
+import { createEleventy } from '../lib/publish/eleventy-api.ts';
+import { buildSite } from '../lib/publish/build.ts';
+import { findChromium, withPdfPrinter, documentPdfMeta } from '../lib/publish/pdf.ts';
+import { loadSiteModel } from '../lib/publish/site-model.ts';
+import { serveSite } from '../lib/publish/serve.ts';
+import type { Row } from './measure.ts';
+
+const REPO = fileURLToPath(new URL('..', import.meta.url));
+const seconds = (ms: number) => `${(ms / 1000).toFixed(2)} s`;
+
+async function timed(work: () => Promise<unknown>): Promise<number> {
+  const t0 = performance.now();
+  await work();
+  return performance.now() - t0;
+}
+
+/** A bare Eleventy site: one Nunjucks template paginated over `count` items, a line of text each. */
+async function bareEleventy(count: number): Promise<number> {
+  const dir = mkdtempSync(join(tmpdir(), 'cellbasis-bench-bare-'));
+  try {
+    mkdirSync(join(dir, 'in'));
+    writeFileSync(join(dir, 'in', 'items.11tydata.json'), JSON.stringify({ items: Array.from({ length: count }, (_, i) => ({ id: `p${i}`, title: `Project ${i}` })) }));
+    writeFileSync(join(dir, 'in', 'items.njk'), '---\npagination:\n  data: items\n  size: 1\n  alias: item\npermalink: "projects/{{ item.id }}/index.html"\n---\n<!doctype html><title>{{ item.title }}</title><h1>{{ item.title }}</h1>\n');
+    writeFileSync(join(dir, 'eleventy.config.mjs'), 'export default function () {}\n');
+    const eleventy = createEleventy(join(dir, 'in'), join(dir, 'out'), { configPath: join(dir, 'eleventy.config.mjs'), quietMode: true });
+    eleventy.disableLogger();
+    return await timed(() => eleventy.write());
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+/** Peak RSS of a full HTML build in a fresh process (resourceUsage().maxRSS, in kB). */
+function peakRss(root: string): Promise<number> {
+  const script = `import { buildSite } from ${JSON.stringify(join(REPO, 'lib/publish/build.ts'))};\nawait buildSite({ root: ${JSON.stringify(root)}, pdf: false });\nprocess.stdout.write(String(process.resourceUsage().maxRSS));\n`;
+  const file = join(REPO, `.bench-rss-${process.pid}.mts`);
+  writeFileSync(file, script);
+  return new Promise((resolve, reject) => {
+    const child = spawn(process.execPath, ['--import', 'tsx', file], { cwd: REPO, stdio: ['ignore', 'pipe', 'inherit'] });
+    let out = '';
+    child.stdout.on('data', (d) => (out += d));
+    child.on('exit', (code) => {
+      rmSync(file, { force: true });
+      if (code === 0) resolve(Number(out.trim()));
+      else reject(new Error(`the RSS probe exited with ${code}`));
+    });
+  });
+}
+
+/** Saves a changed basis under `serve` and waits until its page is rewritten with the change. */
+async function watchLatency(root: string, id: string): Promise<number> {
+  const port = 18000 + (process.pid % 1000);
+  const server = await serveSite({ root, port });
+  try {
+    const file = join(root, 'projects', id, 'basis.yaml');
+    const page = join(root, 'site', 'projects', id, 'index.html');
+    const waitFor = async (test: () => boolean, limitMs: number) => {
+      const start = performance.now();
+      while (!test()) {
+        if (performance.now() - start > limitMs) throw new Error('the page was not rebuilt in time');
+        await new Promise((r) => setTimeout(r, 20));
+      }
+    };
+    await waitFor(() => {
+      try {
+        return statSync(page).size > 0;
+      } catch {
+        return false;
+      }
+    }, 300_000);
+    await new Promise((r) => setTimeout(r, 1500));
+    const text = readFileSync(file, 'utf8');
+    const marker = `Bench change ${Date.now()}`;
+    const t0 = performance.now();
+    writeFileSync(file, text.replace(/^( {2}title: ).*$/m, `$1${marker}`));
+    await waitFor(() => {
+      try {
+        return readFileSync(page, 'utf8').includes(marker);
+      } catch {
+        return false;
+      }
+    }, 120_000);
+    return performance.now() - t0;
+  } finally {
+    await server.stop();
+  }
+}
+
+async function pdfTimes(root: string, count: number): Promise<{ one: number; two: number }> {
+  const model = loadSiteModel(root);
+  const drafts = model.drafts.slice(0, count);
+  const site = join(root, 'site');
+  const job = (printer: Parameters<Parameters<typeof withPdfPrinter>[0]>[0], d: (typeof drafts)[number]) =>
+    printer.print(join(site, d.pagePath), documentPdfMeta({ basis: d.basis, results: d.results }, { date: new Date('2026-11-30T00:00:00Z') }));
+  const one = await timed(() => withPdfPrinter(async (p) => { for (const d of drafts) await job(p, d); }, { pages: 1 }));
+  const half = Math.ceil(drafts.length / 2);
+  const two = await timed(() =>
+    Promise.all([drafts.slice(0, half), drafts.slice(half)].map((part) => withPdfPrinter(async (p) => { for (const d of part) await job(p, d); }, { pages: 1 }))),
+  );
+  return { one: one / drafts.length, two: two / drafts.length };
+}
+
+export async function benchSite(counts: number[]): Promise<Row[]> {
+  const rows: Row[] = [];
+  for (const n of counts) {
+    const root = mkdtempSync(join(tmpdir(), 'cellbasis-bench-site-'));
+    const section = `site N=${n}`;
+    try {
+      const ids = writeSyntheticProjects(root, n);
+      const cold = await timed(() => buildSite({ root, pdf: false }));
+      const warm = await timed(() => buildSite({ root, pdf: false }));
+      const bare = await bareEleventy(n);
+      rows.push({ section, measure: 'full HTML build, cold (calculation included)', value: seconds(cold) });
+      rows.push({ section, measure: 'full HTML build, results cached', value: seconds(warm) });
+      rows.push({ section, measure: `bare Eleventy, ${n} trivial pages`, value: seconds(bare) });
+      const ratio = warm / bare;
+      rows.push({ section, measure: 'ratio: cached build / bare Eleventy', value: `${ratio.toFixed(1)} ×`, target: '≤ 1.5 ×', verdict: ratio <= 1.5 ? 'met' : 'MISSED' });
+      const rss = (await peakRss(root)) / 1024;
+      rows.push({ section, measure: 'peak memory of a full build (RSS)', value: `${rss.toFixed(0)} MiB`, target: '≤ 1024 MiB', verdict: rss <= 1024 ? 'met' : 'MISSED' });
+      if (findChromium()) {
+        const { one, two } = await pdfTimes(root, Math.min(n, 6));
+        rows.push({ section, measure: 'PDF per document, one browser reused', value: seconds(one), target: '≤ 1.5 s', verdict: one <= 1500 ? 'met' : 'MISSED' });
+        rows.push({ section, measure: 'PDF per document, two browsers in parallel', value: seconds(two), target: '≤ 1.5 s', verdict: two <= 1500 ? 'met' : 'MISSED' });
+      } else {
+        rows.push({ section, measure: 'PDF per document', value: 'not measured: no Chromium' });
+      }
+      const latency = await watchLatency(root, ids[Math.floor(ids.length / 2)]!);
+      rows.push({ section, measure: 'saved basis to rebuilt page (cellbasis serve)', value: seconds(latency), target: '≤ 1 s', verdict: latency <= 1000 ? 'met' : 'MISSED' });
+    } finally {
+      rmSync(root, { recursive: true, force: true });
+    }
+  }
+  return rows;
+}
