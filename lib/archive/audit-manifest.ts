@@ -8,7 +8,7 @@
  */
 import type { DesignBasis } from '../basis/types.ts';
 import type { PdfProperties } from '../publish/pdf.ts';
-import { escapeHtml } from '../publish/pdf.ts';
+import { escapeHtml } from '../report/trusted-html.ts';
 import type { SealManifest } from './layout.ts';
 import { SEALED_FILES } from './layout.ts';
 import { manifestBytes, signOffOf } from './manifest.ts';

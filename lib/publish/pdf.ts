@@ -45,6 +45,7 @@ import type { DesignBasis } from '../basis/types.ts';
 import type { Results } from '../plant/results-schema.ts';
 import { toolVersion } from '../cli/version.ts';
 import { EXIT_VALIDATION, UserError } from '../errors.ts';
+import { escapeHtml } from '../report/trusted-html.ts';
 
 export const DEFAULT_CHROMIUM = '/usr/bin/chromium';
 
@@ -134,10 +135,6 @@ const PAPER = {
 const MARGIN_MM = { top: 20, bottom: 18, side: 16 };
 const CSS_PX_PER_MM = 96 / 25.4;
 const DEVICE_SCALE = 2;
-
-export function escapeHtml(text: string): string {
-  return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
-}
 
 function isoDay(date: Date): string {
   return date.toISOString().slice(0, 10);
