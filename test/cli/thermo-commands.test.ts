@@ -3,6 +3,7 @@
 import { execFileSync, spawnSync } from 'node:child_process';
 import { describe, expect, it } from 'vitest';
 import { run } from './run.ts';
+import { COMMANDS } from '../../lib/cli/main.ts';
 
 describe('cellbasis reaction', () => {
   it('--json prints exactly one object with the documented SI keys', async () => {
@@ -84,5 +85,19 @@ describe('the installed bin', () => {
     expect(h.out).toMatch(/--temperature T/);
     expect(h.out).toMatch(/--electrons N/);
     expect(h.out).toMatch(/--json/);
+  });
+
+  it.each(COMMANDS.map((c) => [c.name, c] as const))('cellbasis %s --help: exit 0, its usage and every option with its explanation', async (name, command) => {
+    const overview = await run(['--help']);
+    expect(overview.out).toMatch(new RegExp(`^  ${name} +\\S`, 'm'));
+    const h = await run([name, '--help']);
+    expect(h.code).toBe(0);
+    expect(h.out).toContain(`usage: cellbasis ${command.usage}`);
+    for (const option of command.options) {
+      expect(option.description.length, option.name).toBeGreaterThan(10);
+      const line = h.out.split('\n').find((l) => l.trimStart().startsWith(`--${option.name}`));
+      expect(line, `--${option.name}`).toBeDefined();
+      expect(line!, `--${option.name}`).toContain(option.description);
+    }
   });
 });
