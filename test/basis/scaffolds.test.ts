@@ -1,6 +1,7 @@
 // Every scaffold (each technology × supported mode) validates without errors or warnings, and
-// against the committed JSON Schema; the committed schema is the one the zod schema generates.
-import { readFileSync } from 'node:fs';
+// against the committed JSON Schema, as does every demo basis in projects/; the committed schema
+// is the one the zod schema generates.
+import { readdirSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { Ajv } from 'ajv';
 import { parse } from 'yaml';
@@ -14,6 +15,9 @@ import { BASE, edit } from './helpers.ts';
 const committed = readFileSync(new URL(`../../${SCHEMA_FILE}`, import.meta.url), 'utf8');
 // "date" is a standard format; ajv leaves format checking to ajv-formats, which editors have built in.
 const validate = new Ajv({ allErrors: true, strict: true, formats: { date: true } }).compile(JSON.parse(committed));
+
+const PROJECTS = new URL('../../projects/', import.meta.url);
+const demoIds = readdirSync(PROJECTS, { withFileTypes: true }).filter((d) => d.isDirectory()).map((d) => d.name).sort();
 
 describe('the JSON Schema', () => {
   it(`${SCHEMA_FILE} is up to date (regenerate: npx tsx scripts/write-schema.ts)`, () => {
@@ -31,6 +35,17 @@ describe('the JSON Schema', () => {
     expect(validate(parse(BASE)), JSON.stringify(validate.errors)).toBe(true);
     expect(validate(parse(edit(BASE, ['operating-temperature:', 'operating-temprature:'])))).toBe(false);
     expect(validate(parse(edit(BASE, ['operating-temperature: "800 C"', 'operating-temperature: "1.2 bar"'])))).toBe(false);
+  });
+
+  it('there are demo bases to check (projects/ is not empty)', () => {
+    expect(demoIds.length).toBeGreaterThanOrEqual(4);
+  });
+
+  it.each(demoIds)('validates the demo basis projects/%s/basis.yaml, which the loader accepts too', (id) => {
+    const text = readFileSync(new URL(`${id}/basis.yaml`, PROJECTS), 'utf8');
+    expect(validate(parse(text)), JSON.stringify(validate.errors)).toBe(true);
+    const result = loadBasisText(text, `projects/${id}/basis.yaml`, id);
+    expect(result.ok ? [] : result.errors.map(formatDiagnostic)).toEqual([]);
   });
 });
 

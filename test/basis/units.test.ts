@@ -34,6 +34,35 @@ describe('conversion factors (NIST SP 811, Appendix B)', () => {
   });
 });
 
+describe('the unit examples a design basis is written with', () => {
+  it('each converts to SI by the NIST SP 811 factor (psi = 6 894.757 Pa) or an SI prefix', () => {
+    const cases: [string, Dimension, number][] = [
+      ['800 C', 'temperature', 1073.15],
+      ['1073.15 K', 'temperature', 1073.15],
+      ['1.2 bar', 'pressure', 1.2e5],
+      ['120 kPa', 'pressure', 1.2e5],
+      ['14.7 psi', 'pressure', 14.7 * 6894.757],
+      ['0.5 A/cm2', 'current-density', 5000],
+      ['500 mA/cm^2', 'current-density', 5000],
+      ['0.25 ohm cm2', 'area-specific-resistance', 2.5e-5],
+      ['100 cm2', 'area', 0.01],
+      ['250 kW', 'power', 2.5e5],
+    ];
+    // 1e-12 relative: these factors are exact (SI prefixes, bar, the Celsius offset), so only
+    // rounding remains; psi is compared with NIST's 6 894.757 Pa, printed to 7 digits (exactly
+    // 6 894.757 293 168 Pa, 4.3e-8 relative above it), hence 1e-7 there.
+    for (const [text, dimension, expected] of cases) {
+      const tolerance = text.endsWith('psi') ? 1e-7 : 1e-12;
+      expect(Math.abs(si(text, dimension) / expected - 1), text).toBeLessThan(tolerance);
+    }
+  });
+
+  it('a value of another dimension is refused, naming the dimension it has', () => {
+    expect(() => parseQuantity('120 kPa', 'temperature')).toThrow(/expected a temperature .*got "120 kPa", which is a pressure/);
+    expect(() => parseQuantity('250 kW', 'area')).toThrow(/which is a power/);
+  });
+});
+
 /** Whether parseQuantity reads the text as the dimension. */
 function parses(text: string, dimension: Dimension): boolean {
   try {

@@ -114,6 +114,11 @@ describe('cellbasis check', () => {
       `projects/bad/basis.yaml:${line}:21: operating-point.fuel-utilization: the fuel utilization lies strictly between 0 and 1, got 1.2\nprojects/bad/basis.yaml: 1 error\n`,
     );
     expect(r.out).toMatch(/^projects\/good\/basis\.yaml: valid\n/);
+    // Several bases named on the command line: each checked, in the order given.
+    const named = await run(['check', 'bad', 'projects/good/basis.yaml'], cwd);
+    expect(named.code).toBe(1);
+    expect(named.err).toBe(r.err);
+    expect(named.out).toMatch(/^projects\/good\/basis\.yaml: valid\n/);
   });
 
   it('warnings are printed but do not fail; a missing project is a usage error (exit 2)', async () => {
