@@ -1,6 +1,7 @@
 // The fuel path along utilization, checked against closed forms written out here (Faraday's law
-// for what the electrolyte carries; the Nernst equation integrated by hand for a dry-hydrogen
-// feed) and for the conservation of each element across the electrolyte.
+// for what each electrolyte carries: oxide, proton, carbonate and hydroxide ions; the Nernst
+// equation integrated by hand for a dry-hydrogen feed) and for the conservation of each element
+// across the electrolyte, in power mode and in steam and co-electrolysis.
 import { describe, expect, it } from 'vitest';
 import { fuelPath } from '../../lib/equilibrium/fuel-path.ts';
 import { technology } from '../../lib/electrochem/technologies.ts';
@@ -8,6 +9,8 @@ import { hydrogenStandardVoltage } from '../../lib/electrochem/nernst.ts';
 import { FARADAY_C_PER_MOL as F, GAS_CONSTANT_J_PER_MOL_K as R } from '../../lib/thermo/constants.ts';
 import { saturationPressureBar } from '../../lib/thermo/saturation.ts';
 import { getSpecies } from '../../lib/thermo/species-data.ts';
+import { lnEquilibriumConstant } from '../../lib/electrochem/reaction.ts';
+import { parseEquation } from '../../lib/electrochem/equation.ts';
 
 const air = (o2: number) => ({ O2: o2, N2: (o2 * 0.79) / 0.21 });
 function atoms(stream: Record<string, number>, element: string): number {
@@ -95,6 +98,44 @@ describe('fuel path: closed forms', () => {
     expect(x.H2!).toBeCloseTo(0.73, 6);
     expect(path.outletNernstV).toBeGreaterThan(path.inletNernstV!);
     expect(path.airOutlet.O2! - path.airInlet.O2!).toBeCloseTo((0.7 * 2 * 0.9) / 4, 9);
+  });
+
+  it('solid-oxide co-electrolysis of 60 % steam / 30 % CO2 / 10 % H2 to 60 % conversion: charge basis 2F per H2O and CO2, oxygen leaves the fuel side at I/2F, the outlet is in shift equilibrium', () => {
+    const t = 1073.15;
+    const feed = { H2O: 0.6, CO2: 0.3, H2: 0.1 };
+    const path = fuelPath({ technology: technology('solid-oxide'), mode: 'electrolysis', temperatureK: t, fuelPressureBar: 1, airPressureBar: 1, fuelFeed: feed, airFeed: air(2), utilization: 0.6 });
+    // By hand: Q = 2F (0.6 + 0.3) = 1.8 F; I = 0.6 Q = 1.08 F, so 0.54 mol/s of O atoms cross to the air side.
+    expect(path.chargeBasisA / F).toBeCloseTo(1.8, 12);
+    const electrons = path.currentA / F;
+    expect(electrons).toBeCloseTo(1.08, 12);
+    expect(atoms(feed, 'O') - atoms(path.fuelOutlet, 'O')).toBeCloseTo(electrons / 2, 9);
+    expect(atoms(path.fuelOutlet, 'C')).toBeCloseTo(0.3, 12);
+    expect(atoms(path.fuelOutlet, 'H')).toBeCloseTo(1.4, 12);
+    expect(path.airOutlet.O2! - path.airInlet.O2!).toBeCloseTo(electrons / 4, 9);
+    // CO and H2 both form; the outlet gas obeys K_WGS(T) = x_CO2 x_H2 / (x_CO x_H2O) of the species data
+    // (K itself is checked against NIST-JANAF in EQ-03); 1e-8 covers the trace species.
+    const x = path.points[path.points.length - 1]!.fuelSide;
+    const kWgs = Math.exp(lnEquilibriumConstant(parseEquation('CO + H2O -> CO2 + H2').terms, t));
+    expect((x.CO2! * x.H2!) / (x.CO! * x.H2O!) / kWgs).toBeCloseTo(1, 8);
+    expect(path.outletNernstV).toBeGreaterThan(path.inletNernstV!);
+  });
+
+  it('alkaline cell (hydroxide ion) on dry H2 at 70 °C: H2 leaves at I/2F, O2 at I/4F, and E = E°(liquid water) + RT/2F ln(p_H2 · p_O2^½) with both gases saturated', () => {
+    const t = 343.15;
+    const p = 1.5;
+    const o2In = 0.5; // 0.25 mol/s of O2 consumed for 1 mol/s H2 at U = 0.5: air utilization 0.5
+    const path = fuelPath({ technology: technology('alkaline'), mode: 'power', temperatureK: t, fuelPressureBar: p, airPressureBar: p, fuelFeed: { H2: 1 }, airFeed: air(o2In), utilization: 0.5 });
+    const electrons = path.currentA / F;
+    expect(electrons).toBeCloseTo(1, 12);
+    expect(1 - path.fuelOutlet.H2!).toBeCloseTo(electrons / 2, 12);
+    expect(o2In - path.airOutlet.O2!).toBeCloseTo(electrons / 4, 12);
+    // The electrolyte's water activity is 1: no water term in the quotient (H2 + 2OH⁻ → 2H2O + 2e⁻ | ½O2 + H2O + 2e⁻ → 2OH⁻).
+    const pSat = saturationPressureBar(t);
+    const o2Out = o2In - 0.25;
+    const n2 = (o2In * 0.79) / 0.21;
+    const xO2 = (o2Out / (o2Out + n2)) * (1 - pSat / p);
+    const expected = hydrogenStandardVoltage(t, 'liquid') + ((R * t) / (2 * F)) * Math.log((p - pSat) * Math.sqrt(xO2 * p));
+    expect(path.outletNernstV).toBeCloseTo(expected, 9);
   });
 
   it('molten carbonate: CO2 crosses from the air side to the fuel side at I/2F (Faraday)', () => {

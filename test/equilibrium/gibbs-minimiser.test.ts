@@ -1,7 +1,8 @@
 // Gas equilibrium by Gibbs minimisation (element potentials, NASA RP-1311 method), checked
 // against closed-form solutions with equilibrium constants from the same species data
 // (whose constants are in turn checked against NIST-JANAF in lib/verification, EQ-01..EQ-07),
-// and for robustness: trace amounts, element conservation, graphite, convergence failure.
+// and for robustness: trace amounts, element conservation (sulphur included), graphite,
+// convergence failure.
 import { describe, expect, it } from 'vitest';
 import { equilibrate, mixtureGibbsOverRT } from '../../lib/equilibrium/equilibrate.ts';
 import { lnEquilibriumConstant } from '../../lib/electrochem/reaction.ts';
@@ -83,6 +84,25 @@ describe('equilibrium composition', () => {
     // H2 with a trace of O2: all oxygen ends as H2O at twice the O2 amount.
     const trace = equilibrate({ temperatureK: 1000, pressureBar: 1, feed: { H2: 1, O2: 1e-30 } });
     expect(trace.moleFractions.H2O! / 2e-30).toBeCloseTo(1, 6);
+  });
+
+  it('takes sulphur in when the feed has it: 10 ppm H2S in a steam-methane feed, every S species considered, S conserved to 1e-12, COS/H2S by mass action', () => {
+    const t = 1073.15;
+    const e = equilibrate({ temperatureK: t, pressureBar: 1, feed: { CH4: 1, H2O: 2.5, H2S: 1e-5 } });
+    expect(e.system.elements).toEqual(['C', 'H', 'O', 'S']);
+    for (const s of ['H2S', 'SH', 'COS', 'CS2', 'SO2', 'SO3', 'S2']) expect(e.moleFractions, s).toHaveProperty(s);
+    expect(e.elementBalanceError).toBeLessThan(1e-12);
+    const x = e.moleFractions;
+    for (const v of Object.values(x)) expect(v).toBeGreaterThanOrEqual(0);
+    // The sulphur of the feed, 1e-5 mol per 3.5 mol fed, is all in the gas: Σ n_S over the S species.
+    const sulphur = e.system.gas.reduce((sum, s) => sum + (s.formula.S ?? 0) * e.amounts[s.label]!, 0);
+    expect(sulphur / 1e-5).toBeCloseTo(1, 12);
+    // H2S + CO2 ⇌ COS + H2O at equilibrium: x_COS x_H2O / (x_H2S x_CO2) = K(T) of the same data, to 1e-9
+    // (a closed form independent of the minimiser; the reaction quotient of a converged solution).
+    expect(((x.COS! * x.H2O!) / (x.H2S! * x.CO2!)) / K('H2S + CO2 -> COS + H2O', t)).toBeCloseTo(1, 9);
+    // In a reducing fuel gas H2S holds nearly all of it (COS about 1 %), which is why fuel-cell
+    // desulphurisers are specified for H2S (common practice, no source).
+    expect(x.H2S! / (sulphur / e.totalGas)).toBeGreaterThan(0.98);
   });
 
   it('is not above the Gibbs energy of feasible perturbations along balanced reactions', () => {
