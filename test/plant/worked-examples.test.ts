@@ -6,14 +6,30 @@
 import { describe, expect, it } from 'vitest';
 import { calculate } from '../../lib/plant/calculate.ts';
 import { FARADAY_C_PER_MOL as F } from '../../lib/thermo/constants.ts';
-import { enthalpy } from '../../lib/thermo/properties.ts';
+import { enthalpy, gibbs } from '../../lib/thermo/properties.ts';
 import { getSpecies } from '../../lib/thermo/species-data.ts';
+import { saturationPressureBar } from '../../lib/thermo/saturation.ts';
 import { basisFrom } from './helpers.ts';
 
 const M_H2 = 2.01588e-3; // kg/mol (NASA record, IUPAC atomic weights)
+const R_GAS = 8.31446261815324; // J/(mol K), CODATA 2018 (exact)
 const LHV_H2 = 241.82e3; // J/mol at 25 °C, from the species data (JANAF: 241.826)
 const HHV_H2 = 285.83e3;
 const h = (name: string, t: number) => enthalpy(getSpecies(name), t);
+const g = (name: string, t: number) => gibbs(getSpecies(name), t);
+/** Heating values of H2 at 25 °C by hand from the species data: −ΔH of H2 + ½O2 → H2O(g) or H2O(l). */
+const lhvH2 = -(h('H2O', 298.15) - h('H2', 298.15) - 0.5 * h('O2', 298.15));
+const hhvH2 = -(h('H2O(L)', 298.15) - h('H2', 298.15) - 0.5 * h('O2', 298.15));
+/** −ΔG(T) and −ΔH(T) of H2 + ½O2 → water (H2O or H2O(L)), J/mol. */
+const minusDeltaG = (water: string, t: number) => -(g(water, t) - g('H2', t) - 0.5 * g('O2', t));
+const minusDeltaH = (water: string, t: number) => -(h(water, t) - h('H2', t) - 0.5 * h('O2', t));
+
+/** Liquid-water cells: the water formed (I/2F net) leaves as liquid with one outlet only. */
+function expectLiquidWaterWith(r: ReturnType<typeof calculate>, current: number, side: 'fuel-outlet' | 'air-outlet'): void {
+  expect(rel(r.operatingPoint.netWaterProduced_mol_per_s, current / (2 * F))).toBeLessThan(1e-9);
+  expect(stream(r, side).speciesFlows_mol_per_s['H2O(L)']!).toBeGreaterThan(0);
+  expect(stream(r, side === 'fuel-outlet' ? 'air-outlet' : 'fuel-outlet').speciesFlows_mol_per_s['H2O(L)']).toBeUndefined();
+}
 const stream = (r: ReturnType<typeof calculate>, id: string) => r.streams.find((s) => s.id === id)!;
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 // The re-equilibrated gas of a high-temperature cell holds trace dissociation products (H, OH, O2
@@ -53,6 +69,43 @@ describe('solid oxide cell on humidified hydrogen (power)', () => {
     const etaLhv = (0.8 * 0.8) / (LHV_H2 / (2 * F));
     expect(Math.abs(r.headline.electricalEfficiencyLhv! - etaLhv)).toBeLessThan(1e-4); // LHV rounded to 0.01 kJ/mol above
     expect(r.headline.electricalEfficiencyHhv! / r.headline.electricalEfficiencyLhv!).toBeCloseTo(LHV_H2 / HHV_H2, 4);
+  });
+
+  it('efficiency bounds: η_max = −ΔG(T)/LHV and −ΔG(T)/HHV of H2 (66 % HHV at 800 °C), Carnot 1 − 298.15/1073.15, voltage efficiency V/Ē', () => {
+    const t = 1073.15;
+    expect(rel(r.headline.thermodynamicLimitLhv!, minusDeltaG('H2O', t) / lhvH2)).toBeLessThan(1e-12);
+    expect(rel(r.headline.thermodynamicLimitHhv!, minusDeltaG('H2O', t) / hhvH2)).toBeLessThan(1e-12);
+    // Larminie & Dicks, Fuel Cell Systems Explained, 2nd ed., Table 2.2: 66 % at 800 °C (whole percent; from memory).
+    expect(Math.abs(r.headline.thermodynamicLimitHhv! - 0.66)).toBeLessThan(0.006);
+    expect(r.efficiency.carnotLimit!).toBeCloseTo(1 - 298.15 / 1073.15, 12);
+    expect(r.efficiency.voltageEfficiency).toBeCloseTo(0.8 / r.headline.meanNernst_V, 12);
+    expect(r.efficiency.fuelLhvInput_W!).toBeCloseTo(stream(r, 'fuel-inlet').speciesFlows_mol_per_s.H2! * lhvH2, 6);
+  });
+
+  it('stream table: kg/h = 3600 Σ ṅ M, Nm3/h at 0 °C and 1 atm = 3600 ṅ × 22.414 L/mol; air 28.965 g/mol', () => {
+    const fuel = stream(r, 'fuel-inlet');
+    const n = fuel.speciesFlows_mol_per_s;
+    // Molar masses of the NASA records (IUPAC 1999 atomic weights): H2 2.01588, H2O 18.01528 g/mol.
+    expect(rel(fuel.massFlow_kg_per_h, 3600 * (n.H2! * 2.01588e-3 + n.H2O! * 18.01528e-3))).toBeLessThan(1e-9);
+    // CODATA 2018: 22.413 969 54 L/mol for an ideal gas at 273.15 K and 101.325 kPa (from memory).
+    expect(rel(fuel.normalVolume_Nm3_per_h, 3600 * fuel.flow_mol_per_s * 22.41396954e-3)).toBeLessThan(1e-9);
+    // Dry air 28.9647 g/mol (U.S. Standard Atmosphere 1976, from memory); today's CO2 adds 0.002 g/mol.
+    const air = stream(r, 'air-inlet');
+    expect(Math.abs((air.massFlow_kg_per_h / 3600 / air.flow_mol_per_s) * 1000 - 28.9647)).toBeLessThan(0.01);
+    expect(r.headline.airFlow_kg_per_h).toBe(air.massFlow_kg_per_h);
+  });
+
+  it('heat per cell Q/N and per area Q/(N A); cooling air ṅ = Q / (h_air(T) − h_air(T − ΔT)) for the scaffold\'s 150 K rise', () => {
+    const q = r.heat.isothermalHeat_W;
+    expect(rel(r.heat.heatPerCell_W, q / 100)).toBeLessThan(1e-12);
+    expect(rel(r.heat.heatPerArea_W_per_m2, q / (100 * 0.01))).toBeLessThan(1e-12);
+    const t = 1073.15;
+    const x = basis.airElectrode!.composition;
+    const perMol = Object.entries(x).reduce((sum, [k, v]) => sum + v * (h(k, t) - h(k, t - 150)), 0);
+    expect(rel(r.heat.coolingAir_mol_per_s!, q / perMol)).toBeLessThan(1e-12);
+    // Plausibility: air's mean cp over 923-1073 K is about 34 J/(mol K) (JANAF N2 and O2, from memory).
+    expect(perMol / 150).toBeGreaterThan(33);
+    expect(perMol / 150).toBeLessThan(35);
   });
 
   it('heat: Q = I (V_tn − V) with V_tn = −ΔH(1073 K)/2F of H2 + ½O2 → H2O(g), and it equals the stream balance', () => {
@@ -154,6 +207,160 @@ describe('proton-conducting ceramic cell (power)', () => {
     const wIn = stream(r, 'air-inlet').speciesFlows_mol_per_s.H2O ?? 0;
     const wOut = stream(r, 'air-outlet').speciesFlows_mol_per_s.H2O!;
     expect(rel(wOut - wIn, r.headline.totalCurrent_A / (2 * F))).toBeLessThan(1e-9);
+  });
+});
+
+describe('PEM cell on dry hydrogen (power, liquid water)', () => {
+  // 50 cells of 300 cm2 at 1.0 A/cm2 and 0.68 V; U = 0.90, air ratio 2, 70 °C, 1.5 bar, 20 mV crossover allowance.
+  const basis = basisFrom('pem', 'power', { 'operating-point.target-power': undefined, 'operating-point.cells': 50, 'operating-point.parasitic-load': '0 %' });
+  const r = calculate(basis);
+  const t = 343.15;
+  const p = 1.5;
+  const current = 50 * 1.0e4 * 0.03; // N j A = 15 000 A
+
+  it('Faraday: H2 fed I/(2F U), O2 fed 2 × I/4F, net water I/2F (formed at the air electrode)', () => {
+    expect(r.headline.totalCurrent_A).toBeCloseTo(current, 9);
+    expect(rel(stream(r, 'fuel-inlet').speciesFlows_mol_per_s.H2!, current / (2 * F * 0.9))).toBeLessThan(1e-12);
+    expect(rel(stream(r, 'air-inlet').speciesFlows_mol_per_s.O2!, (2 * current) / (4 * F))).toBeLessThan(1e-9);
+    // The liquid water leaves with the air-electrode gas (proton conductor); none on the hydrogen side.
+    expectLiquidWaterWith(r, current, 'air-outlet');
+  });
+
+  it('power 50 × 0.68 V × 300 A = 10.2 kW; η_LHV = V·U·2F/LHV; η_max = −ΔG(70 °C, liquid water)/HHV, between 80 % (80 °C) and 83 % (25 °C)', () => {
+    expect(r.headline.stackPower_W).toBeCloseTo(10200, 9);
+    expect(rel(r.headline.electricalEfficiencyLhv!, (0.68 * 0.9 * 2 * F) / lhvH2)).toBeLessThan(1e-12);
+    expect(rel(r.headline.thermodynamicLimitHhv!, minusDeltaG('H2O(L)', t) / hhvH2)).toBeLessThan(1e-12);
+    // Larminie & Dicks, Table 2.2 (whole percent; from memory): 83 % at 25 °C, 80 % at 80 °C.
+    expect(r.headline.thermodynamicLimitHhv!).toBeGreaterThan(0.80);
+    expect(r.headline.thermodynamicLimitHhv!).toBeLessThan(0.83);
+  });
+
+  it('open circuit E_in − 20 mV, with E_in = E°(liquid) + RT/2F ln(p_H2 p_O2^½) of the saturated inlet gases', () => {
+    const pSat = saturationPressureBar(t);
+    const xO2Dry = stream(r, 'air-inlet').speciesFlows_mol_per_s.O2! / Object.entries(stream(r, 'air-inlet').speciesFlows_mol_per_s).filter(([k]) => k !== 'H2O').reduce((a, [, v]) => a + v, 0);
+    const e0 = minusDeltaG('H2O(L)', t) / (2 * F);
+    const eIn = e0 + ((R_GAS * t) / (2 * F)) * Math.log((p - pSat) * Math.sqrt(xO2Dry * (p - pSat)));
+    expect(r.headline.inletNernst_V!).toBeCloseTo(eIn, 9);
+    expect(r.headline.openCircuit_V!).toBeCloseTo(eIn - 0.02, 9);
+  });
+
+  it('heat: I (V_tn − V) with V_tn between −ΔH/2F to vapour and to liquid water at 70 °C, as the water leaves partly as vapour', () => {
+    const vtnGas = minusDeltaH('H2O', t) / (2 * F);
+    const vtnLiquid = minusDeltaH('H2O(L)', t) / (2 * F);
+    expect(r.heat.isothermalHeat_W).toBeGreaterThan(current * (vtnGas - 0.68));
+    expect(r.heat.isothermalHeat_W).toBeLessThan(current * (vtnLiquid - 0.68));
+    // Low-temperature cells are liquid-cooled: no cooling-air figure.
+    expect(r.heat.coolingAir_mol_per_s).toBeNull();
+  });
+});
+
+describe('high-temperature PEM cell on shifted reformate (power, steam)', () => {
+  // 180 cells of 150 cm2 at 0.3 A/cm2 and 0.62 V; dry reformate 75 % H2 / 24 % CO2 / 1 % N2 plus
+  // 0.1 mol steam per mol; U = 0.75, air ratio 2, 160 °C, 1.1 bar; only H2 reacts.
+  const r = calculate(basisFrom('ht-pem', 'power', { 'operating-point.parasitic-load': '0 %' }));
+  const t = 433.15;
+  const current = 180 * 0.3e4 * 0.015; // 8100 A
+
+  it('Faraday: dry fuel I/(2F U × 0.75); H2 falls by I/2F; water rises at the air electrode by I/2F; CO2 and N2 pass', () => {
+    expect(r.headline.totalCurrent_A).toBeCloseTo(current, 9);
+    const inlet = stream(r, 'fuel-inlet').speciesFlows_mol_per_s;
+    const outlet = stream(r, 'fuel-outlet').speciesFlows_mol_per_s;
+    expect(rel(inlet.H2!, current / (2 * F * 0.75))).toBeLessThan(1e-12);
+    expect(rel(inlet.H2O!, (0.1 * inlet.H2!) / 0.75)).toBeLessThan(1e-12);
+    expect(rel(inlet.H2! - outlet.H2!, current / (2 * F))).toBeLessThan(1e-12);
+    expect(rel(outlet.CO2!, inlet.CO2!)).toBeLessThan(1e-12);
+    const airIn = stream(r, 'air-inlet').speciesFlows_mol_per_s;
+    const airOut = stream(r, 'air-outlet').speciesFlows_mol_per_s;
+    expect(rel(airOut.H2O! - airIn.H2O!, current / (2 * F))).toBeLessThan(1e-12);
+    expect(rel(airIn.O2! - airOut.O2!, current / (4 * F))).toBeLessThan(1e-12);
+  });
+
+  it('power 180 × 0.62 V × 45 A = 5022 W; η_LHV = P / (ṅ_H2 LHV)', () => {
+    expect(r.headline.stackPower_W).toBeCloseTo(5022, 9);
+    expect(rel(r.headline.electricalEfficiencyLhv!, 5022 / (stream(r, 'fuel-inlet').speciesFlows_mol_per_s.H2! * lhvH2))).toBeLessThan(1e-12);
+  });
+
+  it('Nernst (proton conductor, steam): outlet E = E° + RT/2F ln(p_H2,fuel p_O2,air^½ / p_H2O,air)', () => {
+    const x = stream(r, 'fuel-outlet').moleFractions;
+    const y = stream(r, 'air-outlet').moleFractions;
+    const p = 1.1;
+    const e0 = minusDeltaG('H2O', t) / (2 * F);
+    expect(r.headline.outletNernst_V).toBeCloseTo(e0 + ((R_GAS * t) / (2 * F)) * Math.log((x.H2! * p * Math.sqrt(y.O2! * p)) / (y.H2O! * p)), 9);
+  });
+
+  it('heat: H2 is the only fuel that reacts, so Q = I (−ΔH(T)/2F − V) of H2 + ½O2 → H2O(g) exactly', () => {
+    const vtn = minusDeltaH('H2O', t) / (2 * F);
+    expect(rel(r.heat.isothermalHeat_W, current * (vtn - 0.62))).toBeLessThan(1e-9);
+  });
+});
+
+describe('alkaline cell on hydrogen and oxygen (power, liquid water)', () => {
+  // 20 cells of 250 cm2 at 0.2 A/cm2 and 0.80 V; pure H2 (U = 0.90) and pure O2 (utilization 0.5); 70 °C, 2 bar.
+  const r = calculate(basisFrom('alkaline', 'power', { 'operating-point.target-power': undefined, 'operating-point.cells': 20, 'operating-point.parasitic-load': '0 %' }));
+  const current = 20 * 0.2e4 * 0.025; // 1000 A
+
+  it('Faraday: H2 fed I/(2F U), O2 fed I/(4F × 0.5); water forms at the fuel electrode (hydroxide ion) and leaves with the hydrogen', () => {
+    expect(r.headline.totalCurrent_A).toBeCloseTo(current, 9);
+    expect(rel(stream(r, 'fuel-inlet').speciesFlows_mol_per_s.H2!, current / (2 * F * 0.9))).toBeLessThan(1e-12);
+    expect(rel(stream(r, 'air-inlet').speciesFlows_mol_per_s.O2!, current / (4 * F * 0.5))).toBeLessThan(1e-12);
+    // H2 + 2OH⁻ → 2H2O + 2e⁻ at the fuel electrode, ½O2 + H2O + 2e⁻ → 2OH⁻ at the air electrode: net I/2F.
+    expectLiquidWaterWith(r, current, 'fuel-outlet');
+  });
+
+  it('power 20 × 0.80 V × 50 A = 800 W; η_LHV = V·U·2F/LHV; Carnot 1 − 278.15/343.15 (the scaffold\'s 5 °C sink)', () => {
+    expect(r.headline.stackPower_W).toBeCloseTo(800, 9);
+    expect(rel(r.headline.electricalEfficiencyLhv!, (0.8 * 0.9 * 2 * F) / lhvH2)).toBeLessThan(1e-12);
+    expect(r.efficiency.carnotLimit!).toBeCloseTo(1 - 278.15 / 343.15, 12);
+  });
+
+  it('Nernst (hydroxide, electrolyte water activity 1): outlet E = E°(liquid) + RT/2F ln(p_H2 p_O2^½)', () => {
+    const t = 343.15;
+    const p = 2;
+    const x = stream(r, 'fuel-outlet').moleFractions;
+    const y = stream(r, 'air-outlet').moleFractions;
+    const e0 = minusDeltaG('H2O(L)', t) / (2 * F);
+    expect(r.headline.outletNernst_V).toBeCloseTo(e0 + ((R_GAS * t) / (2 * F)) * Math.log(x.H2! * p * Math.sqrt(y.O2! * p)), 9);
+  });
+});
+
+describe('proton-conducting ceramic electrolyser (steam at the air electrode)', () => {
+  // 100 cells of 100 cm2 at 0.5 A/cm2 and 1.35 V; pure steam fed to the air electrode, 60 % converted; 600 °C, 3 bar.
+  const r = calculate(basisFrom('proton-ceramic', 'electrolysis', { 'operating-point.target-power': undefined, 'operating-point.cells': 100, 'conditions.air-inlet-temperature': '600 C' }));
+  const t = 873.15;
+  const current = 100 * 0.5e4 * 0.01; // 5000 A
+
+  it('Faraday: steam fed I/(2F × 0.60), split at I/2F; H2 I/2F at the fuel electrode, O2 I/4F with the remaining steam', () => {
+    expect(r.headline.totalCurrent_A).toBeCloseTo(current, 9);
+    const steamIn = stream(r, 'air-inlet').speciesFlows_mol_per_s.H2O!;
+    const airOut = stream(r, 'air-outlet').speciesFlows_mol_per_s;
+    expect(rel(steamIn, current / (2 * F * 0.6))).toBeLessThan(1e-12);
+    expect(rel(steamIn - airOut.H2O!, current / (2 * F))).toBeLessThan(1e-12);
+    expect(rel(airOut.O2!, current / (4 * F))).toBeLessThan(1e-12);
+    // The hydrogen side holds H2 and its trace of H atoms (1e-10 at 600 °C).
+    expect(rel(r.efficiency.hydrogenProduction_mol_per_s!, current / (2 * F))).toBeLessThan(TRACE);
+    expect(rel(r.efficiency.oxygenProduction_mol_per_s!, current / (4 * F))).toBeLessThan(1e-12);
+  });
+
+  it('specific energy V·2F/M = 1.35 V × 2F / 2.016 g/mol = 35.9 kWh/kg; efficiency 33.3/35.9 on LHV and 39.4/35.9 on HHV', () => {
+    const w = (1.35 * 2 * F) / M_H2 / 3.6e6;
+    expect(rel(r.headline.specificEnergy_kWh_per_kg!, w)).toBeLessThan(TRACE);
+    expect(w).toBeCloseTo(35.9, 1);
+    // 33.3 and 39.4 kWh/kg: the energy per kg of H2 at 100 % on LHV and HHV (PL-11, PL-12); each quoted to 0.05.
+    expect(Math.abs(r.efficiency.electrolysisEfficiencyLhv! - 33.3 / w)).toBeLessThan(0.05 / w);
+    expect(Math.abs(r.efficiency.electrolysisEfficiencyHhv! - 39.4 / w)).toBeLessThan(0.05 / w);
+  });
+
+  it('above the thermoneutral voltage (ΔH(600 °C)/2F ≈ 1.28 V) the stack releases heat Q = I (V − V_tn); no heat demand', () => {
+    const vtn = minusDeltaH('H2O', t) / (2 * F);
+    expect(vtn).toBeGreaterThan(1.27);
+    expect(vtn).toBeLessThan(1.29);
+    expect(rel(r.heat.isothermalHeat_W, current * (1.35 - vtn))).toBeLessThan(TRACE * 20); // as for solid-oxide electrolysis: 1e-7 of V_tn in V − V_tn
+    expect(r.heat.heatDemand_W).toBe(0);
+  });
+
+  it('the voltage efficiency is Ē/V, and the transference number does not enter electrolysis (not modelled, see voltage.ts)', () => {
+    expect(r.efficiency.voltageEfficiency).toBeCloseTo(r.headline.meanNernst_V / 1.35, 12);
+    expect(r.electrochemistry.effectiveNernst_V).toBe(r.headline.meanNernst_V);
   });
 });
 

@@ -1,0 +1,153 @@
+// The chart sweeps and the sensitivity study of the results object, checked against formulas
+// written out here: the hydrogen cell's E_rev = −ΔG°/2F, V_tn = −ΔH°/2F and −ΔG/HHV against
+// temperature (83 % HHV at 25 °C to 62 % at 1000 °C, Larminie & Dicks, Fuel Cell Systems
+// Explained, 2nd ed., Table 2.2; from memory), the Carnot limit 1 − T_cold/T, the lumped
+// resistance line V = Ē_eff − j·ASR through the design point with P = N A j V and
+// Q = N A j (V_tn − V), the carbon activity against S/C on either side of the carbon-free
+// limit, and the Nernst equation for the pressure sensitivity.
+import { describe, expect, it } from 'vitest';
+import { calculate } from '../../lib/plant/calculate.ts';
+import { evaluateReaction } from '../../lib/electrochem/reaction.ts';
+import { FARADAY_C_PER_MOL as F, GAS_CONSTANT_J_PER_MOL_K as R } from '../../lib/thermo/constants.ts';
+import { enthalpy, gibbs } from '../../lib/thermo/properties.ts';
+import { getSpecies } from '../../lib/thermo/species-data.ts';
+import { basisFrom } from './helpers.ts';
+
+const h = (name: string, t: number) => enthalpy(getSpecies(name), t);
+const g = (name: string, t: number) => gibbs(getSpecies(name), t);
+const HHV_H2 = -(h('H2O(L)', 298.15) - h('H2', 298.15) - 0.5 * h('O2', 298.15));
+
+describe('temperature sweep', () => {
+  it('hydrogen curve of a PEM basis (liquid water): E_rev, V_tn and −ΔG/HHV at each T, 83 % HHV at 25 °C (Table 2.2)', () => {
+    const r = calculate(basisFrom('pem', 'power', { 'conditions.temperature-sweep': { from: '25 C', to: '95 C' } }));
+    const sweep = r.sweeps.temperature;
+    expect(sweep[0]!.temperature_K).toBeCloseTo(298.15, 9);
+    for (const p of sweep) {
+      const t = p.temperature_K;
+      const dG = g('H2O(L)', t) - g('H2', t) - 0.5 * g('O2', t);
+      const dH = h('H2O(L)', t) - h('H2', t) - 0.5 * h('O2', t);
+      expect(p.reversibleVoltage_V).toBeCloseTo(-dG / (2 * F), 12);
+      expect(p.thermoneutralVoltage_V).toBeCloseTo(-dH / (2 * F), 12);
+      expect(p.hydrogenLimitHhv).toBeCloseTo(-dG / HHV_H2, 12);
+      expect(p.carnot).toBeCloseTo(1 - r.conditions.ambientTemperature_K / t, 12);
+      // Pure hydrogen fuel: the fuel's own curve is the hydrogen curve.
+      expect(p.limitHhv!).toBeCloseTo(p.hydrogenLimitHhv, 9);
+    }
+    // Whole percent in the table: half a percent either way.
+    expect(Math.abs(sweep[0]!.hydrogenLimitHhv - 0.83)).toBeLessThan(0.006);
+  });
+
+  it('a solid oxide basis swept to 1000 °C (steam): 62 % HHV at 1000 °C (Table 2.2), E_rev 0.92 V', () => {
+    const r = calculate(basisFrom('solid-oxide', 'power', { 'conditions.temperature-sweep': { from: '650 C', to: '1000 C' } }));
+    const last = r.sweeps.temperature[r.sweeps.temperature.length - 1]!;
+    expect(last.temperature_K).toBeCloseTo(1273.15, 9);
+    expect(Math.abs(last.hydrogenLimitHhv - 0.62)).toBeLessThan(0.006);
+    expect(Math.abs(last.reversibleVoltage_V - 0.92)).toBeLessThan(0.005);
+    for (const p of r.sweeps.temperature) {
+      expect(p.reversibleVoltage_V).toBeCloseTo(evaluateReaction('H2 + 1/2 O2 -> H2O', p.temperature_K).reversibleVoltage_V, 12);
+    }
+    // The methane-rich fuel's limit −ΔG/LHV stays near 1 (ΔS of CH4 + 2 O2 → CO2 + 2 H2O is near 0), far above hydrogen's.
+    for (const p of r.sweeps.temperature) expect(p.limitLhv!).toBeGreaterThan(0.97);
+  });
+});
+
+describe('current-density sweep', () => {
+  const r = calculate(basisFrom('proton-ceramic', 'power'));
+  const eEff = r.electrochemistry.effectiveNernst_V;
+  const asr = r.electrochemistry.areaSpecificResistance_ohm_m2;
+  const area = r.operatingPoint.totalActiveArea_m2;
+  const vtn = r.electrochemistry.effectiveThermoneutralVoltage_V;
+
+  it('follows V = Ē_eff − j·ASR through the design point, with P = N A j V and Q = N A j (V_tn − V)', () => {
+    const j0 = r.operatingPoint.currentDensity_A_per_m2;
+    expect(eEff - j0 * asr).toBeCloseTo(r.headline.cellVoltage_V, 12);
+    expect(area * j0 * (vtn - r.headline.cellVoltage_V)).toBeCloseTo(r.headline.stackHeat_W, 6);
+    expect(r.sweeps.currentDensity.length).toBeGreaterThan(10);
+    for (const p of r.sweeps.currentDensity) {
+      const v = eEff - p.currentDensity_A_per_m2 * asr;
+      expect(p.cellVoltage_V).toBeCloseTo(v, 12);
+      expect(p.stackPower_W / (area * p.currentDensity_A_per_m2 * v)).toBeCloseTo(1, 12);
+      expect(p.stackHeat_W / (area * p.currentDensity_A_per_m2 * (vtn - v))).toBeCloseTo(1, 12);
+    }
+    // It spans the design point.
+    const js = r.sweeps.currentDensity.map((p) => p.currentDensity_A_per_m2);
+    expect(Math.min(...js)).toBeLessThan(j0);
+    expect(Math.max(...js)).toBeGreaterThan(j0);
+  });
+});
+
+describe('steam-to-carbon sweep', () => {
+  it('carbon activity at the stack temperature is above 1 below the carbon-free limit and below 1 above it', () => {
+    const r = calculate(basisFrom('solid-oxide', 'power'));
+    const limit = r.carbon.minimumSteamToCarbonStack!;
+    const sweep = r.sweeps.steamToCarbon;
+    expect(sweep.length).toBeGreaterThan(10);
+    expect(sweep.some((p) => p.steamToCarbon < limit)).toBe(true);
+    expect(sweep.some((p) => p.steamToCarbon > r.carbon.steamToCarbon!)).toBe(true);
+    for (const p of sweep) {
+      if (p.steamToCarbon < limit - 1e-6) expect(p.carbonActivityStack, `S/C ${p.steamToCarbon}`).toBeGreaterThan(1);
+      if (p.steamToCarbon > limit + 1e-6) expect(p.carbonActivityStack, `S/C ${p.steamToCarbon}`).toBeLessThan(1);
+    }
+    // Adding steam only lowers the activity.
+    for (let k = 1; k < sweep.length; k++) expect(sweep[k]!.carbonActivityStack).toBeLessThan(sweep[k - 1]!.carbonActivityStack);
+  });
+
+  it('is empty for a fuel without carbon', () => {
+    expect(calculate(basisFrom('pem', 'power')).sweeps.steamToCarbon).toEqual([]);
+  });
+});
+
+describe('sensitivities', () => {
+  // Humidified hydrogen in a solid oxide stack (the worked example of worked-examples.test.ts):
+  // no reforming, so the hand formulas below hold up to the trace dissociation products (1e-8).
+  const basis = basisFrom('solid-oxide', 'power', {
+    'streams.fuel-electrode': { composition: { H2: 0.97, H2O: 0.03 }, 'pre-reforming': 'none' },
+    'streams.air-electrode': { composition: 'dry-air' },
+    'operating-point.target-power': undefined,
+    'operating-point.cells': 100,
+    'operating-point.parasitic-load': '0 %',
+  });
+  const r = calculate(basis);
+  const entry = (input: string) => r.sensitivities.find((s) => s.input === input)!;
+
+  it('covers temperature, pressures, utilization and current density, each with a low and a high case', () => {
+    expect(r.sensitivities.map((s) => s.input)).toEqual(['operating temperature', 'electrode pressures', 'fuel utilization', 'current density']);
+    for (const s of r.sensitivities) {
+      expect(s.note, s.input).toBeNull();
+      for (const q of [s.meanNernst_V, s.efficiency, s.stackHeat_W]) {
+        expect(q.low, s.input).not.toBeNull();
+        expect(q.high, s.input).not.toBeNull();
+      }
+    }
+  });
+
+  it('pressures ±10 %: the mean Nernst voltage moves by RT/4F ln(1 ± 0.1) (x_H2/x_H2O unchanged, p_O2 scaled)', () => {
+    const t = r.conditions.temperature_K;
+    const e = entry('electrode pressures').meanNernst_V;
+    // The effect is 2.2 mV. 1e-8 V: the trace species (H, OH, about 1e-8 of the gas) shift with
+    // pressure and move ln(x_H2/x_H2O) by less than 1e-8, under 1e-9 V.
+    expect(Math.abs(e.high! - e.base - ((R * t) / (4 * F)) * Math.log(1.1))).toBeLessThan(1e-8);
+    expect(Math.abs(e.low! - e.base - ((R * t) / (4 * F)) * Math.log(0.9))).toBeLessThan(1e-8);
+  });
+
+  it('current density ±10 % with the cell voltage given: the Nernst voltage stays, the heat I (V_tn − V) scales with j', () => {
+    const s = entry('current density');
+    expect(s.meanNernst_V.high!).toBeCloseTo(s.meanNernst_V.base, 9);
+    expect(s.stackHeat_W.high! / s.stackHeat_W.base).toBeCloseTo(1.1, 9);
+    expect(s.stackHeat_W.low! / s.stackHeat_W.base).toBeCloseTo(0.9, 9);
+    // The efficiency V·U·2F/LHV does not depend on j either.
+    expect(s.efficiency.high!).toBeCloseTo(s.efficiency.base, 9);
+  });
+
+  it('temperature ±25 K: the mean Nernst voltage follows dE/dT = dE°/dT + (Ē − E°)/T (the Nernst term scales with T)', () => {
+    const t = r.conditions.temperature_K;
+    const e = entry('operating temperature').meanNernst_V;
+    const e0 = (tk: number) => evaluateReaction('H2 + 1/2 O2 -> H2O', tk).reversibleVoltage_V;
+    // E(T) = E°(T) + (T/T0)(Ē0 − E°(T0)) at the same compositions along the path (H2 and H2O only).
+    const predicted = (tk: number) => e0(tk) + (tk / t) * (e.base - e0(t));
+    // The effect is about −7.5 mV; 1e-8 V for the trace species, as for the pressures.
+    expect(Math.abs(e.high! - predicted(t + 25))).toBeLessThan(1e-8);
+    expect(Math.abs(e.low! - predicted(t - 25))).toBeLessThan(1e-8);
+    expect(e.high!).toBeLessThan(e.base - 5e-3);
+  });
+});
