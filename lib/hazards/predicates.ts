@@ -85,6 +85,27 @@ const substancePresent: Predicate = (ctx, params) => {
   );
 };
 
+/** The lowest time-weighted exposure limit recorded for a substance (NIOSH REL, OSHA PEL, ACGIH TLV), ppm. */
+function lowestTwa_ppm(label: string): number | undefined {
+  const e = substance(label).exposure_ppm;
+  const limits = [e.nioshRelTwa, e.oshaPelTwa, e.acgihTlvTwa].filter((l) => l !== undefined).map((l) => l.value);
+  return limits.length ? Math.min(...limits) : undefined;
+}
+
+/**
+ * The substance in streams at or above its lowest time-weighted exposure limit. For a gas that
+ * ambient air carries itself (CO2), presence alone would raise the caution for every air stream:
+ * a stream below the limit cannot by leaking bring a room above it, so such streams do not count.
+ */
+const substanceAtExposureLimit: Predicate = (ctx, params) => {
+  const label = params.substance!;
+  const limit = lowestTwa_ppm(label);
+  if (limit === undefined) return null;
+  const streams = ctx.streams.filter((s) => (shareOf(s, label)?.mole_percent ?? 0) * 1e4 >= limit);
+  const m = substancePresent({ ...ctx, streams }, params);
+  return m && { ...m, values: { ...m.values, limit_ppm: fmt(limit) } };
+};
+
 /** Nickel-bearing basis with CO in a fuel-side stream (or one whose side is not given). */
 const nickelAndCarbonMonoxide: Predicate = (ctx) => {
   if (!ctx.input.nickelBearing) return null;
@@ -214,6 +235,7 @@ const unassessedSpecies: Predicate = (ctx) =>
 
 export const PREDICATES: Readonly<Record<string, Predicate>> = {
   'substance-present': substancePresent,
+  'substance-at-exposure-limit': substanceAtExposureLimit,
   'nickel-and-carbon-monoxide': nickelAndCarbonMonoxide,
   'nickel-and-carbon-monoxide-in-operation': nickelAndCarbonMonoxideInOperation,
   'outlet-flammable-on-mixing': outletFlammableOnMixing,

@@ -44,7 +44,7 @@ function check(rule: Rule): void {
     throw new Error(`${WHERE}: rule ${rule.id}: ${why}`);
   };
   if (!(rule.when in PREDICATES)) fail(`unknown condition "${rule.when}"`);
-  if (rule.when === 'substance-present' && !rule.substance) fail('substance-present needs a substance');
+  if ((rule.when === 'substance-present' || rule.when === 'substance-at-exposure-limit') && !rule.substance) fail(`${rule.when} needs a substance`);
   if (rule.when === 'technology-is' && !rule.technology) fail('technology-is needs a technology');
   for (const label of [rule.substance, ...(rule.concerns ?? [])]) {
     if (label !== undefined && !findSubstance(label)) fail(`unknown substance "${label}"`);

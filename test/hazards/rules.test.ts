@@ -66,7 +66,8 @@ const CASES: Record<string, [HazardInput, HazardInput]> = {
   'ammonia-fuel': [withStream({ NH3: 0.001, N2: 0.999 }), withStream({ N2: 1 })],
   'toxic-methanol': [withStream({ CH3OH: 0.001, N2: 0.999 }), withStream({ N2: 1 })],
   'toxic-hydrogen-sulfide': [withStream({ H2S: 0.00001, N2: 0.99999 }), withStream({ N2: 1 })],
-  'toxic-carbon-dioxide': [withStream({ CO2: 0.01, N2: 0.99 }), withStream({ N2: 1 })],
+  // CO2 counts from its lowest 8-hour limit, 5000 ppm (NIOSH REL and OSHA PEL, NIOSH Pocket Guide): 4200 ppm misses it.
+  'toxic-carbon-dioxide': [withStream({ CO2: 0.01, N2: 0.99 }), withStream({ CO2: 0.0042, N2: 0.9958 })],
   'caustic-electrolyte': [{ ...base, technology: 'alkaline' }, { ...base, technology: 'pem' }],
   'pressure-equipment': [{ ...base, fuelPressureBar: 2 }, base],
   'unassessed-species': [withStream({ SO2: 0.00001, N2: 0.99999 }), withStream({ N2: 1 })],
@@ -165,6 +166,12 @@ describe('caution texts carry the computed numbers', () => {
     expect(mixed.text).toMatch(/streams of this basis carrying both: test stream 1 % H2 with 99 % O2/);
     expect(mixed.triggeredBy).toEqual(['x']);
     expect(caution({ ...base, mode: 'electrolysis' }, 'electrolysis-gas-purity').text).not.toMatch(/carrying both/);
+  });
+  it('carbon dioxide: not raised by air (420 ppm CO2), raised from its 5000 ppm limit on, naming that limit', () => {
+    expect(ids(withStream(inAir({ CO2: 0.00042 }), { side: 'air' }))).not.toContain('toxic-carbon-dioxide');
+    const c = caution(withStream({ CO2: 0.05, N2: 0.95 }), 'toxic-carbon-dioxide');
+    expect(c.text).toMatch(/^Carbon dioxide is present at or above its lowest 8-hour exposure limit of 5,000 ppm: test stream 5 % CO2 \(1\.25 times the IDLH\)/);
+    expect(c.severity).toBe('warning');
   });
   it('toxic gases escalate to danger at or above their IDLH (NH3 300 ppm, NIOSH)', () => {
     expect(caution(withStream({ NH3: 0.0001, N2: 0.9999 }), 'toxic-ammonia').severity).toBe('warning');

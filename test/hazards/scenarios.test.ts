@@ -35,6 +35,8 @@ const pem: HazardInput = {
   streams: [
     { id: 'hydrogen-inlet', name: 'dry hydrogen inlet', role: 'feed', temperatureK: 25 + C, pressureBar: 1.5, moleFractions: { H2: 1 } },
     { id: 'anode-outlet', name: 'anode outlet', role: 'outlet', temperatureK: 70 + C, pressureBar: 1.5, moleFractions: { H2: 0.792, H2O: 0.208 } },
+    // Air with its 420 ppm CO2 (the dry-air preset): no hazard of its own.
+    { id: 'air-inlet', name: 'air inlet', role: 'feed', side: 'air', temperatureK: 25 + C, pressureBar: 1.5, moleFractions: { N2: 0.78084, O2: 0.209476, Ar: 0.00934, CO2: 0.00042 } },
   ],
 };
 
@@ -98,7 +100,7 @@ describe('methane-fed solid oxide cell with a nickel anode', () => {
 describe('pure-hydrogen PEM cell', () => {
   const c = byId(assessHazards(pem));
 
-  it('gives only hydrogen-related cautions (and the general pressure one): no CO, no nickel carbonyl', () => {
+  it('gives only hydrogen-related cautions (and the general pressure one): no CO, no nickel carbonyl, nothing for the CO2 of the air', () => {
     expect([...c.keys()].sort()).toEqual(
       [
         'flammable-area-classification',
