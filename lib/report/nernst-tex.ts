@@ -10,11 +10,19 @@ function factor(term: QuotientTerm, base: string): string {
   return Math.abs(term.power) === 0.5 ? `{${base}}^{1/2}` : base;
 }
 
-/** `\frac{numerator}{denominator}` (or the numerator alone) of the terms, each shown by `show`. */
-export function quotientTex(terms: readonly QuotientTerm[], show: (term: QuotientTerm) => string = (t) => texPressure(t.species, t.electrode)): string {
+/**
+ * `\frac{numerator}{denominator}` (or the numerator alone) of the terms, each shown by `show`:
+ * symbols side by side, numbers (`times`) with a multiplication sign between them, so that two
+ * partial pressures never read as one number.
+ */
+export function quotientTex(
+  terms: readonly QuotientTerm[],
+  show: (term: QuotientTerm) => string = (t) => texPressure(t.species, t.electrode),
+  { times = false }: { times?: boolean } = {},
+): string {
   const top = terms.filter((t) => t.power > 0).map((t) => factor(t, show(t)));
   const bottom = terms.filter((t) => t.power < 0).map((t) => factor(t, show(t)));
-  const join = (list: string[]) => list.join('\\,');
+  const join = (list: string[]) => list.join(times ? '\\times' : '\\,');
   return bottom.length ? `\\frac{${join(top)}}{${join(bottom)}}` : join(top);
 }
 

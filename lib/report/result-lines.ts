@@ -104,7 +104,7 @@ function nernstLine(r: Results, book: EquationBook, where: 'inlet' | 'outlet'): 
       constF,
       ...pressures,
     ],
-    substitute: (n) => `${n.E0} + \\frac{${n.R}\\times${n.T}}{2\\times${n.F}}\\,\\ln ${quotientTex(terms, (t) => n[nameOf(t.species, t.electrode)]!)}`,
+    substitute: (n) => `${n.E0} + \\frac{${n.R}\\times${n.T}}{2\\times${n.F}}\\,\\ln ${quotientTex(terms, (t) => n[nameOf(t.species, t.electrode)]!, { times: true })}`,
     value,
     unit: 'V',
   };
@@ -351,7 +351,7 @@ function flowLines(r: Results, basis: DesignBasis): LineSpec[] {
         equation: 'charge-basis',
         lhs: '\\dot n_\\mathrm{fuel}',
         rhs: '\\frac{I}{U_\\mathrm{f}\\,F\\,\\bar{z}}',
-        quantities: [I, U, constF, { name: 'z', symbol: '\\bar{z}', value: z, unit: '', origin: 'Σ x_i z_i of the dry fuel composition, design input' }],
+        quantities: [I, U, constF, { name: 'z', symbol: '\\bar{z}', value: z, unit: '', origin: 'electrons per molecule averaged over the dry fuel composition (design input)' }],
         substitute: (n) => `\\frac{${n.I}}{${n.U}\\times${n.F}\\times${n.z}}`,
         value: h.totalCurrent_A / (r.electrochemistry.utilization * F * z),
         unit: 'mol/s',
@@ -556,8 +556,8 @@ function carbonLines(r: Results): LineSpec[] {
       rhs: pre === null ? '(S/C)_\\mathrm{design} - (S/C)_\\mathrm{min,stack}' : '(S/C)_\\mathrm{design} - \\max\\left[(S/C)_\\mathrm{min,stack},\\ (S/C)_\\mathrm{min,pre}\\right]',
       quantities: [
         { name: 'sc', symbol: '(S/C)_\\mathrm{design}', value: c.steamToCarbon, unit: '', origin: 'design input' },
-        { name: 'st', symbol: '(S/C)_\\mathrm{min,stack}', value: c.minimumSteamToCarbonStack, unit: '', origin: 'root of a_C = 1 at the stack temperature' },
-        ...(pre === null ? [] : [{ name: 'pr', symbol: '(S/C)_\\mathrm{min,pre}', value: pre, unit: '', origin: 'root of a_C = 1 at the pre-reformer temperature' }]),
+        { name: 'st', symbol: '(S/C)_\\mathrm{min,stack}', value: c.minimumSteamToCarbonStack, unit: '', origin: 'ratio at which the carbon activity reaches 1 at the stack temperature' },
+        ...(pre === null ? [] : [{ name: 'pr', symbol: '(S/C)_\\mathrm{min,pre}', value: pre, unit: '', origin: 'ratio at which the carbon activity reaches 1 at the pre-reformer temperature' }]),
       ],
       substitute: (n) => (pre === null ? `${n.sc} - ${n.st}` : `${n.sc} - \\max\\left[${n.st},\\ ${n.pr}\\right]`),
       value: r.headline.carbonMargin,

@@ -44,7 +44,10 @@ export function unitTex(key: string): string {
   return tex ? `\\,${tex}` : '';
 }
 
-/** An SI unit as the loader names it ("A/m2", "ohm m2", "Pa") in print: "A/m²", "Ω m²", "Pa". */
+/** A unit as the loader or a reference check names it ("A/m2", "ohm m2", "bar^2", "Pa") in print: "A/m²", "Ω m²", "bar²", "Pa". */
 export function prettyUnit(unit: string): string {
-  return unit.replace(/\bohm\b/g, 'Ω').replace(/(?<=[A-Za-z])2\b/g, '²').replace(/(?<=[A-Za-z])3\b/g, '³');
+  return unit
+    .replace(/\bohm\b/g, 'Ω')
+    .replace(/(?<=[A-Za-z])\^?2\b/g, '²')
+    .replace(/(?<=[A-Za-z])\^?3\b/g, '³');
 }

@@ -27,18 +27,29 @@
     return Number(value.toPrecision(1)).toString();
   }
 
+  // Tick labels in the document's number style (lib/report/format.ts): the minus sign U+2212, no
+  // thousands comma, digits grouped by a narrow no-break space from five digits up.
+  function linearTick(value, index, ticks) {
+    var text = Chart.Ticks.formatters.numeric.call(this, value, index, ticks).replace(/,/g, '');
+    var parts = /^(-?)(\d+)(.*)$/.exec(text);
+    if (!parts) return text;
+    var whole = parts[2].length >= 5 ? parts[2].replace(/\B(?=(\d{3})+$)/g, '\u202f') : parts[2];
+    return (parts[1] && Number(value) !== 0 ? '\u2212' : '') + whole + parts[3];
+  }
+
   function axis(spec, position) {
     var scale = {
       type: spec.log ? 'logarithmic' : 'linear',
       position: position,
       title: { display: true, text: spec.title, font: FONT, color: '#222' },
-      ticks: spec.log ? { font: FONT, color: '#333', callback: logTick, autoSkip: false } : { font: FONT, color: '#333' },
+      ticks: spec.log ? { font: FONT, color: '#333', callback: logTick, autoSkip: false } : { font: FONT, color: '#333', callback: linearTick },
       grid: { color: position === 'right' ? 'transparent' : '#dcdcdc' },
       border: { color: '#555' }
     };
     if (!spec.log) scale.grace = '6%';
     if (typeof spec.min === 'number') scale.min = spec.min;
     if (typeof spec.max === 'number') scale.max = spec.max;
+    if (typeof spec.step === 'number') scale.ticks.stepSize = spec.step;
     return scale;
   }
 

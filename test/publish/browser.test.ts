@@ -31,6 +31,10 @@ interface PageReport {
   sections: string[];
   canvases: { id: string; painted: number; width: number }[];
   hiddenInPrint: number;
+  /** Tables wider than the text column on screen, to be scrolled sideways. */
+  overflowing: string[];
+  /** The tick labels of every numeric axis, as Chart.js drew them. */
+  ticks: string[];
 }
 
 describe.skipIf(!available && !process.env.CI)('the built site in Chromium, from disk', () => {
@@ -57,7 +61,7 @@ describe.skipIf(!available && !process.env.CI)('the built site in Chromium, from
   async function visit(b: Browser, file: string, path: string): Promise<PageReport> {
     const context = await b.newContext({ viewport: { width: 1000, height: 1400 }, deviceScaleFactor: 1 });
     const page = await context.newPage();
-    const report: PageReport = { consoleErrors: [], failed: [], foreign: [], katexErrors: 0, ready: undefined, sections: [], canvases: [], hiddenInPrint: 0 };
+    const report: PageReport = { consoleErrors: [], failed: [], foreign: [], katexErrors: 0, ready: undefined, sections: [], canvases: [], hiddenInPrint: 0, overflowing: [], ticks: [] };
     await page.route('**/*', (route) => {
       const url = route.request().url();
       if (url.startsWith('file://')) return route.continue();
@@ -82,6 +86,17 @@ describe.skipIf(!available && !process.env.CI)('the built site in Chromium, from
         for (let i = 3; i < data.length; i += 4) if (data[i]! > 0) painted++;
         return { id: c.id, painted, width: c.getBoundingClientRect().width };
       }),
+    );
+    report.ticks = await page.evaluate(() =>
+      [...document.querySelectorAll('canvas')].flatMap((c) => {
+        const chart = (window as unknown as { Chart: { getChart(c: Element): { scales: Record<string, { type: string; ticks: { label: unknown }[] }> } } }).Chart.getChart(c);
+        return Object.values(chart?.scales ?? {})
+          .filter((s) => s.type === 'linear')
+          .flatMap((s) => s.ticks.map((t) => `${c.id}: ${String(t.label)}`));
+      }),
+    );
+    report.overflowing = await page.evaluate(() =>
+      [...document.querySelectorAll('.wide')].filter((w) => w.scrollWidth > w.clientWidth + 1).map((w) => `${w.closest('section[id]')?.id}: ${w.scrollWidth} px in ${w.clientWidth} px`),
     );
     await page.screenshot({ path: join(ARTIFACTS, `${path.replace(/\/index\.html$|\.html$/, '').replace(/\//g, '_') || 'index'}.png`), fullPage: true });
     await page.emulateMedia({ media: 'print' });
@@ -125,6 +140,18 @@ describe.skipIf(!available && !process.env.CI)('the built site in Chromium, from
       if (path === 'index.html') expect(r.sections).toContain('portfolio');
       else for (const id of DOCUMENT_SECTIONS) expect(r.sections, `${path} #${id}`).toContain(id);
     }
+  });
+
+  it('writes the tick labels of the charts as the document writes numbers: minus sign U+2212, no thousands comma', () => {
+    for (const [path, r] of reports) {
+      if (path === 'index.html') continue;
+      expect(r.ticks.length, path).toBeGreaterThan(50);
+      expect(r.ticks.filter((t) => /:.*[-,]/.test(t)), path).toEqual([]);
+    }
+  });
+
+  it('fits every table of a document into the text column on screen, so none is cut off at the right', () => {
+    for (const [path, r] of reports) if (path !== 'index.html') expect(r.overflowing, path).toEqual([]);
   });
 
   it('marks every page ready for the PDF printer', () => {

@@ -8,6 +8,8 @@ import { renderDocumentHtml, renderStandaloneHtml } from '../../lib/publish/rend
 import { inlineAssets } from '../../lib/publish/inline-assets.ts';
 import { writeSiteAssets } from '../../lib/publish/write-assets.ts';
 import { scaffoldCase } from '../report/helpers.ts';
+import { HAZARD_NOTICE } from '../../lib/hazards/notice.ts';
+import { escapeHtml } from '../../lib/report/trusted-html.ts';
 
 const c = scaffoldCase('molten-carbonate', 'power');
 const input = { basis: c.basis, results: c.results, revision: { kind: 'sealed' as const, revision: 'A', status: 'issued for review' as const, sealedOn: '2026-10-01', note: '', supersededBy: null, pdfHref: 'document.pdf' }, history: [] };
@@ -20,6 +22,13 @@ describe('renderDocumentHtml', () => {
     expect(html).toContain('<link rel="stylesheet" href="../../assets/katex/katex.min.css">');
     expect(html).toContain('<script src="../../assets/charts.js"></script>');
     for (const id of ['title-block', 'purpose', 'summary', 'inputs', 'assumptions', 'method', 'results', 'charts', 'hazards', 'verification', 'references', 'history']) expect(html).toContain(`id="${id}"`);
+  });
+  it('opens the hazards section with the standing notice, before the first caution', () => {
+    const hazards = html.slice(html.indexOf('<section id="hazards"'));
+    const notice = hazards.indexOf(`<p class="notice" role="note">${escapeHtml(HAZARD_NOTICE)}</p>`);
+    expect(notice).toBeGreaterThan(0);
+    expect(notice).toBeLessThan(hazards.indexOf('<div class="caution'));
+    expect(HAZARD_NOTICE).toMatch(/authority having jurisdiction and licensed professional practice/);
   });
   it('is the same for the same input', () => {
     expect(renderDocumentHtml(input, { assetBase: '../../assets/' })).toBe(html);

@@ -5,6 +5,11 @@ import { describe, expect, it } from 'vitest';
 import { figures, type DrawnFigure } from '../../lib/report/charts/figures.ts';
 import type { ChartSpec } from '../../lib/report/charts/spec.ts';
 import { CASES, scaffoldCase } from './helpers.ts';
+import { readdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { loadBasisText } from '../../lib/basis/load.ts';
+import { calculate } from '../../lib/plant/calculate.ts';
+import { PACKAGE_ROOT } from '../../lib/publish/paths.ts';
 
 function drawn(list: ReturnType<typeof figures>): DrawnFigure[] {
   return list.filter((f): f is DrawnFigure => f.kind === 'chart');
@@ -108,4 +113,29 @@ it('centres the tornado axis on zero', () => {
   const spec = JSON.parse(f.spec.html) as Extract<ChartSpec, { kind: 'tornado' }>;
   expect(spec.x.min).toBe(-spec.x.max!);
   expect(Math.max(...spec.low.map(Math.abs), ...spec.high.map(Math.abs))).toBeLessThanOrEqual(spec.x.max!);
+});
+
+it('centres every tornado axis of the scaffolds and the demo projects on zero, its ticks evenly spaced from the limit', () => {
+  // The demo PEM backup unit's efficiency peaks just under a power of ten (0.994 percentage points):
+  // with its margin the limit lies beyond 1, where a ladder of 1, 2, 2.5, 5 and 10 times 0.1 has none.
+  const demos = readdirSync(join(PACKAGE_ROOT, 'projects')).map((id) => {
+    const file = `projects/${id}/basis.yaml`;
+    const loaded = loadBasisText(readFileSync(join(PACKAGE_ROOT, file)), file, id);
+    if (!loaded.ok) throw new Error(id);
+    return [id, calculate(loaded.basis)] as const;
+  });
+  const all = [...CASES.map(([technology, mode]) => [`${technology} ${mode}`, scaffoldCase(technology, mode).results] as const), ...demos];
+  for (const [name, results] of all) {
+    for (const f of drawn(figures(results)).filter((x) => x.id.startsWith('fig-tornado'))) {
+      const spec = JSON.parse(f.spec.html) as Extract<ChartSpec, { kind: 'tornado' }>;
+      const { x } = spec;
+      const where = `${name} ${f.id}: ±${x.max} by ${x.step}`;
+      expect(Number.isFinite(x.max) && x.max! > 0 && x.min === -x.max!, where).toBe(true);
+      expect(Math.max(...spec.low.map(Math.abs), ...spec.high.map(Math.abs)), where).toBeLessThanOrEqual(x.max!);
+      const ticks = x.max! / x.step!;
+      expect(Math.abs(ticks - Math.round(ticks)), where).toBeLessThan(1e-9);
+      expect(Math.round(ticks), where).toBeGreaterThanOrEqual(2);
+      expect(Math.round(ticks), where).toBeLessThanOrEqual(5);
+    }
+  }
 });

@@ -55,6 +55,7 @@ describe('the other formats', () => {
     expect(unitTex('A/cm2')).toBe('\\,\\mathrm{A/cm^2}');
     expect(() => unitTex('}\\href{x}')).toThrow(/not a unit/);
     expect(prettyUnit('ohm m2')).toBe('Ω m²');
+    expect([prettyUnit('bar^2'), prettyUnit('kg/m3'), prettyUnit('J/(mol K)')]).toEqual(['bar²', 'kg/m³', 'J/(mol K)']);
   });
   it('escapes every character but letters, digits and spaces in CSS strings', () => {
     expect(cssString('DB-1 rev A').html).toBe('"DB\\2d 1 rev A"');

@@ -130,6 +130,20 @@ describe.each(CASES)('worked lines of the %s %s scaffold', (technology, mode) =>
   });
 });
 
+it.each(CASES)('the Nernst lines of the %s %s scaffold put a multiplication sign between the partial pressures they substitute', (technology, mode) => {
+  const nernst = lines(scaffoldCase(technology, mode)).filter((l) => l.id.startsWith('nernst-'));
+  expect(nernst.length).toBeGreaterThan(0);
+  for (const line of nernst) {
+    // The LaTeX source KaTeX keeps in its MathML annotation; the substituted quotient follows the second \ln.
+    const tex = /<annotation encoding="application\/x-tex">([^<]*)<\/annotation>/.exec(line.math.html)![1]!;
+    const substituted = tex.split('\\ln ')[2]!;
+    expect(substituted, line.id).toMatch(/^\\frac\{|^[\d{]/);
+    // A number (or a {number}^{1/2}) followed by another with only a thin space between: two pressures read as one.
+    expect(substituted, `${line.id}: ${substituted}`).not.toMatch(/[\d}]\\,[\d{]/);
+    if (Object.keys(line.inputs).filter((k) => k.startsWith('p_')).length > 1) expect(substituted, line.id).toContain('\\times');
+  }
+});
+
 it('the inlet Nernst line uses the partial pressures of the first fuel-path point', () => {
   const c = scaffoldCase('solid-oxide', 'power');
   const line = lines(c).find((l) => l.id === 'nernst-inlet')!;

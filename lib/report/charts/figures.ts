@@ -70,7 +70,7 @@ function voltagesAgainstTemperature(r: Results): Draft {
   ];
   if (fuel) series.push({ label: 'reversible voltage of the fuel, −ΔG°/zF', points: s.filter((p) => p.fuelReversibleVoltage_V !== null).map((p) => [C(p.temperature_K), p.fuelReversibleVoltage_V!]), style: 2, dashed: true });
   const td = C(r.conditions.temperature_K);
-  series.push({ label: 'design point: E°, V_tn and cell voltage at the operating temperature', points: [[td, r.electrochemistry.standardVoltage_V], [td, r.electrochemistry.thermoneutralVoltage_V], [td, r.headline.cellVoltage_V]], style: 0, marker: true });
+  series.push({ label: 'design point: E°, thermoneutral and cell voltage at the operating temperature', points: [[td, r.electrochemistry.standardVoltage_V], [td, r.electrochemistry.thermoneutralVoltage_V], [td, r.headline.cellVoltage_V]], style: 0, marker: true });
   const columns: DataColumn[] = [
     { header: 'temperature (°C)', values: t, digits: 5 },
     { header: 'reversible voltage E° (V)', values: s.map((p) => p.reversibleVoltage_V), digits: 5 },
@@ -280,12 +280,16 @@ function heatAndPower(r: Results): Draft {
 
 type Output = 'meanNernst_V' | 'efficiency' | 'stackHeat_W';
 
-/** Axis limits centred on zero that hold every value, on a 1-2-5 step. */
-function symmetric(values: number[]): { min: number; max: number } {
+/**
+ * Axis limits centred on zero that hold every value, on a 1-2-5 step, with a tick spacing that
+ * divides them (±5 by 1, ±2 by 0.5), so that no odd tick stands beside a limit (−5, −4, −2, ...).
+ */
+function symmetric(values: number[]): { min: number; max: number; step: number } {
   const peak = Math.max(...values.map(Math.abs));
   const power = 10 ** Math.floor(Math.log10(peak));
-  const step = [1, 2, 2.5, 5, 10].find((k) => k * power >= peak * 1.05)! * power;
-  return { min: -step, max: step };
+  // Up to 20 × the power of ten: a peak just under the next power (0.994) with its 5 % margin needs it.
+  const [limit, tick] = ([[1, 0.2], [2, 0.5], [2.5, 0.5], [5, 1], [10, 2], [20, 5]] as const).find(([k]) => k * power >= peak * 1.05)!;
+  return { min: -limit * power, max: limit * power, step: tick * power };
 }
 
 function tornado(r: Results, output: Output): Draft {

@@ -9,6 +9,8 @@ export interface Axis {
   log?: boolean;
   min?: number;
   max?: number;
+  /** Distance between the ticks of a linear axis (a divisor of min and max); Chart.js chooses one when absent. */
+  step?: number;
 }
 
 export interface LineSeries {

@@ -30,7 +30,7 @@ function electrochemistry(r: Results): Row[] {
     ['Standard voltage E° at T (Nernst equation)', formatQuantity(e.standardVoltage_V, 'V', 5)],
     ['Thermoneutral voltage of H₂ + ½O₂ → H₂O at T', formatQuantity(e.thermoneutralVoltage_V, 'V', 5)],
     ['Effective thermoneutral voltage of the actual gases', formatQuantity(e.effectiveThermoneutralVoltage_V, 'V', 5)],
-    [r.technology.mode === 'power' ? 'Effective mean Nernst voltage t_ion Ē − ΔVx' : 'Mean Nernst voltage Ē', formatQuantity(e.effectiveNernst_V, 'V', 5)],
+    [r.technology.mode === 'power' ? 'Effective mean Nernst voltage (transference number × Ē − crossover allowance)' : 'Mean Nernst voltage Ē', formatQuantity(e.effectiveNernst_V, 'V', 5)],
     ['Area-specific resistance', `${formatQuantity(e.areaSpecificResistance_ohm_m2 * 1e4, 'Ω cm²')} (${e.voltageSource === 'given' ? 'implied by the given voltage' : 'given'})`],
     ['Ionic transference number / crossover allowance', `${formatNumber(e.ionicTransferenceNumber)} / ${formatQuantity(e.crossoverAllowance_V * 1000, 'mV')}`],
     [r.technology.mode === 'power' ? 'Fuel utilization' : 'Conversion of the feed', formatPercent(e.utilization)],

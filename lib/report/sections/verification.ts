@@ -1,12 +1,15 @@
 /**
  * Section 9, verification: the calculation library's checks against published values
  * (lib/verification, `runAllChecks()`: the same table the tests assert), each with the value
- * computed, the published value, the deviation against its tolerance, pass or fail, the source
- * and whether the published value is quoted from memory.
+ * computed, the published value (as the reference table gives it, without padding zeros), the deviation against
+ * its tolerance, pass or fail, the source and whether the published value is quoted from memory.
+ * Species in the quantity and the source are written with subscripts (H₂O), units as printed (bar²).
  */
 import type { CheckResult } from '../../verification/checks.ts';
-import { formatNumber } from '../format.ts';
+import { formatNumber, formatTrimmed } from '../format.ts';
+import { speciesText } from '../species-text.ts';
 import { table, type Table } from '../table.ts';
+import { prettyUnit } from '../units.ts';
 
 export interface VerificationSection {
   table: Table;
@@ -18,19 +21,20 @@ export interface VerificationSection {
 }
 
 function unit(u: string): string {
-  return u === '1' ? '' : ` ${u}`;
+  return u === '1' ? '' : ` ${prettyUnit(u)}`;
 }
 
 export function verificationSection(checks: readonly CheckResult[], toolVersion: string, resultsToolVersion: string): VerificationSection {
   const rows = checks.map((c) => ({
     cells: [
       c.check.id,
-      c.check.what,
+      speciesText(c.check.what),
       `${formatNumber(c.computed, 6)}${unit(c.check.unit)}`,
-      `${formatNumber(c.check.expected, 6)}${unit(c.check.unit)}`,
+      // As published: no trailing zeros the publication does not give (1.17 V, not 1.17000 V).
+      `${formatTrimmed(c.check.expected, 6)}${unit(c.check.unit)}`,
       `${formatNumber(c.deviation, 2)} (± ${formatNumber(c.check.tolerance, 2)})`,
       c.pass ? 'pass' : 'FAIL',
-      `${c.check.source}${c.check.memory ? ' (quoted from memory)' : ''}`,
+      `${speciesText(c.check.source)}${c.check.memory ? ' (quoted from memory)' : ''}`,
     ],
     flag: !c.pass,
   }));
