@@ -30,7 +30,7 @@ export async function printDrafts(root: string, site: string, drafts: DraftPage[
   const work = drafts.map((d) => {
     const page = join(site, d.pagePath);
     // The draft's own date (never the clock); an undated draft prints as of 1970-01-01.
-    const meta = documentPdfMeta({ basis: d.basis, results: d.results }, { date: new Date(`${draftDate(d.basis) ?? '1970-01-01'}T00:00:00Z`) });
+    const meta = documentPdfMeta({ basis: d.basis, results: d.results }, { date: new Date(`${draftDate(d.basis) ?? '1970-01-01'}T00:00:00Z`), draft: true });
     return { page, target: join(dirname(page), 'document.pdf'), meta, cached: join(cacheDir, `${keyOf(readFileSync(page), meta)}.pdf`) };
   });
   let done = 0;

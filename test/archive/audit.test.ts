@@ -71,6 +71,21 @@ describeWithChromium('audit', () => {
     expect((await run(['audit', PROJECT, '--key', 'signer.pub'], base)).out).toMatch(/PASS .* rev B\n$/);
   });
 
+  it('shows what changed from A to B in compare and in the revision history of the sealed document of B', async () => {
+    const nernst = (revision: string) => JSON.parse(readFileSync(sealedPath(base, revision, 'results.json'), 'utf8')).headline.meanNernst_V as number;
+    const [before, after] = [nernst('A'), nernst('B')];
+    expect(after).toBeGreaterThan(before); // a colder cell has the higher reversible voltage
+    const change = `+${Number(((after - before) * 1000).toPrecision(2))} mV, +${Number((((after - before) / before) * 100).toPrecision(2))} %`;
+    const table = await run(['compare', PROJECT, 'A', 'B'], base);
+    expect(table.code).toBe(0);
+    expect(table.out).toMatch(/^projects\/demo: revision A \(issued for review, sealed 2026-11-30\) → revision B \(issued for approval, sealed 2026-12-01\)\n/);
+    expect(table.out).toMatch(/\noperating temperature +800 C \[A1\] +780 C \[A1\] +conditions\.operating-temperature\n/);
+    expect(table.out).toMatch(new RegExp(`\\nmean Nernst voltage +${before.toFixed(4)} V +${after.toFixed(4)} V +${change.replace(/[+.]/g, '\\$&')}\\n`));
+    const history = readFileSync(sealedPath(base, 'B', 'document.html'), 'utf8');
+    const section = history.slice(history.indexOf('id="history"'));
+    for (const text of ['operating temperature 800 C → 780 C', 'colder stack', 'first issue for the review meeting', '2026-12-01', 'issued for approval']) expect(section, text).toContain(text);
+  });
+
   const cases: [label: string, from: () => string, revision: string, name: string][] = [
     ...SEALED_FILE_NAMES.map((name) => ['signed revision B', () => base, 'B', name] as [string, () => string, string, string]),
     ['the only revision, unsigned', () => single, 'A', 'manifest.json'],

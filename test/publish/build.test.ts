@@ -7,9 +7,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildSite } from '../../lib/publish/build.ts';
 import { loadSiteModel } from '../../lib/publish/site-model.ts';
 import { renderView } from '../../lib/publish/render.ts';
-import { findChromium } from '../../lib/publish/pdf.ts';
+import { DRAFT_PDF_STATUS, findChromium } from '../../lib/publish/pdf.ts';
+import { loadBasisText } from '../../lib/basis/load.ts';
+import { outline } from '../../lib/report/outline.ts';
+import { compact, pageTexts } from '../archive/pdf-inspect.ts';
 import { run } from '../cli/run.ts';
-import { basisFile, demoRoot, EPOCH, htmlPages, sealedDemoRoot, SOFC, treeDigest } from './helpers.ts';
+import { basisFile, DEMO_PROJECTS, demoRoot, EPOCH, htmlPages, sealedDemoRoot, SOFC, treeDigest } from './helpers.ts';
 
 let root: string;
 
@@ -54,6 +57,32 @@ describe('a build of the demo projects', () => {
       expect(readFileSync(join(site, 'projects', id, 'index.html'), 'utf8'), id).toContain('href="document.pdf">This draft as PDF (not issued)</a>');
     }
   });
+
+  it('prints a draft as "draft, not issued" on every page, each major section on a new page, and no page all but empty', async () => {
+    if (findChromium() === null && !process.env.CI) {
+      console.warn('SKIPPED draft PDF pages check: no Chromium at /usr/bin/chromium (apt-get install -y chromium); CI runs it');
+      return;
+    }
+    for (const id of DEMO_PROJECTS) {
+      const loaded = loadBasisText(readFileSync(basisFile(root, id)), `projects/${id}/basis.yaml`, id);
+      if (!loaded.ok) throw new Error(id);
+      const d = loaded.basis.document;
+      const pages = await pageTexts(readFileSync(join(site, 'projects', id, 'document.pdf')));
+      pages.forEach((text, i) => {
+        const words = compact(text);
+        const where = `${id} page ${i + 1}`;
+        // The running header and footer (lib/publish/pdf.ts) state the draft, never the basis status.
+        expect(words, where).toContain(compact(`Rev ${d.revision} · ${DRAFT_PDF_STATUS}`));
+        expect(words, where).toContain(compact(`${d.number} rev ${d.revision}, ${DRAFT_PDF_STATUS}`));
+        if (d.status !== 'draft') expect(words, where).not.toContain(compact(`Rev ${d.revision} · ${d.status}`));
+        // Less than a line or two besides the header and footer: a table's last row or two alone on a page.
+        const bands = compact(`${d.number} · ${d.title}Rev ${d.revision} · ${DRAFT_PDF_STATUS}${d.number} rev ${d.revision}, ${DRAFT_PDF_STATUS}, 2026-01-01page ${i + 1} of ${pages.length}`);
+        expect(words.length - bands.length, `${where}: ${text.slice(0, 120)}`).toBeGreaterThan(150);
+      });
+      // The print stylesheet breaks the page before each major section: its heading opens a page.
+      for (const s of outline()) expect(pages.some((t) => compact(t).startsWith(compact(`${s.number} ${s.title}`))), `${id}: section ${s.number} opens a page`).toBe(true);
+    }
+  }, 60_000);
 
   it('stamps the draft as not issued, the old revision as superseded and links the sealed PDF', () => {
     const draft = readFileSync(join(site, 'projects', SOFC, 'index.html'), 'utf8');
