@@ -126,6 +126,9 @@ export async function benchSite(counts: number[]): Promise<Row[]> {
       rows.push({ section, measure: 'full HTML build, cold (calculation included)', value: seconds(cold) });
       rows.push({ section, measure: 'full HTML build, results cached', value: seconds(warm) });
       rows.push({ section, measure: `bare Eleventy, ${n} trivial pages`, value: seconds(bare) });
+      // The target is stated for the full build; both ratios are shown, the cold one with the calculation in it.
+      const coldRatio = cold / bare;
+      rows.push({ section, measure: 'ratio: cold build / bare Eleventy', value: `${coldRatio.toFixed(1)} ×`, target: '≤ 1.5 ×', verdict: coldRatio <= 1.5 ? 'met' : 'MISSED' });
       const ratio = warm / bare;
       rows.push({ section, measure: 'ratio: cached build / bare Eleventy', value: `${ratio.toFixed(1)} ×`, target: '≤ 1.5 ×', verdict: ratio <= 1.5 ? 'met' : 'MISSED' });
       const rss = (await peakRss(root)) / 1024;

@@ -1,7 +1,7 @@
-// cellbasis serve: Eleventy's dev server on the site, rebuilt incrementally when a basis changes,
-// with the same bytes as the built site; a basis with errors shows its located diagnostics on the
+// cellbasis serve: Eleventy's dev server on the site, rebuilt incrementally when a basis changes
+// (only that project's pages and the index), with the same bytes as the built site; a basis with errors shows its located diagnostics on the
 // index page and the server keeps running.
-import { readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { serveSite } from '../../lib/publish/serve.ts';
 import { buildSite } from '../../lib/publish/build.ts';
@@ -9,6 +9,8 @@ import { join } from 'node:path';
 import { basisFile, demoRoot } from './helpers.ts';
 
 const ID = 'hob-tor-pem-backup';
+/** A second project, which a change to the first must leave alone. */
+const OTHER = 'kestrelford-pem-electrolyser';
 const PORT = 20000 + (process.pid % 20000);
 let root: string;
 let server: { stop(): Promise<void> };
@@ -30,7 +32,7 @@ async function until(path: string, test: (html: string) => boolean): Promise<str
 }
 
 beforeAll(async () => {
-  root = demoRoot([ID]);
+  root = demoRoot([ID, OTHER]);
   server = await serveSite({ root, port: PORT });
 }, 120_000);
 
@@ -41,9 +43,13 @@ afterAll(async () => {
 
 it('serves the site, rebuilds it when a basis changes, and shows a broken basis on the index page', async () => {
   expect(await until(`projects/${ID}/`, (h) => h.includes('8 kW PEM backup power unit'))).toContain('8 kW PEM backup power unit');
+  const otherPage = join(root, 'site', 'projects', OTHER, 'index.html');
+  const otherWritten = statSync(otherPage).mtimeMs;
   const good = readFileSync(basisFile(root, ID), 'utf8');
   writeFileSync(basisFile(root, ID), good.replace('title: 8 kW PEM backup power unit', 'title: 9 kW PEM backup power unit'));
   expect(await until(`projects/${ID}/`, (h) => h.includes('9 kW PEM backup power unit'))).toContain('9 kW PEM backup power unit');
+  expect(await until('', (h) => h.includes('9 kW PEM backup power unit'))).toContain('9 kW PEM backup power unit');
+  expect(statSync(otherPage).mtimeMs, 'the page of the unchanged project is not written again').toBe(otherWritten);
   writeFileSync(basisFile(root, ID), good.replace('value: "62 C", source: R2', 'value: "warm", source: R2'));
   const index = await until('', (h) => h.includes('The last build failed'));
   expect(index).toMatch(/projects\/hob-tor-pem-backup\/basis\.yaml:\d+:\d+: conditions\.operating-temperature\.value: expected a temperature/);
@@ -55,7 +61,7 @@ it('serves each page byte for byte as cellbasis build writes it (one renderer fo
   await until(`projects/${ID}/`, (h) => h.includes('8 kW PEM backup power unit'));
   const built = join(root, 'built');
   await buildSite({ root, out: built, pdf: false });
-  for (const path of [`projects/${ID}/index.html`, 'index.html']) {
+  for (const path of [`projects/${ID}/index.html`, `projects/${OTHER}/index.html`, 'index.html']) {
     expect(await page(path), path).toBe(readFileSync(join(built, path), 'utf8'));
   }
 }, 120_000);
