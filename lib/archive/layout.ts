@@ -14,8 +14,8 @@
  * recomputing. This module only names the paths and the manifest's shape; sealing, auditing and
  * comparing live beside it in lib/archive.
  */
-import { existsSync, readdirSync } from 'node:fs';
-import { isAbsolute, join, relative, resolve, sep } from 'node:path';
+import { existsSync, readdirSync, realpathSync } from 'node:fs';
+import { basename, dirname, isAbsolute, join, relative, resolve, sep } from 'node:path';
 import type { DocumentStatus } from '../basis/types.ts';
 
 export const SEALED_DIR = 'sealed';
@@ -75,19 +75,39 @@ export function sealedDir(cwd: string, projectId: string, revision: string): str
   return join(sealedRoot(cwd, projectId), revision);
 }
 
+/** Whether `inner` is `outer` or lies inside it (paths compared as written). */
+export function within(outer: string, inner: string): boolean {
+  const rel = relative(outer, inner);
+  return rel === '' || (!rel.startsWith('..') && !isAbsolute(rel));
+}
+
+/**
+ * Where `path` really is: the folders above it that exist, with every symbolic link resolved,
+ * then the rest as written. `path` itself is not followed (a command that replaces it replaces
+ * a link there, not what the link points to).
+ */
+export function realLocation(path: string): string {
+  const below = [basename(path)];
+  let dir = dirname(path);
+  while (!existsSync(dir) && dirname(dir) !== dir) {
+    below.unshift(basename(dir));
+    dir = dirname(dir);
+  }
+  return join(realpathSync(dir), ...below);
+}
+
 /**
  * The sealed folder that writing or replacing `target` would touch, or null: `target` inside a
  * projects/<id>/sealed folder, or a folder that holds one (replacing `projects/` or the working
- * folder itself would take the sealed revisions with it). For commands that write or replace
- * folders they are given (`build --out`), so that no command but seal ever writes there.
+ * folder itself would take the sealed revisions with it), as written or where it really is, so
+ * that no symbolic link on the way (`link-to-sealed/A`) leads there either. For commands that
+ * write or replace what they are given (`build --out`, `keygen NAME`), so that no command but
+ * seal ever writes there.
  */
 export function sealedFolderAt(cwd: string, target: string): string | null {
   const projects = resolve(cwd, 'projects');
   const path = resolve(cwd, target);
-  const within = (outer: string, inner: string) => {
-    const rel = relative(outer, inner);
-    return rel === '' || (!rel.startsWith('..') && !isAbsolute(rel));
-  };
+  const real = realLocation(path);
   if (within(projects, path)) {
     const [id, dir] = relative(projects, path).split(sep);
     if (id && dir === SEALED_DIR) return join(projects, id, SEALED_DIR);
@@ -95,7 +115,9 @@ export function sealedFolderAt(cwd: string, target: string): string | null {
   if (!existsSync(projects)) return null;
   for (const id of readdirSync(projects)) {
     const sealed = join(projects, id, SEALED_DIR);
-    if (existsSync(sealed) && within(path, sealed)) return sealed;
+    if (!existsSync(sealed)) continue;
+    const realSealed = realpathSync(sealed);
+    if (within(path, sealed) || within(real, realSealed) || within(realSealed, real)) return sealed;
   }
   return null;
 }

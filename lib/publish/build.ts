@@ -1,19 +1,39 @@
 /**
  * `cellbasis build`: the whole site, written atomically. The projects are loaded and checked
  * first (any error: nothing is written); Eleventy then renders into a fresh folder beside the
- * target, and only when every page and file is written is that folder swapped in for the old
- * site. A failed build leaves the previous site exactly as it was.
+ * target, and only when every page and file is written does the target switch to it, in one
+ * rename. A failed build leaves the previous site exactly as it was.
  *
  *   buildSite({ root, out }): Promise<BuildReport>
  *     root  the folder holding projects/ (the command's working folder)
  *     out   the site folder (default root/site)
+ *
+ * The site folder `out` is a symbolic link to the folder of the last complete build, a sibling
+ * named `<out>.<pid>-<random>.build`. A directory cannot be replaced by rename(2) while it holds
+ * files, so replacing the folder itself would leave a moment without any site; a link can:
+ *   temp-created  `<out>.<pid>-<random>.build.tmp` made, rendered into and printed into;
+ *   completed     renamed to `<out>.<pid>-<random>.build` once every page and PDF is written;
+ *   linked        a link `<out>.<pid>-<random>.link.tmp` to it made beside `out`;
+ *   swapped       the link renamed onto `out`: one rename(2), which replaces the old link
+ *                 atomically, so `out` always shows the complete old site or the complete new one.
+ * The folder the old link showed is then removed. Only where `out` is a real folder (made by
+ * `serve`, `npx @11ty/eleventy` or by hand) is it first renamed aside, to
+ * `<out>.<pid>-<random>.old.tmp` (step moved-aside), so between those two renames `out` is
+ * missing; a build that finds `out` missing and such a folder of a process that no longer runs
+ * renames it back first. Every build removes the folders and links of this naming that builds
+ * killed before their end left behind (those of processes no longer running), never the one
+ * `out` shows.
+ *
+ * For tests of interruption, `pauseAt` names a step (BUILD_STEPS) at which the build stops and
+ * waits until it is killed; the CLI takes it from CELLBASIS_BUILD_PAUSE.
  */
-import { existsSync, mkdirSync, readFileSync, renameSync, rmSync } from 'node:fs';
+import { existsSync, lstatSync, mkdirSync, readdirSync, readFileSync, readlinkSync, realpathSync, renameSync, rmSync, symlinkSync } from 'node:fs';
 import { randomBytes } from 'node:crypto';
-import { basename, dirname, isAbsolute, join, relative, resolve } from 'node:path';
+import { basename, dirname, join, relative, resolve } from 'node:path';
 import { listProjects } from '../basis/projects.ts';
 import { loadBasisText } from '../basis/load.ts';
-import { sealedFolderAt } from '../archive/layout.ts';
+import { realLocation, sealedFolderAt, within } from '../archive/layout.ts';
+import { processAlive } from '../archive/sealed-folder.ts';
 import { calculateAll, type CalculationJob, type CalculationOutcome } from '../plant/batch.ts';
 import { ResultsCache } from '../plant/results-cache.ts';
 import { ChromiumMissingError, chromiumMissingMessage, findChromium } from './pdf.ts';
@@ -27,6 +47,10 @@ import { loadSiteModel, type SiteOptions } from './site-model.ts';
 /** Document pages rendered by one Eleventy run (the index is rendered by every run, identically). */
 const PAGES_PER_RUN = 100;
 
+/** The steps of a build, in order, where `pauseAt` may stop it (moved-aside only where `out` is a real folder). */
+export const BUILD_STEPS = ['temp-created', 'rendered', 'printed', 'completed', 'linked', 'moved-aside', 'swapped'] as const;
+export type BuildStep = (typeof BUILD_STEPS)[number];
+
 export interface BuildReport {
   out: string;
   /** Document pages written (drafts and sealed revisions). */
@@ -34,11 +58,61 @@ export interface BuildReport {
   /** Draft PDFs written (sealed revisions carry their own). */
   pdfs: number;
   warnings: string[];
+  /** Leftovers of builds killed before their end: the folders and links removed, and the site put back as `out`. */
+  leftovers: Leftovers;
 }
 
-/** A sibling folder of `target` named target.<random>.<suffix>.tmp (ignored by git). */
-function sibling(target: string, suffix: string): string {
-  return join(dirname(target), `${basename(target)}.${process.pid}-${randomBytes(4).toString('hex')}.${suffix}.tmp`);
+export interface Leftovers {
+  /** Names of the siblings of `out` removed. */
+  removed: string[];
+  /** Name of the moved-aside site renamed back to `out`, or null. */
+  restored: string | null;
+}
+
+/** The names beside `out` of one build: `<out>.<pid>-<random>.<kind>`. */
+function buildNames(out: string): Record<'fresh' | 'complete' | 'link' | 'aside', string> {
+  const stem = join(dirname(out), `${basename(out)}.${process.pid}-${randomBytes(4).toString('hex')}`);
+  return { fresh: `${stem}.build.tmp`, complete: `${stem}.build`, link: `${stem}.link.tmp`, aside: `${stem}.old.tmp` };
+}
+
+/** Siblings of `out` a build made: name, the process that made it, and its kind. */
+function buildSiblings(out: string): { name: string; pid: number; kind: string }[] {
+  const pattern = new RegExp(`^${basename(out).replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}\\.(\\d+)-[0-9a-f]{8}\\.(build|build\\.tmp|link\\.tmp|old\\.tmp)$`);
+  return readdirSync(dirname(out)).flatMap((name) => {
+    const match = pattern.exec(name);
+    return match ? [{ name, pid: Number(match[1]), kind: match[2]! }] : [];
+  });
+}
+
+/** The sibling `out` links to, or null (no link, or a link of someone else's). */
+function linkedName(out: string): string | null {
+  try {
+    const target = readlinkSync(out);
+    return target === basename(target) ? target : null;
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * Removes the siblings of `out` left by builds that no longer run (and by earlier builds of this
+ * process), never the folder `out` links to; first, where `out` is missing, puts back the site a
+ * killed build had moved aside.
+ */
+function removeLeftovers(out: string): Leftovers {
+  const stale = buildSiblings(out).filter((s) => s.pid === process.pid || !processAlive(s.pid));
+  const aside = lstatSync(out, { throwIfNoEntry: false }) ? undefined : stale.find((s) => s.kind === 'old.tmp');
+  if (aside) renameSync(join(dirname(out), aside.name), out);
+  // The link is read after each process was found gone: one that no longer runs cannot point `out` at its folder any more.
+  const removed = stale.filter((s) => s !== aside && s.name !== linkedName(out)).map((s) => s.name);
+  for (const name of removed) rmSync(join(dirname(out), name), { recursive: true, force: true });
+  return { removed, restored: aside?.name ?? null };
+}
+
+async function pause(options: BuildOptions, step: BuildStep): Promise<void> {
+  if (options.pauseAt !== step) return;
+  options.onPause?.(step);
+  await new Promise(() => setInterval(() => undefined, 1 << 30));
 }
 
 /** The first UserError in an error's cause chain (Eleventy wraps what the data and templates throw). */
@@ -71,17 +145,27 @@ export interface BuildOptions extends SiteOptions {
   pdf?: boolean;
   /** Progress of the build's long steps: calculation and printing. */
   onProgress?: (step: 'calculate' | 'render' | 'print', done: number, total: number) => void;
+  /** Stop at this step and wait to be killed (tests). */
+  pauseAt?: string;
+  onPause?: (step: BuildStep) => void;
 }
 
-/** Refuses an output folder whose replacement would take projects or sealed revisions with it. */
+/**
+ * Refuses an output folder whose replacement would take projects or sealed revisions with it:
+ * as written, and where it really is (a link on the way, such as `--out link-to-sealed/A`, must
+ * not lead the build into projects/ or a sealed folder, wherever that folder is).
+ */
 function checkOutput(root: string, out: string): void {
   const projects = join(root, 'projects');
-  const within = (outer: string, inner: string) => {
-    const rel = relative(outer, inner);
-    return rel === '' || (!rel.startsWith('..') && !isAbsolute(rel));
-  };
-  if (within(out, root) || within(out, projects) || within(projects, out)) {
-    throw new UserError(`build: --out ${relative(root, out) || '.'} would replace the working folder or write inside projects/; choose a folder of its own, such as site/`);
+  const real = realLocation(out);
+  const sides: [string, string, string][] = [
+    [root, projects, out],
+    [realpathSync(root), existsSync(projects) ? realpathSync(projects) : projects, real],
+  ];
+  for (const [base, folder, target] of sides) {
+    if (within(target, base) || within(target, folder) || within(folder, target)) {
+      throw new UserError(`build: --out ${relative(root, out) || '.'} would replace the working folder or write inside projects/; choose a folder of its own, such as site/`);
+    }
   }
   const sealed = sealedFolderAt(root, out);
   if (sealed) throw new UserError(`build: --out would replace the sealed revisions in ${relative(root, sealed)}; only cellbasis seal writes there`);
@@ -107,15 +191,18 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
   const root = resolve(options.root);
   const out = resolve(options.out ?? join(root, 'site'));
   checkOutput(root, out);
+  const leftovers = existsSync(dirname(out)) ? removeLeftovers(out) : { removed: [], restored: null };
   const chromium = findChromium();
   const printing = options.pdf ?? chromium !== null;
   if (printing && chromium === null) throw new ChromiumMissingError();
   const results = options.results ?? (await precompute(root, options));
   const model = loadSiteModel(root, { ...options, results, draftPdfs: printing });
   mkdirSync(dirname(out), { recursive: true });
-  const fresh = sibling(out, 'build');
+  const names = buildNames(out);
+  const fresh = names.fresh;
   mkdirSync(fresh);
   try {
+    await pause(options, 'temp-created');
     // Eleventy keeps every page it renders until its run ends; a run per PAGES_PER_RUN pages
     // bounds the memory of a large site (500 documents of about 0.7 MB each).
     for (let start = 0; start === 0 || start < model.pages.length; start += PAGES_PER_RUN) {
@@ -126,23 +213,28 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
     for (const page of [...model.pages.map((p) => p.pagePath), 'index.html']) {
       if (!existsSync(join(fresh, page))) throw new UserError(`the build did not write ${page}`, EXIT_INTERNAL);
     }
+    await pause(options, 'rendered');
     if (printing) await printDrafts(root, fresh, model.drafts, (done, total) => options.onProgress?.('print', done, total));
+    await pause(options, 'printed');
+    renameSync(fresh, names.complete);
+    await pause(options, 'completed');
+    symlinkSync(basename(names.complete), names.link, 'dir');
+    await pause(options, 'linked');
+    const existing = lstatSync(out, { throwIfNoEntry: false });
+    if (existing && !existing.isSymbolicLink()) {
+      renameSync(out, names.aside);
+      await pause(options, 'moved-aside');
+    }
+    renameSync(names.link, out);
   } catch (error) {
-    rmSync(fresh, { recursive: true, force: true });
+    for (const path of [fresh, names.complete, names.link]) rmSync(path, { recursive: true, force: true });
+    if (existsSync(names.aside) && !lstatSync(out, { throwIfNoEntry: false })) renameSync(names.aside, out);
     throw error;
   } finally {
     setBuildContext(null);
   }
-  const old = existsSync(out) ? sibling(out, 'old') : null;
-  if (old) renameSync(out, old);
-  try {
-    renameSync(fresh, out);
-  } catch (error) {
-    if (old) renameSync(old, out);
-    rmSync(fresh, { recursive: true, force: true });
-    throw error;
-  }
-  if (old) rmSync(old, { recursive: true, force: true });
+  await pause(options, 'swapped');
+  removeLeftovers(out);
   const warnings = printing ? model.warnings : [...model.warnings, `no PDFs were printed: ${options.pdf === false ? 'HTML only was asked for' : chromiumMissingMessage()}`];
-  return { out, documents: model.pages.length, pdfs: printing ? model.drafts.length : 0, warnings };
+  return { out, documents: model.pages.length, pdfs: printing ? model.drafts.length : 0, warnings, leftovers };
 }

@@ -3,7 +3,8 @@
  * playwright-core; cellbasis never downloads a browser), finished with pdf-lib.
  *
  * One browser per run, a small pool of pages, every network request from the page refused
- * (anything but file: and data: URLs is aborted, so a document can only show what it carries):
+ * (anything but file: and data: URLs is aborted, so a document can only show what it carries),
+ * and Chromium's own requests kept off the network (OFFLINE_ARGS):
  *
  *   import { findChromium, withPdfPrinter, documentPdfMeta } from '../publish/pdf.ts';
  *
@@ -49,6 +50,16 @@ import { escapeHtml } from '../report/trusted-html.ts';
 
 export const DEFAULT_CHROMIUM = '/usr/bin/chromium';
 
+/**
+ * Chromium off the network altogether, not only the pages: Chromium makes requests of its own
+ * whatever the page does (Debian's build, with --disable-background-networking and
+ * --disable-component-update, still asks update.googleapis.com and accounts.google.com, through
+ * the proxy of the environment when one is set). The printer only ever opens files, so it uses
+ * no proxy and resolves no host name: each such request fails inside Chromium, before any DNS
+ * query or connection. (Extra --disable-features would replace playwright-core's own list.)
+ */
+export const OFFLINE_ARGS = ['--no-proxy-server', '--host-resolver-rules=MAP * ~NOTFOUND'];
+
 export const CHROMIUM_ARGS = [
   '--headless',
   '--no-sandbox',
@@ -57,6 +68,7 @@ export const CHROMIUM_ARGS = [
   '--disable-component-update',
   '--disable-sync',
   '--no-first-run',
+  ...OFFLINE_ARGS,
 ];
 
 /** The Chromium binary to use, or null when there is none: CELLBASIS_CHROMIUM if set, else /usr/bin/chromium. */

@@ -3,7 +3,7 @@
  * and its sealed revisions into site/ (lib/publish/build.ts): all or nothing, the old site kept
  * on any error. Exit 1 with every located problem when a basis or sealed revision is wrong.
  */
-import { join, relative } from 'node:path';
+import { dirname, join, relative } from 'node:path';
 import type { Command } from '../command.ts';
 import { optionalString } from '../command.ts';
 import { listProjects } from '../../basis/projects.ts';
@@ -17,7 +17,7 @@ export const buildCommand: Command = {
   usage: 'build [--out DIR] [--html-only] [--quiet]',
   details:
     'Renders each projects/<id>/basis.yaml as its working draft, each sealed revision as its own page, and the\n' +
-    'portfolio index, into a fresh folder that replaces site/ only when everything was written.\n' +
+    'portfolio index, into a fresh folder beside site/; site/ (a link) is switched to it only when everything was written.\n' +
     'Pages are reproducible: the draft date is SOURCE_DATE_EPOCH when set, else the latest sign-off date.\n' +
     'Each draft is also printed to projects/<id>/document.pdf when Chromium is found (the build says so when\n' +
     'it is not). Results and PDFs of unchanged projects come from .cellbasis-cache/.',
@@ -32,8 +32,9 @@ export const buildCommand: Command = {
       throw new UserError('build: no design bases under projects/ here; create one with cellbasis new ID --technology TECH');
     }
     const out = optionalString(args, 'out');
+    const pauseAt = process.env.CELLBASIS_BUILD_PAUSE;
     // Eleventy and the PDF printer load only when a build runs.
-    const { buildSite } = await import('../../publish/build.ts');
+    const { buildSite, BUILD_STEPS } = await import('../../publish/build.ts');
     let report;
     try {
       report = await buildSite({
@@ -41,6 +42,7 @@ export const buildCommand: Command = {
         out: out === undefined ? join(io.cwd, 'site') : join(io.cwd, out),
         ...(args.values['html-only'] ? { pdf: false } : {}),
         onProgress: progressReporter(io, args.values.quiet === true),
+        ...(pauseAt && (BUILD_STEPS as readonly string[]).includes(pauseAt) ? { pauseAt, onPause: (step: string) => io.err(`cellbasis: build paused at ${step} (CELLBASIS_BUILD_PAUSE)\n`) } : {}),
       });
     } catch (error) {
       if (!(error instanceof SiteError)) throw error;
@@ -48,6 +50,10 @@ export const buildCommand: Command = {
       for (const line of [...error.errors, ...error.warnings]) io.err(`${line}\n`);
       throw new UserError(`build: ${error.errors.length} error${error.errors.length === 1 ? '' : 's'} in the projects; the site was not built and the previous site is left as it was`, EXIT_VALIDATION);
     }
+    const shown = (path: string) => relative(io.cwd, path) || '.';
+    const { removed, restored } = report.leftovers;
+    if (restored) io.err(`cellbasis: put back ${shown(report.out)} from ${shown(join(dirname(report.out), restored))}, where an interrupted build had moved it\n`);
+    for (const name of removed) io.err(`cellbasis: removed ${shown(join(dirname(report.out), name))}, left by an interrupted build\n`);
     for (const w of report.warnings) io.err(`${w}\n`);
     const pdfs = report.pdfs ? ` and ${report.pdfs} draft PDF${report.pdfs === 1 ? '' : 's'}` : '';
     io.out(`built ${report.documents} document page${report.documents === 1 ? '' : 's'}${pdfs} and the index into ${relative(io.cwd, report.out) || '.'}/\n`);

@@ -1,11 +1,12 @@
 /**
  * `cellbasis keygen NAME`: a new Ed25519 key pair for signing sealed revisions: NAME.key
  * (PKCS#8 PEM, readable by its owner only) and NAME.pub (SPKI PEM, to hand to auditors).
- * Refuses to overwrite either file; writes both or neither.
+ * Refuses to overwrite either file, and to write in a sealed folder; writes both or neither.
  */
 import { chmodSync, existsSync, unlinkSync, writeFileSync } from 'node:fs';
-import { resolve } from 'node:path';
+import { relative, resolve } from 'node:path';
 import type { Command } from '../command.ts';
+import { sealedFolderAt } from '../../archive/layout.ts';
 import { newKeyPair } from '../../archive/signature.ts';
 import { UserError } from '../../errors.ts';
 
@@ -25,6 +26,8 @@ export const keygenCommand: Command = {
     const keyPath = resolve(io.cwd, keyFile);
     const pubPath = resolve(io.cwd, pubFile);
     for (const display of [keyFile, pubFile]) {
+      const sealed = sealedFolderAt(io.cwd, resolve(io.cwd, display));
+      if (sealed) throw new UserError(`keygen: ${display} would be written in ${relative(io.cwd, sealed)}; only cellbasis seal writes there (choose another name)`);
       if (existsSync(resolve(io.cwd, display))) throw new UserError(`keygen: ${display} exists already; nothing written (choose another name)`);
     }
     const { privatePem, publicPem } = newKeyPair();
