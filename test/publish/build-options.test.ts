@@ -27,6 +27,15 @@ describe('cellbasis build options', () => {
     expect(readdirSync(dir).sort()).toEqual(['projects']);
   });
 
+  it('writes an absolute --out where it names, not under the working folder', async () => {
+    const dir = root();
+    const out = join(mkdtempSync(join(tmpdir(), 'cellbasis-build-out-')), 'public');
+    const r = await run(['build', '--out', out, '--html-only', '--quiet'], dir);
+    expect(r.code, r.err).toBe(0);
+    expect(existsSync(join(out, 'projects', 'p1', 'index.html'))).toBe(true);
+    expect(readdirSync(dir).filter((f) => !f.startsWith('.')).sort()).toEqual(['projects']);
+  });
+
   it('without Chromium: builds the HTML and says clearly that no PDF was printed', async () => {
     const dir = root();
     const before = process.env.CELLBASIS_CHROMIUM;

@@ -3,7 +3,7 @@
  * and its sealed revisions into site/ (lib/publish/build.ts): all or nothing, the old site kept
  * on any error. Exit 1 with every located problem when a basis or sealed revision is wrong.
  */
-import { dirname, join, relative } from 'node:path';
+import { dirname, join, relative, resolve } from 'node:path';
 import type { Command } from '../command.ts';
 import { optionalString } from '../command.ts';
 import { listProjects } from '../../basis/projects.ts';
@@ -39,7 +39,7 @@ export const buildCommand: Command = {
     try {
       report = await buildSite({
         root: io.cwd,
-        out: out === undefined ? join(io.cwd, 'site') : join(io.cwd, out),
+        out: out === undefined ? join(io.cwd, 'site') : resolve(io.cwd, out),
         ...(args.values['html-only'] ? { pdf: false } : {}),
         onProgress: progressReporter(io, args.values.quiet === true),
         ...(pauseAt && (BUILD_STEPS as readonly string[]).includes(pauseAt) ? { pauseAt, onPause: (step: string) => io.err(`cellbasis: build paused at ${step} (CELLBASIS_BUILD_PAUSE)\n`) } : {}),
