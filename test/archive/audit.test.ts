@@ -178,3 +178,17 @@ describeWithChromium('audit', () => {
     expect((await run(['audit', '../x'], cwd)).code).toBe(2);
   });
 });
+
+// Needs no Chromium: nothing is sealed. A mistyped id must not pass as a clean audit of nothing
+// (it did: "0 revisions checked", exit 0), so a script gating on the exit code would pass.
+it('refuses an id that names no project: exit 2, the id named, nothing reported as checked', async () => {
+  const cwd = workspace();
+  try {
+    const typo = await run(['audit', 'dmeo'], cwd);
+    expect(typo).toEqual({ code: 2, out: '', err: 'cellbasis: audit: projects/dmeo: no such project (no folder projects/dmeo/ here)\n' });
+    // The control: the project that does exist, with nothing sealed, is audited (exit 0).
+    expect(await run(['audit', PROJECT], cwd)).toMatchObject({ code: 0, out: 'projects/demo: no sealed revisions\n' });
+  } finally {
+    removeWorkspace(cwd);
+  }
+});

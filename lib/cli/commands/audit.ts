@@ -12,7 +12,7 @@ import { projectBasisPath, projectIdProblem } from '../../basis/projects.ts';
 import type { AuditLine } from '../../archive/audit.ts';
 import { SEALED_DIR } from '../../archive/layout.ts';
 import { publicKeyPem, readPublicKey } from '../../archive/signature.ts';
-import { EXIT_OK, EXIT_VALIDATION } from '../../errors.ts';
+import { EXIT_OK, EXIT_USAGE, EXIT_VALIDATION, UserError } from '../../errors.ts';
 
 /** Projects with a sealed folder, sorted. */
 function sealedProjects(cwd: string): string[] {
@@ -40,14 +40,18 @@ export const auditCommand: Command = {
   details:
     'Without ID, audits every project with sealed revisions. Prints PASS or FAIL per revision with the reasons below;\n' +
     'numbers count as equal within a relative 1e-12 (rounding between platforms), any larger difference fails.\n' +
-    'Exit code 0 when every revision passes, 1 when any fails. The audit only reads.',
+    'Exit code 0 when every revision passes, 1 when any fails, 2 when ID names no project here. The audit only reads.',
   positionals: [0, 1],
   options: [{ name: 'key', type: 'string', value: 'PUB', description: 'require every revision to be signed with this public key (PEM file)' }],
   async run(args, io) {
     const id = args.positionals[0];
     const keyPath = optionalString(args, 'key');
     const requireKey = keyPath ? publicKeyPem(readPublicKey(resolve(io.cwd, keyPath), keyPath)) : undefined;
-    if (id !== undefined) projectBasisPath(id, io.cwd);
+    if (id !== undefined) {
+      projectBasisPath(id, io.cwd);
+      // An audit of a mistyped id must not read as a clean audit: refuse it, as check and calc do.
+      if (!existsSync(join(io.cwd, 'projects', id))) throw new UserError(`audit: projects/${id}: no such project (no folder projects/${id}/ here)`, EXIT_USAGE);
+    }
     const projects = id !== undefined ? [id] : sealedProjects(io.cwd);
     let revisions = 0;
     let failed = 0;
