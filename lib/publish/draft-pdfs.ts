@@ -11,12 +11,13 @@ import type { DesignBasis } from '../basis/types.ts';
 import type { Results } from '../plant/results-schema.ts';
 import { CACHE_DIR } from '../plant/results-cache.ts';
 import { documentPdfMeta, withPdfPrinter, type PdfMeta } from './pdf.ts';
-import { draftDate } from './source-date.ts';
 
 export interface DraftPage {
   pagePath: string;
   basis: DesignBasis;
   results: Results;
+  /** The draft's date as its page shows it (lib/publish/source-date.ts), null when undated. */
+  date: string | null;
 }
 
 function keyOf(html: Buffer, meta: PdfMeta): string {
@@ -29,8 +30,8 @@ export async function printDrafts(root: string, site: string, drafts: DraftPage[
   mkdirSync(cacheDir, { recursive: true });
   const work = drafts.map((d) => {
     const page = join(site, d.pagePath);
-    // The draft's own date (never the clock); an undated draft prints as of 1970-01-01.
-    const meta = documentPdfMeta({ basis: d.basis, results: d.results }, { date: new Date(`${draftDate(d.basis) ?? '1970-01-01'}T00:00:00Z`), draft: true });
+    // The date the page shows (never the clock); an undated draft prints as of 1970-01-01.
+    const meta = documentPdfMeta({ basis: d.basis, results: d.results }, { date: new Date(`${d.date ?? '1970-01-01'}T00:00:00Z`), draft: true });
     return { page, target: join(dirname(page), 'document.pdf'), meta, cached: join(cacheDir, `${keyOf(readFileSync(page), meta)}.pdf`) };
   });
   let done = 0;

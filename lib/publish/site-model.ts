@@ -45,7 +45,7 @@ export interface SiteModel {
   /** Warnings of the bases and the calculation, as file:line:col: warning: ... lines. */
   warnings: string[];
   /** Each working draft's page with its basis and results (to print it). */
-  drafts: { id: string; pagePath: string; basis: DesignBasis; results: Results }[];
+  drafts: { id: string; pagePath: string; basis: DesignBasis; results: Results; date: string | null }[];
 }
 
 export interface SiteOptions {
@@ -151,7 +151,7 @@ export function loadProjectPages(loader: ProjectLoader, id: string, problems: Si
   const last = sealed[sealed.length - 1];
   return {
     pages,
-    draft: { id, pagePath: draftPath, basis: loaded.basis, results },
+    draft: { id, pagePath: draftPath, basis: loaded.basis, results, date: draft.date },
     portfolio: {
       id,
       basis: loaded.basis,

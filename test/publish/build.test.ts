@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildSite } from '../../lib/publish/build.ts';
 import { loadSiteModel } from '../../lib/publish/site-model.ts';
 import { renderView } from '../../lib/publish/render.ts';
-import { DRAFT_PDF_STATUS, findChromium } from '../../lib/publish/pdf.ts';
+import { DRAFT_PDF_STATUS, findChromium, readPdfProperties } from '../../lib/publish/pdf.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
 import { outline } from '../../lib/report/outline.ts';
 import { compact, pageTexts } from '../archive/pdf-inspect.ts';
@@ -55,6 +55,21 @@ describe('a build of the demo projects', () => {
       const pdf = readFileSync(join(site, 'projects', id, 'document.pdf'));
       expect(pdf.subarray(0, 5).toString('latin1'), id).toBe('%PDF-');
       expect(readFileSync(join(site, 'projects', id, 'index.html'), 'utf8'), id).toContain('href="document.pdf">This draft as PDF (not issued)</a>');
+    }
+  });
+
+  it('dates each draft PDF as its page is dated, from the env the build was given, not the process environment', async () => {
+    if (findChromium() === null && !process.env.CI) {
+      console.warn('SKIPPED draft PDF date check: no Chromium at /usr/bin/chromium (apt-get install -y chromium); CI runs it');
+      return;
+    }
+    // The build was given SOURCE_DATE_EPOCH = 2026-01-01 in options.env only; the demo bases'
+    // sign-off dates differ from it, so a printer reading process.env would date them otherwise.
+    expect(process.env.SOURCE_DATE_EPOCH).toBeUndefined();
+    for (const id of DEMO_PROJECTS) {
+      const properties = await readPdfProperties(readFileSync(join(site, 'projects', id, 'document.pdf')));
+      expect(properties.creationDate?.toISOString(), id).toBe('2026-01-01T00:00:00.000Z');
+      expect(readFileSync(join(site, 'projects', id, 'index.html'), 'utf8'), id).toContain('2026-01-01');
     }
   });
 
