@@ -38,6 +38,7 @@ import { calculateAll, type CalculationJob, type CalculationOutcome } from '../p
 import { ResultsCache } from '../plant/results-cache.ts';
 import { ChromiumMissingError, chromiumMissingMessage, findChromium } from './pdf.ts';
 import { printDrafts } from './draft-pdfs.ts';
+import { removeCacheLeftovers } from './cache-leftovers.ts';
 import { UserError, EXIT_INTERNAL } from '../errors.ts';
 import { setBuildContext } from './build-context.ts';
 import { createEleventy } from './eleventy-api.ts';
@@ -67,6 +68,8 @@ export interface Leftovers {
   removed: string[];
   /** Name of the moved-aside site renamed back to `out`, or null. */
   restored: string | null;
+  /** Temporary cache files of killed builds removed, relative to the root (lib/publish/cache-leftovers.ts). */
+  cache: string[];
 }
 
 /** The names beside `out` of one build: `<out>.<pid>-<random>.<kind>`. */
@@ -99,7 +102,7 @@ function linkedName(out: string): string | null {
  * process), never the folder `out` links to; first, where `out` is missing, puts back the site a
  * killed build had moved aside.
  */
-function removeLeftovers(out: string): Leftovers {
+function removeLeftovers(out: string): Omit<Leftovers, 'cache'> {
   const stale = buildSiblings(out).filter((s) => s.pid === process.pid || !processAlive(s.pid));
   const aside = lstatSync(out, { throwIfNoEntry: false }) ? undefined : stale.find((s) => s.kind === 'old.tmp');
   if (aside) renameSync(join(dirname(out), aside.name), out);
@@ -191,7 +194,7 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
   const root = resolve(options.root);
   const out = resolve(options.out ?? join(root, 'site'));
   checkOutput(root, out);
-  const leftovers = existsSync(dirname(out)) ? removeLeftovers(out) : { removed: [], restored: null };
+  const leftovers = { ...(existsSync(dirname(out)) ? removeLeftovers(out) : { removed: [], restored: null }), cache: removeCacheLeftovers(root) };
   const chromium = findChromium();
   const printing = options.pdf ?? chromium !== null;
   if (printing && chromium === null) throw new ChromiumMissingError();

@@ -54,6 +54,8 @@ export const buildCommand: Command = {
     const { removed, restored } = report.leftovers;
     if (restored) io.err(`cellbasis: put back ${shown(report.out)} from ${shown(join(dirname(report.out), restored))}, where an interrupted build had moved it\n`);
     for (const name of removed) io.err(`cellbasis: removed ${shown(join(dirname(report.out), name))}, left by an interrupted build\n`);
+    const temps = report.leftovers.cache.length;
+    if (temps) io.err(`cellbasis: removed ${temps} temporary file${temps === 1 ? '' : 's'} under .cellbasis-cache/, left by an interrupted build\n`);
     for (const w of report.warnings) io.err(`${w}\n`);
     const pdfs = report.pdfs ? ` and ${report.pdfs} draft PDF${report.pdfs === 1 ? '' : 's'}` : '';
     io.out(`built ${report.documents} document page${report.documents === 1 ? '' : 's'}${pdfs} and the index into ${relative(io.cwd, report.out) || '.'}/\n`);
