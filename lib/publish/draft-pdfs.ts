@@ -1,16 +1,21 @@
 /**
  * The working drafts printed to PDF beside their pages (projects/<id>/document.pdf), through one
- * Chromium (lib/publish/pdf.ts). A PDF depends only on the page's bytes and its print metadata,
- * so it is cached under .cellbasis-cache/pdf/ by SHA-256 of both: an unchanged draft is copied,
- * not printed again.
+ * Chromium (lib/publish/pdf.ts). A PDF depends on the page's bytes, its print metadata, the
+ * site's assets the page loads (stylesheets, scripts, fonts), the library (the printer's
+ * margins, bands and finishing are code) and the Chromium that prints it; it is cached under
+ * .cellbasis-cache/pdf/ by SHA-256 of all of them, so an unchanged draft is copied, not printed
+ * again, and a changed stylesheet or a new Chromium prints every draft anew.
  */
+import { execFileSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
-import { copyFileSync, existsSync, mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
+import { copyFileSync, existsSync, mkdirSync, readdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import type { DesignBasis } from '../basis/types.ts';
 import type { Results } from '../plant/results-schema.ts';
 import { CACHE_DIR } from '../plant/results-cache.ts';
-import { documentPdfMeta, withPdfPrinter, type PdfMeta } from './pdf.ts';
+import { libraryFingerprint } from '../plant/fingerprint.ts';
+import { documentPdfMeta, findChromium, withPdfPrinter, type PdfMeta } from './pdf.ts';
+import { ASSET_DIR } from './site-assets.ts';
 
 export interface DraftPage {
   pagePath: string;
@@ -20,19 +25,45 @@ export interface DraftPage {
   date: string | null;
 }
 
-function keyOf(html: Buffer, meta: PdfMeta): string {
+function keyOf(inputs: string, html: Buffer, meta: PdfMeta): string {
   const { attachments: _attachments, ...rest } = meta as PdfMeta & { attachments?: unknown };
-  return createHash('sha256').update(html).update('\0').update(JSON.stringify(rest, (_k, v) => (v instanceof Date ? v.toISOString() : v))).digest('hex');
+  return createHash('sha256').update(inputs).update('\0').update(html).update('\0').update(JSON.stringify(rest, (_k, v) => (v instanceof Date ? v.toISOString() : v))).digest('hex');
+}
+
+/** Every file under `dir`, by path relative to it, sorted. */
+function filesUnder(dir: string, prefix = ''): string[] {
+  return readdirSync(join(dir, prefix), { withFileTypes: true })
+    .flatMap((e) => (e.isDirectory() ? filesUnder(dir, join(prefix, e.name)) : [join(prefix, e.name)]))
+    .sort();
+}
+
+/** The Chromium's own account of its version (`chromium --version`), or its path when it gives none. */
+function chromiumIdentity(): string {
+  const path = findChromium() ?? '';
+  try {
+    return execFileSync(path, ['--version'], { encoding: 'utf8', stdio: ['ignore', 'pipe', 'ignore'], timeout: 20_000 }).trim() || path;
+  } catch {
+    return path;
+  }
+}
+
+/** A digest of what every draft's PDF depends on besides its page and metadata. */
+export function printInputs(site: string): string {
+  const hash = createHash('sha256').update(`library ${libraryFingerprint()}\nchromium ${chromiumIdentity()}\n`);
+  const assets = join(site, ASSET_DIR);
+  for (const file of existsSync(assets) ? filesUnder(assets) : []) hash.update(`${file}\n`).update(readFileSync(join(assets, file))).update('\n');
+  return hash.digest('hex');
 }
 
 export async function printDrafts(root: string, site: string, drafts: DraftPage[], onProgress?: (done: number, total: number) => void): Promise<void> {
   const cacheDir = join(root, CACHE_DIR, 'pdf');
   mkdirSync(cacheDir, { recursive: true });
+  const inputs = printInputs(site);
   const work = drafts.map((d) => {
     const page = join(site, d.pagePath);
     // The date the page shows (never the clock); an undated draft prints as of 1970-01-01.
     const meta = documentPdfMeta({ basis: d.basis, results: d.results }, { date: new Date(`${d.date ?? '1970-01-01'}T00:00:00Z`), draft: true });
-    return { page, target: join(dirname(page), 'document.pdf'), meta, cached: join(cacheDir, `${keyOf(readFileSync(page), meta)}.pdf`) };
+    return { page, target: join(dirname(page), 'document.pdf'), meta, cached: join(cacheDir, `${keyOf(inputs, readFileSync(page), meta)}.pdf`) };
   });
   let done = 0;
   const report = () => onProgress?.(++done, work.length);
