@@ -2,7 +2,7 @@
  * Reading back what the tests check in a PDF, with pdf-lib only (CI installs Chromium but no
  * PDF tools): the document properties, the embedded files, and the text drawn on each page.
  *
- * The text is read from each page's content stream: Chromium (Skia) draws text with `Tj` and
+ * The text is read from each page's content stream and the forms it draws: Chromium (Skia) draws text with `Tj` and
  * `TJ` operators on two-byte glyph ids of subset fonts, and each font carries a ToUnicode CMap
  * (bfchar and bfrange entries) from glyph ids back to characters. That is all Skia writes, so
  * decoding those operators through those maps gives the text of every page, the header and
@@ -104,32 +104,65 @@ function decodeHex(hex: string, map: Map<string, string> | undefined): string {
   return (hex.replace(/\s+/g, '').toUpperCase().match(/.{4}/g) ?? []).map((g) => map?.get(g) ?? '').join('');
 }
 
-/** The text drawn on each page, in drawing order. */
+/** The ToUnicode map of each font of a resource dictionary, by resource name. */
+function fontMaps(resources: PDFDict | undefined): Map<string, Map<string, string>> {
+  const fonts = new Map<string, Map<string, string>>();
+  const fontDict = resources?.lookupMaybe(PDFName.of('Font'), PDFDict);
+  for (const key of fontDict?.keys() ?? []) {
+    const font = fontDict!.lookup(key, PDFDict);
+    const toUnicode = asStream(font.lookup(PDFName.of('ToUnicode')));
+    if (toUnicode) fonts.set(key.asString(), parseCMap(Buffer.from(streamBytes(toUnicode)).toString('latin1')));
+  }
+  return fonts;
+}
+
+/**
+ * The text a content stream draws, in drawing order, with the text of the form XObjects it
+ * draws (`/Name Do`) put in where they are drawn: Chromium puts some of a page's content into
+ * forms (part of a page that holds a chart, for one), each with its own fonts.
+ */
+function drawnText(pdf: PDFDocument, content: string, resources: PDFDict | undefined, depth = 0): string {
+  const fonts = fontMaps(resources);
+  const forms = resources?.lookupMaybe(PDFName.of('XObject'), PDFDict);
+  let font: Map<string, string> | undefined;
+  let out = '';
+  for (const m of content.matchAll(/(\/[^\s/<>[\]()]+)\s+-?[\d.]+\s+Tf|<([0-9A-Fa-f\s]*)>\s*Tj|\[((?:[^\]])*)\]\s*TJ|(\/[^\s/<>[\]()]+)\s+Do\b/g)) {
+    if (m[1]) font = fonts.get(m[1]);
+    else if (m[2] !== undefined) out += decodeHex(m[2], font);
+    else if (m[3] !== undefined) for (const piece of m[3].matchAll(/<([0-9A-Fa-f\s]*)>/g)) out += decodeHex(piece[1]!, font);
+    else if (m[4] && forms && depth < 8) {
+      const form = asStream(forms.lookup(PDFName.of(m[4].slice(1))));
+      if (form?.dict.get(PDFName.of('Subtype'))?.toString() !== '/Form') continue;
+      const own = form.dict.lookupMaybe(PDFName.of('Resources'), PDFDict) ?? resources;
+      out += drawnText(pdf, Buffer.from(form.dict.has(PDFName.of('Filter')) ? streamBytes(form) : form.contents).toString('latin1'), own, depth + 1);
+    }
+  }
+  return out;
+}
+
+/** The text drawn on each page, in drawing order (forms included). */
 export async function pageTexts(bytes: Uint8Array): Promise<string[]> {
   const pdf = await PDFDocument.load(bytes, { updateMetadata: false });
   return pdf.getPages().map((page) => {
-    const fonts = new Map<string, Map<string, string>>();
-    const fontDict = page.node.Resources()?.lookupMaybe(PDFName.of('Font'), PDFDict);
-    for (const key of fontDict?.keys() ?? []) {
-      const font = fontDict!.lookup(key, PDFDict);
-      const toUnicode = asStream(font.lookup(PDFName.of('ToUnicode')));
-      if (toUnicode) fonts.set(key.asString(), parseCMap(Buffer.from(streamBytes(toUnicode)).toString('latin1')));
-    }
     const contents = page.node.lookup(PDFName.of('Contents'));
     const streams = (contents instanceof PDFArray ? contents.asArray().map((ref) => asStream(pdf.context.lookup(ref))) : [asStream(contents)]).filter((x) => x !== undefined);
     const content = streams.map((s) => Buffer.from(s.dict.has(PDFName.of('Filter')) ? streamBytes(s) : s.contents).toString('latin1')).join('\n');
-    let font: Map<string, string> | undefined;
-    let out = '';
-    for (const m of content.matchAll(/(\/[^\s/<>[\]()]+)\s+[\d.]+\s+Tf|<([0-9A-Fa-f\s]*)>\s*Tj|\[((?:[^\]])*)\]\s*TJ/g)) {
-      if (m[1]) font = fonts.get(m[1]);
-      else if (m[2] !== undefined) out += decodeHex(m[2], font);
-      else if (m[3] !== undefined) for (const piece of m[3].matchAll(/<([0-9A-Fa-f\s]*)>/g)) out += decodeHex(piece[1]!, font);
-    }
-    return out;
+    return drawnText(pdf, content, page.node.Resources());
   });
 }
 
 /** Text without any white space, for finding words whatever the spacing between text runs. */
 export function compact(textValue: string): string {
   return textValue.replace(/\s+/g, '');
+}
+
+/** Width and height in pixels of every raster image in the PDF, wherever it is drawn (pages, forms, masks). */
+export async function imageSizes(bytes: Uint8Array): Promise<{ width: number; height: number }[]> {
+  const pdf = await PDFDocument.load(bytes, { updateMetadata: false });
+  return pdf.context.enumerateIndirectObjects().flatMap(([, object]) => {
+    const stream = asStream(object);
+    if (stream?.dict.get(PDFName.of('Subtype'))?.toString() !== '/Image') return [];
+    const size = (key: string) => Number(stream.dict.get(PDFName.of(key))?.toString());
+    return [{ width: size('Width'), height: size('Height') }];
+  });
 }

@@ -35,7 +35,12 @@ interface PageReport {
   overflowing: string[];
   /** The tick labels of every numeric axis, as Chart.js drew them. */
   ticks: string[];
+  /** Printed: the document's width and the outermost elements wider than the A4 text column. */
+  printWidth: { scrollWidth: number; column: number; wider: string[] };
 }
+
+/** The text column of A4 paper less the printer's 16 mm side margins (lib/publish/pdf.ts), CSS px; Letter's is wider. */
+const A4_COLUMN_PX = Math.round(((210 - 2 * 16) * 96) / 25.4);
 
 describe.skipIf(!available && !process.env.CI)('the built site in Chromium, from disk', () => {
   let root: string;
@@ -61,7 +66,7 @@ describe.skipIf(!available && !process.env.CI)('the built site in Chromium, from
   async function visit(b: Browser, file: string, path: string): Promise<PageReport> {
     const context = await b.newContext({ viewport: { width: 1000, height: 1400 }, deviceScaleFactor: 1 });
     const page = await context.newPage();
-    const report: PageReport = { consoleErrors: [], failed: [], foreign: [], katexErrors: 0, ready: undefined, sections: [], canvases: [], hiddenInPrint: 0, overflowing: [], ticks: [] };
+    const report: PageReport = { consoleErrors: [], failed: [], foreign: [], katexErrors: 0, ready: undefined, sections: [], canvases: [], hiddenInPrint: 0, overflowing: [], ticks: [], printWidth: { scrollWidth: 0, column: 0, wider: [] } };
     await page.route('**/*', (route) => {
       const url = route.request().url();
       if (url.startsWith('file://')) return route.continue();
@@ -101,6 +106,17 @@ describe.skipIf(!available && !process.env.CI)('the built site in Chromium, from
     await page.screenshot({ path: join(ARTIFACTS, `${path.replace(/\/index\.html$|\.html$/, '').replace(/\//g, '_') || 'index'}.png`), fullPage: true });
     await page.emulateMedia({ media: 'print' });
     report.hiddenInPrint = await page.evaluate(() => [...document.querySelectorAll('details table')].filter((t) => t.getBoundingClientRect().height === 0).length);
+    // As the printer lays it out: print media, the column's width, the data tables open (beforeprint opens them).
+    await page.setViewportSize({ width: A4_COLUMN_PX, height: 1400 });
+    report.printWidth = await page.evaluate(`(async () => {
+      document.querySelectorAll('details').forEach((d) => { d.open = true; });
+      await document.fonts.ready;
+      const column = document.documentElement.clientWidth;
+      const wider = [...document.querySelectorAll('body *')]
+        .filter((e) => !e.closest('.katex-mathml') && e.getBoundingClientRect().right > column + 1 && e.parentElement.getBoundingClientRect().right <= column + 1)
+        .map((e) => e.tagName.toLowerCase() + '.' + [...e.classList].join('.') + ' in ' + (e.closest('section[id]')?.id ?? '?') + ': ' + Math.round(e.getBoundingClientRect().right) + ' px');
+      return { scrollWidth: document.documentElement.scrollWidth, column, wider };
+    })()`);
     await context.close();
     return report;
   }
@@ -156,6 +172,16 @@ describe.skipIf(!available && !process.env.CI)('the built site in Chromium, from
 
   it('marks every page ready for the PDF printer', () => {
     for (const [path, r] of reports) expect(r.ready, path).toBe('true');
+  });
+
+  it('prints at full size: nothing is wider than the text column of A4, which would make Chromium shrink the whole document', () => {
+    // One data table of eleven columns once made every page of a document print at 65 %.
+    for (const [path, r] of reports) {
+      if (path === 'index.html') continue;
+      expect(r.printWidth.wider, path).toEqual([]);
+      expect(r.printWidth.scrollWidth, path).toBeLessThanOrEqual(r.printWidth.column);
+      expect(r.printWidth.column, path).toBe(A4_COLUMN_PX);
+    }
   });
 
   it('shows the data tables of the charts when printed', () => {

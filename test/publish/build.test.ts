@@ -10,7 +10,8 @@ import { renderView } from '../../lib/publish/render.ts';
 import { DRAFT_PDF_STATUS, findChromium, readPdfProperties } from '../../lib/publish/pdf.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
 import { outline } from '../../lib/report/outline.ts';
-import { compact, pageTexts } from '../archive/pdf-inspect.ts';
+import { compact, imageSizes, pageTexts } from '../archive/pdf-inspect.ts';
+import type { ChartSpec } from '../../lib/report/charts/spec.ts';
 import { run } from '../cli/run.ts';
 import { basisFile, DEMO_PROJECTS, demoRoot, EPOCH, htmlPages, sealedDemoRoot, SOFC, treeDigest } from './helpers.ts';
 
@@ -72,6 +73,27 @@ describe('a build of the demo projects', () => {
       expect(readFileSync(join(site, 'projects', id, 'index.html'), 'utf8'), id).toContain('2026-01-01');
     }
   });
+
+  it('prints the charts as vectors: no raster image bigger than a legend swatch, and every axis title, legend and bar label is text in the PDF', async () => {
+    if (findChromium() === null && !process.env.CI) {
+      console.warn('SKIPPED draft PDF chart check: no Chromium at /usr/bin/chromium (apt-get install -y chromium); CI runs it');
+      return;
+    }
+    // templates/assets/charts.js draws each chart again in beforeprint, which Chromium records as
+    // vector operations. Drawn before, a chart was a 1280 × 600 bitmap and none of its text was text.
+    for (const id of DEMO_PROJECTS) {
+      const pdf = readFileSync(join(site, 'projects', id, 'document.pdf'));
+      for (const image of await imageSizes(pdf)) expect(Math.max(image.width, image.height), `${id}: an image of ${image.width} × ${image.height} px`).toBeLessThanOrEqual(64);
+      const text = compact((await pageTexts(pdf)).join(''));
+      const html = readFileSync(join(site, 'projects', id, 'index.html'), 'utf8');
+      const specs = [...html.matchAll(/<script type="application\/json" class="chart-spec"[^>]*>([^<]*)<\/script>/g)].map((m) => JSON.parse(m[1]!) as ChartSpec);
+      expect(specs.length, id).toBeGreaterThanOrEqual(6);
+      for (const spec of specs) {
+        const labels = spec.kind === 'line' ? [spec.x.title, spec.y.title, ...(spec.y2 ? [spec.y2.title] : []), ...spec.series.map((s) => s.label)] : [spec.x.title, spec.lowLabel, spec.highLabel, ...spec.categories];
+        for (const label of labels) expect(text.includes(compact(label)), `${id}: "${label}" of a ${spec.kind} chart is text in the PDF`).toBe(true);
+      }
+    }
+  }, 60_000);
 
   it('prints a draft as "draft, not issued" on every page, each major section on a new page, and no page all but empty', async () => {
     if (findChromium() === null && !process.env.CI) {
