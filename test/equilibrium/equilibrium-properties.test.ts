@@ -59,15 +59,23 @@ describe('equilibrium properties over random feeds', () => {
         const a = equilibrate({ temperatureK: t, pressureBar: p, feed });
         const scaled = Object.fromEntries(Object.entries(feed).map(([k, v]) => [k, v * scale]));
         const b = equilibrate({ temperatureK: t, pressureBar: p, feed: scaled });
-        // Species above 1e-6 to 1e-7 relative; every species to 1e-12 in mole fraction. (Where a
-        // feed fixes an element ratio more finely than double precision, e.g. water with 1e-30 of
-        // extra hydrogen, the iteration stops at the rounding floor, weighted corrections < 1e-9.)
+        // Every species to 1e-12 in mole fraction, and to 1e-7 relative where that is the looser
+        // bound (species above 1e-5). A minor species can hang on a difference of element
+        // amounts that the balance resolves only to ~1e-13 (lib/equilibrium/gibbs-minimiser.ts,
+        // ELEMENT_TOLERANCE): in CO2 with 1e-8 of H2 and 4e-13 of CO, CO (1.3e-6) is H2O plus
+        // the carbon excess, and came out 1.06e-7 apart relative, 1.4e-13 absolute, on rescaling.
+        // (Where a feed fixes an element ratio more finely than double precision, e.g. water with
+        // 1e-30 of extra hydrogen, the iteration stops at the rounding floor, weighted corrections < 1e-9.)
         for (const [k, v] of Object.entries(a.moleFractions)) {
-          if (v > 1e-6) expect(Math.abs(b.moleFractions[k]! / v - 1)).toBeLessThan(1e-7);
+          if (v > 1e-6) expect(Math.abs(b.moleFractions[k]! / v - 1)).toBeLessThan(Math.max(1e-7, 1e-12 / v));
           expect(Math.abs(b.moleFractions[k]! - v)).toBeLessThan(1e-12);
         }
       }),
-      { numRuns: 150 },
+      {
+        numRuns: 150,
+        // The case found at random (seed -56761692) that sets the relative bound above, kept.
+        examples: [[{ H2: 1.0000000000000004e-8, H2O: 0, CO: 3.9217023725668376e-13, CO2: 0.007565969619989505, CH4: 0, N2: 0, NH3: 1e-30, C2H6: 1e-30, Ar: 0, O2: 1e-30 }, 534.3880472496329, 3.033588172396111, 0.001]],
+      },
     );
   });
 });
