@@ -1,8 +1,8 @@
 /**
  * Site benchmarks on synthetic projects: the full HTML build (cold: empty caches; warm: results
  * from the cache), a bare Eleventy site of the same number of trivial pages built in the same run
- * (the yardstick of the 1.5× target), PDF printing per document (one browser, and two browsers in
- * parallel), the time from saving a changed basis to its rebuilt page under `cellbasis serve`,
+ * (the yardstick of the 1.5× target), PDF printing per document (one browser, and two side by
+ * side as the build prints), the time from saving a changed basis to its rebuilt page under `cellbasis serve`,
  * and the peak memory (RSS) of a full build, measured in a child process.
  */
 import { spawn } from 'node:child_process';
@@ -15,6 +15,7 @@ import { createEleventy } from '../lib/publish/eleventy-api.ts';
 import { buildSite } from '../lib/publish/build.ts';
 import { findChromium, withPdfPrinter, documentPdfMeta } from '../lib/publish/pdf.ts';
 import { loadSiteModel } from '../lib/publish/site-model.ts';
+import { PRINT_LANES } from '../lib/publish/draft-pdfs.ts';
 import { serveSite } from '../lib/publish/serve.ts';
 import type { Row } from './measure.ts';
 
@@ -106,10 +107,9 @@ async function pdfTimes(root: string, count: number): Promise<{ one: number; two
   const job = (printer: Parameters<Parameters<typeof withPdfPrinter>[0]>[0], d: (typeof drafts)[number]) =>
     printer.print(join(site, d.pagePath), documentPdfMeta({ basis: d.basis, results: d.results }, { date: new Date('2026-11-30T00:00:00Z') }));
   const one = await timed(() => withPdfPrinter(async (p) => { for (const d of drafts) await job(p, d); }, { pages: 1 }));
-  const half = Math.ceil(drafts.length / 2);
-  const two = await timed(() =>
-    Promise.all([drafts.slice(0, half), drafts.slice(half)].map((part) => withPdfPrinter(async (p) => { for (const d of part) await job(p, d); }, { pages: 1 }))),
-  );
+  // As the build prints (lib/publish/draft-pdfs.ts): PRINT_LANES Chromiums, each every lanes-th draft.
+  const lanes = Array.from({ length: PRINT_LANES }, (_, lane) => drafts.filter((_d, i) => i % PRINT_LANES === lane));
+  const two = await timed(() => Promise.all(lanes.map((part) => withPdfPrinter(async (p) => { for (const d of part) await job(p, d); }, { pages: 1 }))));
   return { one: one / drafts.length, two: two / drafts.length };
 }
 
@@ -136,7 +136,7 @@ export async function benchSite(counts: number[]): Promise<Row[]> {
       if (findChromium()) {
         const { one, two } = await pdfTimes(root, Math.min(n, 6));
         rows.push({ section, measure: 'PDF per document, one browser reused', value: seconds(one), target: '≤ 1.5 s', verdict: one <= 1500 ? 'met' : 'MISSED' });
-        rows.push({ section, measure: 'PDF per document, two browsers in parallel', value: seconds(two), target: '≤ 1.5 s', verdict: two <= 1500 ? 'met' : 'MISSED' });
+        rows.push({ section, measure: `PDF per document, ${PRINT_LANES} Chromiums side by side (as the build prints)`, value: seconds(two), target: '≤ 1.5 s', verdict: two <= 1500 ? 'met' : 'MISSED' });
       } else {
         rows.push({ section, measure: 'PDF per document', value: 'not measured: no Chromium' });
       }
