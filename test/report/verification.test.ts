@@ -22,4 +22,9 @@ describe('the verification table', () => {
     expect(row('TH-01')[6]).toContain('H₂O ideal-gas table');
     for (const r of section.table.rows) for (const cell of r.cells.slice(1, 4)) expect(cell, r.cells[0]).not.toMatch(/\^|_/);
   });
+
+  it('keeps the tolerance whole: "(±" and its number are joined by a no-break space, so a wrapped column never ends a line on ±', () => {
+    for (const r of section.table.rows) expect(r.cells[4], r.cells[0]).toMatch(/ \(±\u00a0[^ ]/);
+    expect(row('TH-01')[4]).toMatch(/^0\.\d+ \(±\u00a00\.050\)$/); // TH-01's tolerance is 0.05 kJ/mol (reference-checks.yaml)
+  });
 });

@@ -32,7 +32,8 @@ export function verificationSection(checks: readonly CheckResult[], toolVersion:
       `${formatNumber(c.computed, 6)}${unit(c.check.unit)}`,
       // As published: no trailing zeros the publication does not give (1.17 V, not 1.17000 V).
       `${formatTrimmed(c.check.expected, 6)}${unit(c.check.unit)}`,
-      `${formatNumber(c.deviation, 2)} (± ${formatNumber(c.check.tolerance, 2)})`,
+      // A no-break space keeps ± with its number where the column wraps (print).
+      `${formatNumber(c.deviation, 2)} (±\u00a0${formatNumber(c.check.tolerance, 2)})`,
       c.pass ? 'pass' : 'FAIL',
       `${speciesText(c.check.source)}${c.check.memory ? ' (quoted from memory)' : ''}`,
     ],
