@@ -208,11 +208,22 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
     await pause(options, 'temp-created');
     // Eleventy keeps every page it renders until its run ends; a run per PAGES_PER_RUN pages
     // bounds the memory of a large site (500 documents of about 0.7 MB each).
+    // Progress counts each page as its view model is made, just before Nunjucks renders it.
+    let viewed = 0;
+    const counted = model.pages.map((page) => ({
+      ...page,
+      view: () => {
+        const view = page.view();
+        viewed = Math.min(viewed + 1, model.pages.length);
+        options.onProgress?.('render', viewed, model.pages.length);
+        return view;
+      },
+    }));
     for (let start = 0; start === 0 || start < model.pages.length; start += PAGES_PER_RUN) {
-      setBuildContext({ root, output: fresh, mode: 'build', model: { ...model, pages: model.pages.slice(start, start + PAGES_PER_RUN) } });
+      setBuildContext({ root, output: fresh, mode: 'build', model: { ...model, pages: counted.slice(start, start + PAGES_PER_RUN) } });
       await runEleventy(fresh);
-      options.onProgress?.('render', Math.min(start + PAGES_PER_RUN, model.pages.length), model.pages.length);
     }
+    if (viewed < model.pages.length || model.pages.length === 0) options.onProgress?.('render', model.pages.length, model.pages.length);
     for (const page of [...model.pages.map((p) => p.pagePath), 'index.html']) {
       if (!existsSync(join(fresh, page))) throw new UserError(`the build did not write ${page}`, EXIT_INTERNAL);
     }

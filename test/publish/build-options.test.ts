@@ -61,4 +61,20 @@ describe('cellbasis build options', () => {
     const again = await run(['build', '--html-only'], dir);
     expect(again.out).toBe(r.out);
   });
+
+  it('reports rendering page by page, not once at the end of a run of Eleventy', async () => {
+    // Rendering is the longest step of an HTML build; it used to report only after each run of
+    // 100 pages, so a build of 100 showed "render: 100/100 (0.0 s)" and nothing before.
+    const dir = root();
+    for (let i = 2; i <= 8; i++) {
+      mkdirSync(join(dir, 'projects', `p${i}`));
+      writeFileSync(join(dir, 'projects', `p${i}`, 'basis.yaml'), renderScaffold('pem', 'power', `p${i}`, '2026-11-30'));
+    }
+    const r = await run(['build', '--html-only'], dir);
+    expect(r.code, r.err).toBe(0);
+    const render = r.err.split('\n').filter((l) => l.startsWith('render: '));
+    expect(render[0]).toMatch(/^render: 1\/8 \(/);
+    expect(render.at(-1)).toMatch(/^render: 8\/8 \(\d+\.\d s\)$/);
+    expect(render.length).toBeGreaterThanOrEqual(3);
+  });
 });
