@@ -1,7 +1,7 @@
 // cellbasis build's options and refusals: an output folder that would replace projects/ or the
 // working folder is refused before anything is written; without Chromium the build says so and
 // writes HTML; --html-only prints nothing; a second build takes results from the cache.
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -51,6 +51,33 @@ describe('cellbasis build options', () => {
       else process.env.CELLBASIS_CHROMIUM = before;
     }
   });
+
+  it('a Chromium that will not start fails the build with one clear message (exit 1) and leaves the previous site as it was', async () => {
+    const dir = root();
+    for (let i = 2; i <= 3; i++) {
+      mkdirSync(join(dir, 'projects', `p${i}`));
+      writeFileSync(join(dir, 'projects', `p${i}`, 'basis.yaml'), renderScaffold('pem', 'power', `p${i}`, '2026-11-30'));
+    }
+    expect((await run(['build', '--html-only', '--quiet'], dir)).code).toBe(0);
+    const before = readdirSync(join(dir, 'site', 'projects')).sort();
+    const page = readFileSync(join(dir, 'site', 'projects', 'p1', 'index.html'));
+    const fake = join(dir, 'not-a-browser.sh');
+    writeFileSync(fake, '#!/bin/sh\necho "this is not Chromium" >&2\nexit 3\n', { mode: 0o755 });
+    const saved = process.env.CELLBASIS_CHROMIUM;
+    process.env.CELLBASIS_CHROMIUM = fake;
+    try {
+      // Three drafts to print: both print lanes start a Chromium, and both fail.
+      const r = await run(['build', '--quiet'], dir);
+      expect(r.code).toBe(1);
+      expect(r.err.trim().split('\n')).toEqual([expect.stringMatching(/^cellbasis: pdf: Chromium \(.*not-a-browser\.sh\) did not start: /)]);
+    } finally {
+      if (saved === undefined) delete process.env.CELLBASIS_CHROMIUM;
+      else process.env.CELLBASIS_CHROMIUM = saved;
+    }
+    expect(readdirSync(join(dir, 'site', 'projects')).sort()).toEqual(before);
+    expect(readFileSync(join(dir, 'site', 'projects', 'p1', 'index.html')).equals(page)).toBe(true);
+    expect(readdirSync(dir).filter((n) => /^site\./.test(n)), 'beside site/ only the folder it links to').toHaveLength(1);
+  }, 60_000);
 
   it('--html-only prints nothing and keeps results in the cache for the next build', async () => {
     const dir = root();
