@@ -1,6 +1,7 @@
 /**
  * Calculation time per project (median and 95th percentile, one core), and the batch of all
- * projects through the worker pool, cold and from the results cache.
+ * projects as the build calculates them (lib/plant/batch.ts: this thread, and worker threads
+ * for large batches), cold and from the results cache.
  */
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -41,7 +42,7 @@ export async function benchCalc(counts: number[]): Promise<Row[]> {
       const cache = new ResultsCache(root);
       let t0 = performance.now();
       await calculateAll(jobs, { cache });
-      rows.push({ section: `calc N=${n}`, measure: 'all projects, worker pool, cold cache', value: `${((performance.now() - t0) / 1000).toFixed(2)} s` });
+      rows.push({ section: `calc N=${n}`, measure: 'all projects, as the build calculates them, cold cache', value: `${((performance.now() - t0) / 1000).toFixed(2)} s` });
       t0 = performance.now();
       await calculateAll(jobs, { cache });
       rows.push({ section: `calc N=${n}`, measure: 'all projects, from the results cache', value: `${((performance.now() - t0) / 1000).toFixed(2)} s` });

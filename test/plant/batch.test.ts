@@ -25,12 +25,16 @@ function jobs(count: number): { root: string; list: CalculationJob[] } {
 describe('batch calculation', () => {
   it('worker threads return exactly what this thread computes, in job order', async () => {
     const { list } = jobs(14);
-    const outcomes = await calculateAll(list, { workers: 2 });
+    // Every job in the two workers, none here.
+    const outcomes = await calculateAll(list, { workers: 2, jobsPerWorker: 1, alsoHere: false });
     expect(outcomes).toHaveLength(14);
     outcomes.forEach((o, i) => {
       expect(o.ok).toBe(true);
       if (o.ok) expect(JSON.stringify(o.results)).toBe(JSON.stringify(calculate(list[i]!.basis)));
     });
+    // Workers and this thread sharing the queue: the same, in job order.
+    const shared = await calculateAll(list, { workers: 2, jobsPerWorker: 1 });
+    expect(JSON.stringify(shared)).toBe(JSON.stringify(outcomes));
   }, 120_000);
 
   it('a second run is served from the cache; another basis text is a miss', async () => {
