@@ -11,15 +11,22 @@ import { printTable, type Row } from './measure.ts';
 const sections: Record<string, () => Promise<Row[]> | Row[]> = {
   thermo: benchThermo,
   equilibrium: benchEquilibrium,
-  calc: () => benchCalc([10, 100, 500]),
-  site: () => benchSite(sizes()),
+  calc: () => benchCalc(SIZES),
+  site: () => benchSite(SIZES),
 };
 
-/** N of the site benchmarks: 10, 100, 500, or BENCH_SIZES=10,100 for a shorter run. */
+/** N of the calculation and site benchmarks: 10, 100, 500, or BENCH_SIZES=10,100 for a shorter run. */
 function sizes(): number[] {
-  return (process.env.BENCH_SIZES ?? '10,100,500').split(',').map(Number);
+  const raw = process.env.BENCH_SIZES ?? '10,100,500';
+  const sizes = raw.split(',').map((t) => t.trim());
+  if (sizes.some((t) => !/^[1-9]\d{0,4}$/.test(t))) {
+    process.stderr.write(`bench: BENCH_SIZES must be project counts from 1 to 99999 separated by commas (e.g. 10,100), got "${raw}"\n`);
+    process.exit(2);
+  }
+  return sizes.map(Number);
 }
 
+const SIZES = sizes();
 const wanted = process.argv.slice(2).filter((a) => !a.startsWith('-'));
 const rows: Row[] = [];
 for (const [name, run] of Object.entries(sections)) {
