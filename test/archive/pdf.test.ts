@@ -4,7 +4,7 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, expect, it } from 'vitest';
-import { PDFDocument } from 'pdf-lib';
+import { PDFArray, PDFDict, PDFDocument, PDFName, PDFRef, PDFString } from 'pdf-lib';
 import { footerTemplate, headerTemplate, withPdfPrinter, type PdfMeta } from '../../lib/publish/pdf.ts';
 import { toolVersion } from '../../lib/cli/version.ts';
 import { announceChromiumSkip, describeWithChromium } from './chromium.ts';
@@ -99,6 +99,37 @@ describeWithChromium('PDF printer', () => {
     const [a, b] = await withPdfPrinter((printer) => Promise.all([printer.print(charts, meta), printer.print(charts, meta)]), { pages: 2 });
     expect(compact((await pageTexts(a))[0]!)).toContain('chartsdrawn');
     expect(Buffer.from(a).equals(Buffer.from(b))).toBe(true);
+  });
+
+  it('prints the same bytes for a page whatever the tab printed before: structure element names are renumbered', async () => {
+    // A table whose cells name their header cells: Chromium tags the header cells with /ID
+    // (node<DOM node number>) and the data cells with /Headers naming them (ISO 32000-1
+    // §14.7.2, §14.8.5.7). DOM node numbers count up in a renderer, so a tab that printed
+    // another page first numbered them differently (seen in CI: a reprinted draft unlike the first print).
+    const table = page(`<table><thead><tr><th>quantity</th><th>value</th></tr></thead><tbody>${Array.from({ length: 6 }, (_, i) => `<tr><th scope="row">row ${i}</th><td>${i}</td></tr>`).join('')}</tbody></table>${long}`);
+    const other = page(`<h1>another page</h1>${long}`);
+    const [first, again] = await withPdfPrinter(
+      async (printer) => {
+        const a = await printer.print(table, meta);
+        await printer.print(other, meta);
+        return [a, await printer.print(table, meta)] as const;
+      },
+      { pages: 1 },
+    );
+    expect(Buffer.from(first).equals(Buffer.from(again)), 'the same page printed on a fresh tab and on a used one').toBe(true);
+
+    const doc = await PDFDocument.load(first);
+    const root = doc.catalog.lookup(PDFName.of('StructTreeRoot'), PDFDict);
+    const idTree = root.lookup(PDFName.of('IDTree'), PDFDict).lookup(PDFName.of('Names'), PDFArray);
+    const listed = new Map<string, PDFRef>();
+    for (let i = 0; i < idTree.size(); i += 2) listed.set((idTree.lookup(i) as PDFString).decodeText(), idTree.get(i + 1) as PDFRef);
+    expect(listed.size, 'header cells carry names').toBeGreaterThanOrEqual(2);
+    expect([...listed.keys()]).toEqual([...listed.keys()].map((_, i) => `node${String(i + 1).padStart(8, '0')}`));
+    for (const [name, ref] of listed) expect((doc.context.lookup(ref, PDFDict).get(PDFName.of('ID')) as PDFString).decodeText()).toBe(name);
+    // Every /Headers entry names a listed element.
+    const headers = [...Buffer.from(first).toString('latin1').matchAll(/\/Headers \[([^\]]*)\]/g)].flatMap((m) => [...m[1]!.matchAll(/\((node\d{8})\)/g)].map((n) => n[1]!));
+    expect(headers.length, 'data cells name their header cells').toBeGreaterThan(0);
+    expect(headers.filter((h) => !listed.has(h))).toEqual([]);
   });
 
   it('says so when the charts never report ready, and goes on printing the pages waiting for the pool', async () => {
