@@ -15,11 +15,14 @@
  *   Σ_i b_i^gas π_i + (Σ_j n_j − n) Δln n = n − Σ_j n_j + Σ_j n_j μ_j/RT
  *   Δln n_j = −μ_j/RT + Σ_i a_ij π_i + Δln n
  * with RP-1311's step control (eqs. 3.1-3.2): no major species' ln n_j moves by more than 2 per
- * iteration, and a trace species (mole fraction below 1e-8) rises at most to 1e-4. The linear
+ * iteration, and a trace species (mole fraction below 1e-8) rises at most to 1e-4; in addition
+ * no species rises above 1e4 times what the feed holds of its scarcest element. A run that has
+ * not converged after RESTART_AFTER iterations starts again from RP-1311's uniform estimate. The linear
  * system is solved after symmetric diagonal scaling, since element amounts may differ by 30
  * orders of magnitude.
  * Amounts are carried as logarithms, so mole fractions far below 1e-30 neither underflow the
- * iteration nor ever become negative. Graphite enters when the converged gas has carbon
+ * iteration nor ever become negative. The last digits of each element balance are refined on
+ * the element potentials alone (polishElements), trace elements first. Graphite enters when the converged gas has carbon
  * activity exp(π_C − g°_C/RT) above 1 (RP-1311 §3.5) and leaves if its amount turns negative.
  * The same element-potential formulation is derived in W. R. Smith and R. W. Missen, Chemical
  * Reaction Equilibrium Analysis (Wiley, 1982), ch. 6.
@@ -93,6 +96,11 @@ const ELEMENT_TOLERANCE = 5e-13;
  * not halved over the last STALL iterations.
  */
 const STALLED = 1e-9;
+/**
+ * The all-element refinement is for the last digits only: tried while an element is still off
+ * by 6e-10 (a stalled step, oxygen awaiting a trace of CO), it moved the iteration far away.
+ */
+const REFINE_ALL_BELOW = 1e-10;
 const STALL = 4;
 
 interface Work {
@@ -157,6 +165,32 @@ interface Attempt {
   iterations: number;
 }
 
+/**
+ * How high a species may rise in one step: ln n_j ≤ min_i ln(b_i / a_ij) + ln 1e4, never ten
+ * thousand times more of an element than the feed holds (an addition to RP-1311's step control,
+ * eqs. 3.1-3.2). RP-1311 lets a trace species rise to a mole fraction of 1e-4, which for an
+ * element present at 1e-25 (carbon traces in nitrogen) overshoots by twenty orders; the
+ * iteration then takes its "small" weighted corrections for convergence while that element is
+ * far from balance. The margin is wide so that the cap binds only on such overshoots: at e
+ * (tried first) it bound near the solution and a trace species oscillated about it.
+ */
+const CEILING_MARGIN_LN = 9.2103404;
+
+function elementCeilings(system: ChemicalSystem, b: Float64Array): Float64Array {
+  const ne = system.elements.length;
+  const ns = system.gas.length;
+  const ceiling = new Float64Array(ns);
+  for (let j = 0; j < ns; j++) {
+    let c = Infinity;
+    for (let i = 0; i < ne; i++) {
+      const aij = system.a[j * ne + i]!;
+      if (aij > 0) c = Math.min(c, Math.log(b[i]! / aij) + CEILING_MARGIN_LN);
+    }
+    ceiling[j] = c;
+  }
+  return ceiling;
+}
+
 /** One Newton iteration sequence with or without graphite, on the normalised element amounts. */
 function iterate(
   system: ChemicalSystem,
@@ -183,6 +217,7 @@ function iterate(
   const sparse = sparseFormula(system);
   const bGasWork = new Float64Array(ne);
   const aNMuWork = new Float64Array(ne);
+  const ceiling = elementCeilings(system, b);
   let lnTotal = lnTotalStart;
   let graphite = hasC ? graphiteStart : 0;
   const pi = new Float64Array(ne);
@@ -273,6 +308,10 @@ function iterate(
         const cap = Math.abs((-lnX + TRACE_CAP_LN) / (s - dlnTotal));
         if (cap < lambda2) lambda2 = cap;
       }
+      if (s > 0 && ln[j]! < ceiling[j]!) {
+        const cap = (ceiling[j]! - ln[j]!) / s;
+        if (cap < lambda2) lambda2 = cap;
+      }
       maxChange = Math.max(maxChange, nj[j]! * weight * Math.abs(s));
     }
     const lambda1 = maxMajor > 2 ? 2 / maxMajor : 1;
@@ -293,7 +332,19 @@ function iterate(
       // A full Newton step leaves every species, trace ones included, at μ_j = Σ a_ij π_i, so all
       // reactions among them are at equilibrium; what remains is that every element balances.
       for (let j = 0; j < ns; j++) nj[j] = Math.exp(ln[j]!);
-      if (elementError(system, b, nj, hasC ? graphite : 0) >= ELEMENT_TOLERANCE) polishTraceElements(system, b, ln, pi, nj, hasC);
+      if (elementError(system, b, nj, hasC ? graphite : 0) >= ELEMENT_TOLERANCE) polishElements(system, b, ln, pi, nj, traceElements(system, b, hasC));
+      const left = elementError(system, b, nj, hasC ? graphite : 0);
+      if (left >= ELEMENT_TOLERANCE && left < REFINE_ALL_BELOW) {
+        // Kept only if it helps: even close to balance the all-element refinement could wander off.
+        const lnBefore = ln.slice();
+        const piBefore = pi.slice();
+        polishElements(system, b, ln, pi, nj, gasElements(system, hasC));
+        if (!(elementError(system, b, nj, hasC ? graphite : 0) < left)) {
+          ln.set(lnBefore);
+          pi.set(piBefore);
+          for (let j = 0; j < ns; j++) nj[j] = Math.exp(ln[j]!);
+        }
+      }
       if (elementError(system, b, nj, hasC ? graphite : 0) < ELEMENT_TOLERANCE) {
         return { ln, lnTotal, graphite, pi, iterations: iterationsSoFar + iteration };
       }
@@ -305,53 +356,105 @@ function iterate(
 /** Elements below this share of all atoms are "trace" for the polishing step. */
 const TRACE_ELEMENT = 1e-6;
 
+/** The trace elements (share below TRACE_ELEMENT), carbon excepted when graphite fixes its potential. */
+function traceElements(system: ChemicalSystem, b: Float64Array, graphite: boolean): number[] {
+  const trace: number[] = [];
+  for (let i = 0; i < b.length; i++) if (b[i]! < TRACE_ELEMENT && !(graphite && i === system.carbonIndex)) trace.push(i);
+  return trace;
+}
+
+/** Every element whose potential the gas alone sets: all of them, carbon excepted when graphite is present. */
+function gasElements(system: ChemicalSystem, graphite: boolean): number[] {
+  return system.elements.map((_, i) => i).filter((i) => !(graphite && i === system.carbonIndex));
+}
+
 /**
- * Balances the trace elements exactly, holding the potentials of the others: Newton on the
- * trace rows alone, Σ_k (Σ_j a_ij a_kj n_j) Δπ_k = b_i − Σ_j a_ij n_j, moving only species that
- * contain trace elements, so every species stays at μ_j = Σ a_ij π_i. A trace element cannot
+ * Balances the chosen elements exactly, holding the potentials of the others: Newton on their
+ * rows alone, Σ_k (Σ_j a_ij a_kj n_j) Δπ_k = b_i − Σ_j a_ij n_j, moving only species that
+ * contain them, so every species stays at μ_j = Σ a_ij π_i (iterative refinement of the element
+ * potentials, Smith and Missen 1982 ch. 6, where the residual is formed directly from the amounts
+ * and is accurate to each element's own scale). First the trace elements: a trace element cannot
  * move the major species, but its balance, relative to its own tiny amount, feels every
- * rounding-level drift of the major potentials; here each trace residual is formed from trace
- * species only, so it is accurate to its own scale. Steps are limited to 2 in π.
+ * rounding-level drift of the major potentials. Then, where a trace species also carries a
+ * major element whose balance is fixed only by a tiny difference (carbon and oxygen equal to
+ * twelve digits, the excess carried by a trace hydrocarbon), all elements together. Steps are damped
+ * (Levenberg-Marquardt) until no potential moves by more than 2.
  */
-function polishTraceElements(system: ChemicalSystem, b: Float64Array, ln: Float64Array, pi: Float64Array, nj: Float64Array, graphite: boolean): void {
+function polishElements(system: ChemicalSystem, b: Float64Array, ln: Float64Array, pi: Float64Array, nj: Float64Array, chosen: number[]): void {
   const ne = system.elements.length;
   const ns = system.gas.length;
   const a = system.a;
-  const trace: number[] = [];
-  for (let i = 0; i < ne; i++) if (b[i]! < TRACE_ELEMENT && !(graphite && i === system.carbonIndex)) trace.push(i);
-  const m = trace.length;
+  const m = chosen.length;
   if (m === 0) return;
+  // The species that hold any chosen element: only they move.
+  const moved: number[] = [];
+  for (let j = 0; j < ns; j++) {
+    for (let p = 0; p < m; p++) {
+      if (a[j * ne + chosen[p]!] !== 0) {
+        moved.push(j);
+        break;
+      }
+    }
+  }
   const matrix = new Float64Array(m * m);
   const rhs = new Float64Array(m);
+  const residual = new Float64Array(m);
   const previous = new Float64Array(m);
-  for (let iteration = 0; iteration < 50; iteration++) {
+  const matrixCopy = new Float64Array(m * m);
+  let best = Infinity;
+  let sinceBest = 0;
+  for (let iteration = 0; iteration < 100; iteration++) {
     for (let j = 0; j < ns; j++) nj[j] = Math.exp(ln[j]!);
     matrix.fill(0);
     let worst = 0;
     for (let p = 0; p < m; p++) {
-      const i = trace[p]!;
+      const i = chosen[p]!;
       let held = 0;
-      for (let j = 0; j < ns; j++) {
+      for (const j of moved) {
         const aij = a[j * ne + i]!;
         if (aij === 0) continue;
         held += aij * nj[j]!;
         for (let q = 0; q < m; q++) {
-          const akj = a[j * ne + trace[q]!]!;
+          const akj = a[j * ne + chosen[q]!]!;
           if (akj !== 0) matrix[p * m + q] = matrix[p * m + q]! + aij * akj * nj[j]!;
         }
       }
       rhs[p] = b[i]! - held;
+      residual[p] = rhs[p]!;
       worst = Math.max(worst, Math.abs(rhs[p]!) / b[i]!);
     }
     if (worst < 1e-15) break;
-    if (!solveScaledInPlace(matrix, rhs, m, m, previous)) return;
+    // At the rounding floor the balance stops improving: once well inside the tolerance, two
+    // steps without halving it end the refinement; anywhere, ten.
+    if (worst < best / 2) {
+      best = worst;
+      sinceBest = 0;
+    } else if (++sinceBest >= (worst < ELEMENT_TOLERANCE / 10 ? 2 : 10)) break;
+    // Newton's step, damped (Levenberg-Marquardt: H + μ diag H) until no potential moves by more
+    // than 2: where an element's balance hardly depends on some direction (oxygen held only by
+    // CO, carbon by CO and a hydrocarbon) the undamped step runs off along it.
+    matrixCopy.set(matrix);
+    let damping = 0;
+    for (;;) {
+      matrix.set(matrixCopy);
+      for (let p = 0; p < m; p++) matrix[p * m + p] = matrixCopy[p * m + p]! * (1 + damping);
+      rhs.set(residual);
+      if (!solveScaledInPlace(matrix, rhs, m, m, previous)) return;
+      let largest = 0;
+      for (let p = 0; p < m; p++) largest = Math.max(largest, Math.abs(rhs[p]!));
+      if (largest <= 2 || damping > 1e12) {
+        if (!Number.isFinite(largest)) return;
+        if (largest > 2) for (let p = 0; p < m; p++) rhs[p] = (rhs[p]! * 2) / largest;
+        break;
+      }
+      damping = damping === 0 ? 1e-6 : damping * 10;
+    }
     for (let p = 0; p < m; p++) {
-      const step = Math.max(-2, Math.min(2, rhs[p]!));
-      const i = trace[p]!;
-      pi[i] = pi[i]! + step;
-      for (let j = 0; j < ns; j++) {
+      const i = chosen[p]!;
+      pi[i] = pi[i]! + rhs[p]!;
+      for (const j of moved) {
         const aij = a[j * ne + i]!;
-        if (aij !== 0) ln[j] = ln[j]! + aij * step;
+        if (aij !== 0) ln[j] = ln[j]! + aij * rhs[p]!;
       }
     }
   }
@@ -394,6 +497,24 @@ function initialEstimate(system: ChemicalSystem, b: Float64Array, ln: Float64Arr
   return Math.log(total);
 }
 
+function sumExp(ln: Float64Array): number {
+  let s = 0;
+  for (let j = 0; j < ln.length; j++) s += Math.exp(ln[j]!);
+  return s;
+}
+
+/** RP-1311's own start (§3.1): every species at 0.1/NS on the normalised scale. */
+function uniformEstimate(ns: number): Float64Array {
+  return new Float64Array(ns).fill(Math.log(0.1 / ns));
+}
+
+/**
+ * Iterations from one start before the next start is tried. Converging runs take 5 to 60
+ * (measured over random feeds); the rare run that cycles at the rounding floor, where an element
+ * ratio is fixed more finely than the major amounts resolve, is started again from elsewhere.
+ */
+const RESTART_AFTER = 120;
+
 /**
  * Equilibrium of `system` at T (through gRT = g°_j/RT at T) and pressure P (lnP = ln(P/1 bar))
  * for element amounts b (mol, all positive, in system.elements order). gGraphiteRT is g°/RT of
@@ -420,18 +541,27 @@ export function minimiseGibbs(
   for (let i = 0; i < ne; i++) b[i] = bMol[i]! / scale;
   const maxIterations = options.maxIterations ?? 400;
 
-  const ln = new Float64Array(ns);
-  let lnTotal: number;
-  if (options.warmStart && options.warmStart.length === ns) {
-    ln.set(options.warmStart);
-    let s = 0;
-    for (let j = 0; j < ns; j++) s += Math.exp(ln[j]!);
-    lnTotal = Math.log(s);
-  } else {
-    lnTotal = initialEstimate(system, b, ln);
+  const starts: Float64Array[] = [];
+  if (options.warmStart && options.warmStart.length === ns) starts.push(options.warmStart.slice());
+  const scarcest = new Float64Array(ns);
+  initialEstimate(system, b, scarcest);
+  starts.push(scarcest, uniformEstimate(ns));
+  let attempt: Attempt | undefined;
+  let failure: ConvergenceError | undefined;
+  let spent = 0;
+  for (const [k, ln] of starts.entries()) {
+    const budget = k === starts.length - 1 ? maxIterations - spent : Math.min(RESTART_AFTER, maxIterations - spent);
+    if (budget <= 0) break;
+    try {
+      attempt = iterate(system, gRT, lnP, b, ln, Math.log(sumExp(ln)), false, gGraphiteRT, 0, budget, spent);
+      break;
+    } catch (error) {
+      if (!(error instanceof ConvergenceError) || error instanceof EquilibriumFailure) throw error;
+      failure = error;
+      spent += budget;
+    }
   }
-
-  let attempt = iterate(system, gRT, lnP, b, ln, lnTotal, false, gGraphiteRT, 0, maxIterations, 0);
+  if (!attempt) throw failure!;
   let carbonActivity = system.carbonIndex >= 0 ? Math.exp(attempt.pi[system.carbonIndex]! - gGraphiteRT) : 0;
   let withGraphite = false;
   if (options.allowGraphite && system.carbonIndex >= 0 && carbonActivity > 1) {
