@@ -17,7 +17,9 @@
  * with RP-1311's step control (eqs. 3.1-3.2): no major species' ln n_j moves by more than 2 per
  * iteration, and a trace species (mole fraction below 1e-8) rises at most to 1e-4; in addition
  * no species rises above 1e4 times what the feed holds of its scarcest element. A run that has
- * not converged after RESTART_AFTER iterations starts again from RP-1311's uniform estimate. The linear
+ * not converged after RESTART_AFTER iterations starts again from RP-1311's uniform estimate; one
+ * that settles with a major element off balance lifts its species back to their starting amounts
+ * and goes on (at most MAX_RESEEDS times). The linear
  * system is solved after symmetric diagonal scaling, since element amounts may differ by 30
  * orders of magnitude.
  * Amounts are carried as logarithms, so mole fractions far below 1e-30 neither underflow the
@@ -101,6 +103,8 @@ const STALLED = 1e-9;
  * by 6e-10 (a stalled step, oxygen awaiting a trace of CO), it moved the iteration far away.
  */
 const REFINE_ALL_BELOW = 1e-10;
+/** At most this many lifts of the species back to their starting shares in one run. */
+const MAX_RESEEDS = 3;
 const STALL = 4;
 
 interface Work {
@@ -224,6 +228,10 @@ function iterate(
   let residual = Infinity;
   let best = Infinity;
   let sinceBest = 0;
+  /** Where this run started. */
+  const start = ln.slice();
+  /** Times the species were seeded again after the iteration settled with an element off balance. */
+  let reseeds = 0;
 
   for (let iteration = 1; iteration <= maxIterations; iteration++) {
     const total = Math.exp(lnTotal);
@@ -345,8 +353,23 @@ function iterate(
           for (let j = 0; j < ns; j++) nj[j] = Math.exp(ln[j]!);
         }
       }
-      if (elementError(system, b, nj, hasC ? graphite : 0) < ELEMENT_TOLERANCE) {
+      const after = elementError(system, b, nj, hasC ? graphite : 0);
+      if (after < ELEMENT_TOLERANCE) {
         return { ln, lnTotal, graphite, pi, iterations: iterationsSoFar + iteration };
+      }
+      // Settled with a major element far off balance: the species that could carry the ratio of two
+      // elements fell so low on the way that the system is singular without them (H2 at 1e-20
+      // beside steam at 400 K leaves H and O held by H2O alone, in a fixed ratio), and a Newton
+      // step cannot raise them. Each species is lifted back to at least its amount at this
+      // run's start, the major ones kept, and the iteration goes on.
+      if (reseeds < MAX_RESEEDS && elementError(system, b, nj, hasC ? graphite : 0, TRACE_ELEMENT) >= REFINE_ALL_BELOW) {
+        reseeds++;
+        for (let j = 0; j < ns; j++) ln[j] = Math.max(ln[j]!, start[j]!);
+        let sum = 0;
+        for (let j = 0; j < ns; j++) sum += Math.exp(ln[j]!);
+        lnTotal = Math.log(sum);
+        best = Infinity;
+        sinceBest = 0;
       }
     }
   }
@@ -461,10 +484,12 @@ function polishElements(system: ChemicalSystem, b: Float64Array, ln: Float64Arra
   for (let j = 0; j < ns; j++) nj[j] = Math.exp(ln[j]!);
 }
 
-function elementError(system: ChemicalSystem, b: Float64Array, n: Float64Array, graphite: number): number {
+/** Largest relative balance error over the elements whose share is at least `atLeast` (all by default). */
+function elementError(system: ChemicalSystem, b: Float64Array, n: Float64Array, graphite: number, atLeast = 0): number {
   const ne = system.elements.length;
   let worst = 0;
   for (let i = 0; i < ne; i++) {
+    if (b[i]! < atLeast) continue;
     let s = i === system.carbonIndex ? graphite : 0;
     for (let j = 0; j < system.gas.length; j++) s += system.a[j * ne + i]! * n[j]!;
     worst = Math.max(worst, Math.abs(b[i]! - s) / b[i]!);

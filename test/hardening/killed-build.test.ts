@@ -10,7 +10,9 @@
 //   - at moments nobody chose, spread over a build's duration (measured first), with the draft
 //     PDFs printed anew each time so the kill can land in Chromium's printing too.
 // Each build goes to the other version of the basis than the one the site shows, so that a
-// partial swap in either direction would be seen. After each kill, no process the build
+// partial swap in either direction would be seen. Every file is compared byte for byte except
+// the draft PDFs, which are printed anew and compared by treeLayoutDigest (glyph positions to
+// a whole unit: Chromium under load has placed a glyph 1/8 unit apart; a torn PDF still differs). After each kill, no process the build
 // started (Chromium) may outlive it. At the end a build completes, says what it removed, and
 // leaves beside site/ only the folder site/ links to.
 //
@@ -24,7 +26,7 @@ import { afterAll, beforeAll, expect, it } from 'vitest';
 import { BUILD_STEPS } from '../../lib/publish/build.ts';
 import { CACHE_DIR } from '../../lib/plant/results-cache.ts';
 import { announceChromiumSkip, describeWithChromium } from '../archive/chromium.ts';
-import { basisFile, demoRoot, EPOCH, treeDigest } from '../publish/helpers.ts';
+import { basisFile, demoRoot, EPOCH, treeLayoutDigest } from '../publish/helpers.ts';
 import { cellbasis, descendants, expectCompleteSite, running, startCellbasis, until, type Started } from './child.ts';
 
 announceChromiumSkip('the killed-build tests');
@@ -49,14 +51,14 @@ describeWithChromium('cellbasis build killed at any moment', () => {
 
   /** The site folder as the two complete builds left it: which one it is, or a failure naming the difference. */
   function expectSiteIs(version: Version, when: string): void {
-    const now = treeDigest(site());
+    const now = treeLayoutDigest(site());
     const other: Version = version === 'old' ? 'new' : 'old';
     if (JSON.stringify(now) === JSON.stringify(digests[other])) throw new Error(`${when}: site/ shows the ${other} site, expected the ${version} one`);
     expect(now, `${when}: site/ is the complete ${version} site`).toEqual(digests[version]);
   }
 
   function expectOldOrNew(when: string): Version {
-    const now = treeDigest(site());
+    const now = treeLayoutDigest(site());
     const version = (['old', 'new'] as const).find((v) => JSON.stringify(now) === JSON.stringify(digests[v]));
     if (!version) {
       const unlike = (v: Version) => [...new Set([...Object.keys(now), ...Object.keys(digests[v])])].filter((path) => now[path] !== digests[v][path]).join(', ');
@@ -98,7 +100,7 @@ describeWithChromium('cellbasis build killed at any moment', () => {
       expect(r.code, r.err).toBe(0);
       duration = Math.max(duration, r.ms);
       expectCompleteSite(site(), PROJECTS);
-      digests[version] = treeDigest(site());
+      digests[version] = treeLayoutDigest(site());
     }
     expect(digests.new).not.toEqual(digests.old);
     shown = 'old';
@@ -196,7 +198,7 @@ describeWithChromium('cellbasis build killed at any moment', () => {
     expect(existsSync(site()), 'killed between the renames: site/ is missing').toBe(false);
     const aside = siblings().filter((n) => n.endsWith('.old.tmp'));
     expect(aside).toHaveLength(1);
-    expect(treeDigest(join(root, aside[0]!)), 'and the complete old site is aside').toEqual(digests[shown]);
+    expect(treeLayoutDigest(join(root, aside[0]!)), 'and the complete old site is aside').toEqual(digests[shown]);
 
     // A build that fails (a basis with an error) still puts it back.
     writeFileSync(basisFile(root, CHANGED), basisText(shown).replace('value: "62 C", source: R2', 'value: "warm", source: R2'));
