@@ -9,7 +9,7 @@
  * Chromium is missing (a sealed revision must be complete, PDF included).
  *
  * Otherwise, holding the seal lock (sealed-folder.ts), it removes temporary folders that killed
- * seals left, writes every file into `.tmp-<rev>-<pid>` beside the revisions (each flushed to
+ * seals left (and leaves in place, named, a folder so named that seal did not make), writes every file into `.tmp-<rev>-<pid>` beside the revisions (each flushed to
  * disk), and renames that folder to <rev> as the last step: whenever the process stops, the
  * revision is either complete or absent. The working basis is only read.
  *
@@ -37,7 +37,7 @@ import { documentPdfMeta, findChromium, ChromiumMissingError, withPdfPrinter } f
 import { EXIT_USAGE, EXIT_VALIDATION, UserError } from '../errors.ts';
 import { SEALED_FILES, sealedDir, sealedRoot, type SealManifest } from './layout.ts';
 import { checkFollows, successors } from './revisions.ts';
-import { acquireSealLock, lastRevision, readSealedFolder, tempDirName, type SealedFolder } from './sealed-folder.ts';
+import { acquireSealLock, isSealTemporary, lastRevision, readSealedFolder, tempDirName, type SealedFolder } from './sealed-folder.ts';
 import { readSealedRevision, type SealedRevision } from './sealed-revision.ts';
 import { sealedBasisText } from './sealed-basis.ts';
 import { resolveSealDate, type SealDate } from './seal-date.ts';
@@ -99,6 +99,8 @@ export interface SealOutcome {
   sealDate: SealDate;
   /** Stale temporary folders of killed seals that were removed. */
   removedTemporary: string[];
+  /** Folders named as temporary folders that seal did not make, left in place. */
+  keptTemporary: string[];
 }
 
 function checkStatus(status: string): DocumentStatus {
@@ -166,7 +168,8 @@ export async function sealRevision(options: SealOptions): Promise<SealOutcome> {
     await pause(options, 'locked');
     const folder = readSealedFolder(options.cwd, options.project);
     checkNext(folder, options.revision, display);
-    const removedTemporary = folder.temporary;
+    const removedTemporary = folder.temporary.filter((name) => isSealTemporary(root, name));
+    const keptTemporary = folder.temporary.filter((name) => !removedTemporary.includes(name));
     for (const name of removedTemporary) rmSync(join(root, name), { recursive: true, force: true });
 
     const previous = folder.revisions.map((rev) => readSealedRevision(options.cwd, options.project, rev));
@@ -240,7 +243,7 @@ export async function sealRevision(options: SealOptions): Promise<SealOutcome> {
     temp = undefined;
     syncFolder(root);
     await pause(options, 'renamed');
-    return { display: `${display}/sealed/${options.revision}`, manifest: final, manifestSha256: sha256Hex(bytes), signed: key !== undefined, sealDate, removedTemporary };
+    return { display: `${display}/sealed/${options.revision}`, manifest: final, manifestSha256: sha256Hex(bytes), signed: key !== undefined, sealDate, removedTemporary, keptTemporary };
   } finally {
     if (temp) rmSync(temp, { recursive: true, force: true });
     release?.();

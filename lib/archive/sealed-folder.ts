@@ -4,12 +4,14 @@
  * revision), the seal lock, and anything else (reported by the audit). Only `cellbasis seal`
  * creates entries here; it holds the lock (`.seal-lock`, the sealing process id) while it
  * works, and a lock or temporary folder left by a killed seal is recognised by its process no
- * longer running.
+ * longer running. Only what seal made is ever removed: a lock is a regular file holding a
+ * process id, a temporary folder is named `.tmp-<rev>-<pid>` and holds only regular files of
+ * the names seal writes; anything else is refused (the lock) or left in place and named.
  */
 import { lstatSync, readdirSync, readFileSync, unlinkSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { EXIT_USAGE, UserError } from '../errors.ts';
-import { sealedRoot } from './layout.ts';
+import { EXIT_USAGE, EXIT_VALIDATION, UserError } from '../errors.ts';
+import { SEALED_FILES, sealedRoot } from './layout.ts';
 import { compareRevisions, isRevision } from './revisions.ts';
 
 export const TEMP_PREFIX = '.tmp-';
@@ -48,6 +50,26 @@ export function readSealedFolder(cwd: string, projectId: string): SealedFolder {
   return folder;
 }
 
+/** Whether the temporary folder `name` under a sealed folder is one seal made: its naming, and only regular files of the names seal writes. */
+export function isSealTemporary(root: string, name: string): boolean {
+  const match = /^\.tmp-(.+)-(\d+)$/.exec(name);
+  const path = join(root, name);
+  if (!match || !isRevision(match[1]!) || !lstatSync(path).isDirectory()) return false;
+  const names = new Set<string>(Object.values(SEALED_FILES));
+  return readdirSync(path).every((entry) => names.has(entry) && lstatSync(join(path, entry)).isFile());
+}
+
+/** The process id in a seal lock, or null when it is gone; refuses (exit 1) a file there that seal did not write. */
+function lockHolder(path: string, display: string): number | null {
+  const stat = lstatSync(path, { throwIfNoEntry: false });
+  if (!stat) return null;
+  const text = stat.isFile() && stat.size <= 24 ? readFileSync(path, 'utf8') : '';
+  if (!/^\d+\n$/.test(text)) {
+    throw new UserError(`seal: ${display}/sealed/${LOCK_FILE} is not a lock that cellbasis seal wrote; nothing was changed: remove it yourself if no seal runs`, EXIT_VALIDATION);
+  }
+  return Number(text);
+}
+
 /** The last sealed revision, or null. */
 export function lastRevision(folder: SealedFolder): string | null {
   return folder.revisions[folder.revisions.length - 1] ?? null;
@@ -82,12 +104,9 @@ export function acquireSealLock(root: string, display: string): () => void {
     } catch (error) {
       if ((error as NodeJS.ErrnoException).code !== 'EEXIST') throw error;
     }
-    let holder = NaN;
-    try {
-      holder = Number(readFileSync(path, 'utf8').trim());
-    } catch {
-      // Removed between the two calls: try again.
-    }
+    // Null: removed between the two calls; try again.
+    const holder = lockHolder(path, display);
+    if (holder === null) continue;
     if (processAlive(holder) && holder !== process.pid) {
       throw new UserError(`another seal of ${display} is running (process ${holder}); wait for it, or remove ${display}/sealed/${LOCK_FILE} if no seal runs`, EXIT_USAGE);
     }

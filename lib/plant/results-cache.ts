@@ -5,12 +5,31 @@
  * build never leaves a torn entry; an unreadable entry is treated as a miss.
  */
 import { createHash } from 'node:crypto';
-import { mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
+import { lstatSync, mkdirSync, readFileSync, renameSync, unlinkSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { EXIT_VALIDATION, UserError } from '../errors.ts';
 import { libraryFingerprint } from './fingerprint.ts';
 import type { Results } from './results-schema.ts';
 
 export const CACHE_DIR = '.cellbasis-cache';
+
+/**
+ * Writes a cache entry whole: into `<entry>.<pid>.tmp`, created new (never written through a
+ * link or over a file), then renamed into place. A regular file of that name is a leftover of
+ * an earlier process that had this process id, and is replaced; anything else there is refused.
+ */
+export function writeCacheEntry(target: string, bytes: string | Uint8Array): void {
+  const temp = `${target}.${process.pid}.tmp`;
+  try {
+    writeFileSync(temp, bytes, { flag: 'wx' });
+  } catch (error) {
+    if ((error as NodeJS.ErrnoException).code !== 'EEXIST') throw error;
+    if (!lstatSync(temp).isFile()) throw new UserError(`${temp} is not a file cellbasis made; nothing was changed: remove it yourself`, EXIT_VALIDATION);
+    unlinkSync(temp);
+    writeFileSync(temp, bytes, { flag: 'wx' });
+  }
+  renameSync(temp, target);
+}
 
 export function resultsKey(basisBytes: string | Uint8Array, id: string, file: string): string {
   return createHash('sha256').update(libraryFingerprint()).update('\0').update(id).update('\0').update(file).update('\0').update(basisBytes).digest('hex');
@@ -33,9 +52,6 @@ export class ResultsCache {
 
   put(key: string, results: Results): void {
     mkdirSync(this.dir, { recursive: true });
-    const target = join(this.dir, `${key}.json`);
-    const temp = `${target}.${process.pid}.tmp`;
-    writeFileSync(temp, JSON.stringify(results));
-    renameSync(temp, target);
+    writeCacheEntry(join(this.dir, `${key}.json`), JSON.stringify(results));
   }
 }

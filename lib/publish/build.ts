@@ -24,10 +24,17 @@
  * killed before their end left behind (those of processes no longer running), never the one
  * `out` shows.
  *
+ * Nothing cellbasis did not make is replaced, renamed or removed (lib/publish/site-marker.ts):
+ * each build folder carries the site marker from the moment it is made, `out` must be missing,
+ * an empty folder, a folder carrying the marker or a link to a build folder beside it (checked
+ * before anything is written and again just before the swap), or the build is refused (exit 1)
+ * with `out` as it was; a leftover of this naming that is not ours (a folder without the marker,
+ * a `.link.tmp` that is no link to its build folder) is left in place and named.
+ *
  * For tests of interruption, `pauseAt` names a step (BUILD_STEPS) at which the build stops and
  * waits until it is killed; the CLI takes it from CELLBASIS_BUILD_PAUSE.
  */
-import { existsSync, lstatSync, mkdirSync, readdirSync, readFileSync, readlinkSync, realpathSync, renameSync, rmSync, symlinkSync } from 'node:fs';
+import { existsSync, lstatSync, mkdirSync, readdirSync, readFileSync, readlinkSync, realpathSync, renameSync, rmSync, symlinkSync, unlinkSync } from 'node:fs';
 import { randomBytes } from 'node:crypto';
 import { basename, dirname, join, relative, resolve } from 'node:path';
 import { listProjects } from '../basis/projects.ts';
@@ -41,6 +48,7 @@ import { printDrafts } from './draft-pdfs.ts';
 import { removeCacheLeftovers } from './cache-leftovers.ts';
 import { UserError, EXIT_INTERNAL } from '../errors.ts';
 import { setBuildContext } from './build-context.ts';
+import { notOursError, removeOwnFolder, siteFolderProblem, writeSiteMarker } from './site-marker.ts';
 import { createEleventy } from './eleventy-api.ts';
 import { ELEVENTY_CONFIG, TEMPLATES_DIR } from './paths.ts';
 import { loadSiteModel, type SiteOptions } from './site-model.ts';
@@ -68,6 +76,8 @@ export interface Leftovers {
   removed: string[];
   /** Name of the moved-aside site renamed back to `out`, or null. */
   restored: string | null;
+  /** Names of siblings of `out` named as leftovers but not made by cellbasis, left in place. */
+  kept: string[];
   /** Temporary cache files of killed builds removed, relative to the root (lib/publish/cache-leftovers.ts). */
   cache: string[];
 }
@@ -78,13 +88,58 @@ function buildNames(out: string): Record<'fresh' | 'complete' | 'link' | 'aside'
   return { fresh: `${stem}.build.tmp`, complete: `${stem}.build`, link: `${stem}.link.tmp`, aside: `${stem}.old.tmp` };
 }
 
-/** Siblings of `out` a build made: name, the process that made it, and its kind. */
-function buildSiblings(out: string): { name: string; pid: number; kind: string }[] {
-  const pattern = new RegExp(`^${basename(out).replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}\\.(\\d+)-[0-9a-f]{8}\\.(build|build\\.tmp|link\\.tmp|old\\.tmp)$`);
+/** `<out>.<pid>-<random>.<kind>`: the names of what builds make beside `out`. */
+function siblingPattern(out: string): RegExp {
+  return new RegExp(`^${basename(out).replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}\\.(\\d+)-[0-9a-f]{8}\\.(build|build\\.tmp|link\\.tmp|old\\.tmp)$`);
+}
+
+interface Sibling {
+  name: string;
+  pid: number;
+  kind: string;
+}
+
+/** Siblings of `out` named as a build names what it makes: name, the process that made it, and its kind. */
+function buildSiblings(out: string): Sibling[] {
+  const pattern = siblingPattern(out);
   return readdirSync(dirname(out)).flatMap((name) => {
     const match = pattern.exec(name);
     return match ? [{ name, pid: Number(match[1]), kind: match[2]! }] : [];
   });
+}
+
+/** Removes a leftover that a build made (a marked or empty folder; a `.link.tmp` link to its `.build` folder); false, touching nothing, for anything else. */
+function removeLeftover(out: string, sibling: Sibling): boolean {
+  const path = join(dirname(out), sibling.name);
+  if (sibling.kind !== 'link.tmp') return removeOwnFolder(path);
+  if (!lstatSync(path, { throwIfNoEntry: false })?.isSymbolicLink() || readlinkSync(path) !== sibling.name.replace(/\.link\.tmp$/, '.build')) return false;
+  unlinkSync(path);
+  return true;
+}
+
+/** Where `path` is, as messages show it: relative to the working folder when inside it. */
+function shownPath(root: string, path: string): string {
+  const rel = relative(root, path);
+  return rel === '' ? '.' : rel.startsWith('..') ? path : rel;
+}
+
+/**
+ * Refuses (exit 1, nothing changed) an `out` the build would replace but did not make: anything
+ * but nothing, an empty folder, a folder carrying the site marker, or a link to a build folder
+ * beside it (the link a build makes), which must itself be missing, empty or marked.
+ */
+function checkReplaceable(root: string, out: string): void {
+  let problem = siteFolderProblem(out);
+  if (problem === 'a symbolic link') {
+    const target = readlinkSync(out);
+    const name = siblingPattern(out).exec(target);
+    const linked = name?.[2] === 'build' ? siteFolderProblem(join(dirname(out), target)) : 'not a site';
+    problem = linked === null ? null : linked === 'not a site' ? `a symbolic link to ${target}, not to a site cellbasis built beside it` : `a symbolic link to ${target}, which is ${linked}`;
+  }
+  if (problem) {
+    const shown = shownPath(root, out);
+    throw notOursError('build', shown, problem, `choose another folder with --out, or move ${shown} away (remove it yourself if it is yours to remove)`);
+  }
 }
 
 /** The sibling `out` links to, or null (no link, or a link of someone else's). */
@@ -104,12 +159,14 @@ function linkedName(out: string): string | null {
  */
 function removeLeftovers(out: string): Omit<Leftovers, 'cache'> {
   const stale = buildSiblings(out).filter((s) => s.pid === process.pid || !processAlive(s.pid));
-  const aside = lstatSync(out, { throwIfNoEntry: false }) ? undefined : stale.find((s) => s.kind === 'old.tmp');
+  const aside = lstatSync(out, { throwIfNoEntry: false }) ? undefined : stale.find((s) => s.kind === 'old.tmp' && siteFolderProblem(join(dirname(out), s.name)) === null);
   if (aside) renameSync(join(dirname(out), aside.name), out);
   // The link is read after each process was found gone: one that no longer runs cannot point `out` at its folder any more.
-  const removed = stale.filter((s) => s !== aside && s.name !== linkedName(out)).map((s) => s.name);
-  for (const name of removed) rmSync(join(dirname(out), name), { recursive: true, force: true });
-  return { removed, restored: aside?.name ?? null };
+  const linked = linkedName(out);
+  const removed: string[] = [];
+  const kept: string[] = [];
+  for (const s of stale) if (s !== aside && s.name !== linked) (removeLeftover(out, s) ? removed : kept).push(s.name);
+  return { removed, kept, restored: aside?.name ?? null };
 }
 
 async function pause(options: BuildOptions, step: BuildStep): Promise<void> {
@@ -194,7 +251,8 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
   const root = resolve(options.root);
   const out = resolve(options.out ?? join(root, 'site'));
   checkOutput(root, out);
-  const leftovers = { ...(existsSync(dirname(out)) ? removeLeftovers(out) : { removed: [], restored: null }), cache: removeCacheLeftovers(root) };
+  checkReplaceable(root, out);
+  const leftovers = { ...(existsSync(dirname(out)) ? removeLeftovers(out) : { removed: [], kept: [], restored: null }), cache: removeCacheLeftovers(root) };
   const chromium = findChromium();
   const printing = options.pdf ?? chromium !== null;
   if (printing && chromium === null) throw new ChromiumMissingError();
@@ -205,6 +263,7 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
   const fresh = names.fresh;
   mkdirSync(fresh);
   try {
+    writeSiteMarker(fresh);
     await pause(options, 'temp-created');
     // Eleventy keeps every page it renders until its run ends; a run per PAGES_PER_RUN pages
     // bounds the memory of a large site (500 documents of about 0.7 MB each).
@@ -234,6 +293,8 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
     await pause(options, 'completed');
     symlinkSync(basename(names.complete), names.link, 'dir');
     await pause(options, 'linked');
+    // What stands at `out` may have changed while the build ran.
+    checkReplaceable(root, out);
     const existing = lstatSync(out, { throwIfNoEntry: false });
     if (existing && !existing.isSymbolicLink()) {
       renameSync(out, names.aside);

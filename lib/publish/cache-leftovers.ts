@@ -3,17 +3,17 @@
  * `<entry>.<pid>.tmp` and renamed into place (lib/plant/results-cache.ts,
  * lib/publish/draft-pdfs.ts); a build killed between the two leaves the temporary file. Each
  * build removes those whose process no longer runs: never one of a live build, which will
- * rename it, and never a finished entry.
+ * rename it, and never a finished entry. Only regular files named exactly as an entry's
+ * temporary file (`<64 hex digits>.<json|pdf>.<pid>.tmp`) are removed, nothing else found there.
  */
-import { readdirSync, rmSync } from 'node:fs';
+import { lstatSync, readdirSync, unlinkSync } from 'node:fs';
 import { join } from 'node:path';
 import { processAlive } from '../archive/sealed-folder.ts';
 import { CACHE_DIR } from '../plant/results-cache.ts';
 
-/** The cache folders whose entries are written through `<entry>.<pid>.tmp`. */
-export const CACHE_FOLDERS = ['results', 'pdf'] as const;
-
-const TEMP = /\.(\d+)\.tmp$/;
+/** The cache folders whose entries are written through `<entry>.<pid>.tmp`, with their entries' extension. */
+const ENTRY_EXTENSIONS = { results: 'json', pdf: 'pdf' } as const;
+export const CACHE_FOLDERS = Object.keys(ENTRY_EXTENSIONS) as (keyof typeof ENTRY_EXTENSIONS)[];
 
 /** Removes the stale temporary files under `<root>/.cellbasis-cache/`; returns their paths relative to root. */
 export function removeCacheLeftovers(root: string): string[] {
@@ -26,10 +26,11 @@ export function removeCacheLeftovers(root: string): string[] {
     } catch {
       continue;
     }
+    const temp = new RegExp(`^[0-9a-f]{64}\\.${ENTRY_EXTENSIONS[folder]}\\.(\\d+)\\.tmp$`);
     for (const name of names) {
-      const pid = Number(TEMP.exec(name)?.[1]);
-      if (!pid || pid === process.pid || processAlive(pid)) continue;
-      rmSync(join(dir, name), { force: true });
+      const pid = Number(temp.exec(name)?.[1]);
+      if (!pid || pid === process.pid || processAlive(pid) || !lstatSync(join(dir, name)).isFile()) continue;
+      unlinkSync(join(dir, name));
       removed.push(join(CACHE_DIR, folder, name));
     }
   }

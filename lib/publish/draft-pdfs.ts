@@ -9,11 +9,11 @@
 import { execFileSync } from 'node:child_process';
 import { availableParallelism } from 'node:os';
 import { createHash } from 'node:crypto';
-import { copyFileSync, existsSync, mkdirSync, readdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
+import { copyFileSync, existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import type { DesignBasis } from '../basis/types.ts';
 import type { Results } from '../plant/results-schema.ts';
-import { CACHE_DIR } from '../plant/results-cache.ts';
+import { CACHE_DIR, writeCacheEntry } from '../plant/results-cache.ts';
 import { libraryFingerprint } from '../plant/fingerprint.ts';
 import { documentPdfMeta, findChromium, withPdfPrinter, type PdfMeta } from './pdf.ts';
 import { ASSET_DIR } from './site-assets.ts';
@@ -93,9 +93,7 @@ export async function printDrafts(root: string, site: string, drafts: DraftPage[
           try {
             const bytes = await printer.print(w.page, w.meta);
             writeFileSync(w.target, bytes);
-            const temp = `${w.cached}.${process.pid}.tmp`;
-            writeFileSync(temp, bytes);
-            renameSync(temp, w.cached);
+            writeCacheEntry(w.cached, bytes);
           } catch (error) {
             failed = true;
             throw error;

@@ -16,6 +16,8 @@ export interface EleventyConfig {
   addWatchTarget(target: string): void;
   setServerOptions(options: Record<string, unknown>): void;
   setQuietMode(quiet: boolean): void;
+  /** Eleventy's events; 'eleventy.before' is awaited before a build writes anything. */
+  on(event: 'eleventy.before', listener: (args: { directories: { output: string }; outputMode: string }) => void | Promise<void>): void;
 }
 
 export interface EleventyRunner {

@@ -8,9 +8,12 @@
  * Under `cellbasis build` the model arrives checked in the build context; under `cellbasis
  * serve` and `npx @11ty/eleventy` it is loaded on every build, and while serving a failed load
  * shows its problems on the index page instead of stopping the server.
+ *
+ * Eleventy's output folder must be a site folder of cellbasis (lib/publish/site-marker.ts: new,
+ * empty or marked) and is marked before anything is written into it.
  */
 import { existsSync, readdirSync } from 'node:fs';
-import { join } from 'node:path';
+import { join, relative, resolve } from 'node:path';
 import { listProjects } from '../basis/projects.ts';
 import { SEALED_FILES, sealedRoot } from '../archive/layout.ts';
 import { UserError } from '../errors.ts';
@@ -23,6 +26,7 @@ import { TEMPLATES_DIR } from './paths.ts';
 import { ASSET_DIR, siteAssets } from './site-assets.ts';
 import { loadSiteModel, type SiteModel } from './site-model.ts';
 import { SiteError } from './site-problems.ts';
+import { claimSiteFolder } from './site-marker.ts';
 
 /** Sealed PDFs under the root, found from the folders alone (the configuration runs before the model loads). */
 function sealedPdfs(root: string): Record<string, string> {
@@ -62,6 +66,10 @@ export default function configureSite(eleventyConfig: EleventyConfig): void {
   eleventyConfig.setTemplateFormats(['njk']);
   eleventyConfig.setLibrary('njk', nunjucksEnvironment());
   eleventyConfig.setQuietMode(true);
+  // Eleventy writes into its output folder in place: only into one of ours (missing, empty or marked), which it marks first.
+  eleventyConfig.on('eleventy.before', ({ directories, outputMode }) => {
+    if (outputMode === 'fs') claimSiteFolder(resolve(directories.output), 'eleventy', relative(process.cwd(), resolve(directories.output)) || '.');
+  });
   eleventyConfig.addGlobalData('cellbasis', siteData);
   for (const asset of siteAssets()) eleventyConfig.addPassthroughCopy({ [asset.from]: `${ASSET_DIR}/${asset.to}` });
   for (const [from, to] of Object.entries(sealedPdfs(context.root))) eleventyConfig.addPassthroughCopy({ [from]: to });

@@ -8,7 +8,9 @@
  *
  * A basis with errors keeps its last good pages and shows its located diagnostics on the index
  * page (and on stderr); the server keeps running. serve writes into the site folder directly
- * (no atomic swap: it is for editing) and never prints PDFs.
+ * (no atomic swap: it is for editing) and never prints PDFs. It writes only into a site folder
+ * of cellbasis (lib/publish/site-marker.ts: missing, empty or marked; a link is followed) and
+ * refuses any other before writing anything.
  *
  *   serveSite({ root, out, port }): Promise<{ stop(): Promise<void> }>
  */
@@ -24,6 +26,7 @@ import { nunjucksEnvironment } from './nunjucks-env.ts';
 import { writeSiteAssets } from './write-assets.ts';
 import { ASSET_DIR } from './site-assets.ts';
 import { TEMPLATES_DIR } from './paths.ts';
+import { claimSiteFolder } from './site-marker.ts';
 
 export interface ServeOptions {
   root: string;
@@ -116,7 +119,7 @@ function projectOf(root: string, path: string): string | null {
 export async function serveSite(options: ServeOptions): Promise<{ stop(): Promise<void> }> {
   const root = resolve(options.root);
   const out = resolve(options.out ?? join(root, 'site'));
-  mkdirSync(out, { recursive: true });
+  claimSiteFolder(out, 'serve', relative(root, out) || '.');
   const site = new IncrementalSite(root, out);
   site.all();
   // Eleventy's dev server (a CommonJS package without type declarations): static files and live reload.

@@ -23,9 +23,8 @@
 // Running these commands, the test found `build --out LINK/A`, with LINK a symbolic link to a
 // sealed folder, replacing sealed revision A by the site; build now refuses an --out that leads
 // into projects/ or a sealed folder through links (lib/publish/build.ts checkOutput).
-import { createHash } from 'node:crypto';
 import { spawn } from 'node:child_process';
-import { chmodSync, lchownSync, lstatSync, mkdirSync, readdirSync, readFileSync, readlinkSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
+import { chmodSync, lchownSync, lstatSync, mkdirSync, readdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { join, relative } from 'node:path';
 import { within } from '../../lib/archive/layout.ts';
@@ -35,26 +34,12 @@ import { run } from '../cli/run.ts';
 import { announceChromiumSkip, describeWithChromium } from '../archive/chromium.ts';
 import { basisPath, PROJECT, removeWorkspace, SEAL_TIMEOUT, seal, workspace } from '../archive/helpers.ts';
 import { BIN, cellbasis, runNode, until, type ChildOptions } from './child.ts';
+import { treeRecord } from './tree-record.ts';
 
 announceChromiumSkip('the sealed-folder tests');
 
 const SEALED = join('projects', PROJECT, 'sealed');
 const NOBODY = 65534;
-
-/** One record line per entry under `dir` (the folder itself included): everything a write, a chmod or a touch changes. */
-function record(dir: string): Record<string, string> {
-  const out: Record<string, string> = {};
-  const walk = (path: string) => {
-    const s = lstatSync(path, { bigint: true });
-    const rel = relative(dir, path) || '.';
-    const kind = s.isDirectory() ? 'dir' : s.isFile() ? 'file' : s.isSymbolicLink() ? 'link' : 'other';
-    const content = kind === 'file' ? createHash('sha256').update(readFileSync(path)).digest('hex') : kind === 'link' ? readlinkSync(path) : kind === 'dir' ? readdirSync(path).sort().join(',') : '';
-    out[rel] = `${kind} mode=${(Number(s.mode) & 0o7777).toString(8)} size=${s.size} ino=${s.ino} nlink=${s.nlink} mtime=${s.mtimeNs} ctime=${s.ctimeNs} ${content}`;
-    if (kind === 'dir') for (const name of readdirSync(path)) walk(join(path, name));
-  };
-  walk(dir);
-  return out;
-}
 
 /** What went wrong with one command: its exit code, and each entry of the record it changed, added or removed. */
 function differences(what: string, exit: number, r: { code: number; err: string }, before: Record<string, string>, after: Record<string, string>): string[] {
@@ -136,8 +121,8 @@ function steps(tag: string): Step[] {
     refused('link-to-sealed/new-site'),
     refused('link-to-project/sealed'),
     refused('link-to-project/site'),
-    // A link of one's own as the site folder: the build replaces the link, never what it pointed to.
-    { argv: ['build', '--html-only', '--out', `own-link-${tag}`], exit: 0, around: (cwd) => (symlinkSync(SEALED, join(cwd, `own-link-${tag}`)), () => undefined) },
+    // A link of one's own to the sealed folder as the site folder: not a site cellbasis built, so refused (exit 1), the link and the folder as they were.
+    { argv: ['build', '--html-only', '--out', `own-link-${tag}`], exit: 1, around: (cwd) => (symlinkSync(SEALED, join(cwd, `own-link-${tag}`)), () => undefined) },
     { argv: ['serve', '--port', '0'], exit: 2 },
     { argv: ['new', `other-${tag}`, '--technology', 'pem'], exit: 0, around: (cwd) => () => rmSync(join(cwd, 'projects', `other-${tag}`), { recursive: true, force: true }) },
     { argv: ['new', PROJECT, '--technology', 'pem'], exit: 2 },
@@ -190,23 +175,23 @@ describeWithChromium('the sealed folder, under every other command', () => {
   }, SEAL_TIMEOUT);
 
   afterAll(() => {
-    for (const path of [sealed, ...Object.keys(record(sealed)).map((p) => join(sealed, p))]) chmodSync(path, 0o755);
+    for (const path of [sealed, ...Object.keys(treeRecord(sealed)).map((p) => join(sealed, p))]) chmodSync(path, 0o755);
     removeWorkspace(cwd);
   });
 
   it('the record of the sealed folder sees a touch, a chmod and a rewrite of the same bytes', () => {
     const file = join(sealed, 'A', 'manifest.json');
-    const before = record(sealed);
+    const before = treeRecord(sealed);
     writeFileSync(file, readFileSync(file));
-    const rewritten = record(sealed);
+    const rewritten = treeRecord(sealed);
     expect(rewritten['A/manifest.json']).not.toBe(before['A/manifest.json']);
     chmodSync(file, 0o644);
-    expect(record(sealed)['A/manifest.json']).not.toBe(rewritten['A/manifest.json']);
-    expect(Object.keys(record(sealed)).sort()).toEqual(['.', 'A', 'A/basis.yaml', 'A/document.html', 'A/document.pdf', 'A/manifest.json', 'A/manifest.sig', 'A/results.json']);
+    expect(treeRecord(sealed)['A/manifest.json']).not.toBe(rewritten['A/manifest.json']);
+    expect(Object.keys(treeRecord(sealed)).sort()).toEqual(['.', 'A', 'A/basis.yaml', 'A/document.html', 'A/document.pdf', 'A/manifest.json', 'A/manifest.sig', 'A/results.json']);
   });
 
   it('changes nothing under sealed/, running every other command in process, typical and failing', { timeout: 900_000 }, async () => {
-    const before = record(sealed);
+    const before = treeRecord(sealed);
     const problems: string[] = [];
     let previous = before;
     for (const [index, step] of steps('1').entries()) {
@@ -214,13 +199,13 @@ describeWithChromium('the sealed folder, under every other command', () => {
       const r = await run(step.argv, cwd);
       undo?.();
       codes[index] = r.code;
-      const now = record(sealed);
+      const now = treeRecord(sealed);
       problems.push(...differences(`cellbasis ${step.argv.join(' ')}`, step.exit, r, previous, now));
       previous = now;
     }
     expect(problems).toEqual([]);
     expect(await serveOnce(cwd, {})).toBe(0);
-    expect(record(sealed), 'cellbasis serve').toEqual(before);
+    expect(treeRecord(sealed), 'cellbasis serve').toEqual(before);
     expect((await run(['audit', PROJECT, '--key', 'alice.pub'], cwd)).out).toBe('PASS projects/demo rev A\n');
   });
 
@@ -232,7 +217,7 @@ describeWithChromium('the sealed folder, under every other command', () => {
       mkdirSync(join(cwd, 'home'), { recursive: true });
       for (const path of [cwd, ...walkAll(cwd)].filter((p) => !within(sealed, p))) lchownSync(path, NOBODY, NOBODY);
     }
-    for (const path of [sealed, ...Object.keys(record(sealed)).filter((p) => p !== '.').map((p) => join(sealed, p))]) {
+    for (const path of [sealed, ...Object.keys(treeRecord(sealed)).filter((p) => p !== '.').map((p) => join(sealed, p))]) {
       chmodSync(path, Number(lstatSync(path).mode) & 0o555);
     }
     // Control: the user the commands run as cannot write, add, remove or make anything there,
@@ -247,7 +232,7 @@ describeWithChromium('the sealed folder, under every other command', () => {
       for (const [what, code] of Object.entries(writes)) expect(code, what).toMatch(/^(EACCES|EPERM)$/);
       if (asRoot) expect(touch, 'touch').toMatch(/^(EACCES|EPERM)$/);
     }
-    const before = record(sealed);
+    const before = treeRecord(sealed);
 
     const problems: string[] = [];
     let previous = before;
@@ -255,13 +240,13 @@ describeWithChromium('the sealed folder, under every other command', () => {
       const undo = step.around?.(cwd);
       const r = await cellbasis(step.argv, cwd, user);
       undo?.();
-      const now = record(sealed);
+      const now = treeRecord(sealed);
       problems.push(...differences(`cellbasis ${step.argv.join(' ')} (sealed/ read-only)`, codes[index] ?? step.exit, r, previous, now));
       previous = now;
     }
     expect(problems).toEqual([]);
     expect(await serveOnce(cwd, user)).toBe(0);
-    expect(record(sealed), 'cellbasis serve (sealed/ read-only)').toEqual(before);
+    expect(treeRecord(sealed), 'cellbasis serve (sealed/ read-only)').toEqual(before);
     const audit = await cellbasis(['audit', PROJECT, '--key', 'alice.pub'], cwd, user);
     expect(audit.out).toBe('PASS projects/demo rev A\n');
   });

@@ -26,19 +26,21 @@ it('removes the temporary files of ended processes from both caches, and nothing
   roots.push(root);
   const dead = deadPid();
   const live = process.ppid; // the process that started this test runs as long as it does
+  // Entries are named by a SHA-256 in hex; only a temporary file of exactly that naming is removed.
+  const key = (c: string) => c.repeat(64);
   const names: Record<string, string[]> = {
-    results: ['aa.json', `bb.json.${dead}.tmp`, `cc.json.${live}.tmp`, `dd.json.${process.pid}.tmp`],
-    pdf: ['ee.pdf', `ff.pdf.${dead}.tmp`, 'notes.tmp'],
+    results: [`${key('a')}.json`, `${key('b')}.json.${dead}.tmp`, `${key('c')}.json.${live}.tmp`, `${key('d')}.json.${process.pid}.tmp`, `bb.json.${dead}.tmp`],
+    pdf: [`${key('e')}.pdf`, `${key('f')}.pdf.${dead}.tmp`, 'notes.tmp', `${key('f')}.json.${dead}.tmp`],
   };
   for (const folder of CACHE_FOLDERS) {
     mkdirSync(join(root, CACHE_DIR, folder), { recursive: true });
     for (const n of names[folder]!) writeFileSync(join(root, CACHE_DIR, folder, n), 'x');
   }
   const removed = removeCacheLeftovers(root);
-  expect(removed.sort()).toEqual([join(CACHE_DIR, 'pdf', `ff.pdf.${dead}.tmp`), join(CACHE_DIR, 'results', `bb.json.${dead}.tmp`)]);
+  expect(removed.sort()).toEqual([join(CACHE_DIR, 'pdf', `${key('f')}.pdf.${dead}.tmp`), join(CACHE_DIR, 'results', `${key('b')}.json.${dead}.tmp`)]);
   // This process's own file is kept too: it may be writing it now (a second build in the same process).
-  expect(readdirSync(join(root, CACHE_DIR, 'results')).sort()).toEqual(['aa.json', `cc.json.${live}.tmp`, `dd.json.${process.pid}.tmp`].sort());
-  expect(readdirSync(join(root, CACHE_DIR, 'pdf')).sort()).toEqual(['ee.pdf', 'notes.tmp']);
+  expect(readdirSync(join(root, CACHE_DIR, 'results')).sort()).toEqual([`${key('a')}.json`, `${key('c')}.json.${live}.tmp`, `${key('d')}.json.${process.pid}.tmp`, `bb.json.${dead}.tmp`].sort());
+  expect(readdirSync(join(root, CACHE_DIR, 'pdf')).sort()).toEqual([`${key('e')}.pdf`, 'notes.tmp', `${key('f')}.json.${dead}.tmp`].sort());
   expect(removeCacheLeftovers(root), 'a second pass finds nothing').toEqual([]);
 });
 

@@ -51,9 +51,10 @@ export const buildCommand: Command = {
       throw new UserError(`build: ${error.errors.length} error${error.errors.length === 1 ? '' : 's'} in the projects; the site was not built and the previous site is left as it was`, EXIT_VALIDATION);
     }
     const shown = (path: string) => relative(io.cwd, path) || '.';
-    const { removed, restored } = report.leftovers;
+    const { removed, kept, restored } = report.leftovers;
     if (restored) io.err(`cellbasis: put back ${shown(report.out)} from ${shown(join(dirname(report.out), restored))}, where an interrupted build had moved it\n`);
     for (const name of removed) io.err(`cellbasis: removed ${shown(join(dirname(report.out), name))}, left by an interrupted build\n`);
+    for (const name of kept) io.err(`cellbasis: left ${shown(join(dirname(report.out), name))} in place: named as a build's leftover, but not something cellbasis made; remove it yourself if it is yours to remove\n`);
     const temps = report.leftovers.cache.length;
     if (temps) io.err(`cellbasis: removed ${temps} temporary file${temps === 1 ? '' : 's'} under .cellbasis-cache/, left by an interrupted build\n`);
     for (const w of report.warnings) io.err(`${w}\n`);

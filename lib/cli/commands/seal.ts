@@ -58,6 +58,7 @@ export const sealCommand: Command = {
     });
     const m = outcome.manifest;
     for (const name of outcome.removedTemporary) io.err(`cellbasis: removed projects/${project}/sealed/${name}, left by an interrupted seal\n`);
+    for (const name of outcome.keptTemporary) io.err(`cellbasis: left projects/${project}/sealed/${name} in place: named as a killed seal's temporary folder, but not something cellbasis made; remove it yourself\n`);
     io.out(
       `sealed ${outcome.display}/: revision ${m.revision}, ${m.status}, ${m.sealedOn}${m.previous ? ` (follows ${m.previous.revision})` : ''}${outcome.signed ? ', signed' : ''}\n` +
         `  ${Object.keys(m.files).join(', ')}, manifest.json${outcome.signed ? ', manifest.sig' : ''}\n` +
