@@ -1,5 +1,6 @@
 /**
- * Regenerates lib/thermo/data/nasa-glenn-excerpt.inp from the full NASA Glenn file.
+ * Regenerates lib/thermo/data/nasa-glenn-excerpt.inp from the full NASA Glenn file, and beside
+ * it nasa-glenn-excerpt.sha256, the SHA-256 of each record as it stands in the full file.
  *
  *   npx tsx scripts/extract-species.ts ../shared/data/nasa-glenn-thermo.inp
  *
@@ -7,7 +8,13 @@
  * '#' starts a comment). Each record is copied line for line, byte for byte, from the full
  * file; only the line terminator is normalised (CRLF to LF). Gas records keep the order of
  * the full file and come first, then condensed records, as in the original.
+ *
+ * The hashes let test/thermo/nasa-glenn.test.ts show every record of the excerpt verbatim
+ * where the full file is not at hand (a fresh clone, CI): each is the SHA-256 of the record's
+ * lines in the full file, each line ended by LF, with the record's line number there and the
+ * SHA-256 of the whole full file in the header.
  */
+import { createHash } from 'node:crypto';
 import { readFileSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { dirname, join } from 'node:path';
@@ -21,7 +28,8 @@ const wanted = readFileSync(join(dataDir, 'species-list.txt'), 'utf8')
   .map((l) => l.replace(/#.*/, '').trim())
   .filter((l) => l.length > 0);
 
-const lines = readFileSync(source, 'latin1').split(/\r?\n/);
+const fullBytes = readFileSync(source);
+const lines = fullBytes.toString('latin1').split(/\r?\n/);
 
 /** A record starts with a name line followed by a line whose first two columns hold the interval count. */
 function isRecordStart(i: number): boolean {
@@ -85,4 +93,17 @@ const out = [
   '',
 ].join('\n');
 writeFileSync(join(dataDir, 'nasa-glenn-excerpt.inp'), out);
-process.stdout.write(`wrote ${ordered.length} records\n`);
+
+const sha256 = (bytes: string | Buffer) => createHash('sha256').update(bytes).digest('hex');
+const hashes = [
+  '# SHA-256 of each record of nasa-glenn-excerpt.inp as it stands in the full NASA Glenn database',
+  '# (McBride, Zehe & Gordon, NASA/TP-2002-211556): the record\'s lines in the full file, each',
+  '# ended by LF (the full file ends its lines with CRLF), hashed as latin1 bytes. Written with',
+  '# the excerpt by scripts/extract-species.ts from the full file; never edit by hand.',
+  `# Full file: thermo.inp of the Debian package rocketcea 1.1.18+dfsg-3, ${fullBytes.length} bytes, SHA-256 ${sha256(fullBytes)}.`,
+  '# Columns: SHA-256, line of the record\'s name in the full file (from 1), NASA record name.',
+  ...[...gas, ...condensed].map((r) => `${sha256(Buffer.from(r.lines.map((l) => `${l}\n`).join(''), 'latin1'))} ${r.index + 1} ${r.name}`),
+  '',
+].join('\n');
+writeFileSync(join(dataDir, 'nasa-glenn-excerpt.sha256'), hashes);
+process.stdout.write(`wrote ${ordered.length} records and their SHA-256\n`);

@@ -1,5 +1,9 @@
 // The species data file: parsed from NASA's own text format, copied verbatim from the NASA Glenn
-// database (McBride, Zehe & Gordon, NASA/TP-2002-211556) in ../shared/data.
+// database (McBride, Zehe & Gordon, NASA/TP-2002-211556). Verbatim is shown from the repository
+// alone, by the SHA-256 of each record as it stands in the full database, recorded beside the
+// excerpt by scripts/extract-species.ts (lib/thermo/data/nasa-glenn-excerpt.sha256); where the
+// full file is at hand (../shared/data beside the checkout), against it as well.
+import { createHash } from 'node:crypto';
 import { existsSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { parseNasaGlenn } from '../../lib/thermo/nasa-glenn.ts';
@@ -7,6 +11,35 @@ import { allSpecies, getSpecies, speciesDataPath, findSpecies } from '../../lib/
 import { UnknownSpeciesError } from '../../lib/thermo/species-data.ts';
 
 const FULL = new URL('../../../shared/data/nasa-glenn-thermo.inp', import.meta.url);
+const HASHES = new URL('../../lib/thermo/data/nasa-glenn-excerpt.sha256', import.meta.url);
+
+const sha256 = (bytes: Buffer | string) => createHash('sha256').update(bytes).digest('hex');
+
+/** Each record of the excerpt as its lines, each ended by LF, by NASA name (the record's extent from its interval count). */
+function excerptRecords(): Map<string, string> {
+  const lines = readFileSync(speciesDataPath(), 'latin1').split('\n').filter((l) => !l.startsWith('!'));
+  return new Map(
+    allSpecies().map((species) => {
+      const start = lines.findIndex((l) => l.slice(0, 18).trim() === species.nasaName);
+      expect(start, species.nasaName).toBeGreaterThan(0);
+      return [species.nasaName, lines.slice(start, start + 2 + 3 * species.record.intervals.length).map((l) => `${l}\n`).join('')];
+    }),
+  );
+}
+
+/** The recorded hashes: the full file's SHA-256, and per record its SHA-256 and line in the full file. */
+function recordedHashes(): { full: string; records: Map<string, { sha256: string; line: number }> } {
+  const text = readFileSync(HASHES, 'utf8');
+  const full = /^# Full file: .*, SHA-256 ([0-9a-f]{64})\.$/m.exec(text)?.[1];
+  expect(full, 'the header names the full file by its SHA-256').toBeDefined();
+  const records = new Map<string, { sha256: string; line: number }>();
+  for (const row of text.split('\n').filter((l) => l && !l.startsWith('#'))) {
+    const match = /^([0-9a-f]{64}) (\d+) (\S+)$/.exec(row);
+    expect(match, row).not.toBeNull();
+    records.set(match![3]!, { sha256: match![1]!, line: Number(match![2]) });
+  }
+  return { full: full!, records };
+}
 
 describe('NASA Glenn excerpt', () => {
   it('holds every species the issue lists, plus trace species', () => {
@@ -15,19 +48,23 @@ describe('NASA Glenn excerpt', () => {
     }
   });
 
-  it('copies each record byte for byte from the full database (line terminators aside)', () => {
-    if (!existsSync(FULL)) {
-      if (process.env.CI) throw new Error('../shared/data/nasa-glenn-thermo.inp is missing in CI');
-      console.warn('SKIPPED verbatim check: ../shared/data/nasa-glenn-thermo.inp not present');
-      return;
-    }
-    const full = readFileSync(FULL, 'latin1').replace(/\r\n/g, '\n');
-    const excerpt = readFileSync(speciesDataPath(), 'latin1');
-    const records = excerpt.split('\n').filter((l) => !l.startsWith('!'));
-    for (const species of allSpecies()) {
-      const start = records.findIndex((l) => l.slice(0, 18).trim() === species.nasaName);
-      const block = records.slice(start, start + 2 + 3 * species.record.intervals.length).join('\n');
-      expect(full.includes(block + '\n'), species.nasaName).toBe(true);
+  it('holds each record byte for byte as the full database has it: its SHA-256 as recorded from the full file (line terminators aside)', () => {
+    const records = excerptRecords();
+    const { records: recorded } = recordedHashes();
+    expect([...recorded.keys()].sort(), 'a hash for every record, and no other').toEqual([...records.keys()].sort());
+    for (const [name, block] of records) expect(sha256(Buffer.from(block, 'latin1')), name).toBe(recorded.get(name)!.sha256);
+  });
+
+  it('where the full database is at hand: each record is in it at the recorded line, and the recorded hashes are of that file', (context) => {
+    if (!existsSync(FULL)) context.skip('../shared/data/nasa-glenn-thermo.inp is not beside this checkout; the recorded hashes stand for it (test above)');
+    const bytes = readFileSync(FULL);
+    const { full, records: recorded } = recordedHashes();
+    expect(sha256(bytes), 'the full file the hashes were recorded from').toBe(full);
+    const lines = bytes.toString('latin1').split(/\r?\n/);
+    for (const [name, block] of excerptRecords()) {
+      const { line } = recorded.get(name)!;
+      const count = block.split('\n').length - 1;
+      expect(lines.slice(line - 1, line - 1 + count).map((l) => `${l}\n`).join(''), name).toBe(block);
     }
   });
 
