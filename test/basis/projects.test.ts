@@ -6,8 +6,13 @@ import { describe, expect, it } from 'vitest';
 import { listProjects, resolveProjectArg } from '../../lib/basis/projects.ts';
 import { UserError } from '../../lib/errors.ts';
 
-function workspace(): string {
-  const cwd = mkdtempSync(join(tmpdir(), 'cellbasis-projects-'));
+/**
+ * A working folder of a fixed name inside a fresh temporary folder: the id of a basis file named
+ * by its path comes from the name of its folder, which must not be mkdtemp's random letters
+ * (they made a valid id about one run in 25: six of a-z and 0-9 out of a-z, A-Z and 0-9).
+ */
+function workspace(name = 'Work Folder'): string {
+  const cwd = join(mkdtempSync(join(tmpdir(), 'cellbasis-projects-')), name);
   for (const id of ['beta', 'alpha', 'no-basis', 'Bad_Name']) mkdirSync(join(cwd, 'projects', id), { recursive: true });
   for (const id of ['beta', 'alpha', 'Bad_Name']) writeFileSync(join(cwd, 'projects', id, 'basis.yaml'), 'document: {}\n');
   return cwd;
@@ -31,7 +36,10 @@ describe('projects', () => {
 
   it('an argument ending in .yaml or .yml is a file; another with a path separator is refused (exit 2)', () => {
     const cwd = workspace();
+    // The id is the name of the file's folder where that is a valid id, else "basis".
     expect(resolveProjectArg('site.yml', cwd)).toEqual({ path: join(cwd, 'site.yml'), displayPath: 'site.yml', id: 'basis' });
+    const plant = workspace('plant-7');
+    expect(resolveProjectArg('site.yml', plant)).toEqual({ path: join(plant, 'site.yml'), displayPath: 'site.yml', id: 'plant-7' });
     expect(resolveProjectArg('projects/beta/basis.yaml', cwd)).toMatchObject({ path: join(cwd, 'projects/beta/basis.yaml'), id: 'beta' });
     const error = refusal('somewhere/else', cwd);
     expect(error.exitCode).toBe(2);
