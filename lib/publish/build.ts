@@ -48,7 +48,7 @@ import { printDrafts } from './draft-pdfs.ts';
 import { removeCacheLeftovers } from './cache-leftovers.ts';
 import { UserError, EXIT_INTERNAL } from '../errors.ts';
 import { setBuildContext } from './build-context.ts';
-import { notOursError, removeOwnFolder, siteFolderProblem, writeSiteMarker } from './site-marker.ts';
+import { notOursError, removeOwnFolder, siteFolderProblem, SYMBOLIC_LINK, writeSiteMarker } from './site-marker.ts';
 import { createEleventy } from './eleventy-api.ts';
 import { ELEVENTY_CONFIG, TEMPLATES_DIR } from './paths.ts';
 import { loadSiteModel, type SiteOptions } from './site-model.ts';
@@ -123,19 +123,23 @@ function shownPath(root: string, path: string): string {
   return rel === '' ? '.' : rel.startsWith('..') ? path : rel;
 }
 
+/** Why the build may not replace `out` (siteFolderProblem's words), or null. */
+function replaceProblem(out: string): string | null {
+  const problem = siteFolderProblem(out);
+  if (problem !== SYMBOLIC_LINK) return problem;
+  const target = readlinkSync(out);
+  if (siblingPattern(out).exec(target)?.[2] !== 'build') return `a symbolic link to ${target}, not to a site cellbasis built beside it`;
+  const linked = siteFolderProblem(join(dirname(out), target));
+  return linked && `a symbolic link to ${target}, which is ${linked}`;
+}
+
 /**
  * Refuses (exit 1, nothing changed) an `out` the build would replace but did not make: anything
  * but nothing, an empty folder, a folder carrying the site marker, or a link to a build folder
  * beside it (the link a build makes), which must itself be missing, empty or marked.
  */
 function checkReplaceable(root: string, out: string): void {
-  let problem = siteFolderProblem(out);
-  if (problem === 'a symbolic link') {
-    const target = readlinkSync(out);
-    const name = siblingPattern(out).exec(target);
-    const linked = name?.[2] === 'build' ? siteFolderProblem(join(dirname(out), target)) : 'not a site';
-    problem = linked === null ? null : linked === 'not a site' ? `a symbolic link to ${target}, not to a site cellbasis built beside it` : `a symbolic link to ${target}, which is ${linked}`;
-  }
+  const problem = replaceProblem(out);
   if (problem) {
     const shown = shownPath(root, out);
     throw notOursError('build', shown, problem, `choose another folder with --out, or move ${shown} away (remove it yourself if it is yours to remove)`);

@@ -22,6 +22,9 @@ export const SITE_MARKER = '.cellbasis-site';
 /** The marker's exact bytes: the tool, the format of the site folder, and what the file is for. */
 export const SITE_MARKER_TEXT = 'cellbasis site\nformat 1\nThis folder was written by cellbasis, which may replace or remove it whole.\n';
 
+/** siteFolderProblem's words for a symbolic link, which it does not follow. */
+export const SYMBOLIC_LINK = 'a symbolic link';
+
 /** Whether the marker in `dir` is exactly ours: a regular file of the marker's size and bytes (nothing else is opened). */
 function markerProblem(dir: string): string | null {
   const marker = join(dir, SITE_MARKER);
@@ -52,7 +55,7 @@ function notAFolder(stat: Stats): string {
 export function siteFolderProblem(path: string): string | null {
   const stat = lstatSync(path, { throwIfNoEntry: false });
   if (!stat) return null;
-  if (stat.isSymbolicLink()) return 'a symbolic link';
+  if (stat.isSymbolicLink()) return SYMBOLIC_LINK;
   if (!stat.isDirectory()) return notAFolder(stat);
   return folderProblem(path);
 }
@@ -73,6 +76,9 @@ export function writeSiteMarker(dir: string): void {
  */
 export function claimSiteFolder(path: string, command: string, shown: string): void {
   const stat = statSync(path, { throwIfNoEntry: false });
+  if (!stat && lstatSync(path, { throwIfNoEntry: false })) {
+    throw notOursError(command, shown, `a symbolic link to ${readlinkSync(path)}, which does not exist`, `move ${shown} away, or remove it yourself if it is yours to remove`);
+  }
   if (!stat) {
     mkdirSync(path, { recursive: true });
     writeSiteMarker(path);

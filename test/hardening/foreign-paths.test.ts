@@ -178,6 +178,20 @@ it('serve refuses a site/ that cellbasis did not make, before writing anything',
   expect(recordOf(root, outside)).toEqual(before);
 });
 
+it('serve refuses a site/ that is a link to a foreign folder or to nothing, and writes nothing through it', async () => {
+  const { root, outside } = workspace();
+  for (const [target, says] of [
+    [outside, /serve: site \(a symbolic link to .*cellbasis-foreign-outside-.*\) is a folder that cellbasis did not make/],
+    [join(outside, 'not-yet'), /serve: site is a symbolic link to .*not-yet, which does not exist/],
+  ] as const) {
+    symlinkSync(target, join(root, 'site'));
+    const before = recordOf(root, outside);
+    await expect(serveSite({ root, port: 1 })).rejects.toThrow(says);
+    expect(recordOf(root, outside)).toEqual(before);
+    rmSync(join(root, 'site'));
+  }
+});
+
 it('npx @11ty/eleventy with the site\'s configuration refuses a foreign output folder and marks the one it writes', async () => {
   const { root, outside } = workspace();
   const eleventy = join(import.meta.dirname, '..', '..', 'node_modules', '@11ty', 'eleventy', 'cmd.cjs');
