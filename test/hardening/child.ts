@@ -27,6 +27,8 @@ export interface ChildOptions {
   wrapper?: string[];
   uid?: number;
   gid?: number;
+  /** The cellbasis binary to run (default BIN, this checkout's), e.g. a copy another user can read. */
+  bin?: string;
 }
 
 function childEnv(extra: Record<string, string> = {}): NodeJS.ProcessEnv {
@@ -52,7 +54,7 @@ export function runNode(args: string[], cwd: string, options: ChildOptions = {})
 
 /** Runs `cellbasis ARGV` in `cwd` to its end. */
 export function cellbasis(argv: string[], cwd: string, options: ChildOptions = {}): Promise<ChildRun> {
-  return runNode([BIN, ...argv], cwd, options);
+  return runNode([options.bin ?? BIN, ...argv], cwd, options);
 }
 
 export interface Started {

@@ -18,20 +18,24 @@
 // when the test runs as root those commands run as the user nobody (the working folder handed
 // to it, sealed/ left root's), and a control shows that such a process indeed cannot write,
 // add, remove, rename or touch anything under sealed/. Where a read-only sealed/ does not stop
-// writes, the test says so and the record check is what stands.
+// writes, the test says so and the record check is what stands. A checkout inside a private
+// folder (mode 0700, as mktemp -d makes) is out of nobody's reach: the test then runs a copy of
+// what the binary needs, made readable in a temporary folder. It skips, saying why, only where
+// that user can reach neither the checkout nor the copy (or not Node.js, or the working folder).
 //
 // Running these commands, the test found `build --out LINK/A`, with LINK a symbolic link to a
 // sealed folder, replacing sealed revision A by the site; build now refuses an --out that leads
 // into projects/ or a sealed folder through links (lib/publish/build.ts checkOutput).
 import { spawn } from 'node:child_process';
-import { chmodSync, lchownSync, lstatSync, mkdirSync, readdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
-import { createServer } from 'node:net';
-import { join, relative } from 'node:path';
+import { chmodSync, cpSync, lchownSync, lstatSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { dirname, join, relative } from 'node:path';
 import { within } from '../../lib/archive/layout.ts';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { renderScaffold } from '../../lib/basis/scaffolds.ts';
 import { run } from '../cli/run.ts';
 import { announceChromiumSkip, describeWithChromium } from '../archive/chromium.ts';
+import { freePort } from '../publish/helpers.ts';
 import { basisPath, PROJECT, removeWorkspace, SEAL_TIMEOUT, seal, workspace } from '../archive/helpers.ts';
 import { BIN, cellbasis, runNode, until, type ChildOptions } from './child.ts';
 import { treeRecord } from './tree-record.ts';
@@ -40,6 +44,49 @@ announceChromiumSkip('the sealed-folder tests');
 
 const SEALED = join('projects', PROJECT, 'sealed');
 const NOBODY = 65534;
+
+/** What the binary needs of the checkout to run: its code, templates, configuration and installed packages. */
+const RUNTIME = ['bin', 'lib', 'templates', 'node_modules', 'package.json', 'tsconfig.json', '.eleventy.js'];
+
+/** Whether `user` can read the binary `bin`, running Node.js in `cwd`; the reason when not. */
+async function readableBy(user: ChildOptions, bin: string, cwd: string): Promise<string | null> {
+  try {
+    const probe = await runNode(['-e', `require('fs').accessSync(${JSON.stringify(bin)}, require('fs').constants.R_OK)`], cwd, user);
+    return probe.code === 0 ? null : `it cannot read ${bin}: ${probe.err.trim().split('\n').find((l) => /Error/.test(l)) ?? probe.err.trim()}`;
+  } catch (error) {
+    return `it cannot run ${process.execPath} in ${cwd}: ${(error as Error).message}`;
+  }
+}
+
+/**
+ * The binary `user` runs: this checkout's where it can read it; else a copy of RUNTIME in a new
+ * folder under the temporary folder, readable by everyone (folders 0755, files a+r); or, when
+ * the user reaches neither, why not (the test then skips with that reason).
+ */
+async function binaryFor(user: ChildOptions, cwd: string, made: string[]): Promise<{ bin: string } | { skip: string }> {
+  const checkout = dirname(dirname(BIN));
+  const here = await readableBy(user, BIN, cwd);
+  if (here === null) return { bin: BIN };
+  const copy = mkdtempSync(join(tmpdir(), 'cellbasis-readable-'));
+  made.push(copy);
+  for (const entry of RUNTIME) cpSync(join(checkout, entry), join(copy, entry), { recursive: true, verbatimSymlinks: true });
+  for (const path of [copy, ...walkAll(copy)]) {
+    const stat = lstatSync(path);
+    if (!stat.isSymbolicLink()) chmodSync(path, stat.isDirectory() ? 0o755 : (stat.mode & 0o7777) | 0o444);
+  }
+  const bin = join(copy, relative(checkout, BIN));
+  const there = await readableBy(user, bin, cwd);
+  console.info(`uid ${user.uid}: ${here}; running a copy readable by everyone, ${copy}`);
+  return there === null ? { bin } : { skip: `uid ${user.uid} cannot reach this checkout (${here}) nor a readable copy of it (${there})` };
+}
+
+/** Every path under `dir`, links not followed. */
+function walkAll(dir: string): string[] {
+  return readdirSync(dir, { withFileTypes: true }).flatMap((entry) => {
+    const path = join(dir, entry.name);
+    return entry.isDirectory() ? [path, ...walkAll(path)] : [path];
+  });
+}
 
 /** What went wrong with one command: its exit code, and each entry of the record it changed, added or removed. */
 function differences(what: string, exit: number, r: { code: number; err: string }, before: Record<string, string>, after: Record<string, string>): string[] {
@@ -130,18 +177,10 @@ function steps(tag: string): Step[] {
   ];
 }
 
-const freePort = () =>
-  new Promise<number>((resolve) => {
-    const server = createServer().listen(0, '127.0.0.1', () => {
-      const { port } = server.address() as { port: number };
-      server.close(() => resolve(port));
-    });
-  });
-
 /** `cellbasis serve` as a child: served, rebuilt after an edit of the working basis, stopped with Ctrl-C (SIGINT). */
 async function serveOnce(cwd: string, options: ChildOptions): Promise<number | null> {
   const port = await freePort();
-  const child = spawn(process.execPath, [BIN, 'serve', '--port', String(port)], { cwd, env: { ...process.env, ...options.env }, stdio: ['ignore', 'ignore', 'pipe'], ...(options.uid === undefined ? {} : { uid: options.uid, gid: options.gid }) });
+  const child = spawn(process.execPath, [options.bin ?? BIN, 'serve', '--port', String(port)], { cwd, env: { ...process.env, ...options.env }, stdio: ['ignore', 'ignore', 'pipe'], ...(options.uid === undefined ? {} : { uid: options.uid, gid: options.gid }) });
   let stderr = '';
   child.stderr.on('data', (d: Buffer) => (stderr += d.toString()));
   const exited = new Promise<number | null>((resolve) => child.on('exit', (code) => resolve(code)));
@@ -163,6 +202,8 @@ describeWithChromium('the sealed folder, under every other command', () => {
   let sealed: string;
   /** Exit code of each step in the first round, by its position. */
   const codes: number[] = [];
+  /** Folders made besides the working folder (a readable copy of the checkout). */
+  const made: string[] = [];
 
   beforeAll(async () => {
     cwd = workspace('solid-oxide', 'power');
@@ -177,6 +218,7 @@ describeWithChromium('the sealed folder, under every other command', () => {
   afterAll(() => {
     for (const path of [sealed, ...Object.keys(treeRecord(sealed)).map((p) => join(sealed, p))]) chmodSync(path, 0o755);
     removeWorkspace(cwd);
+    for (const dir of made) rmSync(dir, { recursive: true, force: true });
   });
 
   it('the record of the sealed folder sees a touch, a chmod and a rewrite of the same bytes', () => {
@@ -209,13 +251,16 @@ describeWithChromium('the sealed folder, under every other command', () => {
     expect((await run(['audit', PROJECT, '--key', 'alice.pub'], cwd)).out).toBe('PASS projects/demo rev A\n');
   });
 
-  it('changes nothing under a read-only sealed/ either, and every command still succeeds (child processes)', { timeout: 1_200_000 }, async () => {
+  it('changes nothing under a read-only sealed/ either, and every command still succeeds (child processes)', { timeout: 1_200_000 }, async (context) => {
     const asRoot = process.getuid?.() === 0;
-    const user: ChildOptions = asRoot ? { uid: NOBODY, gid: NOBODY, env: { HOME: join(cwd, 'home') } } : {};
+    let user: ChildOptions = asRoot ? { uid: NOBODY, gid: NOBODY, env: { HOME: join(cwd, 'home') } } : {};
     if (asRoot) {
       // The working folder is handed to nobody, all but sealed/, which stays root's.
       mkdirSync(join(cwd, 'home'), { recursive: true });
       for (const path of [cwd, ...walkAll(cwd)].filter((p) => !within(sealed, p))) lchownSync(path, NOBODY, NOBODY);
+      const binary = await binaryFor(user, cwd, made);
+      if ('skip' in binary) context.skip(binary.skip);
+      else user = { ...user, bin: binary.bin };
     }
     for (const path of [sealed, ...Object.keys(treeRecord(sealed)).filter((p) => p !== '.').map((p) => join(sealed, p))]) {
       chmodSync(path, Number(lstatSync(path).mode) & 0o555);
@@ -250,12 +295,4 @@ describeWithChromium('the sealed folder, under every other command', () => {
     const audit = await cellbasis(['audit', PROJECT, '--key', 'alice.pub'], cwd, user);
     expect(audit.out).toBe('PASS projects/demo rev A\n');
   });
-
-  /** Every path under `dir`, links not followed. */
-  function walkAll(dir: string): string[] {
-    return readdirSync(dir, { withFileTypes: true }).flatMap((entry) => {
-      const path = join(dir, entry.name);
-      return entry.isDirectory() ? [path, ...walkAll(path)] : [path];
-    });
-  }
 });

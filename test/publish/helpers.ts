@@ -6,6 +6,7 @@
  */
 import { createHash } from 'node:crypto';
 import { cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { createServer, type AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join, relative } from 'node:path';
 import { inflateSync } from 'node:zlib';
@@ -25,6 +26,21 @@ export function demoRoot(projects: readonly string[] = DEMO_PROJECTS): string {
   const root = mkdtempSync(join(tmpdir(), 'cellbasis-site-'));
   for (const id of projects) cpSync(join(PACKAGE_ROOT, 'projects', id, 'basis.yaml'), join(root, 'projects', id, 'basis.yaml'));
   return root;
+}
+
+/**
+ * A port no process on this machine listens on now, as the system hands out for port 0: for a
+ * test server (a fixed port, or one derived from the process id, is taken now and then by
+ * another run or by an outgoing connection in the ephemeral range).
+ */
+export function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const server = createServer().listen(0, '127.0.0.1', () => {
+      const { port } = server.address() as AddressInfo;
+      server.close(() => resolve(port));
+    });
+    server.on('error', reject);
+  });
 }
 
 export function basisFile(root: string, id: string): string {
