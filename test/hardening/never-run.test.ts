@@ -2,7 +2,7 @@
 // shell are refused before anything is built (and leave no trace), template and script syntax
 // in the basis's text comes back as the same text, and `cellbasis new` refuses ids that are
 // shell or path syntax, writing nothing.
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, writeFileSync } from 'node:fs';
+import { existsSync, lstatSync, mkdirSync, mkdtempSync, readdirSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -68,12 +68,15 @@ describe('nothing in a basis runs', () => {
     'cellbasis new refuses the id %j and writes nothing',
     async (id) => {
       const root = mkdtempSync(join(tmpdir(), 'cellbasis-new-hostile-'));
+      // /tmp/pwned as it was (whatever else on the machine may have put there): no command may make or touch it.
+      const pwned = () => lstatSync(join(tmpdir(), 'pwned'), { bigint: true, throwIfNoEntry: false })?.ctimeNs ?? null;
+      const before = pwned();
       const r = await run(['new', id, '--technology', 'pem'], root);
       expect(r.code).toBe(2);
       expect(r.err).toMatch(/^cellbasis: (new: )?(project id .* (may not contain|must be 1 to 64 characters)|new: unknown option)/);
       expect(r.err).not.toMatch(/\n\s+at /);
       expect(readdirSync(root), 'nothing written').toEqual([]);
-      expect(existsSync(join(tmpdir(), 'pwned'))).toBe(false);
+      expect(pwned()).toBe(before);
     },
   );
 });

@@ -6,17 +6,17 @@ import { afterAll, beforeAll, expect, it } from 'vitest';
 import { serveSite } from '../../lib/publish/serve.ts';
 import { buildSite } from '../../lib/publish/build.ts';
 import { join } from 'node:path';
-import { basisFile, demoRoot } from './helpers.ts';
+import { basisFile, demoRoot, freePort } from './helpers.ts';
 
 const ID = 'hob-tor-pem-backup';
 /** A second project, which a change to the first must leave alone. */
 const OTHER = 'kestrelford-pem-electrolyser';
-const PORT = 20000 + (process.pid % 20000);
+let port: number;
 let root: string;
 let server: { stop(): Promise<void> };
 
 async function page(path: string): Promise<string> {
-  const response = await fetch(`http://127.0.0.1:${PORT}/${path}`);
+  const response = await fetch(`http://127.0.0.1:${port}/${path}`);
   return response.text();
 }
 
@@ -33,7 +33,8 @@ async function until(path: string, test: (html: string) => boolean): Promise<str
 
 beforeAll(async () => {
   root = demoRoot([ID, OTHER]);
-  server = await serveSite({ root, port: PORT });
+  port = await freePort();
+  server = await serveSite({ root, port });
 }, 120_000);
 
 afterAll(async () => {
