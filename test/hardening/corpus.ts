@@ -3,9 +3,11 @@
 // command run on it, the exit code and every line it writes on stderr.
 import { closeSync, copyFileSync, mkdirSync, openSync, readdirSync, readFileSync, writeSync } from 'node:fs';
 import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { expect } from 'vitest';
 
-export const CORPUS = new URL('./corpus/', import.meta.url).pathname;
+// fileURLToPath, not URL.pathname, which keeps a space in the path as %20.
+export const CORPUS = fileURLToPath(new URL('./corpus/', import.meta.url));
 
 /** What one command must give on the case. */
 export interface Outcome {

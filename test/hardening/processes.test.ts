@@ -7,12 +7,13 @@ import { spawn } from 'node:child_process';
 import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { renderScaffold } from '../../lib/basis/scaffolds.ts';
 import { corpusCases, expectOutcome, placeCase } from './corpus.ts';
 
-const BIN = new URL('../../bin/cellbasis.js', import.meta.url).pathname;
-const FAILING_STDOUT = new URL('./fixtures/failing-stdout.mjs', import.meta.url).pathname;
+const BIN = fileURLToPath(new URL('../../bin/cellbasis.js', import.meta.url));
+const FAILING_STDOUT = fileURLToPath(new URL('./fixtures/failing-stdout.mjs', import.meta.url));
 
 interface Ran {
   code: number;
