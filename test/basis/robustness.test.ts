@@ -48,11 +48,18 @@ describe('robustness', () => {
           expect(d.line).toBeGreaterThanOrEqual(1);
           expect(d.line).toBeLessThanOrEqual(lineCount);
           expect(d.column).toBeGreaterThanOrEqual(1);
-          expect(d.message).not.toMatch(/undefined|\[object Object\]|NaN/);
+          // No internal value leaks into a message; the user's own text, quoted as written, may say anything.
+          const ours = d.message.replace(/"([^"]*)"/g, (quoted, inner: string) => (inner && text.includes(inner) ? '""' : quoted));
+          expect(ours).not.toMatch(/undefined|\[object Object\]|NaN/);
         }
         if (!result.ok) expect(result.errors.length).toBeGreaterThan(0);
       }),
-      { numRuns: 1500 },
+      {
+        numRuns: 1500,
+        // Found at random (CI run of 4 Dec 2026, seed 665415344): a value NaN written by the user,
+        // quoted back as written ('expected a mapping, got "NaN"'), which the check took for a leak.
+        examples: [[[{ kind: 'drop', line: 0 }, { kind: 'value', line: 11, value: 'NaN' }]]],
+      },
     );
   });
 });
