@@ -8,7 +8,7 @@ import { loadBasisText } from '../basis/load.ts';
 import { BasisError, formatDiagnostic } from '../basis/diagnostics.ts';
 import { calculate } from '../plant/calculate.ts';
 import { speciesDataHash } from '../thermo/species-data.ts';
-import { toolVersion } from '../cli/version.ts';
+import { toolVersion } from '../core/version.ts';
 import { SEALED_FILES } from './layout.ts';
 import { compareResults } from './audit-results.ts';
 import { finding, type AuditFinding } from './audit-finding.ts';

@@ -4,7 +4,7 @@
  * changes in percentage points, flows as computed. Formatting only; no arithmetic on meaning.
  */
 import type { Results } from '../plant/results-schema.ts';
-import { sig } from '../cli/format.ts';
+import { sig } from '../core/plain-text.ts';
 
 type HeadlineKey = { [K in keyof Results['headline']]: Results['headline'][K] extends number | null ? K : never }[keyof Results['headline']];
 

@@ -5,7 +5,7 @@
 import { projectBasisPath } from '../basis/projects.ts';
 import type { Diagnostic } from '../basis/types.ts';
 import { calculate } from '../plant/calculate.ts';
-import { EXIT_USAGE, UserError } from '../errors.ts';
+import { EXIT_USAGE, UserError } from '../core/errors.ts';
 import type { RevisionSide } from './compare.ts';
 import { readSealedFolder } from './sealed-folder.ts';
 import { readSealedRevision } from './sealed-revision.ts';

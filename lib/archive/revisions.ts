@@ -5,7 +5,7 @@
  * numbers 0, 1, 2, … once it is approved for use. A letter revision may be followed by the next
  * letter or by 0; a number only by the next number. The first revision is A or 0.
  */
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 const LETTERS = 'ABCDEFGHJKLMNPRTUVWY'.split('');
 

@@ -5,7 +5,7 @@
  * else SOURCE_DATE_EPOCH (that second, https://reproducible-builds.org/specs/source-date-epoch/),
  * else today (00:00 UTC). Never the time of day of the clock.
  */
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 export interface SealDate {
   /** YYYY-MM-DD (UTC). */

@@ -32,9 +32,9 @@ import { DOCUMENT_STATUSES, type DesignBasis, type Diagnostic, type DocumentStat
 import { calculate } from '../plant/calculate.ts';
 import type { Results } from '../plant/results-schema.ts';
 import { speciesDataHash } from '../thermo/species-data.ts';
-import { toolVersion } from '../cli/version.ts';
+import { toolVersion } from '../core/version.ts';
 import { documentPdfMeta, findChromium, ChromiumMissingError, withPdfPrinter } from '../publish/pdf.ts';
-import { EXIT_USAGE, EXIT_VALIDATION, UserError } from '../errors.ts';
+import { EXIT_USAGE, EXIT_VALIDATION, UserError } from '../core/errors.ts';
 import { SEALED_FILES, sealedDir, sealedRoot, type SealManifest } from './layout.ts';
 import { checkFollows, successors } from './revisions.ts';
 import { acquireSealLock, isSealTemporary, lastRevision, readSealedFolder, tempDirName, type SealedFolder } from './sealed-folder.ts';

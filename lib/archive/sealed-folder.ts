@@ -10,7 +10,7 @@
  */
 import { lstatSync, readdirSync, readFileSync, unlinkSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { EXIT_USAGE, EXIT_VALIDATION, UserError } from '../errors.ts';
+import { EXIT_USAGE, EXIT_VALIDATION, UserError } from '../core/errors.ts';
 import { SEALED_FILES, sealedRoot } from './layout.ts';
 import { compareRevisions, isRevision } from './revisions.ts';
 

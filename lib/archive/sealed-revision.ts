@@ -9,7 +9,7 @@ import { loadBasisText } from '../basis/load.ts';
 import { formatDiagnostic } from '../basis/diagnostics.ts';
 import type { DesignBasis } from '../basis/types.ts';
 import { resultsSchema, type Results } from '../plant/results-schema.ts';
-import { EXIT_VALIDATION, UserError } from '../errors.ts';
+import { EXIT_VALIDATION, UserError } from '../core/errors.ts';
 import { SEALED_FILES, sealedDir, type SealManifest } from './layout.ts';
 import { parseManifest } from './manifest.ts';
 

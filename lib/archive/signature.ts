@@ -7,7 +7,7 @@
  */
 import { createHash, createPrivateKey, createPublicKey, generateKeyPairSync, sign, verify, type KeyObject } from 'node:crypto';
 import { readFileSync } from 'node:fs';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 function readKeyFile(path: string, display: string): string {
   try {

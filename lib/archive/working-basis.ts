@@ -9,7 +9,7 @@ import { BasisError } from '../basis/diagnostics.ts';
 import { projectBasisPath } from '../basis/projects.ts';
 import { decodeBasisBytes, MAX_BASIS_BYTES, tooLargeError } from '../basis/source-text.ts';
 import type { DesignBasis, Diagnostic } from '../basis/types.ts';
-import { EXIT_USAGE, UserError } from '../errors.ts';
+import { EXIT_USAGE, UserError } from '../core/errors.ts';
 
 export interface WorkingBasis {
   /** projects/<id>/basis.yaml, as messages show it. */

@@ -9,7 +9,7 @@ import { findPreset, presetNames } from './presets.ts';
 import { didYouMean } from './suggest.ts';
 import type { Path } from './diagnostics.ts';
 import type { Reader } from './reader.ts';
-import { quoted } from './quote.ts';
+import { quoted } from '../core/quote.ts';
 
 /** Largest departure of the sum of mole fractions from 1 that is normalised rather than refused. */
 export const SUM_TOLERANCE = 0.005;

@@ -4,7 +4,7 @@
  * line and column. This module also formats diagnostics as `file:line:col: path: message` and
  * defines `BasisError`, the UserError that carries them for callers that prefer to throw.
  */
-import { EXIT_VALIDATION, UserError } from '../errors.ts';
+import { EXIT_VALIDATION, UserError } from '../core/errors.ts';
 import type { Diagnostic } from './types.ts';
 
 /** A key or list index on the way from the document root to a value. */

@@ -5,7 +5,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { parse as parseYaml } from 'yaml';
-import { parseQuantity, type Dimension } from './units.ts';
+import { parseQuantity, type Dimension } from '../core/units.ts';
 
 export type LimitedInput = 'pressure' | 'current-density' | 'active-area' | 'cell-voltage' | 'target-power' | 'target-hydrogen' | 'utilization' | 'allowed-air-temperature-rise';
 

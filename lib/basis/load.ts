@@ -13,7 +13,7 @@ import { locate } from './locate.ts';
 import { Reader } from './reader.ts';
 import { Findings, sortDiagnostics } from './diagnostics.ts';
 import type { DesignBasis, Diagnostic } from './types.ts';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 export type LoadResult = { ok: true; basis: DesignBasis; warnings: Diagnostic[] } | { ok: false; errors: Diagnostic[]; warnings: Diagnostic[] };
 

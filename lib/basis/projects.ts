@@ -7,8 +7,8 @@
  */
 import { existsSync, lstatSync, readdirSync, readlinkSync, realpathSync } from 'node:fs';
 import { isAbsolute, join, relative, resolve, sep } from 'node:path';
-import { quoted } from './quote.ts';
-import { UserError, EXIT_USAGE } from '../errors.ts';
+import { quoted } from '../core/quote.ts';
+import { UserError, EXIT_USAGE } from '../core/errors.ts';
 
 export const PROJECT_ID = /^[a-z0-9][a-z0-9._-]{0,63}$/;
 

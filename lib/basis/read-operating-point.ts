@@ -10,7 +10,7 @@ import type { Mode } from '../electrochem/technologies.ts';
 import type { Path } from './diagnostics.ts';
 import type { Read, Reader } from './reader.ts';
 import type { AirSupply, OperatingPoint, StackSize, VoltageModel } from './types.ts';
-import type { Dimension } from './units.ts';
+import type { Dimension } from '../core/units.ts';
 import { limitProblem, type LimitedInput } from './limits.ts';
 
 const OP = (key: string): Path => ['operating-point', key];

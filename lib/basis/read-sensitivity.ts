@@ -3,7 +3,7 @@
  * 10 %, utilization 0.05, steam-to-carbon 0.5, current density 10 % (common practice, no
  * source). Every step must be above zero; relative steps must stay below 100 %.
  */
-import type { Dimension } from './units.ts';
+import type { Dimension } from '../core/units.ts';
 import type { Reader } from './reader.ts';
 import type { Sensitivity } from './types.ts';
 

@@ -4,10 +4,10 @@
  * input (a value with its unit, a fraction, a number) converts it to SI and records it for the
  * design-inputs table, with the source written beside it.
  */
-import { parseQuantity, SI_UNIT, UnitError, type Dimension } from './units.ts';
+import { parseQuantity, SI_UNIT, UnitError, type Dimension } from '../core/units.ts';
 import { pathText, type Findings, type Path } from './diagnostics.ts';
 import type { InputRecord } from './types.ts';
-import { quoted } from './quote.ts';
+import { quoted } from '../core/quote.ts';
 
 /** A scalar input as read: SI value, the text and unit as written, where it stands. */
 export interface Read {

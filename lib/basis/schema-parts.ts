@@ -6,10 +6,10 @@
  * in the read-*.ts modules.
  */
 import { z } from 'zod';
-import { expectedText, parseQuantity, UnitError, type Dimension } from './units.ts';
+import { expectedText, parseQuantity, UnitError, type Dimension } from '../core/units.ts';
 import { quantityPattern } from './unit-pattern.ts';
 import { didYouMean, quotedList } from './suggest.ts';
-import { quoted } from './quote.ts';
+import { quoted } from '../core/quote.ts';
 
 /** How a YAML value reads in a message: `"hot"`, `the number 5`, `a list`, `nothing`. */
 export function describeValue(value: unknown): string {

@@ -7,7 +7,7 @@
  */
 import { technology } from '../electrochem/technologies.ts';
 import { evaluateReaction } from '../electrochem/reaction.ts';
-import { TemperatureRangeError } from '../errors.ts';
+import { TemperatureRangeError } from '../core/errors.ts';
 import type { AirSupply, DesignBasis, StackSize, VoltageModel } from './types.ts';
 
 export type SummaryRow = [label: string, value: string];

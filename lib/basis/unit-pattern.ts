@@ -1,12 +1,12 @@
 /**
  * Regular expressions that accept exactly the quantity strings `parseQuantity` (units.ts)
- * accepts for a dimension, built from the same unit table (data/units.yaml). The zod schema
+ * accepts for a dimension, built from the same unit table (lib/core/data/units.yaml). The zod schema
  * checks unit strings with them and the JSON Schema carries them as `pattern`, so an editor
  * flags "800 degrees" as you type. Each unit spelling is widened by the same normalisation
  * parseQuantity applies: "²" or "^2" for "2", "Ω" or "Ohm" for "ohm", "·", "*" or spaces between
  * unit factors, "°" before C, F and R, and spaces inside "(a)" and "(g)".
  */
-import { unitsOf, type Dimension } from './units.ts';
+import { unitsOf, type Dimension } from '../core/units.ts';
 
 /** The number parseQuantity reads (units.ts NUMBER), without its capture group. */
 const NUMBER_SOURCE = String.raw`[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?`;

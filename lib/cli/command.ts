@@ -4,7 +4,7 @@
  * `cellbasis COMMAND --help` always lists every option.
  */
 import { parseArgs } from 'node:util';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 export interface OptionSpec {
   name: string;

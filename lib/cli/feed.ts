@@ -1,6 +1,6 @@
 /** Feeds on the command line: "CH4=1, H2O=2" (species = amount, comma separated). */
 import { getSpecies } from '../thermo/species-data.ts';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 export function parseFeedOption(text: string, option = 'feed'): Record<string, number> {
   const feed: Record<string, number> = {};

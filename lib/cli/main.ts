@@ -3,7 +3,7 @@
  * on stderr and an exit code (0 ok, 1 validation or audit failure, 2 usage, 3 internal).
  */
 import { helpText, parseCommandArgs, type Command, type Io } from './command.ts';
-import { UserError, EXIT_INTERNAL, EXIT_OK, EXIT_USAGE } from '../errors.ts';
+import { UserError, EXIT_INTERNAL, EXIT_OK, EXIT_USAGE } from '../core/errors.ts';
 import { reactionCommand } from './commands/reaction.ts';
 import { speciesCommand } from './commands/species.ts';
 import { equilibriumCommand } from './commands/equilibrium.ts';
@@ -19,7 +19,7 @@ import { auditCommand } from './commands/audit.ts';
 import { compareCommand } from './commands/compare.ts';
 import { keygenCommand } from './commands/keygen.ts';
 import { sealCommand } from './commands/seal.ts';
-import { toolVersion } from './version.ts';
+import { toolVersion } from '../core/version.ts';
 
 export const COMMANDS: Command[] = [reactionCommand, speciesCommand, equilibriumCommand, steamLimitCommand, newCommand, checkCommand, schemaCommand, calcCommand, hazardsCommand, sealCommand, auditCommand, compareCommand, keygenCommand, buildCommand, serveCommand];
 

@@ -1,6 +1,6 @@
 /** The headline numbers of a results object as label / value rows for the terminal. */
 import type { Results } from '../plant/results-schema.ts';
-import { sig } from './format.ts';
+import { sig } from '../core/plain-text.ts';
 
 const pct = (x: number | null) => (x === null ? '' : `${sig(x * 100, 4)} %`);
 const kw = (w: number) => `${sig(w / 1000, 5)} kW`;

@@ -1,6 +1,6 @@
-/** Command-line values with units, parsed at the edge (see lib/basis/units.ts). */
-import { parseQuantity, UnitError, type Dimension } from '../basis/units.ts';
-import { UserError } from '../errors.ts';
+/** Command-line values with units, parsed at the edge (see lib/core/units.ts). */
+import { parseQuantity, UnitError, type Dimension } from '../core/units.ts';
+import { UserError } from '../core/errors.ts';
 
 export function quantityOption(text: string, dimension: Dimension, option: string): number {
   try {

@@ -4,7 +4,7 @@
  * The parsed equation is checked for element balance.
  */
 import { getSpecies, type Species } from '../thermo/species-data.ts';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 export interface Term {
   species: Species;

@@ -13,7 +13,7 @@
 import { FARADAY_C_PER_MOL as F, GAS_CONSTANT_J_PER_MOL_K as R } from '../thermo/constants.ts';
 import { enthalpy, entropy } from '../thermo/properties.ts';
 import { parseEquation, type Equation, type Term } from './equation.ts';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 export type Direction = 'galvanic' | 'electrolytic';
 

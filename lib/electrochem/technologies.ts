@@ -4,7 +4,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { parse as parseYaml } from 'yaml';
-import { parseQuantity } from '../basis/units.ts';
+import { parseQuantity } from '../core/units.ts';
 
 export type Ion = 'oxide' | 'proton' | 'carbonate' | 'hydroxide';
 export type Mode = 'power' | 'electrolysis';

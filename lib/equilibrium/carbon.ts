@@ -18,7 +18,7 @@ import { getSpecies } from '../thermo/species-data.ts';
 import { minimiseGibbs } from './gibbs-minimiser.ts';
 import { elementAmounts, elementsOfFeed, gasGibbsOverRT, systemFor } from './species-set.ts';
 import { validateFeed } from './equilibrate.ts';
-import { UserError, ConvergenceError } from '../errors.ts';
+import { UserError, ConvergenceError } from '../core/errors.ts';
 
 function lnK(temperatureK: number, products: [string, number][], reactants: [string, number][]): number {
   let dG = 0;

@@ -7,7 +7,7 @@ import { gOverRT } from '../thermo/properties.ts';
 import { getSpecies } from '../thermo/species-data.ts';
 import { minimiseGibbs, type MinimiserResult } from './gibbs-minimiser.ts';
 import { elementAmounts, elementsOfFeed, gasGibbsOverRT, systemFor, type ChemicalSystem } from './species-set.ts';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 export interface EquilibriumRequest {
   temperatureK: number;

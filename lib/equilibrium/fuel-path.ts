@@ -32,7 +32,7 @@ import { elementAmounts, elementsOfFeed, gasGibbsOverRT, systemFor, type Chemica
 import { exchangeFor, type Exchange } from './electrolyte-exchange.ts';
 import { amountsOn, layout, moleFractions, shifted, sum, toRecord, type GasLayout } from './gas-state.ts';
 import { integrateAlongUtilization, type Sample } from './path-integral.ts';
-import { ConvergenceError, UserError } from '../errors.ts';
+import { ConvergenceError, UserError } from '../core/errors.ts';
 
 export interface FuelPathRequest {
   technology: Technology;

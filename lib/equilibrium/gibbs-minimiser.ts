@@ -31,7 +31,7 @@
  */
 import { solveScaledInPlace } from './linear.ts';
 import type { ChemicalSystem } from './species-set.ts';
-import { ConvergenceError } from '../errors.ts';
+import { ConvergenceError } from '../core/errors.ts';
 
 const METHOD = 'gas equilibrium (Gibbs minimisation)';
 

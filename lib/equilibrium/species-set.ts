@@ -5,7 +5,7 @@
  */
 import { allSpecies, getSpecies, type Species } from '../thermo/species-data.ts';
 import { gOverRT } from '../thermo/properties.ts';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 export interface ChemicalSystem {
   elements: readonly string[];

@@ -5,7 +5,7 @@
  * concerned with their sources, the stream indicators, the cautions by severity and the method
  * notes. Pure: the same input gives the same assessment.
  */
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 import { TECHNOLOGY_IDS, technology } from '../electrochem/technologies.ts';
 import { streamIndicators } from './indicators.ts';
 import { HAZARD_NOTICE, methodNotes } from './notice.ts';

@@ -4,7 +4,7 @@
  * renormalised, and the checks on the stream's numbers. Input mistakes are UserErrors naming
  * the stream and the field.
  */
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 import { getSpecies } from '../thermo/species-data.ts';
 import type { HazardStream } from './types.ts';
 

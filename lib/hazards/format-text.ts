@@ -4,7 +4,7 @@
  * their sources (marked where quoted from memory) and the method notes. Display only: every
  * number comes computed in the assessment.
  */
-import { grid } from '../cli/format.ts';
+import { grid } from '../core/plain-text.ts';
 import { formatCelsius, formatNumber } from './numbers.ts';
 import { SEVERITIES, type Caution, type HazardAssessment, type SourcedValue, type StreamIndicators, type SubstanceRow } from './types.ts';
 

@@ -10,7 +10,7 @@ import { Worker } from 'node:worker_threads';
 import { calculate } from './calculate.ts';
 import { BasisError } from '../basis/diagnostics.ts';
 import type { DesignBasis, Diagnostic } from '../basis/types.ts';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 import type { Results } from './results-schema.ts';
 import { resultsKey, type ResultsCache } from './results-cache.ts';
 

@@ -5,7 +5,7 @@
 import { parentPort } from 'node:worker_threads';
 import { calculate } from './calculate.ts';
 import { BasisError } from '../basis/diagnostics.ts';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 import type { DesignBasis } from '../basis/types.ts';
 import type { WorkerReply } from './batch.ts';
 

@@ -10,7 +10,7 @@ import { enthalpy } from '../thermo/properties.ts';
 import { evaluateReaction } from '../electrochem/reaction.ts';
 import { assessHazards } from '../hazards/assessment.ts';
 import type { DesignBasis } from '../basis/types.ts';
-import { toolVersion } from '../cli/version.ts';
+import { toolVersion } from '../core/version.ts';
 import { designInputs } from './design-inputs.ts';
 import { evaluateDesignPoint, type DesignPoint } from './design-point.ts';
 import { carbonMargin } from './carbon-margin.ts';

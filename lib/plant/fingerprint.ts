@@ -7,7 +7,7 @@ import { createHash } from 'node:crypto';
 import { readdirSync, readFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { toolVersion } from '../cli/version.ts';
+import { toolVersion } from '../core/version.ts';
 
 const LIB = fileURLToPath(new URL('..', import.meta.url));
 const KINDS = /\.(ts|yaml|yml|json|inp|txt)$/;

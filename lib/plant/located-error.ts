@@ -5,7 +5,7 @@
  */
 import { BasisError } from '../basis/diagnostics.ts';
 import type { DesignBasis, Diagnostic } from '../basis/types.ts';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 export function locatedDiagnostic(basis: DesignBasis, path: string, message: string, severity: Diagnostic['severity'] = 'error'): Diagnostic {
   // The value itself, else the nearest written parent (a default has no position of its own).

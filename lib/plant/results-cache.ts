@@ -7,7 +7,7 @@
 import { createHash } from 'node:crypto';
 import { lstatSync, mkdirSync, readFileSync, renameSync, unlinkSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { EXIT_VALIDATION, UserError } from '../errors.ts';
+import { EXIT_VALIDATION, UserError } from '../core/errors.ts';
 import { libraryFingerprint } from './fingerprint.ts';
 import type { Results } from './results-schema.ts';
 

@@ -8,7 +8,7 @@
  * grid, so the differences carry no grid error of their own.
  */
 import type { Sensitivity } from '../basis/types.ts';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 import { withSteamToCarbon, type DesignInputs } from './design-inputs.ts';
 import { evaluateDesignPoint, type DesignPoint } from './design-point.ts';
 import type { Results } from './results-schema.ts';

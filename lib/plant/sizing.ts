@@ -7,7 +7,7 @@
  */
 import type { StackSize } from '../basis/types.ts';
 import type { Mode } from '../electrochem/technologies.ts';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 export const AGREEMENT = 0.02;
 

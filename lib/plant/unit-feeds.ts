@@ -15,7 +15,7 @@ import { FARADAY_C_PER_MOL as F } from '../thermo/constants.ts';
 import { electronsOfStream } from '../electrochem/charge.ts';
 import { equilibrate } from '../equilibrium/equilibrate.ts';
 import type { DesignInputs } from './design-inputs.ts';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 export interface UnitFeeds {
   /** Fuel-electrode feed as it enters the stack (after any pre-reformer), mol/s. */

@@ -13,7 +13,7 @@
  */
 import type { Mode } from '../electrochem/technologies.ts';
 import type { VoltageModel } from '../basis/types.ts';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 export interface OperatingVoltage {
   cellVoltageV: number;

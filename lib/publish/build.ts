@@ -46,7 +46,7 @@ import { ResultsCache } from '../plant/results-cache.ts';
 import { ChromiumMissingError, chromiumMissingMessage, findChromium } from './pdf.ts';
 import { printDrafts } from './draft-pdfs.ts';
 import { removeCacheLeftovers } from './cache-leftovers.ts';
-import { UserError, EXIT_INTERNAL } from '../errors.ts';
+import { UserError, EXIT_INTERNAL } from '../core/errors.ts';
 import { setBuildContext } from './build-context.ts';
 import { notOursError, removeOwnFolder, siteFolderProblem, SYMBOLIC_LINK, writeSiteMarker } from './site-marker.ts';
 import { createEleventy } from './eleventy-api.ts';

@@ -16,7 +16,7 @@ import { existsSync, readdirSync } from 'node:fs';
 import { join, relative, resolve } from 'node:path';
 import { listProjects } from '../basis/projects.ts';
 import { SEALED_FILES, sealedRoot } from '../archive/layout.ts';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 import { portfolioView } from '../report/portfolio.ts';
 import { revisionPagePath } from '../report/links.ts';
 import { buildContext } from './build-context.ts';

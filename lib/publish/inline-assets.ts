@@ -13,7 +13,7 @@
  */
 import { existsSync, readFileSync } from 'node:fs';
 import { dirname, extname, isAbsolute, normalize, relative, resolve } from 'node:path';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 const MIME: Record<string, string> = { '.woff2': 'font/woff2', '.woff': 'font/woff', '.ttf': 'font/ttf', '.png': 'image/png', '.svg': 'image/svg+xml' };
 

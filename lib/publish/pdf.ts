@@ -44,8 +44,8 @@ import { chromium, type Browser, type BrowserContext, type Page } from 'playwrig
 import { AFRelationship, PDFArray, PDFDict, PDFDocument, PDFHexString, PDFName, PDFRawStream, PDFRef, PDFString, ParseSpeeds, decodePDFRawStream } from 'pdf-lib';
 import type { DesignBasis } from '../basis/types.ts';
 import type { Results } from '../plant/results-schema.ts';
-import { toolVersion } from '../cli/version.ts';
-import { EXIT_VALIDATION, UserError } from '../errors.ts';
+import { toolVersion } from '../core/version.ts';
+import { EXIT_VALIDATION, UserError } from '../core/errors.ts';
 import { escapeHtml } from '../report/trusted-html.ts';
 
 export const DEFAULT_CHROMIUM = '/usr/bin/chromium';

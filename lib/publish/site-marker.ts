@@ -15,7 +15,7 @@
  */
 import { lstatSync, mkdirSync, readdirSync, readFileSync, readlinkSync, rmdirSync, rmSync, statSync, writeFileSync, type Stats } from 'node:fs';
 import { join } from 'node:path';
-import { EXIT_VALIDATION, UserError } from '../errors.ts';
+import { EXIT_VALIDATION, UserError } from '../core/errors.ts';
 
 export const SITE_MARKER = '.cellbasis-site';
 

@@ -6,7 +6,7 @@
  */
 import { formatDiagnostic } from '../basis/diagnostics.ts';
 import type { Diagnostic } from '../basis/types.ts';
-import { EXIT_VALIDATION, UserError } from '../errors.ts';
+import { EXIT_VALIDATION, UserError } from '../core/errors.ts';
 
 export class SiteProblems {
   readonly errors: string[] = [];

@@ -5,7 +5,7 @@
  * revisions always show their seal date.
  */
 import type { DesignBasis } from '../basis/types.ts';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 /** SOURCE_DATE_EPOCH as a date (YYYY-MM-DD, UTC), or null when it is not set. */
 export function sourceDateEpoch(env: NodeJS.ProcessEnv = process.env): string | null {

@@ -7,7 +7,7 @@
 import type { DesignBasis } from '../basis/types.ts';
 import type { Results } from '../plant/results-schema.ts';
 import { runAllChecks, type CheckResult } from '../verification/checks.ts';
-import { toolVersion } from '../cli/version.ts';
+import { toolVersion } from '../core/version.ts';
 import { assetLinks, type AssetLinks } from './assets.ts';
 import { EquationBook } from './equation-book.ts';
 import { methodSection, type MethodStep } from './method.ts';

@@ -14,7 +14,7 @@
  *                  b) a1..a5, five fields of 16 columns (Fortran D exponents)
  *                  c) a6, a7, 16 blank columns, b1, b2
  */
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 export interface NasaInterval {
   lowK: number;

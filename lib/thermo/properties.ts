@@ -12,7 +12,7 @@
 import { GAS_CONSTANT_J_PER_MOL_K as R } from './constants.ts';
 import type { NasaInterval } from './nasa-glenn.ts';
 import { elementReference, type Species } from './species-data.ts';
-import { TemperatureRangeError, UserError } from '../errors.ts';
+import { TemperatureRangeError, UserError } from '../core/errors.ts';
 
 /** Tolerance on a record's range, K: the published ranges are given to 0.001 K. */
 const RANGE_SLACK_K = 1e-6;

@@ -7,7 +7,7 @@ import { createHash } from 'node:crypto';
 import { fileURLToPath } from 'node:url';
 import { parse as parseYaml } from 'yaml';
 import { parseNasaGlenn, type NasaRecord } from './nasa-glenn.ts';
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 export interface Species {
   /** Name cellbasis shows and keys results by (the NASA name unless species-names.yaml gives a label). */

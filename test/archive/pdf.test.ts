@@ -6,7 +6,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { PDFArray, PDFDict, PDFDocument, PDFName, PDFRef, PDFString } from 'pdf-lib';
 import { footerTemplate, headerTemplate, withPdfPrinter, type PdfMeta } from '../../lib/publish/pdf.ts';
-import { toolVersion } from '../../lib/cli/version.ts';
+import { toolVersion } from '../../lib/core/version.ts';
 import { announceChromiumSkip, describeWithChromium } from './chromium.ts';
 import { compact, pageTexts, pdfAttachments, pdfInfo } from './pdf-inspect.ts';
 

@@ -10,7 +10,7 @@ import { parseManifest } from '../../lib/archive/manifest.ts';
 import { sha256Hex } from '../../lib/archive/hash.ts';
 import { verifyBytes } from '../../lib/archive/signature.ts';
 import { speciesDataHash } from '../../lib/thermo/species-data.ts';
-import { toolVersion } from '../../lib/cli/version.ts';
+import { toolVersion } from '../../lib/core/version.ts';
 import { announceChromiumSkip, describeWithChromium } from './chromium.ts';
 import { compact, pageTexts, pdfAttachments, pdfInfo } from './pdf-inspect.ts';
 import { SEAL_TIMEOUT, basisPath, PROJECT, removeWorkspace, seal, sealedPath, treeDigest, workspace } from './helpers.ts';

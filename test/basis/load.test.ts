@@ -8,7 +8,7 @@ import { loadBasisFile, loadBasisText, type LoadResult } from '../../lib/basis/l
 import { BasisError, formatDiagnostic } from '../../lib/basis/diagnostics.ts';
 import { MAX_BASIS_BYTES } from '../../lib/basis/source-text.ts';
 import { DEFAULT_SENSITIVITY } from '../../lib/basis/read-sensitivity.ts';
-import { UserError } from '../../lib/errors.ts';
+import { UserError } from '../../lib/core/errors.ts';
 import type { DesignBasis } from '../../lib/basis/types.ts';
 import { BASE, edit } from './helpers.ts';
 

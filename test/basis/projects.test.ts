@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { listProjects, resolveProjectArg } from '../../lib/basis/projects.ts';
-import { UserError } from '../../lib/errors.ts';
+import { UserError } from '../../lib/core/errors.ts';
 
 /**
  * A working folder of a fixed name inside a fresh temporary folder: the id of a basis file named

@@ -2,7 +2,7 @@
 // patterns of the schema against parseQuantity: they must accept exactly the same strings.
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { parseQuantity, unitsOf, type Dimension } from '../../lib/basis/units.ts';
+import { parseQuantity, unitsOf, type Dimension } from '../../lib/core/units.ts';
 import { quantityPattern } from '../../lib/basis/unit-pattern.ts';
 
 const si = (text: string, dimension: Dimension) => parseQuantity(text, dimension).si;

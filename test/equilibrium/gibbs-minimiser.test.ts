@@ -9,7 +9,7 @@ import { lnEquilibriumConstant } from '../../lib/electrochem/reaction.ts';
 import { parseEquation } from '../../lib/electrochem/equation.ts';
 import { minimiseGibbs } from '../../lib/equilibrium/gibbs-minimiser.ts';
 import { elementAmounts, gasGibbsOverRT, systemFor } from '../../lib/equilibrium/species-set.ts';
-import { ConvergenceError, UserError } from '../../lib/errors.ts';
+import { ConvergenceError, UserError } from '../../lib/core/errors.ts';
 
 const K = (reaction: string, t: number) => Math.exp(lnEquilibriumConstant(parseEquation(reaction).terms, t));
 

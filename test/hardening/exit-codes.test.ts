@@ -8,7 +8,7 @@ import { afterEach, describe, expect, it } from 'vitest';
 import { main } from '../../lib/cli/main.ts';
 import type { Io } from '../../lib/cli/command.ts';
 import { renderScaffold } from '../../lib/basis/scaffolds.ts';
-import { EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, EXIT_VALIDATION } from '../../lib/errors.ts';
+import { EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, EXIT_VALIDATION } from '../../lib/core/errors.ts';
 import { run } from '../cli/run.ts';
 
 function workspace(): string {
@@ -40,7 +40,7 @@ afterEach(() => {
 });
 
 describe('exit codes', () => {
-  it('the codes are 0, 1, 2 and 3 (lib/errors.ts, as README.md documents them)', () => {
+  it('the codes are 0, 1, 2 and 3 (lib/core/errors.ts, as README.md documents them)', () => {
     expect([EXIT_OK, EXIT_VALIDATION, EXIT_USAGE, EXIT_INTERNAL]).toEqual([0, 1, 2, 3]);
   });
 

@@ -3,7 +3,7 @@
 // the checks on the stream's input. Checks repeat the arithmetic by hand (tolerance 1e-9).
 import { describe, expect, it } from 'vitest';
 import { streamIndicators } from '../../lib/hazards/indicators.ts';
-import { UserError } from '../../lib/errors.ts';
+import { UserError } from '../../lib/core/errors.ts';
 import type { HazardStream } from '../../lib/hazards/types.ts';
 
 const C = 273.15;

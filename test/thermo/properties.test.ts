@@ -4,7 +4,7 @@
 import { describe, expect, it } from 'vitest';
 import { allSpecies, getSpecies } from '../../lib/thermo/species-data.ts';
 import { cp, enthalpy, entropy, gibbs, speciesProperties } from '../../lib/thermo/properties.ts';
-import { TemperatureRangeError } from '../../lib/errors.ts';
+import { TemperatureRangeError } from '../../lib/core/errors.ts';
 
 describe('species properties', () => {
   it('g = h − T s for every species at several temperatures', () => {

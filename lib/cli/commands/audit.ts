@@ -12,7 +12,7 @@ import { projectBasisPath, projectIdProblem } from '../../basis/projects.ts';
 import type { AuditLine } from '../../archive/audit.ts';
 import { SEALED_DIR } from '../../archive/layout.ts';
 import { publicKeyPem, readPublicKey } from '../../archive/signature.ts';
-import { EXIT_OK, EXIT_USAGE, EXIT_VALIDATION, UserError } from '../../errors.ts';
+import { EXIT_OK, EXIT_USAGE, EXIT_VALIDATION, UserError } from '../../core/errors.ts';
 
 /** Projects with a sealed folder, sorted. */
 function sealedProjects(cwd: string): string[] {

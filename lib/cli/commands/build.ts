@@ -7,7 +7,7 @@ import { dirname, join, relative, resolve } from 'node:path';
 import type { Command } from '../command.ts';
 import { optionalString } from '../command.ts';
 import { listProjects } from '../../basis/projects.ts';
-import { EXIT_VALIDATION, UserError } from '../../errors.ts';
+import { EXIT_VALIDATION, UserError } from '../../core/errors.ts';
 import { SiteError } from '../../publish/site-problems.ts';
 import { progressReporter } from '../progress.ts';
 

@@ -6,7 +6,7 @@ import type { Command } from '../command.ts';
 import { JSON_OPTION } from '../command.ts';
 import { loadProject } from '../load-project.ts';
 import { formatDiagnostic } from '../../basis/diagnostics.ts';
-import { json, table } from '../format.ts';
+import { json, table } from '../../core/plain-text.ts';
 import { headlineRows } from '../results-table.ts';
 
 export const calcCommand: Command = {

@@ -4,14 +4,14 @@
  * basis on stdout. Exit 1 when any basis has errors, 2 when an argument names no basis.
  */
 import type { Command } from '../command.ts';
-import { table } from '../format.ts';
+import { table } from '../../core/plain-text.ts';
 import { listProjects, resolveProjectArg } from '../../basis/projects.ts';
 import { loadBasisFile } from '../../basis/load.ts';
 import { formatDiagnostic } from '../../basis/diagnostics.ts';
 import { basisSummaryRows } from '../../basis/summary.ts';
 import { BasisError } from '../../basis/diagnostics.ts';
 import { headlineRows } from '../results-table.ts';
-import { EXIT_OK, EXIT_USAGE, EXIT_VALIDATION, UserError } from '../../errors.ts';
+import { EXIT_OK, EXIT_USAGE, EXIT_VALIDATION, UserError } from '../../core/errors.ts';
 
 export const checkCommand: Command = {
   name: 'check',

@@ -6,7 +6,7 @@
  */
 import type { Command } from '../command.ts';
 import { JSON_OPTION } from '../command.ts';
-import { grid, json } from '../format.ts';
+import { grid, json } from '../../core/plain-text.ts';
 import { formatDiagnostic } from '../../basis/diagnostics.ts';
 import type { RevisionChanges } from '../../archive/compare.ts';
 

@@ -3,7 +3,7 @@ import { JSON_OPTION, requireString } from '../command.ts';
 import { equilibrate } from '../../equilibrium/equilibrate.ts';
 import { parseFeedOption } from '../feed.ts';
 import { pressureOption, temperatureOption } from '../values.ts';
-import { grid, json, sig, table } from '../format.ts';
+import { grid, json, sig, table } from '../../core/plain-text.ts';
 
 export const equilibriumCommand: Command = {
   name: 'equilibrium',

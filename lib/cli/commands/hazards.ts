@@ -2,7 +2,7 @@
 import type { Command } from '../command.ts';
 import { JSON_OPTION } from '../command.ts';
 import { loadProject } from '../load-project.ts';
-import { json } from '../format.ts';
+import { json } from '../../core/plain-text.ts';
 
 export const hazardsCommand: Command = {
   name: 'hazards',

@@ -8,7 +8,7 @@ import { relative, resolve } from 'node:path';
 import type { Command } from '../command.ts';
 import { sealedFolderAt } from '../../archive/layout.ts';
 import { newKeyPair } from '../../archive/signature.ts';
-import { UserError } from '../../errors.ts';
+import { UserError } from '../../core/errors.ts';
 
 export const keygenCommand: Command = {
   name: 'keygen',

@@ -14,7 +14,7 @@ import { loadBasisText } from '../../basis/load.ts';
 import { formatDiagnostic } from '../../basis/diagnostics.ts';
 import { TECHNOLOGY_NAMES } from '../../basis/schema.ts';
 import { didYouMean, quotedList } from '../../basis/suggest.ts';
-import { UserError } from '../../errors.ts';
+import { UserError } from '../../core/errors.ts';
 
 function technologyArg(name: string): TechnologyId {
   if (!(TECHNOLOGY_NAMES as readonly string[]).includes(name)) {

@@ -2,8 +2,8 @@ import type { Command } from '../command.ts';
 import { JSON_OPTION, requireString, optionalString } from '../command.ts';
 import { evaluateReaction } from '../../electrochem/reaction.ts';
 import { temperatureOption } from '../values.ts';
-import { json, sig, table } from '../format.ts';
-import { UserError } from '../../errors.ts';
+import { json, sig, table } from '../../core/plain-text.ts';
+import { UserError } from '../../core/errors.ts';
 
 export const reactionCommand: Command = {
   name: 'reaction',

@@ -4,7 +4,7 @@
  */
 import type { Command } from '../command.ts';
 import { optionalString } from '../command.ts';
-import { UserError } from '../../errors.ts';
+import { UserError } from '../../core/errors.ts';
 
 export const serveCommand: Command = {
   name: 'serve',

@@ -3,8 +3,8 @@ import { JSON_OPTION, requireString } from '../command.ts';
 import { allSpecies, getSpecies } from '../../thermo/species-data.ts';
 import { speciesProperties } from '../../thermo/properties.ts';
 import { temperatureOption } from '../values.ts';
-import { grid, json, sig, table } from '../format.ts';
-import { UserError } from '../../errors.ts';
+import { grid, json, sig, table } from '../../core/plain-text.ts';
+import { UserError } from '../../core/errors.ts';
 
 export const speciesCommand: Command = {
   name: 'species',

@@ -3,7 +3,7 @@ import { JSON_OPTION, requireString } from '../command.ts';
 import { minimumSteamToCarbon } from '../../equilibrium/carbon.ts';
 import { parseFeedOption } from '../feed.ts';
 import { pressureOption, temperatureOption } from '../values.ts';
-import { json, sig, table } from '../format.ts';
+import { json, sig, table } from '../../core/plain-text.ts';
 
 export const steamLimitCommand: Command = {
   name: 'steam-limit',
