@@ -1,6 +1,6 @@
 /**
  * Calculation time per project (median and 95th percentile, one core), and the batch of all
- * projects as the build calculates them (lib/plant/batch.ts: this thread, and worker threads
+ * projects as the build calculates them (lib/batch/batch.ts: this thread, and worker threads
  * for large batches), cold and from the results cache.
  */
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
@@ -9,8 +9,8 @@ import { join } from 'node:path';
 import { writeSyntheticProjects } from './synthetic.ts';
 import { loadBasisText } from '../lib/basis/load.ts';
 import { calculate } from '../lib/plant/calculate.ts';
-import { calculateAll, type CalculationJob } from '../lib/plant/batch.ts';
-import { ResultsCache } from '../lib/plant/results-cache.ts';
+import { calculateAll, type CalculationJob } from '../lib/batch/batch.ts';
+import { ResultsCache } from '../lib/batch/results-cache.ts';
 import { quantile, type Row } from './measure.ts';
 
 export function syntheticJobs(root: string, count: number): CalculationJob[] {

@@ -1,6 +1,6 @@
 /**
  * Temporary files a killed build left in the caches. Cache entries are written as
- * `<entry>.<pid>.tmp` and renamed into place (lib/plant/results-cache.ts,
+ * `<entry>.<pid>.tmp` and renamed into place (lib/batch/results-cache.ts,
  * lib/publish/draft-pdfs.ts); a build killed between the two leaves the temporary file. Each
  * build removes those whose process no longer runs: never one of a live build, which will
  * rename it, and never a finished entry. Only regular files named exactly as an entry's
@@ -9,7 +9,7 @@
 import { lstatSync, readdirSync, unlinkSync } from 'node:fs';
 import { join } from 'node:path';
 import { processAlive } from '../archive/sealed-folder.ts';
-import { CACHE_DIR } from '../plant/results-cache.ts';
+import { CACHE_DIR } from '../batch/results-cache.ts';
 
 /** The cache folders whose entries are written through `<entry>.<pid>.tmp`, with their entries' extension. */
 const ENTRY_EXTENSIONS = { results: 'json', pdf: 'pdf' } as const;

@@ -13,8 +13,8 @@ import { copyFileSync, existsSync, mkdirSync, readdirSync, readFileSync, writeFi
 import { dirname, join } from 'node:path';
 import type { DesignBasis } from '../basis/types.ts';
 import type { Results } from '../plant/results-schema.ts';
-import { CACHE_DIR, writeCacheEntry } from '../plant/results-cache.ts';
-import { libraryFingerprint } from '../plant/fingerprint.ts';
+import { CACHE_DIR, writeCacheEntry } from '../batch/results-cache.ts';
+import { libraryFingerprint } from '../batch/fingerprint.ts';
 import { documentPdfMeta, findChromium, withPdfPrinter, type PdfMeta } from './pdf.ts';
 import { ASSET_DIR } from './site-assets.ts';
 

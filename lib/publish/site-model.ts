@@ -15,9 +15,9 @@ import { listProjects } from '../basis/projects.ts';
 import { loadBasisFile } from '../basis/load.ts';
 import { BasisError } from '../basis/diagnostics.ts';
 import { calculate } from '../plant/calculate.ts';
-import type { CalculationOutcome } from '../plant/batch.ts';
+import type { CalculationOutcome } from '../batch/batch.ts';
 import type { Results } from '../plant/results-schema.ts';
-import { ResultsCache, resultsKey } from '../plant/results-cache.ts';
+import { ResultsCache, resultsKey } from '../batch/results-cache.ts';
 import { locatedDiagnostic } from '../plant/located-error.ts';
 import { runAllChecks } from '../verification/checks.ts';
 import { documentView, type DocumentView } from '../report/document.ts';
@@ -52,7 +52,7 @@ export interface SiteOptions {
   /** The change summary between revisions; default: lib/archive/compare.ts over the basis texts. */
   changeSummary?: ChangeSummary;
   env?: NodeJS.ProcessEnv;
-  /** Results calculated beforehand (lib/plant/batch.ts), by project id; others are calculated here. */
+  /** Results calculated beforehand (lib/batch/batch.ts), by project id; others are calculated here. */
   results?: ReadonlyMap<string, CalculationOutcome>;
   /** Whether the build prints each draft to projects/<id>/document.pdf (the page links it). */
   draftPdfs?: boolean;

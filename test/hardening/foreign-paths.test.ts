@@ -17,7 +17,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { renderScaffold } from '../../lib/basis/scaffolds.ts';
-import { CACHE_DIR } from '../../lib/plant/results-cache.ts';
+import { CACHE_DIR } from '../../lib/batch/results-cache.ts';
 import { removeCacheLeftovers } from '../../lib/publish/cache-leftovers.ts';
 import { serveSite } from '../../lib/publish/serve.ts';
 import { SITE_MARKER, SITE_MARKER_TEXT } from '../../lib/publish/site-marker.ts';

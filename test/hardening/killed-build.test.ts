@@ -24,7 +24,7 @@ import { cpSync, existsSync, readdirSync, readFileSync, readlinkSync, renameSync
 import { join } from 'node:path';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { BUILD_STEPS } from '../../lib/publish/build.ts';
-import { CACHE_DIR } from '../../lib/plant/results-cache.ts';
+import { CACHE_DIR } from '../../lib/batch/results-cache.ts';
 import { announceChromiumSkip, describeWithChromium } from '../archive/chromium.ts';
 import { basisFile, demoRoot, EPOCH, treeLayoutDigest } from '../publish/helpers.ts';
 import { cellbasis, descendants, expectCompleteSite, running, startCellbasis, until, type Started } from './child.ts';

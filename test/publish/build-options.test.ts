@@ -6,7 +6,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { renderScaffold } from '../../lib/basis/scaffolds.ts';
-import { CACHE_DIR } from '../../lib/plant/results-cache.ts';
+import { CACHE_DIR } from '../../lib/batch/results-cache.ts';
 import { run } from '../cli/run.ts';
 
 function root(): string {

@@ -7,7 +7,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, expect, it } from 'vitest';
 import { CACHE_FOLDERS, removeCacheLeftovers } from '../../lib/publish/cache-leftovers.ts';
-import { CACHE_DIR } from '../../lib/plant/results-cache.ts';
+import { CACHE_DIR } from '../../lib/batch/results-cache.ts';
 
 const roots: string[] = [];
 afterEach(() => {

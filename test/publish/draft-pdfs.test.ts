@@ -8,7 +8,7 @@ import { join } from 'node:path';
 import { afterAll, expect, it } from 'vitest';
 import { printInputs } from '../../lib/publish/draft-pdfs.ts';
 import { buildSite } from '../../lib/publish/build.ts';
-import { CACHE_DIR } from '../../lib/plant/results-cache.ts';
+import { CACHE_DIR } from '../../lib/batch/results-cache.ts';
 import { describeWithChromium } from '../archive/chromium.ts';
 import { basisFile, demoRoot, EPOCH } from './helpers.ts';
 

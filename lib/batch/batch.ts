@@ -7,11 +7,11 @@
  */
 import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
-import { calculate } from './calculate.ts';
+import { calculate } from '../plant/calculate.ts';
 import { BasisError } from '../basis/diagnostics.ts';
 import type { DesignBasis, Diagnostic } from '../basis/types.ts';
 import { UserError } from '../core/errors.ts';
-import type { Results } from './results-schema.ts';
+import type { Results } from '../plant/results-schema.ts';
 import { resultsKey, type ResultsCache } from './results-cache.ts';
 
 export interface CalculationJob {

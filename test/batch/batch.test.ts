@@ -6,9 +6,9 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { writeSyntheticProjects } from '../../bench/synthetic.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
-import { calculateAll, type CalculationJob } from '../../lib/plant/batch.ts';
+import { calculateAll, type CalculationJob } from '../../lib/batch/batch.ts';
 import { calculate } from '../../lib/plant/calculate.ts';
-import { ResultsCache, resultsKey } from '../../lib/plant/results-cache.ts';
+import { ResultsCache, resultsKey } from '../../lib/batch/results-cache.ts';
 
 function jobs(count: number): { root: string; list: CalculationJob[] } {
   const root = mkdtempSync(join(tmpdir(), 'cellbasis-batch-'));

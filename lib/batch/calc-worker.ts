@@ -1,9 +1,9 @@
 /**
- * The loop of a calculation worker thread (lib/plant/batch.ts): receives validated bases,
+ * The loop of a calculation worker thread (lib/batch/batch.ts): receives validated bases,
  * answers with their results or with the located error the calculation raised.
  */
 import { parentPort } from 'node:worker_threads';
-import { calculate } from './calculate.ts';
+import { calculate } from '../plant/calculate.ts';
 import { BasisError } from '../basis/diagnostics.ts';
 import { UserError } from '../core/errors.ts';
 import type { DesignBasis } from '../basis/types.ts';

@@ -1,7 +1,7 @@
 /**
  * A disk cache of results: `.cellbasis-cache/results/<key>.json` under the working folder, keyed by
  * SHA-256 of the basis bytes, the project id, the file name and the library fingerprint
- * (lib/plant/fingerprint.ts). Entries are written to a temporary file and renamed, so a killed
+ * (lib/batch/fingerprint.ts). Entries are written to a temporary file and renamed, so a killed
  * build never leaves a torn entry; an unreadable entry is treated as a miss.
  */
 import { createHash } from 'node:crypto';
@@ -9,7 +9,7 @@ import { lstatSync, mkdirSync, readFileSync, renameSync, unlinkSync, writeFileSy
 import { join } from 'node:path';
 import { EXIT_VALIDATION, UserError } from '../core/errors.ts';
 import { libraryFingerprint } from './fingerprint.ts';
-import type { Results } from './results-schema.ts';
+import type { Results } from '../plant/results-schema.ts';
 
 export const CACHE_DIR = '.cellbasis-cache';
 
