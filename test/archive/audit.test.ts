@@ -7,12 +7,12 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { createPrivateKey } from 'node:crypto';
 import { afterAll, beforeAll, expect, it } from 'vitest';
-import { run } from '../cli/run.ts';
+import { run } from '../helpers/run-cli.ts';
 import { manifestBytes, parseManifest } from '../../lib/archive/manifest.ts';
 import { sha256Hex } from '../../lib/archive/hash.ts';
 import { newKeyPair, signBytes } from '../../lib/archive/signature.ts';
-import { announceChromiumSkip, describeWithChromium } from './chromium.ts';
-import { SEAL_TIMEOUT, basisPath, flipByte, PROJECT, removeWorkspace, seal, sealedPath, workspace } from './helpers.ts';
+import { announceChromiumSkip, describeWithChromium } from '../helpers/chromium.ts';
+import { SEAL_TIMEOUT, basisPath, flipByte, PROJECT, removeWorkspace, seal, sealedPath, workspace } from '../helpers/archive-workspace.ts';
 
 announceChromiumSkip('the audit tests');
 

@@ -5,7 +5,7 @@ import { renderScaffold } from '../../lib/basis/scaffolds.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
 import { calculate } from '../../lib/plant/calculate.ts';
 import { compareRevisions, type RevisionSide } from '../../lib/archive/compare.ts';
-import { edit } from '../basis/helpers.ts';
+import { edit } from '../helpers/basis-text.ts';
 
 const BASE = renderScaffold('solid-oxide', 'power', 'demo', '2026-11-30');
 

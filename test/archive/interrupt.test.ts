@@ -7,9 +7,9 @@ import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { SEAL_STEPS } from '../../lib/archive/seal.ts';
 import { readSealedFolder, LOCK_FILE } from '../../lib/archive/sealed-folder.ts';
-import { run } from '../cli/run.ts';
-import { announceChromiumSkip, describeWithChromium } from './chromium.ts';
-import { basisPath, PROJECT, removeWorkspace, seal, workspace } from './helpers.ts';
+import { run } from '../helpers/run-cli.ts';
+import { announceChromiumSkip, describeWithChromium } from '../helpers/chromium.ts';
+import { basisPath, PROJECT, removeWorkspace, seal, workspace } from '../helpers/archive-workspace.ts';
 
 announceChromiumSkip('the interrupted-seal tests');
 

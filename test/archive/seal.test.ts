@@ -3,7 +3,7 @@
 import { readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, expect, it } from 'vitest';
-import { run } from '../cli/run.ts';
+import { run } from '../helpers/run-cli.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
 import { calculate } from '../../lib/plant/calculate.ts';
 import { parseManifest } from '../../lib/archive/manifest.ts';
@@ -11,9 +11,9 @@ import { sha256Hex } from '../../lib/archive/hash.ts';
 import { verifyBytes } from '../../lib/archive/signature.ts';
 import { speciesDataHash } from '../../lib/thermo/species-data.ts';
 import { toolVersion } from '../../lib/core/version.ts';
-import { announceChromiumSkip, describeWithChromium } from './chromium.ts';
-import { compact, pageTexts, pdfAttachments, pdfInfo } from './pdf-inspect.ts';
-import { SEAL_TIMEOUT, basisPath, PROJECT, removeWorkspace, seal, sealedPath, treeDigest, workspace } from './helpers.ts';
+import { announceChromiumSkip, describeWithChromium } from '../helpers/chromium.ts';
+import { compact, pageTexts, pdfAttachments, pdfInfo } from '../helpers/pdf-inspect.ts';
+import { SEAL_TIMEOUT, basisPath, PROJECT, removeWorkspace, seal, sealedPath, treeDigest, workspace } from '../helpers/archive-workspace.ts';
 
 announceChromiumSkip('the seal tests');
 

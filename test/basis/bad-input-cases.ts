@@ -1,7 +1,7 @@
 // The bad-input corpus: each case is the base fixture (fixtures/sofc-power.yaml) with an edit,
 // or a text of its own, and every diagnostic it must give, formatted `file:line:col: path:
 // message` (so each asserts the exact message, the field path and the position).
-import { BASE, edit } from './helpers.ts';
+import { BASE, edit } from '../helpers/basis-text.ts';
 
 export interface BadCase {
   name: string;

@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { loadBasisText } from '../../lib/basis/load.ts';
 import { saturationPressureBar } from '../../lib/thermo/saturation.ts';
 import { findPreset } from '../../lib/basis/presets.ts';
-import { BASE, edit } from './helpers.ts';
+import { BASE, edit } from '../helpers/basis-text.ts';
 
 function airFeed(text: string): Record<string, number> {
   const result = loadBasisText(text, 'projects/t/basis.yaml', 't');

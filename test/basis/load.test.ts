@@ -10,7 +10,7 @@ import { MAX_BASIS_BYTES } from '../../lib/basis/source-text.ts';
 import { DEFAULT_SENSITIVITY } from '../../lib/basis/read-sensitivity.ts';
 import { UserError } from '../../lib/core/errors.ts';
 import type { DesignBasis } from '../../lib/basis/types.ts';
-import { BASE, edit } from './helpers.ts';
+import { BASE, edit } from '../helpers/basis-text.ts';
 
 const FILE = 'projects/t/basis.yaml';
 

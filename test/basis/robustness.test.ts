@@ -3,7 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { loadBasisText } from '../../lib/basis/load.ts';
-import { BASE } from './helpers.ts';
+import { BASE } from '../helpers/basis-text.ts';
 
 const LINES = BASE.split('\n');
 

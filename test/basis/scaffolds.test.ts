@@ -10,7 +10,7 @@ import { loadBasisText } from '../../lib/basis/load.ts';
 import { formatDiagnostic } from '../../lib/basis/diagnostics.ts';
 import { designBasisJsonSchema, designBasisJsonSchemaText, SCHEMA_FILE } from '../../lib/basis/json-schema.ts';
 import { technologies } from '../../lib/electrochem/technologies.ts';
-import { BASE, edit } from './helpers.ts';
+import { BASE, edit } from '../helpers/basis-text.ts';
 
 const committed = readFileSync(new URL(`../../${SCHEMA_FILE}`, import.meta.url), 'utf8');
 // "date" is a standard format; ajv leaves format checking to ajv-formats, which editors have built in.

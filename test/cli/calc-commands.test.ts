@@ -8,7 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { parseDocument } from 'yaml';
 import { renderScaffold } from '../../lib/basis/scaffolds.ts';
 import type { Mode, TechnologyId } from '../../lib/electrochem/technologies.ts';
-import { run } from './run.ts';
+import { run } from '../helpers/run-cli.ts';
 
 function project(technology: TechnologyId, mode: Mode, edits: Record<string, unknown> = {}): string {
   const root = mkdtempSync(join(tmpdir(), 'cellbasis-calc-'));

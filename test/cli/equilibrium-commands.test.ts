@@ -1,7 +1,7 @@
 // The equilibrium and steam-limit commands: the JSON keys the issue names, the acceptance values,
 // and one-line messages with exit code 2 for bad feeds.
 import { describe, expect, it } from 'vitest';
-import { run } from './run.ts';
+import { run } from '../helpers/run-cli.ts';
 
 describe('cellbasis equilibrium', () => {
   it('CH4=1, H2O=2 at 800 C and 1 bar gives H2 ≈ 0.640, CO ≈ 0.157, CH4 ≈ 0.0015', async () => {

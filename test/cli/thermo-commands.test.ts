@@ -2,7 +2,7 @@
 // one-line messages for user mistakes (no stack traces).
 import { execFileSync, spawnSync } from 'node:child_process';
 import { describe, expect, it } from 'vitest';
-import { run } from './run.ts';
+import { run } from '../helpers/run-cli.ts';
 import { COMMANDS } from '../../lib/cli/main.ts';
 
 describe('cellbasis reaction', () => {

@@ -7,7 +7,7 @@ import { calculate } from '../../lib/plant/calculate.ts';
 import { scaffoldKinds } from '../../lib/basis/scaffolds.ts';
 import { enthalpy } from '../../lib/thermo/properties.ts';
 import { getSpecies } from '../../lib/thermo/species-data.ts';
-import { basisFrom } from './helpers.ts';
+import { basisFrom } from '../helpers/scaffold-basis.ts';
 
 function enthalpyOf(flows: Record<string, number>, t: number): number {
   return Object.entries(flows).reduce((s, [k, v]) => s + v * enthalpy(getSpecies(k), t), 0);

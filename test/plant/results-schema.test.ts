@@ -9,8 +9,8 @@ import { Ajv } from 'ajv';
 import { calculate } from '../../lib/plant/calculate.ts';
 import { resultsJsonSchemaText, RESULTS_SCHEMA_FILE } from '../../lib/plant/results-json-schema.ts';
 import { scaffoldKinds } from '../../lib/basis/scaffolds.ts';
-import { basisFrom } from './helpers.ts';
-import { run } from '../cli/run.ts';
+import { basisFrom } from '../helpers/scaffold-basis.ts';
+import { run } from '../helpers/run-cli.ts';
 
 const committed = readFileSync(new URL(`../../${RESULTS_SCHEMA_FILE}`, import.meta.url), 'utf8');
 

@@ -11,7 +11,7 @@ import { evaluateReaction } from '../../lib/electrochem/reaction.ts';
 import { FARADAY_C_PER_MOL as F, GAS_CONSTANT_J_PER_MOL_K as R } from '../../lib/thermo/constants.ts';
 import { enthalpy, gibbs } from '../../lib/thermo/properties.ts';
 import { getSpecies } from '../../lib/thermo/species-data.ts';
-import { basisFrom } from './helpers.ts';
+import { basisFrom } from '../helpers/scaffold-basis.ts';
 
 const h = (name: string, t: number) => enthalpy(getSpecies(name), t);
 const g = (name: string, t: number) => gibbs(getSpecies(name), t);

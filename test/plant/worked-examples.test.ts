@@ -9,7 +9,7 @@ import { FARADAY_C_PER_MOL as F } from '../../lib/thermo/constants.ts';
 import { enthalpy, gibbs } from '../../lib/thermo/properties.ts';
 import { getSpecies } from '../../lib/thermo/species-data.ts';
 import { saturationPressureBar } from '../../lib/thermo/saturation.ts';
-import { basisFrom } from './helpers.ts';
+import { basisFrom } from '../helpers/scaffold-basis.ts';
 
 const M_H2 = 2.01588e-3; // kg/mol (NASA record, IUPAC atomic weights)
 const R_GAS = 8.31446261815324; // J/(mol K), CODATA 2018 (exact)

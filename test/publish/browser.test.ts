@@ -10,7 +10,7 @@ import { chromium, type Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildSite } from '../../lib/publish/build.ts';
 import { PACKAGE_ROOT } from '../../lib/publish/paths.ts';
-import { EPOCH, htmlPages, sealedDemoRoot } from './helpers.ts';
+import { EPOCH, htmlPages, sealedDemoRoot } from '../helpers/site.ts';
 
 const CHROMIUM = '/usr/bin/chromium';
 const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];

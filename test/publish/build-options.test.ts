@@ -7,7 +7,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { renderScaffold } from '../../lib/basis/scaffolds.ts';
 import { CACHE_DIR } from '../../lib/batch/results-cache.ts';
-import { run } from '../cli/run.ts';
+import { run } from '../helpers/run-cli.ts';
 
 function root(): string {
   const dir = mkdtempSync(join(tmpdir(), 'cellbasis-build-options-'));

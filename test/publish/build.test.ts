@@ -10,10 +10,10 @@ import { renderView } from '../../lib/publish/render.ts';
 import { DRAFT_PDF_STATUS, findChromium, readPdfProperties } from '../../lib/publish/pdf.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
 import { outline } from '../../lib/report/outline.ts';
-import { compact, imageSizes, pageTexts } from '../archive/pdf-inspect.ts';
+import { compact, imageSizes, pageTexts } from '../helpers/pdf-inspect.ts';
 import type { ChartSpec } from '../../lib/report/charts/spec.ts';
-import { run } from '../cli/run.ts';
-import { basisFile, DEMO_PROJECTS, demoRoot, EPOCH, htmlPages, sealedDemoRoot, SOFC, treeDigest } from './helpers.ts';
+import { run } from '../helpers/run-cli.ts';
+import { basisFile, DEMO_PROJECTS, demoRoot, EPOCH, htmlPages, sealedDemoRoot, SOFC, treeDigest } from '../helpers/site.ts';
 
 let root: string;
 

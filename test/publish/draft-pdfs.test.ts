@@ -9,8 +9,8 @@ import { afterAll, expect, it } from 'vitest';
 import { printInputs } from '../../lib/publish/draft-pdfs.ts';
 import { buildSite } from '../../lib/publish/build.ts';
 import { CACHE_DIR } from '../../lib/batch/results-cache.ts';
-import { describeWithChromium } from '../archive/chromium.ts';
-import { basisFile, demoRoot, EPOCH } from './helpers.ts';
+import { describeWithChromium } from '../helpers/chromium.ts';
+import { basisFile, demoRoot, EPOCH } from '../helpers/site.ts';
 
 const made: string[] = [];
 afterAll(() => {

@@ -1,8 +1,8 @@
-// The killed-build test compares reprinted drafts with pdfLayoutDigest (test/publish/helpers.ts),
+// The killed-build test compares reprinted drafts with pdfLayoutDigest (test/helpers/site.ts),
 // which must ignore a glyph placed a fraction of a unit apart and nothing else.
 import { expect, it } from 'vitest';
 import { PDFDocument, StandardFonts } from 'pdf-lib';
-import { pdfLayoutDigest } from './helpers.ts';
+import { pdfLayoutDigest } from '../helpers/site.ts';
 
 async function onePage(y: number, text = 'design basis'): Promise<Buffer> {
   const pdf = await PDFDocument.create({ updateMetadata: false });

@@ -7,7 +7,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { renderDocumentHtml, renderStandaloneHtml } from '../../lib/publish/render.ts';
 import { inlineAssets } from '../../lib/publish/inline-assets.ts';
 import { writeSiteAssets } from '../../lib/publish/write-assets.ts';
-import { scaffoldCase } from '../report/helpers.ts';
+import { scaffoldCase } from '../helpers/scaffold-cases.ts';
 import { HAZARD_NOTICE } from '../../lib/hazards/notice.ts';
 import { escapeHtml } from '../../lib/report/trusted-html.ts';
 

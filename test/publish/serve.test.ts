@@ -6,7 +6,7 @@ import { afterAll, beforeAll, expect, it } from 'vitest';
 import { serveSite } from '../../lib/publish/serve.ts';
 import { buildSite } from '../../lib/publish/build.ts';
 import { join } from 'node:path';
-import { basisFile, demoRoot, freePort } from './helpers.ts';
+import { basisFile, demoRoot, freePort } from '../helpers/site.ts';
 
 const ID = 'hob-tor-pem-backup';
 /** A second project, which a change to the first must leave alone. */

@@ -6,7 +6,7 @@ import { renderDocumentHtml } from '../../lib/publish/render.ts';
 import { nunjucksEnvironment } from '../../lib/publish/nunjucks-env.ts';
 import { trustedHtml } from '../../lib/report/trusted-html.ts';
 import { jsonForScript } from '../../lib/report/charts/json-script.ts';
-import { scaffoldCase } from './helpers.ts';
+import { scaffoldCase } from '../helpers/scaffold-cases.ts';
 
 const HOSTILE = '<script>alert(1)</script> {{ 7*7 }} \\href{x}{y} $\\def\\x{1}$';
 

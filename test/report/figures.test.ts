@@ -4,7 +4,7 @@
 import { describe, expect, it } from 'vitest';
 import { figures, type DrawnFigure } from '../../lib/report/charts/figures.ts';
 import type { ChartSpec } from '../../lib/report/charts/spec.ts';
-import { CASES, scaffoldCase } from './helpers.ts';
+import { CASES, scaffoldCase } from '../helpers/scaffold-cases.ts';
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { loadBasisText } from '../../lib/basis/load.ts';

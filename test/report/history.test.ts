@@ -7,7 +7,7 @@ import { historySection } from '../../lib/report/sections/history-view.ts';
 import { stampFor } from '../../lib/report/revision.ts';
 import { relativeHref, revisionPagePath, draftPagePath } from '../../lib/report/links.ts';
 import type { SealManifest } from '../../lib/archive/layout.ts';
-import { scaffoldCase } from './helpers.ts';
+import { scaffoldCase } from '../helpers/scaffold-cases.ts';
 
 const c = scaffoldCase('solid-oxide', 'power');
 

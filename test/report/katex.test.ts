@@ -7,7 +7,7 @@ import { EquationBook } from '../../lib/report/equation-book.ts';
 import { methodSection } from '../../lib/report/method.ts';
 import { documentView } from '../../lib/report/document.ts';
 import { texSpecies } from '../../lib/report/tex.ts';
-import { CASES, scaffoldCase } from './helpers.ts';
+import { CASES, scaffoldCase } from '../helpers/scaffold-cases.ts';
 
 describe('renderTex', () => {
   it('throws on an equation KaTeX cannot parse, naming it', () => {

@@ -8,7 +8,7 @@ import { resultLines } from '../../lib/report/result-lines.ts';
 import type { CalcLine } from '../../lib/report/calc-line.ts';
 import { formatTrimmed } from '../../lib/report/format.ts';
 import type { Results } from '../../lib/plant/results-schema.ts';
-import { CASES, scaffoldCase } from './helpers.ts';
+import { CASES, scaffoldCase } from '../helpers/scaffold-cases.ts';
 
 type Formula = (n: Record<string, number>) => number;
 

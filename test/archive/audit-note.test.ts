@@ -8,7 +8,7 @@ import type { SealManifest } from '../../lib/archive/layout.ts';
 import { manifestBytes } from '../../lib/archive/manifest.ts';
 import { nunjucksEnvironment } from '../../lib/publish/nunjucks-env.ts';
 import { escapeHtml } from '../../lib/report/trusted-html.ts';
-import { hostileText } from './hostile-basis.ts';
+import { hostileText } from '../helpers/hostile-basis.ts';
 
 const NOTES = ['issued for review', 'files on \\\\fs01\\projects\\TDC', `it's "final" & <checked>`, hostileText('note'), '\\href{x}{y} {{ 7*7 }}'];
 

@@ -33,12 +33,12 @@ import { dirname, join, relative } from 'node:path';
 import { within } from '../../lib/archive/layout.ts';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { renderScaffold } from '../../lib/basis/scaffolds.ts';
-import { run } from '../cli/run.ts';
-import { announceChromiumSkip, describeWithChromium } from '../archive/chromium.ts';
-import { freePort } from '../publish/helpers.ts';
-import { basisPath, PROJECT, removeWorkspace, SEAL_TIMEOUT, seal, workspace } from '../archive/helpers.ts';
-import { BIN, cellbasis, runNode, until, type ChildOptions } from './child.ts';
-import { treeRecord } from './tree-record.ts';
+import { run } from '../helpers/run-cli.ts';
+import { announceChromiumSkip, describeWithChromium } from '../helpers/chromium.ts';
+import { basisPath, PROJECT, removeWorkspace, SEAL_TIMEOUT, seal, workspace } from '../helpers/archive-workspace.ts';
+import { BIN, cellbasis, runNode, until, type ChildOptions } from '../helpers/child-process.ts';
+import { freePort } from '../helpers/site.ts';
+import { treeRecord } from '../helpers/tree-record.ts';
 
 announceChromiumSkip('the sealed-folder tests');
 

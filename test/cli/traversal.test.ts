@@ -8,7 +8,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { COMMANDS } from '../../lib/cli/main.ts';
 import { renderScaffold } from '../../lib/basis/scaffolds.ts';
-import { run } from '../cli/run.ts';
+import { run } from '../helpers/run-cli.ts';
 
 /** How each command is given a project id. */
 const ID_COMMANDS: Record<string, (id: string) => string[]> = {

@@ -1,5 +1,5 @@
 /**
- * Shared by the hardening tests that run the real binary, node bin/cellbasis.js, as a child
+ * Shared by the tests that run the real binary, node bin/cellbasis.js, as a child
  * process: a run to its end (optionally behind a command such as `unshare -n`, or as another
  * user), a run started in its own process group to be killed with everything it started, and
  * the checks of a complete built site.

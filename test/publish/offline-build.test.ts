@@ -2,7 +2,7 @@
 // the index, the assets, and the draft PDFs printed in Chromium) runs as a child process with
 // all network access taken away, in two independent ways, and still writes the complete site.
 //
-//   1. A preload (test/hardening/fixtures/no-network.mjs, through NODE_OPTIONS=--import, so
+//   1. A preload (test/helpers/fixtures/no-network.mjs, through NODE_OPTIONS=--import, so
 //      worker threads get it too) refuses and records every network call of Node: socket
 //      connects (TCP, TLS, http, https, http2, the fetch built into Node), http(s).request,
 //      DNS lookups and resolves, UDP and the global fetch. It also records every request the
@@ -38,14 +38,14 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { afterAll, beforeAll, expect, it } from 'vitest';
-import { announceChromiumSkip, describeWithChromium } from '../archive/chromium.ts';
-import { demoRoot, EPOCH, htmlPages, sealFixture, treeDigest } from '../publish/helpers.ts';
-import { cellbasis, expectCompleteSite, runNode, type ChildRun } from './child.ts';
+import { announceChromiumSkip, describeWithChromium } from '../helpers/chromium.ts';
+import { demoRoot, EPOCH, htmlPages, sealFixture, treeDigest } from '../helpers/site.ts';
+import { cellbasis, expectCompleteSite, runNode, type ChildRun } from '../helpers/child-process.ts';
 
 announceChromiumSkip('the offline build tests');
 
-const PRELOAD = fileURLToPath(new URL('./fixtures/no-network.mjs', import.meta.url));
-const ATTEMPTS = fileURLToPath(new URL('./fixtures/network-attempts.mjs', import.meta.url));
+const PRELOAD = fileURLToPath(new URL('../helpers/fixtures/no-network.mjs', import.meta.url));
+const ATTEMPTS = fileURLToPath(new URL('../helpers/fixtures/network-attempts.mjs', import.meta.url));
 const PROJECTS = ['hob-tor-pem-backup', 'kestrelford-pem-electrolyser'] as const;
 const SEALED_PAGE = 'projects/hob-tor-pem-backup/rev-A/index.html';
 const BUILD_TIMEOUT = 400_000;
@@ -222,7 +222,7 @@ describeWithChromium('cellbasis build with all network access taken away', () =>
     const withPreload = recorder.mark();
     const refused = JSON.parse((await node(['--import', PRELOAD, ATTEMPTS, String(recorder.port)], { CELLBASIS_NET_LOG: log })).out) as Record<string, string>;
     expect(Object.keys(refused)).toEqual(Object.keys(free));
-    for (const [name, outcome] of Object.entries(refused)) expect(outcome, `${name} with the preload`).toMatch(/^failed: ENETUNREACH .*refused by test\/hardening\/fixtures\/no-network\.mjs/);
+    for (const [name, outcome] of Object.entries(refused)) expect(outcome, `${name} with the preload`).toMatch(/^failed: ENETUNREACH .*refused by test\/helpers\/fixtures\/no-network\.mjs/);
     expect(withPreload(), 'nothing reached the server').toEqual({ connections: [], requests: [] });
     const entries = readLog(log);
     expect(entries[0]).toMatchObject({ kind: 'loaded' });

@@ -7,8 +7,8 @@ import { afterAll, beforeAll, expect, it } from 'vitest';
 import { PDFArray, PDFDict, PDFDocument, PDFName, PDFRef, PDFString } from 'pdf-lib';
 import { footerTemplate, headerTemplate, withPdfPrinter, type PdfMeta } from '../../lib/publish/pdf.ts';
 import { toolVersion } from '../../lib/core/version.ts';
-import { announceChromiumSkip, describeWithChromium } from './chromium.ts';
-import { compact, pageTexts, pdfAttachments, pdfInfo } from './pdf-inspect.ts';
+import { announceChromiumSkip, describeWithChromium } from '../helpers/chromium.ts';
+import { compact, pageTexts, pdfAttachments, pdfInfo } from '../helpers/pdf-inspect.ts';
 
 announceChromiumSkip('the PDF printer tests');
 

@@ -9,7 +9,7 @@ import { tmpdir } from 'node:os';
 import { join, relative } from 'node:path';
 import { renderScaffold } from '../../lib/basis/scaffolds.ts';
 import type { Mode, TechnologyId } from '../../lib/electrochem/technologies.ts';
-import { run } from '../cli/run.ts';
+import { run } from './run-cli.ts';
 
 export const PROJECT = 'demo';
 

@@ -18,12 +18,12 @@ import { afterAll, beforeAll, expect, it } from 'vitest';
 import { buildSite } from '../../lib/publish/build.ts';
 import { withPdfPrinter, type PdfMeta } from '../../lib/publish/pdf.ts';
 import { PACKAGE_ROOT } from '../../lib/publish/paths.ts';
-import { announceChromiumSkip, describeWithChromium } from '../archive/chromium.ts';
-import { compact, pageTexts, pdfAttachments, pdfInfo } from '../archive/pdf-inspect.ts';
-import { run } from '../cli/run.ts';
-import { EPOCH, htmlPages, withRevision } from '../publish/helpers.ts';
-import { HOSTILE_MIXTURE, HOSTILE_SOURCE_PROJECT, LITERAL_PIECES, SCRIPT_PAYLOAD, hostileBasisText, hostileParagraphs, hostileText } from './hostile-basis.ts';
-import { watchPrinting, type PrintWatch } from './chromium-probe.ts';
+import { announceChromiumSkip, describeWithChromium } from '../helpers/chromium.ts';
+import { compact, pageTexts, pdfAttachments, pdfInfo } from '../helpers/pdf-inspect.ts';
+import { run } from '../helpers/run-cli.ts';
+import { EPOCH, htmlPages, withRevision } from '../helpers/site.ts';
+import { HOSTILE_MIXTURE, HOSTILE_SOURCE_PROJECT, LITERAL_PIECES, SCRIPT_PAYLOAD, hostileBasisText, hostileParagraphs, hostileText } from '../helpers/hostile-basis.ts';
+import { watchPrinting, type PrintWatch } from '../helpers/chromium-probe.ts';
 
 announceChromiumSkip('the hostile-content tests in Chromium');
 

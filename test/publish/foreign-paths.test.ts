@@ -21,11 +21,11 @@ import { CACHE_DIR } from '../../lib/batch/results-cache.ts';
 import { removeCacheLeftovers } from '../../lib/publish/cache-leftovers.ts';
 import { serveSite } from '../../lib/publish/serve.ts';
 import { SITE_MARKER, SITE_MARKER_TEXT } from '../../lib/publish/site-marker.ts';
-import { describeWithChromium } from '../archive/chromium.ts';
-import { PROJECT, SEAL_TIMEOUT, seal, workspace as archiveWorkspace } from '../archive/helpers.ts';
-import { run } from '../cli/run.ts';
-import { runNode } from './child.ts';
-import { treeRecord } from './tree-record.ts';
+import { describeWithChromium } from '../helpers/chromium.ts';
+import { PROJECT, SEAL_TIMEOUT, seal, workspace as archiveWorkspace } from '../helpers/archive-workspace.ts';
+import { run } from '../helpers/run-cli.ts';
+import { runNode } from '../helpers/child-process.ts';
+import { treeRecord } from '../helpers/tree-record.ts';
 
 const made: string[] = [];
 afterAll(() => {

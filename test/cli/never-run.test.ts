@@ -8,7 +8,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseDocument } from 'yaml';
 import { renderScaffold } from '../../lib/basis/scaffolds.ts';
-import { run } from '../cli/run.ts';
+import { run } from '../helpers/run-cli.ts';
 
 function project(text: string): string {
   const root = mkdtempSync(join(tmpdir(), 'cellbasis-never-run-'));

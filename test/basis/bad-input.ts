@@ -1,4 +1,4 @@
-// The hostile-input corpus of test/hardening/corpus/: each case is a file <name>.yaml (or, for
+// The hostile-input corpus of test/basis/bad-input/: each case is a file <name>.yaml (or, for
 // the few too large to commit, a recipe to make one) and <name>.expect.json with, for each
 // command run on it, the exit code and every line it writes on stderr.
 import { closeSync, copyFileSync, mkdirSync, openSync, readdirSync, readFileSync, writeSync } from 'node:fs';
@@ -7,7 +7,7 @@ import { fileURLToPath } from 'node:url';
 import { expect } from 'vitest';
 
 // fileURLToPath, not URL.pathname, which keeps a space in the path as %20.
-export const CORPUS = fileURLToPath(new URL('./corpus/', import.meta.url));
+export const CORPUS = fileURLToPath(new URL('./bad-input/', import.meta.url));
 
 /** What one command must give on the case. */
 export interface Outcome {

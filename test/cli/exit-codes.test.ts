@@ -9,7 +9,7 @@ import { main } from '../../lib/cli/main.ts';
 import type { Io } from '../../lib/cli/command.ts';
 import { renderScaffold } from '../../lib/basis/scaffolds.ts';
 import { EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, EXIT_VALIDATION } from '../../lib/core/errors.ts';
-import { run } from '../cli/run.ts';
+import { run } from '../helpers/run-cli.ts';
 
 function workspace(): string {
   const root = mkdtempSync(join(tmpdir(), 'cellbasis-exit-'));

@@ -1,4 +1,4 @@
-// Every case of the hostile-input corpus (corpus.ts, test/hardening/corpus/) through the real
+// Every case of the hostile-input corpus (bad-input.ts, test/basis/bad-input/) through the real
 // command line, in process: `cellbasis check <id>` and `cellbasis calc <id>` give exactly the
 // exit code and the stderr lines of the case's .expect.json, never a stack trace, in bounded
 // time and memory.
@@ -6,8 +6,8 @@ import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { run } from '../cli/run.ts';
-import { corpusCases, expectOutcome, placeCase } from './corpus.ts';
+import { run } from '../helpers/run-cli.ts';
+import { corpusCases, expectOutcome, placeCase } from './bad-input.ts';
 
 const CASES = corpusCases();
 

@@ -10,10 +10,10 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { renderScaffold } from '../../lib/basis/scaffolds.ts';
-import { corpusCases, expectOutcome, placeCase } from './corpus.ts';
+import { corpusCases, expectOutcome, placeCase } from '../basis/bad-input.ts';
 
 const BIN = fileURLToPath(new URL('../../bin/cellbasis.js', import.meta.url));
-const FAILING_STDOUT = fileURLToPath(new URL('./fixtures/failing-stdout.mjs', import.meta.url));
+const FAILING_STDOUT = fileURLToPath(new URL('../helpers/fixtures/failing-stdout.mjs', import.meta.url));
 
 interface Ran {
   code: number;

@@ -25,9 +25,9 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { BUILD_STEPS } from '../../lib/publish/build.ts';
 import { CACHE_DIR } from '../../lib/batch/results-cache.ts';
-import { announceChromiumSkip, describeWithChromium } from '../archive/chromium.ts';
-import { basisFile, demoRoot, EPOCH, treeLayoutDigest } from '../publish/helpers.ts';
-import { cellbasis, descendants, expectCompleteSite, running, startCellbasis, until, type Started } from './child.ts';
+import { announceChromiumSkip, describeWithChromium } from '../helpers/chromium.ts';
+import { basisFile, demoRoot, EPOCH, treeLayoutDigest } from '../helpers/site.ts';
+import { cellbasis, descendants, expectCompleteSite, running, startCellbasis, until, type Started } from '../helpers/child-process.ts';
 
 announceChromiumSkip('the killed-build tests');
 
