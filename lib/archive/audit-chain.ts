@@ -1,10 +1,10 @@
 /**
  * The chain of sealed revisions: each manifest's `previous` names the revision before it and the
  * SHA-256 of that revision's manifest.json as it is now; each revision follows the one before
- * it (revisions.ts) and is not sealed on an earlier date; the first names no previous revision.
+ * it (lib/basis/revisions.ts) and is not sealed on an earlier date; the first names no previous revision.
  */
 import type { SealManifest } from './layout.ts';
-import { checkFollows } from './revisions.ts';
+import { checkFollows } from '../basis/revisions.ts';
 import { sha256Hex } from './hash.ts';
 import { finding, type AuditFinding } from './audit-finding.ts';
 

@@ -9,7 +9,7 @@ import { EXIT_USAGE, UserError } from '../core/errors.ts';
 import type { RevisionSide } from './compare.ts';
 import { readSealedFolder } from './sealed-folder.ts';
 import { readSealedRevision } from './sealed-revision.ts';
-import { revisionProblem } from './revisions.ts';
+import { revisionProblem } from '../basis/revisions.ts';
 import { readWorkingBasis } from './working-basis.ts';
 
 export const DRAFT = 'draft';

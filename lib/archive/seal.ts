@@ -5,7 +5,7 @@
  * Refused (UserError; exit 1 for a basis with errors or a damaged archive, 2 for the request)
  * when the status is not one a revision is issued with (draft is the working state; superseded
  * follows from a later seal), the revision exists already or does not follow the last sealed
- * one (revisions.ts), the seal date lies before the last revision's, the basis has errors, or
+ * one (lib/basis/revisions.ts), the seal date lies before the last revision's, the basis has errors, or
  * Chromium is missing (a sealed revision must be complete, PDF included).
  *
  * Otherwise, holding the seal lock (sealed-folder.ts), it removes temporary folders that killed
@@ -36,7 +36,7 @@ import { toolVersion } from '../core/version.ts';
 import { documentPdfMeta, findChromium, ChromiumMissingError, withPdfPrinter } from '../publish/pdf.ts';
 import { EXIT_USAGE, EXIT_VALIDATION, UserError } from '../core/errors.ts';
 import { SEALED_FILES, sealedDir, sealedRoot, type SealManifest } from './layout.ts';
-import { checkFollows, successors } from './revisions.ts';
+import { checkFollows, successors } from '../basis/revisions.ts';
 import { acquireSealLock, isSealTemporary, lastRevision, readSealedFolder, tempDirName, type SealedFolder } from './sealed-folder.ts';
 import { readSealedRevision, type SealedRevision } from './sealed-revision.ts';
 import { sealedBasisText } from './sealed-basis.ts';

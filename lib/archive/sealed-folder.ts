@@ -12,7 +12,7 @@ import { lstatSync, readdirSync, readFileSync, unlinkSync, writeFileSync } from 
 import { join } from 'node:path';
 import { EXIT_USAGE, EXIT_VALIDATION, UserError } from '../core/errors.ts';
 import { SEALED_FILES, sealedRoot } from './layout.ts';
-import { compareRevisions, isRevision } from './revisions.ts';
+import { compareRevisions, isRevision } from '../basis/revisions.ts';
 
 export const TEMP_PREFIX = '.tmp-';
 export const LOCK_FILE = '.seal-lock';

@@ -6,7 +6,7 @@
  */
 import { findSpecies, suggestSpecies, UnknownSpeciesError } from '../thermo/species-data.ts';
 import { findPreset, presetNames } from './presets.ts';
-import { didYouMean } from './suggest.ts';
+import { didYouMean } from '../core/suggest.ts';
 import type { Path } from './diagnostics.ts';
 import type { Reader } from './reader.ts';
 import { quoted } from '../core/quote.ts';

@@ -5,7 +5,7 @@
  * electrode), the ionic transference number in (0, 1] and the crossover allowance.
  */
 import { technology, type Mode, type Technology, type TechnologyId } from '../electrochem/technologies.ts';
-import { quotedList } from './suggest.ts';
+import { quotedList } from '../core/suggest.ts';
 import type { Reader } from './reader.ts';
 import type { CellInfo } from './types.ts';
 

@@ -3,7 +3,7 @@
  * reference written in the basis that looks like an id (R7, A2, REF-3) names one of them.
  * Longer text is a free justification and is kept as written.
  */
-import { quotedList } from './suggest.ts';
+import { quotedList } from '../core/suggest.ts';
 import type { Path } from './diagnostics.ts';
 import type { Reader } from './reader.ts';
 import type { Assumption, Reference } from './types.ts';

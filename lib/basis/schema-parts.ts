@@ -8,7 +8,7 @@
 import { z } from 'zod';
 import { expectedText, parseQuantity, UnitError, type Dimension } from '../core/units.ts';
 import { quantityPattern } from './unit-pattern.ts';
-import { didYouMean, quotedList } from './suggest.ts';
+import { didYouMean, quotedList } from '../core/suggest.ts';
 import { quoted } from '../core/quote.ts';
 
 /** How a YAML value reads in a message: `"hot"`, `the number 5`, `a list`, `nothing`. */

@@ -9,7 +9,7 @@ import type { z } from 'zod';
 import { basisSchema } from './schema.ts';
 import { describeValue } from './schema-parts.ts';
 import { pathText, type Findings, type Path } from './diagnostics.ts';
-import { closest } from './suggest.ts';
+import { closest } from '../core/suggest.ts';
 
 type Issue = z.core.$ZodIssue;
 

@@ -13,7 +13,7 @@ import type { DesignBasis } from '../basis/types.ts';
 import { resultsSchema, type Results } from '../plant/results-schema.ts';
 import { SEALED_FILES, sealedRoot, type SealManifest } from '../archive/layout.ts';
 import { parseManifest } from '../archive/manifest.ts';
-import { compareRevisions, isRevision } from '../archive/revisions.ts';
+import { compareRevisions, isRevision } from '../basis/revisions.ts';
 import type { SiteProblems } from './site-problems.ts';
 
 export interface SealedRevision {

@@ -1,13 +1,13 @@
 /**
  * The revision history of a project for its documents: every sealed revision in issue order
- * (ASME Y14.35 sequence, lib/archive/revisions.ts), then the working draft. Each entry can carry a
+ * (ASME Y14.35 sequence, lib/basis/revisions.ts), then the working draft. Each entry can carry a
  * change summary against the revision before it; that comparison belongs to lib/archive, so it is
  * passed in as `changeSummary` (the extension point) and the entries hold null without it.
  */
 import type { DesignBasis, DocumentStatus } from '../basis/types.ts';
 import type { Results } from '../plant/results-schema.ts';
 import type { SealManifest } from '../archive/layout.ts';
-import { compareRevisions } from '../archive/revisions.ts';
+import { compareRevisions } from '../basis/revisions.ts';
 
 /** A revision's content as the comparison needs it: the basis and results as sealed (or of the draft). */
 export interface RevisionData {

@@ -13,7 +13,7 @@ import { renderScaffold } from '../../basis/scaffolds.ts';
 import { loadBasisText } from '../../basis/load.ts';
 import { formatDiagnostic } from '../../basis/diagnostics.ts';
 import { TECHNOLOGY_NAMES } from '../../basis/schema.ts';
-import { didYouMean, quotedList } from '../../basis/suggest.ts';
+import { didYouMean, quotedList } from '../../core/suggest.ts';
 import { UserError } from '../../core/errors.ts';
 
 function technologyArg(name: string): TechnologyId {

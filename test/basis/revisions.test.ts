@@ -1,7 +1,7 @@
 // Revision names and their order, after ASME Y14.35 drawing-revision practice (letters before
 // approval, skipping I, O, Q, S, X and Z; numbers after).
 import { describe, expect, it } from 'vitest';
-import { checkFollows, compareRevisions, isRevision, successors } from '../../lib/archive/revisions.ts';
+import { checkFollows, compareRevisions, isRevision, successors } from '../../lib/basis/revisions.ts';
 
 describe('revision sequence', () => {
   it('starts at A or 0, follows letters with the next letter or 0, numbers with the next number', () => {
