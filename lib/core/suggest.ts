@@ -1,8 +1,30 @@
 /**
- * Did-you-mean for names a basis gets wrong (keys, enumerations, mixture names), by the same
- * edit distance the species suggestions use (lib/thermo/species-data.ts).
+ * Did-you-mean for names a user gets wrong (keys, enumerations, mixture names, species), by an
+ * edit distance that the species suggestions of lib/thermo/species-data.ts use too.
  */
-import { editDistance } from '../thermo/species-data.ts';
+
+/**
+ * Levenshtein distance, case-insensitive (for did-you-mean suggestions); swapping the digit 0
+ * for the letter O (a common typing slip in formulas, "H20") costs half.
+ */
+function substitutionCost(x: string, y: string): number {
+  if (x === y) return 0;
+  return (x === '0' && y === 'o') || (x === 'o' && y === '0') ? 0.5 : 1;
+}
+
+export function editDistance(a: string, b: string): number {
+  const s = a.toLowerCase();
+  const t = b.toLowerCase();
+  let prev = Array.from({ length: t.length + 1 }, (_, j) => j);
+  for (let i = 1; i <= s.length; i++) {
+    const cur = [i];
+    for (let j = 1; j <= t.length; j++) {
+      cur[j] = Math.min(prev[j]! + 1, cur[j - 1]! + 1, prev[j - 1]! + substitutionCost(s[i - 1]!, t[j - 1]!));
+    }
+    prev = cur;
+  }
+  return prev[t.length]!;
+}
 
 /** Up to `most` candidates close to `name`, closest first. */
 export function closest(name: string, candidates: readonly string[], most = 2): string[] {

@@ -8,6 +8,7 @@ import { fileURLToPath } from 'node:url';
 import { parse as parseYaml } from 'yaml';
 import { parseNasaGlenn, type NasaRecord } from './nasa-glenn.ts';
 import { UserError } from '../core/errors.ts';
+import { editDistance } from '../core/suggest.ts';
 
 export interface Species {
   /** Name cellbasis shows and keys results by (the NASA name unless species-names.yaml gives a label). */
@@ -104,29 +105,6 @@ export function findSpecies(name: string): Species | undefined {
   const r = reg();
   const trimmed = name.trim();
   return r.byLabel.get(trimmed) ?? r.byLabel.get(r.aliases.get(trimmed) ?? '');
-}
-
-/**
- * Levenshtein distance, case-insensitive (for did-you-mean suggestions); swapping the digit 0
- * for the letter O (a common typing slip in formulas, "H20") costs half.
- */
-function substitutionCost(x: string, y: string): number {
-  if (x === y) return 0;
-  return (x === '0' && y === 'o') || (x === 'o' && y === '0') ? 0.5 : 1;
-}
-
-export function editDistance(a: string, b: string): number {
-  const s = a.toLowerCase();
-  const t = b.toLowerCase();
-  let prev = Array.from({ length: t.length + 1 }, (_, j) => j);
-  for (let i = 1; i <= s.length; i++) {
-    const cur = [i];
-    for (let j = 1; j <= t.length; j++) {
-      cur[j] = Math.min(prev[j]! + 1, cur[j - 1]! + 1, prev[j - 1]! + substitutionCost(s[i - 1]!, t[j - 1]!));
-    }
-    prev = cur;
-  }
-  return prev[t.length]!;
 }
 
 /** Up to three known names closest to `name`. */
