@@ -6,8 +6,19 @@
  */
 import type { DesignBasis, DocumentStatus } from '../basis/types.ts';
 import type { Results } from '../plant/results-schema.ts';
-import type { SealManifest } from '../archive/layout.ts';
 import { compareRevisions } from '../basis/revisions.ts';
+
+/**
+ * What the history shows of a sealed revision, as its manifest records it (lib/archive/layout.ts
+ * SealManifest has these fields; the report names only what it displays, so that it does not
+ * depend on the archive above it).
+ */
+export interface SealedFacts {
+  status: DocumentStatus;
+  sealedOn: string;
+  note: string;
+  signOff: readonly { role: 'prepared' | 'checked' | 'approved'; name: string; date?: string }[];
+}
 
 /** A revision's content as the comparison needs it: the basis and results as sealed (or of the draft). */
 export interface RevisionData {
@@ -20,7 +31,7 @@ export interface RevisionData {
 export type ChangeSummary = (previous: RevisionData, current: RevisionData) => string[];
 
 export interface SealedRevisionRecord extends RevisionData {
-  manifest: SealManifest;
+  manifest: SealedFacts;
   /** Site path of its page (e.g. projects/x/rev-A/index.html), or null where pages are not linked. */
   path: string | null;
 }
@@ -46,7 +57,7 @@ export interface RevisionHistoryEntry {
   changes: string[] | null;
 }
 
-function signatory(list: SealManifest['signOff'], role: 'prepared' | 'checked' | 'approved'): string {
+function signatory(list: SealedFacts['signOff'], role: 'prepared' | 'checked' | 'approved'): string {
   const s = list.find((x) => x.role === role);
   return s ? `${s.name}${s.date ? `, ${s.date}` : ''}` : '';
 }
