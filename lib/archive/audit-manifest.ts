@@ -7,7 +7,7 @@
  * equal to the sealed files) and the HTML (the note appears in the document).
  */
 import type { DesignBasis } from '../basis/types.ts';
-import type { PdfProperties } from '../publish/pdf.ts';
+import type { PdfProperties } from '../core/pdf-properties.ts';
 import { escapeHtml } from '../report/trusted-html.ts';
 import type { SealManifest } from './layout.ts';
 import { SEALED_FILES } from './layout.ts';

@@ -14,7 +14,7 @@
  */
 import { lstatSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { readPdfProperties, type PdfProperties } from '../publish/pdf.ts';
+import { readPdfProperties, type PdfProperties } from '../core/pdf-properties.ts';
 import { SEALED_FILES, sealedDir, sealedRoot, type SealManifest } from './layout.ts';
 import { parseManifest } from './manifest.ts';
 import { readSealedFolder } from './sealed-folder.ts';

@@ -15,7 +15,7 @@
  *
  * The files: basis.yaml (sealed-basis.ts: the working text with revision and status set),
  * results.json (calculate() of that basis), document.html (the document as one self-contained
- * file, by `options.render`), document.pdf (lib/publish/pdf.ts, with the basis and results
+ * file, by `options.render`), document.pdf (printed by `options.pdf`, with the basis and results
  * attached) and manifest.json (manifest.ts), and with a key manifest.sig (signature.ts). Every
  * timestamp is the seal date (seal-date.ts).
  *
@@ -33,7 +33,8 @@ import { calculate } from '../plant/calculate.ts';
 import type { Results } from '../plant/results-schema.ts';
 import { speciesDataHash } from '../thermo/species-data.ts';
 import { toolVersion } from '../core/version.ts';
-import { documentPdfMeta, findChromium, ChromiumMissingError, withPdfPrinter } from '../publish/pdf.ts';
+import { documentPdfMeta } from '../report/pdf-meta.ts';
+import type { PdfMeta } from '../core/pdf-properties.ts';
 import { EXIT_USAGE, EXIT_VALIDATION, UserError } from '../core/errors.ts';
 import { SEALED_FILES, sealedDir, sealedRoot, type SealManifest } from './layout.ts';
 import { checkFollows, successors } from '../basis/revisions.ts';
@@ -69,6 +70,17 @@ export interface SealDocumentInput {
 /** Renders the sealed document as one self-contained HTML file. */
 export type RenderSealedHtml = (input: SealDocumentInput) => Promise<string> | string;
 
+/**
+ * Prints the sealed document to PDF (lib/publish/pdf.ts gives one): given like the renderer, so
+ * that the archive does not depend on the publishing code above it.
+ */
+export interface SealPdfPrinter {
+  /** Throws (a UserError) when no PDF can be printed: asked before the seal takes its lock, so a refused seal writes nothing. */
+  check(): void;
+  /** The PDF of the page at `htmlPath` with the properties and attachments of `meta`, and the version of the Chromium that printed it. */
+  print(htmlPath: string, meta: PdfMeta): Promise<{ pdf: Uint8Array; chromium: string }>;
+}
+
 export interface SealOptions {
   cwd: string;
   project: string;
@@ -83,6 +95,7 @@ export interface SealOptions {
   env?: Record<string, string | undefined>;
   now?: () => Date;
   render: RenderSealedHtml;
+  pdf: SealPdfPrinter;
   /** Told each warning of the basis. */
   warn?: (diagnostic: Diagnostic) => void;
   /** Stop at this step and wait to be killed (tests). */
@@ -156,7 +169,7 @@ export async function sealRevision(options: SealOptions): Promise<SealOutcome> {
   const key: KeyObject | undefined = options.keyPath ? readPrivateKey(resolve(options.cwd, options.keyPath), options.keyPath) : undefined;
   checkNext(readSealedFolder(options.cwd, options.project), options.revision, display);
   const working = readWorkingBasis(options.cwd, options.project, options.warn);
-  if (findChromium() === null) throw new ChromiumMissingError();
+  options.pdf.check();
 
   const root = sealedRoot(options.cwd, options.project);
   const rootExisted = existsSync(root);
@@ -212,7 +225,7 @@ export async function sealRevision(options: SealOptions): Promise<SealOutcome> {
     await pause(options, 'html-written');
 
     const meta = documentPdfMeta({ basis: content.basis, results: content.results }, { date: sealDate.at, basisYaml: basisBytes, resultsJson: resultsBytes });
-    const { pdf, chromium } = await withPdfPrinter(async (printer) => ({ pdf: await printer.print(htmlPath, meta), chromium: printer.chromiumVersion }), { pages: 1 });
+    const { pdf, chromium } = await options.pdf.print(htmlPath, meta);
     writeFileDurably(join(temp, SEALED_FILES.pdf), pdf);
     await pause(options, 'pdf-written');
 

@@ -15,7 +15,9 @@ import type { DesignBasis } from '../basis/types.ts';
 import type { Results } from '../plant/results-schema.ts';
 import { CACHE_DIR, writeCacheEntry } from '../batch/results-cache.ts';
 import { libraryFingerprint } from '../batch/fingerprint.ts';
-import { documentPdfMeta, findChromium, withPdfPrinter, type PdfMeta } from './pdf.ts';
+import { findChromium, withPdfPrinter } from './pdf.ts';
+import { documentPdfMeta } from '../report/pdf-meta.ts';
+import type { PdfMeta } from '../core/pdf-properties.ts';
 import { ASSET_DIR } from './site-assets.ts';
 
 /**

@@ -6,7 +6,8 @@
  * (anything but file: and data: URLs is aborted, so a document can only show what it carries),
  * and Chromium's own requests kept off the network (OFFLINE_ARGS):
  *
- *   import { findChromium, withPdfPrinter, documentPdfMeta } from '../publish/pdf.ts';
+ *   import { findChromium, withPdfPrinter } from '../publish/pdf.ts';
+ *   import { documentPdfMeta } from '../report/pdf-meta.ts';
  *
  *   if (findChromium() === null) say(chromiumMissingMessage());   // HTML only, and say so
  *   else await withPdfPrinter(async (printer) => {
@@ -25,11 +26,8 @@
  *     used, and @page margin boxes of the page's print CSS are switched off), a running header (document number, title, revision, status) and footer (number,
  *     revision, status, date, "page X of Y") on every page, an outline from the headings and a
  *     tagged (accessible) PDF;
- *   - sets the document properties with pdf-lib: title (shown in the viewer's title bar), author,
- *     subject, keywords, language, creator ("cellbasis <version>") and producer (the same and the
- *     Chromium version, "cellbasis 0.1.0 (Chromium 156.0.8078.114)"), CreationDate and
- *     ModDate = `meta.date` (the seal date, never the clock), and attaches `meta.attachments`
- *     (a sealed document carries its basis YAML and results JSON).
+ *   - sets the document properties and attachments of `meta` with pdf-lib
+ *     (lib/core/pdf-properties.ts).
  * The output has no /ID and no XMP metadata, so the same HTML and meta give the same bytes on
  * the same Chromium (README "Issuing revisions" lists what another Chromium may change).
  *
@@ -41,12 +39,11 @@ import { accessSync, constants, existsSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
-import { AFRelationship, PDFArray, PDFDict, PDFDocument, PDFHexString, PDFName, PDFRawStream, PDFRef, PDFString, ParseSpeeds, decodePDFRawStream } from 'pdf-lib';
-import type { DesignBasis } from '../basis/types.ts';
-import type { Results } from '../plant/results-schema.ts';
-import { toolVersion } from '../core/version.ts';
+import { PDFArray, PDFDict, PDFDocument, PDFHexString, PDFName, PDFRef, PDFString } from 'pdf-lib';
+import { PDF_LIB_WHOLE, setPdfProperties, type PdfMeta } from '../core/pdf-properties.ts';
 import { EXIT_VALIDATION, UserError } from '../core/errors.ts';
 import { escapeHtml } from '../report/trusted-html.ts';
+import type { SealPdfPrinter } from '../archive/seal.ts';
 
 export const DEFAULT_CHROMIUM = '/usr/bin/chromium';
 
@@ -93,32 +90,6 @@ export class ChromiumMissingError extends UserError {
     super(chromiumMissingMessage(), EXIT_VALIDATION);
     this.name = 'ChromiumMissingError';
   }
-}
-
-export interface PdfAttachment {
-  name: string;
-  bytes: Uint8Array;
-  mimeType: string;
-  description: string;
-  /** How the file relates to the document (PDF/A-3 AFRelationship): Source for the basis, Data for the results. */
-  relationship: 'Source' | 'Data' | 'Supplement';
-}
-
-export interface PdfMeta {
-  title: string;
-  documentNumber: string;
-  revision: string;
-  status: string;
-  /** The preparer (document.sign-off.prepared). */
-  author: string;
-  subject: string;
-  keywords: string[];
-  paper: 'A4' | 'Letter';
-  /** CreationDate and ModDate of the PDF, and the date in the footer (UTC day). */
-  date: Date;
-  /** BCP 47 language of the document; default "en". */
-  language?: string;
-  attachments?: PdfAttachment[];
 }
 
 export interface PdfPrinter {
@@ -186,55 +157,6 @@ export function footerTemplate(meta: PdfMeta): string {
     '</div>'
   );
 }
-
-/** What a working draft's PDF states as its status, in the running header and footer and the keywords. */
-export const DRAFT_PDF_STATUS = 'draft, not issued';
-
-/**
- * The properties of the PDF of a design-basis document, from its basis and results. A working
- * draft (`draft: true`) is never issued, whatever status its basis states, so its header, footer
- * and keywords say "draft, not issued", as its page's stamp does.
- */
-export function documentPdfMeta(
-  { basis, results }: { basis: DesignBasis; results: Results },
-  options: { date: Date; basisYaml?: Uint8Array; resultsJson?: Uint8Array; draft?: boolean },
-): PdfMeta {
-  const d = basis.document;
-  const status = options.draft ? DRAFT_PDF_STATUS : d.status;
-  const attachments: PdfAttachment[] = [];
-  if (options.basisYaml) {
-    attachments.push({ name: 'basis.yaml', bytes: options.basisYaml, mimeType: 'application/yaml', description: `design basis ${d.number} rev ${d.revision} as sealed`, relationship: 'Source' });
-  }
-  if (options.resultsJson) {
-    attachments.push({ name: 'results.json', bytes: options.resultsJson, mimeType: 'application/json', description: `calculated results of ${d.number} rev ${d.revision}`, relationship: 'Data' });
-  }
-  const technology = results.technology;
-  return {
-    title: d.title,
-    documentNumber: d.number,
-    revision: d.revision,
-    status,
-    author: d.signOff.prepared?.name ?? '',
-    subject: `Design-basis calculation: ${technology.name}, ${technology.mode} mode; ${d.client}, ${d.site}`,
-    keywords: ['design basis', d.number, `revision ${d.revision}`, status, technology.name, `${technology.mode} mode`, d.client, d.site],
-    paper: d.paper,
-    date: options.date,
-    attachments,
-  };
-}
-
-/** The producer a PDF names: the cellbasis version, and the Chromium that printed it. */
-export function producerName(chromiumVersion: string): string {
-  return `cellbasis ${toolVersion()} (Chromium ${chromiumVersion})`;
-}
-
-/**
- * pdf-lib parses and writes a few dozen objects at a time and yields to the event loop between
- * batches (ParseSpeeds.Slow, 50 objects per tick). A tagged 30-page document has tens of
- * thousands of objects, so those yields took most of finishPdf's 0.45 s (measured); the work is
- * done in one go instead. The bytes written are the same.
- */
-const PDF_LIB_WHOLE = { parseSpeed: ParseSpeeds.Fastest } as const;
 
 /**
  * Chromium names each element of a tagged PDF's structure tree after the DOM node it came from
@@ -313,46 +235,8 @@ export function renumberStructureIds(pdf: PDFDocument): number {
 export async function finishPdf(printed: Uint8Array, meta: PdfMeta, chromiumVersion: string): Promise<Uint8Array> {
   const pdf = await PDFDocument.load(printed, { updateMetadata: false, ...PDF_LIB_WHOLE });
   renumberStructureIds(pdf);
-  pdf.setTitle(meta.title, { showInWindowTitleBar: true });
-  pdf.setAuthor(meta.author);
-  pdf.setSubject(meta.subject);
-  pdf.setKeywords(meta.keywords);
-  pdf.setCreator(`cellbasis ${toolVersion()}`);
-  pdf.setProducer(producerName(chromiumVersion));
-  pdf.setLanguage(meta.language ?? 'en');
-  pdf.setCreationDate(meta.date);
-  pdf.setModificationDate(meta.date);
-  for (const file of meta.attachments ?? []) {
-    await pdf.attach(file.bytes, file.name, {
-      mimeType: file.mimeType,
-      description: file.description,
-      creationDate: meta.date,
-      modificationDate: meta.date,
-      afRelationship: AFRelationship[file.relationship],
-    });
-  }
+  await setPdfProperties(pdf, meta, chromiumVersion);
   return pdf.save({ useObjectStreams: false, objectsPerTick: Infinity });
-}
-
-/** What a finished PDF says about itself, as the audit compares it with the manifest. */
-export interface PdfProperties {
-  creationDate: Date | undefined;
-  modificationDate: Date | undefined;
-  producer: string | undefined;
-  /** Embedded files by name. */
-  attachments: Map<string, Uint8Array>;
-}
-
-export async function readPdfProperties(bytes: Uint8Array): Promise<PdfProperties> {
-  const pdf = await PDFDocument.load(bytes, { updateMetadata: false, ...PDF_LIB_WHOLE });
-  const attachments = new Map<string, Uint8Array>();
-  const list = pdf.catalog.lookupMaybe(PDFName.of('Names'), PDFDict)?.lookupMaybe(PDFName.of('EmbeddedFiles'), PDFDict)?.lookupMaybe(PDFName.of('Names'), PDFArray);
-  for (let i = 0; list && i + 1 < list.size(); i += 2) {
-    const name = list.lookup(i);
-    const stream = list.lookup(i + 1, PDFDict).lookupMaybe(PDFName.of('EF'), PDFDict)?.lookup(PDFName.of('F'));
-    if ((name instanceof PDFHexString || name instanceof PDFString) && stream instanceof PDFRawStream) attachments.set(name.decodeText(), decodePDFRawStream(stream).decode());
-  }
-  return { creationDate: pdf.getCreationDate(), modificationDate: pdf.getModificationDate(), producer: pdf.getProducer(), attachments };
 }
 
 function pageUrl(htmlPathOrUrl: string): string {
@@ -518,3 +402,11 @@ export async function withPdfPrinter<T>(work: (printer: PdfPrinter) => Promise<T
     await browser.close().catch(() => undefined);
   }
 }
+
+/** The printer a seal is given (lib/archive/seal.ts): one Chromium, one page, for one document. */
+export const sealPdfPrinter: SealPdfPrinter = {
+  check() {
+    if (findChromium() === null) throw new ChromiumMissingError();
+  },
+  print: (htmlPath, meta) => withPdfPrinter(async (printer) => ({ pdf: await printer.print(htmlPath, meta), chromium: printer.chromiumVersion }), { pages: 1 }),
+};

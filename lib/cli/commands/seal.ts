@@ -43,6 +43,7 @@ export const sealCommand: Command = {
     const { sealRevision, SEAL_STEPS } = await import('../../archive/seal.ts');
     const { sealedDocumentInput } = await import('../../archive/sealed-document.ts');
     const { renderStandaloneHtml } = await import('../../publish/render.ts');
+    const { sealPdfPrinter } = await import('../../publish/pdf.ts');
     const outcome = await sealRevision({
       cwd: io.cwd,
       project,
@@ -53,6 +54,7 @@ export const sealCommand: Command = {
       date: optionalString(args, 'date'),
       env: process.env,
       render: (input) => renderStandaloneHtml(sealedDocumentInput(input)),
+      pdf: sealPdfPrinter,
       warn: (d) => io.err(`${formatDiagnostic(d)}\n`),
       ...(pauseAt && (SEAL_STEPS as readonly string[]).includes(pauseAt) ? { pauseAt, onPause: (step: string) => io.err(`cellbasis: seal paused at ${step} (CELLBASIS_SEAL_PAUSE)\n`) } : {}),
     });
