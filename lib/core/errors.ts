@@ -49,3 +49,22 @@ export class ConvergenceError extends UserError {
     this.name = 'ConvergenceError';
   }
 }
+
+/**
+ * The input of a design basis that an error of the calculation concerns. The calculation
+ * libraries name it in these words, below the basis format; lib/plant/located-error.ts turns
+ * each into the basis field where the message is shown.
+ */
+export type CalculationInput = 'utilization' | 'fuel-electrode-feed' | 'air-electrode-feed' | 'cell-voltage' | 'area-specific-resistance' | 'cells';
+
+/** An input that passed validation but that the calculation cannot meet: the message says why, `field` which input. */
+export class CalculationError extends UserError {
+  constructor(
+    message: string,
+    readonly field: CalculationInput,
+  ) {
+    super(message);
+    this.name = 'CalculationError';
+  }
+}
+

@@ -32,7 +32,7 @@ import { elementAmounts, elementsOfFeed, gasGibbsOverRT, systemFor, type Chemica
 import { exchangeFor, type Exchange } from './electrolyte-exchange.ts';
 import { amountsOn, layout, moleFractions, shifted, sum, toRecord, type GasLayout } from './gas-state.ts';
 import { integrateAlongUtilization, type Sample } from './path-integral.ts';
-import { ConvergenceError, UserError } from '../core/errors.ts';
+import { CalculationError, ConvergenceError, UserError } from '../core/errors.ts';
 
 export interface FuelPathRequest {
   technology: Technology;
@@ -135,24 +135,26 @@ function atomsOf(stream: Stream, element: string): number {
 function chargeBasis(request: FuelPathRequest): number {
   const { technology, mode } = request;
   if (mode === 'power') {
-    if (!request.fuelFeed) throw new UserError('power mode needs a fuel-electrode feed');
+    if (!request.fuelFeed) throw new CalculationError('power mode needs a fuel-electrode feed', 'fuel-electrode-feed');
     const q = F * electronsOfStream(request.fuelFeed);
-    if (!(q > 0)) throw new UserError('the fuel-electrode feed has no oxidisable fuel (its charge on complete oxidation is not positive)');
+    if (!(q > 0)) throw new CalculationError('the fuel-electrode feed has no oxidisable fuel (its charge on complete oxidation is not positive)', 'fuel-electrode-feed');
     if (technology.ion === 'proton' && technology.fuelGasEquilibrium) {
       // A proton conductor takes only hydrogen from the fuel gas, one electron per H atom: the
       // carbon stays behind, so the H of the feed (steam's included) bounds the utilization.
       const reachable = (F * atomsOf(request.fuelFeed, 'H')) / q;
       if (request.utilization >= reachable) {
-        throw new UserError(
+        throw new CalculationError(
           `the fuel cannot reach the requested utilization ${pct(request.utilization)}: a ${technology.name} electrolyte takes only hydrogen from the fuel gas, and the feed's hydrogen (steam included) carries ${pct(reachable)} of its charge; add steam`,
+          'utilization',
         );
       }
     }
     if (!technology.fuelGasEquilibrium) {
       const reachable = (2 * F * (request.fuelFeed.H2 ?? 0)) / q;
       if (request.utilization >= reachable) {
-        throw new UserError(
+        throw new CalculationError(
           `the fuel cannot reach the requested utilization ${pct(request.utilization)}: a ${technology.name} fuel electrode oxidises only H2, which carries ${pct(reachable)} of the feed's charge`,
+          'utilization',
         );
       }
     }
@@ -160,7 +162,7 @@ function chargeBasis(request: FuelPathRequest): number {
   }
   const feed = technology.waterElectrode === 'fuel' ? request.fuelFeed : request.airFeed;
   const reactant = feed ? (feed.H2O ?? 0) + (feed['H2O(L)'] ?? 0) + (technology.ion === 'oxide' ? (feed.CO2 ?? 0) : 0) : 0;
-  if (!(reactant > 0)) throw new UserError(`electrolysis in a ${technology.name} cell needs water in the ${technology.waterElectrode}-electrode feed`);
+  if (!(reactant > 0)) throw new CalculationError(`electrolysis in a ${technology.name} cell needs water in the ${technology.waterElectrode}-electrode feed`, `${technology.waterElectrode}-electrode-feed`);
   return 2 * F * reactant;
 }
 
@@ -273,7 +275,7 @@ class PathModel {
       for (let i = 0; i < b.length; i++) b[i] = b[i]! + this.elementChange![i]! * electrons;
       for (let i = 0; i < b.length; i++) {
         if (!(b[i]! > 0)) {
-          throw new UserError(`the fuel-electrode gas runs out of ${this.system.elements[i]} before the design utilization`);
+          throw new CalculationError(`the fuel-electrode gas runs out of ${this.system.elements[i]} before the design utilization`, 'utilization');
         }
       }
       const u = chargeA / this.basisA;
@@ -284,8 +286,9 @@ class PathModel {
       } catch (error) {
         if (!(error instanceof ConvergenceError)) throw error;
         const held = this.system.elements.map((e, i) => `${e} ${b[i]!.toPrecision(4)}`).join(', ');
-        throw new UserError(
+        throw new CalculationError(
           `the fuel-electrode gas has no gas-phase equilibrium at utilization ${pct(u)} (atoms per second on the feed's scale: ${held}): too little hydrogen and oxygen remain to hold its carbon as gas, so carbon would deposit; add steam or lower the utilization (${error.message})`,
+          'utilization',
         );
       }
       this.remember(u, r.lnScaled);
@@ -316,11 +319,11 @@ function predictFrom(solved: readonly Solution[], u: number): Float64Array | und
   return out;
 }
 
-function checkNonNegative(gas: GasLayout, n: Float64Array, side: string): void {
+function checkNonNegative(gas: GasLayout, n: Float64Array, side: 'fuel' | 'air'): void {
   const scale = sum(n) || 1;
   for (let i = 0; i < n.length; i++) {
     if (n[i]! < -1e-12 * scale) {
-      throw new UserError(`the ${side}-electrode gas runs out of ${gas.labels[i]} before the design utilization: supply more ${gas.labels[i]} to that electrode`);
+      throw new CalculationError(`the ${side}-electrode gas runs out of ${gas.labels[i]} before the design utilization: supply more ${gas.labels[i]} to that electrode`, `${side}-electrode-feed`);
     }
     if (n[i]! < 0) n[i] = 0;
   }
@@ -334,7 +337,7 @@ interface Evaluated extends Sample {
 
 export function fuelPath(request: FuelPathRequest): FuelPath {
   if (!(request.utilization > 0 && request.utilization < 1)) {
-    throw new UserError(`utilization must lie strictly between 0 and 1, got ${request.utilization}`);
+    throw new CalculationError(`utilization must lie strictly between 0 and 1, got ${request.utilization}`, 'utilization');
   }
   const basisA = chargeBasis(request);
   const model = new PathModel(request, basisA);

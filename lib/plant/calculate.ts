@@ -17,7 +17,7 @@ import { carbonMargin } from './carbon-margin.ts';
 import { currentDensitySweep, steamToCarbonSweep, temperatureSweep } from './sweeps.ts';
 import { sensitivities } from './sensitivity.ts';
 import { hazardInput } from './hazard-streams.ts';
-import { atPath } from './located-error.ts';
+import { locateCalculationErrors } from './located-error.ts';
 import { enthalpyFlowW, gasFlow, gasMoleFractions, massFlowKgPerS, normalVolumeM3PerS, totalFlow, type Stream } from './streams.ts';
 import type { Results, StreamResult } from './results-schema.ts';
 
@@ -53,33 +53,9 @@ function netWater(point: DesignPoint): number {
   return outlets.reduce((a, s) => a + water(s), 0) - inlets.reduce((a, s) => a + water(s), 0);
 }
 
-/** The design point, with library errors located at the operating-point fields they come from. */
+/** The design point, with the errors of the calculation located at the basis fields they concern. */
 export function evaluateBasis(basis: DesignBasis): DesignPoint {
-  const path = basis.cell.mode === 'power' ? 'operating-point.fuel-utilization' : 'operating-point.steam-conversion';
-  return atPath(basis, path, () => {
-    try {
-      return evaluateDesignPoint(designInputs(basis));
-    } catch (error) {
-      const message = (error as Error).message;
-      if (/cell voltage|resistance gives/.test(message)) {
-        const field = basis.operatingPoint.voltage.kind === 'given' ? 'operating-point.cell-voltage' : 'operating-point.area-specific-resistance';
-        return atPath(basis, field, () => {
-          throw error;
-        });
-      }
-      if (/conflicting inputs|cell count/.test(message)) {
-        return atPath(basis, 'operating-point.cells', () => {
-          throw error;
-        });
-      }
-      if (/air-electrode/.test(message)) {
-        return atPath(basis, 'streams.air-electrode', () => {
-          throw error;
-        });
-      }
-      throw error;
-    }
-  });
+  return locateCalculationErrors(basis, () => evaluateDesignPoint(designInputs(basis)));
 }
 
 /** The path of the first number in the value that is NaN or infinite, if any. */

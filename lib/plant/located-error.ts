@@ -5,7 +5,7 @@
  */
 import { BasisError } from '../basis/diagnostics.ts';
 import type { DesignBasis, Diagnostic } from '../basis/types.ts';
-import { UserError } from '../core/errors.ts';
+import { CalculationError, UserError, type CalculationInput } from '../core/errors.ts';
 
 export function locatedDiagnostic(basis: DesignBasis, path: string, message: string, severity: Diagnostic['severity'] = 'error'): Diagnostic {
   // The value itself, else the nearest written parent (a default has no position of its own).
@@ -23,15 +23,36 @@ export function locatedError(basis: DesignBasis, path: string, message: string):
 }
 
 /**
- * Runs a calculation step and turns a plain UserError from the library (e.g. "the fuel cannot
- * reach the requested utilization") into a located error at `path`.
+ * The basis field of each input a CalculationError names. A fuel-electrode feed that cannot be
+ * used (no fuel in it, none left before the design point) is reported at the utilization or
+ * conversion it cannot reach, as every other error of the fuel path is.
  */
-export function atPath<T>(basis: DesignBasis, path: string, step: () => T): T {
+function fieldOf(basis: DesignBasis, input: CalculationInput): string {
+  const utilization = basis.cell.mode === 'power' ? 'operating-point.fuel-utilization' : 'operating-point.steam-conversion';
+  const fields: Record<CalculationInput, string> = {
+    utilization,
+    'fuel-electrode-feed': utilization,
+    'air-electrode-feed': 'streams.air-electrode',
+    'cell-voltage': 'operating-point.cell-voltage',
+    'area-specific-resistance': 'operating-point.area-specific-resistance',
+    cells: 'operating-point.cells',
+  };
+  return fields[input];
+}
+
+/**
+ * Runs a calculation step and turns a UserError of the library into a located error: a
+ * CalculationError at the field of the input it names, any other (a temperature outside the
+ * species data, an equilibrium that does not converge) at the utilization or conversion, since it
+ * arose on the fuel path.
+ */
+export function locateCalculationErrors<T>(basis: DesignBasis, step: () => T): T {
   try {
     return step();
   } catch (error) {
     if (error instanceof BasisError) throw error;
-    if (error instanceof UserError) throw locatedError(basis, path, error.message);
+    if (error instanceof CalculationError) throw locatedError(basis, fieldOf(basis, error.field), error.message);
+    if (error instanceof UserError) throw locatedError(basis, fieldOf(basis, 'utilization'), error.message);
     throw error;
   }
 }

@@ -7,7 +7,7 @@
  */
 import type { StackSize } from '../basis/types.ts';
 import type { Mode } from '../electrochem/technologies.ts';
-import { UserError } from '../core/errors.ts';
+import { CalculationError } from '../core/errors.ts';
 
 export const AGREEMENT = 0.02;
 
@@ -21,7 +21,7 @@ export interface Sizing {
 export function sizeStack(size: StackSize, statedCells: number | undefined, perCell: number, mode: Mode): Sizing {
   if (size.kind === 'cells') return { cells: size.cells, from: 'cells' };
   const target = size.kind === 'power' ? size.powerW : size.kgPerS;
-  if (!(perCell > 0)) throw new UserError('one cell delivers nothing at this operating point, so no cell count meets the target');
+  if (!(perCell > 0)) throw new CalculationError('one cell delivers nothing at this operating point, so no cell count meets the target', 'cells');
   // At least one cell, however small the target (a target below 1e-9 cells' output rounded to none).
   const needed = Math.max(1, Math.ceil(target / perCell - 1e-9));
   if (statedCells === undefined) return { cells: needed, from: size.kind };
@@ -30,8 +30,9 @@ export function sizeStack(size: StackSize, statedCells: number | undefined, perC
   if (Math.abs(gap) > AGREEMENT) {
     const what = size.kind === 'hydrogen' ? `${(delivered * 86400).toFixed(1)} kg/day of hydrogen` : `${(delivered / 1000).toPrecision(4)} kW ${mode === 'power' ? 'net' : 'input'}`;
     const wanted = size.kind === 'hydrogen' ? `${(target * 86400).toFixed(1)} kg/day` : `${(target / 1000).toPrecision(4)} kW`;
-    throw new UserError(
+    throw new CalculationError(
       `conflicting inputs: ${statedCells} cells give ${what} at this operating point, but the target is ${wanted} (${(Math.abs(gap) * 100).toFixed(1)} % ${gap < 0 ? 'short of' : 'over'} it; they must agree within ${AGREEMENT * 100} %, or give only one of them); ${needed} cells would meet the target`,
+      'cells',
     );
   }
   return { cells: statedCells, from: 'cells' };

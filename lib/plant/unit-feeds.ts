@@ -15,7 +15,7 @@ import { FARADAY_C_PER_MOL as F } from '../thermo/constants.ts';
 import { electronsOfStream } from '../electrochem/charge.ts';
 import { equilibrate } from '../equilibrium/equilibrate.ts';
 import type { DesignInputs } from './design-inputs.ts';
-import { UserError } from '../core/errors.ts';
+import { CalculationError } from '../core/errors.ts';
 
 export interface UnitFeeds {
   /** Fuel-electrode feed as it enters the stack (after any pre-reformer), mol/s. */
@@ -45,23 +45,23 @@ const WATER = (feed: Readonly<Record<string, number>>) => (feed.H2O ?? 0) + (fee
 export function unitFeeds(inputs: DesignInputs): UnitFeeds {
   const { technology: tech, mode, utilization: u } = inputs;
   if (mode === 'power') {
-    if (!inputs.fuelFeed) throw new UserError('power mode needs a fuel-electrode feed');
-    if (!inputs.airFeed) throw new UserError('power mode needs an air-electrode feed');
+    if (!inputs.fuelFeed) throw new CalculationError('power mode needs a fuel-electrode feed', 'fuel-electrode-feed');
+    if (!inputs.airFeed) throw new CalculationError('power mode needs an air-electrode feed', 'air-electrode-feed');
     const raw = { ...inputs.fuelFeed };
     const chargeA = F * electronsOfStream(raw);
     const o2Consumed = (u * chargeA) / (4 * F);
     const o2Supplied = inputs.air.kind === 'ratio' ? o2Consumed * inputs.air.value : inputs.air.kind === 'utilization' ? o2Consumed / inputs.air.value : o2Consumed;
     const xO2 = inputs.airFeed.O2 ?? 0;
-    if (!(xO2 > 0)) throw new UserError('the air-electrode feed contains no O2');
+    if (!(xO2 > 0)) throw new CalculationError('the air-electrode feed contains no O2', 'air-electrode-feed');
     return { fuelStackInlet: preReform(inputs, raw), fuelRaw: raw, air: times(inputs.airFeed, o2Supplied / xO2), chargeA, basis: 'fuel' };
   }
   const waterSide = tech.waterElectrode;
   // Alkaline cells hold their water in the electrolyte: a liquid-water feed stands for the make-up.
   const liquidDefault: Record<string, number> | null = tech.waterPhase === 'liquid' ? { 'H2O(L)': 1 } : null;
   const waterFeed: Record<string, number> | null = (waterSide === 'fuel' ? inputs.fuelFeed : inputs.airFeed) ?? liquidDefault;
-  if (!waterFeed) throw new UserError(`electrolysis in a ${tech.name} cell needs a feed with water at the ${waterSide} electrode`);
+  if (!waterFeed) throw new CalculationError(`electrolysis in a ${tech.name} cell needs a feed with water at the ${waterSide} electrode`, `${waterSide}-electrode-feed`);
   const reactant = WATER(waterFeed) + (tech.ion === 'oxide' ? (waterFeed.CO2 ?? 0) : 0);
-  if (!(reactant > 0)) throw new UserError(`the ${waterSide}-electrode feed contains no water to split`);
+  if (!(reactant > 0)) throw new CalculationError(`the ${waterSide}-electrode feed contains no water to split`, `${waterSide}-electrode-feed`);
   const chargeA = 2 * F * reactant;
   const sweepSide = waterSide === 'fuel' ? inputs.airFeed : inputs.fuelFeed;
   // Sweep gas at the other electrode: ratio × what that electrode produces (O2: I/4F, H2: I/2F).

@@ -13,7 +13,7 @@
  */
 import type { Mode } from '../electrochem/technologies.ts';
 import type { VoltageModel } from '../basis/types.ts';
-import { UserError } from '../core/errors.ts';
+import { CalculationError } from '../core/errors.ts';
 
 export interface OperatingVoltage {
   cellVoltageV: number;
@@ -40,17 +40,20 @@ export function operatingVoltage(
   const openCircuitV = power && inletNernstV !== null ? ionicTransferenceNumber * inletNernstV - crossoverAllowanceV : power ? null : inletNernstV;
   const cellVoltageV =
     model.kind === 'given' ? model.cellVoltageV : power ? effective - currentDensityAPerM2 * model.ohmM2 : effective + currentDensityAPerM2 * model.ohmM2;
+  const field = model.kind === 'given' ? 'cell-voltage' : 'area-specific-resistance';
   if (power && !(cellVoltageV < effective)) {
-    throw new UserError(
+    throw new CalculationError(
       `the cell voltage ${cellVoltageV.toFixed(4)} V is not below the mean Nernst voltage available, ${effective.toFixed(4)} V: the cell would deliver no current at this point`,
+      field,
     );
   }
   if (power && !(cellVoltageV > 0)) {
-    throw new UserError(`the resistance gives a cell voltage of ${cellVoltageV.toFixed(4)} V at this current density: lower the current density or the area-specific resistance`);
+    throw new CalculationError(`the resistance gives a cell voltage of ${cellVoltageV.toFixed(4)} V at this current density: lower the current density or the area-specific resistance`, field);
   }
   if (!power && !(cellVoltageV > effective)) {
-    throw new UserError(
+    throw new CalculationError(
       `the cell voltage ${cellVoltageV.toFixed(4)} V is not above the mean Nernst voltage ${effective.toFixed(4)} V: electrolysis needs more than the reversible voltage`,
+      field,
     );
   }
   return {
