@@ -5,7 +5,8 @@
  * recorded, °C), mie (lowest recorded, mJ), loc, lflInOxygen, uflInOxygen, inAir,
  * enrichedAbove and the exposure limits (idlh, nioshRelTwa, oshaPelTwa, ...), ppm.
  */
-import { EXPOSURE_LIMITS, substanceByKey, findSubstance, type Substance } from './substances.ts';
+import { substanceByKey, findSubstance, type Substance } from './substances.ts';
+import { EXPOSURE_LIMITS } from './types.ts';
 import type { ExposureLimit } from './types.ts';
 import { formatNumber } from './numbers.ts';
 import { thresholds, type ThresholdId } from './thresholds.ts';

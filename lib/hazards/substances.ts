@@ -7,7 +7,7 @@
 import { readFileSync } from 'node:fs';
 import { parse as parseYaml } from 'yaml';
 import { z } from 'zod';
-import type { ExposureLimit, LimitPair, SourcedValue, SubstanceData, SubstanceRow } from './types.ts';
+import { EXPOSURE_LIMITS, type ExposureLimit, type LimitPair, type SourcedValue, type SubstanceData, type SubstanceRow } from './types.ts';
 
 const Sourced = z.strictObject({ value: z.number(), source: z.string(), memory: z.boolean() });
 const SourcedText = z.strictObject({ value: z.string(), source: z.string(), memory: z.boolean() });
@@ -18,18 +18,6 @@ const RawLimitPair = z.strictObject({
   source: z.string(),
   memory: z.boolean(),
 });
-
-export const EXPOSURE_LIMITS = [
-  'oshaPelTwa',
-  'oshaPelCeiling',
-  'oshaPelPeak',
-  'nioshRelTwa',
-  'nioshRelStel',
-  'nioshRelCeiling',
-  'idlh',
-  'acgihTlvTwa',
-  'acgihTlvStel',
-] as const satisfies readonly ExposureLimit[];
 
 const RawSubstance = z.strictObject({
   key: z.string().regex(/^[a-z0-9]+$/),

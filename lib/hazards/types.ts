@@ -3,9 +3,13 @@
  * (HazardInput, one HazardStream per stream of the flowsheet) and the JSON-serialisable
  * assessment it returns (units in the key names: `temperature_K`, `lfl_percent`,
  * `coConcentration_ppm`). Percent values of streams are mole percent, which for ideal gases is
- * the volume percent the flammability limits are stated in.
+ * the volume percent the flammability limits are stated in. The assessment is defined once, as
+ * the zod schema `hazardAssessmentSchema`: its TypeScript types are inferred from it, and the
+ * results schema (lib/plant/results-schema.ts) carries it, so results.json is typed and checked
+ * down to every hazard value.
  */
-import type { Mode, TechnologyId } from '../electrochem/technologies.ts';
+import { z } from 'zod';
+import { TECHNOLOGY_IDS, type Mode, type TechnologyId } from '../electrochem/technologies.ts';
 
 /**
  * What a stream is, for the rules that depend on it: `feed` enters the plant, `internal` stays
@@ -14,12 +18,12 @@ import type { Mode, TechnologyId } from '../electrochem/technologies.ts';
  */
 export type StreamRole = 'feed' | 'internal' | 'outlet' | 'product';
 
-export const STREAM_ROLES: readonly StreamRole[] = ['feed', 'internal', 'outlet', 'product'];
+export const STREAM_ROLES = ['feed', 'internal', 'outlet', 'product'] as const satisfies readonly StreamRole[];
 
 /** The fuel-electrode (and reformer) side or the air-electrode side of the plant. */
 export type StreamSide = 'fuel' | 'air';
 
-export const STREAM_SIDES: readonly StreamSide[] = ['fuel', 'air'];
+export const STREAM_SIDES = ['fuel', 'air'] as const satisfies readonly StreamSide[];
 
 export interface HazardStream {
   id: string;
@@ -49,9 +53,9 @@ export interface HazardInput {
   ambientTemperatureK: number;
 }
 
-export type Severity = 'danger' | 'warning' | 'caution';
+export const SEVERITIES = ['danger', 'warning', 'caution'] as const;
 
-export const SEVERITIES: readonly Severity[] = ['danger', 'warning', 'caution'];
+export type Severity = (typeof SEVERITIES)[number];
 
 /** A published value with its source: a short name for texts and the full citation. */
 export interface SourcedValue<T = number> {
@@ -62,197 +66,194 @@ export interface SourcedValue<T = number> {
   memory: boolean;
 }
 
-export interface SpeciesShare {
-  species: string;
-  mole_percent: number;
+function sourcedSchema<T extends z.ZodType>(value: T) {
+  return z.object({
+    value,
+    source: z.string().describe('short name of the source, for texts'),
+    citation: z.string().describe('full citation of the source'),
+    memory: z.boolean().describe('quoted from memory of the publication, not re-read from it'),
+  });
 }
+
+const sourcedNumber = sourcedSchema(z.number());
+const sourcedText = sourcedSchema(z.string());
+
+const speciesShareSchema = z.object({ species: z.string(), mole_percent: z.number() });
+
+export type SpeciesShare = z.infer<typeof speciesShareSchema>;
 
 /** Mixture flammability of a stream by Le Chatelier's rule (lib/hazards/flammability.ts). */
-export interface StreamFlammability {
-  /** Lower and upper flammable limits of the combustible-only mixture in air, vol %. */
-  lfl_percent: number;
-  /** Null where a combustible has no recorded upper limit. */
-  ufl_percent: number | null;
-  /** Lower limit of the stream as a whole (inerts included) in air: vol % of this gas in air. */
-  streamLfl_percent: number;
-  /** Lowest limiting oxygen concentration of the combustibles, vol % O2, and the species it comes from. */
-  limitingOxygen_percent: number;
-  limitingOxygenSpecies: string;
-  /** Whether limitingOxygen_percent is the z × LFL estimate rather than a recorded value. */
-  limitingOxygenEstimated: boolean;
-  /** Detector alarm at the code-practice fraction of the LFL: vol % combustibles in air, and vol % of this gas in air. */
-  detectorAlarm_percent: number;
-  detectorAlarmStream_percent: number;
-}
+const streamFlammabilitySchema = z.object({
+  lfl_percent: z.number().describe('lower flammable limit of the combustible-only mixture in air, vol %'),
+  ufl_percent: z.number().nullable().describe('upper flammable limit of the combustible-only mixture in air, vol %; null where a combustible has no recorded upper limit'),
+  streamLfl_percent: z.number().describe('lower limit of the stream as a whole (inerts included) in air: vol % of this gas in air'),
+  limitingOxygen_percent: z.number().describe('lowest limiting oxygen concentration of the combustibles, vol % O2'),
+  limitingOxygenSpecies: z.string().describe('the species it comes from'),
+  limitingOxygenEstimated: z.boolean().describe('whether limitingOxygen_percent is the z × LFL estimate rather than a recorded value'),
+  detectorAlarm_percent: z.number().describe('detector alarm at the code-practice fraction of the LFL: vol % combustibles in air'),
+  detectorAlarmStream_percent: z.number().describe('the same as vol % of this gas in air'),
+});
 
-export type InsideRangeFinding =
-  | 'no combustibles'
-  | 'no oxidant'
-  | 'too lean'
-  | 'below limiting oxygen'
-  | 'too rich'
-  | 'inside'
-  | 'inside (oxygen-enriched: upper limit not applied)'
-  | 'inside (no upper limit recorded)';
+export type StreamFlammability = z.infer<typeof streamFlammabilitySchema>;
 
-export interface ExposureIndicator {
-  species: string;
-  concentration_ppm: number;
-  idlh_ppm: number | null;
-  /** concentration / IDLH: the dilution a leak needs before a room is no longer immediately dangerous. */
-  timesIdlh: number | null;
-}
+export const INSIDE_RANGE_FINDINGS = [
+  'no combustibles',
+  'no oxidant',
+  'too lean',
+  'below limiting oxygen',
+  'too rich',
+  'inside',
+  'inside (oxygen-enriched: upper limit not applied)',
+  'inside (no upper limit recorded)',
+] as const;
 
-export interface CarbonMonoxideIndicator {
-  coConcentration_ppm: number;
-  idlh_ppm: number;
-  timesIdlh: number;
-  nioshRelTwa_ppm: number;
-  nioshRelCeiling_ppm: number;
-  oshaPelTwa_ppm: number;
-}
+export type InsideRangeFinding = (typeof INSIDE_RANGE_FINDINGS)[number];
 
-export interface AutoignitionIndicator {
-  /** Lowest recorded autoignition temperature of the combustibles present. */
-  lowest_K: number;
-  lowest_C: number;
-  species: string;
-  /** Short name and full citation of the source of that value. */
-  source: string;
-  citation: string;
-  /** Stream temperature at or above it. */
-  streamAbove: boolean;
-  /** Operating temperature at or above it. */
-  operatingAbove: boolean;
-}
+const exposureIndicatorSchema = z.object({
+  species: z.string(),
+  concentration_ppm: z.number(),
+  idlh_ppm: z.number().nullable(),
+  timesIdlh: z.number().nullable().describe('concentration / IDLH: the dilution a leak needs before a room is no longer immediately dangerous'),
+});
 
-export interface StreamIndicators {
-  id: string;
-  name: string;
-  role: StreamRole;
-  /** True where the role was not given and `outlet` was assumed. */
-  roleAssumed: boolean;
-  side: StreamSide | 'not given';
-  temperature_K: number;
-  temperature_C: number;
-  pressure_bar: number;
-  /** Gas-phase composition, species present (at or above the presence threshold), largest first. */
-  composition: SpeciesShare[];
-  /** Condensed species left out of the gas phase. */
-  condensedExcluded: string[];
-  combustibles: SpeciesShare[];
-  combustible_percent: number;
-  oxygen_percent: number;
-  /** Null where the stream has no combustibles. */
-  flammability: StreamFlammability | null;
-  flammableOnMixingWithAir: boolean;
-  insideFlammableRange: boolean;
-  insideFlammableRangeFinding: InsideRangeFinding;
-  /** Null where the stream carries no CO (below the presence threshold). */
-  carbonMonoxide: CarbonMonoxideIndicator | null;
-  /** Every present species with an exposure limit, CO included. */
-  exposure: ExposureIndicator[];
-  hydrogenPartialPressure_bar: number;
-  /** Null where the stream has no combustible with a recorded autoignition temperature. */
-  autoignition: AutoignitionIndicator | null;
-  /** Present species with no hazard entry (flammability and toxicity not assessed). */
-  unassessed: SpeciesShare[];
-}
+export type ExposureIndicator = z.infer<typeof exposureIndicatorSchema>;
 
-export interface StandardRef {
-  id: string;
-  number: string;
-  title: string;
-}
+const carbonMonoxideIndicatorSchema = z.object({
+  coConcentration_ppm: z.number(),
+  idlh_ppm: z.number(),
+  timesIdlh: z.number(),
+  nioshRelTwa_ppm: z.number(),
+  nioshRelCeiling_ppm: z.number(),
+  oshaPelTwa_ppm: z.number(),
+});
 
-export interface Caution {
-  id: string;
-  title: string;
-  severity: Severity;
-  text: string;
-  standards: StandardRef[];
-  /** Ids of the streams that triggered the caution; empty where the basis itself did. */
-  triggeredBy: string[];
-}
+export type CarbonMonoxideIndicator = z.infer<typeof carbonMonoxideIndicatorSchema>;
 
-export type ExposureLimit =
-  | 'oshaPelTwa'
-  | 'oshaPelCeiling'
-  | 'oshaPelPeak'
-  | 'nioshRelTwa'
-  | 'nioshRelStel'
-  | 'nioshRelCeiling'
-  | 'idlh'
-  | 'acgihTlvTwa'
-  | 'acgihTlvStel';
+const autoignitionIndicatorSchema = z.object({
+  lowest_K: z.number().describe('lowest recorded autoignition temperature of the combustibles present'),
+  lowest_C: z.number(),
+  species: z.string(),
+  source: z.string().describe('short name of the source of that value'),
+  citation: z.string().describe('full citation of the source of that value'),
+  streamAbove: z.boolean().describe('stream temperature at or above it'),
+  operatingAbove: z.boolean().describe('operating temperature at or above it'),
+});
+
+export type AutoignitionIndicator = z.infer<typeof autoignitionIndicatorSchema>;
+
+const streamIndicatorsSchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  role: z.enum(STREAM_ROLES),
+  roleAssumed: z.boolean().describe('true where the role was not given and outlet was assumed'),
+  side: z.enum([...STREAM_SIDES, 'not given']),
+  temperature_K: z.number(),
+  temperature_C: z.number(),
+  pressure_bar: z.number(),
+  composition: z.array(speciesShareSchema).describe('gas-phase composition, species present (at or above the presence threshold), largest first'),
+  condensedExcluded: z.array(z.string()).describe('condensed species left out of the gas phase'),
+  combustibles: z.array(speciesShareSchema),
+  combustible_percent: z.number(),
+  oxygen_percent: z.number(),
+  flammability: streamFlammabilitySchema.nullable().describe('null where the stream has no combustibles'),
+  flammableOnMixingWithAir: z.boolean(),
+  insideFlammableRange: z.boolean(),
+  insideFlammableRangeFinding: z.enum(INSIDE_RANGE_FINDINGS),
+  carbonMonoxide: carbonMonoxideIndicatorSchema.nullable().describe('null where the stream carries no CO (below the presence threshold)'),
+  exposure: z.array(exposureIndicatorSchema).describe('every present species with an exposure limit, CO included'),
+  hydrogenPartialPressure_bar: z.number(),
+  autoignition: autoignitionIndicatorSchema.nullable().describe('null where the stream has no combustible with a recorded autoignition temperature'),
+  unassessed: z.array(speciesShareSchema).describe('present species with no hazard entry (flammability and toxicity not assessed)'),
+});
+
+export type StreamIndicators = z.infer<typeof streamIndicatorsSchema>;
+
+const standardRefSchema = z.object({ id: z.string(), number: z.string(), title: z.string() });
+
+export type StandardRef = z.infer<typeof standardRefSchema>;
+
+const cautionSchema = z.object({
+  id: z.string(),
+  title: z.string(),
+  severity: z.enum(SEVERITIES),
+  text: z.string(),
+  standards: z.array(standardRefSchema),
+  triggeredBy: z.array(z.string()).describe('ids of the streams that triggered the caution; empty where the basis itself did'),
+});
+
+export type Caution = z.infer<typeof cautionSchema>;
+
+export const EXPOSURE_LIMITS = ['oshaPelTwa', 'oshaPelCeiling', 'oshaPelPeak', 'nioshRelTwa', 'nioshRelStel', 'nioshRelCeiling', 'idlh', 'acgihTlvTwa', 'acgihTlvStel'] as const;
+
+export type ExposureLimit = (typeof EXPOSURE_LIMITS)[number];
 
 /** A pair of published limits in air (or in oxygen), vol %. */
-export interface LimitPair {
-  lfl_percent: number;
-  ufl_percent: number | null;
-  source: string;
-  citation: string;
-  memory: boolean;
-}
+const limitPairSchema = z.object({
+  lfl_percent: z.number(),
+  ufl_percent: z.number().nullable(),
+  source: z.string(),
+  citation: z.string(),
+  memory: z.boolean(),
+});
+
+export type LimitPair = z.infer<typeof limitPairSchema>;
 
 /** The hazard data of one substance (lib/hazards/data/substances.yaml), sources resolved. */
-export interface SubstanceData {
-  /** Species label as in lib/thermo (or the hazard-only label, Ni(CO)4). */
-  species: string;
-  /** Short key for text templates: `{h2.lfl}`, `{co.idlh}`. */
-  key: string;
-  name: string;
-  cas: string;
-  /** Not a species of the thermodynamic data: named only where conditions can form it. */
-  formsOnly: boolean;
-  oxidant: boolean;
-  /** Has a lower flammable limit in air: burns. */
-  combustible: boolean;
-  lfl_percent: SourcedValue | null;
-  ufl_percent: SourcedValue | null;
-  /** Other published limits, for information (not used in calculations). */
-  alsoPublished: LimitPair[];
-  inOxygen: LimitPair | null;
-  autoignition_C: SourcedValue[];
-  /** The lowest of autoignition_C, the one the indicators use; null where none is recorded. */
-  lowestAutoignition_C: SourcedValue | null;
-  minimumIgnitionEnergy_mJ: SourcedValue[];
-  limitingOxygen_percent: SourcedValue | null;
-  gasGroup: SourcedValue<string> | null;
-  temperatureClass: SourcedValue<string> | null;
-  exposure_ppm: Partial<Record<ExposureLimit, SourcedValue>>;
-  carcinogen: SourcedValue<string> | null;
-  /** Oxygen only: its share of dry air and the share above which gas counts as oxygen-enriched, vol %. */
-  inAir_percent: SourcedValue | null;
-  enrichedAbove_percent: SourcedValue | null;
-  notes: SourcedValue<string>[];
-}
+const substanceDataSchema = z.object({
+  species: z.string().describe('species label as in lib/thermo (or the hazard-only label, Ni(CO)4)'),
+  key: z.string().describe('short key for text templates: {h2.lfl}, {co.idlh}'),
+  name: z.string(),
+  cas: z.string(),
+  formsOnly: z.boolean().describe('not a species of the thermodynamic data: named only where conditions can form it'),
+  oxidant: z.boolean(),
+  combustible: z.boolean().describe('has a lower flammable limit in air: burns'),
+  lfl_percent: sourcedNumber.nullable(),
+  ufl_percent: sourcedNumber.nullable(),
+  alsoPublished: z.array(limitPairSchema).describe('other published limits, for information (not used in calculations)'),
+  inOxygen: limitPairSchema.nullable(),
+  autoignition_C: z.array(sourcedNumber),
+  lowestAutoignition_C: sourcedNumber.nullable().describe('the lowest of autoignition_C, the one the indicators use; null where none is recorded'),
+  minimumIgnitionEnergy_mJ: z.array(sourcedNumber),
+  limitingOxygen_percent: sourcedNumber.nullable(),
+  gasGroup: sourcedText.nullable(),
+  temperatureClass: sourcedText.nullable(),
+  exposure_ppm: z.partialRecord(z.enum(EXPOSURE_LIMITS), sourcedNumber),
+  carcinogen: sourcedText.nullable(),
+  inAir_percent: sourcedNumber.nullable().describe("oxygen only: its share of dry air, vol %"),
+  enrichedAbove_percent: sourcedNumber.nullable().describe('oxygen only: the share above which gas counts as oxygen-enriched, vol %'),
+  notes: z.array(sourcedText),
+});
 
-export interface SubstanceRow extends SubstanceData {
-  /** In a stream of the basis, or named because the basis's conditions can form it. */
-  presence: 'in streams' | 'can form';
-}
+export type SubstanceData = z.infer<typeof substanceDataSchema>;
 
-export interface MethodNote {
-  id: string;
-  text: string;
-}
+const substanceRowSchema = substanceDataSchema.extend({
+  presence: z.enum(['in streams', 'can form']).describe('in a stream of the basis, or named because the basis\'s conditions can form it'),
+});
 
-export interface HazardAssessment {
-  notice: string;
-  basis: {
-    technology: TechnologyId;
-    technologyName: string;
-    mode: Mode;
-    nickelBearing: boolean;
-    operatingTemperature_K: number;
-    fuelPressure_bar: number;
-    airPressure_bar: number;
-    ambientTemperature_K: number;
-  };
-  substances: SubstanceRow[];
-  streams: StreamIndicators[];
-  /** Sorted by severity (danger first), then in the order of the rule table. */
-  cautions: Caution[];
-  method: MethodNote[];
-}
+export type SubstanceRow = z.infer<typeof substanceRowSchema>;
+
+const methodNoteSchema = z.object({ id: z.string(), text: z.string() });
+
+export type MethodNote = z.infer<typeof methodNoteSchema>;
+
+export const hazardAssessmentSchema = z
+  .object({
+    notice: z.string().describe('the standing notice: informational only; local codes, the authority having jurisdiction and licensed practice govern'),
+    basis: z.object({
+      technology: z.enum(TECHNOLOGY_IDS),
+      technologyName: z.string(),
+      mode: z.enum(['power', 'electrolysis']),
+      nickelBearing: z.boolean(),
+      operatingTemperature_K: z.number(),
+      fuelPressure_bar: z.number(),
+      airPressure_bar: z.number(),
+      ambientTemperature_K: z.number(),
+    }),
+    substances: z.array(substanceRowSchema),
+    streams: z.array(streamIndicatorsSchema),
+    cautions: z.array(cautionSchema).describe('sorted by severity (danger first), then in the order of the rule table'),
+    method: z.array(methodNoteSchema),
+  })
+  .describe('hazard assessment from lib/hazards (notice, substances, stream indicators, cautions with their standards)');
+
+export type HazardAssessment = z.infer<typeof hazardAssessmentSchema>;

@@ -231,7 +231,7 @@ function calculateResults(basis: DesignBasis): Results {
       steamToCarbon: steamToCarbonSweep(point),
     },
     sensitivities: sensitivities(point, basis.sensitivity),
-    hazards: assessHazards(hazardInput(basis, point)) as unknown as Record<string, unknown>,
+    hazards: assessHazards(hazardInput(basis, point)),
     notes,
   };
 }

@@ -6,6 +6,7 @@
  * `_Nm3_per_h` at 0 °C and 1 atm, `_kWh_per_kg`; fractions are plain numbers from 0 to 1).
  */
 import { z } from 'zod';
+import { hazardAssessmentSchema } from '../hazards/types.ts';
 
 const num = (description: string) => z.number().describe(description);
 const nullableNum = (description: string) => z.number().nullable().describe(description);
@@ -206,7 +207,7 @@ export const resultsSchema = z
       ),
     }),
     sensitivities: z.array(sensitivitySchema),
-    hazards: z.record(z.string(), z.unknown()).describe('hazard assessment from lib/hazards (notice, substances, stream indicators, cautions with their standards)'),
+    hazards: hazardAssessmentSchema,
     notes: z.array(z.object({ path: z.string(), message: z.string() })).describe('findings of the calculation for the reviewer'),
   })
   .describe('cellbasis results of one design basis');

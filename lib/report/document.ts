@@ -21,7 +21,7 @@ import { summarySection, type SummarySection } from './sections/summary.ts';
 import { inputsSection, type InputsSection } from './sections/inputs.ts';
 import { assumptionsSection, type AssumptionsSection } from './sections/assumptions.ts';
 import { figureTables, streamTable, type FigureTable } from './sections/results-tables.ts';
-import { hazardAssessment, hazardsSection, type HazardsSection } from './sections/hazards.ts';
+import { hazardsSection, type HazardsSection } from './sections/hazards.ts';
 import { verificationSection, type VerificationSection } from './sections/verification.ts';
 import { referencesSection, type ReferencesSection } from './sections/references.ts';
 import { historySection, type HistorySection } from './sections/history-view.ts';
@@ -90,7 +90,7 @@ export function documentView(input: DocumentInput, options: DocumentOptions): Do
   const { basis, results } = input;
   const book = new EquationBook();
   const checks = options.checks ?? runAllChecks();
-  const hazards = hazardAssessment(results);
+  const hazards = results.hazards;
   const method = methodSection(results, book, outline().find((s) => s.id === 'method')!.number);
   const link = options.pagePath === undefined ? null : (path: string) => relativeHref(options.pagePath!, path);
   const title = titleBlock(basis, results, input.revision);

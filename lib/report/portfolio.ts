@@ -9,7 +9,6 @@ import type { Results } from '../plant/results-schema.ts';
 import { ASSETS, assetLinks, type AssetLinks } from './assets.ts';
 import { formatInteger, formatPercent, formatPower, formatQuantity } from './format.ts';
 import { relativeHref } from './links.ts';
-import { hazardAssessment } from './sections/hazards.ts';
 
 export const INDEX_PATH = 'index.html';
 
@@ -60,7 +59,7 @@ function row(p: PortfolioProject): PortfolioRow {
   const h = r.headline;
   const power = r.technology.mode === 'power';
   const open = p.basis.assumptions.filter((a) => a.open).length;
-  const cautions = hazardAssessment(r).cautions;
+  const cautions = r.hazards.cautions;
   const danger = cautions.filter((c) => c.severity === 'danger').length;
   return {
     id: p.id,

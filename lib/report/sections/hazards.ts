@@ -4,7 +4,7 @@
  * the standards it cites, the indicators of every stream and the hazard data of the substances,
  * each value with its source, and the method notes.
  */
-import type { Caution, HazardAssessment, StreamIndicators, SubstanceRow } from '../../hazards/types.ts';
+import type { Caution, StreamIndicators, SubstanceRow } from '../../hazards/types.ts';
 import type { Results } from '../../plant/results-schema.ts';
 import { formatFixed, formatNumber } from '../format.ts';
 import { table, type Table } from '../table.ts';
@@ -29,11 +29,6 @@ export interface HazardsSection {
 }
 
 const SEVERITY_LABEL: Record<Caution['severity'], string> = { danger: 'Danger', warning: 'Warning', caution: 'Caution' };
-
-/** The assessment object of the results (lib/hazards shape; stored untyped in results.json). */
-export function hazardAssessment(r: Results): HazardAssessment {
-  return r.hazards as unknown as HazardAssessment;
-}
 
 /** One indicator as a row across the streams. */
 type IndicatorRow = [label: string, cell: (s: StreamIndicators) => string];
@@ -69,7 +64,7 @@ function substanceRow(s: SubstanceRow): string[] {
 }
 
 export function hazardsSection(r: Results): HazardsSection {
-  const a = hazardAssessment(r);
+  const a = r.hazards;
   const names = new Map(a.streams.map((s) => [s.id, s.name]));
   return {
     notice: a.notice,
