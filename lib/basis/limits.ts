@@ -3,11 +3,13 @@
  * give, in SI, with the limit as written there for messages. Inputs without limits there have
  * only the checks of their read-*.ts module.
  */
-import { readFileSync } from 'node:fs';
-import { parse as parseYaml } from 'yaml';
+import { z } from 'zod';
+import { readDataFile } from '../core/data-file.ts';
 import { parseQuantity, type Dimension } from '../core/units.ts';
 
-export type LimitedInput = 'pressure' | 'current-density' | 'active-area' | 'cell-voltage' | 'target-power' | 'target-hydrogen' | 'utilization' | 'allowed-air-temperature-rise';
+const LIMITED_INPUTS = ['pressure', 'current-density', 'active-area', 'cell-voltage', 'target-power', 'target-hydrogen', 'utilization', 'allowed-air-temperature-rise'] as const;
+
+export type LimitedInput = (typeof LIMITED_INPUTS)[number];
 
 export interface Limit {
   fromSI?: number;
@@ -32,7 +34,8 @@ let cache: Map<LimitedInput, Limit> | undefined;
 
 function limits(): Map<LimitedInput, Limit> {
   if (cache) return cache;
-  const raw = parseYaml(readFileSync(new URL('./data/limits.yaml', import.meta.url), 'utf8')) as Record<LimitedInput, { from?: string | number; to?: string | number }>;
+  const bound = z.union([z.string(), z.number()]).optional();
+  const raw = readDataFile(new URL('./data/limits.yaml', import.meta.url), z.record(z.enum(LIMITED_INPUTS), z.strictObject({ from: bound, to: bound })));
   cache = new Map();
   for (const [input, { from, to }] of Object.entries(raw) as [LimitedInput, { from?: string | number; to?: string | number }][]) {
     const si = (v: string | number | undefined) => (v === undefined ? undefined : parseQuantity(v, DIMENSIONS[input]).si);

@@ -3,8 +3,8 @@
  * liquid-water, natural-gas, biogas. Each is a set of mole fractions with its source; humid-air
  * has none of its own and is completed from a humidity (humid-air.ts).
  */
-import { readFileSync } from 'node:fs';
-import { parse as parseYaml } from 'yaml';
+import { z } from 'zod';
+import { readDataFile } from '../core/data-file.ts';
 
 export interface Preset {
   name: string;
@@ -17,19 +17,19 @@ export interface Preset {
   base?: string;
 }
 
-interface RawPreset {
-  description: string;
-  source: string;
-  humid?: boolean;
-  base?: string;
-  composition?: Record<string, { fraction: number; source: string }>;
-}
+const RawPreset = z.strictObject({
+  description: z.string(),
+  source: z.string(),
+  humid: z.boolean().optional(),
+  base: z.string().optional(),
+  composition: z.record(z.string(), z.strictObject({ fraction: z.number().positive().max(1), source: z.string() })).optional(),
+});
 
 let cache: Map<string, Preset> | undefined;
 
 function presets(): Map<string, Preset> {
   if (cache) return cache;
-  const raw = parseYaml(readFileSync(new URL('./data/presets.yaml', import.meta.url), 'utf8')) as Record<string, RawPreset>;
+  const raw = readDataFile(new URL('./data/presets.yaml', import.meta.url), z.record(z.string(), RawPreset));
   cache = new Map(
     Object.entries(raw).map(([name, p]) => [
       name,

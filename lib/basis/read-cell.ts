@@ -4,7 +4,7 @@
  * bears nickel (stated, else read from the fuel-electrode text, else the technology's usual
  * electrode), the ionic transference number in (0, 1] and the crossover allowance.
  */
-import { technology, type Mode, type Technology, type TechnologyId } from '../electrochem/technologies.ts';
+import { technology, technologyIdOf, type Mode, type Technology } from '../electrochem/technologies.ts';
 import { quotedList } from '../core/suggest.ts';
 import type { Reader } from './reader.ts';
 import type { CellInfo } from './types.ts';
@@ -17,7 +17,9 @@ export function readTechnology(reader: Reader): { technology: Technology; mode: 
   const name = reader.text(['cell', 'technology']);
   const mode = reader.text(['cell', 'mode']) as Mode | undefined;
   if (name === undefined || mode === undefined) return undefined;
-  const tech = technology((name === 'phosphoric-acid' ? 'ht-pem' : name) as TechnologyId);
+  const id = technologyIdOf(name);
+  if (id === undefined) return undefined;
+  const tech = technology(id);
   if (!tech.modes.includes(mode)) {
     reader.findings.error(['cell', 'mode'], `${tech.id} cells (${tech.name}) run in ${quotedList(tech.modes)} mode only, not ${mode}`);
     return undefined;

@@ -7,12 +7,9 @@
  * shape by the read-*.ts modules.
  */
 import { z } from 'zod';
-import { TECHNOLOGY_IDS } from '../electrochem/technologies.ts';
+import { MODES, TECHNOLOGY_NAMES } from '../electrochem/technologies.ts';
 import { DOCUMENT_STATUSES } from './types.ts';
 import { choice, composition, describeValue, flag, fraction, isoDate, number, quantity, speciesFractions, strict, text } from './schema-parts.ts';
-
-/** Technology names a basis may give: the technology ids, and phosphoric-acid for ht-pem. */
-export const TECHNOLOGY_NAMES = [...TECHNOLOGY_IDS, 'phosphoric-acid'] as const;
 
 const STATUSES = DOCUMENT_STATUSES as unknown as readonly [string, ...string[]];
 
@@ -51,7 +48,7 @@ const documentSection = strict(
 const cellSection = strict(
   {
     technology: choice(TECHNOLOGY_NAMES, 'cell technology (phosphoric-acid is read as ht-pem)'),
-    mode: choice(['power', 'electrolysis'] as const, 'power (fuel cell) or electrolysis; must be a mode of the technology'),
+    mode: choice(MODES, 'power (fuel cell) or electrolysis; must be a mode of the technology'),
     'fuel-electrode': text('fuel-electrode material (free text), e.g. Ni-YSZ cermet').optional(),
     'air-electrode': text('air-electrode material (free text), e.g. LSM-YSZ').optional(),
     electrolyte: text('electrolyte material (free text), e.g. 8YSZ').optional(),

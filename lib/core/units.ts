@@ -4,30 +4,32 @@
  * (factors from NIST SP 811). A unit of another dimension is an error naming the dimension
  * expected and the units it accepts.
  */
-import { readFileSync } from 'node:fs';
-import { parse as parseYaml } from 'yaml';
+import { z } from 'zod';
+import { readDataFile } from './data-file.ts';
 import { quoted } from './quote.ts';
 
-export type Dimension =
-  | 'temperature'
-  | 'temperature-difference'
-  | 'pressure'
-  | 'current-density'
-  | 'area-specific-resistance'
-  | 'area'
-  | 'power'
-  | 'voltage'
-  | 'current'
-  | 'mass-flow'
-  | 'fraction';
+export const DIMENSIONS = [
+  'temperature',
+  'temperature-difference',
+  'pressure',
+  'current-density',
+  'area-specific-resistance',
+  'area',
+  'power',
+  'voltage',
+  'current',
+  'mass-flow',
+  'fraction',
+] as const;
 
-interface UnitDef {
-  factor: number;
-  offset?: number;
-  gauge?: boolean;
-}
+export type Dimension = (typeof DIMENSIONS)[number];
 
-const TABLE = parseYaml(readFileSync(new URL('./data/units.yaml', import.meta.url), 'utf8')) as Record<Dimension, Record<string, UnitDef>>;
+/** A unit: value_SI = value × factor + offset; `gauge` for pressures referred to one standard atmosphere. */
+const UnitDef = z.strictObject({ factor: z.number().positive(), offset: z.number().optional(), gauge: z.boolean().optional() });
+
+type UnitDef = z.infer<typeof UnitDef>;
+
+const TABLE = readDataFile(new URL('./data/units.yaml', import.meta.url), z.record(z.enum(DIMENSIONS), z.record(z.string(), UnitDef)));
 
 /** SI unit of each dimension, as written in results and reports. */
 export const SI_UNIT: Record<Dimension, string> = {

@@ -2,8 +2,7 @@
  * The standing notice of the hazards section and its method notes (data/texts.yaml): the notice
  * is shown first in the design document's hazards section and in the CLI hazards output.
  */
-import { readFileSync } from 'node:fs';
-import { parse as parseYaml } from 'yaml';
+import { readDataFile } from '../core/data-file.ts';
 import { z } from 'zod';
 import { dataValue } from './data-values.ts';
 import { renderTemplate } from './template.ts';
@@ -14,7 +13,7 @@ const Texts = z.strictObject({
   method: z.array(z.strictObject({ id: z.string(), text: z.string() })),
 });
 
-const TEXTS = Texts.parse(parseYaml(readFileSync(new URL('./data/texts.yaml', import.meta.url), 'utf8')));
+const TEXTS = readDataFile(new URL('./data/texts.yaml', import.meta.url), Texts);
 
 /** Informational only; defers to local codes, the authority having jurisdiction and licensed practice. */
 export const HAZARD_NOTICE: string = TEXTS.notice;

@@ -4,10 +4,9 @@
  * least one in each mode), every substance an entry of substances.yaml. Evaluating it renders each triggered rule's title and text from its
  * templates (template.ts) with the condition's values and the data values (data-values.ts).
  */
-import { readFileSync } from 'node:fs';
-import { parse as parseYaml } from 'yaml';
+import { readDataFile } from '../core/data-file.ts';
 import { z } from 'zod';
-import { TECHNOLOGY_IDS, type Mode } from '../electrochem/technologies.ts';
+import { MODES, TECHNOLOGY_IDS, type Mode } from '../electrochem/technologies.ts';
 import { dataValue } from './data-values.ts';
 import { PREDICATES, type Match, type RuleContext, type Values } from './predicates.ts';
 import { standardRef, standards } from './standards.ts';
@@ -37,8 +36,6 @@ export type Rule = z.infer<typeof RawRule>;
 
 const WHERE = 'lib/hazards/data/rules.yaml';
 
-const MODES: readonly Mode[] = ['power', 'electrolysis'];
-
 function check(rule: Rule): void {
   const fail = (why: string) => {
     throw new Error(`${WHERE}: rule ${rule.id}: ${why}`);
@@ -65,7 +62,7 @@ let cache: Rule[] | undefined;
 
 export function rules(): Rule[] {
   if (cache) return cache;
-  const table = z.array(RawRule).parse(parseYaml(readFileSync(new URL('./data/rules.yaml', import.meta.url), 'utf8')));
+  const table = readDataFile(new URL('./data/rules.yaml', import.meta.url), z.array(RawRule));
   const ids = new Set<string>();
   for (const rule of table) {
     check(rule);

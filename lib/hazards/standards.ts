@@ -3,8 +3,7 @@
  * and checked at first use. Cited for orientation only; editions and adoption are for the
  * engineer responsible and the authority having jurisdiction to confirm.
  */
-import { readFileSync } from 'node:fs';
-import { parse as parseYaml } from 'yaml';
+import { readDataFile } from '../core/data-file.ts';
 import { z } from 'zod';
 import type { StandardRef } from './types.ts';
 
@@ -24,7 +23,7 @@ let cache: Map<string, Standard> | undefined;
 
 export function standards(): Map<string, Standard> {
   if (cache) return cache;
-  const raw = z.record(z.string(), RawStandard).parse(parseYaml(readFileSync(new URL('./data/standards.yaml', import.meta.url), 'utf8')));
+  const raw = readDataFile(new URL('./data/standards.yaml', import.meta.url), z.record(z.string(), RawStandard));
   cache = new Map(Object.entries(raw).map(([id, s]) => [id, { id, ...s }]));
   return cache;
 }

@@ -4,8 +4,7 @@
  * quantity is the lowest recorded autoignition temperature, which the indicators use (the spread
  * between sources reflects the test apparatus; the lowest is the safer screen).
  */
-import { readFileSync } from 'node:fs';
-import { parse as parseYaml } from 'yaml';
+import { readDataFile } from '../core/data-file.ts';
 import { z } from 'zod';
 import { EXPOSURE_LIMITS, type ExposureLimit, type LimitPair, type SourcedValue, type SubstanceData, type SubstanceRow } from './types.ts';
 
@@ -120,8 +119,7 @@ function build(label: string, raw: Raw, sources: Map<string, Source>): Substance
 }
 
 function load(): HazardData {
-  const text = readFileSync(new URL('./data/substances.yaml', import.meta.url), 'utf8');
-  const raw = RawFile.parse(parseYaml(text));
+  const raw = readDataFile(new URL('./data/substances.yaml', import.meta.url), RawFile);
   const sources = new Map(Object.entries(raw.sources));
   const substances = new Map(Object.entries(raw.substances).map(([label, s]) => [label, build(label, s, sources)]));
   const keys = new Set<string>();

@@ -3,8 +3,7 @@
  * the presence threshold, the nickel-carbonyl temperature, the detector alarm fraction of the
  * LFL and the high-temperature hydrogen attack screening temperature.
  */
-import { readFileSync } from 'node:fs';
-import { parse as parseYaml } from 'yaml';
+import { readDataFile } from '../core/data-file.ts';
 import { z } from 'zod';
 
 const Threshold = z.strictObject({ value: z.number(), source: z.string(), memory: z.boolean(), why: z.string() });
@@ -22,7 +21,7 @@ export type Threshold = z.infer<typeof Threshold>;
 let cache: z.infer<typeof File> | undefined;
 
 export function thresholds(): Record<ThresholdId, Threshold> {
-  cache ??= File.parse(parseYaml(readFileSync(new URL('./data/thresholds.yaml', import.meta.url), 'utf8')));
+  cache ??= readDataFile(new URL('./data/thresholds.yaml', import.meta.url), File);
   return cache;
 }
 

@@ -9,7 +9,7 @@
  * down to every hazard value.
  */
 import { z } from 'zod';
-import { TECHNOLOGY_IDS, type Mode, type TechnologyId } from '../electrochem/technologies.ts';
+import { MODES, TECHNOLOGY_IDS, type Mode, type TechnologyId } from '../electrochem/technologies.ts';
 
 /**
  * What a stream is, for the rules that depend on it: `feed` enters the plant, `internal` stays
@@ -242,7 +242,7 @@ export const hazardAssessmentSchema = z
     basis: z.object({
       technology: z.enum(TECHNOLOGY_IDS),
       technologyName: z.string(),
-      mode: z.enum(['power', 'electrolysis']),
+      mode: z.enum(MODES),
       nickelBearing: z.boolean(),
       operatingTemperature_K: z.number(),
       fuelPressure_bar: z.number(),

@@ -6,6 +6,7 @@
  * `_Nm3_per_h` at 0 °C and 1 atm, `_kWh_per_kg`; fractions are plain numbers from 0 to 1).
  */
 import { z } from 'zod';
+import { IONS, MODES } from '../electrochem/technologies.ts';
 import { hazardAssessmentSchema } from '../hazards/types.ts';
 
 const num = (description: string) => z.number().describe(description);
@@ -63,8 +64,8 @@ export const resultsSchema = z
     technology: z.object({
       id: z.string(),
       name: z.string(),
-      mode: z.enum(['power', 'electrolysis']),
-      ion: z.enum(['oxide', 'proton', 'carbonate', 'hydroxide']),
+      mode: z.enum(MODES),
+      ion: z.enum(IONS),
       waterPhase: z.enum(['gas', 'liquid']),
       fuelGasEquilibrium: z.boolean().describe('the fuel gas is re-equilibrated along the cell (reforming and shift at the electrode)'),
     }),

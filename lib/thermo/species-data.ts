@@ -5,8 +5,9 @@
 import { readFileSync } from 'node:fs';
 import { createHash } from 'node:crypto';
 import { fileURLToPath } from 'node:url';
-import { parse as parseYaml } from 'yaml';
+import { z } from 'zod';
 import { parseNasaGlenn, type NasaRecord } from './nasa-glenn.ts';
+import { readDataFile } from '../core/data-file.ts';
 import { UserError } from '../core/errors.ts';
 import { editDistance } from '../core/suggest.ts';
 
@@ -38,15 +39,18 @@ interface Registry {
 
 let registry: Registry | undefined;
 
+/** species-names.yaml: labels of NASA records, further spellings accepted, and each element's reference state. */
+const SpeciesNames = z.strictObject({
+  label: z.record(z.string(), z.string()),
+  aliases: z.record(z.string(), z.string()),
+  'element-reference': z.record(z.string(), z.strictObject({ species: z.string(), atoms: z.number().int().positive() })),
+});
+
 function load(): Registry {
   const bytes = readFileSync(DATA_URL);
   const path = fileURLToPath(DATA_URL);
   const records = parseNasaGlenn(bytes.toString('latin1'), 'lib/thermo/data/nasa-glenn-excerpt.inp');
-  const names = parseYaml(readFileSync(NAMES_URL, 'utf8')) as {
-    label: Record<string, string>;
-    aliases: Record<string, string>;
-    'element-reference': Record<string, { species: string; atoms: number }>;
-  };
+  const names = readDataFile(NAMES_URL, SpeciesNames);
   const byLabel = new Map<string, Species>();
   for (const record of records) {
     const label = names.label[record.name] ?? record.name;

@@ -7,20 +7,18 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { dirname } from 'node:path';
 import type { Command } from '../command.ts';
 import { optionalString, requireString } from '../command.ts';
-import { technology, type Mode, type TechnologyId } from '../../electrochem/technologies.ts';
+import { technology, technologyIdOf, TECHNOLOGY_NAMES, type Mode, type TechnologyId } from '../../electrochem/technologies.ts';
 import { projectBasisPath, BASIS_FILE } from '../../basis/projects.ts';
 import { renderScaffold } from '../../basis/scaffolds.ts';
 import { loadBasisText } from '../../basis/load.ts';
 import { formatDiagnostic } from '../../basis/diagnostics.ts';
-import { TECHNOLOGY_NAMES } from '../../basis/schema.ts';
 import { didYouMean, quotedList } from '../../core/suggest.ts';
 import { UserError } from '../../core/errors.ts';
 
 function technologyArg(name: string): TechnologyId {
-  if (!(TECHNOLOGY_NAMES as readonly string[]).includes(name)) {
-    throw new UserError(`new: unknown technology "${name}"${didYouMean(name, TECHNOLOGY_NAMES)}; technologies: ${TECHNOLOGY_NAMES.join(', ')}`);
-  }
-  return (name === 'phosphoric-acid' ? 'ht-pem' : name) as TechnologyId;
+  const id = technologyIdOf(name);
+  if (id === undefined) throw new UserError(`new: unknown technology "${name}"${didYouMean(name, TECHNOLOGY_NAMES)}; technologies: ${TECHNOLOGY_NAMES.join(', ')}`);
+  return id;
 }
 
 export const newCommand: Command = {
