@@ -9,11 +9,12 @@ import type { Technology } from '../electrochem/technologies.ts';
 import type { Path } from './diagnostics.ts';
 import type { Read, Reader } from './reader.ts';
 import { limitProblem } from './limits.ts';
+import { kelvinWithCelsius } from '../core/temperature-text.ts';
 
 /** "1073.15 K (800 °C)" for messages. */
 export function kelvinText(kelvin: number): string {
   const round = (x: number) => String(Number(x.toFixed(2)));
-  return `${round(kelvin)} K (${round(kelvin - 273.15)} °C)`;
+  return kelvinWithCelsius(kelvin, round);
 }
 
 /** A temperature input, refused at or below absolute zero. */

@@ -9,6 +9,7 @@ import { technology } from '../electrochem/technologies.ts';
 import { evaluateReaction } from '../electrochem/reaction.ts';
 import { TemperatureRangeError } from '../core/errors.ts';
 import type { AirSupply, DesignBasis, StackSize, VoltageModel } from './types.ts';
+import { kelvinWithCelsius } from '../core/temperature-text.ts';
 
 export type SummaryRow = [label: string, value: string];
 
@@ -18,7 +19,7 @@ function num(value: number, digits = 4): string {
 }
 
 function temperature(kelvin: number): string {
-  return `${num(kelvin, 6)} K (${num(kelvin - 273.15, 5)} °C)`;
+  return kelvinWithCelsius(kelvin, (k) => num(k, 6), (c) => num(c, 5));
 }
 
 function composition(fractions: Readonly<Record<string, number>>): string {

@@ -31,6 +31,9 @@ type UnitDef = z.infer<typeof UnitDef>;
 
 const TABLE = readDataFile(new URL('./data/units.yaml', import.meta.url), z.record(z.enum(DIMENSIONS), z.record(z.string(), UnitDef)));
 
+/** 0 °C in kelvin, 273.15 (definition of the Celsius scale): the offset of the unit C in data/units.yaml. */
+export const ZERO_CELSIUS_K: number = TABLE.temperature.C!.offset!;
+
 /** SI unit of each dimension, as written in results and reports. */
 export const SI_UNIT: Record<Dimension, string> = {
   temperature: 'K',

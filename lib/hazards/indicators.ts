@@ -11,7 +11,7 @@
  *   and the operating temperature (a leak above it ignites in air without an ignition source);
  * - present species with no hazard entry.
  */
-import { ZERO_CELSIUS_K } from '../thermo/constants.ts';
+import { ZERO_CELSIUS_K } from '../core/units.ts';
 import { gasPhase } from './composition.ts';
 import { flammableOnMixingWithAir, insideRangeScreen, isInside, limitingOxygen, mixtureLimits, type MixtureLimits } from './flammability.ts';
 import { findSubstance, isNonHazardous, substance } from './substances.ts';

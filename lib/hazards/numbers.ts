@@ -3,7 +3,7 @@
  * separators by default (the data rarely support more), temperatures in whole degrees Celsius,
  * lists joined with "and".
  */
-import { ZERO_CELSIUS_K } from '../thermo/constants.ts';
+import { ZERO_CELSIUS_K } from '../core/units.ts';
 
 const formatters = new Map<number, Intl.NumberFormat>();
 const LIST = new Intl.ListFormat('en-GB', { style: 'long', type: 'conjunction' });

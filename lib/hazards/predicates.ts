@@ -7,7 +7,8 @@
  * IDLH).
  */
 import type { TechnologyId } from '../electrochem/technologies.ts';
-import { STANDARD_ATMOSPHERE_PA, PA_PER_BAR, ZERO_CELSIUS_K } from '../thermo/constants.ts';
+import { STANDARD_ATMOSPHERE_PA, PA_PER_BAR } from '../thermo/constants.ts';
+import { ZERO_CELSIUS_K } from '../core/units.ts';
 import { formatCelsius, formatList, formatNumber as fmt } from './numbers.ts';
 import { findSubstance, substance } from './substances.ts';
 import { threshold } from './thresholds.ts';

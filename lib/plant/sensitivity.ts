@@ -12,6 +12,7 @@ import { UserError } from '../core/errors.ts';
 import { withSteamToCarbon, type DesignInputs } from './design-inputs.ts';
 import { evaluateDesignPoint, type DesignPoint } from './design-point.ts';
 import type { Results } from './results-schema.ts';
+import { ZERO_CELSIUS_K } from '../core/units.ts';
 
 type Entry = Results['sensitivities'][number];
 
@@ -32,7 +33,7 @@ function perturbations(step: Sensitivity, inputs: DesignInputs): Perturbation[] 
       path: 'conditions.operating-temperature',
       step: `±${fmt(step.temperatureK)} K`,
       apply: (i, s) => ({ ...i, temperatureK: i.temperatureK + s * step.temperatureK }),
-      show: (i) => `${fmt(i.temperatureK - 273.15)} °C`,
+      show: (i) => `${fmt(i.temperatureK - ZERO_CELSIUS_K)} °C`,
     },
     {
       input: 'electrode pressures',

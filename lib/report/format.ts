@@ -1,3 +1,4 @@
+import { kelvinWithCelsius } from '../core/temperature-text.ts';
 /**
  * Number formatting for the design document: a fixed number of significant digits, the true
  * minus sign (U+2212), whole numbers in full, digits grouped in threes by a narrow no-break space from 10 000 up, and a
@@ -103,7 +104,7 @@ export function formatPercent(fraction: number, digits = 4): string {
 
 /** A temperature in kelvin and degrees Celsius: "1073.15 K (800.0 °C)". */
 export function formatTemperature(kelvin: number): string {
-  return `${formatFixed(kelvin, 2)} K (${formatFixed(kelvin - 273.15, 1)} °C)`;
+  return kelvinWithCelsius(kelvin, (k) => formatFixed(k, 2), (c) => formatFixed(c, 1));
 }
 
 /** Power or heat flow in kW (W below 1 kW): "250.0 kW", "−19.54 kW", "640.0 W". */

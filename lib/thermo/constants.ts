@@ -5,6 +5,7 @@
  * SI redefinition F = N_A·e and R = N_A·k_B are exact:
  *   N_A = 6.02214076e23 /mol, e = 1.602176634e-19 C, k_B = 1.380649e-23 J/K.
  */
+import { ZERO_CELSIUS_K } from '../core/units.ts';
 
 /** Faraday constant F = N_A·e, C/mol (exact). */
 export const FARADAY_C_PER_MOL = 96485.33212331001;
@@ -21,9 +22,6 @@ export const PA_PER_BAR = 1e5;
 /** Standard reference temperature of heats of formation, K. */
 export const REFERENCE_TEMPERATURE_K = 298.15;
 
-/** 0 °C in kelvin (definition of the Celsius scale). */
-export const ZERO_CELSIUS_K = 273.15;
-
 /** One standard atmosphere, Pa (definition). */
 export const STANDARD_ATMOSPHERE_PA = 101325;
 
@@ -32,7 +30,7 @@ export const STANDARD_ATMOSPHERE_PA = 101325;
  * Molar volume of an ideal gas there: R·T/p = 0.022413969... m³/mol (CODATA 2018 lists
  * 22.413 969 54 L/mol at 273.15 K and 101.325 kPa).
  */
-export const NORMAL_TEMPERATURE_K = ZERO_CELSIUS_K;
+export const NORMAL_TEMPERATURE_K: number = ZERO_CELSIUS_K;
 export const NORMAL_PRESSURE_PA = STANDARD_ATMOSPHERE_PA;
 export const NORMAL_MOLAR_VOLUME_M3_PER_MOL =
   (GAS_CONSTANT_J_PER_MOL_K * NORMAL_TEMPERATURE_K) / NORMAL_PRESSURE_PA;

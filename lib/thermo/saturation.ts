@@ -11,6 +11,7 @@
 import { getSpecies } from './species-data.ts';
 import { gOverRT } from './properties.ts';
 import { STANDARD_PRESSURE_BAR } from './constants.ts';
+import { ZERO_CELSIUS_K } from '../core/units.ts';
 
 export function saturationPressureBar(temperatureK: number): number {
   const vapour = getSpecies('H2O');
@@ -20,7 +21,7 @@ export function saturationPressureBar(temperatureK: number): number {
 
 /** Dew point (K) of a water partial pressure (bar): inverts saturationPressureBar by bisection on ln p. */
 export function dewPointK(waterPartialPressureBar: number): number {
-  let low = 273.15;
+  let low = ZERO_CELSIUS_K;
   let high = 600;
   const target = Math.log(waterPartialPressureBar);
   for (let i = 0; i < 80; i++) {

@@ -4,6 +4,7 @@ import { equilibrate } from '../../equilibrium/equilibrate.ts';
 import { parseFeedOption } from '../feed.ts';
 import { pressureOption, temperatureOption } from '../values.ts';
 import { grid, json, sig, table } from '../../core/plain-text.ts';
+import { kelvinWithCelsius } from '../../core/temperature-text.ts';
 
 export const equilibriumCommand: Command = {
   name: 'equilibrium',
@@ -41,7 +42,7 @@ export const equilibriumCommand: Command = {
     }
     io.out(
       table([
-        ['temperature', `${sig(temperatureK)} K (${sig(temperatureK - 273.15)} °C)`],
+        ['temperature', kelvinWithCelsius(temperatureK, sig)],
         ['pressure', `${sig(pressureBar)} bar`],
         ['feed', Object.entries(feed).map(([k, v]) => `${k}=${sig(v)}`).join(', ')],
         ['carbon activity', `${sig(e.carbonActivity, 4)}${e.carbonActivity > 1 ? ' (above 1: carbon can deposit)' : ''}`],

@@ -4,6 +4,7 @@ import { evaluateReaction } from '../../electrochem/reaction.ts';
 import { temperatureOption } from '../values.ts';
 import { json, sig, table } from '../../core/plain-text.ts';
 import { UserError } from '../../core/errors.ts';
+import { kelvinWithCelsius } from '../../core/temperature-text.ts';
 
 export const reactionCommand: Command = {
   name: 'reaction',
@@ -37,7 +38,7 @@ export const reactionCommand: Command = {
     io.out(
       table([
         ['reaction', r.reaction],
-        ['temperature', `${sig(r.temperature_K)} K (${sig(r.temperature_K - 273.15)} °C)`],
+        ['temperature', kelvinWithCelsius(r.temperature_K, sig)],
         ['electrons n', sig(r.electrons)],
         ['ΔH°', `${sig(r.deltaH_J_per_mol / 1000)} kJ/mol`],
         ['ΔS°', `${sig(r.deltaS_J_per_mol_K)} J/(mol K)`],

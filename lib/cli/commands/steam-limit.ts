@@ -4,6 +4,7 @@ import { minimumSteamToCarbon } from '../../equilibrium/carbon.ts';
 import { parseFeedOption } from '../feed.ts';
 import { pressureOption, temperatureOption } from '../values.ts';
 import { json, sig, table } from '../../core/plain-text.ts';
+import { kelvinWithCelsius } from '../../core/temperature-text.ts';
 
 export const steamLimitCommand: Command = {
   name: 'steam-limit',
@@ -31,7 +32,7 @@ export const steamLimitCommand: Command = {
     io.out(
       table([
         ['fuel', Object.entries(fuel).map(([k, v]) => `${k}=${sig(v)}`).join(', ')],
-        ['temperature', `${sig(temperatureK)} K (${sig(temperatureK - 273.15)} °C)`],
+        ['temperature', kelvinWithCelsius(temperatureK, sig)],
         ['pressure', `${sig(pressureBar)} bar`],
         ['carbon activity without steam', sig(limit.dryCarbonActivity, 4)],
         ['minimum steam-to-carbon ratio', sig(limit.minimumSteamToCarbon, 4)],

@@ -12,6 +12,7 @@ import { chartData, type ChartData, type DataColumn } from './data-table.ts';
 import type { Axis, ChartSpec, LineSeries } from './spec.ts';
 import type { TrustedHtml } from '../trusted-html.ts';
 import { speciesText } from '../species-text.ts';
+import { ZERO_CELSIUS_K } from '../../core/units.ts';
 
 export const CHART_WIDTH = 640;
 export const CHART_HEIGHT = 300;
@@ -43,7 +44,7 @@ export type Figure = DrawnFigure | StatedFigure;
 type Draft = Omit<DrawnFigure, 'number' | 'spec' | 'width' | 'height' | 'kind'> & { spec: ChartSpec } | Omit<StatedFigure, 'number'>;
 
 /** °C from K, rounded to the microkelvin so that 923.15 K reads 650 °C on an axis. */
-const C = (k: number) => Math.round((k - 273.15) * 1e6) / 1e6;
+const C = (k: number) => Math.round((k - ZERO_CELSIUS_K) * 1e6) / 1e6;
 
 function vertical(x: number, y0: number, y1: number, label: string): LineSeries {
   return { label, points: [[x, y0], [x, y1]], style: 0, dashed: true, reference: true };

@@ -7,6 +7,7 @@ import type { Results, StreamResult } from '../../plant/results-schema.ts';
 import { formatFixed, formatInteger, formatNumber, formatPercent, formatPower, formatQuantity } from '../format.ts';
 import { pairs, table, type Table, type TableRow } from '../table.ts';
 import { speciesText } from '../species-text.ts';
+import { ZERO_CELSIUS_K } from '../../core/units.ts';
 
 export interface FigureTable {
   id: string;
@@ -131,7 +132,7 @@ export function streamTable(r: Results): Table {
   const streams = r.streams;
   const row = (label: string, cell: (s: StreamResult) => string): TableRow => ({ cells: [label, ...streams.map(cell)] });
   const rows: TableRow[] = [
-    row('Temperature, °C', (s) => formatFixed(s.temperature_K - 273.15, 1)),
+    row('Temperature, °C', (s) => formatFixed(s.temperature_K - ZERO_CELSIUS_K, 1)),
     row('Pressure, bar', (s) => formatNumber(s.pressure_bar)),
     row('Molar flow, mol/s', (s) => formatNumber(s.flow_mol_per_s)),
     row('Mass flow, kg/h', (s) => formatNumber(s.massFlow_kg_per_h)),
