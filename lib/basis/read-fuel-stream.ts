@@ -4,7 +4,7 @@
  * ratio on a fuel without combustible carbon is an error: it would add no steam at all, which
  * is surely not what was meant (steam-per-mole-fuel humidifies a carbon-free fuel).
  */
-import { addSteam, combustibleCarbon } from './steam.ts';
+import { addSteam, combustibleCarbon } from '../equilibrium/carbon.ts';
 import { readTemperature } from './read-conditions.ts';
 import { resolveComposition, type Composition } from './composition.ts';
 import type { Path } from './diagnostics.ts';
@@ -49,6 +49,11 @@ function steamPerMole(reader: Reader, path: Path, dry: Composition): { added: nu
   return { added: 0 };
 }
 
+/** Mole fractions of a feed from its amounts per mole of dry fuel, `total` mol in all. */
+function perMoleOfFeed(amounts: Readonly<Record<string, number>>, total: number): Record<string, number> {
+  return Object.fromEntries(Object.entries(amounts).map(([label, n]) => [label, n / total]));
+}
+
 function preReforming(reader: Reader, path: Path): { value: PreReforming; temperature?: Read } | undefined {
   const written = reader.get([...path, 'pre-reforming']);
   if (written === undefined || written === 'none') return reader.flaggedAt([...path, 'pre-reforming']) ? undefined : { value: { kind: 'none' } };
@@ -74,7 +79,7 @@ export function readFuelStream(reader: Reader, path: Path, rule: ElectrodeRule, 
   const steam = rule.role === 'fuel' ? steamPerMole(reader, path, dry) : { added: 0 };
   const reforming = rule.role === 'fuel' ? preReforming(reader, path) : { value: { kind: 'none' } as PreReforming };
   if (!steam || !reforming) return undefined;
-  const fractions = addSteam(dry.fractions, steam.added);
+  const fractions = steam.added > 0 ? perMoleOfFeed(addSteam(dry.fractions, steam.added), 1 + steam.added) : { ...dry.fractions };
   const speciesAt = { ...dry.speciesAt };
   if (!('H2O' in speciesAt) && steam.at) speciesAt.H2O = steam.at;
   return {

@@ -55,10 +55,16 @@ export function combustibleCarbon(stream: Readonly<Record<string, number>>): num
   return carbon;
 }
 
-/** The stream with S/C × (combustible carbon) mol of H2O added. */
-export function withSteam(fuel: Readonly<Record<string, number>>, steamToCarbon: number): Record<string, number> {
-  const steam = steamToCarbon * combustibleCarbon(fuel);
-  return { ...fuel, H2O: (fuel.H2O ?? 0) + steam };
+/**
+ * The fuel with `steamMol` mol of H2O added (amounts in, amounts out: H2O joins the end of the
+ * stream, or adds to the water it holds). The one way steam is added to a fuel; by the reformer
+ * convention the steam of a steam-to-carbon ratio S/C is S/C × combustibleCarbon(fuel), carbon
+ * in hydrocarbons, alcohols and CO counted and carbon already in CO2 not (J. R. Rostrup-Nielsen,
+ * Catalytic Steam Reforming, Springer 1984; from memory); per mole of dry fuel with mole
+ * fractions x_i that gives feed_i = (x_i + n_steam δ_i,H2O) / (1 + n_steam).
+ */
+export function addSteam(fuel: Readonly<Record<string, number>>, steamMol: number): Record<string, number> {
+  return { ...fuel, H2O: (fuel.H2O ?? 0) + steamMol };
 }
 
 /**
@@ -96,7 +102,7 @@ export function minimumSteamToCarbon(fuel: Readonly<Record<string, number>>, tem
     throw new UserError('the fuel contains no combustible carbon, so it cannot deposit carbon and a steam-to-carbon ratio is not defined');
   }
   const chain = {};
-  const f = (s: number) => Math.log(equilibriumCarbonActivity(withSteam(fuel, s), temperatureK, pressureBar, chain));
+  const f = (s: number) => Math.log(equilibriumCarbonActivity(addSteam(fuel, s * combustibleCarbon(fuel)), temperatureK, pressureBar, chain));
   const dry = f(0);
   if (dry <= 0) return { minimumSteamToCarbon: 0, dryCarbonActivity: Math.exp(dry), iterations: 1 };
   let low = 0;

@@ -5,7 +5,7 @@
  */
 import type { AirStream, DesignBasis, FuelStream, OperatingPoint, PreReforming } from '../basis/types.ts';
 import { technology, type Mode, type Technology } from '../electrochem/technologies.ts';
-import { withSteam } from '../equilibrium/carbon.ts';
+import { addSteam, combustibleCarbon } from '../equilibrium/carbon.ts';
 import type { Solution } from '../equilibrium/fuel-path.ts';
 
 /** The operating point of the basis (OperatingPoint) and the conditions and feeds, in SI. */
@@ -73,7 +73,7 @@ export function designInputs(basis: DesignBasis): DesignInputs {
 /** The same inputs with a different steam-to-carbon ratio (the feed rebuilt from the dry fuel). */
 export function withSteamToCarbon(inputs: DesignInputs, steamToCarbon: number): DesignInputs {
   if (!inputs.dryFuel) return inputs;
-  const feed = withSteam(inputs.dryFuel, steamToCarbon);
+  const feed = addSteam(inputs.dryFuel, steamToCarbon * combustibleCarbon(inputs.dryFuel));
   const total = Object.values(feed).reduce((a, b) => a + b, 0);
   return { ...inputs, steamToCarbon, fuelFeed: Object.fromEntries(Object.entries(feed).map(([k, v]) => [k, v / total])) };
 }

@@ -12,7 +12,7 @@
 import { FARADAY_C_PER_MOL as F } from '../thermo/constants.ts';
 import { evaluateReaction } from '../electrochem/reaction.ts';
 import { electronsOfStream } from '../electrochem/charge.ts';
-import { equilibriumCarbonActivity, withSteam } from '../equilibrium/carbon.ts';
+import { addSteam, combustibleCarbon, equilibriumCarbonActivity } from '../equilibrium/carbon.ts';
 import { getSpecies } from '../thermo/species-data.ts';
 import { inRange } from '../thermo/properties.ts';
 import { heatingValue, streamHeatingValueW } from './heating-values.ts';
@@ -82,7 +82,7 @@ export function steamToCarbonSweep(point: DesignPoint, count = 25): Sweeps['stea
   const stackChain = {};
   const preChain = {};
   return linspace(top / count, top, count).map((s) => {
-    const feed = withSteam(inputs.dryFuel!, s);
+    const feed = addSteam(inputs.dryFuel!, s * combustibleCarbon(inputs.dryFuel!));
     return {
       steamToCarbon: s,
       carbonActivityStack: equilibriumCarbonActivity(feed, inputs.temperatureK, inputs.fuelPressureBar, stackChain),

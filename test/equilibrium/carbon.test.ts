@@ -4,7 +4,7 @@
 // theory, the same reference's carbon-limit diagrams; from memory); S/C 2-3 in practice
 // (common practice, no source).
 import { describe, expect, it } from 'vitest';
-import { boudouardCarbonActivity, combustibleCarbon, crackingCarbonActivity, minimumSteamToCarbon, withSteam } from '../../lib/equilibrium/carbon.ts';
+import { addSteam, boudouardCarbonActivity, combustibleCarbon, crackingCarbonActivity, minimumSteamToCarbon } from '../../lib/equilibrium/carbon.ts';
 import { equilibrate } from '../../lib/equilibrium/equilibrate.ts';
 
 describe('carbon activity', () => {
@@ -34,9 +34,9 @@ describe('minimum steam-to-carbon ratio', () => {
     const fuel = { CH4: 0.93, C2H6: 0.04, C3H8: 0.01, CO2: 0.01, N2: 0.01 };
     const t = 973.15;
     const limit = minimumSteamToCarbon(fuel, t, 3);
-    const e = equilibrate({ temperatureK: t, pressureBar: 3, feed: withSteam(fuel, limit.minimumSteamToCarbon) });
+    const e = equilibrate({ temperatureK: t, pressureBar: 3, feed: addSteam(fuel, limit.minimumSteamToCarbon * combustibleCarbon(fuel)) });
     expect(e.carbonActivity).toBeCloseTo(1, 6);
-    const safer = equilibrate({ temperatureK: t, pressureBar: 3, feed: withSteam(fuel, limit.minimumSteamToCarbon + 0.1) });
+    const safer = equilibrate({ temperatureK: t, pressureBar: 3, feed: addSteam(fuel, (limit.minimumSteamToCarbon + 0.1) * combustibleCarbon(fuel)) });
     expect(safer.carbonActivity).toBeLessThan(1);
   });
 
