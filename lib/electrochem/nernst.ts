@@ -2,10 +2,15 @@
  * Nernst (equilibrium) voltage of a hydrogen–oxygen cell for each electrolyte, from the local
  * partial pressures at both electrodes (bar; 1 bar standard state):
  *
- *   oxide ion O²⁻    E = E° + RT/2F · ln( p_H2,a · p_O2,c^½ / p_H2O,a )
- *   proton H⁺        E = E° + RT/2F · ln( p_H2,a · p_O2,c^½ / p_H2O,c )
- *   carbonate CO3²⁻  E = E° + RT/2F · ln( p_H2,a · p_O2,c^½ · p_CO2,c / (p_H2O,a · p_CO2,a) )
- *   hydroxide OH⁻    E = E° + RT/2F · ln( p_H2,a · p_O2,c^½ )   (electrolyte water activity 1)
+ *   E = E° + RT/2F · ln Q,   Q = Π p_i^ν_i
+ *
+ * over the gases the electrode reactions of the ion consume (ν > 0) and form (ν < 0), each at its
+ * electrode (lib/electrochem/electrolytes.ts, data/electrolytes.yaml), which gives
+ *
+ *   oxide ion O²⁻    Q = p_H2,a · p_O2,c^½ / p_H2O,a
+ *   proton H⁺        Q = p_H2,a · p_O2,c^½ / p_H2O,c
+ *   carbonate CO3²⁻  Q = p_H2,a · p_O2,c^½ · p_CO2,c / (p_H2O,a · p_CO2,a)
+ *   hydroxide OH⁻    Q = p_H2,a · p_O2,c^½   (electrolyte water activity 1)
  *
  * a = fuel electrode, c = air electrode; E° = −ΔG°/2F of H2 + ½O2 → H2O at T, with gaseous
  * water, or liquid water (activity 1, the water term dropped) where the cell runs with liquid
@@ -19,6 +24,7 @@ import { FARADAY_C_PER_MOL as F, GAS_CONSTANT_J_PER_MOL_K as R } from '../thermo
 import { gibbs } from '../thermo/properties.ts';
 import { getSpecies } from '../thermo/species-data.ts';
 import type { Ion } from './technologies.ts';
+import { activeQuotient, type QuotientTerm } from './electrolytes.ts';
 
 /** Partial pressures in bar by species label. */
 export type PartialPressures = Readonly<Record<string, number>>;
@@ -30,25 +36,38 @@ export function hydrogenStandardVoltage(temperatureK: number, waterPhase: 'gas' 
   return -dG / (2 * F);
 }
 
-/** ln of the Nernst pressure quotient for the ion (the bracket in the table above). */
-export function nernstLogQuotient(ion: Ion, waterPhase: 'gas' | 'liquid', fuel: PartialPressures, air: PartialPressures): number {
-  const p = (side: PartialPressures, name: string) => side[name] ?? 0;
-  let lnQ = Math.log(p(fuel, 'H2')) + 0.5 * Math.log(p(air, 'O2'));
-  const waterCounts = waterPhase === 'gas';
-  switch (ion) {
-    case 'oxide':
-      if (waterCounts) lnQ -= Math.log(p(fuel, 'H2O'));
-      break;
-    case 'proton':
-      if (waterCounts) lnQ -= Math.log(p(air, 'H2O'));
-      break;
-    case 'carbonate':
-      if (waterCounts) lnQ -= Math.log(p(fuel, 'H2O'));
-      lnQ += Math.log(p(air, 'CO2')) - Math.log(p(fuel, 'CO2'));
-      break;
-    case 'hydroxide':
-      break;
+/** The quotient of an ion and water phase as its evaluation needs it: gases at one electrode, and gases carried from one to the other. */
+interface QuotientPlan {
+  single: QuotientTerm[];
+  /** A gas the ion carries across (CO2 of the carbonate ion): its factor at the electrode that consumes it, then at the one that forms it. */
+  carried: [QuotientTerm, QuotientTerm][];
+}
+
+const plans = new Map<string, QuotientPlan>();
+
+function planOf(ion: Ion, waterPhase: 'gas' | 'liquid'): QuotientPlan {
+  const key = `${ion}/${waterPhase}`;
+  let plan = plans.get(key);
+  if (!plan) {
+    const terms = activeQuotient(ion, waterPhase);
+    const both = (t: QuotientTerm) => terms.filter((u) => u.species === t.species).length > 1;
+    const carried = terms.filter((t) => both(t) && t.power > 0).map((t): [QuotientTerm, QuotientTerm] => [t, terms.find((u) => u.species === t.species && u.power < 0)!]);
+    plan = { single: terms.filter((t) => !both(t)), carried };
+    plans.set(key, plan);
   }
+  return plan;
+}
+
+/**
+ * ln Q for the ion, Σ ν_i ln p_i: first the gases at one electrode, then each gas the ion carries
+ * across as ln(p at the electrode that consumes it) − ln(p at the one that forms it).
+ */
+export function nernstLogQuotient(ion: Ion, waterPhase: 'gas' | 'liquid', fuel: PartialPressures, air: PartialPressures): number {
+  const p = (t: QuotientTerm) => (t.electrode === 'f' ? fuel : air)[t.species] ?? 0;
+  const plan = planOf(ion, waterPhase);
+  let lnQ = 0;
+  for (const t of plan.single) lnQ += t.power * Math.log(p(t));
+  for (const [consumed, formed] of plan.carried) lnQ += consumed.power * Math.log(p(consumed)) + formed.power * Math.log(p(formed));
   return lnQ;
 }
 

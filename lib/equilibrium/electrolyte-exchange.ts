@@ -1,6 +1,9 @@
 /**
  * What the electrolyte carries between the electrodes per mole of electrons passed, in power
- * mode (electrolysis is the same exchange with the opposite sign):
+ * mode (electrolysis is the same exchange with the opposite sign), from the electrode reactions
+ * of the ion (lib/electrochem/electrolytes.ts): each gas the fuel-electrode reaction forms joins
+ * the fuel gas and each it consumes leaves it, likewise at the air electrode, per electron
+ * (the reactions are written for two). Which gives
  *
  *   ion          fuel electrode (as elements)    fuel electrode, if only H2 reacts   air electrode
  *   oxide O²⁻    +½ O                            −½ H2, +½ H2O                       −¼ O2
@@ -8,12 +11,12 @@
  *   carbonate    +½ C, +3/2 O                    −½ H2, +½ H2O, +½ CO2               −¼ O2, −½ CO2
  *   hydroxide    +1 O, +1 H                      −½ H2, +1 H2O                       −¼ O2, −½ H2O
  *
- * From the electrode reactions (methods note of this project; e.g. Larminie & Dicks, Fuel Cell
- * Systems Explained, 2nd ed., Fig. 1.4): oxide H2 + O²⁻ → H2O + 2e⁻ | ½O2 + 2e⁻ → O²⁻;
- * proton H2 → 2H⁺ + 2e⁻ | ½O2 + 2H⁺ + 2e⁻ → H2O; carbonate H2 + CO3²⁻ → H2O + CO2 + 2e⁻ |
- * ½O2 + CO2 + 2e⁻ → CO3²⁻; hydroxide H2 + 2OH⁻ → 2H2O + 2e⁻ | ½O2 + H2O + 2e⁻ → 2OH⁻.
+ * (The water of an alkaline cell's reactions belongs to its electrolyte for the Nernst equation,
+ * but it is still formed at the fuel electrode and taken at the air electrode, as here.)
  */
+import { ELECTRONS, electrolyte, type ElectrodeReaction } from '../electrochem/electrolytes.ts';
 import type { Ion } from '../electrochem/technologies.ts';
+import { getSpecies } from '../thermo/species-data.ts';
 
 export interface Exchange {
   /** Element change of the fuel-electrode gas per mole of electrons (for a re-equilibrated gas). */
@@ -24,13 +27,35 @@ export interface Exchange {
   airSpecies: Readonly<Record<string, number>>;
 }
 
-const TABLE: Record<Ion, Exchange> = {
-  oxide: { fuelElements: { O: 0.5 }, fuelSpecies: { H2: -0.5, H2O: 0.5 }, airSpecies: { O2: -0.25 } },
-  proton: { fuelElements: { H: -1 }, fuelSpecies: { H2: -0.5 }, airSpecies: { O2: -0.25, H2O: 0.5 } },
-  carbonate: { fuelElements: { C: 0.5, O: 1.5 }, fuelSpecies: { H2: -0.5, H2O: 0.5, CO2: 0.5 }, airSpecies: { O2: -0.25, CO2: -0.5 } },
-  hydroxide: { fuelElements: { O: 1, H: 1 }, fuelSpecies: { H2: -0.5, H2O: 1 }, airSpecies: { O2: -0.25, H2O: -0.5 } },
-};
+/** The gases a reaction moves into (+) and out of (−) its electrode's gas, per mole of electrons. */
+function gasChange(reaction: ElectrodeReaction): Record<string, number> {
+  const change: Record<string, number> = {};
+  for (const [side, sign] of [['consumes', -1], ['forms', 1]] as const) {
+    for (const { species, coefficient } of reaction[side]) {
+      if (species !== 'ion') change[species] = (change[species] ?? 0) + (sign * coefficient) / ELECTRONS;
+    }
+  }
+  return change;
+}
+
+/** The same change counted in elements, those that cancel left out. */
+function elementChange(species: Readonly<Record<string, number>>): Record<string, number> {
+  const elements: Record<string, number> = {};
+  for (const [label, amount] of Object.entries(species)) {
+    for (const [element, count] of Object.entries(getSpecies(label).formula)) elements[element] = (elements[element] ?? 0) + amount * count;
+  }
+  return Object.fromEntries(Object.entries(elements).filter(([, amount]) => amount !== 0));
+}
+
+const cache = new Map<Ion, Exchange>();
 
 export function exchangeFor(ion: Ion): Exchange {
-  return TABLE[ion];
+  let exchange = cache.get(ion);
+  if (!exchange) {
+    const e = electrolyte(ion);
+    const fuelSpecies = gasChange(e.fuel);
+    exchange = { fuelElements: elementChange(fuelSpecies), fuelSpecies, airSpecies: gasChange(e.air) };
+    cache.set(ion, exchange);
+  }
+  return exchange;
 }

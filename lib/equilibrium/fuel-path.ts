@@ -24,8 +24,7 @@ import { gOverRT } from '../thermo/properties.ts';
 import { saturationPressureBar } from '../thermo/saturation.ts';
 import { getSpecies } from '../thermo/species-data.ts';
 import { electronsOfStream } from '../electrochem/charge.ts';
-import { hydrogenStandardVoltage, nernstLogQuotient } from '../electrochem/nernst.ts';
-import { GAS_CONSTANT_J_PER_MOL_K as R } from '../thermo/constants.ts';
+import { hydrogenStandardVoltage, nernstVoltage } from '../electrochem/nernst.ts';
 import type { Mode, Technology } from '../electrochem/technologies.ts';
 import { minimiseGibbs } from './gibbs-minimiser.ts';
 import { elementAmounts, elementsOfFeed, gasGibbsOverRT, systemFor, type ChemicalSystem } from './species-set.ts';
@@ -343,7 +342,6 @@ export function fuelPath(request: FuelPathRequest): FuelPath {
   const model = new PathModel(request, basisA);
   const { technology, temperatureK } = request;
   const e0 = hydrogenStandardVoltage(temperatureK, technology.waterPhase);
-  const rtOver2F = (R * temperatureK) / (2 * F);
   const pf = request.fuelPressureBar;
   const pa = request.airPressureBar;
   const fuelP: Record<string, number> = {};
@@ -360,7 +358,7 @@ export function fuelPath(request: FuelPathRequest): FuelPath {
       fuelP[s] = fIdx[k] === undefined ? 0 : xFuel[fIdx[k]!]! * pf;
       airP[s] = aIdx[k] === undefined ? 0 : xAir[aIdx[k]!]! * pa;
     });
-    let nernstV = e0 + rtOver2F * nernstLogQuotient(technology.ion, technology.waterPhase, fuelP, airP);
+    let nernstV = nernstVoltage(technology.ion, technology.waterPhase, temperatureK, fuelP, airP, e0);
     if (Number.isNaN(nernstV)) nernstV = Infinity;
     return { utilization, value: nernstV, state, xFuel, xAir };
   };

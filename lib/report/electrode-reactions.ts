@@ -1,23 +1,14 @@
 /**
  * The electrode reactions of each electrolyte in the form the method section derives the Nernst
- * equation from (the same half-reactions as lib/equilibrium/electrolyte-exchange.ts and the same
- * pressure quotient as lib/electrochem/nernst.ts), written in power mode: the fuel electrode (f)
- * gives up electrons, the air electrode (a) takes them. Each equilibrium is written as a balance
- * of (electro)chemical potentials, the ion's electrochemical potential being the same at both
- * interfaces.
+ * equation from, written as LaTeX from the one per-ion table (lib/electrochem/electrolytes.ts,
+ * which the Nernst quotient and the fuel path's exchange read too), in power mode: the fuel
+ * electrode (f) gives up electrons, the air electrode (a) takes them. Each equilibrium is written
+ * as a balance of (electro)chemical potentials, the ion's electrochemical potential being the
+ * same at both interfaces; their sum is the Gibbs energy change of the overall reaction.
  */
+import { ELECTRONS, electrolyte, isElectrodeGas, type Electrode, type Electrolyte, type ReactionTerm } from '../electrochem/electrolytes.ts';
 import type { Ion } from '../electrochem/technologies.ts';
-import type { Electrode } from './tex.ts';
-
-/** One factor of the Nernst pressure quotient: p^power of a species at an electrode. */
-export interface QuotientTerm {
-  species: string;
-  electrode: Electrode;
-  /** Exponent: +1 and +1/2 above the fraction bar, −1 below. */
-  power: 1 | 0.5 | -1;
-  /** A water term, dropped where the cell runs with liquid water (activity 1). */
-  water: boolean;
-}
+import { texSpecies } from './tex.ts';
 
 export interface ElectrodeReactions {
   ion: Ion;
@@ -35,91 +26,91 @@ export interface ElectrodeReactions {
   overall: string;
   /** Where water forms in power mode. */
   waterElectrode: Electrode;
-  quotient: QuotientTerm[];
 }
 
-const E = '\\tilde{\\mu}_{e^-,\\mathrm{f}}';
-const EA = '\\tilde{\\mu}_{e^-,\\mathrm{a}}';
-const HYDROGEN = '\\mathrm{H_2} + \\tfrac{1}{2}\\,\\mathrm{O_2} \\rightarrow \\mathrm{H_2O}';
-const ELECTRONS = `2\\left(${EA}-${E}\\right)`;
+/** Electrochemical potential of the electrons at each electrode. */
+const ELECTRON_POTENTIAL: Record<Electrode, string> = { f: '\\tilde{\\mu}_{e^-,\\mathrm{f}}', a: '\\tilde{\\mu}_{e^-,\\mathrm{a}}' };
+const ELECTRONS_TEX = `${ELECTRONS}\\,e^-`;
 
-const TABLE: Record<Ion, ElectrodeReactions> = {
-  oxide: {
-    ion: 'oxide',
-    ionName: 'oxide ion',
-    ionTex: '\\mathrm{O^{2-}}',
-    fuelReaction: '\\mathrm{H_2} + \\mathrm{O^{2-}} \\rightleftharpoons \\mathrm{H_2O} + 2\\,e^-',
-    airReaction: '\\tfrac{1}{2}\\,\\mathrm{O_2} + 2\\,e^- \\rightleftharpoons \\mathrm{O^{2-}}',
-    fuelBalance: `\\mu_{\\mathrm{H_2},\\mathrm{f}} + \\tilde{\\mu}_{\\mathrm{O^{2-}}} = \\mu_{\\mathrm{H_2O},\\mathrm{f}} + 2\\,${E}`,
-    airBalance: `\\tfrac{1}{2}\\,\\mu_{\\mathrm{O_2},\\mathrm{a}} + 2\\,${EA} = \\tilde{\\mu}_{\\mathrm{O^{2-}}}`,
-    sum: `${ELECTRONS} = \\mu_{\\mathrm{H_2O},\\mathrm{f}} - \\mu_{\\mathrm{H_2},\\mathrm{f}} - \\tfrac{1}{2}\\,\\mu_{\\mathrm{O_2},\\mathrm{a}}`,
-    overall: HYDROGEN,
-    waterElectrode: 'f',
-    quotient: [
-      { species: 'H2', electrode: 'f', power: 1, water: false },
-      { species: 'O2', electrode: 'a', power: 0.5, water: false },
-      { species: 'H2O', electrode: 'f', power: -1, water: true },
-    ],
-  },
-  proton: {
-    ion: 'proton',
-    ionName: 'proton',
-    ionTex: '\\mathrm{H^{+}}',
-    fuelReaction: '\\mathrm{H_2} \\rightleftharpoons 2\\,\\mathrm{H^{+}} + 2\\,e^-',
-    airReaction: '\\tfrac{1}{2}\\,\\mathrm{O_2} + 2\\,\\mathrm{H^{+}} + 2\\,e^- \\rightleftharpoons \\mathrm{H_2O}',
-    fuelBalance: `\\mu_{\\mathrm{H_2},\\mathrm{f}} = 2\\,\\tilde{\\mu}_{\\mathrm{H^{+}}} + 2\\,${E}`,
-    airBalance: `\\tfrac{1}{2}\\,\\mu_{\\mathrm{O_2},\\mathrm{a}} + 2\\,\\tilde{\\mu}_{\\mathrm{H^{+}}} + 2\\,${EA} = \\mu_{\\mathrm{H_2O},\\mathrm{a}}`,
-    sum: `${ELECTRONS} = \\mu_{\\mathrm{H_2O},\\mathrm{a}} - \\mu_{\\mathrm{H_2},\\mathrm{f}} - \\tfrac{1}{2}\\,\\mu_{\\mathrm{O_2},\\mathrm{a}}`,
-    overall: HYDROGEN,
-    waterElectrode: 'a',
-    quotient: [
-      { species: 'H2', electrode: 'f', power: 1, water: false },
-      { species: 'O2', electrode: 'a', power: 0.5, water: false },
-      { species: 'H2O', electrode: 'a', power: -1, water: true },
-    ],
-  },
-  carbonate: {
-    ion: 'carbonate',
-    ionName: 'carbonate ion',
-    ionTex: '\\mathrm{CO_3^{2-}}',
-    fuelReaction: '\\mathrm{H_2} + \\mathrm{CO_3^{2-}} \\rightleftharpoons \\mathrm{H_2O} + \\mathrm{CO_2} + 2\\,e^-',
-    airReaction: '\\tfrac{1}{2}\\,\\mathrm{O_2} + \\mathrm{CO_2} + 2\\,e^- \\rightleftharpoons \\mathrm{CO_3^{2-}}',
-    fuelBalance: `\\mu_{\\mathrm{H_2},\\mathrm{f}} + \\tilde{\\mu}_{\\mathrm{CO_3^{2-}}} = \\mu_{\\mathrm{H_2O},\\mathrm{f}} + \\mu_{\\mathrm{CO_2},\\mathrm{f}} + 2\\,${E}`,
-    airBalance: `\\tfrac{1}{2}\\,\\mu_{\\mathrm{O_2},\\mathrm{a}} + \\mu_{\\mathrm{CO_2},\\mathrm{a}} + 2\\,${EA} = \\tilde{\\mu}_{\\mathrm{CO_3^{2-}}}`,
-    sum: `${ELECTRONS} = \\mu_{\\mathrm{H_2O},\\mathrm{f}} + \\mu_{\\mathrm{CO_2},\\mathrm{f}} - \\mu_{\\mathrm{H_2},\\mathrm{f}} - \\tfrac{1}{2}\\,\\mu_{\\mathrm{O_2},\\mathrm{a}} - \\mu_{\\mathrm{CO_2},\\mathrm{a}}`,
-    overall: '\\mathrm{H_2} + \\tfrac{1}{2}\\,\\mathrm{O_2} + \\mathrm{CO_{2}}_{,\\mathrm{a}} \\rightarrow \\mathrm{H_2O} + \\mathrm{CO_{2}}_{,\\mathrm{f}}',
-    waterElectrode: 'f',
-    quotient: [
-      { species: 'H2', electrode: 'f', power: 1, water: false },
-      { species: 'O2', electrode: 'a', power: 0.5, water: false },
-      { species: 'CO2', electrode: 'a', power: 1, water: false },
-      { species: 'H2O', electrode: 'f', power: -1, water: true },
-      { species: 'CO2', electrode: 'f', power: -1, water: false },
-    ],
-  },
-  hydroxide: {
-    ion: 'hydroxide',
-    ionName: 'hydroxide ion',
-    ionTex: '\\mathrm{OH^{-}}',
-    fuelReaction: '\\mathrm{H_2} + 2\\,\\mathrm{OH^{-}} \\rightleftharpoons 2\\,\\mathrm{H_2O} + 2\\,e^-',
-    airReaction: '\\tfrac{1}{2}\\,\\mathrm{O_2} + \\mathrm{H_2O} + 2\\,e^- \\rightleftharpoons 2\\,\\mathrm{OH^{-}}',
-    fuelBalance: `\\mu_{\\mathrm{H_2},\\mathrm{f}} + 2\\,\\tilde{\\mu}_{\\mathrm{OH^{-}}} = 2\\,\\mu_{\\mathrm{H_2O}} + 2\\,${E}`,
-    airBalance: `\\tfrac{1}{2}\\,\\mu_{\\mathrm{O_2},\\mathrm{a}} + \\mu_{\\mathrm{H_2O}} + 2\\,${EA} = 2\\,\\tilde{\\mu}_{\\mathrm{OH^{-}}}`,
-    sum: `${ELECTRONS} = \\mu_{\\mathrm{H_2O}} - \\mu_{\\mathrm{H_2},\\mathrm{f}} - \\tfrac{1}{2}\\,\\mu_{\\mathrm{O_2},\\mathrm{a}}`,
-    overall: HYDROGEN,
-    waterElectrode: 'f',
-    quotient: [
-      { species: 'H2', electrode: 'f', power: 1, water: false },
-      { species: 'O2', electrode: 'a', power: 0.5, water: false },
-    ],
-  },
-};
+/** A formula of the reactions, one-digit subscripts written bare: H2O → \mathrm{H_2O}. */
+const formula = (label: string) => `\\mathrm{${label.replace(/(\d)/g, '_$1')}}`;
+
+/** A coefficient before a species: none for 1, ½ as \tfrac{1}{2}, others as numbers. */
+const coefficient = (c: number) => (c === 1 ? '' : c === 0.5 ? '\\tfrac{1}{2}\\,' : `${c}\\,`);
+
+/** A species of the ion's reactions as a formula: the ion itself, or a gas or water. */
+const speciesTex = (e: Electrolyte, species: string) => (species === 'ion' ? `\\mathrm{${e.tex}}` : formula(species));
+
+/** The chemical potential of a species at an electrode (the ion's electrochemical one; electrolyte water's without an electrode). */
+function potential(e: Electrolyte, species: string, electrode: Electrode): string {
+  if (species === 'ion') return `\\tilde{\\mu}_{${speciesTex(e, species)}}`;
+  return isElectrodeGas(e, species) ? `\\mu_{${formula(species)},\\mathrm{${electrode}}}` : `\\mu_{${formula(species)}}`;
+}
+
+const side = (terms: ReactionTerm[], show: (species: string) => string, electrons: string | null) =>
+  [...terms.map((t) => `${coefficient(t.coefficient)}${show(t.species)}`), ...(electrons ? [electrons] : [])].join(' + ');
+
+/** One net term of the overall reaction: a species where it is (an electrode, or the electrolyte), and its net amount (+ formed, − consumed). */
+interface Net {
+  species: string;
+  electrode: Electrode | null;
+  amount: number;
+}
+
+/** The overall reaction, the ion cancelled and what one electrode forms and the other takes netted. */
+function overallTerms(e: Electrolyte): Net[] {
+  const net: Net[] = [];
+  const add = (terms: ReactionTerm[], electrode: Electrode, sign: 1 | -1) => {
+    for (const t of terms) {
+      if (t.species === 'ion') continue;
+      const where = isElectrodeGas(e, t.species) ? electrode : null;
+      const found = net.find((n) => n.species === t.species && n.electrode === where);
+      if (found) found.amount += sign * t.coefficient;
+      else net.push({ species: t.species, electrode: where, amount: sign * t.coefficient });
+    }
+  };
+  add(e.fuel.forms, 'f', 1);
+  add(e.air.forms, 'a', 1);
+  add(e.fuel.consumes, 'f', -1);
+  add(e.air.consumes, 'a', -1);
+  return net.filter((n) => n.amount !== 0);
+}
+
+/** 2(μ̃e,a − μ̃e,f) = Σ formed − Σ consumed, in chemical potentials. */
+function sumTex(e: Electrolyte, net: Net[]): string {
+  const mu = (n: Net) => `${coefficient(Math.abs(n.amount))}${n.electrode ? potential(e, n.species, n.electrode) : potential(e, n.species, 'f')}`;
+  const formed = net.filter((n) => n.amount > 0).map(mu).join(' + ');
+  const consumed = net.filter((n) => n.amount < 0).map((n) => ` - ${mu(n)}`).join('');
+  return `${ELECTRONS}\\left(${ELECTRON_POTENTIAL.a}-${ELECTRON_POTENTIAL.f}\\right) = ${formed}${consumed}`;
+}
+
+/** The overall reaction; a gas that stands at both electrodes (CO2 of the carbonate ion) is marked with its electrode. */
+function overallTex(net: Net[]): string {
+  const twice = (n: Net) => net.filter((m) => m.species === n.species).length > 1;
+  const show = (n: Net) => `${coefficient(Math.abs(n.amount))}${twice(n) ? `${texSpecies(n.species)}_{,\\mathrm{${n.electrode}}}` : formula(n.species)}`;
+  return `${net.filter((n) => n.amount < 0).map(show).join(' + ')} \\rightarrow ${net.filter((n) => n.amount > 0).map(show).join(' + ')}`;
+}
+
+const cache = new Map<Ion, ElectrodeReactions>();
 
 export function electrodeReactions(ion: Ion): ElectrodeReactions {
-  return TABLE[ion];
-}
-
-/** The quotient's terms that count for the cell: water terms drop out with liquid water. */
-export function activeQuotient(ion: Ion, waterPhase: 'gas' | 'liquid'): QuotientTerm[] {
-  return TABLE[ion].quotient.filter((t) => !(t.water && waterPhase === 'liquid'));
+  const cached = cache.get(ion);
+  if (cached) return cached;
+  const e = electrolyte(ion);
+  const net = overallTerms(e);
+  const show = (s: string) => speciesTex(e, s);
+  const reactions: ElectrodeReactions = {
+    ion,
+    ionName: e.name,
+    ionTex: `\\mathrm{${e.tex}}`,
+    fuelReaction: `${side(e.fuel.consumes, show, null)} \\rightleftharpoons ${side(e.fuel.forms, show, ELECTRONS_TEX)}`,
+    airReaction: `${side(e.air.consumes, show, ELECTRONS_TEX)} \\rightleftharpoons ${side(e.air.forms, show, null)}`,
+    fuelBalance: `${side(e.fuel.consumes, (s) => potential(e, s, 'f'), null)} = ${side(e.fuel.forms, (s) => potential(e, s, 'f'), `${ELECTRONS}\\,${ELECTRON_POTENTIAL.f}`)}`,
+    airBalance: `${side(e.air.consumes, (s) => potential(e, s, 'a'), `${ELECTRONS}\\,${ELECTRON_POTENTIAL.a}`)} = ${side(e.air.forms, (s) => potential(e, s, 'a'), null)}`,
+    sum: sumTex(e, net),
+    overall: overallTex(net),
+    waterElectrode: e.fuel.forms.some((t) => t.species === 'H2O') ? 'f' : 'a',
+  };
+  cache.set(ion, reactions);
+  return reactions;
 }

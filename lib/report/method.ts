@@ -8,7 +8,8 @@
  */
 import type { Results } from '../plant/results-schema.ts';
 import { EquationBook, type Equation } from './equation-book.ts';
-import { activeQuotient, electrodeReactions } from './electrode-reactions.ts';
+import { activeQuotient } from '../electrochem/electrolytes.ts';
+import { electrodeReactions } from './electrode-reactions.ts';
 import { quotientTex } from './nernst-tex.ts';
 import { prose, type Paragraph } from './prose.ts';
 

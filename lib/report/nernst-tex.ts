@@ -1,9 +1,9 @@
 /**
  * The Nernst pressure quotient of a cell as LaTeX: symbolic, with partial-pressure symbols, or
  * substituted, with this design's partial pressures in bar (p° = 1 bar, so each p/p° is the
- * number itself). The terms come from lib/report/electrode-reactions.ts.
+ * number itself). The terms come from the per-ion table, lib/electrochem/electrolytes.ts.
  */
-import type { QuotientTerm } from './electrode-reactions.ts';
+import type { QuotientTerm } from '../electrochem/electrolytes.ts';
 import { texPressure } from './tex.ts';
 
 function factor(term: QuotientTerm, base: string): string {

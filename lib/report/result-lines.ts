@@ -12,7 +12,7 @@ import { electronsPerMolecule } from '../electrochem/charge.ts';
 import { heatingValue } from '../plant/heating-values.ts';
 import { calcLine, type CalcLine, type LineSpec, type QuantitySpec } from './calc-line.ts';
 import type { EquationBook } from './equation-book.ts';
-import { activeQuotient } from './electrode-reactions.ts';
+import { activeQuotient } from '../electrochem/electrolytes.ts';
 import { quotientTex } from './nernst-tex.ts';
 import { texPressure } from './tex.ts';
 import { sectionNumber } from './outline.ts';

@@ -4,6 +4,7 @@
  * species label, which the basis loader has already matched against the species data and which
  * is checked here once more against a plain formula pattern, so no user text can enter KaTeX.
  */
+import type { Electrode } from '../electrochem/electrolytes.ts';
 import { texNumber, texTrimmed } from './format.ts';
 
 const FORMULA = /^[A-Z][A-Za-z0-9]*(\(L\)|\(gr\))?$/;
@@ -16,8 +17,6 @@ export function texSpecies(label: string): string {
   return `\\mathrm{${formula}${phase ? `(${phase[1] === 'L' ? 'l' : 'gr'})` : ''}}`;
 }
 
-/** The electrode marks of subscripts: f for the fuel electrode, a for the air electrode. */
-export type Electrode = 'f' | 'a';
 
 /** Partial pressure of a species at an electrode: p_{H2,f}. */
 export function texPressure(label: string, electrode: Electrode): string {
