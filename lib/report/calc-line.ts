@@ -1,10 +1,13 @@
 /**
- * One line of the results that a checker can redo by hand: the equation (cited by number from
- * the method) and, aligned under it, the same equation with this design's numbers put in (as
- * many digits as the numbers have, up to six) and the result with its unit, followed by where each number comes from. The raw numbers stay on the line (`inputs`,
- * `value`) so that tests can recompute each line and compare it with the results.
+ * One line of the results that a checker can redo by hand: a relation of an equation of the
+ * method (cited by number, taken from the equation table, equations.ts) and, aligned under it,
+ * the same relation with this design's numbers put in (as many digits as the numbers have, up to
+ * six) and the result with its unit, followed by where each number comes from. The raw numbers
+ * stay on the line (`inputs`, `value`) so that tests can recompute each line and compare it with
+ * the results.
  */
 import type { EquationBook } from './equation-book.ts';
+import { NUMBERS, symbolicRhs, symbolTex } from './equations.ts';
 import { formatNumber, formatPercent, formatTrimmed, texNumber } from './format.ts';
 import { renderTex } from './katex-render.ts';
 import { texValue } from './tex.ts';
@@ -34,11 +37,10 @@ export interface CalcLine {
   value: number;
 }
 
+/** A number a worked line puts into its relation: its name there (the equation table gives its symbol), value, unit and origin. */
 export interface QuantitySpec {
-  /** Name of the number in `inputs`. */
+  /** Name of the quantity in the relation (and in `inputs`). */
   name: string;
-  /** Its LaTeX symbol (ours). */
-  symbol: string;
   value: number;
   /** Unit of the number as substituted, a key of lib/report/units.ts ("J/mol"; "" for none). */
   unit: string;
@@ -49,16 +51,14 @@ export interface QuantitySpec {
 export interface LineSpec {
   id: string;
   title: string;
+  /** The equation (a key of the equation table, defined by the method) and which of its relations the line evaluates. */
   equation: string;
-  /** Left-hand side and right-hand side of the symbolic form. */
-  lhs: string;
-  rhs: string;
+  relation: string;
+  /** A left-hand side of the line's own, where it evaluates the relation at a point (E_in for E). */
+  lhs?: string;
   quantities: QuantitySpec[];
-  /**
-   * The right-hand side with numbers: receives each quantity's number as LaTeX by name
-   * (negative numbers in parentheses).
-   */
-  substitute: (n: Record<string, string>) => string;
+  /** A unit conversion written after the substituted right-hand side (× 1/3.6 × 10⁶ for kWh). */
+  conversion?: string;
   /** The result in the unit shown. */
   value: number;
   unit: string;
@@ -72,26 +72,35 @@ const SUBSTITUTION_DIGITS = 6;
 
 export function calcLine(spec: LineSpec, book: EquationBook): CalcLine {
   const equation = book.get(spec.equation);
+  const relation = equation.entry.relations[spec.relation];
+  if (!relation) throw new Error(`equation "${spec.equation}" has no relation "${spec.relation}" for the line ${spec.id}`);
   const numbers: Record<string, string> = {};
   const inputs: Record<string, number> = {};
   for (const q of spec.quantities) {
+    if (!relation.symbols[q.name]) throw new Error(`the line ${spec.id} gives ${q.name}, which the relation ${spec.equation}/${spec.relation} does not name`);
     numbers[q.name] = texValue(q.value, q.digits ?? SUBSTITUTION_DIGITS, true);
     inputs[q.name] = q.value;
   }
+  for (const name of Object.keys(relation.symbols)) if (numbers[name] === undefined) throw new Error(`the line ${spec.id} gives no number for ${name}`);
   const digits = spec.digits ?? 5;
   const percentTex = spec.percent ? ` = ${texNumber(spec.value * 100, 4)}\\,\\%` : '';
   const resultTex = `${texValue(spec.value, digits).replace(/^\((.*)\)$/, '$1')}${unitTex(spec.unit)}${percentTex}`;
+  const lhs = spec.lhs ?? symbolTex(relation.lhs, 'line');
+  const substituted = `${relation.rhs(numbers, NUMBERS)}${spec.conversion ?? ''}`;
   return {
     id: spec.id,
     title: spec.title,
     equation: { number: equation.number, anchor: equation.anchor },
-    math: renderTex(`\\begin{aligned} ${spec.lhs} &= ${spec.rhs} \\\\ &= ${spec.substitute(numbers)} = ${resultTex} \\end{aligned}`, true),
+    math: renderTex(`\\begin{aligned} ${lhs} &= ${symbolicRhs(relation, 'line')} \\\\ &= ${substituted} = ${resultTex} \\end{aligned}`, true),
     result: spec.percent ? formatPercent(spec.value) : `${formatNumber(spec.value, digits)}${spec.unit ? ` ${unitText(spec.unit)}` : ''}`,
-    quantities: spec.quantities.map((q) => ({
-      symbol: renderTex(q.symbol),
-      value: `${formatTrimmed(q.value, q.digits ?? SUBSTITUTION_DIGITS)}${q.unit ? ` ${unitText(q.unit)}` : ''}`,
-      origin: q.origin,
-    })),
+    quantities: spec.quantities.map((q) => {
+      const symbol = relation.symbols[q.name]!;
+      return {
+        symbol: renderTex(symbol.listed ?? symbolTex(symbol, 'line')),
+        value: `${formatTrimmed(q.value, q.digits ?? SUBSTITUTION_DIGITS)}${q.unit ? ` ${unitText(q.unit)}` : ''}`,
+        origin: q.origin,
+      };
+    }),
     note: spec.note ?? '',
     inputs,
     value: spec.value,

@@ -1,9 +1,11 @@
 /**
  * The numbered equations of one document. The method section defines each equation once, in
- * reading order, under a key; the results cite it by key and get its number ("from Eq. 7") and
- * its anchor. Defining a key twice or citing one never defined is a fault of the view model and
+ * reading order, from its entry of the equation table (equations.ts); the results cite it by key
+ * and get its number ("from Eq. 7"), its anchor and its relations, which their worked lines
+ * evaluate. Defining a key twice or citing one never defined is a fault of the view model and
  * throws, so a document can never show a dangling equation reference.
  */
+import type { EquationEntry } from './equations.ts';
 import { renderTex } from './katex-render.ts';
 import type { TrustedHtml } from './trusted-html.ts';
 
@@ -13,15 +15,17 @@ export interface Equation {
   /** Anchor id of the equation in the page: eq-7. */
   anchor: string;
   html: TrustedHtml;
+  entry: EquationEntry;
 }
 
 export class EquationBook {
   readonly #byKey = new Map<string, Equation>();
 
-  define(key: string, tex: string): Equation {
+  define(entry: EquationEntry): Equation {
+    const { key } = entry;
     if (this.#byKey.has(key)) throw new Error(`equation "${key}" is defined twice`);
     const number = this.#byKey.size + 1;
-    const equation = { key, number, anchor: `eq-${number}`, html: renderTex(tex, true) };
+    const equation = { key, number, anchor: `eq-${number}`, html: renderTex(entry.display(), true), entry };
     this.#byKey.set(key, equation);
     return equation;
   }

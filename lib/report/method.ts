@@ -8,9 +8,8 @@
  */
 import type { Results } from '../plant/results-schema.ts';
 import { EquationBook, type Equation } from './equation-book.ts';
-import { activeQuotient } from '../electrochem/electrolytes.ts';
 import { electrodeReactions } from './electrode-reactions.ts';
-import { quotientTex } from './nernst-tex.ts';
+import { equationTable, type EquationEntry } from './equations.ts';
 import { prose, type Paragraph } from './prose.ts';
 
 export type MethodBlock = { kind: 'paragraph'; paragraph: Paragraph } | { kind: 'equation'; equation: Equation };
@@ -22,18 +21,23 @@ export interface MethodStep {
   blocks: MethodBlock[];
 }
 
-/** Collects the blocks of one step: text and numbered equations in reading order. */
+/** Collects the blocks of one step: text and numbered equations (from the equation table) in reading order. */
 class Step {
   readonly blocks: MethodBlock[] = [];
-  constructor(private readonly book: EquationBook) {}
+  constructor(
+    private readonly book: EquationBook,
+    private readonly table: ReadonlyMap<string, EquationEntry>,
+  ) {}
 
   text(source: string): this {
     this.blocks.push({ kind: 'paragraph', paragraph: prose(source) });
     return this;
   }
 
-  eq(key: string, tex: string): this {
-    this.blocks.push({ kind: 'equation', equation: this.book.define(key, tex) });
+  eq(key: string): this {
+    const entry = this.table.get(key);
+    if (!entry) throw new Error(`the equation table has no equation "${key}" for these results`);
+    this.blocks.push({ kind: 'equation', equation: this.book.define(entry) });
     return this;
   }
 }
@@ -49,14 +53,14 @@ function equilibrium(step: Step, r: Results): void {
     .text(
       'At equilibrium (no net current) each reaction balances the electrochemical potentials $\\tilde{\\mu} = \\mu + zF\\phi$ of what it consumes and what it forms; a neutral gas has $\\tilde{\\mu} = \\mu$. The ion is free to move through the electrolyte, so with no net driving force its electrochemical potential is the same at both interfaces:',
     )
-    .eq('fuel-balance', reactions.fuelBalance)
-    .eq('air-balance', reactions.airBalance)
+    .eq('fuel-balance')
+    .eq('air-balance')
     .text('Adding the two balances eliminates the ion:')
-    .eq('balance-sum', reactions.sum)
+    .eq('balance-sum')
     .text(
       `The right-hand side is the Gibbs energy change $\\Delta G$ of $${reactions.overall}$ at the actual gas states. Both electrodes are joined to the external circuit through the same metal, so the chemical potential of the electrons cancels and $\\tilde{\\mu}_{e^-,\\mathrm{a}} - \\tilde{\\mu}_{e^-,\\mathrm{f}} = -F(\\phi_\\mathrm{a} - \\phi_\\mathrm{f}) = -FE$, with $E$ the potential of the air electrode against the fuel electrode. Hence`,
     )
-    .eq('gibbs-voltage', '\\Delta G = -2\\,F\\,E \\qquad\\Longleftrightarrow\\qquad E = -\\frac{\\Delta G}{2\\,F}')
+    .eq('gibbs-voltage')
     .text(
       power
         ? 'Two electrons pass per molecule of hydrogen. A positive $E$ drives current from the fuel electrode through the load to the air electrode.'
@@ -67,18 +71,17 @@ function equilibrium(step: Step, r: Results): void {
 function nernst(step: Step, r: Results): void {
   const reactions = electrodeReactions(r.technology.ion);
   const liquid = r.technology.waterPhase === 'liquid';
-  const terms = activeQuotient(r.technology.ion, r.technology.waterPhase);
   step
     .text(
       'For ideal gases the chemical potential of each species is its standard value at the cell temperature plus a pressure term, with $p^\\circ = 1\\,\\mathrm{bar}$ the standard pressure of the species data:',
     )
-    .eq('chemical-potential', '\\mu_i = \\mu_i^\\circ(T) + R\\,T\\,\\ln\\frac{p_i}{p^\\circ}')
+    .eq('chemical-potential')
     .text(
       liquid
         ? 'The cell runs with liquid water, whose activity is 1: its chemical potential is the standard one of liquid water, so no water pressure appears and $E^\\circ$ is that of liquid water. Putting the chemical potentials into Eq. {{gibbs-voltage}} gives the Nernst equation of this cell, each pressure in bar:'
         : `Putting the chemical potentials into Eq. {{gibbs-voltage}} gives the Nernst equation of this cell, each pressure in bar (water ${reactions.waterElectrode === 'f' ? 'at the fuel electrode' : 'at the air electrode'}, where the ${reactions.ionName} reaction forms it):`,
     )
-    .eq('nernst', `E = E^\\circ(T) + \\frac{R\\,T}{2\\,F}\\,\\ln ${quotientTex(terms)}, \\qquad E^\\circ(T) = -\\frac{\\Delta G^\\circ(T)}{2\\,F}`);
+    .eq('nernst');
   if (r.technology.ion === 'carbonate') {
     step.text(
       'Carbon dioxide appears on both sides: the air electrode consumes it and the fuel electrode releases it, so a molten carbonate plant returns fuel-side $\\mathrm{CO_2}$ to the air electrode, and both partial pressures count.',
@@ -95,17 +98,16 @@ function temperature(step: Step, r: Results): void {
     .text(
       'The standard enthalpy and entropy of each species at temperature $T$ come from its NASA 9-coefficient polynomials (McBride, Zehe and Gordon, NASA/TP-2002-211556), with the coefficients $a_1 \\ldots a_7$, $b_1$, $b_2$ of the temperature interval that contains $T$:',
     )
-    .eq('nasa-h', '\\frac{h_i^\\circ(T)}{R\\,T} = -\\frac{a_1}{T^2} + \\frac{a_2\\ln T}{T} + a_3 + \\frac{a_4 T}{2} + \\frac{a_5 T^2}{3} + \\frac{a_6 T^3}{4} + \\frac{a_7 T^4}{5} + \\frac{b_1}{T}')
-    .eq('nasa-s', '\\frac{s_i^\\circ(T)}{R} = -\\frac{a_1}{2\\,T^2} - \\frac{a_2}{T} + a_3\\ln T + a_4 T + \\frac{a_5 T^2}{2} + \\frac{a_6 T^3}{3} + \\frac{a_7 T^4}{4} + b_2')
+    .eq('nasa-h')
+    .eq('nasa-s')
     .text(`The enthalpies include the heat of formation at 298.15 K. For $\\mathrm{H_2} + \\tfrac{1}{2}\\mathrm{O_2} \\rightarrow ${water}$ with stoichiometric numbers $\\nu_i$:`)
-    .eq('reaction-properties', '\\Delta H^\\circ(T) = \\sum_i \\nu_i\\, h_i^\\circ(T), \\qquad \\Delta S^\\circ(T) = \\sum_i \\nu_i\\, s_i^\\circ(T), \\qquad \\Delta G^\\circ(T) = \\Delta H^\\circ(T) - T\\,\\Delta S^\\circ(T)')
+    .eq('reaction-properties')
     .text('The standard reversible voltage and the thermoneutral voltage, at which the electric work equals the whole enthalpy of reaction and the cell neither releases nor absorbs heat, follow as')
-    .eq('standard-voltages', 'E^\\circ(T) = -\\frac{\\Delta H^\\circ(T) - T\\,\\Delta S^\\circ(T)}{2\\,F}, \\qquad V_\\mathrm{tn}(T) = -\\frac{\\Delta H^\\circ(T)}{2\\,F}');
+    .eq('standard-voltages');
 }
 
 function fuelPath(step: Step, r: Results): void {
   const power = r.technology.mode === 'power';
-  const u = power ? 'U_\\mathrm{f}' : 'X';
   step.text(
     power
       ? 'Along the cell the fuel is used up: at a fraction $u$ of the fuel utilization $U_\\mathrm{f}$ the electrolyte has carried the charge $u\\,Q_1$, moving what its ion carries from one gas to the other, and the local Nernst voltage of Eq. {{nernst}} falls from inlet to outlet.'
@@ -123,7 +125,7 @@ function fuelPath(step: Step, r: Results): void {
   }
   step
     .text('The cell, a co-flow stack at one voltage, draws its current where the local driving force allows; the voltage that sets its operating point is the charge average of the local Nernst voltage:')
-    .eq('mean-nernst', `\\bar{E} = \\frac{1}{${u}}\\int_0^{${u}} E(u)\\,\\mathrm{d}u`)
+    .eq('mean-nernst')
     .text('The integral is evaluated numerically on the fuel-path grid: the trapezoidal rule on intervals refined until E changes by less than 1 mV across each, and the logarithmic form of E near an inlet that carries no product.');
 }
 
@@ -134,11 +136,11 @@ function voltage(step: Step, r: Results): void {
       .text(
         'A mixed conductor leaks electrons, lowering the open-circuit voltage by its ionic transference number $t_\\mathrm{ion}$, and gas crossover lowers it further by the allowance $\\Delta V_x$ of the basis:',
       )
-      .eq('open-circuit', 'E_\\mathrm{oc} = t_\\mathrm{ion}\\,E_\\mathrm{in} - \\Delta V_x')
+      .eq('open-circuit')
       .text('Under load, the losses of the cell are lumped into one area-specific resistance ASR at the current density $j$:')
-      .eq('cell-voltage', 'V = t_\\mathrm{ion}\\,\\bar{E} - \\Delta V_x - j\\,\\mathrm{ASR}');
+      .eq('cell-voltage');
   } else {
-    step.text('In electrolysis the cell is driven above the mean Nernst voltage by the losses, lumped into one area-specific resistance ASR at the current density $j$:').eq('cell-voltage', 'V = \\bar{E} + j\\,\\mathrm{ASR}');
+    step.text('In electrolysis the cell is driven above the mean Nernst voltage by the losses, lumped into one area-specific resistance ASR at the current density $j$:').eq('cell-voltage');
   }
   step.text(
     r.electrochemistry.voltageSource === 'given'
@@ -151,27 +153,27 @@ function faraday(step: Step, r: Results): void {
   const power = r.technology.mode === 'power';
   step
     .text('The current of one cell of active area $A$ and of the stack of $N$ cells, each carrying the same current, and the stack power are')
-    .eq('current', 'I_\\mathrm{cell} = j\\,A, \\qquad I = N\\,I_\\mathrm{cell}, \\qquad P = N\\,V\\,I_\\mathrm{cell} = V\\,I');
+    .eq('current');
   if (r.operatingPoint.cellsFrom === 'power') {
     step
       .text(power ? 'The cell count is the least whole number that delivers the target net power after the balance-of-plant share $f_\\mathrm{par}$:' : 'The cell count is the least whole number that takes the target power input:')
-      .eq('cells', power ? 'N = \\left\\lceil \\frac{P_\\mathrm{target}}{V\\,I_\\mathrm{cell}\\,(1 - f_\\mathrm{par})} \\right\\rceil' : 'N = \\left\\lceil \\frac{P_\\mathrm{target}}{V\\,I_\\mathrm{cell}} \\right\\rceil');
+      .eq('cells');
   } else if (r.operatingPoint.cellsFrom === 'hydrogen') {
-    step.text('The cell count is the least whole number that produces the target hydrogen flow, $\\dot m_\\mathrm{cell}$ being the hydrogen one cell makes:').eq('cells', 'N = \\left\\lceil \\frac{\\dot m_\\mathrm{target}}{\\dot m_\\mathrm{cell}} \\right\\rceil');
+    step.text('The cell count is the least whole number that produces the target hydrogen flow, $\\dot m_\\mathrm{cell}$ being the hydrogen one cell makes:').eq('cells');
   }
   if (power) {
     step
       .text(
         "By Faraday's law the current consumes fuel in proportion to the charge its complete oxidation gives up: $z_i = 4n_\\mathrm{C} + n_\\mathrm{H} - 2n_\\mathrm{O}$ electrons per molecule (8 for $\\mathrm{CH_4}$, 2 for $\\mathrm{H_2}$ and $\\mathrm{CO}$). The charge $Q_1$ of the whole fuel feed and the fuel utilization are",
       )
-      .eq('charge-basis', 'Q_1 = F \\sum_i \\dot n_i\\, z_i = F\\,\\dot n_\\mathrm{fuel}\\,\\bar{z}, \\qquad U_\\mathrm{f} = \\frac{I}{Q_1} \\quad\\Longrightarrow\\quad \\dot n_\\mathrm{fuel} = \\frac{I}{U_\\mathrm{f}\\,F\\,\\bar{z}}')
+      .eq('charge-basis')
       .text('with $\\bar{z} = \\sum_i x_i z_i$ over the dry fuel. Oxygen is consumed at four electrons per molecule, and the air follows from its oxygen fraction and the air utilization:')
-      .eq('oxygen', '\\dot n_\\mathrm{O_2} = \\frac{I}{4\\,F}, \\qquad \\dot n_\\mathrm{air} = \\frac{\\dot n_\\mathrm{O_2}}{x_\\mathrm{O_2}\\,U_\\mathrm{air}}')
-      .eq('net-power', 'P_\\mathrm{net} = P\\,(1 - f_\\mathrm{par})');
+      .eq('oxygen')
+      .eq('net-power');
   } else {
     step
       .text("By Faraday's law every two electrons split one molecule of water (or of carbon dioxide, in co-electrolysis), so the products and the conversion of the feed are")
-      .eq('production', '\\dot n_\\mathrm{H_2} + \\dot n_\\mathrm{CO} = \\frac{I}{2\\,F}, \\qquad \\dot n_\\mathrm{O_2} = \\frac{I}{4\\,F}, \\qquad X = \\frac{I}{Q_1}, \\quad Q_1 = 2\\,F\\,(\\dot n_\\mathrm{H_2O} + \\dot n_\\mathrm{CO_2})');
+      .eq('production');
   }
 }
 
@@ -179,17 +181,17 @@ function efficiency(step: Step, r: Results): void {
   if (r.technology.mode === 'power') {
     step
       .text('The electrical efficiency relates the net power to the fuel fed, on its lower (LHV) and higher (HHV) heating value at 25 °C:')
-      .eq('eff-electrical', '\\eta_\\mathrm{el} = \\frac{P_\\mathrm{net}}{\\dot n_\\mathrm{fuel}\\,\\mathrm{LHV}}')
+      .eq('eff-electrical')
       .text('No cell can turn more than the Gibbs energy of the fuel into work. The thermodynamic limit at the cell temperature, with $\\Delta G_\\mathrm{fuel}(T)$ of the complete oxidation of the actual fuel, and the voltage efficiency are')
-      .eq('eff-limit', '\\eta_\\mathrm{max} = \\frac{-\\Delta G_\\mathrm{fuel}(T)}{\\mathrm{LHV}}, \\qquad \\eta_V = \\frac{V}{\\bar{E}}')
+      .eq('eff-limit')
       .text('For comparison only (a fuel cell is not a heat engine), the Carnot efficiency between the cell temperature and the ambient temperature $T_0$ is')
-      .eq('eff-carnot', '\\eta_\\mathrm{C} = 1 - \\frac{T_0}{T}');
+      .eq('eff-carnot');
   } else {
     step
       .text('The specific electric energy and the efficiency on the heating value of the hydrogen made, with $M_\\mathrm{H_2}$ its molar mass, are')
-      .eq('specific-energy', 'w = \\frac{P}{\\dot n_\\mathrm{H_2}\\,M_\\mathrm{H_2}}, \\qquad \\eta_\\mathrm{LHV} = \\frac{\\dot n_\\mathrm{H_2}\\,\\mathrm{LHV_{H_2}}}{P}')
+      .eq('specific-energy')
       .text('and the voltage efficiency, the share of the electric work that the reversible process would need, is')
-      .eq('eff-voltage', '\\eta_V = \\frac{\\bar{E}}{V}');
+      .eq('eff-voltage');
   }
 }
 
@@ -199,26 +201,21 @@ function heat(step: Step, r: Results): void {
     .text(
       'The heat the stack releases follows from an energy balance over it, with every stream at the stack temperature (the isothermal boundary on which cooling is sized) and the enthalpies of the species data, heats of formation included, so that reforming and shift inside the stack are accounted for:',
     )
-    .eq('heat-balance', 'Q = \\sum_\\mathrm{in} \\dot n_i\\, h_i(T) - \\sum_\\mathrm{out} \\dot n_i\\, h_i(T) + W_\\mathrm{in}, \\qquad W_\\mathrm{in} = ' + (power ? '-P' : '+P'))
+    .eq('heat-balance')
     .text('Dividing the enthalpy the reactions release by the current gives the effective thermoneutral voltage of the actual gases, and the heat in terms of voltages:')
-    .eq(
-      'heat-voltage',
-      power
-        ? 'V_\\mathrm{tn,eff} = \\frac{H_\\mathrm{in} - H_\\mathrm{out}}{I}, \\qquad Q = I\\,\\left(V_\\mathrm{tn,eff} - V\\right)'
-        : 'V_\\mathrm{tn,eff} = \\frac{H_\\mathrm{out} - H_\\mathrm{in}}{I}, \\qquad Q = I\\,\\left(V - V_\\mathrm{tn,eff}\\right)',
-    )
+    .eq('heat-voltage')
     .text(power ? 'A positive $Q$ must be removed from the stack.' : 'A positive $Q$ must be removed; a negative one (operation below the thermoneutral voltage) must be supplied to hold the stack temperature.');
   if (r.heat.coolingAir_mol_per_s !== null) {
-    step.text('Where air cools the stack, the air needed to carry the heat with an allowed temperature rise $\\Delta T$ (leaving at the stack temperature) is').eq('cooling-air', '\\dot n_\\mathrm{air,cool} = \\frac{Q}{h_\\mathrm{air}(T) - h_\\mathrm{air}(T - \\Delta T)}');
+    step.text('Where air cools the stack, the air needed to carry the heat with an allowed temperature rise $\\Delta T$ (leaving at the stack temperature) is').eq('cooling-air');
   }
 }
 
 function carbon(step: Step): void {
   step
     .text('Carbon can deposit where the fuel-electrode gas has a carbon activity above 1 relative to graphite. For a gas at equilibrium the Boudouard and cracking equilibria give the same activity:')
-    .eq('carbon-activity', 'a_\\mathrm{C} = K_\\mathrm{B}\\,\\frac{p_\\mathrm{CO}^2}{p_\\mathrm{CO_2}} = K_\\mathrm{M}\\,\\frac{p_\\mathrm{CH_4}}{p_\\mathrm{H_2}^2}, \\qquad K = \\exp\\left(-\\frac{\\Delta G^\\circ}{R\\,T}\\right)')
+    .eq('carbon-activity')
     .text('The least steam-to-carbon ratio that keeps the equilibrated feed below $a_\\mathrm{C} = 1$ is found by root finding at the stack temperature and, with a pre-reformer, at its temperature; the margin of the design is')
-    .eq('carbon-margin', '\\Delta(S/C) = (S/C)_\\mathrm{design} - \\max\\left[(S/C)_\\mathrm{min,stack},\\ (S/C)_\\mathrm{min,pre}\\right]');
+    .eq('carbon-margin');
 }
 
 /** Replaces {{key}} in a step's text with the equation number (our own markers in our own text). */
@@ -250,8 +247,9 @@ export function methodSection(r: Results, book: EquationBook, sectionNumber: num
     ['method-heat', 'Heat', (s) => heat(s, r)],
   ];
   if (hasCarbon(r)) parts.push(['method-carbon', 'Carbon deposition', (s) => carbon(s)]);
+  const table = equationTable(r);
   const steps = parts.map(([id, title, fill], i) => {
-    const step = new Step(book);
+    const step = new Step(book, table);
     fill(step);
     return { id, number: `${sectionNumber}.${i + 1}`, title, blocks: step.blocks };
   });

@@ -11,22 +11,12 @@ function factor(term: QuotientTerm, base: string): string {
 }
 
 /**
- * `\frac{numerator}{denominator}` (or the numerator alone) of the terms, each shown by `show`:
- * symbols side by side, numbers (`times`) with a multiplication sign between them, so that two
- * partial pressures never read as one number.
+ * `\frac{numerator}{denominator}` (or the numerator alone) of the terms, each shown by `show`
+ * and joined by `times`: symbols side by side (a thin space), numbers with a multiplication sign
+ * between them, so that two partial pressures never read as one number.
  */
-export function quotientTex(
-  terms: readonly QuotientTerm[],
-  show: (term: QuotientTerm) => string = (t) => texPressure(t.species, t.electrode),
-  { times = false }: { times?: boolean } = {},
-): string {
+export function quotientTex(terms: readonly QuotientTerm[], show: (term: QuotientTerm) => string = (t) => texPressure(t.species, t.electrode), times = '\\,'): string {
   const top = terms.filter((t) => t.power > 0).map((t) => factor(t, show(t)));
   const bottom = terms.filter((t) => t.power < 0).map((t) => factor(t, show(t)));
-  const join = (list: string[]) => list.join(times ? '\\times' : '\\,');
-  return bottom.length ? `\\frac{${join(top)}}{${join(bottom)}}` : join(top);
-}
-
-/** ln of the quotient from partial pressures in bar (the same arithmetic as lib/electrochem/nernst.ts). */
-export function lnQuotient(terms: readonly QuotientTerm[], pressure: (term: QuotientTerm) => number): number {
-  return terms.reduce((sum, t) => sum + t.power * Math.log(pressure(t)), 0);
+  return bottom.length ? `\\frac{${top.join(times)}}{${bottom.join(times)}}` : top.join(times);
 }

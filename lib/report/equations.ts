@@ -1,0 +1,286 @@
+/**
+ * The equation table: every numbered equation of a document, once. An entry is what the method
+ * section displays (`display`) and, for the equations the results work through, its relations:
+ * a left-hand side and a right-hand side written once over named quantities. The method shows a
+ * relation with its symbols; a worked line of section 6 shows the same relation with the symbols
+ * of the line, then with this design's numbers put in (the same function, given numbers and a
+ * multiplication sign where the symbols stand side by side), and the result. So the definition,
+ * the substitution and the result of a line can never disagree with the method.
+ *
+ * The entries depend on the design only where its equations do: the electrolyte (the electrode
+ * reactions and the Nernst quotient of lib/electrochem/electrolytes.ts), the mode (the signs of
+ * the voltage and heat equations) and what sets the cell count.
+ */
+import { activeQuotient, type QuotientTerm } from '../electrochem/electrolytes.ts';
+import type { Results } from '../plant/results-schema.ts';
+import { electrodeReactions } from './electrode-reactions.ts';
+import { quotientTex } from './nernst-tex.ts';
+import { texPressure } from './tex.ts';
+
+/** How the quantities of a right-hand side are joined: the method's symbols, or a worked line's numbers. */
+export interface Ops {
+  /** Between two factors: a thin space between symbols, × between numbers. */
+  times: string;
+  /** Parentheses around a factor: sized to their content between symbols, plain between numbers. */
+  open: string;
+  close: string;
+}
+
+export const SYMBOLS: Ops = { times: '\\,', open: '\\left(', close: '\\right)' };
+export const NUMBERS: Ops = { times: '\\times', open: '(', close: ')' };
+
+/** A symbol: its LaTeX; `ofT` where the method writes it as a function of temperature (ΔH°(T)); `listed` where a worked line names the number by a shorter symbol than the equation writes out. */
+export interface Symbol {
+  tex: string;
+  ofT?: boolean;
+  listed?: string;
+}
+
+export interface Relation {
+  lhs: Symbol;
+  /** The quantities the right-hand side names, by name. */
+  symbols: Record<string, Symbol>;
+  rhs: (q: Record<string, string>, op: Ops) => string;
+}
+
+export interface EquationEntry {
+  key: string;
+  relations: Record<string, Relation>;
+  /** The equation as the method displays it (its relations in their method form, and any text around them). */
+  display: () => string;
+}
+
+/** Writes a relation of an entry in its method form: `lhs = rhs`, or the right-hand side alone. */
+type Show = (name: string, part?: 'relation' | 'rhs') => string;
+
+/** A symbol as the method writes it, or as a worked line does (at this design's temperature: ΔH°, not ΔH°(T)). */
+export function symbolTex(s: Symbol, form: 'method' | 'line'): string {
+  return form === 'method' && s.ofT ? `${s.tex}(T)` : s.tex;
+}
+
+/** The right-hand side of a relation in symbols. */
+export function symbolicRhs(relation: Relation, form: 'method' | 'line'): string {
+  return relation.rhs(Object.fromEntries(Object.entries(relation.symbols).map(([name, s]) => [name, symbolTex(s, form)])), SYMBOLS);
+}
+
+/** `lhs = rhs` as the method writes it. */
+export function methodForm(relation: Relation): string {
+  return `${symbolTex(relation.lhs, 'method')} = ${symbolicRhs(relation, 'method')}`;
+}
+
+const sym = (tex: string, more: Omit<Symbol, 'tex'> = {}): Symbol => ({ tex, ...more });
+const F = sym('F');
+const T = sym('T');
+
+/** An entry the results do not work through: a fixed display. */
+const shown = (key: string, tex: string): EquationEntry => ({ key, relations: {}, display: () => tex });
+
+/** An entry whose display is its relations in the method's form: as `display` writes them, else side by side, separated by \qquad. */
+function entry(key: string, relations: Record<string, Relation>, display?: (show: Show) => string): EquationEntry {
+  const show: Show = (name, part = 'relation') => (part === 'rhs' ? symbolicRhs(relations[name]!, 'method') : methodForm(relations[name]!));
+  return { key, relations, display: () => (display ? display(show) : Object.keys(relations).map((name) => show(name)).join(', \\qquad ')) };
+}
+
+/** The equilibrium at the electrodes: the potential balances of the electrolyte's reactions, their sum, ΔG = −2FE. */
+function electrodeEquations(r: Results): EquationEntry[] {
+  const reactions = electrodeReactions(r.technology.ion);
+  return [
+    shown('fuel-balance', reactions.fuelBalance),
+    shown('air-balance', reactions.airBalance),
+    shown('balance-sum', reactions.sum),
+    shown('gibbs-voltage', '\\Delta G = -2\\,F\\,E \\qquad\\Longleftrightarrow\\qquad E = -\\frac{\\Delta G}{2\\,F}'),
+    shown('chemical-potential', '\\mu_i = \\mu_i^\\circ(T) + R\\,T\\,\\ln\\frac{p_i}{p^\\circ}'),
+  ];
+}
+
+/** The name of the partial pressure a quotient term substitutes: p_H2_f. */
+export const pressureName = (t: QuotientTerm) => `p_${t.species}_${t.electrode}`;
+
+/** The Nernst equation of this cell: its quotient from the electrolyte's reactions, water terms dropped with liquid water. */
+function nernstEquation(r: Results): EquationEntry {
+  const terms = activeQuotient(r.technology.ion, r.technology.waterPhase);
+  const pressures = Object.fromEntries(terms.map((t) => [pressureName(t), sym(texPressure(t.species, t.electrode))]));
+  const E0 = sym('E^\\circ', { ofT: true });
+  return entry(
+    'nernst',
+    {
+      voltage: {
+        lhs: sym('E'),
+        symbols: { E0, R: sym('R'), T, F, ...pressures },
+        rhs: (q, op) => `${q.E0} + \\frac{${q.R}${op.times}${q.T}}{2${op.times}${q.F}}\\,\\ln ${quotientTex(terms, (t) => q[pressureName(t)]!, op.times)}`,
+      },
+      standard: { lhs: E0, symbols: { dG: sym('\\Delta G^\\circ', { ofT: true }), F }, rhs: (q, op) => `-\\frac{${q.dG}}{2${op.times}${q.F}}` },
+    },
+  );
+}
+
+/** Properties of the species and of the hydrogen reaction from the NASA polynomials. */
+function temperatureEquations(): EquationEntry[] {
+  const dH = sym('\\Delta H^\\circ', { ofT: true });
+  return [
+    shown('nasa-h', '\\frac{h_i^\\circ(T)}{R\\,T} = -\\frac{a_1}{T^2} + \\frac{a_2\\ln T}{T} + a_3 + \\frac{a_4 T}{2} + \\frac{a_5 T^2}{3} + \\frac{a_6 T^3}{4} + \\frac{a_7 T^4}{5} + \\frac{b_1}{T}'),
+    shown('nasa-s', '\\frac{s_i^\\circ(T)}{R} = -\\frac{a_1}{2\\,T^2} - \\frac{a_2}{T} + a_3\\ln T + a_4 T + \\frac{a_5 T^2}{2} + \\frac{a_6 T^3}{3} + \\frac{a_7 T^4}{4} + b_2'),
+    shown('reaction-properties', '\\Delta H^\\circ(T) = \\sum_i \\nu_i\\, h_i^\\circ(T), \\qquad \\Delta S^\\circ(T) = \\sum_i \\nu_i\\, s_i^\\circ(T), \\qquad \\Delta G^\\circ(T) = \\Delta H^\\circ(T) - T\\,\\Delta S^\\circ(T)'),
+    entry('standard-voltages', {
+      reversible: { lhs: sym('E^\\circ', { ofT: true }), symbols: { dH, T, dS: sym('\\Delta S^\\circ', { ofT: true }), F }, rhs: (q, op) => `-\\frac{${q.dH} - ${q.T}${op.times}${q.dS}}{2${op.times}${q.F}}` },
+      thermoneutral: { lhs: sym('V_\\mathrm{tn}', { ofT: true }), symbols: { dH, F }, rhs: (q, op) => `-\\frac{${q.dH}}{2${op.times}${q.F}}` },
+    }),
+  ];
+}
+
+/** The mean Nernst voltage along the fuel path and the cell voltage. */
+function voltageEquations(r: Results): EquationEntry[] {
+  const power = r.technology.mode === 'power';
+  const U = sym(power ? 'U_\\mathrm{f}' : 'X');
+  const [t, E, dV, j, ASR, V] = [sym('t_\\mathrm{ion}'), sym('\\bar{E}'), sym('\\Delta V_x'), sym('j'), sym('\\mathrm{ASR}'), sym('V')];
+  const cell: Record<string, Relation> = power
+    ? {
+        voltage: { lhs: V, symbols: { t, E, dV, j, ASR }, rhs: (q, op) => `${q.t}${op.times}${q.E} - ${q.dV} - ${q.j}${op.times}${q.ASR}` },
+        resistance: { lhs: ASR, symbols: { t, E, dV, V, j }, rhs: (q, op) => `\\frac{${q.t}${op.times}${q.E} - ${q.dV} - ${q.V}}{${q.j}}` },
+      }
+    : {
+        voltage: { lhs: V, symbols: { E, j, ASR }, rhs: (q, op) => `${q.E} + ${q.j}${op.times}${q.ASR}` },
+        resistance: { lhs: ASR, symbols: { V, E, j }, rhs: (q) => `\\frac{${q.V} - ${q.E}}{${q.j}}` },
+      };
+  return [
+    entry('mean-nernst', { mean: { lhs: E, symbols: { U }, rhs: (q) => `\\frac{1}{${q.U}}\\int_0^{${q.U}} E(u)\\,\\mathrm{d}u` } }),
+    ...(power ? [entry('open-circuit', { open: { lhs: sym('E_\\mathrm{oc}'), symbols: { t, Ein: sym('E_\\mathrm{in}'), dV }, rhs: (q, op) => `${q.t}${op.times}${q.Ein} - ${q.dV}` } })] : []),
+    entry('cell-voltage', cell, (show) => show('voltage')),
+  ];
+}
+
+/** Current, cell count, and the flows by Faraday's law. */
+function faradayEquations(r: Results): EquationEntry[] {
+  const power = r.technology.mode === 'power';
+  const [j, A, N, V, I, Icell, f, Q1, Uf, Fz] = ['j', 'A', 'N', 'V', 'I', 'I_\\mathrm{cell}', 'f_\\mathrm{par}', 'Q_1', 'U_\\mathrm{f}', '\\bar{z}'].map((s) => sym(s)) as Symbol[];
+  const P = sym('P');
+  const oxygen: Relation = { lhs: sym('\\dot n_\\mathrm{O_2}'), symbols: { I: I!, F }, rhs: (q, op) => `\\frac{${q.I}}{4${op.times}${q.F}}` };
+  const out: EquationEntry[] = [
+    entry(
+      'current',
+      {
+        cell: { lhs: Icell!, symbols: { j: j!, A: A! }, rhs: (q, op) => `${q.j}${op.times}${q.A}` },
+        stack: { lhs: I!, symbols: { N: N!, Icell: Icell! }, rhs: (q, op) => `${q.N}${op.times}${q.Icell}` },
+        power: { lhs: P, symbols: { V: V!, I: I! }, rhs: (q, op) => `${q.V}${op.times}${q.I}` },
+      },
+      (show) => `${show('cell')}, \\qquad ${show('stack')}, \\qquad P = N\\,V\\,I_\\mathrm{cell} = ${show('power', 'rhs')}`,
+    ),
+  ];
+  const target = sym('P_\\mathrm{target}');
+  if (r.operatingPoint.cellsFrom === 'power') {
+    out.push(
+      entry('cells', {
+        count: power
+          ? { lhs: N!, symbols: { P: target, V: V!, Icell: Icell!, f: f! }, rhs: (q, op) => `\\left\\lceil \\frac{${q.P}}{${q.V}${op.times}${q.Icell}${op.times}(1 - ${q.f})} \\right\\rceil` }
+          : { lhs: N!, symbols: { P: target, V: V!, Icell: Icell! }, rhs: (q, op) => `\\left\\lceil \\frac{${q.P}}{${q.V}${op.times}${q.Icell}} \\right\\rceil` },
+      }),
+    );
+  } else if (r.operatingPoint.cellsFrom === 'hydrogen') {
+    out.push(entry('cells', { count: { lhs: N!, symbols: { m: sym('\\dot m_\\mathrm{target}'), mc: sym('\\dot m_\\mathrm{cell}') }, rhs: (q) => `\\left\\lceil \\frac{${q.m}}{${q.mc}} \\right\\rceil` } }));
+  }
+  if (power) {
+    const nFuel = sym('\\dot n_\\mathrm{fuel}');
+    out.push(
+      entry(
+        'charge-basis',
+        {
+          charge: { lhs: Q1!, symbols: { I: I!, U: Uf! }, rhs: (q) => `\\frac{${q.I}}{${q.U}}` },
+          utilization: { lhs: Uf!, symbols: { I: I!, Q: Q1! }, rhs: (q) => `\\frac{${q.I}}{${q.Q}}` },
+          fuel: { lhs: nFuel, symbols: { I: I!, U: Uf!, F, z: Fz! }, rhs: (q, op) => `\\frac{${q.I}}{${q.U}${op.times}${q.F}${op.times}${q.z}}` },
+        },
+        (show) => `Q_1 = F \\sum_i \\dot n_i\\, z_i = F\\,\\dot n_\\mathrm{fuel}\\,\\bar{z}, \\qquad ${show('utilization')} \\quad\\Longrightarrow\\quad ${show('fuel')}`,
+      ),
+      entry('oxygen', {
+        oxygen,
+        air: { lhs: sym('\\dot n_\\mathrm{air}'), symbols: { nO2: sym('\\dot n_\\mathrm{O_2}'), x: sym('x_\\mathrm{O_2}'), U: sym('U_\\mathrm{air}') }, rhs: (q, op) => `\\frac{${q.nO2}}{${q.x}${op.times}${q.U}}` },
+      }),
+      entry('net-power', { net: { lhs: sym('P_\\mathrm{net}'), symbols: { P, f: f! }, rhs: (q, op) => `${q.P}${op.times}(1 - ${q.f})` } }),
+    );
+  } else {
+    out.push(
+      entry(
+        'production',
+        { hydrogen: { lhs: sym('\\dot n_\\mathrm{H_2} + \\dot n_\\mathrm{CO}'), symbols: { I: I!, F }, rhs: (q, op) => `\\frac{${q.I}}{2${op.times}${q.F}}` }, oxygen },
+        (show) => `${show('hydrogen')}, \\qquad ${show('oxygen')}, \\qquad X = \\frac{I}{Q_1}, \\quad Q_1 = 2\\,F\\,(\\dot n_\\mathrm{H_2O} + \\dot n_\\mathrm{CO_2})`,
+      ),
+    );
+  }
+  return out;
+}
+
+/** Efficiencies of a fuel cell, or of an electrolyser. */
+function efficiencyEquations(r: Results): EquationEntry[] {
+  const [V, E, P] = [sym('V'), sym('\\bar{E}'), sym('P')];
+  if (r.technology.mode === 'power') {
+    return [
+      entry('eff-electrical', { electrical: { lhs: sym('\\eta_\\mathrm{el}'), symbols: { P: sym('P_\\mathrm{net}'), L: sym('\\dot n_\\mathrm{fuel}\\,\\mathrm{LHV}') }, rhs: (q) => `\\frac{${q.P}}{${q.L}}` } }),
+      entry('eff-limit', {
+        limit: { lhs: sym('\\eta_\\mathrm{max}'), symbols: { G: sym('\\Delta G_\\mathrm{fuel}', { ofT: true }), L: sym('\\mathrm{LHV}') }, rhs: (q) => `\\frac{-${q.G}}{${q.L}}` },
+        voltage: { lhs: sym('\\eta_V'), symbols: { V, E }, rhs: (q) => `\\frac{${q.V}}{${q.E}}` },
+      }),
+      entry('eff-carnot', { carnot: { lhs: sym('\\eta_\\mathrm{C}'), symbols: { T0: sym('T_0'), T }, rhs: (q) => `1 - \\frac{${q.T0}}{${q.T}}` } }),
+    ];
+  }
+  const n = sym('\\dot n_\\mathrm{H_2}');
+  return [
+    entry('specific-energy', {
+      specific: { lhs: sym('w'), symbols: { P, n, M: sym('M_\\mathrm{H_2}') }, rhs: (q, op) => `\\frac{${q.P}}{${q.n}${op.times}${q.M}}` },
+      efficiency: { lhs: sym('\\eta_\\mathrm{LHV}'), symbols: { n, L: sym('\\mathrm{LHV_{H_2}}'), P }, rhs: (q, op) => `\\frac{${q.n}${op.times}${q.L}}{${q.P}}` },
+    }),
+    entry('eff-voltage', { voltage: { lhs: sym('\\eta_V'), symbols: { E, V }, rhs: (q) => `\\frac{${q.E}}{${q.V}}` } }),
+  ];
+}
+
+/** The stack's heat: the energy balance, the same through the effective thermoneutral voltage, and the cooling air. */
+function heatEquations(r: Results): EquationEntry[] {
+  const power = r.technology.mode === 'power';
+  const Hin = sym('\\sum_\\mathrm{in} \\dot n_i\\, h_i(T)', { listed: 'H_\\mathrm{in}' });
+  const Hout = sym('\\sum_\\mathrm{out} \\dot n_i\\, h_i(T)', { listed: 'H_\\mathrm{out}' });
+  const [I, Vtn, V] = [sym('I'), sym('V_\\mathrm{tn,eff}'), sym('V')];
+  const out = [
+    entry('heat-balance', { balance: { lhs: sym('Q'), symbols: { Hin, Hout, W: sym('W_\\mathrm{in}') }, rhs: (q) => `${q.Hin} - ${q.Hout} + ${q.W}` } }, (show) => `${show('balance')}, \\qquad W_\\mathrm{in} = ${power ? '-P' : '+P'}`),
+    entry(
+      'heat-voltage',
+      {
+        thermoneutral: { lhs: Vtn, symbols: { a: sym(power ? 'H_\\mathrm{in}' : 'H_\\mathrm{out}'), b: sym(power ? 'H_\\mathrm{out}' : 'H_\\mathrm{in}'), I }, rhs: (q) => `\\frac{${q.a} - ${q.b}}{${q.I}}` },
+        heat: power
+          ? { lhs: sym('Q'), symbols: { I, Vtn, V }, rhs: (q, op) => `${q.I}${op.times}${op.open}${q.Vtn} - ${q.V}${op.close}` }
+          : { lhs: sym('Q'), symbols: { I, V, Vtn }, rhs: (q, op) => `${q.I}${op.times}${op.open}${q.V} - ${q.Vtn}${op.close}` },
+      },
+    ),
+  ];
+  out.push(shown('cooling-air', '\\dot n_\\mathrm{air,cool} = \\frac{Q}{h_\\mathrm{air}(T) - h_\\mathrm{air}(T - \\Delta T)}'));
+  return out;
+}
+
+/** Carbon activity and the margin of the steam-to-carbon ratio. */
+function carbonEquations(): EquationEntry[] {
+  const [sc, st, pr] = [sym('(S/C)_\\mathrm{design}'), sym('(S/C)_\\mathrm{min,stack}'), sym('(S/C)_\\mathrm{min,pre}')];
+  const margin = sym('\\Delta(S/C)');
+  return [
+    shown('carbon-activity', 'a_\\mathrm{C} = K_\\mathrm{B}\\,\\frac{p_\\mathrm{CO}^2}{p_\\mathrm{CO_2}} = K_\\mathrm{M}\\,\\frac{p_\\mathrm{CH_4}}{p_\\mathrm{H_2}^2}, \\qquad K = \\exp\\left(-\\frac{\\Delta G^\\circ}{R\\,T}\\right)'),
+    entry(
+      'carbon-margin',
+      {
+        margin: { lhs: margin, symbols: { sc, st, pr }, rhs: (q) => `${q.sc} - \\max\\left[${q.st},\\ ${q.pr}\\right]` },
+        stackOnly: { lhs: margin, symbols: { sc, st }, rhs: (q) => `${q.sc} - ${q.st}` },
+      },
+      (show) => show('margin'),
+    ),
+  ];
+}
+
+/** Every equation a document of these results can number, by key. */
+export function equationTable(r: Results): Map<string, EquationEntry> {
+  const all = [
+    ...electrodeEquations(r),
+    nernstEquation(r),
+    ...temperatureEquations(),
+    ...voltageEquations(r),
+    ...faradayEquations(r),
+    ...efficiencyEquations(r),
+    ...heatEquations(r),
+    ...carbonEquations(),
+  ];
+  return new Map(all.map((e) => [e.key, e]));
+}
