@@ -1,0 +1,39 @@
+/**
+ * The worked lines of the stack's heat: from the voltages and from the enthalpy balance.
+ */
+import type { Results } from '../../plant/results-schema.ts';
+import type { LineSpec } from '../calc-line.ts';
+
+export function heatLines(r: Results): LineSpec[] {
+  const power = r.technology.mode === 'power';
+  const h = r.headline;
+  const heat = r.heat;
+  return [
+    {
+      id: 'heat-voltage',
+      title: power ? 'Stack heat from the voltages' : 'Stack heat from the voltages (negative: heat to supply)',
+      equation: 'heat-voltage',
+      relation: 'heat',
+      quantities: [
+        { name: 'I', value: h.totalCurrent_A, unit: 'A', origin: 'stack current, above' },
+        { name: 'Vtn', value: r.electrochemistry.effectiveThermoneutralVoltage_V, unit: 'V', origin: 'enthalpy released by the reactions over the current' },
+        { name: 'V', value: h.cellVoltage_V, unit: 'V', origin: 'cell voltage, above' },
+      ],
+      value: heat.isothermalHeat_W / 1000,
+      unit: 'kW',
+    },
+    {
+      id: 'heat-balance',
+      title: 'Stack heat from the enthalpy balance (isothermal boundary)',
+      equation: 'heat-balance',
+      relation: 'balance',
+      quantities: [
+        { name: 'Hin', value: heat.inletEnthalpyIsothermal_W / 1000, unit: 'kW', origin: 'inlet streams at the stack temperature' },
+        { name: 'Hout', value: heat.outletEnthalpy_W / 1000, unit: 'kW', origin: 'outlet streams (stream table)' },
+        { name: 'W', value: heat.electricWorkIn_W / 1000, unit: 'kW', origin: power ? 'minus the stack DC power' : 'the stack power input' },
+      ],
+      value: heat.isothermalHeat_W / 1000,
+      unit: 'kW',
+    },
+  ];
+}
