@@ -43,7 +43,7 @@ import { realLocation, sealedFolderAt, within } from '../archive/layout.ts';
 import { processAlive } from '../archive/sealed-folder.ts';
 import { calculateAll, type CalculationJob, type CalculationOutcome } from '../batch/batch.ts';
 import { ResultsCache } from '../batch/results-cache.ts';
-import { ChromiumMissingError, chromiumMissingMessage, findChromium } from './pdf.ts';
+import { ChromiumMissingError, chromiumMissingMessage, findChromium } from './chromium.ts';
 import { printDrafts } from './draft-pdfs.ts';
 import { removeCacheLeftovers } from './cache-leftovers.ts';
 import { UserError, EXIT_INTERNAL } from '../core/errors.ts';

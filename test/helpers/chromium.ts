@@ -4,7 +4,7 @@
  * with a loud message.
  */
 import { describe } from 'vitest';
-import { findChromium } from '../../lib/publish/pdf.ts';
+import { findChromium } from '../../lib/publish/chromium.ts';
 
 export const CHROMIUM = findChromium();
 

@@ -39,7 +39,7 @@ interface PageReport {
   printWidth: { scrollWidth: number; column: number; wider: string[] };
 }
 
-/** The text column of A4 paper less the printer's 16 mm side margins (lib/publish/pdf.ts), CSS px; Letter's is wider. */
+/** The text column of A4 paper less the printer's 16 mm side margins (lib/publish/pdf-page.ts), CSS px; Letter's is wider. */
 const A4_COLUMN_PX = Math.round(((210 - 2 * 16) * 96) / 25.4);
 
 describe.skipIf(!available && !process.env.CI)('the built site in Chromium, from disk', () => {

@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildSite } from '../../lib/publish/build.ts';
 import { loadSiteModel } from '../../lib/publish/site-model.ts';
 import { renderView } from '../../lib/publish/render.ts';
-import { findChromium } from '../../lib/publish/pdf.ts';
+import { findChromium } from '../../lib/publish/chromium.ts';
 import { readPdfProperties } from '../../lib/core/pdf-properties.ts';
 import { DRAFT_PDF_STATUS } from '../../lib/report/pdf-meta.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
@@ -110,7 +110,7 @@ describe('a build of the demo projects', () => {
       pages.forEach((text, i) => {
         const words = compact(text);
         const where = `${id} page ${i + 1}`;
-        // The running header and footer (lib/publish/pdf.ts) state the draft, never the basis status.
+        // The running header and footer (lib/publish/pdf-page.ts) state the draft, never the basis status.
         expect(words, where).toContain(compact(`Rev ${d.revision} · ${DRAFT_PDF_STATUS}`));
         expect(words, where).toContain(compact(`${d.number} rev ${d.revision}, ${DRAFT_PDF_STATUS}`));
         if (d.status !== 'draft') expect(words, where).not.toContain(compact(`Rev ${d.revision} · ${d.status}`));
