@@ -80,38 +80,172 @@ export function calculate(basis: DesignBasis): Results {
   return results;
 }
 
-function calculateResults(basis: DesignBasis): Results {
-  const point = evaluateBasis(basis);
+/** What several sections of the results are computed from: the design point and the figures they share. */
+interface Computed {
+  point: DesignPoint;
+  inputs: DesignPoint['inputs'];
+  power: boolean;
+  carbon: ReturnType<typeof carbonMargin>;
+  airIn: Stream | undefined;
+  /** O2 the current consumes (power mode), and O2 fed with the air, mol/s. */
+  o2Consumed: number | null;
+  o2Fed: number | null;
+  h2KgPerH: number | null;
+}
+
+function computed(point: DesignPoint): Computed {
   const inputs = point.inputs;
-  const tech = inputs.technology;
   const power = inputs.mode === 'power';
-  const t = inputs.temperatureK;
-  const waterLabel = tech.waterPhase === 'gas' ? 'H2O' : 'H2O(L)';
-  const hydrogen = evaluateReaction(`H2 + 1/2 O2 -> ${waterLabel}`, t);
-  const carbon = carbonMargin(point);
   const airIn = point.streams.find((s) => s.id === 'air-inlet');
-  const airFlowKgPerH = airIn ? massFlowKgPerS(airIn.flows) * HOUR : null;
-  const o2Consumed = power ? point.totalCurrentA / (4 * F) : null;
-  const o2Fed = airIn ? (airIn.flows.O2 ?? 0) : null;
   const h2MolPerS = point.electrolysis?.hydrogenMolPerS ?? null;
-  const h2KgPerH = h2MolPerS === null ? null : h2MolPerS * getSpecies('H2').molarMassKgPerMol * HOUR;
+  return {
+    point,
+    inputs,
+    power,
+    carbon: carbonMargin(point),
+    airIn,
+    o2Consumed: power ? point.totalCurrentA / (4 * F) : null,
+    o2Fed: airIn ? (airIn.flows.O2 ?? 0) : null,
+    h2KgPerH: h2MolPerS === null ? null : h2MolPerS * getSpecies('H2').molarMassKgPerMol * HOUR,
+  };
+}
+
+function headlineOf({ point, carbon, airIn, h2KgPerH }: Computed): Results['headline'] {
+  const eff = point.power;
+  const el = point.electrolysis;
+  return {
+    meanNernst_V: point.path.meanNernstV,
+    inletNernst_V: point.path.inletNernstV,
+    outletNernst_V: point.path.outletNernstV,
+    openCircuit_V: point.voltage.openCircuitV,
+    cellVoltage_V: point.voltage.cellVoltageV,
+    stackVoltage_V: point.stackVoltageV,
+    cells: point.sizing.cells,
+    cellCurrent_A: point.cellCurrentA,
+    totalCurrent_A: point.totalCurrentA,
+    stackPower_W: point.stackPowerW,
+    netPower_W: point.netPowerW,
+    electricalEfficiencyLhv: eff?.electricalLhvNet ?? null,
+    electricalEfficiencyHhv: eff?.electricalHhvNet ?? null,
+    thermodynamicLimitLhv: eff?.limitLhv ?? null,
+    thermodynamicLimitHhv: eff?.limitHhv ?? null,
+    stackHeat_W: point.heat.isothermalHeatW,
+    airFlow_kg_per_h: airIn ? massFlowKgPerS(airIn.flows) * HOUR : null,
+    hydrogenProduction_kg_per_h: h2KgPerH,
+    hydrogenProduction_kg_per_day: h2KgPerH === null ? null : h2KgPerH * 24,
+    specificEnergy_kWh_per_kg: el?.specificEnergyKWhPerKg ?? null,
+    minimumSteamToCarbon: carbon.minimum,
+    carbonMargin: carbon.margin,
+    maxCarbonActivity: carbon.maxCarbonActivity,
+  };
+}
+
+/** E° of the fuel path; E and V_tn of H2 + ½O2 → H2O (gas, or liquid where the cell runs with it) at T; the voltages and inputs of the cell. */
+function electrochemistryOf({ point, inputs }: Computed): Results['electrochemistry'] {
+  const waterLabel = inputs.technology.waterPhase === 'gas' ? 'H2O' : 'H2O(L)';
+  const hydrogen = evaluateReaction(`H2 + 1/2 O2 -> ${waterLabel}`, inputs.temperatureK);
+  return {
+    standardVoltage_V: point.path.standardVoltageV,
+    reversibleVoltage_V: hydrogen.reversibleVoltage_V,
+    thermoneutralVoltage_V: hydrogen.thermoneutralVoltage_V,
+    effectiveThermoneutralVoltage_V: point.heat.thermoneutralVoltageV,
+    effectiveNernst_V: point.voltage.effectiveNernstV,
+    areaSpecificResistance_ohm_m2: point.voltage.areaSpecificResistanceOhmM2,
+    voltageSource: point.voltage.source,
+    ionicTransferenceNumber: inputs.ionicTransferenceNumber,
+    crossoverAllowance_V: inputs.crossoverAllowanceV,
+    chargeBasis_A: point.path.chargeBasisA * point.scale,
+    utilization: inputs.utilization,
+    elementBalanceError: point.path.elementBalanceError,
+  };
+}
+
+/** Current density and area, what set the cell count, the air supply and the water made. */
+function operatingPointOf({ point, inputs, o2Consumed, o2Fed }: Computed): Results['operatingPoint'] {
+  return {
+    currentDensity_A_per_m2: inputs.currentDensityAPerM2,
+    activeArea_m2: inputs.activeAreaM2,
+    totalActiveArea_m2: inputs.activeAreaM2 * point.sizing.cells,
+    cellsFrom: point.sizing.from,
+    parasiticFraction: inputs.parasiticFraction,
+    airUtilization: o2Consumed && o2Fed ? o2Consumed / o2Fed : null,
+    airRatio: o2Consumed && o2Fed ? o2Fed / o2Consumed : null,
+    oxygenConsumed_mol_per_s: o2Consumed,
+    netWaterProduced_mol_per_s: netWater(point),
+  };
+}
+
+function efficiencyOf({ point }: Computed): Results['efficiency'] {
+  const eff = point.power;
+  const el = point.electrolysis;
+  return {
+    fuelLhvInput_W: eff?.fuelLhvW ?? null,
+    fuelHhvInput_W: eff?.fuelHhvW ?? null,
+    thermodynamicLimitLhv: eff?.limitLhv ?? null,
+    thermodynamicLimitHhv: eff?.limitHhv ?? null,
+    carnotLimit: eff?.carnot ?? null,
+    voltageEfficiency: eff?.voltageEfficiency ?? el!.voltageEfficiency,
+    electricalEfficiencyLhvGross: eff?.electricalLhvGross ?? null,
+    electricalEfficiencyHhvGross: eff?.electricalHhvGross ?? null,
+    electricalEfficiencyLhvNet: eff?.electricalLhvNet ?? null,
+    electricalEfficiencyHhvNet: eff?.electricalHhvNet ?? null,
+    electrolysisEfficiencyLhv: el?.efficiencyLhv ?? null,
+    electrolysisEfficiencyHhv: el?.efficiencyHhv ?? null,
+    specificEnergy_kWh_per_kg: el?.specificEnergyKWhPerKg ?? null,
+    hydrogenProduction_mol_per_s: el?.hydrogenMolPerS ?? null,
+    oxygenProduction_mol_per_s: el?.oxygenMolPerS ?? null,
+    carbonMonoxideProduction_mol_per_s: el ? el.carbonMonoxideMolPerS : null,
+  };
+}
+
+/**
+ * The heat balance, the cooling air and, for pure hydrogen with gaseous water, the cross-check:
+ * the isothermal heat must equal I (−ΔH(T)/2F − V).
+ */
+function heatOf({ point, inputs, power, o2Consumed }: Computed): Results['heat'] {
+  const t = inputs.temperatureK;
   const coolingRatio =
     point.coolingAirMolPerS !== null && o2Consumed && inputs.airFeed?.O2 ? point.coolingAirMolPerS / (o2Consumed / inputs.airFeed.O2) : null;
   const coolingKgPerH =
     point.coolingAirMolPerS !== null && inputs.airFeed ? point.coolingAirMolPerS * massFlowKgPerS(inputs.airFeed) * HOUR : null;
-  // Pure hydrogen, gaseous water: the isothermal heat must equal I (−ΔH(T)/2F − V).
   const crossCheck =
-    power && tech.waterPhase === 'gas' && onlyHydrogen(inputs.dryFuel) && inputs.preReforming.kind === 'none'
+    power && inputs.technology.waterPhase === 'gas' && onlyHydrogen(inputs.dryFuel) && inputs.preReforming.kind === 'none'
       ? point.totalCurrentA * (-(enthalpy(getSpecies('H2O'), t) - enthalpy(getSpecies('H2'), t) - 0.5 * enthalpy(getSpecies('O2'), t)) / (2 * F) - point.voltage.cellVoltageV)
       : null;
-  const eff = point.power;
-  const el = point.electrolysis;
+  return {
+    isothermalHeat_W: point.heat.isothermalHeatW,
+    asFedHeat_W: point.heat.asFedHeatW,
+    inletEnthalpyIsothermal_W: point.heat.inletEnthalpyIsothermalW,
+    inletEnthalpyAsFed_W: point.heat.inletEnthalpyAsFedW,
+    outletEnthalpy_W: point.heat.outletEnthalpyW,
+    electricWorkIn_W: point.heat.workInW,
+    heatPerCell_W: point.heat.isothermalHeatW / point.sizing.cells,
+    heatPerArea_W_per_m2: point.heat.isothermalHeatW / (point.sizing.cells * inputs.activeAreaM2),
+    coolingAir_mol_per_s: point.coolingAirMolPerS,
+    coolingAir_kg_per_h: coolingKgPerH,
+    coolingAirRatio: coolingRatio,
+    allowedAirTemperatureRise_K: inputs.allowedAirTemperatureRiseK,
+    hydrogenCrossCheck_W: crossCheck,
+    heatDemand_W: power ? null : Math.max(0, -point.heat.isothermalHeatW),
+    liquidWaterOut_mol_per_s: point.water ? point.water.liquid : null,
+    outletsSaturated: point.water ? point.water.saturated : null,
+  };
+}
+
+/** The notes of the design point, and the one the carbon margin adds when it is negative. */
+function notesOf({ point, inputs, carbon }: Computed): Results['notes'] {
   const notes = [...point.notes];
   if (carbon.margin !== null && carbon.margin < 0) {
     notes.push({ path: 'streams.fuel-electrode.steam-to-carbon', message: `the steam-to-carbon ratio ${inputs.steamToCarbon} is below the carbon-free minimum ${carbon.minimum!.toFixed(3)}` });
   }
-  const sweepFrom = basis.conditions.sweepFromK;
-  const sweepTo = basis.conditions.sweepToK;
+  return notes;
+}
+
+function calculateResults(basis: DesignBasis): Results {
+  const c = computed(evaluateBasis(basis));
+  const { point, inputs, carbon } = c;
+  const tech = inputs.technology;
+  const notes = notesOf(c);
   return {
     format: 'cellbasis-results/1',
     tool: { name: 'cellbasis', version: toolVersion() },
@@ -119,100 +253,19 @@ function calculateResults(basis: DesignBasis): Results {
     project: { id: basis.id, title: basis.document.title, number: basis.document.number, revision: basis.document.revision, status: basis.document.status },
     technology: { id: tech.id, name: tech.name, mode: inputs.mode, ion: tech.ion, waterPhase: tech.waterPhase, fuelGasEquilibrium: tech.fuelGasEquilibrium },
     conditions: {
-      temperature_K: t,
+      temperature_K: inputs.temperatureK,
       fuelPressure_bar: inputs.fuelPressureBar,
       airPressure_bar: inputs.airPressureBar,
       fuelInletTemperature_K: inputs.fuelInletTemperatureK,
       airInletTemperature_K: inputs.airInletTemperatureK,
       ambientTemperature_K: inputs.ambientTemperatureK,
     },
-    headline: {
-      meanNernst_V: point.path.meanNernstV,
-      inletNernst_V: point.path.inletNernstV,
-      outletNernst_V: point.path.outletNernstV,
-      openCircuit_V: point.voltage.openCircuitV,
-      cellVoltage_V: point.voltage.cellVoltageV,
-      stackVoltage_V: point.stackVoltageV,
-      cells: point.sizing.cells,
-      cellCurrent_A: point.cellCurrentA,
-      totalCurrent_A: point.totalCurrentA,
-      stackPower_W: point.stackPowerW,
-      netPower_W: point.netPowerW,
-      electricalEfficiencyLhv: eff?.electricalLhvNet ?? null,
-      electricalEfficiencyHhv: eff?.electricalHhvNet ?? null,
-      thermodynamicLimitLhv: eff?.limitLhv ?? null,
-      thermodynamicLimitHhv: eff?.limitHhv ?? null,
-      stackHeat_W: point.heat.isothermalHeatW,
-      airFlow_kg_per_h: airFlowKgPerH,
-      hydrogenProduction_kg_per_h: h2KgPerH,
-      hydrogenProduction_kg_per_day: h2KgPerH === null ? null : h2KgPerH * 24,
-      specificEnergy_kWh_per_kg: el?.specificEnergyKWhPerKg ?? null,
-      minimumSteamToCarbon: carbon.minimum,
-      carbonMargin: carbon.margin,
-      maxCarbonActivity: carbon.maxCarbonActivity,
-    },
-    electrochemistry: {
-      standardVoltage_V: point.path.standardVoltageV,
-      reversibleVoltage_V: hydrogen.reversibleVoltage_V,
-      thermoneutralVoltage_V: hydrogen.thermoneutralVoltage_V,
-      effectiveThermoneutralVoltage_V: point.heat.thermoneutralVoltageV,
-      effectiveNernst_V: point.voltage.effectiveNernstV,
-      areaSpecificResistance_ohm_m2: point.voltage.areaSpecificResistanceOhmM2,
-      voltageSource: point.voltage.source,
-      ionicTransferenceNumber: inputs.ionicTransferenceNumber,
-      crossoverAllowance_V: inputs.crossoverAllowanceV,
-      chargeBasis_A: point.path.chargeBasisA * point.scale,
-      utilization: inputs.utilization,
-      elementBalanceError: point.path.elementBalanceError,
-    },
-    operatingPoint: {
-      currentDensity_A_per_m2: inputs.currentDensityAPerM2,
-      activeArea_m2: inputs.activeAreaM2,
-      totalActiveArea_m2: inputs.activeAreaM2 * point.sizing.cells,
-      cellsFrom: point.sizing.from,
-      parasiticFraction: inputs.parasiticFraction,
-      airUtilization: o2Consumed && o2Fed ? o2Consumed / o2Fed : null,
-      airRatio: o2Consumed && o2Fed ? o2Fed / o2Consumed : null,
-      oxygenConsumed_mol_per_s: o2Consumed,
-      netWaterProduced_mol_per_s: netWater(point),
-    },
+    headline: headlineOf(c),
+    electrochemistry: electrochemistryOf(c),
+    operatingPoint: operatingPointOf(c),
     streams: point.streams.map(streamResult),
-    efficiency: {
-      fuelLhvInput_W: eff?.fuelLhvW ?? null,
-      fuelHhvInput_W: eff?.fuelHhvW ?? null,
-      thermodynamicLimitLhv: eff?.limitLhv ?? null,
-      thermodynamicLimitHhv: eff?.limitHhv ?? null,
-      carnotLimit: eff?.carnot ?? null,
-      voltageEfficiency: eff?.voltageEfficiency ?? el!.voltageEfficiency,
-      electricalEfficiencyLhvGross: eff?.electricalLhvGross ?? null,
-      electricalEfficiencyHhvGross: eff?.electricalHhvGross ?? null,
-      electricalEfficiencyLhvNet: eff?.electricalLhvNet ?? null,
-      electricalEfficiencyHhvNet: eff?.electricalHhvNet ?? null,
-      electrolysisEfficiencyLhv: el?.efficiencyLhv ?? null,
-      electrolysisEfficiencyHhv: el?.efficiencyHhv ?? null,
-      specificEnergy_kWh_per_kg: el?.specificEnergyKWhPerKg ?? null,
-      hydrogenProduction_mol_per_s: el?.hydrogenMolPerS ?? null,
-      oxygenProduction_mol_per_s: el?.oxygenMolPerS ?? null,
-      carbonMonoxideProduction_mol_per_s: el ? el.carbonMonoxideMolPerS : null,
-    },
-    heat: {
-      isothermalHeat_W: point.heat.isothermalHeatW,
-      asFedHeat_W: point.heat.asFedHeatW,
-      inletEnthalpyIsothermal_W: point.heat.inletEnthalpyIsothermalW,
-      inletEnthalpyAsFed_W: point.heat.inletEnthalpyAsFedW,
-      outletEnthalpy_W: point.heat.outletEnthalpyW,
-      electricWorkIn_W: point.heat.workInW,
-      heatPerCell_W: point.heat.isothermalHeatW / point.sizing.cells,
-      heatPerArea_W_per_m2: point.heat.isothermalHeatW / (point.sizing.cells * inputs.activeAreaM2),
-      coolingAir_mol_per_s: point.coolingAirMolPerS,
-      coolingAir_kg_per_h: coolingKgPerH,
-      coolingAirRatio: coolingRatio,
-      allowedAirTemperatureRise_K: inputs.allowedAirTemperatureRiseK,
-      hydrogenCrossCheck_W: crossCheck,
-      heatDemand_W: power ? null : Math.max(0, -point.heat.isothermalHeatW),
-      liquidWaterOut_mol_per_s: point.water ? point.water.liquid : null,
-      outletsSaturated: point.water ? point.water.saturated : null,
-    },
+    efficiency: efficiencyOf(c),
+    heat: heatOf(c),
     carbon: {
       steamToCarbon: carbon.steamToCarbon,
       minimumSteamToCarbonStack: carbon.minimumSteamToCarbonStack,
@@ -226,7 +279,7 @@ function calculateResults(basis: DesignBasis): Results {
       standardVoltage_V: point.path.standardVoltageV,
     },
     sweeps: {
-      temperature: temperatureSweep(point, sweepFrom, sweepTo),
+      temperature: temperatureSweep(point, basis.conditions.sweepFromK, basis.conditions.sweepToK),
       currentDensity: currentDensitySweep(point),
       steamToCarbon: steamToCarbonSweep(point),
     },
