@@ -64,13 +64,10 @@ function wetted(flows: Record<string, number>, vapour: number, liquid: number): 
   return out;
 }
 
-export function evaluateDesignPoint(inputs: DesignInputs): DesignPoint {
-  const tech = inputs.technology;
-  const power = inputs.mode === 'power';
-  const notes: CalculationNote[] = [];
-  const unit = unitFeeds(inputs);
-  const path = fuelPath({
-    technology: tech,
+/** The fuel path on the unit scale of `unit`. */
+function unitPath(inputs: DesignInputs, unit: UnitFeeds): FuelPath {
+  return fuelPath({
+    technology: inputs.technology,
     mode: inputs.mode,
     temperatureK: inputs.temperatureK,
     fuelPressureBar: inputs.fuelPressureBar,
@@ -82,6 +79,11 @@ export function evaluateDesignPoint(inputs: DesignInputs): DesignPoint {
     refineV: inputs.refineV,
     ...(inputs.seeds ? { seeds: inputs.seeds } : {}),
   });
+}
+
+/** The cell's voltage and current, the cell count, and the stack's current, scale (stack flows per unit flow) and power. */
+function stackSize(inputs: DesignInputs, path: FuelPath) {
+  const power = inputs.mode === 'power';
   const voltage = operatingVoltage(inputs.mode, inputs.voltage, path.meanNernstV, path.inletNernstV, inputs.currentDensityAPerM2, inputs.ionicTransferenceNumber, inputs.crossoverAllowanceV);
   const cellCurrentA = inputs.currentDensityAPerM2 * inputs.activeAreaM2;
   const cellPowerW = voltage.cellVoltageV * cellCurrentA;
@@ -92,11 +94,22 @@ export function evaluateDesignPoint(inputs: DesignInputs): DesignPoint {
     inputs.size.kind === 'hydrogen' ? hydrogenPerCellKgPerS : power ? cellPowerW * (1 - inputs.parasiticFraction) : cellPowerW;
   const sizing = sizeStack(inputs.size, inputs.statedCells, perCell, inputs.mode);
   const totalCurrentA = sizing.cells * cellCurrentA;
-  const scale = totalCurrentA / path.currentA;
   const stackPowerW = sizing.cells * cellPowerW;
-  const netPowerW = power ? stackPowerW * (1 - inputs.parasiticFraction) : stackPowerW;
+  return {
+    voltage,
+    cellCurrentA,
+    sizing,
+    totalCurrentA,
+    scale: totalCurrentA / path.currentA,
+    stackPowerW,
+    netPowerW: power ? stackPowerW * (1 - inputs.parasiticFraction) : stackPowerW,
+  };
+}
 
-  // Streams on the stack scale.
+/** The process streams on the stack scale: the pre-reformer's, the inlets, and the outlets (of a liquid-water cell with their vapour and liquid water). */
+function stackStreams(inputs: DesignInputs, unit: UnitFeeds, path: FuelPath, scale: number, totalCurrentA: number, notes: CalculationNote[]) {
+  const power = inputs.mode === 'power';
+  const tech = inputs.technology;
   const p = { fuel: inputs.fuelPressureBar, air: inputs.airPressureBar };
   const t = inputs.temperatureK;
   const inlets: Stream[] = [];
@@ -127,34 +140,56 @@ export function evaluateDesignPoint(inputs: DesignInputs): DesignPoint {
   const oxygenSide = power ? 'air-electrode outlet (cathode exhaust)' : 'air-electrode outlet (oxygen product)';
   if (totalFlow(fuelOut) > 0) outlets.push(stream('fuel-outlet', hydrogenSide, t, p.fuel, fuelOut));
   if (totalFlow(airOut) > 0) outlets.push(stream('air-outlet', oxygenSide, t, p.air, airOut));
+  return { extra, inlets, outlets, fuelInletFlows, airInletFlows, fuelOut, airOut, waterSplit };
+}
 
-  const heat = heatBalance(inputs.mode, inlets, outlets, t, stackPowerW, totalCurrentA);
-  let coolingAir: number | null = null;
-  let powerEff: PowerEfficiency | null = null;
-  let electrolysis: DesignPoint['electrolysis'] = null;
-  if (power) {
-    // Air cools the stack in high-temperature cells; low-temperature cells have a liquid coolant.
-    if (inputs.airFeed && tech.fuelGasEquilibrium) {
-      coolingAir = coolingAirMolPerS(heat.isothermalHeatW, inputs.airFeed, t, inputs.allowedAirTemperatureRiseK);
-      const fed = airInletFlows ? totalFlow(airInletFlows) : 0;
-      if (coolingAir > fed * 1.0001) {
-        notes.push({
-          path: inputs.air.kind === 'ratio' ? 'operating-point.air-ratio' : 'operating-point.air-utilization',
-          message: `the air fed (${fed.toPrecision(4)} mol/s) carries only ${((fed / coolingAir) * 100).toFixed(0)} % of the stack heat at a ${inputs.allowedAirTemperatureRiseK} K rise; ${coolingAir.toPrecision(4)} mol/s of air would be needed, or another heat sink`,
-        });
-      }
-    }
-    powerEff = powerEfficiency(unit.fuelRaw ? scaled(unit.fuelRaw, scale) : {}, t, inputs.ambientTemperatureK, tech.waterPhase, voltage.cellVoltageV, path.meanNernstV, stackPowerW, netPowerW);
-  } else {
-    const fuelIn = fuelInletFlows ?? {};
-    const hydrogenMolPerS = (fuelOut.H2 ?? 0) - (fuelIn.H2 ?? 0);
-    const oxygenMolPerS = (airOut.O2 ?? 0) - (airInletFlows?.O2 ?? 0);
-    const carbonMonoxideMolPerS = (fuelOut.CO ?? 0) - (fuelIn.CO ?? 0);
-    electrolysis = { ...electrolysisEfficiency(hydrogenMolPerS, stackPowerW, path.meanNernstV, voltage.cellVoltageV), hydrogenMolPerS, oxygenMolPerS, carbonMonoxideMolPerS };
-    if (heat.isothermalHeatW < 0 && inputs.technology.waterPhase === 'gas') {
-      notes.push({ path: inputs.voltage.kind === 'given' ? 'operating-point.cell-voltage' : 'operating-point.area-specific-resistance', message: `below the thermoneutral voltage (${heat.thermoneutralVoltageV.toFixed(4)} V) the stack absorbs ${(-heat.isothermalHeatW / 1000).toPrecision(4)} kW of heat: it must be supplied (superheated feed, heated sweep or electric heating)` });
-    }
+/**
+ * Power mode: the air that would carry the stack's heat at the allowed rise (air cools the stack
+ * in high-temperature cells; low-temperature cells have a liquid coolant), with a note where the
+ * air fed falls short.
+ */
+function coolingAir(inputs: DesignInputs, heat: HeatBalance, airInletFlows: Record<string, number> | null, notes: CalculationNote[]): number | null {
+  if (!inputs.airFeed || !inputs.technology.fuelGasEquilibrium) return null;
+  const air = coolingAirMolPerS(heat.isothermalHeatW, inputs.airFeed, inputs.temperatureK, inputs.allowedAirTemperatureRiseK);
+  const fed = airInletFlows ? totalFlow(airInletFlows) : 0;
+  if (air > fed * 1.0001) {
+    notes.push({
+      path: inputs.air.kind === 'ratio' ? 'operating-point.air-ratio' : 'operating-point.air-utilization',
+      message: `the air fed (${fed.toPrecision(4)} mol/s) carries only ${((fed / air) * 100).toFixed(0)} % of the stack heat at a ${inputs.allowedAirTemperatureRiseK} K rise; ${air.toPrecision(4)} mol/s of air would be needed, or another heat sink`,
+    });
   }
+  return air;
+}
+
+/** Electrolysis: the hydrogen, oxygen and carbon monoxide made and the efficiency, with a note where the stack needs heat supplied. */
+function electrolysisFigures(inputs: DesignInputs, streams: ReturnType<typeof stackStreams>, heat: HeatBalance, size: ReturnType<typeof stackSize>, path: FuelPath, notes: CalculationNote[]): NonNullable<DesignPoint['electrolysis']> {
+  const { fuelOut, airOut, airInletFlows } = streams;
+  const fuelIn = streams.fuelInletFlows ?? {};
+  const hydrogenMolPerS = (fuelOut.H2 ?? 0) - (fuelIn.H2 ?? 0);
+  const oxygenMolPerS = (airOut.O2 ?? 0) - (airInletFlows?.O2 ?? 0);
+  const carbonMonoxideMolPerS = (fuelOut.CO ?? 0) - (fuelIn.CO ?? 0);
+  const figures = { ...electrolysisEfficiency(hydrogenMolPerS, size.stackPowerW, path.meanNernstV, size.voltage.cellVoltageV), hydrogenMolPerS, oxygenMolPerS, carbonMonoxideMolPerS };
+  if (heat.isothermalHeatW < 0 && inputs.technology.waterPhase === 'gas') {
+    notes.push({ path: inputs.voltage.kind === 'given' ? 'operating-point.cell-voltage' : 'operating-point.area-specific-resistance', message: `below the thermoneutral voltage (${heat.thermoneutralVoltageV.toFixed(4)} V) the stack absorbs ${(-heat.isothermalHeatW / 1000).toPrecision(4)} kW of heat: it must be supplied (superheated feed, heated sweep or electric heating)` });
+  }
+  return figures;
+}
+
+export function evaluateDesignPoint(inputs: DesignInputs): DesignPoint {
+  const power = inputs.mode === 'power';
+  const notes: CalculationNote[] = [];
+  const unit = unitFeeds(inputs);
+  const path = unitPath(inputs, unit);
+  const size = stackSize(inputs, path);
+  const { voltage, sizing, totalCurrentA, scale, stackPowerW, netPowerW } = size;
+  const streams = stackStreams(inputs, unit, path, scale, totalCurrentA, notes);
+  const t = inputs.temperatureK;
+  const heat = heatBalance(inputs.mode, streams.inlets, streams.outlets, t, stackPowerW, totalCurrentA);
+  const cooling = power ? coolingAir(inputs, heat, streams.airInletFlows, notes) : null;
+  const powerEff = power
+    ? powerEfficiency(unit.fuelRaw ? scaled(unit.fuelRaw, scale) : {}, t, inputs.ambientTemperatureK, inputs.technology.waterPhase, voltage.cellVoltageV, path.meanNernstV, stackPowerW, netPowerW)
+    : null;
+  const electrolysis = power ? null : electrolysisFigures(inputs, streams, heat, size, path, notes);
   if (path.maxCarbonActivity > 1) {
     notes.push({ path: 'streams.fuel-electrode', message: `the fuel-electrode gas reaches carbon activity ${path.maxCarbonActivity.toPrecision(3)} (above 1: carbon can deposit on the electrode); add steam or change the temperature` });
   }
@@ -165,15 +200,15 @@ export function evaluateDesignPoint(inputs: DesignInputs): DesignPoint {
     scale,
     sizing,
     voltage,
-    cellCurrentA,
+    cellCurrentA: size.cellCurrentA,
     totalCurrentA,
     stackVoltageV: sizing.cells * voltage.cellVoltageV,
     stackPowerW,
     netPowerW,
-    streams: [...extra, ...inlets, ...outlets],
-    water: waterSplit,
+    streams: [...streams.extra, ...streams.inlets, ...streams.outlets],
+    water: streams.waterSplit,
     heat,
-    coolingAirMolPerS: coolingAir,
+    coolingAirMolPerS: cooling,
     power: powerEff,
     electrolysis,
     notes,
