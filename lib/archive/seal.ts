@@ -161,6 +161,95 @@ function sealedContent(working: { text: string; basis: DesignBasis }, options: S
   }
 }
 
+/** The revisions sealed so far, in issue order; refuses a seal date before the last one's. */
+function previousRevisions(options: SealOptions, folder: SealedFolder, sealDate: SealDate): SealedRevision[] {
+  const previous = folder.revisions.map((rev) => readSealedRevision(options.cwd, options.project, rev));
+  const last = previous[previous.length - 1];
+  if (last && last.manifest.sealedOn > sealDate.day) {
+    throw new UserError(`seal: the seal date ${sealDate.day} is before ${last.manifest.sealedOn}, when revision ${last.revision} was sealed; revisions are sealed in date order`, EXIT_USAGE);
+  }
+  return previous;
+}
+
+/** The manifest of the revision before its files are hashed: what is sealed, when, by which tool, after which revision, signed by which key. */
+function draftManifest(options: SealOptions, content: { basis: DesignBasis }, status: DocumentStatus, sealDate: SealDate, last: SealedRevision | undefined, key: KeyObject | undefined): SealManifest {
+  return {
+    format: 'cellbasis-seal/1',
+    project: options.project,
+    documentNumber: content.basis.document.number,
+    title: content.basis.document.title,
+    revision: options.revision,
+    status,
+    note: options.note ?? '',
+    sealedOn: sealDate.day,
+    sealedAt: sealDate.at.toISOString(),
+    tool: { name: 'cellbasis', version: toolVersion() },
+    speciesData_sha256: speciesDataHash(),
+    files: {},
+    previous: last ? { revision: last.revision, manifest_sha256: sha256Hex(last.manifestBytes) } : null,
+    signOff: signOffOf(content.basis),
+    ...(key ? { publicKey: publicKeyPem(key) } : {}),
+  };
+}
+
+/**
+ * Writes every file of the revision into `temp`, each flushed to disk, pausing after each step
+ * when asked: basis.yaml, results.json, document.html (by options.render), document.pdf (by
+ * options.pdf), manifest.json with the SHA-256 of each, and with a key manifest.sig. Returns the
+ * final manifest and its bytes.
+ */
+async function writeRevision(
+  options: SealOptions,
+  temp: string,
+  content: { text: string; basis: DesignBasis; results: Results },
+  manifest: SealManifest,
+  previous: SealedRevision[],
+  sealDate: SealDate,
+  key: KeyObject | undefined,
+): Promise<{ final: SealManifest; bytes: Buffer }> {
+  const basisBytes = Buffer.from(content.text, 'utf8');
+  writeFileDurably(join(temp, SEALED_FILES.basis), basisBytes);
+  await pause(options, 'basis-written');
+  const resultsBytes = Buffer.from(`${JSON.stringify(content.results, null, 2)}\n`, 'utf8');
+  writeFileDurably(join(temp, SEALED_FILES.results), resultsBytes);
+  await pause(options, 'results-written');
+  const html = await options.render({ basis: content.basis, results: content.results, manifest, previous, basisText: content.text });
+  const htmlPath = join(temp, SEALED_FILES.html);
+  writeFileDurably(htmlPath, html);
+  await pause(options, 'html-written');
+  const meta = documentPdfMeta({ basis: content.basis, results: content.results }, { date: sealDate.at, basisYaml: basisBytes, resultsJson: resultsBytes });
+  const { pdf, chromium } = await options.pdf.print(htmlPath, meta);
+  writeFileDurably(join(temp, SEALED_FILES.pdf), pdf);
+  await pause(options, 'pdf-written');
+  const files: Record<string, string> = {};
+  for (const [name, bytes] of [
+    [SEALED_FILES.basis, basisBytes],
+    [SEALED_FILES.results, resultsBytes],
+    [SEALED_FILES.html, Buffer.from(html, 'utf8')],
+    [SEALED_FILES.pdf, pdf],
+  ] as const) {
+    files[name] = sha256Hex(bytes);
+  }
+  const final: SealManifest = { ...manifest, files, pdf: { chromium } };
+  const bytes = manifestBytes(final);
+  writeFileDurably(join(temp, SEALED_FILES.manifest), bytes);
+  if (key) writeFileDurably(join(temp, SEALED_FILES.signature), signBytes(bytes, key));
+  syncFolder(temp);
+  await pause(options, 'manifest-written');
+  return { final, bytes };
+}
+
+/** Renames the complete temporary folder to the revision: the one step that makes it appear. */
+function moveIntoPlace(options: SealOptions, temp: string, display: string): void {
+  try {
+    renameSync(temp, sealedDir(options.cwd, options.project, options.revision));
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException).code;
+    if (code === 'ENOTEMPTY' || code === 'EEXIST') throw new UserError(`seal: revision ${options.revision} of ${display} appeared while sealing; nothing written`, EXIT_VALIDATION);
+    throw error;
+  }
+}
+
 export async function sealRevision(options: SealOptions): Promise<SealOutcome> {
   projectBasisPath(options.project, options.cwd);
   const display = `projects/${options.project}`;
@@ -184,75 +273,15 @@ export async function sealRevision(options: SealOptions): Promise<SealOutcome> {
     const removedTemporary = folder.temporary.filter((name) => isSealTemporary(root, name));
     const keptTemporary = folder.temporary.filter((name) => !removedTemporary.includes(name));
     for (const name of removedTemporary) rmSync(join(root, name), { recursive: true, force: true });
-
-    const previous = folder.revisions.map((rev) => readSealedRevision(options.cwd, options.project, rev));
-    const last = previous[previous.length - 1];
-    if (last && last.manifest.sealedOn > sealDate.day) {
-      throw new UserError(`seal: the seal date ${sealDate.day} is before ${last.manifest.sealedOn}, when revision ${last.revision} was sealed; revisions are sealed in date order`, EXIT_USAGE);
-    }
+    const previous = previousRevisions(options, folder, sealDate);
     const content = sealedContent(working, options, status);
 
     temp = join(root, tempDirName(options.revision, process.pid));
     mkdirSync(temp);
     await pause(options, 'temp-created');
-    const basisBytes = Buffer.from(content.text, 'utf8');
-    writeFileDurably(join(temp, SEALED_FILES.basis), basisBytes);
-    await pause(options, 'basis-written');
-    const resultsBytes = Buffer.from(`${JSON.stringify(content.results, null, 2)}\n`, 'utf8');
-    writeFileDurably(join(temp, SEALED_FILES.results), resultsBytes);
-    await pause(options, 'results-written');
-
-    const manifest: SealManifest = {
-      format: 'cellbasis-seal/1',
-      project: options.project,
-      documentNumber: content.basis.document.number,
-      title: content.basis.document.title,
-      revision: options.revision,
-      status,
-      note: options.note ?? '',
-      sealedOn: sealDate.day,
-      sealedAt: sealDate.at.toISOString(),
-      tool: { name: 'cellbasis', version: toolVersion() },
-      speciesData_sha256: speciesDataHash(),
-      files: {},
-      previous: last ? { revision: last.revision, manifest_sha256: sha256Hex(last.manifestBytes) } : null,
-      signOff: signOffOf(content.basis),
-      ...(key ? { publicKey: publicKeyPem(key) } : {}),
-    };
-    const html = await options.render({ basis: content.basis, results: content.results, manifest, previous, basisText: content.text });
-    const htmlPath = join(temp, SEALED_FILES.html);
-    writeFileDurably(htmlPath, html);
-    await pause(options, 'html-written');
-
-    const meta = documentPdfMeta({ basis: content.basis, results: content.results }, { date: sealDate.at, basisYaml: basisBytes, resultsJson: resultsBytes });
-    const { pdf, chromium } = await options.pdf.print(htmlPath, meta);
-    writeFileDurably(join(temp, SEALED_FILES.pdf), pdf);
-    await pause(options, 'pdf-written');
-
-    const files: Record<string, string> = {};
-    for (const [name, bytes] of [
-      [SEALED_FILES.basis, basisBytes],
-      [SEALED_FILES.results, resultsBytes],
-      [SEALED_FILES.html, Buffer.from(html, 'utf8')],
-      [SEALED_FILES.pdf, pdf],
-    ] as const) {
-      files[name] = sha256Hex(bytes);
-    }
-    const final: SealManifest = { ...manifest, files, pdf: { chromium } };
-    const bytes = manifestBytes(final);
-    writeFileDurably(join(temp, SEALED_FILES.manifest), bytes);
-    if (key) writeFileDurably(join(temp, SEALED_FILES.signature), signBytes(bytes, key));
-    syncFolder(temp);
-    await pause(options, 'manifest-written');
-
-    const target = sealedDir(options.cwd, options.project, options.revision);
-    try {
-      renameSync(temp, target);
-    } catch (error) {
-      const code = (error as NodeJS.ErrnoException).code;
-      if (code === 'ENOTEMPTY' || code === 'EEXIST') throw new UserError(`seal: revision ${options.revision} of ${display} appeared while sealing; nothing written`, EXIT_VALIDATION);
-      throw error;
-    }
+    const manifest = draftManifest(options, content, status, sealDate, previous[previous.length - 1], key);
+    const { final, bytes } = await writeRevision(options, temp, content, manifest, previous, sealDate, key);
+    moveIntoPlace(options, temp, display);
     temp = undefined;
     syncFolder(root);
     await pause(options, 'renamed');
