@@ -21,11 +21,11 @@ import { ResultsCache, resultsKey } from '../batch/results-cache.ts';
 import { locatedDiagnostic } from '../plant/located-error.ts';
 import { runAllChecks } from '../verification/checks.ts';
 import { documentView, type DocumentView } from '../report/document.ts';
-import { revisionHistory, type ChangeSummary } from '../report/history.ts';
+import { revisionHistory, type ChangeSummary, type RevisionHistoryEntry } from '../report/history.ts';
 import { draftPagePath, relativeHref, revisionPagePath, rootPrefix } from '../report/links.ts';
 import { INDEX_PATH, portfolioView, type PortfolioProject, type PortfolioView } from '../report/portfolio.ts';
 import type { RevisionContext } from '../report/revision.ts';
-import { readSealedRevisions } from './sealed-revisions.ts';
+import { readSealedRevisions, type SealedRevision } from './sealed-revisions.ts';
 import { SiteError, SiteProblems } from './site-problems.ts';
 import { draftDate } from './source-date.ts';
 import { ASSET_DIR } from './site-assets.ts';
@@ -87,54 +87,38 @@ export function projectLoader(root: string, options: SiteOptions = {}): ProjectL
 }
 
 /**
- * One project: its working draft and sealed revisions as document views, and its portfolio row.
- * Problems go to `problems`; a project with an error contributes no pages.
+ * The results of a project's working draft: those calculated beforehand for the build, else from
+ * the results cache, else calculated (and cached); null, with the problems told, where its
+ * calculation fails.
  */
-export function loadProjectPages(loader: ProjectLoader, id: string, problems: SiteProblems): ProjectPages {
-  const { root, options, checks, cache } = loader;
-  const none: ProjectPages = { pages: [], draft: null, portfolio: null };
+function draftResults(loader: ProjectLoader, id: string, basis: DesignBasis, problems: SiteProblems): Results | null {
   const shown = `projects/${id}/basis.yaml`;
-  const loaded = loadBasisFile(join(root, 'projects', id, 'basis.yaml'), { id, displayPath: shown });
-  problems.diagnostics(loaded.ok ? loaded.warnings : [...loaded.errors, ...loaded.warnings]);
-  const sealed = readSealedRevisions(root, id, problems);
-  if (!loaded.ok) return none;
-  let results;
-  const given = options.results?.get(id);
+  const given = loader.options.results?.get(id);
   if (given) {
-    if (!given.ok) {
-      if (given.diagnostics.length) problems.diagnostics(given.diagnostics);
-      else problems.error(shown, given.message);
-      return none;
-    }
-    results = given.results;
-  } else {
-    try {
-      // The dev server rebuilds from here on every change: unchanged projects come from the cache.
-      const key = resultsKey(readFileSync(join(root, 'projects', id, 'basis.yaml')), id, shown);
-      results = cache.get(key);
-      if (!results) {
-        results = calculate(loaded.basis);
-        cache.put(key, results);
-      }
-    } catch (error) {
-      if (!(error instanceof BasisError)) throw error;
-      problems.diagnostics(error.errors);
-      return none;
-    }
+    if (given.ok) return given.results;
+    if (given.diagnostics.length) problems.diagnostics(given.diagnostics);
+    else problems.error(shown, given.message);
+    return null;
   }
-  problems.diagnostics(results.notes.map((n) => locatedDiagnostic(loaded.basis, n.path, n.message, 'warning')));
-  const draftPath = draftPagePath(id);
-  const sources = new Map<DesignBasis, string>(sealed.map((s) => [s.basis, s.source]));
-  sources.set(loaded.basis, readFileSync(join(root, 'projects', id, 'basis.yaml'), 'utf8'));
-  const history = revisionHistory({
-    sealed: sealed.map((s) => ({ revision: s.revision, basis: s.basis, results: s.results, manifest: s.manifest, path: revisionPagePath(id, s.revision) })),
-    draft: { revision: loaded.basis.document.revision, status: loaded.basis.document.status, basis: loaded.basis, results, path: draftPath },
-    changeSummary: options.changeSummary ?? compareWith(sources),
-  });
-  const pages: PageEntry[] = [];
-  const draft: RevisionContext = { kind: 'draft', date: draftDate(loaded.basis, options.env), pdfHref: options.draftPdfs ? 'document.pdf' : null };
-  pages.push({ pagePath: draftPath, view: () => documentView({ basis: loaded.basis, results, revision: draft, history }, { ...pageOptions(draftPath), checks }) });
-  sealed.forEach((s, i) => {
+  try {
+    // The dev server rebuilds from here on every change: unchanged projects come from the cache.
+    const key = resultsKey(readFileSync(join(loader.root, 'projects', id, 'basis.yaml')), id, shown);
+    let results = loader.cache.get(key);
+    if (!results) {
+      results = calculate(basis);
+      loader.cache.put(key, results);
+    }
+    return results;
+  } catch (error) {
+    if (!(error instanceof BasisError)) throw error;
+    problems.diagnostics(error.errors);
+    return null;
+  }
+}
+
+/** The page of each sealed revision, shown as sealed, with the revision that supersedes it. */
+function sealedPages(loader: ProjectLoader, id: string, sealed: SealedRevision[], history: RevisionHistoryEntry[]): PageEntry[] {
+  return sealed.map((s, i) => {
     const path = revisionPagePath(id, s.revision);
     const next = sealed[i + 1];
     const revision: RevisionContext = {
@@ -146,8 +130,38 @@ export function loadProjectPages(loader: ProjectLoader, id: string, problems: Si
       supersededBy: next ? next.revision : null,
       pdfHref: s.pdf ? 'document.pdf' : null,
     };
-    pages.push({ pagePath: path, view: () => documentView({ basis: s.basis, results: s.results, revision, history }, { ...pageOptions(path), checks }) });
+    return { pagePath: path, view: () => documentView({ basis: s.basis, results: s.results, revision, history }, { ...pageOptions(path), checks: loader.checks }) };
   });
+}
+
+/**
+ * One project: its working draft and sealed revisions as document views, and its portfolio row.
+ * Problems go to `problems`; a project with an error contributes no pages.
+ */
+export function loadProjectPages(loader: ProjectLoader, id: string, problems: SiteProblems): ProjectPages {
+  const { root, options, checks } = loader;
+  const none: ProjectPages = { pages: [], draft: null, portfolio: null };
+  const shown = `projects/${id}/basis.yaml`;
+  const loaded = loadBasisFile(join(root, 'projects', id, 'basis.yaml'), { id, displayPath: shown });
+  problems.diagnostics(loaded.ok ? loaded.warnings : [...loaded.errors, ...loaded.warnings]);
+  const sealed = readSealedRevisions(root, id, problems);
+  if (!loaded.ok) return none;
+  const results = draftResults(loader, id, loaded.basis, problems);
+  if (!results) return none;
+  problems.diagnostics(results.notes.map((n) => locatedDiagnostic(loaded.basis, n.path, n.message, 'warning')));
+  const draftPath = draftPagePath(id);
+  const sources = new Map<DesignBasis, string>(sealed.map((s) => [s.basis, s.source]));
+  sources.set(loaded.basis, readFileSync(join(root, 'projects', id, 'basis.yaml'), 'utf8'));
+  const history = revisionHistory({
+    sealed: sealed.map((s) => ({ revision: s.revision, basis: s.basis, results: s.results, manifest: s.manifest, path: revisionPagePath(id, s.revision) })),
+    draft: { revision: loaded.basis.document.revision, status: loaded.basis.document.status, basis: loaded.basis, results, path: draftPath },
+    changeSummary: options.changeSummary ?? compareWith(sources),
+  });
+  const draft: RevisionContext = { kind: 'draft', date: draftDate(loaded.basis, options.env), pdfHref: options.draftPdfs ? 'document.pdf' : null };
+  const pages: PageEntry[] = [
+    { pagePath: draftPath, view: () => documentView({ basis: loaded.basis, results, revision: draft, history }, { ...pageOptions(draftPath), checks }) },
+    ...sealedPages(loader, id, sealed, history),
+  ];
   const last = sealed[sealed.length - 1];
   return {
     pages,
