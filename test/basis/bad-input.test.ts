@@ -1,4 +1,4 @@
-// Every case of the hostile-input corpus (bad-input.ts, test/basis/bad-input/) through the real
+// Every case of the bad-input corpus (bad-input.ts, test/basis/bad-input/) through the real
 // command line, in process: `cellbasis check <id>` and `cellbasis calc <id>` give exactly the
 // exit code and the stderr lines of the case's .expect.json, never a stack trace, in bounded
 // time and memory.
@@ -15,10 +15,11 @@ const CASES = corpusCases();
 const MAX_SECONDS = 10;
 const MAX_RSS_GROWTH_BYTES = 256 * 1024 * 1024;
 
-describe('hostile-input corpus', () => {
-  it('holds at least 60 committed files and covers every kind the hardening issue names', () => {
+describe('bad-input corpus', () => {
+  it('holds the hostile files of every kind the hardening issue names and a loader case for each diagnostic', () => {
     const files = CASES.filter((c) => !c.generate);
-    expect(files.length).toBeGreaterThanOrEqual(60);
+    expect(files.length).toBeGreaterThanOrEqual(110);
+    expect(CASES.filter((c) => c.name.startsWith('loader-')).length).toBeGreaterThanOrEqual(50);
     const kinds = ['yaml-tab', 'yaml-duplicate', 'yaml-unclosed', 'yaml-wrong-indentation', 'encoding-bom-accepted', 'encoding-crlf-accepted', 'encoding-latin1', 'empty-file', 'whitespace-only', 'size-50-mb', 'nesting-10000-lists', 'nesting-10000-mappings', 'alias-billion-laughs', 'tag-js-function', 'tag-custom', 'type-', 'unit-', 'range-', 'composition-sum', 'composition-unknown-species', 'conflict-cells-and-target-power', 'fuel-cannot-reach-utilization', 'voltage-above-nernst', 'range-7000-k', 'range-minus-300-c', 'range-liquid-water-800-c'];
     for (const kind of kinds) expect(CASES.some((c) => c.name.startsWith(kind)), kind).toBe(true);
     for (const c of CASES) {

@@ -1,6 +1,10 @@
-// The hostile-input corpus of test/basis/bad-input/: each case is a file <name>.yaml (or, for
-// the few too large to commit, a recipe to make one) and <name>.expect.json with, for each
-// command run on it, the exit code and every line it writes on stderr.
+// The bad-input corpus of test/basis/bad-input/, the one collection of inputs a basis must refuse
+// (or accept) with exact messages: each case is a file <name>.yaml (or, for the few too large to
+// commit, a recipe to make one) and <name>.expect.json with, for each command run on it, the exit
+// code and every line it writes on stderr. Hostile files are named by kind (yaml-, encoding-,
+// size-, nesting-, alias-, tag-, type-, unit-, range-, composition-, ...); the loader-* cases
+// each make one mistake in the base basis (test/helpers/fixtures/sofc-power.yaml), so that every
+// diagnostic of the loader is asserted with its message, field path and line:column.
 import { closeSync, copyFileSync, mkdirSync, openSync, readdirSync, readFileSync, writeSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
