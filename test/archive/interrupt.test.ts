@@ -8,6 +8,7 @@ import { afterAll, beforeAll, expect, it } from 'vitest';
 import { SEAL_STEPS } from '../../lib/archive/seal.ts';
 import { readSealedFolder, LOCK_FILE } from '../../lib/archive/sealed-folder.ts';
 import { run } from '../helpers/run-cli.ts';
+import { until } from '../helpers/child-process.ts';
 import { announceChromiumSkip, describeWithChromium } from '../helpers/chromium.ts';
 import { basisPath, PROJECT, removeWorkspace, seal, workspace } from '../helpers/archive-workspace.ts';
 
@@ -25,14 +26,6 @@ function startSeal(cwd: string, revision: string, pauseAt?: string): { child: Ch
   child.stderr!.on('data', (chunk: Buffer) => (stderr += chunk.toString()));
   const exited = new Promise<number | null>((resolve) => child.on('exit', (code) => resolve(code)));
   return { child, stderr: () => stderr, exited };
-}
-
-async function until(condition: () => boolean, what: string, timeoutMs = 120_000): Promise<void> {
-  const start = Date.now();
-  while (!condition()) {
-    if (Date.now() - start > timeoutMs) throw new Error(`timed out waiting for ${what}`);
-    await new Promise((r) => setTimeout(r, 20));
-  }
 }
 
 /** Kills the seal's process group; a seal that has already ended with its group (ESRCH) is left to the caller's checks. */

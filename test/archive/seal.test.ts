@@ -13,7 +13,8 @@ import { speciesDataHash } from '../../lib/thermo/species-data.ts';
 import { toolVersion } from '../../lib/core/version.ts';
 import { announceChromiumSkip, describeWithChromium } from '../helpers/chromium.ts';
 import { compact, pageTexts, pdfAttachments, pdfInfo } from '../helpers/pdf-inspect.ts';
-import { SEAL_TIMEOUT, basisPath, PROJECT, removeWorkspace, seal, sealedPath, treeDigest, workspace } from '../helpers/archive-workspace.ts';
+import { SEAL_TIMEOUT, basisPath, PROJECT, removeWorkspace, seal, sealedPath, workspace } from '../helpers/archive-workspace.ts';
+import { treeDigest } from '../helpers/tree-digest.ts';
 
 announceChromiumSkip('the seal tests');
 

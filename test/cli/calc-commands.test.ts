@@ -1,25 +1,13 @@
 // cellbasis calc and cellbasis hazards on bases written to a temporary projects/ folder:
 // the results object, located calculation errors (exit 1), and the hazard cautions the issue
 // names for a methane-fed nickel-anode solid oxide plant and a pure-hydrogen PEM unit.
-import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { parseDocument } from 'yaml';
-import { renderScaffold } from '../../lib/basis/scaffolds.ts';
 import type { Mode, TechnologyId } from '../../lib/electrochem/technologies.ts';
 import { run } from '../helpers/run-cli.ts';
+import { projectsRoot, scaffoldText } from '../helpers/scaffold-basis.ts';
 
 function project(technology: TechnologyId, mode: Mode, edits: Record<string, unknown> = {}): string {
-  const root = mkdtempSync(join(tmpdir(), 'cellbasis-calc-'));
-  const doc = parseDocument(renderScaffold(technology, mode, 'p1', '2026-11-30'));
-  for (const [path, value] of Object.entries(edits)) {
-    if (value === undefined) doc.deleteIn(path.split('.'));
-    else doc.setIn(path.split('.'), value);
-  }
-  mkdirSync(join(root, 'projects', 'p1'), { recursive: true });
-  writeFileSync(join(root, 'projects', 'p1', 'basis.yaml'), doc.toString());
-  return root;
+  return projectsRoot('calc', { p1: scaffoldText(technology, mode, 'p1', edits) });
 }
 
 describe('cellbasis calc', () => {

@@ -1,24 +1,17 @@
 // The exit codes of README.md ("Exit codes"), in process through main(argv, io): 0 success,
 // 1 validation failure, 2 usage error, 3 internal error; every failure one message on stderr
 // and never a stack trace unless CELLBASIS_DEBUG is set.
-import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
 import { main } from '../../lib/cli/main.ts';
 import type { Io } from '../../lib/cli/command.ts';
-import { renderScaffold } from '../../lib/basis/scaffolds.ts';
+import { projectsRoot, scaffoldText } from '../helpers/scaffold-basis.ts';
 import { EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, EXIT_VALIDATION } from '../../lib/core/errors.ts';
 import { run } from '../helpers/run-cli.ts';
 
 function workspace(): string {
-  const root = mkdtempSync(join(tmpdir(), 'cellbasis-exit-'));
-  const good = renderScaffold('solid-oxide', 'power', 'good', '2026-11-30');
-  for (const [id, text] of [['good', good], ['bad', good.replace('fuel-utilization: 0.80', 'fuel-utilization: 1.2')]] as const) {
-    mkdirSync(join(root, 'projects', id), { recursive: true });
-    writeFileSync(join(root, 'projects', id, 'basis.yaml'), text);
-  }
-  return root;
+  const good = scaffoldText('solid-oxide', 'power', 'good');
+  return projectsRoot('exit', { good, bad: good.replace('fuel-utilization: 0.80', 'fuel-utilization: 1.2') });
 }
 
 /** An Io whose standard output fails with a plain Error, as a full disk or a bug would. */

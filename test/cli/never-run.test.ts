@@ -2,22 +2,19 @@
 // shell are refused before anything is built (and leave no trace), template and script syntax
 // in the basis's text comes back as the same text, and `cellbasis new` refuses ids that are
 // shell or path syntax, writing nothing.
-import { existsSync, lstatSync, mkdirSync, mkdtempSync, readdirSync, writeFileSync } from 'node:fs';
+import { existsSync, lstatSync, mkdtempSync, readdirSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseDocument } from 'yaml';
-import { renderScaffold } from '../../lib/basis/scaffolds.ts';
+import { projectsRoot, scaffoldText } from '../helpers/scaffold-basis.ts';
 import { run } from '../helpers/run-cli.ts';
 
 function project(text: string): string {
-  const root = mkdtempSync(join(tmpdir(), 'cellbasis-never-run-'));
-  mkdirSync(join(root, 'projects', 'p'), { recursive: true });
-  writeFileSync(join(root, 'projects', 'p', 'basis.yaml'), text);
-  return root;
+  return projectsRoot('never-run', { p: text });
 }
 
-const SCAFFOLD = renderScaffold('solid-oxide', 'power', 'p', '2026-11-30');
+const SCAFFOLD = scaffoldText('solid-oxide', 'power', 'p');
 
 describe('nothing in a basis runs', () => {
   it.each([

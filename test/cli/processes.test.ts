@@ -4,12 +4,12 @@
 // reader that closes the pipe early ending the command quietly. exit-codes.test.ts has the
 // same codes in process, for every kind of command.
 import { spawn } from 'node:child_process';
-import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { renderScaffold } from '../../lib/basis/scaffolds.ts';
+import { projectsRoot, scaffoldText } from '../helpers/scaffold-basis.ts';
 import { corpusCases, expectOutcome, placeCase } from '../basis/bad-input.ts';
 
 const BIN = fileURLToPath(new URL('../../bin/cellbasis.js', import.meta.url));
@@ -39,10 +39,7 @@ function cellbasis(argv: string[], cwd: string, options: { env?: Record<string, 
 }
 
 function workspace(): string {
-  const root = mkdtempSync(join(tmpdir(), 'cellbasis-process-'));
-  mkdirSync(join(root, 'projects', 'good'), { recursive: true });
-  writeFileSync(join(root, 'projects', 'good', 'basis.yaml'), renderScaffold('solid-oxide', 'power', 'good', '2026-11-30'));
-  return root;
+  return projectsRoot('process', { good: scaffoldText('solid-oxide', 'power', 'good') });
 }
 
 // Each child costs seconds of start-up (tsx), so only a handful run: exit 0 and 1 come from the

@@ -7,7 +7,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { COMMANDS } from '../../lib/cli/main.ts';
-import { renderScaffold } from '../../lib/basis/scaffolds.ts';
+import { scaffoldText } from '../helpers/scaffold-basis.ts';
 import { run } from '../helpers/run-cli.ts';
 
 /** How each command is given a project id. */
@@ -33,9 +33,9 @@ const registered = (name: string) => COMMANDS.some((c) => c.name === name);
 function workspace(): { root: string; outside: string } {
   const root = mkdtempSync(join(tmpdir(), 'cellbasis-traversal-'));
   const outside = mkdtempSync(join(tmpdir(), 'cellbasis-outside-'));
-  writeFileSync(join(outside, 'basis.yaml'), renderScaffold('pem', 'power', 'outside', '2026-11-30'));
+  writeFileSync(join(outside, 'basis.yaml'), scaffoldText('pem', 'power', 'outside'));
   mkdirSync(join(root, 'projects', 'good'), { recursive: true });
-  writeFileSync(join(root, 'projects', 'good', 'basis.yaml'), renderScaffold('pem', 'power', 'good', '2026-11-30'));
+  writeFileSync(join(root, 'projects', 'good', 'basis.yaml'), scaffoldText('pem', 'power', 'good'));
   symlinkSync(outside, join(root, 'projects', 'link-out'));
   symlinkSync('/etc', join(root, 'projects', 'etc-link'));
   mkdirSync(join(root, 'projects', 'passwd-link'));

@@ -1,15 +1,12 @@
 /**
  * Shared by the archive tests: a working folder with one project made from a scaffold, sealing
- * in it, a hash of every file under a folder (to show that a command changed nothing), and byte
- * flips.
+ * in it, and byte flips (the digest of a folder tree is in tree-digest.ts).
  */
-import { createHash } from 'node:crypto';
-import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join, relative } from 'node:path';
-import { renderScaffold } from '../../lib/basis/scaffolds.ts';
+import { readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 import type { Mode, TechnologyId } from '../../lib/electrochem/technologies.ts';
 import { run } from './run-cli.ts';
+import { projectsRoot, scaffoldText } from './scaffold-basis.ts';
 
 export const PROJECT = 'demo';
 
@@ -18,10 +15,7 @@ export const SEAL_TIMEOUT = 300_000;
 
 /** A temporary working folder holding projects/demo/basis.yaml from a scaffold. */
 export function workspace(technology: TechnologyId = 'solid-oxide', mode: Mode = 'power'): string {
-  const cwd = mkdtempSync(join(tmpdir(), 'cellbasis-archive-'));
-  mkdirSync(join(cwd, 'projects', PROJECT), { recursive: true });
-  writeFileSync(basisPath(cwd), renderScaffold(technology, mode, PROJECT, '2026-11-30'));
-  return cwd;
+  return projectsRoot('archive', { [PROJECT]: scaffoldText(technology, mode, PROJECT) });
 }
 
 export function removeWorkspace(cwd: string): void {
@@ -34,23 +28,6 @@ export function basisPath(cwd: string): string {
 
 export function sealedPath(cwd: string, revision: string, file = ''): string {
   return join(cwd, 'projects', PROJECT, 'sealed', revision, file);
-}
-
-/** Every file and folder under `root` with the SHA-256 of each file ("dir" for folders). */
-export function treeDigest(root: string): Record<string, string> {
-  const out: Record<string, string> = {};
-  const walk = (dir: string) => {
-    for (const entry of readdirSync(dir, { withFileTypes: true })) {
-      const path = join(dir, entry.name);
-      const rel = relative(root, path);
-      if (entry.isDirectory()) {
-        out[`${rel}/`] = 'dir';
-        walk(path);
-      } else out[rel] = createHash('sha256').update(readFileSync(path)).digest('hex');
-    }
-  };
-  walk(root);
-  return out;
 }
 
 /** Flips the lowest bit of the byte at `at` (a fraction of the length, or an offset). */

@@ -1,5 +1,5 @@
 /** Shared by the report tests: scaffold bases of several technologies, calculated once each. */
-import { renderScaffold } from '../../lib/basis/scaffolds.ts';
+import { scaffoldText } from './scaffold-basis.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
 import type { DesignBasis } from '../../lib/basis/types.ts';
 import type { Mode, TechnologyId } from '../../lib/electrochem/technologies.ts';
@@ -29,7 +29,7 @@ export function scaffoldCase(technology: TechnologyId, mode: Mode, edit: (yaml: 
   const key = `${technology}/${mode}/${edit.toString()}`;
   const cached = cache.get(key);
   if (cached) return cached;
-  const text = edit(renderScaffold(technology, mode, 'demo', '2026-11-30'));
+  const text = edit(scaffoldText(technology, mode, 'demo'));
   const loaded = loadBasisText(text, 'projects/demo/basis.yaml', 'demo');
   if (!loaded.ok) throw new Error(loaded.errors.map((e) => `${e.path}: ${e.message}`).join('\n'));
   const one = { name: `${technology} ${mode}`, basis: loaded.basis, results: calculate(loaded.basis) };

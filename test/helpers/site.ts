@@ -5,10 +5,10 @@
  * (to show a failed build changed nothing) and captured runs of the command line.
  */
 import { createHash } from 'node:crypto';
-import { cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { cpSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { createServer, type AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
-import { join, relative } from 'node:path';
+import { join } from 'node:path';
 import { inflateSync } from 'node:zlib';
 import { PDFDocument, StandardFonts } from 'pdf-lib';
 import { loadBasisText } from '../../lib/basis/load.ts';
@@ -18,6 +18,7 @@ import type { SealManifest } from '../../lib/archive/layout.ts';
 import { SEALED_FILES, sealedDir } from '../../lib/archive/layout.ts';
 import type { DocumentStatus } from '../../lib/basis/types.ts';
 import { PACKAGE_ROOT } from '../../lib/publish/paths.ts';
+import { sha256, treeDigest } from './tree-digest.ts';
 
 export const DEMO_PROJECTS = ['corrin-beck-mcfc-biogas', 'hob-tor-pem-backup', 'kestrelford-pem-electrolyser', 'thistlemere-sofc-chp'];
 
@@ -60,8 +61,6 @@ async function onePagePdf(title: string): Promise<Uint8Array> {
   pdf.setModificationDate(new Date('2026-01-01T00:00:00Z'));
   return pdf.save();
 }
-
-const sha256 = (bytes: Uint8Array | string) => createHash('sha256').update(bytes).digest('hex');
 
 /** Writes projects/<id>/sealed/<rev>/ from the project's basis text as edited. */
 export async function sealFixture(root: string, id: string, revision: string, status: DocumentStatus, sealedOn: string, edit?: (t: string) => string): Promise<void> {
@@ -110,23 +109,6 @@ export async function sealedDemoRoot(): Promise<string> {
   await sealFixture(root, SOFC, 'B', 'issued for review', '2026-09-22');
   writeFileSync(basisFile(root, SOFC), withRevision(readFileSync(basisFile(root, SOFC), 'utf8'), 'C', 'draft'));
   return root;
-}
-
-/** Every file under `root` with its SHA-256, and every folder. */
-export function treeDigest(root: string): Record<string, string> {
-  const out: Record<string, string> = {};
-  if (!existsSync(root)) return out;
-  const walk = (dir: string) => {
-    for (const entry of readdirSync(dir, { withFileTypes: true })) {
-      const path = join(dir, entry.name);
-      if (entry.isDirectory()) {
-        out[`${relative(root, path)}/`] = 'dir';
-        walk(path);
-      } else out[relative(root, path)] = sha256(readFileSync(path));
-    }
-  };
-  walk(root);
-  return out;
 }
 
 /**

@@ -15,7 +15,8 @@ import { outline } from '../../lib/report/outline.ts';
 import { compact, imageSizes, pageTexts } from '../helpers/pdf-inspect.ts';
 import type { ChartSpec } from '../../lib/report/charts/spec.ts';
 import { run } from '../helpers/run-cli.ts';
-import { basisFile, DEMO_PROJECTS, demoRoot, EPOCH, htmlPages, sealedDemoRoot, SOFC, treeDigest } from '../helpers/site.ts';
+import { basisFile, DEMO_PROJECTS, demoRoot, EPOCH, htmlPages, sealedDemoRoot, SOFC } from '../helpers/site.ts';
+import { treeDigest } from '../helpers/tree-digest.ts';
 
 let root: string;
 

@@ -39,7 +39,8 @@ import { join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { announceChromiumSkip, describeWithChromium } from '../helpers/chromium.ts';
-import { demoRoot, EPOCH, htmlPages, sealFixture, treeDigest } from '../helpers/site.ts';
+import { demoRoot, EPOCH, htmlPages, sealFixture } from '../helpers/site.ts';
+import { treeDigest } from '../helpers/tree-digest.ts';
 import { cellbasis, expectCompleteSite, runNode, type ChildRun } from '../helpers/child-process.ts';
 
 announceChromiumSkip('the offline build tests');
