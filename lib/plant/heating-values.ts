@@ -52,10 +52,3 @@ export function streamHeatingValueW(stream: Readonly<Record<string, number>>): H
   }
   return { lhvJPerMol: lhv, hhvJPerMol: hhv };
 }
-
-/** Molar mass of a stream, kg per mol of stream (Σ x_i M_i for fractions, or kg/s for flows). */
-export function streamMass(stream: Readonly<Record<string, number>>): number {
-  let m = 0;
-  for (const [name, amount] of Object.entries(stream)) m += amount * getSpecies(name).molarMassKgPerMol;
-  return m;
-}

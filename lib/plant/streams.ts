@@ -63,20 +63,3 @@ export function scaled(flows: Readonly<Record<string, number>>, factor: number):
   for (const [k, v] of Object.entries(flows)) out[k] = v * factor;
   return out;
 }
-
-/** Drops species below `threshold` of the total (trace species of an equilibrium, for stream tables). */
-export function withoutTraces(flows: Readonly<Record<string, number>>, threshold = 1e-9): Record<string, number> {
-  const total = totalFlow(flows);
-  const out: Record<string, number> = {};
-  for (const [k, v] of Object.entries(flows)) if (v > threshold * total) out[k] = v;
-  return out;
-}
-
-/** Element amounts of a set of flows, mol/s of atoms. */
-export function elementFlows(flows: Readonly<Record<string, number>>): Record<string, number> {
-  const out: Record<string, number> = {};
-  for (const [k, v] of Object.entries(flows)) {
-    for (const [e, n] of Object.entries(getSpecies(k).formula)) out[e] = (out[e] ?? 0) + n * v;
-  }
-  return out;
-}

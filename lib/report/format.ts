@@ -111,8 +111,3 @@ export function formatTemperature(kelvin: number): string {
 export function formatPower(watts: number, digits = 4): string {
   return Math.abs(watts) >= 1000 ? formatQuantity(watts / 1000, 'kW', digits) : formatQuantity(watts, 'W', digits);
 }
-
-/** A nullable value, or the text given for its absence. */
-export function orAbsent<T>(value: T | null | undefined, format: (v: T) => string, absent: string): string {
-  return value === null || value === undefined ? absent : format(value);
-}

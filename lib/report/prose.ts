@@ -19,8 +19,3 @@ export function prose(source: string): Paragraph {
     return piece === '' ? [] : [{ text: piece }];
   });
 }
-
-/** Inline mathematics alone, e.g. a symbol in a table cell. */
-export function inlineMath(tex: string): TrustedHtml {
-  return renderTex(tex);
-}

@@ -23,11 +23,6 @@ export function texPressure(label: string, electrode: Electrode): string {
   return `p_{${texSpecies(label)},\\mathrm{${electrode}}}`;
 }
 
-/** Chemical potential of a species (at an electrode): \mu_{H2,f}. */
-export function texPotential(label: string, electrode?: Electrode): string {
-  return `\\mu_{${texSpecies(label)}${electrode ? `,\\mathrm{${electrode}}` : ''}}`;
-}
-
 /** A number for a substituted equation, in parentheses when negative so that signs read clearly; `trim` drops trailing zeros. */
 export function texValue(value: number, digits = 5, trim = false): string {
   const text = trim ? texTrimmed(value, digits) : texNumber(value, digits);
