@@ -8,11 +8,11 @@ import { mkdtempSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { readRegularFile, sizeText } from '../../lib/core/read-file.ts';
+import { readRegularFile, sizeText, type ReadLimits } from '../../lib/core/read-file.ts';
 import { UserError } from '../../lib/core/errors.ts';
 
 const dir = mkdtempSync(join(tmpdir(), 'cellbasis-read-'));
-const limits = { maxBytes: 1024, what: 'public key' };
+const limits: ReadLimits = { maxBytes: 1024, what: 'public key' };
 
 function refusal(path: string, options = limits): string {
   try {
