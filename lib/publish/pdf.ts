@@ -61,8 +61,13 @@ export interface PrinterOptions {
   pages?: number;
   /** Chromium binary (default: findChromium()). */
   executablePath?: string;
-  /** Longest wait for one page to load and draw its charts, ms (default 60 000). */
+  /** Longest wait for Chromium to start and for one page to load, ms (default 60 000). */
   timeoutMs?: number;
+  /**
+   * Longest wait for a loaded page's charts to report ready, ms (default: timeoutMs). Kept apart
+   * from the start-up wait so that a short chart wait never races a slow Chromium launch.
+   */
+  chartsTimeoutMs?: number;
   /** Told of each request the page tried to make and that was refused. */
   onBlockedRequest?: (url: string) => void;
 }
@@ -96,16 +101,16 @@ async function settleFonts(page: Page): Promise<void> {
 }
 
 /** Loads a page and waits until its fonts and charts are drawn. */
-async function loadForPrint(page: Page, url: string, timeoutMs: number): Promise<void> {
+async function loadForPrint(page: Page, url: string, timeoutMs: number, chartsTimeoutMs: number): Promise<void> {
   await page.goto(url, { waitUntil: 'load', timeout: timeoutMs });
   await page.addStyleTag({ content: NO_MARGIN_BOXES });
   await settleFonts(page);
   const hasCharts = await page.evaluate(() => document.documentElement.hasAttribute('data-charts-ready') || document.querySelector('canvas') !== null);
   if (!hasCharts) return;
   try {
-    await page.waitForFunction(() => document.documentElement.dataset.chartsReady === 'true', undefined, { timeout: timeoutMs });
+    await page.waitForFunction(() => document.documentElement.dataset.chartsReady === 'true', undefined, { timeout: chartsTimeoutMs });
   } catch {
-    throw new UserError(`pdf: ${url}: the charts did not report ready (<html data-charts-ready="true">) within ${Math.round(timeoutMs / 1000)} s`, EXIT_VALIDATION);
+    throw new UserError(`pdf: ${url}: the charts did not report ready (<html data-charts-ready="true">) within ${Math.round(chartsTimeoutMs / 1000)} s`, EXIT_VALIDATION);
   }
 }
 
@@ -155,6 +160,7 @@ function printPage(page: Page, meta: PdfMeta): Promise<Buffer> {
 export async function withPdfPrinter<T>(work: (printer: PdfPrinter) => Promise<T>, options: PrinterOptions = {}): Promise<T> {
   const browser = await openBrowser(options);
   const timeoutMs = options.timeoutMs ?? 60_000;
+  const chartsTimeoutMs = options.chartsTimeoutMs ?? timeoutMs;
   try {
     const pools = new Map<PdfMeta['paper'], Promise<PagePool>>();
     const poolFor = (paper: PdfMeta['paper']) => {
@@ -170,7 +176,7 @@ export async function withPdfPrinter<T>(work: (printer: PdfPrinter) => Promise<T
         let printed: Buffer;
         try {
           await page.emulateMedia({ media: 'print' });
-          await loadForPrint(page, url, timeoutMs);
+          await loadForPrint(page, url, timeoutMs, chartsTimeoutMs);
           printed = await printPage(page, meta);
         } catch (error) {
           await pool.discard(page);

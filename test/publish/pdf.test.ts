@@ -137,7 +137,7 @@ describeWithChromium('PDF printer', () => {
   it('says so when the charts never report ready, and goes on printing the pages waiting for the pool', async () => {
     const stuck = page('<canvas></canvas>', 'data-charts-ready="false"');
     const fine = page('<h1>fine</h1>');
-    const results = await withPdfPrinter((printer) => Promise.allSettled([fine, stuck, fine, fine].map((p) => printer.print(p, meta))), { pages: 1, timeoutMs: 1500 });
+    const results = await withPdfPrinter((printer) => Promise.allSettled([fine, stuck, fine, fine].map((p) => printer.print(p, meta))), { pages: 1, chartsTimeoutMs: 1500 });
     expect(results.map((r) => r.status)).toEqual(['fulfilled', 'rejected', 'fulfilled', 'fulfilled']);
     expect((results[1] as PromiseRejectedResult).reason.message).toMatch(/charts did not report ready \(<html data-charts-ready="true">\) within 2 s/);
   });
