@@ -5,6 +5,8 @@
  * meta give the same bytes on the same Chromium.
  */
 import { PDFArray, PDFDict, PDFDocument, PDFHexString, PDFName, PDFRef, PDFString } from 'pdf-lib';
+import { posix, sep } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { PDF_LIB_WHOLE, setPdfProperties, type PdfMeta } from '../core/pdf-properties.ts';
 
 /**
@@ -80,10 +82,47 @@ export function renumberStructureIds(pdf: PDFDocument): number {
   return elements.length;
 }
 
-/** Sets the document properties, dates and attachments of a printed PDF, and names its structure elements by position. */
-export async function finishPdf(printed: Uint8Array, meta: PdfMeta, chromiumVersion: string): Promise<Uint8Array> {
+/**
+ * Chromium writes a page's relative links as absolute URIs (ISO 32000-1 §12.6.4.7, /S /URI):
+ * printed from file:///tmp/x/site.123.build/projects/p/index.html, a link to rev-A/index.html
+ * becomes file:///tmp/x/site.123.build/projects/p/rev-A/index.html, a folder that is renamed or
+ * deleted once the build ends, so the PDF's links were dead and its bytes depended on where it
+ * was built. Every file: URI is written back relative to the printed page's folder (the PDF
+ * sits beside its page, so a viewer resolving it against the PDF's own location reaches the
+ * same file); other URIs are left as they are. Returns how many were rewritten.
+ */
+export function relativiseFileLinks(pdf: PDFDocument, pageUrl: string): number {
+  if (!/^file:/i.test(pageUrl)) return 0;
+  const pageDir = posix.dirname(fileURLToPath(pageUrl).split(sep).join('/'));
+  const [ANNOTS, A, S, URI] = ['Annots', 'A', 'S', 'URI'].map((n) => PDFName.of(n)) as [PDFName, PDFName, PDFName, PDFName];
+  let rewritten = 0;
+  for (const page of pdf.getPages()) {
+    const annots = page.node.lookupMaybe(ANNOTS, PDFArray);
+    for (let i = 0; i < (annots?.size() ?? 0); i++) {
+      const action = annots!.lookupMaybe(i, PDFDict)?.lookupMaybe(A, PDFDict);
+      const uri = action?.get(URI);
+      if (!action || action.get(S) !== URI || !(uri instanceof PDFString || uri instanceof PDFHexString)) continue;
+      const text = uri.decodeText();
+      if (!/^file:/i.test(text)) continue;
+      const target = new URL(text);
+      const path = fileURLToPath(target).split(sep).join('/');
+      const relative = posix.relative(pageDir, path) || posix.basename(path);
+      action.set(URI, PDFString.of(relative.split('/').map(encodeURIComponent).join('/') + target.search + target.hash));
+      rewritten++;
+    }
+  }
+  return rewritten;
+}
+
+/**
+ * Sets the document properties, dates and attachments of a printed PDF, names its structure
+ * elements by position and writes its links to local files relative to `pageUrl`, the page
+ * it was printed from.
+ */
+export async function finishPdf(printed: Uint8Array, meta: PdfMeta, chromiumVersion: string, pageUrl: string): Promise<Uint8Array> {
   const pdf = await PDFDocument.load(printed, { updateMetadata: false, ...PDF_LIB_WHOLE });
   renumberStructureIds(pdf);
+  relativiseFileLinks(pdf, pageUrl);
   await setPdfProperties(pdf, meta, chromiumVersion);
   return pdf.save({ useObjectStreams: false, objectsPerTick: Infinity });
 }

@@ -183,7 +183,7 @@ export async function withPdfPrinter<T>(work: (printer: PdfPrinter) => Promise<T
           throw error;
         }
         pool.release(page);
-        return finishPdf(printed, meta, browser.version());
+        return finishPdf(printed, meta, browser.version(), url);
       },
     };
     return await work(printer);

@@ -1,6 +1,6 @@
 // The PDF printer on a page of its own: paper, running header and footer on every page,
 // document properties and dates, attachments, charts waited for, network refused.
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, expect, it } from 'vitest';
@@ -140,6 +140,21 @@ describeWithChromium('PDF printer', () => {
     const results = await withPdfPrinter((printer) => Promise.allSettled([fine, stuck, fine, fine].map((p) => printer.print(p, meta))), { pages: 1, chartsTimeoutMs: 1500 });
     expect(results.map((r) => r.status)).toEqual(['fulfilled', 'rejected', 'fulfilled', 'fulfilled']);
     expect((results[1] as PromiseRejectedResult).reason.message).toMatch(/charts did not report ready \(<html data-charts-ready="true">\) within 2 s/);
+  });
+
+  it('writes links to local files relative to the page, so they work wherever the PDF is copied (ISO 32000-1 §12.6.4.7 URI actions)', async () => {
+    const folder = join(dir, 'a project');
+    mkdirSync(join(folder, 'rev-A'), { recursive: true });
+    const html = join(folder, 'index.html');
+    writeFileSync(html, `<!doctype html><html lang="en"><head><meta charset="utf-8"><title>t</title></head><body><p><a href="rev-A/index.html">revision A</a> <a href="../other%20one/index.html#heat">other</a> <a href="https://example.org/x?y=1">web</a></p></body></html>`);
+    const printed = await withPdfPrinter((printer) => printer.print(html, meta));
+    const doc = await PDFDocument.load(printed);
+    const uris = doc.getPages().flatMap((p) => {
+      const annots = p.node.lookupMaybe(PDFName.of('Annots'), PDFArray);
+      return Array.from({ length: annots?.size() ?? 0 }, (_, i) => annots!.lookupMaybe(i, PDFDict)?.lookupMaybe(PDFName.of('A'), PDFDict)?.lookupMaybe(PDFName.of('URI'), PDFString)?.decodeText());
+    });
+    expect(uris.sort()).toEqual(['../other%20one/index.html#heat', 'https://example.org/x?y=1', 'rev-A/index.html']);
+    expect(Buffer.from(printed).includes('file:')).toBe(false);
   });
 });
 
