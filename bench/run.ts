@@ -15,9 +15,9 @@ const sections: Record<string, () => Promise<Row[]> | Row[]> = {
   site: () => benchSite(SIZES),
 };
 
-/** N of the calculation and site benchmarks: 10, 100, 500, or BENCH_SIZES=10,100 for a shorter run. */
+/** N of the calculation and site benchmarks: 10, 100, 500 and 2000, or BENCH_SIZES=10,100 for a shorter run. */
 function sizes(): number[] {
-  const raw = process.env.BENCH_SIZES ?? '10,100,500';
+  const raw = process.env.BENCH_SIZES ?? '10,100,500,2000';
   const sizes = raw.split(',').map((t) => t.trim());
   if (sizes.some((t) => !/^[1-9]\d{0,4}$/.test(t))) {
     process.stderr.write(`bench: BENCH_SIZES must be project counts from 1 to 99999 separated by commas (e.g. 10,100), got "${raw}"\n`);

@@ -151,6 +151,7 @@ async function pdfTimes(root: string, count: number): Promise<{ one: number; two
 
 export async function benchSite(counts: number[]): Promise<Row[]> {
   const rows: Row[] = [];
+  const rssByCount = new Map<number, number>();
   for (const n of counts) {
     const root = mkdtempSync(join(tmpdir(), 'cellbasis-bench-site-'));
     const section = `site N=${n}`;
@@ -172,7 +173,14 @@ export async function benchSite(counts: number[]): Promise<Row[]> {
       const floorRatio = warm / floor.ms;
       rows.push({ section, measure: 'ratio: cached build / finished-page floor (our rendering)', value: `${floorRatio.toFixed(1)} ×`, target: '≤ 3 ×', verdict: floorRatio <= 3 ? 'met' : 'MISSED' });
       const rss = (await peakRss(root)) / 1024;
-      rows.push({ section, measure: 'peak memory of a full build (RSS)', value: `${rss.toFixed(0)} MiB`, target: '≤ 1024 MiB', verdict: rss <= 1024 ? 'met' : 'MISSED' });
+      rssByCount.set(n, rss);
+      rows.push({ section, measure: 'peak memory of a full build (RSS)', value: `${rss.toFixed(0)} MiB`, target: '≤ 500 MiB', verdict: rss <= 500 ? 'met' : 'MISSED' });
+      // Memory must not grow with the portfolio: within 15 % of the figure at N = 100 (issue 23).
+      const reference = rssByCount.get(100);
+      if (reference !== undefined && n > 100) {
+        const growth = rss / reference - 1;
+        rows.push({ section, measure: 'peak memory against N = 100', value: `${growth >= 0 ? '+' : ''}${(growth * 100).toFixed(0)} %`, target: '≤ +15 %', verdict: growth <= 0.15 ? 'met' : 'MISSED' });
+      }
       if (findChromium()) {
         const { one, two } = await pdfTimes(root, Math.min(n, 6));
         rows.push({ section, measure: 'PDF per document, one browser reused', value: seconds(one), target: '≤ 1.5 s', verdict: one <= 1500 ? 'met' : 'MISSED' });
