@@ -22,6 +22,9 @@ function checkInput(input: HazardInput): void {
     const v = input[field];
     if (!Number.isFinite(v) || v <= 0) throw new UserError(`hazards: ${field} must be a positive finite number, got ${v}`);
   }
+  const dc = input.dcVoltage;
+  if (!dc || !Number.isFinite(dc.voltageV) || dc.voltageV < 0) throw new UserError(`hazards: dcVoltage.voltageV must be a finite number ≥ 0, got ${dc?.voltageV}`);
+  if (!dc.description.trim()) throw new UserError('hazards: dcVoltage.description must say what the voltage is');
   const ids = new Set<string>();
   for (const s of input.streams) {
     if (ids.has(s.id)) throw new UserError(`hazards: stream id "${s.id}" is used twice`);
@@ -65,6 +68,8 @@ export function assessHazards(input: HazardInput): HazardAssessment {
       fuelPressure_bar: input.fuelPressureBar,
       airPressure_bar: input.airPressureBar,
       ambientTemperature_K: input.ambientTemperatureK,
+      dcVoltage_V: input.dcVoltage.voltageV,
+      dcVoltageDescription: input.dcVoltage.description,
     },
     substances: substanceRows(streams, concerns),
     streams,

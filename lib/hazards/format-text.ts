@@ -6,6 +6,7 @@
  */
 import { grid } from '../core/plain-text.ts';
 import { formatCelsius, formatNumber } from './numbers.ts';
+import { citation } from './standards.ts';
 import { SEVERITIES, type Caution, type HazardAssessment, type SourcedValue, type StreamIndicators, type SubstanceRow } from './types.ts';
 
 const WIDTH = 96;
@@ -28,7 +29,7 @@ const num = (v: number | null | undefined): string => (v === null || v === undef
 const yes = (b: boolean): string => (b ? 'yes' : 'no');
 
 function caution(c: Caution): string {
-  const standards = c.standards.map((s) => `${s.number} (${s.title})`).join('; ');
+  const standards = c.standards.map((s) => `${citation(s)} (${s.title})`).join('; ');
   return (
     `${c.severity.toUpperCase().padEnd(8)}${c.title}  [${c.id}]\n` +
     wrap(c.text, '  ') +
@@ -53,10 +54,11 @@ function streamRow(s: StreamIndicators): string[] {
     num(s.carbonMonoxide?.timesIdlh),
     num(s.hydrogenPartialPressure_bar),
     s.autoignition ? `${formatNumber(s.autoignition.lowest_C)} ${s.autoignition.species}` : '-',
+    s.autoignition?.temperatureClass ?? '-',
   ];
 }
 
-const STREAM_HEADER = ['stream', 'role', 'T °C', 'p bar', 'combustibles %', 'LFL %', 'UFL %', 'gas LFL %', 'with air', 'inside range', 'CO ppm', '× IDLH', 'pH2 bar', 'AIT °C'];
+const STREAM_HEADER = ['stream', 'role', 'T °C', 'p bar', 'combustibles %', 'LFL %', 'UFL %', 'gas LFL %', 'with air', 'inside range', 'CO ppm', '× IDLH', 'pH2 bar', 'AIT °C', 'class'];
 
 function sourced(label: string, v: SourcedValue<number | string>): string {
   return `${label} ${typeof v.value === 'number' ? formatNumber(v.value) : v.value} (${v.source}${v.memory ? ', from memory' : ''})`;
@@ -70,7 +72,7 @@ function substanceSources(s: SubstanceRow): string {
     ...s.minimumIgnitionEnergy_mJ.map((v) => sourced('MIE mJ', v)),
     ...(s.limitingOxygen_percent ? [sourced('LOC % O2', s.limitingOxygen_percent)] : []),
     ...(s.gasGroup ? [sourced('group', s.gasGroup)] : []),
-    ...(s.temperatureClass ? [sourced('class', s.temperatureClass)] : []),
+    ...(s.temperatureClass ? [`class ${s.temperatureClass.id} (below the lowest AIT)`] : []),
     ...Object.entries(s.exposure_ppm).map(([limit, v]) => sourced(`${limit} ppm`, v)),
     ...(s.inAir_percent ? [sourced('in dry air %', s.inAir_percent)] : []),
     ...(s.enrichedAbove_percent ? [sourced('enriched above %', s.enrichedAbove_percent)] : []),
@@ -89,7 +91,7 @@ export function formatHazardsText(a: HazardAssessment): string {
     wrap(
       `Basis: ${b.technologyName}, ${b.mode} mode; nickel-bearing fuel electrode or catalyst: ${yes(b.nickelBearing)}; ` +
         `operating ${formatCelsius(b.operatingTemperature_K)}\u00a0°C; fuel side ${num(b.fuelPressure_bar)}\u00a0bar, air side ${num(b.airPressure_bar)}\u00a0bar (absolute); ` +
-        `ambient ${formatCelsius(b.ambientTemperature_K)}\u00a0°C.`,
+        `ambient ${formatCelsius(b.ambientTemperature_K)}\u00a0°C; DC voltage ${num(b.dcVoltage_V)}\u00a0V (${b.dcVoltageDescription}).`,
     ),
     '',
     `Cautions: ${counts}\n`,

@@ -8,13 +8,15 @@
  *   immediately dangerous), with the carbon monoxide limits set out on their own;
  * - hydrogen partial pressure p_H2 = x_H2 · p (ideal gas), for the embrittlement caution;
  * - the lowest recorded autoignition temperature of the combustibles present, against the stream
- *   and the operating temperature (a leak above it ignites in air without an ignition source);
+ *   and the operating temperature (a leak above it ignites in air without an ignition source),
+ *   and the temperature class whose maximum surface temperature is below it (temperature-class.ts);
  * - present species with no hazard entry.
  */
 import { ZERO_CELSIUS_K } from '../core/units.ts';
 import { gasPhase } from './composition.ts';
 import { flammableOnMixingWithAir, insideRangeScreen, isInside, limitingOxygen, mixtureLimits, type MixtureLimits } from './flammability.ts';
 import { findSubstance, isNonHazardous, substance } from './substances.ts';
+import { temperatureClassBelow } from './temperature-class.ts';
 import { presenceFraction, threshold } from './thresholds.ts';
 import type {
   AutoignitionIndicator,
@@ -77,6 +79,7 @@ function autoignition(present: [string, number][], temperatureK: number, operati
     if (!ait) continue;
     const lowest_K = ait.value + ZERO_CELSIUS_K;
     if (lowest === null || lowest_K < lowest.lowest_K) {
+      const temperatureClass = temperatureClassBelow(ait.value);
       lowest = {
         lowest_K,
         lowest_C: ait.value,
@@ -85,6 +88,8 @@ function autoignition(present: [string, number][], temperatureK: number, operati
         citation: ait.citation,
         streamAbove: temperatureK >= lowest_K,
         operatingAbove: operatingTemperatureK >= lowest_K,
+        temperatureClass: temperatureClass?.id ?? null,
+        maxSurface_C: temperatureClass?.maxSurface_C ?? null,
       };
     }
   }

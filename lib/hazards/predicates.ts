@@ -8,9 +8,10 @@
  */
 import type { TechnologyId } from '../electrochem/technologies.ts';
 import { STANDARD_ATMOSPHERE_PA, PA_PER_BAR } from '../thermo/constants.ts';
-import { ZERO_CELSIUS_K } from '../core/units.ts';
+import { parseQuantity, ZERO_CELSIUS_K } from '../core/units.ts';
 import { formatCelsius, formatList, formatNumber as fmt } from './numbers.ts';
 import { findSubstance, substance } from './substances.ts';
+import { temperatureClassBelow } from './temperature-class.ts';
 import { threshold } from './thresholds.ts';
 import type { HazardInput, SpeciesShare, StreamIndicators, StreamRole } from './types.ts';
 
@@ -27,6 +28,11 @@ export interface RuleParams {
   technology?: TechnologyId;
   /** Only streams of these roles count (e.g. feed: a substance the plant is fed, not a trace an equilibrium forms). */
   roles?: readonly StreamRole[];
+  /**
+   * Only where a feed carries the substance: what an equilibrium calculation forms from feed
+   * species the basis treats as inert (ammonia from the N2 of natural gas or air) is not counted.
+   */
+  onlyWhereFed?: boolean;
 }
 
 export interface Match {
@@ -39,7 +45,6 @@ export interface Match {
 export type Predicate = (ctx: RuleContext, params: RuleParams) => Match | null;
 
 const GAS_GROUPS = ['IIA', 'IIB', 'IIC'];
-const TEMPERATURE_CLASSES = ['T1', 'T2', 'T3', 'T4', 'T5', 'T6'];
 
 const names = (streams: StreamIndicators[]): string => formatList(streams.map((s) => s.name));
 
@@ -57,7 +62,13 @@ function basisMatch(values: Values): Match {
   return { triggeredBy: [], values, each: [], escalate: false };
 }
 
-const substancePresent: Predicate = (ctx, params) => {
+/** Whether the rule counts the substance only where a feed carries it, and no feed does. */
+function notFed(ctx: RuleContext, params: RuleParams): boolean {
+  return params.onlyWhereFed === true && !ctx.streams.some((s) => s.role === 'feed' && shareOf(s, params.substance!));
+}
+
+/** The substance in streams (of the rule's roles), at any concentration at or above the presence threshold. */
+function presentIn(ctx: RuleContext, params: RuleParams): Match | null {
   const label = params.substance!;
   const idlh = substance(label).exposure_ppm.idlh?.value;
   const streams = ctx.streams.filter((s) => shareOf(s, label) && (!params.roles || params.roles.includes(s.role)));
@@ -84,7 +95,9 @@ const substancePresent: Predicate = (ctx, params) => {
     },
     maxTimesIdlh !== undefined && maxTimesIdlh >= 1,
   );
-};
+}
+
+const substancePresent: Predicate = (ctx, params) => (notFed(ctx, params) ? null : presentIn(ctx, params));
 
 /** The lowest time-weighted exposure limit recorded for a substance (NIOSH REL, OSHA PEL, ACGIH TLV), ppm. */
 function lowestTwa_ppm(label: string): number | undefined {
@@ -94,16 +107,18 @@ function lowestTwa_ppm(label: string): number | undefined {
 }
 
 /**
- * The substance in streams at or above its lowest time-weighted exposure limit. For a gas that
- * ambient air carries itself (CO2), presence alone would raise the caution for every air stream:
- * a stream below the limit cannot by leaking bring a room above it, so such streams do not count.
+ * The substance in streams at or above its lowest time-weighted exposure limit: a stream below
+ * the limit cannot, by leaking, bring a room above it. For a gas that ambient air carries itself
+ * (CO2), presence alone would raise the caution for every air stream; for one an equilibrium
+ * forms as ppm traces (ammonia from nitrogen), presence alone would raise it for every fuel gas
+ * with N2 in it.
  */
 const substanceAtExposureLimit: Predicate = (ctx, params) => {
   const label = params.substance!;
   const limit = lowestTwa_ppm(label);
-  if (limit === undefined) return null;
+  if (limit === undefined || notFed(ctx, params)) return null;
   const streams = ctx.streams.filter((s) => (shareOf(s, label)?.mole_percent ?? 0) * 1e4 >= limit);
-  const m = substancePresent({ ...ctx, streams }, params);
+  const m = presentIn({ ...ctx, streams }, params);
   return m && { ...m, values: { ...m.values, limit_ppm: fmt(limit) } };
 };
 
@@ -145,18 +160,34 @@ const outletFlammableOnMixing: Predicate = (ctx) =>
 
 const streamInsideFlammableRange: Predicate = (ctx) => matchOf(ctx.streams.filter((s) => s.insideFlammableRange), flammabilityValues);
 
-/** Most demanding gas group and temperature class among the combustibles of the given streams. */
+/**
+ * Equipment classification for the combustibles of the given streams: the most demanding gas
+ * group recorded for them (IIA < IIB < IIC), and the temperature class whose maximum surface
+ * temperature is below the lowest autoignition temperature recorded for any of them
+ * (temperature-class.ts), with the species and source that set it.
+ */
 function classification(streams: StreamIndicators[]): Values {
   const labels = [...new Set(streams.flatMap((s) => s.combustibles.map((c) => c.species)))];
-  const classified = labels.filter((l) => findSubstance(l)?.gasGroup && findSubstance(l)?.temperatureClass);
-  const unrecorded = labels.filter((l) => !classified.includes(l));
-  const worst = (order: string[], pick: (l: string) => string) =>
-    classified.map(pick).reduce((a, b) => (order.indexOf(b) > order.indexOf(a) ? b : a), order[0]!);
+  const nameOf = (l: string) => findSubstance(l)!.name;
+  const grouped = labels.filter((l) => findSubstance(l)?.gasGroup);
+  const ungrouped = labels.filter((l) => !grouped.includes(l));
+  const withAit = labels.filter((l) => findSubstance(l)?.lowestAutoignition_C);
+  const noAit = labels.filter((l) => !withAit.includes(l));
+  const gasGroup = grouped.map((l) => findSubstance(l)!.gasGroup!.value).reduce<string | undefined>((a, b) => (a === undefined || GAS_GROUPS.indexOf(b) > GAS_GROUPS.indexOf(a) ? b : a), undefined);
+  const lowest = withAit.reduce<string | undefined>((a, b) => (a === undefined || findSubstance(b)!.lowestAutoignition_C!.value < findSubstance(a)!.lowestAutoignition_C!.value ? b : a), undefined);
+  const ait = lowest === undefined ? undefined : findSubstance(lowest)!.lowestAutoignition_C!;
+  const temperatureClass = ait === undefined ? null : temperatureClassBelow(ait.value);
   return {
-    gasGroup: classified.length ? worst(GAS_GROUPS, (l) => findSubstance(l)!.gasGroup!.value) : undefined,
-    temperatureClass: classified.length ? worst(TEMPERATURE_CLASSES, (l) => findSubstance(l)!.temperatureClass!.value) : undefined,
-    classifiedBy: classified.length ? formatList(classified.map((l) => findSubstance(l)!.name)) : undefined,
-    unrecorded: unrecorded.length ? formatList(unrecorded.map((l) => findSubstance(l)!.name)) : undefined,
+    gasGroup,
+    groupedBy: grouped.length ? formatList(grouped.map(nameOf)) : undefined,
+    ungrouped: ungrouped.length ? formatList(ungrouped.map(nameOf)) : undefined,
+    temperatureClass: temperatureClass?.id,
+    maxSurface: temperatureClass ? fmt(temperatureClass.maxSurface_C) : undefined,
+    ait: ait ? fmt(ait.value) : undefined,
+    aitSpecies: lowest === undefined ? undefined : nameOf(lowest),
+    aitSource: ait?.source,
+    belowEveryClass: ait && !temperatureClass ? fmt(ait.value) : undefined,
+    noAit: noAit.length ? formatList(noAit.map(nameOf)) : undefined,
   };
 }
 
@@ -173,7 +204,14 @@ const hotHydrogen: Predicate = (ctx) => {
   );
 };
 
-const aboveAtmospheric: Predicate = (ctx) => {
+/**
+ * The highest pressure of the basis (either electrode side or any stream) above the lower of the
+ * thresholds of the pressure-equipment rules the caution paraphrases: gauge pressure
+ * p − p_atm (p_atm the standard atmosphere) > min(p_EU, p_ASME), with p_EU = 0.5 bar (Directive
+ * 2014/68/EU, Article 1(1)) and p_ASME = 15 psi (ASME BPVC Section VIII, Division 1, 2021, 1.2(i)),
+ * from thresholds.yaml.
+ */
+const pressureEquipmentScope: Predicate = (ctx) => {
   const atmosphere = STANDARD_ATMOSPHERE_PA / PA_PER_BAR;
   const candidates: [string, number][] = [
     ['on the fuel-electrode side', ctx.input.fuelPressureBar],
@@ -181,8 +219,40 @@ const aboveAtmospheric: Predicate = (ctx) => {
     ...ctx.streams.map((s): [string, number] => [`in ${s.name}`, s.pressure_bar]),
   ];
   const [where, max] = candidates.reduce((a, b) => (b[1] > a[1] ? b : a));
-  if (!(max > atmosphere)) return null;
-  return basisMatch({ where, maxPressure_bar: fmt(max), maxGauge_bar: fmt(max - atmosphere), atmosphere_bar: fmt(atmosphere, 6) });
+  const gauge = max - atmosphere;
+  const eu = threshold('pressureEquipmentEu_barGauge');
+  const asmePsi = threshold('pressureVesselAsme_psiGauge');
+  const asme = parseQuantity(`${asmePsi} psi`, 'pressure').si / PA_PER_BAR;
+  if (!(gauge > Math.min(eu, asme))) return null;
+  return basisMatch({
+    where,
+    maxPressure_bar: fmt(max),
+    maxGauge_bar: fmt(gauge),
+    atmosphere_bar: fmt(atmosphere, 6),
+    eu_barGauge: fmt(eu),
+    euRelation: gauge > eu ? 'above' : 'not above',
+    asme_psiGauge: fmt(asmePsi),
+    asme_barGauge: fmt(asme),
+    asmeRelation: gauge > asme ? 'above' : 'not above',
+  });
+};
+
+/**
+ * A DC voltage above the extra-low-voltage band (U > 120 V ripple-free d.c., IEC 61140:2016), read
+ * from the one input `dcVoltage` of the basis; above 1 500 V d.c. (the end of the low-voltage band)
+ * the text says the system is high voltage.
+ */
+const dcAboveExtraLowVoltage: Predicate = (ctx) => {
+  const { voltageV, description } = ctx.input.dcVoltage;
+  const elv = threshold('extraLowVoltageDc_V');
+  if (!(voltageV > elv)) return null;
+  const lv = threshold('lowVoltageDc_V');
+  return basisMatch({
+    dcVoltage: fmt(voltageV),
+    dcVoltageDescription: description,
+    elv: fmt(elv),
+    aboveLowVoltage: voltageV > lv ? fmt(lv) : undefined,
+  });
 };
 
 function autoignitionValues(s: StreamIndicators): Values {
@@ -243,7 +313,8 @@ export const PREDICATES: Readonly<Record<string, Predicate>> = {
   'stream-inside-flammable-range': streamInsideFlammableRange,
   'flammable-on-mixing': flammableOnMixing,
   'hot-hydrogen': hotHydrogen,
-  'above-atmospheric': aboveAtmospheric,
+  'pressure-equipment-scope': pressureEquipmentScope,
+  'dc-above-extra-low-voltage': dcAboveExtraLowVoltage,
   'stream-above-autoignition': streamAboveAutoignition,
   'operating-above-autoignition': operatingAboveAutoignition,
   'oxygen-enriched': oxygenEnriched,

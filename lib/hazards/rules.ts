@@ -23,6 +23,7 @@ const RawRule = z.strictObject({
   substance: z.string().optional(),
   technology: z.enum(TECHNOLOGY_IDS).optional(),
   roles: z.array(z.enum(STREAM_ROLES)).optional(),
+  onlyWhereFed: z.boolean().optional(),
   severity: SeverityId,
   escalate: z.strictObject({ to: SeverityId, when: z.string() }).optional(),
   concerns: z.array(z.string()).optional(),
@@ -43,6 +44,7 @@ function check(rule: Rule): void {
   if (!(rule.when in PREDICATES)) fail(`unknown condition "${rule.when}"`);
   if ((rule.when === 'substance-present' || rule.when === 'substance-at-exposure-limit') && !rule.substance) fail(`${rule.when} needs a substance`);
   if (rule.when === 'technology-is' && !rule.technology) fail('technology-is needs a technology');
+  if (rule.onlyWhereFed && !rule.substance) fail('onlyWhereFed needs a substance');
   for (const label of [rule.substance, ...(rule.concerns ?? [])]) {
     if (label !== undefined && !findSubstance(label)) fail(`unknown substance "${label}"`);
   }
@@ -102,7 +104,7 @@ export interface TriggeredRule {
 /** Every rule whose condition holds, with its rendered caution, in the order of the table. */
 export function evaluateRules(ctx: RuleContext): TriggeredRule[] {
   return rules().flatMap((rule) => {
-    const match = PREDICATES[rule.when]!(ctx, { substance: rule.substance, technology: rule.technology, ...(rule.roles ? { roles: rule.roles } : {}) });
+    const match = PREDICATES[rule.when]!(ctx, { substance: rule.substance, technology: rule.technology, onlyWhereFed: rule.onlyWhereFed, ...(rule.roles ? { roles: rule.roles } : {}) });
     return match ? [{ rule, caution: render(rule, match, ctx.input.mode) }] : [];
   });
 }

@@ -1,6 +1,6 @@
 /**
  * The standards, codes and regulations the hazard cautions cite (data/standards.yaml), parsed
- * and checked at first use. Cited for orientation only; editions and adoption are for the
+ * and checked at first use, each with the edition (or year) it is cited at. Cited for orientation only; editions and adoption are for the
  * engineer responsible and the authority having jurisdiction to confirm.
  */
 import { readDataFile } from '../core/data-file.ts';
@@ -9,6 +9,8 @@ import type { StandardRef } from './types.ts';
 
 const RawStandard = z.strictObject({
   number: z.string(),
+  /** The edition, year or date cited; it must name a year. */
+  edition: z.string().regex(/\b(19|20)\d\d\b/, 'the edition must name its year'),
   title: z.string(),
   publisher: z.string(),
   scope: z.string(),
@@ -34,8 +36,13 @@ export function standard(id: string): Standard {
   return s;
 }
 
-/** The reference a caution carries: id, number and title. */
+/** The reference a caution carries: id, number, edition and title. */
 export function standardRef(id: string): StandardRef {
   const s = standard(id);
-  return { id, number: s.number, title: s.title };
+  return { id, number: s.number, edition: s.edition, title: s.title };
+}
+
+/** A standard as texts cite it: its number and edition ("NFPA 2, 2023 edition"). */
+export function citation(ref: Pick<StandardRef, 'number' | 'edition'>): string {
+  return `${ref.number}, ${ref.edition}`;
 }

@@ -1,11 +1,13 @@
 /**
  * Hazard data of substances (data/substances.yaml), parsed and checked at first use: each value
  * with the full citation of its source and whether it is quoted from memory. The one derived
- * quantity is the lowest recorded autoignition temperature, which the indicators use (the spread
- * between sources reflects the test apparatus; the lowest is the safer screen).
+ * quantities are the lowest recorded autoignition temperature, which the indicators use (the spread
+ * between sources reflects the test apparatus; the lowest is the safer screen), and the
+ * temperature class that follows from it (temperature-class.ts).
  */
 import { readDataFile } from '../core/data-file.ts';
 import { z } from 'zod';
+import { temperatureClassBelow } from './temperature-class.ts';
 import { EXPOSURE_LIMITS, type ExposureLimit, type LimitPair, type SourcedValue, type SubstanceData, type SubstanceRow } from './types.ts';
 
 const Sourced = z.strictObject({ value: z.number(), source: z.string(), memory: z.boolean() });
@@ -32,7 +34,6 @@ const RawSubstance = z.strictObject({
   minimumIgnitionEnergy_mJ: z.array(Sourced).optional(),
   limitingOxygen_percent: Sourced.optional(),
   gasGroup: SourcedText.optional(),
-  temperatureClass: SourcedText.optional(),
   exposure_ppm: z.partialRecord(z.enum(EXPOSURE_LIMITS), Sourced).optional(),
   carcinogen: SourcedText.optional(),
   inAir_percent: Sourced.optional(),
@@ -109,7 +110,7 @@ function build(label: string, raw: Raw, sources: Map<string, Source>): Substance
     minimumIgnitionEnergy_mJ: (raw.minimumIgnitionEnergy_mJ ?? []).map((v) => cite(v, 'minimumIgnitionEnergy_mJ')),
     limitingOxygen_percent: optional(raw.limitingOxygen_percent, 'limitingOxygen_percent'),
     gasGroup: optional(raw.gasGroup, 'gasGroup'),
-    temperatureClass: optional(raw.temperatureClass, 'temperatureClass'),
+    temperatureClass: lowest ? temperatureClassBelow(lowest.value) : null,
     exposure_ppm: exposure,
     carcinogen: optional(raw.carcinogen, 'carcinogen'),
     inAir_percent: optional(raw.inAir_percent, 'inAir_percent'),

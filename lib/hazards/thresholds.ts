@@ -1,7 +1,8 @@
 /**
  * Thresholds of the hazard indicators and cautions (data/thresholds.yaml), each with its source:
  * the presence threshold, the nickel-carbonyl temperature, the detector alarm fraction of the
- * LFL and the high-temperature hydrogen attack screening temperature.
+ * LFL, the high-temperature hydrogen attack screening temperature, the pressures above which the
+ * pressure-equipment rules apply and the DC voltage bands.
  */
 import { readDataFile } from '../core/data-file.ts';
 import { z } from 'zod';
@@ -13,6 +14,10 @@ const File = z.strictObject({
   nickelCarbonyl_C: Threshold,
   detectorAlarm_percentOfLfl: Threshold,
   hydrogenAttack_C: Threshold,
+  pressureEquipmentEu_barGauge: Threshold,
+  pressureVesselAsme_psiGauge: Threshold,
+  extraLowVoltageDc_V: Threshold,
+  lowVoltageDc_V: Threshold,
 });
 
 export type ThresholdId = keyof z.infer<typeof File>;

@@ -51,6 +51,12 @@ export interface HazardInput {
   fuelPressureBar: number;
   airPressureBar: number;
   ambientTemperatureK: number;
+  /**
+   * The DC voltage the electrical caution reads, V, and what it is, as the caution names it. Today
+   * the plant hands it the stack voltage (results.headline.stackVoltage_V, the series voltage of
+   * the stack's cells); the electrical layout will hand it the DC bus voltage instead.
+   */
+  dcVoltage: { voltageV: number; description: string };
 }
 
 export const SEVERITIES = ['danger', 'warning', 'caution'] as const;
@@ -137,6 +143,8 @@ const autoignitionIndicatorSchema = z.object({
   citation: z.string().describe('full citation of the source of that value'),
   streamAbove: z.boolean().describe('stream temperature at or above it'),
   operatingAbove: z.boolean().describe('operating temperature at or above it'),
+  temperatureClass: z.string().nullable().describe('least demanding temperature class (IEC 60079-0) whose maximum surface temperature is below it; null where none is'),
+  maxSurface_C: z.number().nullable().describe("that class's maximum surface temperature, °C"),
 });
 
 export type AutoignitionIndicator = z.infer<typeof autoignitionIndicatorSchema>;
@@ -168,7 +176,7 @@ const streamIndicatorsSchema = z.object({
 
 export type StreamIndicators = z.infer<typeof streamIndicatorsSchema>;
 
-const standardRefSchema = z.object({ id: z.string(), number: z.string(), title: z.string() });
+const standardRefSchema = z.object({ id: z.string(), number: z.string(), edition: z.string().describe('the edition or year cited'), title: z.string() });
 
 export type StandardRef = z.infer<typeof standardRefSchema>;
 
@@ -216,7 +224,10 @@ const substanceDataSchema = z.object({
   minimumIgnitionEnergy_mJ: z.array(sourcedNumber),
   limitingOxygen_percent: sourcedNumber.nullable(),
   gasGroup: sourcedText.nullable(),
-  temperatureClass: sourcedText.nullable(),
+  temperatureClass: z
+    .object({ id: z.string(), maxSurface_C: z.number() })
+    .nullable()
+    .describe('least demanding temperature class (IEC 60079-0) whose maximum surface temperature is below the lowest recorded autoignition temperature; null where none is recorded or no class is low enough'),
   exposure_ppm: z.partialRecord(z.enum(EXPOSURE_LIMITS), sourcedNumber),
   carcinogen: sourcedText.nullable(),
   inAir_percent: sourcedNumber.nullable().describe("oxygen only: its share of dry air, vol %"),
@@ -248,6 +259,8 @@ export const hazardAssessmentSchema = z
       fuelPressure_bar: z.number(),
       airPressure_bar: z.number(),
       ambientTemperature_K: z.number(),
+      dcVoltage_V: z.number().describe('the DC voltage the electrical caution reads'),
+      dcVoltageDescription: z.string().describe('what that voltage is (today the stack voltage: the series voltage of its cells)'),
     }),
     substances: z.array(substanceRowSchema),
     streams: z.array(streamIndicatorsSchema),

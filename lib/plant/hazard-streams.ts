@@ -41,5 +41,6 @@ export function hazardInput(basis: DesignBasis, point: DesignPoint): HazardInput
     fuelPressureBar: point.inputs.fuelPressureBar,
     airPressureBar: point.inputs.airPressureBar,
     ambientTemperatureK: point.inputs.ambientTemperatureK,
+    dcVoltage: { voltageV: point.stackVoltageV, description: `the stack voltage (the series voltage of its ${point.sizing.cells} cells)` },
   };
 }

@@ -153,11 +153,12 @@ describe('standards cited by the cautions', () => {
     expect(standard('cga-g-5-5').title).toBe('Standard for Hydrogen Vent Systems');
     expect(standard('iso-22734').title).toMatch(/water electrolysis/);
   });
-  it('gives every standard a publisher, a scope and the memory flag of its title', () => {
+  it('gives every standard a publisher, a scope, an edition naming its year and the memory flag; one read says what was read', () => {
     for (const s of standards().values()) {
       expect(s.publisher.length, s.id).toBeGreaterThan(0);
       expect(s.scope.length, s.id).toBeGreaterThan(10);
-      expect(s.memory, s.id).toBe(true);
+      expect(s.edition, s.id).toMatch(/\b(19|20)\d\d\b/);
+      if (!s.memory) expect(s.scope, s.id).toMatch(/\bread\b/);
     }
   });
 });

@@ -42,6 +42,7 @@ const input: fc.Arbitrary<HazardInput> = fc.record({
   fuelPressureBar: fc.double({ min: 0.5, max: 100, noNaN: true }),
   airPressureBar: fc.double({ min: 0.5, max: 100, noNaN: true }),
   ambientTemperatureK: fc.double({ min: 230, max: 330, noNaN: true }),
+  dcVoltage: fc.record({ voltageV: fc.double({ min: 0, max: 6000, noNaN: true }), description: fc.constant('the stack voltage') }),
 }) as fc.Arbitrary<HazardInput>;
 
 function numbers(value: unknown): number[] {

@@ -4,6 +4,7 @@
  * the standards it cites, the indicators of every stream and the hazard data of the substances,
  * each value with its source, and the method notes.
  */
+import { citation } from '../../hazards/standards.ts';
 import type { Caution, StreamIndicators, SubstanceRow } from '../../hazards/types.ts';
 import type { Results } from '../../plant/results-schema.ts';
 import { formatFixed, formatNumber } from '../format.ts';
@@ -45,6 +46,7 @@ const INDICATORS: IndicatorRow[] = [
   ['Carbon monoxide, ppm', (s) => (s.carbonMonoxide ? `${formatNumber(s.carbonMonoxide.coConcentration_ppm, 3)} (${formatNumber(s.carbonMonoxide.timesIdlh, 3)} × IDLH)` : '')],
   ['Hydrogen partial pressure, bar', (s) => formatNumber(s.hydrogenPartialPressure_bar, 3)],
   ['Lowest autoignition temperature', (s) => (s.autoignition ? `${formatFixed(s.autoignition.lowest_C, 0)} °C (${speciesText(s.autoignition.species)})${s.autoignition.streamAbove ? ', stream above it' : ''}` : '')],
+  ['Temperature class below it (IEC 60079-0)', (s) => (s.autoignition ? (s.autoignition.temperatureClass ? `${s.autoignition.temperatureClass} (${formatFixed(s.autoignition.maxSurface_C!, 0)} °C)` : 'none') : '')],
 ];
 
 function streamTable(streams: readonly StreamIndicators[]): Table {
@@ -75,7 +77,7 @@ export function hazardsSection(r: Results): HazardsSection {
       title: c.title,
       text: c.text,
       raisedBy: c.triggeredBy.length ? `Raised by: ${c.triggeredBy.map((id) => names.get(id) ?? id).join('; ')}` : 'Raised by the basis itself',
-      standards: c.standards.map((s) => `${s.number}, ${s.title}`),
+      standards: c.standards.map((s) => `${citation(s)}, ${s.title}`),
     })),
     streams: streamTable(a.streams),
     substances: table(['Substance', 'CAS', 'Presence', 'LFL in air', 'UFL in air', 'Lowest autoignition', 'IDLH', 'Sources'], ['left', 'left', 'left', 'right', 'right', 'right', 'right', 'left'], a.substances.map((s) => ({ cells: substanceRow(s) }))),

@@ -39,7 +39,7 @@ export function referencesSection(basis: DesignBasis, hazards: HazardAssessment)
   const standards = new Map<string, ReferenceItem>();
   for (const caution of hazards.cautions) {
     for (const s of caution.standards) {
-      const item = standards.get(s.id) ?? { id: s.number, citation: s.title, citedBy: '' };
+      const item = standards.get(s.id) ?? { id: s.number, citation: `${s.title}, ${s.edition}`, citedBy: '' };
       item.citedBy = item.citedBy ? `${item.citedBy}; ${caution.title}` : caution.title;
       standards.set(s.id, item);
     }
