@@ -25,15 +25,22 @@ describe('flammability limits in air, vol %', () => {
   });
   it.each([
     ['C2H6', 3.0, 12.4],
-    ['C3H8', 2.1, 9.5],
     ['n-C4H10', 1.8, 8.4],
     ['NH3', 15, 28],
     ['CH3OH', 6.7, 36],
-    ['C2H5OH', 3.3, 19],
     ['H2S', 4.0, 44],
   ])('%s %d to %d (Zabetakis 1965, Bulletin 627, from memory)', (label, lfl, ufl) => {
     expect(limits(label)).toEqual([lfl, ufl]);
     expect(substance(label).lfl_percent!.source).toMatch(/Zabetakis 1965/);
+  });
+  it('propane 2.1 to 9.5 (OSHA chemical database, read; Zabetakis 1965 agrees, from memory)', () => {
+    expect(limits('C3H8')).toEqual([2.1, 9.5]);
+    expect(substance('C3H8').lfl_percent).toMatchObject({ source: 'OSHA chemical database', memory: false });
+  });
+  it('ethanol 3.3 to 19 (NIOSH Pocket Guide, read; Zabetakis 1965 agrees, from memory); n-butane 1.6 to 8.4 listed (NIOSH Pocket Guide web page, read)', () => {
+    expect(limits('C2H5OH')).toEqual([3.3, 19]);
+    expect(substance('C2H5OH').lfl_percent!.memory).toBe(false);
+    expect(substance('n-C4H10').alsoPublished).toContainEqual(expect.objectContaining({ lfl_percent: 1.6, ufl_percent: 8.4, memory: false }));
   });
   it('nickel carbonyl LFL 2 % (NIOSH IDLH documentation 1994, read); no UFL recorded', () => {
     expect(limits('Ni(CO)4')).toEqual([2, undefined]);
@@ -103,8 +110,22 @@ describe('exposure limits, ppm', () => {
     const e = substance('H2S').exposure_ppm;
     expect([e.nioshRelCeiling?.value, e.oshaPelCeiling?.value, e.oshaPelPeak?.value, e.idlh?.value]).toEqual([10, 20, 50, 100]);
   });
-  it('carbon dioxide: NIOSH REL 5000 TWA, IDLH 40000 (NIOSH Pocket Guide, from memory)', () => {
-    expect([substance('CO2').exposure_ppm.nioshRelTwa?.value, substance('CO2').exposure_ppm.idlh?.value]).toEqual([5000, 40000]);
+  it('carbon dioxide: NIOSH REL 5000 TWA and 30000 STEL, OSHA PEL 5000 (NIOSH IDLH documentation 1994, read), IDLH 40000 (NIOSH Pocket Guide, read)', () => {
+    const e = substance('CO2').exposure_ppm;
+    expect([e.nioshRelTwa?.value, e.nioshRelStel?.value, e.oshaPelTwa?.value, e.idlh?.value]).toEqual([5000, 30000, 5000, 40000]);
+    expect(Object.values(e).every((v) => !v.memory)).toBe(true);
+  });
+  it('propane: NIOSH REL and OSHA PEL 1000 TWA, IDLH 2100 = 10 % of its 2.1 % LEL (NIOSH IDLH documentation 1994, read)', () => {
+    const e = substance('C3H8').exposure_ppm;
+    expect([e.nioshRelTwa?.value, e.oshaPelTwa?.value, e.idlh?.value]).toEqual([1000, 1000, 2100]);
+  });
+  it('n-butane: NIOSH REL 800 TWA, IDLH 1600 = 10 % of its 1.6 % LEL, no OSHA PEL (NIOSH Pocket Guide web page, read)', () => {
+    const e = substance('n-C4H10').exposure_ppm;
+    expect([e.nioshRelTwa?.value, e.idlh?.value, e.oshaPelTwa]).toEqual([800, 1600, undefined]);
+  });
+  it('ethanol: NIOSH REL, OSHA PEL and ACGIH TLV 1000 TWA, IDLH 3300 = 10 % of its 3.3 % LEL (NIOSH IDLH documentation 1994 and Pocket Guide, read)', () => {
+    const e = substance('C2H5OH').exposure_ppm;
+    expect([e.nioshRelTwa?.value, e.oshaPelTwa?.value, e.acgihTlvTwa?.value, e.idlh?.value]).toEqual([1000, 1000, 1000, 3300]);
   });
 });
 
