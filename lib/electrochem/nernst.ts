@@ -19,6 +19,20 @@
  * Fundamentals, 3rd ed., ch. 2; J. Larminie and A. Dicks, Fuel Cell Systems Explained, 2nd ed.,
  * §2.5 and ch. 7-8). When the fuel gas is at equilibrium, writing the fuel-electrode reaction
  * with CO or CH4 instead of H2 gives the same E.
+ *
+ * A fuel gas with no hydrogen (CO with CO2) has no H2/H2O couple to write the rows above with.
+ * What an oxide-ion electrolyte equalises is the oxygen potential: with O2 + 4e⁻ ⇌ 2O²⁻ at both
+ * electrodes the cell is an oxygen concentration cell (the Nernst equation of the zirconia oxygen
+ * sensor, e.g. E. C. Subbarao and H. S. Maiti, Solid State Ionics 11 (1984) 317; from memory):
+ *
+ *   oxide ion        E = RT/4F · ln( p_O2,c / p_O2,a )
+ *   carbonate        E = RT/4F · ln( p_O2,c / p_O2,a ) + RT/2F · ln( p_CO2,c / p_CO2,a )
+ *
+ * (carbonate: ½O2 + CO2 + 2e⁻ ⇌ CO3²⁻ at both electrodes), with p_O2,a the oxygen partial
+ * pressure of the equilibrated fuel gas. Where the fuel gas holds H2 and H2O at equilibrium,
+ * p_O2,a = (p_H2O / (K p_H2))² with K = exp(−ΔG°/RT) of H2 + ½O2 → H2O, and the oxide row of the
+ * table follows; with CO and CO2, p_O2,a = (p_CO2 / (K_CO p_CO))² gives
+ * E = E°_CO + RT/2F · ln( p_CO · p_O2,c^½ / p_CO2 ), E°_CO = −ΔG°/2F of CO + ½O2 → CO2.
  */
 import { FARADAY_C_PER_MOL as F, GAS_CONSTANT_J_PER_MOL_K as R } from '../thermo/constants.ts';
 import { gibbs } from '../thermo/properties.ts';
@@ -84,4 +98,23 @@ export function nernstVoltage(
   standardVoltageV: number = hydrogenStandardVoltage(temperatureK, waterPhase),
 ): number {
   return standardVoltageV + ((R * temperatureK) / (2 * F)) * nernstLogQuotient(ion, waterPhase, fuel, air);
+}
+
+/**
+ * Nernst voltage from the oxygen (and, for carbonate, carbon dioxide) potential across the
+ * electrolyte, V (the forms in this file's comment): E = RT/4F · (ln p_O2,c − ln p_O2,a) for
+ * the oxide ion, plus RT/2F · (ln p_CO2,c − ln p_CO2,a) for the carbonate ion. The fuel side is
+ * given as ln of its partial pressures in bar (an equilibrated fuel gas may hold O2 at 1e-20 bar
+ * and less, which its element potentials give exactly).
+ */
+export function oxygenPotentialNernstV(
+  ion: 'oxide' | 'carbonate',
+  temperatureK: number,
+  fuel: { lnO2Bar: number; lnCO2Bar: number },
+  air: PartialPressures,
+): number {
+  const rt = R * temperatureK;
+  let e = (rt / (4 * F)) * (Math.log(air.O2 ?? 0) - fuel.lnO2Bar);
+  if (ion === 'carbonate') e += (rt / (2 * F)) * (Math.log(air.CO2 ?? 0) - fuel.lnCO2Bar);
+  return e;
 }

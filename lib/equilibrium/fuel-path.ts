@@ -8,7 +8,20 @@
  * with the element potentials of lib/equilibrium/gibbs-minimiser.ts, warm-started from the
  * solutions already found on either side (interpolated, or extrapolated beyond the last two); elsewhere only H2 reacts and the other species pass through. The air gas is
  * not reactive. Local Nernst voltage: lib/electrochem/nernst.ts with both electrodes' local
- * partial pressures (co-flow: the same position on both sides).
+ * partial pressures (co-flow: the same position on both sides); where the fuel gas is
+ * re-equilibrated and the electrolyte carries oxide or carbonate ions, from the oxygen (and CO2)
+ * potential of the equilibrated gas, E = RT/4F ln(p_O2,air/p_O2,fuel) (+ RT/2F ln of the CO2
+ * ratio), which is the H2/H2O form where the gas holds hydrogen and serves any fuel, a CO/CO2
+ * feed included. The fuel gas's ln p_O2 = 2π_O − g°_O2/RT and ln p_CO2 = π_C + 2π_O − g°_CO2/RT
+ * come from the element potentials π of its equilibrium (p in bar; gibbs-minimiser.ts).
+ *
+ * The inlet: where the inlet gas holds every species of the quotient, E(0) is that gas's
+ * ("feed"). Where one electrode has no feed, the first increment of charge fills it with pure
+ * product and E(u) tends to a finite limit as u → 0⁺ ("limit", e.g. the hydrogen side of a PEM
+ * electrolyser). Where the inlet holds no product and nothing to form it from (dry hydrogen into
+ * an oxide-ion cell, a dry hydrocarbon), E rises without bound as u → 0⁺, like −RT/2F ln u; the
+ * inlet value reported is then the Nernst voltage of the first equilibrated increment, the first
+ * point u_1 of the grid ("first-increment"), and the reported path starts there.
  *
  * Utilization U = q / Q. Power mode: Q = F Σ ṅ_i z_i, the charge of complete oxidation of the
  * fuel feed (lib/electrochem/charge.ts). Electrolysis: Q = 2F (ṅ_H2O + ṅ_CO2) of the
@@ -24,13 +37,13 @@ import { gOverRT } from '../thermo/properties.ts';
 import { saturationPressureBar } from '../thermo/saturation.ts';
 import { getSpecies } from '../thermo/species-data.ts';
 import { electronsOfStream } from '../electrochem/charge.ts';
-import { hydrogenStandardVoltage, nernstVoltage } from '../electrochem/nernst.ts';
+import { hydrogenStandardVoltage, nernstVoltage, oxygenPotentialNernstV } from '../electrochem/nernst.ts';
 import type { Mode, Technology } from '../electrochem/technologies.ts';
 import { minimiseGibbs } from './gibbs-minimiser.ts';
 import { elementAmounts, elementsOfFeed, gasGibbsOverRT, systemFor, type ChemicalSystem } from './species-set.ts';
 import { exchangeFor, type Exchange } from './electrolyte-exchange.ts';
 import { amountsOn, layout, moleFractions, shifted, sum, toRecord, type GasLayout } from './gas-state.ts';
-import { integrateAlongUtilization, type Sample } from './path-integral.ts';
+import { integrateAlongUtilization, type Profile, type Sample } from './path-integral.ts';
 import { CalculationError, ConvergenceError, UserError } from '../core/errors.ts';
 
 export interface FuelPathRequest {
@@ -79,8 +92,12 @@ export interface FuelPath {
   chargeBasisA: number;
   /** Charge passed at the design utilization, A. */
   currentA: number;
-  /** E at U = 0, or null where a dry inlet (no product species) makes it unbounded. */
-  inletNernstV: number | null;
+  /** E at the inlet: of the inlet gas, its limit u → 0⁺, or at the first equilibrated increment (see inlet). */
+  inletNernstV: number;
+  /** How inletNernstV was found (the module comment): the inlet gas, the limit u → 0⁺, or the first increment u_1 of an unbounded inlet. */
+  inlet: 'feed' | 'limit' | 'first-increment';
+  /** Utilization at which inletNernstV is evaluated: 0, or u_1 for 'first-increment'. */
+  inletUtilization: number;
   outletNernstV: number;
   meanNernstV: number;
   maxCarbonActivity: number;
@@ -98,6 +115,8 @@ export interface FuelPath {
   vapourFractionAir: number;
   /** The equilibria solved, by utilization, to seed a neighbouring path (empty without fuel-gas equilibrium). */
   solutions: Solution[];
+  /** E(u) as integrated (lib/equilibrium/path-integral.ts), for the integrals of the cell model. */
+  profile: Profile;
 }
 
 type Stream = Readonly<Record<string, number>>;
@@ -170,6 +189,9 @@ interface State {
   air: Float64Array;
   carbonActivity: number;
   elementError: number;
+  /** ln p_O2 and ln p_CO2 (bar) of the equilibrated fuel gas from its element potentials; NaN without equilibrium (or without carbon, for CO2). */
+  lnO2Bar: number;
+  lnCO2Bar: number;
 }
 
 /** The gases of both electrodes as a function of the charge passed. */
@@ -180,6 +202,8 @@ class PathModel {
   readonly vapourAir: number;
   /** An element reaches the fuel gas only through the electrolyte (a dry inlet): E(0) is unbounded. */
   readonly seeded: boolean;
+  /** The re-equilibrated fuel gas holds oxygen, so its oxygen potential is defined along the path. */
+  readonly hasOxygen: boolean = false;
   private readonly sign: number;
   private readonly exchange: Exchange;
   private readonly fuelChange: Stream;
@@ -189,6 +213,9 @@ class PathModel {
   private readonly system: ChemicalSystem | null = null;
   private readonly gRT: Float64Array | null = null;
   private readonly gGraphite: number = 0;
+  /** g°/RT of O2 and CO2 at T, for their partial pressures from the element potentials. */
+  private readonly gO2: number = 0;
+  private readonly gCO2: number = 0;
   private readonly bInlet: Float64Array | null = null;
   private readonly elementChange: Float64Array | null = null;
   /** Solutions found so far, by utilization: the start of each new equilibrium is predicted from them. */
@@ -223,8 +250,11 @@ class PathModel {
       this.seeded = [...elements].some((e) => !inFeed.has(e));
       const system = systemFor(elements);
       this.system = system;
+      this.hasOxygen = system.elements.includes('O');
       this.gRT = gasGibbsOverRT(system, temperatureK);
       this.gGraphite = system.graphite ? gOverRT(system.graphite, temperatureK) : 0;
+      this.gO2 = gOverRT(getSpecies('O2'), temperatureK);
+      this.gCO2 = gOverRT(getSpecies('CO2'), temperatureK);
       const b = elementAmounts(system, fuelFeed);
       // An element introduced only by the electrolyte is seeded at a trace so the system is complete.
       const seed = 1e-12 * sum(Object.values(fuelFeed));
@@ -269,6 +299,8 @@ class PathModel {
     let fuel: Float64Array;
     let carbonActivity = 0;
     let elementError = 0;
+    let lnO2Bar = Number.NaN;
+    let lnCO2Bar = Number.NaN;
     if (this.system) {
       const b = new Float64Array(this.bInlet!);
       for (let i = 0; i < b.length; i++) b[i] = b[i]! + this.elementChange![i]! * electrons;
@@ -294,12 +326,16 @@ class PathModel {
       fuel = r.n;
       carbonActivity = r.carbonActivity;
       elementError = r.elementBalanceError;
+      const o = this.system.elements.indexOf('O');
+      const c = this.system.carbonIndex;
+      if (o >= 0) lnO2Bar = 2 * r.pi[o]! - this.gO2;
+      if (o >= 0 && c >= 0) lnCO2Bar = r.pi[c]! + 2 * r.pi[o]! - this.gCO2;
     } else {
       fuel = shifted(this.fuelGas, this.fuelIn, this.fuelChange, electrons);
     }
     checkNonNegative(this.fuelGas, fuel, 'fuel');
     checkNonNegative(this.airGas, air, 'air');
-    return { fuel, air, carbonActivity, elementError };
+    return { fuel, air, carbonActivity, elementError, lnO2Bar, lnCO2Bar };
   }
 }
 
@@ -348,27 +384,34 @@ export function fuelPath(request: FuelPathRequest): FuelPath {
   const airP: Record<string, number> = {};
   const nernstSpecies = ['H2', 'H2O', 'CO2', 'O2'];
   const fIdx = nernstSpecies.map((s) => model.fuelGas.index.get(s));
+  // The oxygen-potential form wherever the fuel gas is equilibrated with its oxygen (module comment).
+  const potentialForm = technology.fuelGasEquilibrium && (technology.ion === 'oxide' || technology.ion === 'carbonate') && model.hasOxygen;
   const aIdx = nernstSpecies.map((s) => model.airGas.index.get(s));
 
+  /** E of a fuel-side state and an air-side state (the same point, or the inlet's limit); NaN (a species of the quotient absent) as +∞. */
+  const nernstOf = (fuel: { state: State; xFuel: Float64Array }, air: { xAir: Float64Array }): number => {
+    nernstSpecies.forEach((s, k) => {
+      fuelP[s] = fIdx[k] === undefined ? 0 : fuel.xFuel[fIdx[k]!]! * pf;
+      airP[s] = aIdx[k] === undefined ? 0 : air.xAir[aIdx[k]!]! * pa;
+    });
+    const nernstV = potentialForm
+      ? oxygenPotentialNernstV(technology.ion as 'oxide' | 'carbonate', temperatureK, fuel.state, airP)
+      : nernstVoltage(technology.ion, technology.waterPhase, temperatureK, fuelP, airP, e0);
+    return Number.isNaN(nernstV) ? Infinity : nernstV;
+  };
   const evaluate = (utilization: number): Evaluated => {
     const state = model.at(utilization * basisA);
-    const xFuel = moleFractions(model.fuelGas, state.fuel, model.vapourFuel);
-    const xAir = moleFractions(model.airGas, state.air, model.vapourAir);
-    nernstSpecies.forEach((s, k) => {
-      fuelP[s] = fIdx[k] === undefined ? 0 : xFuel[fIdx[k]!]! * pf;
-      airP[s] = aIdx[k] === undefined ? 0 : xAir[aIdx[k]!]! * pa;
-    });
-    let nernstV = nernstVoltage(technology.ion, technology.waterPhase, temperatureK, fuelP, airP, e0);
-    if (Number.isNaN(nernstV)) nernstV = Infinity;
-    return { utilization, value: nernstV, state, xFuel, xAir };
+    const point = { utilization, value: 0, state, xFuel: moleFractions(model.fuelGas, state.fuel, model.vapourFuel), xAir: moleFractions(model.airGas, state.air, model.vapourAir) };
+    point.value = nernstOf(point, point);
+    return point;
   };
 
   const result = integrateAlongUtilization(evaluate, request.utilization, Math.max(20, Math.round(request.intervals ?? 120)), request.refineV ?? 1e-3);
-  const points = result.points;
-  const first = points[0]!;
-  const last = points[points.length - 1]!;
-  const inletNernstV = model.seeded || !Number.isFinite(first.value) ? null : first.value;
-  if (inletNernstV === null) first.value = result.firstFinite;
+  const all = result.all as Evaluated[];
+  const first = result.points[0]!;
+  const last = result.points[result.points.length - 1]!;
+  const inlet = inletOf(result.points as Evaluated[], all, model.seeded, nernstOf);
+  const points = inlet.points;
 
   // Species worth reporting along the path: those that reach 1e-5 anywhere.
   const keep = (gas: GasLayout, key: 'xFuel' | 'xAir') =>
@@ -377,7 +420,6 @@ export function fuelPath(request: FuelPathRequest): FuelPath {
   const airKeep = keep(model.airGas, 'xAir');
   const pick = (gas: GasLayout, x: Float64Array, labels: string[]) =>
     Object.fromEntries(labels.map((l) => [l, x[gas.index.get(l)!]!]));
-  const all = result.all as Evaluated[];
   return {
     points: points.map((p) => ({
       utilization: p.utilization,
@@ -388,7 +430,9 @@ export function fuelPath(request: FuelPathRequest): FuelPath {
     })),
     chargeBasisA: basisA,
     currentA: request.utilization * basisA,
-    inletNernstV,
+    inletNernstV: inlet.value,
+    inlet: inlet.kind,
+    inletUtilization: inlet.utilization,
     outletNernstV: last.value,
     meanNernstV: result.mean,
     maxCarbonActivity: Math.max(...all.map((p) => p.state.carbonActivity)),
@@ -401,5 +445,34 @@ export function fuelPath(request: FuelPathRequest): FuelPath {
     vapourFractionFuel: technology.waterPhase === 'liquid' ? model.vapourFuel : 0,
     vapourFractionAir: technology.waterPhase === 'liquid' ? model.vapourAir : 0,
     solutions: model.solved,
+    profile: result.profile,
   };
+}
+
+/**
+ * The inlet value and the reported points (module comment). The inlet gas's E when it is finite
+ * and the fuel gas holds every element of its own (none seeded through the electrolyte). Else,
+ * an electrode with no gas at u = 0 takes the gas of the first increment (pure product, the same
+ * at every u > 0 near the inlet: the smallest geometric point's), the other its inlet gas; if
+ * that E is finite it is the limit u → 0⁺, shown at u = 0. Else E is unbounded at the inlet and
+ * the first grid point u_1 stands for it, the reported path starting there.
+ */
+function inletOf(
+  points: Evaluated[],
+  all: Evaluated[],
+  seeded: boolean,
+  nernstOf: (fuel: Evaluated, air: Evaluated) => number,
+): { kind: FuelPath['inlet']; value: number; utilization: number; points: Evaluated[] } {
+  const first = points[0]!;
+  if (Number.isFinite(first.value) && !seeded) return { kind: 'feed', value: first.value, utilization: 0, points };
+  const smallest = all.find((p) => p.utilization > 0)!;
+  const fuel = sum(first.state.fuel) > 0 ? first : smallest;
+  const air = sum(first.state.air) > 0 ? first : smallest;
+  const limit = nernstOf(fuel, air);
+  if (!seeded && (fuel !== first || air !== first) && Number.isFinite(limit)) {
+    const shown: Evaluated = { utilization: 0, value: limit, state: first.state, xFuel: fuel.xFuel, xAir: air.xAir };
+    return { kind: 'limit', value: limit, utilization: 0, points: [shown, ...points.slice(1)] };
+  }
+  const increment = points[1]!;
+  return { kind: 'first-increment', value: increment.value, utilization: increment.utilization, points: points.slice(1) };
 }

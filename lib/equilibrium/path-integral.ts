@@ -12,6 +12,10 @@
  *   ∫ E dU = u_min (E(u_min) + c) with c from the first decade; on the geometric intervals E is
  *   integrated exactly for the form α + β ln U; elsewhere by the trapezoidal rule.
  * For a regular inlet the log terms vanish and the rule is the trapezoidal rule.
+ *
+ * The same model of E(u) (linear between samples, α + β ln u on the geometric inlet intervals
+ * and below the smallest of them) is returned as a profile, so that other integrals along the
+ * cell (lib/plant/cell-model.ts) use exactly the E(u) the mean was taken over.
  */
 
 export interface Sample {
@@ -27,6 +31,20 @@ export interface PathIntegral<S extends Sample> {
   mean: number;
   /** The value at the smallest U evaluated after the inlet (for a dry inlet's display). */
   firstFinite: number;
+  profile: Profile;
+}
+
+/**
+ * E(u) as the integral models it: samples in increasing u; between samples k and k+1 linear in u,
+ * except the first `logIntervals` intervals, where E = α + β ln u through both ends. With
+ * `logTail`, samples start at the smallest geometric point u_min > 0 and E = α + β ln u on
+ * (0, u_min] too (β from the first interval); without, the first sample is u = 0.
+ */
+export interface Profile {
+  utilization: Float64Array;
+  value: Float64Array;
+  logIntervals: number;
+  logTail: boolean;
 }
 
 const MAX_REFINE = 6;
@@ -89,5 +107,12 @@ export function integrateAlongUtilization<S extends Sample>(
     const b = body[k]!;
     integral += ((a.value + b.value) / 2) * (b.utilization - a.utilization);
   }
-  return { points: [inlet, ...body], all: [inlet, ...decades, ...body], mean: integral / utilizationF, firstFinite: (decades[0] ?? body[0]!).value };
+  const samples = regular ? [inlet, ...body] : [...decades, ...body];
+  const profile: Profile = {
+    utilization: Float64Array.from(samples, (p) => p.utilization),
+    value: Float64Array.from(samples, (p) => p.value),
+    logIntervals: regular ? 0 : decades.length,
+    logTail: !regular,
+  };
+  return { points: [inlet, ...body], all: [inlet, ...decades, ...body], mean: integral / utilizationF, firstFinite: (decades[0] ?? body[0]!).value, profile };
 }

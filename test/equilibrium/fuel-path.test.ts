@@ -9,6 +9,7 @@ import { hydrogenStandardVoltage } from '../../lib/electrochem/nernst.ts';
 import { FARADAY_C_PER_MOL as F, GAS_CONSTANT_J_PER_MOL_K as R } from '../../lib/thermo/constants.ts';
 import { saturationPressureBar } from '../../lib/thermo/saturation.ts';
 import { getSpecies } from '../../lib/thermo/species-data.ts';
+import { gibbs } from '../../lib/thermo/properties.ts';
 import { lnEquilibriumConstant } from '../../lib/electrochem/reaction.ts';
 import { parseEquation } from '../../lib/electrochem/equation.ts';
 
@@ -72,7 +73,14 @@ describe('fuel path: closed forms', () => {
     // The integral is singular at U = 0 (dry inlet); the quadrature treats it exactly, so the
     // agreement is limited by the trapezoids elsewhere: 1e-5 V.
     expect(Math.abs(path.meanNernstV - mean)).toBeLessThan(1e-5);
-    expect(path.inletNernstV).toBeNull();
+    // E = E° + RT/2F ln((1−u)/u) + RT/4F ln p_O2 rises without bound as u → 0⁺: the inlet value
+    // is that of the first equilibrated increment u_1, where the reported path starts.
+    expect(path.inlet).toBe('first-increment');
+    expect(path.inletUtilization).toBeGreaterThan(0);
+    expect(path.points[0]!.utilization).toBe(path.inletUtilization);
+    const u1 = path.inletUtilization;
+    const atU1 = hydrogenStandardVoltage(t, 'gas') + c * Math.log((1 - u1) / u1) + ((R * t) / (4 * F)) * Math.log(0.21);
+    expect(path.inletNernstV).toBeCloseTo(atU1, 8);
     const outlet = hydrogenStandardVoltage(t, 'gas') + c * Math.log((1 - u) / u) + ((R * t) / (4 * F)) * Math.log(0.21);
     expect(path.outletNernstV).toBeCloseTo(outlet, 6);
   });
@@ -147,6 +155,71 @@ describe('fuel path: closed forms', () => {
     const electrons = path.currentA / F;
     expect(atoms(path.fuelOutlet, 'C') - atoms(feed, 'C')).toBeCloseTo(electrons / 2, 9);
     expect(path.airInlet.CO2! - path.airOutlet.CO2!).toBeCloseTo(electrons / 2, 9);
+  });
+});
+
+describe('fuel path: any fuel, and inlets without product', () => {
+  const t = 1073.15;
+  const rt2F = (R * t) / (2 * F);
+  const g = (name: string, tk: number) => gibbs(getSpecies(name), tk);
+
+  it('a CO/CO2 feed (no hydrogen) calculates, and E at every point is the CO + ½O2 → CO2 form E°_CO + RT/2F ln(p_CO p_O2^½/p_CO2) with NASA data', () => {
+    // Before the oxygen-potential form the H2/H2O quotient of this gas was ln(0/0): NaN volts.
+    const path = fuelPath({ technology: technology('solid-oxide'), mode: 'power', temperatureK: t, fuelPressureBar: 1.2, airPressureBar: 1.1, fuelFeed: { CO: 0.7, CO2: 0.3 }, airFeed: air(2), utilization: 0.7 });
+    const e0co = -(g('CO2', t) - g('CO', t) - 0.5 * g('O2', t)) / (2 * F);
+    expect(path.inlet).toBe('feed');
+    for (const p of path.points) {
+      const byHand = e0co + rt2F * Math.log((p.fuelSide.CO! * 1.2 * Math.sqrt(p.airSide.O2! * 1.1)) / (p.fuelSide.CO2! * 1.2));
+      // The gas holds traces (O2, O, C2O) beside CO and CO2 at 1e-15 and below: 1e-9 V.
+      expect(Math.abs(p.nernstV - byHand), `u = ${p.utilization}`).toBeLessThan(1e-9);
+    }
+    expect(path.meanNernstV).toBeLessThan(path.inletNernstV);
+    expect(path.meanNernstV).toBeGreaterThan(path.outletNernstV);
+  });
+
+  it('the oxygen-potential form equals the H2/H2O form of humidified hydrogen at every point', () => {
+    const path = fuelPath({ technology: technology('solid-oxide'), mode: 'power', temperatureK: t, fuelPressureBar: 1, airPressureBar: 1, fuelFeed: { H2: 0.97, H2O: 0.03 }, airFeed: air(2), utilization: 0.85 });
+    for (const p of path.points) {
+      const byHand = hydrogenStandardVoltage(t, 'gas') + rt2F * Math.log((p.fuelSide.H2! * Math.sqrt(p.airSide.O2!)) / p.fuelSide.H2O!);
+      expect(Math.abs(p.nernstV - byHand), `u = ${p.utilization}`).toBeLessThan(1e-9);
+    }
+  });
+
+  it('a dry hydrocarbon (CH4 with no steam): E is unbounded at the inlet; the first increment stands for it and the oxygen potential gives the H2/H2O form there', () => {
+    const path = fuelPath({ technology: technology('solid-oxide'), mode: 'power', temperatureK: t, fuelPressureBar: 1, airPressureBar: 1, fuelFeed: { CH4: 1 }, airFeed: air(8), utilization: 0.8 });
+    expect(path.inlet).toBe('first-increment');
+    const first = path.points[0]!;
+    expect(first.utilization).toBe(path.inletUtilization);
+    expect(path.inletNernstV).toBe(first.nernstV);
+    const byHand = hydrogenStandardVoltage(t, 'gas') + rt2F * Math.log((first.fuelSide.H2! * Math.sqrt(first.airSide.O2!)) / first.fuelSide.H2O!);
+    expect(Math.abs(first.nernstV - byHand)).toBeLessThan(1e-9);
+    // Without steam the gas lies deep in the carbon region at the inlet (carbon activity above 1).
+    expect(path.maxCarbonActivity).toBeGreaterThan(1);
+  });
+
+  it('a PEM electrolyser with no hydrogen fed: the limit u → 0⁺ is the saturated pure product, E°(liquid) + RT/2F ln((P_f − p_sat)(P_a − p_sat)^½)', () => {
+    // Pure hydrogen forms at the fuel electrode and pure oxygen at the other from the first increment
+    // on, each saturated with vapour: E is the same all along, and finite at the inlet.
+    const tk = 338.15;
+    const path = fuelPath({ technology: technology('pem'), mode: 'electrolysis', temperatureK: tk, fuelPressureBar: 30, airPressureBar: 2, fuelFeed: null, airFeed: { 'H2O(L)': 1 }, utilization: 0.04 });
+    const pSat = saturationPressureBar(tk);
+    const e = hydrogenStandardVoltage(tk, 'liquid') + ((R * tk) / (2 * F)) * Math.log((30 - pSat) * Math.sqrt(2 - pSat));
+    expect(path.inlet).toBe('limit');
+    expect(path.inletNernstV).toBeCloseTo(e, 10);
+    expect(path.points[0]!.utilization).toBe(0);
+    expect(path.outletNernstV).toBeCloseTo(e, 10);
+  });
+
+  it('a solid-oxide electrolyser on pure steam with no sweep gas: finite inlet limit, pure O2 at the air electrode against the dissociation equilibrium of steam', () => {
+    const path = fuelPath({ technology: technology('solid-oxide'), mode: 'electrolysis', temperatureK: t, fuelPressureBar: 1, airPressureBar: 1, fuelFeed: { H2O: 1 }, airFeed: null, utilization: 0.7 });
+    expect(path.inlet).toBe('limit');
+    // Steam alone: H2O ⇌ H2 + ½O2 with x_H2 = 2 x_O2 (the OH, H and O traces it also forms, about
+    // 5 % of the O2 at 800 °C by the JANAF constants, from memory, shift x_O2 by under 10 %: 2 mV).
+    const k = Math.exp((g('H2O', t) - g('H2', t) - 0.5 * g('O2', t)) / (R * t));
+    const xO2 = Math.pow(k / 2, 2 / 3);
+    const e = ((R * t) / (4 * F)) * Math.log(1 / xO2);
+    expect(Math.abs(path.inletNernstV - e)).toBeLessThan(2e-3);
+    expect(path.inletNernstV).toBeLessThan(path.points[1]!.nernstV);
   });
 });
 
