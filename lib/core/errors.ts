@@ -55,7 +55,7 @@ export class ConvergenceError extends UserError {
  * libraries name it in these words, below the basis format; lib/plant/located-error.ts turns
  * each into the basis field where the message is shown.
  */
-export type CalculationInput = 'utilization' | 'fuel-electrode-feed' | 'air-electrode-feed' | 'cell-voltage' | 'area-specific-resistance' | 'cells';
+export type CalculationInput = 'utilization' | 'fuel-electrode-feed' | 'air-electrode-feed' | 'cell-voltage' | 'area-specific-resistance' | 'cells' | 'ionic-transference-number';
 
 /** An input that passed validation but that the calculation cannot meet: the message says why, `field` which input. */
 export class CalculationError extends UserError {

@@ -116,3 +116,96 @@ export function integrateAlongUtilization<S extends Sample>(
   };
   return { points: [inlet, ...body], all: [inlet, ...decades, ...body], mean: integral / utilizationF, firstFinite: (decades[0] ?? body[0]!).value, profile };
 }
+
+/** Nodes and weights of 8-point Gauss-Legendre quadrature on [−1, 1] (Abramowitz & Stegun, Table 25.4). */
+const GL8: readonly (readonly [number, number])[] = [
+  [0.1834346424956498, 0.3626837833783620],
+  [0.5255324099163290, 0.3137066458778873],
+  [0.7966664774136267, 0.2223810344533745],
+  [0.9602898564975363, 0.1012285362903763],
+];
+
+/** ∫ of 1/y and 1/y² over an interval. */
+interface Pair {
+  first: number;
+  second: number;
+}
+
+/**
+ * ∫_{u0}^{u1} du/y and du/y² for y linear in u from y0 to y1 (both > 0), exactly:
+ * ∫ du/y = Δu · ln(y1/y0)/(y1 − y0) and ∫ du/y² = Δu/(y0 y1).
+ */
+function linearPair(du: number, y0: number, y1: number): Pair {
+  const d = (y1 - y0) / y0;
+  const lnRatio = Math.abs(d) < 1e-8 ? 1 - d / 2 + (d * d) / 3 : Math.log1p(d) / d;
+  return { first: (du * lnRatio) / y0, second: du / (y0 * y1) };
+}
+
+/** The same for y = A + B ln u through (u0, y0) and (u1, y1): ∫ e^s ds/y(s), s = ln u, by 8-point Gauss-Legendre. */
+function logPair(u0: number, u1: number, y0: number, y1: number): Pair {
+  const s0 = Math.log(u0);
+  const s1 = Math.log(u1);
+  const half = (s1 - s0) / 2;
+  const mid = (s0 + s1) / 2;
+  let first = 0;
+  let second = 0;
+  for (const [x, w] of GL8) {
+    for (const s of [mid - half * x, mid + half * x]) {
+      const y = y0 + ((y1 - y0) * (s - s0)) / (s1 - s0);
+      const e = Math.exp(s);
+      first += (w * e) / y;
+      second += (w * e) / (y * y);
+    }
+  }
+  return { first: first * half, second: second * half };
+}
+
+/**
+ * ∫_0^m du/y and du/y² with y = A + B ln u below the smallest sample (a log inlet): integrating by
+ * parts, ∫_0^m du/y = m/y_m + B ∫_0^m du/y², and so on; y grows without bound as u → 0, so
+ * m/y_m (1 + B/y_m + 2B²/y_m²) and m/y_m² (1 + 2B/y_m) (asymptotic series, next terms of order (B/y_m)³).
+ */
+function tailPair(m: number, ym: number, slope: number): Pair {
+  const r = slope / ym;
+  return { first: (m / ym) * (1 + r + 2 * r * r), second: (m / (ym * ym)) * (1 + 2 * r) };
+}
+
+export interface ReciprocalIntegral {
+  /** ∫_0^U du/y and ∫_0^U du/y² with y = a E(u) + b. */
+  first: number;
+  second: number;
+  /** ∫_0^{u_k} du/y at each sample of the profile. */
+  cumulative: Float64Array;
+}
+
+/**
+ * ∫_0^U du/(a E(u) + b) and ∫_0^U du/(a E(u) + b)² over the profile's model of E(u) (linear, or
+ * α + β ln u, between samples; the log tail below the first sample), exact on linear intervals.
+ * y = a E + b must be positive at every sample; null where it is not.
+ */
+export function reciprocalIntegral(profile: Profile, a: number, b: number): ReciprocalIntegral | null {
+  const { utilization: u, value: e } = profile;
+  const n = u.length;
+  const y = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    y[k] = a * e[k]! + b;
+    if (!(y[k]! > 0)) return null;
+  }
+  const cumulative = new Float64Array(n);
+  let first = 0;
+  let second = 0;
+  if (profile.logTail) {
+    const slope = (y[1]! - y[0]!) / Math.log(u[1]! / u[0]!);
+    const tail = tailPair(u[0]!, y[0]!, slope);
+    first = tail.first;
+    second = tail.second;
+  }
+  cumulative[0] = first;
+  for (let k = 1; k < n; k++) {
+    const part = k <= profile.logIntervals ? logPair(u[k - 1]!, u[k]!, y[k - 1]!, y[k]!) : linearPair(u[k]! - u[k - 1]!, y[k - 1]!, y[k]!);
+    first += part.first;
+    second += part.second;
+    cumulative[k] = first;
+  }
+  return { first, second, cumulative };
+}

@@ -104,7 +104,7 @@ function computed(point: DesignPoint): Computed {
     power,
     carbon: carbonMargin(point),
     airIn,
-    o2Consumed: power ? point.totalCurrentA / (4 * F) : null,
+    o2Consumed: power ? point.ionicCurrentA / (4 * F) : null,
     o2Fed: airIn ? (airIn.flows.O2 ?? 0) : null,
     h2KgPerH: h2MolPerS === null ? null : h2MolPerS * getSpecies('H2').molarMassKgPerMol * HOUR,
   };
@@ -130,6 +130,7 @@ function headlineOf({ point, carbon, airIn, h2KgPerH }: Computed): Results['head
     thermodynamicLimitLhv: eff?.limitLhv ?? null,
     thermodynamicLimitHhv: eff?.limitHhv ?? null,
     stackHeat_W: point.heat.isothermalHeatW,
+    maxLocalCurrentDensity_A_per_m2: point.voltage.maxLocalCurrentDensityAPerM2,
     airFlow_kg_per_h: airIn ? massFlowKgPerS(airIn.flows) * HOUR : null,
     hydrogenProduction_kg_per_h: h2KgPerH,
     hydrogenProduction_kg_per_day: h2KgPerH === null ? null : h2KgPerH * 24,
@@ -150,6 +151,11 @@ function electrochemistryOf({ point, inputs }: Computed): Results['electrochemis
     thermoneutralVoltage_V: hydrogen.thermoneutralVoltage_V,
     effectiveThermoneutralVoltage_V: point.heat.thermoneutralVoltageV,
     effectiveNernst_V: point.voltage.effectiveNernstV,
+    areaMeanNernst_V: point.voltage.areaMeanNernstV,
+    harmonicIntegral_per_V: point.voltage.harmonicIntegralPerV,
+    ionicCurrent_A: point.ionicCurrentA,
+    ionicCurrentDensity_A_per_m2: point.voltage.ionicCurrentDensityAPerM2,
+    leakageCurrentDensity_A_per_m2: point.voltage.leakageCurrentDensityAPerM2,
     areaSpecificResistance_ohm_m2: point.voltage.areaSpecificResistanceOhmM2,
     voltageSource: point.voltage.source,
     ionicTransferenceNumber: inputs.ionicTransferenceNumber,
@@ -175,7 +181,7 @@ function operatingPointOf({ point, inputs, o2Consumed, o2Fed }: Computed): Resul
   };
 }
 
-function efficiencyOf({ point }: Computed): Results['efficiency'] {
+function efficiencyOf({ point, power }: Computed): Results['efficiency'] {
   const eff = point.power;
   const el = point.electrolysis;
   return {
@@ -185,6 +191,7 @@ function efficiencyOf({ point }: Computed): Results['efficiency'] {
     thermodynamicLimitHhv: eff?.limitHhv ?? null,
     carnotLimit: eff?.carnot ?? null,
     voltageEfficiency: eff?.voltageEfficiency ?? el!.voltageEfficiency,
+    faradaicEfficiency: power ? point.totalCurrentA / point.ionicCurrentA : point.ionicCurrentA / point.totalCurrentA,
     electricalEfficiencyLhvGross: eff?.electricalLhvGross ?? null,
     electricalEfficiencyHhvGross: eff?.electricalHhvGross ?? null,
     electricalEfficiencyLhvNet: eff?.electricalLhvNet ?? null,
@@ -208,9 +215,10 @@ function heatOf({ point, inputs, power, o2Consumed }: Computed): Results['heat']
     point.coolingAirMolPerS !== null && o2Consumed && inputs.airFeed?.O2 ? point.coolingAirMolPerS / (o2Consumed / inputs.airFeed.O2) : null;
   const coolingKgPerH =
     point.coolingAirMolPerS !== null && inputs.airFeed ? point.coolingAirMolPerS * massFlowKgPerS(inputs.airFeed) * HOUR : null;
+  // Pure hydrogen, gaseous water: the isothermal heat must equal I_ion (−ΔH(T)/2F) − I V.
   const crossCheck =
     power && inputs.technology.waterPhase === 'gas' && onlyHydrogen(inputs.dryFuel) && inputs.preReforming.kind === 'none'
-      ? point.totalCurrentA * (-(enthalpy(getSpecies('H2O'), t) - enthalpy(getSpecies('H2'), t) - 0.5 * enthalpy(getSpecies('O2'), t)) / (2 * F) - point.voltage.cellVoltageV)
+      ? (point.ionicCurrentA * -(enthalpy(getSpecies('H2O'), t) - enthalpy(getSpecies('H2'), t) - 0.5 * enthalpy(getSpecies('O2'), t))) / (2 * F) - point.stackPowerW
       : null;
   return {
     isothermalHeat_W: point.heat.isothermalHeatW,
@@ -275,7 +283,17 @@ function calculateResults(basis: DesignBasis): Results {
       maxCarbonActivity: carbon.maxCarbonActivity,
     },
     fuelPath: {
-      points: point.path.points.map((p) => ({ utilization: p.utilization, nernst_V: p.nernstV, carbonActivity: p.carbonActivity, fuelSide: p.fuelSide, airSide: p.airSide })),
+      points: point.path.points.map((p, k) => ({
+        utilization: p.utilization,
+        nernst_V: p.nernstV,
+        areaFraction: point.voltage.local[k]!.areaFraction,
+        currentDensity_A_per_m2: point.voltage.local[k]!.currentDensityAPerM2,
+        carbonActivity: p.carbonActivity,
+        fuelSide: p.fuelSide,
+        airSide: p.airSide,
+      })),
+      inlet: point.path.inlet,
+      inletUtilization: point.path.inletUtilization,
       standardVoltage_V: point.path.standardVoltageV,
     },
     sweeps: {

@@ -1,6 +1,8 @@
 /**
  * One evaluation of the stack at its design point: the fuel path on a unit scale, the operating
- * voltage, the cell count, the stack scale from the current (Faraday: I = N j A), the process
+ * voltage of the uniform-voltage cell (voltage.ts), the cell count, the stack scale from the
+ * ionic current (Faraday: I_ion = N j_ion A sets every flow; with a mixed conductor the stack
+ * draws or delivers I = N j A, the electronic leakage carrying no ions), the process
  * streams, the heat balance and the efficiency figures. Pure: the same inputs give the same
  * numbers, which the sensitivity study relies on.
  */
@@ -8,7 +10,7 @@ import { getSpecies } from '../thermo/species-data.ts';
 import { fuelPath, type FuelPath } from '../equilibrium/fuel-path.ts';
 import type { DesignInputs } from './design-inputs.ts';
 import { unitFeeds, type UnitFeeds } from './unit-feeds.ts';
-import { operatingVoltage, type OperatingVoltage } from './voltage.ts';
+import { operatingVoltage, type CellVoltageRequest, type OperatingVoltage } from './voltage.ts';
 import { sizeStack, type Sizing } from './sizing.ts';
 import { liquidCellWater, type WaterSplit } from './water-balance.ts';
 import { heatBalance, coolingAirMolPerS, type HeatBalance } from './heat.ts';
@@ -30,9 +32,12 @@ export interface DesignPoint {
   scale: number;
   sizing: Sizing;
   voltage: OperatingVoltage;
+  /** Current of one cell at its terminals, j A. */
   cellCurrentA: number;
-  /** Σ over the cells of the cell current: the charge rate that sets the flows, A. */
+  /** Σ over the cells of the cell current at the terminals, N j A. */
   totalCurrentA: number;
+  /** Σ over the cells of the ionic current, N j_ion A: the charge rate that sets the flows, A. */
+  ionicCurrentA: number;
   stackVoltageV: number;
   /** Stack DC power: output in power mode, input in electrolysis, W. */
   stackPowerW: number;
@@ -64,6 +69,21 @@ function wetted(flows: Record<string, number>, vapour: number, liquid: number): 
   return out;
 }
 
+/** What the cell voltage of the design point is solved from (voltage.ts), for the design point and the sweeps. */
+export function cellRequest({ inputs, path }: Pick<DesignPoint, 'inputs' | 'path'>): CellVoltageRequest {
+  return {
+    mode: inputs.mode,
+    model: inputs.voltage,
+    profile: path.profile,
+    utilization: inputs.utilization,
+    currentDensityAPerM2: inputs.currentDensityAPerM2,
+    ionicTransferenceNumber: inputs.ionicTransferenceNumber,
+    crossoverAllowanceV: inputs.crossoverAllowanceV,
+    inletNernstV: path.inletNernstV,
+    points: path.points,
+  };
+}
+
 /** The fuel path on the unit scale of `unit`. */
 function unitPath(inputs: DesignInputs, unit: UnitFeeds): FuelPath {
   return fuelPath({
@@ -81,33 +101,36 @@ function unitPath(inputs: DesignInputs, unit: UnitFeeds): FuelPath {
   });
 }
 
-/** The cell's voltage and current, the cell count, and the stack's current, scale (stack flows per unit flow) and power. */
+/** The cell's voltage and currents, the cell count, and the stack's currents, scale (stack flows per unit flow, from the ionic current) and power. */
 function stackSize(inputs: DesignInputs, path: FuelPath) {
   const power = inputs.mode === 'power';
-  const voltage = operatingVoltage(inputs.mode, inputs.voltage, path.meanNernstV, path.inletNernstV, inputs.currentDensityAPerM2, inputs.ionicTransferenceNumber, inputs.crossoverAllowanceV);
+  const voltage = operatingVoltage(cellRequest({ inputs, path }));
   const cellCurrentA = inputs.currentDensityAPerM2 * inputs.activeAreaM2;
+  const cellIonicCurrentA = voltage.ionicCurrentDensityAPerM2 * inputs.activeAreaM2;
   const cellPowerW = voltage.cellVoltageV * cellCurrentA;
   // What one cell delivers of the sizing target.
   const unitHydrogen = power ? 0 : Math.max(0, (path.fuelOutlet.H2 ?? 0) - (path.fuelInlet.H2 ?? 0));
-  const hydrogenPerCellKgPerS = (unitHydrogen * (cellCurrentA / path.currentA)) * getSpecies('H2').molarMassKgPerMol;
+  const hydrogenPerCellKgPerS = (unitHydrogen * (cellIonicCurrentA / path.currentA)) * getSpecies('H2').molarMassKgPerMol;
   const perCell =
     inputs.size.kind === 'hydrogen' ? hydrogenPerCellKgPerS : power ? cellPowerW * (1 - inputs.parasiticFraction) : cellPowerW;
   const sizing = sizeStack(inputs.size, inputs.statedCells, perCell, inputs.mode);
   const totalCurrentA = sizing.cells * cellCurrentA;
+  const ionicCurrentA = sizing.cells * cellIonicCurrentA;
   const stackPowerW = sizing.cells * cellPowerW;
   return {
     voltage,
     cellCurrentA,
     sizing,
     totalCurrentA,
-    scale: totalCurrentA / path.currentA,
+    ionicCurrentA,
+    scale: ionicCurrentA / path.currentA,
     stackPowerW,
     netPowerW: power ? stackPowerW * (1 - inputs.parasiticFraction) : stackPowerW,
   };
 }
 
 /** The process streams on the stack scale: the pre-reformer's, the inlets, and the outlets (of a liquid-water cell with their vapour and liquid water). */
-function stackStreams(inputs: DesignInputs, unit: UnitFeeds, path: FuelPath, scale: number, totalCurrentA: number, notes: CalculationNote[]) {
+function stackStreams(inputs: DesignInputs, unit: UnitFeeds, path: FuelPath, scale: number, ionicCurrentA: number, notes: CalculationNote[]) {
   const power = inputs.mode === 'power';
   const tech = inputs.technology;
   const p = { fuel: inputs.fuelPressureBar, air: inputs.airPressureBar };
@@ -128,7 +151,7 @@ function stackStreams(inputs: DesignInputs, unit: UnitFeeds, path: FuelPath, sca
   let waterSplit: WaterSplit | null = null;
   if (tech.waterPhase === 'liquid') {
     const waterIn = inlets.reduce((s, st) => s + water(st.flows), 0);
-    waterSplit = liquidCellWater(inputs.mode, waterIn, totalCurrentA, gasFlow(fuelOut), gasFlow(airOut), path.vapourFractionFuel, path.vapourFractionAir);
+    waterSplit = liquidCellWater(inputs.mode, waterIn, ionicCurrentA, gasFlow(fuelOut), gasFlow(airOut), path.vapourFractionFuel, path.vapourFractionAir);
     if (!waterSplit.saturated) {
       notes.push({ path: 'conditions.operating-temperature', message: 'the water formed and fed is not enough to saturate both outlet gases at this temperature and pressure: the membrane or electrolyte would dry out (humidify the feeds, or raise the pressure)' });
     }
@@ -181,10 +204,10 @@ export function evaluateDesignPoint(inputs: DesignInputs): DesignPoint {
   const unit = unitFeeds(inputs);
   const path = unitPath(inputs, unit);
   const size = stackSize(inputs, path);
-  const { voltage, sizing, totalCurrentA, scale, stackPowerW, netPowerW } = size;
-  const streams = stackStreams(inputs, unit, path, scale, totalCurrentA, notes);
+  const { voltage, sizing, totalCurrentA, ionicCurrentA, scale, stackPowerW, netPowerW } = size;
+  const streams = stackStreams(inputs, unit, path, scale, ionicCurrentA, notes);
   const t = inputs.temperatureK;
-  const heat = heatBalance(inputs.mode, streams.inlets, streams.outlets, t, stackPowerW, totalCurrentA);
+  const heat = heatBalance(inputs.mode, streams.inlets, streams.outlets, t, stackPowerW, ionicCurrentA);
   const cooling = power ? coolingAir(inputs, heat, streams.airInletFlows, notes) : null;
   const powerEff = power
     ? powerEfficiency(unit.fuelRaw ? scaled(unit.fuelRaw, scale) : {}, t, inputs.ambientTemperatureK, inputs.technology.waterPhase, voltage.cellVoltageV, path.meanNernstV, stackPowerW, netPowerW)
@@ -202,6 +225,7 @@ export function evaluateDesignPoint(inputs: DesignInputs): DesignPoint {
     voltage,
     cellCurrentA: size.cellCurrentA,
     totalCurrentA,
+    ionicCurrentA,
     stackVoltageV: sizing.cells * voltage.cellVoltageV,
     stackPowerW,
     netPowerW,

@@ -8,9 +8,11 @@
  * "isothermal" with every stream at the stack temperature (the heat the stack itself produces,
  * the number cooling is sized on) and "as fed" with the inlets at their own temperatures (what
  * is left after the feeds are heated in the stack). The effective thermoneutral voltage of the
- * actual gases is V_tn = (H_in − H_out)(T)/I in power mode, (H_out − H_in)(T)/I in electrolysis,
- * so Q_iso = I (V_tn − V) or I (V − V_tn); for pure hydrogen it is −ΔH(T)/2F (methods note of
- * this project; Larminie & Dicks, §2.4).
+ * actual gases is V_tn = (H_in − H_out)(T)/I_ion in power mode, (H_out − H_in)(T)/I_ion in
+ * electrolysis, per unit of the ionic current I_ion that moves the species, so Q_iso = I_ion V_tn − I V
+ * or I V − I_ion V_tn (I the current at the terminals; the two are equal but for a mixed
+ * conductor's leakage); for pure hydrogen V_tn = −ΔH(T)/2F (methods note of this project;
+ * Larminie & Dicks, §2.4).
  * Cooling air for an allowed temperature rise ΔT (air leaving at stack temperature):
  *   ṅ_air = Q_iso / (h_air(T) − h_air(T − ΔT))   per mol of air of the feed composition.
  */
@@ -28,11 +30,11 @@ export interface HeatBalance {
   isothermalHeatW: number;
   /** Heat released with the inlets at their own temperatures, W. */
   asFedHeatW: number;
-  /** Effective thermoneutral voltage of the actual gases, V. */
+  /** Effective thermoneutral voltage of the actual gases, per unit of ionic charge, V. */
   thermoneutralVoltageV: number;
 }
 
-export function heatBalance(mode: Mode, inlets: Stream[], outlets: Stream[], stackTemperatureK: number, powerW: number, totalCurrentA: number): HeatBalance {
+export function heatBalance(mode: Mode, inlets: Stream[], outlets: Stream[], stackTemperatureK: number, powerW: number, ionicCurrentA: number): HeatBalance {
   const inletIso = inlets.reduce((s, st) => s + enthalpyFlowW(st.flows, stackTemperatureK), 0);
   const inletFed = inlets.reduce((s, st) => s + enthalpyFlowW(st.flows, st.temperatureK), 0);
   const outlet = outlets.reduce((s, st) => s + enthalpyFlowW(st.flows, st.temperatureK), 0);
@@ -47,7 +49,7 @@ export function heatBalance(mode: Mode, inlets: Stream[], outlets: Stream[], sta
     workInW,
     isothermalHeatW,
     asFedHeatW,
-    thermoneutralVoltageV: released / totalCurrentA,
+    thermoneutralVoltageV: released / ionicCurrentA,
   };
 }
 

@@ -36,6 +36,7 @@ function fieldOf(basis: DesignBasis, input: CalculationInput): string {
     'cell-voltage': 'operating-point.cell-voltage',
     'area-specific-resistance': 'operating-point.area-specific-resistance',
     cells: 'operating-point.cells',
+    'ionic-transference-number': 'cell.ionic-transference-number',
   };
   return fields[input];
 }

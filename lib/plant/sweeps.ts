@@ -3,9 +3,10 @@
  * - temperature: E_rev = −ΔG°/2F and V_tn = −ΔH°/2F of H2 + ½O2 → H2O, the actual fuel's
  *   −ΔG°/zF, the thermodynamic efficiency limits −ΔG(T)/LHV and −ΔG(T)/HHV of the fuel and of
  *   hydrogen, and the Carnot limit 1 − T_cold/T (Larminie & Dicks, §2.3-2.4);
- * - current density: V(j) = Ē_eff − j ASR (power) or Ē + j ASR (electrolysis) at the design
- *   utilization (Ē does not depend on j at fixed utilization), P = N A j V, Q = N A j (V_tn − V)
- *   (power) or N A j (V − V_tn) (electrolysis), with the design point's effective V_tn;
+ * - current density: V(j) of the uniform-voltage cell (voltage.ts) at the design utilization and
+ *   resistance (E(u) does not depend on j at fixed utilization), P = N A j V,
+ *   Q = N A (j_ion V_tn − j V) (power) or N A (j V − j_ion V_tn) (electrolysis), with the design
+ *   point's effective V_tn per ionic charge;
  * - steam-to-carbon: carbon activity of the equilibrated fuel gas against S/C, at the stack and
  *   pre-reformer temperatures.
  */
@@ -17,7 +18,9 @@ import { getSpecies } from '../thermo/species-data.ts';
 import { inRange } from '../thermo/properties.ts';
 import { heatingValue, streamHeatingValueW } from './heating-values.ts';
 import { oxidationGibbsW } from './efficiency.ts';
-import type { DesignPoint } from './design-point.ts';
+import { cellRequest, type DesignPoint } from './design-point.ts';
+import { operatingVoltage } from './voltage.ts';
+import { UserError } from '../core/errors.ts';
 import type { Results } from './results-schema.ts';
 
 type Sweeps = Results['sweeps'];
@@ -56,19 +59,27 @@ export function temperatureSweep(point: DesignPoint, fromK: number, toK: number,
 export function currentDensitySweep(point: DesignPoint, count = 25): Sweeps['currentDensity'] {
   const { inputs, voltage, heat, sizing } = point;
   const power = inputs.mode === 'power';
-  const asr = voltage.areaSpecificResistanceOhmM2;
+  const model = { kind: 'area-specific-resistance', ohmM2: voltage.areaSpecificResistanceOhmM2 } as const;
   const area = sizing.cells * inputs.activeAreaM2;
   const jMax = 1.6 * inputs.currentDensityAPerM2;
   const out: Sweeps['currentDensity'] = [];
   for (const j of linspace(jMax / count, jMax, count)) {
-    const v = power ? voltage.effectiveNernstV - j * asr : voltage.effectiveNernstV + j * asr;
-    if (power && v <= 0) break;
+    let cell;
+    try {
+      cell = operatingVoltage({ ...cellRequest(point), model, currentDensityAPerM2: j });
+    } catch (error) {
+      // Past the current density at which the voltage reaches zero (power) the sweep ends.
+      if (error instanceof UserError) break;
+      throw error;
+    }
+    const v = cell.cellVoltageV;
     const current = area * j;
+    const ionic = area * cell.ionicCurrentDensityAPerM2;
     out.push({
       currentDensity_A_per_m2: j,
       cellVoltage_V: v,
       stackPower_W: current * v,
-      stackHeat_W: power ? current * (heat.thermoneutralVoltageV - v) : current * (v - heat.thermoneutralVoltageV),
+      stackHeat_W: power ? ionic * heat.thermoneutralVoltageV - current * v : current * v - ionic * heat.thermoneutralVoltageV,
     });
   }
   return out;

@@ -1,66 +1,264 @@
 /**
- * The operating voltage of a cell.
+ * The operating voltage of a cell with one voltage over its whole area (the uniform-voltage cell
+ * of a stack whose plates are good conductors) and a lumped area-specific resistance ASR.
  *
- * Power mode:        E_oc = t_ion · E − ΔV_x          (open circuit lowered by electronic
- *                    leakage through a mixed conductor, t_ion < 1, and a crossover allowance)
- *                    V = given, or V = t_ion · Ē − ΔV_x − j · ASR
- * Electrolysis:      V = given, or V = Ē + j · ASR
- * with Ē the charge-averaged Nernst voltage along the fuel path (the uniform-voltage cell of a
- * co-flow stack whose local current follows the local driving force; lumped area-specific
- * resistance model, e.g. O'Hayre et al., Fuel Cell Fundamentals, 3rd ed., ch. 3 and 8).
- * t_ion and the crossover allowance are open-circuit effects of power mode; in electrolysis the
- * faradaic loss of a mixed conductor is not modelled and the basis says so in its method notes.
+ * The electrolyte is modelled as an ionic branch in parallel with an electronic one (a mixed
+ * conductor with ionic transference number t_ion ≤ 1; the equivalent circuit of e.g.
+ * M. Gödickemeier and L. J. Gauckler, J. Electrochem. Soc. 145 (1998) 414, from memory): the
+ * cell's open-circuit voltage is t_ion E − ΔV_x (ΔV_x the basis's crossover allowance, power
+ * mode only), its resistance at the terminals is the ASR, so the ionic branch has ASR/t_ion and
+ * the electronic branch ASR/(1 − t_ion). At a point u of the fuel path (u = charge carried by the
+ * ions over the charge basis, so that fuel, water and oxygen follow the ionic current):
+ *
+ *   power:         i_ion(u) = (t_ion E(u) − ΔV_x − t_ion V) / ASR      i_e = (1 − t_ion) V / ASR
+ *                  i(u) = i_ion(u) − i_e = (t_ion E(u) − ΔV_x − V) / ASR   (at the terminals)
+ *   electrolysis:  i_ion(u) = t_ion (V − E(u)) / ASR                   i(u) = i_ion(u) + i_e = (V − t_ion E(u)) / ASR
+ *
+ * The area that carries the ionic charge from u to u + du is dA = Q du / i_ion(u) (Q the charge
+ * basis), so the mean ionic current density is the harmonic mean of the local one, and with the
+ * mean current density j at the terminals (the design input; the leakage i_e is the same
+ * everywhere, V being uniform):
+ *
+ *   power:         U / ∫₀^U du/(t_ion E(u) − ΔV_x − t_ion V) = j ASR + (1 − t_ion) V       (1)
+ *   electrolysis:  U / ∫₀^U du/(t_ion V − t_ion E(u))     = j ASR − (1 − t_ion) V       (2)
+ *
+ * For t_ion = 1: U/(j ASR) = ∫₀^U du/(E(u) − ΔV_x − V). Averaging i(u) over the area gives the
+ * same law as V = t_ion Ē_A − ΔV_x − j ASR (power) or V = t_ion Ē_A + j ASR (electrolysis), with
+ * Ē_A = ∫ E dA / A the area-mean Nernst voltage; where E is the same all along, V = E − j ASR.
+ * The charge mean Ē = (1/U) ∫ E du (lib/equilibrium/path-integral.ts) is the Gibbs energy per
+ * charge of the reaction; it overstates the voltage of a cell whose outlet, where E is low, draws
+ * less current and needs more area. The basis gives V (then (1) or (2) is explicit in ASR, the
+ * implied resistance) or the ASR (then V is the root of (1) or (2), each side monotone in V).
+ *
+ * Reachable points: the ionic current must keep its sign to the outlet, t_ion V < min(t_ion E −
+ * ΔV_x) in power mode and V > max E in electrolysis; otherwise it reverses before the utilization
+ * is reached. A given voltage outside that, a resistance giving V ≤ 0, and a mixed conductor whose
+ * leakage leaves no net current are refused at the field they concern.
  */
 import type { Mode } from '../electrochem/technologies.ts';
 import type { VoltageModel } from '../basis/types.ts';
-import { CalculationError } from '../core/errors.ts';
+import { reciprocalIntegral, type Profile, type ReciprocalIntegral } from '../equilibrium/path-integral.ts';
+import { CalculationError, type CalculationInput } from '../core/errors.ts';
+
+export interface CellVoltageRequest {
+  mode: Mode;
+  model: VoltageModel;
+  /** E(u) along the fuel path. */
+  profile: Profile;
+  /** Design fuel utilization or steam conversion U (the end of the profile). */
+  utilization: number;
+  /** Mean current density at the terminals, A/m². */
+  currentDensityAPerM2: number;
+  ionicTransferenceNumber: number;
+  /** Subtracted from the open-circuit voltage in power mode, V. */
+  crossoverAllowanceV: number;
+  /** Nernst voltage at the inlet as reported (lib/equilibrium/fuel-path.ts), V. */
+  inletNernstV: number;
+  /** The reported points of the fuel path, for the local current density along the cell. */
+  points: readonly { utilization: number; nernstV: number }[];
+}
+
+export interface LocalPoint {
+  utilization: number;
+  /** Share of the cell's active area from the inlet to this point. */
+  areaFraction: number;
+  /** Local current density at the terminals, i(u), A/m². */
+  currentDensityAPerM2: number;
+}
 
 export interface OperatingVoltage {
   cellVoltageV: number;
-  /** Effective mean driving voltage t_ion Ē − ΔV_x (power) or Ē (electrolysis), V. */
+  /** Area-mean driving voltage: t_ion Ē_A − ΔV_x (power) or t_ion Ē_A (electrolysis), V. */
   effectiveNernstV: number;
-  /** Open-circuit voltage at the inlet (t_ion E_in − ΔV_x), V; null for a dry inlet. */
-  openCircuitV: number | null;
-  /** Area-specific resistance used or implied, ohm m²: (Ē_eff − V)/j, or (V − Ē)/j in electrolysis. */
+  /** Area-mean Nernst voltage Ē_A = ∫E dA / A, V. */
+  areaMeanNernstV: number;
+  /** Open-circuit voltage at the inlet: t_ion E_in − ΔV_x (power) or t_ion E_in (electrolysis), V. */
+  openCircuitV: number;
+  /** Area-specific resistance used or implied, ohm m². */
   areaSpecificResistanceOhmM2: number;
   source: 'given' | 'area-specific-resistance';
+  /** ∫₀^U du/y(u) of (1) or (2), with y the ionic driving voltage, 1/V. */
+  harmonicIntegralPerV: number;
+  /** Mean ionic current density (it sets the flows by Faraday's law) and the electronic leakage, A/m². */
+  ionicCurrentDensityAPerM2: number;
+  leakageCurrentDensityAPerM2: number;
+  /** The local current density at the reported points of the fuel path, and its highest value. */
+  local: LocalPoint[];
+  maxLocalCurrentDensityAPerM2: number;
 }
 
-export function operatingVoltage(
-  mode: Mode,
-  model: VoltageModel,
-  meanNernstV: number,
-  inletNernstV: number | null,
-  currentDensityAPerM2: number,
-  ionicTransferenceNumber: number,
-  crossoverAllowanceV: number,
-): OperatingVoltage {
-  const power = mode === 'power';
-  const effective = power ? ionicTransferenceNumber * meanNernstV - crossoverAllowanceV : meanNernstV;
-  const openCircuitV = power && inletNernstV !== null ? ionicTransferenceNumber * inletNernstV - crossoverAllowanceV : power ? null : inletNernstV;
-  const cellVoltageV =
-    model.kind === 'given' ? model.cellVoltageV : power ? effective - currentDensityAPerM2 * model.ohmM2 : effective + currentDensityAPerM2 * model.ohmM2;
-  const field = model.kind === 'given' ? 'cell-voltage' : 'area-specific-resistance';
-  if (power && !(cellVoltageV < effective)) {
+/** What the physics fixes once the mode and the cell are known: y(u) = a E(u) + b(V) is the ionic driving voltage. */
+class Cell {
+  readonly power: boolean;
+  readonly t: number;
+  readonly dV: number;
+  constructor(readonly request: CellVoltageRequest) {
+    this.power = request.mode === 'power';
+    this.t = request.ionicTransferenceNumber;
+    this.dV = this.power ? request.crossoverAllowanceV : 0;
+  }
+
+  /** y = t E − ΔV_x − t V (power) or t V − t E (electrolysis). */
+  coefficients(v: number): [number, number] {
+    return this.power ? [this.t, -this.dV - this.t * v] : [-this.t, this.t * v];
+  }
+
+  integral(v: number): ReciprocalIntegral | null {
+    const [a, b] = this.coefficients(v);
+    return reciprocalIntegral(this.request.profile, a, b);
+  }
+
+  /** The voltage at which the ionic current reaches zero somewhere on the path: min(E − ΔV_x/t) (power) or max E (electrolysis). */
+  reversibleLimitV(): number {
+    const e = this.request.profile.value;
+    let limit = this.power ? Infinity : -Infinity;
+    for (const x of e) limit = this.power ? Math.min(limit, x - this.dV / this.t) : Math.max(limit, x);
+    for (const p of this.request.points) limit = this.power ? Math.min(limit, p.nernstV - this.dV / this.t) : Math.max(limit, p.nernstV);
+    return limit;
+  }
+
+  /** j ASR as (1) or (2) gives it at voltage v: U/I ∓ (1 − t) v. */
+  resistanceTimesJ(v: number, integral: ReciprocalIntegral): number {
+    const u = this.request.utilization;
+    return this.power ? u / integral.first - (1 - this.t) * v : u / integral.first + (1 - this.t) * v;
+  }
+}
+
+const fmt = (v: number) => v.toFixed(4);
+const pct = (x: number) => `${(x * 100).toPrecision(4)} %`;
+
+/**
+ * The root of a function that is monotone on (lo, hi) and changes sign there, by Newton's method
+ * kept inside the bracket (bisection where a step leaves it), to 1e-12 V.
+ */
+function solveMonotone(f: (x: number) => { value: number; slope: number }, lo: number, hi: number, increasing: boolean): number {
+  let x = (lo + hi) / 2;
+  for (let k = 0; k < 200; k++) {
+    const { value, slope } = f(x);
+    if (value === 0) return x;
+    if ((value > 0) === increasing) hi = x;
+    else lo = x;
+    let next = x - value / slope;
+    if (!(next > lo && next < hi)) next = (lo + hi) / 2;
+    if (Math.abs(next - x) < 1e-13 || hi - lo < 1e-13) return next;
+    x = next;
+  }
+  return x;
+}
+
+function voltageField(model: VoltageModel): CalculationInput {
+  return model.kind === 'given' ? 'cell-voltage' : 'area-specific-resistance';
+}
+
+function utilizationText(mode: Mode, u: number): string {
+  return mode === 'power' ? `the fuel utilization ${pct(u)}` : `the steam conversion ${pct(u)}`;
+}
+
+/** (1) or (2) solved for V at the resistance ASR (power: the highest voltage with positive ionic current is the limit). */
+function solveVoltage(cell: Cell, asr: number, limit: number): number {
+  const { currentDensityAPerM2: j, utilization: u } = cell.request;
+  const t = cell.t;
+  // g(V) = U/I(V) − j ASR ∓ (1 − t) V; dI/dV = ±t ∫du/y².
+  const g = (v: number) => {
+    const integral = cell.integral(v)!;
+    const dI = (cell.power ? t : -t) * integral.second;
+    const value = u / integral.first - j * asr + (cell.power ? -(1 - t) * v : (1 - t) * v);
+    const slope = (-u * dI) / (integral.first * integral.first) + (cell.power ? -(1 - t) : 1 - t);
+    return { value, slope };
+  };
+  if (cell.power) {
+    // g falls from +∞ (V → −∞) to −j ASR − (1 − t) V (V → the limit, where U/I → 0).
+    let step = 1;
+    let lo = limit - step;
+    while (g(lo).value <= 0) {
+      step *= 2;
+      lo = limit - step;
+    }
+    return solveMonotone(g, lo, limit, false);
+  }
+  // Electrolysis: g rises from −j ASR + (1 − t) V at the limit to +∞.
+  const atLimit = -j * asr + (1 - t) * limit;
+  if (atLimit >= 0) {
     throw new CalculationError(
-      `the cell voltage ${cellVoltageV.toFixed(4)} V is not below the mean Nernst voltage available, ${effective.toFixed(4)} V: the cell would deliver no current at this point`,
-      field,
+      `with an ionic transference number of ${t} the electronic leakage at the Nernst voltage ${fmt(limit)} V, (1 − t_ion)·E/ASR = ${((1 - t) * limit / asr / 1e4).toPrecision(4)} A/cm2, already carries the whole current density ${(j / 1e4).toPrecision(4)} A/cm2: no current would be left to split water`,
+      'ionic-transference-number',
     );
   }
-  if (power && !(cellVoltageV > 0)) {
-    throw new CalculationError(`the resistance gives a cell voltage of ${cellVoltageV.toFixed(4)} V at this current density: lower the current density or the area-specific resistance`, field);
+  let step = (j * asr) / t + 1e-3;
+  let hi = limit + step;
+  while (g(hi).value <= 0) {
+    step *= 2;
+    hi = limit + step;
   }
-  if (!power && !(cellVoltageV > effective)) {
-    throw new CalculationError(
-      `the cell voltage ${cellVoltageV.toFixed(4)} V is not above the mean Nernst voltage ${effective.toFixed(4)} V: electrolysis needs more than the reversible voltage`,
-      field,
-    );
+  return solveMonotone(g, limit, hi, true);
+}
+
+/** The cell voltage, or the resistance implied by a given voltage, by (1) or (2). */
+export function operatingVoltage(request: CellVoltageRequest): OperatingVoltage {
+  const cell = new Cell(request);
+  const { mode, model, currentDensityAPerM2: j, utilization: u } = request;
+  const t = cell.t;
+  const limit = cell.reversibleLimitV();
+  let v: number;
+  let asr: number;
+  if (model.kind === 'given') {
+    v = model.cellVoltageV;
+    const reachable = cell.power ? v < limit : v > limit;
+    const integral = reachable ? cell.integral(v) : null;
+    if (!integral) {
+      const where = cell.power
+        ? `not below the lowest Nernst voltage available along the cell, ${t < 1 || cell.dV > 0 ? 'E − ΔV_x/t_ion = ' : ''}${fmt(limit)} V`
+        : `not above the highest Nernst voltage along the cell, ${fmt(limit)} V`;
+      throw new CalculationError(
+        `the cell voltage ${fmt(v)} V is ${where}: the local current would reverse before ${utilizationText(mode, u)} is reached (${mode === 'power' ? 'lower the cell voltage or the fuel utilization' : 'raise the cell voltage or lower the steam conversion'})`,
+        voltageField(model),
+      );
+    }
+    asr = cell.resistanceTimesJ(v, integral) / j;
+    if (!(asr > 0)) {
+      // Power mode with t < 1: the leakage (1 − t) V/ASR exceeds the ionic current at any resistance.
+      const h = (x: number) => {
+        const i = cell.integral(x)!;
+        return { value: u / i.first - (1 - t) * x, slope: -(u * t * i.second) / (i.first * i.first) - (1 - t) };
+      };
+      const highest = solveMonotone(h, 0, limit, false);
+      throw new CalculationError(
+        `the cell voltage ${fmt(v)} V leaves no net current: with an ionic transference number of ${t} the electronic leakage at this voltage exceeds the ionic current at any resistance (the implied area-specific resistance would be ${(asr * 1e4).toPrecision(4)} ohm cm2); below ${fmt(highest)} V a net current flows`,
+        voltageField(model),
+      );
+    }
+  } else {
+    asr = model.ohmM2;
+    v = solveVoltage(cell, asr, limit);
+    if (cell.power && !(v > 0)) {
+      throw new CalculationError(`the resistance gives a cell voltage of ${fmt(v)} V at this current density: lower the current density or the area-specific resistance`, voltageField(model));
+    }
   }
+  const integral = cell.integral(v)!;
+  const [a, b] = cell.coefficients(v);
+  // Ē_A = ∫E du/y / ∫du/y with y = aE + b: ∫E/y du = (U − b I)/a.
+  const areaMeanNernstV = (u - b * integral.first) / a / integral.first;
+  const leakage = ((1 - t) * v) / asr;
+  const ionic = cell.power ? j + leakage : j - leakage;
+  const effectiveNernstV = cell.power ? t * areaMeanNernstV - cell.dV : t * areaMeanNernstV;
+  const samples = new Map<number, number>();
+  request.profile.utilization.forEach((x, k) => samples.set(x, integral.cumulative[k]!));
+  const local = request.points.map((p) => ({
+    utilization: p.utilization,
+    areaFraction: p.utilization === 0 ? 0 : samples.get(p.utilization)! / integral.first,
+    currentDensityAPerM2: cell.power ? (t * p.nernstV - cell.dV - v) / asr : (v - t * p.nernstV) / asr,
+  }));
   return {
-    cellVoltageV,
-    effectiveNernstV: effective,
-    openCircuitV,
-    areaSpecificResistanceOhmM2: Math.abs(effective - cellVoltageV) / currentDensityAPerM2,
+    cellVoltageV: v,
+    effectiveNernstV,
+    areaMeanNernstV,
+    openCircuitV: t * request.inletNernstV - cell.dV,
+    areaSpecificResistanceOhmM2: asr,
     source: model.kind === 'given' ? 'given' : 'area-specific-resistance',
+    harmonicIntegralPerV: integral.first,
+    ionicCurrentDensityAPerM2: ionic,
+    leakageCurrentDensityAPerM2: leakage,
+    local,
+    maxLocalCurrentDensityAPerM2: Math.max(...local.map((p) => p.currentDensityAPerM2)),
   };
 }

@@ -52,27 +52,40 @@ describe('temperature sweep', () => {
 });
 
 describe('current-density sweep', () => {
-  const r = calculate(basisFrom('proton-ceramic', 'power'));
-  const eEff = r.electrochemistry.effectiveNernst_V;
+  // The proton-ceramic scaffold: a resistance of 0.5 ohm cm2 and t_ion = 0.95.
+  const basis = basisFrom('proton-ceramic', 'power');
+  const r = calculate(basis);
   const asr = r.electrochemistry.areaSpecificResistance_ohm_m2;
   const area = r.operatingPoint.totalActiveArea_m2;
   const vtn = r.electrochemistry.effectiveThermoneutralVoltage_V;
+  const t = r.electrochemistry.ionicTransferenceNumber;
 
-  it('follows V = Ē_eff − j·ASR through the design point, with P = N A j V and Q = N A j (V_tn − V)', () => {
+  it('passes through the design point, V = Ē_eff − j·ASR there, with P = N A j V and Q = N A (j_ion V_tn − j V), j_ion = j + (1 − t) V/ASR', () => {
     const j0 = r.operatingPoint.currentDensity_A_per_m2;
-    expect(eEff - j0 * asr).toBeCloseTo(r.headline.cellVoltage_V, 12);
-    expect(area * j0 * (vtn - r.headline.cellVoltage_V)).toBeCloseTo(r.headline.stackHeat_W, 6);
+    expect(r.electrochemistry.effectiveNernst_V - j0 * asr).toBeCloseTo(r.headline.cellVoltage_V, 12);
+    expect(r.electrochemistry.ionicCurrent_A * vtn - r.headline.stackPower_W).toBeCloseTo(r.headline.stackHeat_W, 6);
     expect(r.sweeps.currentDensity.length).toBeGreaterThan(10);
     for (const p of r.sweeps.currentDensity) {
-      const v = eEff - p.currentDensity_A_per_m2 * asr;
-      expect(p.cellVoltage_V).toBeCloseTo(v, 12);
-      expect(p.stackPower_W / (area * p.currentDensity_A_per_m2 * v)).toBeCloseTo(1, 12);
-      expect(p.stackHeat_W / (area * p.currentDensity_A_per_m2 * (vtn - v))).toBeCloseTo(1, 12);
+      const j = p.currentDensity_A_per_m2;
+      const v = p.cellVoltage_V;
+      expect(p.stackPower_W / (area * j * v)).toBeCloseTo(1, 12);
+      const jIon = j + ((1 - t) * v) / asr;
+      expect(p.stackHeat_W / (area * (jIon * vtn - j * v))).toBeCloseTo(1, 12);
     }
-    // It spans the design point.
+    // The voltage falls as the current density rises.
+    const v = r.sweeps.currentDensity.map((p) => p.cellVoltage_V);
+    for (let k = 1; k < v.length; k++) expect(v[k]!).toBeLessThan(v[k - 1]!);
     const js = r.sweeps.currentDensity.map((p) => p.currentDensity_A_per_m2);
     expect(Math.min(...js)).toBeLessThan(j0);
     expect(Math.max(...js)).toBeGreaterThan(j0);
+  });
+
+  it('each point is the voltage the whole calculation gives at that current density (same utilization and resistance)', () => {
+    for (const p of [r.sweeps.currentDensity[3]!, r.sweeps.currentDensity[20]!]) {
+      const at = calculate(basisFrom('proton-ceramic', 'power', { 'operating-point.current-density': `${p.currentDensity_A_per_m2 / 1e4} A/cm2` }));
+      // The same fuel path (it depends on the utilization only): the same root to 1e-12 V.
+      expect(at.headline.cellVoltage_V).toBeCloseTo(p.cellVoltage_V, 11);
+    }
   });
 });
 
