@@ -7,7 +7,7 @@ import { z } from 'zod';
 import { readDataFile } from '../core/data-file.ts';
 import { parseQuantity, type Dimension } from '../core/units.ts';
 
-const LIMITED_INPUTS = ['pressure', 'current-density', 'active-area', 'cell-voltage', 'target-power', 'target-hydrogen', 'utilization', 'allowed-air-temperature-rise'] as const;
+const LIMITED_INPUTS = ['pressure', 'current-density', 'active-area', 'cell-voltage', 'target-power', 'target-hydrogen', 'utilization', 'allowed-air-temperature-rise', 'activation-energy'] as const;
 
 export type LimitedInput = (typeof LIMITED_INPUTS)[number];
 
@@ -28,6 +28,7 @@ const DIMENSIONS: Record<LimitedInput, Dimension> = {
   'target-hydrogen': 'mass-flow',
   utilization: 'fraction',
   'allowed-air-temperature-rise': 'temperature-difference',
+  'activation-energy': 'molar-energy',
 };
 
 let cache: Map<LimitedInput, Limit> | undefined;

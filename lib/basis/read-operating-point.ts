@@ -9,7 +9,8 @@
 import type { Mode } from '../electrochem/technologies.ts';
 import type { Path } from './diagnostics.ts';
 import type { Read, Reader } from './reader.ts';
-import type { AirSupply, OperatingPoint, StackSize, VoltageModel } from './types.ts';
+import type { AirSupply, OperatingPoint, ResistanceLaw, StackSize, VoltageModel } from './types.ts';
+import { readTemperature } from './read-conditions.ts';
 import type { Dimension } from '../core/units.ts';
 import { limitProblem, type LimitedInput } from './limits.ts';
 
@@ -104,6 +105,37 @@ function voltage(reader: Reader): VoltageModel | undefined {
   return undefined;
 }
 
+/** `resistance-temperature-law`: activation energy within its limits, a reference temperature only where the basis gives the resistance, and a source. */
+function resistanceLaw(reader: Reader, voltage: VoltageModel | undefined): ResistanceLaw | null | undefined {
+  const at = OP('resistance-temperature-law');
+  if (!reader.has(at)) return null;
+  const energy = reader.scalar([...at, 'activation-energy'], 'molar-energy', 'activation energy of the resistance');
+  if (energy) {
+    const beyond = energy.si < 0 ? `the activation energy is 0 or more (a resistance that rises with temperature is not modelled), got ${energy.text}` : limitProblem('activation-energy', 'activation energy', energy);
+    if (beyond) {
+      reader.findings.error(energy.at, beyond);
+      return undefined;
+    }
+  }
+  const source = reader.source([...at, 'source']);
+  let reference: number | undefined;
+  if (reader.has([...at, 'reference-temperature'])) {
+    if (voltage?.kind === 'given') {
+      reader.findings.error(
+        [...at, 'reference-temperature'],
+        'with cell-voltage given the law scales the resistance implied at the operating temperature: omit reference-temperature (it applies to area-specific-resistance)',
+        'key',
+      );
+      return undefined;
+    }
+    const read = readTemperature(reader, [...at, 'reference-temperature'], 'reference temperature of the resistance');
+    if (!read) return undefined;
+    reference = read.si;
+  }
+  if (!energy || source === undefined) return undefined;
+  return { activationEnergyJPerMol: energy.si, ...(reference !== undefined ? { referenceTemperatureK: reference } : {}), source };
+}
+
 function size(reader: Reader, mode: Mode): { size: StackSize; statedCells?: number } | undefined {
   const refused: Record<string, string> = mode === 'power' ? { 'target-hydrogen': 'target-hydrogen belongs to electrolysis; in power mode give target-power or cells' } : {};
   const target = oneOf(reader, mode === 'power' ? ['target-power'] : ['target-power', 'target-hydrogen'], undefined, refused);
@@ -142,12 +174,14 @@ export function readOperatingPoint(reader: Reader, mode: Mode, sweep: { allowed:
     parasiticFraction: parasitic(reader, mode),
   };
   const { utilization: u, air, currentDensity, voltage: v, activeArea, size: s, parasiticFraction } = values;
-  if (u === undefined || !air || !currentDensity || !v || !activeArea || !s || parasiticFraction === undefined) return undefined;
+  const law = resistanceLaw(reader, v);
+  if (u === undefined || !air || !currentDensity || !v || law === undefined || !activeArea || !s || parasiticFraction === undefined) return undefined;
   return {
     utilization: u,
     air,
     currentDensityAPerM2: currentDensity.si,
     voltage: v,
+    ...(law ? { resistanceLaw: law } : {}),
     activeAreaM2: activeArea.si,
     size: s.size,
     ...(s.statedCells !== undefined ? { statedCells: s.statedCells } : {}),

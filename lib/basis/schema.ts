@@ -149,6 +149,17 @@ const operatingPointSection = strict(
     'current-density': quantity('current-density', 'current density, e.g. "0.4 A/cm2"'),
     'cell-voltage': quantity('voltage', 'cell voltage, e.g. "0.80 V"; or give area-specific-resistance').optional(),
     'area-specific-resistance': quantity('area-specific-resistance', 'area-specific resistance, e.g. "0.35 ohm cm2"; or give cell-voltage').optional(),
+    'resistance-temperature-law': strict(
+      {
+        'activation-energy': quantity('molar-energy', 'activation energy E_a of the resistance, e.g. "0.8 eV" or "77 kJ/mol"'),
+        'reference-temperature': quantity(
+          'temperature',
+          'temperature at which area-specific-resistance applies (default: the operating temperature; with cell-voltage the law scales the resistance implied at the operating temperature, so omit it)',
+        ).optional(),
+        source: text('where the activation energy comes from: a reference id or a justification'),
+      },
+      'Arrhenius law of the area-specific resistance, ASR(T) = ASR_ref exp[(E_a/R)(1/T − 1/T_ref)], used where the temperature changes (temperature sweep and sensitivity); without it the resistance is held constant there',
+    ).optional(),
     'active-area': quantity('area', 'active area of one cell, e.g. "100 cm2"'),
     cells: number('number of cells (a positive whole number)', '1200').optional(),
     'target-power': quantity('power', 'net electric output (power mode) or electric input (electrolysis), e.g. "250 kW"').optional(),

@@ -100,6 +100,16 @@ export type AirSupply =
 
 export type VoltageModel = { kind: 'given'; cellVoltageV: number } | { kind: 'area-specific-resistance'; ohmM2: number };
 
+/**
+ * Arrhenius law of the area-specific resistance: ASR(T) = ASR(T_ref) exp[(E_a/R)(1/T − 1/T_ref)].
+ * T_ref absent: the operating temperature (always so when the basis gives the cell voltage).
+ */
+export interface ResistanceLaw {
+  activationEnergyJPerMol: number;
+  referenceTemperatureK?: number;
+  source: string;
+}
+
 export type StackSize =
   | { kind: 'cells'; cells: number }
   /** Target stack power: net electric output (power mode) or electric input (electrolysis), W. */
@@ -113,6 +123,8 @@ export interface OperatingPoint {
   air: AirSupply;
   currentDensityAPerM2: number;
   voltage: VoltageModel;
+  /** How the area-specific resistance changes with temperature; absent: held constant. */
+  resistanceLaw?: ResistanceLaw;
   activeAreaM2: number;
   size: StackSize;
   /** When both a cell count and a target were given (and agree within 2 %), the cell count. */

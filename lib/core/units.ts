@@ -19,6 +19,7 @@ export const DIMENSIONS = [
   'voltage',
   'current',
   'mass-flow',
+  'molar-energy',
   'fraction',
 ] as const;
 
@@ -46,6 +47,7 @@ export const SI_UNIT: Record<Dimension, string> = {
   voltage: 'V',
   current: 'A',
   'mass-flow': 'kg/s',
+  'molar-energy': 'J/mol',
   fraction: '1',
 };
 
@@ -61,6 +63,7 @@ export const EXAMPLE: Record<Dimension, string> = {
   voltage: '"0.80 V" or "800 mV"',
   current: '"40 A"',
   'mass-flow': '"10 kg/h"',
+  'molar-energy': '"80 kJ/mol" or "0.8 eV"',
   fraction: '0.85 or "85 %"',
 };
 
@@ -75,11 +78,12 @@ const ARTICLE: Record<Dimension, string> = {
   voltage: 'a voltage',
   current: 'a current',
   'mass-flow': 'a mass flow',
+  'molar-energy': 'an activation energy',
   fraction: 'a fraction',
 };
 
 export interface Quantity {
-  /** Value in the SI unit of its dimension (K, Pa, A/m2, ohm m2, m2, W, V, A, kg/s, 1). */
+  /** Value in the SI unit of its dimension (K, Pa, A/m2, ohm m2, m2, W, V, A, kg/s, J/mol, 1). */
   si: number;
   /** The number as written. */
   value: number;

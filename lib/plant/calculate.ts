@@ -14,7 +14,7 @@ import { toolVersion } from '../core/version.ts';
 import { designInputs } from './design-inputs.ts';
 import { evaluateDesignPoint, type DesignPoint } from './design-point.ts';
 import { carbonMargin } from './carbon-margin.ts';
-import { currentDensitySweep, steamToCarbonSweep, temperatureSweep } from './sweeps.ts';
+import { currentDensitySweep, stackTemperatureSweep, steamToCarbonSweep, temperatureSweep } from './sweeps.ts';
 import { sensitivities } from './sensitivity.ts';
 import { hazardInput } from './hazard-streams.ts';
 import { locateCalculationErrors } from './located-error.ts';
@@ -160,6 +160,9 @@ function electrochemistryOf({ point, inputs }: Computed): Results['electrochemis
     voltageSource: point.voltage.source,
     ionicTransferenceNumber: inputs.ionicTransferenceNumber,
     crossoverAllowance_V: inputs.crossoverAllowanceV,
+    resistanceLaw: inputs.resistanceLaw
+      ? { activationEnergy_J_per_mol: inputs.resistanceLaw.activationEnergyJPerMol, referenceTemperature_K: inputs.resistanceLaw.referenceTemperatureK!, source: inputs.resistanceLaw.source }
+      : null,
     chargeBasis_A: point.path.chargeBasisA * point.scale,
     utilization: inputs.utilization,
     elementBalanceError: point.path.elementBalanceError,
@@ -299,6 +302,7 @@ function calculateResults(basis: DesignBasis): Results {
     sweeps: {
       temperature: temperatureSweep(point, basis.conditions.sweepFromK, basis.conditions.sweepToK),
       currentDensity: currentDensitySweep(point),
+      stackTemperature: stackTemperatureSweep(point, basis.conditions.sweepFromK, basis.conditions.sweepToK),
       steamToCarbon: steamToCarbonSweep(point),
     },
     sensitivities: sensitivities(point, basis.sensitivity),

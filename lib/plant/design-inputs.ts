@@ -63,6 +63,8 @@ export function designInputs(basis: DesignBasis): DesignInputs {
     preReforming: basis.fuelElectrode?.preReforming ?? { kind: 'none' },
     airFeed: airOf(basis.airElectrode),
     ...op,
+    // The law's reference is the operating temperature of the basis unless it names another.
+    ...(op.resistanceLaw ? { resistanceLaw: { ...op.resistanceLaw, referenceTemperatureK: op.resistanceLaw.referenceTemperatureK ?? c.temperatureK } } : {}),
     ionicTransferenceNumber: basis.cell.ionicTransferenceNumber,
     crossoverAllowanceV: basis.cell.crossoverAllowanceV,
     intervals: 120,

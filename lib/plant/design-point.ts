@@ -10,7 +10,7 @@ import { getSpecies } from '../thermo/species-data.ts';
 import { fuelPath, type FuelPath } from '../equilibrium/fuel-path.ts';
 import type { DesignInputs } from './design-inputs.ts';
 import { unitFeeds, type UnitFeeds } from './unit-feeds.ts';
-import { operatingVoltage, type CellVoltageRequest, type OperatingVoltage } from './voltage.ts';
+import { operatingVoltage, voltageModelAt, type CellVoltageRequest, type OperatingVoltage } from './voltage.ts';
 import { sizeStack, type Sizing } from './sizing.ts';
 import { liquidCellWater, type WaterSplit } from './water-balance.ts';
 import { heatBalance, coolingAirMolPerS, type HeatBalance } from './heat.ts';
@@ -73,7 +73,7 @@ function wetted(flows: Record<string, number>, vapour: number, liquid: number): 
 export function cellRequest({ inputs, path }: Pick<DesignPoint, 'inputs' | 'path'>): CellVoltageRequest {
   return {
     mode: inputs.mode,
-    model: inputs.voltage,
+    model: voltageModelAt(inputs.voltage, inputs.resistanceLaw, inputs.temperatureK),
     profile: path.profile,
     utilization: inputs.utilization,
     currentDensityAPerM2: inputs.currentDensityAPerM2,

@@ -52,6 +52,7 @@ const sensitivitySchema = z.object({
   low: z.string().describe('the input value of the low case'),
   high: z.string().describe('the input value of the high case'),
   meanNernst_V: caseSchema,
+  cellVoltage_V: caseSchema.describe('the cell voltage solved with the cell count and the area-specific resistance held (the resistance following its Arrhenius law where the basis gives one)'),
   efficiency: caseSchema.describe('power mode: net electrical efficiency (LHV); electrolysis: efficiency on the LHV of hydrogen'),
   stackHeat_W: caseSchema,
   note: z.string().nullable().describe('why a case could not be evaluated'),
@@ -122,6 +123,14 @@ export const resultsSchema = z
       voltageSource: z.enum(['given', 'area-specific-resistance']),
       ionicTransferenceNumber: num('t_ion'),
       crossoverAllowance_V: num('voltage allowance for crossover and leakage'),
+      resistanceLaw: z
+        .object({
+          activationEnergy_J_per_mol: num('E_a of ASR(T) = ASR_ref exp[(E_a/R)(1/T − 1/T_ref)]'),
+          referenceTemperature_K: num('T_ref: where the given resistance applies (the operating temperature unless the basis names another)'),
+          source: z.string().describe('where the activation energy comes from, as the basis states it'),
+        })
+        .nullable()
+        .describe('the Arrhenius law of the resistance; null: the resistance is held constant where the temperature changes (sweep and sensitivity)'),
       chargeBasis_A: num('charge of complete reaction of the feed (U = 1) on the stack scale'),
       utilization: num('fuel utilization (power) or steam conversion (electrolysis)'),
       elementBalanceError: num('largest relative element-balance error of the equilibria along the fuel path'),
@@ -210,6 +219,17 @@ export const resultsSchema = z
           stackHeat_W: num('isothermal stack heat, I (V_tn,eff − V) or I (V − V_tn,eff)'),
         }),
       ),
+      stackTemperature: z
+        .array(
+          z.object({
+            temperature_K: num('stack temperature'),
+            areaSpecificResistance_ohm_m2: num('the resistance at this temperature: its Arrhenius law, or held at the design value without one'),
+            cellVoltage_V: num('the uniform-voltage cell at this temperature, current density, utilization and cell count held'),
+            efficiency: num('power mode: net electrical efficiency (LHV); electrolysis: efficiency on the LHV of hydrogen'),
+            stackHeat_W: num('isothermal stack heat'),
+          }),
+        )
+        .describe('the design point at other stack temperatures (coarse fuel path; temperatures where it cannot be evaluated are left out)'),
       steamToCarbon: z.array(
         z.object({
           steamToCarbon: num('S/C'),

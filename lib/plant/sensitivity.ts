@@ -1,11 +1,14 @@
 /**
- * One-at-a-time sensitivities of the headline results (mean Nernst voltage, electrical
- * efficiency, stack heat) to the main inputs, for the tornado chart: each input is moved down and
- * up by the step the basis states (defaults: ±25 K, ±10 % pressure, ±0.05 utilization, ±0.5 S/C,
- * ±10 % current density; common practice, no source) with everything else held, the cell count
- * included (the sensitivity of the stack as designed). The cases use a coarser fuel path
- * (20 intervals, no refinement) than the reported one; the base case is evaluated on the same
- * grid, so the differences carry no grid error of their own.
+ * One-at-a-time sensitivities of the headline results (charge-mean Nernst voltage, cell voltage,
+ * electrical efficiency, stack heat) to the main inputs, for the tornado chart: each input is
+ * moved down and up by the step the basis states (defaults: ±25 K, ±10 % pressure, ±0.05
+ * utilization, ±0.5 S/C, ±10 % current density; common practice, no source) with everything else
+ * held: the cell count and the cell's area-specific resistance (the one given, or the one a given
+ * voltage implies), so the cell voltage of each case is solved again (the sensitivity of the
+ * stack as designed). The resistance follows its Arrhenius law where the basis gives one, and is
+ * held constant where it does not. The cases use a coarser fuel path (20 intervals, no
+ * refinement) than the reported one; the base case is evaluated on the same grid, so the
+ * differences carry no grid error of their own.
  */
 import type { Sensitivity } from '../basis/types.ts';
 import { UserError } from '../core/errors.ts';
@@ -73,12 +76,30 @@ function efficiencyOf(point: DesignPoint): number {
   return point.power ? point.power.electricalLhvNet : point.electrolysis!.efficiencyLhv;
 }
 
+/**
+ * The stack as designed, for evaluations away from the design point: its cell count and its
+ * resistance at the design temperature (with the law, if any, referred to that temperature), on
+ * the coarse grid, with the base case on the same grid; the cases start their equilibria from the
+ * base case's.
+ */
+export function heldDesign(design: DesignPoint): { inputs: DesignInputs; base: DesignPoint } {
+  const law = design.inputs.resistanceLaw;
+  const inputs: DesignInputs = {
+    ...design.inputs,
+    size: { kind: 'cells', cells: design.sizing.cells },
+    voltage: { kind: 'area-specific-resistance', ohmM2: design.voltage.areaSpecificResistanceOhmM2 },
+    ...(law ? { resistanceLaw: { ...law, referenceTemperatureK: design.inputs.temperatureK } } : {}),
+    intervals: 20,
+    refineV: Infinity,
+  };
+  delete inputs.statedCells;
+  const base = evaluateDesignPoint(inputs);
+  inputs.seeds = base.path.solutions;
+  return { inputs, base };
+}
+
 export function sensitivities(design: DesignPoint, step: Sensitivity): Entry[] {
-  const fixed: DesignInputs = { ...design.inputs, size: { kind: 'cells', cells: design.sizing.cells }, intervals: 20, refineV: Infinity };
-  delete fixed.statedCells;
-  const base = evaluateDesignPoint(fixed);
-  // Each case starts its equilibria from the base case's at the same utilization.
-  fixed.seeds = base.path.solutions;
+  const { inputs: fixed, base } = heldDesign(design);
   return perturbations(step, fixed).map((p) => {
     const notes: string[] = [];
     const run = (sign: 1 | -1): DesignPoint | null => {
@@ -100,6 +121,7 @@ export function sensitivities(design: DesignPoint, step: Sensitivity): Entry[] {
       low: p.show(p.apply(fixed, -1)),
       high: p.show(p.apply(fixed, 1)),
       meanNernst_V: pick((d) => d.path.meanNernstV),
+      cellVoltage_V: pick((d) => d.voltage.cellVoltageV),
       efficiency: pick(efficiencyOf),
       stackHeat_W: pick((d) => d.heat.isothermalHeatW),
       note: notes.length ? notes.join('; ') : null,

@@ -7,6 +7,10 @@
  *   resistance (E(u) does not depend on j at fixed utilization), P = N A j V,
  *   Q = N A (j_ion V_tn − j V) (power) or N A (j V − j_ion V_tn) (electrolysis), with the design
  *   point's effective V_tn per ionic charge;
+ * - stack temperature: the design point evaluated at 7 temperatures across the sweep range
+ *   with the cell count, current density, utilization and resistance held (the resistance
+ *   following its Arrhenius law where the basis gives one: sensitivity.ts heldDesign), the cell
+ *   voltage solved again; a temperature at which it cannot be evaluated is left out;
  * - steam-to-carbon: carbon activity of the equilibrated fuel gas against S/C, at the stack and
  *   pre-reformer temperatures.
  */
@@ -18,7 +22,8 @@ import { getSpecies } from '../thermo/species-data.ts';
 import { inRange } from '../thermo/properties.ts';
 import { heatingValue, streamHeatingValueW } from './heating-values.ts';
 import { oxidationGibbsW } from './efficiency.ts';
-import { cellRequest, type DesignPoint } from './design-point.ts';
+import { cellRequest, evaluateDesignPoint, type DesignPoint } from './design-point.ts';
+import { heldDesign } from './sensitivity.ts';
 import { operatingVoltage } from './voltage.ts';
 import { UserError } from '../core/errors.ts';
 import type { Results } from './results-schema.ts';
@@ -83,6 +88,35 @@ export function currentDensitySweep(point: DesignPoint, count = 25): Sweeps['cur
     });
   }
   return out;
+}
+
+export function stackTemperatureSweep(point: DesignPoint, fromK: number, toK: number, count = 7): Sweeps['stackTemperature'] {
+  const { inputs, base } = heldDesign(point);
+  const temperatures = linspace(fromK, toK, count);
+  const found = new Map<number, Sweeps['stackTemperature'][number]>();
+  // Outward from the design temperature, each point's equilibria started from its neighbour's.
+  const design = inputs.temperatureK;
+  for (const side of [temperatures.filter((t) => t >= design), temperatures.filter((t) => t < design).reverse()]) {
+    let seeds = base.path.solutions;
+    for (const t of side) {
+      let at: DesignPoint;
+      try {
+        at = evaluateDesignPoint({ ...inputs, temperatureK: t, seeds });
+      } catch (error) {
+        if (error instanceof UserError) continue;
+        throw error;
+      }
+      seeds = at.path.solutions;
+      found.set(t, {
+        temperature_K: t,
+        areaSpecificResistance_ohm_m2: at.voltage.areaSpecificResistanceOhmM2,
+        cellVoltage_V: at.voltage.cellVoltageV,
+        efficiency: at.power ? at.power.electricalLhvNet : at.electrolysis!.efficiencyLhv,
+        stackHeat_W: at.heat.isothermalHeatW,
+      });
+    }
+  }
+  return temperatures.flatMap((t) => found.get(t) ?? []);
 }
 
 export function steamToCarbonSweep(point: DesignPoint, count = 25): Sweeps['steamToCarbon'] {

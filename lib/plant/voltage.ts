@@ -36,9 +36,23 @@
  * leakage leaves no net current are refused at the field they concern.
  */
 import type { Mode } from '../electrochem/technologies.ts';
-import type { VoltageModel } from '../basis/types.ts';
+import type { ResistanceLaw, VoltageModel } from '../basis/types.ts';
+import { GAS_CONSTANT_J_PER_MOL_K as R } from '../thermo/constants.ts';
 import { reciprocalIntegral, type Profile, type ReciprocalIntegral } from '../equilibrium/path-integral.ts';
 import { CalculationError, type CalculationInput } from '../core/errors.ts';
+
+/**
+ * The voltage model at temperature T: a given area-specific resistance follows its Arrhenius law,
+ * ASR(T) = ASR(T_ref) exp[(E_a/R)(1/T − 1/T_ref)] (thermally activated conduction and electrode
+ * kinetics, the usual engineering form; e.g. R. O'Hayre et al., Fuel Cell Fundamentals, 3rd ed.,
+ * ch. 4, for the conductivity of solid electrolytes), T_ref resolved by design-inputs.ts; without
+ * a law, or with the voltage given, the model is unchanged.
+ */
+export function voltageModelAt(model: VoltageModel, law: ResistanceLaw | undefined, temperatureK: number): VoltageModel {
+  if (model.kind === 'given' || !law) return model;
+  const reference = law.referenceTemperatureK!;
+  return { kind: 'area-specific-resistance', ohmM2: model.ohmM2 * Math.exp((law.activationEnergyJPerMol / R) * (1 / temperatureK - 1 / reference)) };
+}
 
 export interface CellVoltageRequest {
   mode: Mode;
