@@ -41,13 +41,29 @@ export function readReferences(reader: Reader): Reference[] {
   });
 }
 
+/** An assumption's `concerns`: each a field or section written in this basis, dotted. */
+function concernsOf(reader: Reader, path: Path): string[] {
+  const out: string[] = [];
+  for (let i = 0; i < reader.length(path); i++) {
+    const field = reader.text([...path, i]);
+    if (field === undefined) continue;
+    if (!reader.has(field.split('.'))) {
+      reader.findings.error([...path, i], `${field} is not a field written in this basis (write it dotted, as operating-point.air-utilization)`);
+      continue;
+    }
+    out.push(field);
+  }
+  return out;
+}
+
 export function readAssumptions(reader: Reader): Assumption[] {
   return items(reader, 'assumptions', (path) => {
     const id = reader.text([...path, 'id']);
     const text = reader.text([...path, 'text']);
     const reference = reader.source([...path, 'reference']);
+    const concerns = concernsOf(reader, [...path, 'concerns']);
     if (id === undefined || text === undefined) return undefined;
-    return { id, text, open: reader.flag([...path, 'open']) ?? false, ...(reference !== undefined ? { reference } : {}) };
+    return { id, text, open: reader.flag([...path, 'open']) ?? false, ...(reference !== undefined ? { reference } : {}), concerns };
   });
 }
 

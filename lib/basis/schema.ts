@@ -185,6 +185,13 @@ const assumption = strict({
   text: text('the assumption'),
   open: flag('true when it still needs verification (listed as an open item)').optional(),
   reference: text('a reference id of `references`').optional(),
+  concerns: z
+    .array(text('a field of this basis, dotted, e.g. conditions.allowed-air-temperature-rise'))
+    .meta({
+      description:
+        'the basis fields (or sections) whose values and results this assumption vouches for: a finding of the calculation at one of them names the assumption, and flags it when it is marked confirmed (open: false)',
+    })
+    .optional(),
 });
 
 const reference = strict({

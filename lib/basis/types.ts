@@ -151,6 +151,8 @@ export interface Assumption {
   /** Needs later verification: reported as an open item. */
   open: boolean;
   reference?: string;
+  /** Basis fields (dotted paths, or sections) whose values and results the assumption vouches for. */
+  concerns: string[];
 }
 
 export interface Reference {

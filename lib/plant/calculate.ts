@@ -20,6 +20,7 @@ import { hazardInput } from './hazard-streams.ts';
 import { locateCalculationErrors } from './located-error.ts';
 import { enthalpyFlowW, gasFlow, gasMoleFractions, massFlowKgPerS, normalVolumeM3PerS, totalFlow, type Stream } from './streams.ts';
 import type { Results, StreamResult } from './results-schema.ts';
+import { finding, withAssumptions } from './findings.ts';
 
 const HOUR = 3600;
 
@@ -235,6 +236,7 @@ function heatOf({ point, inputs, power, o2Consumed }: Computed): Results['heat']
     coolingAir_mol_per_s: point.coolingAirMolPerS,
     coolingAir_kg_per_h: coolingKgPerH,
     coolingAirRatio: coolingRatio,
+    coolingWater_kg_per_h: point.coolingWaterMolPerS === null ? null : point.coolingWaterMolPerS * getSpecies('H2O(L)').molarMassKgPerMol * HOUR,
     allowedAirTemperatureRise_K: inputs.allowedAirTemperatureRiseK,
     hydrogenCrossCheck_W: crossCheck,
     heatDemand_W: power ? null : Math.max(0, -point.heat.isothermalHeatW),
@@ -243,20 +245,28 @@ function heatOf({ point, inputs, power, o2Consumed }: Computed): Results['heat']
   };
 }
 
-/** The notes of the design point, and the one the carbon margin adds when it is negative. */
-function notesOf({ point, inputs, carbon }: Computed): Results['notes'] {
-  const notes = [...point.notes];
+/** The findings of the design point and the one the carbon margin adds when it is negative, with the assumptions that bear on them. */
+function findingsOf({ point, inputs, carbon }: Computed, basis: DesignBasis): Results['findings'] {
+  const found = [...point.findings];
   if (carbon.margin !== null && carbon.margin < 0) {
-    notes.push({ path: 'streams.fuel-electrode.steam-to-carbon', message: `the steam-to-carbon ratio ${inputs.steamToCarbon} is below the carbon-free minimum ${carbon.minimum!.toFixed(3)}` });
+    found.push(
+      finding(
+        'steam-to-carbon-below-minimum',
+        'critical',
+        'streams.fuel-electrode.steam-to-carbon',
+        `the steam-to-carbon ratio ${inputs.steamToCarbon} is below the carbon-free minimum ${carbon.minimum!.toFixed(3)}`,
+        ['streams.fuel-electrode.pre-reforming'],
+      ),
+    );
   }
-  return notes;
+  return withAssumptions(found, basis);
 }
 
 function calculateResults(basis: DesignBasis): Results {
   const c = computed(evaluateBasis(basis));
   const { point, inputs, carbon } = c;
   const tech = inputs.technology;
-  const notes = notesOf(c);
+  const findings = findingsOf(c, basis);
   return {
     format: 'cellbasis-results/1',
     tool: { name: 'cellbasis', version: toolVersion() },
@@ -307,6 +317,8 @@ function calculateResults(basis: DesignBasis): Results {
     },
     sensitivities: sensitivities(point, basis.sensitivity),
     hazards: assessHazards(hazardInput(basis, point)),
-    notes,
+    findings,
+    // The findings as the document and the command line read them until they read `findings`.
+    notes: findings.map((f) => ({ path: f.path, message: f.message })),
   };
 }

@@ -16,12 +16,8 @@ import { liquidCellWater, type WaterSplit } from './water-balance.ts';
 import { heatBalance, coolingAirMolPerS, type HeatBalance } from './heat.ts';
 import { electrolysisEfficiency, powerEfficiency, type ElectrolysisEfficiency, type PowerEfficiency } from './efficiency.ts';
 import { gasFlow, scaled, totalFlow, type Stream } from './streams.ts';
-
-export interface CalculationNote {
-  /** Basis field the note concerns (for its location). */
-  path: string;
-  message: string;
-}
+import { finding, type Finding } from './findings.ts';
+import { AGREEMENT } from './sizing.ts';
 
 export interface DesignPoint {
   inputs: DesignInputs;
@@ -48,9 +44,11 @@ export interface DesignPoint {
   heat: HeatBalance;
   /** Power mode: air for the allowed temperature rise, mol/s, and its ratio to the air fed. */
   coolingAirMolPerS: number | null;
+  /** Electrolysis fed liquid water at its water electrode: the water that carries the stack heat at the allowed rise, mol/s. */
+  coolingWaterMolPerS: number | null;
   power: PowerEfficiency | null;
   electrolysis: (ElectrolysisEfficiency & { hydrogenMolPerS: number; oxygenMolPerS: number; carbonMonoxideMolPerS: number }) | null;
-  notes: CalculationNote[];
+  findings: Finding[];
 }
 
 function stream(id: string, name: string, temperatureK: number, pressureBar: number, flows: Record<string, number>): Stream {
@@ -130,7 +128,7 @@ function stackSize(inputs: DesignInputs, path: FuelPath) {
 }
 
 /** The process streams on the stack scale: the pre-reformer's, the inlets, and the outlets (of a liquid-water cell with their vapour and liquid water). */
-function stackStreams(inputs: DesignInputs, unit: UnitFeeds, path: FuelPath, scale: number, ionicCurrentA: number, notes: CalculationNote[]) {
+function stackStreams(inputs: DesignInputs, unit: UnitFeeds, path: FuelPath, scale: number, ionicCurrentA: number, findings: Finding[]) {
   const power = inputs.mode === 'power';
   const tech = inputs.technology;
   const p = { fuel: inputs.fuelPressureBar, air: inputs.airPressureBar };
@@ -153,7 +151,15 @@ function stackStreams(inputs: DesignInputs, unit: UnitFeeds, path: FuelPath, sca
     const waterIn = inlets.reduce((s, st) => s + water(st.flows), 0);
     waterSplit = liquidCellWater(inputs.mode, waterIn, ionicCurrentA, gasFlow(fuelOut), gasFlow(airOut), path.vapourFractionFuel, path.vapourFractionAir);
     if (!waterSplit.saturated) {
-      notes.push({ path: 'conditions.operating-temperature', message: 'the water formed and fed is not enough to saturate both outlet gases at this temperature and pressure: the membrane or electrolyte would dry out (humidify the feeds, or raise the pressure)' });
+      findings.push(
+        finding(
+          'dry-out',
+          'critical',
+          'conditions.operating-temperature',
+          'the water formed and fed is not enough to saturate both outlet gases at this temperature and pressure: the membrane or electrolyte would dry out (humidify the feeds, or raise the pressure)',
+          ['conditions.fuel-electrode-pressure', 'conditions.air-electrode-pressure'],
+        ),
+      );
     }
     const liquidWithFuel = tech.waterElectrode === 'fuel';
     fuelOut = wetted(fuelOut, waterSplit.fuelVapour, liquidWithFuel ? waterSplit.liquid : 0);
@@ -168,24 +174,38 @@ function stackStreams(inputs: DesignInputs, unit: UnitFeeds, path: FuelPath, sca
 
 /**
  * Power mode: the air that would carry the stack's heat at the allowed rise (air cools the stack
- * in high-temperature cells; low-temperature cells have a liquid coolant), with a note where the
- * air fed falls short.
+ * in high-temperature cells; low-temperature cells have a liquid coolant), with a finding where
+ * the air fed falls short.
  */
-function coolingAir(inputs: DesignInputs, heat: HeatBalance, airInletFlows: Record<string, number> | null, notes: CalculationNote[]): number | null {
+function coolingAir(inputs: DesignInputs, heat: HeatBalance, airInletFlows: Record<string, number> | null, findings: Finding[]): number | null {
   if (!inputs.airFeed || !inputs.technology.fuelGasEquilibrium) return null;
   const air = coolingAirMolPerS(heat.isothermalHeatW, inputs.airFeed, inputs.temperatureK, inputs.allowedAirTemperatureRiseK);
   const fed = airInletFlows ? totalFlow(airInletFlows) : 0;
   if (air > fed * 1.0001) {
-    notes.push({
-      path: inputs.air.kind === 'ratio' ? 'operating-point.air-ratio' : 'operating-point.air-utilization',
-      message: `the air fed (${fed.toPrecision(4)} mol/s) carries only ${((fed / air) * 100).toFixed(0)} % of the stack heat at a ${inputs.allowedAirTemperatureRiseK} K rise; ${air.toPrecision(4)} mol/s of air would be needed, or another heat sink`,
-    });
+    findings.push(
+      finding(
+        'cooling-air-short',
+        'warning',
+        inputs.air.kind === 'ratio' ? 'operating-point.air-ratio' : 'operating-point.air-utilization',
+        `the air fed (${fed.toPrecision(4)} mol/s) carries only ${((fed / air) * 100).toFixed(0)} % of the stack heat at a ${inputs.allowedAirTemperatureRiseK} K rise; ${air.toPrecision(4)} mol/s of air would be needed, or another heat sink`,
+        ['conditions.allowed-air-temperature-rise'],
+      ),
+    );
   }
   return air;
 }
 
-/** Electrolysis: the hydrogen, oxygen and carbon monoxide made and the efficiency, with a note where the stack needs heat supplied. */
-function electrolysisFigures(inputs: DesignInputs, streams: ReturnType<typeof stackStreams>, heat: HeatBalance, size: ReturnType<typeof stackSize>, path: FuelPath, notes: CalculationNote[]): NonNullable<DesignPoint['electrolysis']> {
+/** The basis field that sets the cell voltage, and the utilization or conversion. */
+function voltageFieldOf(inputs: DesignInputs): string {
+  return inputs.voltage.kind === 'given' ? 'operating-point.cell-voltage' : 'operating-point.area-specific-resistance';
+}
+
+function utilizationFieldOf(inputs: DesignInputs): string {
+  return inputs.mode === 'power' ? 'operating-point.fuel-utilization' : 'operating-point.steam-conversion';
+}
+
+/** Electrolysis: the hydrogen, oxygen and carbon monoxide made and the efficiency, with a finding where the stack needs heat supplied. */
+function electrolysisFigures(inputs: DesignInputs, streams: ReturnType<typeof stackStreams>, heat: HeatBalance, size: ReturnType<typeof stackSize>, path: FuelPath, findings: Finding[]): NonNullable<DesignPoint['electrolysis']> {
   const { fuelOut, airOut, airInletFlows } = streams;
   const fuelIn = streams.fuelInletFlows ?? {};
   const hydrogenMolPerS = (fuelOut.H2 ?? 0) - (fuelIn.H2 ?? 0);
@@ -193,29 +213,72 @@ function electrolysisFigures(inputs: DesignInputs, streams: ReturnType<typeof st
   const carbonMonoxideMolPerS = (fuelOut.CO ?? 0) - (fuelIn.CO ?? 0);
   const figures = { ...electrolysisEfficiency(hydrogenMolPerS, size.stackPowerW, path.meanNernstV, size.voltage.cellVoltageV), hydrogenMolPerS, oxygenMolPerS, carbonMonoxideMolPerS };
   if (heat.isothermalHeatW < 0 && inputs.technology.waterPhase === 'gas') {
-    notes.push({ path: inputs.voltage.kind === 'given' ? 'operating-point.cell-voltage' : 'operating-point.area-specific-resistance', message: `below the thermoneutral voltage (${heat.thermoneutralVoltageV.toFixed(4)} V) the stack absorbs ${(-heat.isothermalHeatW / 1000).toPrecision(4)} kW of heat: it must be supplied (superheated feed, heated sweep or electric heating)` });
+    findings.push(
+      finding(
+        'heat-demand',
+        'info',
+        voltageFieldOf(inputs),
+        `below the thermoneutral voltage (${heat.thermoneutralVoltageV.toFixed(4)} V) the stack absorbs ${(-heat.isothermalHeatW / 1000).toPrecision(4)} kW of heat: it must be supplied (superheated feed, heated sweep or electric heating)`,
+      ),
+    );
   }
   return figures;
 }
 
+/**
+ * Electrolysis fed liquid water at its water electrode: the water loop that carries the stack
+ * heat away at the allowed rise (the same sensible-heat balance as the cooling air), with a
+ * finding where the water fed falls short.
+ */
+function coolingWater(inputs: DesignInputs, streams: ReturnType<typeof stackStreams>, heat: HeatBalance, findings: Finding[]): number | null {
+  const tech = inputs.technology;
+  const waterFeed = tech.waterElectrode === 'fuel' ? streams.fuelInletFlows : streams.airInletFlows;
+  const waterFed = waterFeed?.['H2O(L)'] ?? 0;
+  if (!(tech.waterPhase === 'liquid' && waterFed > 0 && heat.isothermalHeatW > 0)) return null;
+  const needed = coolingAirMolPerS(heat.isothermalHeatW, { 'H2O(L)': 1 }, inputs.temperatureK, inputs.allowedAirTemperatureRiseK);
+  if (needed > waterFed * 1.0001) {
+    const kgPerH = (mol: number) => ((mol * getSpecies('H2O(L)').molarMassKgPerMol * 3600) / 1000).toPrecision(4);
+    findings.push(
+      finding(
+        'water-loop-short',
+        'warning',
+        utilizationFieldOf(inputs),
+        `the water fed (${kgPerH(waterFed)} t/h, ${(1 / inputs.utilization).toPrecision(3)} times the water split) carries only ${((waterFed / needed) * 100).toFixed(0)} % of the stack heat (${(heat.isothermalHeatW / 1000).toPrecision(4)} kW) at a ${inputs.allowedAirTemperatureRiseK} K rise; ${kgPerH(needed)} t/h would be needed, or another heat sink`,
+        ['conditions.allowed-air-temperature-rise'],
+      ),
+    );
+  }
+  return needed;
+}
+
 export function evaluateDesignPoint(inputs: DesignInputs): DesignPoint {
   const power = inputs.mode === 'power';
-  const notes: CalculationNote[] = [];
+  const findings: Finding[] = [];
   const unit = unitFeeds(inputs);
   const path = unitPath(inputs, unit);
   const size = stackSize(inputs, path);
   const { voltage, sizing, totalCurrentA, ionicCurrentA, scale, stackPowerW, netPowerW } = size;
-  const streams = stackStreams(inputs, unit, path, scale, ionicCurrentA, notes);
+  const streams = stackStreams(inputs, unit, path, scale, ionicCurrentA, findings);
   const t = inputs.temperatureK;
   const heat = heatBalance(inputs.mode, streams.inlets, streams.outlets, t, stackPowerW, ionicCurrentA);
-  const cooling = power ? coolingAir(inputs, heat, streams.airInletFlows, notes) : null;
+  const cooling = power ? coolingAir(inputs, heat, streams.airInletFlows, findings) : null;
   const powerEff = power
     ? powerEfficiency(unit.fuelRaw ? scaled(unit.fuelRaw, scale) : {}, t, inputs.ambientTemperatureK, inputs.technology.waterPhase, voltage.cellVoltageV, path.meanNernstV, stackPowerW, netPowerW)
     : null;
-  const electrolysis = power ? null : electrolysisFigures(inputs, streams, heat, size, path, notes);
+  const electrolysis = power ? null : electrolysisFigures(inputs, streams, heat, size, path, findings);
+  const waterLoop = power ? null : coolingWater(inputs, streams, heat, findings);
   if (path.maxCarbonActivity > 1) {
-    notes.push({ path: 'streams.fuel-electrode', message: `the fuel-electrode gas reaches carbon activity ${path.maxCarbonActivity.toPrecision(3)} (above 1: carbon can deposit on the electrode); add steam or change the temperature` });
+    findings.push(
+      finding(
+        'carbon-deposition',
+        'critical',
+        'streams.fuel-electrode',
+        `the fuel-electrode gas reaches carbon activity ${path.maxCarbonActivity.toPrecision(3)} (above 1: carbon can deposit on the electrode); add steam or change the temperature`,
+        ['streams.fuel-electrode.steam-to-carbon'],
+      ),
+    );
   }
+  findings.push(...cellFindings(inputs, voltage, sizing));
   return {
     inputs,
     unit,
@@ -233,8 +296,65 @@ export function evaluateDesignPoint(inputs: DesignInputs): DesignPoint {
     water: streams.waterSplit,
     heat,
     coolingAirMolPerS: cooling,
+    coolingWaterMolPerS: waterLoop,
     power: powerEff,
     electrolysis,
-    notes,
+    findings,
   };
+}
+
+/** The share of the mean current density below which the outlet is said to be nearly out of use (a screening threshold of this project, common practice, no source). */
+const IDLE_CURRENT = 0.1;
+
+/** Findings of the cell model and the sizing: the local current along the cell, the mixed conductor, inputs that do not apply, the cell count against its target. */
+function cellFindings(inputs: DesignInputs, voltage: OperatingVoltage, sizing: Sizing): Finding[] {
+  const out: Finding[] = [];
+  const voltageField = voltageFieldOf(inputs);
+  const j = inputs.currentDensityAPerM2;
+  const local = voltage.local;
+  const lowest = Math.min(...local.map((p) => p.currentDensityAPerM2));
+  if (lowest < 0) {
+    out.push(
+      finding(
+        'local-current-reversed',
+        'warning',
+        'cell.ionic-transference-number',
+        `toward the outlet the electronic leakage (${(voltage.leakageCurrentDensityAPerM2 / 1e4).toPrecision(3)} A/cm2) exceeds the ionic current: the local current at the terminals falls to ${(lowest / 1e4).toPrecision(3)} A/cm2, so that part of the cell draws current from the rest`,
+        [voltageField],
+      ),
+    );
+  }
+  const outlet = local[local.length - 1]!.currentDensityAPerM2;
+  if (lowest >= 0 && outlet < IDLE_CURRENT * j) {
+    let idle = 0;
+    for (let k = 1; k < local.length; k++) {
+      if ((local[k - 1]!.currentDensityAPerM2 + local[k]!.currentDensityAPerM2) / 2 < IDLE_CURRENT * j) idle += local[k]!.areaFraction - local[k - 1]!.areaFraction;
+    }
+    const what = inputs.mode === 'power' ? 'fuel utilization' : 'steam conversion';
+    out.push(
+      finding(
+        'outlet-idle',
+        'warning',
+        utilizationFieldOf(inputs),
+        `the local current density at the outlet is ${(outlet / 1e4).toPrecision(3)} A/cm2, under ${IDLE_CURRENT * 100} % of the mean ${(j / 1e4).toPrecision(3)} A/cm2 (${(idle * 100).toFixed(1)} % of the active area carries less): the cell voltage lies within a tenth of j·ASR of the outlet Nernst voltage, so the ${what} is near the most this resistance and current density can reach, and the inlet carries ${(voltage.maxLocalCurrentDensityAPerM2 / j).toFixed(1)} times the mean`,
+        [voltageField],
+      ),
+    );
+  }
+  if (inputs.mode === 'electrolysis' && inputs.crossoverAllowanceV > 0) {
+    out.push(finding('input-unused', 'info', 'cell.crossover-allowance', 'the crossover allowance lowers the open-circuit voltage in power mode only; this electrolysis calculation does not use it'));
+  }
+  if (sizing.targetGap !== undefined && sizing.targetGap !== 0) {
+    const gap = sizing.targetGap;
+    out.push(
+      finding(
+        'cells-against-target',
+        gap < 0 ? 'warning' : 'info',
+        'operating-point.cells',
+        `the ${sizing.cells} cells ${gap < 0 ? 'fall short of' : 'exceed'} the target by ${(Math.abs(gap) * 100).toFixed(2)} % (accepted within ${AGREEMENT * 100} %)`,
+        [inputs.size.kind === 'hydrogen' ? 'operating-point.target-hydrogen' : 'operating-point.target-power'],
+      ),
+    );
+  }
+  return out;
 }

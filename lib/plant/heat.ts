@@ -53,7 +53,7 @@ export function heatBalance(mode: Mode, inlets: Stream[], outlets: Stream[], sta
   };
 }
 
-/** Air (of the given composition) needed to take up `heatW` warming by ΔT to the stack temperature, mol/s. */
+/** A coolant (air, or liquid water {"H2O(L)": 1}) of the given composition needed to take up `heatW` warming by ΔT to the stack temperature, mol/s. */
 export function coolingAirMolPerS(heatW: number, air: Readonly<Record<string, number>>, stackTemperatureK: number, riseK: number): number {
   const perMol = enthalpyFlowW(air, stackTemperatureK) - enthalpyFlowW(air, stackTemperatureK - riseK);
   return heatW > 0 ? heatW / perMol : 0;

@@ -6,6 +6,7 @@
  * `_Nm3_per_h` at 0 °C and 1 atm, `_kWh_per_kg`; fractions are plain numbers from 0 to 1).
  */
 import { z } from 'zod';
+import { findingSchema } from './findings.ts';
 import { IONS, MODES } from '../electrochem/technologies.ts';
 import { hazardAssessmentSchema } from '../hazards/types.ts';
 
@@ -178,6 +179,7 @@ export const resultsSchema = z
       coolingAir_mol_per_s: nullableNum('air for the allowed temperature rise to carry the isothermal heat (power mode)'),
       coolingAir_kg_per_h: nullableNum('the same, kg/h'),
       coolingAirRatio: nullableNum('cooling air over the air that the O2 consumed needs (λ for cooling)'),
+      coolingWater_kg_per_h: nullableNum('electrolysis fed liquid water: the water that carries the isothermal heat at the allowed rise (the water loop)'),
       allowedAirTemperatureRise_K: num('allowed air temperature rise through the stack'),
       hydrogenCrossCheck_W: nullableNum('pure-hydrogen fuel: I (−ΔH(T)/2F − V), equal to the isothermal heat'),
       heatDemand_W: nullableNum('electrolysis below thermoneutral: heat to supply (positive)'),
@@ -240,7 +242,8 @@ export const resultsSchema = z
     }),
     sensitivities: z.array(sensitivitySchema),
     hazards: hazardAssessmentSchema,
-    notes: z.array(z.object({ path: z.string(), message: z.string() })).describe('findings of the calculation for the reviewer'),
+    findings: z.array(findingSchema).describe('what the calculation shows a reviewer must look at, most severe first (lib/plant/findings.ts)'),
+    notes: z.array(z.object({ path: z.string(), message: z.string() })).describe('the findings as path and message only, for readers of earlier results'),
   })
   .describe('cellbasis results of one design basis');
 

@@ -15,6 +15,8 @@ export interface Sizing {
   cells: number;
   /** What the count was set from. */
   from: 'cells' | 'power' | 'hydrogen';
+  /** With both a cell count and a target: (delivered − target)/target, within ±AGREEMENT. */
+  targetGap?: number;
 }
 
 /** `perCell` is what one cell delivers of the target's quantity: net W (power), input W (electrolysis) or kg/s of H2. */
@@ -35,5 +37,5 @@ export function sizeStack(size: StackSize, statedCells: number | undefined, perC
       'cells',
     );
   }
-  return { cells: statedCells, from: 'cells' };
+  return { cells: statedCells, from: 'cells', targetGap: gap };
 }

@@ -90,7 +90,7 @@ describe('the base fixture', () => {
   });
 
   it('keeps assumptions and references', () => {
-    expect(basis.assumptions).toEqual([{ id: 'A1', text: 'Isothermal stack.', open: true, reference: 'R1' }]);
+    expect(basis.assumptions).toEqual([{ id: 'A1', text: 'Isothermal stack.', open: true, reference: 'R1', concerns: [] }]);
     expect(basis.references).toEqual([{ id: 'R1', citation: 'Invented gas analysis for tests' }]);
   });
 });

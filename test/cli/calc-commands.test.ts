@@ -24,11 +24,11 @@ describe('cellbasis calc', () => {
     expect(r.headline.meanNernst_V).toBeLessThan(r.headline.inletNernst_V);
   });
 
-  it('a cell voltage above the mean Nernst voltage is located at operating-point.cell-voltage, exit 1', async () => {
+  it('a cell voltage above the outlet Nernst voltage is located at operating-point.cell-voltage, exit 1', async () => {
     const root = project('solid-oxide', 'power', { 'operating-point.cell-voltage': '1.05 V' });
     const r = await run(['calc', 'p1'], root);
     expect(r.code).toBe(1);
-    expect(r.err).toMatch(/^cellbasis: projects\/p1\/basis\.yaml:\d+:\d+: operating-point\.cell-voltage: the cell voltage 1\.0500 V is not below the mean Nernst voltage available/m);
+    expect(r.err).toMatch(/^cellbasis: projects\/p1\/basis\.yaml:\d+:\d+: operating-point\.cell-voltage: the cell voltage 1\.0500 V is not below the lowest Nernst voltage available along the cell, 0\.\d{4} V: the local current would reverse before the fuel utilization 80\.00 % is reached/m);
   });
 
   it('a cell count that contradicts the target power is located at operating-point.cells', async () => {
