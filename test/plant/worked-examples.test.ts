@@ -400,3 +400,35 @@ describe('sizing from a target', () => {
     expect(r.headline.cells).toBe(Math.ceil(500 / perCell - 1e-9));
   });
 });
+
+describe('solid oxide cell on carbon monoxide and carbon dioxide (no hydrogen)', () => {
+  // 70 % CO / 30 % CO2 at 800 °C, no steam: the Nernst voltage comes from the oxygen potential of
+  // the equilibrated gas (the H2/H2O form has nothing to work with), and the rest follows Faraday.
+  const r = calculate(
+    basisFrom('solid-oxide', 'power', {
+      'streams.fuel-electrode': { composition: { CO: 0.7, CO2: 0.3 }, 'pre-reforming': 'none' },
+      'operating-point.target-power': undefined,
+      'operating-point.cells': 100,
+      'operating-point.parasitic-load': '0 %',
+      'operating-point.air-utilization': 0.1,
+    }),
+  );
+  const current = 100 * 0.4e4 * 0.01; // the scaffold's 0.4 A/cm2 on 100 cm2: 4000 A
+
+  it('calculates: CO is oxidised to CO2 at I/2F, the fuel fed is I/(2F U × 0.7)', () => {
+    expect(r.headline.totalCurrent_A).toBeCloseTo(current, 9);
+    const inlet = stream(r, 'fuel-inlet').speciesFlows_mol_per_s;
+    const outlet = stream(r, 'fuel-outlet').speciesFlows_mol_per_s;
+    expect(rel(inlet.CO!, current / (2 * F * 0.8))).toBeLessThan(1e-12);
+    // Carbon stays on the fuel side; the equilibrium holds C2O, O and O2 only at traces (1e-7).
+    expect(rel(outlet.CO2! - inlet.CO2!, current / (2 * F))).toBeLessThan(TRACE);
+  });
+
+  it('net efficiency P/(ṅ_CO · 283.0 kJ/mol), the heat of combustion of CO (NIST-JANAF: ΔfH° CO2 −393.51, CO −110.53 kJ/mol, from memory)', () => {
+    const nCO = stream(r, 'fuel-inlet').speciesFlows_mol_per_s.CO!;
+    // The species data give 282.98 kJ/mol; 0.05 kJ/mol covers the rounding of the tabulated values.
+    expect(Math.abs(r.headline.electricalEfficiencyLhv! - r.headline.stackPower_W / (nCO * 282.98e3))).toBeLessThan((0.05 / 283) * r.headline.electricalEfficiencyLhv!);
+    // CO has no water to condense: LHV and HHV are the same.
+    expect(r.headline.electricalEfficiencyHhv!).toBeCloseTo(r.headline.electricalEfficiencyLhv!, 12);
+  });
+});
