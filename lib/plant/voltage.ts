@@ -174,7 +174,9 @@ function solveVoltage(cell: Cell, asr: number, limit: number): number {
   const t = cell.t;
   // g(V) = U/I(V) − j ASR ∓ (1 − t) V; dI/dV = ±t ∫du/y².
   const g = (v: number) => {
-    const integral = cell.integral(v)!;
+    const integral = cell.integral(v);
+    // At the limit to rounding (the ionic driving voltage no longer positive at some sample) U/I is 0.
+    if (!integral) return { value: -j * asr + (cell.power ? -(1 - t) * v : (1 - t) * v), slope: cell.power ? -1 : 1 };
     const dI = (cell.power ? t : -t) * integral.second;
     const value = u / integral.first - j * asr + (cell.power ? -(1 - t) * v : (1 - t) * v);
     const slope = (-u * dI) / (integral.first * integral.first) + (cell.power ? -(1 - t) : 1 - t);
@@ -232,7 +234,8 @@ export function operatingVoltage(request: CellVoltageRequest): OperatingVoltage 
     if (!(asr > 0)) {
       // Power mode with t < 1: the leakage (1 − t) V/ASR exceeds the ionic current at any resistance.
       const h = (x: number) => {
-        const i = cell.integral(x)!;
+        const i = cell.integral(x);
+        if (!i) return { value: -(1 - t) * x, slope: -1 };
         return { value: u / i.first - (1 - t) * x, slope: -(u * t * i.second) / (i.first * i.first) - (1 - t) };
       };
       const highest = solveMonotone(h, 0, limit, false);
@@ -248,7 +251,13 @@ export function operatingVoltage(request: CellVoltageRequest): OperatingVoltage 
       throw new CalculationError(`the resistance gives a cell voltage of ${fmt(v)} V at this current density: lower the current density or the area-specific resistance`, voltageField(model));
     }
   }
-  const integral = cell.integral(v)!;
+  let integral = cell.integral(v);
+  // A root at the limit to rounding: the nearest voltage inside it (power: below; electrolysis: above).
+  for (let step = 1e-15; !integral && step < 1e-6; step *= 10) {
+    v = cell.power ? limit - step * Math.max(1, Math.abs(limit)) : limit + step * Math.max(1, Math.abs(limit));
+    integral = cell.integral(v);
+  }
+  if (!integral) throw new Error(`the cell voltage ${v} V lies outside the reversible limit ${limit} V`);
   const [a, b] = cell.coefficients(v);
   // Ē_A = ∫E du/y / ∫du/y with y = aE + b: ∫E/y du = (U − b I)/a.
   const areaMeanNernstV = (u - b * integral.first) / a / integral.first;
