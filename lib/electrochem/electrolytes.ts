@@ -10,6 +10,9 @@
  *     Fundamentals, 3rd ed., ch. 2);
  *   - what the electrolyte moves between the electrode gases per mole of electrons (the fuel path,
  *     lib/equilibrium/electrolyte-exchange.ts);
+ *   - the couple of an ion the air electrode forms from its gases alone (oxide: ½O2; carbonate:
+ *     ½O2 + CO2): that reaction at equilibrium at both electrodes gives E from the potentials of
+ *     those gases across the electrolyte, for any fuel gas at equilibrium (nernst.ts);
  *   - the derivation the method section writes out (lib/report/electrode-reactions.ts).
  */
 import { z } from 'zod';
@@ -142,6 +145,21 @@ export function nernstQuotient(ion: Ion): QuotientTerm[] {
         .map((t) => ({ species: t.species, electrode, power: sign * t.coefficient, water: t.species === 'H2O' })),
     );
   return [...factors('consumes', 1), ...factors('forms', -1)];
+}
+
+/**
+ * The gases of the air-electrode reaction where it forms the ion from electrode gases alone
+ * (oxide: ½O2; carbonate: ½O2 and CO2), with their coefficients for two electrons; null where the
+ * air electrode consumes the ion (proton, hydroxide). Written at both electrodes, with the ion's
+ * electrochemical potential the same at both interfaces, this reaction gives
+ * 2FE = Σ ν_i (μ_i,a − μ_i,f) over these gases: the ion's own couple fixes E for any fuel gas
+ * whose potentials of these gases are defined (an equilibrated one).
+ */
+export function potentialCouple(ion: Ion): ReactionTerm[] | null {
+  const e = electrolyte(ion);
+  const formsIonAlone = e.air.forms.length === 1 && e.air.forms[0]!.species === 'ion';
+  const fromGases = e.air.consumes.every((t) => isElectrodeGas(e, t.species));
+  return formsIonAlone && fromGases ? e.air.consumes : null;
 }
 
 /** The quotient's factors that count for the cell: water terms drop out with liquid water. */

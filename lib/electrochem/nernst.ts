@@ -23,8 +23,11 @@
  * A fuel gas with no hydrogen (CO with CO2) has no H2/H2O couple to write the rows above with.
  * What an oxide-ion electrolyte equalises is the oxygen potential: with O2 + 4e⁻ ⇌ 2O²⁻ at both
  * electrodes the cell is an oxygen concentration cell (the Nernst equation of the zirconia oxygen
- * sensor, e.g. E. C. Subbarao and H. S. Maiti, Solid State Ionics 11 (1984) 317; from memory):
+ * sensor, e.g. E. C. Subbarao and H. S. Maiti, Solid State Ionics 11 (1984) 317; from memory).
+ * In general, the air-electrode reaction of an ion it forms from gases alone (the ion's couple,
+ * electrolytes.ts `potentialCouple`), written at both electrodes, gives
  *
+ *   E = RT/2F · Σ ν_i ln( p_i,c / p_i,a )    over the gases of the couple, ν for two electrons:
  *   oxide ion        E = RT/4F · ln( p_O2,c / p_O2,a )
  *   carbonate        E = RT/4F · ln( p_O2,c / p_O2,a ) + RT/2F · ln( p_CO2,c / p_CO2,a )
  *
@@ -38,7 +41,7 @@ import { FARADAY_C_PER_MOL as F, GAS_CONSTANT_J_PER_MOL_K as R } from '../thermo
 import { gibbs } from '../thermo/properties.ts';
 import { getSpecies } from '../thermo/species-data.ts';
 import type { Ion } from './technologies.ts';
-import { activeQuotient, type QuotientTerm } from './electrolytes.ts';
+import { activeQuotient, potentialCouple, type QuotientTerm } from './electrolytes.ts';
 
 /** Partial pressures in bar by species label. */
 export type PartialPressures = Readonly<Record<string, number>>;
@@ -101,20 +104,17 @@ export function nernstVoltage(
 }
 
 /**
- * Nernst voltage from the oxygen (and, for carbonate, carbon dioxide) potential across the
- * electrolyte, V (the forms in this file's comment): E = RT/4F · (ln p_O2,c − ln p_O2,a) for
- * the oxide ion, plus RT/2F · (ln p_CO2,c − ln p_CO2,a) for the carbonate ion. The fuel side is
- * given as ln of its partial pressures in bar (an equilibrated fuel gas may hold O2 at 1e-20 bar
- * and less, which its element potentials give exactly).
+ * Nernst voltage from the potentials of the ion's couple across the electrolyte, V (the general
+ * form in this file's comment): E = RT/2F · Σ ν_i (ln p_i,c − ln p_i,a), that is RT/4F · ln of the
+ * oxygen ratio for the oxide ion, plus RT/2F · ln of the CO2 ratio for the carbonate ion. The fuel
+ * side is given as ln of its partial pressures in bar by species (an equilibrated fuel gas may
+ * hold O2 at 1e-20 bar and less, which its element potentials give exactly). Throws for an ion
+ * without a couple (the air electrode consumes it).
  */
-export function oxygenPotentialNernstV(
-  ion: 'oxide' | 'carbonate',
-  temperatureK: number,
-  fuel: { lnO2Bar: number; lnCO2Bar: number },
-  air: PartialPressures,
-): number {
-  const rt = R * temperatureK;
-  let e = (rt / (4 * F)) * (Math.log(air.O2 ?? 0) - fuel.lnO2Bar);
-  if (ion === 'carbonate') e += (rt / (2 * F)) * (Math.log(air.CO2 ?? 0) - fuel.lnCO2Bar);
-  return e;
+export function oxygenPotentialNernstV(ion: Ion, temperatureK: number, fuelLnBar: Readonly<Record<string, number>>, air: PartialPressures): number {
+  const couple = potentialCouple(ion);
+  if (!couple) throw new Error(`the ${ion} ion has no couple of air-electrode gases for the oxygen-potential form`);
+  let sum = 0;
+  for (const { species, coefficient } of couple) sum += coefficient * (Math.log(air[species] ?? 0) - (fuelLnBar[species] ?? Number.NaN));
+  return ((R * temperatureK) / (2 * F)) * sum;
 }

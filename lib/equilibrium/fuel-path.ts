@@ -9,11 +9,12 @@
  * solutions already found on either side (interpolated, or extrapolated beyond the last two); elsewhere only H2 reacts and the other species pass through. The air gas is
  * not reactive. Local Nernst voltage: lib/electrochem/nernst.ts with both electrodes' local
  * partial pressures (co-flow: the same position on both sides); where the fuel gas is
- * re-equilibrated and the electrolyte carries oxide or carbonate ions, from the oxygen (and CO2)
- * potential of the equilibrated gas, E = RT/4F ln(p_O2,air/p_O2,fuel) (+ RT/2F ln of the CO2
- * ratio), which is the H2/H2O form where the gas holds hydrogen and serves any fuel, a CO/CO2
- * feed included. The fuel gas's ln p_O2 = 2π_O − g°_O2/RT and ln p_CO2 = π_C + 2π_O − g°_CO2/RT
- * come from the element potentials π of its equilibrium (p in bar; gibbs-minimiser.ts).
+ * re-equilibrated and the ion has a couple of air-electrode gases (lib/electrochem/electrolytes.ts:
+ * oxide ½O2, carbonate ½O2 + CO2), from the potentials of that couple across the electrolyte,
+ * E = RT/4F ln(p_O2,air/p_O2,fuel) (+ RT/2F ln of the CO2 ratio), which is the H2/H2O form where
+ * the gas holds hydrogen and serves any fuel, a CO/CO2 feed included. The fuel gas's
+ * ln p_i = Σ_e a_ie π_e − g°_i/RT (ln p_O2 = 2π_O − g°_O2/RT) comes from the element potentials
+ * π of its equilibrium (p in bar; gibbs-minimiser.ts).
  *
  * The inlet: where the inlet gas holds every species of the quotient, E(0) is that gas's
  * ("feed"). Where one electrode has no feed, the first increment of charge fills it with pure
@@ -38,6 +39,7 @@ import { saturationPressureBar } from '../thermo/saturation.ts';
 import { getSpecies } from '../thermo/species-data.ts';
 import { electronsOfStream } from '../electrochem/charge.ts';
 import { hydrogenStandardVoltage, nernstVoltage, oxygenPotentialNernstV } from '../electrochem/nernst.ts';
+import { activeQuotient, potentialCouple } from '../electrochem/electrolytes.ts';
 import type { Mode, Technology } from '../electrochem/technologies.ts';
 import { minimiseGibbs } from './gibbs-minimiser.ts';
 import { elementAmounts, elementsOfFeed, gasGibbsOverRT, systemFor, type ChemicalSystem } from './species-set.ts';
@@ -84,6 +86,8 @@ export interface PathPoint {
   /** Mole fractions of the fuel-electrode and air-electrode gas (species that reach 1e-5 anywhere on the path). */
   fuelSide: Record<string, number>;
   airSide: Record<string, number>;
+  /** Partial pressures (bar) of the gases of the ion's couple in the equilibrated fuel gas, from its element potentials (p_O2 of 1e-20 bar and less); null where E is not taken from the couple. */
+  fuelCoupleBar: Record<string, number> | null;
 }
 
 export interface FuelPath {
@@ -98,6 +102,13 @@ export interface FuelPath {
   inlet: 'feed' | 'limit' | 'first-increment';
   /** Utilization at which inletNernstV is evaluated: 0, or u_1 for 'first-increment'. */
   inletUtilization: number;
+  /**
+   * The form of the Nernst equation that a reader can evaluate E with: 'quotient', the pressure
+   * quotient of the electrode reactions (nernst.ts), or 'oxygen-potential', the couple of the ion
+   * across the electrolyte, where the equilibrated fuel gas holds no hydrogen to write the
+   * quotient with (a CO/CO2 feed). Where both apply they give the same E.
+   */
+  nernstForm: 'quotient' | 'oxygen-potential';
   outletNernstV: number;
   meanNernstV: number;
   maxCarbonActivity: number;
@@ -189,9 +200,8 @@ interface State {
   air: Float64Array;
   carbonActivity: number;
   elementError: number;
-  /** ln p_O2 and ln p_CO2 (bar) of the equilibrated fuel gas from its element potentials; NaN without equilibrium (or without carbon, for CO2). */
-  lnO2Bar: number;
-  lnCO2Bar: number;
+  /** ln p (bar) of the gases of the ion's couple in the equilibrated fuel gas, from its element potentials; empty without equilibrium, NaN for a gas whose elements it lacks. */
+  coupleLnBar: Record<string, number>;
 }
 
 /** The gases of both electrodes as a function of the charge passed. */
@@ -202,8 +212,10 @@ class PathModel {
   readonly vapourAir: number;
   /** An element reaches the fuel gas only through the electrolyte (a dry inlet): E(0) is unbounded. */
   readonly seeded: boolean;
-  /** The re-equilibrated fuel gas holds oxygen, so its oxygen potential is defined along the path. */
-  readonly hasOxygen: boolean = false;
+  /** The re-equilibrated fuel gas holds every element of the ion's couple, so the couple's potentials are defined along the path. */
+  readonly coupleDefined: boolean = false;
+  /** The re-equilibrated fuel gas holds hydrogen. */
+  readonly hasHydrogen: boolean = false;
   private readonly sign: number;
   private readonly exchange: Exchange;
   private readonly fuelChange: Stream;
@@ -213,9 +225,8 @@ class PathModel {
   private readonly system: ChemicalSystem | null = null;
   private readonly gRT: Float64Array | null = null;
   private readonly gGraphite: number = 0;
-  /** g°/RT of O2 and CO2 at T, for their partial pressures from the element potentials. */
-  private readonly gO2: number = 0;
-  private readonly gCO2: number = 0;
+  /** The gases of the ion's couple with g°/RT at T and their atoms by element index, for their partial pressures from the element potentials. */
+  private readonly couple: { label: string; gRT: number; atoms: [number, number][] }[] = [];
   private readonly bInlet: Float64Array | null = null;
   private readonly elementChange: Float64Array | null = null;
   /** Solutions found so far, by utilization: the start of each new equilibrium is predicted from them. */
@@ -250,11 +261,14 @@ class PathModel {
       this.seeded = [...elements].some((e) => !inFeed.has(e));
       const system = systemFor(elements);
       this.system = system;
-      this.hasOxygen = system.elements.includes('O');
       this.gRT = gasGibbsOverRT(system, temperatureK);
       this.gGraphite = system.graphite ? gOverRT(system.graphite, temperatureK) : 0;
-      this.gO2 = gOverRT(getSpecies('O2'), temperatureK);
-      this.gCO2 = gOverRT(getSpecies('CO2'), temperatureK);
+      this.hasHydrogen = system.elements.includes('H');
+      this.couple = (potentialCouple(technology.ion) ?? []).map(({ species }) => {
+        const s = getSpecies(species);
+        return { label: species, gRT: gOverRT(s, temperatureK), atoms: Object.entries(s.formula).map(([e, n]): [number, number] => [system.elements.indexOf(e), n]) };
+      });
+      this.coupleDefined = this.couple.length > 0 && this.couple.every((c) => c.atoms.every(([i]) => i >= 0));
       const b = elementAmounts(system, fuelFeed);
       // An element introduced only by the electrolyte is seeded at a trace so the system is complete.
       const seed = 1e-12 * sum(Object.values(fuelFeed));
@@ -299,8 +313,7 @@ class PathModel {
     let fuel: Float64Array;
     let carbonActivity = 0;
     let elementError = 0;
-    let lnO2Bar = Number.NaN;
-    let lnCO2Bar = Number.NaN;
+    const coupleLnBar: Record<string, number> = {};
     if (this.system) {
       const b = new Float64Array(this.bInlet!);
       for (let i = 0; i < b.length; i++) b[i] = b[i]! + this.elementChange![i]! * electrons;
@@ -326,16 +339,14 @@ class PathModel {
       fuel = r.n;
       carbonActivity = r.carbonActivity;
       elementError = r.elementBalanceError;
-      const o = this.system.elements.indexOf('O');
-      const c = this.system.carbonIndex;
-      if (o >= 0) lnO2Bar = 2 * r.pi[o]! - this.gO2;
-      if (o >= 0 && c >= 0) lnCO2Bar = r.pi[c]! + 2 * r.pi[o]! - this.gCO2;
+      // μ_i/RT = Σ_e a_ie π_e = g°_i/RT + ln(p_i/p°) at equilibrium, p° = 1 bar.
+      for (const c of this.couple) coupleLnBar[c.label] = c.atoms.reduce((a, [i, n]) => a + (i >= 0 ? n * r.pi[i]! : Number.NaN), 0) - c.gRT;
     } else {
       fuel = shifted(this.fuelGas, this.fuelIn, this.fuelChange, electrons);
     }
     checkNonNegative(this.fuelGas, fuel, 'fuel');
     checkNonNegative(this.airGas, air, 'air');
-    return { fuel, air, carbonActivity, elementError, lnO2Bar, lnCO2Bar };
+    return { fuel, air, carbonActivity, elementError, coupleLnBar };
   }
 }
 
@@ -382,10 +393,10 @@ export function fuelPath(request: FuelPathRequest): FuelPath {
   const pa = request.airPressureBar;
   const fuelP: Record<string, number> = {};
   const airP: Record<string, number> = {};
-  const nernstSpecies = ['H2', 'H2O', 'CO2', 'O2'];
+  // The oxygen-potential form wherever the fuel gas is equilibrated and holds the elements of the ion's couple (module comment).
+  const potentialForm = model.coupleDefined;
+  const nernstSpecies = [...new Set([...activeQuotient(technology.ion, technology.waterPhase).map((t) => t.species), ...(potentialCouple(technology.ion) ?? []).map((t) => t.species)])];
   const fIdx = nernstSpecies.map((s) => model.fuelGas.index.get(s));
-  // The oxygen-potential form wherever the fuel gas is equilibrated with its oxygen (module comment).
-  const potentialForm = technology.fuelGasEquilibrium && (technology.ion === 'oxide' || technology.ion === 'carbonate') && model.hasOxygen;
   const aIdx = nernstSpecies.map((s) => model.airGas.index.get(s));
 
   /** E of a fuel-side state and an air-side state (the same point, or the inlet's limit); NaN (a species of the quotient absent) as +∞. */
@@ -395,7 +406,7 @@ export function fuelPath(request: FuelPathRequest): FuelPath {
       airP[s] = aIdx[k] === undefined ? 0 : air.xAir[aIdx[k]!]! * pa;
     });
     const nernstV = potentialForm
-      ? oxygenPotentialNernstV(technology.ion as 'oxide' | 'carbonate', temperatureK, fuel.state, airP)
+      ? oxygenPotentialNernstV(technology.ion, temperatureK, fuel.state.coupleLnBar, airP)
       : nernstVoltage(technology.ion, technology.waterPhase, temperatureK, fuelP, airP, e0);
     return Number.isNaN(nernstV) ? Infinity : nernstV;
   };
@@ -427,12 +438,14 @@ export function fuelPath(request: FuelPathRequest): FuelPath {
       carbonActivity: p.state.carbonActivity,
       fuelSide: pick(model.fuelGas, p.xFuel, fuelKeep),
       airSide: pick(model.airGas, p.xAir, airKeep),
+      fuelCoupleBar: potentialForm ? Object.fromEntries(Object.entries(p.state.coupleLnBar).map(([k, ln]) => [k, Math.exp(ln)])) : null,
     })),
     chargeBasisA: basisA,
     currentA: request.utilization * basisA,
     inletNernstV: inlet.value,
     inlet: inlet.kind,
     inletUtilization: inlet.utilization,
+    nernstForm: potentialForm && !model.hasHydrogen ? 'oxygen-potential' : 'quotient',
     outletNernstV: last.value,
     meanNernstV: result.mean,
     maxCarbonActivity: Math.max(...all.map((p) => p.state.carbonActivity)),
@@ -470,7 +483,7 @@ function inletOf(
   const air = sum(first.state.air) > 0 ? first : smallest;
   const limit = nernstOf(fuel, air);
   if (!seeded && (fuel !== first || air !== first) && Number.isFinite(limit)) {
-    const shown: Evaluated = { utilization: 0, value: limit, state: first.state, xFuel: fuel.xFuel, xAir: air.xAir };
+    const shown: Evaluated = { utilization: 0, value: limit, state: { ...first.state, coupleLnBar: fuel.state.coupleLnBar }, xFuel: fuel.xFuel, xAir: air.xAir };
     return { kind: 'limit', value: limit, utilization: 0, points: [shown, ...points.slice(1)] };
   }
   const increment = points[1]!;

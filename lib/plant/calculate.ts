@@ -304,9 +304,11 @@ function calculateResults(basis: DesignBasis): Results {
         carbonActivity: p.carbonActivity,
         fuelSide: p.fuelSide,
         airSide: p.airSide,
+        fuelCouple_bar: p.fuelCoupleBar,
       })),
       inlet: point.path.inlet,
       inletUtilization: point.path.inletUtilization,
+      nernstForm: point.path.nernstForm,
       standardVoltage_V: point.path.standardVoltageV,
     },
     sweeps: {

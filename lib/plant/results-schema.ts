@@ -38,6 +38,10 @@ const pathPointSchema = z.object({
   carbonActivity: num('carbon activity of the fuel-electrode gas relative to graphite'),
   fuelSide: fractions,
   airSide: fractions,
+  fuelCouple_bar: z
+    .record(z.string(), z.number())
+    .nullable()
+    .describe("partial pressures (bar) of the gases of the ion's couple (O2; and CO2 for carbonate) in the equilibrated fuel gas, from its element potentials; null where the Nernst voltage is not taken from the couple"),
 });
 
 const caseSchema = z.object({
@@ -198,6 +202,9 @@ export const resultsSchema = z
       points: z.array(pathPointSchema),
       inlet: z.enum(['feed', 'limit', 'first-increment']).describe('how the inlet Nernst voltage is found: the inlet gas; the limit u → 0⁺ where an electrode has no feed; the first equilibrated increment, where the path starts, where it is unbounded (no product at the inlet)'),
       inletUtilization: num('utilization at which the inlet Nernst voltage is evaluated (0, or the first increment)'),
+      nernstForm: z
+        .enum(['quotient', 'oxygen-potential'])
+        .describe("the form of the Nernst equation a reader evaluates E with: the pressure quotient of the electrode reactions, or the potentials of the ion's couple across the electrolyte where the fuel gas holds no hydrogen (both give the same E where both apply)"),
       standardVoltage_V: num('E° used by the Nernst equation'),
     }),
     sweeps: z.object({

@@ -6,6 +6,7 @@
 // Fuel Cell Systems Explained, 2nd ed., §2.5, for the hydrogen form).
 import { describe, expect, it } from 'vitest';
 import { hydrogenStandardVoltage, nernstVoltage, oxygenPotentialNernstV } from '../../lib/electrochem/nernst.ts';
+import { potentialCouple } from '../../lib/electrochem/electrolytes.ts';
 import { FARADAY_C_PER_MOL as F, GAS_CONSTANT_J_PER_MOL_K as R } from '../../lib/thermo/constants.ts';
 import { gibbs } from '../../lib/thermo/properties.ts';
 import { getSpecies } from '../../lib/thermo/species-data.ts';
@@ -23,7 +24,7 @@ describe('Nernst voltage from the oxygen potential', () => {
     for (const [h2, h2o] of [[0.97, 0.03], [0.5, 0.5], [0.05, 0.95]] as const) {
       const k = Math.exp(-dGh2(t) / (R * t));
       const lnO2Bar = 2 * Math.log(h2o / (k * h2));
-      const e = oxygenPotentialNernstV('oxide', t, { lnO2Bar, lnCO2Bar: Number.NaN }, air);
+      const e = oxygenPotentialNernstV('oxide', t, { O2: lnO2Bar }, air);
       // Both forms are one identity in exact arithmetic: 1e-12 V is rounding.
       expect(Math.abs(e - nernstVoltage('oxide', 'gas', t, { H2: h2, H2O: h2o }, air))).toBeLessThan(1e-12);
     }
@@ -33,7 +34,7 @@ describe('Nernst voltage from the oxygen potential', () => {
     const co = 0.7;
     const co2 = 0.3;
     const k = Math.exp(-dGco(t) / (R * t));
-    const e = oxygenPotentialNernstV('oxide', t, { lnO2Bar: 2 * Math.log(co2 / (k * co)), lnCO2Bar: Math.log(co2) }, air);
+    const e = oxygenPotentialNernstV('oxide', t, { O2: 2 * Math.log(co2 / (k * co)), CO2: Math.log(co2) }, air);
     const byHand = -dGco(t) / (2 * F) + ((R * t) / (2 * F)) * Math.log((co * Math.sqrt(air.O2)) / co2);
     expect(Math.abs(e - byHand)).toBeLessThan(1e-12);
     // NIST-JANAF Thermochemical Tables (4th ed., 1998; from memory): ΔfG°(1000 K) of CO2 −395.886 and
@@ -46,7 +47,23 @@ describe('Nernst voltage from the oxygen potential', () => {
     const k = Math.exp(-dGh2(t) / (R * t));
     const fuel = { H2: 0.4, H2O: 0.3, CO2: 0.25 };
     const cathode = { O2: 0.1, CO2: 0.2 };
-    const e = oxygenPotentialNernstV('carbonate', t, { lnO2Bar: 2 * Math.log(fuel.H2O / (k * fuel.H2)), lnCO2Bar: Math.log(fuel.CO2) }, cathode);
+    const e = oxygenPotentialNernstV('carbonate', t, { O2: 2 * Math.log(fuel.H2O / (k * fuel.H2)), CO2: Math.log(fuel.CO2) }, cathode);
     expect(Math.abs(e - nernstVoltage('carbonate', 'gas', t, fuel, cathode, hydrogenStandardVoltage(t, 'gas')))).toBeLessThan(1e-12);
+  });
+});
+
+describe('the couple of each ion, from the electrode reactions of the per-ion table', () => {
+  // Larminie & Dicks, Fuel Cell Systems Explained, 2nd ed., Fig. 1.4 (from memory): the air electrode
+  // forms O²⁻ from ½O2 and CO3²⁻ from ½O2 + CO2; it consumes H⁺ (and, in alkaline cells, water and
+  // electrons give OH⁻ from the electrolyte's water), so those ions have no couple of gases alone.
+  it('oxide: ½O2; carbonate: ½O2 + CO2; proton and hydroxide: none', () => {
+    expect(potentialCouple('oxide')).toEqual([{ species: 'O2', coefficient: 0.5 }]);
+    expect(potentialCouple('carbonate')).toEqual([
+      { species: 'O2', coefficient: 0.5 },
+      { species: 'CO2', coefficient: 1 },
+    ]);
+    expect(potentialCouple('proton')).toBeNull();
+    expect(potentialCouple('hydroxide')).toBeNull();
+    expect(() => oxygenPotentialNernstV('proton', 1000, { O2: -40 }, { O2: 0.2 })).toThrow(/no couple/);
   });
 });

@@ -175,6 +175,15 @@ describe('fuel path: any fuel, and inlets without product', () => {
     }
     expect(path.meanNernstV).toBeLessThan(path.inletNernstV);
     expect(path.meanNernstV).toBeGreaterThan(path.outletNernstV);
+    // No hydrogen to write the quotient with: a reader evaluates E by the oxygen potential, whose
+    // p_O2 of the fuel gas is (p_CO2/(K_CO p_CO))², K_CO = exp(−ΔG°_CO/RT), at every point.
+    expect(path.nernstForm).toBe('oxygen-potential');
+    const k = Math.exp(-(g('CO2', t) - g('CO', t) - 0.5 * g('O2', t)) / (R * t));
+    for (const p of path.points) {
+      const o2 = (p.fuelSide.CO2! / (k * p.fuelSide.CO!)) ** 2;
+      // Relative 1e-8 of p_O2 is 2.5e-9 of ln p_O2, i.e. about 6e-11 V at RT/4F: the traces of the gas.
+      expect(Math.abs(p.fuelCoupleBar!.O2! / o2 - 1), `u = ${p.utilization}`).toBeLessThan(1e-8);
+    }
   });
 
   it('the oxygen-potential form equals the H2/H2O form of humidified hydrogen at every point', () => {
@@ -183,6 +192,8 @@ describe('fuel path: any fuel, and inlets without product', () => {
       const byHand = hydrogenStandardVoltage(t, 'gas') + rt2F * Math.log((p.fuelSide.H2! * Math.sqrt(p.airSide.O2!)) / p.fuelSide.H2O!);
       expect(Math.abs(p.nernstV - byHand), `u = ${p.utilization}`).toBeLessThan(1e-9);
     }
+    // Where the gas holds hydrogen the quotient serves a reader and gives the same E.
+    expect(path.nernstForm).toBe('quotient');
   });
 
   it('a dry hydrocarbon (CH4 with no steam): E is unbounded at the inlet; the first increment stands for it and the oxygen potential gives the H2/H2O form there', () => {
