@@ -7,7 +7,7 @@
  * the results.
  */
 import type { EquationBook } from './equation-book.ts';
-import { NUMBERS, symbolicRhs, symbolTex } from './equations.ts';
+import { NUMBERS, symbolicLhs, symbolicRhs, symbolTex } from './equations.ts';
 import { formatNumber, formatPercent, formatTrimmed, texNumber } from './format.ts';
 import { renderTex } from './katex-render.ts';
 import { texValue } from './tex.ts';
@@ -85,13 +85,15 @@ export function calcLine(spec: LineSpec, book: EquationBook): CalcLine {
   const digits = spec.digits ?? 5;
   const percentTex = spec.percent ? ` = ${texNumber(spec.value * 100, 4)}\\,\\%` : '';
   const resultTex = `${texValue(spec.value, digits).replace(/^\((.*)\)$/, '$1')}${unitTex(spec.unit)}${percentTex}`;
-  const lhs = spec.lhs ?? symbolTex(relation.lhs, 'line');
+  const lhs = spec.lhs ?? symbolicLhs(relation, 'line');
   const substituted = `${relation.rhs(numbers, NUMBERS)}${spec.conversion ?? ''}`;
+  // A relation that equates two expressions shows both with the numbers put in: lhs(numbers) = rhs(numbers) = result.
+  const substitutedLhs = relation.lhsOf ? relation.lhsOf(numbers, NUMBERS) : '';
   return {
     id: spec.id,
     title: spec.title,
     equation: { number: equation.number, anchor: equation.anchor },
-    math: renderTex(`\\begin{aligned} ${lhs} &= ${symbolicRhs(relation, 'line')} \\\\ &= ${substituted} = ${resultTex} \\end{aligned}`, true),
+    math: renderTex(`\\begin{aligned} ${lhs} &= ${symbolicRhs(relation, 'line')} \\\\ ${substitutedLhs} &= ${substituted} = ${resultTex} \\end{aligned}`, true),
     result: spec.percent ? formatPercent(spec.value) : `${formatNumber(spec.value, digits)}${spec.unit ? ` ${unitText(spec.unit)}` : ''}`,
     quantities: spec.quantities.map((q) => {
       const symbol = relation.symbols[q.name]!;

@@ -6,7 +6,7 @@
  * as a balance of (electro)chemical potentials, the ion's electrochemical potential being the
  * same at both interfaces; their sum is the Gibbs energy change of the overall reaction.
  */
-import { ELECTRONS, electrolyte, isElectrodeGas, type Electrode, type Electrolyte, type ReactionTerm } from '../electrochem/electrolytes.ts';
+import { ELECTRONS, electrolyte, isElectrodeGas, potentialCouple, type Electrode, type Electrolyte, type ReactionTerm } from '../electrochem/electrolytes.ts';
 import type { Ion } from '../electrochem/technologies.ts';
 import { texSpecies } from './tex.ts';
 
@@ -26,6 +26,12 @@ export interface ElectrodeReactions {
   overall: string;
   /** Where water forms in power mode. */
   waterElectrode: Electrode;
+  /**
+   * For an ion the air electrode forms from its gases alone (its couple, electrolytes.ts): that
+   * reaction's balance written at the fuel electrode, and the difference of the two balances,
+   * which gives E from the couple's chemical potentials; null for other ions.
+   */
+  couple: { fuelBalance: string; difference: string } | null;
 }
 
 /** Electrochemical potential of the electrons at each electrode. */
@@ -91,6 +97,15 @@ function overallTex(net: Net[]): string {
   return `${net.filter((n) => n.amount < 0).map(show).join(' + ')} \\rightarrow ${net.filter((n) => n.amount > 0).map(show).join(' + ')}`;
 }
 
+/** The couple's balances (ElectrodeReactions.couple): the air-electrode reaction at the fuel electrode, and 2(μ̃e,a − μ̃e,f) = Σ ν (μ_i,f − μ_i,a). */
+function coupleTex(e: Electrolyte): ElectrodeReactions['couple'] {
+  const gases = potentialCouple(e.ion);
+  if (!gases) return null;
+  const fuelBalance = `${side(e.air.consumes, (s) => potential(e, s, 'f'), `${ELECTRONS}\\,${ELECTRON_POTENTIAL.f}`)} = ${side(e.air.forms, (s) => potential(e, s, 'f'), null)}`;
+  const terms = gases.map((t) => `${coefficient(t.coefficient)}\\left(${potential(e, t.species, 'f')} - ${potential(e, t.species, 'a')}\\right)`).join(' + ');
+  return { fuelBalance, difference: `${ELECTRONS}\\left(${ELECTRON_POTENTIAL.a}-${ELECTRON_POTENTIAL.f}\\right) = ${terms}` };
+}
+
 const cache = new Map<Ion, ElectrodeReactions>();
 
 export function electrodeReactions(ion: Ion): ElectrodeReactions {
@@ -110,6 +125,7 @@ export function electrodeReactions(ion: Ion): ElectrodeReactions {
     sum: sumTex(e, net),
     overall: overallTex(net),
     waterElectrode: e.fuel.forms.some((t) => t.species === 'H2O') ? 'f' : 'a',
+    couple: coupleTex(e),
   };
   cache.set(ion, reactions);
   return reactions;

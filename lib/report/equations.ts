@@ -11,7 +11,7 @@
  * reactions and the Nernst quotient of lib/electrochem/electrolytes.ts), the mode (the signs of
  * the voltage and heat equations) and what sets the cell count.
  */
-import { activeQuotient, type QuotientTerm } from '../electrochem/electrolytes.ts';
+import { activeQuotient, potentialCouple, type QuotientTerm } from '../electrochem/electrolytes.ts';
 import type { Results } from '../plant/results-schema.ts';
 import { electrodeReactions } from './electrode-reactions.ts';
 import { quotientTex } from './nernst-tex.ts';
@@ -41,6 +41,12 @@ export interface Relation {
   /** The quantities the right-hand side names, by name. */
   symbols: Record<string, Symbol>;
   rhs: (q: Record<string, string>, op: Ops) => string;
+  /**
+   * A left-hand side written over the same quantities, where the relation equates two
+   * expressions (an integral and what it must equal): the method shows it in symbols, a worked
+   * line with this design's numbers too; `lhs` then only names the value.
+   */
+  lhsOf?: (q: Record<string, string>, op: Ops) => string;
 }
 
 export interface EquationEntry {
@@ -58,14 +64,21 @@ export function symbolTex(s: Symbol, form: 'method' | 'line'): string {
   return form === 'method' && s.ofT ? `${s.tex}(T)` : s.tex;
 }
 
+const symbolsOf = (relation: Relation, form: 'method' | 'line') => Object.fromEntries(Object.entries(relation.symbols).map(([name, s]) => [name, symbolTex(s, form)]));
+
 /** The right-hand side of a relation in symbols. */
 export function symbolicRhs(relation: Relation, form: 'method' | 'line'): string {
-  return relation.rhs(Object.fromEntries(Object.entries(relation.symbols).map(([name, s]) => [name, symbolTex(s, form)])), SYMBOLS);
+  return relation.rhs(symbolsOf(relation, form), SYMBOLS);
+}
+
+/** The left-hand side of a relation in symbols: its expression (`lhsOf`), else its symbol. */
+export function symbolicLhs(relation: Relation, form: 'method' | 'line'): string {
+  return relation.lhsOf ? relation.lhsOf(symbolsOf(relation, form), SYMBOLS) : symbolTex(relation.lhs, form);
 }
 
 /** `lhs = rhs` as the method writes it. */
 export function methodForm(relation: Relation): string {
-  return `${symbolTex(relation.lhs, 'method')} = ${symbolicRhs(relation, 'method')}`;
+  return `${symbolicLhs(relation, 'method')} = ${symbolicRhs(relation, 'method')}`;
 }
 
 const sym = (tex: string, more: Omit<Symbol, 'tex'> = {}): Symbol => ({ tex, ...more });
@@ -114,6 +127,45 @@ function nernstEquation(r: Results): EquationEntry {
   );
 }
 
+/**
+ * The couple's terms of the oxygen-potential form as a quotient: each gas of the couple at the
+ * air electrode over the same gas at the fuel electrode, to its coefficient (oxide: p_O2,a^½ over
+ * p_O2,f^½; carbonate with p_CO2,a over p_CO2,f too).
+ */
+export function coupleQuotient(r: Results): QuotientTerm[] {
+  const couple = potentialCouple(r.technology.ion) ?? [];
+  return [
+    ...couple.map((t): QuotientTerm => ({ species: t.species, electrode: 'a', power: t.coefficient, water: false })),
+    ...couple.map((t): QuotientTerm => ({ species: t.species, electrode: 'f', power: -t.coefficient, water: false })),
+  ];
+}
+
+/**
+ * The Nernst voltage from the ion's couple across the electrolyte (the oxygen-potential form),
+ * where the fuel gas holds no hydrogen to write the quotient of Eq. nernst with: the air-electrode
+ * reaction balanced at the fuel electrode too, the difference of the two balances, and E.
+ */
+function oxygenPotentialEquations(r: Results): EquationEntry[] {
+  const couple = electrodeReactions(r.technology.ion).couple;
+  if (r.fuelPath.nernstForm !== 'oxygen-potential' || !couple) return [];
+  const terms = coupleQuotient(r);
+  const pressures = Object.fromEntries(terms.map((t) => [pressureName(t), sym(texPressure(t.species, t.electrode))]));
+  return [
+    shown('couple-balance', couple.fuelBalance),
+    entry(
+      'nernst-oxygen',
+      {
+        voltage: {
+          lhs: sym('E'),
+          symbols: { R: sym('R'), T, F, ...pressures },
+          rhs: (q, op) => `\\frac{${q.R}${op.times}${q.T}}{2${op.times}${q.F}}\\,\\ln ${quotientTex(terms, (t) => q[pressureName(t)]!, op.times)}`,
+        },
+      },
+      (show) => `${couple.difference} = -2\\,F\\,E \\quad\\Longrightarrow\\quad ${show('voltage')}`,
+    ),
+  ];
+}
+
 /** Properties of the species and of the hydrogen reaction from the NASA polynomials. */
 function temperatureEquations(): EquationEntry[] {
   const dH = sym('\\Delta H^\\circ', { ofT: true });
@@ -128,43 +180,101 @@ function temperatureEquations(): EquationEntry[] {
   ];
 }
 
-/** The mean Nernst voltage along the fuel path and the cell voltage. */
+/** Whether the electrolyte leaks electrons (t_ion < 1): the equations then tell the ionic current from the current at the terminals. */
+export function mixedConductor(r: Results): boolean {
+  return r.electrochemistry.ionicTransferenceNumber < 1;
+}
+
+/**
+ * The charge-mean Nernst voltage (an indicator), the open-circuit voltage, and the cell at one
+ * voltage: the local current density, the area it takes, the condition the voltage meets (the
+ * harmonic mean) and the same law with the area-mean Nernst voltage. A pure ionic conductor
+ * (t_ion = 1) is written without the leakage terms, which vanish.
+ */
 function voltageEquations(r: Results): EquationEntry[] {
   const power = r.technology.mode === 'power';
+  const mixed = mixedConductor(r);
   const U = sym(power ? 'U_\\mathrm{f}' : 'X');
-  const [t, E, dV, j, ASR, V] = [sym('t_\\mathrm{ion}'), sym('\\bar{E}'), sym('\\Delta V_x'), sym('j'), sym('\\mathrm{ASR}'), sym('V')];
+  const [t, dV, j, ASR, V, E] = [sym('t_\\mathrm{ion}'), sym('\\Delta V_x'), sym('j'), sym('\\mathrm{ASR}'), sym('V'), sym('E(u)')];
+  const EA = sym('\\bar{E}_A');
+  const tOf: Record<string, Symbol> = mixed ? { t } : {};
+  const dVOf: Record<string, Symbol> = power ? { dV } : {};
+  /** t_ion and a multiplication before a factor, or nothing for a pure ionic conductor. */
+  const tx = (q: Record<string, string>, op: Ops) => (mixed ? `${q.t}${op.times}` : '');
+  const i = mixed ? 'i_\\mathrm{ion}(u)' : 'i(u)';
+  const jIon = mixed ? 'j_\\mathrm{ion}' : 'j';
+  // The ionic driving voltage y(u): i_ion(u) = y(u)/ASR.
+  const drive = (q: Record<string, string>, op: Ops, e: string) => (power ? `${tx(q, op)}${e} - ${q.dV} - ${tx(q, op)}${q.V}` : `${tx(q, op)}${q.V} - ${tx(q, op)}${e}`);
+  const local: Record<string, Relation> = {
+    terminal: {
+      lhs: sym('i(u)'),
+      symbols: { ...tOf, E, ...dVOf, V, ASR },
+      rhs: (q, op) => (power ? `\\frac{${tx(q, op)}${q.E} - ${q.dV} - ${q.V}}{${q.ASR}}` : `\\frac{${q.V} - ${tx(q, op)}${q.E}}{${q.ASR}}`),
+    },
+  };
+  if (mixed) {
+    local.ionic = { lhs: sym(i), symbols: { t, E, ...dVOf, V, ASR }, rhs: (q, op) => `\\frac{${drive(q, op, q.E!)}}{${q.ASR}}` };
+    local.leakage = { lhs: sym('i_e'), symbols: { t, V, ASR }, rhs: (q, op) => `\\frac{${op.open}1 - ${q.t}${op.close}${op.times}${q.V}}{${q.ASR}}` };
+  }
+  const leakageTerm = (q: Record<string, string>, op: Ops) => (mixed ? ` ${power ? '+' : '-'} ${op.open}1 - ${q.t}${op.close}${op.times}${q.V}` : '');
   const cell: Record<string, Relation> = power
     ? {
-        voltage: { lhs: V, symbols: { t, E, dV, j, ASR }, rhs: (q, op) => `${q.t}${op.times}${q.E} - ${q.dV} - ${q.j}${op.times}${q.ASR}` },
-        resistance: { lhs: ASR, symbols: { t, E, dV, V, j }, rhs: (q, op) => `\\frac{${q.t}${op.times}${q.E} - ${q.dV} - ${q.V}}{${q.j}}` },
+        voltage: { lhs: V, symbols: { ...tOf, EA, dV, j, ASR }, rhs: (q, op) => `${tx(q, op)}${q.EA} - ${q.dV} - ${q.j}${op.times}${q.ASR}` },
+        resistance: { lhs: ASR, symbols: { ...tOf, EA, dV, V, j }, rhs: (q, op) => `\\frac{${tx(q, op)}${q.EA} - ${q.dV} - ${q.V}}{${q.j}}` },
       }
     : {
-        voltage: { lhs: V, symbols: { E, j, ASR }, rhs: (q, op) => `${q.E} + ${q.j}${op.times}${q.ASR}` },
-        resistance: { lhs: ASR, symbols: { V, E, j }, rhs: (q) => `\\frac{${q.V} - ${q.E}}{${q.j}}` },
+        voltage: { lhs: V, symbols: { ...tOf, EA, j, ASR }, rhs: (q, op) => `${tx(q, op)}${q.EA} + ${q.j}${op.times}${q.ASR}` },
+        resistance: { lhs: ASR, symbols: { V, ...tOf, EA, j }, rhs: (q, op) => `\\frac{${q.V} - ${tx(q, op)}${q.EA}}{${q.j}}` },
       };
+  const u = symbolTex(U, 'method');
   return [
-    entry('mean-nernst', { mean: { lhs: E, symbols: { U }, rhs: (q) => `\\frac{1}{${q.U}}\\int_0^{${q.U}} E(u)\\,\\mathrm{d}u` } }),
+    entry('mean-nernst', { mean: { lhs: sym('\\bar{E}'), symbols: { U }, rhs: (q) => `\\frac{1}{${q.U}}\\int_0^{${q.U}} E(u)\\,\\mathrm{d}u` } }),
     ...(power ? [entry('open-circuit', { open: { lhs: sym('E_\\mathrm{oc}'), symbols: { t, Ein: sym('E_\\mathrm{in}'), dV }, rhs: (q, op) => `${q.t}${op.times}${q.Ein} - ${q.dV}` } })] : []),
-    entry('cell-voltage', cell, (show) => show('voltage')),
+    entry('local-current', local, (show) =>
+      mixed ? `${show('ionic')}, \\qquad ${show('leakage')}, \\qquad i(u) = ${i} ${power ? '-' : '+'} i_e = ${show('terminal', 'rhs')}` : show('terminal'),
+    ),
+    shown(
+      'area-element',
+      `\\mathrm{d}A = \\frac{Q_1\\,\\mathrm{d}u}{${i}} \\quad\\Longrightarrow\\quad N A = Q_1 \\int_0^{${u}} \\frac{\\mathrm{d}u}{${i}}, \\qquad ${jIon} = \\frac{${u}\\,Q_1}{N A} = \\frac{${u}}{\\int_0^{${u}} \\mathrm{d}u / ${i}}`,
+    ),
+    entry('uniform-voltage', {
+      balance: {
+        lhs: sym('\\mathcal{I}'),
+        symbols: { U, ...tOf, ...dVOf, V, j, ASR },
+        lhsOf: (q, op) => `\\int_0^{${q.U}} \\frac{\\mathrm{d}u}{${drive(q, op, '{E(u)}')}}`,
+        rhs: (q, op) => `\\frac{${q.U}}{${q.j}${op.times}${q.ASR}${leakageTerm(q, op)}}`,
+      },
+    }),
+    entry('cell-voltage', cell, (show) => `${symbolTex(EA, 'method')} = \\frac{1}{N A}\\int E\\,\\mathrm{d}A = \\frac{\\int_0^{${u}} E(u)\\,\\mathrm{d}u / ${i}}{\\int_0^{${u}} \\mathrm{d}u / ${i}}, \\qquad ${show('voltage')}`),
   ];
 }
 
-/** Current, cell count, and the flows by Faraday's law. */
+/**
+ * Current, cell count, and the flows by Faraday's law. The flows follow the ionic current: for a
+ * mixed conductor I_ion = N A (j ± i_e), the electronic leakage i_e carrying no ions; for a pure
+ * ionic conductor it is the stack current I.
+ */
 function faradayEquations(r: Results): EquationEntry[] {
   const power = r.technology.mode === 'power';
+  const mixed = mixedConductor(r);
   const [j, A, N, V, I, Icell, f, Q1, Uf, Fz] = ['j', 'A', 'N', 'V', 'I', 'I_\\mathrm{cell}', 'f_\\mathrm{par}', 'Q_1', 'U_\\mathrm{f}', '\\bar{z}'].map((s) => sym(s)) as Symbol[];
+  const Iion = mixed ? sym('I_\\mathrm{ion}') : I!;
   const P = sym('P');
-  const oxygen: Relation = { lhs: sym('\\dot n_\\mathrm{O_2}'), symbols: { I: I!, F }, rhs: (q, op) => `\\frac{${q.I}}{4${op.times}${q.F}}` };
+  const oxygen: Relation = { lhs: sym('\\dot n_\\mathrm{O_2}'), symbols: { I: Iion, F }, rhs: (q, op) => `\\frac{${q.I}}{4${op.times}${q.F}}` };
+  const current: Record<string, Relation> = {
+    cell: { lhs: Icell!, symbols: { j: j!, A: A! }, rhs: (q, op) => `${q.j}${op.times}${q.A}` },
+    stack: { lhs: I!, symbols: { N: N!, Icell: Icell! }, rhs: (q, op) => `${q.N}${op.times}${q.Icell}` },
+    power: { lhs: P, symbols: { V: V!, I: I! }, rhs: (q, op) => `${q.V}${op.times}${q.I}` },
+  };
+  if (mixed) {
+    current.ionic = {
+      lhs: Iion,
+      symbols: { N: N!, A: A!, j: j!, t: sym('t_\\mathrm{ion}'), V: V!, ASR: sym('\\mathrm{ASR}') },
+      rhs: (q, op) => `${q.N}${op.times}${q.A}${op.times}\\left(${q.j} ${power ? '+' : '-'} \\frac{${op.open}1 - ${q.t}${op.close}${op.times}${q.V}}{${q.ASR}}\\right)`,
+    };
+  }
   const out: EquationEntry[] = [
-    entry(
-      'current',
-      {
-        cell: { lhs: Icell!, symbols: { j: j!, A: A! }, rhs: (q, op) => `${q.j}${op.times}${q.A}` },
-        stack: { lhs: I!, symbols: { N: N!, Icell: Icell! }, rhs: (q, op) => `${q.N}${op.times}${q.Icell}` },
-        power: { lhs: P, symbols: { V: V!, I: I! }, rhs: (q, op) => `${q.V}${op.times}${q.I}` },
-      },
-      (show) => `${show('cell')}, \\qquad ${show('stack')}, \\qquad P = N\\,V\\,I_\\mathrm{cell} = ${show('power', 'rhs')}`,
-    ),
+    entry('current', current, (show) => `${show('cell')}, \\qquad ${show('stack')}, \\qquad P = N\\,V\\,I_\\mathrm{cell} = ${show('power', 'rhs')}${mixed ? `, \\qquad I_\\mathrm{ion} = N A\\,(j ${power ? '+' : '-'} i_e) = ${show('ionic', 'rhs')}` : ''}`),
   ];
   const target = sym('P_\\mathrm{target}');
   if (r.operatingPoint.cellsFrom === 'power') {
@@ -184,9 +294,9 @@ function faradayEquations(r: Results): EquationEntry[] {
       entry(
         'charge-basis',
         {
-          charge: { lhs: Q1!, symbols: { I: I!, U: Uf! }, rhs: (q) => `\\frac{${q.I}}{${q.U}}` },
-          utilization: { lhs: Uf!, symbols: { I: I!, Q: Q1! }, rhs: (q) => `\\frac{${q.I}}{${q.Q}}` },
-          fuel: { lhs: nFuel, symbols: { I: I!, U: Uf!, F, z: Fz! }, rhs: (q, op) => `\\frac{${q.I}}{${q.U}${op.times}${q.F}${op.times}${q.z}}` },
+          charge: { lhs: Q1!, symbols: { I: Iion, U: Uf! }, rhs: (q) => `\\frac{${q.I}}{${q.U}}` },
+          utilization: { lhs: Uf!, symbols: { I: Iion, Q: Q1! }, rhs: (q) => `\\frac{${q.I}}{${q.Q}}` },
+          fuel: { lhs: nFuel, symbols: { I: Iion, U: Uf!, F, z: Fz! }, rhs: (q, op) => `\\frac{${q.I}}{${q.U}${op.times}${q.F}${op.times}${q.z}}` },
         },
         (show) => `Q_1 = F \\sum_i \\dot n_i\\, z_i = F\\,\\dot n_\\mathrm{fuel}\\,\\bar{z}, \\qquad ${show('utilization')} \\quad\\Longrightarrow\\quad ${show('fuel')}`,
       ),
@@ -200,8 +310,8 @@ function faradayEquations(r: Results): EquationEntry[] {
     out.push(
       entry(
         'production',
-        { hydrogen: { lhs: sym('\\dot n_\\mathrm{H_2} + \\dot n_\\mathrm{CO}'), symbols: { I: I!, F }, rhs: (q, op) => `\\frac{${q.I}}{2${op.times}${q.F}}` }, oxygen },
-        (show) => `${show('hydrogen')}, \\qquad ${show('oxygen')}, \\qquad X = \\frac{I}{Q_1}, \\quad Q_1 = 2\\,F\\,(\\dot n_\\mathrm{H_2O} + \\dot n_\\mathrm{CO_2})`,
+        { hydrogen: { lhs: sym('\\dot n_\\mathrm{H_2} + \\dot n_\\mathrm{CO}'), symbols: { I: Iion, F }, rhs: (q, op) => `\\frac{${q.I}}{2${op.times}${q.F}}` }, oxygen },
+        (show) => `${show('hydrogen')}, \\qquad ${show('oxygen')}, \\qquad X = \\frac{${Iion.tex}}{Q_1}, \\quad Q_1 = 2\\,F\\,(\\dot n_\\mathrm{H_2O} + \\dot n_\\mathrm{CO_2})`,
       ),
     );
   }
@@ -236,16 +346,24 @@ function heatEquations(r: Results): EquationEntry[] {
   const power = r.technology.mode === 'power';
   const Hin = sym('\\sum_\\mathrm{in} \\dot n_i\\, h_i(T)', { listed: 'H_\\mathrm{in}' });
   const Hout = sym('\\sum_\\mathrm{out} \\dot n_i\\, h_i(T)', { listed: 'H_\\mathrm{out}' });
+  const mixed = mixedConductor(r);
   const [I, Vtn, V] = [sym('I'), sym('V_\\mathrm{tn,eff}'), sym('V')];
+  const Iion = mixed ? sym('I_\\mathrm{ion}') : I;
+  // The reactions release V_tn,eff per ionic charge; the terminals carry the electric work I V.
+  const heat: Relation = mixed
+    ? power
+      ? { lhs: sym('Q'), symbols: { Iion, Vtn, I, V }, rhs: (q, op) => `${q.Iion}${op.times}${q.Vtn} - ${q.I}${op.times}${q.V}` }
+      : { lhs: sym('Q'), symbols: { I, V, Iion, Vtn }, rhs: (q, op) => `${q.I}${op.times}${q.V} - ${q.Iion}${op.times}${q.Vtn}` }
+    : power
+      ? { lhs: sym('Q'), symbols: { I, Vtn, V }, rhs: (q, op) => `${q.I}${op.times}${op.open}${q.Vtn} - ${q.V}${op.close}` }
+      : { lhs: sym('Q'), symbols: { I, V, Vtn }, rhs: (q, op) => `${q.I}${op.times}${op.open}${q.V} - ${q.Vtn}${op.close}` };
   const out = [
     entry('heat-balance', { balance: { lhs: sym('Q'), symbols: { Hin, Hout, W: sym('W_\\mathrm{in}') }, rhs: (q) => `${q.Hin} - ${q.Hout} + ${q.W}` } }, (show) => `${show('balance')}, \\qquad W_\\mathrm{in} = ${power ? '-P' : '+P'}`),
     entry(
       'heat-voltage',
       {
-        thermoneutral: { lhs: Vtn, symbols: { a: sym(power ? 'H_\\mathrm{in}' : 'H_\\mathrm{out}'), b: sym(power ? 'H_\\mathrm{out}' : 'H_\\mathrm{in}'), I }, rhs: (q) => `\\frac{${q.a} - ${q.b}}{${q.I}}` },
-        heat: power
-          ? { lhs: sym('Q'), symbols: { I, Vtn, V }, rhs: (q, op) => `${q.I}${op.times}${op.open}${q.Vtn} - ${q.V}${op.close}` }
-          : { lhs: sym('Q'), symbols: { I, V, Vtn }, rhs: (q, op) => `${q.I}${op.times}${op.open}${q.V} - ${q.Vtn}${op.close}` },
+        thermoneutral: { lhs: Vtn, symbols: { a: sym(power ? 'H_\\mathrm{in}' : 'H_\\mathrm{out}'), b: sym(power ? 'H_\\mathrm{out}' : 'H_\\mathrm{in}'), I: Iion }, rhs: (q) => `\\frac{${q.a} - ${q.b}}{${q.I}}` },
+        heat,
       },
     ),
   ];
@@ -275,6 +393,7 @@ export function equationTable(r: Results): Map<string, EquationEntry> {
   const all = [
     ...electrodeEquations(r),
     nernstEquation(r),
+    ...oxygenPotentialEquations(r),
     ...temperatureEquations(),
     ...voltageEquations(r),
     ...faradayEquations(r),

@@ -9,7 +9,9 @@
 import type { Results } from '../plant/results-schema.ts';
 import { EquationBook, type Equation } from './equation-book.ts';
 import { electrodeReactions } from './electrode-reactions.ts';
-import { equationTable, type EquationEntry } from './equations.ts';
+import { equationTable, mixedConductor, type EquationEntry } from './equations.ts';
+import { sectionNumber } from './outline.ts';
+import { hotSpot } from './local-current.ts';
 import { prose, type Paragraph } from './prose.ts';
 
 export type MethodBlock = { kind: 'paragraph'; paragraph: Paragraph } | { kind: 'equation'; equation: Equation };
@@ -90,6 +92,25 @@ function nernst(step: Step, r: Results): void {
   if (r.technology.ion === 'hydroxide') {
     step.text('The water consumed at the air electrode and formed at the fuel electrode belongs to the aqueous electrolyte, whose water activity is taken as 1.');
   }
+  if (r.fuelPath.nernstForm === 'oxygen-potential') oxygenPotential(step, r);
+}
+
+/** The Nernst equation of a fuel gas without hydrogen, from the ion's couple across the electrolyte. */
+function oxygenPotential(step: Step, r: Results): void {
+  const reactions = electrodeReactions(r.technology.ion);
+  const carbonate = r.technology.ion === 'carbonate';
+  step
+    .text(
+      `This fuel gas holds no hydrogen, so Eq. {{nernst}} has no $\\mathrm{H_2}$ or $\\mathrm{H_2O}$ pressure to be evaluated with. The ${reactions.ionName} is formed at the air electrode from ${carbonate ? 'oxygen and carbon dioxide' : 'oxygen'} alone, $${reactions.airReaction}$, and the fuel-electrode gas, being at chemical equilibrium, has a definite ${carbonate ? 'oxygen and carbon dioxide potential' : 'oxygen potential'} as well. The same reaction therefore balances at the fuel electrode:`,
+    )
+    .eq('couple-balance')
+    .text(
+      `Subtracting it from Eq. {{air-balance}}, the ion's electrochemical potential cancels, and with Eq. {{gibbs-voltage}} the cell is ${carbonate ? 'an oxygen and carbon dioxide' : 'an oxygen'} concentration cell (the relation of the zirconia oxygen sensor), each pressure in bar:`,
+    )
+    .eq('nernst-oxygen')
+    .text(
+      'The oxygen partial pressure of the fuel gas, far below anything measurable (of the order of $10^{-20}\\,\\mathrm{bar}$), follows exactly from the element potentials $\\pi_e$ of its equilibrium: $\\ln(p_{\\mathrm{O_2},\\mathrm{f}}/p^\\circ) = 2\\pi_\\mathrm{O} - \\mu^\\circ_{\\mathrm{O_2}}(T)/RT$. Where the gas holds carbon monoxide and dioxide this is the same voltage as $E = E^\\circ_\\mathrm{CO} + \\frac{RT}{2F}\\ln\\frac{p_\\mathrm{CO}\\,p_{\\mathrm{O_2},\\mathrm{a}}^{1/2}}{p_\\mathrm{CO_2}}$, and where it holds hydrogen and water the same as Eq. {{nernst}}.',
+    );
 }
 
 function temperature(step: Step, r: Results): void {
@@ -123,36 +144,76 @@ function fuelPath(step: Step, r: Results): void {
   if (r.technology.waterPhase === 'liquid') {
     step.text('Both gases are taken as saturated with water vapour at the cell temperature, $x_\\mathrm{H_2O} = p_\\mathrm{sat}(T)/P$; the rest of the water is liquid.');
   }
+  if (r.fuelPath.inlet === 'limit') {
+    step.text(
+      `One electrode is fed nothing, so at $u = 0$ it holds no gas; the first charge fills it with pure product, and the Nernst voltage of the inlet is the limit $u \\to 0^+$, finite, which the results give at $u = 0$.`,
+    );
+  } else if (r.fuelPath.inlet === 'first-increment') {
+    step.text(
+      'The inlet gas holds none of the product of the electrode reaction, so the Nernst voltage rises without bound as $u \\to 0^+$ (like $-\\tfrac{RT}{2F}\\ln u$), while its integrals stay finite. The inlet value the results give is that of the first equilibrated increment of the path, $u_1$, where the table of the path starts.',
+    );
+  }
   step
-    .text('The cell, a co-flow stack at one voltage, draws its current where the local driving force allows; the voltage that sets its operating point is the charge average of the local Nernst voltage:')
+    .text(
+      'The charge average of the local Nernst voltage is the Gibbs energy the reaction gives up per unit charge, the reference of the voltage efficiency. It is reported as an indicator; it is not the voltage the cell runs at, which the next step derives:',
+    )
     .eq('mean-nernst')
     .text('The integral is evaluated numerically on the fuel-path grid: the trapezoidal rule on intervals refined until E changes by less than 1 mV across each, and the logarithmic form of E near an inlet that carries no product.');
 }
 
 function voltage(step: Step, r: Results): void {
   const power = r.technology.mode === 'power';
+  const mixed = mixedConductor(r);
+  const given = r.electrochemistry.voltageSource === 'given';
   if (power) {
     step
       .text(
         'A mixed conductor leaks electrons, lowering the open-circuit voltage by its ionic transference number $t_\\mathrm{ion}$, and gas crossover lowers it further by the allowance $\\Delta V_x$ of the basis:',
       )
-      .eq('open-circuit')
-      .text('Under load, the losses of the cell are lumped into one area-specific resistance ASR at the current density $j$:')
-      .eq('cell-voltage');
-  } else {
-    step.text('In electrolysis the cell is driven above the mean Nernst voltage by the losses, lumped into one area-specific resistance ASR at the current density $j$:').eq('cell-voltage');
+      .eq('open-circuit');
   }
   step.text(
-    r.electrochemistry.voltageSource === 'given'
-      ? 'The basis gives the cell voltage, so Eq. {{cell-voltage}} is used the other way round: it yields the resistance the design implies, for comparison with cell data.'
-      : 'The basis gives the area-specific resistance, so Eq. {{cell-voltage}} yields the cell voltage.',
+    mixed
+      ? `The interconnects hold the whole cell at one voltage $V$, while the Nernst voltage changes along it. The losses are lumped into one area-specific resistance ASR at the terminals; the electrolyte is a mixed conductor, an ionic path of resistance $\\mathrm{ASR}/t_\\mathrm{ion}$ with the local Nernst voltage as its source beside an electronic path of $\\mathrm{ASR}/(1 - t_\\mathrm{ion})$. At the point $u$ the ions carry $i_\\mathrm{ion}(u)$, the electrons leak $i_e$, the same everywhere since $V$ is, and the terminals carry $i(u)$:`
+      : `The interconnects hold the whole cell at one voltage $V$, while the Nernst voltage changes along it. With the losses lumped into one area-specific resistance ASR, the local current density at the point $u$ is driven by the local ${power ? 'excess of the Nernst voltage over the cell voltage' : 'excess of the cell voltage over the Nernst voltage'}:`,
   );
+  step.eq('local-current');
+  step
+    .text(
+      `${power ? 'Where E is high, near the inlet, the cell draws the most current; toward the outlet, where E is low, the least' : 'Where E is low, near the inlet, the cell draws the most current; toward the outlet, where E is high, the least'}. The ions carry the charge $Q_1\\,\\mathrm{d}u$ of each step of the path over the area $\\mathrm{d}A$ that their local current density needs, so the active area and the mean current density are`,
+    )
+    .eq('area-element')
+    .text(
+      `The mean ${mixed ? 'ionic ' : ''}current density is the harmonic mean of the local one, not its charge average. With ${mixed ? `$j_\\mathrm{ion} = j ${power ? '+' : '-'} i_e$ and ` : ''}the current density $j$ of the basis this is the condition the cell voltage meets:`,
+    )
+    .eq('uniform-voltage')
+    .text(
+      `Weighting the local Nernst voltage by the area instead of the charge gives the same law in the familiar form, with the area-mean Nernst voltage $\\bar{E}_A$ where a uniform cell would have its one Nernst voltage (for E the same all along, $V = ${mixed ? 't_\\mathrm{ion} ' : ''}E ${power ? '-' : '+'} ${power ? '\\Delta V_x - ' : ''}j\\,\\mathrm{ASR}$):`,
+    )
+    .eq('cell-voltage')
+    .text(
+      power
+        ? 'The part of the cell near the outlet draws less current and takes more area than the charge it carries would suggest, so $\\bar{E}_A$ lies below the charge mean $\\bar{E}$ of Eq. {{mean-nernst}}: the charge-mean form $V = \\bar{E} - j\\,\\mathrm{ASR}$ overstates the voltage, the efficiency and the power of each cell.'
+        : 'The part of the cell near the outlet draws less current and takes more area than the charge it carries would suggest, so $\\bar{E}_A$ lies above the charge mean $\\bar{E}$ of Eq. {{mean-nernst}}: the charge-mean form $V = \\bar{E} + j\\,\\mathrm{ASR}$ understates the voltage the cell needs.',
+    )
+    .text(
+      given
+        ? `The basis gives the cell voltage, so Eq. {{uniform-voltage}} yields the resistance the design implies, for comparison with cell data, and Eq. {{cell-voltage}} states it with $\\bar{E}_A$. A given voltage ${power ? 'at or above the lowest' : 'at or below the highest'} local Nernst voltage${power && mixed ? ' available, $E - \\Delta V_x/t_\\mathrm{ion}$,' : ''} cannot be reached: the local current would reverse before the ${power ? 'utilization' : 'conversion'} is reached, and such a basis is refused.`
+        : `The basis gives the area-specific resistance, so the cell voltage is the root of Eq. {{uniform-voltage}}. Its left-hand side grows without bound as $V$ approaches the ${power ? 'lowest local Nernst voltage (the outlet\'s)' : 'highest local Nernst voltage (the outlet\'s)'} and ${power ? 'falls' : 'rises'} steadily away from it, so the root is unique; it is found by Newton's method kept inside that bracket, with the integral evaluated on the fuel path's own model of $E(u)$ (linear between its points, logarithmic near an inlet without product).`,
+    )
+    .text(
+      `The highest local current density, ${hotSpot(r).index === 0 ? 'at the inlet (the hot spot of the cell), follows from Eq. {{local-current}} with the inlet Nernst voltage' : `the hot spot of the cell, follows from Eq. {{local-current}} where the Nernst voltage is ${power ? 'highest' : 'lowest'}`}; a figure of section ${sectionNumber('charts')} shows the local current density and the Nernst voltage along the cell.`,
+    );
 }
 
 function faraday(step: Step, r: Results): void {
   const power = r.technology.mode === 'power';
   step
-    .text('The current of one cell of active area $A$ and of the stack of $N$ cells, each carrying the same current, and the stack power are')
+    .text(
+      mixedConductor(r)
+        ? 'The current of one cell of active area $A$ and of the stack of $N$ cells, each carrying the same current, the stack power, and the ionic current, the part of the current the ions carry through the electrolyte (the electronic leakage $i_e$ of Eq. {{local-current}} carries none), are'
+        : 'The current of one cell of active area $A$ and of the stack of $N$ cells, each carrying the same current, and the stack power are',
+    )
     .eq('current');
   if (r.operatingPoint.cellsFrom === 'power') {
     step
@@ -202,7 +263,11 @@ function heat(step: Step, r: Results): void {
       'The heat the stack releases follows from an energy balance over it, with every stream at the stack temperature (the isothermal boundary on which cooling is sized) and the enthalpies of the species data, heats of formation included, so that reforming and shift inside the stack are accounted for:',
     )
     .eq('heat-balance')
-    .text('Dividing the enthalpy the reactions release by the current gives the effective thermoneutral voltage of the actual gases, and the heat in terms of voltages:')
+    .text(
+      mixedConductor(r)
+        ? 'The reactions run at the rate of the ionic current: dividing the enthalpy they release by $I_\\mathrm{ion}$ gives the effective thermoneutral voltage of the actual gases, and the heat is what they release less the electric work at the terminals:'
+        : 'Dividing the enthalpy the reactions release by the current gives the effective thermoneutral voltage of the actual gases, and the heat in terms of voltages:',
+    )
     .eq('heat-voltage')
     .text(power ? 'A positive $Q$ must be removed from the stack.' : 'A positive $Q$ must be removed; a negative one (operation below the thermoneutral voltage) must be supplied to hold the stack temperature.');
   if (r.heat.coolingAir_mol_per_s !== null) {

@@ -6,6 +6,7 @@
 const UNITS: Record<string, { text: string; tex: string }> = {
   '': { text: '', tex: '' },
   V: { text: 'V', tex: '\\mathrm{V}' },
+  '1/V': { text: 'V⁻¹', tex: '\\mathrm{V^{-1}}' },
   mV: { text: 'mV', tex: '\\mathrm{mV}' },
   K: { text: 'K', tex: '\\mathrm{K}' },
   bar: { text: 'bar', tex: '\\mathrm{bar}' },
@@ -13,6 +14,7 @@ const UNITS: Record<string, { text: string; tex: string }> = {
   W: { text: 'W', tex: '\\mathrm{W}' },
   kW: { text: 'kW', tex: '\\mathrm{kW}' },
   m2: { text: 'm²', tex: '\\mathrm{m^2}' },
+  cm2: { text: 'cm²', tex: '\\mathrm{cm^2}' },
   'A/m2': { text: 'A/m²', tex: '\\mathrm{A/m^2}' },
   'A/cm2': { text: 'A/cm²', tex: '\\mathrm{A/cm^2}' },
   'ohm cm2': { text: 'Ω cm²', tex: '\\Omega\\,\\mathrm{cm^2}' },

@@ -100,16 +100,20 @@ it('tornado bars are the deviations of the low and high cases from the base', ()
 });
 
 it('states that no input moves a result rather than drawing bars of rounding noise', () => {
-  // With the cell voltage given, the electrolysis efficiency of a PEM stack follows from the voltage alone.
+  // Every case within 1e-12 of its base (rounding, not a dependence): a statement, no bars.
   const c = scaffoldCase('pem', 'electrolysis');
-  const f = figures(c.results).find((x) => x.id === 'fig-tornado-efficiency')!;
+  const noise = (x: { base: number }) => ({ base: x.base, low: x.base * (1 + 1e-12), high: x.base * (1 - 1e-12) });
+  const flat = { ...c.results, sensitivities: c.results.sensitivities.map((e) => ({ ...e, efficiency: noise(e.efficiency) })) };
+  const f = figures(flat).find((x) => x.id === 'fig-tornado-efficiency')!;
   expect(f.kind).toBe('statement');
-  expect(f.kind === 'statement' && f.statement).toMatch(/follows from the voltage alone/);
+  expect(f.kind === 'statement' && f.statement).toMatch(/None of the inputs studied moves the efficiency by more than rounding/);
+  // With the cell count and the resistance held, the efficiency of the real study does move.
+  expect(figures(c.results).find((x) => x.id === 'fig-tornado-efficiency')!.kind).toBe('chart');
 });
 
 it('centres the tornado axis on zero', () => {
   const c = scaffoldCase('solid-oxide', 'power');
-  const f = drawn(figures(c.results)).find((x) => x.id === 'fig-tornado-nernst')!;
+  const f = drawn(figures(c.results)).find((x) => x.id === 'fig-tornado-voltage')!;
   const spec = JSON.parse(f.spec.html) as Extract<ChartSpec, { kind: 'tornado' }>;
   expect(spec.x.min).toBe(-spec.x.max!);
   expect(Math.max(...spec.low.map(Math.abs), ...spec.high.map(Math.abs))).toBeLessThanOrEqual(spec.x.max!);
@@ -138,4 +142,44 @@ it('centres every tornado axis of the scaffolds and the demo projects on zero, i
       expect(Math.round(ticks), where).toBeLessThanOrEqual(5);
     }
   }
+});
+
+describe.each(CASES)('the current-density figure of the %s %s scaffold', (technology, mode) => {
+  const c = scaffoldCase(technology, mode);
+  const r = c.results;
+  const f = drawn(figures(r)).find((x) => x.id === 'fig-current-cell')!;
+  const spec = JSON.parse(f.spec.html) as Extract<ChartSpec, { kind: 'line' }>;
+
+  it('draws the local current density of the results against the share of the area, and the Nernst voltage on the right axis', () => {
+    const local = spec.series.find((s) => s.label === 'local current density')!;
+    expect(local.points).toEqual(r.fuelPath.points.map((p) => [p.areaFraction * 100, p.currentDensity_A_per_m2 / 1e4]));
+    const nernst = spec.series.find((s) => s.label === 'local Nernst voltage')!;
+    expect(nernst.right).toBe(true);
+    expect(nernst.points.map((p) => p[1])).toEqual(r.fuelPath.points.map((p) => p.nernst_V));
+    // The area runs from the inlet (0 %) to the outlet (100 %).
+    expect(local.points[0]![0]).toBe(0);
+    expect(local.points[local.points.length - 1]![0]).toBeCloseTo(100, 9);
+  });
+
+  it('marks the hot spot at the highest local current density, and says how far above the mean it lies', () => {
+    const marker = spec.series.find((s) => s.marker)!;
+    const max = r.headline.maxLocalCurrentDensity_A_per_m2 / 1e4;
+    expect(marker.points).toHaveLength(1);
+    expect(marker.points[0]![1]).toBe(max);
+    expect(Math.max(...r.fuelPath.points.map((p) => p.currentDensity_A_per_m2 / 1e4))).toBe(max);
+    expect(f.caption).toContain(`${(max / (r.operatingPoint.currentDensity_A_per_m2 / 1e4)).toPrecision(3)} times the mean`);
+  });
+});
+
+it('says beside the temperature sensitivity and the stack-temperature figure that the resistance is held without a law, and names the law where there is one', () => {
+  const held = figures(scaffoldCase('solid-oxide', 'power').results);
+  for (const id of ['fig-tornado-voltage', 'fig-stack-temperature']) {
+    const f = drawn(held).find((x) => x.id === id)!;
+    expect(f.notes.join(' '), id).toMatch(/area-specific resistance is held at its design value at every temperature: the basis gives no resistance-temperature law/);
+  }
+  const withLaw = scaffoldCase('solid-oxide', 'power', (y) => y.replace(/\n( *)cell-voltage: [^\n]*/, '\n$1area-specific-resistance: "0.35 ohm cm2"\n$1resistance-temperature-law: { activation-energy: "0.8 eV", reference-temperature: "750 C", source: R1 }'));
+  expect(withLaw.results.electrochemistry.resistanceLaw).not.toBeNull();
+  const f = drawn(figures(withLaw.results)).find((x) => x.id === 'fig-stack-temperature')!;
+  // 0.8 eV × 96.485 kJ/(mol eV) = 77.19 kJ/mol (CODATA 2018 Faraday constant).
+  expect(f.notes.join(' ')).toMatch(/follows the Arrhenius law of the basis, .* E_a = 77\.19 kJ\/mol and T_ref = 750 °C/);
 });

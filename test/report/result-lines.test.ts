@@ -16,6 +16,13 @@ function nernst(n: Record<string, number>, r: Results): number {
   const p = (k: string) => n[k]!;
   const ion = r.technology.ion;
   const liquid = r.technology.waterPhase === 'liquid';
+  if (r.fuelPath.nernstForm === 'oxygen-potential') {
+    // The oxygen concentration cell (the zirconia sensor's relation), E = RT/4F ln(p_O2,a/p_O2,f),
+    // and for carbonate + RT/2F ln(p_CO2,a/p_CO2,f).
+    let e = ((n.R! * n.T!) / (4 * n.F!)) * Math.log(p('p_O2_a') / p('p_O2_f'));
+    if (ion === 'carbonate') e += ((n.R! * n.T!) / (2 * n.F!)) * Math.log(p('p_CO2_a') / p('p_CO2_f'));
+    return e;
+  }
   let lnQ = Math.log(p('p_H2_f')) + 0.5 * Math.log(p('p_O2_a'));
   if (ion === 'oxide' && !liquid) lnQ -= Math.log(p('p_H2O_f'));
   if (ion === 'proton' && !liquid) lnQ -= Math.log(p('p_H2O_a'));
@@ -25,20 +32,30 @@ function nernst(n: Record<string, number>, r: Results): number {
 
 function formulas(r: Results): Record<string, Formula> {
   const power = r.technology.mode === 'power';
+  // A pure ionic conductor's lines leave out t_ion (it is 1) and the leakage; a power cell's carry ΔV_x.
+  const t = (n: Record<string, number>) => n.t ?? 1;
+  const dV = (n: Record<string, number>) => n.dV ?? 0;
   return {
     'standard-voltage': (n) => -(n.dH! - n.T! * n.dS!) / (2 * n.F!),
     'thermoneutral-voltage': (n) => -n.dH! / (2 * n.F!),
     'nernst-inlet': (n) => nernst(n, r),
     'nernst-outlet': (n) => nernst(n, r),
     'open-circuit': (n) => n.t! * n.Ein! - n.dV!,
+    // The uniform-voltage cell: i(u) = (t E − ΔV_x − V)/ASR (power) or (V − t E)/ASR, the leakage
+    // (1 − t) V/ASR carrying no ions; the mean ionic current density is the harmonic mean of the
+    // local one, U/∫du/(t E − ΔV_x − t V) = j ASR + (1 − t) V (electrolysis: U/∫du/(t V − t E) =
+    // j ASR − (1 − t) V), and averaging i over the area gives V = t Ē_A ∓ ΔV_x ∓ j ASR.
+    'uniform-voltage': (n) => n.U! / (n.j! * n.ASR! + (power ? 1 : -1) * (1 - t(n)) * n.V!),
     'cell-voltage': (n) =>
       r.electrochemistry.voltageSource === 'given'
         ? power
-          ? (n.t! * n.E! - n.dV! - n.V!) / n.j!
-          : (n.V! - n.E!) / n.j!
+          ? (t(n) * n.EA! - n.dV! - n.V!) / n.j!
+          : (n.V! - t(n) * n.EA!) / n.j!
         : power
-          ? n.t! * n.E! - n.dV! - n.j! * n.ASR!
-          : n.E! + n.j! * n.ASR!,
+          ? t(n) * n.EA! - n.dV! - n.j! * n.ASR!
+          : t(n) * n.EA! + n.j! * n.ASR!,
+    'hot-spot': (n) => (power ? (t(n) * n.E! - dV(n) - n.V!) / n.ASR! : (n.V! - t(n) * n.E!) / n.ASR!),
+    'ionic-current': (n) => n.N! * n.A! * (n.j! + (power ? 1 : -1) * ((1 - n.t!) * n.V!) / n.ASR!),
     'cell-current': (n) => n.j! * n.A!,
     cells: (n) => (n.P !== undefined ? Math.ceil(n.P / (n.V! * n.Icell! * (1 - (n.f ?? 0))) - 1e-9) : Math.ceil(n.m! / n.mc! - 1e-9)),
     'stack-current': (n) => n.N! * n.Icell!,
@@ -54,7 +71,11 @@ function formulas(r: Results): Record<string, Formula> {
     'eff-carnot': (n) => 1 - n.T0! / n.T!,
     'specific-energy': (n) => n.P! / (n.n! * n.M!) / 3.6e6,
     'eff-electrolysis': (n) => (n.n! * n.L!) / n.P!,
-    'heat-voltage': (n) => (power ? (n.I! * (n.Vtn! - n.V!)) / 1000 : (n.I! * (n.V! - n.Vtn!)) / 1000),
+    // The reactions release V_tn,eff per ionic charge; the terminals take or give the work I V.
+    'heat-voltage': (n) => {
+      const ionic = n.Iion ?? n.I!;
+      return (power ? ionic * n.Vtn! - n.I! * n.V! : n.I! * n.V! - ionic * n.Vtn!) / 1000;
+    },
     'heat-balance': (n) => n.Hin! - n.Hout! + n.W!,
     'carbon-margin': (n) => n.sc! - Math.max(n.st!, n.pr ?? -Infinity),
   };
@@ -86,6 +107,9 @@ function resultOf(id: string, r: Results): number | null {
     'carbon-margin': h.carbonMargin,
   };
   if (id === 'cell-voltage') return r.electrochemistry.voltageSource === 'given' ? r.electrochemistry.areaSpecificResistance_ohm_m2 * 1e4 : h.cellVoltage_V;
+  if (id === 'uniform-voltage') return r.electrochemistry.harmonicIntegral_per_V;
+  if (id === 'hot-spot') return h.maxLocalCurrentDensity_A_per_m2 / 1e4;
+  if (id === 'ionic-current') return r.electrochemistry.ionicCurrent_A;
   return id in table ? table[id]! : null;
 }
 
@@ -102,7 +126,7 @@ describe.each(CASES)('worked lines of the %s %s scaffold', (technology, mode) =>
 
   it('has the lines a review needs', () => {
     const ids = all.map((l) => l.id);
-    for (const id of ['standard-voltage', 'mean-nernst', 'cell-voltage', 'cell-current', 'stack-current', 'stack-power', 'oxygen', 'heat-voltage', 'heat-balance', 'eff-voltage']) expect(ids).toContain(id);
+    for (const id of ['standard-voltage', 'mean-nernst', 'uniform-voltage', 'cell-voltage', 'hot-spot', 'cell-current', 'stack-current', 'stack-power', 'oxygen', 'heat-voltage', 'heat-balance', 'eff-voltage']) expect(ids).toContain(id);
     expect(ids.some((id) => id.startsWith('nernst-'))).toBe(true);
     expect(ids).toContain(mode === 'power' ? 'fuel-flow' : 'hydrogen');
   });
@@ -159,4 +183,62 @@ it('the dry fuel flow by Faraday equals the stream table: methane in the pre-ref
   const feed = c.results.streams.find((s) => s.id === 'fuel-feed')!;
   const x = c.basis.fuelElectrode!.composition.CH4!;
   expect(line.value).toBeCloseTo(feed.speciesFlows_mol_per_s.CH4! / x, 9);
+});
+
+it.each(CASES)('the integral of the uniform-voltage line of the %s %s scaffold is that of the fuel-path table', (technology, mode) => {
+  // Recomputed from the table of the path alone: between two points E is taken linear in u, so the
+  // ionic driving voltage y = a E + b is too, and ∫du/y = Δu ln(y2/y1)/(y2 − y1) exactly
+  // (elementary calculus). The tool integrates its own model of E(u), linear between the same grid
+  // points: the two agree to the rounding of the sums, 1e-9 relative.
+  const c = scaffoldCase(technology, mode);
+  const r = c.results;
+  const line = lines(c).find((l) => l.id === 'uniform-voltage')!;
+  const n = line.inputs;
+  const t = n.t ?? 1;
+  const power = r.technology.mode === 'power';
+  const y = (e: number) => (power ? t * e - n.dV! - t * n.V! : t * n.V! - t * e);
+  expect(r.fuelPath.inlet, 'a table that starts at u = 0').not.toBe('first-increment');
+  let integral = 0;
+  const p = r.fuelPath.points;
+  for (let k = 1; k < p.length; k++) {
+    const [y1, y2] = [y(p[k - 1]!.nernst_V), y(p[k]!.nernst_V)];
+    const du = p[k]!.utilization - p[k - 1]!.utilization;
+    integral += Math.abs(y2 - y1) < 1e-12 * y1 ? du / y1 : (du * Math.log(y2 / y1)) / (y2 - y1);
+  }
+  expect(Math.abs(integral / line.value - 1)).toBeLessThan(1e-9);
+});
+
+it('the hot-spot line takes the inlet Nernst voltage, where the local current density peaks', () => {
+  const c = scaffoldCase('solid-oxide', 'power');
+  const line = lines(c).find((l) => l.id === 'hot-spot')!;
+  expect(line.inputs.E).toBe(c.results.headline.inletNernst_V);
+  expect(line.value).toBeGreaterThan(c.results.operatingPoint.currentDensity_A_per_m2 / 1e4);
+});
+
+describe('a solid oxide cell on carbon monoxide and dioxide (no hydrogen)', () => {
+  const coFed = (yaml: string) =>
+    yaml
+      .replace('composition: site-natural-gas ', 'composition: { CO: 0.7, CO2: 0.3 } ')
+      .replace(/\n {4}steam-to-carbon: 2\.5 [^\n]*/, '')
+      .replace(/pre-reforming: \{ kind: equilibrium, temperature: "480 C" \}/, 'pre-reforming: none');
+  const c = scaffoldCase('solid-oxide', 'power', coFed);
+  const all = lines(c);
+
+  it('derives the oxygen-potential form and evaluates the Nernst lines with it', () => {
+    expect(c.results.fuelPath.nernstForm).toBe('oxygen-potential');
+    const book = new EquationBook();
+    const steps = methodSection(c.results, book, 5);
+    expect(book.has('nernst-oxygen')).toBe(true);
+    const text = steps.flatMap((s) => s.blocks).flatMap((b) => (b.kind === 'paragraph' ? b.paragraph.map((p) => p.text ?? '') : [])).join(' ');
+    expect(text).toMatch(/holds no hydrogen/);
+    for (const id of ['nernst-inlet', 'nernst-outlet']) {
+      const line = all.find((l) => l.id === id)!;
+      expect(Object.keys(line.inputs).sort()).toEqual(['F', 'R', 'T', 'p_O2_a', 'p_O2_f']);
+      // E = RT/4F ln(p_O2,a/p_O2,f), the zirconia oxygen-sensor relation; the fuel gas's p_O2 near 1e-19 bar.
+      expect(line.inputs.p_O2_f).toBeLessThan(1e-15);
+      const e = ((line.inputs.R! * line.inputs.T!) / (4 * line.inputs.F!)) * Math.log(line.inputs.p_O2_a! / line.inputs.p_O2_f!);
+      expect(Math.abs(e - line.value)).toBeLessThan(1e-9);
+      expect(line.value).toBe(id === 'nernst-inlet' ? c.results.headline.inletNernst_V : c.results.headline.outletNernst_V);
+    }
+  });
 });

@@ -1,9 +1,10 @@
 /**
  * The figures of section 7, each drawn from the results (sweeps, fuel path, sensitivities) with
  * the design point marked: voltages and efficiency limits against temperature, Nernst voltage
- * and gas composition along the fuel path, carbon activity against steam-to-carbon ratio (or a
- * statement where the fuel has no carbon), polarisation, heat and power against current
- * density, and a tornado per headline result of the sensitivity study.
+ * and gas composition along the fuel path, local current density and Nernst voltage along the
+ * cell with its hot spot, carbon activity against steam-to-carbon ratio (or a statement where the
+ * fuel has no carbon), polarisation, heat and power against current density, the stack at other
+ * temperatures, and a tornado per headline result of the sensitivity study.
  */
 import type { Results } from '../../plant/results-schema.ts';
 import { formatNumber, formatPercent } from '../format.ts';
@@ -13,6 +14,7 @@ import type { Axis, ChartSpec, LineSeries } from './spec.ts';
 import type { TrustedHtml } from '../trusted-html.ts';
 import { speciesText } from '../species-text.ts';
 import { ZERO_CELSIUS_K } from '../../core/units.ts';
+import { hotSpot } from '../local-current.ts';
 
 export const CHART_WIDTH = 640;
 export const CHART_HEIGHT = 300;
@@ -129,14 +131,15 @@ function nernstAlongPath(r: Results): Draft {
   const axis = pathAxis(r);
   const series: LineSeries[] = [
     { label: 'local Nernst voltage', points: finite.map((x) => [x.utilization * 100, x.nernst_V]), style: 0 },
-    { label: 'mean Nernst voltage Ē', points: [[0, r.headline.meanNernst_V], [uEnd, r.headline.meanNernst_V]], style: 2, dashed: true },
+    { label: 'charge-mean Nernst voltage Ē', points: [[0, r.headline.meanNernst_V], [uEnd, r.headline.meanNernst_V]], style: 2, dashed: true },
+    { label: 'area-mean Nernst voltage Ē_A', points: [[0, r.electrochemistry.areaMeanNernst_V], [uEnd, r.electrochemistry.areaMeanNernst_V]], style: 3, dashed: true },
     { label: 'cell voltage', points: [[0, r.headline.cellVoltage_V], [uEnd, r.headline.cellVoltage_V]], style: 1 },
     { label: 'design point: outlet at the design utilization', points: [[uEnd, r.headline.outletNernst_V]], style: 0, marker: true },
   ];
   return {
     id: 'fig-nernst-path',
     title: 'Nernst voltage along the fuel path',
-    caption: `Local Nernst voltage from inlet to outlet, its charge average and the cell voltage; the marker is the outlet at ${formatPercent(r.electrochemistry.utilization, 3)}.`,
+    caption: `Local Nernst voltage from inlet to outlet, its charge average (the Gibbs energy per charge), its area average (which sets the cell voltage) and the cell voltage; the marker is the outlet at ${formatPercent(r.electrochemistry.utilization, 3)}.`,
     spec: { kind: 'line', x: { title: axis.title, min: 0, max: uEnd }, y: { title: 'Voltage (V)' }, series },
     data: chartData(
       [
@@ -146,7 +149,61 @@ function nernstAlongPath(r: Results): Draft {
       ],
       `${r.project.id}-nernst-path.csv`,
     ),
-    notes: finite.length < p.length ? ['The inlet point is left out of the curve: with no product at the inlet its Nernst voltage is unbounded.'] : [],
+    notes: inletNotes(r),
+  };
+}
+
+/** What the first point of the path stands for where the inlet has no product (fuelPath.inlet). */
+function inletNotes(r: Results): string[] {
+  if (r.fuelPath.inlet === 'limit') {
+    return ['One electrode is fed nothing, so at the inlet it holds no gas: the value shown at 0 % is the limit of the Nernst voltage as the first charge fills it with pure product (u → 0⁺), not the voltage of a gas present there.'];
+  }
+  if (r.fuelPath.inlet === 'first-increment') {
+    return [
+      `The inlet gas holds none of the product, so the Nernst voltage is unbounded at 0 % (it rises like −RT/2F ln u, while its integrals stay finite); the curve starts at the first equilibrated increment, ${formatPercent(r.fuelPath.inletUtilization, 3)}, whose value the results give for the inlet.`,
+    ];
+  }
+  return [];
+}
+
+/** Local current density (left) and Nernst voltage (right) against the share of the active area from the inlet, with the hot spot marked. */
+function currentAlongCell(r: Results): Draft {
+  const p = r.fuelPath.points;
+  const area = p.map((x) => x.areaFraction * 100);
+  const i = p.map((x) => x.currentDensity_A_per_m2 / 1e4);
+  const j = r.operatingPoint.currentDensity_A_per_m2 / 1e4;
+  const { index, point } = hotSpot(r);
+  const max = r.headline.maxLocalCurrentDensity_A_per_m2 / 1e4;
+  const power = r.technology.mode === 'power';
+  const axis = pathAxis(r);
+  const where = index === 0 ? 'at the inlet' : `at ${formatNumber(point.areaFraction * 100, 3)} % of the area`;
+  return {
+    id: 'fig-current-cell',
+    title: 'Local current density and Nernst voltage along the cell',
+    caption: `The cell at one voltage ${formatNumber(r.headline.cellVoltage_V, 4)} V: the local current density at the terminals (left axis) follows the ${power ? 'excess of the local Nernst voltage over the cell voltage' : 'excess of the cell voltage over the local Nernst voltage'} (right axis), so ${power ? 'the inlet, where E is highest,' : 'the inlet, where E is lowest,'} carries the most current and the outlet the least. The highest local current density, ${formatNumber(max, 4)} A/cm² ${where}, is ${formatNumber(max / j, 3)} times the mean ${formatNumber(j, 4)} A/cm² (the hot spot, marked).`,
+    spec: {
+      kind: 'line',
+      x: { title: 'Active area from the inlet (%)', min: 0, max: 100 },
+      y: { title: 'Local current density (A/cm²)', min: 0 },
+      y2: { title: 'Voltage (V)' },
+      series: [
+        { label: 'local current density', points: p.map((x, k) => [area[k]!, i[k]!]), style: 0 },
+        { label: 'mean current density j', points: [[0, j], [100, j]], style: 0, dashed: true, reference: true },
+        { label: 'local Nernst voltage', points: p.map((x, k) => [area[k]!, x.nernst_V]), style: 1, right: true },
+        { label: 'cell voltage', points: [[0, r.headline.cellVoltage_V], [100, r.headline.cellVoltage_V]], style: 2, right: true, dashed: true },
+        { label: 'hot spot: highest local current density', points: [[point.areaFraction * 100, max]], style: 0, marker: true },
+      ],
+    },
+    data: chartData(
+      [
+        { header: 'active area from the inlet (%)', values: area, digits: 4 },
+        { header: axis.label, values: p.map((x) => x.utilization * 100), digits: 4 },
+        { header: 'local current density (A/cm²)', values: i, digits: 4 },
+        { header: 'Nernst voltage (V)', values: p.map((x) => x.nernst_V), digits: 5 },
+      ],
+      `${r.project.id}-current-cell.csv`,
+    ),
+    notes: inletNotes(r),
   };
 }
 
@@ -225,14 +282,14 @@ function polarisation(r: Results): Draft {
   return {
     id: 'fig-polarisation',
     title: 'Cell voltage against current density',
-    caption: `The lumped-resistance line of the voltage model at the design utilization (area-specific resistance ${formatNumber(r.electrochemistry.areaSpecificResistance_ohm_m2 * 1e4)} Ω cm²), with the design point.`,
+    caption: `The uniform-voltage cell at the design utilization and area-specific resistance (${formatNumber(r.electrochemistry.areaSpecificResistance_ohm_m2 * 1e4)} Ω cm²), the voltage solved again at each current density; the dashed line is the area-mean driving voltage at the design point.`,
     spec: {
       kind: 'line',
       x: jAxis(),
       y: { title: 'Cell voltage (V)' },
       series: [
         { label: 'cell voltage', points: s.map((p) => [p.currentDensity_A_per_m2 / 1e4, p.cellVoltage_V]), style: 0 },
-        { label: 'effective mean Nernst voltage', points: [[0, r.electrochemistry.effectiveNernst_V], [s[s.length - 1]!.currentDensity_A_per_m2 / 1e4, r.electrochemistry.effectiveNernst_V]], style: 2, dashed: true },
+        { label: r.technology.mode === 'power' ? 'area-mean driving voltage at the design point, t_ion Ē_A − ΔV_x' : 'area-mean driving voltage at the design point, t_ion Ē_A', points: [[0, r.electrochemistry.effectiveNernst_V], [s[s.length - 1]!.currentDensity_A_per_m2 / 1e4, r.electrochemistry.effectiveNernst_V]], style: 2, dashed: true },
         { label: 'design point', points: [[j, r.headline.cellVoltage_V]], style: 0, marker: true },
       ],
     },
@@ -279,7 +336,53 @@ function heatAndPower(r: Results): Draft {
   };
 }
 
-type Output = 'meanNernst_V' | 'efficiency' | 'stackHeat_W';
+/**
+ * What the studies at other temperatures hold the resistance to: its Arrhenius law, or its design
+ * value where the basis gives none (then a colder stack shows no rise in resistance), said beside
+ * every figure that varies the stack temperature.
+ */
+function resistanceNote(r: Results): string {
+  const law = r.electrochemistry.resistanceLaw;
+  if (!law) {
+    return 'The area-specific resistance is held at its design value at every temperature: the basis gives no resistance-temperature law (operating-point.resistance-temperature-law), so these figures show only the thermodynamic effect of temperature, while a real cell\'s resistance rises as it cools.';
+  }
+  return `The area-specific resistance follows the Arrhenius law of the basis, ASR(T) = ASR(T_ref) exp[(E_a/R)(1/T − 1/T_ref)] with E_a = ${formatNumber(law.activationEnergy_J_per_mol / 1000, 4)} kJ/mol and T_ref = ${formatNumber(C(law.referenceTemperature_K), 4)} °C (${law.source}).`;
+}
+
+/** Cell voltage and efficiency of the same stack at other temperatures (cells, current density and utilization held). */
+function stackAgainstTemperature(r: Results): Draft | null {
+  const s = r.sweeps.stackTemperature;
+  if (s.length < 2) return null;
+  const power = r.technology.mode === 'power';
+  const t = s.map((p) => C(p.temperature_K));
+  const td = C(r.conditions.temperature_K);
+  const eff = power ? r.headline.electricalEfficiencyLhv : r.efficiency.electrolysisEfficiencyLhv;
+  const series: LineSeries[] = [
+    { label: 'cell voltage', points: s.map((p) => [C(p.temperature_K), p.cellVoltage_V]), style: 0 },
+    { label: power ? 'net electrical efficiency (LHV)' : 'electrolysis efficiency (LHV)', points: s.map((p) => [C(p.temperature_K), p.efficiency * 100]), style: 1, right: true, dashed: true },
+    { label: 'design point: cell voltage', points: [[td, r.headline.cellVoltage_V]], style: 0, marker: true },
+  ];
+  if (eff !== null) series.push({ label: 'design point: efficiency', points: [[td, eff * 100]], style: 0, marker: true, right: true });
+  return {
+    id: 'fig-stack-temperature',
+    title: 'The stack at other temperatures',
+    caption: `The same ${formatNumber(r.headline.cells)} cells at the design current density and ${power ? 'utilization' : 'conversion'}, the cell voltage solved again at each stack temperature; the markers are the design point.`,
+    spec: { kind: 'line', x: { title: 'Stack temperature (°C)', min: Math.min(...t), max: Math.max(...t) }, y: { title: 'Cell voltage (V)' }, y2: { title: 'Efficiency (%)' }, series },
+    data: chartData(
+      [
+        { header: 'stack temperature (°C)', values: t, digits: 5 },
+        { header: 'area-specific resistance (Ω cm²)', values: s.map((p) => p.areaSpecificResistance_ohm_m2 * 1e4), digits: 4 },
+        { header: 'cell voltage (V)', values: s.map((p) => p.cellVoltage_V), digits: 5 },
+        { header: 'efficiency (%)', values: s.map((p) => p.efficiency * 100), digits: 4 },
+        { header: 'stack heat (kW)', values: s.map((p) => p.stackHeat_W / 1000), digits: 4 },
+      ],
+      `${r.project.id}-stack-temperature.csv`,
+    ),
+    notes: [resistanceNote(r)],
+  };
+}
+
+type Output = 'cellVoltage_V' | 'efficiency' | 'stackHeat_W';
 
 /**
  * Axis limits centred on zero that hold every value, on a 1-2-5 step, with a tick spacing that
@@ -296,7 +399,7 @@ function symmetric(values: number[]): { min: number; max: number; step: number }
 function tornado(r: Results, output: Output): Draft {
   const power = r.technology.mode === 'power';
   const meta: Record<Output, { title: string; axis: string; scale: number; file: string }> = {
-    meanNernst_V: { title: 'Sensitivity of the mean Nernst voltage', axis: 'Change of the mean Nernst voltage (mV)', scale: 1000, file: 'nernst' },
+    cellVoltage_V: { title: 'Sensitivity of the cell voltage', axis: 'Change of the cell voltage (mV)', scale: 1000, file: 'voltage' },
     efficiency: { title: power ? 'Sensitivity of the net electrical efficiency' : 'Sensitivity of the electrolysis efficiency', axis: 'Change of the efficiency (percentage points)', scale: 100, file: 'efficiency' },
     stackHeat_W: { title: 'Sensitivity of the stack heat', axis: 'Change of the stack heat (kW)', scale: 0.001, file: 'heat' },
   };
@@ -308,19 +411,20 @@ function tornado(r: Results, output: Output): Draft {
   const high = list.map((e) => delta(e[output].high, e[output].base));
   const labels = list.map((e) => `${e.input} ${e.step}`);
   const notes = list.filter((e) => e.note !== null && (e[output].low === null || e[output].high === null)).map((e) => `${e.input}: ${e.note}`);
+  if (list.some((e) => e.path === 'conditions.operating-temperature')) notes.push(`Operating temperature: ${resistanceNote(r)}`);
   const base = list[0]?.[output].base;
   if ([...low, ...high].every((d) => d === 0)) {
     return {
       kind: 'statement',
       id: `fig-tornado-${m.file}`,
       title: m.title,
-      statement: `None of the inputs studied moves the ${output === 'efficiency' ? 'efficiency' : output === 'meanNernst_V' ? 'mean Nernst voltage' : 'stack heat'} by more than rounding: ${output === 'efficiency' ? 'with the cell voltage given, the efficiency follows from the voltage alone' : 'it does not depend on them at this design point'}, so there are no bars to draw.`,
+      statement: `None of the inputs studied moves the ${output === 'efficiency' ? 'efficiency' : output === 'cellVoltage_V' ? 'cell voltage' : 'stack heat'} by more than rounding: it does not depend on them at this design point, so there are no bars to draw.`,
     };
   }
   return {
     id: `fig-tornado-${m.file}`,
     title: m.title,
-    caption: `Change from the base case${base === undefined ? '' : ` (${output === 'meanNernst_V' ? `${formatNumber(base, 5)} V` : output === 'efficiency' ? formatPercent(base) : `${formatNumber(base / 1000)} kW`})`} when one input at a time moves down (low case) or up (high case) by the step given, all else held, the cell count included.`,
+    caption: `Change from the base case${base === undefined ? '' : ` (${output === 'cellVoltage_V' ? `${formatNumber(base, 5)} V` : output === 'efficiency' ? formatPercent(base) : `${formatNumber(base / 1000)} kW`})`} when one input at a time moves down (low case) or up (high case) by the step given, all else held, the cell count and the area-specific resistance included (the cell voltage is solved again).`,
     spec: { kind: 'tornado', x: { title: m.axis, ...symmetric([...low, ...high]) }, categories: labels, low, high, lowLabel: 'low case', highLabel: 'high case' },
     data: chartData(
       [
@@ -337,16 +441,19 @@ function tornado(r: Results, output: Output): Draft {
 }
 
 export function figures(r: Results): Figure[] {
+  const stack = stackAgainstTemperature(r);
   const drafts: Draft[] = [
     voltagesAgainstTemperature(r),
     limitsAgainstTemperature(r),
     nernstAlongPath(r),
+    currentAlongCell(r),
     compositionAlongPath(r),
     carbonAgainstSteam(r),
     polarisation(r),
     heatAndPower(r),
+    ...(stack ? [stack] : []),
   ];
-  if (r.sensitivities.length) drafts.push(tornado(r, 'meanNernst_V'), tornado(r, 'efficiency'), tornado(r, 'stackHeat_W'));
+  if (r.sensitivities.length) drafts.push(tornado(r, 'cellVoltage_V'), tornado(r, 'efficiency'), tornado(r, 'stackHeat_W'));
   return drafts.map((d, i): Figure => {
     if ('kind' in d && d.kind === 'statement') return { ...d, number: i + 1 };
     const drawn = d as Exclude<Draft, { kind: 'statement' }>;

@@ -13,7 +13,7 @@ import { eqRef } from './common.ts';
 /** The mean Nernst voltage and the cell voltage, as the voltage efficiency puts them in. */
 function voltages(r: Results, book: EquationBook): { mean: QuantitySpec; V: QuantitySpec } {
   return {
-    mean: { name: 'E', value: r.headline.meanNernst_V, unit: 'V', origin: `mean Nernst voltage, ${eqRef(book, 'mean-nernst')}` },
+    mean: { name: 'E', value: r.headline.meanNernst_V, unit: 'V', origin: `charge-mean Nernst voltage, ${eqRef(book, 'mean-nernst')}` },
     V: { name: 'V', value: r.headline.cellVoltage_V, unit: 'V', origin: 'cell voltage, above' },
   };
 }

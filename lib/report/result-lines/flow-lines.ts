@@ -1,6 +1,7 @@
 /**
  * The worked lines of the flows by Faraday's law: the charge basis and the dry fuel flow (power
- * mode), the hydrogen produced (electrolysis), the oxygen and the air-electrode feed.
+ * mode), the hydrogen produced (electrolysis), the oxygen and the air-electrode feed, each from the
+ * ionic current (the current the ions carry; the stack current for a pure ionic conductor).
  */
 import type { DesignBasis } from '../../basis/types.ts';
 import type { Results } from '../../plant/results-schema.ts';
@@ -17,12 +18,18 @@ export function meanCharge(dry: Readonly<Record<string, number>>): number {
   return z;
 }
 
-const current = (r: Results): QuantitySpec => ({ name: 'I', value: r.headline.totalCurrent_A, unit: 'A', origin: 'stack current, above' });
+/** The current Faraday's law takes: the ionic current (the stack current for a pure ionic conductor). */
+export const ionicCurrent = (r: Results): QuantitySpec => ({
+  name: 'I',
+  value: r.electrochemistry.ionicCurrent_A,
+  unit: 'A',
+  origin: r.electrochemistry.ionicTransferenceNumber < 1 ? 'ionic current, above' : 'stack current, above (t_ion = 1: all of it ionic)',
+});
 
 /** The charge of the fuel fed and the dry fuel flow of a fuel cell, by Faraday's law. */
 function fuelLines(r: Results, basis: DesignBasis): LineSpec[] {
   if (r.technology.mode !== 'power' || !basis.fuelElectrode) return [];
-  const I = current(r);
+  const I = ionicCurrent(r);
   const U: QuantitySpec = { name: 'U', value: r.electrochemistry.utilization, unit: '', origin: 'fuel utilization, design input' };
   const z = meanCharge(basis.fuelElectrode.composition);
   return [
@@ -33,7 +40,7 @@ function fuelLines(r: Results, basis: DesignBasis): LineSpec[] {
       equation: 'charge-basis',
       relation: 'fuel',
       quantities: [I, U, constF, { name: 'z', value: z, unit: '', origin: 'electrons per molecule averaged over the dry fuel composition (design input)' }],
-      value: r.headline.totalCurrent_A / (r.electrochemistry.utilization * F * z),
+      value: r.electrochemistry.ionicCurrent_A / (r.electrochemistry.utilization * F * z),
       unit: 'mol/s',
     },
   ];
@@ -50,7 +57,7 @@ function productLines(r: Results): LineSpec[] {
       equation: 'production',
       relation: 'hydrogen',
       lhs: co > 0 ? '\\dot n_\\mathrm{H_2} + \\dot n_\\mathrm{CO}' : '\\dot n_\\mathrm{H_2}',
-      quantities: [current(r), constF],
+      quantities: [ionicCurrent(r), constF],
       value: r.efficiency.hydrogenProduction_mol_per_s + co,
       unit: 'mol/s',
     },
@@ -63,7 +70,7 @@ function oxygenLines(r: Results): LineSpec[] {
   const oxygen = power ? r.operatingPoint.oxygenConsumed_mol_per_s : r.efficiency.oxygenProduction_mol_per_s;
   if (oxygen === null) return [];
   const lines: LineSpec[] = [
-    { id: 'oxygen', title: power ? 'Oxygen consumed' : 'Oxygen produced', equation: power ? 'oxygen' : 'production', relation: 'oxygen', quantities: [current(r), constF], value: oxygen, unit: 'mol/s' },
+    { id: 'oxygen', title: power ? 'Oxygen consumed' : 'Oxygen produced', equation: power ? 'oxygen' : 'production', relation: 'oxygen', quantities: [ionicCurrent(r), constF], value: oxygen, unit: 'mol/s' },
   ];
   const air = r.streams.find((s) => s.id === 'air-inlet');
   const uAir = r.operatingPoint.airUtilization;

@@ -1,24 +1,32 @@
 /**
- * The worked lines of the stack's heat: from the voltages and from the enthalpy balance.
+ * The worked lines of the stack's heat: from the voltages (the reactions at the rate of the ionic
+ * current, the electric work at the terminals) and from the enthalpy balance.
  */
 import type { Results } from '../../plant/results-schema.ts';
-import type { LineSpec } from '../calc-line.ts';
+import type { LineSpec, QuantitySpec } from '../calc-line.ts';
 
 export function heatLines(r: Results): LineSpec[] {
   const power = r.technology.mode === 'power';
+  const mixed = r.electrochemistry.ionicTransferenceNumber < 1;
   const h = r.headline;
   const heat = r.heat;
+  const I: QuantitySpec = { name: 'I', value: h.totalCurrent_A, unit: 'A', origin: 'stack current, above' };
+  const Iion: QuantitySpec = { name: 'Iion', value: r.electrochemistry.ionicCurrent_A, unit: 'A', origin: 'ionic current, above' };
+  const Vtn: QuantitySpec = { name: 'Vtn', value: r.electrochemistry.effectiveThermoneutralVoltage_V, unit: 'V', origin: `enthalpy released by the reactions over the ${mixed ? 'ionic ' : ''}current` };
+  const V: QuantitySpec = { name: 'V', value: h.cellVoltage_V, unit: 'V', origin: 'cell voltage, above' };
   return [
     {
       id: 'heat-voltage',
       title: power ? 'Stack heat from the voltages' : 'Stack heat from the voltages (negative: heat to supply)',
       equation: 'heat-voltage',
       relation: 'heat',
-      quantities: [
-        { name: 'I', value: h.totalCurrent_A, unit: 'A', origin: 'stack current, above' },
-        { name: 'Vtn', value: r.electrochemistry.effectiveThermoneutralVoltage_V, unit: 'V', origin: 'enthalpy released by the reactions over the current' },
-        { name: 'V', value: h.cellVoltage_V, unit: 'V', origin: 'cell voltage, above' },
-      ],
+      quantities: mixed
+        ? power
+          ? [Iion, Vtn, I, V]
+          : [I, V, Iion, Vtn]
+        : power
+          ? [I, Vtn, V]
+          : [I, V, Vtn],
       value: heat.isothermalHeat_W / 1000,
       unit: 'kW',
     },

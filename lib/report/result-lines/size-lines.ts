@@ -76,6 +76,32 @@ function stackLines(r: Results): LineSpec[] {
   return lines;
 }
 
+/** A mixed conductor's ionic current, which the flows follow: the stack current with the electronic leakage added (power) or taken off (electrolysis). */
+function ionicLines(r: Results): LineSpec[] {
+  const e = r.electrochemistry;
+  if (e.ionicTransferenceNumber >= 1) return [];
+  const op = r.operatingPoint;
+  return [
+    {
+      id: 'ionic-current',
+      title: 'Ionic current of the stack (the electronic leakage carries no ions)',
+      equation: 'current',
+      relation: 'ionic',
+      quantities: [
+        { name: 'N', value: r.headline.cells, unit: '', origin: op.cellsFrom === 'cells' ? 'cell count, design input' : 'cell count, above' },
+        { name: 'A', value: op.activeArea_m2 * 1e4, unit: 'cm2', origin: 'active area, design input' },
+        { name: 'j', value: op.currentDensity_A_per_m2 / 1e4, unit: 'A/cm2', origin: 'current density, design input' },
+        { name: 't', value: e.ionicTransferenceNumber, unit: '', origin: 'ionic transference number, design input' },
+        { name: 'V', value: r.headline.cellVoltage_V, unit: 'V', origin: 'cell voltage, above' },
+        { name: 'ASR', value: e.areaSpecificResistance_ohm_m2 * 1e4, unit: 'ohm cm2', origin: e.voltageSource === 'given' ? 'implied by the given voltage, above' : 'design input' },
+      ],
+      value: e.ionicCurrent_A,
+      unit: 'A',
+      digits: 6,
+    },
+  ];
+}
+
 export function sizeLines(r: Results, basis: DesignBasis): LineSpec[] {
   const op = r.operatingPoint;
   const cellCurrent: LineSpec = {
@@ -91,5 +117,5 @@ export function sizeLines(r: Results, basis: DesignBasis): LineSpec[] {
     unit: 'A',
   };
   const cells = cellsLine(r, basis);
-  return [cellCurrent, ...(cells ? [cells] : []), ...stackLines(r)];
+  return [cellCurrent, ...(cells ? [cells] : []), ...stackLines(r), ...ionicLines(r)];
 }

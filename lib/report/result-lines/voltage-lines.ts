@@ -1,14 +1,18 @@
 /**
  * The worked lines of the voltages: E° and V_tn of the hydrogen reaction, the Nernst voltage at
- * the inlet and the outlet with their partial pressures, the mean Nernst voltage, the open-circuit
- * and the cell voltage (or the resistance a given voltage implies).
+ * the inlet and the outlet with their partial pressures (by the quotient, or by the oxygen
+ * potential where the fuel gas holds no hydrogen), the charge-mean Nernst voltage, the
+ * open-circuit voltage, the uniform-voltage condition with the solved voltage (or the implied
+ * resistance), the cell voltage in the area-mean form, and the highest local current density.
  */
 import type { Results } from '../../plant/results-schema.ts';
 import { FARADAY_C_PER_MOL as F } from '../../thermo/constants.ts';
-import { activeQuotient } from '../../electrochem/electrolytes.ts';
+import { activeQuotient, type QuotientTerm } from '../../electrochem/electrolytes.ts';
 import type { LineSpec, QuantitySpec } from '../calc-line.ts';
 import type { EquationBook } from '../equation-book.ts';
-import { pressureName } from '../equations.ts';
+import { coupleQuotient, pressureName } from '../equations.ts';
+import { formatNumber } from '../format.ts';
+import { hotSpot } from '../local-current.ts';
 import { sectionNumber } from '../outline.ts';
 import { constF, constR, eqRef, quantitiesOf } from './common.ts';
 
@@ -44,75 +48,143 @@ export function standardLines(r: Results, book: EquationBook): LineSpec[] {
   ];
 }
 
-/** The Nernst voltage at one point of the fuel path, with that point's partial pressures. */
-export function nernstLine(r: Results, book: EquationBook, where: 'inlet' | 'outlet'): LineSpec | null {
-  const points = r.fuelPath.points;
-  const point = where === 'inlet' ? points[0]! : points[points.length - 1]!;
-  const value = where === 'inlet' ? r.headline.inletNernst_V : r.headline.outletNernst_V;
-  if (value === null) return null;
-  const terms = activeQuotient(r.technology.ion, r.technology.waterPhase);
+/** Where the inlet value of the path comes from, for the title and note of the inlet line. */
+function inletText(r: Results): { at: string; note: string } {
+  const u1 = Number((r.fuelPath.inletUtilization * 100).toPrecision(3));
+  switch (r.fuelPath.inlet) {
+    case 'limit':
+      return { at: 'u → 0⁺, a limit', note: 'one electrode is fed nothing: its gas is the pure product of the first increment, and this is the limit of E as u → 0⁺, not the value of a gas present at u = 0' };
+    case 'first-increment':
+      return { at: `first increment, u = ${u1} %`, note: `the inlet gas holds no product, so E is unbounded at u = 0; this is E of the first equilibrated increment, u = ${u1} % of the ${r.technology.mode === 'power' ? 'utilization' : 'conversion'}, where the path starts` };
+    default:
+      return { at: 'u = 0', note: '' };
+  }
+}
+
+/** The partial pressures a Nernst line puts in, in the order of its terms: from the gas of the point, or, for the fuel side of the couple, from its element potentials. */
+function pressuresAt(r: Results, point: Results['fuelPath']['points'][number], where: string, terms: readonly QuotientTerm[], couple: boolean): QuantitySpec[] {
   const seen = new Set<string>();
   const pressures: QuantitySpec[] = [];
   for (const term of terms) {
     const name = pressureName(term);
     if (seen.has(name)) continue;
     seen.add(name);
-    const side = term.electrode === 'f' ? point.fuelSide : point.airSide;
-    const total = term.electrode === 'f' ? r.conditions.fuelPressure_bar : r.conditions.airPressure_bar;
+    const fuel = term.electrode === 'f';
+    if (couple && fuel) {
+      pressures.push({ name, value: point.fuelCouple_bar![term.species]!, unit: 'bar', origin: `equilibrated fuel-electrode gas at the ${where}: from its element potentials` });
+      continue;
+    }
+    const side = fuel ? point.fuelSide : point.airSide;
+    const total = fuel ? r.conditions.fuelPressure_bar : r.conditions.airPressure_bar;
     pressures.push({
       name,
       value: (side[term.species] ?? 0) * total,
       unit: 'bar',
-      origin: `${term.electrode === 'f' ? 'fuel' : 'air'}-electrode gas at the ${where}: mole fraction × ${term.electrode === 'f' ? 'fuel' : 'air'}-electrode pressure`,
+      origin: `${fuel ? 'fuel' : 'air'}-electrode gas at the ${where}: mole fraction × ${fuel ? 'fuel' : 'air'}-electrode pressure`,
     });
   }
+  return pressures;
+}
+
+/** The Nernst voltage at one point of the fuel path, with that point's partial pressures, by the form a reader can evaluate it with (fuelPath.nernstForm). */
+export function nernstLine(r: Results, book: EquationBook, where: 'inlet' | 'outlet'): LineSpec {
+  const points = r.fuelPath.points;
+  const point = where === 'inlet' ? points[0]! : points[points.length - 1]!;
+  const value = where === 'inlet' ? r.headline.inletNernst_V : r.headline.outletNernst_V;
+  const couple = r.fuelPath.nernstForm === 'oxygen-potential';
+  const terms = couple ? coupleQuotient(r) : activeQuotient(r.technology.ion, r.technology.waterPhase);
+  const inlet = inletText(r);
+  const T: QuantitySpec = { name: 'T', value: r.conditions.temperature_K, unit: 'K', origin: 'operating temperature, design input' };
+  const standard: QuantitySpec[] = couple ? [] : [{ name: 'E0', value: r.fuelPath.standardVoltage_V, unit: 'V', origin: 'standard reversible voltage above' }];
   return {
     id: `nernst-${where}`,
-    title: `Nernst voltage at the ${where} (${where === 'inlet' ? 'u = 0' : `u = ${Number(point.utilization.toPrecision(4))}`})`,
-    equation: 'nernst',
+    title: `Nernst voltage at the ${where} (${where === 'inlet' ? inlet.at : `u = ${Number(point.utilization.toPrecision(4))}`})${couple ? ', from the oxygen potential' : ''}`,
+    equation: couple ? 'nernst-oxygen' : 'nernst',
     relation: 'voltage',
     lhs: where === 'inlet' ? 'E_\\mathrm{in}' : 'E_\\mathrm{out}',
-    quantities: [
-      { name: 'E0', value: r.fuelPath.standardVoltage_V, unit: 'V', origin: 'standard reversible voltage above' },
-      constR,
-      { name: 'T', value: r.conditions.temperature_K, unit: 'K', origin: 'operating temperature, design input' },
-      constF,
-      ...pressures,
-    ],
+    quantities: [...standard, constR, T, constF, ...pressuresAt(r, point, where, terms, couple)],
     value,
     unit: 'V',
+    ...(where === 'inlet' && inlet.note ? { note: inlet.note } : {}),
   };
 }
 
-/** The cell voltage from the resistance, or the resistance a given voltage implies: the relation of Eq. cell-voltage that applies, with its quantities in its order. */
-function cellVoltageLine(r: Results, book: EquationBook): LineSpec {
+/** Numbers the voltage lines share: the transference number, the crossover allowance, the current density and resistance, the cell voltage, the utilization. */
+function voltagePool(r: Results, book: EquationBook): Record<string, QuantitySpec> {
   const e = r.electrochemistry;
   const h = r.headline;
-  const asrOhmCm2 = e.areaSpecificResistance_ohm_m2 * 1e4;
   const given = e.voltageSource === 'given';
-  const pool: Record<string, QuantitySpec> = {
-    t: { name: 't', value: e.ionicTransferenceNumber, unit: '', origin: 'design input' },
-    E: { name: 'E', value: h.meanNernst_V, unit: 'V', origin: `mean Nernst voltage, ${eqRef(book, 'mean-nernst')}` },
+  const power = r.technology.mode === 'power';
+  return {
+    U: { name: 'U', value: e.utilization, unit: '', origin: `${power ? 'fuel utilization' : 'conversion of the feed'}, design input` },
+    t: { name: 't', value: e.ionicTransferenceNumber, unit: '', origin: 'ionic transference number, design input' },
     dV: { name: 'dV', value: e.crossoverAllowance_V, unit: 'V', origin: 'crossover allowance, design input' },
-    V: { name: 'V', value: h.cellVoltage_V, unit: 'V', origin: 'cell voltage, design input' },
+    V: { name: 'V', value: h.cellVoltage_V, unit: 'V', origin: given ? 'cell voltage, design input' : `cell voltage: the root of ${eqRef(book, 'uniform-voltage')}` },
     j: { name: 'j', value: r.operatingPoint.currentDensity_A_per_m2 / 1e4, unit: 'A/cm2', origin: 'current density, design input' },
-    ASR: { name: 'ASR', value: asrOhmCm2, unit: 'ohm cm2', origin: 'design input' },
+    ASR: {
+      name: 'ASR',
+      value: e.areaSpecificResistance_ohm_m2 * 1e4,
+      unit: 'ohm cm2',
+      origin: given ? `implied by the given voltage: the root of ${eqRef(book, 'uniform-voltage')}` : e.resistanceLaw ? 'design input, at the operating temperature by its Arrhenius law' : 'design input',
+    },
+    EA: { name: 'EA', value: e.areaMeanNernst_V, unit: 'V', origin: `area-mean Nernst voltage, ${eqRef(book, 'cell-voltage')}, weighted by the local current of ${eqRef(book, 'local-current')} at this V` },
+  };
+}
+
+/** The uniform-voltage condition with this design's numbers (both sides the same number at the solved V or the implied ASR), and the cell voltage or resistance in the area-mean form. */
+function cellVoltageLines(r: Results, book: EquationBook): LineSpec[] {
+  const e = r.electrochemistry;
+  const h = r.headline;
+  const given = e.voltageSource === 'given';
+  const pool = voltagePool(r, book);
+  const uniform: LineSpec = {
+    id: 'uniform-voltage',
+    title: given
+      ? `Uniform-voltage condition at the given ${formatNumber(h.cellVoltage_V, 5)} V, solved for the resistance`
+      : `Uniform-voltage condition, solved for the cell voltage V = ${formatNumber(h.cellVoltage_V, 6)} V`,
+    equation: 'uniform-voltage',
+    relation: 'balance',
+    quantities: quantitiesOf(book, 'uniform-voltage', 'balance', pool),
+    value: e.harmonicIntegral_per_V,
+    unit: '1/V',
+    digits: 6,
+    note: `both sides give the number shown; the integral runs over E(u) of the ${r.fuelPath.points.length} points of the fuel path (linear between them${r.fuelPath.inlet === 'first-increment' ? ', logarithmic near the inlet' : ''}; figure and table in section ${sectionNumber('charts')})`,
   };
   const relation = given ? 'resistance' : 'voltage';
   const line = { id: 'cell-voltage', equation: 'cell-voltage', relation, quantities: quantitiesOf(book, 'cell-voltage', relation, pool) };
-  return given
-    ? { ...line, title: 'Area-specific resistance implied by the given cell voltage', value: asrOhmCm2, unit: 'ohm cm2', digits: 4 }
-    : { ...line, title: 'Cell voltage from the area-specific resistance', value: h.cellVoltage_V, unit: 'V' };
+  const cell: LineSpec = given
+    ? { ...line, title: 'Area-specific resistance implied by the given cell voltage (area-mean form)', value: e.areaSpecificResistance_ohm_m2 * 1e4, unit: 'ohm cm2', digits: 4 }
+    : { ...line, title: 'Cell voltage from the area-specific resistance (area-mean form)', value: h.cellVoltage_V, unit: 'V' };
+  return [uniform, cell];
 }
 
-/** The mean Nernst voltage, the open-circuit voltage of a fuel cell at a wet inlet, and the cell voltage. */
+/** The highest local current density: the local current of the terminals where it peaks (the inlet, the hot spot). */
+function hotSpotLine(r: Results, book: EquationBook): LineSpec {
+  const { index, point } = hotSpot(r);
+  const pool = voltagePool(r, book);
+  const at = index === 0 ? `the inlet${r.fuelPath.inlet === 'first-increment' ? ' (first increment)' : ''}` : `u = ${Number(point.utilization.toPrecision(4))}`;
+  const E: QuantitySpec = { name: 'E', value: point.nernst_V, unit: 'V', origin: `Nernst voltage at ${at}, the ${r.technology.mode === 'power' ? 'highest' : 'lowest'} along the cell` };
+  return {
+    id: 'hot-spot',
+    title: `Highest local current density, at ${at} (the hot spot)`,
+    equation: 'local-current',
+    relation: 'terminal',
+    lhs: 'i_\\mathrm{max}',
+    quantities: quantitiesOf(book, 'local-current', 'terminal', { ...pool, E }),
+    value: r.headline.maxLocalCurrentDensity_A_per_m2 / 1e4,
+    unit: 'A/cm2',
+    note: `${formatNumber(r.headline.maxLocalCurrentDensity_A_per_m2 / r.operatingPoint.currentDensity_A_per_m2, 3)} times the mean current density`,
+  };
+}
+
+/** The charge-mean Nernst voltage (an indicator), the open-circuit voltage of a fuel cell, the uniform-voltage condition, the cell voltage and the hot spot. */
 export function voltageLines(r: Results, book: EquationBook): LineSpec[] {
   const e = r.electrochemistry;
   const h = r.headline;
   const lines: LineSpec[] = [
     {
       id: 'mean-nernst',
-      title: 'Mean Nernst voltage along the fuel path',
+      title: 'Charge-mean Nernst voltage along the fuel path (an indicator: the Gibbs energy per unit charge)',
       equation: 'mean-nernst',
       relation: 'mean',
       quantities: [{ name: 'U', value: e.utilization, unit: '', origin: 'design input' }],
@@ -121,7 +193,7 @@ export function voltageLines(r: Results, book: EquationBook): LineSpec[] {
       note: `evaluated numerically over the ${r.fuelPath.points.length} points of the fuel path (figure and table in section ${sectionNumber('charts')})`,
     },
   ];
-  if (r.technology.mode === 'power' && h.inletNernst_V !== null && h.openCircuit_V !== null) {
+  if (r.technology.mode === 'power') {
     lines.push({
       id: 'open-circuit',
       title: 'Open-circuit voltage at the inlet',
@@ -136,5 +208,5 @@ export function voltageLines(r: Results, book: EquationBook): LineSpec[] {
       unit: 'V',
     });
   }
-  return [...lines, cellVoltageLine(r, book)];
+  return [...lines, ...cellVoltageLines(r, book), hotSpotLine(r, book)];
 }

@@ -1,7 +1,8 @@
 /**
- * Section 2, the summary: the headline numbers a review reads first, the findings of the
- * calculation and of the basis check (results.notes and the loader's warnings, each with the
- * field it concerns) and the conclusions that follow from the numbers, in plain sentences.
+ * Section 2, the summary: the headline numbers a review reads first, the conclusions that follow
+ * from the numbers, in plain sentences, and the findings of the calculation and of the basis
+ * check (results.findings and the loader's warnings), each with its severity in words, the basis
+ * field it concerns and the assumptions that bear on it.
  */
 import type { DesignBasis } from '../../basis/types.ts';
 import type { Results } from '../../plant/results-schema.ts';
@@ -12,8 +13,18 @@ import { pairs, type Table } from '../table.ts';
 import { sectionNumber } from '../outline.ts';
 
 export interface Finding {
+  /** Critical, Warning or Info: the severity in words, as the page and the print show it. */
+  severity: string;
+  /** For the page's style: critical, warning or info. */
+  level: 'critical' | 'warning' | 'info';
+  /** Where it comes from and what kind it is: "calculation: water-loop-short", or "basis check". */
+  origin: string;
   /** The basis field it concerns, e.g. "operating-point.cell-voltage". */
   field: string;
+  /** Other fields it bears on, joined: "conditions.allowed-air-temperature-rise", or "". */
+  related: string;
+  /** The assumptions that bear on it, each with its state: "A1 (confirmed)", or "". */
+  assumptions: string;
   text: string;
   source: 'calculation' | 'basis check';
 }
@@ -21,7 +32,16 @@ export interface Finding {
 export interface SummarySection {
   headline: Table;
   findings: Finding[];
+  /** One sentence counting the findings by severity, or saying there are none. */
+  findingsCount: string;
   conclusions: string[];
+}
+
+/** Beside the inlet Nernst voltage where it is not that of a gas at the inlet (fuelPath.inlet). */
+function inletRemark(r: Results): string {
+  if (r.fuelPath.inlet === 'limit') return ' (limit u → 0⁺: no feed on one electrode)';
+  if (r.fuelPath.inlet === 'first-increment') return ` (first increment, u = ${formatPercent(r.fuelPath.inletUtilization, 2)}: unbounded at the dry inlet)`;
+  return '';
 }
 
 function headlineRows(r: Results): [string, string][] {
@@ -30,8 +50,10 @@ function headlineRows(r: Results): [string, string][] {
   const rows: [string, string][] = [
     ['Operating temperature', formatTemperature(r.conditions.temperature_K)],
     ['Fuel-electrode / air-electrode pressure', `${formatNumber(r.conditions.fuelPressure_bar)} / ${formatNumber(r.conditions.airPressure_bar)} bar`],
-    ['Nernst voltage, inlet / mean / outlet', `${h.inletNernst_V === null ? 'unbounded (dry inlet)' : formatQuantity(h.inletNernst_V, 'V')} / ${formatQuantity(h.meanNernst_V, 'V')} / ${formatQuantity(h.outletNernst_V, 'V')}`],
-    ['Cell voltage', `${formatQuantity(h.cellVoltage_V, 'V')} (${r.electrochemistry.voltageSource === 'given' ? 'given' : 'from the area-specific resistance'})`],
+    ['Nernst voltage, inlet / outlet', `${formatQuantity(h.inletNernst_V, 'V')}${inletRemark(r)} / ${formatQuantity(h.outletNernst_V, 'V')}`],
+    ['Nernst voltage, area mean / charge mean', `${formatQuantity(r.electrochemistry.areaMeanNernst_V, 'V')} / ${formatQuantity(h.meanNernst_V, 'V')}`],
+    ['Cell voltage', `${formatQuantity(h.cellVoltage_V, 'V')} (${r.electrochemistry.voltageSource === 'given' ? 'given' : 'from the area-specific resistance, one voltage over the cell'})`],
+    ['Local current density, mean / highest (hot spot)', `${formatQuantity(r.operatingPoint.currentDensity_A_per_m2 / 1e4, 'A/cm²')} / ${formatQuantity(h.maxLocalCurrentDensity_A_per_m2 / 1e4, 'A/cm²')}`],
     ['Cells / cell current / stack current', `${formatInteger(h.cells)} / ${formatQuantity(h.cellCurrent_A, 'A')} / ${formatQuantity(h.totalCurrent_A, 'A')}`],
   ];
   if (power) {
@@ -60,9 +82,11 @@ function headlineRows(r: Results): [string, string][] {
   return rows;
 }
 
-function conclusions(r: Results, basis: DesignBasis, hazards: HazardAssessment, checks: readonly CheckResult[]): string[] {
+function conclusions(r: Results, basis: DesignBasis, hazards: HazardAssessment, checks: readonly CheckResult[], findings: readonly Finding[]): string[] {
   const h = r.headline;
   const out: string[] = [];
+  const critical = findings.filter((f) => f.level === 'critical').length;
+  if (critical) out.push(`The calculation raises ${critical} critical ${critical === 1 ? 'finding' : 'findings'} (below): the basis contradicts itself or the stack as stated would be damaged, and the design must change before it is issued.`);
   const j = formatQuantity(r.operatingPoint.currentDensity_A_per_m2 / 1e4, 'A/cm²');
   if (r.technology.mode === 'power') {
     const eff = h.electricalEfficiencyLhv === null ? '' : ` at a net electrical efficiency of ${formatPercent(h.electricalEfficiencyLhv)} (LHV)`;
@@ -82,6 +106,10 @@ function conclusions(r: Results, basis: DesignBasis, hazards: HazardAssessment, 
         : `Below the thermoneutral voltage (${formatQuantity(r.electrochemistry.effectiveThermoneutralVoltage_V, 'V')}) the stack absorbs ${formatPower(-h.stackHeat_W)}: this heat must be supplied to hold the stack temperature.`,
     );
   }
+  const last = r.fuelPath.points[r.fuelPath.points.length - 1]!;
+  out.push(
+    `With one voltage over each cell the local current density follows the local Nernst voltage: it peaks at ${formatQuantity(h.maxLocalCurrentDensity_A_per_m2 / 1e4, 'A/cm²')} (${formatNumber(h.maxLocalCurrentDensity_A_per_m2 / r.operatingPoint.currentDensity_A_per_m2, 3)} times the mean) near the inlet and falls to ${formatQuantity(last.currentDensity_A_per_m2 / 1e4, 'A/cm²')} at the outlet.`,
+  );
   if (h.carbonMargin !== null && h.minimumSteamToCarbon !== null) {
     out.push(
       h.carbonMargin >= 0
@@ -92,10 +120,13 @@ function conclusions(r: Results, basis: DesignBasis, hazards: HazardAssessment, 
     out.push('The fuel contains no carbon, so carbon deposition does not arise.');
   }
   const open = basis.assumptions.filter((a) => a.open);
+  const contradicted = r.findings.filter((f) => f.code === 'assumption-contradicted').flatMap((f) => f.assumptions);
   out.push(
-    open.length
-      ? `${open.length} of ${basis.assumptions.length} assumptions are still open (${open.map((a) => a.id).join(', ')}); the results hold only once they are confirmed.`
-      : `All ${basis.assumptions.length} assumptions are confirmed.`,
+    `${
+      open.length
+        ? `${open.length} of ${basis.assumptions.length} assumptions are still open (${open.map((a) => a.id).join(', ')}); the results hold only once they are confirmed.`
+        : `All ${basis.assumptions.length} assumptions are marked confirmed.`
+    }${contradicted.length ? ` The results contradict ${contradicted.length === 1 ? 'the confirmed assumption' : 'the confirmed assumptions'} ${contradicted.join(', ')} (findings below).` : ''}`,
   );
   const danger = hazards.cautions.filter((c) => c.severity === 'danger').length;
   out.push(`Section ${sectionNumber('hazards')} raises ${hazards.cautions.length} hazard cautions, ${danger} of them at danger level, for the hazard study of the design.`);
@@ -104,10 +135,42 @@ function conclusions(r: Results, basis: DesignBasis, hazards: HazardAssessment, 
   return out;
 }
 
-export function summarySection(r: Results, basis: DesignBasis, hazards: HazardAssessment, checks: readonly CheckResult[]): SummarySection {
-  const findings: Finding[] = [
-    ...r.notes.map((n): Finding => ({ field: n.path, text: n.message, source: 'calculation' })),
-    ...basis.warnings.map((w): Finding => ({ field: w.path, text: w.message, source: 'basis check' })),
+const SEVERITY: Record<Finding['level'], string> = { critical: 'Critical', warning: 'Warning', info: 'Info' };
+
+/** The findings of the calculation (most severe first) and the warnings of the basis check, as the summary lists them. */
+function findingItems(r: Results, basis: DesignBasis): Finding[] {
+  const state = (id: string) => {
+    const a = basis.assumptions.find((x) => x.id === id);
+    return a ? `${id} (${a.open ? 'open' : 'confirmed'})` : id;
+  };
+  return [
+    ...r.findings.map(
+      (f): Finding => ({
+        severity: SEVERITY[f.severity],
+        level: f.severity,
+        origin: `calculation: ${f.code}`,
+        field: f.path,
+        related: f.related.join(', '),
+        assumptions: f.assumptions.map(state).join(', '),
+        text: f.message,
+        source: 'calculation',
+      }),
+    ),
+    ...basis.warnings.map((w): Finding => ({ severity: SEVERITY.warning, level: 'warning', origin: 'basis check', field: w.path, related: '', assumptions: '', text: w.message, source: 'basis check' })),
   ];
-  return { headline: pairs(headlineRows(r)), findings, conclusions: conclusions(r, basis, hazards, checks) };
+}
+
+/** "3 findings: 1 critical, 2 warnings." or that there are none. */
+function countText(findings: readonly Finding[]): string {
+  if (!findings.length) return 'No findings: the calculation and the check of the basis raised none.';
+  const parts = (['critical', 'warning', 'info'] as const)
+    .map((level) => [level, findings.filter((f) => f.level === level).length] as const)
+    .filter(([, n]) => n > 0)
+    .map(([level, n]) => `${n} ${level === 'critical' ? 'critical' : level === 'warning' ? (n === 1 ? 'warning' : 'warnings') : 'for information'}`);
+  return `${findings.length} ${findings.length === 1 ? 'finding' : 'findings'}: ${parts.join(', ')}.`;
+}
+
+export function summarySection(r: Results, basis: DesignBasis, hazards: HazardAssessment, checks: readonly CheckResult[]): SummarySection {
+  const findings = findingItems(r, basis);
+  return { headline: pairs(headlineRows(r)), findings, findingsCount: countText(findings), conclusions: conclusions(r, basis, hazards, checks, findings) };
 }
