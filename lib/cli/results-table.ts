@@ -4,13 +4,17 @@ import { sig } from '../core/plain-text.ts';
 
 const pct = (x: number | null) => (x === null ? '' : `${sig(x * 100, 4)} %`);
 const kw = (w: number) => `${sig(w / 1000, 5)} kW`;
+/** What the inlet value is where it is not that of a gas at the inlet (fuelPath.inlet). */
+const inlet: Record<Results['fuelPath']['inlet'], string> = { feed: '', limit: ' (limit u -> 0+)', 'first-increment': ' (first increment: unbounded at the dry inlet)' };
 
 export function headlineRows(r: Results): [string, string][] {
   const h = r.headline;
   const power = r.technology.mode === 'power';
   const rows: [string, string][] = [
-    ['Nernst voltage, inlet / mean / outlet', `${h.inletNernst_V === null ? 'unbounded (dry inlet)' : `${sig(h.inletNernst_V, 5)} V`} / ${sig(h.meanNernst_V, 5)} V / ${sig(h.outletNernst_V, 5)} V`],
+    ['Nernst voltage, inlet / outlet', `${sig(h.inletNernst_V, 5)} V${inlet[r.fuelPath.inlet]} / ${sig(h.outletNernst_V, 5)} V`],
+    ['Nernst voltage, area mean / charge mean', `${sig(r.electrochemistry.areaMeanNernst_V, 5)} V / ${sig(h.meanNernst_V, 5)} V`],
     ['cell voltage', `${sig(h.cellVoltage_V, 4)} V (${r.electrochemistry.voltageSource === 'given' ? 'given' : 'from area-specific resistance'})`],
+    ['local current density, mean / highest', `${sig(r.operatingPoint.currentDensity_A_per_m2 / 1e4, 4)} / ${sig(h.maxLocalCurrentDensity_A_per_m2 / 1e4, 4)} A/cm2`],
     ['cells, cell current, total current', `${h.cells}, ${sig(h.cellCurrent_A, 5)} A, ${sig(h.totalCurrent_A, 5)} A`],
     [power ? 'stack DC power / net power' : 'stack power input', power ? `${kw(h.stackPower_W)} / ${kw(h.netPower_W)}` : kw(h.stackPower_W)],
   ];

@@ -320,7 +320,5 @@ function calculateResults(basis: DesignBasis): Results {
     sensitivities: sensitivities(point, basis.sensitivity),
     hazards: assessHazards(hazardInput(basis, point)),
     findings,
-    // The findings as the document and the command line read them until they read `findings`.
-    notes: findings.map((f) => ({ path: f.path, message: f.message })),
   };
 }

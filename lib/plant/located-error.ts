@@ -6,6 +6,7 @@
 import { BasisError } from '../basis/diagnostics.ts';
 import type { DesignBasis, Diagnostic } from '../basis/types.ts';
 import { CalculationError, UserError, type CalculationInput } from '../core/errors.ts';
+import type { Finding } from './findings.ts';
 
 export function locatedDiagnostic(basis: DesignBasis, path: string, message: string, severity: Diagnostic['severity'] = 'error'): Diagnostic {
   // The value itself, else the nearest written parent (a default has no position of its own).
@@ -16,6 +17,16 @@ export function locatedDiagnostic(basis: DesignBasis, path: string, message: str
     at = basis.positions[probe];
   }
   return { severity, file: basis.file, line: at?.line ?? 1, column: at?.column ?? 1, path, message };
+}
+
+/**
+ * A finding as the command line and the site build print it, located like a diagnostic:
+ * `file:line:col: severity: path: message [code; assumptions A1]`.
+ */
+export function formatFinding(basis: DesignBasis, f: Finding): string {
+  const at = locatedDiagnostic(basis, f.path, f.message, 'warning');
+  const assumptions = f.assumptions.length ? `; assumptions ${f.assumptions.join(', ')}` : '';
+  return `${at.file}:${at.line}:${at.column}: ${f.severity}: ${f.path}: ${f.message} [${f.code}${assumptions}]`;
 }
 
 export function locatedError(basis: DesignBasis, path: string, message: string): BasisError {

@@ -88,9 +88,9 @@ export const resultsSchema = z
     headline: z
       .object({
         meanNernst_V: num('charge-mean Nernst voltage (1/U)∫E du along the fuel path: the Gibbs energy per charge, an indicator; the cell voltage follows from the uniform-voltage cell (electrochemistry.areaMeanNernst_V)'),
-        inletNernst_V: nullableNum('Nernst voltage at the inlet: of the inlet gas, its limit u → 0⁺, or at the first equilibrated increment where it is unbounded (fuelPath.inlet); a number in every result of this version (null only in earlier ones)'),
+        inletNernst_V: num('Nernst voltage at the inlet: of the inlet gas, its limit u → 0⁺, or at the first equilibrated increment where it is unbounded (fuelPath.inlet)'),
         outletNernst_V: num('Nernst voltage at the outlet'),
-        openCircuit_V: nullableNum('open-circuit voltage at the inlet: t_ion E_in − crossover allowance (power), t_ion E_in (electrolysis); a number in every result of this version (null only in earlier ones)'),
+        openCircuit_V: num('open-circuit voltage at the inlet: t_ion E_in − crossover allowance (power), t_ion E_in (electrolysis)'),
         cellVoltage_V: num('operating cell voltage'),
         stackVoltage_V: num('cells × cell voltage'),
         cells: z.number().int().describe('number of cells'),
@@ -120,7 +120,7 @@ export const resultsSchema = z
       effectiveThermoneutralVoltage_V: num('(H_in − H_out)/I_ion of the actual gases (power mode), (H_out − H_in)/I_ion (electrolysis)'),
       effectiveNernst_V: num('area-mean driving voltage: t_ion Ē_A − crossover allowance (power mode); t_ion Ē_A (electrolysis); V = it ∓ j·ASR'),
       areaMeanNernst_V: num('area-mean Nernst voltage Ē_A = ∫E dA/A of the uniform-voltage cell'),
-      harmonicIntegral_per_V: num('∫₀^U du/y(u), y the local ionic driving voltage t_ion E − ΔV_x − t_ion V (power) or t_ion (V − E) (electrolysis); U/(it) = j ASR ± (1 − t_ion) V'),
+      harmonicIntegral_per_V: num('∫₀^U du/y(u), y the local ionic driving voltage t_ion E − ΔV_x − t_ion V (power) or t_ion (V − E) (electrolysis); U/∫ = j ASR + (1 − t_ion) V (power) or j ASR − (1 − t_ion) V (electrolysis)'),
       ionicCurrent_A: num('Σ of the ionic currents of the cells: the charge rate that sets the flows by Faraday\'s law'),
       ionicCurrentDensity_A_per_m2: num('mean ionic current density: j + leakage (power), j − leakage (electrolysis)'),
       leakageCurrentDensity_A_per_m2: num('electronic leakage through a mixed conductor, (1 − t_ion) V/ASR'),
@@ -250,7 +250,6 @@ export const resultsSchema = z
     sensitivities: z.array(sensitivitySchema),
     hazards: hazardAssessmentSchema,
     findings: z.array(findingSchema).describe('what the calculation shows a reviewer must look at, most severe first (lib/plant/findings.ts)'),
-    notes: z.array(z.object({ path: z.string(), message: z.string() })).describe('the findings as path and message only, for readers of earlier results'),
   })
   .describe('cellbasis results of one design basis');
 

@@ -16,6 +16,11 @@ export class SiteProblems {
     for (const d of list) (d.severity === 'error' ? this.errors : this.warnings).push(formatDiagnostic(d));
   }
 
+  /** Findings of the calculation, already formatted (lib/plant/located-error.ts formatFinding): reported like warnings. */
+  findings(lines: readonly string[]): void {
+    this.warnings.push(...lines);
+  }
+
   error(file: string, message: string): void {
     this.errors.push(`${file}: ${message}`);
   }

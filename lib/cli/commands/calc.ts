@@ -5,7 +5,6 @@
 import type { Command } from '../command.ts';
 import { JSON_OPTION } from '../command.ts';
 import { loadProject } from '../load-project.ts';
-import { formatDiagnostic } from '../../basis/diagnostics.ts';
 import { json, table } from '../../core/plain-text.ts';
 import { headlineRows } from '../results-table.ts';
 
@@ -19,9 +18,9 @@ export const calcCommand: Command = {
   async run(args, io) {
     const basis = loadProject(args.positionals[0]!, io);
     const { calculate } = await import('../../plant/calculate.ts');
-    const { locatedDiagnostic } = await import('../../plant/located-error.ts');
+    const { formatFinding } = await import('../../plant/located-error.ts');
     const results = calculate(basis);
-    for (const note of results.notes) io.err(`${formatDiagnostic(locatedDiagnostic(basis, note.path, note.message, 'warning'))}\n`);
+    for (const finding of results.findings) io.err(`${formatFinding(basis, finding)}\n`);
     if (args.values.json) {
       io.out(json(results));
       return 0;

@@ -51,9 +51,9 @@ export const checkCommand: Command = {
       let calculated: [string, string][] = [];
       try {
         const { calculate } = await import('../../plant/calculate.ts');
-        const { locatedDiagnostic } = await import('../../plant/located-error.ts');
+        const { formatFinding } = await import('../../plant/located-error.ts');
         const results = calculate(result.basis);
-        for (const note of results.notes) io.err(`${formatDiagnostic(locatedDiagnostic(result.basis, note.path, note.message, 'warning'))}\n`);
+        for (const finding of results.findings) io.err(`${formatFinding(result.basis, finding)}\n`);
         calculated = headlineRows(results);
       } catch (error) {
         if (!(error instanceof BasisError)) throw error;
