@@ -3,6 +3,7 @@
 // names for a methane-fed nickel-anode solid oxide plant and a pure-hydrogen PEM unit.
 import { describe, expect, it } from 'vitest';
 import type { Mode, TechnologyId } from '../../lib/electrochem/technologies.ts';
+import { resultsSchema } from '../../lib/plant/results-schema.ts';
 import { run } from '../helpers/run-cli.ts';
 import { projectsRoot, scaffoldText } from '../helpers/scaffold-basis.ts';
 
@@ -15,13 +16,25 @@ describe('cellbasis calc', () => {
     const root = project('solid-oxide', 'power');
     const table = await run(['calc', 'p1'], root);
     expect(table.code).toBe(0);
-    expect(table.out).toMatch(/Nernst voltage, inlet \/ mean \/ outlet\s+0\.9\d+ V/);
     expect(table.out).toMatch(/electrical efficiency, net \(LHV \/ HHV\)/);
     const json = await run(['calc', 'p1', '--json'], root);
     const r = JSON.parse(json.out);
     expect(r.format).toBe('cellbasis-results/1');
     expect(r.headline.meanNernst_V).toBeGreaterThan(0.85);
     expect(r.headline.meanNernst_V).toBeLessThan(r.headline.inletNernst_V);
+    // The table shows the numbers of the results (5 significant figures): the inlet and outlet
+    // values, the area mean (the uniform-voltage cell's) beside the charge mean (an indicator),
+    // and the highest local current density beside the mean.
+    const sig5 = (x: number) => String(Number(x.toPrecision(5)));
+    expect(table.out).toContain(`Nernst voltage, inlet / outlet            ${sig5(r.headline.inletNernst_V)} V / ${sig5(r.headline.outletNernst_V)} V`);
+    expect(table.out).toContain(`Nernst voltage, area mean / charge mean   ${sig5(r.electrochemistry.areaMeanNernst_V)} V / ${sig5(r.headline.meanNernst_V)} V`);
+    expect(table.out).toMatch(/local current density, mean \/ highest\s+0\.4 \/ 0\.\d+ A\/cm2/);
+    // A power cell's area mean lies below its charge mean (the low-voltage outlet takes more area).
+    expect(r.electrochemistry.areaMeanNernst_V).toBeLessThan(r.headline.meanNernst_V);
+    // calc --json carries the findings, and the whole object passes the results schema.
+    expect(Array.isArray(r.findings)).toBe(true);
+    expect('notes' in r).toBe(false);
+    expect(resultsSchema.safeParse(r).success).toBe(true);
   });
 
   it('a cell voltage above the outlet Nernst voltage is located at operating-point.cell-voltage, exit 1', async () => {
