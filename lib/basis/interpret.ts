@@ -18,10 +18,17 @@ import { streamRules } from './stream-rules.ts';
 import type { Reader } from './reader.ts';
 import type { Conditions, DesignBasis } from './types.ts';
 
-/** The basis without what the loader adds (id, file, inputs in file order, warnings, positions). */
-export type InterpretedBasis = Omit<DesignBasis, 'id' | 'file' | 'inputs' | 'warnings' | 'positions'>;
+/** The basis without what the loader adds (id, file, inputs in file order, warnings, positions, cases). */
+export type InterpretedBasis = Omit<DesignBasis, 'id' | 'file' | 'inputs' | 'warnings' | 'positions' | 'cases'>;
 
-export function interpret(reader: Reader): InterpretedBasis | undefined {
+export interface InterpretOptions {
+  /** Mixtures the cases give as a feed: the base need not use them. */
+  mixturesUsedElsewhere?: ReadonlySet<string>;
+  /** Say nothing of unused mixtures (a case's basis: the base says it once). */
+  quietMixtures?: boolean;
+}
+
+export function interpret(reader: Reader, options: InterpretOptions = {}): InterpretedBasis | undefined {
   const document = readDocument(reader);
   const kind = readTechnology(reader);
   const conditionsRead = readConditions(reader, kind?.technology);
@@ -36,8 +43,9 @@ export function interpret(reader: Reader): InterpretedBasis | undefined {
   const { technology, mode } = kind;
   const cell = readCell(reader, technology, mode);
   const streams = readStreams(reader, technology, mode, conditionsRead, mixtures);
-  if (streams) {
+  if (streams && !options.quietMixtures) {
     for (const name of mixtures.keys()) {
+      if (options.mixturesUsedElsewhere?.has(name)) continue;
       if (!streams.feeds.some((f) => f.composition.origin === 'mixture' && f.composition.name === name)) {
         reader.findings.warning(['mixtures', name], `mixture ${name} is defined but no stream uses it`, 'key');
       }

@@ -7,7 +7,7 @@ import { z } from 'zod';
 import { readDataFile } from '../core/data-file.ts';
 import { parseQuantity, type Dimension } from '../core/units.ts';
 
-const LIMITED_INPUTS = ['pressure', 'current-density', 'active-area', 'cell-voltage', 'target-power', 'target-hydrogen', 'utilization', 'allowed-air-temperature-rise', 'activation-energy'] as const;
+const LIMITED_INPUTS = ['pressure', 'current-density', 'active-area', 'cell-voltage', 'target-power', 'target-hydrogen', 'utilization', 'allowed-air-temperature-rise', 'activation-energy', 'degradation-rate', 'operating-time'] as const;
 
 export type LimitedInput = (typeof LIMITED_INPUTS)[number];
 
@@ -29,6 +29,8 @@ const DIMENSIONS: Record<LimitedInput, Dimension> = {
   utilization: 'fraction',
   'allowed-air-temperature-rise': 'temperature-difference',
   'activation-energy': 'molar-energy',
+  'degradation-rate': 'degradation-rate',
+  'operating-time': 'time',
 };
 
 let cache: Map<LimitedInput, Limit> | undefined;

@@ -1,6 +1,7 @@
 /**
  * Loads a design basis: bytes → text (source-text.ts) → YAML tree (yaml-syntax.ts) → schema
- * (zod-findings.ts) → physics and consistency (interpret.ts) → `DesignBasis`, or every problem
+ * (zod-findings.ts) → physics and consistency (interpret.ts), and each operating case as a basis
+ * of its own (read-cases.ts) → `DesignBasis`, or every problem
  * found, each located at `file:line:col` and sorted by position. Warnings never stop a basis.
  */
 import { closeSync, openSync, readSync, statSync } from 'node:fs';
@@ -11,7 +12,8 @@ import { schemaFindings } from './zod-findings.ts';
 import { interpret } from './interpret.ts';
 import { locate } from './locate.ts';
 import { Reader } from './reader.ts';
-import { Findings, sortDiagnostics } from './diagnostics.ts';
+import { Findings, sortDiagnostics, type Path } from './diagnostics.ts';
+import { completeCases, mixturesNamedByCases, readCases } from './read-cases.ts';
 import type { DesignBasis, Diagnostic } from './types.ts';
 import { UserError } from '../core/errors.ts';
 
@@ -64,7 +66,8 @@ export function loadBasisText(text: string | Uint8Array, file: string, id: strin
   const findings = new Findings();
   const flagged = schemaFindings(parsed.data, findings);
   const reader = new Reader(parsed.data, flagged, findings);
-  const result = interpret(reader);
+  const result = interpret(reader, { mixturesUsedElsewhere: mixturesNamedByCases(parsed.data) });
+  const drafts = readCases(parsed.data, flagged, findings, result);
   const place = (f: Parameters<typeof locate>[3]) => locate(parsed.doc, parsed.lines, file, f);
   const located = findings.list.map(place);
   const errors = located.filter((d) => d.severity === 'error');
@@ -77,7 +80,9 @@ export function loadBasisText(text: string | Uint8Array, file: string, id: strin
     .sort((a, b) => position(a.where) - position(b.where))
     .map(({ input, where }) => ({ ...input.record, line: where.line, column: where.column }));
   const positions = valuePositions(parsed.doc, parsed.lines);
-  return { ok: true, basis: { id, file, ...result, inputs, warnings, positions }, warnings };
+  const base = { id, file, ...result, inputs, warnings, positions };
+  const at = (input: { at: Path }) => place({ severity: 'warning', at: input.at, target: 'value', message: '' });
+  return { ok: true, basis: { ...base, cases: completeCases(drafts, base, at, place) }, warnings };
 }
 
 /** Reads and checks a basis file; the id defaults to the name of its folder. */

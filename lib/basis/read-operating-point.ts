@@ -2,14 +2,14 @@
  * `operating-point:`: utilization (fuel-utilization in power mode, steam-conversion in
  * electrolysis), the air supply (air-utilization or air-ratio in power mode; sweep-ratio or
  * nothing in electrolysis), current density, the voltage model (cell-voltage or
- * area-specific-resistance), active area, and the stack size: cells and/or a target. When both
+ * area-specific-resistance, with its temperature law and degradation), active area, and the stack size: cells and/or a target. When both
  * a cell count and a target are given, both are kept (statedCells) and the calculation checks
  * that they agree within 2 %, since only it knows the power per cell.
  */
 import type { Mode } from '../electrochem/technologies.ts';
 import type { Path } from './diagnostics.ts';
 import type { Read, Reader } from './reader.ts';
-import type { AirSupply, OperatingPoint, ResistanceLaw, StackSize, VoltageModel } from './types.ts';
+import type { AirSupply, Degradation, DegradedQuantity, OperatingPoint, ResistanceLaw, StackSize, VoltageModel } from './types.ts';
 import { readTemperature } from './read-conditions.ts';
 import type { Dimension } from '../core/units.ts';
 import { limitProblem, type LimitedInput } from './limits.ts';
@@ -136,6 +136,34 @@ function resistanceLaw(reader: Reader, voltage: VoltageModel | undefined): Resis
   return { activationEnergyJPerMol: energy.si, ...(reference !== undefined ? { referenceTemperatureK: reference } : {}), source };
 }
 
+/**
+ * `degradation`: a rate and an operating time within their limits, and, for the cell voltage in
+ * power mode, a loss r t below the whole voltage.
+ */
+function degradation(reader: Reader, mode: Mode): Degradation | null | undefined {
+  const at = OP('degradation');
+  if (!reader.has(at)) return null;
+  const of = reader.text([...at, 'of']) as DegradedQuantity | undefined;
+  const rate = reader.scalar([...at, 'rate'], 'degradation-rate', 'degradation rate');
+  const time = reader.scalar([...at, 'operating-time'], 'time', 'operating time');
+  const beyond = (read: Read | undefined, input: 'degradation-rate' | 'operating-time', label: string) => {
+    const problem = read && (read.si < 0 ? `the ${label} is 0 or more, got ${read.text}` : limitProblem(input, label, read));
+    if (problem) reader.findings.error(read!.at, problem);
+    return problem ? undefined : read;
+  };
+  const r = beyond(rate, 'degradation-rate', 'degradation rate');
+  const t = beyond(time, 'operating-time', 'operating time');
+  if (!of || !r || !t) return undefined;
+  if (of === 'cell-voltage' && mode === 'power' && r.si * t.si >= 1) {
+    reader.findings.error(
+      t.at,
+      `a cell voltage falling by ${r.text} for ${t.text} loses ${String(Number((r.si * t.si * 100).toPrecision(4)))} % of it: nothing would be left (the linear law holds only for a loss well below the whole voltage)`,
+    );
+    return undefined;
+  }
+  return { of, ratePerS: r.si, operatingTimeS: t.si };
+}
+
 function size(reader: Reader, mode: Mode): { size: StackSize; statedCells?: number } | undefined {
   const refused: Record<string, string> = mode === 'power' ? { 'target-hydrogen': 'target-hydrogen belongs to electrolysis; in power mode give target-power or cells' } : {};
   const target = oneOf(reader, mode === 'power' ? ['target-power'] : ['target-power', 'target-hydrogen'], undefined, refused);
@@ -175,13 +203,15 @@ export function readOperatingPoint(reader: Reader, mode: Mode, sweep: { allowed:
   };
   const { utilization: u, air, currentDensity, voltage: v, activeArea, size: s, parasiticFraction } = values;
   const law = resistanceLaw(reader, v);
-  if (u === undefined || !air || !currentDensity || !v || law === undefined || !activeArea || !s || parasiticFraction === undefined) return undefined;
+  const aged = degradation(reader, mode);
+  if (u === undefined || !air || !currentDensity || !v || law === undefined || aged === undefined || !activeArea || !s || parasiticFraction === undefined) return undefined;
   return {
     utilization: u,
     air,
     currentDensityAPerM2: currentDensity.si,
     voltage: v,
     ...(law ? { resistanceLaw: law } : {}),
+    ...(aged ? { degradation: aged } : {}),
     activeAreaM2: activeArea.si,
     size: s.size,
     ...(s.statedCells !== undefined ? { statedCells: s.statedCells } : {}),

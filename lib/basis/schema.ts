@@ -8,7 +8,7 @@
  */
 import { z } from 'zod';
 import { MODES, TECHNOLOGY_NAMES } from '../electrochem/technologies.ts';
-import { DOCUMENT_STATUSES } from './types.ts';
+import { DEGRADED_QUANTITIES, DOCUMENT_STATUSES } from './types.ts';
 import { choice, composition, describeValue, flag, fraction, isoDate, number, quantity, speciesFractions, strict, text } from './schema-parts.ts';
 
 const STATUSES = DOCUMENT_STATUSES as unknown as readonly [string, ...string[]];
@@ -160,6 +160,17 @@ const operatingPointSection = strict(
       },
       'Arrhenius law of the area-specific resistance, ASR(T) = ASR_ref exp[(E_a/R)(1/T − 1/T_ref)], used where the temperature changes (temperature sweep and sensitivity); without it the resistance is held constant there',
     ).optional(),
+    degradation: strict(
+      {
+        rate: quantity('degradation-rate', 'loss per unit of operating time, e.g. "0.5 %/kh" (per cent per 1000 h)'),
+        of: choice(
+          DEGRADED_QUANTITIES,
+          'what the rate applies to: cell-voltage, the cell voltage at a given current density (it falls in power mode, rises in electrolysis); area-specific-resistance, the resistance (it grows)',
+        ),
+        'operating-time': quantity('time', 'operating time at which the point stands, e.g. "40000 h" or "40 kh"; "0 h" is the beginning of life'),
+      },
+      'degradation over operating time, linear at a constant rate (common practice, no source): ASR(t) = ASR₀ (1 + r t), or V(t) = V₀ (1 − r t) in power mode and V₀ (1 + r t) in electrolysis at the same current density; the cell-voltage or area-specific-resistance the basis gives are the beginning-of-life values',
+    ).optional(),
     'active-area': quantity('area', 'active area of one cell, e.g. "100 cm2"'),
     cells: number('number of cells (a positive whole number)', '1200').optional(),
     'target-power': quantity('power', 'net electric output (power mode) or electric input (electrolysis), e.g. "250 kW"').optional(),
@@ -199,6 +210,56 @@ const reference = strict({
   citation: text('the full citation'),
 });
 
+/** A case id: the key of a case under `cases:`, also its name in the results and the document. */
+export const CASE_ID = /^[a-z][a-z0-9-]{0,39}$/;
+
+/**
+ * What a case may change: any value of conditions, streams and operating-point, written exactly as
+ * in the base basis (every key optional); each key given replaces the base value whole.
+ */
+const caseOverrides = strict(
+  {
+    conditions: conditionsSection.partial().meta({ description: 'temperatures and pressures of this case' }).optional(),
+    streams: strict(
+      {
+        'fuel-electrode': fuelStream.partial().meta({ description: 'keys of the fuel-electrode feed this case changes' }).optional(),
+        'air-electrode': airStream.partial().meta({ description: 'keys of the air-electrode feed this case changes' }).optional(),
+      },
+      'the feeds of this case',
+    ).optional(),
+    'operating-point': operatingPointSection
+      .partial()
+      .meta({
+        description:
+          'the operating point of this case: its load (current-density, or target-power or target-hydrogen on the cells of the sizing case), utilizations, resistance, degradation',
+      })
+      .optional(),
+  },
+  'the values of the base basis this case changes, written exactly as there, with units and sources; a key given replaces the base value whole (and the base value it excludes: cell-voltage or area-specific-resistance, air-utilization or air-ratio, steam-to-carbon or steam-per-mole-fuel, a load)',
+);
+
+const operatingCase = strict(
+  {
+    title: text('what the case is, e.g. "Minimum turndown, 30 % load"'),
+    purpose: text('what it governs or checks, e.g. "the least fuel flow and the hottest cell voltage the controls must hold"'),
+    sizing: flag('true for the one case that fixes the hardware (cell count, active area, resistance); without one, the base values do').optional(),
+    overrides: caseOverrides.optional(),
+  },
+  'an operating case: the base basis with its overrides',
+);
+
+const casesSection = z
+  .record(
+    z.string().regex(CASE_ID, {
+      error: (issue) => `a case id is lower-case letters, digits and hyphens, starting with a letter, at most 40 characters (such as end-of-life), got ${describeValue(issue.input)}`,
+    }),
+    operatingCase,
+  )
+  .meta({
+    description:
+      'operating cases by id, in the order the document shows them: each is the base basis with its overrides; the sizing case fixes the hardware and every other case runs on it at its own load',
+  });
+
 export const basisSchema = strict(
   {
     document: documentSection,
@@ -208,6 +269,7 @@ export const basisSchema = strict(
     streams: streamsSection.optional(),
     'operating-point': operatingPointSection,
     sensitivity: sensitivitySection.optional(),
+    cases: casesSection.optional(),
     assumptions: z.array(assumption).meta({ description: 'assumptions, each with an id; open: true marks those still to verify' }).optional(),
     references: z.array(reference).meta({ description: 'references cited by id from sources and assumptions' }).optional(),
   },

@@ -110,6 +110,25 @@ export interface ResistanceLaw {
   source: string;
 }
 
+/** What a degradation rate applies to. */
+export const DEGRADED_QUANTITIES = ['cell-voltage', 'area-specific-resistance'] as const;
+
+export type DegradedQuantity = (typeof DEGRADED_QUANTITIES)[number];
+
+/**
+ * Degradation over operating time at a constant rate r (linear; common practice, no source):
+ * area-specific-resistance: ASR(t) = ASR₀ (1 + r t); cell-voltage: at the same current density
+ * V(t) = V₀ (1 − r t) in power mode, V₀ (1 + r t) in electrolysis. The voltage or resistance the
+ * basis gives is the beginning-of-life value V₀ or ASR₀.
+ */
+export interface Degradation {
+  of: DegradedQuantity;
+  /** r, per second of operation (SI; "0.5 %/kh" is 0.005 per 3.6e6 s). */
+  ratePerS: number;
+  /** t, seconds of operation. */
+  operatingTimeS: number;
+}
+
 export type StackSize =
   | { kind: 'cells'; cells: number }
   /** Target stack power: net electric output (power mode) or electric input (electrolysis), W. */
@@ -125,6 +144,8 @@ export interface OperatingPoint {
   voltage: VoltageModel;
   /** How the area-specific resistance changes with temperature; absent: held constant. */
   resistanceLaw?: ResistanceLaw;
+  /** Degradation at an operating time; absent: beginning of life. */
+  degradation?: Degradation;
   activeAreaM2: number;
   size: StackSize;
   /** When both a cell count and a target were given (and agree within 2 %), the cell count. */
@@ -190,6 +211,55 @@ export interface Diagnostic {
   message: string;
 }
 
+/** How a case states its load on the hardware of the sizing case. */
+export type CaseLoad =
+  /** The sizing case: its load and size as any basis states them (cells, or a target met at its current density). */
+  | 'sizing'
+  /** Its own current density (given by the case, or the base current density when the case states no load). */
+  | 'current-density'
+  /** A target net (power mode) or input (electrolysis) power, met by solving for the current density. */
+  | 'target-power'
+  /** A target hydrogen production (electrolysis), met by solving for the current density. */
+  | 'target-hydrogen';
+
+/**
+ * An operating case (`cases:` of the basis): the base basis with the overrides of the case. The
+ * sizing case fixes the hardware; every other case runs on it at its own load.
+ */
+export interface OperatingCase {
+  /** Its key under `cases:`, e.g. end-of-life; "base" for the base values when no case is marked sizing. */
+  id: string;
+  title: string;
+  purpose: string;
+  sizing: boolean;
+  load: CaseLoad;
+  /** Each value the case overrides, as written (path as in the base basis), with its source and position in the file. */
+  overrides: CaseOverride[];
+  /** Dotted paths of the keys the case overrides (the base paths: operating-point.target-power), values and non-scalar keys alike. */
+  overridden: string[];
+  /** The base basis with the case's overrides, validated as a basis of its own (it has no cases). */
+  basis: CaseBasis;
+}
+
+/** One value a case overrides, as written. */
+export interface CaseOverride {
+  /** The base path of the value, dotted: operating-point.degradation.rate, streams.fuel-electrode.composition. */
+  path: string;
+  /** Its label in the inputs table where it is a number with a unit, else its keys in words. */
+  label: string;
+  /** As written: "0.5 %/kh", "cell-voltage", "40000 h". */
+  text: string;
+  source?: string;
+  /** Where the value stands in the file (1-based). */
+  line: number;
+  column: number;
+  /** The value in SI with its unit, where it is a number with a unit (the inputs-table record). */
+  input?: InputRecord;
+}
+
+/** The basis of one case: a design basis without cases. */
+export type CaseBasis = Omit<DesignBasis, 'cases'>;
+
 export interface DesignBasis {
   /** Project id (the folder name under projects/). */
   id: string;
@@ -223,4 +293,10 @@ export interface DesignBasis {
    * calculation finds in a basis that passed validation.
    */
   positions: Record<string, { line: number; column: number }>;
+  /**
+   * The operating cases in the order written, the sizing case among them ([] when the basis
+   * defines none). When no case is marked sizing the base values are the sizing case, listed
+   * first with the id "base".
+   */
+  cases: OperatingCase[];
 }

@@ -63,6 +63,11 @@ function collect(issue: Issue, prefix: Path, data: unknown, out: Pending[]): voi
       return;
     }
   }
+  if (issue.code === 'invalid_key') {
+    // A key of a record that its key schema refuses (a case id): that schema's own message, at the key.
+    out.push({ path, message: issue.issues[0]?.message ?? issue.message, kind: 'unknown' });
+    return;
+  }
   if (issue.code === 'unrecognized_keys') {
     const messages = issue.message.split('\n');
     issue.keys.forEach((key, i) => out.push({ path: [...path, key], message: messages[i] ?? messages[0]!, kind: 'unknown' }));

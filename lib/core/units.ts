@@ -20,6 +20,8 @@ export const DIMENSIONS = [
   'current',
   'mass-flow',
   'molar-energy',
+  'time',
+  'degradation-rate',
   'fraction',
 ] as const;
 
@@ -48,6 +50,8 @@ export const SI_UNIT: Record<Dimension, string> = {
   current: 'A',
   'mass-flow': 'kg/s',
   'molar-energy': 'J/mol',
+  time: 's',
+  'degradation-rate': '1/s',
   fraction: '1',
 };
 
@@ -64,6 +68,8 @@ export const EXAMPLE: Record<Dimension, string> = {
   current: '"40 A"',
   'mass-flow': '"10 kg/h"',
   'molar-energy': '"80 kJ/mol" or "0.8 eV"',
+  time: '"40000 h" or "40 kh"',
+  'degradation-rate': '"0.5 %/kh" (per cent per 1000 h)',
   fraction: '0.85 or "85 %"',
 };
 
@@ -79,11 +85,13 @@ const ARTICLE: Record<Dimension, string> = {
   current: 'a current',
   'mass-flow': 'a mass flow',
   'molar-energy': 'an activation energy',
+  time: 'an operating time',
+  'degradation-rate': 'a degradation rate',
   fraction: 'a fraction',
 };
 
 export interface Quantity {
-  /** Value in the SI unit of its dimension (K, Pa, A/m2, ohm m2, m2, W, V, A, kg/s, J/mol, 1). */
+  /** Value in the SI unit of its dimension (K, Pa, A/m2, ohm m2, m2, W, V, A, kg/s, J/mol, s, 1/s, 1). */
   si: number;
   /** The number as written. */
   value: number;
