@@ -296,7 +296,7 @@ export function completeCases(
       load: draft.load,
       overrides: writtenValues(draft, inputs, base.positions),
       overridden: draft.overridden,
-      basis: { id: base.id, file: base.file, ...draft.interpreted, inputs, warnings: draft.warnings.map(locateWarning), positions },
+      basis: { id: base.id, file: base.file, ...draft.interpreted, inputs, warnings: draft.warnings.map(locateWarning), positions, cases: [] },
     };
   });
   if (cases.some((c) => c.sizing)) return cases;
@@ -308,7 +308,7 @@ export function completeCases(
     load: 'sizing',
     overrides: [],
     overridden: [],
-    basis: base,
+    basis: { ...base, cases: [] },
   };
   return [baseCase, ...cases];
 }

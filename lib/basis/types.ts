@@ -257,8 +257,8 @@ export interface CaseOverride {
   input?: InputRecord;
 }
 
-/** The basis of one case: a design basis without cases. */
-export type CaseBasis = Omit<DesignBasis, 'cases'>;
+/** The basis of one case: a design basis of its own, whose `cases` are []. */
+export type CaseBasis = DesignBasis;
 
 export interface DesignBasis {
   /** Project id (the folder name under projects/). */

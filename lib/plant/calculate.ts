@@ -1,7 +1,9 @@
 /**
  * Everything cellbasis computes for one design basis, as the results object of
- * lib/plant/results-schema.ts: the design point (fuel path, voltage, size, streams, heat,
- * efficiency), the carbon margin, the chart sweeps, the sensitivities and the hazards.
+ * lib/plant/results-schema.ts: the design point of the sizing case (fuel path, voltage, size,
+ * streams, heat, efficiency, supplies, degradation), the carbon margin, the chart sweeps, the
+ * sensitivities and the hazards; the operating cases on its hardware (cases.ts) and their
+ * envelope (envelope.ts).
  * Calculation errors in a valid basis are located at the field they concern.
  */
 import { FARADAY_C_PER_MOL as F } from '../thermo/constants.ts';
@@ -21,6 +23,8 @@ import { locateCalculationErrors } from './located-error.ts';
 import { enthalpyFlowW, gasFlow, gasMoleFractions, massFlowKgPerS, normalVolumeM3PerS, totalFlow, type Stream } from './streams.ts';
 import type { Results, StreamResult } from './results-schema.ts';
 import { finding, withAssumptions } from './findings.ts';
+import { caseFindings, caseResults } from './cases.ts';
+import { envelopeOf } from './envelope.ts';
 
 const HOUR = 3600;
 
@@ -94,7 +98,7 @@ interface Computed {
   h2KgPerH: number | null;
 }
 
-function computed(point: DesignPoint): Computed {
+function computed(point: DesignPoint, carbon: ReturnType<typeof carbonMargin> = carbonMargin(point)): Computed {
   const inputs = point.inputs;
   const power = inputs.mode === 'power';
   const airIn = point.streams.find((s) => s.id === 'air-inlet');
@@ -103,7 +107,7 @@ function computed(point: DesignPoint): Computed {
     point,
     inputs,
     power,
-    carbon: carbonMargin(point),
+    carbon,
     airIn,
     o2Consumed: power ? point.ionicCurrentA / (4 * F) : null,
     o2Fed: airIn ? (airIn.flows.O2 ?? 0) : null,
@@ -245,6 +249,48 @@ function heatOf({ point, inputs, power, o2Consumed }: Computed): Results['heat']
   };
 }
 
+/**
+ * What the plant supplies to the stack: the air-electrode gas (not liquid water). Power mode: the feed of the fuel electrode (before any
+ * pre-reformer) is the dry fuel with s mol of steam added per mol of it, so with x the steam's
+ * mole fraction in the feed and x_d in the dry fuel, s = (x − x_d)/(1 − x): fuel = ṁ_feed of the
+ * dry part, steam = its water beyond the dry fuel's. Electrolysis: the water (vapour and liquid)
+ * of the water electrode's inlet, and the water split, the net water the stack consumes.
+ */
+function supplyOf({ point, inputs, power }: Computed): Results['supply'] {
+  const kgPerH = (flows: Readonly<Record<string, number>>) => massFlowKgPerS(flows) * HOUR;
+  const waterKgPerH = (mol: number) => mol * getSpecies('H2O').molarMassKgPerMol * HOUR;
+  const water = (flows: Readonly<Record<string, number>>) => (flows.H2O ?? 0) + (flows['H2O(L)'] ?? 0);
+  const airIn = point.streams.find((s) => s.id === 'air-inlet');
+  const air = airIn && !(airIn.flows['H2O(L)'] ?? 0) ? kgPerH(airIn.flows) : null;
+  if (power) {
+    const feed = point.streams.find((s) => s.id === 'fuel-feed') ?? point.streams.find((s) => s.id === 'fuel-inlet');
+    if (!feed || !inputs.dryFuel || !inputs.fuelFeed) return { air_kg_per_h: air, fuel_kg_per_h: null, water_kg_per_h: null, waterSplit_kg_per_h: null };
+    const x = inputs.fuelFeed.H2O ?? 0;
+    const xDry = inputs.dryFuel.H2O ?? 0;
+    const steamPerDry = (x - xDry) / (1 - x);
+    const dryMol = totalFlow(feed.flows) / (1 + steamPerDry);
+    const dryFlows = Object.fromEntries(Object.entries(inputs.dryFuel).map(([k, v]) => [k, v * dryMol]));
+    return { air_kg_per_h: air, fuel_kg_per_h: kgPerH(dryFlows), water_kg_per_h: steamPerDry > 0 ? waterKgPerH(dryMol * steamPerDry) : null, waterSplit_kg_per_h: null };
+  }
+  const inlet = point.streams.find((s) => s.id === (inputs.technology.waterElectrode === 'fuel' ? 'fuel-inlet' : 'air-inlet'));
+  const fed = inlet ? water(inlet.flows) : 0;
+  return { air_kg_per_h: air, fuel_kg_per_h: null, water_kg_per_h: fed > 0 ? waterKgPerH(fed) : null, waterSplit_kg_per_h: waterKgPerH(Math.max(0, -netWater(point))) };
+}
+
+/** The degradation of the point, with the beginning-of-life cell it follows from; null at the beginning of life. */
+function degradationOf({ point, inputs }: Computed): Results['degradation'] {
+  const d = inputs.degradation;
+  if (!d || !point.degradation) return null;
+  return {
+    of: d.of,
+    rate_per_h: d.ratePerS * HOUR,
+    operatingTime_h: d.operatingTimeS / HOUR,
+    fraction: point.degradation.fraction,
+    beginningOfLifeCellVoltage_V: point.degradation.beginningOfLifeCellVoltageV,
+    beginningOfLifeAreaSpecificResistance_ohm_m2: point.degradation.beginningOfLifeResistanceOhmM2,
+  };
+}
+
 /** The findings of the design point and the one the carbon margin adds when it is negative, with the assumptions that bear on them. */
 function findingsOf({ point, inputs, carbon }: Computed, basis: DesignBasis): Results['findings'] {
   const found = [...point.findings];
@@ -262,25 +308,15 @@ function findingsOf({ point, inputs, carbon }: Computed, basis: DesignBasis): Re
   return withAssumptions(found, basis);
 }
 
-function calculateResults(basis: DesignBasis): Results {
-  const c = computed(evaluateBasis(basis));
-  const { point, inputs, carbon } = c;
-  const tech = inputs.technology;
-  const findings = findingsOf(c, basis);
+/** The sections of the results that every operating point has (the sizing case and every other case). */
+export type PointResults = Pick<Results, 'conditions' | 'headline' | 'electrochemistry' | 'operatingPoint' | 'streams' | 'efficiency' | 'heat' | 'carbon' | 'supply' | 'degradation' | 'findings'>;
+
+/** The sections of one operating point; `carbon` is its carbon margin when already found (a case on the same fuel gas). */
+export function pointResults(point: DesignPoint, basis: DesignBasis, carbon?: ReturnType<typeof carbonMargin>): PointResults {
+  const c = computed(point, carbon);
+  const margin = c.carbon;
   return {
-    format: 'cellbasis-results/1',
-    tool: { name: 'cellbasis', version: toolVersion() },
-    speciesData_sha256: speciesDataHash(),
-    project: { id: basis.id, title: basis.document.title, number: basis.document.number, revision: basis.document.revision, status: basis.document.status },
-    technology: { id: tech.id, name: tech.name, mode: inputs.mode, ion: tech.ion, waterPhase: tech.waterPhase, fuelGasEquilibrium: tech.fuelGasEquilibrium },
-    conditions: {
-      temperature_K: inputs.temperatureK,
-      fuelPressure_bar: inputs.fuelPressureBar,
-      airPressure_bar: inputs.airPressureBar,
-      fuelInletTemperature_K: inputs.fuelInletTemperatureK,
-      airInletTemperature_K: inputs.airInletTemperatureK,
-      ambientTemperature_K: inputs.ambientTemperatureK,
-    },
+    conditions: conditionsOf(c),
     headline: headlineOf(c),
     electrochemistry: electrochemistryOf(c),
     operatingPoint: operatingPointOf(c),
@@ -288,13 +324,60 @@ function calculateResults(basis: DesignBasis): Results {
     efficiency: efficiencyOf(c),
     heat: heatOf(c),
     carbon: {
-      steamToCarbon: carbon.steamToCarbon,
-      minimumSteamToCarbonStack: carbon.minimumSteamToCarbonStack,
-      minimumSteamToCarbonPreReformer: carbon.minimumSteamToCarbonPreReformer,
-      preReformerCarbonActivity: carbon.preReformerCarbonActivity,
-      inletCarbonActivity: carbon.inletCarbonActivity,
-      maxCarbonActivity: carbon.maxCarbonActivity,
+      steamToCarbon: margin.steamToCarbon,
+      minimumSteamToCarbonStack: margin.minimumSteamToCarbonStack,
+      minimumSteamToCarbonPreReformer: margin.minimumSteamToCarbonPreReformer,
+      preReformerCarbonActivity: margin.preReformerCarbonActivity,
+      inletCarbonActivity: margin.inletCarbonActivity,
+      maxCarbonActivity: margin.maxCarbonActivity,
     },
+    supply: supplyOf(c),
+    degradation: degradationOf(c),
+    findings: findingsOf(c, basis),
+  };
+}
+
+function conditionsOf({ inputs }: Computed): Results['conditions'] {
+  return {
+    temperature_K: inputs.temperatureK,
+    fuelPressure_bar: inputs.fuelPressureBar,
+    airPressure_bar: inputs.airPressureBar,
+    fuelInletTemperature_K: inputs.fuelInletTemperatureK,
+    airInletTemperature_K: inputs.airInletTemperatureK,
+    ambientTemperature_K: inputs.ambientTemperatureK,
+  };
+}
+
+/**
+ * The results of the basis: those of its sizing case (the basis itself, or the case marked
+ * sizing with its overrides) at the top level, as a basis without cases has them, and every case
+ * on the sizing case's hardware with the envelope over them.
+ */
+function calculateResults(basis: DesignBasis): Results {
+  const sizingCase = basis.cases.find((k) => k.sizing);
+  const sizingBasis = sizingCase?.basis ?? basis;
+  const point = evaluateBasis(sizingBasis);
+  const own = pointResults(point, sizingBasis);
+  const findings = sizingCase ? caseFindings(own.findings, sizingCase) : own.findings;
+  const cases = basis.cases.length ? caseResults(basis.cases, point, { ...own, findings }, pointResults) : [];
+  const inputs = point.inputs;
+  const tech = inputs.technology;
+  return {
+    format: 'cellbasis-results/1',
+    tool: { name: 'cellbasis', version: toolVersion() },
+    speciesData_sha256: speciesDataHash(),
+    project: { id: basis.id, title: basis.document.title, number: basis.document.number, revision: basis.document.revision, status: basis.document.status },
+    technology: { id: tech.id, name: tech.name, mode: inputs.mode, ion: tech.ion, waterPhase: tech.waterPhase, fuelGasEquilibrium: tech.fuelGasEquilibrium },
+    conditions: own.conditions,
+    headline: own.headline,
+    electrochemistry: own.electrochemistry,
+    operatingPoint: own.operatingPoint,
+    streams: own.streams,
+    efficiency: own.efficiency,
+    heat: own.heat,
+    carbon: own.carbon,
+    supply: own.supply,
+    degradation: own.degradation,
     fuelPath: {
       points: point.path.points.map((p, k) => ({
         utilization: p.utilization,
@@ -312,13 +395,15 @@ function calculateResults(basis: DesignBasis): Results {
       standardVoltage_V: point.path.standardVoltageV,
     },
     sweeps: {
-      temperature: temperatureSweep(point, basis.conditions.sweepFromK, basis.conditions.sweepToK),
+      temperature: temperatureSweep(point, sizingBasis.conditions.sweepFromK, sizingBasis.conditions.sweepToK),
       currentDensity: currentDensitySweep(point),
-      stackTemperature: stackTemperatureSweep(point, basis.conditions.sweepFromK, basis.conditions.sweepToK),
+      stackTemperature: stackTemperatureSweep(point, sizingBasis.conditions.sweepFromK, sizingBasis.conditions.sweepToK),
       steamToCarbon: steamToCarbonSweep(point),
     },
     sensitivities: sensitivities(point, basis.sensitivity),
-    hazards: assessHazards(hazardInput(basis, point)),
+    hazards: assessHazards(hazardInput(sizingBasis, point)),
     findings,
+    cases,
+    envelope: envelopeOf(cases),
   };
 }

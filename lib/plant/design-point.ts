@@ -10,7 +10,8 @@ import { getSpecies } from '../thermo/species-data.ts';
 import { fuelPath, type FuelPath } from '../equilibrium/fuel-path.ts';
 import type { DesignInputs } from './design-inputs.ts';
 import { unitFeeds, type UnitFeeds } from './unit-feeds.ts';
-import { operatingVoltage, voltageModelAt, type CellVoltageRequest, type OperatingVoltage } from './voltage.ts';
+import { voltageModelAt, type CellVoltageRequest, type OperatingVoltage } from './voltage.ts';
+import { agedVoltage, type AgedCell } from './degradation.ts';
 import { sizeStack, type Sizing } from './sizing.ts';
 import { liquidCellWater, type WaterSplit } from './water-balance.ts';
 import { heatBalance, coolingAirMolPerS, type HeatBalance } from './heat.ts';
@@ -28,6 +29,8 @@ export interface DesignPoint {
   scale: number;
   sizing: Sizing;
   voltage: OperatingVoltage;
+  /** The beginning-of-life cell where the basis gives a degradation, else null. */
+  degradation: AgedCell | null;
   /** Current of one cell at its terminals, j A. */
   cellCurrentA: number;
   /** Σ over the cells of the cell current at the terminals, N j A. */
@@ -99,24 +102,40 @@ function unitPath(inputs: DesignInputs, unit: UnitFeeds): FuelPath {
   });
 }
 
+/**
+ * What one cell delivers of a target's quantity at the voltage: net power (power mode, after the
+ * balance-of-plant share), input power (electrolysis), or hydrogen, kg/s, from its ionic current.
+ */
+export function deliveredPerCell(inputs: DesignInputs, path: FuelPath, voltage: OperatingVoltage, target: 'power' | 'hydrogen'): number {
+  const power = inputs.mode === 'power';
+  const cellPowerW = voltage.cellVoltageV * inputs.currentDensityAPerM2 * inputs.activeAreaM2;
+  if (target === 'power') return power ? cellPowerW * (1 - inputs.parasiticFraction) : cellPowerW;
+  const cellIonicCurrentA = voltage.ionicCurrentDensityAPerM2 * inputs.activeAreaM2;
+  const unitHydrogen = power ? 0 : Math.max(0, (path.fuelOutlet.H2 ?? 0) - (path.fuelInlet.H2 ?? 0));
+  return unitHydrogen * (cellIonicCurrentA / path.currentA) * getSpecies('H2').molarMassKgPerMol;
+}
+
+/** The cell's voltage (after any degradation) at the inputs' current density. */
+export function cellVoltageOf(inputs: DesignInputs, path: FuelPath): { voltage: OperatingVoltage; aged: AgedCell | null } {
+  return agedVoltage(cellRequest({ inputs, path }), inputs.degradation);
+}
+
 /** The cell's voltage and currents, the cell count, and the stack's currents, scale (stack flows per unit flow, from the ionic current) and power. */
 function stackSize(inputs: DesignInputs, path: FuelPath) {
   const power = inputs.mode === 'power';
-  const voltage = operatingVoltage(cellRequest({ inputs, path }));
+  const { voltage, aged } = cellVoltageOf(inputs, path);
   const cellCurrentA = inputs.currentDensityAPerM2 * inputs.activeAreaM2;
   const cellIonicCurrentA = voltage.ionicCurrentDensityAPerM2 * inputs.activeAreaM2;
   const cellPowerW = voltage.cellVoltageV * cellCurrentA;
   // What one cell delivers of the sizing target.
-  const unitHydrogen = power ? 0 : Math.max(0, (path.fuelOutlet.H2 ?? 0) - (path.fuelInlet.H2 ?? 0));
-  const hydrogenPerCellKgPerS = (unitHydrogen * (cellIonicCurrentA / path.currentA)) * getSpecies('H2').molarMassKgPerMol;
-  const perCell =
-    inputs.size.kind === 'hydrogen' ? hydrogenPerCellKgPerS : power ? cellPowerW * (1 - inputs.parasiticFraction) : cellPowerW;
+  const perCell = deliveredPerCell(inputs, path, voltage, inputs.size.kind === 'hydrogen' ? 'hydrogen' : 'power');
   const sizing = sizeStack(inputs.size, inputs.statedCells, perCell, inputs.mode);
   const totalCurrentA = sizing.cells * cellCurrentA;
   const ionicCurrentA = sizing.cells * cellIonicCurrentA;
   const stackPowerW = sizing.cells * cellPowerW;
   return {
     voltage,
+    aged,
     cellCurrentA,
     sizing,
     totalCurrentA,
@@ -251,11 +270,22 @@ function coolingWater(inputs: DesignInputs, streams: ReturnType<typeof stackStre
   return needed;
 }
 
-export function evaluateDesignPoint(inputs: DesignInputs): DesignPoint {
+/** The feeds and the fuel path on the unit scale: what the design point does not scale (it does not depend on the current density, the cell count, the resistance or a degradation). */
+export interface UnitStage {
+  unit: UnitFeeds;
+  path: FuelPath;
+}
+
+export function unitStage(inputs: DesignInputs): UnitStage {
+  const unit = unitFeeds(inputs);
+  return { unit, path: unitPath(inputs, unit) };
+}
+
+/** The design point; `stage` is the unit stage of the same inputs when already evaluated (cases that share one). */
+export function evaluateDesignPoint(inputs: DesignInputs, stage: UnitStage = unitStage(inputs)): DesignPoint {
   const power = inputs.mode === 'power';
   const findings: Finding[] = [];
-  const unit = unitFeeds(inputs);
-  const path = unitPath(inputs, unit);
+  const { unit, path } = stage;
   const size = stackSize(inputs, path);
   const { voltage, sizing, totalCurrentA, ionicCurrentA, scale, stackPowerW, netPowerW } = size;
   const streams = stackStreams(inputs, unit, path, scale, ionicCurrentA, findings);
@@ -286,6 +316,7 @@ export function evaluateDesignPoint(inputs: DesignInputs): DesignPoint {
     scale,
     sizing,
     voltage,
+    degradation: size.aged,
     cellCurrentA: size.cellCurrentA,
     totalCurrentA,
     ionicCurrentA,

@@ -85,3 +85,12 @@ export function withAssumptions(findings: readonly Finding[], basis: Pick<Design
   const rank = (f: Finding) => FINDING_SEVERITIES.indexOf(f.severity);
   return [...flags, ...linked].map((f, order) => ({ f, order })).sort((x, y) => rank(x.f) - rank(y.f) || x.order - y.order).map(({ f }) => f);
 }
+
+/**
+ * The findings of the results as a reader prints them: the top-level ones (the sizing case's),
+ * then those of every other case, each message beginning `case <id>: `.
+ */
+export function everyFinding(results: { findings: readonly Finding[]; cases?: readonly { id: string; sizing: boolean; findings: readonly Finding[] }[] }): Finding[] {
+  const others = (results.cases ?? []).filter((c) => !c.sizing).flatMap((c) => c.findings.map((f) => ({ ...f, message: `case ${c.id}: ${f.message}` })));
+  return [...results.findings, ...others];
+}

@@ -9,6 +9,7 @@ import { z } from 'zod';
 import { findingSchema } from './findings.ts';
 import { IONS, MODES } from '../electrochem/technologies.ts';
 import { hazardAssessmentSchema } from '../hazards/types.ts';
+import { DEGRADED_QUANTITIES } from '../basis/types.ts';
 
 const num = (description: string) => z.number().describe(description);
 const nullableNum = (description: string) => z.number().nullable().describe(description);
@@ -63,7 +64,8 @@ const sensitivitySchema = z.object({
   note: z.string().nullable().describe('why a case could not be evaluated'),
 });
 
-export const resultsSchema = z
+/** The results of the design point (the sizing case); resultsSchema adds the sections of issue 19 below. */
+const designResultsSchema = z
   .object({
     format: z.literal('cellbasis-results/1'),
     tool: z.object({ name: z.literal('cellbasis'), version: z.string() }),
@@ -253,5 +255,97 @@ export const resultsSchema = z
   })
   .describe('cellbasis results of one design basis');
 
+const supplySchema = z
+  .object({
+    air_kg_per_h: nullableNum('the gas the plant supplies to the air electrode: air (power mode) or sweep gas (electrolysis); null where the air electrode takes liquid water or nothing'),
+    fuel_kg_per_h: nullableNum('power mode: the fuel the plant supplies, as given before steam is added'),
+    water_kg_per_h: nullableNum('water the plant feeds to the stack, vapour and liquid: power mode, the steam added to the fuel; electrolysis, the water fed to the water electrode (a circulating loop with it); null where none is fed'),
+    waterSplit_kg_per_h: nullableNum('electrolysis: the water the stack splits, which the plant must make up'),
+  })
+  .describe('what the plant supplies to the stack');
+
+const degradationSchema = z
+  .object({
+    of: z.enum(DEGRADED_QUANTITIES).describe('what the rate applies to'),
+    rate_per_h: num('r, the fraction lost (voltage) or gained (resistance) per hour of operation'),
+    operatingTime_h: num('t, hours of operation'),
+    fraction: num('r t'),
+    beginningOfLifeCellVoltage_V: num('V₀: the cell voltage at the same point at the beginning of life'),
+    beginningOfLifeAreaSpecificResistance_ohm_m2: num('ASR₀: the resistance at the same point at the beginning of life'),
+  })
+  .nullable()
+  .describe('degradation at an operating time: ASR = ASR₀ (1 + r t), or V = V₀ (1 ∓ r t) at the same current density (linear at a constant rate, common practice, no source); null: the beginning of life');
+
+/** The sections every operating point has; a case carries them, each null when the case cannot run. */
+const point = designResultsSchema.shape;
+
+const caseResultSchema = z
+  .object({
+    id: z.string().describe('the case id, its key under cases: of the basis ("base": the base values as the sizing case)'),
+    title: z.string(),
+    purpose: z.string().describe('what it governs or checks'),
+    sizing: z.boolean().describe('the case that fixes the hardware; its results are the top-level results'),
+    load: z
+      .enum(['sizing', 'current-density', 'target-power', 'target-hydrogen'])
+      .describe('how the case states its load: the sizing case as any basis does; its current density; or a target met on the cells of the sizing case by solving for the current density'),
+    overrides: z.array(z.object({ path: z.string(), text: z.string(), source: z.string().nullable() })).describe('the values the case changes, as written'),
+    ran: z.boolean().describe('false when the case cannot run at its load on the hardware of the sizing case (a finding says why); its figures are then null'),
+    resistance: z
+      .object({
+        from: z.enum(['sizing-case', 'case']).describe('the cells of the sizing case, or the case\'s own cell-voltage or area-specific-resistance'),
+        beginningOfLife_ohm_m2: num('area-specific resistance at the beginning of life, at its reference temperature'),
+        referenceTemperature_K: num('where it applies (a resistance law scales it from there)'),
+      })
+      .nullable(),
+    conditions: point.conditions.nullable(),
+    headline: point.headline.nullable(),
+    electrochemistry: point.electrochemistry.nullable(),
+    operatingPoint: point.operatingPoint.nullable(),
+    streams: z.array(streamSchema),
+    efficiency: point.efficiency.nullable(),
+    heat: point.heat.nullable(),
+    carbon: point.carbon.nullable(),
+    supply: supplySchema.nullable(),
+    degradation: degradationSchema,
+    findings: z.array(findingSchema),
+    curve: z
+      .array(
+        z.object({
+          currentDensity_A_per_m2: num('current density'),
+          cellVoltage_V: num('the uniform-voltage cell of the case at this current density, its utilization and resistance held'),
+          efficiency: num('power mode: net electrical efficiency (LHV); electrolysis: efficiency on the LHV of hydrogen'),
+        }),
+      )
+      .describe('the case\'s polarisation and efficiency curve, over the current densities of all cases (empty when it cannot run)'),
+  })
+  .describe('one operating case on the hardware of the sizing case');
+
+const envelopeRowSchema = z
+  .object({
+    id: z.string().describe('the quantity\'s id in lib/plant/data/envelope.yaml'),
+    quantity: z.string(),
+    path: z.string().describe('where each case carries it, dotted, e.g. headline.airFlow_kg_per_h'),
+    unit: z.string().describe('its unit, as its key states it'),
+    governs: z.enum(['max', 'min']).describe('whether the largest or the smallest value sizes the equipment'),
+    sizes: z.string().describe('what it sizes'),
+    value: num('the governing value'),
+    case: z.string().describe('the id of the case that sets it (on equal values, the first in order: the sizing case first)'),
+    sizingValue: nullableNum('its value in the sizing case'),
+  })
+  .describe('one quantity of the envelope');
+
+export const resultsSchema = designResultsSchema
+  .extend({
+    supply: supplySchema,
+    degradation: degradationSchema,
+    cases: z.array(caseResultSchema).describe('the operating cases of the basis, the sizing case among them ([] when the basis defines none)'),
+    envelope: z
+      .array(envelopeRowSchema)
+      .describe('for each sizing quantity that applies, the governing value over the cases and the case that sets it ([] without cases)'),
+  })
+  .describe('cellbasis results of one design basis');
+
 export type Results = z.infer<typeof resultsSchema>;
+export type CaseResult = z.infer<typeof caseResultSchema>;
+export type EnvelopeRow = z.infer<typeof envelopeRowSchema>;
 export type StreamResult = z.infer<typeof streamSchema>;

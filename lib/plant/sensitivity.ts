@@ -80,7 +80,7 @@ function efficiencyOf(point: DesignPoint): number {
  * The stack as designed, for evaluations away from the design point: its cell count and its
  * resistance at the design temperature (with the law, if any, referred to that temperature), on
  * the coarse grid, with the base case on the same grid; the cases start their equilibria from the
- * base case's.
+ * base case's. A degradation of the design is in that resistance (the design point's own).
  */
 export function heldDesign(design: DesignPoint): { inputs: DesignInputs; base: DesignPoint } {
   const law = design.inputs.resistanceLaw;
@@ -93,6 +93,8 @@ export function heldDesign(design: DesignPoint): { inputs: DesignInputs; base: D
     refineV: Infinity,
   };
   delete inputs.statedCells;
+  // The resistance held is the one at the design point, a degradation already in it.
+  delete inputs.degradation;
   const base = evaluateDesignPoint(inputs);
   inputs.seeds = base.path.solutions;
   return { inputs, base };

@@ -19,6 +19,7 @@ import type { CalculationOutcome } from '../batch/batch.ts';
 import type { Results } from '../plant/results-schema.ts';
 import { ResultsCache, resultsKey } from '../batch/results-cache.ts';
 import { formatFinding } from '../plant/located-error.ts';
+import { everyFinding } from '../plant/findings.ts';
 import { runAllChecks } from '../verification/checks.ts';
 import { documentView, type DocumentView } from '../report/document.ts';
 import { revisionHistory, type ChangeSummary, type RevisionHistoryEntry } from '../report/history.ts';
@@ -148,7 +149,7 @@ export function loadProjectPages(loader: ProjectLoader, id: string, problems: Si
   if (!loaded.ok) return none;
   const results = draftResults(loader, id, loaded.basis, problems);
   if (!results) return none;
-  problems.findings(results.findings.map((f) => formatFinding(loaded.basis, f)));
+  problems.findings(everyFinding(results).map((f) => formatFinding(loaded.basis, f)));
   const draftPath = draftPagePath(id);
   const sources = new Map<DesignBasis, string>(sealed.map((s) => [s.basis, s.source]));
   sources.set(loaded.basis, readFileSync(join(root, 'projects', id, 'basis.yaml'), 'utf8'));

@@ -19,8 +19,9 @@ export const calcCommand: Command = {
     const basis = loadProject(args.positionals[0]!, io);
     const { calculate } = await import('../../plant/calculate.ts');
     const { formatFinding } = await import('../../plant/located-error.ts');
+    const { everyFinding } = await import('../../plant/findings.ts');
     const results = calculate(basis);
-    for (const finding of results.findings) io.err(`${formatFinding(basis, finding)}\n`);
+    for (const finding of everyFinding(results)) io.err(`${formatFinding(basis, finding)}\n`);
     if (args.values.json) {
       io.out(json(results));
       return 0;

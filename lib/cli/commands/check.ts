@@ -52,8 +52,9 @@ export const checkCommand: Command = {
       try {
         const { calculate } = await import('../../plant/calculate.ts');
         const { formatFinding } = await import('../../plant/located-error.ts');
+        const { everyFinding } = await import('../../plant/findings.ts');
         const results = calculate(result.basis);
-        for (const finding of results.findings) io.err(`${formatFinding(result.basis, finding)}\n`);
+        for (const finding of everyFinding(results)) io.err(`${formatFinding(result.basis, finding)}\n`);
         calculated = headlineRows(results);
       } catch (error) {
         if (!(error instanceof BasisError)) throw error;

@@ -1,0 +1,230 @@
+/**
+ * The operating cases of a basis on the hardware of its sizing case. The sizing case is evaluated
+ * as any basis is (calculate.ts) and fixes the hardware: its cell count, the active area of a
+ * cell and the cells' area-specific resistance at the beginning of life, at the sizing case's
+ * temperature (given, or implied by a given voltage; a resistance law scales it from there).
+ * Every other case is its own basis (the base values with its overrides, lib/basis/read-cases.ts)
+ * evaluated with that hardware:
+ *
+ *   cells N and active area A     from the sizing case;
+ *   resistance                    the sizing case's, unless the case gives its own cell-voltage or
+ *                                 area-specific-resistance; its degradation on top;
+ *   current density               the case's (its own, or the base current density when it states
+ *                                 no load), or, for a target-power or target-hydrogen case, the
+ *                                 current density at which the N cells meet it (case-load.ts).
+ *
+ * So each case's results are exactly those of a basis written with the case's values, the
+ * sizing case's cell count, active area and resistance, and that current density (the tests
+ * check this). A case that cannot run there (no current density meets its target, a voltage
+ * beyond the reversible limit, a fuel that cannot reach its utilization) is a critical finding
+ * of that case, `case-cannot-run`, with its figures null; the basis still calculates.
+ *
+ * Cases that share the fuel gas (the same feeds, utilization, temperature and pressures) share
+ * its fuel path and carbon margin, which do not depend on the load or the resistance: they are
+ * evaluated once and reused, which gives the same numbers as evaluating them again.
+ */
+import type { DesignBasis, OperatingCase } from '../basis/types.ts';
+import { BasisError } from '../basis/diagnostics.ts';
+import { UserError } from '../core/errors.ts';
+import { designInputs, type DesignInputs } from './design-inputs.ts';
+import { cellVoltageOf, evaluateDesignPoint, unitStage, type DesignPoint, type UnitStage } from './design-point.ts';
+import { carbonMargin } from './carbon-margin.ts';
+import { currentDensityForTarget } from './case-load.ts';
+import { locateCalculationErrors } from './located-error.ts';
+import { finding, withAssumptions, type Finding } from './findings.ts';
+import type { CaseResult } from './results-schema.ts';
+import type { PointResults } from './calculate.ts';
+
+/** The hardware the sizing case fixes. */
+export interface Hardware {
+  cells: number;
+  activeAreaM2: number;
+  /** Area-specific resistance at the beginning of life, at `temperatureK`, ohm m². */
+  resistanceOhmM2: number;
+  temperatureK: number;
+}
+
+export function hardwareOf(point: DesignPoint): Hardware {
+  return {
+    cells: point.sizing.cells,
+    activeAreaM2: point.inputs.activeAreaM2,
+    resistanceOhmM2: point.degradation?.beginningOfLifeResistanceOhmM2 ?? point.voltage.areaSpecificResistanceOhmM2,
+    temperatureK: point.inputs.temperatureK,
+  };
+}
+
+/** Whether the case gives its own cell-voltage or area-specific-resistance. */
+function ownResistance(c: OperatingCase): boolean {
+  return c.overridden.includes('operating-point.cell-voltage') || c.overridden.includes('operating-point.area-specific-resistance');
+}
+
+/** The design inputs of a case on the hardware, at the current density its basis states. */
+export function caseInputs(c: OperatingCase, hardware: Hardware): DesignInputs {
+  const own = designInputs(c.basis);
+  const inputs: DesignInputs = { ...own, size: { kind: 'cells', cells: hardware.cells }, activeAreaM2: hardware.activeAreaM2 };
+  delete inputs.statedCells;
+  if (!ownResistance(c)) {
+    inputs.voltage = { kind: 'area-specific-resistance', ohmM2: hardware.resistanceOhmM2 };
+    if (own.resistanceLaw) inputs.resistanceLaw = { ...own.resistanceLaw, referenceTemperatureK: hardware.temperatureK };
+  }
+  return inputs;
+}
+
+/** What the fuel path and the unit feeds depend on: cases with the same key share them. */
+function stageKey(i: DesignInputs): string {
+  return JSON.stringify([i.technology.id, i.mode, i.temperatureK, i.fuelPressureBar, i.airPressureBar, i.utilization, i.air, i.fuelFeed, i.airFeed, i.preReforming, i.intervals, i.refineV]);
+}
+
+/** What the carbon margin depends on beyond the fuel path. */
+function carbonKey(i: DesignInputs): string {
+  return JSON.stringify([stageKey(i), i.dryFuel, i.steamToCarbon ?? null]);
+}
+
+/** A finding's paths where the case's file places them: a field the case overrides, at its override. */
+export function caseFindings(findings: readonly Finding[], c: OperatingCase): Finding[] {
+  if (!c.overridden.length) return [...findings];
+  const place = (path: string) => {
+    const key = c.overridden.find((k) => path === k || path.startsWith(`${k}.`));
+    return key ? `cases.${c.id}.overrides.${path}` : path;
+  };
+  return findings.map((f) => ({ ...f, path: place(f.path), related: f.related.map(place) }));
+}
+
+const CURVE_POINTS = 25;
+
+/**
+ * The case's cell voltage and efficiency against current density, its fuel path, utilization and
+ * resistance held (degradation included), over (0, jMax]. The efficiency follows from the case's
+ * own by the flows' proportionality to the ionic current at fixed utilization:
+ *   power:        η(j) = η_case · (j V(j) / j_ion(j)) / (j_c V_c / j_ion,c)
+ *   electrolysis: η(j) = η_case · (j_ion(j) / (j V(j))) / (j_ion,c / (j_c V_c))
+ * A current density at which the cell has no voltage ends the curve.
+ */
+function curveOf(point: DesignPoint, efficiency: number, jMax: number): CaseResult['curve'] {
+  const power = point.inputs.mode === 'power';
+  const ratio = (j: number, v: number, ionic: number) => (power ? (j * v) / ionic : ionic / (j * v));
+  const own = ratio(point.inputs.currentDensityAPerM2, point.voltage.cellVoltageV, point.voltage.ionicCurrentDensityAPerM2);
+  const out: CaseResult['curve'] = [];
+  for (let k = 1; k <= CURVE_POINTS; k++) {
+    const j = (jMax * k) / CURVE_POINTS;
+    let voltage;
+    try {
+      voltage = cellVoltageOf({ ...point.inputs, currentDensityAPerM2: j }, point.path).voltage;
+    } catch (error) {
+      if (error instanceof UserError) break;
+      throw error;
+    }
+    if (!(voltage.cellVoltageV > 0)) break;
+    out.push({ currentDensity_A_per_m2: j, cellVoltage_V: voltage.cellVoltageV, efficiency: (efficiency * ratio(j, voltage.cellVoltageV, voltage.ionicCurrentDensityAPerM2)) / own });
+  }
+  return out;
+}
+
+function efficiencyOf(results: PointResults): number {
+  return results.efficiency.electricalEfficiencyLhvNet ?? results.efficiency.electrolysisEfficiencyLhv!;
+}
+
+/** The case's figures, or nulls where it cannot run. */
+type Figures = Omit<CaseResult, 'id' | 'title' | 'purpose' | 'sizing' | 'load' | 'overrides' | 'curve'> & { point: DesignPoint | null };
+
+function ranFigures(results: PointResults, point: DesignPoint, resistance: CaseResult['resistance']): Figures {
+  return { ran: true, resistance, ...results, point };
+}
+
+function notRun(c: OperatingCase, path: string, message: string): Figures {
+  const placed = caseFindings(withAssumptions([finding('case-cannot-run', 'critical', path, `the case cannot run on the hardware of the sizing case: ${message}`)], c.basis), c);
+  return {
+    ran: false,
+    resistance: null,
+    conditions: null,
+    headline: null,
+    electrochemistry: null,
+    operatingPoint: null,
+    streams: [],
+    efficiency: null,
+    heat: null,
+    carbon: null,
+    supply: null,
+    degradation: null,
+    findings: placed,
+    point: null,
+  };
+}
+
+type Assemble = (point: DesignPoint, basis: DesignBasis, carbon?: ReturnType<typeof carbonMargin>) => PointResults;
+
+/**
+ * Every case of the basis, in its order: the sizing case from its evaluated point and results,
+ * every other case on its hardware. `assemble` makes the sections of a point's results
+ * (calculate.ts pointResults).
+ */
+export function caseResults(cases: readonly OperatingCase[], sizing: DesignPoint, sizingResults: PointResults, assemble: Assemble): CaseResult[] {
+  const hardware = hardwareOf(sizing);
+  const stages = new Map<string, UnitStage>([[stageKey(sizing.inputs), { unit: sizing.unit, path: sizing.path }]]);
+  const carbons = new Map<string, ReturnType<typeof carbonMargin>>();
+  const sizingResistance = { from: 'case' as const, beginningOfLife_ohm_m2: hardware.resistanceOhmM2, referenceTemperature_K: hardware.temperatureK };
+  const figures = cases.map((c): Figures => (c.sizing ? ranFigures(sizingResults, sizing, sizingResistance) : runCase(c, hardware, stages, carbons, assemble)));
+  // The curves span the current densities of all the cases that ran, a quarter beyond the highest.
+  const jMax = 1.25 * Math.max(...figures.map((f) => f.operatingPoint?.currentDensity_A_per_m2 ?? 0));
+  return cases.map((c, k) => {
+    const { point, ...f } = figures[k]!;
+    return {
+      id: c.id,
+      title: c.title,
+      purpose: c.purpose,
+      sizing: c.sizing,
+      load: c.load,
+      overrides: c.overrides.map((o) => ({ path: o.path, text: o.text, source: o.source ?? null })),
+      ...f,
+      curve: point && f.ran ? curveOf(point, efficiencyOf(f as PointResults), jMax) : [],
+    };
+  });
+}
+
+function runCase(c: OperatingCase, hardware: Hardware, stages: Map<string, UnitStage>, carbons: Map<string, ReturnType<typeof carbonMargin>>, assemble: Assemble): Figures {
+  let inputs = caseInputs(c, hardware);
+  const resistance: CaseResult['resistance'] = ownResistance(c)
+    ? null
+    : { from: 'sizing-case', beginningOfLife_ohm_m2: hardware.resistanceOhmM2, referenceTemperature_K: hardware.temperatureK };
+  let point: DesignPoint;
+  try {
+    point = locateCalculationErrors(c.basis, () => {
+      const key = stageKey(inputs);
+      let stage = stages.get(key);
+      if (!stage) {
+        stage = unitStage(inputs);
+        stages.set(key, stage);
+      }
+      if (c.load === 'target-power' || c.load === 'target-hydrogen') {
+        const size = c.basis.operatingPoint.size;
+        const value = size.kind === 'power' ? size.powerW : size.kind === 'hydrogen' ? size.kgPerS : NaN;
+        const solved = currentDensityForTarget(inputs, stage.path, hardware.cells, c.load === 'target-power' ? 'power' : 'hydrogen', value);
+        if (!solved.ok) throw new TargetNotMet(`operating-point.${c.load}`, solved.message);
+        inputs = { ...inputs, currentDensityAPerM2: solved.currentDensityAPerM2 };
+      }
+      return evaluateDesignPoint(inputs, stage);
+    });
+  } catch (error) {
+    if (error instanceof TargetNotMet) return notRun(c, error.path, error.message);
+    if (error instanceof BasisError) return notRun(c, error.errors[0]!.path, error.errors.map((e) => e.message).join('; '));
+    throw error;
+  }
+  const key = carbonKey(inputs);
+  let carbon = carbons.get(key);
+  if (!carbon) {
+    carbon = carbonMargin(point);
+    carbons.set(key, carbon);
+  }
+  const results = assemble(point, c.basis, carbon);
+  return ranFigures({ ...results, findings: caseFindings(results.findings, c) }, point, resistance ?? { from: 'case', beginningOfLife_ohm_m2: point.degradation?.beginningOfLifeResistanceOhmM2 ?? point.voltage.areaSpecificResistanceOhmM2, referenceTemperature_K: inputs.temperatureK });
+}
+
+/** A target no current density meets on the hardware, at the target's field. */
+class TargetNotMet extends Error {
+  constructor(
+    readonly path: string,
+    message: string,
+  ) {
+    super(message);
+  }
+}
