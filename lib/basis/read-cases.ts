@@ -197,8 +197,10 @@ export function readCases(data: unknown, flagged: readonly Path[], findings: Fin
     const sizing = id === sizingId;
     const overrides = isMapping(item.overrides) ? item.overrides : {};
     const keys = overriddenKeys(overrides);
+    const before = findings.list.length;
     if (!sizing) checkRunningCase(findings, id, keys, sizingId);
-    if (flagged.some((f) => startsWith(f, ['cases', id]))) continue;
+    // A case refused for its hardware or its loads is not compared with the others: it would be the same point as the one it was refused for.
+    if (findings.list.length > before || flagged.some((f) => startsWith(f, ['cases', id]))) continue;
     const caseFindings = new Findings();
     const mergedData = merged(data as Data, overrides, keys);
     const reader = new Reader(mergedData, schemaFindings(mergedData, caseFindings), caseFindings);

@@ -25,7 +25,7 @@ describe('bad-input corpus', () => {
     const files = CASES.filter((c) => !c.generate);
     expect(files.length).toBeGreaterThanOrEqual(110);
     expect(CASES.filter((c) => c.name.startsWith('loader-')).length).toBeGreaterThanOrEqual(50);
-    const kinds = ['yaml-tab', 'yaml-duplicate', 'yaml-unclosed', 'yaml-wrong-indentation', 'encoding-bom-accepted', 'encoding-crlf-accepted', 'encoding-latin1', 'empty-file', 'whitespace-only', 'size-50-mb', 'nesting-10000-lists', 'nesting-10000-mappings', 'alias-billion-laughs', 'tag-js-function', 'tag-custom', 'type-', 'unit-', 'range-', 'composition-sum', 'composition-unknown-species', 'conflict-cells-and-target-power', 'fuel-cannot-reach-utilization', 'voltage-above-nernst', 'range-7000-k', 'range-minus-300-c', 'range-liquid-water-800-c'];
+    const kinds = ['yaml-tab', 'yaml-duplicate', 'yaml-unclosed', 'yaml-wrong-indentation', 'encoding-bom-accepted', 'encoding-crlf-accepted', 'encoding-latin1', 'empty-file', 'whitespace-only', 'size-50-mb', 'nesting-10000-lists', 'nesting-10000-mappings', 'alias-billion-laughs', 'tag-js-function', 'tag-custom', 'type-', 'unit-', 'range-', 'composition-sum', 'composition-unknown-species', 'conflict-cells-and-target-power', 'fuel-cannot-reach-utilization', 'voltage-above-nernst', 'range-7000-k', 'range-minus-300-c', 'range-liquid-water-800-c', 'cases-misspelt-override', 'cases-hardware-override', 'cases-two-sizing', 'cases-same-point'];
     for (const kind of kinds) expect(CASES.some((c) => c.name.startsWith(kind)), kind).toBe(true);
     for (const c of CASES) {
       expect(c.about, c.name).toMatch(/\S/);
