@@ -1,0 +1,292 @@
+// Operating cases (lib/plant/cases.ts, case-load.ts, degradation.ts, envelope.ts): each case's
+// results are those of a basis of its own written with the case's values and the sizing case's
+// hardware (metamorphic); the load a case states is met (Faraday's law, the definition of net
+// power); end of life follows the linear degradation law by hand; the envelope names the case
+// that governs each quantity; a case that cannot run is a finding of that case.
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { parseDocument } from 'yaml';
+import { calculate } from '../../lib/plant/calculate.ts';
+import { loadBasisText } from '../../lib/basis/load.ts';
+import type { DesignBasis } from '../../lib/basis/types.ts';
+import type { CaseResult, Results } from '../../lib/plant/results-schema.ts';
+import { ENVELOPE_QUANTITIES, envelopeOf, valueAt } from '../../lib/plant/envelope.ts';
+import { basisFrom } from '../helpers/scaffold-basis.ts';
+
+/** A demo's basis text with its cases removed and `edits` applied (dotted path → value; undefined deletes). */
+function demoText(id: string, edits: Record<string, unknown>): string {
+  const doc = parseDocument(readFileSync(new URL(`../../projects/${id}/basis.yaml`, import.meta.url), 'utf8'));
+  doc.deleteIn(['cases']);
+  for (const [path, value] of Object.entries(edits)) {
+    const keys = path.split('.');
+    if (value === undefined) doc.deleteIn(keys);
+    else doc.setIn(keys, value);
+  }
+  return doc.toString();
+}
+
+function load(text: string, id: string): DesignBasis {
+  const result = loadBasisText(text, `projects/${id}/basis.yaml`, id);
+  if (!result.ok) throw new Error(result.errors.map((e) => `${e.path}: ${e.message}`).join('\n'));
+  return result.basis;
+}
+
+function demo(id: string): Results {
+  return calculate(load(readFileSync(new URL(`../../projects/${id}/basis.yaml`, import.meta.url), 'utf8'), id));
+}
+
+const caseOf = (results: Results, id: string): CaseResult => {
+  const found = results.cases.find((c) => c.id === id);
+  if (!found) throw new Error(`no case ${id}`);
+  return found;
+};
+
+/** Every number of two results objects' sections, compared to `relative`. */
+function expectSameNumbers(got: unknown, want: unknown, relative: number, at = ''): void {
+  if (typeof want === 'number' && typeof got === 'number') {
+    expect(Math.abs(got - want), `${at}: ${got} against ${want}`).toBeLessThanOrEqual(relative * Math.max(Math.abs(want), 1e-300));
+    return;
+  }
+  if (want === null || typeof want !== 'object') {
+    expect(got, at).toEqual(want);
+    return;
+  }
+  expect(got !== null && typeof got === 'object', at).toBe(true);
+  for (const [k, v] of Object.entries(want)) expectSameNumbers((got as Record<string, unknown>)[k], v, relative, `${at}.${k}`);
+}
+
+const thistlemere = demo('thistlemere-sofc-chp');
+const kestrelford = demo('kestrelford-pem-electrolyser');
+
+describe('each case equals a basis of its own on the sizing case\'s hardware', () => {
+  // The separate basis states the sizing case's cell count, the case's current density (in A/m2,
+  // whose factor is 1, so the number is carried exactly) and the resistance of the hardware; the
+  // same functions then run on the same numbers. The tolerance 1e-12 leaves room only for the
+  // order of floating-point operations in the unit conversions (a few ulps).
+  const SAME = 1e-12;
+  const sections = ['headline', 'electrochemistry', 'operatingPoint', 'efficiency', 'heat', 'carbon', 'supply', 'degradation', 'streams'] as const;
+
+  const separate = (results: Results, c: CaseResult, id: string, edits: Record<string, unknown>): Results =>
+    calculate(
+      load(
+        demoText(id, {
+          'operating-point.cells': results.headline.cells,
+          'operating-point.current-density': `${c.operatingPoint!.currentDensity_A_per_m2} A/m2`,
+          'operating-point.target-power': undefined,
+          'operating-point.target-hydrogen': undefined,
+          ...edits,
+        }),
+        id,
+      ),
+    );
+
+  it.each(['turndown', 'end-of-life', 'winter-gas'])('thistlemere-sofc-chp, case %s', (id) => {
+    const c = caseOf(thistlemere, id);
+    expect(c.ran).toBe(true);
+    const edits: Record<string, Record<string, unknown>> = {
+      turndown: {},
+      'end-of-life': {
+        'operating-point.degradation': { rate: { value: '0.3 %/kh', source: 'R3' }, of: 'cell-voltage', 'operating-time': { value: '40000 h', source: 'R5' } },
+        'operating-point.air-utilization': { value: 0.12, source: 'test' },
+      },
+      'winter-gas': { 'streams.fuel-electrode.composition': 'winter-gas' },
+    };
+    const own = separate(thistlemere, c, 'thistlemere-sofc-chp', edits[id]!);
+    for (const s of sections) expectSameNumbers(c[s], own[s], SAME, `${id}.${s}`);
+  });
+
+  it.each(['turndown', 'end-of-life'])('kestrelford-pem-electrolyser, case %s (the sizing case gives a voltage: the hardware is the resistance it implies)', (id) => {
+    const c = caseOf(kestrelford, id);
+    expect(c.resistance?.from).toBe('sizing-case');
+    const resistance = c.resistance!.beginningOfLife_ohm_m2;
+    // The resistance the given 1.88 V implies at the sizing case is the one the top level reports.
+    expect(resistance).toBe(kestrelford.electrochemistry.areaSpecificResistance_ohm_m2);
+    const edits: Record<string, unknown> = { 'operating-point.cell-voltage': undefined, 'operating-point.area-specific-resistance': `${resistance} ohm m2` };
+    if (id === 'end-of-life') edits['operating-point.degradation'] = { rate: { value: '0.2 %/kh', source: 'R2' }, of: 'cell-voltage', 'operating-time': { value: '60000 h', source: 'R2' } };
+    const own = separate(kestrelford, c, 'kestrelford-pem-electrolyser', edits);
+    for (const s of sections) expectSameNumbers(c[s], own[s], SAME, `${id}.${s}`);
+  });
+
+  it('the sizing case is the top level', () => {
+    const rated = caseOf(thistlemere, 'rated');
+    expect(rated.sizing).toBe(true);
+    expect(rated.headline).toEqual(thistlemere.headline);
+    expect(rated.streams).toEqual(thistlemere.streams);
+    expect(rated.findings).toEqual(thistlemere.findings);
+  });
+});
+
+describe('a case meets the load it states on the cells of the sizing case', () => {
+  it('target power: net power N V j A (1 − f) equals the target (definition of net power; f = 6 % by A4 of the demo)', () => {
+    for (const id of ['turndown', 'end-of-life', 'winter-gas']) {
+      const c = caseOf(thistlemere, id);
+      const h = c.headline!;
+      expect(h.cells).toBe(thistlemere.headline.cells);
+      const target = id === 'turndown' ? 60e3 : 200e3;
+      // The stack is one string of cells: its voltage N V, its current j A.
+      expect(h.stackVoltage_V * h.cellCurrent_A * (1 - 0.06)).toBeCloseTo(target, 6);
+      // The root is found to 1e-12 of j; 1e-9 of the power is far above that and far below any reading.
+      expect(Math.abs(h.netPower_W! - target) / target).toBeLessThan(1e-9);
+    }
+  });
+
+  it('target hydrogen: Faraday\'s law, ṁ = N j A M_H2 / (2F) (PEM: every electron one half H2)', () => {
+    const c = caseOf(kestrelford, 'turndown');
+    const F = 96485.33212; // C/mol, CODATA 2018 (exact since the 2019 SI)
+    const M = 2.01588e-3; // kg/mol, H2 (NASA Glenn thermo.inp molar mass)
+    const n = c.headline!.cells;
+    const area = c.operatingPoint!.activeArea_m2;
+    expect(n).toBe(444);
+    expect(area).toBeCloseTo(0.125, 12);
+    // 150 kg/day → j = ṁ 2F / (M N A) = 2994.409 A/m2 (hand: 150/86400/2.01588e-3·2·96485.33212/(444·0.125)).
+    const hand = (((150 / 86400) / M) * 2 * F) / (n * area);
+    expect(hand).toBeCloseTo(2994.409, 3);
+    // 1e-8: the molar mass to six figures; the solve itself is to 1e-12.
+    expect(Math.abs(c.operatingPoint!.currentDensity_A_per_m2 - hand) / hand).toBeLessThan(1e-8);
+    expect(c.headline!.hydrogenProduction_kg_per_day).toBeCloseTo(150, 6);
+  });
+
+  it('at rated power the cells draw more current at end of life, as their voltage is lower (I = P / (V (1 − f)))', () => {
+    const rated = caseOf(thistlemere, 'rated').headline!;
+    const old = caseOf(thistlemere, 'end-of-life').headline!;
+    expect(old.cellVoltage_V).toBeLessThan(rated.cellVoltage_V);
+    expect(old.cellCurrent_A).toBeGreaterThan(rated.cellCurrent_A);
+  });
+});
+
+describe('end of life: the linear degradation law (common practice, no source)', () => {
+  it('cell voltage, power mode: V = V₀ (1 − r t), 0.3 %/kh × 40 000 h = 0.12', () => {
+    const c = caseOf(thistlemere, 'end-of-life');
+    const d = c.degradation!;
+    expect(d.of).toBe('cell-voltage');
+    expect(d.rate_per_h).toBeCloseTo(0.003 / 1000, 15);
+    expect(d.operatingTime_h).toBeCloseTo(40000, 9);
+    expect(d.fraction).toBeCloseTo(0.12, 12);
+    expect(c.headline!.cellVoltage_V).toBeCloseTo(0.88 * d.beginningOfLifeCellVoltage_V, 12);
+    // V₀ is the new cell at the same current density: the separate basis without degradation.
+    const fresh = calculate(
+      load(
+        demoText('thistlemere-sofc-chp', {
+          'operating-point.cells': thistlemere.headline.cells,
+          'operating-point.current-density': `${c.operatingPoint!.currentDensity_A_per_m2} A/m2`,
+          'operating-point.target-power': undefined,
+          'operating-point.air-utilization': { value: 0.12, source: 'test' },
+        }),
+        'thistlemere-sofc-chp',
+      ),
+    );
+    expect(fresh.headline.cellVoltage_V).toBeCloseTo(d.beginningOfLifeCellVoltage_V, 12);
+    expect(fresh.degradation).toBeNull();
+  });
+
+  it('cell voltage, electrolysis: V = V₀ (1 + r t), 0.2 %/kh × 60 000 h = 0.12', () => {
+    const c = caseOf(kestrelford, 'end-of-life');
+    expect(c.degradation!.fraction).toBeCloseTo(0.12, 12);
+    expect(c.headline!.cellVoltage_V).toBeCloseTo(1.12 * c.degradation!.beginningOfLifeCellVoltage_V, 12);
+    expect(c.headline!.cellVoltage_V).toBeGreaterThan(caseOf(kestrelford, 'rated').headline!.cellVoltage_V);
+  });
+
+  it('a given cell voltage ages by hand: 0.68 V × (1 − 0.5 %/kh × 10 000 h) = 0.646 V, and the cell count grows to hold the target', () => {
+    const degradation = { rate: '0.5 %/kh', of: 'cell-voltage', 'operating-time': '10000 h' };
+    const aged = calculate(basisFrom('pem', 'power', { 'operating-point.degradation': degradation }));
+    const fresh = calculate(basisFrom('pem', 'power'));
+    expect(fresh.headline.cellVoltage_V).toBeCloseTo(0.68, 12);
+    expect(aged.headline.cellVoltage_V).toBeCloseTo(0.646, 12);
+    // N = ⌈P / (V j A (1 − f))⌉ = ⌈100 kW / (V × 1.0 A/cm2 × 300 cm2 × 0.92)⌉: 533 new, 561 aged (hand).
+    expect(fresh.headline.cells).toBe(Math.ceil(100e3 / (0.68 * 300 * 0.92)));
+    expect(fresh.headline.cells).toBe(533);
+    expect(aged.headline.cells).toBe(Math.ceil(100e3 / (0.646 * 300 * 0.92)));
+    expect(aged.headline.cells).toBe(561);
+  });
+
+  it('area-specific resistance: ASR = ASR₀ (1 + r t), 1 %/kh × 5000 h = 0.05, and the voltage is that of a basis giving 1.05 ASR₀', () => {
+    const edits = { 'operating-point.cell-voltage': undefined, 'operating-point.area-specific-resistance': '0.1 ohm cm2' };
+    const aged = calculate(basisFrom('pem', 'power', { ...edits, 'operating-point.degradation': { rate: '1 %/kh', of: 'area-specific-resistance', 'operating-time': '5000 h' } }));
+    expect(aged.degradation!.beginningOfLifeAreaSpecificResistance_ohm_m2).toBeCloseTo(1e-5, 15);
+    expect(aged.electrochemistry.areaSpecificResistance_ohm_m2).toBeCloseTo(1.05e-5, 15);
+    const same = calculate(basisFrom('pem', 'power', { ...edits, 'operating-point.area-specific-resistance': '0.105 ohm cm2' }));
+    expect(aged.headline.cellVoltage_V).toBeCloseTo(same.headline.cellVoltage_V, 12);
+    expect(aged.headline.cellVoltage_V).toBeLessThan(aged.degradation!.beginningOfLifeCellVoltage_V);
+  });
+});
+
+describe('the envelope', () => {
+  it('names for every quantity the extreme over the cases that ran and the case that sets it', () => {
+    expect(thistlemere.envelope.length).toBeGreaterThan(0);
+    for (const row of thistlemere.envelope) {
+      const values = thistlemere.cases.filter((c) => c.ran).map((c) => ({ id: c.id, x: valueAt(c, row.path) })).filter((v) => v.x !== null) as { id: string; x: number }[];
+      const best = row.governs === 'max' ? Math.max(...values.map((v) => v.x)) : Math.min(...values.map((v) => v.x));
+      expect(row.value, row.id).toBe(best);
+      expect(row.case, row.id).toBe(values.find((v) => v.x === best)!.id);
+    }
+  });
+
+  it('sets each quantity by the case a plant designer expects (facts of the trade: at fixed power a lower voltage draws more current and heat; the least load the least flow and the highest voltage; the heaviest gas the least carbon margin)', () => {
+    const by = (id: string) => thistlemere.envelope.find((r) => r.id === id)!.case;
+    expect(by('dc-current')).toBe('end-of-life');
+    expect(by('stack-heat')).toBe('end-of-life');
+    expect(by('air-flow')).toBe('end-of-life');
+    expect(by('fuel-flow')).toBe('end-of-life');
+    expect(by('cell-voltage-lowest')).toBe('end-of-life');
+    expect(by('dc-voltage-lowest')).toBe('end-of-life');
+    expect(by('fuel-flow-least')).toBe('turndown');
+    expect(by('dc-voltage-highest')).toBe('turndown');
+    expect(by('carbon-margin')).toBe('winter-gas');
+    // Power mode makes no hydrogen: the hydrogen rows are left out; the electrolyser has them.
+    expect(thistlemere.envelope.some((r) => r.id.startsWith('hydrogen'))).toBe(false);
+    const k = (id: string) => kestrelford.envelope.find((r) => r.id === id)!;
+    expect(k('hydrogen-least').case).toBe('turndown');
+    expect(k('hydrogen-least').value).toBeCloseTo(150 / 24, 9);
+    expect(k('dc-voltage-highest').case).toBe('end-of-life');
+  });
+
+  it('gives a tie to the earlier case, leaves out cases that did not run and quantities no case has', () => {
+    const quantity = { id: 'q', quantity: 'q', path: 'headline.stackHeat_W', unit: 'W', governs: 'max' as const, sizes: 'test' };
+    const at = (id: string, heat: number | null, ran = true, sizing = false) => ({ ...caseOf(thistlemere, 'rated'), id, sizing, ran, headline: heat === null ? null : { ...thistlemere.headline, stackHeat_W: heat } }) as CaseResult;
+    const rows = envelopeOf([at('a', 5, true, true), at('b', 7), at('c', 7 * (1 + 1e-14)), at('d', 9, false)], [quantity]);
+    expect(rows).toHaveLength(1);
+    expect(rows[0]).toMatchObject({ value: 7, case: 'b', sizingValue: 5 });
+    expect(envelopeOf([at('a', null, true, true)], [quantity])).toEqual([]);
+  });
+
+  it('every quantity of lib/plant/data/envelope.yaml names a number of a case\'s results (checked at load)', () => {
+    const ids = ENVELOPE_QUANTITIES.map((q) => q.id);
+    for (const wanted of ['air-flow', 'fuel-flow', 'water-flow', 'stack-heat', 'dc-current', 'dc-voltage-highest', 'dc-voltage-lowest', 'carbon-margin', 'cell-voltage-lowest', 'hydrogen-most', 'hydrogen-least']) expect(ids).toContain(wanted);
+  });
+});
+
+describe('a case that cannot run is a finding of that case', () => {
+  it('a target beyond the greatest power of the cells: critical case-cannot-run at its target, figures null, the basis still calculates', () => {
+    const results = calculate(
+      basisFrom('pem', 'power', {
+        cases: {
+          rated: { title: 'Rated', purpose: 'Sizing.', sizing: true },
+          overload: { title: 'Overload', purpose: 'Ten times rated.', overrides: { 'operating-point': { 'target-power': '1000 kW' } } },
+        },
+      }),
+    );
+    const c = caseOf(results, 'overload');
+    expect(c.ran).toBe(false);
+    expect(c.headline).toBeNull();
+    expect(c.curve).toEqual([]);
+    expect(c.findings).toHaveLength(1);
+    expect(c.findings[0]).toMatchObject({ code: 'case-cannot-run', severity: 'critical', path: 'cases.overload.overrides.operating-point.target-power' });
+    expect(c.findings[0]!.message).toMatch(/cannot deliver 1000 kW net: the most they deliver at this operating point is .* kW net/);
+    // The greatest power the message names lies below the target and above rated.
+    const most = Number(/the most they deliver at this operating point is ([\d.]+) kW/.exec(c.findings[0]!.message)![1]);
+    // Maximum power transfer of a source E behind a resistance ASR: j* = E/(2 ASR), p* = E²/(4 ASR)
+    // per area (any circuits text); N A (1 − f) p* = 533 × 300 cm2 × 0.92 × 1.16176²/(4 × 0.48176 ohm cm2)
+    // = 103.03 kW at 1.2057 A/cm2 (hand, from the sizing case's effective Nernst voltage and resistance).
+    // 0.2 %: the message's four figures, and E varies a little along the hydrogen path.
+    const e = results.electrochemistry.effectiveNernst_V;
+    const asr = results.electrochemistry.areaSpecificResistance_ohm_m2;
+    const pStar = ((e * e) / (4 * asr)) * 533 * 0.03 * 0.92;
+    expect(results.headline.cells).toBe(533);
+    expect(pStar / 1000).toBeCloseTo(103.03, 1);
+    expect(Math.abs(most * 1000 - pStar) / pStar).toBeLessThan(2e-3);
+    const at = Number(/at ([\d.]+) A\/cm2/.exec(c.findings[0]!.message)![1]);
+    expect(Math.abs(at * 1e4 - e / (2 * asr)) / (e / (2 * asr))).toBeLessThan(2e-3);
+    expect(results.envelope.every((r) => r.case !== 'overload')).toBe(true);
+    expect(results.notes.some((n) => n.message.startsWith('case overload: '))).toBe(true);
+  });
+});
