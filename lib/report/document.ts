@@ -22,6 +22,7 @@ import { inputsSection, type InputsSection } from './sections/inputs.ts';
 import { assumptionsSection, type AssumptionsSection } from './sections/assumptions.ts';
 import { figureTables, streamTable, type FigureTable } from './sections/results-tables.ts';
 import { hazardsSection, type HazardsSection } from './sections/hazards.ts';
+import { casesSection, type CasesSection } from './sections/cases.ts';
 import { verificationSection, type VerificationSection } from './sections/verification.ts';
 import { referencesSection, type ReferencesSection } from './sections/references.ts';
 import { historySection, type HistorySection } from './sections/history-view.ts';
@@ -71,6 +72,7 @@ export interface DocumentView {
   assumptions: AssumptionsSection;
   method: MethodStep[];
   results: { groups: LineGroup[]; figures: FigureTable[]; streams: Table };
+  cases: CasesSection;
   figures: Figure[];
   hazards: HazardsSection;
   verification: VerificationSection;
@@ -113,6 +115,7 @@ export function documentView(input: DocumentInput, options: DocumentOptions): Do
     assumptions: assumptionsSection(basis),
     method,
     results: { groups: resultLines(results, basis, book), figures: figureTables(results), streams: streamTable(results) },
+    cases: casesSection(results, basis, book),
     figures: figures(results),
     hazards: hazardsSection(results),
     verification: verificationSection(checks, toolVersion(), results.tool.version),

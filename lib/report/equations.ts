@@ -389,6 +389,36 @@ function carbonEquations(): EquationEntry[] {
 }
 
 /** Every equation a document of these results can number, by key. */
+/**
+ * The operating cases, where the basis has them: the load a case meets on the sizing case's N
+ * cells of area A (the current density j its solve finds), and the linear degradation law at
+ * the end of life (common practice, no source), V = V₀ (1 ∓ r t) or ASR = ASR₀ (1 + r t).
+ */
+function caseEquations(r: Results): EquationEntry[] {
+  const out: EquationEntry[] = [];
+  const power = r.technology.mode === 'power';
+  const [N, j, A, V, f, M] = ['N', 'j', 'A', 'V', 'f_\\mathrm{par}', 'M_\\mathrm{H_2}'].map((s) => sym(s)) as Symbol[];
+  if (r.cases.some((c) => c.load === 'target-power' || c.load === 'target-hydrogen')) {
+    const relations: Record<string, Relation> = power
+      ? { power: { lhs: sym('P_\\mathrm{net}'), symbols: { N: N!, j: j!, A: A!, V: V!, f: f! }, rhs: (q, op) => `${q.N}${op.times}${q.j}${op.times}${q.A}${op.times}${q.V}${op.times}(1 - ${q.f})` } }
+      : {
+          power: { lhs: sym('P'), symbols: { N: N!, j: j!, A: A!, V: V! }, rhs: (q, op) => `${q.N}${op.times}${q.j}${op.times}${q.A}${op.times}${q.V}` },
+          hydrogen: { lhs: sym('\\dot m_\\mathrm{H_2}'), symbols: { N: N!, j: j!, A: A!, M: M!, F }, rhs: (q, op) => `\\frac{${q.N}${op.times}${q.j}${op.times}${q.A}${op.times}${q.M}}{2${op.times}${q.F}}` },
+        };
+    out.push(entry('case-load', relations));
+  }
+  if (r.degradation || r.cases.some((c) => c.degradation)) {
+    const [V0, rate, t, R0] = [sym('V_0'), sym('r'), sym('t'), sym('\\mathrm{ASR}_0')];
+    out.push(
+      entry('degradation', {
+        voltage: { lhs: V!, symbols: { V0, r: rate, t }, rhs: (q, op) => `${q.V0}${op.times}${op.open}1 ${power ? '-' : '+'} ${q.r}${op.times}${q.t}${op.close}` },
+        resistance: { lhs: sym('\\mathrm{ASR}'), symbols: { R0, r: rate, t }, rhs: (q, op) => `${q.R0}${op.times}${op.open}1 + ${q.r}${op.times}${q.t}${op.close}` },
+      }),
+    );
+  }
+  return out;
+}
+
 export function equationTable(r: Results): Map<string, EquationEntry> {
   const all = [
     ...electrodeEquations(r),
@@ -400,6 +430,7 @@ export function equationTable(r: Results): Map<string, EquationEntry> {
     ...efficiencyEquations(r),
     ...heatEquations(r),
     ...carbonEquations(),
+    ...caseEquations(r),
   ];
   return new Map(all.map((e) => [e.key, e]));
 }

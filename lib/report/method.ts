@@ -283,6 +283,27 @@ function carbon(step: Step): void {
     .eq('carbon-margin');
 }
 
+function cases(step: Step, r: Results, table: ReadonlyMap<string, EquationEntry>): void {
+  step.text(
+    'The sizing case fixes the hardware: the cell count $N$, the active area $A$ of a cell and the area-specific resistance of new cells at the sizing case\'s temperature (a resistance law scales it from there). Every other case runs on that hardware, its fuel path, voltage, flows and heat following from the equations above with its own values.',
+  );
+  if (table.has('case-load')) {
+    step
+      .text(
+        r.technology.mode === 'power'
+          ? 'A case that states a target power finds the current density $j$ at which the $N$ cells deliver it, on the rising branch of the power curve (the first crossing from below; a target above the greatest power cannot be met and is a finding of the case):'
+          : 'A case that states a target hydrogen production or power input finds the current density $j$ at which the $N$ cells meet it:',
+      )
+      .eq('case-load');
+  }
+  if (table.has('degradation')) {
+    step
+      .text('At the end of life the cell voltage (at the same current density) or the area-specific resistance has changed in proportion to the operating time $t$ at the stated rate $r$, a linear law (common practice, no source):')
+      .eq('degradation');
+  }
+  step.text('The envelope takes, for each quantity that sizes equipment, the largest or the smallest value over the cases that ran and names the case that sets it.');
+}
+
 /** Replaces {{key}} in a step's text with the equation number (our own markers in our own text). */
 function resolveCitations(steps: MethodStep[], book: EquationBook): void {
   for (const step of steps) {
@@ -313,6 +334,7 @@ export function methodSection(r: Results, book: EquationBook, sectionNumber: num
   ];
   if (hasCarbon(r)) parts.push(['method-carbon', 'Carbon deposition', (s) => carbon(s)]);
   const table = equationTable(r);
+  if (r.cases.length) parts.push(['method-cases', 'Operating cases on the sizing hardware', (s) => cases(s, r, table)]);
   const steps = parts.map(([id, title, fill], i) => {
     const step = new Step(book, table);
     fill(step);

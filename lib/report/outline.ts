@@ -9,6 +9,7 @@ export const OUTLINE = [
   { id: 'assumptions', title: 'Assumptions' },
   { id: 'method', title: 'Method of calculation' },
   { id: 'results', title: 'Results' },
+  { id: 'cases', title: 'Operating cases and envelope' },
   { id: 'charts', title: 'Curves and sensitivity' },
   { id: 'hazards', title: 'Hazards and cautions' },
   { id: 'verification', title: 'Verification against published values' },

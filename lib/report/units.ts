@@ -27,6 +27,9 @@ const UNITS: Record<string, { text: string; tex: string }> = {
   'kJ/mol': { text: 'kJ/mol', tex: '\\mathrm{kJ/mol}' },
   'J/(mol K)': { text: 'J/(mol K)', tex: '\\mathrm{J/(mol\\,K)}' },
   'C/mol': { text: 'C/mol', tex: '\\mathrm{C/mol}' },
+  kh: { text: 'kh', tex: '\\mathrm{kh}' },
+  '1/kh': { text: 'per kh', tex: '\\mathrm{kh^{-1}}' },
+  'ohm m2': { text: 'Ω m²', tex: '\\Omega\\,\\mathrm{m^2}' },
 };
 
 function unit(key: string): { text: string; tex: string } {

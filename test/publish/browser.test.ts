@@ -15,7 +15,7 @@ import { EPOCH, htmlPages, sealedDemoRoot } from '../helpers/site.ts';
 const CHROMIUM = '/usr/bin/chromium';
 const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];
 const ARTIFACTS = join(PACKAGE_ROOT, 'test-artifacts');
-const DOCUMENT_SECTIONS = ['title-block', 'contents', 'purpose', 'summary', 'inputs', 'assumptions', 'method', 'results', 'charts', 'hazards', 'verification', 'references', 'history'];
+const DOCUMENT_SECTIONS = ['title-block', 'contents', 'purpose', 'summary', 'inputs', 'assumptions', 'method', 'results', 'cases', 'charts', 'hazards', 'verification', 'references', 'history'];
 
 const available = existsSync(CHROMIUM);
 if (!available && !process.env.CI) {

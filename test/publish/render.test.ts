@@ -21,7 +21,7 @@ describe('renderDocumentHtml', () => {
   it('links the assets relative to the page and carries every section', () => {
     expect(html).toContain('<link rel="stylesheet" href="../../assets/katex/katex.min.css">');
     expect(html).toContain('<script src="../../assets/charts.js"></script>');
-    for (const id of ['title-block', 'purpose', 'summary', 'inputs', 'assumptions', 'method', 'results', 'charts', 'hazards', 'verification', 'references', 'history']) expect(html).toContain(`id="${id}"`);
+    for (const id of ['title-block', 'purpose', 'summary', 'inputs', 'assumptions', 'method', 'results', 'cases', 'charts', 'hazards', 'verification', 'references', 'history']) expect(html).toContain(`id="${id}"`);
   });
   it('opens the hazards section with the standing notice, before the first caution', () => {
     const hazards = html.slice(html.indexOf('<section id="hazards"'));

@@ -1,0 +1,262 @@
+/**
+ * The section on the operating cases (results.cases, results.envelope): what each case is and
+ * changes, with its sources; the headline numbers of every case side by side, each governing
+ * value marked in words; the envelope, each sizing quantity with its governing value and the case
+ * that sets it; and the worked lines of each case that is not the sizing case (the load it meets,
+ * its degradation, and the lines of every value it governs). The sizing case's own lines are
+ * those of the results section.
+ */
+import type { DesignBasis } from '../../basis/types.ts';
+import type { CaseResult, EnvelopeRow, Results } from '../../plant/results-schema.ts';
+import { getSpecies } from '../../thermo/species-data.ts';
+import { calcLine, type LineSpec } from '../calc-line.ts';
+import type { EquationBook } from '../equation-book.ts';
+import { formatNumber } from '../format.ts';
+import { resultLines, type LineGroup } from '../result-lines.ts';
+import { constF } from '../result-lines/common.ts';
+import { table, type Table } from '../table.ts';
+
+export interface CasesSection {
+  /** Whether the basis defines cases; without them the section says so and shows no tables. */
+  present: boolean;
+  intro: string;
+  definitions: Table;
+  comparison: Table;
+  /** The words that mark a governing value in the comparison, explained once. */
+  legend: string;
+  envelope: Table;
+  lines: LineGroup[];
+}
+
+/** How a number at a results path is shown: its label, the factor to the unit shown, the unit, and the digits. */
+interface Shown {
+  path: string;
+  label: string;
+  factor: number;
+  unit: string;
+  digits?: number;
+  /** Shown only in this mode (the net power of a fuel cell). */
+  mode?: Results['technology']['mode'];
+}
+
+/** The rows of the comparison, in order; every path of lib/plant/data/envelope.yaml is among them (a test checks it). */
+export const CASE_ROWS: readonly Shown[] = [
+  { path: 'operatingPoint.currentDensity_A_per_m2', label: 'Current density', factor: 1e-4, unit: 'A/cm²' },
+  { path: 'headline.cellVoltage_V', label: 'Cell voltage', factor: 1, unit: 'V' },
+  { path: 'headline.stackVoltage_V', label: 'Stack DC voltage', factor: 1, unit: 'V' },
+  { path: 'headline.cellCurrent_A', label: 'Stack DC current (cells in series)', factor: 1, unit: 'A' },
+  { path: 'headline.stackPower_W', label: 'Stack DC power', factor: 1e-3, unit: 'kW' },
+  { path: 'headline.netPower_W', label: 'Net power', factor: 1e-3, unit: 'kW', mode: 'power' },
+  { path: 'headline.hydrogenProduction_kg_per_h', label: 'Hydrogen production', factor: 1, unit: 'kg/h' },
+  { path: 'headline.electricalEfficiencyLhv', label: 'Net electrical efficiency, LHV', factor: 100, unit: '%' },
+  { path: 'efficiency.electrolysisEfficiencyLhv', label: 'Electrolysis efficiency, LHV', factor: 100, unit: '%' },
+  { path: 'headline.stackHeat_W', label: 'Stack heat released', factor: 1e-3, unit: 'kW' },
+  { path: 'heat.heatDemand_W', label: 'Heat to supply', factor: 1e-3, unit: 'kW' },
+  { path: 'supply.air_kg_per_h', label: 'Air or sweep gas supplied', factor: 1, unit: 'kg/h' },
+  { path: 'heat.coolingAir_kg_per_h', label: 'Air to carry the stack heat', factor: 1, unit: 'kg/h' },
+  { path: 'supply.fuel_kg_per_h', label: 'Fuel supplied', factor: 1, unit: 'kg/h' },
+  { path: 'supply.water_kg_per_h', label: 'Water or steam fed', factor: 1, unit: 'kg/h' },
+  { path: 'supply.waterSplit_kg_per_h', label: 'Water split', factor: 1, unit: 'kg/h' },
+  { path: 'heat.coolingWater_kg_per_h', label: 'Water loop to carry the stack heat', factor: 1, unit: 'kg/h' },
+  { path: 'headline.maxLocalCurrentDensity_A_per_m2', label: 'Highest local current density', factor: 1e-4, unit: 'A/cm²' },
+  { path: 'headline.carbonMargin', label: 'Carbon margin (S/C above the least carbon-free)', factor: 1, unit: '' },
+  { path: 'degradation.fraction', label: 'Degradation r t', factor: 100, unit: '%' },
+];
+
+/** The number at a dotted path of a case's results, or null. */
+function at(c: unknown, path: string): number | null {
+  let v = c;
+  for (const key of path.split('.')) v = v !== null && typeof v === 'object' ? (v as Record<string, unknown>)[key] : undefined;
+  return typeof v === 'number' ? v : null;
+}
+
+function shownValue(row: Shown, x: number): string {
+  return `${formatNumber(x * row.factor, row.digits ?? 4)}${row.unit ? ` ${row.unit}` : ''}`;
+}
+
+const LOAD_TEXT: Record<CaseResult['load'], string> = {
+  sizing: 'sizing case: fixes the hardware',
+  'current-density': 'its current density',
+  'target-power': 'its target power, met on the sizing cells',
+  'target-hydrogen': 'its target hydrogen, met on the sizing cells',
+};
+
+function definitions(cases: readonly CaseResult[]): Table {
+  return table(
+    ['Case', 'Title and purpose', 'Load', 'What it changes (source)'],
+    ['left', 'left', 'left', 'left'],
+    cases.map((c) => ({
+      cells: [c.id, `${c.title}. ${c.purpose}`, LOAD_TEXT[c.load], c.overrides.length ? c.overrides.map((o) => `${o.path} = ${o.text}${o.source ? ` (${o.source})` : ''}`).join('; ') : 'nothing: the base values'],
+    })),
+  );
+}
+
+/** The words that mark a governing value: what it is the extreme of, and of which quantity. */
+function marks(envelope: readonly EnvelopeRow[], path: string, caseId: string): string[] {
+  return envelope.filter((e) => e.path === path && e.case === caseId).map((e) => (e.governs === 'max' ? 'highest' : 'lowest'));
+}
+
+function comparison(cases: readonly CaseResult[], envelope: readonly EnvelopeRow[], mode: Results['technology']['mode']): Table {
+  const shown = CASE_ROWS.filter((row) => (row.mode ?? mode) === mode && cases.some((c) => c.ran && at(c, row.path) !== null));
+  const rows = shown.map((row) => ({
+    cells: [
+      `${row.label}${row.unit ? `, ${row.unit}` : ''}`,
+      ...cases.map((c) => {
+        if (!c.ran) return 'did not run';
+        const x = at(c, row.path);
+        if (x === null) return '';
+        const m = marks(envelope, row.path, c.id);
+        return `${formatNumber(x * row.factor, row.digits ?? 4)}${m.length ? ` (${m.join(', ')})` : ''}`;
+      }),
+    ],
+  }));
+  return table(['Quantity', ...cases.map((c) => (c.sizing ? `${c.id} (sizing)` : c.id))], ['left', ...cases.map(() => 'right' as const)], rows);
+}
+
+function envelopeTable(envelope: readonly EnvelopeRow[]): Table {
+  const shownOf = (path: string): Shown => CASE_ROWS.find((r) => r.path === path) ?? { path, label: path, factor: 1, unit: '' };
+  return table(
+    ['Quantity', 'Governed by its', 'Governing value', 'Set by case', 'Sizing case', 'Sizes'],
+    ['left', 'left', 'right', 'left', 'right', 'left'],
+    envelope.map((e) => {
+      const row = shownOf(e.path);
+      return { cells: [e.quantity, e.governs === 'max' ? 'highest' : 'lowest', shownValue(row, e.value), e.case, e.sizingValue === null ? '' : shownValue(row, e.sizingValue), e.sizes] };
+    }),
+  );
+}
+
+/** The results object of a case: the top level with the case's sections in place of the sizing case's. */
+function asResults(r: Results, c: CaseResult): Results {
+  return {
+    ...r,
+    conditions: c.conditions!,
+    headline: c.headline!,
+    electrochemistry: c.electrochemistry!,
+    operatingPoint: c.operatingPoint!,
+    streams: c.streams,
+    efficiency: c.efficiency!,
+    heat: c.heat!,
+    carbon: c.carbon!,
+    supply: c.supply!,
+    degradation: c.degradation,
+    findings: c.findings,
+  };
+}
+
+/** The line of the load a target case meets on the sizing cells. */
+function loadLine(r: Results, c: CaseResult): LineSpec | null {
+  if (c.load !== 'target-power' && c.load !== 'target-hydrogen') return null;
+  const h = c.headline!;
+  const o = c.operatingPoint!;
+  const common = [
+    { name: 'N', value: h.cells, unit: '', origin: 'cell count of the sizing case' },
+    { name: 'j', value: o.currentDensity_A_per_m2, unit: 'A/m2', origin: 'current density that meets the target (solved)' },
+    { name: 'A', value: o.activeArea_m2, unit: 'm2', origin: 'active area of the sizing case' },
+  ];
+  const id = `case-${c.id}-load`;
+  if (c.load === 'target-hydrogen' && h.hydrogenProduction_kg_per_h !== null) {
+    // Every two electrons of the ionic current make one H₂ where nothing else is reduced (no co-electrolysis).
+    if (c.efficiency!.carbonMonoxideProduction_mol_per_s) return null;
+    const ionic = { name: 'j', value: c.electrochemistry!.ionicCurrentDensity_A_per_m2, unit: 'A/m2', origin: 'ionic current density at the solved current density (the current that splits water)' };
+    return {
+      id,
+      title: `Case ${c.id}: hydrogen the sizing cells make at the solved current density`,
+      equation: 'case-load',
+      relation: 'hydrogen',
+      quantities: [common[0]!, ionic, common[2]!, { name: 'M', value: getSpecies('H2').molarMassKgPerMol, unit: 'kg/mol', origin: 'species data' }, constF],
+      conversion: ' \\times 86\\,400\\,\\mathrm{s/day}',
+      value: h.hydrogenProduction_kg_per_day!,
+      unit: 'kg/day',
+      note: 'equal to the target of the case: the current density is the root of this relation',
+    };
+  }
+  const V = { name: 'V', value: h.cellVoltage_V, unit: 'V', origin: 'cell voltage of the case at j' };
+  return r.technology.mode === 'power'
+    ? {
+        id,
+        title: `Case ${c.id}: net power of the sizing cells at the solved current density`,
+        equation: 'case-load',
+        relation: 'power',
+        quantities: [...common, V, { name: 'f', value: o.parasiticFraction, unit: '', origin: 'parasitic load, design input' }],
+        conversion: ' \\times 10^{-3}',
+        value: h.netPower_W! / 1000,
+        unit: 'kW',
+        note: 'equal to the target of the case: the current density is the root of this relation',
+      }
+    : { id, title: `Case ${c.id}: power input of the sizing cells at the solved current density`, equation: 'case-load', relation: 'power', quantities: [...common, V], conversion: ' \\times 10^{-3}', value: h.stackPower_W / 1000, unit: 'kW' };
+}
+
+/** The line of the case's degradation. */
+function degradationLine(c: CaseResult): LineSpec | null {
+  const d = c.degradation;
+  if (!d) return null;
+  const rate = { name: 'r', value: d.rate_per_h * 1000, unit: '1/kh', origin: 'degradation rate, case input' };
+  const time = { name: 't', value: d.operatingTime_h / 1000, unit: 'kh', origin: 'operating time, case input' };
+  const id = `case-${c.id}-degradation`;
+  if (d.of === 'cell-voltage') {
+    return {
+      id,
+      title: `Case ${c.id}: cell voltage at the end of life`,
+      equation: 'degradation',
+      relation: 'voltage',
+      quantities: [{ name: 'V0', value: d.beginningOfLifeCellVoltage_V, unit: 'V', origin: 'new cell at the same current density' }, rate, time],
+      value: c.headline!.cellVoltage_V,
+      unit: 'V',
+    };
+  }
+  return {
+    id,
+    title: `Case ${c.id}: area-specific resistance at the end of life`,
+    equation: 'degradation',
+    relation: 'resistance',
+    quantities: [{ name: 'R0', value: d.beginningOfLifeAreaSpecificResistance_ohm_m2 * 1e4, unit: 'ohm cm2', origin: 'new cell, from the sizing case' }, rate, time],
+    value: c.electrochemistry!.areaSpecificResistance_ohm_m2 * 1e4,
+    unit: 'ohm cm2',
+  };
+}
+
+/** The worked lines of section 6 that derive each envelope quantity (by envelope id). */
+const GOVERNING_LINES: Readonly<Record<string, readonly string[]>> = {
+  'dc-current': ['cell-current'],
+  'dc-power': ['stack-power'],
+  'stack-heat': ['heat-balance'],
+  'air-flow': ['air-flow'],
+  'fuel-flow': ['fuel-flow'],
+  'fuel-flow-least': ['fuel-flow'],
+  'carbon-margin': ['carbon-margin'],
+  'hydrogen-most': ['hydrogen'],
+  'hydrogen-least': ['hydrogen'],
+};
+
+/** The groups of section 6 whose lines read only the case's own sections (not the sizing case's fuel path). */
+const CASE_GROUPS = new Set(['results-size', 'results-flows', 'results-heat', 'results-carbon']);
+
+function caseLines(r: Results, basis: DesignBasis, c: CaseResult, book: EquationBook): LineGroup {
+  const own = [loadLine(r, c), degradationLine(c)].filter((s): s is LineSpec => s !== null).map((s) => calcLine(s, book));
+  const wanted = new Set(r.envelope.filter((e) => e.case === c.id).flatMap((e) => GOVERNING_LINES[e.id] ?? []));
+  const caseBasis = basis.cases.find((k) => k.id === c.id)?.basis ?? basis;
+  const governing = wanted.size
+    ? resultLines(asResults(r, c), caseBasis, book)
+        .filter((g) => CASE_GROUPS.has(g.id))
+        .flatMap((g) => g.lines)
+        .filter((l) => wanted.has(l.id))
+        .map((l) => ({ ...l, id: `case-${c.id}-${l.id}`, title: `Case ${c.id}: ${l.title.charAt(0).toLowerCase()}${l.title.slice(1)}` }))
+    : [];
+  return { id: `cases-${c.id}`, title: `Case ${c.id}: ${c.title}`, lines: [...own, ...governing] };
+}
+
+export function casesSection(r: Results, basis: DesignBasis, book: EquationBook): CasesSection {
+  const cases = r.cases;
+  const sizing = cases.find((c) => c.sizing);
+  return {
+    present: cases.length > 0,
+    intro: cases.length
+      ? `The basis defines ${cases.length} operating cases. Case ${sizing?.id ?? ''} is the sizing case: its cell count, active area and cell resistance are the hardware on which every other case runs at its own load, and its results are those of the sections above. Each governing value is marked "highest" or "lowest" beside its number.`
+      : 'The basis defines one operating point, its base values, which is the sizing case of the sections above.',
+    definitions: definitions(cases),
+    comparison: comparison(cases, r.envelope, r.technology.mode),
+    legend: '"highest" or "lowest" beside a number: this case sets the governing value of the quantity in the envelope below.',
+    envelope: envelopeTable(r.envelope),
+    lines: cases.filter((c) => !c.sizing && c.ran).map((c) => caseLines(r, basis, c, book)).filter((g) => g.lines.length > 0),
+  };
+}
