@@ -12,7 +12,11 @@
  *   - assumptions and references by id: added, removed, changed (text, open flag, reference);
  *   - results: the headline numbers that changed, with old, new, absolute and relative change:
  *     "mean Nernst voltage 0.9286 V → 0.9340 V (+5.4 mV, +0.58 %)". Numbers that agree within
- *     rounding (tolerance.ts) count as unchanged.
+ *     rounding (tolerance.ts) count as unchanged;
+ *   - cases by id: added, removed, and changed (title, purpose, whether it ran, its headline
+ *     numbers as above: "case turndown: cell voltage 0.8724 V → 0.8690 V (...)"); the sizing
+ *     case's numbers are the results above and are not repeated;
+ *   - envelope values by quantity: added, removed, and a changed value or governing case.
  *
  * `summary` holds one readable line per change, in that order; `unchanged` is true when there is
  * none. Usage (site build, revision history):
@@ -27,6 +31,7 @@ import type { Results } from '../plant/results-schema.ts';
 import { childPath, diffTrees, treeText, type Tree } from './tree-diff.ts';
 import { sameWithinRounding } from './tolerance.ts';
 import { HEADLINE_QUANTITIES, formatChange, formatValue } from './headline-quantities.ts';
+import { sig } from '../core/plain-text.ts';
 
 export interface RevisionSide {
   basis: DesignBasis;
@@ -100,6 +105,23 @@ export interface ResultChange {
   text: string;
 }
 
+export interface CaseChange {
+  id: string;
+  kind: 'added' | 'removed' | 'changed';
+  /** Changed: its headline numbers that changed (as in `results`). */
+  results: ResultChange[];
+  text: string;
+}
+
+export interface EnvelopeChange {
+  /** The quantity's id in lib/plant/data/envelope.yaml. */
+  id: string;
+  kind: 'added' | 'removed' | 'changed';
+  old?: { value: number; case: string };
+  new?: { value: number; case: string };
+  text: string;
+}
+
 export interface RevisionChanges {
   from: { revision: string; status: string };
   to: { revision: string; status: string };
@@ -108,6 +130,8 @@ export interface RevisionChanges {
   assumptions: AssumptionChange[];
   references: ReferenceChange[];
   results: ResultChange[];
+  cases: CaseChange[];
+  envelope: EnvelopeChange[];
   summary: string[];
   unchanged: boolean;
 }
@@ -258,11 +282,11 @@ function referenceChanges(a: Reference[], b: Reference[]): ReferenceChange[] {
   return out;
 }
 
-function resultChanges(a: Results, b: Results): ResultChange[] {
+function resultChanges(a: Results['headline'] | null, b: Results['headline'] | null): ResultChange[] {
   const out: ResultChange[] = [];
   for (const q of HEADLINE_QUANTITIES) {
-    const old = a.headline[q.key];
-    const next = b.headline[q.key];
+    const old = a ? a[q.key] : null;
+    const next = b ? b[q.key] : null;
     if (old === null && next === null) continue;
     if (old !== null && next !== null && sameWithinRounding(old, next)) continue;
     const delta = old !== null && next !== null ? next - old : null;
@@ -276,13 +300,70 @@ function resultChanges(a: Results, b: Results): ResultChange[] {
   return out;
 }
 
+/** The cases of two results by id (results sealed before cases existed have none). */
+function caseChanges(a: Results, b: Results): CaseChange[] {
+  const before = a.cases ?? [];
+  const after = new Map((b.cases ?? []).map((c) => [c.id, c]));
+  const out: CaseChange[] = [];
+  for (const old of before) {
+    const next = after.get(old.id);
+    if (!next) {
+      out.push({ id: old.id, kind: 'removed', results: [], text: `case ${old.id} removed: ${old.title}` });
+      continue;
+    }
+    const words: string[] = [];
+    if (old.title !== next.title) words.push(`title "${old.title}" → "${next.title}"`);
+    if (old.purpose !== next.purpose) words.push(`purpose "${old.purpose}" → "${next.purpose}"`);
+    if (old.sizing !== next.sizing) words.push(next.sizing ? 'now the sizing case' : 'no longer the sizing case');
+    if (old.ran !== next.ran) words.push(next.ran ? 'now runs' : 'no longer runs on the sizing hardware');
+    // The sizing case's numbers are the top-level results, compared there.
+    const results = old.sizing && next.sizing ? [] : resultChanges(old.headline, next.headline);
+    words.push(...results.map((r) => r.text));
+    if (words.length) out.push({ id: old.id, kind: 'changed', results, text: `case ${old.id}: ${words.join('; ')}` });
+  }
+  const ids = new Set(before.map((c) => c.id));
+  for (const next of b.cases ?? []) if (!ids.has(next.id)) out.push({ id: next.id, kind: 'added', results: [], text: `case ${next.id} added: ${next.title}` });
+  return out;
+}
+
+/** The envelope of two results by quantity: a governing value or case that changed. */
+function envelopeChanges(a: Results, b: Results): EnvelopeChange[] {
+  const before = a.envelope ?? [];
+  const after = new Map((b.envelope ?? []).map((e) => [e.id, e]));
+  const shown = (value: number, unit: string) => `${sig(value, 4)}${unit === '1' ? '' : ` ${unit}`}`;
+  const out: EnvelopeChange[] = [];
+  for (const old of before) {
+    const next = after.get(old.id);
+    const was = { value: old.value, case: old.case };
+    if (!next) {
+      out.push({ id: old.id, kind: 'removed', old: was, text: `envelope: ${old.quantity} no longer applies (was ${shown(old.value, old.unit)}, case ${old.case})` });
+      continue;
+    }
+    if (sameWithinRounding(old.value, next.value) && old.case === next.case) continue;
+    out.push({
+      id: old.id,
+      kind: 'changed',
+      old: was,
+      new: { value: next.value, case: next.case },
+      text: `envelope: ${next.quantity} ${shown(old.value, old.unit)} (case ${old.case}) → ${shown(next.value, next.unit)} (case ${next.case})`,
+    });
+  }
+  const ids = new Set(before.map((e) => e.id));
+  for (const next of b.envelope ?? []) {
+    if (!ids.has(next.id)) out.push({ id: next.id, kind: 'added', new: { value: next.value, case: next.case }, text: `envelope: ${next.quantity} ${shown(next.value, next.unit)} (case ${next.case}) added` });
+  }
+  return out;
+}
+
 export function compareRevisions(a: RevisionSide, b: RevisionSide): RevisionChanges {
   const inputs = inputChanges(a.basis.inputs, b.basis.inputs);
   const fields = fieldChanges(a, b);
   const assumptions = assumptionChanges(a.basis.assumptions, b.basis.assumptions);
   const references = referenceChanges(a.basis.references, b.basis.references);
-  const results = resultChanges(a.results, b.results);
-  const summary = [...inputs, ...fields, ...assumptions, ...references, ...results].map((c) => c.text);
+  const results = resultChanges(a.results.headline, b.results.headline);
+  const cases = caseChanges(a.results, b.results);
+  const envelope = envelopeChanges(a.results, b.results);
+  const summary = [...inputs, ...fields, ...assumptions, ...references, ...results, ...cases, ...envelope].map((c) => c.text);
   return {
     from: { revision: a.basis.document.revision, status: a.basis.document.status },
     to: { revision: b.basis.document.revision, status: b.basis.document.status },
@@ -291,6 +372,8 @@ export function compareRevisions(a: RevisionSide, b: RevisionSide): RevisionChan
     assumptions,
     references,
     results,
+    cases,
+    envelope,
     summary,
     unchanged: summary.length === 0,
   };

@@ -86,4 +86,37 @@ describe('compareRevisions', () => {
     const { source: _b, ...b } = side(edit(BASE, ['  title: 250 kW', '  title: 260 kW']));
     expect(compareRevisions(a, b).fields.map((c) => c.path)).toEqual(['document.title']);
   });
+
+  it('reports added, removed and changed cases and the envelope values they move', () => {
+    const cases = (turndown: string, extra = '') =>
+      `${BASE}\ncases:\n  rated: { title: Rated, purpose: Sizing., sizing: true }\n  turndown:\n    title: Turndown\n    purpose: The least fuel flow.\n    overrides:\n      operating-point:\n        current-density: "${turndown}"\n${extra}`;
+    const hot = '  hot:\n    title: Hot\n    purpose: The hottest stack.\n    overrides:\n      conditions:\n        operating-temperature: "820 C"\n';
+    const a = side(cases('0.10 A/cm2', hot));
+    const b = side(cases('0.12 A/cm2'));
+    const changes = compareRevisions(a, b);
+    // The sizing case is the same: its numbers and the top-level results do not change.
+    expect(changes.results).toEqual([]);
+    expect(changes.cases.map((c) => [c.id, c.kind])).toEqual([
+      ['turndown', 'changed'],
+      ['hot', 'removed'],
+    ]);
+    // Two independent calculations: the turndown case's cell voltage before and after.
+    const before = a.results.cases.find((c) => c.id === 'turndown')!.headline!.cellVoltage_V;
+    const after = b.results.cases.find((c) => c.id === 'turndown')!.headline!.cellVoltage_V;
+    const voltage = changes.cases[0]!.results.find((r) => r.key === 'cellVoltage_V')!;
+    expect(voltage.old).toBe(before);
+    expect(voltage.new).toBe(after);
+    // More current through the same resistance: a lower voltage (power mode).
+    expect(after).toBeLessThan(before);
+    expect(changes.cases[0]!.text).toMatch(/^case turndown: .*cell voltage /);
+    expect(changes.cases[1]!.text).toBe('case hot removed: Hot');
+    // The least fuel flow is the turndown case's in both, and it grew with its current density.
+    const least = changes.envelope.find((e) => e.id === 'fuel-flow-least')!;
+    expect(least).toMatchObject({ kind: 'changed', old: { case: 'turndown' }, new: { case: 'turndown' } });
+    expect(least.new!.value / least.old!.value).toBeCloseTo(0.12 / 0.1, 9);
+    expect(changes.summary).toContain(changes.cases[0]!.text);
+    expect(changes.summary).toContain(least.text);
+    // And back: the case is added again.
+    expect(compareRevisions(b, a).cases.find((c) => c.id === 'hot')).toMatchObject({ kind: 'added', text: 'case hot added: Hot' });
+  });
 });

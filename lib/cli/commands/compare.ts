@@ -1,7 +1,7 @@
 /**
  * `cellbasis compare ID REV_A REV_B [--json]`: what changed from one revision to another
  * (either may be `draft`, the working basis): inputs as written, other fields, assumptions,
- * references and headline results (lib/archive/compare.ts). A readable table, or with --json
+ * references, headline results, operating cases and the envelope (lib/archive/compare.ts). A readable table, or with --json
  * the RevisionChanges object.
  */
 import type { Command } from '../command.ts';
@@ -20,6 +20,7 @@ function sections(changes: RevisionChanges): string {
   if (changes.results.length) {
     out.push(`headline results changed\n${grid(['result', 'old', 'new', 'change'], changes.results.map((r) => [r.label, r.oldText, r.newText, r.changeText]))}`);
   }
+  out.push(...lines('operating cases', changes.cases), ...lines('envelope', changes.envelope));
   return out.join('\n');
 }
 
@@ -38,7 +39,7 @@ export const compareCommand: Command = {
   details:
     'REV_A and REV_B are sealed revisions (A, B, 0, ...) or "draft" for the working basis; sealed revisions are read as\n' +
     'sealed, the draft is calculated now. With --json prints one object: inputs, fields, assumptions, references,\n' +
-    'results (old, new, delta and relative change in SI) and summary lines.',
+    'results (old, new, delta and relative change in SI), cases, envelope and summary lines.',
   positionals: [3, 3],
   options: [JSON_OPTION],
   async run(args, io) {
