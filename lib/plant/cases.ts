@@ -98,18 +98,24 @@ const CURVE_POINTS = 25;
  * own by the flows' proportionality to the ionic current at fixed utilization:
  *   power:        η(j) = η_case · (j V(j) / j_ion(j)) / (j_c V_c / j_ion,c)
  *   electrolysis: η(j) = η_case · (j_ion(j) / (j V(j))) / (j_ion,c / (j_c V_c))
- * A current density at which the cell has no voltage ends the curve.
+ * A current density at which the cell has no voltage ends the curve. A case whose voltage is
+ * given runs along the curve on the resistance that voltage implies.
  */
 function curveOf(point: DesignPoint, efficiency: number, jMax: number): CaseResult['curve'] {
   const power = point.inputs.mode === 'power';
   const ratio = (j: number, v: number, ionic: number) => (power ? (j * v) / ionic : ionic / (j * v));
   const own = ratio(point.inputs.currentDensityAPerM2, point.voltage.cellVoltageV, point.voltage.ionicCurrentDensityAPerM2);
+  // A given voltage holds at its own current density only: along the curve the cell has the resistance it implies.
+  const held: DesignInputs =
+    point.inputs.voltage.kind === 'given'
+      ? { ...point.inputs, voltage: { kind: 'area-specific-resistance', ohmM2: point.degradation?.beginningOfLifeResistanceOhmM2 ?? point.voltage.areaSpecificResistanceOhmM2 } }
+      : point.inputs;
   const out: CaseResult['curve'] = [];
   for (let k = 1; k <= CURVE_POINTS; k++) {
     const j = (jMax * k) / CURVE_POINTS;
     let voltage;
     try {
-      voltage = cellVoltageOf({ ...point.inputs, currentDensityAPerM2: j }, point.path).voltage;
+      voltage = cellVoltageOf({ ...held, currentDensityAPerM2: j }, point.path).voltage;
     } catch (error) {
       if (error instanceof UserError) break;
       throw error;

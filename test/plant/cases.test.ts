@@ -11,6 +11,7 @@ import { loadBasisText } from '../../lib/basis/load.ts';
 import type { DesignBasis } from '../../lib/basis/types.ts';
 import type { CaseResult, Results } from '../../lib/plant/results-schema.ts';
 import { ENVELOPE_QUANTITIES, envelopeOf, valueAt } from '../../lib/plant/envelope.ts';
+import { everyFinding } from '../../lib/plant/findings.ts';
 import { basisFrom } from '../helpers/scaffold-basis.ts';
 
 /** A demo's basis text with its cases removed and `edits` applied (dotted path → value; undefined deletes). */
@@ -287,6 +288,6 @@ describe('a case that cannot run is a finding of that case', () => {
     const at = Number(/at ([\d.]+) A\/cm2/.exec(c.findings[0]!.message)![1]);
     expect(Math.abs(at * 1e4 - e / (2 * asr)) / (e / (2 * asr))).toBeLessThan(2e-3);
     expect(results.envelope.every((r) => r.case !== 'overload')).toBe(true);
-    expect(results.notes.some((n) => n.message.startsWith('case overload: '))).toBe(true);
+    expect(everyFinding(results).some((f) => f.message.startsWith('case overload: '))).toBe(true);
   });
 });

@@ -100,3 +100,26 @@ it('the end-of-life lines follow the degradation by hand: 0.7587 V × (1 − 0.0
   expect(line.value).toBeCloseTo(line.inputs.V0! * 0.88, 12);
   expect(line.result).toBe('0.66768 V');
 });
+
+it('draws each case on its own curve: the operating point lies between the curve\'s neighbouring points, voltage falling with current in power mode and rising in electrolysis', () => {
+  for (const id of ['thistlemere-sofc-chp', 'kestrelford-pem-electrolyser']) {
+    const { basis, results } = demo(id);
+    const view = documentView({ basis, results, revision: draft, history: [] }, { assetBase: './', checks: [] });
+    const figure = view.figures.find((f) => f.id === 'fig-cases');
+    expect(figure?.kind, id).toBe('chart');
+    const power = results.technology.mode === 'power';
+    for (const c of results.cases) {
+      const j = c.operatingPoint!.currentDensity_A_per_m2;
+      const k = c.curve.findIndex((p) => p.currentDensity_A_per_m2 >= j);
+      expect(k, `${id} ${c.id}`).toBeGreaterThan(0);
+      const [lo, hi] = [c.curve[k - 1]!, c.curve[k]!];
+      const v = c.headline!.cellVoltage_V;
+      expect(v, `${id} ${c.id}`).toBeLessThanOrEqual(Math.max(lo.cellVoltage_V, hi.cellVoltage_V) + 1e-12);
+      expect(v, `${id} ${c.id}`).toBeGreaterThanOrEqual(Math.min(lo.cellVoltage_V, hi.cellVoltage_V) - 1e-12);
+      for (let i = 1; i < c.curve.length; i++) {
+        const dv = c.curve[i]!.cellVoltage_V - c.curve[i - 1]!.cellVoltage_V;
+        expect(power ? dv < 0 : dv > 0, `${id} ${c.id} at ${i}`).toBe(true);
+      }
+    }
+  }
+});

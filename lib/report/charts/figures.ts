@@ -1,10 +1,11 @@
 /**
- * The figures of section 7, each drawn from the results (sweeps, fuel path, sensitivities) with
+ * The figures of the curves-and-sensitivity section, each drawn from the results (sweeps, fuel path, sensitivities) with
  * the design point marked: voltages and efficiency limits against temperature, Nernst voltage
  * and gas composition along the fuel path, local current density and Nernst voltage along the
  * cell with its hot spot, carbon activity against steam-to-carbon ratio (or a statement where the
  * fuel has no carbon), polarisation, heat and power against current density, the stack at other
- * temperatures, and a tornado per headline result of the sensitivity study.
+ * temperatures, the operating cases on their curves, and a tornado per headline result of the
+ * sensitivity study.
  */
 import type { Results } from '../../plant/results-schema.ts';
 import { formatNumber, formatPercent } from '../format.ts';
@@ -440,6 +441,44 @@ function tornado(r: Results, output: Output): Draft {
   };
 }
 
+/**
+ * Each operating case on its own polarisation and efficiency curve (results.cases[].curve: the
+ * case's fuel path, utilization and resistance held, its degradation included), with the case's
+ * operating point marked on both; null where no case has a curve.
+ */
+function casesCurves(r: Results): Draft | null {
+  const ran = r.cases.filter((c) => c.curve.length > 0 && c.headline && c.operatingPoint);
+  if (ran.length === 0) return null;
+  const power = r.technology.mode === 'power';
+  const efficiencyOf = (c: (typeof ran)[number]) => (power ? c.efficiency!.electricalEfficiencyLhvNet : c.efficiency!.electrolysisEfficiencyLhv) ?? 0;
+  const series: LineSeries[] = ran.flatMap((c, k): LineSeries[] => {
+    const j = c.operatingPoint!.currentDensity_A_per_m2 / 1e4;
+    return [
+      { label: `${c.id}: cell voltage`, points: c.curve.map((p) => [p.currentDensity_A_per_m2 / 1e4, p.cellVoltage_V]), style: k },
+      { label: `${c.id}: efficiency`, points: c.curve.map((p) => [p.currentDensity_A_per_m2 / 1e4, p.efficiency * 100]), style: k, dashed: true, right: true },
+      { label: `${c.id}: operating point`, points: [[j, c.headline!.cellVoltage_V]], style: k, marker: true },
+      { label: `${c.id}: its efficiency`, points: [[j, efficiencyOf(c) * 100]], style: k, marker: true, right: true },
+    ];
+  });
+  const grid = ran.reduce((longest, c) => (c.curve.length > longest.length ? c.curve : longest), ran[0]!.curve);
+  const at = (c: (typeof ran)[number], i: number, pick: (p: (typeof grid)[number]) => number) => (c.curve[i] ? pick(c.curve[i]!) : null);
+  return {
+    id: 'fig-cases',
+    title: 'Cell voltage and efficiency of the operating cases',
+    caption: `Each case on the hardware of the sizing case: its cell voltage (solid, left axis) and ${power ? 'net electrical efficiency, LHV' : 'electrolysis efficiency on the LHV of hydrogen'} (dashed, right axis) against current density, its utilization, gas and resistance held, with its operating point marked on both.`,
+    spec: { kind: 'line', x: jAxis(), y: { title: 'Cell voltage (V)' }, y2: { title: 'Efficiency (%)' }, series },
+    data: chartData(
+      [
+        { header: 'current density (A/cm²)', values: grid.map((p) => p.currentDensity_A_per_m2 / 1e4) },
+        ...ran.map((c) => ({ header: `${c.id}: cell voltage (V)`, values: grid.map((_, i) => at(c, i, (p) => p.cellVoltage_V)), digits: 5 })),
+        ...ran.map((c) => ({ header: `${c.id}: efficiency (%)`, values: grid.map((_, i) => at(c, i, (p) => p.efficiency * 100)) })),
+      ],
+      `${r.project.id}-cases.csv`,
+    ),
+    notes: r.cases.filter((c) => !c.ran).map((c) => `Case ${c.id} could not run on the sizing hardware (its finding says why) and is not drawn.`),
+  };
+}
+
 export function figures(r: Results): Figure[] {
   const stack = stackAgainstTemperature(r);
   const drafts: Draft[] = [
@@ -453,6 +492,8 @@ export function figures(r: Results): Figure[] {
     heatAndPower(r),
     ...(stack ? [stack] : []),
   ];
+  const cases = casesCurves(r);
+  if (cases) drafts.push(cases);
   if (r.sensitivities.length) drafts.push(tornado(r, 'cellVoltage_V'), tornado(r, 'efficiency'), tornado(r, 'stackHeat_W'));
   return drafts.map((d, i): Figure => {
     if ('kind' in d && d.kind === 'statement') return { ...d, number: i + 1 };
