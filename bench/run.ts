@@ -5,6 +5,7 @@
 import { benchThermo } from './thermo.ts';
 import { benchEquilibrium } from './equilibrium.ts';
 import { benchCalc } from './calc.ts';
+import { benchCases } from './cases.ts';
 import { benchSite } from './site.ts';
 import { printTable, type Row } from './measure.ts';
 
@@ -12,6 +13,7 @@ const sections: Record<string, () => Promise<Row[]> | Row[]> = {
   thermo: benchThermo,
   equilibrium: benchEquilibrium,
   calc: () => benchCalc(SIZES),
+  cases: benchCases,
   site: () => benchSite(SIZES),
 };
 

@@ -12,9 +12,10 @@
  * In electrolysis p(j) rises with j. In power mode N j A V(j) rises from zero, reaches a greatest
  * power (where d(jV)/dj = 0, V about half the open-circuit voltage for a resistive cell) and
  * falls: the plant runs on the rising branch, below that current, so the root sought is the first
- * crossing from below; a target above the greatest power cannot be met. The root is bracketed by
- * stepping j up by a factor 1.25 from a sixty-fourth of the base current density (the greatest
- * power, when passed, refined by golden-section search for the message) and found by the Illinois
+ * crossing from below; a target above the greatest power cannot be met. The root is bracketed
+ * from a guess in proportion to the target (fromGuess), else by stepping j up by a factor 1.25
+ * from a sixty-fourth of the base current density (the greatest power, when passed, refined by
+ * golden-section search for the message), and found by the Illinois
  * variant of regula falsi (G. Dahlquist and Å. Björck, Numerical Methods, §6.2) to 1e-12 of j.
  */
 import type { FuelPath } from '../equilibrium/fuel-path.ts';
@@ -97,13 +98,46 @@ function targetText(target: 'power' | 'hydrogen', value: number, mode: DesignInp
 const cm2 = (j: number) => `${(j / 1e4).toPrecision(4)} A/cm2`;
 
 /**
+ * The root from a first guess, where the guess brackets it: the current density in proportion to
+ * the target, j_g = j_b · target / p(j_b) from the base current density j_b (exact where p is
+ * linear in j, as hydrogen is). Where p(j_g) reaches the target the root lies below j_g (on the
+ * rising branch p(j)/j falls with j), bracketed by stepping down by the factor 1.25; where it
+ * falls short on the rising branch the search steps up from j_g; past the greatest power, from
+ * j_b/64 as without a guess.
+ */
+function fromGuess(base: number, value: number, delivered: (j: number) => number | null, f: (j: number) => number): number | { start: number } {
+  const atBase = delivered(base);
+  if (atBase === null || !(atBase > 0)) return { start: base / 64 };
+  const guess = Math.min((base * value) / atBase, HIGHEST_CURRENT_DENSITY);
+  const fGuess = f(guess);
+  if (fGuess === 0) return guess;
+  if (fGuess > 0) {
+    let hi = guess;
+    let fHi = fGuess;
+    let lo = hi / GROWTH;
+    let fLo = f(lo);
+    while (fLo >= 0) {
+      if (fLo === 0) return lo;
+      hi = lo;
+      fHi = fLo;
+      lo /= GROWTH;
+      fLo = f(lo);
+    }
+    return illinois(f, lo, fLo, hi, fHi);
+  }
+  return { start: f(guess * GROWTH) > fGuess ? guess : base / 64 };
+}
+
+/**
  * The current density at which `cells` cells on `path` deliver `value` of the target (W net or
  * input, or kg/s of hydrogen), or why none does.
  */
 export function currentDensityForTarget(inputs: DesignInputs, path: FuelPath, cells: number, target: 'power' | 'hydrogen', value: number): TargetSolution {
   const delivered = (j: number) => deliveredAt(inputs, path, cells, target, j);
   const f = (j: number) => (delivered(j) ?? -Infinity) - value;
-  let lo = inputs.currentDensityAPerM2 / 64;
+  const guessed = fromGuess(inputs.currentDensityAPerM2, value, delivered, f);
+  if (typeof guessed === 'number') return { ok: true, currentDensityAPerM2: guessed };
+  let lo = guessed.start;
   let fLo = f(lo);
   // Below the first step: halve until the cells deliver less than the target (they deliver nothing at j → 0).
   while (fLo >= 0) {

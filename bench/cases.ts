@@ -1,0 +1,41 @@
+/**
+ * Calculation time per operating case: for each demo project with cases, the work of its cases
+ * beyond the sizing case (lib/plant/cases.ts: each case on the sizing hardware, its target's
+ * current density solved, its results and curve), divided by the number of those cases; the
+ * median over repeated runs (one core).
+ */
+import { readdirSync, readFileSync } from 'node:fs';
+import { loadBasisText } from '../lib/basis/load.ts';
+import { evaluateBasis, pointResults } from '../lib/plant/calculate.ts';
+import { caseResults } from '../lib/plant/cases.ts';
+import { quantile, type Row } from './measure.ts';
+
+const RUNS = 15;
+const TARGET_MS = 20;
+
+export function benchCases(): Row[] {
+  const root = new URL('../projects/', import.meta.url);
+  const rows: Row[] = [];
+  for (const id of readdirSync(root).sort()) {
+    const file = new URL(`${id}/basis.yaml`, root);
+    const loaded = loadBasisText(readFileSync(file), `projects/${id}/basis.yaml`, id);
+    if (!loaded.ok) throw new Error(`demo ${id} is invalid`);
+    const basis = loaded.basis;
+    const others = basis.cases.filter((c) => !c.sizing).length;
+    if (others === 0) continue;
+    const sizing = basis.cases.find((c) => c.sizing)!.basis;
+    const point = evaluateBasis(sizing);
+    const own = pointResults(point, sizing);
+    caseResults(basis.cases, point, own, pointResults); // warm-up
+    const times: number[] = [];
+    for (let k = 0; k < RUNS; k++) {
+      const t0 = performance.now();
+      caseResults(basis.cases, point, own, pointResults);
+      times.push((performance.now() - t0) / others);
+    }
+    times.sort((a, b) => a - b);
+    const median = quantile(times, 0.5);
+    rows.push({ section: 'cases', measure: `calculation per case, median (one core), ${id} (${others} cases)`, value: `${median.toFixed(1)} ms`, target: `≤ ${TARGET_MS} ms`, verdict: median <= TARGET_MS ? 'met' : 'MISSED' });
+  }
+  return rows;
+}
