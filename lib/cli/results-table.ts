@@ -33,3 +33,8 @@ export function headlineRows(r: Results): [string, string][] {
   if (h.maxCarbonActivity !== null) rows.push(['highest carbon activity on the fuel path', sig(h.maxCarbonActivity, 4)]);
   return rows;
 }
+
+/** The envelope of the operating cases as label / value rows: each quantity's governing value and the case that sets it; [] without cases. */
+export function envelopeRows(r: Results): [string, string][] {
+  return (r.envelope ?? []).map((e) => [`${e.quantity}${/\((highest|lowest|least|most)\)$/.test(e.quantity) ? '' : e.governs === 'max' ? ' (highest)' : ' (lowest)'}`, `${sig(e.value, 4)}${e.unit === '1' ? '' : ` ${e.unit}`}, case ${e.case}`]);
+}

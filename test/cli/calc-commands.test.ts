@@ -37,6 +37,22 @@ describe('cellbasis calc', () => {
     expect(resultsSchema.safeParse(r).success).toBe(true);
   });
 
+  it('with cases, says the table is the sizing case\'s and prints the envelope with the case that sets each value', async () => {
+    const root = project('pem', 'power', {
+      cases: {
+        rated: { title: 'Rated', purpose: 'Sizing.', sizing: true },
+        half: { title: 'Half load', purpose: 'The least hydrogen flow.', overrides: { 'operating-point': { 'target-power': '50 kW' } } },
+      },
+    });
+    const r = await run(['calc', 'p1'], root);
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/the figures above are those of the sizing case, rated; the envelope over the 2 cases \(rated, half\):/);
+    // Half the power on the same cells: the least fuel at half load, the highest stack voltage there too (less current, less resistive loss).
+    expect(r.out).toMatch(/fuel supplied \(least\)\s+[\d.]+ kg\/h, case half/);
+    expect(r.out).toMatch(/stack DC voltage \(highest\)\s+[\d.]+ V, case half/);
+    expect(r.out).toMatch(/DC current of the stack \(its cells in series\) \(highest\)\s+[\d.]+ A, case rated/);
+  });
+
   it('a cell voltage above the outlet Nernst voltage is located at operating-point.cell-voltage, exit 1', async () => {
     const root = project('solid-oxide', 'power', { 'operating-point.cell-voltage': '1.05 V' });
     const r = await run(['calc', 'p1'], root);

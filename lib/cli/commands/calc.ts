@@ -6,7 +6,7 @@ import type { Command } from '../command.ts';
 import { JSON_OPTION } from '../command.ts';
 import { loadProject } from '../load-project.ts';
 import { json, table } from '../../core/plain-text.ts';
-import { headlineRows } from '../results-table.ts';
+import { envelopeRows, headlineRows } from '../results-table.ts';
 
 export const calcCommand: Command = {
   name: 'calc',
@@ -28,6 +28,11 @@ export const calcCommand: Command = {
     }
     io.out(`${basis.file}: ${results.project.title} (${results.technology.name}, ${results.technology.mode} mode)\n`);
     io.out(table(headlineRows(results)));
+    if (results.cases.length) {
+      const sizing = results.cases.find((c) => c.sizing)!;
+      io.out(`\nthe figures above are those of the sizing case, ${sizing.id}; the envelope over the ${results.cases.length} cases (${results.cases.map((c) => c.id).join(', ')}):\n`);
+      io.out(table(envelopeRows(results)));
+    }
     return 0;
   },
 };
