@@ -20,5 +20,33 @@ export function hasScaffold(technology: TechnologyId, mode: Mode): boolean {
 
 /** The scaffold text for a project, dated `today` (YYYY-MM-DD). */
 export function renderScaffold(technology: TechnologyId, mode: Mode, project: string, today: string): string {
-  return readFileSync(templateUrl(technology, mode), 'utf8').replaceAll('{{project}}', project).replaceAll('{{today}}', today);
+  const text = readFileSync(templateUrl(technology, mode), 'utf8').replaceAll('{{project}}', project).replaceAll('{{today}}', today);
+  return text.replace(/\nassumptions:/, `\n${casesExample(text)}\nassumptions:`);
+}
+
+/**
+ * Operating cases as a commented example, written for the scaffold so that removing the leading
+ * "# " gives a valid basis: a turndown at 30 % of its design current density (an illustration,
+ * no source) and the end of life at an illustrative degradation rate, both on the hardware the
+ * base values size.
+ */
+function casesExample(text: string): string {
+  const design = /^ {2}current-density: "([\d.]+) A\/cm2"/m.exec(text);
+  const turndown = design ? `${Number((Number(design[1]) * 0.3).toPrecision(2))} A/cm2` : '0.1 A/cm2';
+  return [
+    '# cases:                            # operating cases on the hardware the base values size (README: Operating cases)',
+    '#   turndown:',
+    '#     title: Minimum turndown',
+    '#     purpose: The least flows the plant must control, and the cells at their lowest current.',
+    '#     overrides:',
+    '#       operating-point:',
+    `#         current-density: "${turndown}"   # or target-power / target-hydrogen, met on the same cells`,
+    '#   end-of-life:',
+    '#     title: End of stack life',
+    '#     purpose: The cells after their operating life, at the design current density.',
+    '#     overrides:',
+    '#       operating-point:',
+    '#         degradation: { rate: "0.5 %/kh", of: cell-voltage, operating-time: "40000 h" }   # the maker\'s rate',
+    '',
+  ].join('\n');
 }

@@ -13,6 +13,7 @@ import type { CaseResult, Results } from '../../lib/plant/results-schema.ts';
 import { ENVELOPE_QUANTITIES, envelopeOf, valueAt } from '../../lib/plant/envelope.ts';
 import { everyFinding } from '../../lib/plant/findings.ts';
 import { basisFrom } from '../helpers/scaffold-basis.ts';
+import { renderScaffold, scaffoldKinds } from '../../lib/basis/scaffolds.ts';
 
 /** A demo's basis text with its cases removed and `edits` applied (dotted path → value; undefined deletes). */
 function demoText(id: string, edits: Record<string, unknown>): string {
@@ -289,5 +290,25 @@ describe('a case that cannot run is a finding of that case', () => {
     expect(Math.abs(at * 1e4 - e / (2 * asr)) / (e / (2 * asr))).toBeLessThan(2e-3);
     expect(results.envelope.every((r) => r.case !== 'overload')).toBe(true);
     expect(everyFinding(results).some((f) => f.message.startsWith('case overload: '))).toBe(true);
+  });
+});
+
+describe('the scaffolds\' commented cases', () => {
+  // Removing the leading "# " of the example gives a basis whose turndown and end-of-life cases
+  // run on the scaffold's hardware: the turndown at 30 % of the design current density, the end
+  // of life at the design current density with its voltage changed by 0.5 %/kh × 40 000 h = 20 %.
+  it.each(scaffoldKinds())('$technology $mode', ({ technology, mode }) => {
+    const text = renderScaffold(technology, mode, 'test', '2026-11-30').replace(/^# (cases:.*| {2}.*)$/gm, '$1');
+    const results = calculate(load(text, 'test'));
+    expect(results.cases.map((c) => [c.id, c.ran])).toEqual([
+      ['base', true],
+      ['turndown', true],
+      ['end-of-life', true],
+    ]);
+    const [base, turndown, old] = results.cases;
+    expect(turndown!.operatingPoint!.currentDensity_A_per_m2 / base!.operatingPoint!.currentDensity_A_per_m2).toBeCloseTo(0.3, 1);
+    expect(old!.operatingPoint!.currentDensity_A_per_m2).toBe(base!.operatingPoint!.currentDensity_A_per_m2);
+    expect(old!.degradation!.fraction).toBeCloseTo(0.2, 12);
+    expect(old!.headline!.cellVoltage_V / old!.degradation!.beginningOfLifeCellVoltage_V).toBeCloseTo(mode === 'power' ? 0.8 : 1.2, 12);
   });
 });
