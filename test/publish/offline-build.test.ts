@@ -234,7 +234,7 @@ describeWithChromium('cellbasis build with all network access taken away', () =>
     expect(entries.filter((e) => e.kind === 'attempt')).toHaveLength(Object.keys(refused).length);
   });
 
-  it('control: Chromium sends requests (its own and a page\'s) through the proxy, and its NetLog shows them, unless launched with the printer\'s arguments', { timeout: 200_000 }, async () => {
+  it('control: Chromium sends requests (its own and a page\'s) through the proxy, and its NetLog shows them, unless launched with the printer\'s arguments', { timeout: 400_000 }, async () => {
     const dir = scratch();
     const page = askingPage(dir);
     const browse = async (variant: 'online' | 'offline') => {
@@ -265,7 +265,7 @@ describeWithChromium('cellbasis build with all network access taken away', () =>
     for (const r of web) expect(r.netError, `${r.url} failed inside Chromium`).toBeLessThan(0);
   });
 
-  it('control: the printer prints a page that asks for web addresses, and nothing arrives anywhere', { timeout: 200_000 }, async () => {
+  it('control: the printer prints a page that asks for web addresses, and nothing arrives anywhere', { timeout: 400_000 }, async () => {
     const dir = scratch();
     const page = askingPage(dir);
     const log = join(dir, 'print.log');
