@@ -3,17 +3,19 @@
  * over the total pressure (ideal gas, Dalton's law):
  *   at a dew point T_d:                 x_H2O = p_sat(T_d) / p
  *   at relative humidity φ at T:        x_H2O = φ · p_sat(T) / p
- * with p_sat from the species data (lib/thermo/saturation.ts) and p the air-electrode pressure.
+ * with p_sat from the IAPWS-IF97 saturation line (region 4, eq. 30; lib/thermo/water-saturation.ts)
+ * and p the air-electrode pressure.
  * The dry-air fractions are scaled by (1 − x_H2O).
  */
-import { saturationPressureBar } from '../thermo/saturation.ts';
+import { PA_PER_BAR } from '../thermo/constants.ts';
+import { waterSaturationPressurePa } from '../thermo/water-saturation.ts';
 
 export function waterFractionAtDewPoint(dewPointK: number, pressureBar: number): number {
-  return saturationPressureBar(dewPointK) / pressureBar;
+  return waterSaturationPressurePa(dewPointK) / PA_PER_BAR / pressureBar;
 }
 
 export function waterFractionAtRelativeHumidity(relativeHumidity: number, atK: number, pressureBar: number): number {
-  return (relativeHumidity * saturationPressureBar(atK)) / pressureBar;
+  return (relativeHumidity * waterSaturationPressurePa(atK)) / PA_PER_BAR / pressureBar;
 }
 
 /** Dry-air fractions scaled by (1 − x) with water vapour x added. */

@@ -6,7 +6,8 @@
  */
 import { getSpecies } from '../thermo/species-data.ts';
 import { inRange } from '../thermo/properties.ts';
-import { saturationPressureBar } from '../thermo/saturation.ts';
+import { PA_PER_BAR } from '../thermo/constants.ts';
+import { saturationRange, waterSaturationPressurePa } from '../thermo/water-saturation.ts';
 import { findPreset } from './presets.ts';
 import { humidAir, waterFractionAtDewPoint, waterFractionAtRelativeHumidity } from './humid-air.ts';
 import { kelvinText, readTemperature } from './read-conditions.ts';
@@ -82,7 +83,8 @@ export function readAirStream(reader: Reader, path: Path, mixtures: ReadonlyMap<
     reader.findings.error(humidity.at, `this humidity needs a water partial pressure above the air-electrode pressure, ${pressureBar} bar: the air would be all steam`);
     return undefined;
   }
-  if (inletK !== undefined && inRange(getSpecies('H2O(L)'), inletK) && humidity.water * pressureBar > saturationPressureBar(inletK)) {
+  const line = saturationRange();
+  if (inletK !== undefined && inletK >= line.lowK && inletK <= line.highK && humidity.water * pressureBar * PA_PER_BAR > waterSaturationPressurePa(inletK)) {
     reader.findings.warning(humidity.at, `this much water vapour would condense at the air-electrode feed temperature, ${kelvinText(inletK)}`);
   }
   const dry = findPreset(findPreset(composition.name ?? '')?.base ?? 'dry-air')!;

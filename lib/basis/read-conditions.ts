@@ -1,8 +1,10 @@
 /**
  * The `conditions:` section: temperatures (above absolute zero; the operating temperature
  * compared with the technology's typical range) and pressures (absolute, above zero; gauge
- * values referred to one standard atmosphere). The sweep range and the species-data range
- * checks need the streams, so they follow in temperature-ranges.ts.
+ * values referred to one standard atmosphere). A cell that runs with liquid water must run below
+ * water's boiling point at the lower of its electrode pressures, T < T_s(p) by IAPWS-IF97 eq. 31
+ * (lib/thermo/water-saturation.ts). The sweep range and the species-data range checks need the
+ * streams, so they follow in temperature-ranges.ts.
  */
 import { PA_PER_BAR, REFERENCE_TEMPERATURE_K } from '../thermo/constants.ts';
 import type { Technology } from '../electrochem/technologies.ts';
@@ -10,6 +12,7 @@ import type { Path } from './diagnostics.ts';
 import type { Read, Reader } from './reader.ts';
 import { limitProblem } from './limits.ts';
 import { kelvinWithCelsius } from '../core/temperature-text.ts';
+import { saturationRange, waterSaturationTemperatureK } from '../thermo/water-saturation.ts';
 
 /** "1073.15 K (800 °C)" for messages. */
 export function kelvinText(kelvin: number): string {
@@ -66,6 +69,27 @@ export interface ConditionsRead {
 
 const C = (key: string): Path => ['conditions', key];
 
+/**
+ * Refuses liquid-water operation at or above the boiling point T_s(p) (IF97 eq. 31) at the lower
+ * electrode pressure, where the water would boil first. Below the triple-point pressure (611.2 Pa)
+ * no liquid exists at any temperature of the line; above the critical pressure none boils.
+ */
+function checkBelowBoiling(reader: Reader, temperature: Read, pressures: readonly [string, number | undefined][]): void {
+  const known = pressures.filter((p): p is [string, number] => p[1] !== undefined);
+  if (!known.length) return;
+  const [label, bar] = known.reduce((a, b) => (b[1] < a[1] ? b : a));
+  const range = saturationRange();
+  const pa = bar * PA_PER_BAR;
+  if (pa > range.highPa) return;
+  const boilingK = pa < range.lowPa ? range.lowK : waterSaturationTemperatureK(pa);
+  if (temperature.si < boilingK) return;
+  reader.findings.error(
+    temperature.at,
+    `water boils at ${kelvinText(boilingK)} at the ${label} pressure, ${String(Number(bar.toPrecision(6)))} bar (IAPWS-IF97), ` +
+      `so a liquid-water cell cannot run at ${temperature.text}: lower the temperature or raise the pressure`,
+  );
+}
+
 export function readConditions(reader: Reader, tech: Technology | undefined): ConditionsRead {
   const temperature = readTemperature(reader, C('operating-temperature'), 'operating temperature');
   if (temperature && tech && (temperature.si < tech.typicalFromK || temperature.si > tech.typicalToK)) {
@@ -86,6 +110,9 @@ export function readConditions(reader: Reader, tech: Technology | undefined): Co
   const airInlet = readTemperature(reader, C('air-inlet-temperature'), 'air inlet temperature');
   const fuelPressureBar = readPressure(reader, C('fuel-electrode-pressure'), 'fuel-electrode pressure');
   const airPressureBar = readPressure(reader, C('air-electrode-pressure'), 'air-electrode pressure');
+  if (temperature && tech?.waterPhase === 'liquid') {
+    checkBelowBoiling(reader, temperature, [['fuel-electrode', fuelPressureBar], ['air-electrode', airPressureBar]]);
+  }
   return {
     ...(temperature ? { temperature } : {}),
     ...(from && to && from.si < to.si ? { sweep: { from, to } } : {}),

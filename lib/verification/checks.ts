@@ -10,7 +10,7 @@ import { getSpecies } from '../thermo/species-data.ts';
 import { cp, entropy, formationEnthalpy, formationGibbs } from '../thermo/properties.ts';
 import { evaluateReaction, lnEquilibriumConstant } from '../electrochem/reaction.ts';
 import { parseEquation } from '../electrochem/equation.ts';
-import { saturationPressureBar } from '../thermo/saturation.ts';
+import { waterSaturationPressurePa } from '../thermo/water-saturation.ts';
 import { heatingValue } from '../plant/heating-values.ts';
 import { oxidationGibbsW } from '../plant/efficiency.ts';
 import { FARADAY_C_PER_MOL } from '../thermo/constants.ts';
@@ -92,7 +92,7 @@ function evaluate(c: ReferenceCheck): number {
     case 'equilibrium-constant':
       return Math.exp(lnEquilibriumConstant(parseEquation(c.reaction).terms, c.temperature_K));
     case 'saturation-pressure':
-      return saturationPressureBar(c.temperature_K) * 1e5;
+      return waterSaturationPressurePa(c.temperature_K);
     case 'efficiency-limit-hhv': {
       // −ΔG(T) of the fuel's oxidation over its HHV at 25 °C (water as stated), as a fraction.
       const fuel = getSpecies(c.species);
