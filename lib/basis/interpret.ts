@@ -41,7 +41,7 @@ export function interpret(reader: Reader, options: InterpretOptions = {}): Inter
     return undefined;
   }
   const { technology, mode } = kind;
-  const cell = readCell(reader, technology, mode);
+  const cell = readCell(reader, technology, mode, conditionsRead.temperature);
   const streams = readStreams(reader, technology, mode, conditionsRead, mixtures);
   if (streams && !options.quietMixtures) {
     for (const name of mixtures.keys()) {

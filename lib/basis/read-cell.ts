@@ -2,11 +2,16 @@
  * The `cell:` section: technology (phosphoric-acid read as ht-pem) and a mode it supports
  * (lib/electrochem/data/technologies.yaml), the material notes, whether the fuel electrode
  * bears nickel (stated, else read from the fuel-electrode text, else the technology's usual
- * electrode), the ionic transference number in (0, 1] and the crossover allowance.
+ * electrode), the ionic transference number in (0, 1], the crossover allowance and, for
+ * alkaline cells (and only for them), the mass fraction of KOH in the electrolyte within the
+ * range of the water-activity correlation (lib/thermo/koh-solution.ts, Balej 1985), at an
+ * operating temperature within it too.
  */
 import { technology, technologyIdOf, type Mode, type Technology } from '../electrochem/technologies.ts';
 import { quotedList } from '../core/suggest.ts';
-import type { Reader } from './reader.ts';
+import { kohCorrelationRange } from '../thermo/koh-solution.ts';
+import { kelvinText } from './read-conditions.ts';
+import type { Read, Reader } from './reader.ts';
 import type { CellInfo } from './types.ts';
 
 /** How the fuel-electrode text names nickel: "Ni-YSZ", "Ni cermet", "nickel". */
@@ -35,7 +40,34 @@ function nickel(reader: Reader, tech: Technology, fuelElectrode: string | undefi
   return { nickelBearing: tech.fuelGasEquilibrium, nickelBearingFrom: 'default' };
 }
 
-export function readCell(reader: Reader, tech: Technology, mode: Mode): CellInfo | undefined {
+const KOH_PATH = ['cell', 'koh-mass-fraction'];
+
+/** The KOH mass fraction of an alkaline cell: required there, refused elsewhere, within Balej's range (in wt % and in temperature). */
+function readKohMassFraction(reader: Reader, tech: Technology, temperature: Read | undefined): number | undefined {
+  if (tech.id !== 'alkaline') {
+    if (reader.has(KOH_PATH)) reader.findings.error(KOH_PATH, `koh-mass-fraction applies to alkaline cells only; this cell is ${tech.id}`, 'key');
+    return undefined;
+  }
+  const range = kohCorrelationRange();
+  const percent = (w: number) => `${String(Number((w * 100).toFixed(1)))} %`;
+  const read = reader.scalar(KOH_PATH, 'fraction', 'KOH mass fraction');
+  if (!read) {
+    if (!reader.has(KOH_PATH)) {
+      reader.findings.error(KOH_PATH, `an alkaline cell needs the KOH mass fraction of its electrolyte, e.g. koh-mass-fraction: "30 %", for the water activity (Balej 1985, ${percent(range.lowMassFraction)} to ${percent(range.highMassFraction)})`, 'missing');
+    }
+    return undefined;
+  }
+  if (!(read.si >= range.lowMassFraction && read.si <= range.highMassFraction)) {
+    reader.findings.error(read.at, `the KOH mass fraction must lie within the range of Balej's water-activity correlation (1985), ${percent(range.lowMassFraction)} to ${percent(range.highMassFraction)} (2 to 18 mol/kg), got ${read.text}`);
+    return undefined;
+  }
+  if (temperature && !(temperature.si >= range.lowK && temperature.si <= range.highK)) {
+    reader.findings.error(temperature.at, `an alkaline cell's water activity is known from ${kelvinText(range.lowK)} to ${kelvinText(range.highK)} (Balej 1985), got ${temperature.text}`);
+  }
+  return read.si;
+}
+
+export function readCell(reader: Reader, tech: Technology, mode: Mode, temperature?: Read): CellInfo | undefined {
   const fuelElectrode = reader.text(['cell', 'fuel-electrode']);
   const airElectrode = reader.text(['cell', 'air-electrode']);
   const electrolyte = reader.text(['cell', 'electrolyte']);
@@ -47,6 +79,7 @@ export function readCell(reader: Reader, tech: Technology, mode: Mode): CellInfo
   }
   const crossover = reader.scalar(['cell', 'crossover-allowance'], 'voltage', 'crossover allowance');
   if (crossover && crossover.si < 0) reader.findings.error(crossover.at, `the crossover allowance is a voltage lost, 0 or more, got ${crossover.text}`);
+  const kohMassFraction = readKohMassFraction(reader, tech, temperature);
   return {
     technology: tech.id,
     mode,
@@ -56,5 +89,6 @@ export function readCell(reader: Reader, tech: Technology, mode: Mode): CellInfo
     ...nickel(reader, tech, fuelElectrode),
     ionicTransferenceNumber,
     crossoverAllowanceV: crossover && crossover.si >= 0 ? crossover.si : 0,
+    ...(kohMassFraction !== undefined ? { kohMassFraction } : {}),
   };
 }

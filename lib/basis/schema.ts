@@ -57,6 +57,9 @@ const cellSection = strict(
       'ionic transference number t_ion of the electrolyte, in (0, 1]; open-circuit voltage = t_ion × Nernst voltage (default 1)',
     ).optional(),
     'crossover-allowance': quantity('voltage', 'voltage subtracted from the open-circuit voltage for gas crossover and leakage, e.g. "10 mV" (default 0)').optional(),
+    'koh-mass-fraction': fraction(
+      'mass fraction of potassium hydroxide in the electrolyte of an alkaline cell, e.g. "30 %" (wt %); required for alkaline cells; sets the water activity (Balej 1985, 10.1 % to 50.2 %, 0 to 200 °C)',
+    ).optional(),
   },
   'the cell: technology, mode and materials',
 );

@@ -43,6 +43,8 @@ export interface CellInfo {
   ionicTransferenceNumber: number;
   /** Voltage allowance for gas crossover and internal leakage subtracted from the open-circuit voltage, V. 0 when not given. */
   crossoverAllowanceV: number;
+  /** Mass fraction of KOH in the electrolyte of an alkaline cell (0.30 for 30 wt %); absent for the other technologies. */
+  kohMassFraction?: number;
 }
 
 export interface Conditions {

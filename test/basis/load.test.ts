@@ -220,8 +220,9 @@ describe('electrolysis feeds by technology', () => {
   });
 
   it('alkaline: no feeds, or liquid water, which means the same', () => {
-    const none = valid(electrolysis('alkaline', '80 C', '')).basis;
-    const water = valid(electrolysis('alkaline', '80 C', 'streams:\n  fuel-electrode: { composition: liquid-water }\n')).basis;
+    const koh: [string, string][] = [['  fuel-electrode: Ni-YSZ cermet', '  fuel-electrode: Ni-YSZ cermet\n  koh-mass-fraction: "30 %"']];
+    const none = valid(electrolysis('alkaline', '80 C', '', koh)).basis;
+    const water = valid(electrolysis('alkaline', '80 C', 'streams:\n  fuel-electrode: { composition: liquid-water }\n', koh)).basis;
     expect(none.fuelElectrode).toBeNull();
     expect(none.airElectrode).toBeNull();
     expect(water.fuelElectrode).toBeNull();
