@@ -14,7 +14,7 @@ import { readOperatingPoint } from './read-operating-point.ts';
 import { readSensitivity } from './read-sensitivity.ts';
 import { checkSources, readAssumptions, readReferences } from './read-references.ts';
 import { defaultSweep } from './temperature-ranges.ts';
-import { streamRules } from './stream-rules.ts';
+import { conversionName, streamRules } from './stream-rules.ts';
 import type { Reader } from './reader.ts';
 import type { Conditions, DesignBasis } from './types.ts';
 
@@ -31,7 +31,7 @@ export interface InterpretOptions {
 export function interpret(reader: Reader, options: InterpretOptions = {}): InterpretedBasis | undefined {
   const document = readDocument(reader);
   const kind = readTechnology(reader);
-  const conditionsRead = readConditions(reader, kind?.technology);
+  const conditionsRead = readConditions(reader, kind?.technology, kind?.mode);
   const mixtures = readMixtures(reader);
   const references = readReferences(reader);
   const assumptions = readAssumptions(reader);
@@ -55,7 +55,7 @@ export function interpret(reader: Reader, options: InterpretOptions = {}): Inter
   const operatingPoint = readOperatingPoint(reader, mode, {
     allowed: rules['air-electrode'].role === 'sweep',
     feed: streams?.airElectrode != null,
-  });
+  }, conversionName(technology, mode));
   checkSources(reader, references, assumptions);
   const { temperature, sweep, fuelPressureBar, airPressureBar } = conditionsRead;
   if (!document || !cell || !streams || !operatingPoint || !temperature || fuelPressureBar === undefined || airPressureBar === undefined) return undefined;

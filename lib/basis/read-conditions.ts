@@ -7,7 +7,8 @@
  * streams, so they follow in temperature-ranges.ts.
  */
 import { PA_PER_BAR, REFERENCE_TEMPERATURE_K } from '../thermo/constants.ts';
-import type { Technology } from '../electrochem/technologies.ts';
+import type { Mode, Technology } from '../electrochem/technologies.ts';
+import { streamRules } from './stream-rules.ts';
 import type { Path } from './diagnostics.ts';
 import type { Read, Reader } from './reader.ts';
 import { limitProblem } from './limits.ts';
@@ -90,7 +91,7 @@ function checkBelowBoiling(reader: Reader, temperature: Read, pressures: readonl
   );
 }
 
-export function readConditions(reader: Reader, tech: Technology | undefined): ConditionsRead {
+export function readConditions(reader: Reader, tech: Technology | undefined, mode: Mode | undefined): ConditionsRead {
   const temperature = readTemperature(reader, C('operating-temperature'), 'operating temperature');
   if (temperature && tech && (temperature.si < tech.typicalFromK || temperature.si > tech.typicalToK)) {
     reader.findings.warning(
@@ -106,8 +107,10 @@ export function readConditions(reader: Reader, tech: Technology | undefined): Co
   if (rawRise && riseProblem) reader.findings.error(rawRise.at, riseProblem);
   const rise = riseProblem ? undefined : rawRise;
   const ambient = readTemperature(reader, C('ambient-temperature'), 'ambient temperature');
-  const fuelInlet = readTemperature(reader, C('fuel-inlet-temperature'), 'fuel inlet temperature');
-  const airInlet = readTemperature(reader, C('air-inlet-temperature'), 'air inlet temperature');
+  // Each inlet named for what its feed is in this technology: "water inlet temperature" for a PEM electrolyser's water.
+  const rules = tech && mode ? streamRules(tech, mode) : undefined;
+  const fuelInlet = readTemperature(reader, C('fuel-inlet-temperature'), `${rules?.['fuel-electrode'].short ?? 'fuel'} inlet temperature`);
+  const airInlet = readTemperature(reader, C('air-inlet-temperature'), `${rules?.['air-electrode'].short ?? 'air'} inlet temperature`);
   const fuelPressureBar = readPressure(reader, C('fuel-electrode-pressure'), 'fuel-electrode pressure');
   const airPressureBar = readPressure(reader, C('air-electrode-pressure'), 'air-electrode pressure');
   if (temperature && tech?.waterPhase === 'liquid') {

@@ -51,8 +51,8 @@ function oneOf(reader: Reader, keys: string[], required: string | undefined, ref
   return given[0];
 }
 
-function utilization(reader: Reader, mode: Mode): number | undefined {
-  const [key, label, other] = mode === 'power' ? ['fuel-utilization', 'fuel utilization', 'steam-conversion'] : ['steam-conversion', 'steam conversion', 'fuel-utilization'];
+function utilization(reader: Reader, mode: Mode, label: string): number | undefined {
+  const [key, other] = mode === 'power' ? ['fuel-utilization', 'steam-conversion'] : ['steam-conversion', 'fuel-utilization'];
   const required = reader.has(OP(other)) ? undefined : `${mode} mode needs ${key}, a fraction such as 0.8 or "80 %"`;
   const given = oneOf(reader, [key], required, {
     [other]: `${other} belongs to ${mode === 'power' ? 'electrolysis' : 'power mode'}; in ${mode} mode give ${key}`,
@@ -191,9 +191,9 @@ function parasitic(reader: Reader, mode: Mode): number | undefined {
   return bounded(reader, 'parasitic-load', 'fraction', 'parasitic load', (x) => x >= 0 && x < 1, 'lies in [0, 1)')?.si;
 }
 
-export function readOperatingPoint(reader: Reader, mode: Mode, sweep: { allowed: boolean; feed: boolean }): OperatingPoint | undefined {
+export function readOperatingPoint(reader: Reader, mode: Mode, sweep: { allowed: boolean; feed: boolean }, conversionLabel: string): OperatingPoint | undefined {
   const values = {
-    utilization: utilization(reader, mode),
+    utilization: utilization(reader, mode, conversionLabel),
     air: airSupply(reader, mode, sweep),
     currentDensity: bounded(reader, 'current-density', 'current-density', 'current density', positive, 'must be above zero', 'current-density'),
     voltage: voltage(reader),

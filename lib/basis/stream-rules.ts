@@ -13,7 +13,7 @@
  * other fuel species pass through, which is worth a warning.
  */
 import { findSpecies } from '../thermo/species-data.ts';
-import type { Mode, Technology } from '../electrochem/technologies.ts';
+import { technology, type Mode, type Technology, type TechnologyId } from '../electrochem/technologies.ts';
 import type { Composition } from './composition.ts';
 import type { Reader } from './reader.ts';
 
@@ -28,38 +28,59 @@ export interface ElectrodeRule {
   kept: boolean;
   /** What the feed is, for messages (for an electrode without feed: why). */
   what: string;
+  /** The stream's name in documents and summaries: what it is in this technology and mode ("water feed (oxygen electrode)", not "air-electrode feed"). */
+  name: string;
+  /** Its short name before "inlet temperature": "air", "water", "steam", "sweep gas". */
+  short: string;
 }
 
 /** No feed at this electrode; `what` says why. */
-const absent: ElectrodeRule = { role: 'sweep', need: 'absent', kept: false, what: 'it takes no feed' };
+const absent: ElectrodeRule = { role: 'sweep', need: 'absent', kept: false, what: 'it takes no feed', name: 'feed', short: 'feed' };
 
 export function streamRules(tech: Technology, mode: Mode): Record<Electrode, ElectrodeRule> {
   if (mode === 'power') {
     return {
-      'fuel-electrode': { role: 'fuel', need: 'required', kept: true, what: 'a fuel, e.g. hydrogen or a mixture of your gas' },
-      'air-electrode': { role: 'oxidant', need: 'required', kept: true, what: 'air or oxygen, e.g. humid-air or dry-air' },
+      'fuel-electrode': { role: 'fuel', need: 'required', kept: true, what: 'a fuel, e.g. hydrogen or a mixture of your gas', name: 'fuel-electrode feed', short: 'fuel' },
+      'air-electrode': { role: 'oxidant', need: 'required', kept: true, what: 'air or oxygen, e.g. humid-air or dry-air', name: 'air-electrode feed', short: 'air' },
     };
   }
   if (tech.waterPhase === 'liquid' && tech.waterElectrode === 'air') {
     return {
-      'fuel-electrode': { ...absent, what: 'hydrogen forms there from the protons' },
-      'air-electrode': { role: 'liquid-water', need: 'required', kept: true, what: 'liquid water, composition liquid-water' },
+      'fuel-electrode': { ...absent, what: 'hydrogen forms there from the protons', name: 'hydrogen-electrode feed', short: 'hydrogen-electrode feed' },
+      'air-electrode': { role: 'liquid-water', need: 'required', kept: true, what: 'liquid water, composition liquid-water', name: 'water feed (oxygen electrode)', short: 'water' },
     };
   }
   if (tech.waterPhase === 'liquid') {
-    const water: ElectrodeRule = { role: 'liquid-water', need: 'optional', kept: false, what: 'no feed (the water is in the electrolyte), or liquid water' };
+    const water: ElectrodeRule = { role: 'liquid-water', need: 'optional', kept: false, what: 'no feed (the water is in the electrolyte), or liquid water', name: 'water feed (to the electrolyte)', short: 'water' };
     return { 'fuel-electrode': water, 'air-electrode': water };
   }
   if (tech.waterElectrode === 'fuel') {
     return {
-      'fuel-electrode': { role: 'steam-feed', need: 'required', kept: true, what: 'steam with some H2, e.g. { H2O: 0.9, H2: 0.1 } (CO2 too for co-electrolysis)' },
-      'air-electrode': { role: 'sweep', need: 'optional', kept: true, what: 'a sweep gas (with sweep-ratio), or none for pure oxygen' },
+      'fuel-electrode': { role: 'steam-feed', need: 'required', kept: true, what: 'steam with some H2, e.g. { H2O: 0.9, H2: 0.1 } (CO2 too for co-electrolysis)', name: 'steam feed (fuel electrode)', short: 'steam' },
+      'air-electrode': { role: 'sweep', need: 'optional', kept: true, what: 'a sweep gas (with sweep-ratio), or none for pure oxygen', name: 'sweep gas (oxygen electrode)', short: 'sweep gas' },
     };
   }
   return {
-    'fuel-electrode': { role: 'sweep', need: 'optional', kept: true, what: 'an H2 sweep gas, or none' },
-    'air-electrode': { role: 'steam-feed', need: 'required', kept: true, what: 'steam or humid air, e.g. steam' },
+    'fuel-electrode': { role: 'sweep', need: 'optional', kept: true, what: 'an H2 sweep gas, or none', name: 'hydrogen sweep (fuel electrode)', short: 'hydrogen sweep' },
+    'air-electrode': { role: 'steam-feed', need: 'required', kept: true, what: 'steam or humid air, e.g. steam', name: 'steam feed (oxygen electrode)', short: 'steam' },
   };
+}
+
+/**
+ * What operating-point.fuel-utilization or steam-conversion measures, named for the technology:
+ * the fuel utilization (power), the water converted per pass of a liquid-water electrolyser (whose
+ * water is liquid, not steam), or the steam conversion.
+ */
+export function conversionName(tech: Technology, mode: Mode): string {
+  if (mode === 'power') return 'fuel utilization';
+  return tech.waterPhase === 'liquid' ? 'water conversion per pass' : 'steam conversion';
+}
+
+/** The names of a technology's two feeds and of its conversion, for documents, summaries and the command line. */
+export function feedNames(id: TechnologyId, mode: Mode): { fuel: string; air: string; conversion: string } {
+  const tech = technology(id);
+  const rules = streamRules(tech, mode);
+  return { fuel: rules['fuel-electrode'].name, air: rules['air-electrode'].name, conversion: conversionName(tech, mode) };
 }
 
 /** Species that do not react at a fuel electrode (oxidised or inert). */

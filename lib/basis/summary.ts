@@ -6,6 +6,7 @@
  * source (a pure function of the basis) to `summaryRowSources`.
  */
 import { technology } from '../electrochem/technologies.ts';
+import { feedNames } from './stream-rules.ts';
 import { evaluateReaction } from '../electrochem/reaction.ts';
 import { TemperatureRangeError } from '../core/errors.ts';
 import type { AirSupply, DesignBasis, StackSize, VoltageModel } from './types.ts';
@@ -88,24 +89,28 @@ function headlineVoltages(basis: DesignBasis): SummaryRow[] {
 
 /** The row sources, in the order their rows are shown. */
 export const summaryRowSources: readonly ((basis: DesignBasis) => SummaryRow[])[] = [
-  (b) => [
+  (b) => rows(b, feedNames(b.cell.technology, b.cell.mode)),
+  headlineVoltages,
+];
+
+function rows(b: DesignBasis, names: ReturnType<typeof feedNames>): SummaryRow[] {
+  return [
     ['project', `${b.id}: ${b.document.title}`],
     ['document', `${b.document.number} rev. ${b.document.revision}, ${b.document.status}`],
     ['technology', `${technology(b.cell.technology).name}, ${b.cell.mode} mode`],
     ['operating temperature', temperature(b.conditions.temperatureK)],
     ['pressures', `fuel electrode ${num(b.conditions.fuelPressureBar)} bar, air electrode ${num(b.conditions.airPressureBar)} bar (absolute)`],
-    ['fuel-electrode feed', b.fuelElectrode ? composition(b.fuelElectrode.feed) : 'none'],
-    ['air-electrode feed', b.airElectrode ? composition(b.airElectrode.composition) : 'none'],
+    [names.fuel, b.fuelElectrode ? composition(b.fuelElectrode.feed) : 'none'],
+    [names.air, b.airElectrode ? composition(b.airElectrode.composition) : 'none'],
     ...fuelTreatment(b),
-    [b.cell.mode === 'power' ? 'fuel utilization' : 'steam conversion', `${num(b.operatingPoint.utilization * 100, 3)} %`],
+    [names.conversion, `${num(b.operatingPoint.utilization * 100, 3)} %`],
     ['air supply', air(b.operatingPoint.air)],
     ['current density', `${num(b.operatingPoint.currentDensityAPerM2 / 1e4)} A/cm2`],
     ['voltage model', voltage(b.operatingPoint.voltage)],
     ['stack size', stack(b.operatingPoint.size, b.operatingPoint.activeAreaM2, b.operatingPoint.statedCells)],
     ['open assumptions', `${b.assumptions.filter((a) => a.open).length} of ${b.assumptions.length}`],
-  ],
-  headlineVoltages,
-];
+  ];
+}
 
 export function basisSummaryRows(basis: DesignBasis): SummaryRow[] {
   return summaryRowSources.flatMap((source) => source(basis));

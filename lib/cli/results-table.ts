@@ -1,6 +1,8 @@
 /** The headline numbers of a results object as label / value rows for the terminal. */
 import type { Results } from '../plant/results-schema.ts';
 import { sig } from '../core/plain-text.ts';
+import { feedNames } from '../basis/stream-rules.ts';
+import type { TechnologyId } from '../electrochem/technologies.ts';
 
 const pct = (x: number | null) => (x === null ? '' : `${sig(x * 100, 4)} %`);
 const kw = (w: number) => `${sig(w / 1000, 5)} kW`;
@@ -26,11 +28,11 @@ export function headlineRows(r: Results): [string, string][] {
     rows.push(['specific energy', `${sig(h.specificEnergy_kWh_per_kg!, 4)} kWh/kg (LHV efficiency ${pct(r.efficiency.electrolysisEfficiencyLhv)}, HHV ${pct(r.efficiency.electrolysisEfficiencyHhv)})`]);
   }
   rows.push([h.stackHeat_W >= 0 ? 'stack heat released (isothermal)' : 'stack heat needed (isothermal)', kw(Math.abs(h.stackHeat_W))]);
-  if (h.airFlow_kg_per_h !== null) rows.push(['air-electrode feed', `${sig(h.airFlow_kg_per_h, 5)} kg/h`]);
+  if (h.airFlow_kg_per_h !== null) rows.push([feedNames(r.technology.id as TechnologyId, r.technology.mode).air, `${sig(h.airFlow_kg_per_h, 5)} kg/h`]);
   if (h.minimumSteamToCarbon !== null) {
     rows.push(['minimum steam-to-carbon / margin', `${sig(h.minimumSteamToCarbon, 4)} / ${h.carbonMargin === null ? 'no steam given' : sig(h.carbonMargin, 4)}`]);
   }
-  if (h.maxCarbonActivity !== null) rows.push(['highest carbon activity on the fuel path', sig(h.maxCarbonActivity, 4)]);
+  if (h.maxCarbonActivity !== null) rows.push(['highest carbon activity on the fuel path in the stack (stack temperature)', sig(h.maxCarbonActivity, 4)]);
   return rows;
 }
 

@@ -104,7 +104,7 @@ const designResultsSchema = z
         electricalEfficiencyHhv: nullableNum('power mode: net electric power over fuel HHV input'),
         thermodynamicLimitLhv: nullableNum('power mode: −ΔG(T) of the fuel oxidation over its LHV'),
         thermodynamicLimitHhv: nullableNum('power mode: −ΔG(T) of the fuel oxidation over its HHV'),
-        stackHeat_W: num('heat released by the stack, all streams at the stack temperature (negative: heat needed)'),
+        stackHeat_W: num('isothermal stack heat: released with every inlet and outlet at the stack temperature (negative: heat needed)'),
         maxLocalCurrentDensity_A_per_m2: num('highest local current density at the terminals along the cell (at the inlet, or at the first equilibrated increment of an unbounded inlet)'),
         airFlow_kg_per_h: nullableNum('air-electrode feed'),
         hydrogenProduction_kg_per_h: nullableNum('electrolysis: hydrogen produced'),
@@ -112,7 +112,7 @@ const designResultsSchema = z
         specificEnergy_kWh_per_kg: nullableNum('electrolysis: electric energy per kg of hydrogen'),
         minimumSteamToCarbon: nullableNum('least S/C keeping the equilibrated fuel gas free of carbon (the higher of stack and pre-reformer temperature); null without carbon'),
         carbonMargin: nullableNum('design S/C minus the minimum; null without carbon or steam'),
-        maxCarbonActivity: nullableNum('highest carbon activity along the fuel path; null without carbon'),
+        maxCarbonActivity: nullableNum('highest carbon activity on the fuel path in the stack, at the stack temperature (the pre-reformer outlet not included); null without carbon'),
       })
       .describe('the headline numbers a review looks at first'),
     electrochemistry: z.object({

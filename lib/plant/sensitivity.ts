@@ -10,6 +10,7 @@
  * refinement) than the reported one; the base case is evaluated on the same grid, so the
  * differences carry no grid error of their own.
  */
+import { conversionName } from '../basis/stream-rules.ts';
 import type { Sensitivity } from '../basis/types.ts';
 import { UserError } from '../core/errors.ts';
 import { withSteamToCarbon, type DesignInputs } from './design-inputs.ts';
@@ -46,7 +47,7 @@ function perturbations(step: Sensitivity, inputs: DesignInputs): Perturbation[] 
       show: (i) => `${fmt(i.fuelPressureBar)} / ${fmt(i.airPressureBar)} bar`,
     },
     {
-      input: inputs.mode === 'power' ? 'fuel utilization' : 'steam conversion',
+      input: conversionName(inputs.technology, inputs.mode),
       path: inputs.mode === 'power' ? 'operating-point.fuel-utilization' : 'operating-point.steam-conversion',
       step: `±${fmt(step.utilization)}`,
       apply: (i, s) => ({ ...i, utilization: Math.min(0.99, Math.max(0.01, i.utilization + s * step.utilization)) }),

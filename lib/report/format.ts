@@ -111,3 +111,8 @@ export function formatTemperature(kelvin: number): string {
 export function formatPower(watts: number, digits = 4): string {
   return Math.abs(watts) >= 1000 ? formatQuantity(watts / 1000, 'kW', digits) : formatQuantity(watts, 'W', digits);
 }
+
+/** The text with its first letter a capital, for a name that starts a table row ("Water feed (oxygen electrode)"). */
+export function capitalised(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
+}

@@ -6,10 +6,11 @@
  */
 import type { AirStream, DesignBasis, FuelStream, InputRecord } from '../../basis/types.ts';
 import type { Results } from '../../plant/results-schema.ts';
-import { formatNumber, formatPercent, formatTemperature, formatTrimmed } from '../format.ts';
+import { capitalised as capital, formatNumber, formatPercent, formatTemperature, formatTrimmed } from '../format.ts';
 import { pairs, table, type Table, type TableRow } from '../table.ts';
 import { prettyUnit } from '../units.ts';
 import { speciesText } from '../species-text.ts';
+import { feedNames } from '../../basis/stream-rules.ts';
 
 export interface InputsSection {
   description: Table;
@@ -37,8 +38,8 @@ function composition(fractions: Readonly<Record<string, number>>): string {
     .join(', ');
 }
 
-function fuelRows(fuel: FuelStream, power: boolean): [string, string][] {
-  const rows: [string, string][] = [[power ? 'Fuel (dry)' : 'Fuel-electrode feed', `${fuel.compositionName ? `${fuel.compositionName}: ` : ''}${composition(fuel.composition)}`]];
+function fuelRows(fuel: FuelStream, power: boolean, name: string): [string, string][] {
+  const rows: [string, string][] = [[power ? 'Fuel (dry)' : capital(name), `${fuel.compositionName ? `${fuel.compositionName}: ` : ''}${composition(fuel.composition)}`]];
   if (fuel.steamToCarbon !== undefined) rows.push(['Steam addition', `steam-to-carbon ratio ${formatNumber(fuel.steamToCarbon)}`]);
   else if (fuel.steamPerMoleFuel !== undefined) rows.push(['Steam addition', `${formatNumber(fuel.steamPerMoleFuel)} mol per mol of fuel`]);
   rows.push(['Pre-reforming', fuel.preReforming.kind === 'equilibrium' ? `equilibrium pre-reformer at ${formatTemperature(fuel.preReforming.temperatureK)}` : 'none']);
@@ -46,8 +47,8 @@ function fuelRows(fuel: FuelStream, power: boolean): [string, string][] {
   return rows;
 }
 
-function airRows(air: AirStream): [string, string][] {
-  return [['Air-electrode feed', `${air.compositionName ? `${air.compositionName}: ` : ''}${composition(air.composition)}`]];
+function airRows(air: AirStream, name: string): [string, string][] {
+  return [[capital(name), `${air.compositionName ? `${air.compositionName}: ` : ''}${composition(air.composition)}`]];
 }
 
 function description(basis: DesignBasis, r: Results): Table {
@@ -61,10 +62,11 @@ function description(basis: DesignBasis, r: Results): Table {
     ['Electrolyte', cell.electrolyte ?? 'not stated'],
     ['Nickel in the fuel electrode or catalyst', `${cell.nickelBearing ? 'yes' : 'no'} (${cell.nickelBearingFrom === 'stated' ? 'stated in the basis' : cell.nickelBearingFrom === 'material text' ? 'read from the material text' : 'usual for the technology'})`],
   ];
-  if (basis.fuelElectrode) rows.push(...fuelRows(basis.fuelElectrode, power));
-  else rows.push(['Fuel-electrode feed', 'none']);
-  if (basis.airElectrode) rows.push(...airRows(basis.airElectrode));
-  else rows.push(['Air-electrode feed', 'none']);
+  const names = feedNames(cell.technology, cell.mode);
+  if (basis.fuelElectrode) rows.push(...fuelRows(basis.fuelElectrode, power, names.fuel));
+  else rows.push([capital(names.fuel), 'none']);
+  if (basis.airElectrode) rows.push(...airRows(basis.airElectrode, names.air));
+  else rows.push([capital(names.air), 'none']);
   return pairs(rows, ['Item', 'As designed'], 'left');
 }
 

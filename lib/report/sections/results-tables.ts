@@ -103,9 +103,9 @@ function carbon(r: Results): Row[] {
     opt('Design steam-to-carbon ratio', c.steamToCarbon, (v) => formatNumber(v)),
     opt('Least carbon-free S/C at the stack temperature', c.minimumSteamToCarbonStack, (v) => formatNumber(v)),
     opt('Least carbon-free S/C at the pre-reformer temperature', c.minimumSteamToCarbonPreReformer, (v) => formatNumber(v)),
-    opt('Carbon activity at the pre-reformer outlet', c.preReformerCarbonActivity, (v) => formatNumber(v)),
+    opt('Carbon activity at the pre-reformer outlet, at the pre-reformer temperature (before the stack; not on the fuel path)', c.preReformerCarbonActivity, (v) => formatNumber(v)),
     opt('Carbon activity of the equilibrated gas at the stack inlet', c.inletCarbonActivity, (v) => formatNumber(v)),
-    opt('Highest carbon activity along the fuel path', c.maxCarbonActivity, (v) => formatNumber(v)),
+    opt('Highest carbon activity on the fuel path in the stack, at the stack temperature (the pre-reformer not included)', c.maxCarbonActivity, (v) => formatNumber(v)),
   ]);
 }
 

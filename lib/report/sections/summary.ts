@@ -8,9 +8,11 @@ import type { DesignBasis } from '../../basis/types.ts';
 import type { Results } from '../../plant/results-schema.ts';
 import type { HazardAssessment } from '../../hazards/types.ts';
 import type { CheckResult } from '../../verification/checks.ts';
-import { formatInteger, formatNumber, formatPercent, formatPower, formatQuantity, formatTemperature } from '../format.ts';
+import { capitalised, formatInteger, formatNumber, formatPercent, formatPower, formatQuantity, formatTemperature } from '../format.ts';
 import { pairs, type Table } from '../table.ts';
 import { sectionNumber } from '../outline.ts';
+import { feedNames } from '../../basis/stream-rules.ts';
+import type { TechnologyId } from '../../electrochem/technologies.ts';
 
 export interface Finding {
   /** Critical, Warning or Info: the severity in words, as the page and the print show it. */
@@ -74,11 +76,14 @@ function headlineRows(r: Results): [string, string][] {
     }
   }
   rows.push([h.stackHeat_W >= 0 ? 'Stack heat released (isothermal)' : 'Stack heat needed (isothermal)', formatPower(Math.abs(h.stackHeat_W))]);
-  if (h.airFlow_kg_per_h !== null) rows.push(['Air-electrode feed', formatQuantity(h.airFlow_kg_per_h, 'kg/h')]);
+  if (h.airFlow_kg_per_h !== null) {
+    const name = feedNames(r.technology.id as TechnologyId, r.technology.mode).air;
+    rows.push([capitalised(name), formatQuantity(h.airFlow_kg_per_h, 'kg/h')]);
+  }
   if (h.minimumSteamToCarbon !== null) {
     rows.push(['Minimum steam-to-carbon ratio / margin', `${formatNumber(h.minimumSteamToCarbon)} / ${h.carbonMargin === null ? 'no steam given' : formatNumber(h.carbonMargin)}`]);
   }
-  if (h.maxCarbonActivity !== null) rows.push(['Highest carbon activity on the fuel path', formatNumber(h.maxCarbonActivity)]);
+  if (h.maxCarbonActivity !== null) rows.push(['Highest carbon activity on the fuel path in the stack (stack temperature)', formatNumber(h.maxCarbonActivity)]);
   return rows;
 }
 
@@ -113,7 +118,7 @@ function conclusions(r: Results, basis: DesignBasis, hazards: HazardAssessment, 
   if (h.carbonMargin !== null && h.minimumSteamToCarbon !== null) {
     out.push(
       h.carbonMargin >= 0
-        ? `The steam-to-carbon ratio is ${formatNumber(h.carbonMargin)} above the carbon limit of ${formatNumber(h.minimumSteamToCarbon)}; the equilibrated fuel gas stays free of carbon${h.maxCarbonActivity !== null ? ` (highest carbon activity ${formatNumber(h.maxCarbonActivity)})` : ''}.`
+        ? `The steam-to-carbon ratio is ${formatNumber(h.carbonMargin)} above the carbon limit of ${formatNumber(h.minimumSteamToCarbon)}; the equilibrated fuel gas stays free of carbon${h.maxCarbonActivity !== null ? ` (highest carbon activity on the fuel path in the stack ${formatNumber(h.maxCarbonActivity)})` : ''}.`
         : `The steam-to-carbon ratio is ${formatNumber(-h.carbonMargin)} below the carbon limit of ${formatNumber(h.minimumSteamToCarbon)}: carbon can deposit, and the design must change before it is issued.`,
     );
   } else if (h.maxCarbonActivity === null && r.technology.mode === 'power') {
