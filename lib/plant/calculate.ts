@@ -210,6 +210,12 @@ function efficiencyOf({ point, power }: Computed): Results['efficiency'] {
     hydrogenProduction_mol_per_s: el?.hydrogenMolPerS ?? null,
     oxygenProduction_mol_per_s: el?.oxygenMolPerS ?? null,
     carbonMonoxideProduction_mol_per_s: el ? el.carbonMonoxideMolPerS : null,
+    methaneProduction_mol_per_s: el ? el.methaneMolPerS : null,
+    productLhv_W: el?.productLhvW ?? null,
+    productHhv_W: el?.productHhvW ?? null,
+    steamLatentHeat_W: el?.steamLatentHeatW ?? null,
+    heatInclusiveEfficiencyLhv: el?.heatInclusiveEfficiencyLhv ?? null,
+    heatInclusiveEfficiencyHhv: el?.heatInclusiveEfficiencyHhv ?? null,
   };
 }
 

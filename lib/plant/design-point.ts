@@ -50,7 +50,7 @@ export interface DesignPoint {
   /** Electrolysis fed liquid water at its water electrode: the water that carries the stack heat at the allowed rise, mol/s. */
   coolingWaterMolPerS: number | null;
   power: PowerEfficiency | null;
-  electrolysis: (ElectrolysisEfficiency & { hydrogenMolPerS: number; oxygenMolPerS: number; carbonMonoxideMolPerS: number }) | null;
+  electrolysis: (ElectrolysisEfficiency & { hydrogenMolPerS: number; oxygenMolPerS: number; carbonMonoxideMolPerS: number; methaneMolPerS: number }) | null;
   findings: Finding[];
 }
 
@@ -214,6 +214,14 @@ function coolingAir(inputs: DesignInputs, heat: HeatBalance, airInletFlows: Reco
   return air;
 }
 
+/** Σ outlets − Σ inlets of each species, mol/s. */
+function netChange(outlets: readonly Readonly<Record<string, number>>[], inlets: readonly Readonly<Record<string, number>>[]): Record<string, number> {
+  const out: Record<string, number> = {};
+  for (const flows of outlets) for (const [s, n] of Object.entries(flows)) out[s] = (out[s] ?? 0) + n;
+  for (const flows of inlets) for (const [s, n] of Object.entries(flows)) out[s] = (out[s] ?? 0) - n;
+  return out;
+}
+
 /** The basis field that sets the cell voltage, and the utilization or conversion. */
 function voltageFieldOf(inputs: DesignInputs): string {
   return inputs.voltage.kind === 'given' ? 'operating-point.cell-voltage' : 'operating-point.area-specific-resistance';
@@ -230,7 +238,9 @@ function electrolysisFigures(inputs: DesignInputs, streams: ReturnType<typeof st
   const hydrogenMolPerS = (fuelOut.H2 ?? 0) - (fuelIn.H2 ?? 0);
   const oxygenMolPerS = (airOut.O2 ?? 0) - (airInletFlows?.O2 ?? 0);
   const carbonMonoxideMolPerS = (fuelOut.CO ?? 0) - (fuelIn.CO ?? 0);
-  const figures = { ...electrolysisEfficiency(hydrogenMolPerS, size.stackPowerW, path.meanNernstV, size.voltage.cellVoltageV), hydrogenMolPerS, oxygenMolPerS, carbonMonoxideMolPerS };
+  const producedMolPerS = netChange([fuelOut, airOut], [fuelIn, airInletFlows ?? {}]);
+  const efficiency = electrolysisEfficiency({ producedMolPerS, powerInW: size.stackPowerW, isothermalHeatW: heat.isothermalHeatW, meanNernstV: path.meanNernstV, cellVoltageV: size.voltage.cellVoltageV });
+  const figures = { ...efficiency, hydrogenMolPerS, oxygenMolPerS, carbonMonoxideMolPerS, methaneMolPerS: producedMolPerS.CH4 ?? 0 };
   if (heat.isothermalHeatW < 0 && inputs.technology.waterPhase === 'gas') {
     findings.push(
       finding(

@@ -8,14 +8,27 @@
  *   Carnot limit         1 − T_cold / T_hot (for comparison; a fuel cell is not a heat engine)
  *   voltage efficiency   V / Ē
  *   electrical           η_el = P / (ṅ_fuel · LHV) and / (ṅ_fuel · HHV), gross (stack DC) and net
- * Electrolysis:
- *   specific energy      w = P / ṁ_H2 (kWh/kg); η_LHV = ṁ_H2 LHV_H2 / P, η_HHV = ṁ_H2 HHV_H2 / P
- *                        (39.4 kWh/kg at 100 % HHV, 33.3 kWh/kg at 100 % LHV)
+ * Electrolysis (the products are the combustibles the stack makes, net of its feed: hydrogen, and
+ * in co-electrolysis carbon monoxide and any methane the equilibrated outlet holds, each by its
+ * heating value, so a syngas is charged with all of its energy):
+ *   specific energy      w = P / ṁ_H2 (kWh/kg), electricity only
+ *   electricity only     η_el = Σ Δṅ_i HV_i / P, on LHV and HHV (39.4 kWh/kg of H2 at 100 % HHV,
+ *                        33.3 kWh/kg at 100 % LHV); heat supplied from outside is not counted, so
+ *                        a steam-fed stack exceeds 100 % on HHV: the latent heat of its water is
+ *                        brought by the steam
+ *   heat counted         η_Q,LHV = Σ Δṅ_i LHV_i / (P + Q_in),  η_Q,HHV = Σ Δṅ_i HHV_i / (P + Q_in + ṅ_steam L(25 °C))
+ *                        Q_in the heat the stack absorbs below the thermoneutral voltage (isothermal,
+ *                        lib/plant/heat.ts), ṅ_steam the water it consumes as vapour and L(25 °C)
+ *                        its latent heat (lib/thermo/latent-heat.ts), which the HHV counts as
+ *                        supplied (e.g. the energy-efficiency definitions of the electrolysis
+ *                        literature; the boundary is the stack with its feed at stack temperature)
  *   voltage efficiency   Ē / V
  */
 import { gibbs } from '../thermo/properties.ts';
 import { getSpecies } from '../thermo/species-data.ts';
 import { heatingValue, streamHeatingValueW } from './heating-values.ts';
+import { waterLatentHeatJPerMol } from '../thermo/latent-heat.ts';
+import { REFERENCE_TEMPERATURE_K } from '../thermo/constants.ts';
 
 /** −ΔG(T) of complete oxidation of a stream's combustibles (to CO2, H2O, N2, SO2), W on a flow basis. */
 export function oxidationGibbsW(stream: Readonly<Record<string, number>>, temperatureK: number, waterPhase: 'gas' | 'liquid'): number {
@@ -77,20 +90,53 @@ export function powerEfficiency(
 }
 
 export interface ElectrolysisEfficiency {
+  /** Electricity per kg of hydrogen made, kWh/kg (electricity only). */
   specificEnergyKWhPerKg: number;
+  /** Heating value of the products over the electricity (electricity only), LHV and HHV. */
   efficiencyLhv: number;
   efficiencyHhv: number;
+  /** Heating value of the combustibles made, net of the feed (H2, and CO and CH4 in co-electrolysis), W. */
+  productLhvW: number;
+  productHhvW: number;
+  /** Heat the stack absorbs below the thermoneutral voltage (isothermal), W, 0 or more. */
+  heatDemandW: number;
+  /** Latent heat (25 °C) of the water the stack consumes as vapour, W. */
+  steamLatentHeatW: number;
+  /** Heating value of the products over the electricity plus the heat supplied (see the module comment). */
+  heatInclusiveEfficiencyLhv: number;
+  heatInclusiveEfficiencyHhv: number;
   voltageEfficiency: number;
 }
 
-export function electrolysisEfficiency(hydrogenMolPerS: number, powerInW: number, meanNernstV: number, cellVoltageV: number): ElectrolysisEfficiency {
+export interface ElectrolysisFlows {
+  /** Net change of each species over the stack, out − in, mol/s (products positive). */
+  producedMolPerS: Readonly<Record<string, number>>;
+  /** Electric power into the stack, W. */
+  powerInW: number;
+  /** Isothermal stack heat, W (negative: heat the stack absorbs). */
+  isothermalHeatW: number;
+  meanNernstV: number;
+  cellVoltageV: number;
+}
+
+export function electrolysisEfficiency(flows: ElectrolysisFlows): ElectrolysisEfficiency {
+  const { producedMolPerS, powerInW, isothermalHeatW, meanNernstV, cellVoltageV } = flows;
   const h2 = getSpecies('H2');
-  const kgPerS = hydrogenMolPerS * h2.molarMassKgPerMol;
-  const hv = heatingValue(h2);
+  const hydrogenKgPerS = (producedMolPerS.H2 ?? 0) * h2.molarMassKgPerMol;
+  const combustibles = Object.fromEntries(Object.entries(producedMolPerS).filter(([name]) => heatingValue(getSpecies(name)).lhvJPerMol > 0));
+  const product = streamHeatingValueW(combustibles);
+  const heatDemandW = Math.max(0, -isothermalHeatW);
+  const steamLatentHeatW = Math.max(0, -(producedMolPerS.H2O ?? 0)) * waterLatentHeatJPerMol(REFERENCE_TEMPERATURE_K);
   return {
-    specificEnergyKWhPerKg: powerInW / kgPerS / 3.6e6,
-    efficiencyLhv: (hydrogenMolPerS * hv.lhvJPerMol) / powerInW,
-    efficiencyHhv: (hydrogenMolPerS * hv.hhvJPerMol) / powerInW,
+    specificEnergyKWhPerKg: powerInW / hydrogenKgPerS / 3.6e6,
+    efficiencyLhv: product.lhvJPerMol / powerInW,
+    efficiencyHhv: product.hhvJPerMol / powerInW,
+    productLhvW: product.lhvJPerMol,
+    productHhvW: product.hhvJPerMol,
+    heatDemandW,
+    steamLatentHeatW,
+    heatInclusiveEfficiencyLhv: product.lhvJPerMol / (powerInW + heatDemandW),
+    heatInclusiveEfficiencyHhv: product.hhvJPerMol / (powerInW + heatDemandW + steamLatentHeatW),
     voltageEfficiency: meanNernstV / cellVoltageV,
   };
 }
