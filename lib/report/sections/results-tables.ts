@@ -3,6 +3,7 @@
  * results (electrochemistry, operating point, efficiency, heat, carbon) and the stream table,
  * one column per stream with its state, flows, enthalpy flow and gas composition.
  */
+import { efficiencyBasisNotes } from '../efficiency-basis.ts';
 import type { Results, StreamResult } from '../../plant/results-schema.ts';
 import { formatFixed, formatInteger, formatNumber, formatPercent, formatPower, formatQuantity } from '../format.ts';
 import { pairs, table, type Table, type TableRow } from '../table.ts';
@@ -59,23 +60,31 @@ function operatingPoint(r: Results): Row[] {
 function efficiency(r: Results): Row[] {
   const e = r.efficiency;
   const pct = (v: number) => formatPercent(v);
+  const notes = efficiencyBasisNotes(r);
+  // A figure whose basis needs saying (above 100 %) carries its note beside the number.
+  const noted = (key: keyof typeof notes) => (v: number) => (notes[key] ? `${pct(v)} (${notes[key]})` : pct(v));
   return present([
     opt('Fuel input, LHV', e.fuelLhvInput_W, (v) => formatPower(v)),
     opt('Fuel input, HHV', e.fuelHhvInput_W, (v) => formatPower(v)),
-    opt('Thermodynamic limit at T, LHV', e.thermodynamicLimitLhv, pct),
-    opt('Thermodynamic limit at T, HHV', e.thermodynamicLimitHhv, pct),
+    opt('Thermodynamic limit at T, LHV', e.thermodynamicLimitLhv, noted('thermodynamicLimitLhv')),
+    opt('Thermodynamic limit at T, HHV', e.thermodynamicLimitHhv, noted('thermodynamicLimitHhv')),
     opt('Carnot limit (for comparison)', e.carnotLimit, pct),
     ['Voltage efficiency', pct(e.voltageEfficiency)],
     opt('Electrical efficiency, gross, LHV', e.electricalEfficiencyLhvGross, pct),
     opt('Electrical efficiency, gross, HHV', e.electricalEfficiencyHhvGross, pct),
     opt('Electrical efficiency, net, LHV', e.electricalEfficiencyLhvNet, pct),
     opt('Electrical efficiency, net, HHV', e.electricalEfficiencyHhvNet, pct),
-    opt('Electrolysis efficiency, LHV', e.electrolysisEfficiencyLhv, pct),
-    opt('Electrolysis efficiency, HHV', e.electrolysisEfficiencyHhv, pct),
-    opt('Specific energy', e.specificEnergy_kWh_per_kg, (v) => formatQuantity(v, 'kWh/kg')),
+    opt('Electrolysis efficiency over electricity alone, LHV', e.electrolysisEfficiencyLhv, noted('electrolysisEfficiencyLhv')),
+    opt('Electrolysis efficiency over electricity alone, HHV', e.electrolysisEfficiencyHhv, noted('electrolysisEfficiencyHhv')),
+    opt('Electrolysis efficiency with the heat supplied counted, LHV (electricity and the heat the stack absorbs)', e.heatInclusiveEfficiencyLhv, pct),
+    opt('Electrolysis efficiency with the heat supplied counted, HHV (also the latent heat of the steam consumed)', e.heatInclusiveEfficiencyHhv, pct),
+    opt('Latent heat (25 °C) of the water consumed as steam', e.steamLatentHeat_W, (v) => formatPower(v)),
+    opt('Heating value of the products, LHV (net of the feed)', e.productLhv_W, (v) => formatPower(v)),
+    opt('Specific electric energy (electricity only)', e.specificEnergy_kWh_per_kg, (v) => formatQuantity(v, 'kWh/kg')),
     opt('Hydrogen produced', e.hydrogenProduction_mol_per_s, (v) => formatQuantity(v, 'mol/s')),
     opt('Oxygen produced', e.oxygenProduction_mol_per_s, (v) => formatQuantity(v, 'mol/s')),
     e.carbonMonoxideProduction_mol_per_s ? ['Carbon monoxide produced', formatQuantity(e.carbonMonoxideProduction_mol_per_s, 'mol/s')] : null,
+    e.methaneProduction_mol_per_s ? ['Methane formed in the equilibrated outlet', formatQuantity(e.methaneProduction_mol_per_s, 'mol/s')] : null,
   ]);
 }
 
