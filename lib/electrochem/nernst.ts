@@ -10,7 +10,7 @@
  *   oxide ion O²⁻    Q = p_H2,a · p_O2,c^½ / p_H2O,a
  *   proton H⁺        Q = p_H2,a · p_O2,c^½ / p_H2O,c
  *   carbonate CO3²⁻  Q = p_H2,a · p_O2,c^½ · p_CO2,c / (p_H2O,a · p_CO2,a)
- *   hydroxide OH⁻    Q = p_H2,a · p_O2,c^½   (electrolyte water activity 1)
+ *   hydroxide OH⁻    Q = p_H2,a · p_O2,c^½ / a_w   (a_w the electrolyte's water activity)
  *
  * a = fuel electrode, c = air electrode; E° = −ΔG°/2F of H2 + ½O2 → H2O at T, with gaseous
  * water, or liquid water (activity 1, the water term dropped) where the cell runs with liquid
@@ -117,4 +117,14 @@ export function oxygenPotentialNernstV(ion: Ion, temperatureK: number, fuelLnBar
   let sum = 0;
   for (const { species, coefficient } of couple) sum += coefficient * (Math.log(air[species] ?? 0) - (fuelLnBar[species] ?? Number.NaN));
   return ((R * temperatureK) / (2 * F)) * sum;
+}
+
+/**
+ * The liquid water's activity in the Nernst voltage: with the cell reaction H2 + ½O2 → H2O(l) at
+ * water activity a_w (an alkaline cell's KOH solution, lib/thermo/koh-solution.ts) the quotient
+ * carries 1/a_w, so E = E° + RT/2F ln Q − RT/2F ln a_w; this returns −RT/2F ln a_w, V (0 for pure
+ * water; +7.3 mV for 30 wt % KOH at 80 °C, a_w = 0.617).
+ */
+export function waterActivityVoltage(temperatureK: number, waterActivity: number): number {
+  return -((R * temperatureK) / (2 * F)) * Math.log(waterActivity);
 }

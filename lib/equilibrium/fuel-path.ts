@@ -29,16 +29,21 @@
  * water-electrode feed (steam, or steam and CO2, conversion; CO2 only for oxide-ion cells).
  *
  * Liquid-water cells (PEM, alkaline) keep both gases saturated with vapour at cell temperature,
- * x_H2O = p_sat/P; their water balance closes through the liquid (lib/plant does it).
+ * x_H2O = a_w p_s(T)/P with p_s by IAPWS-IF97 (lib/thermo/water-saturation.ts) and a_w the
+ * activity of the water the gases stand over: 1 for a PEM cell's pure water, the KOH solution's
+ * for an alkaline cell (Balej 1985, lib/thermo/koh-solution.ts), which also enters the Nernst
+ * voltage as −RT/2F ln a_w (nernst.ts); their water balance closes through the liquid (lib/plant
+ * does it).
  *
  * The mean Nernst voltage and the grid are in lib/equilibrium/path-integral.ts.
  */
-import { FARADAY_C_PER_MOL as F } from '../thermo/constants.ts';
+import { FARADAY_C_PER_MOL as F, PA_PER_BAR } from '../thermo/constants.ts';
 import { gOverRT } from '../thermo/properties.ts';
-import { saturationPressureBar } from '../thermo/saturation.ts';
+import { waterSaturationPressurePa } from '../thermo/water-saturation.ts';
+import { kohWaterActivity } from '../thermo/koh-solution.ts';
 import { getSpecies } from '../thermo/species-data.ts';
 import { electronsOfStream } from '../electrochem/charge.ts';
-import { hydrogenStandardVoltage, nernstVoltage, oxygenPotentialNernstV } from '../electrochem/nernst.ts';
+import { hydrogenStandardVoltage, nernstVoltage, oxygenPotentialNernstV, waterActivityVoltage } from '../electrochem/nernst.ts';
 import { activeQuotient, potentialCouple } from '../electrochem/electrolytes.ts';
 import type { Mode, Technology } from '../electrochem/technologies.ts';
 import { minimiseGibbs } from './gibbs-minimiser.ts';
@@ -58,6 +63,8 @@ export interface FuelPathRequest {
   fuelFeed: Readonly<Record<string, number>> | null;
   /** Air-electrode feed, mol/s on the same scale; null when it has none. */
   airFeed: Readonly<Record<string, number>> | null;
+  /** Alkaline cells: the mass fraction of KOH in the electrolyte, whose water activity sets the vapour over it and the Nernst voltage; absent for pure water. */
+  kohMassFraction?: number;
   /** Design fuel utilization (power) or steam/CO2 conversion (electrolysis), in (0, 1). */
   utilization: number;
   /**
@@ -121,7 +128,9 @@ export interface FuelPath {
   elementBalanceError: number;
   /** E° of H2 + ½O2 → H2O at T used by the Nernst equation, V. */
   standardVoltageV: number;
-  /** Vapour mole fraction p_sat/P of each side for liquid-water cells (0 otherwise). */
+  /** Activity of the liquid water of a liquid-water cell (the KOH solution's for an alkaline cell), 1 otherwise; E° above includes −RT/2F ln a_w. */
+  waterActivity: number;
+  /** Vapour mole fraction a_w p_s/P of each side for liquid-water cells (0 otherwise). */
   vapourFractionFuel: number;
   vapourFractionAir: number;
   /** The equilibria solved, by utilization, to seed a neighbouring path (empty without fuel-gas equilibrium). */
@@ -210,6 +219,8 @@ class PathModel {
   readonly airGas: GasLayout;
   readonly vapourFuel: number;
   readonly vapourAir: number;
+  /** Activity of the liquid water the gases stand over (1 for pure water). */
+  readonly waterActivity: number;
   /** An element reaches the fuel gas only through the electrolyte (a dry inlet): E(0) is unbounded. */
   readonly seeded: boolean;
   /** The re-equilibrated fuel gas holds every element of the ion's couple, so the couple's potentials are defined along the path. */
@@ -239,11 +250,12 @@ class PathModel {
     this.basisA = basisA;
     this.seeds = request.seeds ?? [];
     const liquid = technology.waterPhase === 'liquid';
-    const pSat = liquid ? saturationPressureBar(temperatureK) : 0;
+    this.waterActivity = liquid && request.kohMassFraction !== undefined ? kohWaterActivity(request.kohMassFraction, temperatureK) : 1;
+    const pSat = liquid ? (waterSaturationPressurePa(temperatureK) / PA_PER_BAR) * this.waterActivity : 0;
     this.vapourFuel = pSat / request.fuelPressureBar;
     this.vapourAir = pSat / request.airPressureBar;
     if (this.vapourFuel >= 1 || this.vapourAir >= 1) {
-      throw new UserError(`at ${temperatureK.toFixed(2)} K water boils at the electrode pressure (saturation pressure ${pSat.toFixed(3)} bar): raise the pressure or lower the temperature`);
+      throw new UserError(`at ${temperatureK.toFixed(2)} K water boils at the electrode pressure (vapour pressure ${pSat.toFixed(3)} bar by IAPWS-IF97): raise the pressure or lower the temperature`);
     }
     this.sign = request.mode === 'power' ? 1 : -1;
     this.exchange = exchangeFor(technology.ion);
@@ -388,7 +400,7 @@ export function fuelPath(request: FuelPathRequest): FuelPath {
   const basisA = chargeBasis(request);
   const model = new PathModel(request, basisA);
   const { technology, temperatureK } = request;
-  const e0 = hydrogenStandardVoltage(temperatureK, technology.waterPhase);
+  const e0 = hydrogenStandardVoltage(temperatureK, technology.waterPhase) + waterActivityVoltage(temperatureK, model.waterActivity);
   const pf = request.fuelPressureBar;
   const pa = request.airPressureBar;
   const fuelP: Record<string, number> = {};
@@ -455,6 +467,7 @@ export function fuelPath(request: FuelPathRequest): FuelPath {
     airOutlet: toRecord(model.airGas, last.state.air),
     elementBalanceError: Math.max(...all.map((p) => p.state.elementError)),
     standardVoltageV: e0,
+    waterActivity: model.waterActivity,
     vapourFractionFuel: technology.waterPhase === 'liquid' ? model.vapourFuel : 0,
     vapourFractionAir: technology.waterPhase === 'liquid' ? model.vapourAir : 0,
     solutions: model.solved,

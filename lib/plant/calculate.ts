@@ -10,6 +10,7 @@ import { FARADAY_C_PER_MOL as F } from '../thermo/constants.ts';
 import { getSpecies, speciesDataHash } from '../thermo/species-data.ts';
 import { enthalpy } from '../thermo/properties.ts';
 import { evaluateReaction } from '../electrochem/reaction.ts';
+import { waterActivityVoltage } from '../electrochem/nernst.ts';
 import { assessHazards } from '../hazards/assessment.ts';
 import type { DesignBasis } from '../basis/types.ts';
 import { toolVersion } from '../core/version.ts';
@@ -151,7 +152,8 @@ function electrochemistryOf({ point, inputs }: Computed): Results['electrochemis
   const waterLabel = inputs.technology.waterPhase === 'gas' ? 'H2O' : 'H2O(L)';
   const hydrogen = evaluateReaction(`H2 + 1/2 O2 -> ${waterLabel}`, inputs.temperatureK);
   return {
-    standardVoltage_V: point.path.standardVoltageV,
+    // E° of pure water: the fuel path's E° carries the electrolyte's water activity (−RT/2F ln a_w, 0 for pure water).
+    standardVoltage_V: point.path.standardVoltageV - waterActivityVoltage(inputs.temperatureK, point.path.waterActivity),
     reversibleVoltage_V: hydrogen.reversibleVoltage_V,
     thermoneutralVoltage_V: hydrogen.thermoneutralVoltage_V,
     effectiveThermoneutralVoltage_V: point.heat.thermoneutralVoltageV,
@@ -399,6 +401,7 @@ function calculateResults(basis: DesignBasis): Results {
       inletUtilization: point.path.inletUtilization,
       nernstForm: point.path.nernstForm,
       standardVoltage_V: point.path.standardVoltageV,
+      waterActivity: point.path.waterActivity,
     },
     sweeps: {
       temperature: temperatureSweep(point, sizingBasis.conditions.sweepFromK, sizingBasis.conditions.sweepToK),

@@ -27,6 +27,8 @@ export interface DesignInputs extends OperatingPoint {
   airFeed: Record<string, number> | null;
   ionicTransferenceNumber: number;
   crossoverAllowanceV: number;
+  /** Alkaline cells: mass fraction of KOH in the electrolyte (sets its water activity). */
+  kohMassFraction?: number;
   /** Resolution of the fuel path (reported paths: at least 100). */
   intervals: number;
   refineV: number;
@@ -67,6 +69,7 @@ export function designInputs(basis: DesignBasis): DesignInputs {
     ...(op.resistanceLaw ? { resistanceLaw: { ...op.resistanceLaw, referenceTemperatureK: op.resistanceLaw.referenceTemperatureK ?? c.temperatureK } } : {}),
     ionicTransferenceNumber: basis.cell.ionicTransferenceNumber,
     crossoverAllowanceV: basis.cell.crossoverAllowanceV,
+    ...(basis.cell.kohMassFraction !== undefined ? { kohMassFraction: basis.cell.kohMassFraction } : {}),
     intervals: 120,
     refineV: 1e-3,
   };

@@ -95,6 +95,7 @@ function unitPath(inputs: DesignInputs, unit: UnitFeeds): FuelPath {
     airPressureBar: inputs.airPressureBar,
     fuelFeed: unit.fuelStackInlet,
     airFeed: unit.air,
+    ...(inputs.kohMassFraction !== undefined ? { kohMassFraction: inputs.kohMassFraction } : {}),
     utilization: inputs.utilization,
     intervals: inputs.intervals,
     refineV: inputs.refineV,

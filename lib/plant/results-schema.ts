@@ -213,7 +213,8 @@ const designResultsSchema = z
       nernstForm: z
         .enum(['quotient', 'oxygen-potential'])
         .describe("the form of the Nernst equation a reader evaluates E with: the pressure quotient of the electrode reactions, or the potentials of the ion's couple across the electrolyte where the fuel gas holds no hydrogen (both give the same E where both apply)"),
-      standardVoltage_V: num('E° used by the Nernst equation'),
+      standardVoltage_V: num('E° used by the Nernst equation (an alkaline cell: with −RT/2F ln a_w of its electrolyte water)'),
+      waterActivity: num('activity of the liquid water of a liquid-water cell (KOH solution by Balej 1985 for an alkaline cell), 1 otherwise'),
     }),
     sweeps: z.object({
       temperature: z.array(

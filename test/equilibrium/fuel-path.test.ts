@@ -7,7 +7,10 @@ import { fuelPath } from '../../lib/equilibrium/fuel-path.ts';
 import { technology } from '../../lib/electrochem/technologies.ts';
 import { hydrogenStandardVoltage } from '../../lib/electrochem/nernst.ts';
 import { FARADAY_C_PER_MOL as F, GAS_CONSTANT_J_PER_MOL_K as R } from '../../lib/thermo/constants.ts';
-import { saturationPressureBar } from '../../lib/thermo/saturation.ts';
+import { waterSaturationPressurePa } from '../../lib/thermo/water-saturation.ts';
+
+/** Water's vapour pressure by IAPWS-IF97 eq. 30, bar (1 bar = 10⁵ Pa). */
+const saturationPressureBar = (temperatureK: number) => waterSaturationPressurePa(temperatureK) / 1e5;
 import { getSpecies } from '../../lib/thermo/species-data.ts';
 import { gibbs } from '../../lib/thermo/properties.ts';
 import { lnEquilibriumConstant } from '../../lib/electrochem/reaction.ts';

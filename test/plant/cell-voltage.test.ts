@@ -14,7 +14,10 @@ import { BasisError } from '../../lib/basis/diagnostics.ts';
 import { CalculationError } from '../../lib/core/errors.ts';
 import { hydrogenStandardVoltage } from '../../lib/electrochem/nernst.ts';
 import { FARADAY_C_PER_MOL as F, GAS_CONSTANT_J_PER_MOL_K as R } from '../../lib/thermo/constants.ts';
-import { saturationPressureBar } from '../../lib/thermo/saturation.ts';
+import { waterSaturationPressurePa } from '../../lib/thermo/water-saturation.ts';
+
+/** Water's vapour pressure by IAPWS-IF97 eq. 30, bar (1 bar = 10⁵ Pa). */
+const saturationPressureBar = (temperatureK: number) => waterSaturationPressurePa(temperatureK) / 1e5;
 import { basisFrom } from '../helpers/scaffold-basis.ts';
 
 /** A profile of E(u) = a − b u on a grid (piecewise linear, so the linear interpolation is exact). */
@@ -184,10 +187,12 @@ describe('the calculation with a Nernst voltage uniform along the cell (pure gas
     const asr = 0.3; // ohm cm2
     const r = withResistance('alkaline', 'power', 20, asr, t);
     const tk = r.conditions.temperature_K;
-    const pSat = saturationPressureBar(tk);
+    // The gases stand over 30 wt % KOH: vapour a_w p_s(T), and −RT/2F ln a_w in E (Balej 1985).
+    const aw = r.fuelPath.waterActivity;
+    const pSat = aw * saturationPressureBar(tk);
     const pf = r.conditions.fuelPressure_bar;
     const pa = r.conditions.airPressure_bar;
-    const e = hydrogenStandardVoltage(tk, 'liquid') + ((R * tk) / (2 * F)) * Math.log((pf - pSat) * Math.sqrt(pa - pSat));
+    const e = hydrogenStandardVoltage(tk, 'liquid') + ((R * tk) / (2 * F)) * (Math.log((pf - pSat) * Math.sqrt(pa - pSat)) - Math.log(aw));
     const j = r.operatingPoint.currentDensity_A_per_m2 / 1e4; // A/cm2
     const v = t * e - r.electrochemistry.crossoverAllowance_V - j * asr;
     expect(r.headline.outletNernst_V).toBeCloseTo(e, 9);

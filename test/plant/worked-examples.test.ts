@@ -8,7 +8,10 @@ import { calculate } from '../../lib/plant/calculate.ts';
 import { FARADAY_C_PER_MOL as F } from '../../lib/thermo/constants.ts';
 import { enthalpy, gibbs } from '../../lib/thermo/properties.ts';
 import { getSpecies } from '../../lib/thermo/species-data.ts';
-import { saturationPressureBar } from '../../lib/thermo/saturation.ts';
+import { waterSaturationPressurePa } from '../../lib/thermo/water-saturation.ts';
+
+/** Water's vapour pressure by IAPWS-IF97 eq. 30, bar (1 bar = 10⁵ Pa). */
+const saturationPressureBar = (temperatureK: number) => waterSaturationPressurePa(temperatureK) / 1e5;
 import { basisFrom } from '../helpers/scaffold-basis.ts';
 
 const M_H2 = 2.01588e-3; // kg/mol (NASA record, IUPAC atomic weights)
@@ -319,13 +322,17 @@ describe('alkaline cell on hydrogen and oxygen (power, liquid water)', () => {
     expect(r.efficiency.carnotLimit!).toBeCloseTo(1 - 278.15 / 343.15, 12);
   });
 
-  it('Nernst (hydroxide, electrolyte water activity 1): outlet E = E°(liquid) + RT/2F ln(p_H2 p_O2^½)', () => {
+  it('Nernst (hydroxide, 30 wt % KOH): outlet E = E°(liquid) + RT/2F ln(p_H2 p_O2^½ / a_w), a_w = 0.61207 at 70 °C (Balej 1985; recomputed outside the repository)', () => {
     const t = 343.15;
     const p = 2;
     const x = stream(r, 'fuel-outlet').moleFractions;
     const y = stream(r, 'air-outlet').moleFractions;
     const e0 = minusDeltaG('H2O(L)', t) / (2 * F);
-    expect(r.headline.outletNernst_V).toBeCloseTo(e0 + ((R_GAS * t) / (2 * F)) * Math.log(x.H2! * p * Math.sqrt(y.O2! * p)), 9);
+    const aw = r.fuelPath.waterActivity;
+    expect(aw).toBeCloseTo(0.61207, 4);
+    // The gases stand over the lye: x_H2O = a_w p_s(T)/p = 0.61207 × 31.201 kPa / 2 bar (IF97).
+    expect(x.H2O!).toBeCloseTo((aw * saturationPressureBar(t)) / p, 12);
+    expect(r.headline.outletNernst_V).toBeCloseTo(e0 + ((R_GAS * t) / (2 * F)) * (Math.log(x.H2! * p * Math.sqrt(y.O2! * p)) - Math.log(aw)), 9);
   });
 });
 

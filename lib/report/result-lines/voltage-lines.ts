@@ -95,7 +95,9 @@ export function nernstLine(r: Results, book: EquationBook, where: 'inlet' | 'out
   const terms = couple ? coupleQuotient(r) : activeQuotient(r.technology.ion, r.technology.waterPhase);
   const inlet = inletText(r);
   const T: QuantitySpec = { name: 'T', value: r.conditions.temperature_K, unit: 'K', origin: 'operating temperature, design input' };
-  const standard: QuantitySpec[] = couple ? [] : [{ name: 'E0', value: r.fuelPath.standardVoltage_V, unit: 'V', origin: 'standard reversible voltage above' }];
+  const aw = r.fuelPath.waterActivity;
+  const e0Origin = aw === 1 ? 'standard reversible voltage above' : `standard reversible voltage above less RT/2F ln a_w, the electrolyte's water activity a_w = ${Number(aw.toPrecision(4))} (Balej 1985)`;
+  const standard: QuantitySpec[] = couple ? [] : [{ name: 'E0', value: r.fuelPath.standardVoltage_V, unit: 'V', origin: e0Origin }];
   return {
     id: `nernst-${where}`,
     title: `Nernst voltage at the ${where} (${where === 'inlet' ? inlet.at : `u = ${Number(point.utilization.toPrecision(4))}`})${couple ? ', from the oxygen potential' : ''}`,
