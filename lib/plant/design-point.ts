@@ -242,13 +242,15 @@ function electrolysisFigures(inputs: DesignInputs, streams: ReturnType<typeof st
   const producedMolPerS = netChange([fuelOut, airOut], [fuelIn, airInletFlows ?? {}]);
   const efficiency = electrolysisEfficiency({ producedMolPerS, powerInW: size.stackPowerW, isothermalHeatW: heat.isothermalHeatW, meanNernstV: path.meanNernstV, cellVoltageV: size.voltage.cellVoltageV });
   const figures = { ...efficiency, hydrogenMolPerS, oxygenMolPerS, carbonMonoxideMolPerS, methaneMolPerS: producedMolPerS.CH4 ?? 0 };
-  if (heat.isothermalHeatW < 0 && inputs.technology.waterPhase === 'gas') {
+  // Below thermoneutral every electrolyser absorbs heat, fed with steam or with liquid water alike.
+  if (heat.isothermalHeatW < 0) {
+    const how = inputs.technology.waterPhase === 'gas' ? 'superheated feed, heated sweep or electric heating' : 'a heated water or lye loop, or electric heating';
     findings.push(
       finding(
         'heat-demand',
         'info',
         voltageFieldOf(inputs),
-        `below the thermoneutral voltage (${heat.thermoneutralVoltageV.toFixed(4)} V) the stack absorbs ${(-heat.isothermalHeatW / 1000).toPrecision(4)} kW of heat: it must be supplied (superheated feed, heated sweep or electric heating)`,
+        `below the thermoneutral voltage (${heat.thermoneutralVoltageV.toFixed(4)} V) the stack absorbs ${(-heat.isothermalHeatW / 1000).toPrecision(4)} kW of heat: it must be supplied (${how})`,
       ),
     );
   }

@@ -46,3 +46,15 @@ describe('electrolysis efficiency on its basis', () => {
     expect(r.efficiency.heatInclusiveEfficiencyLhv!).toBeLessThanOrEqual(r.efficiency.electrolysisEfficiencyLhv!);
   });
 });
+
+describe('heat demand of a liquid-water electrolyser below thermoneutral', () => {
+  it('a PEM electrolyser at 1.45 V, below V_tn ≈ 1.48 V of liquid water (HHV/2F at 25 °C, a fact of the trade), gets the heat-demand finding the steam-fed ones get', () => {
+    const c = scaffoldCase('pem', 'electrolysis', (y) => y.replace(/cell-voltage: "[^"]*"/, 'cell-voltage: "1.45 V"'));
+    const r = c.results;
+    expect(r.heat.isothermalHeat_W).toBeLessThan(0);
+    const demand = r.findings.filter((f) => f.code === 'heat-demand');
+    expect(demand).toHaveLength(1);
+    expect(demand[0]!.message).toContain(`absorbs ${(-r.heat.isothermalHeat_W / 1000).toPrecision(4)} kW of heat`);
+    expect(demand[0]!.message).toContain('heated water or lye loop');
+  });
+});
