@@ -13,6 +13,7 @@ import { equationTable, mixedConductor, type EquationEntry } from './equations.t
 import { sectionNumber } from './outline.ts';
 import { hotSpot } from './local-current.ts';
 import { prose, type Paragraph } from './prose.ts';
+import { formatNumber } from './format.ts';
 
 export type MethodBlock = { kind: 'paragraph'; paragraph: Paragraph } | { kind: 'equation'; equation: Equation };
 
@@ -79,8 +80,10 @@ function nernst(step: Step, r: Results): void {
     )
     .eq('chemical-potential')
     .text(
-      liquid
+      liquid && r.fuelPath.waterActivity === 1
         ? 'The cell runs with liquid water, whose activity is 1: its chemical potential is the standard one of liquid water, so no water pressure appears and $E^\\circ$ is that of liquid water. Putting the chemical potentials into Eq. {{gibbs-voltage}} gives the Nernst equation of this cell, each pressure in bar:'
+        : liquid
+          ? `The cell runs with the water of its potassium hydroxide electrolyte, whose activity is $a_\\mathrm{w} = ${formatNumber(r.fuelPath.waterActivity)}$ at the cell temperature (Balej's correlation, 1985): its chemical potential is the standard one of liquid water plus $RT \\ln a_\\mathrm{w}$, so no water pressure appears and $E^\\circ$ is that of liquid water less $\\tfrac{RT}{2F} \\ln a_\\mathrm{w}$, $${formatNumber(r.fuelPath.standardVoltage_V, 5)}\\,\\mathrm{V}$ here, which the results use as $E^\\circ$ of the equation below. Putting the chemical potentials into Eq. {{gibbs-voltage}} gives the Nernst equation of this cell, each pressure in bar:`
         : `Putting the chemical potentials into Eq. {{gibbs-voltage}} gives the Nernst equation of this cell, each pressure in bar (water ${reactions.waterElectrode === 'f' ? 'at the fuel electrode' : 'at the air electrode'}, where the ${reactions.ionName} reaction forms it):`,
     )
     .eq('nernst');
@@ -90,7 +93,11 @@ function nernst(step: Step, r: Results): void {
     );
   }
   if (r.technology.ion === 'hydroxide') {
-    step.text('The water consumed at the air electrode and formed at the fuel electrode belongs to the aqueous electrolyte, whose water activity is taken as 1.');
+    step.text(
+      r.technology.mode === 'power'
+        ? 'The water consumed at the air electrode and formed at the fuel electrode belongs to the aqueous electrolyte; one molecule of water joins it for every hydrogen molecule oxidised.'
+        : 'In electrolysis the electrode reactions run backwards: the fuel (hydrogen) electrode consumes water from the aqueous electrolyte, $2\\mathrm{H_2O} + 2e^- \\to \\mathrm{H_2} + 2\\mathrm{OH^-}$, and the oxygen electrode forms some back, $2\\mathrm{OH^-} \\to \\tfrac{1}{2}\\mathrm{O_2} + \\mathrm{H_2O} + 2e^-$; the electrolyte loses one molecule of water for every hydrogen molecule made.',
+    );
   }
   if (r.fuelPath.nernstForm === 'oxygen-potential') oxygenPotential(step, r);
 }
@@ -142,7 +149,9 @@ function fuelPath(step: Step, r: Results): void {
     step.text('Only hydrogen reacts at the fuel electrode; the other species pass through unchanged.');
   }
   if (r.technology.waterPhase === 'liquid') {
-    step.text('Both gases are taken as saturated with water vapour at the cell temperature, $x_\\mathrm{H_2O} = p_\\mathrm{sat}(T)/P$; the rest of the water is liquid.');
+    step.text(
+      'Both gases are taken as saturated with water vapour at the cell temperature, $x_\\mathrm{H_2O} = a_\\mathrm{w}\\,p_\\mathrm{sat}(T)/P$, with $p_\\mathrm{sat}$ by IAPWS-IF97 (region 4) and $a_\\mathrm{w}$ the activity of the water they stand over (1 for pure water); the rest of the water is liquid. The Nernst voltage is evaluated with these saturated gases. Where the water balance leaves too little water to saturate both outlets (the heat and water table says so), the gases leaving are drier than this and their own Nernst voltage is higher than the one shown.',
+    );
   }
   if (r.fuelPath.inlet === 'limit') {
     step.text(

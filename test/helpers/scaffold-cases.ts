@@ -5,6 +5,7 @@ import type { DesignBasis } from '../../lib/basis/types.ts';
 import type { Mode, TechnologyId } from '../../lib/electrochem/technologies.ts';
 import { calculate } from '../../lib/plant/calculate.ts';
 import type { Results } from '../../lib/plant/results-schema.ts';
+import { documentView } from '../../lib/report/document.ts';
 
 export interface Case {
   name: string;
@@ -35,4 +36,10 @@ export function scaffoldCase(technology: TechnologyId, mode: Mode, edit: (yaml: 
   const one = { name: `${technology} ${mode}`, basis: loaded.basis, results: calculate(loaded.basis) };
   cache.set(key, one);
   return one;
+}
+
+/** Every string the document's view model hands the templates for a scaffold case, as one JSON text (for wording checks). */
+export function documentText(technology: TechnologyId, mode: Mode, edit?: (yaml: string) => string): string {
+  const c = scaffoldCase(technology, mode, edit);
+  return JSON.stringify(documentView({ basis: c.basis, results: c.results, revision: { kind: 'draft', date: null }, history: [] }, { assetBase: '' }));
 }

@@ -4,18 +4,9 @@
 // "steam conversion" (the water is liquid). Facts of the trade: a PEM electrolyser is fed liquid
 // water at its anode (oxygen electrode); an alkaline one keeps its water in the circulating lye.
 import { describe, expect, it } from 'vitest';
-import { documentView } from '../../lib/report/document.ts';
 import { basisSummaryRows } from '../../lib/basis/summary.ts';
 import { headlineRows } from '../../lib/cli/results-table.ts';
-import { scaffoldCase } from '../helpers/scaffold-cases.ts';
-import type { Mode, TechnologyId } from '../../lib/electrochem/technologies.ts';
-
-/** Every string the document's view model hands the templates, in one text. */
-function documentText(technology: TechnologyId, mode: Mode, edit?: (yaml: string) => string): string {
-  const c = scaffoldCase(technology, mode, edit);
-  const view = documentView({ basis: c.basis, results: c.results, revision: { kind: 'draft', date: null }, history: [] }, { assetBase: '' });
-  return JSON.stringify(view);
-}
+import { documentText, scaffoldCase } from '../helpers/scaffold-cases.ts';
 
 describe('stream and quantity names of liquid-water cells', () => {
   it('a PEM electrolyser: water feed (oxygen electrode), water inlet temperature, water conversion per pass; no air-electrode feed, no steam conversion', () => {
