@@ -25,14 +25,15 @@ export function headlineRows(r: Results): [string, string][] {
     rows.push(['thermodynamic limit at T (LHV / HHV)', `${pct(h.thermodynamicLimitLhv)} / ${pct(h.thermodynamicLimitHhv)}`]);
   } else {
     rows.push(['hydrogen production', `${sig(h.hydrogenProduction_kg_per_h!, 5)} kg/h (${sig(h.hydrogenProduction_kg_per_day!, 5)} kg/day)`]);
-    rows.push(['specific energy', `${sig(h.specificEnergy_kWh_per_kg!, 4)} kWh/kg (LHV efficiency ${pct(r.efficiency.electrolysisEfficiencyLhv)}, HHV ${pct(r.efficiency.electrolysisEfficiencyHhv)})`]);
+    rows.push(['specific energy', `${sig(h.specificEnergy_kWh_per_kg!, 4)} kWh/kg (electricity only; over electricity alone: LHV efficiency ${pct(r.efficiency.electrolysisEfficiencyLhv)}, HHV ${pct(r.efficiency.electrolysisEfficiencyHhv)})`]);
+    rows.push(['heat-counted efficiency (LHV / HHV)', `${pct(r.efficiency.heatInclusiveEfficiencyLhv)} / ${pct(r.efficiency.heatInclusiveEfficiencyHhv)}`]);
   }
   rows.push([h.stackHeat_W >= 0 ? 'stack heat released (isothermal)' : 'stack heat needed (isothermal)', kw(Math.abs(h.stackHeat_W))]);
   if (h.airFlow_kg_per_h !== null) rows.push([feedNames(r.technology.id as TechnologyId, r.technology.mode).air, `${sig(h.airFlow_kg_per_h, 5)} kg/h`]);
   if (h.minimumSteamToCarbon !== null) {
     rows.push(['minimum steam-to-carbon / margin', `${sig(h.minimumSteamToCarbon, 4)} / ${h.carbonMargin === null ? 'no steam given' : sig(h.carbonMargin, 4)}`]);
   }
-  if (h.maxCarbonActivity !== null) rows.push(['highest carbon activity on the fuel path in the stack (stack temperature)', sig(h.maxCarbonActivity, 4)]);
+  if (h.maxCarbonActivity !== null) rows.push(['highest carbon activity, stack fuel path', sig(h.maxCarbonActivity, 4)]);
   return rows;
 }
 

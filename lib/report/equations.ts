@@ -335,7 +335,8 @@ function efficiencyEquations(r: Results): EquationEntry[] {
   return [
     entry('specific-energy', {
       specific: { lhs: sym('w'), symbols: { P, n, M: sym('M_\\mathrm{H_2}') }, rhs: (q, op) => `\\frac{${q.P}}{${q.n}${op.times}${q.M}}` },
-      efficiency: { lhs: sym('\\eta_\\mathrm{LHV}'), symbols: { n, L: sym('\\mathrm{LHV_{H_2}}'), P }, rhs: (q, op) => `\\frac{${q.n}${op.times}${q.L}}{${q.P}}` },
+      // Over electricity alone, charged to every combustible made net of the feed (co-electrolysis: H2, CO and CH4).
+      efficiency: { lhs: sym('\\eta_\\mathrm{LHV}'), symbols: { Lp: sym('\\textstyle\\sum_i \\Delta\\dot n_i\\,\\mathrm{LHV}_i', { listed: 'L_\\mathrm{p}' }), P }, rhs: (q) => `\\frac{${q.Lp}}{${q.P}}` },
     }),
     entry('eff-voltage', { voltage: { lhs: sym('\\eta_V'), symbols: { E, V }, rhs: (q) => `\\frac{${q.E}}{${q.V}}` } }),
   ];

@@ -6,7 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import { figureTables } from '../../lib/report/sections/results-tables.ts';
 import { efficiencyBasisNotes } from '../../lib/report/efficiency-basis.ts';
-import { scaffoldCase } from '../helpers/scaffold-cases.ts';
+import { documentText, scaffoldCase } from '../helpers/scaffold-cases.ts';
 
 function efficiencyRows(technology: 'solid-oxide' | 'pem', mode: 'power' | 'electrolysis'): string {
   const r = scaffoldCase(technology, mode).results;
@@ -24,6 +24,13 @@ describe('efficiency figures on their basis', () => {
     expect(rows).toContain('Electrolysis efficiency over electricity alone, HHV');
     expect(rows).toContain('Electrolysis efficiency with the heat supplied counted, HHV');
     expect(rows).not.toMatch(/"Electrolysis efficiency, HHV"/);
+  });
+
+  it('the summary names the electrolysis figures over electricity alone, says why HHV exceeds 100 %, and gives the heat-counted pair', () => {
+    const t = documentText('solid-oxide', 'electrolysis');
+    expect(t).toContain('Specific electric energy / efficiency over electricity alone, LHV / HHV');
+    expect(t).toContain('(HHV over electricity alone; above 100 % because');
+    expect(t).toContain('Efficiency with the heat supplied counted, LHV / HHV');
   });
 
   it('a figure at or below 100 % carries no note', () => {

@@ -70,7 +70,7 @@ function formulas(r: Results): Record<string, Formula> {
     'eff-voltage': (n) => (power ? n.V! / n.E! : n.E! / n.V!),
     'eff-carnot': (n) => 1 - n.T0! / n.T!,
     'specific-energy': (n) => n.P! / (n.n! * n.M!) / 3.6e6,
-    'eff-electrolysis': (n) => (n.n! * n.L!) / n.P!,
+    'eff-electrolysis': (n) => n.Lp! / n.P!,
     // The reactions release V_tn,eff per ionic charge; the terminals take or give the work I V.
     'heat-voltage': (n) => {
       const ionic = n.Iion ?? n.I!;

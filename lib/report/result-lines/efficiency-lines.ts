@@ -5,7 +5,6 @@
  */
 import type { Results } from '../../plant/results-schema.ts';
 import { getSpecies } from '../../thermo/species-data.ts';
-import { heatingValue } from '../../plant/heating-values.ts';
 import type { LineSpec, QuantitySpec } from '../calc-line.ts';
 import type { EquationBook } from '../equation-book.ts';
 import { eqRef } from './common.ts';
@@ -75,10 +74,10 @@ function electrolysisLines(r: Results, book: EquationBook): LineSpec[] {
       },
       {
         id: 'eff-electrolysis',
-        title: 'Electrolysis efficiency on the LHV of hydrogen',
+        title: 'Electrolysis efficiency over electricity alone, on the LHV of the products',
         equation: 'specific-energy',
         relation: 'efficiency',
-        quantities: [n, { name: 'L', value: heatingValue(h2).lhvJPerMol, unit: 'J/mol', origin: 'species data, 25 °C' }, P],
+        quantities: [{ name: 'Lp', value: eff.productLhv_W!, unit: 'W', origin: 'LHV (25 °C, species data) of the combustibles made, net of the feed: hydrogen, and in co-electrolysis carbon monoxide and methane' }, P],
         value: eff.electrolysisEfficiencyLhv,
         unit: '',
         percent: true,

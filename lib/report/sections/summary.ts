@@ -11,6 +11,7 @@ import type { CheckResult } from '../../verification/checks.ts';
 import { capitalised, formatInteger, formatNumber, formatPercent, formatPower, formatQuantity, formatTemperature } from '../format.ts';
 import { pairs, type Table } from '../table.ts';
 import { sectionNumber } from '../outline.ts';
+import { efficiencyBasisNotes } from '../efficiency-basis.ts';
 import { feedNames } from '../../basis/stream-rules.ts';
 import type { TechnologyId } from '../../electrochem/technologies.ts';
 
@@ -49,6 +50,7 @@ function inletRemark(r: Results): string {
 function headlineRows(r: Results): [string, string][] {
   const h = r.headline;
   const power = r.technology.mode === 'power';
+  const notes = efficiencyBasisNotes(r);
   const rows: [string, string][] = [
     ['Operating temperature', formatTemperature(r.conditions.temperature_K)],
     ['Fuel-electrode / air-electrode pressure', `${formatNumber(r.conditions.fuelPressure_bar)} / ${formatNumber(r.conditions.airPressure_bar)} bar`],
@@ -64,15 +66,24 @@ function headlineRows(r: Results): [string, string][] {
       rows.push(['Net electrical efficiency, LHV / HHV', `${formatPercent(h.electricalEfficiencyLhv)} / ${formatPercent(h.electricalEfficiencyHhv)}`]);
     }
     if (h.thermodynamicLimitLhv !== null && h.thermodynamicLimitHhv !== null) {
-      rows.push(['Thermodynamic limit at T, LHV / HHV', `${formatPercent(h.thermodynamicLimitLhv)} / ${formatPercent(h.thermodynamicLimitHhv)}`]);
+      const why = notes.thermodynamicLimitLhv ?? notes.thermodynamicLimitHhv;
+      rows.push(['Thermodynamic limit at T, LHV / HHV', `${formatPercent(h.thermodynamicLimitLhv)} / ${formatPercent(h.thermodynamicLimitHhv)}${why ? ` (${why})` : ''}`]);
     }
   } else {
     rows.push(['Stack power input', formatPower(h.stackPower_W)]);
     if (h.hydrogenProduction_kg_per_h !== null && h.hydrogenProduction_kg_per_day !== null) {
       rows.push(['Hydrogen production', `${formatQuantity(h.hydrogenProduction_kg_per_h, 'kg/h')} (${formatQuantity(h.hydrogenProduction_kg_per_day, 'kg/day')})`]);
     }
-    if (h.specificEnergy_kWh_per_kg !== null && r.efficiency.electrolysisEfficiencyLhv !== null && r.efficiency.electrolysisEfficiencyHhv !== null) {
-      rows.push(['Specific energy / efficiency LHV / HHV', `${formatQuantity(h.specificEnergy_kWh_per_kg, 'kWh/kg')} / ${formatPercent(r.efficiency.electrolysisEfficiencyLhv)} / ${formatPercent(r.efficiency.electrolysisEfficiencyHhv)}`]);
+    const e = r.efficiency;
+    if (h.specificEnergy_kWh_per_kg !== null && e.electrolysisEfficiencyLhv !== null && e.electrolysisEfficiencyHhv !== null) {
+      const why = notes.electrolysisEfficiencyHhv ?? notes.electrolysisEfficiencyLhv;
+      rows.push([
+        'Specific electric energy / efficiency over electricity alone, LHV / HHV',
+        `${formatQuantity(h.specificEnergy_kWh_per_kg, 'kWh/kg')} / ${formatPercent(e.electrolysisEfficiencyLhv)} / ${formatPercent(e.electrolysisEfficiencyHhv)}${why ? ` (HHV ${why})` : ''}`,
+      ]);
+    }
+    if (e.heatInclusiveEfficiencyLhv !== null && e.heatInclusiveEfficiencyHhv !== null) {
+      rows.push(['Efficiency with the heat supplied counted, LHV / HHV', `${formatPercent(e.heatInclusiveEfficiencyLhv)} / ${formatPercent(e.heatInclusiveEfficiencyHhv)}`]);
     }
   }
   rows.push([h.stackHeat_W >= 0 ? 'Stack heat released (isothermal)' : 'Stack heat needed (isothermal)', formatPower(Math.abs(h.stackHeat_W))]);
