@@ -1,29 +1,33 @@
 /**
- * The sealed basis calculated again and compared with the sealed results (audit-results.ts):
+ * The issued basis calculated again and compared with the issued results (audit-results.ts):
  * the basis must still load, calculate and give the same numbers; another tool version is a
  * note, other species data a failure.
  */
 import type { DesignBasis } from '../basis/types.ts';
-import { loadBasisText } from '../basis/load.ts';
 import { BasisError, formatDiagnostic } from '../basis/diagnostics.ts';
 import { calculate } from '../plant/calculate.ts';
 import { speciesDataHash } from '../thermo/species-data.ts';
 import { toolVersion } from '../core/version.ts';
-import { SEALED_FILES } from './layout.ts';
+import { FORMER_MANIFEST_FORMAT, ISSUED_FILES, type IssueManifest } from './layout.ts';
+import { loadIssuedBasis } from './issued-revision.ts';
 import { compareResults } from './audit-results.ts';
 import { finding, type AuditFinding } from './audit-finding.ts';
 
 export interface CalculationCheck {
   problems: AuditFinding[];
   notes: string[];
-  /** The sealed basis, when it loads. */
+  /** The issued basis, when it loads. */
   basis?: DesignBasis;
 }
 
-/** `results` is the parsed results.json (undefined when it is missing or not JSON). */
-export function calculationProblems(basisBytes: Buffer, results: unknown, display: string, project: string): CalculationCheck {
-  const loaded = loadBasisText(basisBytes, `${display}/${SEALED_FILES.basis}`, project);
-  if (!loaded.ok) return { problems: [finding(`the sealed ${SEALED_FILES.basis} has errors`, ...loaded.errors.map(formatDiagnostic))], notes: [] };
+/**
+ * `results` is the parsed results.json (undefined when it is missing or not JSON); `manifest`
+ * the parsed manifest, or null when it is damaged (the basis is then read as format 2).
+ */
+export function calculationProblems(basisBytes: Buffer, results: unknown, display: string, project: string, manifest: IssueManifest | null): CalculationCheck {
+  const former = manifest?.format === FORMER_MANIFEST_FORMAT;
+  const loaded = loadIssuedBasis(basisBytes, `${display}/${ISSUED_FILES.basis}`, project, manifest);
+  if (!loaded.ok) return { problems: [finding(`the issued ${ISSUED_FILES.basis} has errors`, ...loaded.errors.map(formatDiagnostic))], notes: [] };
   const basis = loaded.basis;
   if (results === undefined) return { problems: [], notes: [], basis };
   let recomputed;
@@ -31,24 +35,24 @@ export function calculationProblems(basisBytes: Buffer, results: unknown, displa
     recomputed = calculate(basis);
   } catch (error) {
     const details = error instanceof BasisError ? error.errors.map(formatDiagnostic) : [(error as Error).message];
-    return { problems: [finding('the sealed basis no longer calculates', ...details)], notes: [], basis };
+    return { problems: [finding('the issued basis no longer calculates', ...details)], notes: [], basis };
   }
   const problems: AuditFinding[] = [];
   const notes: string[] = [];
-  const sealed = results as { tool?: { version?: unknown }; speciesData_sha256?: unknown };
-  if (sealed.tool?.version !== toolVersion()) notes.push(`sealed with cellbasis ${String(sealed.tool?.version)}, recalculated with cellbasis ${toolVersion()}`);
-  if (sealed.speciesData_sha256 !== speciesDataHash()) {
+  const issued = results as { tool?: { version?: unknown }; speciesData_sha256?: unknown };
+  if (issued.tool?.version !== toolVersion()) notes.push(`issued with cellbasis ${String(issued.tool?.version)}, recalculated with cellbasis ${toolVersion()}`);
+  if (issued.speciesData_sha256 !== speciesDataHash()) {
     problems.push(
       finding(
-        'the species data differ from those it was sealed with',
+        'the species data differ from those it was issued with',
         `lib/thermo/data/nasa-glenn-excerpt.inp: SHA-256 ${speciesDataHash()}`,
-        `${SEALED_FILES.results} records ${String(sealed.speciesData_sha256)}`,
+        `${ISSUED_FILES.results} records ${String(issued.speciesData_sha256)}`,
       ),
     );
   }
-  const compared = compareResults(results, recomputed);
+  const compared = compareResults(results, recomputed, former);
   if (compared.count) {
-    problems.push(finding(`${SEALED_FILES.results} differs from a recalculation of the sealed basis in ${compared.count} field${compared.count === 1 ? '' : 's'}`, ...compared.lines));
+    problems.push(finding(`${ISSUED_FILES.results} differs from a recalculation of the issued basis in ${compared.count} field${compared.count === 1 ? '' : 's'}`, ...compared.lines));
   }
   return { problems, notes, basis };
 }

@@ -1,85 +1,96 @@
 /**
- * Auditing sealed revisions: `auditProject(cwd, id, options)` checks each revision of a project
- * in issue order and returns one line per revision with every problem found:
+ * Auditing issued revisions: `auditProject(cwd, id, options)` checks each revision of a project
+ * in issue order and returns one line per revision, saying who signed it, with every problem
+ * found:
  *   - the files against the SHA-256 the manifest records: missing, extra and changed files by
  *     name (audit-files.ts);
  *   - the manifest: its shape, its exact bytes, and its agreement with the basis, results, PDF
- *     and HTML it seals (audit-manifest.ts);
- *   - the signature, against the key the manifest records and optionally a required key
- *     (audit-signature.ts);
- *   - the results, against a recalculation of the sealed basis (audit-calculation.ts);
- *   - the chain of revisions (audit-chain.ts).
- * The audit only reads. Temporary folders of killed seals are noted, never audited as revisions;
- * anything else in the sealed folder fails.
+ *     and HTML it lists (audit-manifest.ts);
+ *   - the signatures, against the keys and fingerprints the manifest records and optionally the
+ *     keys the auditor trusts (audit-signature.ts);
+ *   - the results, against a recalculation of the issued basis (audit-calculation.ts);
+ *   - the chain of revisions, signatures included (audit-chain.ts).
+ * The audit only reads, each file only when it is a regular file and within the size limits of
+ * layout.ts. Temporary folders of running or killed issue runs are noted, never audited as
+ * revisions; anything else in the issued folder fails.
  */
-import { lstatSync, readFileSync } from 'node:fs';
+import { lstatSync } from 'node:fs';
 import { join } from 'node:path';
 import { readPdfProperties, type PdfProperties } from '../core/pdf-properties.ts';
-import { SEALED_FILES, sealedDir, sealedRoot, type SealManifest } from './layout.ts';
+import { UserError } from '../core/errors.ts';
+import { ISSUED_FILES, issuedDir, issuedRoot, type IssueManifest } from './layout.ts';
 import { parseManifest } from './manifest.ts';
-import { readSealedFolder } from './sealed-folder.ts';
+import { readIssuedFolder, temporaryNote } from './issued-folder.ts';
+import { readIssuedFile } from './issued-files.ts';
 import { finding, type AuditFinding } from './audit-finding.ts';
 import { fileProblems } from './audit-files.ts';
-import { signatureProblems } from './audit-signature.ts';
-import { manifestProblems, type SealedContent } from './audit-manifest.ts';
+import { signatureProblems, signedBy } from './audit-signature.ts';
+import { manifestProblems, type IssuedContent } from './audit-manifest.ts';
 import { calculationProblems } from './audit-calculation.ts';
 import { chainProblems, type ChainLink } from './audit-chain.ts';
 
 export type { AuditFinding } from './audit-finding.ts';
 
 export interface AuditLine {
-  /** "projects/x rev B", or "projects/x sealed/<entry>" for an entry that is not a revision. */
+  /** "projects/x rev B", or "projects/x issued/<entry>" for an entry that is not a revision. */
   subject: string;
   project: string;
   revision: string | null;
+  /** Who signed it: "signed for approved by key alice (1a2b 3c4d 5e6f 7a8b)", "not signed"; "" when the manifest cannot be read. */
+  signed: string;
   problems: AuditFinding[];
   notes: string[];
 }
 
 export interface AuditOptions {
-  /** SPKI PEM of the key every revision must be signed with. */
-  requireKey?: string;
+  /** SPKI PEMs of the keys the auditor trusts: every revision must be signed, and only by them. */
+  trustedKeys?: readonly string[];
 }
 
-function readOptional(path: string): Buffer | undefined {
+/** A file of the revision; its absence, or why it cannot be read (not a regular file, too large). */
+function readOptional(dir: string, display: string, name: string): { bytes?: Buffer; problem?: string } {
   try {
-    return readFileSync(path);
-  } catch {
-    return undefined;
+    return { bytes: readIssuedFile(dir, display, name) };
+  } catch (error) {
+    if (!(error instanceof UserError)) throw error;
+    return { problem: /does not exist/.test(error.message) ? `${name} is missing` : error.message.replace(`${display}/`, '') };
   }
 }
 
 async function auditRevision(cwd: string, project: string, revision: string, options: AuditOptions): Promise<{ line: AuditLine; link: ChainLink }> {
-  const dir = sealedDir(cwd, project, revision);
-  const display = `projects/${project}/sealed/${revision}`;
-  const line: AuditLine = { subject: `projects/${project} rev ${revision}`, project, revision, problems: [], notes: [] };
-  const file = (name: string) => readOptional(join(dir, name));
-  const manifestBytes = file(SEALED_FILES.manifest) ?? null;
-  let manifest: SealManifest | null = null;
-  if (!manifestBytes) line.problems.push(finding('manifest.json is missing'));
+  const dir = issuedDir(cwd, project, revision);
+  const display = `projects/${project}/issued/${revision}`;
+  const line: AuditLine = { subject: `projects/${project} rev ${revision}`, project, revision, signed: '', problems: [], notes: [] };
+  // The other files' reading problems are the file check's to report (audit-files.ts).
+  const file = (name: string) => readOptional(dir, display, name).bytes;
+  const read = readOptional(dir, display, ISSUED_FILES.manifest);
+  const manifestBytes = read.bytes ?? null;
+  let manifest: IssueManifest | null = null;
+  if (!manifestBytes) line.problems.push(finding(read.problem!));
   else {
     const parsed = parseManifest(manifestBytes);
     if (parsed.ok) manifest = parsed.manifest;
     else line.problems.push(finding('manifest.json is damaged', ...parsed.problems));
   }
-  line.problems.push(...fileProblems(dir, manifest));
+  if (manifest) line.signed = signedBy(manifest);
+  line.problems.push(...fileProblems(dir, display, manifest));
 
-  const content: SealedContent = {};
-  const basisBytes = file(SEALED_FILES.basis);
-  const resultsBytes = file(SEALED_FILES.results);
-  const pdfBytes = file(SEALED_FILES.pdf);
-  const htmlBytes = file(SEALED_FILES.html);
+  const content: IssuedContent = {};
+  const basisBytes = file(ISSUED_FILES.basis);
+  const resultsBytes = file(ISSUED_FILES.results);
+  const pdfBytes = file(ISSUED_FILES.pdf);
+  const htmlBytes = file(ISSUED_FILES.html);
   if (resultsBytes) {
     content.resultsBytes = resultsBytes;
     try {
       content.results = JSON.parse(resultsBytes.toString('utf8'));
     } catch (error) {
-      line.problems.push(finding(`${SEALED_FILES.results} is not JSON (${(error as Error).message})`));
+      line.problems.push(finding(`${ISSUED_FILES.results} is not JSON (${(error as Error).message})`));
     }
   }
   if (basisBytes) {
     content.basisBytes = basisBytes;
-    const calculation = calculationProblems(basisBytes, content.results, display, project);
+    const calculation = calculationProblems(basisBytes, content.results, display, project, manifest);
     line.problems.push(...calculation.problems);
     line.notes.push(...calculation.notes);
     if (calculation.basis) content.basis = calculation.basis;
@@ -89,33 +100,33 @@ async function auditRevision(cwd: string, project: string, revision: string, opt
     try {
       pdf = await readPdfProperties(pdfBytes);
     } catch (error) {
-      line.problems.push(finding(`${SEALED_FILES.pdf} cannot be read as a PDF (${(error as Error).message.split('\n')[0]})`));
+      line.problems.push(finding(`${ISSUED_FILES.pdf} cannot be read as a PDF (${(error as Error).message.split('\n')[0]})`));
     }
     if (pdf) content.pdf = pdf;
   }
   if (htmlBytes) content.html = htmlBytes.toString('utf8');
   if (manifest && manifestBytes) {
     line.problems.push(...manifestProblems(manifest, manifestBytes, project, revision, content));
-    line.problems.push(...signatureProblems(dir, manifest, manifestBytes, options.requireKey));
+    line.problems.push(...signatureProblems(dir, display, manifest, manifestBytes, options.trustedKeys ?? []));
   }
   return { line, link: { revision, manifest, manifestBytes } };
 }
 
-/** Every sealed revision of a project, in issue order, a line for each foreign entry, and notes. */
+/** Every issued revision of a project, in issue order, a line for each foreign entry, and notes. */
 export async function auditProject(cwd: string, project: string, options: AuditOptions = {}): Promise<{ lines: AuditLine[]; notes: string[] }> {
-  const folder = readSealedFolder(cwd, project);
+  const folder = readIssuedFolder(cwd, project);
   const lines: AuditLine[] = [];
   let before: ChainLink | null = null;
   for (const revision of folder.revisions) {
     const { line, link } = await auditRevision(cwd, project, revision, options);
-    line.problems.push(...chainProblems(link, before));
+    line.problems.push(...chainProblems(link, before, options.trustedKeys ?? []));
     lines.push(line);
     before = link;
   }
   for (const name of folder.other) {
-    const kind = lstatSync(join(sealedRoot(cwd, project), name)).isDirectory() ? 'a folder not named as a revision' : 'not a revision folder';
-    lines.push({ subject: `projects/${project} sealed/${name}`, project, revision: null, problems: [finding(`${kind}; only cellbasis seal writes here`)], notes: [] });
+    const kind = lstatSync(join(issuedRoot(cwd, project), name)).isDirectory() ? 'a folder not named as a revision' : 'not a revision folder';
+    lines.push({ subject: `projects/${project} issued/${name}`, project, revision: null, signed: '', problems: [finding(`${kind}; only cellbasis issue writes here`)], notes: [] });
   }
-  const notes = folder.temporary.map((name) => `projects/${project}/sealed/${name}: left by an interrupted seal, not a revision; the next seal removes it`);
+  const notes = folder.temporary.map((name) => temporaryNote(project, name));
   return { lines, notes };
 }

@@ -8,7 +8,8 @@
  *     "operating temperature 800 C → 780 C"; added and removed inputs; source changes;
  *   - fields: other changes of the YAML data (title, sign-off, materials, composition names,
  *     mixture sources), found by a structural diff of the two YAML texts when `source` is given,
- *     else of the document and cell data of the bases; revision and status are in from/to;
+ *     else of the document and cell data of the bases; revision and status are in from/to (and
+ *     the document.revision and document.status that revisions of format 1 wrote are left out);
  *   - assumptions and references by id: added, removed, changed (text, open flag, reference);
  *   - results: the headline numbers that changed, with old, new, absolute and relative change:
  *     "mean Nernst voltage 0.9286 V → 0.9340 V (+5.4 mV, +0.58 %)". Numbers that agree within
@@ -21,8 +22,8 @@
  * `summary` holds one readable line per change, in that order; `unchanged` is true when there is
  * none. Usage (site build, revision history):
  *
- *   const changes = compareRevisions({ basis: basisA, results: resultsA, source: yamlA },
- *                                    { basis: basisB, results: resultsB, source: yamlB });
+ *   const changes = compareRevisions({ revision: 'A', basis: basisA, results: resultsA, source: yamlA },
+ *                                    { revision: 'B', basis: basisB, results: resultsB, source: yamlB });
  *   changes.summary   // ["operating temperature 800 C → 780 C", "mean Nernst voltage …", …]
  */
 import { parse as parseYaml } from 'yaml';
@@ -34,6 +35,10 @@ import { HEADLINE_QUANTITIES, formatChange, formatValue } from './headline-quant
 import { sig } from '../core/plain-text.ts';
 
 export interface RevisionSide {
+  /** The revision ("A", "0"), or for the working draft the one it becomes when next issued. */
+  revision: string;
+  /** Its issued status, or "draft, not issued" for the working draft; "" when not known. */
+  status?: string;
   basis: DesignBasis;
   results: Results;
   /** The YAML text of the basis, for the structural diff of the fields that are not inputs. */
@@ -365,8 +370,8 @@ export function compareRevisions(a: RevisionSide, b: RevisionSide): RevisionChan
   const envelope = envelopeChanges(a.results, b.results);
   const summary = [...inputs, ...fields, ...assumptions, ...references, ...results, ...cases, ...envelope].map((c) => c.text);
   return {
-    from: { revision: a.basis.document.revision, status: a.basis.document.status },
-    to: { revision: b.basis.document.revision, status: b.basis.document.status },
+    from: { revision: a.revision, status: a.status ?? '' },
+    to: { revision: b.revision, status: b.status ?? '' },
     inputs,
     fields,
     assumptions,

@@ -1,7 +1,7 @@
 /**
  * Writing files so that they survive a crash once written: each file is created new (never
  * over an existing one), written, flushed to disk (fsync) and closed; folders are flushed after
- * entries are added or renamed in them, so a rename that makes a sealed revision appear is on
+ * entries are added or renamed in them, so a rename that makes an issued revision appear is on
  * disk together with everything inside it.
  */
 import { closeSync, fsyncSync, openSync, writeSync } from 'node:fs';

@@ -1,62 +1,103 @@
 /**
- * The manifest of a sealed revision (SealManifest, layout.ts) as bytes and back: written as
- * JSON with a fixed key order, two-space indent and a trailing newline, so the same seal gives
- * the same bytes (the signature covers exactly these bytes); read back with every shape problem
+ * The manifest of an issued revision (IssueManifest, layout.ts) as bytes and back: written as
+ * JSON with a fixed key order, two-space indent and a trailing newline, so the same issue gives
+ * the same bytes (the signatures cover exactly these bytes); read back with every shape problem
  * named, so an audit can say what is wrong with a damaged manifest.
+ *
+ * Two formats are read: `cellbasis-issue/2`, which this version writes, and `cellbasis-seal/1`,
+ * of revisions issued by earlier versions (its dates named sealedOn and sealedAt, one optional
+ * publicKey). Each is written back in its own layout, so that the audit can check a manifest of
+ * either format byte for byte.
  */
 import { z } from 'zod';
-import { DOCUMENT_STATUSES, type DesignBasis } from '../basis/types.ts';
-import { HASHED_FILES, type SealManifest } from './layout.ts';
+import type { DesignBasis } from '../basis/types.ts';
+import { ISSUE_STATUSES } from '../basis/revisions.ts';
+import { FORMER_MANIFEST_FORMAT, HASHED_FILES, MANIFEST_FORMAT, SIGN_OFF_ROLES, type IssueManifest } from './layout.ts';
 
 const hex64 = z.string().regex(/^[0-9a-f]{64}$/, 'a SHA-256 in lower-case hex');
+const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'a date YYYY-MM-DD');
+const role = z.enum(SIGN_OFF_ROLES as ['prepared', 'checked', 'approved']);
 
-const manifestSchema = z.object({
-  format: z.literal('cellbasis-seal/1'),
+/** What both formats share. */
+const common = {
   project: z.string(),
   documentNumber: z.string(),
   title: z.string(),
   revision: z.string(),
-  status: z.enum(DOCUMENT_STATUSES as [SealManifest['status'], ...SealManifest['status'][]]),
+  status: z.enum(ISSUE_STATUSES as [IssueManifest['status'], ...IssueManifest['status'][]]),
   note: z.string(),
-  sealedOn: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'a date YYYY-MM-DD'),
-  sealedAt: z.string().optional(),
   tool: z.object({ name: z.literal('cellbasis'), version: z.string() }),
   speciesData_sha256: hex64,
   files: z.record(z.string(), hex64),
   previous: z.object({ revision: z.string(), manifest_sha256: hex64 }).nullable(),
-  signOff: z.array(z.object({ role: z.enum(['prepared', 'checked', 'approved']), name: z.string(), date: z.string().optional() })),
-  publicKey: z.string().optional(),
+  signOff: z.array(z.object({ role, name: z.string(), date: z.string().optional() })),
   pdf: z.object({ chromium: z.string() }).optional(),
+};
+
+const currentSchema = z.object({
+  format: z.literal(MANIFEST_FORMAT),
+  ...common,
+  issuedOn: day,
+  issuedAt: z.string(),
+  signatures: z.array(z.object({ role, key: z.string(), fingerprint: hex64, publicKey: z.string() })),
 });
 
-/** The manifest's bytes: keys in the order of SealManifest, files in the order of HASHED_FILES. */
-export function manifestBytes(m: SealManifest): Buffer {
-  const files: Record<string, string> = {};
-  for (const name of [...HASHED_FILES, ...Object.keys(m.files).sort()]) if (m.files[name] !== undefined) files[name] = m.files[name]!;
-  const ordered: SealManifest = {
-    format: m.format,
-    project: m.project,
-    documentNumber: m.documentNumber,
-    title: m.title,
-    revision: m.revision,
-    status: m.status,
-    note: m.note,
-    sealedOn: m.sealedOn,
-    ...(m.sealedAt !== undefined ? { sealedAt: m.sealedAt } : {}),
+const formerSchema = z.object({
+  format: z.literal(FORMER_MANIFEST_FORMAT),
+  ...common,
+  sealedOn: day,
+  sealedAt: z.string().optional(),
+  publicKey: z.string().optional(),
+});
+
+/** The files in HASHED_FILES order, then any others by name. */
+function orderedFiles(files: Record<string, string>): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const name of [...HASHED_FILES, ...Object.keys(files).sort()]) if (files[name] !== undefined) out[name] = files[name]!;
+  return out;
+}
+
+/** The manifest's bytes in the layout of its format. */
+export function manifestBytes(m: IssueManifest): Buffer {
+  const head = { project: m.project, documentNumber: m.documentNumber, title: m.title, revision: m.revision, status: m.status, note: m.note };
+  const context = {
     tool: { name: m.tool.name, version: m.tool.version },
     speciesData_sha256: m.speciesData_sha256,
-    files,
+    files: orderedFiles(m.files),
     previous: m.previous ? { revision: m.previous.revision, manifest_sha256: m.previous.manifest_sha256 } : null,
     signOff: m.signOff.map((s) => ({ role: s.role, name: s.name, ...(s.date !== undefined ? { date: s.date } : {}) })),
-    ...(m.publicKey !== undefined ? { publicKey: m.publicKey } : {}),
-    ...(m.pdf !== undefined ? { pdf: { chromium: m.pdf.chromium } } : {}),
   };
+  const pdf = m.pdf !== undefined ? { pdf: { chromium: m.pdf.chromium } } : {};
+  const ordered =
+    m.format === FORMER_MANIFEST_FORMAT
+      ? {
+          format: m.format,
+          ...head,
+          sealedOn: m.issuedOn,
+          ...(m.issuedAt !== undefined ? { sealedAt: m.issuedAt } : {}),
+          ...context,
+          ...(m.formerPublicKey !== undefined ? { publicKey: m.formerPublicKey } : {}),
+          ...pdf,
+        }
+      : {
+          format: m.format,
+          ...head,
+          issuedOn: m.issuedOn,
+          issuedAt: m.issuedAt,
+          ...context,
+          signatures: m.signatures.map((s) => ({ role: s.role, key: s.key, fingerprint: s.fingerprint, publicKey: s.publicKey })),
+          ...pdf,
+        };
   return Buffer.from(`${JSON.stringify(ordered, null, 2)}\n`, 'utf8');
 }
 
-export type ParsedManifest = { ok: true; manifest: SealManifest } | { ok: false; problems: string[] };
+export type ParsedManifest = { ok: true; manifest: IssueManifest } | { ok: false; problems: string[] };
 
-/** Reads manifest.json bytes; the problems name each field that is missing or malformed. */
+function problemsOf(error: z.ZodError): string[] {
+  return error.issues.map((i) => `manifest.json: ${i.path.length ? i.path.join('.') : '(root)'}: ${i.message}`);
+}
+
+/** Reads manifest.json bytes of either format; the problems name each field that is missing or malformed. */
 export function parseManifest(bytes: Uint8Array): ParsedManifest {
   let data: unknown;
   try {
@@ -64,17 +105,25 @@ export function parseManifest(bytes: Uint8Array): ParsedManifest {
   } catch (error) {
     return { ok: false, problems: [`manifest.json is not JSON (${(error as Error).message})`] };
   }
-  const parsed = manifestSchema.safeParse(data);
-  if (!parsed.success) {
-    return { ok: false, problems: parsed.error.issues.map((i) => `manifest.json: ${i.path.length ? i.path.join('.') : '(root)'}: ${i.message}`) };
+  const format = (data as { format?: unknown } | null)?.format;
+  if (format === FORMER_MANIFEST_FORMAT) {
+    const parsed = formerSchema.safeParse(data);
+    if (!parsed.success) return { ok: false, problems: problemsOf(parsed.error) };
+    const { sealedOn, sealedAt, publicKey, ...rest } = parsed.data;
+    return {
+      ok: true,
+      manifest: { ...rest, issuedOn: sealedOn, ...(sealedAt !== undefined ? { issuedAt: sealedAt } : {}), signatures: [], ...(publicKey !== undefined ? { formerPublicKey: publicKey } : {}) },
+    };
   }
-  return { ok: true, manifest: parsed.data as SealManifest };
+  const parsed = currentSchema.safeParse(data);
+  if (!parsed.success) return { ok: false, problems: problemsOf(parsed.error) };
+  return { ok: true, manifest: parsed.data };
 }
 
 /** The signatories of a basis as a manifest records them, in the order prepared, checked, approved. */
-export function signOffOf(basis: DesignBasis): SealManifest['signOff'] {
-  return (['prepared', 'checked', 'approved'] as const).flatMap((role) => {
-    const person = basis.document.signOff[role];
-    return person ? [{ role, name: person.name, ...(person.date ? { date: person.date } : {}) }] : [];
+export function signOffOf(basis: DesignBasis): IssueManifest['signOff'] {
+  return SIGN_OFF_ROLES.flatMap((r) => {
+    const person = basis.document.signOff[r];
+    return person ? [{ role: r, name: person.name, ...(person.date ? { date: person.date } : {}) }] : [];
   });
 }

@@ -1,5 +1,5 @@
 /**
- * When two calculated numbers count as the same: the rule the audit applies between sealed and
+ * When two calculated numbers count as the same: the rule the audit applies between issued and
  * recomputed results, and the revision comparison between two revisions' results.
  *
  * Equal when |a − b| ≤ max(1e-12 · max(|a|, |b|), 1e-15). Why these numbers: a double carries

@@ -1,9 +1,10 @@
 /**
- * The working basis of a project (projects/<id>/basis.yaml) as seal and compare read it: its
- * bytes read once (refused above the size limit before reading), validated, and its text as the
- * loader reads it (UTF-8, LF line ends), so that what is sealed is exactly what was checked.
+ * The working basis of a project (projects/<id>/basis.yaml) as issue and compare read it: its
+ * bytes read once (only a regular file, refused above the size limit before reading), validated, and its text as the
+ * loader reads it (UTF-8, LF line ends), so that what is issued is exactly what was checked.
  */
-import { readFileSync, statSync } from 'node:fs';
+import { statSync } from 'node:fs';
+import { readRegularFile } from '../core/read-file.ts';
 import { loadBasisText } from '../basis/load.ts';
 import { BasisError } from '../basis/diagnostics.ts';
 import { projectBasisPath } from '../basis/projects.ts';
@@ -29,7 +30,7 @@ export function readWorkingBasis(cwd: string, project: string, warn?: (d: Diagno
     throw new UserError(`${display}: no such file (create the project with cellbasis new ${project})`, EXIT_USAGE);
   }
   if (size > MAX_BASIS_BYTES) throw new BasisError([tooLargeError(display, size)]);
-  const bytes = readFileSync(path);
+  const bytes = readRegularFile(path, { maxBytes: MAX_BASIS_BYTES, what: 'design basis' });
   const loaded = loadBasisText(bytes, display, project);
   for (const w of loaded.warnings) warn?.(w);
   if (!loaded.ok) throw new BasisError(loaded.errors, loaded.warnings);

@@ -9,6 +9,7 @@ import { isMap, isScalar, isSeq } from 'yaml';
 import { decodeBasisBytes, MAX_BASIS_BYTES, tooLargeError } from './source-text.ts';
 import { parseBasisYaml } from './yaml-syntax.ts';
 import { schemaFindings } from './zod-findings.ts';
+import { RETIRED_DOCUMENT_KEYS } from './schema.ts';
 import { interpret } from './interpret.ts';
 import { locate } from './locate.ts';
 import { Reader } from './reader.ts';
@@ -54,20 +55,39 @@ function valuePositions(doc: Parameters<typeof locate>[0], lines: Parameters<typ
   return out;
 }
 
+export interface LoadOptions {
+  /**
+   * Read `document.revision` and `document.status` as bases issued before the archive numbered
+   * the revisions carried them (issue format 1, whose manifest the audit checks them against), and
+   * leave them out of the basis; elsewhere they are refused (schema.ts RETIRED_DOCUMENT_KEYS).
+   */
+  formerRevisionKeys?: boolean;
+}
+
+/** The data without document.revision and document.status (see LoadOptions). */
+function withoutRetiredKeys(data: unknown): unknown {
+  if (data === null || typeof data !== 'object' || Array.isArray(data)) return data;
+  const document = (data as Record<string, unknown>).document;
+  if (document === null || typeof document !== 'object' || Array.isArray(document)) return data;
+  const kept = Object.fromEntries(Object.entries(document).filter(([key]) => !Object.hasOwn(RETIRED_DOCUMENT_KEYS, key)));
+  return { ...(data as Record<string, unknown>), document: kept };
+}
+
 /**
  * Checks the text (or bytes) of a basis. `file` names it in diagnostics (as the user gave it);
  * `id` is the project id.
  */
-export function loadBasisText(text: string | Uint8Array, file: string, id: string): LoadResult {
+export function loadBasisText(text: string | Uint8Array, file: string, id: string, options: LoadOptions = {}): LoadResult {
   const decoded = decodeBasisBytes(text, file);
   if (!decoded.ok) return failed(decoded.errors);
   const parsed = parseBasisYaml(decoded.text, file);
   if (!parsed.ok) return failed(parsed.errors, parsed.warnings);
+  const data = options.formerRevisionKeys ? withoutRetiredKeys(parsed.data) : parsed.data;
   const findings = new Findings();
-  const flagged = schemaFindings(parsed.data, findings);
-  const reader = new Reader(parsed.data, flagged, findings);
-  const result = interpret(reader, { mixturesUsedElsewhere: mixturesNamedByCases(parsed.data) });
-  const drafts = readCases(parsed.data, flagged, findings, result);
+  const flagged = schemaFindings(data, findings);
+  const reader = new Reader(data, flagged, findings);
+  const result = interpret(reader, { mixturesUsedElsewhere: mixturesNamedByCases(data) });
+  const drafts = readCases(data, flagged, findings, result);
   const place = (f: Parameters<typeof locate>[3]) => locate(parsed.doc, parsed.lines, file, f);
   const located = findings.list.map(place);
   const errors = located.filter((d) => d.severity === 'error');
@@ -86,7 +106,7 @@ export function loadBasisText(text: string | Uint8Array, file: string, id: strin
 }
 
 /** Reads and checks a basis file; the id defaults to the name of its folder. */
-export function loadBasisFile(path: string, options: { id?: string; displayPath?: string } = {}): LoadResult {
+export function loadBasisFile(path: string, options: { id?: string; displayPath?: string } & LoadOptions = {}): LoadResult {
   const file = options.displayPath ?? path;
   const id = options.id ?? path.split(/[\\/]/).slice(-2, -1)[0] ?? 'basis';
   let stat;
@@ -101,7 +121,7 @@ export function loadBasisFile(path: string, options: { id?: string; displayPath?
   // Never more than the limit, whatever the size said (a file that grows, a /proc file of size 0).
   const bytes = readAtMost(path, MAX_BASIS_BYTES + 1);
   if (bytes.length > MAX_BASIS_BYTES) return failed([tooLargeError(file, bytes.length, true)]);
-  return loadBasisText(bytes, file, id);
+  return loadBasisText(bytes, file, id, options);
 }
 
 /** The first `limit` bytes of a file (all of it when shorter). */

@@ -1,10 +1,11 @@
 /**
- * The `document:` section: document control (title, number, revision, status, client, site,
- * paper, purpose, scope) and the sign-off. Warns where the status claims more than the
- * sign-off records (approved without an approver) and where the dates run backwards.
+ * The `document:` section: document control (title, number, client, site, paper, purpose,
+ * scope) and the sign-off, warning where the sign-off dates run backwards. The revision and its
+ * status are the archive's (lib/archive); what an issue requires of the sign-off is checked when
+ * a revision is issued.
  */
 import { allDefined, type Reader } from './reader.ts';
-import type { DocumentInfo, DocumentStatus, Signatory } from './types.ts';
+import type { DocumentInfo, Signatory } from './types.ts';
 
 type Role = 'prepared' | 'checked' | 'approved';
 
@@ -16,10 +17,7 @@ function signatory(reader: Reader, role: Role): Signatory | undefined {
   return date === undefined ? { name } : { name, date };
 }
 
-function checkSignOff(reader: Reader, status: DocumentStatus | undefined, signOff: DocumentInfo['signOff']): void {
-  if (status === 'approved' && !signOff.approved && !reader.has(['document', 'sign-off', 'approved'])) {
-    reader.findings.warning(['document', 'status'], 'the status is approved but sign-off has no approved: { name, date }');
-  }
+function checkSignOff(reader: Reader, signOff: DocumentInfo['signOff']): void {
   const order: Role[] = ['prepared', 'checked', 'approved'];
   for (let i = 1; i < order.length; i++) {
     const earlier = signOff[order[i - 1]!]?.date;
@@ -32,18 +30,15 @@ function checkSignOff(reader: Reader, status: DocumentStatus | undefined, signOf
 
 export function readDocument(reader: Reader): DocumentInfo | undefined {
   const field = (key: string) => reader.text(['document', key]);
-  const status = field('status') as DocumentStatus | undefined;
   const signOff: DocumentInfo['signOff'] = {};
   for (const role of ['prepared', 'checked', 'approved'] as const) {
     const person = signatory(reader, role);
     if (person) signOff[role] = person;
   }
-  checkSignOff(reader, status, signOff);
+  checkSignOff(reader, signOff);
   const required = allDefined({
     title: field('title'),
     number: field('number'),
-    revision: field('revision'),
-    status,
     client: field('client'),
     site: field('site'),
     purpose: field('purpose'),

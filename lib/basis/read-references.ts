@@ -6,7 +6,7 @@
 import { quotedList } from '../core/suggest.ts';
 import type { Path } from './diagnostics.ts';
 import type { Reader } from './reader.ts';
-import type { Assumption, Reference } from './types.ts';
+import type { Acceptance, Assumption, Reference } from './types.ts';
 
 /** What a reference or assumption id looks like: a few capitals and a short number, e.g. R7, A2, REF-3. */
 const ID_LIKE = /^[A-Z]{1,3}-?\d{1,3}[a-z]?$/;
@@ -62,9 +62,24 @@ export function readAssumptions(reader: Reader): Assumption[] {
     const text = reader.text([...path, 'text']);
     const reference = reader.source([...path, 'reference']);
     const concerns = concernsOf(reader, [...path, 'concerns']);
+    const open = reader.flag([...path, 'open']) ?? false;
+    const accepted = readAcceptance(reader, [...path, 'accepted'], open);
     if (id === undefined || text === undefined) return undefined;
-    return { id, text, open: reader.flag([...path, 'open']) ?? false, ...(reference !== undefined ? { reference } : {}), concerns };
+    return { id, text, open, ...(reference !== undefined ? { reference } : {}), concerns, ...(accepted ? { accepted } : {}) };
   });
+}
+
+/** `accepted: { reason, by, date }` of an assumption: only an open one can be accepted as open. */
+function readAcceptance(reader: Reader, path: Path, open: boolean): Acceptance | undefined {
+  if (!reader.has(path)) return undefined;
+  const reason = reader.text([...path, 'reason']);
+  const by = reader.text([...path, 'by']);
+  const date = reader.text([...path, 'date']);
+  if (!open && !reader.flaggedAt(path)) {
+    reader.findings.error(path, 'only an open assumption is accepted as open; this one is confirmed (open is false or not given): delete accepted, or set open: true', 'key');
+    return undefined;
+  }
+  return reason !== undefined && by !== undefined && date !== undefined ? { reason, by, date } : undefined;
 }
 
 /** Every id-like source must name a reference (or, for value sources, an assumption). */

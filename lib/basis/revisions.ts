@@ -7,6 +7,15 @@
  */
 import { UserError } from '../core/errors.ts';
 
+/**
+ * The statuses a revision is issued with, in the order of the review cycle. The working basis has
+ * none (it is always the draft of the next revision); a revision becomes superseded when the next
+ * one is issued, which the archive shows and never writes.
+ */
+export type IssueStatus = 'issued for review' | 'issued for approval' | 'approved';
+
+export const ISSUE_STATUSES: readonly IssueStatus[] = ['issued for review', 'issued for approval', 'approved'];
+
 const LETTERS = 'ABCDEFGHJKLMNPRTUVWY'.split('');
 
 export const REVISION_PATTERN = /^(?:[A-HJ-NPRT-WY]{1,2}|0|[1-9][0-9]{0,2})$/;
@@ -39,6 +48,15 @@ export function successors(previous: string | null): string[] {
   return [letterAt(letterIndex(previous) + 1), '0'];
 }
 
+/**
+ * The revision a working draft becomes when it is next issued, as the draft shows itself: A when
+ * none is issued, else the next letter after a letter and the next number after a number. (A
+ * letter may also be followed by 0, the first approved revision: `successors` lists both.)
+ */
+export function nextRevision(last: string | null): string {
+  return successors(last)[0]!;
+}
+
 /** Sorts revisions in issue order: letters in sequence, then numbers. */
 export function compareRevisions(a: string, b: string): number {
   const numeric = (r: string) => /^[0-9]+$/.test(r);
@@ -53,7 +71,7 @@ export function checkFollows(previous: string | null, revision: string): void {
   const allowed = successors(previous);
   if (!allowed.includes(revision)) {
     throw new UserError(
-      `revision ${revision} does not follow ${previous === null ? 'the start (no revision is sealed yet)' : `the last sealed revision ${previous}`}: the next revision is ${allowed.join(' or ')}`,
+      `revision ${revision} does not follow ${previous === null ? 'the start (no revision is issued yet)' : `the last issued revision ${previous}`}: the next revision is ${allowed.join(' or ')}`,
     );
   }
 }

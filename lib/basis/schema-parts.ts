@@ -42,12 +42,14 @@ export function unknownKeyMessage(key: string, known: readonly string[]): string
 
 /**
  * A mapping with a fixed set of keys. Unknown keys get one message each, joined by newlines in
- * zod's single issue; zod-findings.ts splits them back, one finding per key.
+ * zod's single issue; zod-findings.ts splits them back, one finding per key. `retired` names keys
+ * that earlier bases had and this one no longer reads, each with what to do instead.
  */
-export function strict<T extends z.core.$ZodLooseShape>(shape: T, description?: string) {
+export function strict<T extends z.core.$ZodLooseShape>(shape: T, description?: string, retired: Readonly<Record<string, string>> = {}) {
   const known = Object.keys(shape);
+  const message = (key: string) => (Object.hasOwn(retired, key) ? retired[key]! : unknownKeyMessage(key, known));
   const object = z.strictObject(shape, {
-    error: (issue) => (issue.code === 'unrecognized_keys' ? issue.keys.map((k) => unknownKeyMessage(k, known)).join('\n') : undefined),
+    error: (issue) => (issue.code === 'unrecognized_keys' ? issue.keys.map(message).join('\n') : undefined),
   });
   return description ? object.meta({ description }) : object;
 }

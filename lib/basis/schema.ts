@@ -8,10 +8,21 @@
  */
 import { z } from 'zod';
 import { MODES, TECHNOLOGY_NAMES } from '../electrochem/technologies.ts';
-import { DEGRADED_QUANTITIES, DOCUMENT_STATUSES } from './types.ts';
+import { DEGRADED_QUANTITIES } from './types.ts';
 import { choice, composition, describeValue, flag, fraction, isoDate, number, quantity, speciesFractions, strict, text } from './schema-parts.ts';
 
-const STATUSES = DOCUMENT_STATUSES as unknown as readonly [string, ...string[]];
+/**
+ * Keys of `document:` that bases written for earlier versions carry: the issued revisions
+ * (projects/<id>/issued/) decide the revision and its status now, so a basis that still states
+ * them is refused at the key, with what to do (load.ts accepts them only in revisions issued
+ * before, whose manifest they must match).
+ */
+export const RETIRED_DOCUMENT_KEYS: Readonly<Record<string, string>> = {
+  revision:
+    'the revision is no longer written in the basis: the issued revisions number it (cellbasis issue), and the working basis shows itself as the draft of the next one; delete this line',
+  status:
+    'the status is no longer written in the basis: a revision takes its status when it is issued (cellbasis issue --status), and the working basis is always the draft; delete this line',
+};
 
 const signatory = (role: string) =>
   strict(
@@ -26,8 +37,6 @@ const documentSection = strict(
   {
     title: text('document title, e.g. "250 kW solid oxide CHP module, stack design basis"'),
     number: text('document number, e.g. HLX-DB-1042'),
-    revision: text('revision, e.g. A (quote a number: "1")'),
-    status: choice(STATUSES, 'document status'),
     client: text('the client (invented names in demos)'),
     site: text('the site'),
     paper: choice(['A4', 'Letter'] as const, 'paper size of the printed document (default A4)').optional(),
@@ -42,7 +51,8 @@ const documentSection = strict(
       'who prepared, checked and approved the document, with dates',
     ),
   },
-  'document control: title, number, revision, status, client, site, purpose, scope, sign-off',
+  'document control: title, number, client, site, purpose, scope, sign-off (the revision and its status come from the issued revisions)',
+  RETIRED_DOCUMENT_KEYS,
 );
 
 const cellSection = strict(
@@ -194,6 +204,15 @@ const sensitivitySection = strict(
   'steps of the sensitivity study; the defaults (25 K, 10 %, 0.05, 0.5, 10 %) are common practice, no source',
 );
 
+const acceptance = strict(
+  {
+    reason: text('why the revision may be approved while this assumption is still open'),
+    by: text('who accepted it, usually the approver'),
+    date: isoDate('when, YYYY-MM-DD'),
+  },
+  'an open assumption accepted for approval: the reason, who accepted it and when (shown in the document)',
+);
+
 const assumption = strict({
   id: text('assumption id, e.g. A1'),
   text: text('the assumption'),
@@ -206,6 +225,7 @@ const assumption = strict({
         'the basis fields (or sections) whose values and results this assumption vouches for: a finding of the calculation at one of them names the assumption, and flags it when it is marked confirmed (open: false)',
     })
     .optional(),
+  accepted: acceptance.optional(),
 });
 
 const reference = strict({

@@ -96,7 +96,7 @@ export const summaryRowSources: readonly ((basis: DesignBasis) => SummaryRow[])[
 function rows(b: DesignBasis, names: ReturnType<typeof feedNames>): SummaryRow[] {
   return [
     ['project', `${b.id}: ${b.document.title}`],
-    ['document', `${b.document.number} rev. ${b.document.revision}, ${b.document.status}`],
+    ['document', b.document.number],
     ['technology', `${technology(b.cell.technology).name}, ${b.cell.mode} mode`],
     ['operating temperature', temperature(b.conditions.temperatureK)],
     ['pressures', `fuel electrode ${num(b.conditions.fuelPressureBar)} bar, air electrode ${num(b.conditions.airPressureBar)} bar (absolute)`],

@@ -6,21 +6,19 @@
  */
 import type { Mode, TechnologyId } from '../electrochem/technologies.ts';
 
-export type DocumentStatus = 'draft' | 'issued for review' | 'issued for approval' | 'approved' | 'superseded';
-
-export const DOCUMENT_STATUSES: readonly DocumentStatus[] = ['draft', 'issued for review', 'issued for approval', 'approved', 'superseded'];
-
 export interface Signatory {
   name: string;
   /** ISO date, YYYY-MM-DD. */
   date?: string;
 }
 
+/**
+ * Document control as the basis states it. The revision and its status are not here: the issued
+ * revisions (lib/archive) decide them, and the working basis is always the draft of the next one.
+ */
 export interface DocumentInfo {
   title: string;
   number: string;
-  revision: string;
-  status: DocumentStatus;
   client: string;
   site: string;
   paper: 'A4' | 'Letter';
@@ -168,6 +166,14 @@ export interface Sensitivity {
   currentDensityFraction: number;
 }
 
+/** An open assumption accepted for an approved revision: why it may stay open, who accepted it and when. */
+export interface Acceptance {
+  reason: string;
+  by: string;
+  /** ISO date, YYYY-MM-DD. */
+  date: string;
+}
+
 export interface Assumption {
   id: string;
   text: string;
@@ -176,6 +182,8 @@ export interface Assumption {
   reference?: string;
   /** Basis fields (dotted paths, or sections) whose values and results the assumption vouches for. */
   concerns: string[];
+  /** Only for an open assumption: accepted as open, so that a revision may be approved with it. */
+  accepted?: Acceptance;
 }
 
 export interface Reference {

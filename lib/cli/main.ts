@@ -18,10 +18,10 @@ import { serveCommand } from './commands/serve.ts';
 import { auditCommand } from './commands/audit.ts';
 import { compareCommand } from './commands/compare.ts';
 import { keygenCommand } from './commands/keygen.ts';
-import { sealCommand } from './commands/seal.ts';
+import { issueCommand } from './commands/issue.ts';
 import { toolVersion } from '../core/version.ts';
 
-export const COMMANDS: Command[] = [reactionCommand, speciesCommand, equilibriumCommand, steamLimitCommand, newCommand, checkCommand, schemaCommand, calcCommand, hazardsCommand, sealCommand, auditCommand, compareCommand, keygenCommand, buildCommand, serveCommand];
+export const COMMANDS: Command[] = [reactionCommand, speciesCommand, equilibriumCommand, steamLimitCommand, newCommand, checkCommand, schemaCommand, calcCommand, hazardsCommand, issueCommand, auditCommand, compareCommand, keygenCommand, buildCommand, serveCommand];
 
 function overview(): string {
   const width = Math.max(...COMMANDS.map((c) => c.name.length)) + 2;

@@ -2,10 +2,10 @@
  * The document properties of a cellbasis PDF (ISO 32000-1 §14.3.3, the document information
  * dictionary, and §7.11.4, embedded files): what a print is given to carry (`PdfMeta`), setting
  * them on a printed PDF with pdf-lib, and reading them back, as the audit compares them with a
- * seal's manifest. Title (shown in the viewer's title bar), author, subject, keywords, language,
+ * manifest of the issued revision. Title (shown in the viewer's title bar), author, subject, keywords, language,
  * creator ("cellbasis <version>") and producer (the same and the Chromium version, "cellbasis
- * 0.1.0 (Chromium 156.0.8078.114)"), CreationDate and ModDate = `meta.date` (the seal date, never
- * the clock), and the attachments (a sealed document carries its basis YAML and results JSON).
+ * 0.1.0 (Chromium 156.0.8078.114)"), CreationDate and ModDate = `meta.date` (the issue date, never
+ * the clock), and the attachments (an issued document carries its basis YAML and results JSON).
  * Shared by the report (which says what a document's PDF states), the archive (which audits it)
  * and the printer of lib/publish (which sets it).
  */

@@ -1,4 +1,4 @@
-/** The tool version, read from package.json (recorded in results and seal manifests). */
+/** The tool version, read from package.json (recorded in results and the manifests of issued revisions). */
 import { readFileSync } from 'node:fs';
 
 let version: string | undefined;

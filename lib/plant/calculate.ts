@@ -76,7 +76,7 @@ function firstNonFinite(value: unknown, path: string): string | undefined {
 }
 
 /**
- * The results of a basis. A number that is NaN or infinite would be printed and sealed as if it
+ * The results of a basis. A number that is NaN or infinite would be printed and issued as if it
  * were one: that is a gap in the validation, so it stops here as an internal error naming it.
  */
 export function calculate(basis: DesignBasis): Results {
@@ -374,7 +374,7 @@ function calculateResults(basis: DesignBasis): Results {
     format: 'cellbasis-results/1',
     tool: { name: 'cellbasis', version: toolVersion() },
     speciesData_sha256: speciesDataHash(),
-    project: { id: basis.id, title: basis.document.title, number: basis.document.number, revision: basis.document.revision, status: basis.document.status },
+    project: { id: basis.id, title: basis.document.title, number: basis.document.number },
     technology: { id: tech.id, name: tech.name, mode: inputs.mode, ion: tech.ion, waterPhase: tech.waterPhase, fuelGasEquilibrium: tech.fuelGasEquilibrium },
     conditions: own.conditions,
     headline: own.headline,

@@ -70,7 +70,7 @@ const designResultsSchema = z
     format: z.literal('cellbasis-results/1'),
     tool: z.object({ name: z.literal('cellbasis'), version: z.string() }),
     speciesData_sha256: z.string().describe('SHA-256 of the species data file the numbers come from'),
-    project: z.object({ id: z.string(), title: z.string(), number: z.string(), revision: z.string(), status: z.string() }),
+    project: z.object({ id: z.string(), title: z.string(), number: z.string() }).describe('the project and document; its revision and status are the archive\'s (projects/<id>/issued/)'),
     technology: z.object({
       id: z.string(),
       name: z.string(),

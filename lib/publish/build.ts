@@ -39,8 +39,8 @@ import { randomBytes } from 'node:crypto';
 import { basename, dirname, join, relative, resolve } from 'node:path';
 import { listProjects } from '../basis/projects.ts';
 import { loadBasisText } from '../basis/load.ts';
-import { realLocation, sealedFolderAt, within } from '../archive/layout.ts';
-import { processAlive } from '../archive/sealed-folder.ts';
+import { realLocation, issuedFolderAt, within } from '../archive/layout.ts';
+import { processAlive } from '../archive/issued-folder.ts';
 import { calculateAll, type CalculationJob, type CalculationOutcome } from '../batch/batch.ts';
 import { ResultsCache } from '../batch/results-cache.ts';
 import { ChromiumMissingError, chromiumMissingMessage, findChromium } from './chromium.ts';
@@ -62,9 +62,9 @@ export type BuildStep = (typeof BUILD_STEPS)[number];
 
 export interface BuildReport {
   out: string;
-  /** Document pages written (drafts and sealed revisions). */
+  /** Pages written: the drafts' documents and the issued revisions' register pages. */
   documents: number;
-  /** Draft PDFs written (sealed revisions carry their own). */
+  /** Draft PDFs written (issued revisions carry their own). */
   pdfs: number;
   warnings: string[];
   /** Leftovers of builds killed before their end: the folders and links removed, and the site put back as `out`. */
@@ -215,9 +215,9 @@ export interface BuildOptions extends SiteOptions {
 }
 
 /**
- * Refuses an output folder whose replacement would take projects or sealed revisions with it:
- * as written, and where it really is (a link on the way, such as `--out link-to-sealed/A`, must
- * not lead the build into projects/ or a sealed folder, wherever that folder is).
+ * Refuses an output folder whose replacement would take projects or issued revisions with it:
+ * as written, and where it really is (a link on the way, such as `--out link-to-issued/A`, must
+ * not lead the build into projects/ or an issued folder, wherever that folder is).
  */
 function checkOutput(root: string, out: string): void {
   const projects = join(root, 'projects');
@@ -231,8 +231,8 @@ function checkOutput(root: string, out: string): void {
       throw new UserError(`build: --out ${relative(root, out) || '.'} would replace the working folder or write inside projects/; choose a folder of its own, such as site/`);
     }
   }
-  const sealed = sealedFolderAt(root, out);
-  if (sealed) throw new UserError(`build: --out would replace the sealed revisions in ${relative(root, sealed)}; only cellbasis seal writes there`);
+  const issued = issuedFolderAt(root, out);
+  if (issued) throw new UserError(`build: --out would replace the issued revisions in ${relative(root, issued)}; only cellbasis issue writes there`);
 }
 
 /** Every project's results, from the cache or calculated (in worker threads when there are many). */
@@ -283,11 +283,18 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
       },
     }));
     for (let start = 0; start === 0 || start < model.pages.length; start += PAGES_PER_RUN) {
-      setBuildContext({ root, output: fresh, mode: 'build', model: { ...model, pages: counted.slice(start, start + PAGES_PER_RUN) } });
+      // The issued revisions' register pages and the files copied as issued go with the first run.
+      const first = start === 0;
+      setBuildContext({
+        root,
+        output: fresh,
+        mode: 'build',
+        model: { ...model, pages: counted.slice(start, start + PAGES_PER_RUN), revisionPages: first ? model.revisionPages : [], copies: first ? model.copies : [] },
+      });
       await runEleventy(fresh);
     }
     if (viewed < model.pages.length || model.pages.length === 0) options.onProgress?.('render', model.pages.length, model.pages.length);
-    for (const page of [...model.pages.map((p) => p.pagePath), 'index.html']) {
+    for (const page of [...model.pages.map((p) => p.pagePath), ...model.revisionPages.map((p) => p.pagePath), ...model.copies.map((c) => c.to), 'index.html']) {
       if (!existsSync(join(fresh, page))) throw new UserError(`the build did not write ${page}`, EXIT_INTERNAL);
     }
     await pause(options, 'rendered');
@@ -315,5 +322,5 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
   await pause(options, 'swapped');
   removeLeftovers(out);
   const warnings = printing ? model.warnings : [...model.warnings, `no PDFs were printed: ${options.pdf === false ? 'HTML only was asked for' : chromiumMissingMessage()}`];
-  return { out, documents: model.pages.length, pdfs: printing ? model.drafts.length : 0, warnings, leftovers };
+  return { out, documents: model.pages.length + model.revisionPages.length, pdfs: printing ? model.drafts.length : 0, warnings, leftovers };
 }

@@ -8,7 +8,7 @@
  */
 import { lstatSync, readdirSync, unlinkSync } from 'node:fs';
 import { join } from 'node:path';
-import { processAlive } from '../archive/sealed-folder.ts';
+import { processAlive } from '../archive/issued-folder.ts';
 import { CACHE_DIR } from '../batch/results-cache.ts';
 
 /** The cache folders whose entries are written through `<entry>.<pid>.tmp`, with their entries' extension. */

@@ -18,6 +18,7 @@ import { libraryFingerprint } from '../batch/fingerprint.ts';
 import { withPdfPrinter } from './pdf.ts';
 import { findChromium } from './chromium.ts';
 import { documentPdfMeta } from '../report/pdf-meta.ts';
+import type { RevisionContext } from '../report/revision.ts';
 import type { PdfMeta } from '../core/pdf-properties.ts';
 import { ASSET_DIR } from './site-assets.ts';
 
@@ -34,6 +35,8 @@ export interface DraftPage {
   results: Results;
   /** The draft's date as its page shows it (lib/publish/source-date.ts), null when undated. */
   date: string | null;
+  /** Which revision the page is: the draft of the next one (lib/report/revision.ts). */
+  revision: RevisionContext;
 }
 
 function keyOf(inputs: string, html: Buffer, meta: PdfMeta): string {
@@ -73,7 +76,7 @@ export async function printDrafts(root: string, site: string, drafts: DraftPage[
   const work = drafts.map((d) => {
     const page = join(site, d.pagePath);
     // The date the page shows (never the clock); an undated draft prints as of 1970-01-01.
-    const meta = documentPdfMeta({ basis: d.basis, results: d.results }, { date: new Date(`${d.date ?? '1970-01-01'}T00:00:00Z`), draft: true });
+    const meta = documentPdfMeta({ basis: d.basis, results: d.results, revision: d.revision }, { date: new Date(`${d.date ?? '1970-01-01'}T00:00:00Z`) });
     return { page, target: join(dirname(page), 'document.pdf'), meta, cached: join(cacheDir, `${keyOf(inputs, readFileSync(page), meta)}.pdf`) };
   });
   let done = 0;

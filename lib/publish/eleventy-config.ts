@@ -1,9 +1,10 @@
 /**
  * The Eleventy configuration of the design-basis site (loaded through .eleventy.js): templates
  * from templates/, our Nunjucks environment (lib/publish/nunjucks-env.ts) as Eleventy's njk
- * library, the site model as the global data `cellbasis` (the pages paginated by
- * templates/document.njk, the portfolio shown by templates/index.njk), the assets and sealed
- * PDFs copied as they are, and the projects' YAML watched by the dev server.
+ * library, the site model as the global data `cellbasis` (the drafts paginated by
+ * templates/document.njk, the issued revisions' register pages by templates/revision.njk, the
+ * portfolio shown by templates/index.njk), the assets and each issued revision's document.html
+ * and document.pdf copied as they were issued, and the projects' YAML watched by the dev server.
  *
  * Under `cellbasis build` the model arrives checked in the build context; under `cellbasis
  * serve` and `npx @11ty/eleventy` it is loaded on every build, and while serving a failed load
@@ -12,10 +13,11 @@
  * Eleventy's output folder must be a site folder of cellbasis (lib/publish/site-marker.ts: new,
  * empty or marked) and is marked before anything is written into it.
  */
-import { existsSync, readdirSync } from 'node:fs';
-import { join, relative, resolve } from 'node:path';
+import { existsSync } from 'node:fs';
+import { dirname, join, relative, resolve } from 'node:path';
 import { listProjects } from '../basis/projects.ts';
-import { SEALED_FILES, sealedRoot } from '../archive/layout.ts';
+import { ISSUED_FILES, issuedDir } from '../archive/layout.ts';
+import { readIssuedFolder } from '../archive/issued-folder.ts';
 import { UserError } from '../core/errors.ts';
 import { portfolioView } from '../report/portfolio.ts';
 import { revisionPagePath } from '../report/links.ts';
@@ -28,15 +30,30 @@ import { loadSiteModel, type SiteModel } from './site-model.ts';
 import { SiteError } from './site-problems.ts';
 import { claimSiteFolder } from './site-marker.ts';
 
-/** Sealed PDFs under the root, found from the folders alone (the configuration runs before the model loads). */
-function sealedPdfs(root: string): Record<string, string> {
+/**
+ * The issued files the site copies: those of the model where the build loaded it first (only the
+ * revisions it read, so that a revision an issue run completes meanwhile is not half shown);
+ * else, where the model loads on every run (serve, npx), the revisions found in the folders
+ * (readIssuedFolder: never an issue run's temporary folder).
+ */
+function issuedCopies(root: string, model: SiteModel | null): Record<string, string> {
   const copies: Record<string, string> = {};
+  if (model) {
+    for (const c of model.copies) copies[c.from] = c.to;
+    return copies;
+  }
   for (const id of listProjects(root)) {
-    const dir = sealedRoot(root, id);
-    if (!existsSync(dir)) continue;
-    for (const rev of readdirSync(dir)) {
-      const pdf = join(dir, rev, SEALED_FILES.pdf);
-      if (existsSync(pdf)) copies[pdf] = revisionPagePath(id, rev).replace(/index\.html$/, SEALED_FILES.pdf);
+    let revisions: string[];
+    try {
+      revisions = readIssuedFolder(root, id).revisions;
+    } catch {
+      continue; // The model's load reports the folder.
+    }
+    for (const rev of revisions) {
+      for (const name of [ISSUED_FILES.html, ISSUED_FILES.pdf]) {
+        const from = join(issuedDir(root, id, rev), name);
+        if (existsSync(from)) copies[from] = `${dirname(revisionPagePath(id, rev))}/${name}`;
+      }
     }
   }
   return copies;
@@ -54,7 +71,7 @@ function siteData(): SiteModel {
     if (context.mode !== 'serve' || !(error instanceof UserError)) throw error;
     const lines = error instanceof SiteError ? [...error.errors, ...error.warnings] : [error.message];
     process.stderr.write(`${lines.join('\n')}\n`);
-    return { pages: [], portfolio: portfolioView([], lines), warnings: [], drafts: [] };
+    return { pages: [], revisionPages: [], copies: [], portfolio: portfolioView([], lines), warnings: [], drafts: [] };
   }
 }
 
@@ -72,7 +89,7 @@ export default function configureSite(eleventyConfig: EleventyConfig): void {
   });
   eleventyConfig.addGlobalData('cellbasis', siteData);
   for (const asset of siteAssets()) eleventyConfig.addPassthroughCopy({ [asset.from]: `${ASSET_DIR}/${asset.to}` });
-  for (const [from, to] of Object.entries(sealedPdfs(context.root))) eleventyConfig.addPassthroughCopy({ [from]: to });
+  for (const [from, to] of Object.entries(issuedCopies(context.root, context.model))) eleventyConfig.addPassthroughCopy({ [from]: to });
   eleventyConfig.addWatchTarget(join(context.root, 'projects', '**', '*.yaml'));
   eleventyConfig.addWatchTarget(join(context.root, 'projects', '**', '*.json'));
   eleventyConfig.addWatchTarget(join(TEMPLATES_DIR, 'assets', '*'));

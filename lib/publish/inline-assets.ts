@@ -3,7 +3,7 @@
  * every script with a src becomes an inline script, and every url() of the stylesheets (the
  * KaTeX fonts) becomes a data: URI. Fonts are kept in WOFF2 only (the format every current
  * browser and the PDF printer read); the WOFF and TrueType alternatives are dropped to keep the
- * file small. Links to other documents and to the sealed PDF are left as they are.
+ * file small. Links to other documents and to the issued PDF are left as they are.
  *
  *   inlineAssets(html, assetDir): string
  *     html      a page from renderDocumentHtml (lib/publish/render.ts)

@@ -1,6 +1,6 @@
 /**
  * The one Nunjucks environment of the design documents, used by the Eleventy site (handed over
- * with eleventyConfig.setLibrary('njk', ...)) and by renderDocumentHtml, so a sealed document and
+ * with eleventyConfig.setLibrary('njk', ...)) and by renderDocumentHtml, so an issued document and
  * its site page are rendered by the same code. Autoescaping is on and undefined output throws;
  * the only way to insert unescaped HTML is the `trusted` filter, which accepts nothing but the
  * TrustedHtml values lib/report makes (KaTeX of our own LaTeX, chart JSON, CSS strings) and throws

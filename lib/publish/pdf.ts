@@ -43,7 +43,7 @@ import { pathToFileURL } from 'node:url';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import type { PdfMeta } from '../core/pdf-properties.ts';
 import { EXIT_VALIDATION, UserError } from '../core/errors.ts';
-import type { SealPdfPrinter } from '../archive/seal.ts';
+import type { IssuePdfPrinter } from '../archive/issue.ts';
 import { ChromiumMissingError, findChromium, openBrowser } from './chromium.ts';
 import { DEVICE_SCALE, footerTemplate, headerTemplate, printMargins, printViewport } from './pdf-page.ts';
 import { finishPdf } from './pdf-finish.ts';
@@ -192,8 +192,8 @@ export async function withPdfPrinter<T>(work: (printer: PdfPrinter) => Promise<T
   }
 }
 
-/** The printer a seal is given (lib/archive/seal.ts): one Chromium, one page, for one document. */
-export const sealPdfPrinter: SealPdfPrinter = {
+/** The printer issuing is given (lib/archive/issue.ts): one Chromium, one page, for one document. */
+export const issuePdfPrinter: IssuePdfPrinter = {
   check() {
     if (findChromium() === null) throw new ChromiumMissingError();
   },

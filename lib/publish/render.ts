@@ -1,10 +1,10 @@
 /**
  * One design-basis document as HTML, rendered with the templates and the Nunjucks environment
- * the site uses (lib/publish/nunjucks-env.ts), for callers outside the site build: sealing a
+ * the site uses (lib/publish/nunjucks-env.ts), for callers outside the site build: issuing a
  * revision writes its document.html with it, then makes it one file with inlineAssets.
  *
  *   renderDocumentHtml(input, options): string
- *     input.basis     the validated basis (lib/basis/types.ts), as sealed or as the draft
+ *     input.basis     the validated basis (lib/basis/types.ts), as issued or as the draft
  *     input.results   its results object (lib/plant/results-schema.ts), never recomputed here
  *     input.revision  which revision the page is (lib/report/revision.ts RevisionContext)
  *     input.history   the project's revisions (lib/report/history.ts revisionHistory()), [] for none
@@ -15,7 +15,7 @@
  *   renderStandaloneHtml(input): string
  *     the same page with every asset inlined (assets copied to a temporary folder and read back)
  *
- * Example (seal): const html = renderStandaloneHtml({ basis, results, revision: { kind: 'sealed', ... }, history });
+ * Example (issue): const html = renderStandaloneHtml({ basis, results, revision: { kind: 'issued', ... }, history });
  */
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';

@@ -2,7 +2,7 @@
  * `cellbasis serve`: the site for editing, rebuilt incrementally. Every page is rendered with the
  * site's own Nunjucks environment and templates (the same renderView the Eleventy build uses, so
  * a served page is byte for byte the built one), served by Eleventy's dev server with live
- * reload. When a project's files change (its basis.yaml or a sealed revision), only that
+ * reload. When a project's files change (its basis.yaml or an issued revision), only that
  * project's pages and the index are rendered again; a change to the templates renders every
  * page. Results come from the results cache, so an edit costs one calculation.
  *
@@ -14,7 +14,7 @@
  *
  *   serveSite({ root, out, port }): Promise<{ stop(): Promise<void> }>
  */
-import { mkdirSync, renameSync, watch, writeFileSync, type FSWatcher } from 'node:fs';
+import { copyFileSync, mkdirSync, renameSync, watch, writeFileSync, type FSWatcher } from 'node:fs';
 import { dirname, join, relative, resolve, sep } from 'node:path';
 import { createRequire } from 'node:module';
 import { listProjects } from '../basis/projects.ts';
@@ -54,6 +54,14 @@ function writeAtomically(path: string, text: string): void {
   renameSync(temp, path);
 }
 
+/** Copies a file through a temporary name, as writeAtomically writes one. */
+function copyAtomically(from: string, path: string): void {
+  mkdirSync(dirname(path), { recursive: true });
+  const temp = `${path}.${process.pid}.tmp`;
+  copyFileSync(from, temp);
+  renameSync(temp, path);
+}
+
 class IncrementalSite {
   private readonly projects = new Map<string, ProjectState>();
   private loader: ProjectLoader;
@@ -78,11 +86,23 @@ class IncrementalSite {
     });
     for (const line of [...problems.errors, ...problems.warnings]) process.stderr.write(`${line}\n`);
     if (failed) return [];
-    return pages.pages.map((entry) => {
+    const files = pages.pages.map((entry) => {
       const file = join(this.out, entry.pagePath);
       writeAtomically(file, renderView(entry.view()));
       return file;
     });
+    for (const entry of pages.revisionPages) {
+      const file = join(this.out, entry.pagePath);
+      writeAtomically(file, nunjucksEnvironment().render('revision-page.njk', { r: entry.view() }));
+      files.push(file);
+    }
+    // An issued revision's document and PDF, as they were issued.
+    for (const copy of pages.copies) {
+      const file = join(this.out, copy.to);
+      copyAtomically(copy.from, file);
+      files.push(file);
+    }
+    return files;
   }
 
   /** Renders the portfolio index from the current state; returns its file. */

@@ -1,14 +1,16 @@
 /**
  * The whole site as data: for every project under projects/, the working draft (its basis
- * loaded and calculated now) and each sealed revision (basis and results as sealed), each as a
- * document view with its own page path, and the portfolio index. Every problem of every project
- * is collected first; with any error there is no model, only a SiteError listing them all.
+ * loaded and calculated now, shown as the draft of the next revision) as a document view, each
+ * issued revision as its register page with the document and PDF exactly as issued copied beside
+ * it (never rendered again), and the portfolio index. Every problem of every project is collected
+ * first; with any error there is no model, only a SiteError listing them all.
  *
- * Pages: projects/<id>/index.html (the draft), projects/<id>/rev-<REV>/index.html (a sealed
- * revision; the configuration copies its document.pdf beside it), index.html (the portfolio).
+ * Pages: projects/<id>/index.html (the draft), projects/<id>/rev-<REV>/index.html (an issued
+ * revision's register page; its document.html and document.pdf beside it), index.html (the
+ * portfolio).
  */
 import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { join, posix } from 'node:path';
 import { compareRevisions } from '../archive/compare.ts';
 import type { DesignBasis } from '../basis/types.ts';
 import { listProjects } from '../basis/projects.ts';
@@ -26,7 +28,10 @@ import { revisionHistory, type ChangeSummary, type RevisionHistoryEntry } from '
 import { draftPagePath, relativeHref, revisionPagePath, rootPrefix } from '../report/links.ts';
 import { INDEX_PATH, portfolioView, type PortfolioProject, type PortfolioView } from '../report/portfolio.ts';
 import type { RevisionContext } from '../report/revision.ts';
-import { readSealedRevisions, type SealedRevision } from './sealed-revisions.ts';
+import { revisionPageView, type RevisionPageView } from '../report/revision-page.ts';
+import { nextRevision } from '../basis/revisions.ts';
+import { ISSUED_FILES } from '../archive/layout.ts';
+import { readIssuedRevisions, type IssuedRevision } from './issued-revisions.ts';
 import { SiteError, SiteProblems } from './site-problems.ts';
 import { draftDate } from './source-date.ts';
 import { ASSET_DIR } from './site-assets.ts';
@@ -40,13 +45,27 @@ export interface PageEntry {
   view(): DocumentView;
 }
 
+/** The register page of an issued revision. */
+export interface RevisionPageEntry {
+  pagePath: string;
+  view(): RevisionPageView;
+}
+
+/** A file copied into the site as it is: an issued revision's document.html or document.pdf (absolute source, site path). */
+export interface SiteCopy {
+  from: string;
+  to: string;
+}
+
 export interface SiteModel {
   pages: PageEntry[];
+  revisionPages: RevisionPageEntry[];
+  copies: SiteCopy[];
   portfolio: PortfolioView;
   /** Warnings of the bases and the calculation, as file:line:col: warning: ... lines. */
   warnings: string[];
   /** Each working draft's page with its basis and results (to print it). */
-  drafts: { id: string; pagePath: string; basis: DesignBasis; results: Results; date: string | null }[];
+  drafts: { id: string; pagePath: string; basis: DesignBasis; results: Results; date: string | null; revision: RevisionContext }[];
 }
 
 export interface SiteOptions {
@@ -71,6 +90,8 @@ function compareWith(sources: Map<DesignBasis, string>): ChangeSummary {
 /** What one project contributes to the site. */
 export interface ProjectPages {
   pages: PageEntry[];
+  revisionPages: RevisionPageEntry[];
+  copies: SiteCopy[];
   draft: SiteModel['drafts'][number] | null;
   portfolio: PortfolioProject | null;
 }
@@ -117,63 +138,95 @@ function draftResults(loader: ProjectLoader, id: string, basis: DesignBasis, pro
   }
 }
 
-/** The page of each sealed revision, shown as sealed, with the revision that supersedes it. */
-function sealedPages(loader: ProjectLoader, id: string, sealed: SealedRevision[], history: RevisionHistoryEntry[]): PageEntry[] {
-  return sealed.map((s, i) => {
-    const path = revisionPagePath(id, s.revision);
-    const next = sealed[i + 1];
-    const revision: RevisionContext = {
-      kind: 'sealed',
-      revision: s.revision,
-      status: s.manifest.status,
-      sealedOn: s.manifest.sealedOn,
-      note: s.manifest.note,
-      supersededBy: next ? next.revision : null,
-      pdfHref: s.pdf ? 'document.pdf' : null,
-    };
-    return { pagePath: path, view: () => documentView({ basis: s.basis, results: s.results, revision, history }, { ...pageOptions(path), checks: loader.checks }) };
+/**
+ * The register page of each issued revision, and the copies of its document and PDF as issued;
+ * the history's entries give each its change summary against the revision before.
+ */
+function issuedPages(id: string, issued: IssuedRevision[], history: RevisionHistoryEntry[], draftRevision: string): { pages: RevisionPageEntry[]; copies: SiteCopy[] } {
+  const pages: RevisionPageEntry[] = [];
+  const copies: SiteCopy[] = [];
+  issued.forEach((s, i) => {
+    const pagePath = revisionPagePath(id, s.revision);
+    const folder = posix.dirname(pagePath);
+    if (s.html) copies.push({ from: s.html, to: `${folder}/${ISSUED_FILES.html}` });
+    if (s.pdf) copies.push({ from: s.pdf, to: `${folder}/${ISSUED_FILES.pdf}` });
+    const next = issued[i + 1];
+    const entry = history.find((h) => h.kind === 'issued' && h.revision === s.revision);
+    const before = issued[i - 1];
+    const m = s.manifest;
+    pages.push({
+      pagePath,
+      view: () =>
+        revisionPageView({
+          projectId: id,
+          number: m.documentNumber,
+          title: m.title,
+          client: s.basis.document.client,
+          site: s.basis.document.site,
+          revision: s.revision,
+          manifest: { status: m.status, issuedOn: m.issuedOn, note: m.note, signOff: m.signOff, signatures: m.signatures, toolVersion: m.tool.version, chromium: m.pdf?.chromium ?? null },
+          manifestSha256: s.manifestSha256,
+          previous: before ? { revision: before.revision, changes: entry?.changes ?? [] } : null,
+          supersededBy: next ? { revision: next.revision, issuedOn: next.manifest.issuedOn, path: revisionPagePath(id, next.revision) } : null,
+          pagePath,
+          draftPath: draftPagePath(id),
+          hasDocument: s.html !== null,
+          hasPdf: s.pdf !== null,
+          indexPath: INDEX_PATH,
+          draftRevision,
+        }),
+    });
   });
+  return { pages, copies };
 }
 
 /**
- * One project: its working draft and sealed revisions as document views, and its portfolio row.
+ * One project: its working draft and issued revisions as document views, and its portfolio row.
  * Problems go to `problems`; a project with an error contributes no pages.
  */
 export function loadProjectPages(loader: ProjectLoader, id: string, problems: SiteProblems): ProjectPages {
   const { root, options, checks } = loader;
-  const none: ProjectPages = { pages: [], draft: null, portfolio: null };
+  const none: ProjectPages = { pages: [], revisionPages: [], copies: [], draft: null, portfolio: null };
   const shown = `projects/${id}/basis.yaml`;
   const loaded = loadBasisFile(join(root, 'projects', id, 'basis.yaml'), { id, displayPath: shown });
   problems.diagnostics(loaded.ok ? loaded.warnings : [...loaded.errors, ...loaded.warnings]);
-  const sealed = readSealedRevisions(root, id, problems);
+  const issued = readIssuedRevisions(root, id, problems);
   if (!loaded.ok) return none;
   const results = draftResults(loader, id, loaded.basis, problems);
   if (!results) return none;
   problems.findings(everyFinding(results).map((f) => formatFinding(loaded.basis, f)));
   const draftPath = draftPagePath(id);
-  const sources = new Map<DesignBasis, string>(sealed.map((s) => [s.basis, s.source]));
+  const sources = new Map<DesignBasis, string>(issued.map((s) => [s.basis, s.source]));
   sources.set(loaded.basis, readFileSync(join(root, 'projects', id, 'basis.yaml'), 'utf8'));
+  const last = issued[issued.length - 1];
+  const draftRevision = nextRevision(last?.revision ?? null);
   const history = revisionHistory({
-    sealed: sealed.map((s) => ({ revision: s.revision, basis: s.basis, results: s.results, manifest: s.manifest, path: revisionPagePath(id, s.revision) })),
-    draft: { revision: loaded.basis.document.revision, status: loaded.basis.document.status, basis: loaded.basis, results, path: draftPath },
+    issued: issued.map((s) => ({ revision: s.revision, basis: s.basis, results: s.results, manifest: s.manifest, path: revisionPagePath(id, s.revision) })),
+    draft: { revision: draftRevision, basis: loaded.basis, results, path: draftPath },
     changeSummary: options.changeSummary ?? compareWith(sources),
   });
-  const draft: RevisionContext = { kind: 'draft', date: draftDate(loaded.basis, options.env), pdfHref: options.draftPdfs ? 'document.pdf' : null };
-  const pages: PageEntry[] = [
-    { pagePath: draftPath, view: () => documentView({ basis: loaded.basis, results, revision: draft, history }, { ...pageOptions(draftPath), checks }) },
-    ...sealedPages(loader, id, sealed, history),
-  ];
-  const last = sealed[sealed.length - 1];
+  const date = draftDate(loaded.basis, options.env);
+  const draft: RevisionContext = {
+    kind: 'draft',
+    revision: draftRevision,
+    lastIssued: last ? { revision: last.revision, status: last.manifest.status, issuedOn: last.manifest.issuedOn } : null,
+    date,
+    pdfHref: options.draftPdfs ? 'document.pdf' : null,
+  };
+  const register = issuedPages(id, issued, history, draftRevision);
   return {
-    pages,
-    draft: { id, pagePath: draftPath, basis: loaded.basis, results, date: draft.date },
+    pages: [{ pagePath: draftPath, view: () => documentView({ basis: loaded.basis, results, revision: draft, history }, { ...pageOptions(draftPath), checks }) }],
+    revisionPages: register.pages,
+    copies: register.copies,
+    draft: { id, pagePath: draftPath, basis: loaded.basis, results, date, revision: draft },
     portfolio: {
       id,
       basis: loaded.basis,
       results,
       draftPath,
-      issued: last ? { revision: last.revision, status: last.manifest.status, sealedOn: last.manifest.sealedOn, path: revisionPagePath(id, last.revision) } : null,
-      revisionsSealed: sealed.length,
+      issued: last ? { revision: last.revision, status: last.manifest.status, issuedOn: last.manifest.issuedOn, path: revisionPagePath(id, last.revision) } : null,
+      draftRevision,
+      revisionsIssued: issued.length,
     },
   };
 }
@@ -183,14 +236,18 @@ export function loadSiteModel(root: string, options: SiteOptions = {}): SiteMode
   const problems = new SiteProblems();
   const loader = projectLoader(root, options);
   const pages: PageEntry[] = [];
+  const revisionPages: RevisionPageEntry[] = [];
+  const copies: SiteCopy[] = [];
   const projects: PortfolioProject[] = [];
   const drafts: SiteModel['drafts'] = [];
   for (const id of listProjects(root)) {
     const project = loadProjectPages(loader, id, problems);
     pages.push(...project.pages);
+    revisionPages.push(...project.revisionPages);
+    copies.push(...project.copies);
     if (project.draft) drafts.push(project.draft);
     if (project.portfolio) projects.push(project.portfolio);
   }
   if (problems.errors.length) throw new SiteError(problems.errors, problems.warnings);
-  return { pages, portfolio: portfolioView(projects), warnings: problems.warnings, drafts };
+  return { pages, revisionPages, copies, portfolio: portfolioView(projects), warnings: problems.warnings, drafts };
 }

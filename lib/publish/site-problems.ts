@@ -1,7 +1,7 @@
 /**
  * Everything wrong with the projects of a site, collected over all of them before the build
  * gives up, so that one run names every problem: basis diagnostics as file:line:col: path:
- * message, problems of sealed revisions (manifest, results) as file: message. SiteError carries
+ * message, problems of issued revisions (manifest, results) as file: message. SiteError carries
  * them to the command, which prints them one a line and exits 1.
  */
 import { formatDiagnostic } from '../basis/diagnostics.ts';
@@ -23,6 +23,11 @@ export class SiteProblems {
 
   error(file: string, message: string): void {
     this.errors.push(`${file}: ${message}`);
+  }
+
+  /** A line that does not stop the build, already naming what it concerns. */
+  warning(line: string): void {
+    this.warnings.push(`warning: ${line}`);
   }
 }
 

@@ -1,8 +1,8 @@
 /**
  * The date a working draft is shown with, so that two builds of the same inputs give the same
  * bytes: SOURCE_DATE_EPOCH (seconds since 1970, the reproducible-builds convention) when set,
- * else the latest sign-off date of the basis, else none. The clock is never read. Sealed
- * revisions always show their seal date.
+ * else the latest sign-off date of the basis, else none. The clock is never read. Issued
+ * revisions always show their issue date.
  */
 import type { DesignBasis } from '../basis/types.ts';
 import { UserError } from '../core/errors.ts';

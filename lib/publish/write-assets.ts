@@ -1,6 +1,6 @@
 /**
  * Copies the site's assets (lib/publish/site-assets.ts) into a folder: for a document rendered
- * on its own (a sealed revision's document.html) before inlineAssets reads them, and for anyone
+ * on its own (an issued revision's document.html) before inlineAssets reads them, and for anyone
  * who wants the asset folder without building the site.
  *
  *   writeSiteAssets(assetDir): void   assetDir is created if missing; existing files are replaced

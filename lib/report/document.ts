@@ -1,6 +1,6 @@
 /**
  * The view model of one design-basis document: everything its page shows, formatted, with the
- * mathematics pre-rendered, from a validated basis, its results (as calculated, or as sealed), the
+ * mathematics pre-rendered, from a validated basis, its results (as calculated, or as issued), the
  * revision the page stands for and the project's revision history. The templates only display
  * what this returns; they do no arithmetic and make no choices of wording.
  */
@@ -12,7 +12,7 @@ import { assetLinks, type AssetLinks } from './assets.ts';
 import { EquationBook } from './equation-book.ts';
 import { methodSection, type MethodStep } from './method.ts';
 import { resultLines, type LineGroup } from './result-lines.ts';
-import { outline, type OutlineEntry, type SectionId } from './outline.ts';
+import { appendices, outline, type AppendixEntry, type AppendixId, type OutlineEntry, type SectionId } from './outline.ts';
 import { relativeHref } from './links.ts';
 import type { RevisionContext } from './revision.ts';
 import type { RevisionHistoryEntry } from './history.ts';
@@ -64,6 +64,9 @@ export interface DocumentView {
   outline: OutlineEntry[];
   /** Each section's number, title and anchor by id, for the headings. */
   sections: Record<SectionId, OutlineEntry>;
+  /** The appendices after the sections, lettered, and each by id. */
+  appendices: AppendixEntry[];
+  appendix: Record<AppendixId, AppendixEntry>;
   titleBlock: TitleBlock;
   purpose: string[];
   scope: string[];
@@ -103,10 +106,12 @@ export function documentView(input: DocumentInput, options: DocumentOptions): Do
     paper: basis.document.paper,
     pageSize: basis.document.paper === 'A4' ? 'A4' : 'letter',
     assets: assetLinks(options.assetBase),
-    print: printMarks(title.number, title.revision, title.stamp),
+    print: printMarks(title.number, title.revision, title.statusMark),
     indexHref: options.indexHref ?? null,
     outline: outline(),
     sections: Object.fromEntries(outline().map((s) => [s.id, s])) as Record<SectionId, OutlineEntry>,
+    appendices: appendices(),
+    appendix: Object.fromEntries(appendices().map((a) => [a.id, a])) as Record<AppendixId, AppendixEntry>,
     titleBlock: title,
     purpose: paragraphs(basis.document.purpose),
     scope: paragraphs(basis.document.scope),

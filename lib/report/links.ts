@@ -23,7 +23,7 @@ export function draftPagePath(projectId: string): string {
   return `projects/${projectId}/index.html`;
 }
 
-/** Site path of a sealed revision's page. */
+/** Site path of an issued revision's page. */
 export function revisionPagePath(projectId: string, revision: string): string {
   return `projects/${projectId}/rev-${revision}/index.html`;
 }

@@ -1,6 +1,8 @@
 /**
- * The sections of the design document, in order, with their anchors and titles. Numbers are
- * taken from here wherever a text refers to another section, so they cannot drift apart.
+ * The sections of the design document, in order, with their anchors and titles, and the
+ * appendices after them (lettered: the long tables a reviewer consults rather than reads, whose
+ * summary stands in the body). Numbers and letters are taken from here wherever a text refers to
+ * another section, so they cannot drift apart.
  */
 export const OUTLINE = [
   { id: 'purpose', title: 'Purpose and scope' },
@@ -31,4 +33,24 @@ export interface OutlineEntry {
 
 export function outline(): OutlineEntry[] {
   return OUTLINE.map((s, i) => ({ id: s.id, number: i + 1, title: s.title }));
+}
+
+export const APPENDICES = [{ id: 'checks', title: 'Checks of the calculation library against published values' }] as const;
+
+export type AppendixId = (typeof APPENDICES)[number]['id'];
+
+export interface AppendixEntry {
+  id: AppendixId;
+  /** "A", "B", ... */
+  letter: string;
+  title: string;
+}
+
+export function appendices(): AppendixEntry[] {
+  return APPENDICES.map((a, i) => ({ id: a.id, letter: String.fromCharCode(65 + i), title: a.title }));
+}
+
+/** The letter of an appendix, for texts that refer to it. */
+export function appendixLetter(id: AppendixId): string {
+  return String.fromCharCode(65 + APPENDICES.findIndex((a) => a.id === id));
 }

@@ -1,10 +1,12 @@
 /**
  * The view model of the portfolio index: every project of the site with its technology, the
- * revision last issued (sealed) and its status, the working draft, the headline numbers of the
- * draft and how many assumptions are still open. Problems of a build that failed while the dev
+ * revision last issued and its status, the working draft (the draft of the next revision), the
+ * headline numbers of the draft and how many assumptions are still open. Problems of a build that failed while the dev
  * server runs are shown on the same page.
  */
-import type { DesignBasis, DocumentStatus } from '../basis/types.ts';
+import type { DesignBasis } from '../basis/types.ts';
+import type { IssueStatus } from '../basis/revisions.ts';
+import { DRAFT_STATUS } from './revision.ts';
 import type { Results } from '../plant/results-schema.ts';
 import { ASSETS, assetLinks, type AssetLinks } from './assets.ts';
 import { formatInteger, formatPercent, formatPower, formatQuantity } from './format.ts';
@@ -17,8 +19,10 @@ export interface PortfolioProject {
   basis: DesignBasis;
   results: Results;
   draftPath: string;
-  issued: { revision: string; status: DocumentStatus; sealedOn: string; path: string } | null;
-  revisionsSealed: number;
+  issued: { revision: string; status: IssueStatus; issuedOn: string; path: string } | null;
+  /** The revision the working draft becomes when next issued. */
+  draftRevision: string;
+  revisionsIssued: number;
 }
 
 export interface PortfolioRow {
@@ -70,9 +74,9 @@ function row(p: PortfolioProject): PortfolioRow {
     technology: r.technology.name,
     mode: power ? 'power' : 'electrolysis',
     issued: p.issued
-      ? { label: `Rev. ${p.issued.revision}, ${p.issued.sealedOn}`, status: p.issued.status, href: relativeHref(INDEX_PATH, p.issued.path), kind: p.issued.status === 'approved' ? 'approved' : 'issued' }
+      ? { label: `Rev. ${p.issued.revision}, ${p.issued.issuedOn}`, status: p.issued.status, href: relativeHref(INDEX_PATH, p.issued.path), kind: p.issued.status === 'approved' ? 'approved' : 'issued' }
       : null,
-    draft: { label: `Rev. ${p.basis.document.revision}`, status: p.basis.document.status },
+    draft: { label: `Rev. ${p.draftRevision}`, status: DRAFT_STATUS },
     output: together(power ? `${formatPower(h.netPower_W)} net` : h.hydrogenProduction_kg_per_day === null ? formatPower(h.stackPower_W) : `${formatQuantity(h.hydrogenProduction_kg_per_day, 'kg/day')} H₂`),
     efficiency: together(
       power
@@ -88,14 +92,14 @@ function row(p: PortfolioProject): PortfolioRow {
 }
 
 export function portfolioView(projects: readonly PortfolioProject[], problems: string[] = []): PortfolioView {
-  const sealed = projects.reduce((n, p) => n + p.revisionsSealed, 0);
+  const issued = projects.reduce((n, p) => n + p.revisionsIssued, 0);
   const open = projects.reduce((n, p) => n + p.basis.assumptions.filter((a) => a.open).length, 0);
   return {
     pageTitle: 'Design bases',
     // No charts on the index: only our script, which marks the page ready for printing.
     assets: { stylesheets: assetLinks('assets/').stylesheets, scripts: [`assets/${ASSETS.chartsScript}`] },
     rows: projects.map(row),
-    summary: `${projects.length} design bases, ${sealed} sealed revision${sealed === 1 ? '' : 's'}, ${open} open assumption${open === 1 ? '' : 's'} in the working drafts.`,
+    summary: `${projects.length} design bases, ${issued} issued revision${issued === 1 ? '' : 's'}, ${open} open assumption${open === 1 ? '' : 's'} in the working drafts.`,
     problems,
   };
 }

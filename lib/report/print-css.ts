@@ -13,15 +13,15 @@ export function cssString(text: string): TrustedHtml {
 }
 
 export interface PrintMarks {
-  /** Left of the footer: number, revision and the stamp's words. */
+  /** Left of the footer: number, revision and the status mark's words. */
   footer: TrustedHtml;
-  /** Top of every page: the stamp's words for a draft or superseded revision, else empty. */
+  /** Top of every page: the status mark's words for a working draft, else empty. */
   header: TrustedHtml;
 }
 
-export function printMarks(number: string, revision: string, stamp: { kind: string; text: string }): PrintMarks {
+export function printMarks(number: string, revision: string, mark: { kind: string; text: string }): PrintMarks {
   return {
     footer: cssString(`${number}, revision ${revision}`),
-    header: cssString(stamp.kind === 'draft' || stamp.kind === 'superseded' ? stamp.text : ''),
+    header: cssString(mark.kind === 'draft' ? mark.text : ''),
   };
 }

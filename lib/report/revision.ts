@@ -1,67 +1,101 @@
 /**
- * Which revision a document page shows, and the stamp, date and links that follow from it: the
- * working draft of a project (never issued, whatever status its basis states) or a sealed
- * revision, which is superseded once a later revision of the same project is sealed.
+ * Which revision a document shows, and the status mark, date and links that follow from it. The issued
+ * revisions (lib/archive) decide every revision and status: a page is either the working draft
+ * of a project, shown as the draft of the revision it will be issued as and never as issued, or
+ * a revision being issued, as its manifest records it. An issued revision's document is rendered
+ * once, when it is issued, and never again (the site shows the file issued).
  */
-import type { DocumentStatus } from '../basis/types.ts';
+import type { IssueStatus } from '../basis/revisions.ts';
+
+/** A digital signature of an issued revision's manifest, as the manifest records it. */
+export interface SignatureFacts {
+  role: 'prepared' | 'checked' | 'approved';
+  /** The key's name (the name it was made with, cellbasis keygen NAME). */
+  key: string;
+  /** SHA-256 of the public key (SPKI DER), lower-case hex. */
+  fingerprint: string;
+}
+
+/** The revision last issued, as a draft names it. */
+export interface IssuedSummary {
+  revision: string;
+  status: IssueStatus;
+  issuedOn: string;
+}
 
 export type RevisionContext =
   | {
       kind: 'draft';
+      /** The revision this draft becomes when it is next issued (lib/basis/revisions.ts nextRevision). */
+      revision: string;
+      /** The revision issued last, or null when none is. */
+      lastIssued: IssuedSummary | null;
       /** The date the draft is shown with (YYYY-MM-DD): SOURCE_DATE_EPOCH, else its latest sign-off date; null when neither exists. */
       date: string | null;
       /** Link to the draft's PDF beside the page (relative), when the build prints one. */
       pdfHref?: string | null;
     }
   | {
-      kind: 'sealed';
+      kind: 'issued';
       revision: string;
-      status: DocumentStatus;
-      /** The seal date (YYYY-MM-DD) of manifest.json. */
-      sealedOn: string;
-      /** The note given when the revision was sealed, or "". */
+      status: IssueStatus;
+      /** The issue date (YYYY-MM-DD) of manifest.json. */
+      issuedOn: string;
+      /** The note given when the revision was issued, or "". */
       note: string;
-      /** The later sealed revision that replaces this one, or null for the current one. */
-      supersededBy: string | null;
-      /** Link to the sealed PDF beside the page (relative), or null when there is none. */
+      /** The signatures its manifest records, in sign-off order. */
+      signatures: readonly SignatureFacts[];
+      /** Link to the issued PDF beside the document (relative), or null when there is none. */
       pdfHref: string | null;
     };
 
-export type StampKind = 'draft' | 'issued' | 'approved' | 'superseded';
+export type StatusMarkKind = 'draft' | 'issued' | 'approved';
 
-export interface Stamp {
-  kind: StampKind;
-  /** The words of the stamp, e.g. "Draft, not issued". */
+export interface StatusMark {
+  kind: StatusMarkKind;
+  /** The words of the status mark, e.g. "Draft, not issued". */
   text: string;
-  /** One line under it, e.g. "Superseded by revision C". */
+  /** One line under it, e.g. "Draft of revision B; revision A issued for review on 2026-09-22". */
   detail: string;
 }
 
-function statusWords(status: DocumentStatus): string {
+/** A status as the status mark writes it: "Issued for review". */
+export function statusWords(status: IssueStatus): string {
   return status.charAt(0).toUpperCase() + status.slice(1);
 }
 
-export function stampFor(revision: RevisionContext, basisStatus: DocumentStatus, basisRevision: string): Stamp {
+export function statusMarkFor(revision: RevisionContext): StatusMark {
   if (revision.kind === 'draft') {
-    return { kind: 'draft', text: 'Draft, not issued', detail: `Working draft of revision ${basisRevision} (basis status: ${basisStatus})` };
-  }
-  if (revision.supersededBy !== null || revision.status === 'superseded') {
-    const by = revision.supersededBy === null ? 'a later revision' : `revision ${revision.supersededBy}`;
-    return { kind: 'superseded', text: 'Superseded', detail: `Revision ${revision.revision}, ${revision.status}; superseded by ${by}` };
+    const last = revision.lastIssued;
+    const before = last ? `revision ${last.revision} ${last.status} on ${last.issuedOn}` : 'no revision issued yet';
+    return { kind: 'draft', text: 'Draft, not issued', detail: `Draft of revision ${revision.revision}; ${before}` };
   }
   return {
     kind: revision.status === 'approved' ? 'approved' : 'issued',
     text: statusWords(revision.status),
-    detail: `Sealed revision ${revision.revision}, ${revision.sealedOn}`,
+    detail: `Revision ${revision.revision}, issued ${revision.issuedOn}`,
   };
 }
 
-/** The revision the page shows: the sealed one, else the draft's revision as its basis states it. */
-export function revisionLabel(revision: RevisionContext, basisRevision: string): string {
-  return revision.kind === 'sealed' ? revision.revision : `${basisRevision} (draft)`;
+/** The revision the page shows: "B", or "B, draft, not issued" for the working draft. */
+export function revisionLabel(revision: RevisionContext): string {
+  return revision.kind === 'issued' ? revision.revision : `${revision.revision}, draft, not issued`;
 }
 
-/** The date of the page: the seal date, or the draft's date. */
+/** The status the page states (PDF header and properties): the issued one, or "draft, not issued". */
+export function statusLabel(revision: RevisionContext): string {
+  return revision.kind === 'issued' ? revision.status : DRAFT_STATUS;
+}
+
+/** What a working draft states as its status, on its page and in its PDF. */
+export const DRAFT_STATUS = 'draft, not issued';
+
+/** The date of the page: the issue date, or the draft's date. */
 export function revisionDate(revision: RevisionContext): string | null {
-  return revision.kind === 'sealed' ? revision.sealedOn : revision.date;
+  return revision.kind === 'issued' ? revision.issuedOn : revision.date;
+}
+
+/** A fingerprint as a document writes it: its first 16 hex digits in groups of four. */
+export function shortFingerprint(fingerprint: string): string {
+  return fingerprint.slice(0, 16).replace(/(.{4})(?=.)/g, '$1 ');
 }

@@ -37,7 +37,7 @@ export function isTrustedHtml(value: unknown): value is TrustedHtml {
 /**
  * Escapes text for HTML element content and attribute values exactly as the templates'
  * autoescaping does (Nunjucks: & < > " ' and the backslash, as &#92;), so that code looking for
- * a user's text in a rendered page (the audit, for the seal note) finds it as the page has it.
+ * a user's text in a rendered page (the audit, for the note of an issued revision) finds it as the page has it.
  */
 export function escapeHtml(text: string): string {
   return text.replace(/[&<>"'\\]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;', '\\': '&#92;' })[c]!);

@@ -1,6 +1,11 @@
 // compareRevisions: the change summary of two revisions, checked against two independent runs of
-// calculate() on the bases it compares.
-import { describe, expect, it } from 'vitest';
+// calculate() on the bases it compares; and `cellbasis compare` between an issued revision and the
+// working draft.
+import { readFileSync, writeFileSync } from 'node:fs';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { run } from '../helpers/run-cli.ts';
+import { announceChromiumSkip, describeWithChromium } from '../helpers/chromium.ts';
+import { ISSUE_TIMEOUT, basisPath, issue, issuedPath, PROJECT, removeWorkspace, workspace } from '../helpers/archive-workspace.ts';
 import { renderScaffold } from '../../lib/basis/scaffolds.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
 import { calculate } from '../../lib/plant/calculate.ts';
@@ -9,10 +14,10 @@ import { edit } from '../helpers/basis-text.ts';
 
 const BASE = renderScaffold('solid-oxide', 'power', 'demo', '2026-11-30');
 
-function side(text: string): RevisionSide {
-  const loaded = loadBasisText(text, 'projects/demo/basis.yaml', 'demo');
+function side(text: string, revision = 'A'): RevisionSide {
+  const loaded = loadBasisText(text, 'projects/demo/basis.yaml', 'demo', { formerRevisionKeys: true });
   if (!loaded.ok) throw new Error(loaded.errors.map((e) => e.message).join('\n'));
-  return { basis: loaded.basis, results: calculate(loaded.basis), source: text };
+  return { revision, basis: loaded.basis, results: calculate(loaded.basis), source: text };
 }
 
 describe('compareRevisions', () => {
@@ -46,12 +51,12 @@ describe('compareRevisions', () => {
     expect(changes.unchanged).toBe(false);
   });
 
-  it('finds no change between a revision and itself, and ignores the revision and status', () => {
-    const sealed = edit(BASE, ['revision: A ', 'revision: B '], ['status: draft ', 'status: approved ']);
-    const changes = compareRevisions(side(BASE), side(sealed));
+  it('finds no change between a revision and itself, and ignores the revision and status a revision of format 1 wrote in its basis', () => {
+    const former = edit(BASE, ['  client:', '  revision: B\n  status: approved\n  client:']);
+    const changes = compareRevisions({ ...side(BASE), status: 'issued for review' }, { ...side(former, 'B'), status: 'approved' });
     expect(changes.summary).toEqual([]);
     expect(changes.unchanged).toBe(true);
-    expect(changes.from).toEqual({ revision: 'A', status: 'draft' });
+    expect(changes.from).toEqual({ revision: 'A', status: 'issued for review' });
     expect(changes.to).toEqual({ revision: 'B', status: 'approved' });
   });
 
@@ -118,5 +123,46 @@ describe('compareRevisions', () => {
     expect(changes.summary).toContain(least.text);
     // And back: the case is added again.
     expect(compareRevisions(b, a).cases.find((c) => c.id === 'hot')).toMatchObject({ kind: 'added', text: 'case hot added: Hot' });
+  });
+});
+
+announceChromiumSkip('the compare command tests');
+
+describeWithChromium('cellbasis compare', () => {
+  let cwd: string;
+
+  beforeAll(async () => {
+    cwd = workspace();
+    expect((await issue(cwd, ['A', '--status', 'issued for review', '--date', '2026-11-30'])).code).toBe(0);
+  }, ISSUE_TIMEOUT);
+
+  afterAll(() => removeWorkspace(cwd));
+
+  it('reports the changed temperature as written and the Nernst voltage of two independent calculations, the draft named as revision B', async () => {
+    const text = readFileSync(basisPath(cwd), 'utf8').replace('value: "800 C", source: A1', 'value: "780 C", source: A1');
+    writeFileSync(basisPath(cwd), text);
+    const issued = loadBasisText(readFileSync(issuedPath(cwd, 'A', 'basis.yaml')), 's.yaml', PROJECT);
+    const draft = loadBasisText(text, 'd.yaml', PROJECT);
+    if (!issued.ok || !draft.ok) throw new Error('bases');
+    const before = calculate(issued.basis).headline.meanNernst_V;
+    const after = calculate(draft.basis).headline.meanNernst_V;
+    const change = `+${Number(((after - before) * 1000).toPrecision(2))} mV, +${Number((((after - before) / before) * 100).toPrecision(2))} %`;
+
+    const table = await run(['compare', PROJECT, 'A', 'draft'], cwd);
+    expect(table.code).toBe(0);
+    expect(table.out).toMatch(/^projects\/demo: revision A \(issued for review on 2026-11-30\) → draft of revision B \(working basis\)\n/);
+    expect(table.out).toMatch(/\noperating temperature +800 C \[A1\] +780 C \[A1\] +conditions\.operating-temperature\n/);
+    expect(table.out).toMatch(new RegExp(`\\nmean Nernst voltage +${before.toFixed(4)} V +${after.toFixed(4)} V +${change.replace(/[+.]/g, '\\$&')}\\n`));
+
+    const json = JSON.parse((await run(['compare', PROJECT, 'A', 'draft', '--json'], cwd)).out);
+    expect(json.inputs).toEqual([expect.objectContaining({ path: 'conditions.operating-temperature', old: expect.objectContaining({ text: '800 C' }), new: expect.objectContaining({ text: '780 C' }) })]);
+    expect(json.results.find((r: { key: string }) => r.key === 'meanNernst_V')).toMatchObject({ old: before, new: after });
+    expect(json.from).toMatchObject({ revision: 'A', status: 'issued for review' });
+    expect(json.to).toMatchObject({ revision: 'B', status: 'draft, not issued' });
+    expect(json.summary[0]).toBe('operating temperature 800 C → 780 C');
+
+    expect((await run(['compare', PROJECT, 'A', 'A'], cwd)).out).toMatch(/\n\nno changes\n$/);
+    const missing = await run(['compare', PROJECT, 'A', 'B'], cwd);
+    expect(missing).toMatchObject({ code: 2, err: 'cellbasis: revision B of projects/demo is not issued (issued: A; "draft" is the working basis)\n' });
   });
 });

@@ -17,7 +17,7 @@ describe('revision sequence', () => {
   it('refuses names that are not revisions, path tricks included', () => {
     for (const bad of ['I', 'O', 'a', '../A', '/A', 'A/B', '01', '', 'AAA', 'A ']) expect(isRevision(bad), bad).toBe(false);
     expect(() => checkFollows(null, 'B')).toThrow(/does not follow the start .* the next revision is A or 0/);
-    expect(() => checkFollows('A', 'C')).toThrow(/does not follow the last sealed revision A: the next revision is B or 0/);
+    expect(() => checkFollows('A', 'C')).toThrow(/does not follow the last issued revision A: the next revision is B or 0/);
     expect(() => checkFollows('1', 'B')).toThrow(/next revision is 2/);
     expect(() => checkFollows('A', '../x')).toThrow(/not a revision name/);
     expect(() => checkFollows('A', 'B')).not.toThrow();

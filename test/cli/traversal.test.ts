@@ -16,14 +16,14 @@ const ID_COMMANDS: Record<string, (id: string) => string[]> = {
   calc: (id) => ['calc', id],
   hazards: (id) => ['hazards', id],
   new: (id) => ['new', id, '--technology', 'pem'],
-  seal: (id) => ['seal', id, '--rev', 'A', '--status', 'issued for review'],
+  issue: (id) => ['issue', id, '--rev', 'A', '--status', 'issued for review'],
   audit: (id) => ['audit', id],
   compare: (id) => ['compare', id, 'A', 'draft'],
 };
 
 /** How each command is given a revision name (of the valid project "good"). */
 const REVISION_COMMANDS: Record<string, (revision: string) => string[]> = {
-  seal: (revision) => ['seal', 'good', '--rev', revision, '--status', 'issued for review'],
+  issue: (revision) => ['issue', 'good', '--rev', revision, '--status', 'issued for review'],
   compare: (revision) => ['compare', 'good', revision, 'draft'],
 };
 
@@ -99,7 +99,7 @@ describe('path traversal', () => {
       expect(r.err).toMatch(/^cellbasis: .*revision/);
       expect(r.err).not.toMatch(/\n\s+at |internal error/);
       expect(r.code).toBe(2);
-      expect(existsSync(join(root, 'projects', 'good', 'sealed')), 'nothing sealed').toBe(false);
+      expect(existsSync(join(root, 'projects', 'good', 'issued')), 'nothing issued').toBe(false);
     });
   });
 

@@ -33,7 +33,7 @@ export interface ChildOptions {
 
 function childEnv(extra: Record<string, string> = {}): NodeJS.ProcessEnv {
   const env: NodeJS.ProcessEnv = { ...process.env };
-  for (const name of ['CELLBASIS_DEBUG', 'CELLBASIS_SEAL_PAUSE', 'CELLBASIS_BUILD_PAUSE', 'NODE_OPTIONS']) delete env[name];
+  for (const name of ['CELLBASIS_DEBUG', 'CELLBASIS_ISSUE_PAUSE', 'CELLBASIS_BUILD_PAUSE', 'NODE_OPTIONS']) delete env[name];
   return { ...env, ...extra };
 }
 

@@ -3,7 +3,7 @@
  * `window.__pwned` or open a dialog if they ever ran, closing tags of the elements a page keeps
  * raw text in (</style>, </script>), template syntax of Nunjucks and Eleventy, and LaTeX
  * commands KaTeX would act on. Each field carries a marker of its own (`[title]`, `[client]`, ...)
- * so that a test can find every field's text in the page, in the PDF and in the sealed document.
+ * so that a test can find every field's text in the page, in the PDF and in the issued document.
  *
  * The basis is the solid oxide demo project (projects/thistlemere-sofc-chp) with its document
  * fields, sign-off names, cell material notes, value justifications, mixture name and source,

@@ -1,8 +1,10 @@
 /**
- * Shared by the publishing tests: a working folder holding copies of the demo projects, sealed
- * revisions written into it in the layout of lib/archive/layout.ts (the basis as sealed, its
- * results, a one-page PDF and the manifest with the SHA-256 of each), a digest of a folder tree
- * (to show a failed build changed nothing) and captured runs of the command line.
+ * Shared by the publishing tests: a working folder holding copies of the demo projects (without
+ * their committed archives), issued revisions written into it in the layout of
+ * lib/archive/layout.ts without Chromium (the basis as issued, its results, the document rendered
+ * as issue renders it, a one-page PDF and the manifest with the SHA-256 of each, linked to the
+ * revision before), a digest of a folder tree (to show a failed build changed nothing) and
+ * captured runs of the command line.
  */
 import { createHash } from 'node:crypto';
 import { cpSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
@@ -14,9 +16,14 @@ import { PDFDocument, StandardFonts } from 'pdf-lib';
 import { loadBasisText } from '../../lib/basis/load.ts';
 import { calculate } from '../../lib/plant/calculate.ts';
 import { manifestBytes, signOffOf } from '../../lib/archive/manifest.ts';
-import type { SealManifest } from '../../lib/archive/layout.ts';
-import { SEALED_FILES, sealedDir } from '../../lib/archive/layout.ts';
-import type { DocumentStatus } from '../../lib/basis/types.ts';
+import type { IssueManifest } from '../../lib/archive/layout.ts';
+import { ISSUED_FILES, MANIFEST_FORMAT, issuedDir } from '../../lib/archive/layout.ts';
+import { readIssuedFolder } from '../../lib/archive/issued-folder.ts';
+import { readIssuedRevision } from '../../lib/archive/issued-revision.ts';
+import { issuedDocumentInput } from '../../lib/archive/issued-document.ts';
+import { sha256Hex } from '../../lib/archive/hash.ts';
+import type { IssueStatus } from '../../lib/basis/revisions.ts';
+import { renderStandaloneHtml } from '../../lib/publish/render.ts';
 import { PACKAGE_ROOT } from '../../lib/publish/paths.ts';
 import { sha256, treeDigest } from './tree-digest.ts';
 
@@ -48,11 +55,6 @@ export function basisFile(root: string, id: string): string {
   return join(root, 'projects', id, 'basis.yaml');
 }
 
-/** The basis text with its document revision and status set (and any other edit). */
-export function withRevision(text: string, revision: string, status: DocumentStatus, edit: (t: string) => string = (t) => t): string {
-  return edit(text.replace(/^ {2}revision: .*$/m, `  revision: "${revision}"`).replace(/^ {2}status: .*$/m, `  status: ${status}`));
-}
-
 async function onePagePdf(title: string): Promise<Uint8Array> {
   const pdf = await PDFDocument.create();
   const page = pdf.addPage([595, 842]);
@@ -62,36 +64,43 @@ async function onePagePdf(title: string): Promise<Uint8Array> {
   return pdf.save();
 }
 
-/** Writes projects/<id>/sealed/<rev>/ from the project's basis text as edited. */
-export async function sealFixture(root: string, id: string, revision: string, status: DocumentStatus, sealedOn: string, edit?: (t: string) => string): Promise<void> {
-  const text = withRevision(readFileSync(basisFile(root, id), 'utf8'), revision, status, edit);
-  const loaded = loadBasisText(text, `projects/${id}/sealed/${revision}/basis.yaml`, id);
+/** Writes projects/<id>/issued/<rev>/ from the project's basis text as edited, following the revisions issued there. */
+export async function issueFixture(root: string, id: string, revision: string, status: IssueStatus, issuedOn: string, edit: (t: string) => string = (t) => t): Promise<void> {
+  const text = edit(readFileSync(basisFile(root, id), 'utf8'));
+  const loaded = loadBasisText(text, `projects/${id}/issued/${revision}/basis.yaml`, id);
   if (!loaded.ok) throw new Error(loaded.errors.map((e) => e.message).join('\n'));
   const results = calculate(loaded.basis);
-  const dir = sealedDir(root, id, revision);
-  mkdirSync(dir, { recursive: true });
-  const files: Record<string, Uint8Array | string> = {
-    [SEALED_FILES.basis]: text,
-    [SEALED_FILES.results]: `${JSON.stringify(results, null, 2)}\n`,
-    [SEALED_FILES.pdf]: await onePagePdf(`${loaded.basis.document.number} revision ${revision}`),
-  };
-  for (const [name, bytes] of Object.entries(files)) writeFileSync(join(dir, name), bytes);
-  const manifest: SealManifest = {
-    format: 'cellbasis-seal/1',
+  const previous = readIssuedFolder(root, id).revisions.map((r) => readIssuedRevision(root, id, r));
+  const last = previous[previous.length - 1];
+  const manifest: IssueManifest = {
+    format: MANIFEST_FORMAT,
     project: id,
     documentNumber: loaded.basis.document.number,
     title: loaded.basis.document.title,
     revision,
     status,
     note: `revision ${revision} for the test`,
-    sealedOn,
+    issuedOn,
+    issuedAt: `${issuedOn}T00:00:00.000Z`,
     tool: { name: 'cellbasis', version: results.tool.version },
     speciesData_sha256: results.speciesData_sha256,
-    files: Object.fromEntries(Object.entries(files).map(([name, bytes]) => [name, sha256(bytes)])),
-    previous: null,
+    files: {},
+    previous: last ? { revision: last.revision, manifest_sha256: sha256Hex(last.manifestBytes) } : null,
     signOff: signOffOf(loaded.basis),
+    signatures: [],
   };
-  writeFileSync(join(dir, SEALED_FILES.manifest), manifestBytes(manifest));
+  const html = renderStandaloneHtml(issuedDocumentInput({ basis: loaded.basis, results, manifest, previous, basisText: text }));
+  const dir = issuedDir(root, id, revision);
+  mkdirSync(dir, { recursive: true });
+  const files: Record<string, Uint8Array | string> = {
+    [ISSUED_FILES.basis]: text,
+    [ISSUED_FILES.results]: `${JSON.stringify(results, null, 2)}\n`,
+    [ISSUED_FILES.html]: html,
+    [ISSUED_FILES.pdf]: await onePagePdf(`${loaded.basis.document.number} revision ${revision}`),
+  };
+  for (const [name, bytes] of Object.entries(files)) writeFileSync(join(dir, name), bytes);
+  manifest.files = Object.fromEntries(Object.entries(files).map(([name, bytes]) => [name, sha256(bytes)]));
+  writeFileSync(join(dir, ISSUED_FILES.manifest), manifestBytes(manifest));
 }
 
 export const SOFC = 'thistlemere-sofc-chp';
@@ -100,14 +109,13 @@ export const SOFC = 'thistlemere-sofc-chp';
 export const EPOCH = { SOURCE_DATE_EPOCH: '1767225600' };
 
 /**
- * The demo projects with two sealed revisions of the solid oxide project (A at 760 °C, then B as
- * the project stands) and its working draft moved on to revision C.
+ * The demo projects with two issued revisions of the solid oxide project (A at 760 °C, then B as
+ * the project stands), so that its working draft is the draft of revision C.
  */
-export async function sealedDemoRoot(): Promise<string> {
+export async function issuedDemoRoot(): Promise<string> {
   const root = demoRoot();
-  await sealFixture(root, SOFC, 'A', 'issued for review', '2026-06-02', (t) => t.replace('value: "750 C", source: R3', 'value: "760 C", source: R3'));
-  await sealFixture(root, SOFC, 'B', 'issued for review', '2026-09-22');
-  writeFileSync(basisFile(root, SOFC), withRevision(readFileSync(basisFile(root, SOFC), 'utf8'), 'C', 'draft'));
+  await issueFixture(root, SOFC, 'A', 'issued for review', '2026-06-02', (t) => t.replace('value: "750 C", source: R3', 'value: "760 C", source: R3'));
+  await issueFixture(root, SOFC, 'B', 'issued for review', '2026-09-22');
   return root;
 }
 

@@ -10,7 +10,7 @@ import { chromium, type Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildSite } from '../../lib/publish/build.ts';
 import { PACKAGE_ROOT } from '../../lib/publish/paths.ts';
-import { EPOCH, htmlPages, sealedDemoRoot } from '../helpers/site.ts';
+import { EPOCH, htmlPages, issuedDemoRoot } from '../helpers/site.ts';
 
 const CHROMIUM = '/usr/bin/chromium';
 const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];
@@ -49,7 +49,7 @@ describe.skipIf(!available && !process.env.CI)('the built site in Chromium, from
   const reports = new Map<string, PageReport>();
 
   beforeAll(async () => {
-    root = await sealedDemoRoot();
+    root = await issuedDemoRoot();
     site = join(root, 'site');
     await buildSite({ root, env: EPOCH, pdf: false });
     browser = await chromium.launch({ executablePath: CHROMIUM, args: ARGS });
@@ -121,7 +121,7 @@ describe.skipIf(!available && !process.env.CI)('the built site in Chromium, from
     return report;
   }
 
-  it('opened every page: the index, four drafts and two sealed revisions', () => {
+  it('opened every page: the index, four drafts and two issued revisions', () => {
     expect([...reports.keys()].length).toBe(7);
   });
 

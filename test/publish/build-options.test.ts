@@ -19,7 +19,7 @@ function root(): string {
 describe('cellbasis build options', () => {
   it('refuses --out that is the working folder, projects/ or inside it, and writes nothing', async () => {
     const dir = root();
-    for (const out of ['.', 'projects', 'projects/p1', 'projects/p1/sealed/A', '..']) {
+    for (const out of ['.', 'projects', 'projects/p1', 'projects/p1/issued/A', '..']) {
       const r = await run(['build', '--out', out, '--html-only'], dir);
       expect(r.code, out).toBe(2);
       expect(r.err, out).toMatch(/would replace the working folder or write inside projects\//);

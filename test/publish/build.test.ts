@@ -1,4 +1,4 @@
-// cellbasis build: every page of the demo projects and their sealed revisions, byte-identical on a
+// cellbasis build: every page of the demo projects and their issued revisions, byte-identical on a
 // second build, the draft date from SOURCE_DATE_EPOCH, and all or nothing: a basis with errors
 // fails with its located diagnostics (exit 1) and leaves the previous site exactly as it was.
 import { existsSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
@@ -15,13 +15,13 @@ import { outline } from '../../lib/report/outline.ts';
 import { compact, imageSizes, pageTexts } from '../helpers/pdf-inspect.ts';
 import type { ChartSpec } from '../../lib/report/charts/spec.ts';
 import { run } from '../helpers/run-cli.ts';
-import { basisFile, DEMO_PROJECTS, demoRoot, EPOCH, htmlPages, sealedDemoRoot, SOFC } from '../helpers/site.ts';
+import { basisFile, DEMO_PROJECTS, demoRoot, EPOCH, htmlPages, issuedDemoRoot, SOFC } from '../helpers/site.ts';
 import { treeDigest } from '../helpers/tree-digest.ts';
 
 let root: string;
 
 beforeAll(async () => {
-  root = await sealedDemoRoot();
+  root = await issuedDemoRoot();
 }, 120_000);
 
 afterAll(() => rmSync(root, { recursive: true, force: true }));
@@ -33,17 +33,24 @@ describe('a build of the demo projects', () => {
     await buildSite({ root, env: EPOCH });
   }, 180_000);
 
-  it('writes the index, one page per working draft and one per sealed revision, with the sealed PDFs and the assets', () => {
+  it('writes the index, one page per working draft and one per issued revision, with the issued documents and PDFs and the assets', () => {
     expect(htmlPages(site)).toEqual([
       'index.html',
       'projects/corrin-beck-mcfc-biogas/index.html',
       'projects/hob-tor-pem-backup/index.html',
       'projects/kestrelford-pem-electrolyser/index.html',
       'projects/thistlemere-sofc-chp/index.html',
+      'projects/thistlemere-sofc-chp/rev-A/document.html',
       'projects/thistlemere-sofc-chp/rev-A/index.html',
+      'projects/thistlemere-sofc-chp/rev-B/document.html',
       'projects/thistlemere-sofc-chp/rev-B/index.html',
     ]);
-    expect(existsSync(join(site, 'projects', SOFC, 'rev-A', 'document.pdf'))).toBe(true);
+    // The issued files exactly as issued: never rendered or printed again.
+    for (const rev of ['A', 'B']) {
+      for (const name of ['document.html', 'document.pdf']) {
+        expect(readFileSync(join(site, 'projects', SOFC, `rev-${rev}`, name)).equals(readFileSync(join(root, 'projects', SOFC, 'issued', rev, name))), `${rev}/${name}`).toBe(true);
+      }
+    }
     for (const asset of ['assets/katex/katex.min.css', 'assets/katex/fonts/KaTeX_Main-Regular.woff2', 'assets/chart.umd.min.js', 'assets/charts.js', 'assets/report.css']) {
       expect(existsSync(join(site, asset)), asset).toBe(true);
     }
@@ -107,16 +114,17 @@ describe('a build of the demo projects', () => {
       const loaded = loadBasisText(readFileSync(basisFile(root, id)), `projects/${id}/basis.yaml`, id);
       if (!loaded.ok) throw new Error(id);
       const d = loaded.basis.document;
+      // The draft of the next revision: C after the two issued revisions of the solid oxide project, else A.
+      const rev = id === SOFC ? 'C' : 'A';
       const pages = await pageTexts(readFileSync(join(site, 'projects', id, 'document.pdf')));
       pages.forEach((text, i) => {
         const words = compact(text);
         const where = `${id} page ${i + 1}`;
-        // The running header and footer (lib/publish/pdf-page.ts) state the draft, never the basis status.
-        expect(words, where).toContain(compact(`Rev ${d.revision} · ${DRAFT_PDF_STATUS}`));
-        expect(words, where).toContain(compact(`${d.number} rev ${d.revision}, ${DRAFT_PDF_STATUS}`));
-        if (d.status !== 'draft') expect(words, where).not.toContain(compact(`Rev ${d.revision} · ${d.status}`));
+        // The running header and footer (lib/publish/pdf-page.ts) state the draft of the next revision.
+        expect(words, where).toContain(compact(`Rev ${rev} · ${DRAFT_PDF_STATUS}`));
+        expect(words, where).toContain(compact(`${d.number} rev ${rev}, ${DRAFT_PDF_STATUS}`));
         // Less than a line or two besides the header and footer: a table's last row or two alone on a page.
-        const bands = compact(`${d.number} · ${d.title}Rev ${d.revision} · ${DRAFT_PDF_STATUS}${d.number} rev ${d.revision}, ${DRAFT_PDF_STATUS}, 2026-01-01page ${i + 1} of ${pages.length}`);
+        const bands = compact(`${d.number} · ${d.title}Rev ${rev} · ${DRAFT_PDF_STATUS}${d.number} rev ${rev}, ${DRAFT_PDF_STATUS}, 2026-01-01page ${i + 1} of ${pages.length}`);
         expect(words.length - bands.length, `${where}: ${text.slice(0, 120)}`).toBeGreaterThan(150);
       });
       // The print stylesheet breaks the page before each major section: its heading opens a page.
@@ -124,21 +132,30 @@ describe('a build of the demo projects', () => {
     }
   }, 60_000);
 
-  it('stamps the draft as not issued, the old revision as superseded and links the sealed PDF', () => {
+  it('marks the draft as the draft of revision C, not issued, the old revision as superseded and links the issued files', () => {
     const draft = readFileSync(join(site, 'projects', SOFC, 'index.html'), 'utf8');
     const a = readFileSync(join(site, 'projects', SOFC, 'rev-A', 'index.html'), 'utf8');
     const b = readFileSync(join(site, 'projects', SOFC, 'rev-B', 'index.html'), 'utf8');
     expect(draft).toContain('Draft, not issued');
+    expect(draft).toContain('<td>C, draft, not issued</td>');
+    expect(draft).toContain('Draft of revision C; revision B issued for review on 2026-09-22');
     expect(draft).toContain('<td>2026-01-01</td>');
     expect(a).toContain('>Superseded<');
     expect(a).toContain('superseded by revision B');
+    expect(a).toContain('href="../rev-B/index.html"');
     expect(b).toContain('>Issued for review<');
+    expect(b).toContain('the current revision');
     expect(b).toContain('href="document.pdf"');
+    expect(b).toContain('href="document.html"');
     expect(b).toContain('<td>2026-09-22</td>');
+    // Nothing on one page contradicts another: the index names the same revisions.
+    const index = readFileSync(join(site, 'index.html'), 'utf8');
+    expect(index).toContain('Rev. B, 2026-09-22</a>');
+    expect(index).toContain('Rev. C <span class="badge badge-draft">draft, not issued</span>');
   });
 
-  it('builds a sealed page from the sealed basis and results, not from the working draft', () => {
-    const a = readFileSync(join(site, 'projects', SOFC, 'rev-A', 'index.html'), 'utf8');
+  it('shows an issued revision as the document issued, from the issued basis and results, not from the working draft', () => {
+    const a = readFileSync(join(site, 'projects', SOFC, 'rev-A', 'document.html'), 'utf8');
     const draft = readFileSync(join(site, 'projects', SOFC, 'index.html'), 'utf8');
     expect(a).toContain('1033.15 K (760.0 °C)');
     expect(draft).toContain('1023.15 K (750.0 °C)');
@@ -180,15 +197,15 @@ describe('a build of the demo projects', () => {
     }
   }, 120_000);
 
-  it('keeps the previous site when a sealed results file is damaged', async () => {
+  it('keeps the previous site when an issued results file is damaged', async () => {
     const before = treeDigest(site);
-    const file = join(root, 'projects', SOFC, 'sealed', 'A', 'results.json');
+    const file = join(root, 'projects', SOFC, 'issued', 'A', 'results.json');
     const good = readFileSync(file, 'utf8');
     writeFileSync(file, good.replace('"format": "cellbasis-results/1"', '"format": "something else"'));
     try {
       const r = await run(['build'], root);
       expect(r.code).toBe(1);
-      expect(r.err).toContain('projects/thistlemere-sofc-chp/sealed/A/results.json: is not a cellbasis results file: format:');
+      expect(r.err).toContain('projects/thistlemere-sofc-chp/issued/A/results.json: is not a cellbasis results file: format:');
       expect(treeDigest(site)).toEqual(before);
     } finally {
       writeFileSync(file, good);

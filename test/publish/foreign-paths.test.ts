@@ -9,7 +9,7 @@
 //
 // The classes: the folder a command replaces (build --out, build's default site/, serve's site/,
 // Eleventy's output under `npx @11ty/eleventy`), the leftovers of killed builds beside it, the
-// temporary folders and lock of killed seals, the temporary files of the caches, and the files
+// temporary folders and lock of killed issue runs, the temporary files of the caches, and the files
 // keygen and new create.
 import { spawnSync } from 'node:child_process';
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
@@ -22,7 +22,7 @@ import { removeCacheLeftovers } from '../../lib/publish/cache-leftovers.ts';
 import { serveSite } from '../../lib/publish/serve.ts';
 import { SITE_MARKER, SITE_MARKER_TEXT } from '../../lib/publish/site-marker.ts';
 import { describeWithChromium } from '../helpers/chromium.ts';
-import { PROJECT, SEAL_TIMEOUT, seal, workspace as archiveWorkspace } from '../helpers/archive-workspace.ts';
+import { PROJECT, ISSUE_TIMEOUT, issue, workspace as archiveWorkspace } from '../helpers/archive-workspace.ts';
 import { run } from '../helpers/run-cli.ts';
 import { runNode } from '../helpers/child-process.ts';
 import { treeRecord } from '../helpers/tree-record.ts';
@@ -234,7 +234,7 @@ it('keygen and new never write through a symbolic link nor over a file', async (
   mkdirSync(join(root, 'projects', 'p2'));
   symlinkSync(join(outside, 'precious.txt'), join(root, 'projects', 'p2', 'basis.yaml'));
   const before = recordOf(root, outside);
-  for (const argv of [['keygen', 'alice'], ['keygen', 'bob'], ['new', 'p1', '--technology', 'pem'], ['new', 'p2', '--technology', 'pem']]) {
+  for (const argv of [['keygen', 'alice', '--dir', '.'], ['keygen', 'bob', '--dir', '.'], ['new', 'p1', '--technology', 'pem'], ['new', 'p2', '--technology', 'pem']]) {
     const r = await run(argv, root);
     expect(r.code, argv.join(' ')).toBe(2);
     expect(r.err, argv.join(' ')).toMatch(/exists already|already exists|leads outside projects\//);
@@ -242,37 +242,37 @@ it('keygen and new never write through a symbolic link nor over a file', async (
   expect(recordOf(root, outside)).toEqual(before);
 });
 
-describeWithChromium('seal keeps what it did not make in sealed/', () => {
-  it('a lock that is no lock of seal is refused; a foreign folder named as a killed seal\'s is left in place', async () => {
+describeWithChromium('issue keeps what it did not make in issued/', () => {
+  it('a lock that is no lock of issue is refused; a foreign folder named as a killed issue run\'s is left in place', async () => {
     const cwd = archiveWorkspace();
     made.push(cwd);
-    const sealed = join(cwd, 'projects', PROJECT, 'sealed');
-    mkdirSync(join(sealed, '.seal-lock'), { recursive: true });
-    writeFileSync(join(sealed, '.seal-lock', 'notes.txt'), 'precious\n');
-    const before = treeRecord(sealed);
-    const locked = await seal(cwd, ['A', '--status', 'issued for review', '--date', '2026-11-30']);
-    expect(locked.err).toBe(`cellbasis: seal: projects/${PROJECT}/sealed/.seal-lock is not a lock that cellbasis seal wrote; nothing was changed: remove it yourself if no seal runs\n`);
+    const issued = join(cwd, 'projects', PROJECT, 'issued');
+    mkdirSync(join(issued, '.issue-lock'), { recursive: true });
+    writeFileSync(join(issued, '.issue-lock', 'notes.txt'), 'precious\n');
+    const before = treeRecord(issued);
+    const locked = await issue(cwd, ['A', '--status', 'issued for review', '--date', '2026-11-30']);
+    expect(locked.err).toBe(`cellbasis: issue: projects/${PROJECT}/issued/.issue-lock is not a lock that cellbasis issue wrote; nothing was changed: remove it yourself if no issue runs\n`);
     expect(locked.code).toBe(1);
-    expect(treeRecord(sealed)).toEqual(before);
-    rmSync(join(sealed, '.seal-lock'), { recursive: true });
-    writeFileSync(join(sealed, '.seal-lock'), 'mine\n');
-    const spoofed = treeRecord(sealed);
-    expect((await seal(cwd, ['A', '--status', 'issued for review', '--date', '2026-11-30'])).code).toBe(1);
-    expect(treeRecord(sealed)).toEqual(spoofed);
-    rmSync(join(sealed, '.seal-lock'));
+    expect(treeRecord(issued)).toEqual(before);
+    rmSync(join(issued, '.issue-lock'), { recursive: true });
+    writeFileSync(join(issued, '.issue-lock'), 'mine\n');
+    const spoofed = treeRecord(issued);
+    expect((await issue(cwd, ['A', '--status', 'issued for review', '--date', '2026-11-30'])).code).toBe(1);
+    expect(treeRecord(issued)).toEqual(spoofed);
+    rmSync(join(issued, '.issue-lock'));
 
     const dead = deadPid();
     const foreign = `.tmp-A-${dead}`;
-    mkdirSync(join(sealed, foreign));
-    writeFileSync(join(sealed, foreign, 'notes.txt'), 'precious\n');
+    mkdirSync(join(issued, foreign));
+    writeFileSync(join(issued, foreign, 'notes.txt'), 'precious\n');
     const own = `.tmp-A-${deadPid()}`;
-    mkdirSync(join(sealed, own));
-    writeFileSync(join(sealed, own, 'basis.yaml'), 'a killed seal wrote this\n');
-    const kept = treeRecord(join(sealed, foreign));
-    const r = await seal(cwd, ['A', '--status', 'issued for review', '--date', '2026-11-30']);
+    mkdirSync(join(issued, own));
+    writeFileSync(join(issued, own, 'basis.yaml'), 'a killed issue run wrote this\n');
+    const kept = treeRecord(join(issued, foreign));
+    const r = await issue(cwd, ['A', '--status', 'issued for review', '--date', '2026-11-30']);
     expect(r.code, r.err).toBe(0);
-    expect(r.err).toContain(`cellbasis: left projects/${PROJECT}/sealed/${foreign} in place: named as a killed seal's temporary folder, but not something cellbasis made; remove it yourself\n`);
-    expect(treeRecord(join(sealed, foreign))).toEqual(kept);
-    expect(() => readFileSync(join(sealed, own, 'basis.yaml')), 'the killed seal\'s own folder is removed').toThrow(/ENOENT/);
-  }, SEAL_TIMEOUT);
+    expect(r.err).toContain(`cellbasis: left projects/${PROJECT}/issued/${foreign} in place: named as a killed issue run's temporary folder, but not something cellbasis made; remove it yourself\n`);
+    expect(treeRecord(join(issued, foreign))).toEqual(kept);
+    expect(() => readFileSync(join(issued, own, 'basis.yaml')), 'the killed issue run\'s own folder is removed').toThrow(/ENOENT/);
+  }, ISSUE_TIMEOUT);
 });

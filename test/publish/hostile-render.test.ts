@@ -1,13 +1,13 @@
 // Hostile text of a basis, rendered for real: a basis whose every free text (document fields,
 // sign-off names, cell material notes, value justifications, the mixture's name and source,
 // assumption texts, reference citations) carries scripts, markup, closing tags of raw-text
-// elements, template syntax and LaTeX is sealed twice (revisions A and B, so the sealed history
+// elements, template syntax and LaTeX is issued twice (revisions A and B, so the issued history
 // quotes changed hostile values), then built into the site with its draft printed to PDF.
-// Every page of it, and each sealed document.html, is opened in Chromium from disk: no script of
+// Every page of it, and each issued document.html, is opened in Chromium from disk: no script of
 // the user runs (window.__pwned stays undefined, no dialog, no page error), no element is
 // injected (the page has the same elements as the demo basis's page, and the same scripts),
 // and the text shows literally, template syntax and LaTeX included, never inside KaTeX. The
-// PDFs (the printed draft and both sealed ones) carry the text literally, and while cellbasis
+// PDFs (the printed draft and both issued ones) carry the text literally, and while cellbasis
 // printed them a probe in every page it opened saw no script of the user run.
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -22,7 +22,8 @@ import { PACKAGE_ROOT } from '../../lib/publish/paths.ts';
 import { announceChromiumSkip, describeWithChromium } from '../helpers/chromium.ts';
 import { compact, pageTexts, pdfAttachments, pdfInfo } from '../helpers/pdf-inspect.ts';
 import { run } from '../helpers/run-cli.ts';
-import { EPOCH, htmlPages, withRevision } from '../helpers/site.ts';
+import { EPOCH, htmlPages } from '../helpers/site.ts';
+import { parseDocument } from 'yaml';
 import { HOSTILE_MIXTURE, HOSTILE_SOURCE_PROJECT, LITERAL_PIECES, SCRIPT_PAYLOAD, hostileBasisText, hostileParagraphs, hostileText } from '../helpers/hostile-basis.ts';
 import { watchPrinting, type PrintWatch } from '../helpers/chromium-probe.ts';
 
@@ -31,8 +32,15 @@ announceChromiumSkip('the hostile-content tests in Chromium');
 const CHROMIUM = '/usr/bin/chromium';
 const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];
 
-/** What each revision's texts end with (the sealed history then quotes changed hostile values). */
+/** What each revision's texts end with (the issued history then quotes changed hostile values). */
 const VARIANT = { A: '', B: ' <i>rev B</i> {{ 6*6 }}', draft: ' <u>draft C</u> {% endraw %}' } as const;
+
+/** The basis text with its preparer's date set (through the YAML document, as the hostile text is written). */
+function preparedOn(text: string, date: string): string {
+  const doc = parseDocument(text);
+  doc.setIn(['document', 'sign-off', 'prepared', 'date'], date);
+  return doc.toString({ lineWidth: 0 });
+}
 
 interface PageReport {
   pwned: string;
@@ -44,7 +52,7 @@ interface PageReport {
   title: string;
   text: string;
   tags: string[];
-  /** Tag names of every element outside the revision history (which differs with the revisions sealed). */
+  /** Tag names of every element outside the revision history (which differs with the revisions issued). */
   tagsOutsideHistory: string[];
   scripts: { src: string | null; type: string; className: string; text: string }[];
   onAttributes: string[];
@@ -54,14 +62,14 @@ interface PageReport {
   katexTexts: string[];
 }
 
-describeWithChromium('a hostile basis rendered, sealed and printed', () => {
+describeWithChromium('a hostile basis rendered, issued and printed', () => {
   let root: string;
   let site: string;
   let browser: Browser;
   let printing: PrintWatch;
   let control: Omit<PrintWatch, 'stop'>;
   const pages = new Map<string, PageReport>();
-  const sealed = (rev: string, file: string) => join(root, 'projects', 'hostile', 'sealed', rev, file);
+  const issued = (rev: string, file: string) => join(root, 'projects', 'hostile', 'issued', rev, file);
 
   async function visit(file: string): Promise<PageReport> {
     const context = await browser.newContext({ viewport: { width: 1000, height: 1400 } });
@@ -119,12 +127,13 @@ describeWithChromium('a hostile basis rendered, sealed and printed', () => {
     printing = watchPrinting();
     try {
       writeFileSync(basis, hostileBasisText(VARIANT.A));
-      const a = await run(['seal', 'hostile', '--rev', 'A', '--status', 'issued for review', '--date', '2026-10-01', '--note', hostileText('note')], root);
+      const a = await run(['issue', 'hostile', '--rev', 'A', '--status', 'issued for review', '--date', '2026-10-01', '--note', hostileText('note')], root);
       expect(a.code, a.err).toBe(0);
-      writeFileSync(basis, hostileBasisText(VARIANT.B));
-      const b = await run(['seal', 'hostile', '--rev', 'B', '--status', 'issued for review', '--date', '2026-10-15'], root);
+      // Revision B changes the basis after A was issued, so it is prepared again after A's date.
+      writeFileSync(basis, preparedOn(hostileBasisText(VARIANT.B), '2026-10-12'));
+      const b = await run(['issue', 'hostile', '--rev', 'B', '--status', 'issued for review', '--date', '2026-10-15'], root);
       expect(b.code, b.err).toBe(0);
-      writeFileSync(basis, withRevision(hostileBasisText(VARIANT.draft), 'C', 'draft'));
+      writeFileSync(basis, preparedOn(hostileBasisText(VARIANT.draft), '2026-10-12'));
       await buildSite({ root, env: EPOCH, pdf: true });
     } finally {
       printing.stop();
@@ -146,7 +155,7 @@ describeWithChromium('a hostile basis rendered, sealed and printed', () => {
 
     browser = await chromium.launch({ executablePath: CHROMIUM, args: ARGS });
     for (const path of htmlPages(site)) pages.set(path, await visit(join(site, path)));
-    for (const rev of ['A', 'B']) pages.set(`sealed/${rev}/document.html`, await visit(sealed(rev, 'document.html')));
+    for (const rev of ['A', 'B']) pages.set(`issued/${rev}/document.html`, await visit(issued(rev, 'document.html')));
     pages.set('control.html', await visit(controlPage));
   }, 400_000);
 
@@ -158,10 +167,10 @@ describeWithChromium('a hostile basis rendered, sealed and printed', () => {
   const CLEAN = 'projects/clean/index.html';
   const hostilePages = () => [...pages.keys()].filter((p) => p !== CLEAN && p !== 'control.html');
   const documentPages = () => hostilePages().filter((p) => p !== 'index.html');
-  const variantOf = (path: string): string => (path.includes('rev-A') || path.includes('sealed/A') ? VARIANT.A : path.includes('rev-B') || path.includes('sealed/B') ? VARIANT.B : VARIANT.draft);
+  const variantOf = (path: string): string => (path.includes('rev-A') || path.includes('issued/A') ? VARIANT.A : path.includes('rev-B') || path.includes('issued/B') ? VARIANT.B : VARIANT.draft);
 
-  it('opened the index, the draft and both sealed revisions of the site, and both sealed document.html files', () => {
-    expect(hostilePages().sort()).toEqual(['index.html', 'projects/hostile/index.html', 'projects/hostile/rev-A/index.html', 'projects/hostile/rev-B/index.html', 'sealed/A/document.html', 'sealed/B/document.html'].sort());
+  it('opened the index, the draft and both issued revisions of the site, and both issued document.html files', () => {
+    expect(hostilePages().sort()).toEqual(['index.html', 'projects/hostile/index.html', 'projects/hostile/rev-A/index.html', 'projects/hostile/rev-B/index.html', 'issued/A/document.html', 'issued/B/document.html'].sort());
   });
 
   it('the probe works: the payload on a page of its own runs, opens dialogs and sets window.__pwned (in the viewer and in the printer)', () => {
@@ -260,8 +269,8 @@ describeWithChromium('a hostile basis rendered, sealed and printed', () => {
 
   it('printed with the probe in every page cellbasis opened: both seals and the draft, and no script of the user ran while printing', () => {
     expect(printing.contexts).toBeGreaterThanOrEqual(3);
-    expect(printing.loads.some((u) => /\/sealed\/\.tmp-A-\d+\/document\.html$/.test(u)), 'seal A printed').toBe(true);
-    expect(printing.loads.some((u) => /\/sealed\/\.tmp-B-\d+\/document\.html$/.test(u)), 'seal B printed').toBe(true);
+    expect(printing.loads.some((u) => /\/issued\/\.tmp-A-\d+\/document\.html$/.test(u)), 'seal A printed').toBe(true);
+    expect(printing.loads.some((u) => /\/issued\/\.tmp-B-\d+\/document\.html$/.test(u)), 'seal B printed').toBe(true);
     expect(printing.loads.some((u) => /\/projects\/hostile\/index\.html$/.test(u)), 'the draft printed').toBe(true);
     expect(printing.probe).toEqual([]);
     expect(printing.dialogs).toEqual([]);
@@ -272,8 +281,8 @@ describeWithChromium('a hostile basis rendered, sealed and printed', () => {
   it('each PDF carries every hostile text literally, and its title and author as written', async () => {
     const pdfs: [string, string, string][] = [
       ['draft', join(site, 'projects', 'hostile', 'document.pdf'), VARIANT.draft],
-      ['sealed A', sealed('A', 'document.pdf'), VARIANT.A],
-      ['sealed B', sealed('B', 'document.pdf'), VARIANT.B],
+      ['issued A', issued('A', 'document.pdf'), VARIANT.A],
+      ['issued B', issued('B', 'document.pdf'), VARIANT.B],
     ];
     for (const [name, file, variant] of pdfs) {
       const bytes = readFileSync(file);
@@ -287,14 +296,14 @@ describeWithChromium('a hostile basis rendered, sealed and printed', () => {
     }
   });
 
-  it('each sealed PDF carries the sealed basis, hostile text and all, byte for byte', async () => {
+  it('each issued PDF carries the issued basis, hostile text and all, byte for byte', async () => {
     for (const rev of ['A', 'B']) {
-      const attached = await pdfAttachments(readFileSync(sealed(rev, 'document.pdf')));
-      expect(attached.get('basis.yaml')!.bytes.equals(readFileSync(sealed(rev, 'basis.yaml'))), rev).toBe(true);
+      const attached = await pdfAttachments(readFileSync(issued(rev, 'document.pdf')));
+      expect(attached.get('basis.yaml')!.bytes.equals(readFileSync(issued(rev, 'basis.yaml'))), rev).toBe(true);
     }
   });
 
-  it('the sealed revisions pass their audit', async () => {
+  it('the issued revisions pass their audit', async () => {
     const r = await run(['audit', 'hostile'], root);
     expect(r.out).toBe('PASS projects/hostile rev A\nPASS projects/hostile rev B\n');
     expect(r.code).toBe(0);

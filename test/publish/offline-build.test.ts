@@ -1,4 +1,4 @@
-// `cellbasis build` needs no network: the whole build (HTML of every draft and sealed revision,
+// `cellbasis build` needs no network: the whole build (HTML of every draft and issued revision,
 // the index, the assets, and the draft PDFs printed in Chromium) runs as a child process with
 // all network access taken away, in two independent ways, and still writes the complete site.
 //
@@ -39,7 +39,7 @@ import { join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { announceChromiumSkip, describeWithChromium } from '../helpers/chromium.ts';
-import { demoRoot, EPOCH, htmlPages, sealFixture } from '../helpers/site.ts';
+import { demoRoot, EPOCH, htmlPages, issueFixture } from '../helpers/site.ts';
 import { treeDigest } from '../helpers/tree-digest.ts';
 import { cellbasis, expectCompleteSite, runNode, type ChildRun } from '../helpers/child-process.ts';
 
@@ -170,10 +170,10 @@ function proxiesTo(port: number): Record<string, string> {
   return Object.fromEntries(['http_proxy', 'https_proxy', 'all_proxy', 'HTTP_PROXY', 'HTTPS_PROXY', 'ALL_PROXY'].map((name) => [name, proxy]));
 }
 
-/** The demo projects of the test, one with a sealed revision. */
+/** The demo projects of the test, one with an issued revision. */
 async function offlineRoot(): Promise<string> {
   const root = demoRoot(PROJECTS);
-  await sealFixture(root, 'hob-tor-pem-backup', 'A', 'issued for review', '2026-06-02');
+  await issueFixture(root, 'hob-tor-pem-backup', 'A', 'issued for review', '2026-06-02');
   return root;
 }
 

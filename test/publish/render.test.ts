@@ -1,4 +1,4 @@
-// One document on its own, for sealing: renderDocumentHtml with the site's templates, and
+// One document on its own, for issuing: renderDocumentHtml with the site's templates, and
 // inlineAssets making it a single file that needs nothing beside it.
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -12,7 +12,7 @@ import { HAZARD_NOTICE } from '../../lib/hazards/notice.ts';
 import { escapeHtml } from '../../lib/report/trusted-html.ts';
 
 const c = scaffoldCase('molten-carbonate', 'power');
-const input = { basis: c.basis, results: c.results, revision: { kind: 'sealed' as const, revision: 'A', status: 'issued for review' as const, sealedOn: '2026-10-01', note: '', supersededBy: null, pdfHref: 'document.pdf' }, history: [] };
+const input = { basis: c.basis, results: c.results, revision: { kind: 'issued' as const, revision: 'A', status: 'issued for review' as const, issuedOn: '2026-10-01', note: '', signatures: [], pdfHref: 'document.pdf' }, history: [] };
 const dir = mkdtempSync(join(tmpdir(), 'cellbasis-render-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
@@ -50,7 +50,7 @@ describe('inlineAssets', () => {
     expect(single).not.toMatch(/url\([^)]*\.(woff|ttf)\)/);
     expect(single).not.toContain('url(fonts/');
   });
-  it('keeps links to other documents such as the sealed PDF', () => {
+  it('keeps links to other documents such as the issued PDF', () => {
     expect(single).toContain('href="document.pdf"');
   });
   it('matches renderStandaloneHtml', () => {

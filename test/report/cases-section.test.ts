@@ -20,7 +20,7 @@ function demo(id: string): { basis: DesignBasis; results: Results } {
   return { basis: loaded.basis, results: calculate(loaded.basis) };
 }
 
-const draft: RevisionContext = { kind: 'draft', date: null };
+const draft: RevisionContext = { kind: 'draft', revision: 'A', lastIssued: null, date: null };
 
 /** Each case line's formula on its shown numbers (power mode's sign of the degradation below). */
 function formula(id: string, n: Record<string, number>, power: boolean): number {

@@ -23,7 +23,7 @@ function hostileYaml(yaml: string): string {
 
 describe('a basis full of markup, template syntax and LaTeX', () => {
   const c = scaffoldCase('solid-oxide', 'power', hostileYaml);
-  const html = renderDocumentHtml({ basis: c.basis, results: c.results, revision: { kind: 'draft', date: '2026-11-30' }, history: [] }, { assetBase: 'assets/' });
+  const html = renderDocumentHtml({ basis: c.basis, results: c.results, revision: { kind: 'draft', revision: 'A', lastIssued: null, date: '2026-11-30' }, history: [] }, { assetBase: 'assets/' });
 
   it('loads as a valid basis carrying the text', () => {
     expect(c.basis.document.title).toBe(HOSTILE);

@@ -38,7 +38,7 @@ describe('renderTex', () => {
 describe('documents share their rendering', () => {
   it('a second document of the same design renders no new expression', () => {
     const c = scaffoldCase('solid-oxide', 'power');
-    const input = { basis: c.basis, results: c.results, revision: { kind: 'draft' as const, date: null }, history: [] };
+    const input = { basis: c.basis, results: c.results, revision: { kind: 'draft' as const, revision: 'A', lastIssued: null, date: null }, history: [] };
     documentView(input, { assetBase: '' });
     const after = texCacheStats().renders;
     documentView(input, { assetBase: '../../assets/' });

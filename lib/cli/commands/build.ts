@@ -1,7 +1,7 @@
 /**
  * `cellbasis build [--out DIR]`: builds the design-basis site of every projects/<id>/basis.yaml
- * and its sealed revisions into site/ (lib/publish/build.ts): all or nothing, the old site kept
- * on any error. Exit 1 with every located problem when a basis or sealed revision is wrong.
+ * and its issued revisions into site/ (lib/publish/build.ts): all or nothing, the old site kept
+ * on any error. Exit 1 with every located problem when a basis or issued revision is wrong.
  */
 import { dirname, join, relative, resolve } from 'node:path';
 import type { Command } from '../command.ts';
@@ -16,7 +16,7 @@ export const buildCommand: Command = {
   summary: 'build the design-basis documents of every project into site/ (atomically)',
   usage: 'build [--out DIR] [--html-only] [--quiet]',
   details:
-    'Renders each projects/<id>/basis.yaml as its working draft, each sealed revision as its own page, and the\n' +
+    'Renders each projects/<id>/basis.yaml as its working draft, each issued revision as its own page, and the\n' +
     'portfolio index, into a fresh folder beside site/; site/ (a link) is switched to it only when everything was written.\n' +
     'Pages are reproducible: the draft date is SOURCE_DATE_EPOCH when set, else the latest sign-off date.\n' +
     'Each draft is also printed to projects/<id>/document.pdf when Chromium is found (the build says so when\n' +

@@ -37,8 +37,8 @@ export const compareCommand: Command = {
   summary: 'what changed between two revisions of a basis (inputs, assumptions, references, headline results)',
   usage: 'compare ID REV_A REV_B [--json]',
   details:
-    'REV_A and REV_B are sealed revisions (A, B, 0, ...) or "draft" for the working basis; sealed revisions are read as\n' +
-    'sealed, the draft is calculated now. With --json prints one object: inputs, fields, assumptions, references,\n' +
+    'REV_A and REV_B are issued revisions (A, B, 0, ...) or "draft" for the working basis (the draft of the next revision);\n' +
+    'issued revisions are read as issued, the draft is calculated now. With --json prints one object: inputs, fields, assumptions, references,\n' +
     'results (old, new, delta and relative change in SI), cases, envelope and summary lines.',
   positionals: [3, 3],
   options: [JSON_OPTION],
@@ -47,7 +47,8 @@ export const compareCommand: Command = {
     const warn = (d: Parameters<typeof formatDiagnostic>[0]) => io.err(`${formatDiagnostic(d)}\n`);
     const { readRevisionSide } = await import('../../archive/revision-sides.ts');
     const { compareRevisions } = await import('../../archive/compare.ts');
-    const a = readRevisionSide(io.cwd, project, revA, warn);
+    const note = (text: string) => io.err(`cellbasis: note: ${text}\n`);
+    const a = readRevisionSide(io.cwd, project, revA, warn, note);
     const b = readRevisionSide(io.cwd, project, revB, warn);
     const changes = compareRevisions(a, b);
     if (args.values.json) {

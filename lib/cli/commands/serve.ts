@@ -1,6 +1,6 @@
 /**
  * `cellbasis serve [--port N]`: builds the site and serves it with live reload, rebuilding when a
- * basis, a sealed revision or a template changes (lib/publish/serve.ts). Stop it with Ctrl-C.
+ * basis, an issued revision or a template changes (lib/publish/serve.ts). Stop it with Ctrl-C.
  */
 import type { Command } from '../command.ts';
 import { optionalString } from '../command.ts';
@@ -10,7 +10,7 @@ export const serveCommand: Command = {
   name: 'serve',
   summary: 'serve the design-basis site with live reload, rebuilding on every change',
   usage: 'serve [--port N]',
-  details: 'Watches projects/**/*.yaml, the sealed revisions and the templates; a basis with errors shows them on the index page.',
+  details: 'Watches projects/**/*.yaml, the issued revisions and the templates; a basis with errors shows them on the index page.',
   positionals: [0, 0],
   options: [{ name: 'port', type: 'string', value: 'N', description: 'port of the dev server (default 8080)' }],
   async run(args, io) {

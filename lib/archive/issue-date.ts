@@ -1,13 +1,13 @@
 /**
- * The seal date: the one date every timestamp of a sealed revision uses (manifest, PDF
- * properties, attachment dates, the document's own date), so that sealing the same inputs on
- * the same date gives the same files. From `seal --date YYYY-MM-DD` (00:00 UTC of that day),
+ * The issue date: the one date every timestamp of an issued revision uses (manifest, PDF
+ * properties, attachment dates, the document's own date), so that issuing the same inputs on
+ * the same date gives the same files. From `issue --date YYYY-MM-DD` (00:00 UTC of that day),
  * else SOURCE_DATE_EPOCH (that second, https://reproducible-builds.org/specs/source-date-epoch/),
  * else today (00:00 UTC). Never the time of day of the clock.
  */
 import { UserError } from '../core/errors.ts';
 
-export interface SealDate {
+export interface IssueDate {
   /** YYYY-MM-DD (UTC). */
   day: string;
   /** The timestamp written into the files. */
@@ -23,10 +23,10 @@ export function parseDay(text: string): Date | undefined {
   return date.toISOString().slice(0, 10) === text ? date : undefined;
 }
 
-export function resolveSealDate(option: string | undefined, env: Record<string, string | undefined>, now: () => Date = () => new Date()): SealDate {
+export function resolveIssueDate(option: string | undefined, env: Record<string, string | undefined>, now: () => Date = () => new Date()): IssueDate {
   if (option !== undefined) {
     const at = parseDay(option);
-    if (!at) throw new UserError(`seal: --date must be a calendar date written YYYY-MM-DD, got "${option}"`);
+    if (!at) throw new UserError(`issue: --date must be a calendar date written YYYY-MM-DD, got "${option}"`);
     return { day: option, at, from: '--date' };
   }
   const epoch = env.SOURCE_DATE_EPOCH;

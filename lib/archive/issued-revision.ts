@@ -1,0 +1,61 @@
+/**
+ * Reading one issued revision back as the documents and comparisons use it: its manifest, the
+ * basis as issued (text and validated basis) and the results as issued (never recomputed here;
+ * the audit recomputes). Problems become UserErrors naming the file and advising an audit. A
+ * revision of manifest format 1 carries the revision and status in its basis; they are read past
+ * (the audit checks them against the manifest).
+ */
+import { loadBasisText } from '../basis/load.ts';
+import { formatDiagnostic } from '../basis/diagnostics.ts';
+import type { DesignBasis } from '../basis/types.ts';
+import { resultsSchema, type Results } from '../plant/results-schema.ts';
+import { EXIT_VALIDATION, UserError } from '../core/errors.ts';
+import { FORMER_MANIFEST_FORMAT, ISSUED_FILES, issuedDir, type IssueManifest } from './layout.ts';
+import { parseManifest } from './manifest.ts';
+import { readIssuedFile } from './issued-files.ts';
+
+export interface IssuedRevision {
+  revision: string;
+  /** projects/<id>/issued/<rev>, as messages show it. */
+  display: string;
+  manifest: IssueManifest;
+  manifestBytes: Buffer;
+  basisText: string;
+  basis: DesignBasis;
+  results: Results;
+}
+
+function damaged(display: string, id: string, detail: string): UserError {
+  return new UserError(`${display}: ${detail}; run cellbasis audit ${id} for the full report`, EXIT_VALIDATION);
+}
+
+/** Loads an issued basis; bases of format 1 carry document.revision and document.status, read past. */
+export function loadIssuedBasis(text: string | Uint8Array, file: string, projectId: string, manifest: IssueManifest | null) {
+  return loadBasisText(text, file, projectId, { formerRevisionKeys: manifest?.format === FORMER_MANIFEST_FORMAT });
+}
+
+export function readIssuedRevision(cwd: string, projectId: string, revision: string): IssuedRevision {
+  const dir = issuedDir(cwd, projectId, revision);
+  const display = `projects/${projectId}/issued/${revision}`;
+  const read = (name: string) => {
+    try {
+      return readIssuedFile(dir, display, name);
+    } catch (error) {
+      throw damaged(display, projectId, `cannot read ${name}: ${(error as Error).message.replace(`${display}/${name}: `, '')}`);
+    }
+  };
+  const manifestBytes = read(ISSUED_FILES.manifest);
+  const parsed = parseManifest(manifestBytes);
+  if (!parsed.ok) throw damaged(display, projectId, parsed.problems[0]!);
+  const basisText = read(ISSUED_FILES.basis).toString('utf8');
+  const loaded = loadIssuedBasis(basisText, `${display}/${ISSUED_FILES.basis}`, projectId, parsed.manifest);
+  if (!loaded.ok) throw damaged(display, projectId, `the issued basis has errors: ${formatDiagnostic(loaded.errors[0]!)}`);
+  let results: Results;
+  try {
+    results = resultsSchema.parse(JSON.parse(read(ISSUED_FILES.results).toString('utf8')));
+  } catch (error) {
+    if (error instanceof UserError) throw error;
+    throw damaged(display, projectId, `${ISSUED_FILES.results} is not a results object (${(error as Error).message.split('\n')[0]})`);
+  }
+  return { revision, display, manifest: parsed.manifest, manifestBytes, basisText, basis: loaded.basis, results };
+}

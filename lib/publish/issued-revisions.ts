@@ -1,0 +1,82 @@
+/**
+ * Reads the issued revisions of a project for the site (lib/archive/layout.ts): the revisions
+ * that lib/archive/issued-folder.ts finds (an issue run in progress or killed is named in a
+ * warning and skipped, as the audit and compare do), each with its manifest, the basis and
+ * results as issued (for the revision history's change summaries; never recalculated) and the
+ * paths of its document.html and document.pdf, which the site copies as they were issued: an
+ * issued revision is never rendered again. A project whose revisions lie in the former folder is
+ * an error naming the command that moves them. Problems are collected, not thrown, so a site
+ * build reports all of them.
+ */
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import type { DesignBasis } from '../basis/types.ts';
+import type { Results } from '../plant/results-schema.ts';
+import { ISSUED_FILES, issuedDir, type IssueManifest } from '../archive/layout.ts';
+import { readIssuedFolder, temporaryNote } from '../archive/issued-folder.ts';
+import { readIssuedRevision } from '../archive/issued-revision.ts';
+import { formerLayoutProblem } from '../archive/former-layout.ts';
+import { sha256Hex } from '../archive/hash.ts';
+import { UserError } from '../core/errors.ts';
+import type { SiteProblems } from './site-problems.ts';
+
+export interface IssuedRevision {
+  revision: string;
+  manifest: IssueManifest;
+  /** SHA-256 of manifest.json, as the register page shows it. */
+  manifestSha256: string;
+  basis: DesignBasis;
+  results: Results;
+  /** Absolute paths of the issued document.html and document.pdf, or null where the revision has none. */
+  html: string | null;
+  pdf: string | null;
+  /** The issued basis.yaml as text (for the change summary). */
+  source: string;
+}
+
+/** The issued revisions of a project in issue order. */
+export function readIssuedRevisions(root: string, projectId: string, problems: SiteProblems): IssuedRevision[] {
+  const former = formerLayoutProblem(root, projectId);
+  if (former) {
+    problems.error(`projects/${projectId}/sealed`, former);
+    return [];
+  }
+  let folder;
+  try {
+    folder = readIssuedFolder(root, projectId);
+  } catch (error) {
+    if (!(error instanceof UserError)) throw error;
+    problems.error(`projects/${projectId}/issued`, error.message);
+    return [];
+  }
+  for (const name of folder.temporary) problems.warning(temporaryNote(projectId, name));
+  for (const name of folder.other) problems.error(`projects/${projectId}/issued/${name}`, 'is not an issued revision (A, B, ... or 0, 1, ...); only cellbasis issue writes here (cellbasis audit says more)');
+  const out: IssuedRevision[] = [];
+  for (const revision of folder.revisions) {
+    let read;
+    try {
+      read = readIssuedRevision(root, projectId, revision);
+    } catch (error) {
+      if (!(error instanceof UserError)) throw error;
+      problems.errors.push(error.message);
+      continue;
+    }
+    if (read.manifest.revision !== revision) {
+      problems.error(`${read.display}/${ISSUED_FILES.manifest}`, `names revision ${read.manifest.revision}, but lies in the folder of revision ${revision}`);
+      continue;
+    }
+    const dir = issuedDir(root, projectId, revision);
+    const file = (name: string) => (existsSync(join(dir, name)) ? join(dir, name) : null);
+    out.push({
+      revision,
+      manifest: read.manifest,
+      manifestSha256: sha256Hex(read.manifestBytes),
+      basis: read.basis,
+      results: read.results,
+      html: file(ISSUED_FILES.html),
+      pdf: file(ISSUED_FILES.pdf),
+      source: read.basisText,
+    });
+  }
+  return out;
+}
