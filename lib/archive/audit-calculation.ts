@@ -1,7 +1,13 @@
 /**
- * The issued basis calculated again and compared with the issued results (audit-results.ts):
- * the basis must still load, calculate and give the same numbers; another tool version is a
- * note, other species data a failure.
+ * The issued basis loaded for the audit and, when the auditor asks (`audit --recalculate`),
+ * calculated again and compared with the issued results (audit-results.ts).
+ *
+ * The audit proper checks what was issued, not what today's library would make of it: the hashes,
+ * signatures and chain guarantee every byte, whatever a later cellbasis calculates. So by default
+ * the basis is only loaded, for the manifest's cross-checks (number, title, sign-off); a basis a
+ * later cellbasis no longer reads is a note, not a failure (its bytes are still those issued).
+ * With recalculation the basis must load, calculate and give the same numbers; another tool
+ * version is a note, other species data a failure.
  */
 import type { DesignBasis } from '../basis/types.ts';
 import { BasisError, formatDiagnostic } from '../basis/diagnostics.ts';
@@ -23,13 +29,18 @@ export interface CalculationCheck {
 /**
  * `results` is the parsed results.json (undefined when it is missing or not JSON); `manifest`
  * the parsed manifest, or null when it is damaged (the basis is then read as format 2).
+ * Without `recalculate`, only the loading.
  */
-export function calculationProblems(basisBytes: Buffer, results: unknown, display: string, project: string, manifest: IssueManifest | null): CalculationCheck {
+export function calculationProblems(basisBytes: Buffer, results: unknown, display: string, project: string, manifest: IssueManifest | null, recalculate = false): CalculationCheck {
   const former = manifest?.format === FORMER_MANIFEST_FORMAT;
   const loaded = loadIssuedBasis(basisBytes, `${display}/${ISSUED_FILES.basis}`, project, manifest);
-  if (!loaded.ok) return { problems: [finding(`the issued ${ISSUED_FILES.basis} has errors`, ...loaded.errors.map(formatDiagnostic))], notes: [] };
+  if (!loaded.ok) {
+    const details = loaded.errors.map(formatDiagnostic);
+    if (recalculate) return { problems: [finding(`the issued ${ISSUED_FILES.basis} has errors`, ...details)], notes: [] };
+    return { problems: [], notes: [`the issued ${ISSUED_FILES.basis} does not load with cellbasis ${toolVersion()} (${details[0]}); its bytes are checked by hash and signature, its content against the manifest is not`] };
+  }
   const basis = loaded.basis;
-  if (results === undefined) return { problems: [], notes: [], basis };
+  if (results === undefined || !recalculate) return { problems: [], notes: [], basis };
   let recomputed;
   try {
     recomputed = calculate(basis);

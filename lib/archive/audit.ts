@@ -8,7 +8,9 @@
  *     and HTML it lists (audit-manifest.ts);
  *   - the signatures, against the keys and fingerprints the manifest records and optionally the
  *     keys the auditor trusts (audit-signature.ts);
- *   - the results, against a recalculation of the issued basis (audit-calculation.ts);
+ *   - with `recalculate` only, the results against a recalculation of the issued basis by this
+ *     cellbasis (audit-calculation.ts): the rest checks what was issued, so that a later change
+ *     of the calculation or the species data cannot fail a revision that is intact;
  *   - the chain of revisions, signatures included (audit-chain.ts).
  * The audit only reads, each file only when it is a regular file and within the size limits of
  * layout.ts. Temporary folders of running or killed issue runs are noted, never audited as
@@ -45,6 +47,8 @@ export interface AuditLine {
 export interface AuditOptions {
   /** SPKI PEMs of the keys the auditor trusts: every revision must be signed, and only by them. */
   trustedKeys?: readonly string[];
+  /** Also calculate each issued basis again and compare with its issued results. */
+  recalculate?: boolean;
 }
 
 /** A file of the revision; its absence, or why it cannot be read (not a regular file, too large). */
@@ -90,7 +94,7 @@ async function auditRevision(cwd: string, project: string, revision: string, opt
   }
   if (basisBytes) {
     content.basisBytes = basisBytes;
-    const calculation = calculationProblems(basisBytes, content.results, display, project, manifest);
+    const calculation = calculationProblems(basisBytes, content.results, display, project, manifest, options.recalculate === true);
     line.problems.push(...calculation.problems);
     line.notes.push(...calculation.notes);
     if (calculation.basis) content.basis = calculation.basis;

@@ -1,6 +1,7 @@
 // Audit: an issued revision passes, saying who signed it; any changed byte of any issued file
-// fails naming that file; signatures by another key fail; a recalculation that differs is
-// reported field by field; the chain of revisions is checked, its signatures included.
+// fails naming that file; signatures by another key fail; the audit checks what was issued, so
+// changed species data fail no intact revision, and with --recalculate a recalculation that
+// differs is reported field by field; the chain of revisions is checked, its signatures included.
 import { cpSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -12,6 +13,9 @@ import { manifestBytes, parseManifest } from '../../lib/archive/manifest.ts';
 import { sha256Hex } from '../../lib/archive/hash.ts';
 import { keyFingerprint, newKeyPair, publicKeyPem, signBytes } from '../../lib/archive/signature.ts';
 import type { IssueManifest } from '../../lib/archive/layout.ts';
+import { auditProject } from '../../lib/archive/audit.ts';
+import { getSpecies } from '../../lib/thermo/species-data.ts';
+import type { NasaInterval } from '../../lib/thermo/nasa-glenn.ts';
 import { announceChromiumSkip, describeWithChromium } from '../helpers/chromium.ts';
 import { ISSUE_TIMEOUT, basisPath, flipByte, keygen, PROJECT, removeWorkspace, issue, issuedPath, workspace } from '../helpers/archive-workspace.ts';
 
@@ -136,7 +140,27 @@ describeWithChromium('audit', () => {
     rmSync(join(base, 'other.pub'));
   });
 
-  it('reports each field where the issued results differ from a recalculation: path, issued and recomputed value', async () => {
+  it('checks what was issued, not what the library now calculates: changed species data fail no revision, and --recalculate shows the change', async () => {
+    // The enthalpy constant b1 of H2O shifted by 1000 K (8.3 kJ/mol) in this process, as a
+    // corrected data file would; the file itself, and so its hash, is unchanged.
+    const water = getSpecies('H2O').record.intervals as NasaInterval[];
+    const shift = (delta: number) => water.forEach((i) => (i.b1 += delta));
+    shift(1000);
+    try {
+      const intact = await auditProject(base, PROJECT);
+      expect(intact.lines.map((l) => [l.revision, l.problems])).toEqual([
+        ['A', []],
+        ['B', []],
+      ]);
+      const recalculated = await auditProject(base, PROJECT, { recalculate: true });
+      for (const line of recalculated.lines) expect(line.problems.map((p) => p.reason).join('\n')).toMatch(/^results\.json differs from a recalculation of the issued basis in \d+ fields?$/);
+    } finally {
+      shift(-1000);
+    }
+    expect((await auditProject(base, PROJECT, { recalculate: true })).lines.flatMap((l) => l.problems)).toEqual([]);
+  });
+
+  it('reports each field where the issued results differ from a recalculation (--recalculate): path, issued and recomputed value', async () => {
     const cwd = copy();
     let recomputed = 0;
     replaceResults(cwd, 'A', (results) => {
@@ -144,7 +168,8 @@ describeWithChromium('audit', () => {
       results.headline.meanNernst_V = recomputed * (1 + 1e-9);
       results.streams[0].temperature_K += 0.5;
     });
-    const audit = await run(['audit', PROJECT], cwd);
+    expect((await run(['audit', PROJECT], cwd)).out).not.toMatch(/differs from a recalculation/);
+    const audit = await run(['audit', PROJECT, '--recalculate'], cwd);
     expect(audit.out).toMatch(/^FAIL projects\/demo rev A, not signed: results\.json differs from a recalculation of the issued basis in 2 fields/m);
     expect(audit.out).toContain(`headline.meanNernst_V: issued ${recomputed * (1 + 1e-9)}, recomputed ${recomputed} (relative difference`);
     expect(audit.out).toMatch(/streams\[0\]\.temperature_K: issued [\d.]+, recomputed [\d.]+/);
@@ -155,7 +180,7 @@ describeWithChromium('audit', () => {
     replaceResults(cwd, 'A', (results) => {
       results.headline.meanNernst_V *= 1 + 1e-14;
     });
-    const audit = await run(['audit', PROJECT], cwd);
+    const audit = await run(['audit', PROJECT, '--recalculate'], cwd);
     // Only the PDF's attached copy of results.json tells the two apart; the recalculation agrees.
     expect(audit.out).not.toMatch(/differs from a recalculation/);
     expect(audit.out).toMatch(/^FAIL projects\/demo rev A, not signed: document\.pdf: its attached results\.json differs from the issued results\.json/);

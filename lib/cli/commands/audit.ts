@@ -1,7 +1,8 @@
 /**
- * `cellbasis audit [ID] [--key PUB ...]`: checks every issued revision (of one project, or of
- * every project): file hashes, signatures, a recalculation of the issued basis against the
- * issued results, and the chain of revisions (lib/archive/audit.ts). One line per revision,
+ * `cellbasis audit [ID] [--key PUB ...] [--recalculate]`: checks every issued revision (of one
+ * project, or of every project): file hashes, the manifest against the files, signatures and the
+ * chain of revisions, and with --recalculate a recalculation of the issued basis against the
+ * issued results (lib/archive/audit.ts). One line per revision,
  * PASS or FAIL and who signed it, the first reason after a FAIL and the details indented below;
  * exit 1 when any revision fails. Revisions still in the former folder (projects/ID/sealed/)
  * fail with the command that moves them.
@@ -39,17 +40,22 @@ function lineText(line: AuditLine): string {
 
 export const auditCommand: Command = {
   name: 'audit',
-  summary: 'verify issued revisions: file hashes, signatures, a recalculation of the results, and the revision chain',
-  usage: 'audit [ID] [--key PUB ...]',
+  summary: 'verify issued revisions: file hashes, signatures and the revision chain (and, asked, a recalculation of the results)',
+  usage: 'audit [ID] [--key PUB ...] [--recalculate]',
   details:
     'Without ID, audits every project with issued revisions. Prints PASS or FAIL per revision, and who signed it, with the\n' +
-    'reasons below; numbers count as equal within a relative 1e-12 (rounding between platforms), any larger difference fails.\n' +
+    'reasons below. The audit checks what was issued: a later cellbasis that calculates differently fails no intact revision.\n' +
+    'With --recalculate it also calculates each issued basis again and compares the results: numbers count as equal within\n' +
+    'a relative 1e-12 (rounding between platforms), any larger difference, or other species data, fails.\n' +
     'Each signature is checked against the key and fingerprint its manifest records; a later revision that loses its\n' +
     'signature, or is signed for a role with another key than before, fails. With --key (a public key file, or a key name\n' +
     'of the key folder; repeat for each signer) every revision must be signed, and only by those keys.\n' +
     'Exit code 0 when every revision passes, 1 when any fails, 2 when ID names no project here. The audit only reads.',
   positionals: [0, 1],
-  options: [{ name: 'key', type: 'string', value: 'PUB', description: 'a public key the revisions must be signed with (repeat for each signer)', multiple: true }],
+  options: [
+    { name: 'key', type: 'string', value: 'PUB', description: 'a public key the revisions must be signed with (repeat for each signer)', multiple: true },
+    { name: 'recalculate', type: 'boolean', description: 'also calculate each issued basis again and compare the results with the issued ones' },
+  ],
   async run(args, io) {
     const id = args.positionals[0];
     const trustedKeys = ((args.values.key as string[] | undefined) ?? []).map((arg) => {
@@ -71,7 +77,7 @@ export const auditCommand: Command = {
         failed += 1;
         continue;
       }
-      const { lines, notes } = await (await import('../../archive/audit.ts')).auditProject(io.cwd, project, { trustedKeys });
+      const { lines, notes } = await (await import('../../archive/audit.ts')).auditProject(io.cwd, project, { trustedKeys, recalculate: args.values.recalculate === true });
       for (const line of lines) {
         io.out(lineText(line));
         if (line.revision !== null) revisions += 1;
