@@ -50,12 +50,18 @@ export function readIssuedRevision(cwd: string, projectId: string, revision: str
   const basisText = read(ISSUED_FILES.basis).toString('utf8');
   const loaded = loadIssuedBasis(basisText, `${display}/${ISSUED_FILES.basis}`, projectId, parsed.manifest);
   if (!loaded.ok) throw damaged(display, projectId, `the issued basis has errors: ${formatDiagnostic(loaded.errors[0]!)}`);
-  let results: Results;
+  let raw: unknown;
   try {
-    results = resultsSchema.parse(JSON.parse(read(ISSUED_FILES.results).toString('utf8')));
+    raw = JSON.parse(read(ISSUED_FILES.results).toString('utf8'));
   } catch (error) {
     if (error instanceof UserError) throw error;
-    throw damaged(display, projectId, `${ISSUED_FILES.results} is not a results object (${(error as Error).message.split('\n')[0]})`);
+    throw damaged(`${display}/${ISSUED_FILES.results}`, projectId, `is not JSON (${(error as Error).message.split('\n')[0]})`);
   }
+  const checked = resultsSchema.safeParse(raw);
+  if (!checked.success) {
+    const issue = checked.error.issues[0]!;
+    throw damaged(`${display}/${ISSUED_FILES.results}`, projectId, `is not a cellbasis results file: ${issue.path.length ? `${issue.path.join('.')}: ` : ''}${issue.message}`);
+  }
+  const results: Results = checked.data;
   return { revision, display, manifest: parsed.manifest, manifestBytes, basisText, basis: loaded.basis, results };
 }

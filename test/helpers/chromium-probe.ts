@@ -1,6 +1,6 @@
 /**
  * Watching what runs in the pages cellbasis itself opens in Chromium (the PDF printer of
- * lib/publish/pdf.ts, used by `seal` and `build`), without changing that code: `watchPrinting()`
+ * lib/publish/pdf.ts, used by `issue` and `build`), without changing that code: `watchPrinting()`
  * wraps playwright-core's `chromium.launch` in this process, so that every browser context the
  * printer makes gets, before any page loads,
  *   - an exposed binding `__cellbasisProbe` and an init script that reports through it any

@@ -11,7 +11,7 @@ import { findChromium } from '../../lib/publish/chromium.ts';
 import { readPdfProperties } from '../../lib/core/pdf-properties.ts';
 import { DRAFT_PDF_STATUS } from '../../lib/report/pdf-meta.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
-import { outline } from '../../lib/report/outline.ts';
+import { appendices, outline } from '../../lib/report/outline.ts';
 import { compact, imageSizes, pageTexts } from '../helpers/pdf-inspect.ts';
 import type { ChartSpec } from '../../lib/report/charts/spec.ts';
 import { run } from '../helpers/run-cli.ts';
@@ -127,8 +127,14 @@ describe('a build of the demo projects', () => {
         const bands = compact(`${d.number} · ${d.title}Rev ${rev} · ${DRAFT_PDF_STATUS}${d.number} rev ${rev}, ${DRAFT_PDF_STATUS}, 2026-01-01page ${i + 1} of ${pages.length}`);
         expect(words.length - bands.length, `${where}: ${text.slice(0, 120)}`).toBeGreaterThan(150);
       });
-      // The print stylesheet breaks the page before each major section: its heading opens a page.
-      for (const s of outline()) expect(pages.some((t) => compact(t).startsWith(compact(`${s.number} ${s.title}`))), `${id}: section ${s.number} opens a page`).toBe(true);
+      // The print stylesheet breaks the page before each major section, its heading opening a
+      // page, but for purpose and scope, which share the first page with the title block and
+      // contents (issue 20.8: no nearly empty page after the title block); the appendix of the
+      // checks opens a page of its own too.
+      const [first, ...rest] = outline();
+      expect(compact(pages[0]!), `${id}: page 1 holds ${first!.title}`).toContain(compact(`${first!.number} ${first!.title}`));
+      for (const s of rest) expect(pages.some((t) => compact(t).startsWith(compact(`${s.number} ${s.title}`))), `${id}: section ${s.number} opens a page`).toBe(true);
+      for (const a of appendices()) expect(pages.some((t) => compact(t).startsWith(compact(`${a.letter} Appendix: ${a.title}`))), `${id}: appendix ${a.letter} opens a page`).toBe(true);
     }
   }, 60_000);
 

@@ -35,10 +35,15 @@ const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-backgrou
 /** What each revision's texts end with (the issued history then quotes changed hostile values). */
 const VARIANT = { A: '', B: ' <i>rev B</i> {{ 6*6 }}', draft: ' <u>draft C</u> {% endraw %}' } as const;
 
-/** The basis text with its preparer's date set (through the YAML document, as the hostile text is written). */
+/**
+ * The basis text prepared and checked again on `date` (through the YAML document, as the hostile
+ * text is written): a revision after A changes the basis, and a checked date left before the new
+ * preparation would be a finding of the basis check on the draft's page, which the clean page has not.
+ */
 function preparedOn(text: string, date: string): string {
   const doc = parseDocument(text);
   doc.setIn(['document', 'sign-off', 'prepared', 'date'], date);
+  doc.setIn(['document', 'sign-off', 'checked', 'date'], date);
   return doc.toString({ lineWidth: 0 });
 }
 
@@ -166,11 +171,25 @@ describeWithChromium('a hostile basis rendered, issued and printed', () => {
 
   const CLEAN = 'projects/clean/index.html';
   const hostilePages = () => [...pages.keys()].filter((p) => p !== CLEAN && p !== 'control.html');
-  const documentPages = () => hostilePages().filter((p) => p !== 'index.html');
+  /** The register pages of the issued revisions (lib/report/revision-page.ts): facts of the manifest, not the document. */
+  const registerPages = () => hostilePages().filter((p) => /\/rev-[AB]\/index\.html$/.test(p));
+  /** Every page that is a document: the draft, and each issued document.html, as issued and as the site copies it. */
+  const documentPages = () => hostilePages().filter((p) => p !== 'index.html' && !registerPages().includes(p));
   const variantOf = (path: string): string => (path.includes('rev-A') || path.includes('issued/A') ? VARIANT.A : path.includes('rev-B') || path.includes('issued/B') ? VARIANT.B : VARIANT.draft);
 
   it('opened the index, the draft and both issued revisions of the site, and both issued document.html files', () => {
-    expect(hostilePages().sort()).toEqual(['index.html', 'projects/hostile/index.html', 'projects/hostile/rev-A/index.html', 'projects/hostile/rev-B/index.html', 'issued/A/document.html', 'issued/B/document.html'].sort());
+    expect(hostilePages().sort()).toEqual(
+      [
+        'index.html',
+        'projects/hostile/index.html',
+        'projects/hostile/rev-A/index.html',
+        'projects/hostile/rev-A/document.html',
+        'projects/hostile/rev-B/index.html',
+        'projects/hostile/rev-B/document.html',
+        'issued/A/document.html',
+        'issued/B/document.html',
+      ].sort(),
+    );
   });
 
   it('the probe works: the payload on a page of its own runs, opens dialogs and sets window.__pwned (in the viewer and in the printer)', () => {
@@ -202,7 +221,9 @@ describeWithChromium('a hostile basis rendered, issued and printed', () => {
   it('injects no element: each hostile page of the site has exactly the elements, in order, of the demo basis\'s page (the revision history aside)', () => {
     const clean = pages.get(CLEAN)!.tagsOutsideHistory;
     expect(clean.length).toBeGreaterThan(10_000);
-    for (const path of documentPages().filter((p) => p.startsWith('projects/'))) {
+    // The draft, rendered by the site as the clean page is; an issued document.html is the
+    // standalone file (styles and scripts inlined), checked by the tests below.
+    for (const path of documentPages().filter((p) => p.startsWith('projects/') && !p.includes('/rev-'))) {
       const hostile = pages.get(path)!.tagsOutsideHistory;
       expect(hostile.length, path).toBe(clean.length);
       expect(hostile, path).toEqual(clean);
@@ -247,6 +268,12 @@ describeWithChromium('a hostile basis rendered, issued and printed', () => {
     }
     const index = pages.get('index.html')!;
     for (const marker of ['title', 'client', 'number']) expect(index.text, `index: ${marker}`).toContain(hostileText(marker) + VARIANT.draft);
+    // A register page shows the title and number as issued, and the note, as text.
+    for (const path of registerPages()) {
+      const r = pages.get(path)!;
+      for (const marker of ['title', 'number']) expect(r.text, `${path}: ${marker}`).toContain(hostileText(marker) + variantOf(path));
+    }
+    expect(pages.get('projects/hostile/rev-A/index.html')!.text).toContain(hostileText('note'));
   });
 
   it('evaluates no template syntax: no 49 or 36 stands where {{ 7*7 }} or {{ 6*6 }} was written', () => {
@@ -267,10 +294,10 @@ describeWithChromium('a hostile basis rendered, issued and printed', () => {
     }
   });
 
-  it('printed with the probe in every page cellbasis opened: both seals and the draft, and no script of the user ran while printing', () => {
+  it('printed with the probe in every page cellbasis opened: both issued revisions and the draft, and no script of the user ran while printing', () => {
     expect(printing.contexts).toBeGreaterThanOrEqual(3);
-    expect(printing.loads.some((u) => /\/issued\/\.tmp-A-\d+\/document\.html$/.test(u)), 'seal A printed').toBe(true);
-    expect(printing.loads.some((u) => /\/issued\/\.tmp-B-\d+\/document\.html$/.test(u)), 'seal B printed').toBe(true);
+    expect(printing.loads.some((u) => /\/issued\/\.tmp-A-\d+\/document\.html$/.test(u)), 'revision A printed').toBe(true);
+    expect(printing.loads.some((u) => /\/issued\/\.tmp-B-\d+\/document\.html$/.test(u)), 'revision B printed').toBe(true);
     expect(printing.loads.some((u) => /\/projects\/hostile\/index\.html$/.test(u)), 'the draft printed').toBe(true);
     expect(printing.probe).toEqual([]);
     expect(printing.dialogs).toEqual([]);
@@ -305,7 +332,7 @@ describeWithChromium('a hostile basis rendered, issued and printed', () => {
 
   it('the issued revisions pass their audit', async () => {
     const r = await run(['audit', 'hostile'], root);
-    expect(r.out).toBe('PASS projects/hostile rev A\nPASS projects/hostile rev B\n');
+    expect(r.out).toBe('PASS projects/hostile rev A, not signed\nPASS projects/hostile rev B, not signed\n');
     expect(r.code).toBe(0);
   });
 });
