@@ -2,7 +2,7 @@
  * The issued results against a recalculation of the issued basis, field by field: each
  * difference with its JSON path, the issued and the recomputed value (numbers in full, with
  * their relative difference). Numbers agreeing within rounding (tolerance.ts) are equal. The
- * tool version is not a difference (a later cellbasis may audit an earlier seal; the audit
+ * tool version is not a difference (a later cellbasis may audit an earlier revision; the audit
  * notes it); the species-data hash is compared by the audit itself, once, not here.
  */
 import type { Results } from '../plant/results-schema.ts';

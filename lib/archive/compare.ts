@@ -305,7 +305,7 @@ function resultChanges(a: Results['headline'] | null, b: Results['headline'] | n
   return out;
 }
 
-/** The cases of two results by id (results sealed before cases existed have none). */
+/** The cases of two results by id (results issued before cases existed have none). */
 function caseChanges(a: Results, b: Results): CaseChange[] {
   const before = a.cases ?? [];
   const after = new Map((b.cases ?? []).map((c) => [c.id, c]));

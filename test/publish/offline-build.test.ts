@@ -48,7 +48,7 @@ announceChromiumSkip('the offline build tests');
 const PRELOAD = fileURLToPath(new URL('../helpers/fixtures/no-network.mjs', import.meta.url));
 const ATTEMPTS = fileURLToPath(new URL('../helpers/fixtures/network-attempts.mjs', import.meta.url));
 const PROJECTS = ['hob-tor-pem-backup', 'kestrelford-pem-electrolyser'] as const;
-const SEALED_PAGE = 'projects/hob-tor-pem-backup/rev-A/index.html';
+const ISSUED_PAGE = 'projects/hob-tor-pem-backup/rev-A/index.html';
 const BUILD_TIMEOUT = 400_000;
 
 /** The unshare arguments that give a process a network namespace of its own here, or null. */
@@ -289,8 +289,8 @@ describeWithChromium('cellbasis build with all network access taken away', () =>
     console.info(`offline build (preload): ${(r.ms / 1000).toFixed(1)} s`);
     expectBuilt(r);
     const site = join(root, 'site');
-    expectCompleteSite(site, PROJECTS, [SEALED_PAGE]);
-    expect(htmlPages(site)).toEqual(['index.html', ...PROJECTS.map((id) => `projects/${id}/index.html`), SEALED_PAGE].sort());
+    expectCompleteSite(site, PROJECTS, [ISSUED_PAGE]);
+    expect(htmlPages(site)).toEqual(['index.html', ...PROJECTS.map((id) => `projects/${id}/index.html`), ISSUED_PAGE].sort());
 
     const entries = readLog(log);
     expect(entries.some((e) => e.kind === 'loaded' && e.thread === 0 && e.detail.includes('cellbasis.js build')), 'the preload ran in the build').toBe(true);
@@ -326,7 +326,7 @@ describeWithChromium('cellbasis build with all network access taken away', () =>
     console.info(`offline build (network namespace): ${(r.ms / 1000).toFixed(1)} s`);
     expectBuilt(r);
     const site = join(root, 'site');
-    expectCompleteSite(site, PROJECTS, [SEALED_PAGE]);
+    expectCompleteSite(site, PROJECTS, [ISSUED_PAGE]);
     const pages = Object.fromEntries(Object.entries(treeDigest(site)).filter(([path]) => path.endsWith('.html')));
     if (preloadPages) expect(pages, 'the same pages as the build with the preload').toEqual(preloadPages);
   });
