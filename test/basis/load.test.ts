@@ -189,7 +189,7 @@ describe('document control', () => {
 
   it('reads an open assumption accepted for approval, with its reason, who accepted it and when', () => {
     const text = edit(BASE, ['open: true, reference: R1 }', 'open: true, reference: R1, accepted: { reason: Within the margin of R1., by: A. Approver, date: 2026-11-22 } }']);
-    expect(valid(text).basis.assumptions[0]).toEqual({ id: 'A1', text: 'Isothermal stack.', open: true, reference: 'R1', accepted: { reason: 'Within the margin of R1.', by: 'A. Approver', date: '2026-11-22' } });
+    expect(valid(text).basis.assumptions[0]).toEqual({ id: 'A1', text: 'Isothermal stack.', open: true, reference: 'R1', concerns: [], accepted: { reason: 'Within the margin of R1.', by: 'A. Approver', date: '2026-11-22' } });
   });
 });
 
