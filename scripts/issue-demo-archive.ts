@@ -3,7 +3,8 @@
 // (test/archive/demo-archive.test.ts):
 //
 //   corrin-beck-mcfc-biogas   A issued for review (an earlier basis: fuel utilization 0.75, the
-//                             cathode-gas recycle assumption still open), then B issued for
+//                             cathode-gas recycle assumption still open, no operating cases
+//                             yet), then B issued for
 //                             approval (the working basis as committed), signed for the preparer
 //                             and, on B, the checker
 //   hob-tor-pem-backup        0 approved, with the full sign-off and its open assumptions
@@ -51,13 +52,22 @@ function edited(text: string, project: string, edits: [string, string][]): strin
   return out;
 }
 
+/** `text` without its top-level cases: section. */
+function withoutCases(text: string, project: string): string {
+  const start = text.indexOf('\ncases:\n');
+  const end = text.indexOf('\nassumptions:\n');
+  if (start < 0 || end < start) throw new Error(`projects/${project}/basis.yaml no longer has cases: before assumptions: update scripts/issue-demo-archive.ts`);
+  return text.slice(0, start + 1) + text.slice(end + 1);
+}
+
 function plan(key: string): Record<string, Step[]> {
   const cb = 'corrin-beck-mcfc-biogas';
   return {
     [cb]: [
       {
+        // Revision A predates the operating cases (B adds them), which also keeps the archive small.
         basis: (text) =>
-          edited(text, cb, [
+          edited(withoutCases(text, cb), cb, [
             ['    prepared: { name: T. Abernethy-Cole, date: 2026-07-30 }\n', '    prepared: { name: T. Abernethy-Cole, date: 2026-07-08 }\n'],
             ['    checked: { name: P. Nakamura, date: 2026-08-06 }\n', ''],
             ['fuel-utilization: { value: 0.72, source: R3 }', 'fuel-utilization: { value: 0.75, source: R3 }'],
