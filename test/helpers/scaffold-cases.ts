@@ -41,5 +41,5 @@ export function scaffoldCase(technology: TechnologyId, mode: Mode, edit: (yaml: 
 /** Every string the document's view model hands the templates for a scaffold case, as one JSON text (for wording checks). */
 export function documentText(technology: TechnologyId, mode: Mode, edit?: (yaml: string) => string): string {
   const c = scaffoldCase(technology, mode, edit);
-  return JSON.stringify(documentView({ basis: c.basis, results: c.results, revision: { kind: 'draft', date: null }, history: [] }, { assetBase: '' }));
+  return JSON.stringify(documentView({ basis: c.basis, results: c.results, revision: { kind: 'draft', revision: 'A', lastIssued: null, date: null }, history: [] }, { assetBase: '' }));
 }
