@@ -135,11 +135,16 @@ function approvalRules(req: IssueRequest, out: IssueVerdict): void {
 export function errorFindings(req: Pick<IssueRequest, 'results' | 'failedChecks'>): string[] {
   const out: string[] = [];
   if (req.failedChecks > 0) out.push(`${req.failedChecks} check${req.failedChecks === 1 ? '' : 's'} of the calculation library against published values fail (cellbasis check lists them)`);
-  const margin = req.results.headline.carbonMargin;
-  if (margin !== null && margin < 0) out.push(`the steam-to-carbon ratio is below the carbon limit (margin ${margin.toPrecision(3)}): carbon can deposit`);
   // Findings with a severity, where the results carry them: the critical ones forbid approval.
-  const findings = (req.results as { findings?: readonly { severity?: unknown; path?: unknown; message?: unknown }[] }).findings ?? [];
-  for (const f of findings) if (f.severity === 'critical') out.push(`${String(f.path)}: ${String(f.message)}`);
+  // Results that carry findings state a negative carbon margin as a critical finding of its own
+  // (steam-to-carbon-below-minimum), so the margin is read directly only from results made before
+  // findings existed; reading it in both would refuse the same deposit twice.
+  const findings = (req.results as { findings?: readonly { severity?: unknown; path?: unknown; message?: unknown }[] }).findings;
+  if (findings === undefined) {
+    const margin = req.results.headline.carbonMargin;
+    if (margin !== null && margin < 0) out.push(`the steam-to-carbon ratio is below the carbon limit (margin ${margin.toPrecision(3)}): carbon can deposit`);
+  }
+  for (const f of findings ?? []) if (f.severity === 'critical') out.push(`${String(f.path)}: ${String(f.message)}`);
   return out;
 }
 

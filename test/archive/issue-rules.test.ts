@@ -83,7 +83,17 @@ describe('issueVerdict', () => {
     // Steam-to-carbon 0.5 lies below the carbon limit of the scaffold's natural gas at 800 °C (about 1.0).
     const carbon = request({ ...ready, 'streams.fuel-electrode.steam-to-carbon': 0.5 }, { status: 'approved' });
     expect(carbon.results.headline.carbonMargin).toBeLessThan(0);
-    expect(issueVerdict(carbon).refusals).toEqual([expect.stringMatching(/^an approved revision has no error-level finding: the steam-to-carbon ratio is below the carbon limit \(margin -0\.\d+\): carbon can deposit$/)]);
+    // The results state the deposit as critical findings, each once: carbon activity above 1 on
+    // the fuel path, and the steam-to-carbon ratio below the carbon-free minimum.
+    expect(issueVerdict(carbon).refusals).toEqual([
+      expect.stringMatching(/^an approved revision has no error-level finding: streams\.fuel-electrode: the fuel-electrode gas reaches carbon activity \d+(\.\d+)? \(above 1: carbon can deposit/),
+      expect.stringMatching(/^an approved revision has no error-level finding: streams\.fuel-electrode\.steam-to-carbon: the steam-to-carbon ratio 0\.5 is below the carbon-free minimum 1\.\d+$/),
+    ]);
+    // Results issued before findings existed carry only the margin, which is read directly.
+    const { findings: _none, ...withoutFindings } = carbon.results;
+    expect(issueVerdict({ ...carbon, results: withoutFindings as IssueRequest['results'] }).refusals).toEqual([
+      expect.stringMatching(/^an approved revision has no error-level finding: the steam-to-carbon ratio is below the carbon limit \(margin -0\.\d+\): carbon can deposit$/),
+    ]);
     // The same finding does not stop a revision issued for review: the review is where it is raised.
     expect(issueVerdict({ ...carbon, status: 'issued for review' }).refusals).toEqual([]);
     const critical = request(ready, { status: 'approved' });
