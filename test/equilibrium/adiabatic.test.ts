@@ -5,14 +5,10 @@ import { adiabaticEquilibrium, equilibrateAtEnthalpy, type AdiabaticEquilibrium 
 import { enthalpy } from '../../lib/thermo/properties.ts';
 import { getSpecies } from '../../lib/thermo/species-data.ts';
 import { UserError } from '../../lib/errors.ts';
+import { completeCombustionK, enthalpyBySpecies } from '../thermo/helpers.ts';
 
 const ATM_BAR = 1.01325;
 const h = (label: string, temperatureK: number) => enthalpy(getSpecies(label), temperatureK);
-
-/** Σ n_i h_i(T) over a record, by the species data directly. */
-function enthalpyOf(amounts: Record<string, number>, temperatureK: number): number {
-  return Object.entries(amounts).reduce((sum, [label, n]) => sum + n * h(label, temperatureK), 0);
-}
 
 /** Element totals of a record, from the species formulas. */
 function elementsOf(amounts: Record<string, number>): Record<string, number> {
@@ -21,19 +17,6 @@ function elementsOf(amounts: Record<string, number>): Record<string, number> {
     for (const [element, count] of Object.entries(getSpecies(label).formula)) out[element] = (out[element] ?? 0) + n * count;
   }
   return out;
-}
-
-/** Temperature of complete combustion (fixed products) by bisection on the energy balance: a hand calculation. */
-function completeCombustionK(reactants: Record<string, number>, products: Record<string, number>): number {
-  const target = enthalpyOf(reactants, 298.15);
-  let low = 300;
-  let high = 5000;
-  for (let k = 0; k < 100; k++) {
-    const mid = (low + high) / 2;
-    if (enthalpyOf(products, mid) < target) low = mid;
-    else high = mid;
-  }
-  return (low + high) / 2;
 }
 
 const flame = (amounts: Record<string, number>): AdiabaticEquilibrium =>
@@ -126,8 +109,8 @@ describe('balances of the adiabatic equilibrium', () => {
     for (const [name, amounts] of Object.entries(cases)) {
       const result = flame(amounts);
       const fuel = Object.entries(amounts).reduce((s, [k, n]) => s + n * (lhv[k] ?? 0), 0);
-      const products = enthalpyOf(result.amounts, result.temperatureK);
-      const reactants = enthalpyOf(amounts, 298.15);
+      const products = enthalpyBySpecies(result.amounts, result.temperatureK);
+      const reactants = enthalpyBySpecies(amounts, 298.15);
       expect(Math.abs(products - reactants) / fuel, name).toBeLessThan(1e-9);
       expect(result.energyBalanceError, name).toBeLessThan(1e-10);
     }
@@ -146,7 +129,7 @@ describe('balances of the adiabatic equilibrium', () => {
     // Same composition as equilibrateAtEnthalpy started elsewhere: the solution is unique.
     const amounts = { CH4: 1, O2: 2, N2: 7.52 };
     const a = flame(amounts);
-    const b = equilibrateAtEnthalpy({ feed: amounts, enthalpyJ: enthalpyOf(amounts, 298.15), pressureBar: ATM_BAR, initialTemperatureK: 5000 });
+    const b = equilibrateAtEnthalpy({ feed: amounts, enthalpyJ: enthalpyBySpecies(amounts, 298.15), pressureBar: ATM_BAR, initialTemperatureK: 5000 });
     expect(Math.abs(a.temperatureK - b.temperatureK)).toBeLessThan(1e-6);
     expect(Math.abs(a.moleFractions.CO! / b.moleFractions.CO! - 1)).toBeLessThan(1e-6);
   });
@@ -164,9 +147,9 @@ describe('balances of the adiabatic equilibrium', () => {
       pressureBar: 1.2,
       heatAddedJ: -5000,
     });
-    const target = enthalpyOf(offGas, 1073.15) + enthalpyOf(air, 573.15) - 5000;
+    const target = enthalpyBySpecies(offGas, 1073.15) + enthalpyBySpecies(air, 573.15) - 5000;
     expect(Math.abs(result.targetEnthalpyJ - target)).toBeLessThan(1e-9 * Math.abs(target));
-    expect(Math.abs(enthalpyOf(result.amounts, result.temperatureK) - target) / (0.25 * 241826 + 0.08 * 282980)).toBeLessThan(1e-9);
+    expect(Math.abs(enthalpyBySpecies(result.amounts, result.temperatureK) - target) / (0.25 * 241826 + 0.08 * 282980)).toBeLessThan(1e-9);
     // Burning the off-gas makes it hotter than either stream; the CO left is a trace.
     expect(result.temperatureK).toBeGreaterThan(1073.15);
     expect(result.moleFractions.CO!).toBeLessThan(1e-4);
@@ -184,7 +167,7 @@ describe('balances of the adiabatic equilibrium', () => {
     expect(result.temperatureK).toBeLessThan(773.15);
     expect(result.amounts.CH4!).toBeLessThan(1);
     expect(result.amounts.H2!).toBeGreaterThan(0);
-    expect(Math.abs(enthalpyOf(result.amounts, result.temperatureK) - enthalpyOf(feed, 773.15)) / 802300).toBeLessThan(1e-9);
+    expect(Math.abs(enthalpyBySpecies(result.amounts, result.temperatureK) - enthalpyBySpecies(feed, 773.15)) / 802300).toBeLessThan(1e-9);
   });
 });
 
@@ -196,8 +179,8 @@ describe('with graphite as a pure phase', () => {
     const result = adiabaticEquilibrium({ reactants: [{ amounts: feed, temperatureK: 298.15 }], pressureBar: 1, allowGraphite: true });
     expect(result.graphite).toBeGreaterThan(0);
     expect(result.carbonActivity).toBe(1);
-    const products = enthalpyOf(result.amounts, result.temperatureK) + result.graphite * h('C(gr)', result.temperatureK);
-    expect(Math.abs(products - enthalpyOf(feed, 298.15)) / (0.4 * 2 * 241826)).toBeLessThan(1e-9);
+    const products = enthalpyBySpecies(result.amounts, result.temperatureK) + result.graphite * h('C(gr)', result.temperatureK);
+    expect(Math.abs(products - enthalpyBySpecies(feed, 298.15)) / (0.4 * 2 * 241826)).toBeLessThan(1e-9);
     const carbon = elementsOf(result.amounts).C! + result.graphite;
     expect(Math.abs(carbon - 1)).toBeLessThan(1e-12);
   });

@@ -6,29 +6,16 @@ import { exhaustHeatRecovery } from '../../lib/flowsheet/heat-recovery.ts';
 import { FlowsheetInputError } from '../../lib/flowsheet/input-error.ts';
 import { enthalpy } from '../../lib/thermo/properties.ts';
 import { getSpecies } from '../../lib/thermo/species-data.ts';
+import { completeCombustionK, enthalpyBySpecies } from '../thermo/helpers.ts';
 
 const h = (label: string, temperatureK: number) => enthalpy(getSpecies(label), temperatureK);
-const sumH = (flows: Record<string, number>, t: number) => Object.entries(flows).reduce((s, [k, n]) => s + n * h(k, t), 0);
 
 // Products of complete stoichiometric combustion of 1 mol/s of methane with dry air (O2 + 3.76 N2).
 const products = { CO2: 1, H2O: 2, N2: 7.52 };
 const reactants = { CH4: 1, O2: 2, N2: 7.52 };
 
-/** The products' temperature when they hold all the reactants' enthalpy at 298.15 K (hand bisection). */
-function completeCombustionK(): number {
-  const target = sumH(reactants, 298.15);
-  let low = 300;
-  let high = 4000;
-  for (let k = 0; k < 100; k++) {
-    const mid = (low + high) / 2;
-    if (sumH(products, mid) < target) low = mid;
-    else high = mid;
-  }
-  return (low + high) / 2;
-}
-
 describe('exhaust heat recovery', () => {
-  const inletK = completeCombustionK();
+  const inletK = completeCombustionK(reactants, products);
   const to25 = exhaustHeatRecovery({ flowsMolPerS: products, inletTemperatureK: inletK, exitTemperatureK: 298.15, pressureBar: 1.01325 });
 
   it('without condensation, cooling the products to 25 °C recovers the fuel’s lower heating value', () => {
@@ -58,8 +45,8 @@ describe('exhaust heat recovery', () => {
   it('closes the first law: inlet enthalpy − exit gas − condensate = heat recovered', () => {
     for (const exitTemperatureK of [298.15, 323.15, 340]) {
       const r = exhaustHeatRecovery({ flowsMolPerS: products, inletTemperatureK: inletK, exitTemperatureK, pressureBar: 1.01325 });
-      const out = sumH(r.exitGasMolPerS, exitTemperatureK) + r.condensedWaterMolPerS * h('H2O(L)', exitTemperatureK);
-      expect(Math.abs(sumH(products, inletK) - out - r.heatWithCondensationW) / r.heatWithCondensationW).toBeLessThan(1e-12);
+      const out = enthalpyBySpecies(r.exitGasMolPerS, exitTemperatureK) + r.condensedWaterMolPerS * h('H2O(L)', exitTemperatureK);
+      expect(Math.abs(enthalpyBySpecies(products, inletK) - out - r.heatWithCondensationW) / r.heatWithCondensationW).toBeLessThan(1e-12);
     }
   });
 
@@ -100,7 +87,7 @@ describe('exhaust heat recovery', () => {
     const dry = exhaustHeatRecovery({ flowsMolPerS: { N2: 3.76, O2: 1 }, inletTemperatureK: 600, exitTemperatureK: 300, pressureBar: 1 });
     expect(dry.dewPointK).toBeNull();
     expect(dry.condensedWaterMolPerS).toBe(0);
-    expect(dry.heatWithoutCondensationW).toBeCloseTo(sumH({ N2: 3.76, O2: 1 }, 600) - sumH({ N2: 3.76, O2: 1 }, 300), 6);
+    expect(dry.heatWithoutCondensationW).toBeCloseTo(enthalpyBySpecies({ N2: 3.76, O2: 1 }, 600) - enthalpyBySpecies({ N2: 3.76, O2: 1 }, 300), 6);
     // Vapour below 611.2 Pa would deposit as frost: no dew point is given.
     const frost = exhaustHeatRecovery({ flowsMolPerS: { N2: 1, H2O: 0.001 }, inletTemperatureK: 400, exitTemperatureK: 300, pressureBar: 1 });
     expect(frost.dewPointK).toBeNull();
