@@ -20,7 +20,7 @@
  */
 import { gOverRT } from '../thermo/properties.ts';
 import { mixtureEnthalpyJ } from '../thermo/mixture.ts';
-import { ConvergenceError, UserError } from '../errors.ts';
+import { ConvergenceError, UserError } from '../core/errors.ts';
 import { minimiseGibbs, type MinimiserResult } from './gibbs-minimiser.ts';
 import { elementAmounts, elementsOfFeed, gasGibbsOverRT, systemFor, type ChemicalSystem } from './species-set.ts';
 import { describe, validateFeed, type Equilibrium } from './equilibrate.ts';

@@ -2,7 +2,7 @@
  * A bad input to a flowsheet calculation, naming the field of the request it concerns, so
  * that the caller can locate it in the design basis (the message starts with the field).
  */
-import { UserError } from '../errors.ts';
+import { UserError } from '../core/errors.ts';
 
 export class FlowsheetInputError extends UserError {
   constructor(

@@ -10,6 +10,7 @@
 import { enthalpy } from '../thermo/properties.ts';
 import { getSpecies, type Species } from '../thermo/species-data.ts';
 import { REFERENCE_TEMPERATURE_K as T0 } from '../thermo/constants.ts';
+import { waterLatentHeatJPerMol } from '../thermo/latent-heat.ts';
 
 export interface HeatingValue {
   lhvJPerMol: number;
@@ -35,7 +36,7 @@ export function heatingValue(species: Species): HeatingValue {
   } else {
     const products = c * h0('CO2') + (h / 2) * h0('H2O') + s * h0('SO2');
     const lhv = -(products - enthalpy(species, T0) - o2 * h0('O2'));
-    value = { lhvJPerMol: lhv, hhvJPerMol: lhv + (h / 2) * (h0('H2O') - h0('H2O(L)')) };
+    value = { lhvJPerMol: lhv, hhvJPerMol: lhv + (h / 2) * waterLatentHeatJPerMol(T0) };
   }
   cache.set(species.label, value);
   return value;

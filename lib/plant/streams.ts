@@ -7,7 +7,7 @@
  *   Ḣ = Σ ṅ_i h_i(T)  (h with heat of formation, NASA convention; H2O(L) for liquid water)
  */
 import { NORMAL_MOLAR_VOLUME_M3_PER_MOL } from '../thermo/constants.ts';
-import { enthalpy } from '../thermo/properties.ts';
+import { mixtureEnthalpyJ, mixtureMassKg } from '../thermo/mixture.ts';
 import { getSpecies } from '../thermo/species-data.ts';
 
 export interface Stream {
@@ -32,10 +32,9 @@ export function gasFlow(flows: Readonly<Record<string, number>>): number {
   return s;
 }
 
+/** Mass flow Σ ṅ_i M_i, kg/s (the mixture's mass on the flows' scale). */
 export function massFlowKgPerS(flows: Readonly<Record<string, number>>): number {
-  let s = 0;
-  for (const [k, v] of Object.entries(flows)) s += v * getSpecies(k).molarMassKgPerMol;
-  return s;
+  return mixtureMassKg(flows);
 }
 
 /** Normal volume flow of the gas, m³(n)/s at 0 °C and 1 atm. */
@@ -45,9 +44,7 @@ export function normalVolumeM3PerS(flows: Readonly<Record<string, number>>): num
 
 /** Enthalpy flow Σ ṅ_i h_i(T), W. */
 export function enthalpyFlowW(flows: Readonly<Record<string, number>>, temperatureK: number): number {
-  let s = 0;
-  for (const [k, v] of Object.entries(flows)) if (v !== 0) s += v * enthalpy(getSpecies(k), temperatureK);
-  return s;
+  return mixtureEnthalpyJ(flows, temperatureK);
 }
 
 /** Mole fractions of the gas phase. */

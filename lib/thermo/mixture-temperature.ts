@@ -7,7 +7,7 @@
  */
 import { mixtureEnthalpyJ, mixtureHeatCapacityJPerK, mixtureStandardEntropyJPerK } from './mixture.ts';
 import { getSpecies } from './species-data.ts';
-import { ConvergenceError, UserError } from '../errors.ts';
+import { ConvergenceError, UserError } from '../core/errors.ts';
 
 type Amounts = Readonly<Record<string, number>>;
 

@@ -31,13 +31,16 @@ export function mixtureHeatCapacityJPerK(amounts: Readonly<Record<string, number
   return total;
 }
 
+/** Mass of a mixture, Σ_i n_i M_i, kg on the amounts' scale (kg/s for mol/s). */
+export function mixtureMassKg(amounts: Readonly<Record<string, number>>): number {
+  let mass = 0;
+  for (const [label, amount] of Object.entries(amounts)) if (amount !== 0) mass += amount * getSpecies(label).molarMassKgPerMol;
+  return mass;
+}
+
 /** Molar mass of a mixture, kg/mol: Σ_i n_i M_i / Σ_i n_i. */
 export function mixtureMolarMassKgPerMol(amounts: Readonly<Record<string, number>>): number {
-  let mass = 0;
   let total = 0;
-  for (const [label, amount] of Object.entries(amounts)) {
-    mass += amount * getSpecies(label).molarMassKgPerMol;
-    total += amount;
-  }
-  return mass / total;
+  for (const amount of Object.values(amounts)) total += amount;
+  return mixtureMassKg(amounts) / total;
 }

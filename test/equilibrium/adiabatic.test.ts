@@ -4,8 +4,8 @@ import { describe, expect, it } from 'vitest';
 import { adiabaticEquilibrium, equilibrateAtEnthalpy, type AdiabaticEquilibrium } from '../../lib/equilibrium/adiabatic.ts';
 import { enthalpy } from '../../lib/thermo/properties.ts';
 import { getSpecies } from '../../lib/thermo/species-data.ts';
-import { UserError } from '../../lib/errors.ts';
-import { completeCombustionK, enthalpyBySpecies } from '../thermo/helpers.ts';
+import { UserError } from '../../lib/core/errors.ts';
+import { completeCombustionK, enthalpyBySpecies } from '../helpers/hand-enthalpy.ts';
 
 const ATM_BAR = 1.01325;
 const h = (label: string, temperatureK: number) => enthalpy(getSpecies(label), temperatureK);

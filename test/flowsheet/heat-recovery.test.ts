@@ -6,7 +6,7 @@ import { exhaustHeatRecovery } from '../../lib/flowsheet/heat-recovery.ts';
 import { FlowsheetInputError } from '../../lib/flowsheet/input-error.ts';
 import { enthalpy } from '../../lib/thermo/properties.ts';
 import { getSpecies } from '../../lib/thermo/species-data.ts';
-import { completeCombustionK, enthalpyBySpecies } from '../thermo/helpers.ts';
+import { completeCombustionK, enthalpyBySpecies } from '../helpers/hand-enthalpy.ts';
 
 const h = (label: string, temperatureK: number) => enthalpy(getSpecies(label), temperatureK);
 

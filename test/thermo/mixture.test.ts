@@ -4,7 +4,7 @@ import { mixtureEnthalpyJ, mixtureHeatCapacityJPerK, mixtureMolarMassKgPerMol, m
 import { temperatureAtEnthalpyK, temperatureAtStandardEntropyK } from '../../lib/thermo/mixture-temperature.ts';
 import { cp, enthalpy, entropy } from '../../lib/thermo/properties.ts';
 import { getSpecies } from '../../lib/thermo/species-data.ts';
-import { UserError } from '../../lib/errors.ts';
+import { UserError } from '../../lib/core/errors.ts';
 
 const gas = { N2: 7.52, CO2: 1, H2O: 2 };
 
