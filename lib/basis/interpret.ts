@@ -12,6 +12,7 @@ import { readMixtures } from './composition.ts';
 import { readStreams } from './read-streams.ts';
 import { readOperatingPoint } from './read-operating-point.ts';
 import { readSensitivity } from './read-sensitivity.ts';
+import { readPlant } from './read-plant.ts';
 import { checkSources, readAssumptions, readReferences } from './read-references.ts';
 import { defaultSweep } from './temperature-ranges.ts';
 import { conversionName, streamRules } from './stream-rules.ts';
@@ -56,9 +57,10 @@ export function interpret(reader: Reader, options: InterpretOptions = {}): Inter
     allowed: rules['air-electrode'].role === 'sweep',
     feed: streams?.airElectrode != null,
   }, conversionName(technology, mode));
+  const plant = readPlant(reader, technology, mode, conditionsRead);
   checkSources(reader, references, assumptions);
   const { temperature, sweep, fuelPressureBar, airPressureBar } = conditionsRead;
-  if (!document || !cell || !streams || !operatingPoint || !temperature || fuelPressureBar === undefined || airPressureBar === undefined) return undefined;
+  if (!document || !cell || !streams || !operatingPoint || !plant || !temperature || fuelPressureBar === undefined || airPressureBar === undefined) return undefined;
   const range = sweep ? { fromK: sweep.from.si, toK: sweep.to.si } : defaultSweep(temperature.si, streams.feeds, technology);
   const conditions: Conditions = {
     temperatureK: temperature.si,
@@ -78,6 +80,7 @@ export function interpret(reader: Reader, options: InterpretOptions = {}): Inter
     fuelElectrode: streams.fuelElectrode,
     airElectrode: streams.airElectrode,
     operatingPoint,
+    plant,
     sensitivity,
     assumptions,
     references,

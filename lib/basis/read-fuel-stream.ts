@@ -57,6 +57,10 @@ function perMoleOfFeed(amounts: Readonly<Record<string, number>>, total: number)
 function preReforming(reader: Reader, path: Path): { value: PreReforming; temperature?: Read } | undefined {
   const written = reader.get([...path, 'pre-reforming']);
   if (written === undefined || written === 'none') return reader.flaggedAt([...path, 'pre-reforming']) ? undefined : { value: { kind: 'none' } };
+  if (reader.text([...path, 'pre-reforming', 'kind']) === 'adiabatic') {
+    const inlet = readTemperature(reader, [...path, 'pre-reforming', 'inlet-temperature'], 'pre-reformer inlet temperature');
+    return inlet && { value: { kind: 'adiabatic', inletTemperatureK: inlet.si }, temperature: inlet };
+  }
   const temperature = readTemperature(reader, [...path, 'pre-reforming', 'temperature'], 'pre-reforming temperature');
   return temperature && { value: { kind: 'equilibrium', temperatureK: temperature.si }, temperature };
 }

@@ -182,13 +182,21 @@ function size(reader: Reader, mode: Mode): { size: StackSize; statedCells?: numb
   return { size: sized, ...(cells ? { statedCells: cells.si } : {}) };
 }
 
-function parasitic(reader: Reader, mode: Mode): number | undefined {
-  if (mode === 'electrolysis') {
-    oneOf(reader, [], undefined, { 'parasitic-load': 'parasitic-load applies to power mode (the balance-of-plant share of the gross output)' });
-    return reader.has(OP('parasitic-load')) ? undefined : 0;
-  }
+/** The balance-of-plant share of the stack DC power, in [0, 1) (default 0). */
+function parasitic(reader: Reader): number | undefined {
   if (!reader.has(OP('parasitic-load'))) return 0;
   return bounded(reader, 'parasitic-load', 'fraction', 'parasitic load', (x) => x >= 0 && x < 1, 'lies in [0, 1)')?.si;
+}
+
+/** The inverter or rectifier efficiency, in (0, 1] (default 1); in power mode it must exceed the parasitic share, or nothing would be left. */
+function conversion(reader: Reader, mode: Mode, parasiticFraction: number | undefined): number | undefined {
+  if (!reader.has(OP('power-conversion-efficiency'))) return 1;
+  const read = bounded(reader, 'power-conversion-efficiency', 'fraction', 'power-conversion efficiency', (x) => x > 0 && x <= 1, 'lies in (0, 1]');
+  if (read && mode === 'power' && parasiticFraction !== undefined && read.si <= parasiticFraction) {
+    reader.findings.error(read.at, `the power-conversion efficiency must exceed the parasitic load (${parasiticFraction}), or the plant would deliver no power, got ${read.text}`);
+    return undefined;
+  }
+  return read?.si;
 }
 
 export function readOperatingPoint(reader: Reader, mode: Mode, sweep: { allowed: boolean; feed: boolean }, conversionLabel: string): OperatingPoint | undefined {
@@ -199,12 +207,13 @@ export function readOperatingPoint(reader: Reader, mode: Mode, sweep: { allowed:
     voltage: voltage(reader),
     activeArea: bounded(reader, 'active-area', 'area', 'active area', positive, 'must be above zero', 'active-area'),
     size: size(reader, mode),
-    parasiticFraction: parasitic(reader, mode),
+    parasiticFraction: parasitic(reader),
   };
   const { utilization: u, air, currentDensity, voltage: v, activeArea, size: s, parasiticFraction } = values;
   const law = resistanceLaw(reader, v);
   const aged = degradation(reader, mode);
-  if (u === undefined || !air || !currentDensity || !v || law === undefined || aged === undefined || !activeArea || !s || parasiticFraction === undefined) return undefined;
+  const conversionEfficiency = conversion(reader, mode, parasiticFraction);
+  if (u === undefined || !air || !currentDensity || !v || law === undefined || aged === undefined || !activeArea || !s || parasiticFraction === undefined || conversionEfficiency === undefined) return undefined;
   return {
     utilization: u,
     air,
@@ -216,5 +225,6 @@ export function readOperatingPoint(reader: Reader, mode: Mode, sweep: { allowed:
     size: s.size,
     ...(s.statedCells !== undefined ? { statedCells: s.statedCells } : {}),
     parasiticFraction,
+    conversionEfficiency,
   };
 }

@@ -102,20 +102,24 @@ const mixture = strict(
   'a composition defined by this project',
 );
 
-const PRE_REFORMING = 'none, or { kind: equilibrium, temperature: "480 C" }';
+const PRE_REFORMING = 'none, { kind: equilibrium, temperature: "480 C" } or { kind: adiabatic, inlet-temperature: "520 C" }';
 
 const preReforming = z
   .union(
     [
       z.literal('none', { error: `expected ${PRE_REFORMING}` }),
       strict({
-        kind: choice(['equilibrium'] as const, 'equilibrium: the gas leaves the pre-reformer at chemical equilibrium'),
+        kind: choice(['equilibrium'] as const, 'equilibrium: the gas leaves the pre-reformer at chemical equilibrium at the given temperature, the reactor heated or cooled to hold it'),
         temperature: quantity('temperature', 'pre-reformer outlet temperature'),
+      }),
+      strict({
+        kind: choice(['adiabatic'] as const, 'adiabatic: no heat crosses the pre-reformer wall; the gas leaves at chemical equilibrium at the temperature the energy balance gives'),
+        'inlet-temperature': quantity('temperature', 'temperature of the steam and fuel mixture entering the pre-reformer'),
       }),
     ],
     { error: (issue) => `expected ${PRE_REFORMING}, got ${describeValue(issue.input)}` },
   )
-  .meta({ description: `${PRE_REFORMING}: a pre-reformer ahead of the stack whose outlet gas is at chemical equilibrium at that temperature` });
+  .meta({ description: `${PRE_REFORMING}: a pre-reformer ahead of the stack whose outlet gas is at chemical equilibrium, at a given temperature or adiabatic` });
 
 const fuelStream = strict(
   {
@@ -188,9 +192,88 @@ const operatingPointSection = strict(
     cells: number('number of cells (a positive whole number)', '1200').optional(),
     'target-power': quantity('power', 'net electric output (power mode) or electric input (electrolysis), e.g. "250 kW"').optional(),
     'target-hydrogen': quantity('mass-flow', 'hydrogen production (electrolysis), e.g. "500 kg/day"').optional(),
-    'parasitic-load': fraction('fraction of the gross DC power used by the balance of plant (power mode), in [0, 1) (default 0)').optional(),
+    'parasitic-load': fraction('fraction of the stack DC power the balance of plant draws (blowers, pumps, controls), in [0, 1) (default 0); a compressor of plant.hydrogen-compression is counted on its own').optional(),
+    'power-conversion-efficiency': fraction(
+      'efficiency of the power conversion between the stack DC and the plant AC: the inverter (power mode) or the rectifier (electrolysis), in (0, 1] (default 1: no conversion counted)',
+    ).optional(),
   },
   'the operating point. Give cells, a target, or both; when both, the calculation checks that they agree within 2 % and reports where they do not',
+);
+
+const voltageWindow = strict(
+  {
+    from: quantity('voltage', 'lowest DC bus voltage, e.g. "600 V"'),
+    to: quantity('voltage', 'highest DC bus voltage, e.g. "800 V"'),
+  },
+  'the DC bus voltage window: the stacks in series are the most whose string voltage at the design point lies in it',
+);
+
+const plantSection = strict(
+  {
+    electrical: strict(
+      {
+        'cells-per-stack': number('cells in one stack (a positive whole number; default: all cells in one stack)', '80').optional(),
+        'stacks-in-series': number('stacks in series in one string (default: from dc-bus-window, else 1)', '4').optional(),
+        'dc-bus-window': voltageWindow.optional(),
+        'strings-in-parallel': number('strings in parallel on the DC bus (default: as many as the cells needed take)', '6').optional(),
+      },
+      'how the cells are connected: cells per stack, stacks in series in a string, strings in parallel on the DC bus',
+    ).optional(),
+    'feed-temperatures': strict(
+      {
+        fuel: quantity('temperature', 'temperature at which the fuel reaches the plant (default: the ambient temperature)').optional(),
+        air: quantity('temperature', 'temperature at which air reaches the plant (default: the ambient temperature)').optional(),
+        water: quantity('temperature', 'temperature of the feed water (default: the ambient temperature)').optional(),
+      },
+      'temperatures at which fuel, air and feed water reach the plant',
+    ).optional(),
+    'anode-recycle': strict(
+      {
+        ratio: fraction('share of the fuel-electrode off-gas returned to the fuel inlet, in (0, 1)'),
+        tolerance: number('relative change of the recycled flow at which the loop counts as solved (default 1e-9)', '1e-9').optional(),
+      },
+      'power mode, cells that reform at the fuel electrode: part of the fuel-electrode off-gas returned to the fuel inlet; fuel-utilization is then per pass through the stack',
+    ).optional(),
+    'off-gas-oxidiser': strict(
+      {
+        oxidant: choice(['air-electrode-exhaust', 'fresh-air'] as const, 'what burns the fuel-electrode off-gas: the air-electrode exhaust, or fresh air'),
+        'air-ratio': number('fresh air: oxygen fed per oxygen that complete combustion of the off-gas needs, above 1', '1.5').optional(),
+        'material-limit': quantity('temperature', 'highest outlet temperature the oxidiser and the duct after it are designed for, e.g. "950 C"'),
+      },
+      'power mode: the burner of the fuel-electrode off-gas; its products at equilibrium at the adiabatic temperature',
+    ).optional(),
+    'heat-recovery': strict(
+      {
+        'exhaust-exit-temperature': quantity('temperature', 'temperature at which the exhaust leaves the heat recovery, e.g. "90 C"'),
+        'stack-heat': choice(['recovered', 'rejected'] as const, "whether the heat the stack's own cooling removes counts as delivered heat (recovered) or is rejected to ambient (default rejected)").optional(),
+        'minimum-approach': quantity('temperature-difference', "least temperature difference between the exhaust and a stream it heats (default 20 K, common practice)").optional(),
+      },
+      "power mode: the exhaust heats the plant's feeds first (steam, fuel, air, pre-reformer) and the rest is delivered as heat, down to the exit temperature",
+    ).optional(),
+    'air-blower': strict(
+      {
+        'isentropic-efficiency': fraction('isentropic efficiency of the blower, in (0, 1], e.g. "70 %"'),
+        'inlet-pressure': quantity('pressure', 'pressure the air is drawn in at (default 1.01325 bar, the standard atmosphere)').optional(),
+      },
+      'power mode: the blower that raises the air from its inlet pressure to the air-electrode pressure (one adiabatic stage, ideal gas, species data); its power is reported beside the parasitic load, which it is part of',
+    ).optional(),
+    'heat-loss': fraction('heat lost to ambient from the hot equipment, as a share of the fuel LHV input (power) or of the electric input (electrolysis) (default 0)').optional(),
+    'heat-supply': choice(
+      ['electric', 'external'] as const,
+      'electrolysis: where the heat of the feed heaters, the evaporator and the stack below thermoneutral comes from: electric heaters (counted in the specific energy) or heat from outside the plant (default electric)',
+    ).optional(),
+    'hydrogen-compression': strict(
+      {
+        'delivery-pressure': quantity('pressure', 'pressure the hydrogen is delivered at, e.g. "30 bar"'),
+        stages: number('compression stages, intercooled (a whole number from 1 to 10)', '2'),
+        'isentropic-efficiency': fraction('isentropic efficiency of each stage, in (0, 1], e.g. "75 %"'),
+        'inlet-temperature': quantity('temperature', 'the product gas is cooled to this temperature and dried ahead of the first stage (default 40 C)').optional(),
+        'intercooling-temperature': quantity('temperature', 'gas temperature after each intercooler and the after-cooler (default: the inlet temperature)').optional(),
+      },
+      'electrolysis: the hydrogen product cooled, dried and compressed in intercooled stages (ideal gas, species data)',
+    ).optional(),
+  },
+  'the plant around the stack: electrical layout, feed preparation, off-gas oxidiser, anode recycle, heat recovery, hydrogen compression. Absent blocks are left out of the plant balance',
 );
 
 const sensitivitySection = strict(
@@ -291,6 +374,7 @@ export const basisSchema = strict(
     mixtures: z.record(z.string(), mixture).meta({ description: 'named compositions defined by this project, e.g. site-natural-gas' }).optional(),
     streams: streamsSection.optional(),
     'operating-point': operatingPointSection,
+    plant: plantSection.optional(),
     sensitivity: sensitivitySection.optional(),
     cases: casesSection.optional(),
     assumptions: z.array(assumption).meta({ description: 'assumptions, each with an id; open: true marks those still to verify' }).optional(),

@@ -36,7 +36,9 @@ function fuelTreatment(basis: DesignBasis): SummaryRow[] {
   if (!fuel || basis.cell.mode !== 'power') return [];
   const steam =
     fuel.steamToCarbon !== undefined ? `steam-to-carbon ${num(fuel.steamToCarbon)}` : fuel.steamPerMoleFuel !== undefined ? `${num(fuel.steamPerMoleFuel)} mol steam per mol fuel` : 'no steam added';
-  const reformer = fuel.preReforming.kind === 'equilibrium' ? `equilibrium pre-reformer at ${temperature(fuel.preReforming.temperatureK)}` : 'no pre-reformer';
+  const pre = fuel.preReforming;
+  const reformer =
+    pre.kind === 'equilibrium' ? `equilibrium pre-reformer at ${temperature(pre.temperatureK)}` : pre.kind === 'adiabatic' ? `adiabatic pre-reformer, inlet at ${temperature(pre.inletTemperatureK)}` : 'no pre-reformer';
   return [['fuel treatment', `${steam}; ${reformer}`]];
 }
 

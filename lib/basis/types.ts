@@ -63,7 +63,12 @@ export interface Conditions {
   ambientTemperatureK: number;
 }
 
-export type PreReforming = { kind: 'none' } | { kind: 'equilibrium'; temperatureK: number };
+/**
+ * The pre-reformer ahead of the stack: none; at equilibrium at a given outlet temperature (its
+ * feed heated to that temperature, the reactor heated or cooled to hold it: a duty); or
+ * adiabatic, its feed entering at a given temperature and the outlet temperature solved.
+ */
+export type PreReforming = { kind: 'none' } | { kind: 'equilibrium'; temperatureK: number } | { kind: 'adiabatic'; inletTemperatureK: number };
 
 export interface FuelStream {
   /** Mixture name if the composition came from a preset or a named mixture of the basis. */
@@ -150,8 +155,53 @@ export interface OperatingPoint {
   size: StackSize;
   /** When both a cell count and a target were given (and agree within 2 %), the cell count. */
   statedCells?: number;
-  /** Fraction of the gross DC power used by the balance of plant (power mode), in [0, 1). */
+  /** Fraction of the stack DC power the balance of plant draws (from the AC side), in [0, 1). */
   parasiticFraction: number;
+  /** Efficiency of the power conversion between the stack's DC and the plant's AC (inverter or rectifier), in (0, 1]; 1 when not given. */
+  conversionEfficiency: number;
+}
+
+/** How the stacks are connected (plant.electrical); what is not given is derived. */
+export interface ElectricalInput {
+  cellsPerStack?: number;
+  stacksInSeries?: number;
+  /** DC bus voltage window from which the stacks in series are derived, V. */
+  busVoltageWindowV?: { minV: number; maxV: number };
+  stringsInParallel?: number;
+}
+
+/** What burns the fuel-electrode off-gas: the air-electrode exhaust, or fresh air at a ratio to the oxygen complete combustion needs. */
+export type OffGasOxidant = { kind: 'air-electrode-exhaust' } | { kind: 'fresh-air'; airRatio: number };
+
+/** Hydrogen compression after the product cooler and dryer (electrolysis). */
+export interface CompressionInput {
+  deliveryPressureBar: number;
+  stages: number;
+  isentropicEfficiency: number;
+  /** Temperature the product gas is cooled to ahead of the first stage, and between stages, K. */
+  inletTemperatureK: number;
+  intercoolTemperatureK: number;
+}
+
+/** The plant around the stack (the `plant:` section), SI, defaults filled in. */
+export interface PlantInput {
+  electrical: ElectricalInput;
+  /** Temperatures at which fuel, air and feed water reach the plant, K (default: the ambient temperature). */
+  fuelSupplyTemperatureK: number;
+  airSupplyTemperatureK: number;
+  feedWaterTemperatureK: number;
+  /** Power mode, cells that reform at the fuel electrode: share of the fuel-electrode off-gas returned to the fuel inlet. */
+  anodeRecycle: { ratio: number; tolerance: number } | null;
+  offGasOxidiser: { oxidant: OffGasOxidant; materialLimitK: number } | null;
+  /** Power mode: the exhaust cooled to this temperature, the heat used by the plant's heaters first and the rest delivered. */
+  heatRecovery: { exhaustExitTemperatureK: number; stackHeat: 'recovered' | 'rejected'; minimumApproachK: number } | null;
+  /** Power mode: the blower that raises the air from its inlet pressure to the air-electrode pressure; null when not given. */
+  airBlower: { isentropicEfficiency: number; inletPressureBar: number } | null;
+  /** Heat lost to ambient, as a fraction of the fuel's LHV input (power) or of the electric input (electrolysis). */
+  heatLossFraction: number;
+  /** Electrolysis: where the heat of the feed heaters and of the stack below thermoneutral comes from. */
+  heatSupply: 'electric' | 'external';
+  hydrogenCompression: CompressionInput | null;
 }
 
 export interface Sensitivity {
@@ -292,6 +342,8 @@ export interface DesignBasis {
    */
   airElectrode: AirStream | null;
   operatingPoint: OperatingPoint;
+  /** The plant around the stack (the `plant:` section, defaults where it is absent). */
+  plant: PlantInput;
   sensitivity: Sensitivity;
   assumptions: Assumption[];
   references: Reference[];

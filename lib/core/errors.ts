@@ -55,7 +55,29 @@ export class ConvergenceError extends UserError {
  * libraries name it in these words, below the basis format; lib/plant/located-error.ts turns
  * each into the basis field where the message is shown.
  */
-export type CalculationInput = 'utilization' | 'fuel-electrode-feed' | 'air-electrode-feed' | 'cell-voltage' | 'area-specific-resistance' | 'cells' | 'ionic-transference-number';
+export type CalculationInput =
+  | 'utilization'
+  | 'fuel-electrode-feed'
+  | 'air-electrode-feed'
+  | 'cell-voltage'
+  | 'area-specific-resistance'
+  | 'cells'
+  | 'ionic-transference-number'
+  | 'pre-reforming'
+  | 'anode-recycle'
+  | 'cells-per-stack'
+  | 'stacks-in-series'
+  | 'dc-bus-window'
+  | 'strings-in-parallel'
+  | 'power-conversion-efficiency'
+  | 'fuel-supply-temperature'
+  | 'air-supply-temperature'
+  | 'feed-water-temperature'
+  | 'off-gas-oxidiser'
+  | 'oxidiser-air-ratio'
+  | 'exhaust-exit-temperature'
+  | 'hydrogen-compression'
+  | 'compressor-inlet-temperature';
 
 /** An input that passed validation but that the calculation cannot meet: the message says why, `field` which input. */
 export class CalculationError extends UserError {

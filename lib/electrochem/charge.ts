@@ -10,8 +10,12 @@ import type { Species } from '../thermo/species-data.ts';
 import { getSpecies } from '../thermo/species-data.ts';
 
 export function electronsPerMolecule(species: Species): number {
-  const f = species.formula;
-  return 4 * (f.C ?? 0) + (f.H ?? 0) - 2 * (f.O ?? 0);
+  return electronsOfElements(species.formula);
+}
+
+/** The same count for an amount of each element (element symbol → mol, or mol/s): 4 n_C + n_H − 2 n_O. */
+export function electronsOfElements(elements: Readonly<Record<string, number>>): number {
+  return 4 * (elements.C ?? 0) + (elements.H ?? 0) - 2 * (elements.O ?? 0);
 }
 
 /** Σ ṅ_i z_i over a stream (species label → mol/s): mol of electrons per second on full oxidation. */

@@ -61,6 +61,26 @@ export function equilibrate(request: EquilibriumRequest): Equilibrium {
   return describe(system, temperatureK, pressureBar, raw);
 }
 
+/**
+ * Equilibrium of a gas given by its element amounts (element symbol → mol, or mol/s) rather
+ * than by species: what a gas becomes once a known amount of each element has been added to or
+ * taken from it (an electrode's exchange, a recycle loop balanced on elements).
+ */
+export function equilibrateElements(request: { temperatureK: number; pressureBar: number; elements: Readonly<Record<string, number>> }): Equilibrium {
+  const { temperatureK, pressureBar, elements } = request;
+  const names = Object.keys(elements).filter((e) => elements[e]! > 0);
+  for (const [e, amount] of Object.entries(elements)) {
+    if (!Number.isFinite(amount) || amount < 0) throw new UserError(`equilibrium: the amount of element ${e} must be a non-negative number, got ${amount}`);
+  }
+  if (!names.length) throw new UserError('equilibrium: no element has a positive amount');
+  if (!(pressureBar > 0)) throw new UserError(`equilibrium: pressure must be positive, got ${pressureBar} bar`);
+  const system = systemFor(names);
+  const b = new Float64Array(system.elements.length);
+  system.elements.forEach((e, i) => (b[i] = elements[e] ?? 0));
+  const raw = minimiseGibbs(system, gasGibbsOverRT(system, temperatureK), Math.log(pressureBar), b, system.graphite ? gOverRT(system.graphite, temperatureK) : 0, { allowGraphite: false });
+  return describe(system, temperatureK, pressureBar, raw);
+}
+
 /** Names the result of a minimisation by species label. */
 export function describe(system: ChemicalSystem, temperatureK: number, pressureBar: number, raw: MinimiserResult): Equilibrium {
   const moleFractions: Record<string, number> = {};

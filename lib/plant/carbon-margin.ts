@@ -16,10 +16,11 @@ export function carbonMargin(point: DesignPoint): Results['carbon'] & { minimum:
     return pathHasCarbon ? { ...none, maxCarbonActivity: point.path.maxCarbonActivity, inletCarbonActivity: point.path.points[0]!.carbonActivity } : none;
   }
   const stack = minimumSteamToCarbon(dry, inputs.temperatureK, inputs.fuelPressureBar).minimumSteamToCarbon;
-  const preT = inputs.preReforming.kind === 'equilibrium' ? inputs.preReforming.temperatureK : null;
+  // The pre-reformer's outlet temperature: stated, or solved for an adiabatic one.
+  const preT = point.unit.preReformer?.outletTemperatureK ?? null;
   const pre = preT === null ? null : minimumSteamToCarbon(dry, preT, inputs.fuelPressureBar).minimumSteamToCarbon;
   const minimum = Math.max(stack, pre ?? 0);
-  const preActivity = preT === null || !point.unit.fuelRaw ? null : equilibriumCarbonActivity(point.unit.fuelRaw, preT, inputs.fuelPressureBar);
+  const preActivity = preT === null ? null : equilibriumCarbonActivity(point.unit.preReformer!.feed, preT, inputs.fuelPressureBar);
   return {
     steamToCarbon: inputs.steamToCarbon ?? null,
     minimumSteamToCarbonStack: stack,

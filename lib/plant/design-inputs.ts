@@ -24,6 +24,8 @@ export interface DesignInputs extends OperatingPoint {
   fuelFeed: Record<string, number> | null;
   steamToCarbon?: number;
   preReforming: PreReforming;
+  /** Share of the fuel-electrode off-gas returned to the fuel inlet and the tolerance its loop must close to; null without a recycle. */
+  anodeRecycle: { ratio: number; tolerance: number } | null;
   airFeed: Record<string, number> | null;
   ionicTransferenceNumber: number;
   crossoverAllowanceV: number;
@@ -63,6 +65,7 @@ export function designInputs(basis: DesignBasis): DesignInputs {
     fuelFeed: fuel.feed,
     ...(basis.fuelElectrode?.steamToCarbon !== undefined ? { steamToCarbon: basis.fuelElectrode.steamToCarbon } : {}),
     preReforming: basis.fuelElectrode?.preReforming ?? { kind: 'none' },
+    anodeRecycle: basis.plant.anodeRecycle,
     airFeed: airOf(basis.airElectrode),
     ...op,
     // The law's reference is the operating temperature of the basis unless it names another.

@@ -19,6 +19,7 @@ import { electrolysisEfficiency, powerEfficiency, type ElectrolysisEfficiency, t
 import { gasFlow, scaled, totalFlow, type Stream } from './streams.ts';
 import { finding, type Finding } from './findings.ts';
 import { AGREEMENT } from './sizing.ts';
+import { CalculationError } from '../core/errors.ts';
 
 export interface DesignPoint {
   inputs: DesignInputs;
@@ -51,6 +52,8 @@ export interface DesignPoint {
   coolingWaterMolPerS: number | null;
   power: PowerEfficiency | null;
   electrolysis: (ElectrolysisEfficiency & { hydrogenMolPerS: number; oxygenMolPerS: number; carbonMonoxideMolPerS: number; methaneMolPerS: number }) | null;
+  /** The anode off-gas recycle: its ratio and how far the recycle fed differs from that share of the fuel path's off-gas (relative to the recycled flow); null without one. */
+  recycle: { ratio: number; residual: number } | null;
   findings: Finding[];
 }
 
@@ -104,13 +107,14 @@ function unitPath(inputs: DesignInputs, unit: UnitFeeds): FuelPath {
 }
 
 /**
- * What one cell delivers of a target's quantity at the voltage: net power (power mode, after the
- * balance-of-plant share), input power (electrolysis), or hydrogen, kg/s, from its ionic current.
+ * What one cell delivers of a target's quantity at the voltage: net AC power (power mode, after the
+ * inverter and the balance-of-plant share), AC input power (electrolysis, the rectifier's and the
+ * balance of plant's included; plantPowerShare), or hydrogen, kg/s, from its ionic current.
  */
 export function deliveredPerCell(inputs: DesignInputs, path: FuelPath, voltage: OperatingVoltage, target: 'power' | 'hydrogen'): number {
   const power = inputs.mode === 'power';
   const cellPowerW = voltage.cellVoltageV * inputs.currentDensityAPerM2 * inputs.activeAreaM2;
-  if (target === 'power') return power ? cellPowerW * (1 - inputs.parasiticFraction) : cellPowerW;
+  if (target === 'power') return cellPowerW * plantPowerShare(inputs);
   const cellIonicCurrentA = voltage.ionicCurrentDensityAPerM2 * inputs.activeAreaM2;
   const unitHydrogen = power ? 0 : Math.max(0, (path.fuelOutlet.H2 ?? 0) - (path.fuelInlet.H2 ?? 0));
   return unitHydrogen * (cellIonicCurrentA / path.currentA) * getSpecies('H2').molarMassKgPerMol;
@@ -143,8 +147,18 @@ function stackSize(inputs: DesignInputs, path: FuelPath) {
     ionicCurrentA,
     scale: ionicCurrentA / path.currentA,
     stackPowerW,
-    netPowerW: power ? stackPowerW * (1 - inputs.parasiticFraction) : stackPowerW,
+    netPowerW: stackPowerW * plantPowerShare(inputs),
   };
+}
+
+/**
+ * The plant's AC power per unit of stack DC power. Power mode: the inverter converts the stack's
+ * DC output with efficiency η and the balance of plant draws the share f of the stack DC power
+ * from the AC side, P_net = P_DC (η − f). Electrolysis: the rectifier draws P_DC/η and the
+ * balance of plant f P_DC more, P_in = P_DC (1/η + f). With η = 1 and f = 0 both are P_DC.
+ */
+export function plantPowerShare(inputs: Pick<DesignInputs, 'mode' | 'conversionEfficiency' | 'parasiticFraction'>): number {
+  return inputs.mode === 'power' ? inputs.conversionEfficiency - inputs.parasiticFraction : 1 / inputs.conversionEfficiency + inputs.parasiticFraction;
 }
 
 /** The process streams on the stack scale: the pre-reformer's, the inlets, and the outlets (of a liquid-water cell with their vapour and liquid water). */
@@ -156,9 +170,9 @@ function stackStreams(inputs: DesignInputs, unit: UnitFeeds, path: FuelPath, sca
   const inlets: Stream[] = [];
   const outlets: Stream[] = [];
   const extra: Stream[] = [];
-  if (unit.fuelRaw && inputs.preReforming.kind === 'equilibrium') {
-    extra.push(stream('fuel-feed', 'fuel feed to the pre-reformer', inputs.preReforming.temperatureK, p.fuel, scaled(unit.fuelRaw, scale)));
-    extra.push(stream('pre-reformer-outlet', 'pre-reformer outlet', inputs.preReforming.temperatureK, p.fuel, scaled(unit.fuelStackInlet!, scale)));
+  if (unit.preReformer) {
+    extra.push(stream('fuel-feed', 'fuel feed to the pre-reformer', unit.preReformer.inletTemperatureK, p.fuel, scaled(unit.preReformer.feed, scale)));
+    extra.push(stream('pre-reformer-outlet', 'pre-reformer outlet', unit.preReformer.outletTemperatureK, p.fuel, scaled(unit.fuelStackInlet!, scale)));
   }
   const fuelInletFlows = unit.fuelStackInlet ? scaled(unit.fuelStackInlet, scale) : null;
   const airInletFlows = unit.air ? scaled(unit.air, scale) : null;
@@ -294,11 +308,31 @@ export function unitStage(inputs: DesignInputs): UnitStage {
   return { unit, path: unitPath(inputs, unit) };
 }
 
+/**
+ * The recycle loop as the fuel path closes it: the largest difference between the recycle fed
+ * and the ratio's share of the path's off-gas, over the recycled flow; refused above the basis's
+ * tolerance.
+ */
+function recycleResidual(inputs: DesignInputs, unit: UnitFeeds, path: FuelPath): DesignPoint['recycle'] {
+  if (!inputs.anodeRecycle || !unit.recycle) return null;
+  const { ratio, tolerance } = inputs.anodeRecycle;
+  const total = totalFlow(unit.recycle);
+  let worst = 0;
+  for (const label of new Set([...Object.keys(unit.recycle), ...Object.keys(path.fuelOutlet)])) {
+    worst = Math.max(worst, Math.abs((path.fuelOutlet[label] ?? 0) * ratio - (unit.recycle[label] ?? 0)) / total);
+  }
+  if (worst > tolerance) {
+    throw new CalculationError(`the anode recycle loop closes only to ${worst.toExponential(2)} of the recycled flow, above the tolerance ${tolerance}`, 'anode-recycle');
+  }
+  return { ratio, residual: worst };
+}
+
 /** The design point; `stage` is the unit stage of the same inputs when already evaluated (cases that share one). */
 export function evaluateDesignPoint(inputs: DesignInputs, stage: UnitStage = unitStage(inputs)): DesignPoint {
   const power = inputs.mode === 'power';
   const findings: Finding[] = [];
   const { unit, path } = stage;
+  const recycle = recycleResidual(inputs, unit, path);
   const size = stackSize(inputs, path);
   const { voltage, sizing, totalCurrentA, ionicCurrentA, scale, stackPowerW, netPowerW } = size;
   const streams = stackStreams(inputs, unit, path, scale, ionicCurrentA, findings);
@@ -343,6 +377,7 @@ export function evaluateDesignPoint(inputs: DesignInputs, stage: UnitStage = uni
     coolingWaterMolPerS: waterLoop,
     power: powerEff,
     electrolysis,
+    recycle,
     findings,
   };
 }

@@ -16,7 +16,7 @@ function role(id: string, point: DesignPoint): StreamRole {
     case 'pre-reformer-outlet':
       return 'internal';
     case 'fuel-inlet':
-      return point.inputs.preReforming.kind === 'equilibrium' ? 'internal' : 'feed';
+      return point.inputs.preReforming.kind === 'none' ? 'feed' : 'internal';
     case 'air-inlet':
       return 'feed';
     default:

@@ -48,6 +48,21 @@ function fieldOf(basis: DesignBasis, input: CalculationInput): string {
     'area-specific-resistance': 'operating-point.area-specific-resistance',
     cells: 'operating-point.cells',
     'ionic-transference-number': 'cell.ionic-transference-number',
+    'pre-reforming': 'streams.fuel-electrode.pre-reforming',
+    'anode-recycle': 'plant.anode-recycle.tolerance',
+    'cells-per-stack': 'plant.electrical.cells-per-stack',
+    'stacks-in-series': 'plant.electrical.stacks-in-series',
+    'dc-bus-window': 'plant.electrical.dc-bus-window',
+    'strings-in-parallel': 'plant.electrical.strings-in-parallel',
+    'power-conversion-efficiency': 'operating-point.power-conversion-efficiency',
+    'fuel-supply-temperature': 'plant.feed-temperatures.fuel',
+    'air-supply-temperature': 'plant.feed-temperatures.air',
+    'feed-water-temperature': 'plant.feed-temperatures.water',
+    'off-gas-oxidiser': 'plant.off-gas-oxidiser',
+    'oxidiser-air-ratio': 'plant.off-gas-oxidiser.air-ratio',
+    'exhaust-exit-temperature': 'plant.heat-recovery.exhaust-exit-temperature',
+    'hydrogen-compression': 'plant.hydrogen-compression.delivery-pressure',
+    'compressor-inlet-temperature': 'plant.hydrogen-compression.inlet-temperature',
   };
   return fields[input];
 }

@@ -123,7 +123,7 @@ export function steamToCarbonSweep(point: DesignPoint, count = 25): Sweeps['stea
   const inputs = point.inputs;
   if (inputs.mode !== 'power' || !inputs.dryFuel || inputs.steamToCarbon === undefined) return [];
   const top = Math.max(3, 1.5 * inputs.steamToCarbon);
-  const pre = inputs.preReforming.kind === 'equilibrium' ? inputs.preReforming.temperatureK : null;
+  const pre = point.unit.preReformer?.outletTemperatureK ?? null;
   const stackChain = {};
   const preChain = {};
   return linspace(top / count, top, count).map((s) => {

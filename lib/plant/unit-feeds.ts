@@ -10,18 +10,43 @@
  *
  * (e.g. Larminie & Dicks, Fuel Cell Systems Explained, 2nd ed., App. 2.) The fuel path and the
  * stack are linear in scale, so the design point scales these by the current.
+ *
+ * Pre-reformer: at equilibrium at its stated temperature, or adiabatic (lib/equilibrium/
+ * adiabatic.ts: the outlet at equilibrium at the temperature where it carries the enthalpy of
+ * the feed entering at the stated inlet temperature).
+ *
+ * Anode off-gas recycle (cells that reform at the fuel electrode): a share r of the off-gas
+ * returns to the fuel inlet, ahead of the pre-reformer. The off-gas leaves at equilibrium at the
+ * stack temperature with the elements of the stack inlet plus what the electrolyte carried in,
+ * which is linear in the elements (b) of the inlet; with the charge basis z(b) = 4 b_C + b_H − 2 b_O
+ * (lib/electrochem/charge.ts), the exchange d per electron (electrolyte-exchange.ts) and the
+ * per-pass utilization U:
+ *   b_out = b_S + U z(b_S) d,   b_S = b_F + b_R,   b_R = r b_out
+ *   ⇒ [(1 − r) I − r U d zᵀ] b_R = r (b_F + U z(b_F) d)
+ * solved exactly by the Sherman–Morrison formula (Press et al., Numerical Recipes, 3rd ed., §2.7.1):
+ *   b_R = r/(1 − r) · [c + r U d (zᵀc) / ((1 − r) − r U zᵀd)],   c = b_F + U z(b_F) d
+ * The recycled gas is the off-gas equilibrium of b_out at the stack temperature and fuel pressure,
+ * scaled by r. The fuel utilization of the basis is then per pass; the design point checks the
+ * off-gas of its own fuel path against this recycle to the basis's tolerance.
  */
 import { FARADAY_C_PER_MOL as F } from '../thermo/constants.ts';
-import { electronsOfStream } from '../electrochem/charge.ts';
-import { equilibrate } from '../equilibrium/equilibrate.ts';
+import { getSpecies } from '../thermo/species-data.ts';
+import { electronsOfElements, electronsOfStream } from '../electrochem/charge.ts';
+import { equilibrate, equilibrateElements } from '../equilibrium/equilibrate.ts';
+import { adiabaticEquilibrium } from '../equilibrium/adiabatic.ts';
+import { exchangeFor } from '../equilibrium/electrolyte-exchange.ts';
 import type { DesignInputs } from './design-inputs.ts';
 import { CalculationError } from '../core/errors.ts';
 
 export interface UnitFeeds {
   /** Fuel-electrode feed as it enters the stack (after any pre-reformer), mol/s. */
   fuelStackInlet: Record<string, number> | null;
-  /** Fuel-electrode feed before the pre-reformer (the same when there is none), mol/s. */
+  /** Fresh fuel-electrode feed (fuel and steam), before the recycle joins it and before the pre-reformer, mol/s. */
   fuelRaw: Record<string, number> | null;
+  /** The recycled off-gas joining the fresh feed ahead of the pre-reformer, mol/s; null without a recycle. */
+  recycle: Record<string, number> | null;
+  /** The pre-reformer's feed (fresh feed and recycle) and its outlet temperature, K; null without a pre-reformer. */
+  preReformer: { feed: Record<string, number>; inletTemperatureK: number; outletTemperatureK: number; energyBalanceError: number } | null;
   /** Air-electrode feed, mol/s. */
   air: Record<string, number> | null;
   /** Charge for U = 1 on this scale, A. */
@@ -34,10 +59,46 @@ function times(composition: Readonly<Record<string, number>>, flow: number): Rec
   return Object.fromEntries(Object.entries(composition).map(([k, v]) => [k, v * flow]));
 }
 
-function preReform(inputs: DesignInputs, feed: Record<string, number>): Record<string, number> {
-  if (inputs.preReforming.kind === 'none') return feed;
-  const e = equilibrate({ temperatureK: inputs.preReforming.temperatureK, pressureBar: inputs.fuelPressureBar, feed });
-  return e.amounts;
+/** The pre-reformer's outlet (the feed itself without one) and its temperatures. */
+function preReform(inputs: DesignInputs, feed: Record<string, number>): { outlet: Record<string, number>; preReformer: UnitFeeds['preReformer'] } {
+  const kind = inputs.preReforming;
+  if (kind.kind === 'none') return { outlet: feed, preReformer: null };
+  if (kind.kind === 'equilibrium') {
+    const e = equilibrate({ temperatureK: kind.temperatureK, pressureBar: inputs.fuelPressureBar, feed });
+    return { outlet: e.amounts, preReformer: { feed, inletTemperatureK: kind.temperatureK, outletTemperatureK: kind.temperatureK, energyBalanceError: 0 } };
+  }
+  const e = adiabaticEquilibrium({ reactants: [{ amounts: feed, temperatureK: kind.inletTemperatureK }], pressureBar: inputs.fuelPressureBar });
+  return { outlet: e.amounts, preReformer: { feed, inletTemperatureK: kind.inletTemperatureK, outletTemperatureK: e.temperatureK, energyBalanceError: e.energyBalanceError } };
+}
+
+function elementsOf(stream: Readonly<Record<string, number>>): Record<string, number> {
+  const out: Record<string, number> = {};
+  for (const [label, amount] of Object.entries(stream)) {
+    if (amount === 0) continue;
+    for (const [element, count] of Object.entries(getSpecies(label).formula)) out[element] = (out[element] ?? 0) + amount * count;
+  }
+  return out;
+}
+
+function combined(a: Readonly<Record<string, number>>, b: Readonly<Record<string, number>>, times = 1): Record<string, number> {
+  const out = { ...a };
+  for (const [k, v] of Object.entries(b)) out[k] = (out[k] ?? 0) + v * times;
+  return out;
+}
+
+/** The recycled off-gas for a fresh feed, by the element balance of the loop (module comment), mol/s. */
+export function recycledOffGas(inputs: DesignInputs, fresh: Readonly<Record<string, number>>): Record<string, number> {
+  const r = inputs.anodeRecycle!.ratio;
+  const U = inputs.utilization;
+  const d = exchangeFor(inputs.technology.ion).fuelElements;
+  const bF = elementsOf(fresh);
+  const c = combined(bF, d, U * electronsOfElements(bF));
+  const bR = combined(c, d, (r * U * electronsOfElements(c)) / (1 - r - r * U * electronsOfElements(d)));
+  for (const e of Object.keys(bR)) bR[e]! *= r / (1 - r);
+  const inlet = combined(bF, bR);
+  const outlet = combined(inlet, d, U * electronsOfElements(inlet));
+  const offGas = equilibrateElements({ temperatureK: inputs.temperatureK, pressureBar: inputs.fuelPressureBar, elements: outlet });
+  return Object.fromEntries(Object.entries(offGas.amounts).map(([k, v]) => [k, v * r]));
 }
 
 const WATER = (feed: Readonly<Record<string, number>>) => (feed.H2O ?? 0) + (feed['H2O(L)'] ?? 0);
@@ -48,12 +109,15 @@ export function unitFeeds(inputs: DesignInputs): UnitFeeds {
     if (!inputs.fuelFeed) throw new CalculationError('power mode needs a fuel-electrode feed', 'fuel-electrode-feed');
     if (!inputs.airFeed) throw new CalculationError('power mode needs an air-electrode feed', 'air-electrode-feed');
     const raw = { ...inputs.fuelFeed };
-    const chargeA = F * electronsOfStream(raw);
+    const recycle = inputs.anodeRecycle ? recycledOffGas(inputs, raw) : null;
+    const mixed = recycle ? combined(raw, recycle) : raw;
+    const chargeA = F * electronsOfStream(mixed);
     const o2Consumed = (u * chargeA) / (4 * F);
     const o2Supplied = inputs.air.kind === 'ratio' ? o2Consumed * inputs.air.value : inputs.air.kind === 'utilization' ? o2Consumed / inputs.air.value : o2Consumed;
     const xO2 = inputs.airFeed.O2 ?? 0;
     if (!(xO2 > 0)) throw new CalculationError('the air-electrode feed contains no O2', 'air-electrode-feed');
-    return { fuelStackInlet: preReform(inputs, raw), fuelRaw: raw, air: times(inputs.airFeed, o2Supplied / xO2), chargeA, basis: 'fuel' };
+    const reformed = preReform(inputs, mixed);
+    return { fuelStackInlet: reformed.outlet, fuelRaw: raw, recycle, preReformer: reformed.preReformer, air: times(inputs.airFeed, o2Supplied / xO2), chargeA, basis: 'fuel' };
   }
   const waterSide = tech.waterElectrode;
   // Alkaline cells hold their water in the electrolyte: a liquid-water feed stands for the make-up.
@@ -68,6 +132,6 @@ export function unitFeeds(inputs: DesignInputs): UnitFeeds {
   const produced = waterSide === 'fuel' ? (u * chargeA) / (4 * F) : (u * chargeA) / (2 * F);
   const sweep = sweepSide && inputs.air.kind === 'sweep-ratio' ? times(sweepSide, inputs.air.value * produced) : null;
   return waterSide === 'fuel'
-    ? { fuelStackInlet: { ...waterFeed }, fuelRaw: { ...waterFeed }, air: sweep, chargeA, basis: 'fuel' }
-    : { fuelStackInlet: sweep, fuelRaw: sweep, air: { ...waterFeed }, chargeA, basis: 'air' };
+    ? { fuelStackInlet: { ...waterFeed }, fuelRaw: { ...waterFeed }, recycle: null, preReformer: null, air: sweep, chargeA, basis: 'fuel' }
+    : { fuelStackInlet: sweep, fuelRaw: sweep, recycle: null, preReformer: null, air: { ...waterFeed }, chargeA, basis: 'air' };
 }

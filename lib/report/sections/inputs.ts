@@ -42,7 +42,11 @@ function fuelRows(fuel: FuelStream, power: boolean, name: string): [string, stri
   const rows: [string, string][] = [[power ? 'Fuel (dry)' : capital(name), `${fuel.compositionName ? `${fuel.compositionName}: ` : ''}${composition(fuel.composition)}`]];
   if (fuel.steamToCarbon !== undefined) rows.push(['Steam addition', `steam-to-carbon ratio ${formatNumber(fuel.steamToCarbon)}`]);
   else if (fuel.steamPerMoleFuel !== undefined) rows.push(['Steam addition', `${formatNumber(fuel.steamPerMoleFuel)} mol per mol of fuel`]);
-  rows.push(['Pre-reforming', fuel.preReforming.kind === 'equilibrium' ? `equilibrium pre-reformer at ${formatTemperature(fuel.preReforming.temperatureK)}` : 'none']);
+  const pre = fuel.preReforming;
+  rows.push([
+    'Pre-reforming',
+    pre.kind === 'equilibrium' ? `equilibrium pre-reformer at ${formatTemperature(pre.temperatureK)}` : pre.kind === 'adiabatic' ? `adiabatic pre-reformer, inlet at ${formatTemperature(pre.inletTemperatureK)}` : 'none',
+  ]);
   rows.push(['Feed to the stack (before reforming)', composition(fuel.feed)]);
   return rows;
 }
