@@ -23,11 +23,102 @@ import { hazardInput } from './hazard-streams.ts';
 import { locateCalculationErrors } from './located-error.ts';
 import { enthalpyFlowW, gasFlow, gasMoleFractions, massFlowKgPerS, normalVolumeM3PerS, totalFlow, type Stream } from './streams.ts';
 import type { Results, StreamResult } from './results-schema.ts';
-import { finding, withAssumptions } from './findings.ts';
+import { finding, withAssumptions, type Finding } from './findings.ts';
 import { caseFindings, caseResults } from './cases.ts';
 import { envelopeOf } from './envelope.ts';
+import { plantBalance, type PlantBalance } from './plant-balance.ts';
 
 const HOUR = 3600;
+
+/** The plant section of the results: the layout, the numbered streams and the power plant's balance. */
+function plantOf(b: PlantBalance): Results['plant'] {
+  const e = b.electrical;
+  const q = b.power;
+  return {
+    electrical: {
+      cellsPerStack: e.cellsPerStack,
+      stacksInSeries: e.stacksInSeries,
+      stringsInParallel: e.stringsInParallel,
+      stackCount: e.stackCount,
+      requiredCells: e.requiredCells,
+      installedCells: e.installedCells,
+      stacksInSeriesFrom: e.stacksInSeriesFrom,
+      stringsInParallelFrom: e.stringsInParallelFrom,
+      stackVoltage_V: e.stackVoltageV,
+      stackCurrent_A: e.stackCurrentA,
+      stackPower_W: e.stackPowerW,
+      stringVoltage_V: e.stringVoltageV,
+      stringCurrent_A: e.stringCurrentA,
+      busVoltage_V: e.busVoltageV,
+      busCurrent_A: e.busCurrentA,
+      dcPower_W: e.dcPowerW,
+      conversionEfficiency: e.conversionEfficiency,
+      acPower_W: e.acPowerW,
+      conversionLoss_W: e.conversionLossW,
+    },
+    streams: b.streams.map((s) => ({ number: s.number, ...streamResult(s) })),
+    power: q && {
+      mixingTemperature_K: q.mixingTemperatureK,
+      steam: q.steam && {
+        water_mol_per_s: q.steam.waterMolPerS,
+        water_kg_per_h: q.steam.waterMolPerS * getSpecies('H2O(L)').molarMassKgPerMol * HOUR,
+        saturationTemperature_K: q.steam.saturationTemperatureK,
+        latentHeat_J_per_mol: q.steam.latentHeatJPerMol,
+        liquidHeating_W: q.steam.liquidHeatingW,
+        evaporation_W: q.steam.evaporationW,
+        superheating_W: q.steam.superheatingW,
+      },
+      duties: q.duties.map((d) => ({ id: d.id, name: d.name, duty_W: d.dutyW, from_K: d.fromK, to_K: d.toK })),
+      netDuty_W: q.netDutyW,
+      blower: q.blower && {
+        inletPressure_bar: q.blower.inletPressureBar,
+        outletPressure_bar: q.blower.outletPressureBar,
+        inletTemperature_K: q.blower.inletTemperatureK,
+        outletTemperature_K: q.blower.outletTemperatureK,
+        flow_mol_per_s: q.blower.flowMolPerS,
+        isentropicEfficiency: q.blower.isentropicEfficiency,
+        power_W: q.blower.powerW,
+        parasiticAllowance_W: q.blower.parasiticAllowanceW,
+      },
+      stackHeat_W: q.stackHeatW,
+      stackHeatTo: q.stackHeatTo,
+      airExhaustTemperature_K: q.airExhaustTemperatureK,
+      oxidiser: q.oxidiser && {
+        oxidant: q.oxidiser.oxidant,
+        airRatio: q.oxidiser.airRatio,
+        freshAir_mol_per_s: q.oxidiser.freshAirMolPerS,
+        outletTemperature_K: q.oxidiser.outletTemperatureK,
+        materialLimit_K: q.oxidiser.materialLimitK,
+        pressure_bar: q.oxidiser.pressureBar,
+        moleFractions: q.oxidiser.moleFractions,
+        carbonMonoxide_ppm: q.oxidiser.carbonMonoxidePpm,
+        heatReleased_W: q.oxidiser.heatReleasedW,
+        energyBalanceError: q.oxidiser.energyBalanceError,
+      },
+      heatRecovery: q.heatRecovery && {
+        inletTemperature_K: q.heatRecovery.inletTemperatureK,
+        exitTemperature_K: q.heatRecovery.exitTemperatureK,
+        dewPoint_K: q.heatRecovery.dewPointK,
+        heatWithoutCondensation_W: q.heatRecovery.heatWithoutCondensationW,
+        heatWithCondensation_W: q.heatRecovery.heatWithCondensationW,
+        latentHeat_W: q.heatRecovery.latentHeatW,
+        condensate_kg_per_h: q.heatRecovery.condensedWaterKgPerS * HOUR,
+        deliveredHeat_W: q.heatRecovery.deliveredHeatW,
+      },
+      heatLoss_W: q.heatLossW,
+      chp: q.chp && {
+        netPower_W: q.chp.netPowerW,
+        deliveredHeat_W: q.chp.deliveredHeatW,
+        electricalEfficiencyLhv: q.chp.electricalLhv,
+        thermalEfficiencyLhv: q.chp.thermalLhv,
+        totalEfficiencyLhv: q.chp.totalLhv,
+        totalEfficiencyHhv: q.chp.totalHhv,
+        powerToHeat: q.chp.powerToHeat,
+      },
+      energyBalance: { in_W: q.energy.inW, out_W: q.energy.outW, residual: q.energy.residual, terms: q.energy.terms.map((t) => ({ name: t.name, value_W: t.valueW, side: t.side })) },
+    },
+  };
+}
 
 function streamResult(s: Stream): StreamResult {
   return {
@@ -300,8 +391,8 @@ function degradationOf({ point, inputs }: Computed): Results['degradation'] {
 }
 
 /** The findings of the design point and the one the carbon margin adds when it is negative, with the assumptions that bear on them. */
-function findingsOf({ point, inputs, carbon }: Computed, basis: DesignBasis): Results['findings'] {
-  const found = [...point.findings];
+function findingsOf({ point, inputs, carbon }: Computed, basis: DesignBasis, plantFindings: readonly Finding[]): Results['findings'] {
+  const found = [...point.findings, ...plantFindings];
   if (carbon.margin !== null && carbon.margin < 0) {
     found.push(
       finding(
@@ -319,8 +410,12 @@ function findingsOf({ point, inputs, carbon }: Computed, basis: DesignBasis): Re
 /** The sections of the results that every operating point has (the sizing case and every other case). */
 export type PointResults = Pick<Results, 'conditions' | 'headline' | 'electrochemistry' | 'operatingPoint' | 'streams' | 'efficiency' | 'heat' | 'carbon' | 'supply' | 'degradation' | 'findings'>;
 
-/** The sections of one operating point; `carbon` is its carbon margin when already found (a case on the same fuel gas). */
-export function pointResults(point: DesignPoint, basis: DesignBasis, carbon?: ReturnType<typeof carbonMargin>): PointResults {
+/**
+ * The sections of one operating point; `carbon` is its carbon margin when already found (a case on
+ * the same fuel gas); `plantFindings` those of the plant balance, which is built for the sizing
+ * case only.
+ */
+export function pointResults(point: DesignPoint, basis: DesignBasis, carbon?: ReturnType<typeof carbonMargin>, plantFindings: readonly Finding[] = []): PointResults {
   const c = computed(point, carbon);
   const margin = c.carbon;
   return {
@@ -341,7 +436,7 @@ export function pointResults(point: DesignPoint, basis: DesignBasis, carbon?: Re
     },
     supply: supplyOf(c),
     degradation: degradationOf(c),
-    findings: findingsOf(c, basis),
+    findings: findingsOf(c, basis, plantFindings),
   };
 }
 
@@ -365,7 +460,8 @@ function calculateResults(basis: DesignBasis): Results {
   const sizingCase = basis.cases.find((k) => k.sizing);
   const sizingBasis = sizingCase?.basis ?? basis;
   const point = evaluateBasis(sizingBasis);
-  const own = pointResults(point, sizingBasis);
+  const plant = locateCalculationErrors(sizingBasis, () => plantBalance(point, sizingBasis.plant));
+  const own = pointResults(point, sizingBasis, undefined, plant.findings);
   const findings = sizingCase ? caseFindings(own.findings, sizingCase) : own.findings;
   const cases = basis.cases.length ? caseResults(basis.cases, point, { ...own, findings }, pointResults) : [];
   const inputs = point.inputs;
@@ -410,6 +506,7 @@ function calculateResults(basis: DesignBasis): Results {
       steamToCarbon: steamToCarbonSweep(point),
     },
     sensitivities: sensitivities(point, basis.sensitivity),
+    plant: plantOf(plant),
     hazards: assessHazards(hazardInput(sizingBasis, point)),
     findings,
     cases,

@@ -64,6 +64,130 @@ const sensitivitySchema = z.object({
   note: z.string().nullable().describe('why a case could not be evaluated'),
 });
 
+const plantStreamSchema = streamSchema
+  .extend({ number: z.number().int().describe('the stream number of the block flow diagram and the heat-and-material balance') })
+  .describe('a numbered stream of the plant (the heat-and-material balance)');
+
+const dutySchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  duty_W: num('heat given to the stream (negative: heat the stream gives up)'),
+  from_K: num('temperature the stream enters at'),
+  to_K: num('temperature the stream leaves at'),
+});
+
+const electricalSchema = z
+  .object({
+    cellsPerStack: z.number().int(),
+    stacksInSeries: z.number().int(),
+    stringsInParallel: z.number().int(),
+    stackCount: z.number().int(),
+    requiredCells: z.number().int().describe('cells the design point needs (headline.cells)'),
+    installedCells: z.number().int().describe('stacks × cells per stack, at least the cells required; the balance is evaluated on the cells required'),
+    stacksInSeriesFrom: z.enum(['given', 'bus-voltage-window']),
+    stringsInParallelFrom: z.enum(['given', 'required-cells']),
+    stackVoltage_V: num('terminal voltage of one stack: cells per stack × cell voltage'),
+    stackCurrent_A: num('current through one stack: one cell\'s current'),
+    stackPower_W: num('power of one stack'),
+    stringVoltage_V: num('voltage of one string: stacks in series × stack voltage'),
+    stringCurrent_A: num('current of one string: one cell\'s current'),
+    busVoltage_V: num('DC bus voltage: the string voltage'),
+    busCurrent_A: num('DC bus current: strings × string current'),
+    dcPower_W: num('bus voltage × bus current, with every installed cell at the design point'),
+    conversionEfficiency: num('inverter (power) or rectifier (electrolysis) efficiency'),
+    acPower_W: num('AC power of the installed array: delivered η P_DC (power) or drawn P_DC/η (electrolysis)'),
+    conversionLoss_W: num('power lost in the conversion'),
+  })
+  .describe('how the cells are connected and the voltage and current of each level (lib/flowsheet/electrical-layout.ts)');
+
+const powerPlantSchema = z
+  .object({
+    mixingTemperature_K: num('temperature the fuel, steam and any recycle are mixed and heated to: the pre-reformer inlet, else the fuel-electrode inlet'),
+    steam: z
+      .object({
+        water_mol_per_s: num('feed water raised to steam'),
+        water_kg_per_h: num('feed water raised to steam'),
+        saturationTemperature_K: num('saturation temperature at the fuel-electrode pressure (IAPWS-IF97 region 4)'),
+        latentHeat_J_per_mol: num('h°(H2O, gas) − h°(H2O, liquid) at the saturation temperature, species data'),
+        liquidHeating_W: num('feed water heated to saturation'),
+        evaporation_W: num('feed water evaporated at saturation'),
+        superheating_W: num('steam heated from saturation to the mixing temperature'),
+      })
+      .nullable()
+      .describe('steam raising; null without steam addition'),
+    duties: z.array(dutySchema).describe('every heater and reactor of the fuel and air preparation'),
+    netDuty_W: num('Σ of the duties'),
+    blower: z
+      .object({
+        inletPressure_bar: num('blower inlet pressure'),
+        outletPressure_bar: num('blower outlet pressure: the air-electrode pressure'),
+        inletTemperature_K: num('air supply temperature'),
+        outletTemperature_K: num('air temperature after the blower'),
+        flow_mol_per_s: num('air through the blower: the stack air and any fresh oxidiser air'),
+        isentropicEfficiency: num('isentropic efficiency of the stage'),
+        power_W: num('power given to the air (one adiabatic stage, species data)'),
+        parasiticAllowance_W: num('parasitic load × stack DC power: the allowance the blower is part of'),
+      })
+      .nullable(),
+    stackHeat_W: num('heat the stack releases with its inlets as fed (heat.asFedHeat_W)'),
+    stackHeatTo: z.enum(['air-electrode exhaust', 'recovered', 'rejected']).describe('where the stack heat goes'),
+    airExhaustTemperature_K: num('air-electrode exhaust temperature: carrying the stack heat (air-cooled cells) or at the stack temperature'),
+    oxidiser: z
+      .object({
+        oxidant: z.enum(['air-electrode-exhaust', 'fresh-air']),
+        airRatio: nullableNum('fresh air: O2 fed per O2 complete combustion needs'),
+        freshAir_mol_per_s: nullableNum('fresh air fed to the oxidiser'),
+        outletTemperature_K: num('adiabatic outlet temperature, products at chemical equilibrium (Gibbs minimum at fixed H and p)'),
+        materialLimit_K: num('the material limit of the basis'),
+        pressure_bar: num('pressure of the oxidiser'),
+        moleFractions: fractions.describe('mole fractions of the products'),
+        carbonMonoxide_ppm: num('CO left in the products, ppm by mole (wet)'),
+        heatReleased_W: num('heat of the combustion that takes place, at 25 °C: H(reactants) − H(products)'),
+        energyBalanceError: num('relative energy balance error of the adiabatic solve'),
+      })
+      .nullable(),
+    heatRecovery: z
+      .object({
+        inletTemperature_K: num('exhaust temperature entering the heat recovery'),
+        exitTemperature_K: num('exhaust exit temperature, from the basis'),
+        dewPoint_K: nullableNum('dew point of the exhaust (IAPWS-IF97)'),
+        heatWithoutCondensation_W: num('exhaust cooled to the exit temperature, water left as vapour'),
+        heatWithCondensation_W: num('the same with the water condensed to saturation at the exit'),
+        latentHeat_W: num('latent heat of the condensate'),
+        condensate_kg_per_h: num('water condensed'),
+        deliveredHeat_W: num('recovered heat less the net duty of the plant heaters and the heat lost to ambient (plus a coolant-cooled stack\'s heat when recovered)'),
+      })
+      .nullable(),
+    heatLoss_W: num('heat lost to ambient: plant.heat-loss × fuel LHV input (counted where there is heat recovery)'),
+    chp: z
+      .object({
+        netPower_W: num('net AC power'),
+        deliveredHeat_W: num('heat delivered'),
+        electricalEfficiencyLhv: num('net power / fuel LHV input'),
+        thermalEfficiencyLhv: num('heat delivered / fuel LHV input'),
+        totalEfficiencyLhv: num('(net power + heat delivered) / fuel LHV input'),
+        totalEfficiencyHhv: num('(net power + heat delivered) / fuel HHV input'),
+        powerToHeat: nullableNum('net power / heat delivered; null when no heat is delivered'),
+      })
+      .nullable()
+      .describe('combined heat and power figures; null without heat recovery'),
+    energyBalance: z.object({
+      in_W: num('Σ of the enthalpy flows and work entering the plant'),
+      out_W: num('Σ of the enthalpy flows, electricity and heat leaving the plant'),
+      residual: num('(in − out) / fuel LHV input: the first law over the plant, to close below 1e-9'),
+      terms: z.array(z.object({ name: z.string(), value_W: z.number(), side: z.enum(['in', 'out']) })).describe('absolute enthalpy flows (heats of formation included), work, electricity and heat'),
+    }),
+  })
+  .describe('power mode: the plant around the stack (lib/plant/plant-balance.ts)');
+
+const plantSchema = z
+  .object({
+    electrical: electricalSchema,
+    streams: z.array(plantStreamSchema).describe('the numbered streams of the heat-and-material balance'),
+    power: powerPlantSchema.nullable().describe('power mode; null in electrolysis (the electrolysis plant balance is not built yet)'),
+  })
+  .describe('the plant around the stack (the plant section of the basis, issue 18)');
+
 /** The results of the design point (the sizing case); resultsSchema adds the sections of issue 19 below. */
 const designResultsSchema = z
   .object({
@@ -94,10 +218,10 @@ const designResultsSchema = z
         outletNernst_V: num('Nernst voltage at the outlet'),
         openCircuit_V: num('open-circuit voltage at the inlet: t_ion E_in − crossover allowance (power), t_ion E_in (electrolysis)'),
         cellVoltage_V: num('operating cell voltage'),
-        stackVoltage_V: num('cells × cell voltage'),
+        stackVoltage_V: num('cells × cell voltage: the voltage were every cell in one series string, not a terminal voltage of this design (plant.electrical gives the stack, string and bus voltages)'),
         cells: z.number().int().describe('number of cells'),
         cellCurrent_A: num('current of one cell, j × A'),
-        totalCurrent_A: num('Σ cell currents at the terminals (the ionic current, electrochemistry.ionicCurrent_A, sets the flows)'),
+        totalCurrent_A: num('Σ of the cell currents at the terminals, not the current of any one conductor (plant.electrical gives the stack and bus currents) (the ionic current, electrochemistry.ionicCurrent_A, sets the flows)'),
         stackPower_W: num('stack DC power: output (power mode) or input (electrolysis)'),
         netPower_W: num('power mode: net output after the balance-of-plant load; electrolysis: stack input'),
         electricalEfficiencyLhv: nullableNum('power mode: net electric power over fuel LHV input'),
@@ -257,6 +381,7 @@ const designResultsSchema = z
       ),
     }),
     sensitivities: z.array(sensitivitySchema),
+    plant: plantSchema,
     hazards: hazardAssessmentSchema,
     findings: z.array(findingSchema).describe('what the calculation shows a reviewer must look at, most severe first (lib/plant/findings.ts)'),
   })

@@ -20,7 +20,7 @@ import { titleBlock, type TitleBlock } from './sections/title-block.ts';
 import { summarySection, type SummarySection } from './sections/summary.ts';
 import { inputsSection, type InputsSection } from './sections/inputs.ts';
 import { assumptionsSection, type AssumptionsSection } from './sections/assumptions.ts';
-import { figureTables, streamTable, type FigureTable } from './sections/results-tables.ts';
+import { figureTables, heatAndMaterialBalance, plantTables, streamTable, type FigureTable } from './sections/results-tables.ts';
 import { hazardsSection, type HazardsSection } from './sections/hazards.ts';
 import { casesSection, type CasesSection } from './sections/cases.ts';
 import { verificationSection, type VerificationSection } from './sections/verification.ts';
@@ -74,7 +74,7 @@ export interface DocumentView {
   inputs: InputsSection;
   assumptions: AssumptionsSection;
   method: MethodStep[];
-  results: { groups: LineGroup[]; figures: FigureTable[]; streams: Table };
+  results: { groups: LineGroup[]; figures: FigureTable[]; streams: Table; plant: FigureTable[]; balance: Table };
   cases: CasesSection;
   figures: Figure[];
   hazards: HazardsSection;
@@ -119,7 +119,7 @@ export function documentView(input: DocumentInput, options: DocumentOptions): Do
     inputs: inputsSection(basis, results),
     assumptions: assumptionsSection(basis),
     method,
-    results: { groups: resultLines(results, basis, book), figures: figureTables(results), streams: streamTable(results) },
+    results: { groups: resultLines(results, basis, book), figures: figureTables(results), streams: streamTable(results), plant: plantTables(results), balance: heatAndMaterialBalance(results) },
     cases: casesSection(results, basis, book),
     figures: figures(results),
     hazards: hazardsSection(results),

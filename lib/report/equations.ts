@@ -260,6 +260,7 @@ function faradayEquations(r: Results): EquationEntry[] {
   const [j, A, N, V, I, Icell, f, Q1, Uf, Fz] = ['j', 'A', 'N', 'V', 'I', 'I_\\mathrm{cell}', 'f_\\mathrm{par}', 'Q_1', 'U_\\mathrm{f}', '\\bar{z}'].map((s) => sym(s)) as Symbol[];
   const Iion = mixed ? sym('I_\\mathrm{ion}') : I!;
   const P = sym('P');
+  const eta = sym('\\eta_\\mathrm{conv}');
   const oxygen: Relation = { lhs: sym('\\dot n_\\mathrm{O_2}'), symbols: { I: Iion, F }, rhs: (q, op) => `\\frac{${q.I}}{4${op.times}${q.F}}` };
   const current: Record<string, Relation> = {
     cell: { lhs: Icell!, symbols: { j: j!, A: A! }, rhs: (q, op) => `${q.j}${op.times}${q.A}` },
@@ -281,8 +282,8 @@ function faradayEquations(r: Results): EquationEntry[] {
     out.push(
       entry('cells', {
         count: power
-          ? { lhs: N!, symbols: { P: target, V: V!, Icell: Icell!, f: f! }, rhs: (q, op) => `\\left\\lceil \\frac{${q.P}}{${q.V}${op.times}${q.Icell}${op.times}(1 - ${q.f})} \\right\\rceil` }
-          : { lhs: N!, symbols: { P: target, V: V!, Icell: Icell! }, rhs: (q, op) => `\\left\\lceil \\frac{${q.P}}{${q.V}${op.times}${q.Icell}} \\right\\rceil` },
+          ? { lhs: N!, symbols: { P: target, V: V!, Icell: Icell!, eta: eta, f: f! }, rhs: (q, op) => `\\left\\lceil \\frac{${q.P}}{${q.V}${op.times}${q.Icell}${op.times}(${q.eta} - ${q.f})} \\right\\rceil` }
+          : { lhs: N!, symbols: { P: target, V: V!, Icell: Icell!, eta, f: f! }, rhs: (q, op) => `\\left\\lceil \\frac{${q.P}}{${q.V}${op.times}${q.Icell}${op.times}(1/${q.eta} + ${q.f})} \\right\\rceil` },
       }),
     );
   } else if (r.operatingPoint.cellsFrom === 'hydrogen') {
@@ -304,7 +305,7 @@ function faradayEquations(r: Results): EquationEntry[] {
         oxygen,
         air: { lhs: sym('\\dot n_\\mathrm{air}'), symbols: { nO2: sym('\\dot n_\\mathrm{O_2}'), x: sym('x_\\mathrm{O_2}'), U: sym('U_\\mathrm{air}') }, rhs: (q, op) => `\\frac{${q.nO2}}{${q.x}${op.times}${q.U}}` },
       }),
-      entry('net-power', { net: { lhs: sym('P_\\mathrm{net}'), symbols: { P, f: f! }, rhs: (q, op) => `${q.P}${op.times}(1 - ${q.f})` } }),
+      entry('net-power', { net: { lhs: sym('P_\\mathrm{net}'), symbols: { P, eta, f: f! }, rhs: (q, op) => `${q.P}${op.times}(${q.eta} - ${q.f})` } }),
     );
   } else {
     out.push(
@@ -389,6 +390,47 @@ function carbonEquations(): EquationEntry[] {
   ];
 }
 
+/** The plant around the stack: the electrical layout, and in power mode the steam raising, the oxidiser's energy balance, the heat delivered and the CHP efficiency. */
+function plantEquations(r: Results): EquationEntry[] {
+  const Vc = sym('V');
+  const Vs = sym('V_\\mathrm{stack}');
+  const out: EquationEntry[] = [
+    entry(
+      'plant-layout',
+      {
+        stack: { lhs: Vs, symbols: { n: sym('n_\\mathrm{cells}'), V: Vc }, rhs: (q, op) => `${q.n}${op.times}${q.V}` },
+        bus: { lhs: sym('V_\\mathrm{bus}'), symbols: { m: sym('n_\\mathrm{series}'), Vs }, rhs: (q, op) => `${q.m}${op.times}${q.Vs}` },
+        current: { lhs: sym('I_\\mathrm{bus}'), symbols: { k: sym('n_\\mathrm{strings}'), Icell: sym('I_\\mathrm{cell}') }, rhs: (q, op) => `${q.k}${op.times}${q.Icell}` },
+      },
+      (show) => `${show('stack')}, \\qquad ${show('bus')}, \\qquad ${show('current')}, \\qquad I_\\mathrm{stack} = I_\\mathrm{string} = I_\\mathrm{cell}`,
+    ),
+  ];
+  if (!r.plant.power) return out;
+  const Q = sym('Q_\\mathrm{del}');
+  out.push(
+    entry(
+      'steam-raising',
+      {
+        steam: {
+          lhs: sym('Q_\\mathrm{steam}'),
+          symbols: { n: sym('\\dot n_\\mathrm{w}'), hl: sym('\\Delta h_\\mathrm{liq}'), L: sym('L(T_\\mathrm{s})'), hg: sym('\\Delta h_\\mathrm{vap}') },
+          rhs: (q, op) => `${q.n}${op.times}${op.open}${q.hl} + ${q.L} + ${q.hg}${op.close}`,
+        },
+      },
+      (show) =>
+        `${show('steam')}, \\quad \\Delta h_\\mathrm{liq} = h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{s}) - h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{w}), \\quad L = h^\\circ_\\mathrm{H_2O}(T_\\mathrm{s}) - h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{s}), \\quad \\Delta h_\\mathrm{vap} = h^\\circ_\\mathrm{H_2O}(T_\\mathrm{mix}) - h^\\circ_\\mathrm{H_2O}(T_\\mathrm{s})`,
+    ),
+    shown('oxidiser-balance', '\\sum_j \\dot n_j\\, h^\\circ_j(T_\\mathrm{ad}) = \\sum_{\\mathrm{off\\text{-}gas}} \\dot n_i\\, h^\\circ_i(T) + \\sum_{\\mathrm{oxidant}} \\dot n_k\\, h^\\circ_k(T_\\mathrm{ox}), \\qquad \\min G \\text{ at fixed } H, p'),
+    entry('delivered-heat', {
+      heat: { lhs: Q, symbols: { R: sym('Q_\\mathrm{rec}'), D: sym('D'), L: sym('Q_\\mathrm{loss}') }, rhs: (q) => `${q.R} - ${q.D} - ${q.L}` },
+    }),
+    entry('chp-efficiency', {
+      chp: { lhs: sym('\\eta_\\mathrm{CHP}'), symbols: { P: sym('P_\\mathrm{net}'), Q, L: sym('\\dot n_\\mathrm{fuel}\\,\\mathrm{LHV}') }, rhs: (q) => `\\frac{${q.P} + ${q.Q}}{${q.L}}` },
+    }),
+  );
+  return out;
+}
+
 /** Every equation a document of these results can number, by key. */
 /**
  * The operating cases, where the basis has them: the load a case meets on the sizing case's N
@@ -432,6 +474,7 @@ export function equationTable(r: Results): Map<string, EquationEntry> {
     ...heatEquations(r),
     ...carbonEquations(),
     ...caseEquations(r),
+    ...plantEquations(r),
   ];
   return new Map(all.map((e) => [e.key, e]));
 }

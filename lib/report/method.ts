@@ -226,7 +226,9 @@ function faraday(step: Step, r: Results): void {
     .eq('current');
   if (r.operatingPoint.cellsFrom === 'power') {
     step
-      .text(power ? 'The cell count is the least whole number that delivers the target net power after the balance-of-plant share $f_\\mathrm{par}$:' : 'The cell count is the least whole number that takes the target power input:')
+      .text(power
+          ? 'The cell count is the least whole number that delivers the target net power after the power conversion (inverter efficiency $\\eta_\\mathrm{conv}$) and the balance-of-plant share $f_\\mathrm{par}$ of the stack DC power:'
+          : 'The cell count is the least whole number that takes the target power input, drawn through the rectifier (efficiency $\\eta_\\mathrm{conv}$) with the balance-of-plant share $f_\\mathrm{par}$ of the stack DC power:')
       .eq('cells');
   } else if (r.operatingPoint.cellsFrom === 'hydrogen') {
     step.text('The cell count is the least whole number that produces the target hydrogen flow, $\\dot m_\\mathrm{cell}$ being the hydrogen one cell makes:').eq('cells');
@@ -282,6 +284,29 @@ function heat(step: Step, r: Results): void {
   if (r.heat.coolingAir_mol_per_s !== null) {
     step.text('Where air cools the stack, the air needed to carry the heat with an allowed temperature rise $\\Delta T$ (leaving at the stack temperature) is').eq('cooling-air');
   }
+}
+
+function plant(step: Step, r: Results): void {
+  step
+    .text(
+      'The cells are connected in series in a stack, the stacks in series in a string and the strings in parallel on the DC bus. Series elements carry one current and add their voltages; parallel strings share one voltage and add their currents:',
+    )
+    .eq('plant-layout');
+  if (!r.plant.power) return;
+  step
+    .text(
+      'Every duty is the change of the absolute enthalpy flow $\\sum_i \\dot n_i h^\\circ_i(T)$ of its stream (heats of formation included, species data). The feed water is heated to its saturation temperature $T_\\mathrm{s}$ at the fuel-electrode pressure (IAPWS-IF97 region 4), evaporated with the latent heat of the species data, and superheated to the mixing temperature $T_\\mathrm{mix}$ of the pre-reformer inlet (else the fuel-electrode inlet):',
+    )
+    .eq('steam-raising')
+    .text(
+      'The fuel-electrode off-gas is burnt with its oxidant; the products leave at chemical equilibrium at the adiabatic temperature, found by minimising the Gibbs energy at fixed enthalpy and pressure:',
+    )
+    .eq('oxidiser-balance')
+    .text(
+      "The exhaust is cooled to the stated exit temperature, its water condensed to saturation there where it would be supersaturated; the plant's heaters take their net duty $D$ first and the heat lost to ambient $Q_\\mathrm{loss}$ is subtracted. The heat delivered and the total efficiency of combined heat and power are",
+    )
+    .eq('delivered-heat')
+    .eq('chp-efficiency');
 }
 
 function carbon(step: Step): void {
@@ -342,6 +367,7 @@ export function methodSection(r: Results, book: EquationBook, sectionNumber: num
     ['method-heat', 'Heat', (s) => heat(s, r)],
   ];
   if (hasCarbon(r)) parts.push(['method-carbon', 'Carbon deposition', (s) => carbon(s)]);
+  parts.push(['method-plant', 'The plant around the stack', (s) => plant(s, r)]);
   const table = equationTable(r);
   if (r.cases.length) parts.push(['method-cases', 'Operating cases on the sizing hardware', (s) => cases(s, r, table)]);
   const steps = parts.map(([id, title, fill], i) => {

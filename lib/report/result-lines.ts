@@ -16,6 +16,7 @@ import { flowLines } from './result-lines/flow-lines.ts';
 import { efficiencyLines } from './result-lines/efficiency-lines.ts';
 import { heatLines } from './result-lines/heat-lines.ts';
 import { carbonLines } from './result-lines/carbon-lines.ts';
+import { plantLines } from './result-lines/plant-lines.ts';
 
 export interface LineGroup {
   id: string;
@@ -35,5 +36,6 @@ export function resultLines(r: Results, basis: DesignBasis, book: EquationBook):
   ];
   const carbon = build(carbonLines(r));
   if (carbon.length) groups.push({ id: 'results-carbon', title: 'Carbon margin', lines: carbon });
+  groups.push({ id: 'results-plant', title: 'The plant around the stack', lines: build(plantLines(r)) });
   return groups;
 }

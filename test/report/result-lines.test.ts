@@ -57,10 +57,17 @@ function formulas(r: Results): Record<string, Formula> {
     'hot-spot': (n) => (power ? (t(n) * n.E! - dV(n) - n.V!) / n.ASR! : (n.V! - t(n) * n.E!) / n.ASR!),
     'ionic-current': (n) => n.N! * n.A! * (n.j! + (power ? 1 : -1) * ((1 - n.t!) * n.V!) / n.ASR!),
     'cell-current': (n) => n.j! * n.A!,
-    cells: (n) => (n.P !== undefined ? Math.ceil(n.P / (n.V! * n.Icell! * (1 - (n.f ?? 0))) - 1e-9) : Math.ceil(n.m! / n.mc! - 1e-9)),
+    cells: (n) =>
+      n.P !== undefined ? Math.ceil(n.P / (n.V! * n.Icell! * (power ? n.eta! - n.f! : 1 / n.eta! + n.f!)) - 1e-9) : Math.ceil(n.m! / n.mc! - 1e-9),
     'stack-current': (n) => n.N! * n.Icell!,
     'stack-power': (n) => (n.V! * n.I!) / 1000,
-    'net-power': (n) => n.P! * (1 - n.f!),
+    'net-power': (n) => n.P! * (n.eta! - n.f!),
+    'stack-voltage': (n) => n.n! * n.V!,
+    'bus-voltage': (n) => n.m! * n.Vs!,
+    'bus-current': (n) => n.k! * n.Icell!,
+    'steam-raising': (n) => n.n! * (n.hl! + n.L! + n.hg!),
+    'delivered-heat': (n) => n.R! - n.D! - n.L!,
+    'chp-efficiency': (n) => (n.P! + n.Q!) / n.L!,
     'charge-basis': (n) => n.I! / n.U!,
     'fuel-flow': (n) => n.I! / (n.U! * n.F! * n.z!),
     hydrogen: (n) => n.I! / (2 * n.F!),
@@ -105,6 +112,12 @@ function resultOf(id: string, r: Results): number | null {
     'specific-energy': h.specificEnergy_kWh_per_kg,
     'eff-electrolysis': r.efficiency.electrolysisEfficiencyLhv,
     'carbon-margin': h.carbonMargin,
+    'stack-voltage': r.plant.electrical.stackVoltage_V,
+    'bus-voltage': r.plant.electrical.busVoltage_V,
+    'bus-current': r.plant.electrical.busCurrent_A,
+    'steam-raising': r.plant.power?.steam ? (r.plant.power.steam.liquidHeating_W + r.plant.power.steam.evaporation_W + r.plant.power.steam.superheating_W) / 1000 : null,
+    'delivered-heat': r.plant.power?.heatRecovery ? r.plant.power.heatRecovery.deliveredHeat_W / 1000 : null,
+    'chp-efficiency': r.plant.power?.chp?.totalEfficiencyLhv ?? null,
   };
   if (id === 'cell-voltage') return r.electrochemistry.voltageSource === 'given' ? r.electrochemistry.areaSpecificResistance_ohm_m2 * 1e4 : h.cellVoltage_V;
   if (id === 'uniform-voltage') return r.electrochemistry.harmonicIntegral_per_V;

@@ -23,7 +23,7 @@ export const ionicCurrent = (r: Results): QuantitySpec => ({
   name: 'I',
   value: r.electrochemistry.ionicCurrent_A,
   unit: 'A',
-  origin: r.electrochemistry.ionicTransferenceNumber < 1 ? 'ionic current, above' : 'stack current, above (t_ion = 1: all of it ionic)',
+  origin: r.electrochemistry.ionicTransferenceNumber < 1 ? 'ionic current, above' : 'sum of the cell currents, above (t_ion = 1: all of it ionic)',
 });
 
 /** The charge of the fuel fed and the dry fuel flow of a fuel cell, by Faraday's law. */

@@ -10,7 +10,7 @@ export function heatLines(r: Results): LineSpec[] {
   const mixed = r.electrochemistry.ionicTransferenceNumber < 1;
   const h = r.headline;
   const heat = r.heat;
-  const I: QuantitySpec = { name: 'I', value: h.totalCurrent_A, unit: 'A', origin: 'stack current, above' };
+  const I: QuantitySpec = { name: 'I', value: h.totalCurrent_A, unit: 'A', origin: 'sum of the cell currents, above' };
   const Iion: QuantitySpec = { name: 'Iion', value: r.electrochemistry.ionicCurrent_A, unit: 'A', origin: 'ionic current, above' };
   const Vtn: QuantitySpec = { name: 'Vtn', value: r.electrochemistry.effectiveThermoneutralVoltage_V, unit: 'V', origin: `enthalpy released by the reactions over the ${mixed ? 'ionic ' : ''}current` };
   const V: QuantitySpec = { name: 'V', value: h.cellVoltage_V, unit: 'V', origin: 'cell voltage, above' };

@@ -25,9 +25,13 @@ function cellsLine(r: Results, basis: DesignBasis): LineSpec | null {
   const count = { id: 'cells', equation: 'cells', relation: 'count', value: h.cells, unit: '' };
   if (op.cellsFrom === 'power' && size.kind === 'power') {
     const target: QuantitySpec = { name: 'P', value: size.powerW, unit: 'W', origin: 'target power, design input' };
+    const plantShares: QuantitySpec[] = [
+      { name: 'eta', value: r.plant.electrical.conversionEfficiency, unit: '', origin: 'power-conversion efficiency, design input' },
+      { name: 'f', value: op.parasiticFraction, unit: '', origin: 'parasitic load, design input' },
+    ];
     return r.technology.mode === 'power'
-      ? { ...count, title: 'Cells to meet the target net power', quantities: [target, V, Icell, { name: 'f', value: op.parasiticFraction, unit: '', origin: 'parasitic load, design input' }] }
-      : { ...count, title: 'Cells to take the target power input', quantities: [target, V, Icell] };
+      ? { ...count, title: 'Cells to meet the target net power', quantities: [target, V, Icell, ...plantShares] }
+      : { ...count, title: 'Cells to take the target power input', quantities: [target, V, Icell, ...plantShares] };
   }
   if (op.cellsFrom === 'hydrogen' && size.kind === 'hydrogen' && h.hydrogenProduction_kg_per_h !== null) {
     return {
@@ -48,13 +52,13 @@ function stackLines(r: Results): LineSpec[] {
   const power = r.technology.mode === 'power';
   const { V, Icell, N } = sizeQuantities(r);
   const lines: LineSpec[] = [
-    { id: 'stack-current', title: 'Stack current (sum of the cell currents)', equation: 'current', relation: 'stack', quantities: [N, Icell], value: h.totalCurrent_A, unit: 'A', digits: 6 },
+    { id: 'stack-current', title: 'Sum of the cell currents (no conductor carries it: the stack and bus currents are under the plant)', equation: 'current', relation: 'stack', quantities: [N, Icell], value: h.totalCurrent_A, unit: 'A', digits: 6 },
     {
       id: 'stack-power',
       title: power ? 'Stack DC power' : 'Stack power input',
       equation: 'current',
       relation: 'power',
-      quantities: [V, { name: 'I', value: h.totalCurrent_A, unit: 'A', origin: 'stack current, above' }],
+      quantities: [V, { name: 'I', value: h.totalCurrent_A, unit: 'A', origin: 'sum of the cell currents, above' }],
       value: h.stackPower_W / 1000,
       unit: 'kW',
     },
@@ -62,11 +66,12 @@ function stackLines(r: Results): LineSpec[] {
   if (power) {
     lines.push({
       id: 'net-power',
-      title: 'Net power after the balance-of-plant load',
+      title: 'Net AC power after the inverter and the balance-of-plant load',
       equation: 'net-power',
       relation: 'net',
       quantities: [
         { name: 'P', value: h.stackPower_W / 1000, unit: 'kW', origin: 'stack DC power, above' },
+        { name: 'eta', value: r.plant.electrical.conversionEfficiency, unit: '', origin: 'power-conversion efficiency, design input' },
         { name: 'f', value: r.operatingPoint.parasiticFraction, unit: '', origin: 'parasitic load, design input' },
       ],
       value: h.netPower_W / 1000,

@@ -5,7 +5,7 @@
  */
 import { efficiencyBasisNotes } from '../efficiency-basis.ts';
 import type { Results, StreamResult } from '../../plant/results-schema.ts';
-import { formatFixed, formatInteger, formatNumber, formatPercent, formatPower, formatQuantity } from '../format.ts';
+import { formatFixed, formatInteger, formatNumber, formatPercent, formatPower, formatQuantity, formatTemperature } from '../format.ts';
 import { pairs, table, type Table, type TableRow } from '../table.ts';
 import { speciesText } from '../species-text.ts';
 import { ZERO_CELSIUS_K } from '../../core/units.ts';
@@ -48,7 +48,7 @@ function operatingPoint(r: Results): Row[] {
     ['Active area per cell / total', `${formatQuantity(o.activeArea_m2 * 1e4, 'cm²')} / ${formatQuantity(o.totalActiveArea_m2, 'm²')}`],
     ['Cell count set by', o.cellsFrom === 'cells' ? 'the cell count of the basis' : o.cellsFrom === 'power' ? 'the target power' : 'the target hydrogen production'],
     ['Cells', formatInteger(r.headline.cells)],
-    ['Stack voltage', formatQuantity(r.headline.stackVoltage_V, 'V')],
+    ['Series voltage of all cells (N × V; not a terminal voltage: see the electrical layout)', formatQuantity(r.headline.stackVoltage_V, 'V')],
     r.technology.mode === 'power' ? ['Balance-of-plant share', formatPercent(o.parasiticFraction)] : null,
     opt('Air utilization', o.airUtilization, (v) => formatPercent(v)),
     opt('Air ratio (O₂ fed / O₂ consumed)', o.airRatio, (v) => formatNumber(v)),
@@ -137,9 +137,9 @@ function speciesOf(streams: readonly StreamResult[]): string[] {
   return [...peak.entries()].filter(([, x]) => x >= 1e-6).sort((a, b) => b[1] - a[1]).map(([k]) => k);
 }
 
-export function streamTable(r: Results): Table {
-  const streams = r.streams;
-  const row = (label: string, cell: (s: StreamResult) => string): TableRow => ({ cells: [label, ...streams.map(cell)] });
+/** One column per stream with its state, flows, enthalpy flow and gas composition. */
+function streamColumns<S extends StreamResult>(streams: readonly S[], heading: (s: S) => string): Table {
+  const row = (label: string, cell: (s: S) => string): TableRow => ({ cells: [label, ...streams.map(cell)] });
   const rows: TableRow[] = [
     row('Temperature, °C', (s) => formatFixed(s.temperature_K - ZERO_CELSIUS_K, 1)),
     row('Pressure, bar', (s) => formatNumber(s.pressure_bar)),
@@ -155,5 +155,95 @@ export function streamTable(r: Results): Table {
   for (const species of speciesOf(streams)) {
     rows.push(row(speciesText(species), (s) => (s.moleFractions[species] === undefined ? '' : formatNumber(s.moleFractions[species]! * 100, 4))));
   }
-  return table(['', ...streams.map((s) => s.name)], ['left', ...streams.map(() => 'right' as const)], rows);
+  return table(['', ...streams.map(heading)], ['left', ...streams.map(() => 'right' as const)], rows);
+}
+
+export function streamTable(r: Results): Table {
+  return streamColumns(r.streams, (s) => s.name);
+}
+
+/** The heat-and-material balance: every numbered stream of the plant (enthalpy flows absolute, heats of formation included). */
+export function heatAndMaterialBalance(r: Results): Table {
+  return streamColumns(r.plant.streams, (s) => `${s.number}. ${s.name}`);
+}
+
+const kW = (w: number) => formatQuantity(w / 1000, 'kW');
+
+function electricalLayout(r: Results): Row[] {
+  const e = r.plant.electrical;
+  const power = r.technology.mode === 'power';
+  return [
+    ['Cells per stack / stacks in series / strings in parallel', `${formatInteger(e.cellsPerStack)} / ${formatInteger(e.stacksInSeries)} / ${formatInteger(e.stringsInParallel)}`],
+    ['Stacks in series set by', e.stacksInSeriesFrom === 'given' ? 'the basis' : 'the DC bus voltage window'],
+    ['Stacks / cells installed (cells required)', `${formatInteger(e.stackCount)} / ${formatInteger(e.installedCells)} (${formatInteger(e.requiredCells)})`],
+    ['Stack voltage / stack current', `${formatQuantity(e.stackVoltage_V, 'V')} / ${formatQuantity(e.stackCurrent_A, 'A')}`],
+    ['String voltage / string current', `${formatQuantity(e.stringVoltage_V, 'V')} / ${formatQuantity(e.stringCurrent_A, 'A')}`],
+    ['DC bus voltage / bus current', `${formatQuantity(e.busVoltage_V, 'V')} / ${formatQuantity(e.busCurrent_A, 'A')}`],
+    ['DC power of the installed cells', formatPower(e.dcPower_W)],
+    [power ? 'Inverter efficiency / AC power delivered' : 'Rectifier efficiency / AC power drawn', `${formatPercent(e.conversionEfficiency)} / ${formatPower(e.acPower_W)}`],
+    ['Conversion loss', formatPower(e.conversionLoss_W)],
+  ];
+}
+
+function duties(p: NonNullable<Results['plant']['power']>): Row[] {
+  const rows: Row[] = p.duties.map((d) => [`${d.name} (${formatTemperature(d.from_K)} → ${formatTemperature(d.to_K)})`, kW(d.duty_W)]);
+  rows.push(["Net duty of the plant's heaters", kW(p.netDuty_W)]);
+  if (p.steam) rows.push(['Feed water / saturation temperature', `${formatQuantity(p.steam.water_kg_per_h, 'kg/h')} / ${formatTemperature(p.steam.saturationTemperature_K)}`]);
+  if (p.blower) {
+    rows.push(['Air blower: pressure', `${formatQuantity(p.blower.inletPressure_bar, 'bar')} → ${formatQuantity(p.blower.outletPressure_bar, 'bar')}`]);
+    rows.push(['Air blower: temperature', `${formatTemperature(p.blower.inletTemperature_K)} → ${formatTemperature(p.blower.outletTemperature_K)}`]);
+    rows.push(['Air blower power (isentropic efficiency)', `${kW(p.blower.power_W)} (${formatPercent(p.blower.isentropicEfficiency)}); the parasitic load allows ${kW(p.blower.parasiticAllowance_W)} in all`]);
+  }
+  rows.push(['Stack heat with the inlets as fed, and where it goes', `${kW(p.stackHeat_W)}, ${p.stackHeatTo}`]);
+  rows.push(['Air-electrode exhaust temperature', formatTemperature(p.airExhaustTemperature_K)]);
+  return rows;
+}
+
+function oxidiserAndRecovery(p: NonNullable<Results['plant']['power']>): Row[] {
+  const rows: Row[] = [];
+  const o = p.oxidiser;
+  if (o) {
+    rows.push(['Oxidant', o.oxidant === 'fresh-air' ? `fresh air, ${formatNumber(o.airRatio!)} times the oxygen complete combustion needs` : 'the air-electrode exhaust']);
+    rows.push(['Adiabatic outlet temperature (equilibrium products) / material limit', `${formatTemperature(o.outletTemperature_K)} / ${formatTemperature(o.materialLimit_K)}`]);
+    rows.push(['Heat of the combustion (at 25 °C)', kW(o.heatReleased_W)]);
+    rows.push(['CO left in the products', formatQuantity(o.carbonMonoxide_ppm, 'ppm')]);
+    rows.push(['Products, mol %', Object.entries(o.moleFractions).filter(([, x]) => x >= 1e-4).sort((a, b) => b[1] - a[1]).map(([k, x]) => `${speciesText(k)} ${formatNumber(x * 100, 4)}`).join(', ')]);
+  }
+  const h = p.heatRecovery;
+  if (h) {
+    rows.push(['Exhaust into / out of the heat recovery', `${formatTemperature(h.inletTemperature_K)} / ${formatTemperature(h.exitTemperature_K)}`]);
+    rows.push(['Dew point of the exhaust (IAPWS-IF97)', h.dewPoint_K === null ? 'none' : formatTemperature(h.dewPoint_K)]);
+    rows.push(['Heat recovered without / with condensation', `${kW(h.heatWithoutCondensation_W)} / ${kW(h.heatWithCondensation_W)}`]);
+    rows.push(['Condensate', formatQuantity(h.condensate_kg_per_h, 'kg/h')]);
+    rows.push(['Heat lost to ambient', kW(p.heatLoss_W)]);
+    rows.push(['Heat delivered', kW(h.deliveredHeat_W)]);
+  }
+  const c = p.chp;
+  if (c) {
+    rows.push(['Electrical / thermal efficiency (LHV)', `${formatPercent(c.electricalEfficiencyLhv)} / ${formatPercent(c.thermalEfficiencyLhv)}`]);
+    rows.push(['Total CHP efficiency, LHV / HHV', `${formatPercent(c.totalEfficiencyLhv)} / ${formatPercent(c.totalEfficiencyHhv)}`]);
+    if (c.powerToHeat !== null) rows.push(['Power-to-heat ratio', formatNumber(c.powerToHeat)]);
+  }
+  return rows;
+}
+
+function energyBalance(p: NonNullable<Results['plant']['power']>): Row[] {
+  const b = p.energyBalance;
+  return [
+    ...b.terms.map((t): Row => [`${t.side === 'in' ? 'In' : 'Out'}: ${t.name}`, kW(t.value_W)]),
+    ['Residual (in − out) / fuel LHV input', formatNumber(b.residual, 2)],
+  ];
+}
+
+/** The tables of the plant around the stack. */
+export function plantTables(r: Results): FigureTable[] {
+  const list: FigureTable[] = [{ id: 'plant-electrical', title: 'Electrical layout', table: pairs(electricalLayout(r)) }];
+  const p = r.plant.power;
+  if (p) {
+    list.push({ id: 'plant-duties', title: 'Fuel and air preparation', table: pairs(duties(p)) });
+    const o = oxidiserAndRecovery(p);
+    if (o.length) list.push({ id: 'plant-oxidiser', title: 'Off-gas oxidiser, heat recovery and combined heat and power', table: pairs(o) });
+    list.push({ id: 'plant-energy', title: 'Energy balance of the plant (absolute enthalpy flows, heats of formation included)', table: pairs(energyBalance(p)) });
+  }
+  return list;
 }

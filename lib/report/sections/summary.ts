@@ -58,7 +58,7 @@ function headlineRows(r: Results): [string, string][] {
     ['Nernst voltage, area mean / charge mean', `${formatQuantity(r.electrochemistry.areaMeanNernst_V, 'V')} / ${formatQuantity(h.meanNernst_V, 'V')}`],
     ['Cell voltage', `${formatQuantity(h.cellVoltage_V, 'V')} (${r.electrochemistry.voltageSource === 'given' ? 'given' : 'from the area-specific resistance, one voltage over the cell'})`],
     ['Local current density, mean / highest (hot spot)', `${formatQuantity(r.operatingPoint.currentDensity_A_per_m2 / 1e4, 'A/cm²')} / ${formatQuantity(h.maxLocalCurrentDensity_A_per_m2 / 1e4, 'A/cm²')}`],
-    ['Cells / cell current / stack current', `${formatInteger(h.cells)} / ${formatQuantity(h.cellCurrent_A, 'A')} / ${formatQuantity(h.totalCurrent_A, 'A')}`],
+    ['Cells / cell current / sum of the cell currents', `${formatInteger(h.cells)} / ${formatQuantity(h.cellCurrent_A, 'A')} / ${formatQuantity(h.totalCurrent_A, 'A')}`],
   ];
   if (power) {
     rows.push(['Stack DC power / net power', `${formatPower(h.stackPower_W)} / ${formatPower(h.netPower_W)}`]);
