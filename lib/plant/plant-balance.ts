@@ -45,7 +45,7 @@ import { getSpecies } from '../thermo/species-data.ts';
 import { mixtureEnthalpyJ } from '../thermo/mixture.ts';
 import { temperatureAtEnthalpyK } from '../thermo/mixture-temperature.ts';
 import { waterLatentHeatJPerMol } from '../thermo/latent-heat.ts';
-import { waterSaturationTemperatureK } from '../thermo/water-saturation.ts';
+import { waterSaturationPressurePa, waterSaturationTemperatureK } from '../thermo/water-saturation.ts';
 import { PA_PER_BAR } from '../thermo/constants.ts';
 import { electronsOfStream } from '../electrochem/charge.ts';
 import { adiabaticEquilibrium } from '../equilibrium/adiabatic.ts';
@@ -305,7 +305,21 @@ function powerBalance(point: DesignPoint, plant: PlantInput, layout: ElectricalL
       );
     }
   }
-  add('air-supply', 'air supply', tAir, plant.airBlower?.inletPressureBar ?? pAir, airTotal);
+  const supplyBar = plant.airBlower?.inletPressureBar ?? pAir;
+  // Water vapour above saturation at the supply state cannot reach the plant as vapour (IF97 p_s(T)).
+  const waterPa = ((airTotal.H2O ?? 0) / totalFlow(airTotal)) * supplyBar * PA_PER_BAR;
+  if (waterPa > 0 && tAir < 647 && waterPa > waterSaturationPressurePa(tAir)) {
+    findings.push(
+      finding(
+        'air-feed-above-saturation',
+        'warning',
+        'streams.air-electrode.composition',
+        `the air-electrode feed holds more water vapour (${(waterPa / 1000).toPrecision(3)} kPa) than saturation allows at its supply temperature (${(waterSaturationPressurePa(tAir) / 1000).toPrecision(3)} kPa): it cannot be a feed from outside as stated (a gas recycled within the plant, such as a carbonate cathode's burnt anode gas, is not modelled as such), and its water condensing in the heat recovery overstates the heat delivered`,
+        ['plant.feed-temperatures.air'],
+      ),
+    );
+  }
+  add('air-supply', 'air supply', tAir, supplyBar, airTotal);
   if (blower) add('blower-outlet', 'air after the blower', tBlown, pAir, airTotal);
   duty('air-preheat', 'air heated to the air-electrode inlet', H(stackAir, inputs.airInletTemperatureK) - H(stackAir, tBlown), tBlown, inputs.airInletTemperatureK);
   add('air-inlet', 'air-electrode inlet', inputs.airInletTemperatureK, pAir, stackAir);

@@ -130,6 +130,14 @@ describe('findings and located errors of the plant', () => {
     expect(codes).toContain('blower-above-parasitic-load');
   });
 
+  it('flags an air feed holding more vapour than saturation allows at its supply temperature', () => {
+    // The molten carbonate scaffold's cathode gas holds 10 % H2O; at 25 °C and 1.01325 bar
+    // saturation allows 3.17 kPa / 101.3 kPa = 3.1 % (IAPWS-IF97: p_s(25 °C) = 3.1699 kPa).
+    const { plant } = balanceOf('molten-carbonate', FULL_PLANT);
+    expect(plant.findings.map((f) => f.code)).toContain('air-feed-above-saturation');
+    expect(balanceOf('solid-oxide', FULL_PLANT).plant.findings.map((f) => f.code)).not.toContain('air-feed-above-saturation');
+  });
+
   it('refuses a DC bus window no string fits, at its field', () => {
     // 60 cells of ~0.8 V make a ~48 V stack: 13 stacks give ~624 V, above a 600-610 V window.
     const basis = basisFrom('solid-oxide', 'power', { 'plant.electrical': { 'cells-per-stack': 60, 'dc-bus-window': { from: '600 V', to: '610 V' } } });
