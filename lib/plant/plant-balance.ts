@@ -45,7 +45,7 @@ import { getSpecies } from '../thermo/species-data.ts';
 import { mixtureEnthalpyJ } from '../thermo/mixture.ts';
 import { temperatureAtEnthalpyK } from '../thermo/mixture-temperature.ts';
 import { waterLatentHeatJPerMol } from '../thermo/latent-heat.ts';
-import { waterSaturationPressurePa, waterSaturationTemperatureK } from '../thermo/water-saturation.ts';
+import { saturationRange, waterSaturationPressurePa, waterSaturationTemperatureK } from '../thermo/water-saturation.ts';
 import { PA_PER_BAR } from '../thermo/constants.ts';
 import { electronsOfStream } from '../electrochem/charge.ts';
 import { adiabaticEquilibrium } from '../equilibrium/adiabatic.ts';
@@ -306,9 +306,11 @@ function powerBalance(point: DesignPoint, plant: PlantInput, layout: ElectricalL
     }
   }
   const supplyBar = plant.airBlower?.inletPressureBar ?? pAir;
-  // Water vapour above saturation at the supply state cannot reach the plant as vapour (IF97 p_s(T)).
+  // Water vapour above saturation at the supply state cannot reach the plant as vapour (IF97 p_s(T),
+  // from 0 °C up); it matters to the numbers where the heat recovery condenses it.
   const waterPa = ((airTotal.H2O ?? 0) / totalFlow(airTotal)) * supplyBar * PA_PER_BAR;
-  if (waterPa > 0 && tAir < 647 && waterPa > waterSaturationPressurePa(tAir)) {
+  const { lowK, highK } = saturationRange();
+  if (plant.heatRecovery && waterPa > 0 && tAir >= lowK && tAir < highK && waterPa > waterSaturationPressurePa(tAir)) {
     findings.push(
       finding(
         'air-feed-above-saturation',

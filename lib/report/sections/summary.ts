@@ -95,6 +95,13 @@ function headlineRows(r: Results): [string, string][] {
     rows.push(['Minimum steam-to-carbon ratio / margin', `${formatNumber(h.minimumSteamToCarbon)} / ${h.carbonMargin === null ? 'no steam given' : formatNumber(h.carbonMargin)}`]);
   }
   if (h.maxCarbonActivity !== null) rows.push(['Highest carbon activity on the fuel path in the stack (stack temperature)', formatNumber(h.maxCarbonActivity)]);
+  const e = r.plant.electrical;
+  rows.push(['Stacks (cells each × in series × strings) / DC bus', `${formatInteger(e.stackCount)} (${formatInteger(e.cellsPerStack)} × ${formatInteger(e.stacksInSeries)} × ${formatInteger(e.stringsInParallel)}) / ${formatQuantity(e.busVoltage_V, 'V')}, ${formatQuantity(e.busCurrent_A, 'A')}`]);
+  const p = r.plant.power;
+  if (p?.oxidiser) rows.push(['Off-gas oxidiser outlet (adiabatic) / material limit', `${formatTemperature(p.oxidiser.outletTemperature_K)} / ${formatTemperature(p.oxidiser.materialLimit_K)}`]);
+  if (p?.heatRecovery && p.chp) {
+    rows.push(['Heat delivered / total CHP efficiency, LHV / HHV', `${formatPower(p.heatRecovery.deliveredHeat_W)} / ${formatPercent(p.chp.totalEfficiencyLhv)} / ${formatPercent(p.chp.totalEfficiencyHhv)}`]);
+  }
   return rows;
 }
 

@@ -1,0 +1,158 @@
+/**
+ * The block flow diagram of a power plant: one box per unit the basis has (feed preparation,
+ * pre-reformer, fuel preheat, blower, air preheat, stack, off-gas oxidiser, heat recovery) and
+ * one arrow per numbered stream of the heat-and-material balance, labelled with its number. Drawn
+ * by the project as plain SVG in the document's style: boxes, lines, numbers, no symbols.
+ */
+import type { Results } from '../plant/results-schema.ts';
+import { escapeHtml, trustedHtml, type TrustedHtml } from './trusted-html.ts';
+
+interface Box {
+  x: number;
+  y: number;
+  w: number;
+  h: number;
+  label: string[];
+}
+
+const W = 104;
+const H = 46;
+const FUEL_Y = 40;
+const AIR_Y = 190;
+const MID_Y = (FUEL_Y + AIR_Y) / 2;
+const COL = [10, 130, 270, 410, 550, 690, 830, 960];
+
+function box(col: number, y: number, label: string[], h = H): Box {
+  return { x: COL[col]!, y, w: W, h, label };
+}
+
+/** A terminal: where a stream enters or leaves the plant (a label, no box). */
+function terminal(col: number, y: number, label: string): Box {
+  return { x: COL[col]!, y, w: 0, h: H, label: [label] };
+}
+
+const right = (b: Box) => ({ x: b.x + b.w, y: b.y + b.h / 2 });
+const left = (b: Box) => ({ x: b.x, y: b.y + b.h / 2 });
+
+/** An arrow from one point to another, horizontal, then vertical, then horizontal, with the stream number on its first leg. */
+function arrow(from: { x: number; y: number }, to: { x: number; y: number }, numbers: number[], labelOnLastLeg = false): string {
+  const xm = from.y === to.y ? to.x : (from.x + to.x) / 2;
+  const points = from.y === to.y ? [from, to] : [from, { x: xm, y: from.y }, { x: xm, y: to.y }, to];
+  const d = points.map((p, i) => `${i ? 'L' : 'M'}${p.x.toFixed(1)},${p.y.toFixed(1)}`).join(' ');
+  const straight = from.y === to.y;
+  const lx = straight ? (from.x + to.x) / 2 : labelOnLastLeg ? (xm + to.x) / 2 : (from.x + xm) / 2;
+  const ly = straight || !labelOnLastLeg ? from.y : to.y;
+  return `<path d="${d}" fill="none" stroke="currentColor" stroke-width="1.2" marker-end="url(#bfd-arrow)"/><text x="${lx.toFixed(1)}" y="${(ly - 5).toFixed(1)}" text-anchor="middle" font-size="11" font-weight="bold">${numbers.join(', ')}</text>`;
+}
+
+/** A vertical arrow, with the stream numbers beside it. */
+function downOrUp(x: number, fromY: number, toY: number, numbers: number[]): string {
+  return `<path d="M${x},${fromY} L${x},${toY}" fill="none" stroke="currentColor" stroke-width="1.2" marker-end="url(#bfd-arrow)"/><text x="${x + 5}" y="${((fromY + toY) / 2 + 4).toFixed(1)}" font-size="11" font-weight="bold">${numbers.join(', ')}</text>`;
+}
+
+function drawBox(b: Box): string {
+  const lines = b.label.map((t, i) => `<text x="${(b.x + b.w / 2).toFixed(1)}" y="${(b.y + b.h / 2 + (i - (b.label.length - 1) / 2) * 13 + 4).toFixed(1)}" text-anchor="middle" font-size="11">${escapeHtml(t)}</text>`);
+  return `<rect x="${b.x}" y="${b.y}" width="${b.w}" height="${b.h}" fill="none" stroke="currentColor" stroke-width="1.2"/>${lines.join('')}`;
+}
+
+function drawTerminal(b: Box, anchor: 'start' | 'end'): string {
+  return `<text x="${b.x}" y="${(b.y + b.h / 2 - 8).toFixed(1)}" text-anchor="${anchor}" font-size="10">${escapeHtml(b.label[0]!)}</text>`;
+}
+
+/** The name of a stream leaving the plant, just after its arrow's head. */
+function exitLabel(x: number, y: number, label: string): string {
+  return `<text x="${x}" y="${y + 4}" font-size="10">${escapeHtml(label)}</text>`;
+}
+
+/** The diagram of the results' plant, or null where there is no power plant balance. */
+export function blockFlowDiagram(r: Results): TrustedHtml | null {
+  if (!r.plant.power) return null;
+  const n = new Map(r.plant.streams.map((s) => [s.id, s.number]));
+  const has = (id: string) => n.has(id);
+  const num = (...ids: string[]) => ids.filter(has).map((id) => n.get(id)!);
+  const parts: string[] = [];
+  const boxes: Box[] = [];
+  const terminals: string[] = [];
+  const add = (b: Box) => (boxes.push(b), b);
+
+  const prep = add(box(1, FUEL_Y, ['feed preparation', '(steam, preheat)']));
+  const pre = has('pre-reformer-feed') ? add(box(2, FUEL_Y, ['pre-reformer'])) : null;
+  const fuelHeat = pre ? add(box(3, FUEL_Y, ['fuel preheat'])) : null;
+  const blower = has('blower-outlet') ? add(box(1, AIR_Y, ['air blower'])) : null;
+  const airHeat = add(box(2, AIR_Y, ['air preheat']));
+  const stack = add(box(4, FUEL_Y - 10, ['stack', '(fuel electrode', 'above, air', 'electrode below)'], AIR_Y - FUEL_Y + H + 20));
+  const ox = has('oxidiser-outlet') ? add(box(5, MID_Y, ['off-gas', 'oxidiser'])) : null;
+  const hr = has('exhaust') ? add(box(6, MID_Y, ['heat recovery'])) : null;
+
+  const fuelIn = terminal(0, FUEL_Y - 14, 'fuel');
+  const waterIn = terminal(0, FUEL_Y + 14, 'feed water');
+  const airIn = terminal(0, AIR_Y, 'air');
+  terminals.push(drawTerminal(fuelIn, 'start'), drawTerminal(airIn, 'start'));
+  if (has('feed-water')) terminals.push(drawTerminal(waterIn, 'start'));
+  parts.push(arrow({ x: COL[0]!, y: fuelIn.y + H / 2 }, { x: prep.x, y: prep.y + H / 2 - 8 }, num('fuel-supply'), true));
+  if (has('feed-water')) parts.push(arrow({ x: COL[0]!, y: waterIn.y + H / 2 }, { x: prep.x, y: prep.y + H / 2 + 8 }, num('feed-water'), true));
+  const stackFuel = { x: stack.x, y: FUEL_Y + H / 2 };
+  const stackAir = { x: stack.x, y: AIR_Y + H / 2 };
+  if (pre && fuelHeat) {
+    parts.push(arrow(right(prep), left(pre), num('pre-reformer-feed')));
+    parts.push(arrow(right(pre), left(fuelHeat), num('pre-reformer-outlet')));
+    parts.push(arrow(right(fuelHeat), stackFuel, num('fuel-inlet')));
+  } else {
+    parts.push(arrow(right(prep), stackFuel, num('fuel-inlet')));
+  }
+  if (blower) {
+    parts.push(arrow({ x: COL[0]!, y: AIR_Y + H / 2 }, left(blower), num('air-supply')));
+    parts.push(arrow(right(blower), left(airHeat), num('blower-outlet')));
+  } else {
+    parts.push(arrow({ x: COL[0]!, y: AIR_Y + H / 2 }, left(airHeat), num('air-supply')));
+  }
+  parts.push(arrow(right(airHeat), stackAir, num('air-inlet')));
+  if (has('recycle')) {
+    // The recycle leaves the stack's top and returns to the feed preparation above the fuel line.
+    const top = stack.y - 14;
+    parts.push(
+      `<path d="M${stack.x + W / 2},${stack.y} L${stack.x + W / 2},${top} L${prep.x + W / 2},${top} L${prep.x + W / 2},${prep.y}" fill="none" stroke="currentColor" stroke-width="1.2" stroke-dasharray="4 3" marker-end="url(#bfd-arrow)"/><text x="${((stack.x + prep.x + W) / 2).toFixed(1)}" y="${top - 4}" text-anchor="middle" font-size="11" font-weight="bold">${num('recycle').join(', ')}</text>`,
+    );
+  }
+  const stackOutFuel = { x: stack.x + W, y: FUEL_Y + H / 2 };
+  const stackOutAir = { x: stack.x + W, y: AIR_Y + H / 2 };
+  if (ox) {
+    parts.push(arrow(stackOutFuel, { x: ox.x, y: ox.y + 12 }, num('fuel-outlet')));
+    parts.push(arrow(stackOutAir, { x: ox.x, y: ox.y + H - 12 }, num('air-outlet')));
+    if (has('oxidiser-air')) {
+      parts.push(downOrUp(ox.x + W / 2, AIR_Y + H + 20, ox.y + H, num('oxidiser-air')));
+      terminals.push(`<text x="${ox.x + W / 2}" y="${AIR_Y + H + 32}" text-anchor="middle" font-size="10">air from the blower</text>`);
+    }
+    if (hr) {
+      parts.push(arrow(right(ox), left(hr), num('oxidiser-outlet', 'exhaust-mixed')));
+      terminals.push(exitLabel(COL[7]! + 4, hr.y + 12, 'exhaust'));
+      parts.push(arrow({ x: hr.x + W, y: hr.y + 12 }, { x: COL[7]!, y: hr.y + 12 }, num('exhaust')));
+      if (has('condensate')) {
+        terminals.push(exitLabel(COL[7]! + 4, hr.y + H - 10, 'condensate'));
+        parts.push(arrow({ x: hr.x + W, y: hr.y + H - 10 }, { x: COL[7]!, y: hr.y + H - 10 }, num('condensate')));
+      }
+    } else {
+      terminals.push(exitLabel(COL[6]! + 4, ox.y + H / 2, 'exhaust'));
+      parts.push(arrow(right(ox), { x: COL[6]!, y: ox.y + H / 2 }, num('oxidiser-outlet', 'exhaust-mixed')));
+    }
+  } else {
+    terminals.push(exitLabel(COL[5]! + 4, stackOutFuel.y, 'off-gas'), exitLabel(COL[5]! + 4, stackOutAir.y, 'air exhaust'));
+    parts.push(arrow(stackOutFuel, { x: COL[5]!, y: stackOutFuel.y }, num('fuel-outlet')));
+    parts.push(arrow(stackOutAir, { x: COL[5]!, y: stackOutAir.y }, num('air-outlet')));
+  }
+  if (has('fuel-electrode-water') || has('air-electrode-water')) {
+    const water = { x: stack.x + W / 2, y: stack.y + stack.h };
+    terminals.push(`<text x="${water.x}" y="${water.y + 42}" text-anchor="middle" font-size="10">liquid water</text>`);
+    parts.push(downOrUp(water.x, water.y, water.y + 30, num('fuel-electrode-water', 'air-electrode-water')));
+  }
+  const height = AIR_Y + H + 62;
+  const width = COL[7]! + 70;
+  const svg =
+    `<svg class="block-flow" viewBox="0 0 ${width} ${height}" width="100%" role="img" aria-label="Block flow diagram of the plant with its numbered streams" xmlns="http://www.w3.org/2000/svg">` +
+    `<defs><marker id="bfd-arrow" viewBox="0 0 10 10" refX="10" refY="5" markerWidth="7" markerHeight="7" orient="auto-start-reverse"><path d="M0,0 L10,5 L0,10 z" fill="currentColor"/></marker></defs>` +
+    boxes.map(drawBox).join('') +
+    parts.join('') +
+    terminals.join('') +
+    '</svg>';
+  return trustedHtml(svg);
+}
