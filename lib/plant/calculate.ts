@@ -507,7 +507,7 @@ function calculateResults(basis: DesignBasis): Results {
     },
     sensitivities: sensitivities(point, basis.sensitivity),
     plant: plantOf(plant),
-    hazards: assessHazards(hazardInput(sizingBasis, point)),
+    hazards: assessHazards(hazardInput(sizingBasis, point, plant.streams)),
     findings,
     cases,
     envelope: envelopeOf(cases),

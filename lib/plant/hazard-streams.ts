@@ -6,7 +6,7 @@
 import type { HazardInput, HazardStream, StreamRole } from '../hazards/types.ts';
 import type { DesignBasis } from '../basis/types.ts';
 import type { DesignPoint } from './design-point.ts';
-import { gasMoleFractions } from './streams.ts';
+import { gasMoleFractions, type Stream } from './streams.ts';
 
 function role(id: string, point: DesignPoint): StreamRole {
   const power = point.inputs.mode === 'power';
@@ -24,12 +24,19 @@ function role(id: string, point: DesignPoint): StreamRole {
   }
 }
 
-export function hazardInput(basis: DesignBasis, point: DesignPoint): HazardInput {
-  const streams: HazardStream[] = point.streams
+/**
+ * The plant's streams the hazards read beside the stack's: the off-gas oxidiser's outlet and the
+ * exhaust after the heat recovery (their temperature and what is left in them: CO, unburnt fuel).
+ */
+const PLANT_STREAMS = new Set(['oxidiser-outlet', 'exhaust-mixed', 'exhaust']);
+
+export function hazardInput(basis: DesignBasis, point: DesignPoint, plantStreams: readonly Stream[] = []): HazardInput {
+  const streams: HazardStream[] = [...point.streams, ...plantStreams.filter((s) => PLANT_STREAMS.has(s.id))]
     .map((s) => {
       const x = gasMoleFractions(s.flows);
       const moleFractions = Object.fromEntries(Object.entries(x).filter(([, v]) => v >= 1e-12));
-      return { id: s.id, name: s.name, temperatureK: s.temperatureK, pressureBar: s.pressureBar, moleFractions, role: role(s.id, point), side: s.id.startsWith('air') ? 'air' : 'fuel' } as HazardStream;
+      const side = s.id.startsWith('air') || PLANT_STREAMS.has(s.id) ? 'air' : 'fuel';
+      return { id: s.id, name: s.name, temperatureK: s.temperatureK, pressureBar: s.pressureBar, moleFractions, role: role(s.id, point), side } as HazardStream;
     })
     .filter((s) => Object.keys(s.moleFractions).length > 0);
   return {

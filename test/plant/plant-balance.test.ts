@@ -5,7 +5,7 @@
  * errors, and the first law over the plant for every power-mode scaffold.
  */
 import { describe, expect, it } from 'vitest';
-import { evaluateBasis } from '../../lib/plant/calculate.ts';
+import { calculate, evaluateBasis } from '../../lib/plant/calculate.ts';
 import { loadBasisFile } from '../../lib/basis/load.ts';
 import { plantBalance } from '../../lib/plant/plant-balance.ts';
 import { mixtureHeatCapacityJPerK } from '../../lib/thermo/mixture.ts';
@@ -119,6 +119,17 @@ describe('the demo CHP module', () => {
     expect(p.blower!.powerW).toBeGreaterThan(0);
     expect(p.duties.find((d) => d.id === 'pre-reformer')!.dutyW).toBeGreaterThan(0);
     expect(p.heatRecovery!.deliveredHeatW).toBeGreaterThan(0);
+  });
+});
+
+describe('the hazards read the plant', () => {
+  it("assess the oxidiser's outlet and the exhaust with the stack's streams", () => {
+    const results = calculate(basisFrom('solid-oxide', 'power', { ...FULL_PLANT, 'plant.off-gas-oxidiser': { oxidant: 'air-electrode-exhaust', 'material-limit': '1100 C' } }));
+    const ids = results.hazards.streams.map((s) => s.id);
+    expect(ids).toContain('oxidiser-outlet');
+    expect(ids).toContain('exhaust');
+    const ox = results.hazards.streams.find((s) => s.id === 'oxidiser-outlet')!;
+    expect(ox.temperature_K).toBe(results.plant.power!.oxidiser!.outletTemperature_K);
   });
 });
 
