@@ -52,9 +52,8 @@ export interface HazardInput {
   airPressureBar: number;
   ambientTemperatureK: number;
   /**
-   * The DC voltage the electrical caution reads, V, and what it is, as the caution names it. Today
-   * the plant hands it the stack voltage (results.headline.stackVoltage_V, the series voltage of
-   * the stack's cells); the electrical layout will hand it the DC bus voltage instead.
+   * The DC voltage the electrical caution reads, V, and what it is, as the caution names it: the
+   * plant hands it the highest DC bus voltage of the electrical layout (lib/plant/hazard-streams.ts).
    */
   dcVoltage: { voltageV: number; description: string };
 }

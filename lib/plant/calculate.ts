@@ -507,7 +507,7 @@ function calculateResults(basis: DesignBasis): Results {
     },
     sensitivities: sensitivities(point, basis.sensitivity),
     plant: plantOf(plant),
-    hazards: assessHazards(hazardInput(sizingBasis, point, plant.streams)),
+    hazards: assessHazards(hazardInput(sizingBasis, point, plant)),
     findings,
     cases,
     envelope: envelopeOf(cases),

@@ -6,7 +6,8 @@
 import type { HazardInput, HazardStream, StreamRole } from '../hazards/types.ts';
 import type { DesignBasis } from '../basis/types.ts';
 import type { DesignPoint } from './design-point.ts';
-import { gasMoleFractions, type Stream } from './streams.ts';
+import { gasMoleFractions } from './streams.ts';
+import type { PlantBalance } from './plant-balance.ts';
 
 function role(id: string, point: DesignPoint): StreamRole {
   const power = point.inputs.mode === 'power';
@@ -30,8 +31,22 @@ function role(id: string, point: DesignPoint): StreamRole {
  */
 const PLANT_STREAMS = new Set(['oxidiser-outlet', 'exhaust-mixed', 'exhaust']);
 
-export function hazardInput(basis: DesignBasis, point: DesignPoint, plantStreams: readonly Stream[] = []): HazardInput {
-  const streams: HazardStream[] = [...point.streams, ...plantStreams.filter((s) => PLANT_STREAMS.has(s.id))]
+/**
+ * The highest DC voltage of the array: the cells in series on the bus (stacks in series × cells
+ * per stack) at the open-circuit voltage in power mode (a string unloaded), at the operating cell
+ * voltage in electrolysis (above open circuit), V.
+ */
+function busVoltage(point: DesignPoint, plant: PlantBalance): HazardInput['dcVoltage'] {
+  const e = plant.electrical;
+  const inSeries = e.stacksInSeries * e.cellsPerStack;
+  const power = point.inputs.mode === 'power';
+  const cellV = power ? Math.max(point.voltage.openCircuitV, point.voltage.cellVoltageV) : point.voltage.cellVoltageV;
+  const at = power ? 'at open circuit' : 'at the operating cell voltage';
+  return { voltageV: inSeries * cellV, description: `the DC bus ${at}: ${inSeries} cells in series (${e.stacksInSeries} stack${e.stacksInSeries === 1 ? '' : 's'} of ${e.cellsPerStack})` };
+}
+
+export function hazardInput(basis: DesignBasis, point: DesignPoint, plant: PlantBalance): HazardInput {
+  const streams: HazardStream[] = [...point.streams, ...plant.streams.filter((s) => PLANT_STREAMS.has(s.id))]
     .map((s) => {
       const x = gasMoleFractions(s.flows);
       const moleFractions = Object.fromEntries(Object.entries(x).filter(([, v]) => v >= 1e-12));
@@ -48,6 +63,6 @@ export function hazardInput(basis: DesignBasis, point: DesignPoint, plantStreams
     fuelPressureBar: point.inputs.fuelPressureBar,
     airPressureBar: point.inputs.airPressureBar,
     ambientTemperatureK: point.inputs.ambientTemperatureK,
-    dcVoltage: { voltageV: point.stackVoltageV, description: `the stack voltage (the series voltage of its ${point.sizing.cells} cells)` },
+    dcVoltage: busVoltage(point, plant),
   };
 }

@@ -130,6 +130,11 @@ describe('the hazards read the plant', () => {
     expect(ids).toContain('exhaust');
     const ox = results.hazards.streams.find((s) => s.id === 'oxidiser-outlet')!;
     expect(ox.temperature_K).toBe(results.plant.power!.oxidiser!.outletTemperature_K);
+    // The electrical caution reads the highest bus voltage: the cells in series at open circuit,
+    // not N × V of every cell (the label defect of issue 18).
+    const e = results.plant.electrical;
+    expect(results.hazards.basis.dcVoltage_V).toBeCloseTo(e.stacksInSeries * e.cellsPerStack * results.headline.openCircuit_V, 9);
+    expect(results.hazards.basis.dcVoltage_V).toBeLessThan(results.headline.stackVoltage_V);
   });
 });
 

@@ -17,7 +17,11 @@ export const hazardsCommand: Command = {
     const { hazardInput } = await import('../../plant/hazard-streams.ts');
     const { assessHazards } = await import('../../hazards/assessment.ts');
     const { formatHazardsText } = await import('../../hazards/format-text.ts');
-    const assessment = assessHazards(hazardInput(basis, evaluateBasis(basis)));
+    const { plantBalance } = await import('../../plant/plant-balance.ts');
+    const { locateCalculationErrors } = await import('../../plant/located-error.ts');
+    const point = evaluateBasis(basis);
+    const plant = locateCalculationErrors(basis, () => plantBalance(point, basis.plant));
+    const assessment = assessHazards(hazardInput(basis, point, plant));
     io.out(args.values.json ? json(assessment) : formatHazardsText(assessment));
     return 0;
   },
