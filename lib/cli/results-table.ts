@@ -40,7 +40,7 @@ export function headlineRows(r: Results): [string, string][] {
     ['Nernst voltage, area mean / charge mean', `${sig(r.electrochemistry.areaMeanNernst_V, 5)} V / ${sig(h.meanNernst_V, 5)} V`],
     ['cell voltage', `${sig(h.cellVoltage_V, 4)} V (${r.electrochemistry.voltageSource === 'given' ? 'given' : 'from area-specific resistance'})`],
     ['local current density, mean / highest', `${sig(r.operatingPoint.currentDensity_A_per_m2 / 1e4, 4)} / ${sig(h.maxLocalCurrentDensity_A_per_m2 / 1e4, 4)} A/cm2`],
-    ['cells, cell current, sum of cell currents', `${h.cells}, ${sig(h.cellCurrent_A, 5)} A, ${sig(h.totalCurrent_A, 5)} A`],
+    ['cells, cell current, Σ cell currents', `${h.cells}, ${sig(h.cellCurrent_A, 5)} A, ${sig(h.totalCurrent_A, 5)} A`],
     ...layoutRows(r),
     [power ? 'stack DC power / net power' : 'stack power input', power ? `${kw(h.stackPower_W)} / ${kw(h.netPower_W)}` : kw(h.stackPower_W)],
   ];
