@@ -43,8 +43,8 @@ interface Shown {
 export const CASE_ROWS: readonly Shown[] = [
   { path: 'operatingPoint.currentDensity_A_per_m2', label: 'Current density', factor: 1e-4, unit: 'A/cm²' },
   { path: 'headline.cellVoltage_V', label: 'Cell voltage', factor: 1, unit: 'V' },
-  { path: 'headline.stackVoltage_V', label: 'Stack DC voltage', factor: 1, unit: 'V' },
-  { path: 'headline.cellCurrent_A', label: 'Stack DC current (cells in series)', factor: 1, unit: 'A' },
+  { path: 'headline.stackVoltage_V', label: 'Series voltage of all cells (N × V; not a terminal voltage)', factor: 1, unit: 'V' },
+  { path: 'headline.cellCurrent_A', label: 'Cell current (that of one stack and one string)', factor: 1, unit: 'A' },
   { path: 'headline.stackPower_W', label: 'Stack DC power', factor: 1e-3, unit: 'kW' },
   { path: 'headline.netPower_W', label: 'Net power', factor: 1e-3, unit: 'kW', mode: 'power' },
   { path: 'headline.hydrogenProduction_kg_per_h', label: 'Hydrogen production', factor: 1, unit: 'kg/h' },
