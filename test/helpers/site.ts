@@ -122,7 +122,7 @@ export async function issuedDemoRoot(): Promise<string> {
 /**
  * A digest of a PDF that ignores where Chromium puts each glyph to a fraction of a unit: the
  * content streams are inflated and every number in them rounded to a whole unit, and /Length
- * values and the cross-reference offsets are left out; everything else counts byte for byte. Under heavy load one print in about
+ * values and the cross-reference offsets (table or stream) are left out; everything else counts byte for byte. Under heavy load one print in about
  * a hundred in a stress run of our own placed one glyph 1/8 unit lower (a text matrix of
  * 6541.125 against 6541); a torn or other document still differs.
  */
@@ -135,6 +135,14 @@ export function pdfLayoutDigest(bytes: Buffer): string {
     const length = Number(m[1]);
     const start = m.index + m[0].length;
     hash.update(text.slice(from, m.index) + m[2]);
+    // A cross-reference stream (§7.5.8) holds byte offsets, which a longer stream shifts, as
+    // the xref table below does: its body is left out.
+    const dictionary = text.slice(text.lastIndexOf('<<', m.index), start);
+    if (/\/Type\s*\/XRef\b/.test(dictionary)) {
+      from = start + length;
+      streamStart.lastIndex = from;
+      continue;
+    }
     let body = bytes.subarray(start, start + length);
     if (/\/FlateDecode/.test(text.slice(Math.max(0, m.index - 200), start))) {
       try {
