@@ -1,1 +1,1 @@
-UWgcsCtSboHi9Dat79enoPDTqKxQdY4acRAtZBg2O/Swj9c2EKzVAddUmQDv8ETEgVK1Gm9f6tE6YpdKMz5iDw==
+pfgvl6CIN/Lztiq38knphnJSI+5elnuxY5j9fNy+lt9xZNMhY08d3lY59MAKWf3ymR3+1kO2mkJiG8FbB1+GDg==

@@ -1,1 +1,1 @@
-d3qVv6mhSikAkRl8r//T+pSzrIkxDsXV1mGQONY2e9L8siQBsO5oUQoOWb48KUSFkHwmBXvWRZUkG1IreyysDg==
+vVhuMTDCPJ6yyHr1pygmNtU3zYqzrgmupZFsDT6wLf+/liSkifTBtgJHEUv7I2AI/CMOPx9L0sYrTkT4e1i/Dg==
