@@ -105,7 +105,7 @@ describe('a build of the demo projects', () => {
     }
   }, 60_000);
 
-  it('prints a draft as "draft, not issued" on every page, each major section on a new page, and no page all but empty', async () => {
+  it('prints a draft as "draft, not issued" on every page, each major section on a new page, and no page all but empty inside a section', async () => {
     if (findChromium() === null && !process.env.CI) {
       console.warn('SKIPPED draft PDF pages check: no Chromium at /usr/bin/chromium (apt-get install -y chromium); CI runs it');
       return;
@@ -117,6 +117,11 @@ describe('a build of the demo projects', () => {
       // The draft of the next revision: C after the two issued revisions of the solid oxide project, else A.
       const rev = id === SOFC ? 'C' : 'A';
       const pages = await pageTexts(readFileSync(join(site, 'projects', id, 'document.pdf')));
+      // A major section opens a page, so the page before it may hold the last lines of the
+      // section before; only a short page inside a section (a table's last rows pushed over) is
+      // all but empty.
+      const openers = [...outline().map((s) => compact(`${s.number} ${s.title}`)), ...appendices().map((a) => compact(`${a.letter} Appendix: ${a.title}`))];
+      const endsSection = (i: number) => i === pages.length - 1 || openers.some((o) => compact(pages[i + 1]!).startsWith(o));
       pages.forEach((text, i) => {
         const words = compact(text);
         const where = `${id} page ${i + 1}`;
@@ -125,7 +130,7 @@ describe('a build of the demo projects', () => {
         expect(words, where).toContain(compact(`${d.number} rev ${rev}, ${DRAFT_PDF_STATUS}`));
         // Less than a line or two besides the header and footer: a table's last row or two alone on a page.
         const bands = compact(`${d.number} · ${d.title}Rev ${rev} · ${DRAFT_PDF_STATUS}${d.number} rev ${rev}, ${DRAFT_PDF_STATUS}, 2026-01-01page ${i + 1} of ${pages.length}`);
-        expect(words.length - bands.length, `${where}: ${text.slice(0, 120)}`).toBeGreaterThan(150);
+        if (!endsSection(i)) expect(words.length - bands.length, `${where}: ${text.slice(0, 120)}`).toBeGreaterThan(150);
       });
       // The print stylesheet breaks the page before each major section, its heading opening a
       // page, but for purpose and scope, which share the first page with the title block and
