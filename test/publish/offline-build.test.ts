@@ -49,6 +49,8 @@ const PRELOAD = fileURLToPath(new URL('../helpers/fixtures/no-network.mjs', impo
 const ATTEMPTS = fileURLToPath(new URL('../helpers/fixtures/network-attempts.mjs', import.meta.url));
 const PROJECTS = ['hob-tor-pem-backup', 'kestrelford-pem-electrolyser'] as const;
 const ISSUED_PAGE = 'projects/hob-tor-pem-backup/rev-A/index.html';
+/** The issued document itself, which the site carries beside its revision's register page. */
+const ISSUED_DOCUMENT = 'projects/hob-tor-pem-backup/rev-A/document.html';
 const BUILD_TIMEOUT = 400_000;
 
 /** The unshare arguments that give a process a network namespace of its own here, or null. */
@@ -290,7 +292,7 @@ describeWithChromium('cellbasis build with all network access taken away', () =>
     expectBuilt(r);
     const site = join(root, 'site');
     expectCompleteSite(site, PROJECTS, [ISSUED_PAGE]);
-    expect(htmlPages(site)).toEqual(['index.html', ...PROJECTS.map((id) => `projects/${id}/index.html`), ISSUED_PAGE].sort());
+    expect(htmlPages(site)).toEqual(['index.html', ...PROJECTS.map((id) => `projects/${id}/index.html`), ISSUED_PAGE, ISSUED_DOCUMENT].sort());
 
     const entries = readLog(log);
     expect(entries.some((e) => e.kind === 'loaded' && e.thread === 0 && e.detail.includes('cellbasis.js build')), 'the preload ran in the build').toBe(true);
