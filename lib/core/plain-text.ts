@@ -22,6 +22,31 @@ export function grid(header: string[], rows: string[][]): string {
   return [line(header), widths.map((w) => '-'.repeat(w)).join('  '), ...rows.map(line)].join('\n') + '\n';
 }
 
+/** A row of a text table: cells, or one line heading the rows under it. */
+export interface TextRow {
+  group?: string;
+  cells: string[];
+}
+
+/**
+ * A table for the terminal: the header, a rule, the rows with each column padded to its widest
+ * cell (left- or right-aligned as `align` says), and a group row as its own line, indented
+ * under nothing. Widths count UTF-16 code units, which is one column for every character the
+ * documents print (Δ, °, subscripts, the narrow no-break space of digit groups).
+ */
+export function textTable(head: readonly string[], align: readonly ('left' | 'right')[], rows: readonly TextRow[]): string {
+  const cellRows = rows.filter((r) => r.group === undefined);
+  const widths = head.map((h, i) => Math.max(h.length, ...cellRows.map((r) => (r.cells[i] ?? '').length)));
+  const line = (cells: readonly string[]) =>
+    cells
+      .map((c, i) => (align[i] === 'right' ? c.padStart(widths[i]!) : c.padEnd(widths[i]!)))
+      .join('  ')
+      .trimEnd();
+  const out = [line(head), widths.map((w) => '-'.repeat(w)).join('  ')];
+  for (const r of rows) out.push(r.group === undefined ? line(r.cells) : r.group);
+  return out.join('\n') + '\n';
+}
+
 /** JSON for machines: two-space indent, trailing newline. */
 export function json(value: unknown): string {
   return JSON.stringify(value, null, 2) + '\n';

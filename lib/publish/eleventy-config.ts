@@ -29,6 +29,7 @@ import { ASSET_DIR, siteAssets } from './site-assets.ts';
 import { loadSiteModel, type SiteModel } from './site-model.ts';
 import { SiteError } from './site-problems.ts';
 import { claimSiteFolder } from './site-marker.ts';
+import { withTableFiles } from './table-files.ts';
 
 /**
  * The issued files the site copies: those of the model where the build loaded it first (only the
@@ -59,10 +60,15 @@ function issuedCopies(root: string, model: SiteModel | null): Record<string, str
   return copies;
 }
 
-/** The model for one build: as handed over, or loaded now; while serving, problems become the index page. */
+/** The model for one build: as handed over, or loaded now; while serving, problems become the index page. Each page writes its tables' CSV files as it is rendered. */
 function siteData(): SiteModel {
   const context = buildContext();
-  if (context.model) return context.model;
+  const model = context.model ?? loadedModel();
+  return { ...model, pages: withTableFiles(model.pages, context.output) };
+}
+
+function loadedModel(): SiteModel {
+  const context = buildContext();
   try {
     const model = loadSiteModel(context.root);
     for (const w of model.warnings) process.stderr.write(`${w}\n`);

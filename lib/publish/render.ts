@@ -14,6 +14,7 @@
  *
  *   renderStandaloneHtml(input): string
  *     the same page with every asset inlined (assets copied to a temporary folder and read back)
+ *     and the CSV of each table as a data: URI instead of a file beside it
  *
  * Example (issue): const html = renderStandaloneHtml({ basis, results, revision: { kind: 'issued', ... }, history });
  */
@@ -38,7 +39,8 @@ export function renderDocumentHtml(input: DocumentInput, options: DocumentOption
 }
 
 export function renderStandaloneHtml(input: DocumentInput, options: Omit<DocumentOptions, 'assetBase'> = {}): string {
-  const html = renderDocumentHtml(input, { ...options, assetBase: '' });
+  // Nothing stands beside a standalone document: its tables' CSV travel inside it as data: URIs.
+  const html = renderDocumentHtml(input, { ...options, assetBase: '', tables: 'inline' });
   const dir = mkdtempSync(join(tmpdir(), 'cellbasis-assets-'));
   try {
     writeSiteAssets(dir);

@@ -27,6 +27,7 @@ import { writeSiteAssets } from './write-assets.ts';
 import { ASSET_DIR } from './site-assets.ts';
 import { TEMPLATES_DIR } from './paths.ts';
 import { claimSiteFolder } from './site-marker.ts';
+import { writeTableFiles } from './table-files.ts';
 
 export interface ServeOptions {
   root: string;
@@ -86,10 +87,11 @@ class IncrementalSite {
     });
     for (const line of [...problems.errors, ...problems.warnings]) process.stderr.write(`${line}\n`);
     if (failed) return [];
-    const files = pages.pages.map((entry) => {
+    const files = pages.pages.flatMap((entry) => {
       const file = join(this.out, entry.pagePath);
-      writeAtomically(file, renderView(entry.view()));
-      return file;
+      const view = entry.view();
+      writeAtomically(file, renderView(view));
+      return [file, ...writeTableFiles(this.out, view)];
     });
     for (const entry of pages.revisionPages) {
       const file = join(this.out, entry.pagePath);

@@ -31,6 +31,7 @@ import { historySection, type HistorySection } from './sections/history-view.ts'
 import { figures, type Figure } from './charts/figures.ts';
 import type { Table } from './table.ts';
 import { printMarks, type PrintMarks } from './print-css.ts';
+import { linkTables, type TableLinks } from './table-links.ts';
 
 export interface DocumentInput {
   basis: DesignBasis;
@@ -49,6 +50,8 @@ export interface DocumentOptions {
   indexHref?: string | null;
   /** The reference checks (default: runAllChecks()), given once by a site build for all its pages. */
   checks?: readonly CheckResult[];
+  /** How the page links the CSV of each table (lib/report/table-links.ts): files beside it (default), or inline for a page that stands alone. */
+  tables?: TableLinks;
 }
 
 export interface DocumentView {
@@ -101,7 +104,7 @@ export function documentView(input: DocumentInput, options: DocumentOptions): Do
   const method = methodSection(results, book, outline().find((s) => s.id === 'method')!.number);
   const link = options.pagePath === undefined ? null : (path: string) => relativeHref(options.pagePath!, path);
   const title = titleBlock(basis, results, input.revision);
-  return {
+  const view: DocumentView = {
     lang: 'en',
     pagePath: options.pagePath ?? 'document.html',
     pageTitle: `${basis.document.number}: ${basis.document.title}`,
@@ -129,4 +132,7 @@ export function documentView(input: DocumentInput, options: DocumentOptions): Do
     references: referencesSection(basis, hazards),
     history: historySection(input.history, input.revision, link),
   };
+  const revision = input.revision.kind === 'issued' ? `-rev-${input.revision.revision}` : '';
+  linkTables(view, options.tables ?? 'files', `${results.project.id}${revision}`);
+  return view;
 }

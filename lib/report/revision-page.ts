@@ -10,7 +10,7 @@
 import type { IssueStatus } from '../basis/revisions.ts';
 import { ASSETS, assetLinks, type AssetLinks } from './assets.ts';
 import { relativeHref, rootPrefix } from './links.ts';
-import { pairs, type Table } from './table.ts';
+import { pairsTable, textPair, type Table } from './table.ts';
 import { shortFingerprint, statusWords, type SignatureFacts } from './revision.ts';
 import type { IssuedFacts } from './history.ts';
 import type { SignOffRow } from './sections/title-block.ts';
@@ -95,7 +95,7 @@ export function revisionPageView(input: RevisionPageInput): RevisionPageView {
     indexHref: link(input.indexPath),
     heading: input.title,
     statusMark: mark(m.status, input.revision, m.issuedOn, input.supersededBy),
-    facts: pairs(facts, ['Field', 'As issued'], 'left'),
+    facts: pairsTable('revision-facts', 'The revision as issued', facts.map(([label, text]) => textPair(label, text)), ['Field', 'As issued'], 'left'),
     signOff: ROLES.map(([role, label]) => {
       const s = m.signOff.find((x) => x.role === role);
       const signed = m.signatures.find((x: SignatureFacts) => x.role === role);

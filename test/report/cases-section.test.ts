@@ -54,7 +54,7 @@ describe.each(['thistlemere-sofc-chp', 'kestrelford-pem-electrolyser', 'corrin-b
   const section = view.cases;
 
   it('marks every governing value in words, once, in the column of its case', () => {
-    const marked = section.comparison.rows.flatMap((row) => row.cells.slice(1).map((cell, k) => ({ label: row.cells[0]!, caseId: results.cases[k]!.id, words: /\((highest|lowest)(, (highest|lowest))?\)$/.exec(cell) })));
+    const marked = section.comparison!.rows.flatMap((row) => row.cells.slice(1).map((cell, k) => ({ label: row.cells[0]!, caseId: results.cases[k]!.id, words: /\((highest|lowest)(, (highest|lowest))?\)$/.exec(cell) })));
     const count = marked.reduce((sum, m) => sum + (m.words ? m.words[0].split(',').length : 0), 0);
     expect(count).toBe(results.envelope.length);
     for (const e of results.envelope) {
@@ -62,7 +62,7 @@ describe.each(['thistlemere-sofc-chp', 'kestrelford-pem-electrolyser', 'corrin-b
       const cell = marked.find((m) => m.label.startsWith(row.label) && m.caseId === e.case)!;
       expect(cell.words?.[0], `${e.id}`).toContain(e.governs === 'max' ? 'highest' : 'lowest');
     }
-    expect(section.envelope.rows).toHaveLength(results.envelope.length);
+    expect(section.envelope!.rows).toHaveLength(results.envelope.length);
   });
 
   it('each worked line of a case gives, on its own numbers, the number the case reports', () => {

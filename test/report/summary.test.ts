@@ -3,7 +3,9 @@
 // field and the assumptions that bear on it; "No findings" only where there are none; and the
 // conclusions saying so where a confirmed assumption is contradicted.
 import { describe, expect, it } from 'vitest';
+import { parse } from 'csv-parse/sync';
 import { summarySection } from '../../lib/report/sections/summary.ts';
+import { tableCsv } from '../../lib/report/table.ts';
 import { runAllChecks } from '../../lib/verification/checks.ts';
 import { scaffoldCase } from '../helpers/scaffold-cases.ts';
 
@@ -30,6 +32,18 @@ describe('the findings of a PEM electrolyser whose water loop cannot carry its h
     expect(s.findingsCount).toBe('2 findings: 1 critical, 1 warning.');
   });
 
+  it('gives the findings\' data as the CSV of a table, a record per finding with its severity, code, fields and assumptions', () => {
+    const t = s.findingsTable;
+    expect(t.name).toBe('findings');
+    const rows = parse(tableCsv(t), { record_delimiter: '\r\n' }) as string[][];
+    expect(rows[0]).toEqual(['Severity', 'Source', 'Code', 'Field', 'Finding', 'Also concerns', 'Assumptions']);
+    expect(rows.slice(1).map((r) => [r[0], r[1], r[2], r[3], r[5], r[6]])).toEqual([
+      ['Critical', 'calculation', 'assumption-contradicted', 'assumptions.0.open', s.findings[0]!.related, s.findings[0]!.assumptions],
+      ['Warning', 'calculation', 'water-loop-short', 'operating-point.steam-conversion', 'conditions.allowed-air-temperature-rise', 'A1 (confirmed)'],
+    ]);
+    expect(rows[2]![4]).toBe(s.findings[1]!.text);
+  });
+
   it('concludes that the design must change and that the results contradict A1', () => {
     expect(s.conclusions[0]).toMatch(/^The calculation raises 1 critical finding \(below\)/);
     expect(s.conclusions.join(' ')).toMatch(/The results contradict the confirmed assumption A1 \(findings below\)\./);
@@ -43,6 +57,8 @@ it('says "No findings" only where the calculation and the basis check raise none
   const s = summarySection(c.results, c.basis, c.results.hazards, checks);
   expect(s.findings).toEqual([]);
   expect(s.findingsCount).toMatch(/^No findings/);
+  // The findings' CSV is still offered: its header, and no records.
+  expect(s.findingsTable.data.rows).toEqual([]);
 });
 
 it('puts the highest local current density and the inlet value with its kind in the headline', () => {

@@ -1,50 +1,37 @@
 /**
- * The data under each chart: a table of its numbers (formatted, at most a few dozen rows, every
- * k-th point of a long series) and the complete data as CSV in a data: URI that a link downloads
- * without any server, so it works from a page opened from disk. CSV numbers are written in full
- * precision with a dot as decimal mark; the header names each column with its unit.
+ * The data under each chart: a table of its numbers as the chart shows them (formatted, in the
+ * chart's units, at most a few dozen rows: every k-th point of a long series) and, as the table's
+ * data, every point unrounded in the units of the results object, which the page offers as CSV
+ * (lib/report/table.ts).
  */
 import { formatNumber } from '../format.ts';
-import { table, type Table } from '../table.ts';
+import { table, type DataValue, type Table, type TableRow } from '../table.ts';
 
-/** A column of numbers (null: no value at that row) or of labels. */
-export type DataColumn = { header: string; values: (number | null)[]; digits?: number } | { header: string; labels: string[] };
+/**
+ * A column of a chart's data table. `head` and `shown` make the column of the page (numbers as
+ * the chart plots them, or labels); `data` the column of the CSV (the results' numbers, in their
+ * unit). A column may have either or both: where the chart plots a difference (the tornado bars),
+ * the CSV gives the values the difference is made of.
+ */
+export interface ChartColumn {
+  head?: string;
+  shown?: (number | null)[] | string[];
+  digits?: number;
+  data?: { name: string; unit: string; values: DataValue[] };
+}
 
 export interface ChartData {
   table: Table;
   /** "Every 8th of 214 points, and the last; the CSV file holds all of them." or "". */
   tableNote: string;
-  csvHref: string;
-  csvName: string;
 }
 
 const MAX_ROWS = 32;
 
-function length(c: DataColumn): number {
-  return 'labels' in c ? c.labels.length : c.values.length;
-}
-
-function csvCell(text: string): string {
-  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
-}
-
-function rawCell(c: DataColumn, i: number): string {
-  if ('labels' in c) return csvCell(c.labels[i] ?? '');
-  const v = c.values[i];
-  return v === null || v === undefined ? '' : String(v);
-}
-
-function shownCell(c: DataColumn, i: number): string {
-  if ('labels' in c) return c.labels[i] ?? '';
-  const v = c.values[i];
-  return v === null || v === undefined ? '' : formatNumber(v, c.digits ?? 4);
-}
-
-export function csvText(columns: readonly DataColumn[]): string {
-  const n = Math.max(...columns.map(length));
-  const lines = [columns.map((c) => csvCell(c.header)).join(',')];
-  for (let i = 0; i < n; i++) lines.push(columns.map((c) => rawCell(c, i)).join(','));
-  return `${lines.join('\r\n')}\r\n`;
+function shownCell(c: ChartColumn, i: number): string {
+  const v = c.shown?.[i];
+  if (v === null || v === undefined) return '';
+  return typeof v === 'string' ? v : formatNumber(v, c.digits ?? 4);
 }
 
 function ordinal(n: number): string {
@@ -61,17 +48,27 @@ function sampled(n: number): { indices: number[]; step: number } {
   return { indices, step };
 }
 
-export function chartData(columns: readonly DataColumn[], fileName: string): ChartData {
-  const n = Math.max(...columns.map(length));
+/** The chart's table (name: the figure's, such as "nernst-path"; title given when the figure is numbered). */
+export function chartData(name: string, columns: readonly ChartColumn[]): ChartData {
+  const shown = columns.filter((c) => c.head !== undefined);
+  const data = columns.flatMap((c) => (c.data ? [c.data] : []));
+  const n = Math.max(...shown.map((c) => c.shown?.length ?? 0));
+  const rows = Math.max(...data.map((d) => d.values.length));
+  if (n !== rows) throw new Error(`chart data ${name}: ${n} rows shown, ${rows} in the data`);
   const { indices, step } = sampled(n);
+  const tableRows: TableRow[] = indices.map((i) => ({ cells: shown.map((c) => shownCell(c, i)) }));
   return {
-    table: table(
-      columns.map((c) => c.header),
-      columns.map((c) => ('labels' in c ? 'left' : 'right')),
-      indices.map((i) => ({ cells: columns.map((c) => shownCell(c, i)) })),
-    ),
+    table: table({
+      name,
+      title: name,
+      head: shown.map((c) => c.head!),
+      align: shown.map((c) => (c.shown?.some((v) => typeof v === 'string') ? 'left' : 'right')),
+      rows: tableRows,
+      data: {
+        columns: data.map((d) => ({ name: d.name, unit: d.unit })),
+        rows: Array.from({ length: rows }, (_, i) => data.map((d) => d.values[i] ?? null)),
+      },
+    }),
     tableNote: step > 1 ? `Every ${ordinal(step)} of ${n} points, and the last; the CSV file holds all of them.` : '',
-    csvHref: `data:text/csv;charset=utf-8,${encodeURIComponent(csvText(columns))}`,
-    csvName: fileName,
   };
 }

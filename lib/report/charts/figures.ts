@@ -10,7 +10,7 @@
 import type { Results } from '../../plant/results-schema.ts';
 import { formatNumber, formatPercent } from '../format.ts';
 import { jsonForScript } from './json-script.ts';
-import { chartData, type ChartData, type DataColumn } from './data-table.ts';
+import { chartData, type ChartColumn, type ChartData } from './data-table.ts';
 import type { Axis, ChartSpec, LineSeries } from './spec.ts';
 import type { TrustedHtml } from '../trusted-html.ts';
 import { speciesText } from '../species-text.ts';
@@ -49,6 +49,19 @@ type Draft = Omit<DrawnFigure, 'number' | 'spec' | 'width' | 'height' | 'kind'> 
 /** °C from K, rounded to the microkelvin so that 923.15 K reads 650 °C on an axis. */
 const C = (k: number) => Math.round((k - ZERO_CELSIUS_K) * 1e6) / 1e6;
 
+/**
+ * A column of a chart's data: the numbers of the results (`raw`, in `unit`) in the CSV, and on
+ * the page as the chart plots them (`show`: °C from K, % from a fraction, kW from W).
+ */
+function column(head: string, name: string, unit: string, raw: (number | null)[], show: (v: number) => number = (v) => v, digits?: number): ChartColumn {
+  return { head, shown: raw.map((v) => (v === null ? null : show(v))), ...(digits === undefined ? {} : { digits }), data: { name, unit, values: raw } };
+}
+
+const temperatureColumn = (temperatures: number[]) => column('temperature (°C)', 'Temperature', 'K', temperatures, C, 5);
+const percent = (v: number) => v * 100;
+const perCm2 = (v: number) => v / 1e4;
+const kilo = (v: number) => v / 1000;
+
 function vertical(x: number, y0: number, y1: number, label: string): LineSeries {
   return { label, points: [[x, y0], [x, y1]], style: 0, dashed: true, reference: true };
 }
@@ -75,18 +88,18 @@ function voltagesAgainstTemperature(r: Results): Draft {
   if (fuel) series.push({ label: 'reversible voltage of the fuel, −ΔG°/zF', points: s.filter((p) => p.fuelReversibleVoltage_V !== null).map((p) => [C(p.temperature_K), p.fuelReversibleVoltage_V!]), style: 2, dashed: true });
   const td = C(r.conditions.temperature_K);
   series.push({ label: 'design point: E°, thermoneutral and cell voltage at the operating temperature', points: [[td, r.electrochemistry.standardVoltage_V], [td, r.electrochemistry.thermoneutralVoltage_V], [td, r.headline.cellVoltage_V]], style: 0, marker: true });
-  const columns: DataColumn[] = [
-    { header: 'temperature (°C)', values: t, digits: 5 },
-    { header: 'reversible voltage E° (V)', values: s.map((p) => p.reversibleVoltage_V), digits: 5 },
-    { header: 'thermoneutral voltage (V)', values: s.map((p) => p.thermoneutralVoltage_V), digits: 5 },
+  const columns: ChartColumn[] = [
+    temperatureColumn(s.map((p) => p.temperature_K)),
+    column('reversible voltage E° (V)', 'Reversible voltage E° (H2)', 'V', s.map((p) => p.reversibleVoltage_V), undefined, 5),
+    column('thermoneutral voltage (V)', 'Thermoneutral voltage (H2)', 'V', s.map((p) => p.thermoneutralVoltage_V), undefined, 5),
   ];
-  if (fuel) columns.push({ header: 'fuel reversible voltage (V)', values: s.map((p) => p.fuelReversibleVoltage_V), digits: 5 });
+  if (fuel) columns.push(column('fuel reversible voltage (V)', 'Reversible voltage of the fuel', 'V', s.map((p) => p.fuelReversibleVoltage_V), undefined, 5));
   return {
     id: 'fig-voltage-temperature',
     title: 'Reversible and thermoneutral voltage against temperature',
     caption: `Standard voltages of H₂ + ½O₂ → H₂O (${r.technology.waterPhase === 'liquid' ? 'liquid' : 'gaseous'} water, 1 bar) from the species data; the markers are the design point at ${formatNumber(td, 4)} °C.`,
     spec: { kind: 'line', x: temperatureAxis(r), y: { title: 'Voltage (V)' }, series },
-    data: chartData(columns, `${r.project.id}-voltage-temperature.csv`),
+    data: chartData('voltage-temperature', columns),
     notes: [],
   };
 }
@@ -95,11 +108,11 @@ function limitsAgainstTemperature(r: Results): Draft {
   const s = r.sweeps.temperature;
   const pct = (v: number) => v * 100;
   const series: LineSeries[] = [];
-  const columns: DataColumn[] = [{ header: 'temperature (°C)', values: s.map((p) => C(p.temperature_K)), digits: 5 }];
+  const columns: ChartColumn[] = [temperatureColumn(s.map((p) => p.temperature_K))];
   const add = (label: string, get: (p: (typeof s)[number]) => number | null, style: number, dashed = false) => {
     if (!s.some((p) => get(p) !== null)) return;
     series.push({ label, points: s.filter((p) => get(p) !== null).map((p) => [C(p.temperature_K), pct(get(p)!)]), style, dashed });
-    columns.push({ header: `${label} (%)`, values: s.map((p) => (get(p) === null ? null : pct(get(p)!))) });
+    columns.push(column(`${label} (%)`, label, '', s.map(get), pct));
   };
   add('limit of the fuel, LHV', (p) => p.limitLhv, 0);
   add('limit of the fuel, HHV', (p) => p.limitHhv, 2);
@@ -115,18 +128,19 @@ function limitsAgainstTemperature(r: Results): Draft {
     title: 'Efficiency limits against temperature',
     caption: `Thermodynamic limits −ΔG(T)/heating value and the Carnot efficiency between T and ${formatNumber(C(r.conditions.ambientTemperature_K), 3)} °C, with the design point.`,
     spec: { kind: 'line', x: temperatureAxis(r), y: { title: 'Efficiency (%)' }, series },
-    data: chartData(columns, `${r.project.id}-efficiency-temperature.csv`),
+    data: chartData('efficiency-temperature', columns),
     notes: [],
   };
 }
 
-function pathAxis(r: Results): { title: string; label: string } {
-  return r.technology.mode === 'power' ? { title: 'Fuel utilization (%)', label: 'fuel utilization (%)' } : { title: 'Conversion of the feed (%)', label: 'conversion (%)' };
+function pathAxis(r: Results): { title: string; label: string; name: string } {
+  return r.technology.mode === 'power'
+    ? { title: 'Fuel utilization (%)', label: 'fuel utilization (%)', name: 'Fuel utilization' }
+    : { title: 'Conversion of the feed (%)', label: 'conversion (%)', name: 'Conversion of the feed' };
 }
 
 function nernstAlongPath(r: Results): Draft {
   const p = r.fuelPath.points;
-  const u = p.map((x) => x.utilization * 100);
   const finite = p.filter((x) => Number.isFinite(x.nernst_V));
   const uEnd = r.electrochemistry.utilization * 100;
   const axis = pathAxis(r);
@@ -142,14 +156,11 @@ function nernstAlongPath(r: Results): Draft {
     title: 'Nernst voltage along the fuel path',
     caption: `Local Nernst voltage from inlet to outlet, its charge average (the Gibbs energy per charge), its area average (which sets the cell voltage) and the cell voltage; the marker is the outlet at ${formatPercent(r.electrochemistry.utilization, 3)}.`,
     spec: { kind: 'line', x: { title: axis.title, min: 0, max: uEnd }, y: { title: 'Voltage (V)' }, series },
-    data: chartData(
-      [
-        { header: axis.label, values: u, digits: 4 },
-        { header: 'Nernst voltage (V)', values: p.map((x) => (Number.isFinite(x.nernst_V) ? x.nernst_V : null)), digits: 5 },
-        { header: 'carbon activity', values: p.map((x) => x.carbonActivity), digits: 4 },
-      ],
-      `${r.project.id}-nernst-path.csv`,
-    ),
+    data: chartData('nernst-path', [
+      column(axis.label, axis.name, '', p.map((x) => x.utilization), percent, 4),
+      column('Nernst voltage (V)', 'Nernst voltage', 'V', p.map((x) => (Number.isFinite(x.nernst_V) ? x.nernst_V : null)), undefined, 5),
+      column('carbon activity', 'Carbon activity', '', p.map((x) => x.carbonActivity), undefined, 4),
+    ]),
     notes: inletNotes(r),
   };
 }
@@ -195,15 +206,12 @@ function currentAlongCell(r: Results): Draft {
         { label: 'hot spot: highest local current density', points: [[point.areaFraction * 100, max]], style: 0, marker: true },
       ],
     },
-    data: chartData(
-      [
-        { header: 'active area from the inlet (%)', values: area, digits: 4 },
-        { header: axis.label, values: p.map((x) => x.utilization * 100), digits: 4 },
-        { header: 'local current density (A/cm²)', values: i, digits: 4 },
-        { header: 'Nernst voltage (V)', values: p.map((x) => x.nernst_V), digits: 5 },
-      ],
-      `${r.project.id}-current-cell.csv`,
-    ),
+    data: chartData('current-cell', [
+      column('active area from the inlet (%)', 'Active area from the inlet', '', p.map((x) => x.areaFraction), percent, 4),
+      column(axis.label, axis.name, '', p.map((x) => x.utilization), percent, 4),
+      column('local current density (A/cm²)', 'Local current density', 'A/m2', p.map((x) => x.currentDensity_A_per_m2), perCm2, 4),
+      column('Nernst voltage (V)', 'Nernst voltage', 'V', p.map((x) => x.nernst_V), undefined, 5),
+    ]),
     notes: inletNotes(r),
   };
 }
@@ -220,17 +228,19 @@ function compositionAlongPath(r: Results): Draft {
   ];
   const uEnd = r.electrochemistry.utilization * 100;
   series.push(vertical(uEnd, 0, 100, 'design utilization'));
-  const columns: DataColumn[] = [
-    { header: axis.label, values: p.map((x) => x.utilization * 100) },
-    ...fuel.map((k): DataColumn => ({ header: `${speciesText(k)} fuel side (mol %)`, values: p.map((x) => (x.fuelSide[k] ?? 0) * 100) })),
-    ...air.map((k): DataColumn => ({ header: `${speciesText(k)} air side (mol %)`, values: p.map((x) => (x.airSide[k] ?? 0) * 100) })),
-  ];
+  // On the page a species absent from a point reads 0; in the data it is an empty field, as the results hold no number for it.
+  const side = (k: string, where: 'fuelSide' | 'airSide', label: string): ChartColumn => ({
+    head: `${speciesText(k)} ${label} side (mol %)`,
+    shown: p.map((x) => (x[where][k] ?? 0) * 100),
+    data: { name: `Mole fraction ${k}, ${label} side`, unit: 'mol/mol', values: p.map((x) => x[where][k] ?? null) },
+  });
+  const columns: ChartColumn[] = [column(axis.label, axis.name, '', p.map((x) => x.utilization), percent), ...fuel.map((k) => side(k, 'fuelSide', 'fuel')), ...air.map((k) => side(k, 'airSide', 'air'))];
   return {
     id: 'fig-composition-path',
     title: 'Gas composition along the fuel path',
     caption: `Mole fractions of the species that reach 1 % (solid: fuel electrode${r.technology.fuelGasEquilibrium ? ', equilibrated' : ''}; dashed: air electrode), with the design utilization marked.`,
     spec: { kind: 'line', x: { title: axis.title, min: 0, max: uEnd }, y: { title: 'Mole fraction (%)', min: 0, max: 100 }, series },
-    data: chartData(columns, `${r.project.id}-composition-path.csv`),
+    data: chartData('composition-path', columns),
     notes: [],
   };
 }
@@ -258,17 +268,17 @@ function carbonAgainstSteam(r: Results): Draft {
   if (sc !== null && r.carbon.inletCarbonActivity !== null && r.carbon.inletCarbonActivity > 0) marks.push([sc, r.carbon.inletCarbonActivity]);
   if (sc !== null && r.carbon.preReformerCarbonActivity !== null && r.carbon.preReformerCarbonActivity > 0) marks.push([sc, r.carbon.preReformerCarbonActivity]);
   if (marks.length) series.push({ label: 'design point: design steam-to-carbon ratio', points: marks, style: 0, marker: true });
-  const columns: DataColumn[] = [
-    { header: 'steam-to-carbon ratio', values: x },
-    { header: 'carbon activity at the stack temperature', values: s.map((p) => p.carbonActivityStack) },
+  const columns: ChartColumn[] = [
+    column('steam-to-carbon ratio', 'Steam-to-carbon ratio', '', x),
+    column('carbon activity at the stack temperature', 'Carbon activity at the stack temperature', '', s.map((p) => p.carbonActivityStack)),
   ];
-  if (pre) columns.push({ header: 'carbon activity at the pre-reformer temperature', values: s.map((p) => p.carbonActivityPreReformer) });
+  if (pre) columns.push(column('carbon activity at the pre-reformer temperature', 'Carbon activity at the pre-reformer temperature', '', s.map((p) => p.carbonActivityPreReformer)));
   return {
     id,
     title,
     caption: `Carbon activity of the feed brought to equilibrium, on a logarithmic scale; above 1 graphite can deposit.${sc !== null ? ` The design ratio is ${formatNumber(sc)}.` : ''}`,
     spec: { kind: 'line', x: { title: 'Steam-to-carbon ratio (mol H₂O per mol C)' }, y: { title: 'Carbon activity (relative to graphite)', log: true }, series },
-    data: chartData(columns, `${r.project.id}-carbon-steam.csv`),
+    data: chartData('carbon-steam', columns),
     notes: [],
   };
 }
@@ -294,13 +304,10 @@ function polarisation(r: Results): Draft {
         { label: 'design point', points: [[j, r.headline.cellVoltage_V]], style: 0, marker: true },
       ],
     },
-    data: chartData(
-      [
-        { header: 'current density (A/cm²)', values: s.map((p) => p.currentDensity_A_per_m2 / 1e4) },
-        { header: 'cell voltage (V)', values: s.map((p) => p.cellVoltage_V), digits: 5 },
-      ],
-      `${r.project.id}-polarisation.csv`,
-    ),
+    data: chartData('polarisation', [
+      column('current density (A/cm²)', 'Current density', 'A/m2', s.map((p) => p.currentDensity_A_per_m2), perCm2),
+      column('cell voltage (V)', 'Cell voltage', 'V', s.map((p) => p.cellVoltage_V), undefined, 5),
+    ]),
     notes: [],
   };
 }
@@ -325,14 +332,11 @@ function heatAndPower(r: Results): Draft {
         { label: 'design point: heat', points: [[j, r.headline.stackHeat_W / 1000]], style: 0, marker: true, right: true },
       ],
     },
-    data: chartData(
-      [
-        { header: 'current density (A/cm²)', values: s.map((p) => p.currentDensity_A_per_m2 / 1e4) },
-        { header: 'stack power (kW)', values: s.map((p) => p.stackPower_W / 1000) },
-        { header: 'stack heat (kW)', values: s.map((p) => p.stackHeat_W / 1000) },
-      ],
-      `${r.project.id}-heat-power.csv`,
-    ),
+    data: chartData('heat-power', [
+      column('current density (A/cm²)', 'Current density', 'A/m2', s.map((p) => p.currentDensity_A_per_m2), perCm2),
+      column('stack power (kW)', power ? 'Stack DC power' : 'Stack power input', 'W', s.map((p) => p.stackPower_W), kilo),
+      column('stack heat (kW)', 'Stack heat released, isothermal (negative: needed)', 'W', s.map((p) => p.stackHeat_W), kilo),
+    ]),
     notes: [],
   };
 }
@@ -369,16 +373,13 @@ function stackAgainstTemperature(r: Results): Draft | null {
     title: 'The stack at other temperatures',
     caption: `The same ${formatNumber(r.headline.cells)} cells at the design current density and ${power ? 'utilization' : 'conversion'}, the cell voltage solved again at each stack temperature; the markers are the design point.`,
     spec: { kind: 'line', x: { title: 'Stack temperature (°C)', min: Math.min(...t), max: Math.max(...t) }, y: { title: 'Cell voltage (V)' }, y2: { title: 'Efficiency (%)' }, series },
-    data: chartData(
-      [
-        { header: 'stack temperature (°C)', values: t, digits: 5 },
-        { header: 'area-specific resistance (Ω cm²)', values: s.map((p) => p.areaSpecificResistance_ohm_m2 * 1e4), digits: 4 },
-        { header: 'cell voltage (V)', values: s.map((p) => p.cellVoltage_V), digits: 5 },
-        { header: 'efficiency (%)', values: s.map((p) => p.efficiency * 100), digits: 4 },
-        { header: 'stack heat (kW)', values: s.map((p) => p.stackHeat_W / 1000), digits: 4 },
-      ],
-      `${r.project.id}-stack-temperature.csv`,
-    ),
+    data: chartData('stack-temperature', [
+      column('stack temperature (°C)', 'Stack temperature', 'K', s.map((p) => p.temperature_K), C, 5),
+      column('area-specific resistance (Ω cm²)', 'Area-specific resistance', 'ohm m2', s.map((p) => p.areaSpecificResistance_ohm_m2), (v) => v * 1e4, 4),
+      column('cell voltage (V)', 'Cell voltage', 'V', s.map((p) => p.cellVoltage_V), undefined, 5),
+      column('efficiency (%)', power ? 'Net electrical efficiency, LHV' : 'Electrolysis efficiency, LHV', '', s.map((p) => p.efficiency), percent, 4),
+      column('stack heat (kW)', 'Stack heat released, isothermal (negative: needed)', 'W', s.map((p) => p.stackHeat_W), kilo, 4),
+    ]),
     notes: [resistanceNote(r)],
   };
 }
@@ -399,10 +400,17 @@ function symmetric(values: number[]): { min: number; max: number; step: number }
 
 function tornado(r: Results, output: Output): Draft {
   const power = r.technology.mode === 'power';
-  const meta: Record<Output, { title: string; axis: string; scale: number; file: string }> = {
-    cellVoltage_V: { title: 'Sensitivity of the cell voltage', axis: 'Change of the cell voltage (mV)', scale: 1000, file: 'voltage' },
-    efficiency: { title: power ? 'Sensitivity of the net electrical efficiency' : 'Sensitivity of the electrolysis efficiency', axis: 'Change of the efficiency (percentage points)', scale: 100, file: 'efficiency' },
-    stackHeat_W: { title: 'Sensitivity of the stack heat', axis: 'Change of the stack heat (kW)', scale: 0.001, file: 'heat' },
+  const meta: Record<Output, { title: string; axis: string; scale: number; file: string; result: string; unit: string }> = {
+    cellVoltage_V: { title: 'Sensitivity of the cell voltage', axis: 'Change of the cell voltage (mV)', scale: 1000, file: 'voltage', result: 'Cell voltage', unit: 'V' },
+    efficiency: {
+      title: power ? 'Sensitivity of the net electrical efficiency' : 'Sensitivity of the electrolysis efficiency',
+      axis: 'Change of the efficiency (percentage points)',
+      scale: 100,
+      file: 'efficiency',
+      result: power ? 'Net electrical efficiency, LHV' : 'Electrolysis efficiency, LHV',
+      unit: '',
+    },
+    stackHeat_W: { title: 'Sensitivity of the stack heat', axis: 'Change of the stack heat (kW)', scale: 0.001, file: 'heat', result: 'Stack heat released, isothermal', unit: 'W' },
   };
   const m = meta[output];
   const list = r.sensitivities;
@@ -427,16 +435,17 @@ function tornado(r: Results, output: Output): Draft {
     title: m.title,
     caption: `Change from the base case${base === undefined ? '' : ` (${output === 'cellVoltage_V' ? `${formatNumber(base, 5)} V` : output === 'efficiency' ? formatPercent(base) : `${formatNumber(base / 1000)} kW`})`} when one input at a time moves down (low case) or up (high case) by the step given, all else held, the cell count and the area-specific resistance included (the cell voltage is solved again).`,
     spec: { kind: 'tornado', x: { title: m.axis, ...symmetric([...low, ...high]) }, categories: labels, low, high, lowLabel: 'low case', highLabel: 'high case' },
-    data: chartData(
-      [
-        { header: 'input and step', labels },
-        { header: 'low case', labels: list.map((e) => e.low) },
-        { header: 'high case', labels: list.map((e) => e.high) },
-        { header: `${m.axis.replace(/^Change of the /, 'change, ')}, low`, values: list.map((e) => (e[output].low === null ? null : delta(e[output].low, e[output].base))) },
-        { header: `${m.axis.replace(/^Change of the /, 'change, ')}, high`, values: list.map((e) => (e[output].high === null ? null : delta(e[output].high, e[output].base))) },
-      ],
-      `${r.project.id}-sensitivity-${m.file}.csv`,
-    ),
+    // The page shows the changes the bars draw; the CSV the results they are the difference of.
+    data: chartData(`sensitivity-${m.file}`, [
+      { head: 'input and step', shown: labels, data: { name: 'Input', unit: '', values: list.map((e) => e.input) } },
+      { data: { name: 'Step', unit: '', values: list.map((e) => e.step) } },
+      { data: { name: 'Field', unit: '', values: list.map((e) => e.path) } },
+      { head: 'low case', shown: list.map((e) => e.low), data: { name: 'Low case', unit: '', values: list.map((e) => e.low) } },
+      { head: 'high case', shown: list.map((e) => e.high), data: { name: 'High case', unit: '', values: list.map((e) => e.high) } },
+      { data: { name: `${m.result}, base`, unit: m.unit, values: list.map((e) => e[output].base) } },
+      { head: `${m.axis.replace(/^Change of the /, 'change, ')}, low`, shown: list.map((e) => (e[output].low === null ? null : delta(e[output].low, e[output].base))), data: { name: `${m.result}, low case`, unit: m.unit, values: list.map((e) => e[output].low) } },
+      { head: `${m.axis.replace(/^Change of the /, 'change, ')}, high`, shown: list.map((e) => (e[output].high === null ? null : delta(e[output].high, e[output].base))), data: { name: `${m.result}, high case`, unit: m.unit, values: list.map((e) => e[output].high) } },
+    ]),
     notes,
   };
 }
@@ -467,14 +476,11 @@ function casesCurves(r: Results): Draft | null {
     title: 'Cell voltage and efficiency of the operating cases',
     caption: `Each case on the hardware of the sizing case: its cell voltage (solid, left axis) and ${power ? 'net electrical efficiency, LHV' : 'electrolysis efficiency on the LHV of hydrogen'} (dashed, right axis) against current density, its utilization, gas and resistance held, with its operating point marked on both.`,
     spec: { kind: 'line', x: jAxis(), y: { title: 'Cell voltage (V)' }, y2: { title: 'Efficiency (%)' }, series },
-    data: chartData(
-      [
-        { header: 'current density (A/cm²)', values: grid.map((p) => p.currentDensity_A_per_m2 / 1e4) },
-        ...ran.map((c) => ({ header: `${c.id}: cell voltage (V)`, values: grid.map((_, i) => at(c, i, (p) => p.cellVoltage_V)), digits: 5 })),
-        ...ran.map((c) => ({ header: `${c.id}: efficiency (%)`, values: grid.map((_, i) => at(c, i, (p) => p.efficiency * 100)) })),
-      ],
-      `${r.project.id}-cases.csv`,
-    ),
+    data: chartData('case-curves', [
+      column('current density (A/cm²)', 'Current density', 'A/m2', grid.map((p) => p.currentDensity_A_per_m2), perCm2),
+      ...ran.map((c) => column(`${c.id}: cell voltage (V)`, `Cell voltage, case ${c.id}`, 'V', grid.map((_, i) => at(c, i, (p) => p.cellVoltage_V)), undefined, 5)),
+      ...ran.map((c) => column(`${c.id}: efficiency (%)`, `${power ? 'Net electrical efficiency, LHV' : 'Electrolysis efficiency, LHV'}, case ${c.id}`, '', grid.map((_, i) => at(c, i, (p) => p.efficiency)), percent)),
+    ]),
     notes: r.cases.filter((c) => !c.ran).map((c) => `Case ${c.id} could not run on the sizing hardware (its finding says why) and is not drawn.`),
   };
 }
@@ -498,6 +504,7 @@ export function figures(r: Results): Figure[] {
   return drafts.map((d, i): Figure => {
     if ('kind' in d && d.kind === 'statement') return { ...d, number: i + 1 };
     const drawn = d as Exclude<Draft, { kind: 'statement' }>;
-    return { kind: 'chart', ...drawn, number: i + 1, width: CHART_WIDTH, height: CHART_HEIGHT, spec: jsonForScript(drawn.spec) };
+    const data = { ...drawn.data, table: { ...drawn.data.table, title: `Data of figure ${i + 1}` } };
+    return { kind: 'chart', ...drawn, data, number: i + 1, width: CHART_WIDTH, height: CHART_HEIGHT, spec: jsonForScript(drawn.spec) };
   });
 }

@@ -14,23 +14,26 @@ import type { EquationBook } from '../equation-book.ts';
 import { formatNumber } from '../format.ts';
 import { resultLines, type LineGroup } from '../result-lines.ts';
 import { constF } from '../result-lines/common.ts';
-import { table, type Table } from '../table.ts';
+import { crossTable, recordsTable, type Table } from '../table.ts';
 
 export interface CasesSection {
   /** Whether the basis defines cases; without them the section says so and shows no tables. */
   present: boolean;
   intro: string;
-  definitions: Table;
-  comparison: Table;
+  /** The tables, null without cases (a document shows, and offers as CSV, only the tables it has). */
+  definitions: Table | null;
+  comparison: Table | null;
   /** The words that mark a governing value in the comparison, explained once. */
   legend: string;
-  envelope: Table;
+  envelope: Table | null;
   lines: LineGroup[];
 }
 
 /** How a number at a results path is shown: its label, the factor to the unit shown, the unit, and the digits. */
 interface Shown {
   path: string;
+  /** The unit of the number in the results, as the data of a table gives it ("A/m2", "" for a fraction). */
+  si: string;
   label: string;
   factor: number;
   unit: string;
@@ -41,26 +44,26 @@ interface Shown {
 
 /** The rows of the comparison, in order; every path of lib/plant/data/envelope.yaml is among them (a test checks it). */
 export const CASE_ROWS: readonly Shown[] = [
-  { path: 'operatingPoint.currentDensity_A_per_m2', label: 'Current density', factor: 1e-4, unit: 'A/cm²' },
-  { path: 'headline.cellVoltage_V', label: 'Cell voltage', factor: 1, unit: 'V' },
-  { path: 'headline.stackVoltage_V', label: 'Series voltage of all cells (N × V; not a terminal voltage)', factor: 1, unit: 'V' },
-  { path: 'headline.cellCurrent_A', label: 'Cell current (that of one stack and one string)', factor: 1, unit: 'A' },
-  { path: 'headline.stackPower_W', label: 'Stack DC power', factor: 1e-3, unit: 'kW' },
-  { path: 'headline.netPower_W', label: 'Net power', factor: 1e-3, unit: 'kW', mode: 'power' },
-  { path: 'headline.hydrogenProduction_kg_per_h', label: 'Hydrogen production', factor: 1, unit: 'kg/h' },
-  { path: 'headline.electricalEfficiencyLhv', label: 'Net electrical efficiency, LHV', factor: 100, unit: '%' },
-  { path: 'efficiency.electrolysisEfficiencyLhv', label: 'Electrolysis efficiency, LHV', factor: 100, unit: '%' },
-  { path: 'headline.stackHeat_W', label: 'Stack heat released', factor: 1e-3, unit: 'kW' },
-  { path: 'heat.heatDemand_W', label: 'Heat to supply', factor: 1e-3, unit: 'kW' },
-  { path: 'supply.air_kg_per_h', label: 'Air or sweep gas supplied', factor: 1, unit: 'kg/h' },
-  { path: 'heat.coolingAir_kg_per_h', label: 'Air to carry the stack heat', factor: 1, unit: 'kg/h' },
-  { path: 'supply.fuel_kg_per_h', label: 'Fuel supplied', factor: 1, unit: 'kg/h' },
-  { path: 'supply.water_kg_per_h', label: 'Water or steam fed', factor: 1, unit: 'kg/h' },
-  { path: 'supply.waterSplit_kg_per_h', label: 'Water split', factor: 1, unit: 'kg/h' },
-  { path: 'heat.coolingWater_kg_per_h', label: 'Water loop to carry the stack heat', factor: 1, unit: 'kg/h' },
-  { path: 'headline.maxLocalCurrentDensity_A_per_m2', label: 'Highest local current density', factor: 1e-4, unit: 'A/cm²' },
-  { path: 'headline.carbonMargin', label: 'Carbon margin (S/C above the least carbon-free)', factor: 1, unit: '' },
-  { path: 'degradation.fraction', label: 'Degradation r t', factor: 100, unit: '%' },
+  { path: 'operatingPoint.currentDensity_A_per_m2', si: 'A/m2', label: 'Current density', factor: 1e-4, unit: 'A/cm²' },
+  { path: 'headline.cellVoltage_V', si: 'V', label: 'Cell voltage', factor: 1, unit: 'V' },
+  { path: 'headline.stackVoltage_V', si: 'V', label: 'Series voltage of all cells (N × V; not a terminal voltage)', factor: 1, unit: 'V' },
+  { path: 'headline.cellCurrent_A', si: 'A', label: 'Cell current (that of one stack and one string)', factor: 1, unit: 'A' },
+  { path: 'headline.stackPower_W', si: 'W', label: 'Stack DC power', factor: 1e-3, unit: 'kW' },
+  { path: 'headline.netPower_W', si: 'W', label: 'Net power', factor: 1e-3, unit: 'kW', mode: 'power' },
+  { path: 'headline.hydrogenProduction_kg_per_h', si: 'kg/h', label: 'Hydrogen production', factor: 1, unit: 'kg/h' },
+  { path: 'headline.electricalEfficiencyLhv', si: '', label: 'Net electrical efficiency, LHV', factor: 100, unit: '%' },
+  { path: 'efficiency.electrolysisEfficiencyLhv', si: '', label: 'Electrolysis efficiency, LHV', factor: 100, unit: '%' },
+  { path: 'headline.stackHeat_W', si: 'W', label: 'Stack heat released', factor: 1e-3, unit: 'kW' },
+  { path: 'heat.heatDemand_W', si: 'W', label: 'Heat to supply', factor: 1e-3, unit: 'kW' },
+  { path: 'supply.air_kg_per_h', si: 'kg/h', label: 'Air or sweep gas supplied', factor: 1, unit: 'kg/h' },
+  { path: 'heat.coolingAir_kg_per_h', si: 'kg/h', label: 'Air to carry the stack heat', factor: 1, unit: 'kg/h' },
+  { path: 'supply.fuel_kg_per_h', si: 'kg/h', label: 'Fuel supplied', factor: 1, unit: 'kg/h' },
+  { path: 'supply.water_kg_per_h', si: 'kg/h', label: 'Water or steam fed', factor: 1, unit: 'kg/h' },
+  { path: 'supply.waterSplit_kg_per_h', si: 'kg/h', label: 'Water split', factor: 1, unit: 'kg/h' },
+  { path: 'heat.coolingWater_kg_per_h', si: 'kg/h', label: 'Water loop to carry the stack heat', factor: 1, unit: 'kg/h' },
+  { path: 'headline.maxLocalCurrentDensity_A_per_m2', si: 'A/m2', label: 'Highest local current density', factor: 1e-4, unit: 'A/cm²' },
+  { path: 'headline.carbonMargin', si: '', label: 'Carbon margin (S/C above the least carbon-free)', factor: 1, unit: '' },
+  { path: 'degradation.fraction', si: '', label: 'Degradation r t', factor: 100, unit: '%' },
 ];
 
 /** The number at a dotted path of a case's results, or null. */
@@ -82,13 +85,18 @@ const LOAD_TEXT: Record<CaseResult['load'], string> = {
 };
 
 function definitions(cases: readonly CaseResult[]): Table {
-  return table(
-    ['Case', 'Title and purpose', 'Load', 'What it changes (source)'],
-    ['left', 'left', 'left', 'left'],
-    cases.map((c) => ({
-      cells: [c.id, `${c.title}. ${c.purpose}`, LOAD_TEXT[c.load], c.overrides.length ? c.overrides.map((o) => `${o.path} = ${o.text}${o.source ? ` (${o.source})` : ''}`).join('; ') : 'nothing: the base values'],
-    })),
-  );
+  const changes = (c: CaseResult) => (c.overrides.length ? c.overrides.map((o) => `${o.path} = ${o.text}${o.source ? ` (${o.source})` : ''}`).join('; ') : 'nothing: the base values');
+  return recordsTable({
+    name: 'cases',
+    title: 'The operating cases',
+    columns: [
+      { head: 'Case', align: 'left', text: (c) => c.id, data: [{ name: 'Case', unit: '', value: (c) => c.id }] },
+      { head: 'Title and purpose', align: 'left', text: (c) => `${c.title}. ${c.purpose}`, data: [{ name: 'Title', unit: '', value: (c) => c.title }, { name: 'Purpose', unit: '', value: (c) => c.purpose }] },
+      { head: 'Load', align: 'left', text: (c) => LOAD_TEXT[c.load], data: [{ name: 'Load', unit: '', value: (c) => c.load }] },
+      { head: 'What it changes (source)', align: 'left', text: changes, data: [{ name: 'What it changes (source)', unit: '', value: changes }] },
+    ],
+    groups: [{ items: cases }],
+  });
 }
 
 /** The words that mark a governing value: what it is the extreme of, and of which quantity. */
@@ -98,31 +106,51 @@ function marks(envelope: readonly EnvelopeRow[], path: string, caseId: string): 
 
 function comparison(cases: readonly CaseResult[], envelope: readonly EnvelopeRow[], mode: Results['technology']['mode']): Table {
   const shown = CASE_ROWS.filter((row) => (row.mode ?? mode) === mode && cases.some((c) => c.ran && at(c, row.path) !== null));
-  const rows = shown.map((row) => ({
-    cells: [
-      `${row.label}${row.unit ? `, ${row.unit}` : ''}`,
-      ...cases.map((c) => {
+  return crossTable({
+    name: 'case-comparison',
+    title: 'Headline numbers per case',
+    items: cases,
+    itemName: (c) => (c.sizing ? `${c.id} (sizing)` : c.id),
+    itemColumn: 'Case',
+    rows: shown.map((row) => ({
+      label: `${row.label}${row.unit ? `, ${row.unit}` : ''}`,
+      text: (c: CaseResult) => {
         if (!c.ran) return 'did not run';
         const x = at(c, row.path);
         if (x === null) return '';
         const m = marks(envelope, row.path, c.id);
         return `${formatNumber(x * row.factor, row.digits ?? 4)}${m.length ? ` (${m.join(', ')})` : ''}`;
-      }),
-    ],
-  }));
-  return table(['Quantity', ...cases.map((c) => (c.sizing ? `${c.id} (sizing)` : c.id))], ['left', ...cases.map(() => 'right' as const)], rows);
+      },
+      data: [{ name: row.label, unit: row.si, value: (c: CaseResult) => (c.ran ? at(c, row.path) : null) }],
+    })),
+  });
 }
 
+/** The envelope: each row a different quantity, so in the data its unit is a column of its own (the results' unit of the value). */
 function envelopeTable(envelope: readonly EnvelopeRow[]): Table {
-  const shownOf = (path: string): Shown => CASE_ROWS.find((r) => r.path === path) ?? { path, label: path, factor: 1, unit: '' };
-  return table(
-    ['Quantity', 'Governed by its', 'Governing value', 'Set by case', 'Sizing case', 'Sizes'],
-    ['left', 'left', 'right', 'left', 'right', 'left'],
-    envelope.map((e) => {
-      const row = shownOf(e.path);
-      return { cells: [e.quantity, e.governs === 'max' ? 'highest' : 'lowest', shownValue(row, e.value), e.case, e.sizingValue === null ? '' : shownValue(row, e.sizingValue), e.sizes] };
-    }),
-  );
+  const shownOf = (path: string): Shown => CASE_ROWS.find((r) => r.path === path) ?? { path, si: '', label: path, factor: 1, unit: '' };
+  const text = (head: string, value: (e: EnvelopeRow) => string) => ({ head, align: 'left' as const, text: value, data: [{ name: head, unit: '', value }] });
+  return recordsTable({
+    name: 'envelope',
+    title: 'Envelope of the operating cases',
+    columns: [
+      { head: 'Quantity', align: 'left', text: (e) => e.quantity, data: [{ name: 'Quantity', unit: '', value: (e) => e.quantity }, { name: 'Path', unit: '', value: (e) => e.path }] },
+      text('Governed by its', (e) => (e.governs === 'max' ? 'highest' : 'lowest')),
+      {
+        head: 'Governing value',
+        align: 'right',
+        text: (e) => shownValue(shownOf(e.path), e.value),
+        data: [
+          { name: 'Governing value', unit: '', value: (e) => e.value },
+          { name: 'Unit', unit: '', value: (e) => (e.unit === '1' ? '' : e.unit) },
+        ],
+      },
+      text('Set by case', (e) => e.case),
+      { head: 'Sizing case', align: 'right', text: (e) => (e.sizingValue === null ? '' : shownValue(shownOf(e.path), e.sizingValue)), data: [{ name: 'Sizing case value', unit: '', value: (e) => e.sizingValue }] },
+      text('Sizes', (e) => e.sizes),
+    ],
+    groups: [{ items: envelope }],
+  });
 }
 
 /** The results object of a case: the top level with the case's sections in place of the sizing case's. */
@@ -245,6 +273,12 @@ function caseLines(r: Results, basis: DesignBasis, c: CaseResult, book: Equation
   return { id: `cases-${c.id}`, title: `Case ${c.id}: ${c.title}`, lines: [...own, ...governing] };
 }
 
+/** The tables of the cases (what `calc --section cases|case-comparison|envelope` prints), or null where the basis has none. */
+export function caseTables(r: Results): { definitions: Table; comparison: Table; envelope: Table } | null {
+  if (!r.cases.length) return null;
+  return { definitions: definitions(r.cases), comparison: comparison(r.cases, r.envelope, r.technology.mode), envelope: envelopeTable(r.envelope) };
+}
+
 export function casesSection(r: Results, basis: DesignBasis, book: EquationBook): CasesSection {
   const cases = r.cases;
   const sizing = cases.find((c) => c.sizing);
@@ -253,10 +287,8 @@ export function casesSection(r: Results, basis: DesignBasis, book: EquationBook)
     intro: cases.length
       ? `The basis defines ${cases.length} operating cases. Case ${sizing?.id ?? ''} is the sizing case: its cell count, active area and cell resistance are the hardware on which every other case runs at its own load, and its results are those of the sections above. Each governing value is marked "highest" or "lowest" beside its number.`
       : 'The basis defines one operating point, its base values, which is the sizing case of the sections above.',
-    definitions: definitions(cases),
-    comparison: comparison(cases, r.envelope, r.technology.mode),
+    ...(caseTables(r) ?? { definitions: null, comparison: null, envelope: null }),
     legend: '"highest" or "lowest" beside a number: this case sets the governing value of the quantity in the envelope below.',
-    envelope: envelopeTable(r.envelope),
     lines: cases.filter((c) => !c.sizing && c.ran).map((c) => caseLines(r, basis, c, book)).filter((g) => g.lines.length > 0),
   };
 }

@@ -6,7 +6,7 @@
 import { efficiencyBasisNotes } from '../efficiency-basis.ts';
 import type { Results, StreamResult } from '../../plant/results-schema.ts';
 import { formatFixed, formatInteger, formatNumber, formatPercent, formatPower, formatQuantity, formatTemperature } from '../format.ts';
-import { pairs, table, type Table, type TableRow } from '../table.ts';
+import { crossTable, pairsTable, quantity, textPair, type CrossRow, type Pair, type Table } from '../table.ts';
 import { speciesText } from '../species-text.ts';
 import { ZERO_CELSIUS_K } from '../../core/units.ts';
 
@@ -16,117 +16,173 @@ export interface FigureTable {
   table: Table;
 }
 
-type Row = [string, string];
-
-function present(rows: (Row | null)[]): Row[] {
-  return rows.filter((r): r is Row => r !== null);
+function present(rows: (Pair | null)[]): Pair[] {
+  return rows.filter((r): r is Pair => r !== null);
 }
 
-function opt(label: string, value: number | null, show: (v: number) => string): Row | null {
-  return value === null ? null : [label, show(value)];
+/** A quantity that may be absent (null): no row then. */
+function opt(label: string, value: number | null, unit: string, show: (v: number) => string): Pair | null {
+  return value === null ? null : quantity(label, value, unit, show(value));
 }
 
-function electrochemistry(r: Results): Row[] {
+const pct = (v: number) => formatPercent(v);
+
+function electrochemistry(r: Results): Pair[] {
   const e = r.electrochemistry;
+  const power = r.technology.mode === 'power';
   return present([
-    ['Standard voltage E° at T (Nernst equation)', formatQuantity(e.standardVoltage_V, 'V', 5)],
-    ['Thermoneutral voltage of H₂ + ½O₂ → H₂O at T', formatQuantity(e.thermoneutralVoltage_V, 'V', 5)],
-    ['Effective thermoneutral voltage of the actual gases', formatQuantity(e.effectiveThermoneutralVoltage_V, 'V', 5)],
-    [r.technology.mode === 'power' ? 'Effective mean Nernst voltage (transference number × Ē − crossover allowance)' : 'Mean Nernst voltage Ē', formatQuantity(e.effectiveNernst_V, 'V', 5)],
-    ['Area-specific resistance', `${formatQuantity(e.areaSpecificResistance_ohm_m2 * 1e4, 'Ω cm²')} (${e.voltageSource === 'given' ? 'implied by the given voltage' : 'given'})`],
-    ['Ionic transference number / crossover allowance', `${formatNumber(e.ionicTransferenceNumber)} / ${formatQuantity(e.crossoverAllowance_V * 1000, 'mV')}`],
-    [r.technology.mode === 'power' ? 'Fuel utilization' : 'Conversion of the feed', formatPercent(e.utilization)],
-    ['Charge of complete reaction of the feed', formatQuantity(e.chargeBasis_A, 'A', 6)],
-    ['Largest element-balance error along the fuel path', formatNumber(e.elementBalanceError, 2)],
+    quantity('Standard voltage E° at T (Nernst equation)', e.standardVoltage_V, 'V', formatQuantity(e.standardVoltage_V, 'V', 5)),
+    quantity('Thermoneutral voltage of H₂ + ½O₂ → H₂O at T', e.thermoneutralVoltage_V, 'V', formatQuantity(e.thermoneutralVoltage_V, 'V', 5)),
+    quantity('Effective thermoneutral voltage of the actual gases', e.effectiveThermoneutralVoltage_V, 'V', formatQuantity(e.effectiveThermoneutralVoltage_V, 'V', 5)),
+    quantity(power ? 'Effective mean Nernst voltage (transference number × Ē − crossover allowance)' : 'Mean Nernst voltage Ē', e.effectiveNernst_V, 'V', formatQuantity(e.effectiveNernst_V, 'V', 5)),
+    {
+      label: 'Area-specific resistance',
+      text: `${formatQuantity(e.areaSpecificResistance_ohm_m2 * 1e4, 'Ω cm²')} (${e.voltageSource === 'given' ? 'implied by the given voltage' : 'given'})`,
+      data: [
+        { name: 'Area-specific resistance', unit: 'ohm m2', value: e.areaSpecificResistance_ohm_m2 },
+        { name: 'Area-specific resistance from', unit: '', value: e.voltageSource === 'given' ? 'the given cell voltage' : 'the basis' },
+      ],
+    },
+    {
+      label: 'Ionic transference number / crossover allowance',
+      text: `${formatNumber(e.ionicTransferenceNumber)} / ${formatQuantity(e.crossoverAllowance_V * 1000, 'mV')}`,
+      data: [
+        { name: 'Ionic transference number', unit: '', value: e.ionicTransferenceNumber },
+        { name: 'Crossover allowance', unit: 'V', value: e.crossoverAllowance_V },
+      ],
+    },
+    quantity(power ? 'Fuel utilization' : 'Conversion of the feed', e.utilization, '', pct(e.utilization)),
+    quantity('Charge of complete reaction of the feed', e.chargeBasis_A, 'A', formatQuantity(e.chargeBasis_A, 'A', 6)),
+    quantity('Largest element-balance error along the fuel path', e.elementBalanceError, '', formatNumber(e.elementBalanceError, 2)),
   ]);
 }
 
-function operatingPoint(r: Results): Row[] {
+const CELLS_FROM: Record<Results['operatingPoint']['cellsFrom'], string> = {
+  cells: 'the cell count of the basis',
+  power: 'the target power',
+  hydrogen: 'the target hydrogen production',
+};
+
+function operatingPoint(r: Results): Pair[] {
   const o = r.operatingPoint;
   return present([
-    ['Current density', `${formatQuantity(o.currentDensity_A_per_m2, 'A/m²')} (${formatQuantity(o.currentDensity_A_per_m2 / 1e4, 'A/cm²')})`],
-    ['Active area per cell / total', `${formatQuantity(o.activeArea_m2 * 1e4, 'cm²')} / ${formatQuantity(o.totalActiveArea_m2, 'm²')}`],
-    ['Cell count set by', o.cellsFrom === 'cells' ? 'the cell count of the basis' : o.cellsFrom === 'power' ? 'the target power' : 'the target hydrogen production'],
-    ['Cells', formatInteger(r.headline.cells)],
-    ['Series voltage of all cells (N × V; not a terminal voltage: see the electrical layout)', formatQuantity(r.headline.stackVoltage_V, 'V')],
-    r.technology.mode === 'power' ? ['Balance-of-plant share', formatPercent(o.parasiticFraction)] : null,
-    opt('Air utilization', o.airUtilization, (v) => formatPercent(v)),
-    opt('Air ratio (O₂ fed / O₂ consumed)', o.airRatio, (v) => formatNumber(v)),
-    opt('Oxygen consumed', o.oxygenConsumed_mol_per_s, (v) => formatQuantity(v, 'mol/s')),
-    ['Net water produced (negative: consumed)', formatQuantity(o.netWaterProduced_mol_per_s, 'mol/s')],
+    quantity('Current density', o.currentDensity_A_per_m2, 'A/m2', `${formatQuantity(o.currentDensity_A_per_m2, 'A/m²')} (${formatQuantity(o.currentDensity_A_per_m2 / 1e4, 'A/cm²')})`),
+    {
+      label: 'Active area per cell / total',
+      text: `${formatQuantity(o.activeArea_m2 * 1e4, 'cm²')} / ${formatQuantity(o.totalActiveArea_m2, 'm²')}`,
+      data: [
+        { name: 'Active area per cell', unit: 'm2', value: o.activeArea_m2 },
+        { name: 'Total active area', unit: 'm2', value: o.totalActiveArea_m2 },
+      ],
+    },
+    quantity('Cell count set by', CELLS_FROM[o.cellsFrom], '', CELLS_FROM[o.cellsFrom]),
+    quantity('Cells', r.headline.cells, '', formatInteger(r.headline.cells)),
+    quantity('Series voltage of all cells (N × V; not a terminal voltage: see the electrical layout)', r.headline.stackVoltage_V, 'V', formatQuantity(r.headline.stackVoltage_V, 'V')),
+    r.technology.mode === 'power' ? quantity('Balance-of-plant share', o.parasiticFraction, '', pct(o.parasiticFraction)) : null,
+    opt('Air utilization', o.airUtilization, '', pct),
+    opt('Air ratio (O₂ fed / O₂ consumed)', o.airRatio, '', (v) => formatNumber(v)),
+    opt('Oxygen consumed', o.oxygenConsumed_mol_per_s, 'mol/s', (v) => formatQuantity(v, 'mol/s')),
+    quantity('Net water produced (negative: consumed)', o.netWaterProduced_mol_per_s, 'mol/s', formatQuantity(o.netWaterProduced_mol_per_s, 'mol/s')),
   ]);
 }
 
-function efficiency(r: Results): Row[] {
+function efficiency(r: Results): Pair[] {
   const e = r.efficiency;
-  const pct = (v: number) => formatPercent(v);
   const notes = efficiencyBasisNotes(r);
-  // A figure whose basis needs saying (above 100 %) carries its note beside the number.
+  // A figure whose basis needs saying (above 100 %) carries its note beside the number; its data stays the number.
   const noted = (key: keyof typeof notes) => (v: number) => (notes[key] ? `${pct(v)} (${notes[key]})` : pct(v));
   return present([
-    opt('Fuel input, LHV', e.fuelLhvInput_W, (v) => formatPower(v)),
-    opt('Fuel input, HHV', e.fuelHhvInput_W, (v) => formatPower(v)),
-    opt('Thermodynamic limit at T, LHV', e.thermodynamicLimitLhv, noted('thermodynamicLimitLhv')),
-    opt('Thermodynamic limit at T, HHV', e.thermodynamicLimitHhv, noted('thermodynamicLimitHhv')),
-    opt('Carnot limit (for comparison)', e.carnotLimit, pct),
-    ['Voltage efficiency', pct(e.voltageEfficiency)],
-    opt('Electrical efficiency, gross, LHV', e.electricalEfficiencyLhvGross, pct),
-    opt('Electrical efficiency, gross, HHV', e.electricalEfficiencyHhvGross, pct),
-    opt('Electrical efficiency, net, LHV', e.electricalEfficiencyLhvNet, pct),
-    opt('Electrical efficiency, net, HHV', e.electricalEfficiencyHhvNet, pct),
-    opt('Electrolysis efficiency over electricity alone, LHV', e.electrolysisEfficiencyLhv, noted('electrolysisEfficiencyLhv')),
-    opt('Electrolysis efficiency over electricity alone, HHV', e.electrolysisEfficiencyHhv, noted('electrolysisEfficiencyHhv')),
-    opt('Electrolysis efficiency with the heat supplied counted, LHV (electricity and the heat the stack absorbs)', e.heatInclusiveEfficiencyLhv, pct),
-    opt('Electrolysis efficiency with the heat supplied counted, HHV (also the latent heat of the steam consumed)', e.heatInclusiveEfficiencyHhv, pct),
-    opt('Latent heat (25 °C) of the water consumed as steam', e.steamLatentHeat_W, (v) => formatPower(v)),
-    opt('Heating value of the products, LHV (net of the feed)', e.productLhv_W, (v) => formatPower(v)),
-    opt('Specific electric energy (electricity only)', e.specificEnergy_kWh_per_kg, (v) => formatQuantity(v, 'kWh/kg')),
-    opt('Hydrogen produced', e.hydrogenProduction_mol_per_s, (v) => formatQuantity(v, 'mol/s')),
-    opt('Oxygen produced', e.oxygenProduction_mol_per_s, (v) => formatQuantity(v, 'mol/s')),
-    e.carbonMonoxideProduction_mol_per_s ? ['Carbon monoxide produced', formatQuantity(e.carbonMonoxideProduction_mol_per_s, 'mol/s')] : null,
-    e.methaneProduction_mol_per_s ? ['Methane formed in the equilibrated outlet', formatQuantity(e.methaneProduction_mol_per_s, 'mol/s')] : null,
+    opt('Fuel input, LHV', e.fuelLhvInput_W, 'W', (v) => formatPower(v)),
+    opt('Fuel input, HHV', e.fuelHhvInput_W, 'W', (v) => formatPower(v)),
+    opt('Thermodynamic limit at T, LHV', e.thermodynamicLimitLhv, '', noted('thermodynamicLimitLhv')),
+    opt('Thermodynamic limit at T, HHV', e.thermodynamicLimitHhv, '', noted('thermodynamicLimitHhv')),
+    opt('Carnot limit (for comparison)', e.carnotLimit, '', pct),
+    quantity('Voltage efficiency', e.voltageEfficiency, '', pct(e.voltageEfficiency)),
+    opt('Electrical efficiency, gross, LHV', e.electricalEfficiencyLhvGross, '', pct),
+    opt('Electrical efficiency, gross, HHV', e.electricalEfficiencyHhvGross, '', pct),
+    opt('Electrical efficiency, net, LHV', e.electricalEfficiencyLhvNet, '', pct),
+    opt('Electrical efficiency, net, HHV', e.electricalEfficiencyHhvNet, '', pct),
+    opt('Electrolysis efficiency over electricity alone, LHV', e.electrolysisEfficiencyLhv, '', noted('electrolysisEfficiencyLhv')),
+    opt('Electrolysis efficiency over electricity alone, HHV', e.electrolysisEfficiencyHhv, '', noted('electrolysisEfficiencyHhv')),
+    opt('Electrolysis efficiency with the heat supplied counted, LHV (electricity and the heat the stack absorbs)', e.heatInclusiveEfficiencyLhv, '', pct),
+    opt('Electrolysis efficiency with the heat supplied counted, HHV (also the latent heat of the steam consumed)', e.heatInclusiveEfficiencyHhv, '', pct),
+    opt('Latent heat (25 °C) of the water consumed as steam', e.steamLatentHeat_W, 'W', (v) => formatPower(v)),
+    opt('Heating value of the products, LHV (net of the feed)', e.productLhv_W, 'W', (v) => formatPower(v)),
+    opt('Specific electric energy (electricity only)', e.specificEnergy_kWh_per_kg, 'kWh/kg', (v) => formatQuantity(v, 'kWh/kg')),
+    opt('Hydrogen produced', e.hydrogenProduction_mol_per_s, 'mol/s', (v) => formatQuantity(v, 'mol/s')),
+    opt('Oxygen produced', e.oxygenProduction_mol_per_s, 'mol/s', (v) => formatQuantity(v, 'mol/s')),
+    e.carbonMonoxideProduction_mol_per_s ? quantity('Carbon monoxide produced', e.carbonMonoxideProduction_mol_per_s, 'mol/s', formatQuantity(e.carbonMonoxideProduction_mol_per_s, 'mol/s')) : null,
+    e.methaneProduction_mol_per_s ? quantity('Methane formed in the equilibrated outlet', e.methaneProduction_mol_per_s, 'mol/s', formatQuantity(e.methaneProduction_mol_per_s, 'mol/s')) : null,
   ]);
 }
 
-function heat(r: Results): Row[] {
+function heat(r: Results): Pair[] {
   const h = r.heat;
   return present([
-    ['Heat released, isothermal boundary (negative: needed)', formatPower(h.isothermalHeat_W)],
-    ['Heat released with the feeds at their inlet temperatures', formatPower(h.asFedHeat_W)],
-    ['Enthalpy flow in, at the stack temperature / as fed', `${formatPower(h.inletEnthalpyIsothermal_W)} / ${formatPower(h.inletEnthalpyAsFed_W)}`],
-    ['Enthalpy flow out', formatPower(h.outletEnthalpy_W)],
-    ['Electric work into the stack', formatPower(h.electricWorkIn_W)],
-    ['Heat per cell / per unit active area', `${formatQuantity(h.heatPerCell_W, 'W')} / ${formatQuantity(h.heatPerArea_W_per_m2, 'W/m²')}`],
-    opt('Cooling air for the allowed rise', h.coolingAir_kg_per_h, (v) => `${formatQuantity(v, 'kg/h')} (${formatNumber(h.allowedAirTemperatureRise_K)} K rise)`),
-    opt('Cooling air over the air the oxygen needs', h.coolingAirRatio, (v) => formatNumber(v)),
-    opt('Cross-check for pure hydrogen, I(−ΔH(T)/2F − V)', h.hydrogenCrossCheck_W, (v) => formatPower(v)),
-    opt('Heat to supply', h.heatDemand_W, (v) => formatPower(v)),
-    opt('Liquid water leaving', h.liquidWaterOut_mol_per_s, (v) => formatQuantity(v, 'mol/s')),
-    h.outletsSaturated === null ? null : ['Both outlet gases saturated with water vapour', h.outletsSaturated ? 'yes' : 'no: the cell dries out'],
+    quantity('Heat released, isothermal boundary (negative: needed)', h.isothermalHeat_W, 'W', formatPower(h.isothermalHeat_W)),
+    quantity('Heat released with the feeds at their inlet temperatures', h.asFedHeat_W, 'W', formatPower(h.asFedHeat_W)),
+    {
+      label: 'Enthalpy flow in, at the stack temperature / as fed',
+      text: `${formatPower(h.inletEnthalpyIsothermal_W)} / ${formatPower(h.inletEnthalpyAsFed_W)}`,
+      data: [
+        { name: 'Enthalpy flow in, at the stack temperature', unit: 'W', value: h.inletEnthalpyIsothermal_W },
+        { name: 'Enthalpy flow in, as fed', unit: 'W', value: h.inletEnthalpyAsFed_W },
+      ],
+    },
+    quantity('Enthalpy flow out', h.outletEnthalpy_W, 'W', formatPower(h.outletEnthalpy_W)),
+    quantity('Electric work into the stack', h.electricWorkIn_W, 'W', formatPower(h.electricWorkIn_W)),
+    {
+      label: 'Heat per cell / per unit active area',
+      text: `${formatQuantity(h.heatPerCell_W, 'W')} / ${formatQuantity(h.heatPerArea_W_per_m2, 'W/m²')}`,
+      data: [
+        { name: 'Heat per cell', unit: 'W', value: h.heatPerCell_W },
+        { name: 'Heat per unit active area', unit: 'W/m2', value: h.heatPerArea_W_per_m2 },
+      ],
+    },
+    h.coolingAir_kg_per_h === null
+      ? null
+      : {
+          label: 'Cooling air for the allowed rise',
+          text: `${formatQuantity(h.coolingAir_kg_per_h, 'kg/h')} (${formatNumber(h.allowedAirTemperatureRise_K)} K rise)`,
+          data: [
+            { name: 'Cooling air for the allowed rise', unit: 'kg/h', value: h.coolingAir_kg_per_h },
+            { name: 'Allowed air temperature rise', unit: 'K', value: h.allowedAirTemperatureRise_K },
+          ],
+        },
+    opt('Cooling air over the air the oxygen needs', h.coolingAirRatio, '', (v) => formatNumber(v)),
+    opt('Cross-check for pure hydrogen, I(−ΔH(T)/2F − V)', h.hydrogenCrossCheck_W, 'W', (v) => formatPower(v)),
+    opt('Heat to supply', h.heatDemand_W, 'W', (v) => formatPower(v)),
+    opt('Liquid water leaving', h.liquidWaterOut_mol_per_s, 'mol/s', (v) => formatQuantity(v, 'mol/s')),
+    h.outletsSaturated === null ? null : quantity('Both outlet gases saturated with water vapour', h.outletsSaturated, '', h.outletsSaturated ? 'yes' : 'no: the cell dries out'),
   ]);
 }
 
-function carbon(r: Results): Row[] {
+function carbon(r: Results): Pair[] {
   const c = r.carbon;
+  const n = (v: number) => formatNumber(v);
   return present([
-    opt('Design steam-to-carbon ratio', c.steamToCarbon, (v) => formatNumber(v)),
-    opt('Least carbon-free S/C at the stack temperature', c.minimumSteamToCarbonStack, (v) => formatNumber(v)),
-    opt('Least carbon-free S/C at the pre-reformer temperature', c.minimumSteamToCarbonPreReformer, (v) => formatNumber(v)),
-    opt('Carbon activity at the pre-reformer outlet, at the pre-reformer temperature (before the stack; not on the fuel path)', c.preReformerCarbonActivity, (v) => formatNumber(v)),
-    opt('Carbon activity of the equilibrated gas at the stack inlet', c.inletCarbonActivity, (v) => formatNumber(v)),
-    opt('Highest carbon activity on the fuel path in the stack, at the stack temperature (the pre-reformer not included)', c.maxCarbonActivity, (v) => formatNumber(v)),
+    opt('Design steam-to-carbon ratio', c.steamToCarbon, '', n),
+    opt('Least carbon-free S/C at the stack temperature', c.minimumSteamToCarbonStack, '', n),
+    opt('Least carbon-free S/C at the pre-reformer temperature', c.minimumSteamToCarbonPreReformer, '', n),
+    opt('Carbon activity at the pre-reformer outlet, at the pre-reformer temperature (before the stack; not on the fuel path)', c.preReformerCarbonActivity, '', n),
+    opt('Carbon activity of the equilibrated gas at the stack inlet', c.inletCarbonActivity, '', n),
+    opt('Highest carbon activity on the fuel path in the stack, at the stack temperature (the pre-reformer not included)', c.maxCarbonActivity, '', n),
   ]);
+}
+
+function figure(id: string, name: string, title: string, pairs: Pair[]): FigureTable {
+  return { id, title, table: pairsTable(name, title, pairs) };
 }
 
 export function figureTables(r: Results): FigureTable[] {
   const list: FigureTable[] = [
-    { id: 'figures-electrochemistry', title: 'Electrochemistry', table: pairs(electrochemistry(r)) },
-    { id: 'figures-operating-point', title: 'Operating point', table: pairs(operatingPoint(r)) },
-    { id: 'figures-efficiency', title: 'Efficiency figures', table: pairs(efficiency(r)) },
-    { id: 'figures-heat', title: 'Heat balance', table: pairs(heat(r)) },
+    figure('figures-electrochemistry', 'electrochemistry', 'Electrochemistry', electrochemistry(r)),
+    figure('figures-operating-point', 'operating-point', 'Operating point', operatingPoint(r)),
+    figure('figures-efficiency', 'efficiency', 'Efficiency figures', efficiency(r)),
+    figure('figures-heat', 'heat', 'Heat balance', heat(r)),
   ];
   const c = carbon(r);
-  if (c.length) list.push({ id: 'figures-carbon', title: 'Carbon deposition', table: pairs(c) });
+  if (c.length) list.push(figure('figures-carbon', 'carbon', 'Carbon deposition', c));
   return list;
 }
 
@@ -137,113 +193,200 @@ function speciesOf(streams: readonly StreamResult[]): string[] {
   return [...peak.entries()].filter(([, x]) => x >= 1e-6).sort((a, b) => b[1] - a[1]).map(([k]) => k);
 }
 
-/** One column per stream with its state, flows, enthalpy flow and gas composition. */
-function streamColumns<S extends StreamResult>(streams: readonly S[], heading: (s: S) => string): Table {
-  const row = (label: string, cell: (s: S) => string): TableRow => ({ cells: [label, ...streams.map(cell)] });
-  const rows: TableRow[] = [
-    row('Temperature, °C', (s) => formatFixed(s.temperature_K - ZERO_CELSIUS_K, 1)),
-    row('Pressure, bar', (s) => formatNumber(s.pressure_bar)),
-    row('Molar flow, mol/s', (s) => formatNumber(s.flow_mol_per_s)),
-    row('Mass flow, kg/h', (s) => formatNumber(s.massFlow_kg_per_h)),
-    row('Gas volume flow, m³(n)/h', (s) => formatNumber(s.normalVolume_Nm3_per_h)),
-    row('Enthalpy flow, kW', (s) => formatNumber(s.enthalpyFlow_W / 1000)),
+/** A row of the stream table: shown in `label`'s units by `text`, in the data as `key` of the results in `unit`. */
+function streamRow(label: string, name: string, unit: string, value: (s: StreamResult) => number, text: (s: StreamResult) => string): CrossRow<StreamResult> {
+  return { label, text, data: [{ name, unit, value }] };
+}
+
+/** One column per stream with its state, flows, enthalpy flow and gas composition; in the data a row per stream. */
+function streamColumns<S extends StreamResult>(name: string, title: string, streams: readonly S[], heading: (s: S) => string): Table {
+  const rows: CrossRow<StreamResult>[] = [
+    streamRow('Temperature, °C', 'Temperature', 'K', (s) => s.temperature_K, (s) => formatFixed(s.temperature_K - ZERO_CELSIUS_K, 1)),
+    streamRow('Pressure, bar', 'Pressure', 'bar', (s) => s.pressure_bar, (s) => formatNumber(s.pressure_bar)),
+    streamRow('Molar flow, mol/s', 'Molar flow', 'mol/s', (s) => s.flow_mol_per_s, (s) => formatNumber(s.flow_mol_per_s)),
+    streamRow('Mass flow, kg/h', 'Mass flow', 'kg/h', (s) => s.massFlow_kg_per_h, (s) => formatNumber(s.massFlow_kg_per_h)),
+    streamRow('Gas volume flow, m³(n)/h', 'Gas volume flow at 0 °C and 1 atm', 'Nm3/h', (s) => s.normalVolume_Nm3_per_h, (s) => formatNumber(s.normalVolume_Nm3_per_h)),
+    streamRow('Enthalpy flow, kW', 'Enthalpy flow', 'W', (s) => s.enthalpyFlow_W, (s) => formatNumber(s.enthalpyFlow_W / 1000)),
   ];
   if (streams.some((s) => (s.speciesFlows_mol_per_s['H2O(L)'] ?? 0) > 0)) {
-    rows.push(row('Liquid water, mol/s', (s) => formatNumber(s.speciesFlows_mol_per_s['H2O(L)'] ?? 0)));
+    const liquid = (s: StreamResult) => s.speciesFlows_mol_per_s['H2O(L)'] ?? 0;
+    rows.push(streamRow('Liquid water, mol/s', 'Liquid water', 'mol/s', liquid, (s) => formatNumber(liquid(s))));
   }
-  rows.push({ group: 'Gas composition, mol %', cells: [] });
+  rows.push({ group: 'Gas composition, mol %' });
   for (const species of speciesOf(streams)) {
-    rows.push(row(speciesText(species), (s) => (s.moleFractions[species] === undefined ? '' : formatNumber(s.moleFractions[species]! * 100, 4))));
+    rows.push({
+      label: speciesText(species),
+      text: (s) => (s.moleFractions[species] === undefined ? '' : formatNumber(s.moleFractions[species]! * 100, 4)),
+      data: [{ name: `Mole fraction ${species}`, unit: 'mol/mol', value: (s) => s.moleFractions[species] ?? null }],
+    });
   }
-  return table(['', ...streams.map(heading)], ['left', ...streams.map(() => 'right' as const)], rows);
+  return crossTable<StreamResult>({ name, title, items: streams, itemName: (s) => heading(s as S), itemColumn: 'Stream', rows });
 }
 
 export function streamTable(r: Results): Table {
-  return streamColumns(r.streams, (s) => s.name);
+  return streamColumns('streams', 'Streams', r.streams, (s) => s.name);
 }
 
 /** The heat-and-material balance: every numbered stream of the plant (enthalpy flows absolute, heats of formation included). */
 export function heatAndMaterialBalance(r: Results): Table {
-  return streamColumns(r.plant.streams, (s) => `${s.number}. ${s.name}`);
+  return streamColumns('heat-and-material-balance', 'Heat-and-material balance', r.plant.streams, (s) => `${s.number}. ${s.name}`);
 }
 
 const kW = (w: number) => formatQuantity(w / 1000, 'kW');
 
-function electricalLayout(r: Results): Row[] {
+/** A row of several numbers shown as one text: `data` names each number with its unit. */
+function several(label: string, text: string, data: [string, string, number | null][]): Pair {
+  return { label, text, data: data.map(([name, unit, value]) => ({ name, unit, value })) };
+}
+
+function electricalLayout(r: Results): Pair[] {
   const e = r.plant.electrical;
   const power = r.technology.mode === 'power';
+  const converter = power ? 'Inverter' : 'Rectifier';
   return [
-    ['Cells per stack / stacks in series / strings in parallel', `${formatInteger(e.cellsPerStack)} / ${formatInteger(e.stacksInSeries)} / ${formatInteger(e.stringsInParallel)}`],
-    ['Stacks in series set by', e.stacksInSeriesFrom === 'given' ? 'the basis' : 'the DC bus voltage window'],
-    ['Stacks / cells installed (cells required)', `${formatInteger(e.stackCount)} / ${formatInteger(e.installedCells)} (${formatInteger(e.requiredCells)})`],
-    ['Stack voltage / stack current', `${formatQuantity(e.stackVoltage_V, 'V')} / ${formatQuantity(e.stackCurrent_A, 'A')}`],
-    ['String voltage / string current', `${formatQuantity(e.stringVoltage_V, 'V')} / ${formatQuantity(e.stringCurrent_A, 'A')}`],
-    ['DC bus voltage / bus current', `${formatQuantity(e.busVoltage_V, 'V')} / ${formatQuantity(e.busCurrent_A, 'A')}`],
-    ['DC power of the installed cells', formatPower(e.dcPower_W)],
-    [power ? 'Inverter efficiency / AC power delivered' : 'Rectifier efficiency / AC power drawn', `${formatPercent(e.conversionEfficiency)} / ${formatPower(e.acPower_W)}`],
-    ['Conversion loss', formatPower(e.conversionLoss_W)],
+    several('Cells per stack / stacks in series / strings in parallel', `${formatInteger(e.cellsPerStack)} / ${formatInteger(e.stacksInSeries)} / ${formatInteger(e.stringsInParallel)}`, [
+      ['Cells per stack', '', e.cellsPerStack],
+      ['Stacks in series', '', e.stacksInSeries],
+      ['Strings in parallel', '', e.stringsInParallel],
+    ]),
+    textPair('Stacks in series set by', e.stacksInSeriesFrom === 'given' ? 'the basis' : 'the DC bus voltage window'),
+    several('Stacks / cells installed (cells required)', `${formatInteger(e.stackCount)} / ${formatInteger(e.installedCells)} (${formatInteger(e.requiredCells)})`, [
+      ['Stacks', '', e.stackCount],
+      ['Cells installed', '', e.installedCells],
+      ['Cells required', '', e.requiredCells],
+    ]),
+    several('Stack voltage / stack current', `${formatQuantity(e.stackVoltage_V, 'V')} / ${formatQuantity(e.stackCurrent_A, 'A')}`, [
+      ['Stack voltage', 'V', e.stackVoltage_V],
+      ['Stack current', 'A', e.stackCurrent_A],
+    ]),
+    several('String voltage / string current', `${formatQuantity(e.stringVoltage_V, 'V')} / ${formatQuantity(e.stringCurrent_A, 'A')}`, [
+      ['String voltage', 'V', e.stringVoltage_V],
+      ['String current', 'A', e.stringCurrent_A],
+    ]),
+    several('DC bus voltage / bus current', `${formatQuantity(e.busVoltage_V, 'V')} / ${formatQuantity(e.busCurrent_A, 'A')}`, [
+      ['DC bus voltage', 'V', e.busVoltage_V],
+      ['DC bus current', 'A', e.busCurrent_A],
+    ]),
+    quantity('DC power of the installed cells', e.dcPower_W, 'W', formatPower(e.dcPower_W)),
+    several(power ? 'Inverter efficiency / AC power delivered' : 'Rectifier efficiency / AC power drawn', `${formatPercent(e.conversionEfficiency)} / ${formatPower(e.acPower_W)}`, [
+      [`${converter} efficiency`, '', e.conversionEfficiency],
+      [power ? 'AC power delivered' : 'AC power drawn', 'W', e.acPower_W],
+    ]),
+    quantity('Conversion loss', e.conversionLoss_W, 'W', formatPower(e.conversionLoss_W)),
   ];
 }
 
-function duties(p: NonNullable<Results['plant']['power']>): Row[] {
-  const rows: Row[] = p.duties.map((d) => [`${d.name} (${formatTemperature(d.from_K)} → ${formatTemperature(d.to_K)})`, kW(d.duty_W)]);
-  rows.push(["Net duty of the plant's heaters", kW(p.netDuty_W)]);
-  if (p.steam) rows.push(['Feed water / saturation temperature', `${formatQuantity(p.steam.water_kg_per_h, 'kg/h')} / ${formatTemperature(p.steam.saturationTemperature_K)}`]);
-  if (p.blower) {
-    rows.push(['Air blower: pressure', `${formatQuantity(p.blower.inletPressure_bar, 'bar')} → ${formatQuantity(p.blower.outletPressure_bar, 'bar')}`]);
-    rows.push(['Air blower: temperature', `${formatTemperature(p.blower.inletTemperature_K)} → ${formatTemperature(p.blower.outletTemperature_K)}`]);
-    rows.push(['Air blower power (isentropic efficiency)', `${kW(p.blower.power_W)} (${formatPercent(p.blower.isentropicEfficiency)}); the parasitic load allows ${kW(p.blower.parasiticAllowance_W)} in all`]);
+type PlantPower = NonNullable<Results['plant']['power']>;
+
+function duties(p: PlantPower): Pair[] {
+  const rows: Pair[] = p.duties.map((d) =>
+    several(`${d.name} (${formatTemperature(d.from_K)} → ${formatTemperature(d.to_K)})`, kW(d.duty_W), [
+      [`${d.name}, duty`, 'W', d.duty_W],
+      [`${d.name}, from`, 'K', d.from_K],
+      [`${d.name}, to`, 'K', d.to_K],
+    ]),
+  );
+  rows.push(quantity("Net duty of the plant's heaters", p.netDuty_W, 'W', kW(p.netDuty_W)));
+  if (p.steam) {
+    rows.push(several('Feed water / saturation temperature', `${formatQuantity(p.steam.water_kg_per_h, 'kg/h')} / ${formatTemperature(p.steam.saturationTemperature_K)}`, [
+      ['Feed water', 'kg/h', p.steam.water_kg_per_h],
+      ['Saturation temperature', 'K', p.steam.saturationTemperature_K],
+    ]));
   }
-  rows.push(['Stack heat with the inlets as fed, and where it goes', `${kW(p.stackHeat_W)}, ${p.stackHeatTo}`]);
-  rows.push(['Air-electrode exhaust temperature', formatTemperature(p.airExhaustTemperature_K)]);
+  const b = p.blower;
+  if (b) {
+    rows.push(several('Air blower: pressure', `${formatQuantity(b.inletPressure_bar, 'bar')} → ${formatQuantity(b.outletPressure_bar, 'bar')}`, [
+      ['Air blower inlet pressure', 'bar', b.inletPressure_bar],
+      ['Air blower outlet pressure', 'bar', b.outletPressure_bar],
+    ]));
+    rows.push(several('Air blower: temperature', `${formatTemperature(b.inletTemperature_K)} → ${formatTemperature(b.outletTemperature_K)}`, [
+      ['Air blower inlet temperature', 'K', b.inletTemperature_K],
+      ['Air blower outlet temperature', 'K', b.outletTemperature_K],
+    ]));
+    rows.push(several('Air blower power (isentropic efficiency)', `${kW(b.power_W)} (${formatPercent(b.isentropicEfficiency)}); the parasitic load allows ${kW(b.parasiticAllowance_W)} in all`, [
+      ['Air blower power', 'W', b.power_W],
+      ['Air blower isentropic efficiency', '', b.isentropicEfficiency],
+      ['Parasitic load allowed', 'W', b.parasiticAllowance_W],
+    ]));
+  }
+  rows.push({
+    label: 'Stack heat with the inlets as fed, and where it goes',
+    text: `${kW(p.stackHeat_W)}, ${p.stackHeatTo}`,
+    data: [
+      { name: 'Stack heat with the inlets as fed', unit: 'W', value: p.stackHeat_W },
+      { name: 'Where the stack heat goes', unit: '', value: p.stackHeatTo },
+    ],
+  });
+  rows.push(quantity('Air-electrode exhaust temperature', p.airExhaustTemperature_K, 'K', formatTemperature(p.airExhaustTemperature_K)));
   return rows;
 }
 
-function oxidiserAndRecovery(p: NonNullable<Results['plant']['power']>): Row[] {
-  const rows: Row[] = [];
+function oxidiserAndRecovery(p: PlantPower): Pair[] {
+  const rows: Pair[] = [];
   const o = p.oxidiser;
   if (o) {
-    rows.push(['Oxidant', o.oxidant === 'fresh-air' ? `fresh air, ${formatNumber(o.airRatio!)} times the oxygen complete combustion needs` : 'the air-electrode exhaust']);
-    rows.push(['Adiabatic outlet temperature (equilibrium products) / material limit', `${formatTemperature(o.outletTemperature_K)} / ${formatTemperature(o.materialLimit_K)}`]);
-    rows.push(['Heat of the combustion (at 25 °C)', kW(o.heatReleased_W)]);
-    rows.push(['CO left in the products', formatQuantity(o.carbonMonoxide_ppm, 'ppm')]);
-    rows.push(['Products, mol %', Object.entries(o.moleFractions).filter(([, x]) => x >= 1e-4).sort((a, b) => b[1] - a[1]).map(([k, x]) => `${speciesText(k)} ${formatNumber(x * 100, 4)}`).join(', ')]);
+    const oxidant = o.oxidant === 'fresh-air' ? `fresh air, ${formatNumber(o.airRatio!)} times the oxygen complete combustion needs` : 'the air-electrode exhaust';
+    rows.push({ label: 'Oxidant', text: oxidant, data: [{ name: 'Oxidant', unit: '', value: o.oxidant }, { name: 'Oxidiser air ratio', unit: '', value: o.airRatio ?? null }] });
+    rows.push(several('Adiabatic outlet temperature (equilibrium products) / material limit', `${formatTemperature(o.outletTemperature_K)} / ${formatTemperature(o.materialLimit_K)}`, [
+      ['Oxidiser outlet temperature, adiabatic', 'K', o.outletTemperature_K],
+      ['Oxidiser material limit', 'K', o.materialLimit_K],
+    ]));
+    rows.push(quantity('Heat of the combustion (at 25 °C)', o.heatReleased_W, 'W', kW(o.heatReleased_W)));
+    rows.push(quantity('CO left in the products', o.carbonMonoxide_ppm, 'ppm', formatQuantity(o.carbonMonoxide_ppm, 'ppm')));
+    const shown = Object.entries(o.moleFractions).filter(([, x]) => x >= 1e-4).sort((a, b) => b[1] - a[1]);
+    rows.push({
+      label: 'Products, mol %',
+      text: shown.map(([k, x]) => `${speciesText(k)} ${formatNumber(x * 100, 4)}`).join(', '),
+      data: shown.map(([k, x]) => ({ name: `Oxidiser products, mole fraction ${k}`, unit: 'mol/mol', value: x })),
+    });
   }
   const h = p.heatRecovery;
   if (h) {
-    rows.push(['Exhaust into / out of the heat recovery', `${formatTemperature(h.inletTemperature_K)} / ${formatTemperature(h.exitTemperature_K)}`]);
-    rows.push(['Dew point of the exhaust (IAPWS-IF97)', h.dewPoint_K === null ? 'none' : formatTemperature(h.dewPoint_K)]);
-    rows.push(['Heat recovered without / with condensation', `${kW(h.heatWithoutCondensation_W)} / ${kW(h.heatWithCondensation_W)}`]);
-    rows.push(['Condensate', formatQuantity(h.condensate_kg_per_h, 'kg/h')]);
-    rows.push(['Heat lost to ambient', kW(p.heatLoss_W)]);
-    rows.push(['Heat delivered', kW(h.deliveredHeat_W)]);
+    rows.push(several('Exhaust into / out of the heat recovery', `${formatTemperature(h.inletTemperature_K)} / ${formatTemperature(h.exitTemperature_K)}`, [
+      ['Exhaust into the heat recovery', 'K', h.inletTemperature_K],
+      ['Exhaust out of the heat recovery', 'K', h.exitTemperature_K],
+    ]));
+    rows.push(quantity('Dew point of the exhaust (IAPWS-IF97)', h.dewPoint_K, 'K', h.dewPoint_K === null ? 'none' : formatTemperature(h.dewPoint_K)));
+    rows.push(several('Heat recovered without / with condensation', `${kW(h.heatWithoutCondensation_W)} / ${kW(h.heatWithCondensation_W)}`, [
+      ['Heat recovered without condensation', 'W', h.heatWithoutCondensation_W],
+      ['Heat recovered with condensation', 'W', h.heatWithCondensation_W],
+    ]));
+    rows.push(quantity('Condensate', h.condensate_kg_per_h, 'kg/h', formatQuantity(h.condensate_kg_per_h, 'kg/h')));
+    rows.push(quantity('Heat lost to ambient', p.heatLoss_W, 'W', kW(p.heatLoss_W)));
+    rows.push(quantity('Heat delivered', h.deliveredHeat_W, 'W', kW(h.deliveredHeat_W)));
   }
   const c = p.chp;
   if (c) {
-    rows.push(['Electrical / thermal efficiency (LHV)', `${formatPercent(c.electricalEfficiencyLhv)} / ${formatPercent(c.thermalEfficiencyLhv)}`]);
-    rows.push(['Total CHP efficiency, LHV / HHV', `${formatPercent(c.totalEfficiencyLhv)} / ${formatPercent(c.totalEfficiencyHhv)}`]);
-    if (c.powerToHeat !== null) rows.push(['Power-to-heat ratio', formatNumber(c.powerToHeat)]);
+    rows.push(several('Electrical / thermal efficiency (LHV)', `${formatPercent(c.electricalEfficiencyLhv)} / ${formatPercent(c.thermalEfficiencyLhv)}`, [
+      ['Electrical efficiency (LHV)', '', c.electricalEfficiencyLhv],
+      ['Thermal efficiency (LHV)', '', c.thermalEfficiencyLhv],
+    ]));
+    rows.push(several('Total CHP efficiency, LHV / HHV', `${formatPercent(c.totalEfficiencyLhv)} / ${formatPercent(c.totalEfficiencyHhv)}`, [
+      ['Total CHP efficiency, LHV', '', c.totalEfficiencyLhv],
+      ['Total CHP efficiency, HHV', '', c.totalEfficiencyHhv],
+    ]));
+    if (c.powerToHeat !== null) rows.push(quantity('Power-to-heat ratio', c.powerToHeat, '', formatNumber(c.powerToHeat)));
   }
   return rows;
 }
 
-function energyBalance(p: NonNullable<Results['plant']['power']>): Row[] {
+function energyBalance(p: PlantPower): Pair[] {
   const b = p.energyBalance;
   return [
-    ...b.terms.map((t): Row => [`${t.side === 'in' ? 'In' : 'Out'}: ${t.name}`, kW(t.value_W)]),
-    ['Residual (in − out) / fuel LHV input', formatNumber(b.residual, 2)],
+    ...b.terms.map((t) => quantity(`${t.side === 'in' ? 'In' : 'Out'}: ${t.name}`, t.value_W, 'W', kW(t.value_W))),
+    quantity('Residual (in − out) / fuel LHV input', b.residual, '', formatNumber(b.residual, 2)),
   ];
 }
 
 /** The tables of the plant around the stack. */
 export function plantTables(r: Results): FigureTable[] {
-  const list: FigureTable[] = [{ id: 'plant-electrical', title: 'Electrical layout', table: pairs(electricalLayout(r)) }];
+  const list: FigureTable[] = [figure('plant-electrical', 'electrical-layout', 'Electrical layout', electricalLayout(r))];
   const p = r.plant.power;
   if (p) {
-    list.push({ id: 'plant-duties', title: 'Fuel and air preparation', table: pairs(duties(p)) });
+    list.push(figure('plant-duties', 'plant-duties', 'Fuel and air preparation', duties(p)));
     const o = oxidiserAndRecovery(p);
-    if (o.length) list.push({ id: 'plant-oxidiser', title: 'Off-gas oxidiser, heat recovery and combined heat and power', table: pairs(o) });
-    list.push({ id: 'plant-energy', title: 'Energy balance of the plant (absolute enthalpy flows, heats of formation included)', table: pairs(energyBalance(p)) });
+    if (o.length) list.push(figure('plant-oxidiser', 'oxidiser-and-heat-recovery', 'Off-gas oxidiser, heat recovery and combined heat and power', o));
+    list.push(figure('plant-energy', 'plant-energy-balance', 'Energy balance of the plant (absolute enthalpy flows, heats of formation included)', energyBalance(p)));
   }
   return list;
 }

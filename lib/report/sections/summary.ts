@@ -9,7 +9,7 @@ import type { Results } from '../../plant/results-schema.ts';
 import type { HazardAssessment } from '../../hazards/types.ts';
 import type { CheckResult } from '../../verification/checks.ts';
 import { capitalised, formatInteger, formatNumber, formatPercent, formatPower, formatQuantity, formatTemperature } from '../format.ts';
-import { pairs, type Table } from '../table.ts';
+import { pairsTable, quantity, recordsTable, type Pair, type Table } from '../table.ts';
 import { sectionNumber } from '../outline.ts';
 import { efficiencyBasisNotes } from '../efficiency-basis.ts';
 import { feedNames } from '../../basis/stream-rules.ts';
@@ -22,6 +22,8 @@ export interface Finding {
   level: 'critical' | 'warning' | 'info';
   /** Where it comes from and what kind it is: "calculation: water-loop-short", or "basis check". */
   origin: string;
+  /** The calculation's code of the finding ("water-loop-short"), or "" for the basis check's. */
+  code: string;
   /** The basis field it concerns, e.g. "operating-point.cell-voltage". */
   field: string;
   /** Other fields it bears on, joined: "conditions.allowed-air-temperature-rise", or "". */
@@ -37,6 +39,8 @@ export interface SummarySection {
   findings: Finding[];
   /** One sentence counting the findings by severity, or saying there are none. */
   findingsCount: string;
+  /** The findings' data, for their CSV (the page lists them rather than show this table). */
+  findingsTable: Table;
   conclusions: string[];
 }
 
@@ -47,62 +51,183 @@ function inletRemark(r: Results): string {
   return '';
 }
 
-function headlineRows(r: Results): [string, string][] {
+function headlinePairs(r: Results): Pair[] {
   const h = r.headline;
   const power = r.technology.mode === 'power';
   const notes = efficiencyBasisNotes(r);
-  const rows: [string, string][] = [
-    ['Operating temperature', formatTemperature(r.conditions.temperature_K)],
-    ['Fuel-electrode / air-electrode pressure', `${formatNumber(r.conditions.fuelPressure_bar)} / ${formatNumber(r.conditions.airPressure_bar)} bar`],
-    ['Nernst voltage, inlet / outlet', `${formatQuantity(h.inletNernst_V, 'V')}${inletRemark(r)} / ${formatQuantity(h.outletNernst_V, 'V')}`],
-    ['Nernst voltage, area mean / charge mean', `${formatQuantity(r.electrochemistry.areaMeanNernst_V, 'V')} / ${formatQuantity(h.meanNernst_V, 'V')}`],
-    ['Cell voltage', `${formatQuantity(h.cellVoltage_V, 'V')} (${r.electrochemistry.voltageSource === 'given' ? 'given' : 'from the area-specific resistance, one voltage over the cell'})`],
-    ['Local current density, mean / highest (hot spot)', `${formatQuantity(r.operatingPoint.currentDensity_A_per_m2 / 1e4, 'A/cm²')} / ${formatQuantity(h.maxLocalCurrentDensity_A_per_m2 / 1e4, 'A/cm²')}`],
-    ['Cells / cell current / sum of the cell currents', `${formatInteger(h.cells)} / ${formatQuantity(h.cellCurrent_A, 'A')} / ${formatQuantity(h.totalCurrent_A, 'A')}`],
+  const c = r.conditions;
+  const rows: Pair[] = [
+    quantity('Operating temperature', c.temperature_K, 'K', formatTemperature(c.temperature_K)),
+    {
+      label: 'Fuel-electrode / air-electrode pressure',
+      text: `${formatNumber(c.fuelPressure_bar)} / ${formatNumber(c.airPressure_bar)} bar`,
+      data: [
+        { name: 'Fuel-electrode pressure', unit: 'bar', value: c.fuelPressure_bar },
+        { name: 'Air-electrode pressure', unit: 'bar', value: c.airPressure_bar },
+      ],
+    },
+    {
+      label: 'Nernst voltage, inlet / outlet',
+      text: `${formatQuantity(h.inletNernst_V, 'V')}${inletRemark(r)} / ${formatQuantity(h.outletNernst_V, 'V')}`,
+      data: [
+        { name: 'Nernst voltage, inlet', unit: 'V', value: h.inletNernst_V },
+        { name: 'Nernst voltage, outlet', unit: 'V', value: h.outletNernst_V },
+      ],
+    },
+    {
+      label: 'Nernst voltage, area mean / charge mean',
+      text: `${formatQuantity(r.electrochemistry.areaMeanNernst_V, 'V')} / ${formatQuantity(h.meanNernst_V, 'V')}`,
+      data: [
+        { name: 'Nernst voltage, area mean', unit: 'V', value: r.electrochemistry.areaMeanNernst_V },
+        { name: 'Nernst voltage, charge mean', unit: 'V', value: h.meanNernst_V },
+      ],
+    },
+    quantity('Cell voltage', h.cellVoltage_V, 'V', `${formatQuantity(h.cellVoltage_V, 'V')} (${r.electrochemistry.voltageSource === 'given' ? 'given' : 'from the area-specific resistance, one voltage over the cell'})`),
+    {
+      label: 'Local current density, mean / highest (hot spot)',
+      text: `${formatQuantity(r.operatingPoint.currentDensity_A_per_m2 / 1e4, 'A/cm²')} / ${formatQuantity(h.maxLocalCurrentDensity_A_per_m2 / 1e4, 'A/cm²')}`,
+      data: [
+        { name: 'Local current density, mean', unit: 'A/m2', value: r.operatingPoint.currentDensity_A_per_m2 },
+        { name: 'Local current density, highest', unit: 'A/m2', value: h.maxLocalCurrentDensity_A_per_m2 },
+      ],
+    },
+    {
+      label: 'Cells / cell current / sum of the cell currents',
+      text: `${formatInteger(h.cells)} / ${formatQuantity(h.cellCurrent_A, 'A')} / ${formatQuantity(h.totalCurrent_A, 'A')}`,
+      data: [
+        { name: 'Cells', unit: '', value: h.cells },
+        { name: 'Cell current', unit: 'A', value: h.cellCurrent_A },
+        { name: 'Sum of the cell currents', unit: 'A', value: h.totalCurrent_A },
+      ],
+    },
   ];
   if (power) {
-    rows.push(['Stack DC power / net power', `${formatPower(h.stackPower_W)} / ${formatPower(h.netPower_W)}`]);
+    rows.push({
+      label: 'Stack DC power / net power',
+      text: `${formatPower(h.stackPower_W)} / ${formatPower(h.netPower_W)}`,
+      data: [
+        { name: 'Stack DC power', unit: 'W', value: h.stackPower_W },
+        { name: 'Net power', unit: 'W', value: h.netPower_W },
+      ],
+    });
     if (h.electricalEfficiencyLhv !== null && h.electricalEfficiencyHhv !== null) {
-      rows.push(['Net electrical efficiency, LHV / HHV', `${formatPercent(h.electricalEfficiencyLhv)} / ${formatPercent(h.electricalEfficiencyHhv)}`]);
+      rows.push({
+        label: 'Net electrical efficiency, LHV / HHV',
+        text: `${formatPercent(h.electricalEfficiencyLhv)} / ${formatPercent(h.electricalEfficiencyHhv)}`,
+        data: [
+          { name: 'Net electrical efficiency, LHV', unit: '', value: h.electricalEfficiencyLhv },
+          { name: 'Net electrical efficiency, HHV', unit: '', value: h.electricalEfficiencyHhv },
+        ],
+      });
     }
     if (h.thermodynamicLimitLhv !== null && h.thermodynamicLimitHhv !== null) {
       const why = notes.thermodynamicLimitLhv ?? notes.thermodynamicLimitHhv;
-      rows.push(['Thermodynamic limit at T, LHV / HHV', `${formatPercent(h.thermodynamicLimitLhv)} / ${formatPercent(h.thermodynamicLimitHhv)}${why ? ` (${why})` : ''}`]);
+      rows.push({
+        label: 'Thermodynamic limit at T, LHV / HHV',
+        text: `${formatPercent(h.thermodynamicLimitLhv)} / ${formatPercent(h.thermodynamicLimitHhv)}${why ? ` (${why})` : ''}`,
+        data: [
+          { name: 'Thermodynamic limit at T, LHV', unit: '', value: h.thermodynamicLimitLhv },
+          { name: 'Thermodynamic limit at T, HHV', unit: '', value: h.thermodynamicLimitHhv },
+        ],
+      });
     }
   } else {
-    rows.push(['Stack power input', formatPower(h.stackPower_W)]);
+    rows.push(quantity('Stack power input', h.stackPower_W, 'W', formatPower(h.stackPower_W)));
     if (h.hydrogenProduction_kg_per_h !== null && h.hydrogenProduction_kg_per_day !== null) {
-      rows.push(['Hydrogen production', `${formatQuantity(h.hydrogenProduction_kg_per_h, 'kg/h')} (${formatQuantity(h.hydrogenProduction_kg_per_day, 'kg/day')})`]);
+      rows.push({
+        label: 'Hydrogen production',
+        text: `${formatQuantity(h.hydrogenProduction_kg_per_h, 'kg/h')} (${formatQuantity(h.hydrogenProduction_kg_per_day, 'kg/day')})`,
+        data: [
+          { name: 'Hydrogen production', unit: 'kg/h', value: h.hydrogenProduction_kg_per_h },
+          { name: 'Hydrogen production per day', unit: 'kg/day', value: h.hydrogenProduction_kg_per_day },
+        ],
+      });
     }
     const e = r.efficiency;
     if (h.specificEnergy_kWh_per_kg !== null && e.electrolysisEfficiencyLhv !== null && e.electrolysisEfficiencyHhv !== null) {
       const why = notes.electrolysisEfficiencyHhv ?? notes.electrolysisEfficiencyLhv;
-      rows.push([
-        'Specific electric energy / efficiency over electricity alone, LHV / HHV',
-        `${formatQuantity(h.specificEnergy_kWh_per_kg, 'kWh/kg')} / ${formatPercent(e.electrolysisEfficiencyLhv)} / ${formatPercent(e.electrolysisEfficiencyHhv)}${why ? ` (HHV ${why})` : ''}`,
-      ]);
+      rows.push({
+        label: 'Specific electric energy / efficiency over electricity alone, LHV / HHV',
+        text: `${formatQuantity(h.specificEnergy_kWh_per_kg, 'kWh/kg')} / ${formatPercent(e.electrolysisEfficiencyLhv)} / ${formatPercent(e.electrolysisEfficiencyHhv)}${why ? ` (HHV ${why})` : ''}`,
+        data: [
+          { name: 'Specific electric energy', unit: 'kWh/kg', value: h.specificEnergy_kWh_per_kg },
+          { name: 'Efficiency over electricity alone, LHV', unit: '', value: e.electrolysisEfficiencyLhv },
+          { name: 'Efficiency over electricity alone, HHV', unit: '', value: e.electrolysisEfficiencyHhv },
+        ],
+      });
     }
     if (e.heatInclusiveEfficiencyLhv !== null && e.heatInclusiveEfficiencyHhv !== null) {
-      rows.push(['Efficiency with the heat supplied counted, LHV / HHV', `${formatPercent(e.heatInclusiveEfficiencyLhv)} / ${formatPercent(e.heatInclusiveEfficiencyHhv)}`]);
+      rows.push({
+        label: 'Efficiency with the heat supplied counted, LHV / HHV',
+        text: `${formatPercent(e.heatInclusiveEfficiencyLhv)} / ${formatPercent(e.heatInclusiveEfficiencyHhv)}`,
+        data: [
+          { name: 'Efficiency with the heat supplied counted, LHV', unit: '', value: e.heatInclusiveEfficiencyLhv },
+          { name: 'Efficiency with the heat supplied counted, HHV', unit: '', value: e.heatInclusiveEfficiencyHhv },
+        ],
+      });
     }
   }
-  rows.push([h.stackHeat_W >= 0 ? 'Stack heat released (isothermal)' : 'Stack heat needed (isothermal)', formatPower(Math.abs(h.stackHeat_W))]);
+  rows.push({
+    label: h.stackHeat_W >= 0 ? 'Stack heat released (isothermal)' : 'Stack heat needed (isothermal)',
+    text: formatPower(Math.abs(h.stackHeat_W)),
+    data: [{ name: 'Stack heat released, isothermal (negative: needed)', unit: 'W', value: h.stackHeat_W }],
+  });
   if (h.airFlow_kg_per_h !== null) {
-    const name = feedNames(r.technology.id as TechnologyId, r.technology.mode).air;
-    rows.push([capitalised(name), formatQuantity(h.airFlow_kg_per_h, 'kg/h')]);
+    const name = capitalised(feedNames(r.technology.id as TechnologyId, r.technology.mode).air);
+    rows.push(quantity(name, h.airFlow_kg_per_h, 'kg/h', formatQuantity(h.airFlow_kg_per_h, 'kg/h')));
   }
   if (h.minimumSteamToCarbon !== null) {
-    rows.push(['Minimum steam-to-carbon ratio / margin', `${formatNumber(h.minimumSteamToCarbon)} / ${h.carbonMargin === null ? 'no steam given' : formatNumber(h.carbonMargin)}`]);
+    rows.push({
+      label: 'Minimum steam-to-carbon ratio / margin',
+      text: `${formatNumber(h.minimumSteamToCarbon)} / ${h.carbonMargin === null ? 'no steam given' : formatNumber(h.carbonMargin)}`,
+      data: [
+        { name: 'Minimum steam-to-carbon ratio', unit: '', value: h.minimumSteamToCarbon },
+        { name: 'Steam-to-carbon margin', unit: '', value: h.carbonMargin },
+      ],
+    });
   }
-  if (h.maxCarbonActivity !== null) rows.push(['Highest carbon activity on the fuel path in the stack (stack temperature)', formatNumber(h.maxCarbonActivity)]);
+  if (h.maxCarbonActivity !== null) rows.push(quantity('Highest carbon activity on the fuel path in the stack (stack temperature)', h.maxCarbonActivity, '', formatNumber(h.maxCarbonActivity)));
   const e = r.plant.electrical;
-  rows.push(['Stacks (cells each × in series × strings) / DC bus', `${formatInteger(e.stackCount)} (${formatInteger(e.cellsPerStack)} × ${formatInteger(e.stacksInSeries)} × ${formatInteger(e.stringsInParallel)}) / ${formatQuantity(e.busVoltage_V, 'V')}, ${formatQuantity(e.busCurrent_A, 'A')}`]);
+  rows.push({
+    label: 'Stacks (cells each × in series × strings) / DC bus',
+    text: `${formatInteger(e.stackCount)} (${formatInteger(e.cellsPerStack)} × ${formatInteger(e.stacksInSeries)} × ${formatInteger(e.stringsInParallel)}) / ${formatQuantity(e.busVoltage_V, 'V')}, ${formatQuantity(e.busCurrent_A, 'A')}`,
+    data: [
+      { name: 'Stacks', unit: '', value: e.stackCount },
+      { name: 'Cells per stack', unit: '', value: e.cellsPerStack },
+      { name: 'Stacks in series', unit: '', value: e.stacksInSeries },
+      { name: 'Strings in parallel', unit: '', value: e.stringsInParallel },
+      { name: 'DC bus voltage', unit: 'V', value: e.busVoltage_V },
+      { name: 'DC bus current', unit: 'A', value: e.busCurrent_A },
+    ],
+  });
   const p = r.plant.power;
-  if (p?.oxidiser) rows.push(['Off-gas oxidiser outlet (adiabatic) / material limit', `${formatTemperature(p.oxidiser.outletTemperature_K)} / ${formatTemperature(p.oxidiser.materialLimit_K)}`]);
+  if (p?.oxidiser) {
+    rows.push({
+      label: 'Off-gas oxidiser outlet (adiabatic) / material limit',
+      text: `${formatTemperature(p.oxidiser.outletTemperature_K)} / ${formatTemperature(p.oxidiser.materialLimit_K)}`,
+      data: [
+        { name: 'Off-gas oxidiser outlet, adiabatic', unit: 'K', value: p.oxidiser.outletTemperature_K },
+        { name: 'Off-gas oxidiser material limit', unit: 'K', value: p.oxidiser.materialLimit_K },
+      ],
+    });
+  }
   if (p?.heatRecovery && p.chp) {
-    rows.push(['Heat delivered / total CHP efficiency, LHV / HHV', `${formatPower(p.heatRecovery.deliveredHeat_W)} / ${formatPercent(p.chp.totalEfficiencyLhv)} / ${formatPercent(p.chp.totalEfficiencyHhv)}`]);
+    rows.push({
+      label: 'Heat delivered / total CHP efficiency, LHV / HHV',
+      text: `${formatPower(p.heatRecovery.deliveredHeat_W)} / ${formatPercent(p.chp.totalEfficiencyLhv)} / ${formatPercent(p.chp.totalEfficiencyHhv)}`,
+      data: [
+        { name: 'Heat delivered', unit: 'W', value: p.heatRecovery.deliveredHeat_W },
+        { name: 'Total CHP efficiency, LHV', unit: '', value: p.chp.totalEfficiencyLhv },
+        { name: 'Total CHP efficiency, HHV', unit: '', value: p.chp.totalEfficiencyHhv },
+      ],
+    });
   }
   return rows;
+}
+
+/** The headline numbers a review reads first. */
+export function headlineTable(r: Results): Table {
+  return pairsTable('headline', 'Headline numbers', headlinePairs(r));
 }
 
 function conclusions(r: Results, basis: DesignBasis, hazards: HazardAssessment, checks: readonly CheckResult[], findings: readonly Finding[]): string[] {
@@ -172,6 +297,7 @@ function findingItems(r: Results, basis: DesignBasis): Finding[] {
         severity: SEVERITY[f.severity],
         level: f.severity,
         origin: `calculation: ${f.code}`,
+        code: f.code,
         field: f.path,
         related: f.related.join(', '),
         assumptions: f.assumptions.map(state).join(', '),
@@ -179,7 +305,7 @@ function findingItems(r: Results, basis: DesignBasis): Finding[] {
         source: 'calculation',
       }),
     ),
-    ...basis.warnings.map((w): Finding => ({ severity: SEVERITY.warning, level: 'warning', origin: 'basis check', field: w.path, related: '', assumptions: '', text: w.message, source: 'basis check' })),
+    ...basis.warnings.map((w): Finding => ({ severity: SEVERITY.warning, level: 'warning', origin: 'basis check', code: '', field: w.path, related: '', assumptions: '', text: w.message, source: 'basis check' })),
   ];
 }
 
@@ -193,7 +319,37 @@ function countText(findings: readonly Finding[]): string {
   return `${findings.length} ${findings.length === 1 ? 'finding' : 'findings'}: ${parts.join(', ')}.`;
 }
 
+/** The findings as a table: the page lists them, and this is their data (severity, code, fields, assumptions, text) for the CSV and `calc --section findings`. */
+function findingsData(findings: readonly Finding[]): Table {
+  const text = (head: string, value: (f: Finding) => string, name = head) => ({ head, align: 'left' as const, text: value, data: [{ name, unit: '', value }] });
+  return recordsTable({
+    name: 'findings',
+    title: 'Findings for the reviewer',
+    columns: [
+      text('Severity', (f) => f.severity),
+      { head: 'Origin', align: 'left', text: (f) => f.origin, data: [{ name: 'Source', unit: '', value: (f) => f.source }, { name: 'Code', unit: '', value: (f) => f.code }] },
+      text('Field', (f) => f.field),
+      text('Finding', (f) => f.text),
+      text('Also concerns', (f) => f.related),
+      text('Assumptions', (f) => f.assumptions),
+    ],
+    groups: [{ items: findings }],
+    flag: (f) => f.level === 'critical',
+  });
+}
+
+/** The findings table of a design: what `calc --section findings` prints, as the summary's own. */
+export function findingsTable(r: Results, basis: DesignBasis): Table {
+  return findingsData(findingItems(r, basis));
+}
+
 export function summarySection(r: Results, basis: DesignBasis, hazards: HazardAssessment, checks: readonly CheckResult[]): SummarySection {
   const findings = findingItems(r, basis);
-  return { headline: pairs(headlineRows(r)), findings, findingsCount: countText(findings), conclusions: conclusions(r, basis, hazards, checks, findings) };
+  return {
+    headline: headlineTable(r),
+    findings,
+    findingsCount: countText(findings),
+    findingsTable: findingsData(findings),
+    conclusions: conclusions(r, basis, hazards, checks, findings),
+  };
 }

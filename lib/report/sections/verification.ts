@@ -12,7 +12,7 @@
 import type { CheckResult } from '../../verification/checks.ts';
 import { formatNumber, formatTrimmed } from '../format.ts';
 import { speciesText } from '../species-text.ts';
-import { table, type Table } from '../table.ts';
+import { recordsTable, type RecordColumn, type Table } from '../table.ts';
 import { appendixLetter } from '../outline.ts';
 import { prettyUnit } from '../units.ts';
 
@@ -42,39 +42,83 @@ const GROUPS: Record<string, string> = {
   PL: 'Plant quantities: heating values, flows by Faraday\'s law, efficiencies',
 };
 
-function summaryTable(checks: readonly CheckResult[]): Table {
-  const prefixes = [...new Set(checks.map((c) => c.check.id.replace(/-.*$/, '')))];
-  return table(
-    ['Group', 'Checks', 'Pass', 'Fail', 'Largest deviation / tolerance'],
-    ['left', 'right', 'right', 'right', 'right'],
-    prefixes.map((prefix) => {
-      const group = checks.filter((c) => c.check.id.replace(/-.*$/, '') === prefix);
-      const failed = group.filter((c) => !c.pass).length;
-      const worst = Math.max(...group.map((c) => Math.abs(c.deviation) / c.check.tolerance));
-      return { cells: [`${GROUPS[prefix] ?? prefix} (${prefix})`, String(group.length), String(group.length - failed), String(failed), formatNumber(worst, 2)], flag: failed > 0 };
-    }),
-  );
+/** A group of checks by the prefix of their ids, with its counts and its largest deviation over its tolerance. */
+interface CheckGroup {
+  prefix: string;
+  checks: number;
+  failed: number;
+  worst: number;
 }
 
-export function verificationSection(checks: readonly CheckResult[], toolVersion: string, resultsToolVersion: string): VerificationSection {
-  const rows = checks.map((c) => ({
-    cells: [
-      c.check.id,
-      speciesText(c.check.what),
-      `${formatNumber(c.computed, 6)}${unit(c.check.unit)}`,
-      // As published: no trailing zeros the publication does not give (1.17 V, not 1.17000 V).
-      `${formatTrimmed(c.check.expected, 6)}${unit(c.check.unit)}`,
-      // A no-break space keeps ± with its number where the column wraps (print).
-      `${formatNumber(c.deviation, 2)} (±\u00a0${formatNumber(c.check.tolerance, 2)})`,
-      c.pass ? 'pass' : 'FAIL',
-      `${speciesText(c.check.source)}${c.check.memory ? ' (quoted from memory)' : ''}`,
+const SUMMARY_COLUMNS: RecordColumn<CheckGroup>[] = [
+  {
+    head: 'Group',
+    align: 'left',
+    text: (g) => `${GROUPS[g.prefix] ?? g.prefix} (${g.prefix})`,
+    data: [
+      { name: 'Group', unit: '', value: (g) => g.prefix },
+      { name: 'Covers', unit: '', value: (g) => GROUPS[g.prefix] ?? '' },
     ],
-    flag: !c.pass,
-  }));
+  },
+  { head: 'Checks', align: 'right', text: (g) => String(g.checks), data: [{ name: 'Checks', unit: '', value: (g) => g.checks }] },
+  { head: 'Pass', align: 'right', text: (g) => String(g.checks - g.failed), data: [{ name: 'Pass', unit: '', value: (g) => g.checks - g.failed }] },
+  { head: 'Fail', align: 'right', text: (g) => String(g.failed), data: [{ name: 'Fail', unit: '', value: (g) => g.failed }] },
+  { head: 'Largest deviation / tolerance', align: 'right', text: (g) => formatNumber(g.worst, 2), data: [{ name: 'Largest deviation / tolerance', unit: '', value: (g) => g.worst }] },
+];
+
+/** The checks counted by group, for the body of the document (the full table is an appendix). */
+export function verificationSummaryTable(checks: readonly CheckResult[]): Table {
+  const prefixOf = (c: CheckResult) => c.check.id.replace(/-.*$/, '');
+  const groups: CheckGroup[] = [...new Set(checks.map(prefixOf))].map((prefix) => {
+    const group = checks.filter((c) => prefixOf(c) === prefix);
+    return { prefix, checks: group.length, failed: group.filter((c) => !c.pass).length, worst: Math.max(...group.map((c) => Math.abs(c.deviation) / c.check.tolerance)) };
+  });
+  return recordsTable({ name: 'verification-summary', title: 'Checks against published values, by group', columns: SUMMARY_COLUMNS, groups: [{ items: groups }], flag: (g) => g.failed > 0 });
+}
+
+const checkUnit = (c: CheckResult) => (c.check.unit === '1' ? '' : c.check.unit);
+
+const COLUMNS: RecordColumn<CheckResult>[] = [
+  { head: 'Check', align: 'left', text: (c) => c.check.id, data: [{ name: 'Check', unit: '', value: (c) => c.check.id }] },
+  { head: 'Quantity', align: 'left', text: (c) => speciesText(c.check.what), data: [{ name: 'Quantity', unit: '', value: (c) => c.check.what }] },
+  {
+    head: 'Computed',
+    align: 'right',
+    text: (c) => `${formatNumber(c.computed, 6)}${unit(c.check.unit)}`,
+    data: [
+      { name: 'Computed', unit: '', value: (c) => c.computed },
+      { name: 'Unit', unit: '', value: checkUnit },
+    ],
+  },
+  // As published: no trailing zeros the publication does not give (1.17 V, not 1.17000 V).
+  { head: 'Published', align: 'right', text: (c) => `${formatTrimmed(c.check.expected, 6)}${unit(c.check.unit)}`, data: [{ name: 'Published', unit: '', value: (c) => c.check.expected }] },
+  {
+    head: 'Deviation (tolerance)',
+    align: 'right',
+    // A no-break space keeps ± with its number where the column wraps (print).
+    text: (c) => `${formatNumber(c.deviation, 2)} (±\u00a0${formatNumber(c.check.tolerance, 2)})`,
+    data: [
+      { name: 'Deviation', unit: '', value: (c) => c.deviation },
+      { name: 'Tolerance', unit: '', value: (c) => c.check.tolerance },
+    ],
+  },
+  { head: 'Result', align: 'left', text: (c) => (c.pass ? 'pass' : 'FAIL'), data: [{ name: 'Passes', unit: '', value: (c) => c.pass }] },
+  {
+    head: 'Source of the published value',
+    align: 'left',
+    text: (c) => `${speciesText(c.check.source)}${c.check.memory ? ' (quoted from memory)' : ''}`,
+    data: [
+      { name: 'Source of the published value', unit: '', value: (c) => c.check.source },
+      { name: 'Quoted from memory', unit: '', value: (c) => c.check.memory },
+    ],
+  },
+];
+
+export function verificationSection(checks: readonly CheckResult[], toolVersion: string, resultsToolVersion: string): VerificationSection {
   const same = toolVersion === resultsToolVersion;
   return {
-    table: table(['Check', 'Quantity', 'Computed', 'Published', 'Deviation (tolerance)', 'Result', 'Source of the published value'], ['left', 'left', 'right', 'right', 'right', 'left', 'left'], rows),
-    summary: summaryTable(checks),
+    table: recordsTable({ name: 'verification', title: 'Checks against published values', columns: COLUMNS, groups: [{ items: checks }], flag: (c) => !c.pass }),
+    summary: verificationSummaryTable(checks),
     appendix: appendixLetter('checks'),
     passed: checks.filter((c) => c.pass).length,
     failed: checks.filter((c) => !c.pass).length,

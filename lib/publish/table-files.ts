@@ -1,0 +1,45 @@
+/**
+ * The CSV files of a document's tables, written beside its page as real files
+ * (`projects/<id>/tables/<name>.csv`, lib/report/table-links.ts), so that its download links
+ * work from a site opened from disk as well as served. The bytes are those of `tableCsv`
+ * (lib/report/table.ts): the same inputs give the same files.
+ *
+ * The files are written when a page's view model is made (`withTableFiles`), which the site
+ * build, Eleventy run on its own and `cellbasis serve` all do through the model's pages.
+ */
+import { mkdirSync, renameSync, writeFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import type { DocumentView } from '../report/document.ts';
+import { tableCsv } from '../report/table.ts';
+import { tableFilePath, tablesOf } from '../report/table-links.ts';
+
+/** The CSV files a page links: site path and text, for every table linked to a file. */
+export function tableFiles(view: DocumentView): { path: string; text: string }[] {
+  return tablesOf(view)
+    .filter((t) => t.csv !== undefined && !t.csv.href.startsWith('data:'))
+    .map((t) => ({ path: tableFilePath(view.pagePath, t), text: tableCsv(t) }));
+}
+
+/** Writes the page's CSV files under the site folder `out`, each through a temporary name (a server never serves half a file); returns their paths. */
+export function writeTableFiles(out: string, view: DocumentView): string[] {
+  return tableFiles(view).map(({ path, text }) => {
+    const file = join(out, ...path.split('/'));
+    mkdirSync(dirname(file), { recursive: true });
+    const temp = `${file}.${process.pid}.tmp`;
+    writeFileSync(temp, text);
+    renameSync(temp, file);
+    return file;
+  });
+}
+
+/** The pages of a site model whose views, when made, write their CSV files under `out`. */
+export function withTableFiles<P extends { view(): DocumentView }>(pages: readonly P[], out: string): P[] {
+  return pages.map((page) => ({
+    ...page,
+    view: () => {
+      const view = page.view();
+      writeTableFiles(out, view);
+      return view;
+    },
+  }));
+}
