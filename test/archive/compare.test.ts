@@ -3,6 +3,7 @@
 // working draft.
 import { readFileSync, writeFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { parse } from 'csv-parse/sync';
 import { run } from '../helpers/run-cli.ts';
 import { announceChromiumSkip, describeWithChromium } from '../helpers/chromium.ts';
 import { ISSUE_TIMEOUT, basisPath, issue, issuedPath, PROJECT, removeWorkspace, workspace } from '../helpers/archive-workspace.ts';
@@ -160,6 +161,11 @@ describeWithChromium('cellbasis compare', () => {
     expect(json.from).toMatchObject({ revision: 'A', status: 'issued for review' });
     expect(json.to).toMatchObject({ revision: 'B', status: 'draft, not issued' });
     expect(json.summary[0]).toBe('operating temperature 800 C → 780 C');
+
+    // --csv: the headline results changed, in SI, read back by csv-parse.
+    const rows = parse((await run(['compare', PROJECT, 'A', 'draft', '--csv'], cwd)).out, { record_delimiter: '\r\n' }) as string[][];
+    expect(rows[0]).toEqual(['Result', 'Key', 'SI unit', 'Old in SI', 'New in SI', 'Change in SI', 'Relative change']);
+    expect(rows.find((r) => r[1] === 'meanNernst_V')!.slice(2, 5)).toEqual(['V', String(before), String(after)]);
 
     expect((await run(['compare', PROJECT, 'A', 'A'], cwd)).out).toMatch(/\n\nno changes\n$/);
     const missing = await run(['compare', PROJECT, 'A', 'B'], cwd);

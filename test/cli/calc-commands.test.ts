@@ -12,23 +12,25 @@ function project(technology: TechnologyId, mode: Mode, edits: Record<string, unk
 }
 
 describe('cellbasis calc', () => {
-  it('prints the headline table, and with --json the results object', async () => {
+  it('prints the document\'s headline table first, and with --json the results object', async () => {
     const root = project('solid-oxide', 'power');
     const table = await run(['calc', 'p1'], root);
     expect(table.code).toBe(0);
-    expect(table.out).toMatch(/electrical efficiency, net \(LHV \/ HHV\)/);
+    expect(table.out).toMatch(/\nHeadline numbers\n/);
+    expect(table.out).toMatch(/Net electrical efficiency, LHV \/ HHV\s+\d+\.\d+ % \/ \d+\.\d+ %/);
     const json = await run(['calc', 'p1', '--json'], root);
     const r = JSON.parse(json.out);
     expect(r.format).toBe('cellbasis-results/1');
     expect(r.headline.meanNernst_V).toBeGreaterThan(0.85);
     expect(r.headline.meanNernst_V).toBeLessThan(r.headline.inletNernst_V);
-    // The table shows the numbers of the results (5 significant figures): the inlet and outlet
-    // values, the area mean (the uniform-voltage cell's) beside the charge mean (an indicator),
-    // and the highest local current density beside the mean.
-    const sig5 = (x: number) => String(Number(x.toPrecision(5)));
-    expect(table.out).toContain(`Nernst voltage, inlet / outlet            ${sig5(r.headline.inletNernst_V)} V / ${sig5(r.headline.outletNernst_V)} V`);
-    expect(table.out).toContain(`Nernst voltage, area mean / charge mean   ${sig5(r.electrochemistry.areaMeanNernst_V)} V / ${sig5(r.headline.meanNernst_V)} V`);
-    expect(table.out).toMatch(/local current density, mean \/ highest\s+0\.4 \/ 0\.\d+ A\/cm2/);
+    // The table is the document's headline table, showing the numbers of the results to 4
+    // significant figures: the inlet and outlet values, the area mean (the uniform-voltage cell's)
+    // beside the charge mean (an indicator), and the highest local current density beside the mean.
+    const sig4 = (x: number) => x.toPrecision(4).replace('.', '\\.');
+    const row = (label: string, values: string) => new RegExp(`\\n${label.replace(/[/()]/g, '\\$&')}\\s+${values}\\n`);
+    expect(table.out).toMatch(row('Nernst voltage, inlet / outlet', `${sig4(r.headline.inletNernst_V)} V / ${sig4(r.headline.outletNernst_V)} V`));
+    expect(table.out).toMatch(row('Nernst voltage, area mean / charge mean', `${sig4(r.electrochemistry.areaMeanNernst_V)} V / ${sig4(r.headline.meanNernst_V)} V`));
+    expect(table.out).toMatch(row('Local current density, mean / highest (hot spot)', `0\\.4000 A/cm² / ${sig4(r.headline.maxLocalCurrentDensity_A_per_m2 / 1e4)} A/cm²`));
     // A power cell's area mean lies below its charge mean (the low-voltage outlet takes more area).
     expect(r.electrochemistry.areaMeanNernst_V).toBeLessThan(r.headline.meanNernst_V);
     // calc --json carries the findings, and the whole object passes the results schema.
@@ -48,9 +50,10 @@ describe('cellbasis calc', () => {
     expect(r.code).toBe(0);
     expect(r.out).toMatch(/the figures above are those of the sizing case, rated; the envelope over the 2 cases \(rated, half\):/);
     // Half the power on the same cells: the least fuel at half load, the highest stack voltage there too (less current, less resistive loss).
-    expect(r.out).toMatch(/fuel supplied \(least\)\s+[\d.]+ kg\/h, case half/);
-    expect(r.out).toMatch(/stack DC voltage \(highest\)\s+[\d.]+ V, case half/);
-    expect(r.out).toMatch(/DC current of the stack \(its cells in series\) \(highest\)\s+[\d.]+ A, case rated/);
+    // The envelope is the document's table: quantity, governed by its highest or lowest, the value, the case that sets it.
+    expect(r.out).toMatch(/\nfuel supplied \(least\)\s+lowest\s+[\d.]+ kg\/h\s+half\s/);
+    expect(r.out).toMatch(/\nstack DC voltage \(highest\)\s+highest\s+[\d.]+ V\s+half\s/);
+    expect(r.out).toMatch(/\nDC current of the stack \(its cells in series\)\s+highest\s+[\d.]+ A\s+rated\s/);
   });
 
   it('a cell voltage above the outlet Nernst voltage is located at operating-point.cell-voltage, exit 1', async () => {
@@ -78,7 +81,7 @@ describe('cellbasis calc', () => {
     const root = project('pem', 'electrolysis');
     const r = await run(['check', 'p1'], root);
     expect(r.code).toBe(0);
-    expect(r.out).toMatch(/specific energy\s+\d+(\.\d+)? kWh\/kg/);
+    expect(r.out).toMatch(/Specific electric energy \/ efficiency over electricity alone, LHV \/ HHV\s+\d+(\.\d+)? kWh\/kg/);
   });
 });
 

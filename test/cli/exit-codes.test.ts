@@ -62,7 +62,7 @@ describe('exit codes', () => {
       [['frobnicate'], /^cellbasis: unknown command "frobnicate"; commands: /],
       [['calc', 'good', '--colour'], /^cellbasis: calc: unknown option '--colour' \(see cellbasis calc --help\)\n$/],
       [['species', 'H2', '--temperature'], /^cellbasis: species: Option '--temperature <value>' argument missing \(see cellbasis species --help\)\n$/],
-      [['calc', 'good', 'bad'], /^cellbasis: calc: usage: cellbasis calc ID\|FILE \[--json\] \(see cellbasis calc --help\)\n$/],
+      [['calc', 'good', 'bad'], /^cellbasis: calc: usage: cellbasis calc ID\|FILE \[--section NAME\]\.\.\. \[--csv \| --json\] \(see cellbasis calc --help\)\n$/],
       [['species', 'H2', '--temperature', 'warm'], /^cellbasis: .*"warm"/],
       [['calc', 'nothing-here'], /^cellbasis: projects\/nothing-here\/basis\.yaml: no such file\n$/],
     ];

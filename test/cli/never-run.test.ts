@@ -44,7 +44,8 @@ describe('nothing in a basis runs', () => {
     const check = await run(['check', 'p'], root);
     expect(check.code).toBe(0);
     expect(check.out).toContain(`p: ${hostile}\n`);
-    expect(check.out).not.toMatch(/\b49\b/);
+    // {{ 7 * 7 }} not rendered: the title line does not begin with 49 (the headline table has numbers of its own, so 49 may appear elsewhere).
+    expect(check.out).not.toMatch(/: 49\b/);
     const calc = await run(['calc', 'p', '--json'], root);
     expect(calc.code).toBe(0);
     expect(JSON.parse(calc.out).project.title).toBe(hostile);

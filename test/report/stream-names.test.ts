@@ -5,7 +5,7 @@
 // water at its anode (oxygen electrode); an alkaline one keeps its water in the circulating lye.
 import { describe, expect, it } from 'vitest';
 import { basisSummaryRows } from '../../lib/basis/summary.ts';
-import { headlineRows } from '../../lib/cli/results-table.ts';
+import { headlineTable } from '../../lib/report/sections/summary.ts';
 import { documentText, scaffoldCase } from '../helpers/scaffold-cases.ts';
 
 describe('stream and quantity names of liquid-water cells', () => {
@@ -32,7 +32,8 @@ describe('stream and quantity names of liquid-water cells', () => {
     expect(summary).toContain('water feed (oxygen electrode)');
     expect(summary).toContain('water conversion per pass');
     expect(summary).not.toContain('steam conversion');
-    expect(headlineRows(c.results).map((r) => r[0])).toContain('water feed (oxygen electrode)');
+    // The command line prints the document's headline table (calc and check).
+    expect(headlineTable(c.results).rows.map((r) => r.cells[0])).toContain('Water feed (oxygen electrode)');
   });
 
   it('gas cells keep their names: a solid oxide electrolyser has a steam feed and a steam conversion; a fuel cell an air-electrode feed', () => {

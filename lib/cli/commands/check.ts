@@ -10,7 +10,6 @@ import { loadBasisFile } from '../../basis/load.ts';
 import { formatDiagnostic } from '../../basis/diagnostics.ts';
 import { basisSummaryRows } from '../../basis/summary.ts';
 import { BasisError } from '../../basis/diagnostics.ts';
-import { headlineRows } from '../results-table.ts';
 import { EXIT_OK, EXIT_USAGE, EXIT_VALIDATION, UserError } from '../../core/errors.ts';
 
 export const checkCommand: Command = {
@@ -55,7 +54,9 @@ export const checkCommand: Command = {
         const { everyFinding } = await import('../../plant/findings.ts');
         const results = calculate(result.basis);
         for (const finding of everyFinding(results)) io.err(`${formatFinding(result.basis, finding)}\n`);
-        calculated = headlineRows(results);
+        // The document's headline table, as the summary of the document shows it.
+        const { headlineTable } = await import('../../report/sections/summary.ts');
+        calculated = headlineTable(results).rows.map((row) => [row.cells[0]!, row.cells[1]!]);
       } catch (error) {
         if (!(error instanceof BasisError)) throw error;
         for (const d of error.errors) io.err(`${formatDiagnostic(d)}\n`);
