@@ -31,19 +31,66 @@ export interface ReactionProperties {
 }
 
 /**
- * Electrons transferred: 4 per net O2 consumed or produced (O2 + 4e⁻ → 2 O²⁻ at the oxygen
- * electrode), unless given.
+ * Electrons transferred per reaction as written: as given, else 4 per net O2 consumed or
+ * produced (O2 + 4e⁻ → 2 O²⁻ at the oxygen electrode), else null: a reaction without O2 (steam
+ * reforming, the water-gas shift) is taken as a chemical reaction that passes no charge through
+ * a cell.
  */
-export function electronsOf(equation: Equation, override?: number): number {
+export function inferredElectrons(equation: Equation, override?: number): number | null {
   if (override !== undefined) {
     if (!(override > 0) || !Number.isFinite(override)) throw new UserError(`--electrons must be a positive number, got ${override}`);
     return override;
   }
   const o2 = equation.terms.find((t) => t.species.label === 'O2');
-  if (!o2) {
+  return o2 ? 4 * Math.abs(o2.nu) : null;
+}
+
+/** The electrons of inferredElectrons, which a voltage needs: a reaction without them is refused. */
+export function electronsOf(equation: Equation, override?: number): number {
+  const n = inferredElectrons(equation, override);
+  if (n === null) {
     throw new UserError(`equation "${equation.text}" has no O2, so the electrons transferred cannot be inferred; give them with --electrons N`);
   }
-  return 4 * Math.abs(o2.nu);
+  return n;
+}
+
+/** The thermodynamics of any reaction, electrochemical or not. */
+export interface ChemicalProperties {
+  reaction: string;
+  temperature_K: number;
+  deltaH_J_per_mol: number;
+  deltaS_J_per_mol_K: number;
+  deltaG_J_per_mol: number;
+  /** ln K = −ΔG°/RT. */
+  lnEquilibriumConstant: number;
+  /** log10 K = ln K / ln 10. */
+  log10EquilibriumConstant: number;
+  /** K = exp(−ΔG°/RT), pressures in bar (so in bar^Σν); null where it lies beyond double precision (below 2.2e-308 or above 1.8e308). */
+  equilibriumConstant: number | null;
+}
+
+/**
+ * ΔH°, ΔS°, ΔG° = ΔH° − TΔS° and the equilibrium constant K = exp(−ΔG°/RT) of the reaction as
+ * written at T (standard state 1 bar: K is in bar^Σν of the gases). Source: the definition of the
+ * standard equilibrium constant, e.g. J. M. Smith, H. C. Van Ness and M. M. Abbott, Introduction
+ * to Chemical Engineering Thermodynamics, 7th ed. (McGraw-Hill, 2005), § 13.3, eq. 13.11.
+ */
+export function chemicalProperties(equation: Equation, temperatureK: number): ChemicalProperties {
+  const dH = reactionEnthalpy(equation.terms, temperatureK);
+  const dS = reactionEntropy(equation.terms, temperatureK);
+  const dG = dH - temperatureK * dS;
+  const lnK = lnEquilibriumConstant(equation.terms, temperatureK);
+  const k = Math.exp(lnK);
+  return {
+    reaction: equation.text,
+    temperature_K: temperatureK,
+    deltaH_J_per_mol: dH,
+    deltaS_J_per_mol_K: dS,
+    deltaG_J_per_mol: dG,
+    lnEquilibriumConstant: lnK,
+    log10EquilibriumConstant: lnK / Math.LN10,
+    equilibriumConstant: Number.isFinite(k) && k >= Number.MIN_VALUE * 2 ** 52 ? k : null,
+  };
 }
 
 /** Σ ν_i h_i(T), J/mol of reaction as written. */
@@ -58,9 +105,7 @@ export function reactionEntropy(terms: readonly Term[], temperatureK: number): n
 
 export function reactionProperties(equation: Equation, temperatureK: number, electrons?: number): ReactionProperties {
   const n = electronsOf(equation, electrons);
-  const dH = reactionEnthalpy(equation.terms, temperatureK);
-  const dS = reactionEntropy(equation.terms, temperatureK);
-  const dG = dH - temperatureK * dS;
+  const { deltaH_J_per_mol: dH, deltaS_J_per_mol_K: dS, deltaG_J_per_mol: dG } = chemicalProperties(equation, temperatureK);
   const direction: Direction = dG < 0 ? 'galvanic' : 'electrolytic';
   return {
     reaction: equation.text,
@@ -81,10 +126,14 @@ export function evaluateReaction(text: string, temperatureK: number, electrons?:
   return reactionProperties(parseEquation(text), temperatureK, electrons);
 }
 
+/** ΔG° = ΔH° − TΔS°, J/mol of reaction as written. */
+export function reactionGibbsEnergy(terms: readonly Term[], temperatureK: number): number {
+  return reactionEnthalpy(terms, temperatureK) - temperatureK * reactionEntropy(terms, temperatureK);
+}
+
 /** ln K = −ΔG°/RT of the reaction as written (pressures in bar). */
 export function lnEquilibriumConstant(terms: readonly Term[], temperatureK: number): number {
-  const dG = reactionEnthalpy(terms, temperatureK) - temperatureK * reactionEntropy(terms, temperatureK);
-  return -dG / (R * temperatureK);
+  return -reactionGibbsEnergy(terms, temperatureK) / (R * temperatureK);
 }
 
 /**
@@ -108,6 +157,6 @@ export function nernstPotential(
     }
     lnQ += t.nu * Math.log(p);
   }
-  const dG = reactionEnthalpy(equation.terms, temperatureK) - temperatureK * reactionEntropy(equation.terms, temperatureK);
+  const dG = reactionGibbsEnergy(equation.terms, temperatureK);
   return (-dG - R * temperatureK * lnQ) / (n * F);
 }

@@ -6,7 +6,7 @@
 import { gOverRT } from '../thermo/properties.ts';
 import { getSpecies } from '../thermo/species-data.ts';
 import { minimiseGibbs, type MinimiserResult } from './gibbs-minimiser.ts';
-import { elementAmounts, elementsOfFeed, gasGibbsOverRT, systemFor, type ChemicalSystem } from './species-set.ts';
+import { elementAmounts, elementsOfFeed, gasGibbsOverRT, systemFor, systemWithInerts, type ChemicalSystem } from './species-set.ts';
 import { UserError } from '../core/errors.ts';
 
 export interface EquilibriumRequest {
@@ -18,6 +18,8 @@ export interface EquilibriumRequest {
   allowGraphite?: boolean;
   /** Restrict the gas species considered to these labels (default: every species of the elements present). */
   species?: readonly string[];
+  /** Species of the feed that take no part in any reaction but dilute the gas (lib/equilibrium/species-set.ts systemWithInerts). */
+  inert?: readonly string[];
 }
 
 export interface Equilibrium {
@@ -53,7 +55,7 @@ export function equilibrate(request: EquilibriumRequest): Equilibrium {
   const { temperatureK, pressureBar, feed } = request;
   validateFeed(feed);
   if (!(pressureBar > 0)) throw new UserError(`equilibrium: pressure must be positive, got ${pressureBar} bar`);
-  const system = systemFor(elementsOfFeed(feed), request.species);
+  const system = request.inert?.length ? inertSystem(feed, request.inert, request.species) : systemFor(elementsOfFeed(feed), request.species);
   const gRT = gasGibbsOverRT(system, temperatureK);
   const gGraphite = system.graphite ? gOverRT(system.graphite, temperatureK) : 0;
   const b = elementAmounts(system, feed);
@@ -79,6 +81,19 @@ export function equilibrateElements(request: { temperatureK: number; pressureBar
   system.elements.forEach((e, i) => (b[i] = elements[e] ?? 0));
   const raw = minimiseGibbs(system, gasGibbsOverRT(system, temperatureK), Math.log(pressureBar), b, system.graphite ? gOverRT(system.graphite, temperatureK) : 0, { allowGraphite: false });
   return describe(system, temperatureK, pressureBar, raw);
+}
+
+/** The system of a feed with inert species: each must be in the feed, and something else must react. */
+function inertSystem(feed: Readonly<Record<string, number>>, inert: readonly string[], only?: readonly string[]): ChemicalSystem {
+  const labels = inert.map((name) => getSpecies(name).label);
+  const inFeed = new Map(Object.entries(feed).map(([name, amount]) => [getSpecies(name).label, amount]));
+  for (const label of labels) {
+    if (!((inFeed.get(label) ?? 0) > 0)) throw new UserError(`inert species ${label} is not in the feed; an inert species is one of the feed's that does not react`);
+  }
+  const reacting = Object.fromEntries([...inFeed].filter(([label]) => !labels.includes(label)));
+  const elements = elementsOfFeed(reacting);
+  if (elements.length === 0) throw new UserError(`with ${labels.join(', ')} inert, nothing in the feed reacts`);
+  return systemWithInerts(elements, labels, only);
 }
 
 /** Names the result of a minimisation by species label. */

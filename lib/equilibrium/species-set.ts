@@ -58,6 +58,43 @@ export function systemFor(elements: Iterable<string>, only?: readonly string[]):
   return system;
 }
 
+/** The element of its own that an inert species is given: "[N2]". */
+export function inertElement(label: string): string {
+  return `[${label}]`;
+}
+
+/**
+ * The system of a feed of which some species are inert: they take no part in any reaction but
+ * count in the gas total, so they dilute the others. Each inert species holds an element of its
+ * own, "[N2]", that no other species holds, and nothing else: the element balance then keeps its
+ * amount at the feed's, and the minimiser treats it as it treats argon. The reacting species are
+ * those of `systemFor` over `elements` (the elements of the feed's reacting part), the inert
+ * labels left out of them. Not cached: the set of inert species is the caller's choice.
+ */
+export function systemWithInerts(elements: Iterable<string>, inert: readonly string[], only?: readonly string[]): ChemicalSystem {
+  const labels = [...new Set(inert.map((name) => getSpecies(name).label))];
+  const reacting = systemFor(elements, only);
+  const gasReacting = reacting.gas.filter((s) => !labels.includes(s.label));
+  const inertSpecies = labels.map((l) => getSpecies(l));
+  const names = [...reacting.elements, ...labels.map(inertElement)];
+  const gas = [...gasReacting, ...inertSpecies];
+  const ne = names.length;
+  const a = new Float64Array(gas.length * ne);
+  gasReacting.forEach((s, j) => reacting.elements.forEach((e, i) => (a[j * ne + i] = s.formula[e] ?? 0)));
+  inertSpecies.forEach((s, k) => (a[(gasReacting.length + k) * ne + reacting.elements.length + k] = 1));
+  for (const element of reacting.elements) {
+    if (!gasReacting.some((s) => (s.formula[element] ?? 0) > 0)) throw new UserError(`with ${labels.join(', ')} inert, no reacting gas species contains the element ${element}`);
+  }
+  return {
+    elements: names,
+    gas,
+    a,
+    carbonIndex: names.indexOf('C'),
+    index: new Map(gas.map((s, j) => [s.label, j])),
+    ...(reacting.graphite ? { graphite: reacting.graphite } : {}),
+  };
+}
+
 /** The elements of a feed given as species label → amount. */
 export function elementsOfFeed(feed: Readonly<Record<string, number>>): string[] {
   const elements = new Set<string>();
@@ -73,6 +110,11 @@ export function elementAmounts(system: ChemicalSystem, feed: Readonly<Record<str
   for (const [name, amount] of Object.entries(feed)) {
     if (amount === 0) continue;
     const species = getSpecies(name);
+    const inert = system.elements.indexOf(inertElement(species.label));
+    if (inert >= 0) {
+      b[inert] = b[inert]! + amount;
+      continue;
+    }
     for (const [element, count] of Object.entries(species.formula)) {
       const i = system.elements.indexOf(element);
       if (i < 0) throw new Error(`element ${element} of ${species.label} is not in the system`);

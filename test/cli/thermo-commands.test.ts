@@ -11,7 +11,19 @@ describe('cellbasis reaction', () => {
     expect(r.code).toBe(0);
     const o = JSON.parse(r.out);
     expect(Object.keys(o).sort()).toEqual(
-      ['reaction', 'electrons', 'temperature_K', 'deltaH_J_per_mol', 'deltaS_J_per_mol_K', 'deltaG_J_per_mol', 'reversibleVoltage_V', 'thermoneutralVoltage_V', 'direction'].sort(),
+      [
+        'reaction',
+        'electrons',
+        'temperature_K',
+        'deltaH_J_per_mol',
+        'deltaS_J_per_mol_K',
+        'deltaG_J_per_mol',
+        'equilibriumConstant',
+        'log10EquilibriumConstant',
+        'reversibleVoltage_V',
+        'thermoneutralVoltage_V',
+        'direction',
+      ].sort(),
     );
     expect(o.reversibleVoltage_V).toBeCloseTo(0.998, 3);
     expect(o.direction).toBe('galvanic');
