@@ -5,6 +5,7 @@
  * defines `BasisError`, the UserError that carries them for callers that prefer to throw.
  */
 import { EXIT_VALIDATION, UserError } from '../core/errors.ts';
+import { visibleText } from '../core/visible-text.ts';
 import type { Diagnostic } from './types.ts';
 
 /** A key or list index on the way from the document root to a value. */
@@ -47,11 +48,15 @@ export function pathText(path: Path): string {
   return out;
 }
 
-/** `file:line:col: path: message`, with `warning: ` after the location for warnings. */
+/**
+ * `file:line:col: path: message`, with `warning: ` after the location for warnings; a character a
+ * reader cannot see (in a key of the path, a value the message repeats) is shown escaped, here as
+ * on the terminal (lib/core/visible-text.ts), since the site's index page shows these lines too.
+ */
 export function formatDiagnostic(d: Diagnostic): string {
   const where = `${d.file}:${d.line}:${d.column}: `;
   const severity = d.severity === 'warning' ? 'warning: ' : '';
-  return `${where}${severity}${d.path ? `${d.path}: ` : ''}${d.message}`;
+  return visibleText(`${where}${severity}${d.path ? `${d.path}: ` : ''}${d.message}`);
 }
 
 /** By line, then column, then path; stable for equal positions. */

@@ -6,6 +6,7 @@
  * counts UTF-16 code units, as the YAML parser's do.
  */
 import type { Diagnostic } from './types.ts';
+import { characterText, reorderingCharacters } from '../core/visible-text.ts';
 
 /**
  * Largest basis file read, bytes: a real basis is a few kilobytes, and the YAML parser takes
@@ -74,16 +75,25 @@ function encodingErrors(bytes: Uint8Array, file: string): Diagnostic[] {
  */
 const NOT_PRINTABLE = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F-\u0084\u0086-\u009F\uFFFE\uFFFF]/g;
 
-/** Every character YAML does not allow, with its line and column (at most MAX_ENCODING_DIAGNOSTICS). */
+/**
+ * Every character YAML does not allow, and every bidirectional control that reorders the display
+ * of the text around it (an editor, a terminal or a review tool would show the file in another
+ * order than the one it is read in), with its line and column (at most MAX_ENCODING_DIAGNOSTICS).
+ */
 function controlCharacterErrors(text: string, file: string): Diagnostic[] {
   const errors: Diagnostic[] = [];
-  for (const match of text.matchAll(NOT_PRINTABLE)) {
-    if (errors.length === MAX_ENCODING_DIAGNOSTICS) break;
-    const before = text.slice(0, match.index);
+  const found = [
+    ...[...text.matchAll(NOT_PRINTABLE)].map((m) => ({ index: m.index, message: `the control character U+${m[0].charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')} is not allowed in a YAML file; delete it` })),
+    ...reorderingCharacters(text).map(({ char, index }) => ({
+      index,
+      message: `the bidirectional control ${characterText(char)} changes the order in which the text around it is displayed, so the file would read differently from what it holds; delete it`,
+    })),
+  ].sort((a, b) => a.index - b.index);
+  for (const { index, message } of found.slice(0, MAX_ENCODING_DIAGNOSTICS)) {
+    const before = text.slice(0, index);
     const line = before.split('\n').length;
-    const column = match.index - before.lastIndexOf('\n');
-    const code = `U+${match[0].charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')}`;
-    errors.push({ severity: 'error', file, line, column, path: '', message: `the control character ${code} is not allowed in a YAML file; delete it` });
+    const column = index - before.lastIndexOf('\n');
+    errors.push({ severity: 'error', file, line, column, path: '', message });
   }
   return errors;
 }

@@ -9,6 +9,8 @@
 import { Composer, isAlias, isMap, isScalar, LineCounter, Parser, visit, YAMLParseError, type Document, type Node, type YAMLError } from 'yaml';
 import { flowDepthProblem, tokenProblems } from './yaml-limits.ts';
 import type { Diagnostic } from './types.ts';
+import { characterText, invisibleCharacters, reorderingCharacters } from '../core/visible-text.ts';
+import { quoted } from '../core/quote.ts';
 
 /** Aliases (*name) a basis may expand; a handful is all a basis needs, and it stops alias bombs. */
 export const MAX_ALIASES = 50;
@@ -27,8 +29,21 @@ function at(lines: LineCounter, file: string, offset: number, message: string, s
 }
 
 /**
- * Keys that are not plain text (a mapping, list or alias as a key, which the data cannot hold)
- * or are too long to be a name, and every key given a second time in its mapping, at the repeat, naming the line of the first: one
+ * Why a key is no name: empty, blank, or holding a character a reader cannot see (a zero-width
+ * space in a mixture's name makes it another name than the one the streams use, though both
+ * read alike); undefined for a plain key.
+ */
+function keyNameProblem(name: string): string | undefined {
+  if (name === '') return 'this key is empty; a key is a name, such as cells or CH4';
+  if (name.trim() === '') return `this key is only spaces (${quoted(name)}); a key is a name, such as cells or CH4`;
+  const hidden = invisibleCharacters(name);
+  if (hidden.length) return `the key ${quoted(name)} holds the invisible character ${characterText(hidden[0]!.char)}; delete it`;
+  return undefined;
+}
+
+/**
+ * Keys that are not plain text (a mapping, list or alias as a key, which the data cannot hold),
+ * are too long to be a name or are no name (keyNameProblem), and every key given a second time in its mapping, at the repeat, naming the line of the first: one
  * pass with a set per mapping (the parser's own check compares every pair of keys, which takes
  * minutes on a file of many keys). Keys are compared as the data will hold them, as text.
  */
@@ -50,9 +65,35 @@ function keyProblems(doc: Document.Parsed, lines: LineCounter, file: string): Di
           found.push(at(lines, file, start, `this key is ${name.length.toLocaleString('en-US')} characters long; the keys of a design basis are names of at most ${MAX_KEY_CHARACTERS} characters`));
           continue;
         }
+        const unnamed = keyNameProblem(name);
+        if (unnamed) {
+          found.push(at(lines, file, start, unnamed));
+          continue;
+        }
         const earlier = first.get(name);
         if (earlier === undefined) first.set(name, start);
         else found.push(at(lines, file, start, `duplicate key "${name}" (first given at line ${lines.linePos(earlier).line}); each key may appear once in a mapping`));
+      }
+    },
+  });
+  return found;
+}
+
+/**
+ * Text that an escape (`"\u202E"`) gives a bidirectional control which reorders the display of
+ * the text around it: the file reads plainly, but the document, the messages and any tool
+ * showing the value would show it in another order. (Such a character written as itself is
+ * refused before parsing, lib/basis/source-text.ts.)
+ */
+function reorderedTexts(doc: Document.Parsed, lines: LineCounter, file: string): Diagnostic[] {
+  const found: Diagnostic[] = [];
+  visit(doc, {
+    Scalar(_, node) {
+      const start = node.range?.[0];
+      if (typeof node.value !== 'string' || start === undefined) return;
+      const reordering = reorderingCharacters(node.value)[0];
+      if (reordering) {
+        found.push(at(lines, file, start, `this text holds the bidirectional control ${characterText(reordering.char)}, which changes the order in which the text around it is displayed; delete it`));
       }
     },
   });
@@ -173,7 +214,7 @@ export function parseBasisYaml(text: string, file: string): ParsedYaml {
   if ('problems' in composed) return { ok: false, errors: composed.problems, warnings: [] };
   const { doc } = composed;
   const warnings = doc.warnings.map((w) => ({ ...describe(doc, text, lines, file, w), severity: 'warning' as const }));
-  const errors = [...worthShowing(doc.errors).map((e) => describe(doc, text, lines, file, e)), ...keyProblems(doc, lines, file)];
+  const errors = [...worthShowing(doc.errors).map((e) => describe(doc, text, lines, file, e)), ...keyProblems(doc, lines, file), ...reorderedTexts(doc, lines, file)];
   if (errors.length) return { ok: false, errors, warnings };
   if (doc.contents === null || (isScalar(doc.contents) && doc.contents.value === null)) {
     return { ok: false, errors: [at(lines, file, 0, 'the file holds only comments; start from `cellbasis new`')], warnings };

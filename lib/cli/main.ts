@@ -20,6 +20,7 @@ import { compareCommand } from './commands/compare.ts';
 import { keygenCommand } from './commands/keygen.ts';
 import { issueCommand } from './commands/issue.ts';
 import { toolVersion } from '../core/version.ts';
+import { visibleText } from '../core/visible-text.ts';
 
 export const COMMANDS: Command[] = [reactionCommand, speciesCommand, equilibriumCommand, steamLimitCommand, newCommand, checkCommand, schemaCommand, calcCommand, hazardsCommand, issueCommand, auditCommand, compareCommand, keygenCommand, buildCommand, serveCommand];
 
@@ -65,8 +66,23 @@ export const processIo = (): Io => {
   };
 };
 
+/**
+ * Standard error as the user reads it: every character a reader cannot see or that reorders the
+ * display (lib/core/visible-text.ts) written as an escape, in every message of every command, so
+ * that a message repeating a name, an id or an argument shows what it holds. Line ends stay, and
+ * so does the carriage return with which a progress bar starts to redraw its line.
+ */
+function visibleErrors(io: Io): Io {
+  return { ...io, err: (text) => io.err(text.startsWith('\r') ? `\r${visibleLines(text.slice(1))}` : visibleLines(text)) };
+}
+
+function visibleLines(text: string): string {
+  return text.split('\n').map(visibleText).join('\n');
+}
+
 /** Runs one command; every error becomes a message on stderr and an exit code, never a stack trace (unless CELLBASIS_DEBUG is set). */
-export async function main(argv: string[], io: Io = processIo()): Promise<number> {
+export async function main(argv: string[], given: Io = processIo()): Promise<number> {
+  const io = visibleErrors(given);
   try {
     return await dispatch(argv, io);
   } catch (error) {
