@@ -38,7 +38,7 @@ export function interpret(reader: Reader, options: InterpretOptions = {}): Inter
   const assumptions = readAssumptions(reader);
   const sensitivity = readSensitivity(reader);
   if (!kind) {
-    checkSources(reader, references, assumptions);
+    checkSources(reader);
     return undefined;
   }
   const { technology, mode } = kind;
@@ -58,7 +58,7 @@ export function interpret(reader: Reader, options: InterpretOptions = {}): Inter
     feed: streams?.airElectrode != null,
   }, conversionName(technology, mode));
   const plant = readPlant(reader, technology, mode, conditionsRead);
-  checkSources(reader, references, assumptions);
+  checkSources(reader);
   const { temperature, sweep, fuelPressureBar, airPressureBar } = conditionsRead;
   if (!document || !cell || !streams || !operatingPoint || !plant || !temperature || fuelPressureBar === undefined || airPressureBar === undefined) return undefined;
   const range = sweep ? { fromK: sweep.from.si, toK: sweep.to.si } : defaultSweep(temperature.si, streams.feeds, technology);
