@@ -59,13 +59,31 @@ export function helpText(command: Command): string {
   return lines.join('\n') + '\n';
 }
 
+/**
+ * What parseArgs lets through but no command means: an option given twice (parseArgs keeps the
+ * last, so `--temperature 300K --temperature 400K` would quietly drop one), and an empty or blank
+ * argument or option value (`cellbasis keygen ""` would name a file ".key"). Undefined when none.
+ */
+function argumentProblem(command: Command, tokens: NonNullable<ReturnType<typeof parseArgs>['tokens']>): string | undefined {
+  const multiple = new Set(command.options.filter((o) => o.multiple).map((o) => o.name));
+  const seen = new Set<string>();
+  for (const token of tokens) {
+    if (token.kind === 'positional' && token.value.trim() === '') return `an argument is ${token.value === '' ? 'empty' : 'only spaces'}; give a project id, a file or a name`;
+    if (token.kind !== 'option') continue;
+    if (seen.has(token.name) && !multiple.has(token.name)) return `--${token.name} is given twice; give it once`;
+    seen.add(token.name);
+    if (typeof token.value === 'string' && token.value.trim() === '') return `--${token.name} is given ${token.value === '' ? 'an empty value' : 'only spaces'}; give it a value`;
+  }
+  return undefined;
+}
+
 /** Parses argv for a command; usage mistakes become UserError (exit 2) naming the command. */
 export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs | 'help' {
   const options: Record<string, { type: 'string' | 'boolean'; multiple?: boolean }> = { help: { type: 'boolean' } };
   for (const o of command.options) options[o.name] = { type: o.type, ...(o.multiple ? { multiple: true } : {}) };
   let parsed;
   try {
-    parsed = parseArgs({ args: argv, options, allowPositionals: true, strict: true });
+    parsed = parseArgs({ args: argv, options, allowPositionals: true, strict: true, tokens: true });
   } catch (error) {
     const raw = (error as Error).message;
     const ambiguous = /^Option '(--[\w-]+)[^']*' argument is ambiguous/.exec(raw);
@@ -75,6 +93,8 @@ export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs |
     throw new UserError(`${command.name}: ${message} (see cellbasis ${command.name} --help)`);
   }
   if (parsed.values.help) return 'help';
+  const problem = argumentProblem(command, parsed.tokens);
+  if (problem) throw new UserError(`${command.name}: ${problem} (see cellbasis ${command.name} --help)`);
   const [min, max] = command.positionals;
   if (parsed.positionals.length < min || parsed.positionals.length > max) {
     throw new UserError(`${command.name}: usage: cellbasis ${command.usage} (see cellbasis ${command.name} --help)`);

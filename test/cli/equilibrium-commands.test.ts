@@ -22,7 +22,7 @@ describe('cellbasis equilibrium', () => {
       ['CH4=-1', /negative/],
       ['CH4=0', /total amount must be positive/],
       ['CH4', /write SPECIES=AMOUNT/],
-      ['', /--feed is required/],
+      ['', /--feed is given an empty value/],
       ['H2O(L)=1', /condensed phase/],
     ];
     for (const [feed, pattern] of cases) {

@@ -56,7 +56,7 @@ const HOSTILE_IDS: [id: string, refusal: RegExp][] = [
   ['%2e%2e%2fetc', /must be 1 to 64 characters/],
   ['..\\..\\etc', /may not contain "\.\."/],
   ['.', /must be 1 to 64 characters/],
-  ['', /must be 1 to 64 characters/],
+  ['', /an argument is empty/],
   ['good\u0000', /must be 1 to 64 characters/],
   ['Good', /must be 1 to 64 characters/],
   ['x'.repeat(65), /must be 1 to 64 characters/],
