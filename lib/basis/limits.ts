@@ -1,15 +1,118 @@
 /**
  * The input limits of data/limits.yaml: for each input, the lowest and highest value a basis may
- * give, in SI, with the limit as written there for messages. Inputs without limits there have
- * only the checks of their read-*.ts module.
+ * give, in SI, with the limit as written there for messages; and FIELDS, which names for every
+ * number of the basis schema the limit that bounds it, or the rule of physics that does (a test
+ * walks the schema and fails for a number that has neither).
  */
 import { z } from 'zod';
 import { readDataFile } from '../core/data-file.ts';
 import { parseQuantity, type Dimension } from '../core/units.ts';
+import type { Findings } from './diagnostics.ts';
+import type { Read } from './reader.ts';
 
-const LIMITED_INPUTS = ['pressure', 'current-density', 'active-area', 'cell-voltage', 'target-power', 'target-hydrogen', 'utilization', 'allowed-air-temperature-rise', 'activation-energy', 'degradation-rate', 'operating-time'] as const;
+const DIMENSIONS = {
+  pressure: 'pressure',
+  'current-density': 'current-density',
+  'active-area': 'area',
+  'cell-voltage': 'voltage',
+  'area-specific-resistance': 'area-specific-resistance',
+  'target-power': 'power',
+  'target-hydrogen': 'mass-flow',
+  cells: 'fraction',
+  utilization: 'fraction',
+  'air-ratio': 'fraction',
+  'sweep-ratio': 'fraction',
+  'steam-added': 'fraction',
+  'parasitic-load': 'fraction',
+  'ionic-transference-number': 'fraction',
+  'crossover-allowance': 'voltage',
+  'allowed-air-temperature-rise': 'temperature-difference',
+  'ambient-temperature': 'temperature',
+  'sensitivity-temperature': 'temperature-difference',
+  'sensitivity-pressure': 'fraction',
+  'sensitivity-utilization': 'fraction',
+  'sensitivity-steam-to-carbon': 'fraction',
+  'sensitivity-current-density': 'fraction',
+  'activation-energy': 'molar-energy',
+  'resistance-reference-temperature': 'temperature',
+  'degradation-rate': 'degradation-rate',
+  'operating-time': 'time',
+} as const satisfies Record<string, Dimension>;
 
-export type LimitedInput = (typeof LIMITED_INPUTS)[number];
+export type LimitedInput = keyof typeof DIMENSIONS;
+
+const LIMITED_INPUTS = Object.keys(DIMENSIONS) as [LimitedInput, ...LimitedInput[]];
+
+/**
+ * The rules of physics that bound a number without a limit of data/limits.yaml: every
+ * temperature lies within the data of the species it concerns (lib/basis/temperature-ranges.ts,
+ * the NASA Glenn ranges, 200 K to 6000 K and more for gases, 273.15 K to 600 K for liquid
+ * water), a mole fraction and a relative humidity within [0, 1], the air utilization is the
+ * inverse of the air ratio.
+ */
+export type PhysicsRule = 'species-data' | 'liquid-water-data' | 'unit-interval' | 'inverse-of-air-ratio';
+
+/** The numbers of the basis outside its cases and what bounds each; FIELDS adds the cases'. */
+const BASE_FIELDS: Readonly<Record<string, LimitedInput | PhysicsRule>> = {
+  'cell.ionic-transference-number': 'ionic-transference-number',
+  'cell.crossover-allowance': 'crossover-allowance',
+  'conditions.operating-temperature': 'species-data',
+  'conditions.temperature-sweep.from': 'species-data',
+  'conditions.temperature-sweep.to': 'species-data',
+  'conditions.fuel-inlet-temperature': 'species-data',
+  'conditions.air-inlet-temperature': 'species-data',
+  'conditions.allowed-air-temperature-rise': 'allowed-air-temperature-rise',
+  'conditions.fuel-electrode-pressure': 'pressure',
+  'conditions.air-electrode-pressure': 'pressure',
+  'conditions.ambient-temperature': 'ambient-temperature',
+  'mixtures.*.composition.*': 'unit-interval',
+  'streams.fuel-electrode.composition.*': 'unit-interval',
+  'streams.fuel-electrode.steam-to-carbon': 'steam-added',
+  'streams.fuel-electrode.steam-per-mole-fuel': 'steam-added',
+  'streams.fuel-electrode.pre-reforming.temperature': 'species-data',
+  'streams.air-electrode.composition.*': 'unit-interval',
+  'streams.air-electrode.humidity.dew-point': 'liquid-water-data',
+  'streams.air-electrode.humidity.relative-humidity': 'unit-interval',
+  'streams.air-electrode.humidity.at': 'liquid-water-data',
+  'operating-point.fuel-utilization': 'utilization',
+  'operating-point.steam-conversion': 'utilization',
+  'operating-point.air-utilization': 'inverse-of-air-ratio',
+  'operating-point.air-ratio': 'air-ratio',
+  'operating-point.sweep-ratio': 'sweep-ratio',
+  'operating-point.current-density': 'current-density',
+  'operating-point.cell-voltage': 'cell-voltage',
+  'operating-point.area-specific-resistance': 'area-specific-resistance',
+  'operating-point.resistance-temperature-law.activation-energy': 'activation-energy',
+  'operating-point.resistance-temperature-law.reference-temperature': 'resistance-reference-temperature',
+  'operating-point.degradation.rate': 'degradation-rate',
+  'operating-point.degradation.operating-time': 'operating-time',
+  'operating-point.active-area': 'active-area',
+  'operating-point.cells': 'cells',
+  'operating-point.target-power': 'target-power',
+  'operating-point.target-hydrogen': 'target-hydrogen',
+  'operating-point.parasitic-load': 'parasitic-load',
+  'sensitivity.temperature': 'sensitivity-temperature',
+  'sensitivity.pressure': 'sensitivity-pressure',
+  'sensitivity.utilization': 'sensitivity-utilization',
+  'sensitivity.steam-to-carbon': 'sensitivity-steam-to-carbon',
+  'sensitivity.current-density': 'sensitivity-current-density',
+};
+
+/**
+ * Every number of the basis schema (`*` for a name of the user's: a mixture, a species, a case)
+ * and what bounds it. A case's overrides of conditions, streams and operating-point are read as
+ * the base values they replace (lib/basis/read-cases.ts), so each bears the limit of that value.
+ * Keep in step with lib/basis/schema.ts: test/basis/limits.test.ts walks the schema, and puts each
+ * value beyond each limit into a basis to see it refused at its field.
+ */
+export const FIELDS: Readonly<Record<string, LimitedInput | PhysicsRule>> = {
+  ...BASE_FIELDS,
+  ...Object.fromEntries(
+    Object.entries(BASE_FIELDS)
+      .filter(([field]) => /^(conditions|streams|operating-point)\./.test(field))
+      .map(([field, bound]) => [`cases.*.overrides.${field}`, bound]),
+  ),
+};
 
 export interface Limit {
   fromSI?: number;
@@ -18,20 +121,6 @@ export interface Limit {
   from?: string;
   to?: string;
 }
-
-const DIMENSIONS: Record<LimitedInput, Dimension> = {
-  pressure: 'pressure',
-  'current-density': 'current-density',
-  'active-area': 'area',
-  'cell-voltage': 'voltage',
-  'target-power': 'power',
-  'target-hydrogen': 'mass-flow',
-  utilization: 'fraction',
-  'allowed-air-temperature-rise': 'temperature-difference',
-  'activation-energy': 'molar-energy',
-  'degradation-rate': 'degradation-rate',
-  'operating-time': 'time',
-};
 
 let cache: Map<LimitedInput, Limit> | undefined;
 
@@ -57,14 +146,41 @@ export function limit(input: LimitedInput): Limit {
   return found;
 }
 
+const BEYOND = 'beyond any fuel-cell or electrolyser plant';
+
+/** Why a value beyond a limit is refused, below and above, where it is not that no plant is so. */
+const REASONS: Partial<Record<LimitedInput, [below: string, above: string]>> = {
+  'ambient-temperature': ['colder than any site on Earth', 'hotter than any site on Earth'],
+  ...Object.fromEntries(
+    (['sensitivity-temperature', 'sensitivity-pressure', 'sensitivity-utilization', 'sensitivity-steam-to-carbon', 'sensitivity-current-density'] as const).map((input) => [
+      input,
+      ['too small a step: the change would be lost in the rounding of the results', 'too large a step for a sensitivity, which is the change for a small step'],
+    ]),
+  ),
+};
+
 /**
  * Undefined when the SI value lies within the input's limits, else the message:
  * `the cell voltage 1e30 V is above 10 V, beyond any fuel-cell or electrolyser plant`.
  */
 export function limitProblem(input: LimitedInput, label: string, read: { si: number; text: string }): string | undefined {
   const { fromSI, toSI, from, to } = limit(input);
-  const beyond = 'beyond any fuel-cell or electrolyser plant';
-  if (fromSI !== undefined && read.si < fromSI) return `the ${label} ${read.text} is below ${from}, ${beyond}`;
-  if (toSI !== undefined && read.si > toSI) return `the ${label} ${read.text} is above ${to}, ${beyond}`;
+  const [below, above] = REASONS[input] ?? [BEYOND, BEYOND];
+  if (fromSI !== undefined && read.si < fromSI) return `the ${label} ${read.text} is below ${from}, ${below}`;
+  if (toSI !== undefined && read.si > toSI) return `the ${label} ${read.text} is above ${to}, ${above}`;
   return undefined;
+}
+
+/** The air utilization's limit, the inverse of the air ratio's: `the air utilization 1e-6 is below 0.001 (an air ratio of 1000), ...`. */
+export function airUtilizationProblem(read: { si: number; text: string }): string | undefined {
+  const { toSI, to } = limit('air-ratio');
+  if (toSI === undefined || read.si * toSI >= 1) return undefined;
+  return `the air utilization ${read.text} is below ${String(1 / toSI)} (an air ratio of ${to}), ${BEYOND}`;
+}
+
+/** Reports a value beyond the input's limits at the value; whether it lies within them. */
+export function withinLimit(findings: Findings, input: LimitedInput, label: string, read: Read): boolean {
+  const beyond = limitProblem(input, label, read);
+  if (beyond) findings.error(read.at, beyond);
+  return beyond === undefined;
 }

@@ -13,6 +13,7 @@ import { kohCorrelationRange } from '../thermo/koh-solution.ts';
 import { kelvinText } from './read-conditions.ts';
 import type { Read, Reader } from './reader.ts';
 import type { CellInfo } from './types.ts';
+import { withinLimit } from './limits.ts';
 
 /** How the fuel-electrode text names nickel: "Ni-YSZ", "Ni cermet", "nickel". */
 const NICKEL_TEXT = /\bni\b|nickel|Ni-/i;
@@ -74,11 +75,12 @@ export function readCell(reader: Reader, tech: Technology, mode: Mode, temperatu
   const transference = reader.scalar(['cell', 'ionic-transference-number'], 'fraction', 'ionic transference number');
   let ionicTransferenceNumber = 1;
   if (transference) {
-    if (transference.si > 0 && transference.si <= 1) ionicTransferenceNumber = transference.si;
-    else reader.findings.error(transference.at, `the ionic transference number lies in (0, 1], got ${transference.text}`);
+    if (!(transference.si > 0 && transference.si <= 1)) reader.findings.error(transference.at, `the ionic transference number lies in (0, 1], got ${transference.text}`);
+    else if (withinLimit(reader.findings, 'ionic-transference-number', 'ionic transference number', transference)) ionicTransferenceNumber = transference.si;
   }
   const crossover = reader.scalar(['cell', 'crossover-allowance'], 'voltage', 'crossover allowance');
   if (crossover && crossover.si < 0) reader.findings.error(crossover.at, `the crossover allowance is a voltage lost, 0 or more, got ${crossover.text}`);
+  else if (crossover) withinLimit(reader.findings, 'crossover-allowance', 'crossover allowance', crossover);
   const kohMassFraction = readKohMassFraction(reader, tech, temperature);
   return {
     technology: tech.id,

@@ -11,7 +11,7 @@ import type { Mode, Technology } from '../electrochem/technologies.ts';
 import { streamRules } from './stream-rules.ts';
 import type { Path } from './diagnostics.ts';
 import type { Read, Reader } from './reader.ts';
-import { limitProblem } from './limits.ts';
+import { limitProblem, withinLimit } from './limits.ts';
 import { kelvinWithCelsius } from '../core/temperature-text.ts';
 import { saturationRange, waterSaturationTemperatureK } from '../thermo/water-saturation.ts';
 
@@ -106,7 +106,8 @@ export function readConditions(reader: Reader, tech: Technology | undefined, mod
   const riseProblem = rawRise && (rawRise.si <= 0 ? `the allowed temperature rise must be above zero, got ${rawRise.text}` : limitProblem('allowed-air-temperature-rise', 'allowed air temperature rise', rawRise));
   if (rawRise && riseProblem) reader.findings.error(rawRise.at, riseProblem);
   const rise = riseProblem ? undefined : rawRise;
-  const ambient = readTemperature(reader, C('ambient-temperature'), 'ambient temperature');
+  const writtenAmbient = readTemperature(reader, C('ambient-temperature'), 'ambient temperature');
+  const ambient = writtenAmbient && withinLimit(reader.findings, 'ambient-temperature', 'ambient temperature', writtenAmbient) ? writtenAmbient : undefined;
   // Each inlet named for what its feed is in this technology: "water inlet temperature" for a PEM electrolyser's water.
   const rules = tech && mode ? streamRules(tech, mode) : undefined;
   const fuelInlet = readTemperature(reader, C('fuel-inlet-temperature'), `${rules?.['fuel-electrode'].short ?? 'fuel'} inlet temperature`);

@@ -11,6 +11,7 @@ import type { Path } from './diagnostics.ts';
 import type { Read, Reader } from './reader.ts';
 import type { ElectrodeRule } from './stream-rules.ts';
 import type { FuelStream, PreReforming } from './types.ts';
+import { withinLimit } from './limits.ts';
 
 export interface FuelStreamRead {
   stream: FuelStream;
@@ -28,11 +29,12 @@ function steamPerMole(reader: Reader, path: Path, dry: Composition): { added: nu
     reader.findings.error([...path, 'steam-per-mole-fuel'], 'give steam-to-carbon or steam-per-mole-fuel, not both', 'key');
     return undefined;
   }
-  for (const read of [sc, spf]) {
+  for (const [read, label] of [[sc, 'steam-to-carbon ratio'], [spf, 'steam per mole of dry fuel']] as const) {
     if (read && read.si < 0) {
       reader.findings.error(read.at, `steam added cannot be negative, got ${read.text}`);
       return undefined;
     }
+    if (read && !withinLimit(reader.findings, 'steam-added', label, read)) return undefined;
   }
   if (sc) {
     const carbon = combustibleCarbon(dry.fractions);

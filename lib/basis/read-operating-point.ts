@@ -12,7 +12,7 @@ import type { Read, Reader } from './reader.ts';
 import type { AirSupply, Degradation, DegradedQuantity, OperatingPoint, ResistanceLaw, StackSize, VoltageModel } from './types.ts';
 import { readTemperature } from './read-conditions.ts';
 import type { Dimension } from '../core/units.ts';
-import { limitProblem, type LimitedInput } from './limits.ts';
+import { airUtilizationProblem, limitProblem, withinLimit, type LimitedInput } from './limits.ts';
 
 const OP = (key: string): Path => ['operating-point', key];
 
@@ -21,14 +21,17 @@ type Check = (si: number) => boolean;
 const positive: Check = (x) => x > 0;
 const openUnit: Check = (x) => x > 0 && x < 1;
 
-/** Reads a scalar and checks its range (`rule` words it for the message), then its limits of data/limits.yaml, if it has any. */
-function bounded(reader: Reader, key: string, dimension: Dimension, label: string, check: Check, rule: string, limited?: LimitedInput): Read | undefined {
+/**
+ * Reads a scalar and checks its range (`rule` words it for the message), then its limits of
+ * data/limits.yaml (or a limit derived from them, given as a function).
+ */
+function bounded(reader: Reader, key: string, dimension: Dimension, label: string, check: Check, rule: string, limited: LimitedInput | ((read: Read) => string | undefined)): Read | undefined {
   const read = reader.scalar(OP(key), dimension, label);
   if (read && !check(read.si)) {
     reader.findings.error(read.at, `the ${label} ${rule}, got ${read.text}`);
     return undefined;
   }
-  const beyond = read && limited ? limitProblem(limited, label, read) : undefined;
+  const beyond = read && (typeof limited === 'function' ? limited(read) : limitProblem(limited, label, read));
   if (beyond) {
     reader.findings.error(read!.at, beyond);
     return undefined;
@@ -66,11 +69,11 @@ function airSupply(reader: Reader, mode: Mode, sweep: { allowed: boolean; feed: 
       'sweep-ratio': 'sweep-ratio belongs to electrolysis; in power mode give air-utilization or air-ratio',
     });
     if (given === 'air-utilization') {
-      const read = bounded(reader, given, 'fraction', 'air utilization', openUnit, 'lies strictly between 0 and 1');
+      const read = bounded(reader, given, 'fraction', 'air utilization', openUnit, 'lies strictly between 0 and 1', airUtilizationProblem);
       return read && { kind: 'utilization', value: read.si };
     }
     if (given === 'air-ratio') {
-      const read = bounded(reader, given, 'fraction', 'air ratio', (x) => x > 1, 'must be above 1 (more oxygen fed than consumed)');
+      const read = bounded(reader, given, 'fraction', 'air ratio', (x) => x > 1, 'must be above 1 (more oxygen fed than consumed)', 'air-ratio');
       return read && { kind: 'ratio', value: read.si };
     }
     return undefined;
@@ -88,7 +91,7 @@ function airSupply(reader: Reader, mode: Mode, sweep: { allowed: boolean; feed: 
     return undefined;
   }
   if (!given) return { kind: 'none' };
-  const read = bounded(reader, 'sweep-ratio', 'fraction', 'sweep ratio', positive, 'must be above zero');
+  const read = bounded(reader, 'sweep-ratio', 'fraction', 'sweep ratio', positive, 'must be above zero', 'sweep-ratio');
   return read && { kind: 'sweep-ratio', value: read.si };
 }
 
@@ -99,13 +102,13 @@ function voltage(reader: Reader): VoltageModel | undefined {
     return read && { kind: 'given', cellVoltageV: read.si };
   }
   if (given === 'area-specific-resistance') {
-    const read = bounded(reader, given, 'area-specific-resistance', 'area-specific resistance', positive, 'must be above zero');
+    const read = bounded(reader, given, 'area-specific-resistance', 'area-specific resistance', positive, 'must be above zero', 'area-specific-resistance');
     return read && { kind: 'area-specific-resistance', ohmM2: read.si };
   }
   return undefined;
 }
 
-/** `resistance-temperature-law`: activation energy within its limits, a reference temperature only where the basis gives the resistance, and a source. */
+/** `resistance-temperature-law`: activation energy and reference temperature within their limits, a reference temperature only where the basis gives the resistance, and a source. */
 function resistanceLaw(reader: Reader, voltage: VoltageModel | undefined): ResistanceLaw | null | undefined {
   const at = OP('resistance-temperature-law');
   if (!reader.has(at)) return null;
@@ -129,7 +132,7 @@ function resistanceLaw(reader: Reader, voltage: VoltageModel | undefined): Resis
       return undefined;
     }
     const read = readTemperature(reader, [...at, 'reference-temperature'], 'reference temperature of the resistance');
-    if (!read) return undefined;
+    if (!read || !withinLimit(reader.findings, 'resistance-reference-temperature', 'reference temperature of the resistance', read)) return undefined;
     reference = read.si;
   }
   if (!energy || source === undefined) return undefined;
@@ -172,7 +175,7 @@ function size(reader: Reader, mode: Mode): { size: StackSize; statedCells?: numb
     reader.findings.error(OP('cells'), `give cells, target-power${mode === 'electrolysis' ? ' or target-hydrogen' : ''} (or cells and a target)`, 'missing');
     return undefined;
   }
-  const cells = bounded(reader, 'cells', 'fraction', 'number of cells', (x) => Number.isInteger(x) && x > 0, 'must be a positive whole number');
+  const cells = bounded(reader, 'cells', 'fraction', 'number of cells', (x) => Number.isInteger(x) && x > 0, 'must be a positive whole number', 'cells');
   if (hasCells && !cells) return undefined;
   if (!target) return cells && { size: { kind: 'cells', cells: cells.si } };
   const power = target === 'target-power';
@@ -185,7 +188,7 @@ function size(reader: Reader, mode: Mode): { size: StackSize; statedCells?: numb
 /** The balance-of-plant share of the stack DC power, in [0, 1) (default 0). */
 function parasitic(reader: Reader): number | undefined {
   if (!reader.has(OP('parasitic-load'))) return 0;
-  return bounded(reader, 'parasitic-load', 'fraction', 'parasitic load', (x) => x >= 0 && x < 1, 'lies in [0, 1)')?.si;
+  return bounded(reader, 'parasitic-load', 'fraction', 'parasitic load', (x) => x >= 0 && x < 1, 'lies in [0, 1)', 'parasitic-load')?.si;
 }
 
 /** The inverter or rectifier efficiency, in (0, 1] (default 1); in power mode it must exceed the parasitic share, or nothing would be left. */
