@@ -5,7 +5,7 @@
  * lead outside projects/ (no "..", no absolute path, no symbolic link whose target lies
  * elsewhere or nowhere).
  */
-import { existsSync, lstatSync, readdirSync, readlinkSync, realpathSync } from 'node:fs';
+import { existsSync, lstatSync, readdirSync, readlinkSync, realpathSync, statSync } from 'node:fs';
 import { isAbsolute, join, relative, resolve, sep } from 'node:path';
 import { quoted } from '../core/quote.ts';
 import { UserError, EXIT_USAGE } from '../core/errors.ts';
@@ -101,12 +101,89 @@ export function resolveProjectArg(arg: string, cwd: string): ProjectRef {
   return { path: projectBasisPath(arg, cwd), displayPath: `projects/${arg}/${BASIS_FILE}`, id: arg };
 }
 
-/** Ids of every projects/<id>/basis.yaml under the folder, sorted. */
-export function listProjects(cwd: string): string[] {
+/** Something under projects/ that is not a project, with why: an error for a folder, a warning for a file. */
+export interface ProjectsProblem {
+  severity: 'error' | 'warning';
+  /** As messages show it: projects/<name>. */
+  path: string;
+  message: string;
+}
+
+/** A project id close to a folder name that is none (lower case, other characters as "-"), when that is one. */
+function idLike(name: string): string | undefined {
+  const id = name.toLowerCase().replace(/[^a-z0-9._-]+/g, '-').replace(/^[^a-z0-9]+/, '').slice(0, 64);
+  return id && !projectIdProblem(id) ? id : undefined;
+}
+
+/** Why a folder under projects/ with a valid name is no project, or undefined: what it holds instead of basis.yaml. */
+function missingBasis(folder: string, name: string): string | undefined {
+  const basis = lstatSync(join(folder, BASIS_FILE), { throwIfNoEntry: false });
+  if (basis) return undefined;
+  let entries: string[];
+  try {
+    entries = readdirSync(folder);
+  } catch {
+    return 'cannot be read (check its permissions)';
+  }
+  if (entries.includes('basis.yml')) return `holds basis.yml, but a project's basis is ${BASIS_FILE}: rename the file`;
+  const yaml = entries.filter((e) => /\.ya?ml$/i.test(e));
+  if (yaml.length) return `holds no ${BASIS_FILE} (it holds ${yaml.slice(0, 3).join(', ')}${yaml.length > 3 ? ', ...' : ''}); a project's basis is projects/${name}/${BASIS_FILE}`;
+  return `holds no ${BASIS_FILE}; write one with cellbasis new ${name} --technology TECH, or move the folder out of projects/`;
+}
+
+/**
+ * Every entry of projects/: the ids of the projects (a folder of a valid id holding basis.yaml,
+ * inside projects/ wherever links lead), sorted, and everything else, so that no command skips it
+ * in silence: a folder whose name is no id, that holds no basis.yaml (a basis.yml, say), or that
+ * leads outside projects/ is an error; a file is a warning. Names starting with "." (.git,
+ * .DS_Store: the files of other tools) are passed over.
+ */
+export function scanProjects(cwd: string): { ids: string[]; problems: ProjectsProblem[] } {
   const projects = join(cwd, 'projects');
-  if (!existsSync(projects)) return [];
-  return readdirSync(projects, { withFileTypes: true })
-    .filter((entry) => !projectIdProblem(entry.name) && existsSync(join(projects, entry.name, BASIS_FILE)))
-    .map((entry) => entry.name)
-    .sort();
+  if (!existsSync(projects)) return { ids: [], problems: [] };
+  const ids: string[] = [];
+  const problems: ProjectsProblem[] = [];
+  const error = (name: string, message: string) => problems.push({ severity: 'error', path: `projects/${name}`, message });
+  for (const entry of readdirSync(projects, { withFileTypes: true }).sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0))) {
+    const { name } = entry;
+    if (name.startsWith('.')) continue;
+    const folder = join(projects, name);
+    const escaping = escape(projects, folder, `projects/${name}`);
+    if (escaping) {
+      problems.push({ severity: 'error', path: `projects/${name}`, message: escaping.replace(`projects/${name} `, '') });
+      continue;
+    }
+    if (!statSync(folder, { throwIfNoEntry: false })?.isDirectory()) {
+      problems.push({ severity: 'warning', path: `projects/${name}`, message: 'is not a folder, and each entry of projects/ is a project folder; it is left out: move it elsewhere' });
+      continue;
+    }
+    const badName = projectIdProblem(name);
+    if (badName) {
+      const like = idLike(name);
+      error(name, `is no project: the folder's name is no project id (${badName.replace(/^project id "[^"]*" /, '')}); rename the folder${like ? `, to ${like} for instance` : ''}`);
+      continue;
+    }
+    const missing = missingBasis(folder, name);
+    if (missing) {
+      error(name, `is no project: it ${missing}`);
+      continue;
+    }
+    const basisEscape = escape(projects, join(folder, BASIS_FILE), `projects/${name}`);
+    if (basisEscape) {
+      error(name, basisEscape.replace(`projects/${name} `, ''));
+      continue;
+    }
+    ids.push(name);
+  }
+  return { ids, problems };
+}
+
+/** A problem of projects/ as one line: `projects/Bad_Name is no project: ...`, `warning: projects/notes.txt is not a folder, ...`. */
+export function projectsProblemText(problem: ProjectsProblem): string {
+  return `${problem.severity === 'warning' ? 'warning: ' : ''}${problem.path} ${problem.message}`;
+}
+
+/** Ids of every projects/<id>/basis.yaml under the folder, sorted (scanProjects names what else is there). */
+export function listProjects(cwd: string): string[] {
+  return scanProjects(cwd).ids;
 }

@@ -13,7 +13,7 @@ import { readFileSync } from 'node:fs';
 import { join, posix } from 'node:path';
 import { compareRevisions } from '../archive/compare.ts';
 import type { DesignBasis } from '../basis/types.ts';
-import { listProjects } from '../basis/projects.ts';
+import { projectsProblemText, scanProjects } from '../basis/projects.ts';
 import { loadBasisFile } from '../basis/load.ts';
 import { BasisError } from '../basis/diagnostics.ts';
 import { calculate } from '../plant/calculate.ts';
@@ -240,7 +240,9 @@ export function loadSiteModel(root: string, options: SiteOptions = {}): SiteMode
   const copies: SiteCopy[] = [];
   const projects: PortfolioProject[] = [];
   const drafts: SiteModel['drafts'] = [];
-  for (const id of listProjects(root)) {
+  const scanned = scanProjects(root);
+  for (const problem of scanned.problems) (problem.severity === 'error' ? problems.errors : problems.warnings).push(projectsProblemText(problem));
+  for (const id of scanned.ids) {
     const project = loadProjectPages(loader, id, problems);
     pages.push(...project.pages);
     revisionPages.push(...project.revisionPages);

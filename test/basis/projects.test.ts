@@ -1,9 +1,9 @@
 // Project resolution: ids under projects/, files by path, and nothing that leads outside.
-import { mkdirSync, mkdtempSync, symlinkSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, realpathSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { listProjects, resolveProjectArg } from '../../lib/basis/projects.ts';
+import { listProjects, projectsProblemText, resolveProjectArg, scanProjects } from '../../lib/basis/projects.ts';
 import { UserError } from '../../lib/core/errors.ts';
 
 /**
@@ -76,5 +76,29 @@ describe('projects', () => {
   it('lists the ids of every projects/*/basis.yaml, sorted, skipping folders without one and invalid names', () => {
     expect(listProjects(workspace())).toEqual(['alpha', 'beta']);
     expect(listProjects(mkdtempSync(join(tmpdir(), 'cellbasis-empty-')))).toEqual([]);
+  });
+});
+
+describe('what else is under projects/', () => {
+  it('names every folder that is no project (an error) and every file (a warning), passing over names that start with "."', () => {
+    const cwd = workspace();
+    mkdirSync(join(cwd, 'projects', 'yml-only'));
+    writeFileSync(join(cwd, 'projects', 'yml-only', 'basis.yml'), 'document: {}\n');
+    mkdirSync(join(cwd, 'projects', 'other-name'));
+    writeFileSync(join(cwd, 'projects', 'other-name', 'plant.yaml'), 'document: {}\n');
+    writeFileSync(join(cwd, 'projects', 'notes.txt'), 'notes\n');
+    mkdirSync(join(cwd, 'projects', '.git'));
+    const outside = mkdtempSync(join(tmpdir(), 'cellbasis-outside-'));
+    symlinkSync(outside, join(cwd, 'projects', 'escape'));
+    const scanned = scanProjects(cwd);
+    expect(scanned.ids).toEqual(['alpha', 'beta']);
+    expect(scanned.problems.map(projectsProblemText)).toEqual([
+      'projects/Bad_Name is no project: the folder\'s name is no project id (must be 1 to 64 characters of a-z, 0-9, ".", "_" and "-", starting with a letter or digit); rename the folder, to bad_name for instance',
+      `projects/escape leads outside projects/ (to ${realpathSync(outside)}); a project must lie inside projects/`,
+      'projects/no-basis is no project: it holds no basis.yaml; write one with cellbasis new no-basis --technology TECH, or move the folder out of projects/',
+      'warning: projects/notes.txt is not a folder, and each entry of projects/ is a project folder; it is left out: move it elsewhere',
+      "projects/other-name is no project: it holds no basis.yaml (it holds plant.yaml); a project's basis is projects/other-name/basis.yaml",
+      "projects/yml-only is no project: it holds basis.yml, but a project's basis is basis.yaml: rename the file",
+    ]);
   });
 });

@@ -6,7 +6,7 @@
 import { dirname, join, relative, resolve } from 'node:path';
 import type { Command } from '../command.ts';
 import { optionalString } from '../command.ts';
-import { listProjects } from '../../basis/projects.ts';
+import { scanProjects } from '../../basis/projects.ts';
 import { EXIT_VALIDATION, UserError } from '../../core/errors.ts';
 import { SiteError } from '../../publish/site-problems.ts';
 import { progressReporter } from '../progress.ts';
@@ -28,7 +28,8 @@ export const buildCommand: Command = {
     { name: 'quiet', type: 'boolean', description: 'no progress output (for scripts)' },
   ],
   async run(args, io) {
-    if (listProjects(io.cwd).length === 0) {
+    const scanned = scanProjects(io.cwd);
+    if (scanned.ids.length === 0 && scanned.problems.length === 0) {
       throw new UserError('build: no design bases under projects/ here; create one with cellbasis new ID --technology TECH');
     }
     const out = optionalString(args, 'out');

@@ -5,7 +5,7 @@
  */
 import type { Command } from '../command.ts';
 import { table } from '../../core/plain-text.ts';
-import { listProjects, resolveProjectArg } from '../../basis/projects.ts';
+import { projectsProblemText, resolveProjectArg, scanProjects } from '../../basis/projects.ts';
 import { loadBasisFile } from '../../basis/load.ts';
 import { formatDiagnostic } from '../../basis/diagnostics.ts';
 import { basisSummaryRows } from '../../basis/summary.ts';
@@ -17,17 +17,24 @@ export const checkCommand: Command = {
   summary: 'validate design bases and print a summary of each valid one',
   usage: 'check [ID | FILE]...',
   details:
-    'Without arguments, checks every projects/*/basis.yaml under the current folder.\n' +
+    'Without arguments, checks every projects/*/basis.yaml under the current folder, and names anything else\n' +
+    'under projects/ (a folder that is no project is an error, a file a warning).\n' +
     'Problems go to stderr as file:line:col: path: message; warnings do not fail the check.\n' +
     'Exit code 1 when any basis has errors, 2 when an argument names no basis.',
   positionals: [0, Number.POSITIVE_INFINITY],
   options: [],
   async run(args, io) {
-    const targets = args.positionals.length ? args.positionals : listProjects(io.cwd);
-    if (targets.length === 0) {
-      throw new UserError('check: no design bases under projects/ here; create one with cellbasis new ID --technology TECH');
-    }
     let code = EXIT_OK;
+    let targets = args.positionals;
+    if (targets.length === 0) {
+      const scanned = scanProjects(io.cwd);
+      for (const problem of scanned.problems) io.err(`${projectsProblemText(problem)}\n`);
+      if (scanned.problems.some((p) => p.severity === 'error')) code = EXIT_VALIDATION;
+      targets = scanned.ids;
+      if (targets.length === 0 && code === EXIT_OK) {
+        throw new UserError('check: no design bases under projects/ here; create one with cellbasis new ID --technology TECH');
+      }
+    }
     for (const target of targets) {
       let result;
       let ref;
