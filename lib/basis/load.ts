@@ -4,7 +4,6 @@
  * of its own (read-cases.ts) → `DesignBasis`, or every problem
  * found, each located at `file:line:col` and sorted by position. Warnings never stop a basis.
  */
-import { closeSync, openSync, readSync, statSync } from 'node:fs';
 import { isMap, isScalar, isSeq } from 'yaml';
 import { decodeBasisBytes, MAX_BASIS_BYTES, tooLargeError } from './source-text.ts';
 import { parseBasisYaml } from './yaml-syntax.ts';
@@ -16,7 +15,8 @@ import { Reader } from './reader.ts';
 import { Findings, sortDiagnostics, type Path } from './diagnostics.ts';
 import { completeCases, mixturesNamedByCases, readCases } from './read-cases.ts';
 import type { DesignBasis, Diagnostic } from './types.ts';
-import { UserError } from '../core/errors.ts';
+import { EXIT_USAGE } from '../core/errors.ts';
+import { readRegularFile } from '../core/read-file.ts';
 
 export type LoadResult = { ok: true; basis: DesignBasis; warnings: Diagnostic[] } | { ok: false; errors: Diagnostic[]; warnings: Diagnostic[] };
 
@@ -105,38 +105,39 @@ export function loadBasisText(text: string | Uint8Array, file: string, id: strin
   return { ok: true, basis: { ...base, cases: completeCases(drafts, base, at, place) }, warnings };
 }
 
-/** Reads and checks a basis file; the id defaults to the name of its folder. */
-export function loadBasisFile(path: string, options: { id?: string; displayPath?: string } & LoadOptions = {}): LoadResult {
-  const file = options.displayPath ?? path;
-  const id = options.id ?? path.split(/[\\/]/).slice(-2, -1)[0] ?? 'basis';
-  let stat;
-  try {
-    stat = statSync(path);
-  } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    throw new UserError(code === 'ENOENT' ? `${file}: no such file` : `${file}: cannot read (${code ?? (error as Error).message})`);
+/** A basis file over the size limit, as the located diagnostic the loader reports. */
+class TooLarge extends Error {
+  constructor(readonly diagnostic: Diagnostic) {
+    super(diagnostic.message);
   }
-  if (!stat.isFile()) throw new UserError(`${file}: not a file`);
-  if (stat.size > MAX_BASIS_BYTES) return failed([tooLargeError(file, stat.size)]);
-  // Never more than the limit, whatever the size said (a file that grows, a /proc file of size 0).
-  const bytes = readAtMost(path, MAX_BASIS_BYTES + 1);
-  if (bytes.length > MAX_BASIS_BYTES) return failed([tooLargeError(file, bytes.length, true)]);
-  return loadBasisText(bytes, file, id, options);
 }
 
-/** The first `limit` bytes of a file (all of it when shorter). */
-function readAtMost(path: string, limit: number): Uint8Array {
-  const fd = openSync(path, 'r');
+/**
+ * Reads a basis file once (lib/core/read-file.ts: a FIFO, a device or a folder is refused before
+ * it is opened, exit 2 since the argument names no basis; never more than the size limit is read,
+ * whatever the size said) and checks it: the result and the bytes it was made from, so that a
+ * caller keying a cache or quoting the text uses the very bytes that were checked.
+ */
+export function readBasisFile(path: string, options: { id?: string; displayPath?: string } & LoadOptions = {}): { result: LoadResult; bytes?: Buffer } {
+  const file = options.displayPath ?? path;
+  const id = options.id ?? path.split(/[\\/]/).slice(-2, -1)[0] ?? 'basis';
+  let bytes: Buffer;
   try {
-    const buffer = Buffer.alloc(limit);
-    let length = 0;
-    while (length < limit) {
-      const read = readSync(fd, buffer, length, limit - length, null);
-      if (read === 0) break;
-      length += read;
-    }
-    return buffer.subarray(0, length);
-  } finally {
-    closeSync(fd);
+    bytes = readRegularFile(path, {
+      maxBytes: MAX_BASIS_BYTES,
+      what: 'design basis',
+      shown: file,
+      exitCode: EXIT_USAGE,
+      tooLarge: (size, atLeast) => new TooLarge(tooLargeError(file, size, atLeast)),
+    });
+  } catch (error) {
+    if (error instanceof TooLarge) return { result: failed([error.diagnostic]) };
+    throw error;
   }
+  return { result: loadBasisText(bytes, file, id, options), bytes };
+}
+
+/** Reads and checks a basis file; the id defaults to the name of its folder. */
+export function loadBasisFile(path: string, options: { id?: string; displayPath?: string } & LoadOptions = {}): LoadResult {
+  return readBasisFile(path, options).result;
 }

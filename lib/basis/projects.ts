@@ -9,6 +9,7 @@ import { existsSync, lstatSync, readdirSync, readlinkSync, realpathSync, statSyn
 import { isAbsolute, join, relative, resolve, sep } from 'node:path';
 import { quoted } from '../core/quote.ts';
 import { UserError, EXIT_USAGE } from '../core/errors.ts';
+import { kindOf } from '../core/read-file.ts';
 
 export const PROJECT_ID = /^[a-z0-9][a-z0-9._-]{0,63}$/;
 
@@ -118,7 +119,12 @@ function idLike(name: string): string | undefined {
 /** Why a folder under projects/ with a valid name is no project, or undefined: what it holds instead of basis.yaml. */
 function missingBasis(folder: string, name: string): string | undefined {
   const basis = lstatSync(join(folder, BASIS_FILE), { throwIfNoEntry: false });
-  if (basis) return undefined;
+  if (basis) {
+    // Followed, as the readers follow it (a link out of projects/ is refused apart).
+    const target = statSync(join(folder, BASIS_FILE), { throwIfNoEntry: false });
+    if (target && !target.isFile()) return `holds a ${BASIS_FILE} that is ${kindOf(target)}, not a file`;
+    return undefined;
+  }
   let entries: string[];
   try {
     entries = readdirSync(folder);

@@ -2,15 +2,17 @@
  * Reading a file the user or an archive names, without hanging or running out of memory.
  *
  * A path may name a FIFO (reading it blocks until a writer comes), a device (`/dev/zero` never
- * ends) or a file far larger than anything cellbasis writes. So the file is opened without
- * blocking and without following a final symbolic link unless asked, checked on the open
- * descriptor (the same object that is then read, so it cannot be swapped between the check and
- * the read) to be a regular file of at most `maxBytes`, and read to at most `maxBytes + 1`
- * bytes, which also catches a file that grows while it is read. Every refusal is a UserError
- * naming the file and what to do.
+ * ends; opening some devices has effects of its own) or a file far larger than anything
+ * cellbasis writes. So a path that is no regular file is refused before it is opened; the file
+ * is then opened without blocking and without following a final symbolic link unless asked,
+ * checked again on the open descriptor (the same object that is then read, so it cannot be
+ * swapped between the check and the read) to be a regular file of at most `maxBytes`, and read
+ * to at most `maxBytes + 1` bytes, which also catches a file that grows while it is read. Every
+ * refusal is a UserError naming the file and what to do.
  */
-import { closeSync, constants, fstatSync, openSync, readSync } from 'node:fs';
+import { closeSync, constants, fstatSync, lstatSync, openSync, readSync, statSync, type Stats } from 'node:fs';
 import { EXIT_VALIDATION, UserError } from './errors.ts';
+import { fileErrorReason } from './file-errors.ts';
 
 export interface ReadLimits {
   /** Largest size accepted, bytes. */
@@ -19,6 +21,12 @@ export interface ReadLimits {
   what: string;
   /** Follow a symbolic link as the last component (default true). */
   followLinks?: boolean;
+  /** The path as messages show it (default: as given). */
+  shown?: string;
+  /** The exit code of a refusal (default 1, EXIT_VALIDATION). */
+  exitCode?: number;
+  /** The error for a file over the limit (default: a UserError saying so); `atLeast` when it grew past the limit while read. */
+  tooLarge?: (bytes: number, atLeast: boolean) => Error;
 }
 
 /** The size written for messages: "12 MiB", "640 KiB", "1025 bytes" (exact below 10 KiB). */
@@ -29,7 +37,8 @@ export function sizeText(bytes: number): string {
   return `${bytes} bytes`;
 }
 
-function kindOf(stat: import('node:fs').Stats): string {
+/** What a file that is no regular file is, for messages: "a named pipe (FIFO)", "a folder". */
+export function kindOf(stat: Stats): string {
   if (stat.isDirectory()) return 'a folder';
   if (stat.isFIFO()) return 'a named pipe (FIFO)';
   if (stat.isCharacterDevice()) return 'a character device';
@@ -39,34 +48,36 @@ function kindOf(stat: import('node:fs').Stats): string {
   return 'not a regular file';
 }
 
-function openError(path: string, what: string, error: NodeJS.ErrnoException): UserError {
-  const reason: Record<string, string> = {
-    ENOENT: 'it does not exist',
-    EACCES: 'permission denied: check the file mode and the folders above it',
-    EPERM: 'permission denied: check the file mode and the folders above it',
-    ELOOP: 'it is a symbolic link, which is not accepted here',
-    EISDIR: 'it is a folder',
-    ENOTDIR: 'a part of the path is not a folder',
-    EMFILE: 'too many files are open; close other programs and try again',
-  };
-  return new UserError(`${path}: cannot read the ${what}: ${reason[error.code ?? ''] ?? error.message}`, EXIT_VALIDATION);
+function openError(path: string, what: string, error: NodeJS.ErrnoException, exitCode: number = EXIT_VALIDATION): UserError {
+  return new UserError(`${path}: cannot read the ${what}: ${error.code ? fileErrorReason(error.code) : error.message}`, exitCode);
 }
 
 /** The bytes of a regular file of at most `limits.maxBytes`, or a UserError saying why not. */
 export function readRegularFile(path: string, limits: ReadLimits): Buffer {
+  const shown = limits.shown ?? path;
+  const exitCode = limits.exitCode ?? EXIT_VALIDATION;
+  const notRegular = (stat: Stats) => new UserError(`${shown}: the ${limits.what} must be a regular file; this is ${kindOf(stat)}`, exitCode);
+  const tooLarge = (bytes: number, atLeast: boolean) =>
+    limits.tooLarge?.(bytes, atLeast) ??
+    new UserError(
+      atLeast ? `${shown}: the ${limits.what} grew past the ${sizeText(limits.maxBytes)} accepted while it was read` : `${shown}: the ${limits.what} is ${sizeText(bytes)}, more than the ${sizeText(limits.maxBytes)} accepted`,
+      exitCode,
+    );
+  // Refused before it is opened: opening a device can act (a tape rewinds), a FIFO's open waits for a writer.
+  const before = (limits.followLinks === false ? lstatSync : statSync)(path, { throwIfNoEntry: false });
+  if (before?.isSymbolicLink()) throw new UserError(`${shown}: cannot read the ${limits.what}: it is a symbolic link, which is not accepted here`, exitCode);
+  if (before && !before.isFile()) throw notRegular(before);
   const flags = constants.O_RDONLY | constants.O_NONBLOCK | (limits.followLinks === false ? constants.O_NOFOLLOW : 0);
   let fd: number;
   try {
     fd = openSync(path, flags);
   } catch (error) {
-    throw openError(path, limits.what, error as NodeJS.ErrnoException);
+    throw openError(shown, limits.what, error as NodeJS.ErrnoException, exitCode);
   }
   try {
     const stat = fstatSync(fd);
-    if (!stat.isFile()) throw new UserError(`${path}: the ${limits.what} must be a regular file; this is ${kindOf(stat)}`, EXIT_VALIDATION);
-    if (stat.size > limits.maxBytes) {
-      throw new UserError(`${path}: the ${limits.what} is ${sizeText(stat.size)}, more than the ${sizeText(limits.maxBytes)} accepted`, EXIT_VALIDATION);
-    }
+    if (!stat.isFile()) throw notRegular(stat);
+    if (stat.size > limits.maxBytes) throw tooLarge(stat.size, false);
     const chunks: Buffer[] = [];
     let length = 0;
     for (;;) {
@@ -75,14 +86,12 @@ export function readRegularFile(path: string, limits: ReadLimits): Buffer {
       if (read === 0) break;
       chunks.push(chunk.subarray(0, read));
       length += read;
-      if (length > limits.maxBytes) {
-        throw new UserError(`${path}: the ${limits.what} grew past the ${sizeText(limits.maxBytes)} accepted while it was read`, EXIT_VALIDATION);
-      }
+      if (length > limits.maxBytes) throw tooLarge(length, true);
     }
     return Buffer.concat(chunks, length);
   } catch (error) {
-    if (error instanceof UserError) throw error;
-    throw openError(path, limits.what, error as NodeJS.ErrnoException);
+    if (error instanceof Error && !('code' in error)) throw error;
+    throw openError(shown, limits.what, error as NodeJS.ErrnoException, exitCode);
   } finally {
     closeSync(fd);
   }

@@ -34,11 +34,11 @@
  * For tests of interruption, `pauseAt` names a step (BUILD_STEPS) at which the build stops and
  * waits until it is killed; the CLI takes it from CELLBASIS_BUILD_PAUSE.
  */
-import { existsSync, lstatSync, mkdirSync, readdirSync, readFileSync, readlinkSync, realpathSync, renameSync, rmSync, symlinkSync, unlinkSync } from 'node:fs';
+import { existsSync, lstatSync, mkdirSync, readdirSync, readlinkSync, realpathSync, renameSync, rmSync, symlinkSync, unlinkSync } from 'node:fs';
 import { randomBytes } from 'node:crypto';
 import { basename, dirname, join, relative, resolve } from 'node:path';
 import { listProjects } from '../basis/projects.ts';
-import { loadBasisText } from '../basis/load.ts';
+import { readBasisFile } from '../basis/load.ts';
 import { realLocation, issuedFolderAt, within } from '../archive/layout.ts';
 import { processAlive } from '../archive/issued-folder.ts';
 import { calculateAll, type CalculationJob, type CalculationOutcome } from '../batch/batch.ts';
@@ -239,10 +239,15 @@ function checkOutput(root: string, out: string): void {
 async function precompute(root: string, options: BuildOptions): Promise<Map<string, CalculationOutcome>> {
   const jobs: { id: string; job: CalculationJob }[] = [];
   for (const id of listProjects(root)) {
-    const file = join(root, 'projects', id, 'basis.yaml');
-    const text = readFileSync(file);
-    const loaded = loadBasisText(text, `projects/${id}/basis.yaml`, id);
-    if (loaded.ok) jobs.push({ id, job: { basis: loaded.basis, text } });
+    let read;
+    try {
+      read = readBasisFile(join(root, 'projects', id, 'basis.yaml'), { id, displayPath: `projects/${id}/basis.yaml` });
+    } catch (error) {
+      // Named again, with every other problem, when the site model is loaded.
+      if (error instanceof UserError) continue;
+      throw error;
+    }
+    if (read.result.ok && read.bytes) jobs.push({ id, job: { basis: read.result.basis, text: read.bytes } });
   }
   const outcomes = await calculateAll(
     jobs.map((j) => j.job),

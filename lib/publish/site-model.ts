@@ -9,13 +9,13 @@
  * revision's register page; its document.html and document.pdf beside it), index.html (the
  * portfolio).
  */
-import { readFileSync } from 'node:fs';
 import { join, posix } from 'node:path';
 import { compareRevisions } from '../archive/compare.ts';
 import type { DesignBasis } from '../basis/types.ts';
 import { projectsProblemText, scanProjects } from '../basis/projects.ts';
-import { loadBasisFile } from '../basis/load.ts';
+import { readBasisFile } from '../basis/load.ts';
 import { BasisError } from '../basis/diagnostics.ts';
+import { UserError } from '../core/errors.ts';
 import { calculate } from '../plant/calculate.ts';
 import type { CalculationOutcome } from '../batch/batch.ts';
 import type { Results } from '../plant/results-schema.ts';
@@ -113,7 +113,7 @@ export function projectLoader(root: string, options: SiteOptions = {}): ProjectL
  * the results cache, else calculated (and cached); null, with the problems told, where its
  * calculation fails.
  */
-function draftResults(loader: ProjectLoader, id: string, basis: DesignBasis, problems: SiteProblems): Results | null {
+function draftResults(loader: ProjectLoader, id: string, basis: DesignBasis, bytes: Uint8Array, problems: SiteProblems): Results | null {
   const shown = `projects/${id}/basis.yaml`;
   const given = loader.options.results?.get(id);
   if (given) {
@@ -124,7 +124,7 @@ function draftResults(loader: ProjectLoader, id: string, basis: DesignBasis, pro
   }
   try {
     // The dev server rebuilds from here on every change: unchanged projects come from the cache.
-    const key = resultsKey(readFileSync(join(loader.root, 'projects', id, 'basis.yaml')), id, shown);
+    const key = resultsKey(bytes, id, shown);
     let results = loader.cache.get(key);
     if (!results) {
       results = calculate(basis);
@@ -188,16 +188,25 @@ export function loadProjectPages(loader: ProjectLoader, id: string, problems: Si
   const { root, options, checks } = loader;
   const none: ProjectPages = { pages: [], revisionPages: [], copies: [], draft: null, portfolio: null };
   const shown = `projects/${id}/basis.yaml`;
-  const loaded = loadBasisFile(join(root, 'projects', id, 'basis.yaml'), { id, displayPath: shown });
+  let read;
+  try {
+    read = readBasisFile(join(root, 'projects', id, 'basis.yaml'), { id, displayPath: shown });
+  } catch (error) {
+    // A basis that cannot be read (gone, a FIFO, unreadable): one problem of the site, not the end of it.
+    if (!(error instanceof UserError)) throw error;
+    problems.errors.push(error.message);
+    return none;
+  }
+  const { result: loaded, bytes } = read;
   problems.diagnostics(loaded.ok ? loaded.warnings : [...loaded.errors, ...loaded.warnings]);
   const issued = readIssuedRevisions(root, id, problems);
-  if (!loaded.ok) return none;
-  const results = draftResults(loader, id, loaded.basis, problems);
+  if (!loaded.ok || !bytes) return none;
+  const results = draftResults(loader, id, loaded.basis, bytes, problems);
   if (!results) return none;
   problems.findings(everyFinding(results).map((f) => formatFinding(loaded.basis, f)));
   const draftPath = draftPagePath(id);
   const sources = new Map<DesignBasis, string>(issued.map((s) => [s.basis, s.source]));
-  sources.set(loaded.basis, readFileSync(join(root, 'projects', id, 'basis.yaml'), 'utf8'));
+  sources.set(loaded.basis, Buffer.from(bytes).toString('utf8'));
   const last = issued[issued.length - 1];
   const draftRevision = nextRevision(last?.revision ?? null);
   const history = revisionHistory({

@@ -270,7 +270,7 @@ describe('loader API', () => {
     const good = loadBasisFile(path);
     expect(good.ok && good.basis.id).toBe('demo-7');
     expect(good.ok && good.basis.file).toBe(path);
-    expect(() => loadBasisFile(join(dir, 'missing.yaml'), { displayPath: 'missing.yaml' })).toThrow(new UserError('missing.yaml: no such file'));
+    expect(() => loadBasisFile(join(dir, 'missing.yaml'), { displayPath: 'missing.yaml' })).toThrow(new UserError('missing.yaml: cannot read the design basis: it does not exist'));
     const bad = loadBasisFile(join(dir, 'x.yaml'), { displayPath: 'x.yaml', id: 'x' });
     expect(bad.ok).toBe(false);
     if (!bad.ok) expect(bad.errors[0]!.file).toBe('x.yaml');

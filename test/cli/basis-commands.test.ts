@@ -131,7 +131,7 @@ describe('cellbasis check', () => {
     expect(r.err).toMatch(/^projects\/hot\/basis\.yaml:\d+:\d+: warning: conditions\.operating-temperature\.value: 1050 C is outside the typical range of solid-oxide cells/);
     expect(r.out).toMatch(/^projects\/hot\/basis\.yaml: valid \(1 warning\)\n/);
     const missing = await run(['check', 'nothing-here'], cwd);
-    expect(missing).toMatchObject({ code: 2, err: 'cellbasis: check: projects/nothing-here/basis.yaml: no such file\n' });
+    expect(missing).toMatchObject({ code: 2, err: 'cellbasis: check: projects/nothing-here/basis.yaml: cannot read the design basis: it does not exist\n' });
   });
 });
 

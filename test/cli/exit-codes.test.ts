@@ -64,7 +64,7 @@ describe('exit codes', () => {
       [['species', 'H2', '--temperature'], /^cellbasis: species: Option '--temperature <value>' argument missing \(see cellbasis species --help\)\n$/],
       [['calc', 'good', 'bad'], /^cellbasis: calc: usage: cellbasis calc ID\|FILE \[--section NAME\]\.\.\. \[--csv \| --json\] \(see cellbasis calc --help\)\n$/],
       [['species', 'H2', '--temperature', 'warm'], /^cellbasis: .*"warm"/],
-      [['calc', 'nothing-here'], /^cellbasis: projects\/nothing-here\/basis\.yaml: no such file\n$/],
+      [['calc', 'nothing-here'], /^cellbasis: projects\/nothing-here\/basis\.yaml: cannot read the design basis: it does not exist\n$/],
     ];
     for (const [argv, err] of cases) {
       const r = await run(argv, root);
