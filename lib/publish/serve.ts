@@ -6,18 +6,32 @@
  * project's pages and the index are rendered again; a change to the templates renders every
  * page. Results come from the results cache, so an edit costs one calculation.
  *
- * A basis with errors keeps its last good pages and shows its located diagnostics on the index
- * page (and on stderr); the server keeps running. serve writes into the site folder directly
+ * Changes are seen by watching folders, never files (lib/publish/folder-watch.ts), so a save by
+ * renaming over the basis, by truncating and writing, by deleting and writing again, and a new
+ * project folder are all rebuilt. A basis with errors, or whose calculation fails, keeps its last
+ * good pages and shows its located diagnostics on the index page (and on stderr); a project
+ * renamed or deleted loses its pages, and a folder under projects/ that is no project is named on
+ * the index page; nothing that happens to the files stops the server.
+ *
+ * It listens on 127.0.0.1 unless given another address (`host`), since the pages show every
+ * project's design basis to whoever can reach the port and serve asks no one who they are. A
+ * request is answered by the file it names under the site folder or not at all: a path with bad
+ * percent-encoding, an encoded "/" or "\\" or NUL gets 400, a "." or ".." segment 404, and a
+ * request that fails in the dev server gets 500; none ends the server. When the port asked for
+ * is taken, the next ones are tried (at most 10) and the port really used is returned. serve writes into the site folder directly
  * (no atomic swap: it is for editing) and never prints PDFs. It writes only into a site folder
  * of cellbasis (lib/publish/site-marker.ts: missing, empty or marked; a link is followed) and
  * refuses any other before writing anything.
  *
- *   serveSite({ root, out, port }): Promise<{ stop(): Promise<void> }>
+ *   serveSite({ root, out, port, host }): Promise<{ port, host, url, stop(): Promise<void> }>
  */
-import { copyFileSync, mkdirSync, renameSync, watch, writeFileSync, type FSWatcher } from 'node:fs';
+import { copyFileSync, mkdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import type { IncomingMessage, Server, ServerResponse } from 'node:http';
 import { dirname, join, relative, resolve, sep } from 'node:path';
 import { createRequire } from 'node:module';
-import { listProjects } from '../basis/projects.ts';
+import { projectsProblemText, scanProjects } from '../basis/projects.ts';
+import { UserError, EXIT_VALIDATION } from '../core/errors.ts';
+import { fileProblem } from '../core/file-errors.ts';
 import { portfolioView, type PortfolioProject } from '../report/portfolio.ts';
 import { loadProjectPages, projectLoader, type ProjectLoader } from './site-model.ts';
 import { SiteProblems } from './site-problems.ts';
@@ -28,17 +42,35 @@ import { ASSET_DIR } from './site-assets.ts';
 import { TEMPLATES_DIR } from './paths.ts';
 import { claimSiteFolder } from './site-marker.ts';
 import { writeTableFiles } from './table-files.ts';
+import { watchTree, type TreeWatch } from './folder-watch.ts';
+
+export const DEFAULT_HOST = '127.0.0.1';
+/** How many ports after the one asked for are tried when it is taken. */
+export const PORT_TRIES = 10;
 
 export interface ServeOptions {
   root: string;
   out?: string;
   port: number;
+  /** The address to listen on (default 127.0.0.1, this machine only). */
+  host?: string;
+}
+
+export interface RunningServer {
+  /** The port really listened on (the one asked for, or the next free one). */
+  port: number;
+  host: string;
+  url: string;
+  stop(): Promise<void>;
 }
 
 interface DevServer {
+  readonly server: Server;
   serve(port: number): void;
   reloadFiles(files: string[], domDiff?: boolean): void;
   close(): Promise<void>;
+  onRequestHandler(req: IncomingMessage, res: ServerResponse): Promise<void>;
+  _serverListen(port: number): void;
 }
 
 interface ProjectState {
@@ -48,10 +80,10 @@ interface ProjectState {
 }
 
 /** Writes a file through a temporary name, so the server never serves half a page. */
-function writeAtomically(path: string, text: string): void {
+function writeAtomically(path: string, bytes: string | Uint8Array): void {
   mkdirSync(dirname(path), { recursive: true });
   const temp = `${path}.${process.pid}.tmp`;
-  writeFileSync(temp, text);
+  writeFileSync(temp, bytes);
   renameSync(temp, path);
 }
 
@@ -74,7 +106,7 @@ class IncrementalSite {
     this.loader = projectLoader(root);
   }
 
-  /** Renders one project's pages; returns the files written. */
+  /** Renders one project's pages and copies its issued PDFs; returns the files written. */
   project(id: string): string[] {
     const problems = new SiteProblems();
     const pages = loadProjectPages(this.loader, id, problems);
@@ -107,12 +139,18 @@ class IncrementalSite {
     return files;
   }
 
+  /** Forgets a project that is gone (deleted, renamed) and removes its pages, which would mislead. */
+  private forget(id: string): void {
+    this.projects.delete(id);
+    rmSync(join(this.out, 'projects', id), { recursive: true, force: true });
+  }
+
   /** Renders the portfolio index from the current state; returns its file. */
   index(): string {
-    const ids = listProjects(this.root);
-    for (const id of [...this.projects.keys()]) if (!ids.includes(id)) this.projects.delete(id);
+    const { ids, problems } = scanProjects(this.root);
+    for (const id of [...this.projects.keys()]) if (!ids.includes(id)) this.forget(id);
     const states = ids.map((id) => this.projects.get(id)).filter((s): s is ProjectState => s !== undefined);
-    const errors = states.flatMap((s) => s.errors);
+    const errors = [...problems.filter((p) => p.severity === 'error').map(projectsProblemText), ...states.flatMap((s) => s.errors)];
     const portfolio = portfolioView(
       states.map((s) => s.portfolio).filter((p): p is PortfolioProject => p !== null),
       ...(errors.length ? [errors] : []),
@@ -126,7 +164,7 @@ class IncrementalSite {
   all(): string[] {
     this.loader = projectLoader(this.root);
     writeSiteAssets(join(this.out, ASSET_DIR));
-    const files = listProjects(this.root).flatMap((id) => this.project(id));
+    const files = scanProjects(this.root).ids.flatMap((id) => this.project(id));
     return [...files, this.index()];
   }
 }
@@ -138,21 +176,96 @@ function projectOf(root: string, path: string): string | null {
   return rel.split(sep)[0] ?? null;
 }
 
-export async function serveSite(options: ServeOptions): Promise<{ stop(): Promise<void> }> {
+/**
+ * Why a request's path names no file of the site: 400 for a path that cannot be decoded
+ * (bad percent-encoding) or that hides a separator or NUL in an encoded segment (%2F, %5C, %00),
+ * 404 for a "." or ".." segment (the site has no use for them; they only climb); null when fine.
+ */
+export function requestPathProblem(url: string | undefined): 400 | 404 | null {
+  if (!url || !url.startsWith('/') || url.startsWith('//')) return 400;
+  const path = url.split(/[?#]/)[0]!;
+  if (path.includes('\\')) return 400;
+  for (const segment of path.split('/')) {
+    let decoded: string;
+    try {
+      decoded = decodeURIComponent(segment);
+    } catch {
+      return 400;
+    }
+    if (/[/\\\0]/.test(decoded)) return 400;
+    if (decoded === '.' || decoded === '..') return 404;
+  }
+  return null;
+}
+
+function answer(res: ServerResponse, status: number, text: string): void {
+  if (res.headersSent) return void res.end();
+  res.writeHead(status, { 'content-type': 'text/plain; charset=utf-8' });
+  res.end(`${text}\n`);
+}
+
+/** Starts listening on host:port, or on one of the next PORT_TRIES ports when it is taken; the port used. */
+function listen(dev: DevServer, host: string, port: number): Promise<number> {
+  const server = dev.server;
+  // The dev server's own handler throws from an event handler when its ports run out (which
+  // ends the process) and listens on every interface: both are replaced.
+  server.removeAllListeners('error');
+  dev._serverListen = (p: number) => server.listen({ port: p, host });
+  return new Promise((done, fail) => {
+    let tries = 0;
+    server.on('error', (error: NodeJS.ErrnoException) => {
+      if (server.listening) {
+        process.stderr.write(`serve: ${error.message}\n`);
+        return;
+      }
+      if (error.code === 'EADDRINUSE' && tries < PORT_TRIES && port + tries < 65535) {
+        tries++;
+        dev._serverListen(port + tries);
+        return;
+      }
+      const reason =
+        error.code === 'EADDRINUSE'
+          ? `port ${port} and the ${PORT_TRIES} after it are all in use: give another with --port`
+          : error.code === 'EADDRNOTAVAIL' || error.code === 'ENOTFOUND'
+            ? `${host} is no address of this machine: give one of its addresses with --listen-address`
+            : error.code === 'EACCES'
+              ? `port ${port + tries} may not be used by this user (ports below 1024 are reserved): give another with --port`
+              : error.message;
+      fail(new UserError(`serve: cannot listen on ${host}:${port + tries}: ${reason}`, EXIT_VALIDATION));
+    });
+    server.once('listening', () => done((server.address() as { port: number }).port));
+    dev.serve(port);
+  });
+}
+
+export async function serveSite(options: ServeOptions): Promise<RunningServer> {
   const root = resolve(options.root);
   const out = resolve(options.out ?? join(root, 'site'));
+  const host = options.host ?? DEFAULT_HOST;
   claimSiteFolder(out, 'serve', relative(root, out) || '.');
   const site = new IncrementalSite(root, out);
   site.all();
   // Eleventy's dev server (a CommonJS package without type declarations): static files and live reload.
   const devServer = createRequire(import.meta.url)('@11ty/eleventy-dev-server') as { getServer(name: string, dir: string, options: Record<string, unknown>): DevServer };
-  const server = devServer.getServer('cellbasis', out, {
+  const dev = devServer.getServer('cellbasis', out, {
     liveReload: true,
     domDiff: false,
     showVersion: false,
     logger: { log: () => undefined, info: () => undefined, error: (m: string) => process.stderr.write(`${m}\n`) },
   });
-  server.serve(options.port);
+  // Every request is checked before the dev server sees it, and no failure in it ends the server.
+  const handle = dev.onRequestHandler.bind(dev);
+  dev.onRequestHandler = async (req, res) => {
+    const problem = requestPathProblem(req.url);
+    if (problem) return answer(res, problem, problem === 400 ? 'Bad request: the path cannot be read as a path of this site' : 'Not found');
+    try {
+      await handle(req, res);
+    } catch (error) {
+      process.stderr.write(`serve: ${req.url}: ${(error as Error).message}\n`);
+      answer(res, 500, 'The server could not answer this request');
+    }
+  };
+  const port = await listen(dev, host, options.port);
 
   // Changes are collected for a short moment (an editor saves in several writes), then rendered.
   const pending = new Set<string>();
@@ -160,33 +273,44 @@ export async function serveSite(options: ServeOptions): Promise<{ stop(): Promis
   let timer: NodeJS.Timeout | null = null;
   const flush = () => {
     timer = null;
-    const files = templates ? site.all() : [...[...pending].flatMap((id) => site.project(id)), site.index()];
+    const ids = [...pending];
+    const all = templates;
     pending.clear();
     templates = false;
-    server.reloadFiles(files, false);
+    try {
+      // Only the projects there are now: a folder renamed away, or to a name that is no id, has none.
+      const projects = new Set(scanProjects(root).ids);
+      const files = all ? site.all() : [...ids.filter((id) => projects.has(id)).flatMap((id) => site.project(id)), site.index()];
+      dev.reloadFiles(files, false);
+    } catch (error) {
+      // A file that vanished mid-render, a full disk: said, and the next change tries again.
+      const problem = error instanceof UserError ? error : fileProblem(error, (p) => relative(root, p) || '.');
+      process.stderr.write(`serve: the site could not be rebuilt: ${problem ? problem.message : (error as Error).message}\n`);
+    }
   };
   const schedule = () => {
     if (!timer) timer = setTimeout(flush, 40);
   };
-  const watchers: FSWatcher[] = [
-    watch(join(root, 'projects'), { recursive: true }, (_event, name) => {
-      if (!name || name.endsWith('.tmp')) return;
-      const id = projectOf(root, join(root, 'projects', name.toString()));
-      if (id) {
-        pending.add(id);
-        schedule();
-      }
+  const watchers: TreeWatch[] = [
+    watchTree(join(root, 'projects'), (path) => {
+      if (path.endsWith('.tmp')) return;
+      const id = projectOf(root, path);
+      if (id) pending.add(id);
+      schedule();
     }),
-    watch(TEMPLATES_DIR, { recursive: true }, () => {
+    watchTree(TEMPLATES_DIR, () => {
       templates = true;
       schedule();
     }),
   ];
   return {
+    port,
+    host,
+    url: `http://${host.includes(':') ? `[${host}]` : host}:${port}/`,
     async stop() {
       for (const w of watchers) w.close();
       if (timer) clearTimeout(timer);
-      await server.close();
+      await dev.close();
     },
   };
 }
