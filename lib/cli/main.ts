@@ -2,6 +2,8 @@
  * cellbasis command line: dispatches to one command, turns user mistakes into one clear line
  * on stderr and an exit code (0 ok, 1 validation or audit failure, 2 usage, 3 internal).
  */
+import { writeSync } from 'node:fs';
+import { isAbsolute, relative } from 'node:path';
 import { helpText, parseCommandArgs, type Command, type Io } from './command.ts';
 import { UserError, EXIT_INTERNAL, EXIT_OK, EXIT_USAGE } from '../core/errors.ts';
 import { reactionCommand } from './commands/reaction.ts';
@@ -20,6 +22,7 @@ import { compareCommand } from './commands/compare.ts';
 import { keygenCommand } from './commands/keygen.ts';
 import { issueCommand } from './commands/issue.ts';
 import { toolVersion } from '../core/version.ts';
+import { fileProblem } from '../core/file-errors.ts';
 import { visibleText } from '../core/visible-text.ts';
 
 export const COMMANDS: Command[] = [reactionCommand, speciesCommand, equilibriumCommand, steamLimitCommand, newCommand, checkCommand, schemaCommand, calcCommand, hazardsCommand, issueCommand, auditCommand, compareCommand, keygenCommand, buildCommand, serveCommand];
@@ -39,6 +42,12 @@ function overview(): string {
   ].join('\n');
 }
 
+/** A path as messages show it: relative to the working folder when inside it. */
+function shownPath(path: string, cwd: string): string {
+  const rel = relative(cwd, path);
+  return isAbsolute(path) && rel && !rel.startsWith('..') && !isAbsolute(rel) ? rel : path;
+}
+
 let pipesWatched = false;
 
 /**
@@ -51,7 +60,17 @@ function endQuietlyOnClosedPipes(): void {
   pipesWatched = true;
   for (const stream of [process.stdout, process.stderr]) {
     stream.on('error', (error: NodeJS.ErrnoException) => {
-      process.exit(error.code === 'EPIPE' ? (process.exitCode ?? EXIT_OK) : EXIT_INTERNAL);
+      if (error.code === 'EPIPE') process.exit(process.exitCode ?? EXIT_OK);
+      // Standard output on a full disk (or /dev/full): said on stderr, if stderr still takes it.
+      const problem = fileProblem(error);
+      if (stream === process.stdout && problem) {
+        try {
+          writeSync(2, `cellbasis: standard output: ${problem.message}\n`);
+        } catch {
+          // stderr is gone too: the exit code says it
+        }
+      }
+      process.exit(problem ? problem.exitCode : EXIT_INTERNAL);
     });
   }
 }
@@ -86,9 +105,11 @@ export async function main(argv: string[], given: Io = processIo()): Promise<num
   try {
     return await dispatch(argv, io);
   } catch (error) {
-    if (error instanceof UserError) {
-      io.err(`cellbasis: ${error.message}\n`);
-      return error.exitCode;
+    // A folder that is read-only, a full disk, a path through a file: the user's to put right, in one line.
+    const problem = error instanceof UserError ? error : fileProblem(error, (path) => shownPath(path, io.cwd));
+    if (problem) {
+      io.err(`cellbasis: ${problem.message}\n`);
+      return problem.exitCode;
     }
     const message = error instanceof Error ? error.message : String(error);
     io.err(`cellbasis: internal error: ${message}\n`);

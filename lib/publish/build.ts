@@ -38,6 +38,7 @@ import { existsSync, lstatSync, mkdirSync, readdirSync, readlinkSync, realpathSy
 import { randomBytes } from 'node:crypto';
 import { basename, dirname, join, relative, resolve } from 'node:path';
 import { listProjects } from '../basis/projects.ts';
+import { fileErrorIn, fileErrorReason } from '../core/file-errors.ts';
 import { readBasisFile } from '../basis/load.ts';
 import { realLocation, issuedFolderAt, within } from '../archive/layout.ts';
 import { processAlive } from '../archive/issued-folder.ts';
@@ -46,7 +47,7 @@ import { ResultsCache } from '../batch/results-cache.ts';
 import { ChromiumMissingError, chromiumMissingMessage, findChromium } from './chromium.ts';
 import { printDrafts } from './draft-pdfs.ts';
 import { removeCacheLeftovers } from './cache-leftovers.ts';
-import { UserError, EXIT_INTERNAL } from '../core/errors.ts';
+import { UserError, EXIT_INTERNAL, EXIT_VALIDATION } from '../core/errors.ts';
 import { setBuildContext } from './build-context.ts';
 import { notOursError, removeOwnFolder, siteFolderProblem, SYMBOLIC_LINK, writeSiteMarker } from './site-marker.ts';
 import { createEleventy } from './eleventy-api.ts';
@@ -190,14 +191,35 @@ function userErrorIn(error: unknown): UserError | null {
   return null;
 }
 
+let lateCopiesWatched = false;
+
+/**
+ * Eleventy copies the assets (passthrough copy) beside rendering the pages, and when a page
+ * cannot be written its run ends at once while a copy still fails a moment later, as a promise
+ * no one awaits: Node would end the process with a stack trace after the build had already said
+ * what went wrong and removed its folder. Such late file errors of a copy are let go; any other
+ * unhandled rejection still ends the process as before.
+ */
+function ignoreLateCopyErrors(): void {
+  if (lateCopiesWatched) return;
+  lateCopiesWatched = true;
+  process.on('unhandledRejection', (reason) => {
+    if (fileErrorIn(reason) && /Passthrough/.test((reason as Error)?.name ?? (reason as Error)?.constructor?.name ?? '')) return;
+    throw reason;
+  });
+}
+
 async function runEleventy(output: string): Promise<void> {
   const eleventy = createEleventy(TEMPLATES_DIR, output, { configPath: ELEVENTY_CONFIG, quietMode: true });
   eleventy.disableLogger();
+  ignoreLateCopyErrors();
   try {
     await eleventy.write();
   } catch (error) {
     const user = userErrorIn(error);
     if (user) throw user;
+    // A full disk, a read-only folder: said by buildSite, with the folder it concerns.
+    if (fileErrorIn(error)) throw error;
     throw new UserError(`the site could not be rendered: ${(error as Error).message}`, EXIT_INTERNAL);
   }
 }
@@ -320,6 +342,11 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
   } catch (error) {
     for (const path of [fresh, names.complete, names.link]) rmSync(path, { recursive: true, force: true });
     if (existsSync(names.aside) && !lstatSync(out, { throwIfNoEntry: false })) renameSync(names.aside, out);
+    const problem = error instanceof UserError ? null : fileErrorIn(error);
+    if (problem) {
+      const shown = shownPath(root, out);
+      throw new UserError(`${shown}: the site could not be written: ${fileErrorReason(problem.code)}; ${shown} was left as it was`, EXIT_VALIDATION);
+    }
     throw error;
   } finally {
     setBuildContext(null);
