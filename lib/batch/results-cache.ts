@@ -2,12 +2,19 @@
  * A disk cache of results: `.cellbasis-cache/results/<key>.json` under the working folder, keyed by
  * SHA-256 of the basis bytes, the project id, the file name and the library fingerprint
  * (lib/batch/fingerprint.ts). Entries are written to a temporary file and renamed, so a killed
- * build never leaves a torn entry; an unreadable entry is treated as a miss.
+ * build never leaves a torn entry.
+ *
+ * An entry is trusted only once verified: it starts with a line holding the SHA-256 of what
+ * follows (`cellbasis-cache sha256=<hex>`), and is read through the bounded reader (no link, no
+ * FIFO or device, at most MAX_ENTRY_BYTES). An entry that is torn, edited, of an older format, too
+ * large or no regular file is a miss: calculated (or printed) again and written anew. The hash
+ * guards against damage, not against someone who may write the cache and rewrites the hash too.
  */
 import { createHash } from 'node:crypto';
-import { lstatSync, mkdirSync, readFileSync, renameSync, unlinkSync, writeFileSync } from 'node:fs';
+import { lstatSync, mkdirSync, renameSync, unlinkSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { EXIT_VALIDATION, UserError } from '../core/errors.ts';
+import { readRegularFile } from '../core/read-file.ts';
 import { libraryFingerprint } from './fingerprint.ts';
 import type { Results } from '../plant/results-schema.ts';
 
@@ -18,7 +25,8 @@ export const CACHE_DIR = '.cellbasis-cache';
  * link or over a file), then renamed into place. A regular file of that name is a leftover of
  * an earlier process that had this process id, and is replaced; anything else there is refused.
  */
-export function writeCacheEntry(target: string, bytes: string | Uint8Array): void {
+export function writeCacheEntry(target: string, body: string | Uint8Array): void {
+  const bytes = Buffer.concat([Buffer.from(`${ENTRY_HEADER}${createHash('sha256').update(body).digest('hex')}\n`), Buffer.from(body)]);
   const temp = `${target}.${process.pid}.tmp`;
   try {
     writeFileSync(temp, bytes, { flag: 'wx' });
@@ -29,6 +37,25 @@ export function writeCacheEntry(target: string, bytes: string | Uint8Array): voi
     writeFileSync(temp, bytes, { flag: 'wx' });
   }
   renameSync(temp, target);
+}
+
+/** The largest cache entry read: a results file is about 0.1 MB, a draft's PDF about 1 MB. */
+export const MAX_ENTRY_BYTES = 64 * 1024 * 1024;
+const ENTRY_HEADER = 'cellbasis-cache sha256=';
+
+/** The body of a cache entry whose hash holds, or undefined (missing, damaged, foreign: a miss). */
+export function readCacheEntry(target: string): Buffer | undefined {
+  let bytes: Buffer;
+  try {
+    bytes = readRegularFile(target, { maxBytes: MAX_ENTRY_BYTES, what: 'cache entry', followLinks: false });
+  } catch {
+    return undefined;
+  }
+  const end = bytes.indexOf(0x0a);
+  const header = end < 0 ? '' : bytes.subarray(0, end).toString('latin1');
+  if (!header.startsWith(ENTRY_HEADER)) return undefined;
+  const body = bytes.subarray(end + 1);
+  return createHash('sha256').update(body).digest('hex') === header.slice(ENTRY_HEADER.length) ? body : undefined;
 }
 
 export function resultsKey(basisBytes: string | Uint8Array, id: string, file: string): string {
@@ -43,8 +70,10 @@ export class ResultsCache {
   }
 
   get(key: string): Results | undefined {
+    const body = readCacheEntry(join(this.dir, `${key}.json`));
+    if (!body) return undefined;
     try {
-      return JSON.parse(readFileSync(join(this.dir, `${key}.json`), 'utf8')) as Results;
+      return JSON.parse(body.toString('utf8')) as Results;
     } catch {
       return undefined;
     }

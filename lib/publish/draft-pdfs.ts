@@ -9,11 +9,11 @@
 import { execFileSync } from 'node:child_process';
 import { availableParallelism } from 'node:os';
 import { createHash } from 'node:crypto';
-import { copyFileSync, existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import type { DesignBasis } from '../basis/types.ts';
 import type { Results } from '../plant/results-schema.ts';
-import { CACHE_DIR, writeCacheEntry } from '../batch/results-cache.ts';
+import { CACHE_DIR, readCacheEntry, writeCacheEntry } from '../batch/results-cache.ts';
 import { libraryFingerprint } from '../batch/fingerprint.ts';
 import { withPdfPrinter } from './pdf.ts';
 import { findChromium } from './chromium.ts';
@@ -81,11 +81,17 @@ export async function printDrafts(root: string, site: string, drafts: DraftPage[
   });
   let done = 0;
   const report = () => onProgress?.(++done, work.length);
-  for (const w of work.filter((x) => existsSync(x.cached))) {
-    copyFileSync(w.cached, w.target);
+  const missing: typeof work = [];
+  for (const w of work) {
+    // Only a cached PDF whose hash holds is copied; any other is printed again.
+    const cached = readCacheEntry(w.cached);
+    if (!cached) {
+      missing.push(w);
+      continue;
+    }
+    writeFileSync(w.target, cached);
     report();
   }
-  const missing = work.filter((x) => !existsSync(x.cached));
   if (missing.length === 0) return;
   // Each lane a Chromium of its own, printing every lanes-th draft in turn; after a failure no
   // lane starts another print, and the first error is thrown once every Chromium has closed.
