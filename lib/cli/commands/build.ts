@@ -19,8 +19,9 @@ export const buildCommand: Command = {
     'Renders each projects/<id>/basis.yaml as its working draft, each issued revision as its own page, and the\n' +
     'portfolio index, into a fresh folder beside site/; site/ (a link) is switched to it only when everything was written.\n' +
     'Pages are reproducible: the draft date is SOURCE_DATE_EPOCH when set, else the latest sign-off date.\n' +
-    'Each draft is also printed to projects/<id>/document.pdf when Chromium is found (the build says so when\n' +
-    'it is not). Results and PDFs of unchanged projects come from .cellbasis-cache/.',
+    'Each draft is also printed beside its page, to site/projects/<id>/document.pdf (DIR/projects/<id>/document.pdf\n' +
+    'with --out), when Chromium is found (the build says so when it is not). Results and PDFs of unchanged projects\n' +
+    'come from .cellbasis-cache/.',
   positionals: [0, 0],
   options: [
     { name: 'out', type: 'string', value: 'DIR', description: 'write the site to DIR instead of site/' },
