@@ -48,14 +48,16 @@ const LIMITED_INPUTS = Object.keys(DIMENSIONS) as [LimitedInput, ...LimitedInput
  * temperature lies within the data of the species it concerns (lib/basis/temperature-ranges.ts,
  * the NASA Glenn ranges, 200 K to 6000 K and more for gases, 273.15 K to 600 K for liquid
  * water), a mole fraction and a relative humidity within [0, 1], the air utilization is the
- * inverse of the air ratio.
+ * inverse of the air ratio, the KOH mass fraction of an alkaline cell within the range of the
+ * water-activity correlation (lib/thermo/koh-solution.ts, Balej 1985).
  */
-export type PhysicsRule = 'species-data' | 'liquid-water-data' | 'unit-interval' | 'inverse-of-air-ratio';
+export type PhysicsRule = 'species-data' | 'liquid-water-data' | 'unit-interval' | 'inverse-of-air-ratio' | 'koh-correlation';
 
 /** The numbers of the basis outside its cases and what bounds each; FIELDS adds the cases'. */
 const BASE_FIELDS: Readonly<Record<string, LimitedInput | PhysicsRule>> = {
   'cell.ionic-transference-number': 'ionic-transference-number',
   'cell.crossover-allowance': 'crossover-allowance',
+  'cell.koh-mass-fraction': 'koh-correlation',
   'conditions.operating-temperature': 'species-data',
   'conditions.temperature-sweep.from': 'species-data',
   'conditions.temperature-sweep.to': 'species-data',

@@ -90,7 +90,7 @@ function caseBaseFor(field: string): { text: (value: string | number) => string;
 /** A valid basis for the field, and the path at which to write its value. */
 function baseFor(field: string): { text: (value: string | number) => string; path: string } {
   if (field.startsWith(CASE)) return caseBaseFor(field.slice(CASE.length));
-  const electrolysis = /steam-conversion|sweep-ratio|target-hydrogen/.test(field);
+  const electrolysis = /steam-conversion|sweep-ratio|target-hydrogen|koh-mass-fraction/.test(field);
   const edits: Record<string, unknown> = {};
   let path = field;
   if (field === 'operating-point.air-ratio') edits['operating-point.air-utilization'] = undefined;
@@ -132,7 +132,8 @@ function baseFor(field: string): { text: (value: string | number) => string; pat
   }
   return {
     path,
-    text: (value) => scaffoldText('solid-oxide', electrolysis ? 'electrolysis' : 'power', 'x', { ...edits, [path]: written(value) }),
+    // The KOH mass fraction belongs to alkaline cells alone.
+    text: (value) => scaffoldText(field === 'cell.koh-mass-fraction' ? 'alkaline' : 'solid-oxide', electrolysis ? 'electrolysis' : 'power', 'x', { ...edits, [path]: written(value) }),
   };
 }
 
@@ -144,7 +145,7 @@ async function check(text: string): Promise<{ code: number; err: string }> {
   return { code: r.code, err: r.err };
 }
 
-const LIMITED = Object.entries(FIELDS).filter((entry): entry is [string, LimitedInput] => !['species-data', 'liquid-water-data', 'unit-interval', 'inverse-of-air-ratio'].includes(entry[1]));
+const LIMITED = Object.entries(FIELDS).filter((entry): entry is [string, LimitedInput] => !['species-data', 'liquid-water-data', 'unit-interval', 'inverse-of-air-ratio', 'koh-correlation'].includes(entry[1]));
 
 describe('limits on every number of a basis', () => {
   it('every number of the schema has a limit or a rule of physics in FIELDS, and FIELDS names only numbers of the schema', () => {
