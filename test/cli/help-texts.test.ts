@@ -3,7 +3,7 @@
 // Each statement of a help text that a user acts on (a path, a default, an exit code, what is
 // kept) is listed here with a run of the command that shows it true, and every path any help
 // text names must be one of them: a new path in a help text fails here until a check says it is
-// right. The archive commands (seal, audit, compare, keygen) are checked with the archive.
+// right. The archive commands (issue, audit, compare, keygen) are checked with the archive.
 import { existsSync, lstatSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -15,7 +15,7 @@ import { run } from '../helpers/run-cli.ts';
 import { projectsRoot, scaffoldText } from '../helpers/scaffold-basis.ts';
 import { describeWithChromium } from '../helpers/chromium.ts';
 
-const ARCHIVE = new Set(['seal', 'audit', 'compare', 'keygen']);
+const ARCHIVE = new Set(['issue', 'audit', 'compare', 'keygen']);
 const help = (name: string) => helpText(COMMANDS.find((c) => c.name === name)!);
 
 /** The paths each help text names, each checked below (a test per path, by its name). */
