@@ -194,7 +194,7 @@ function parasitic(reader: Reader): number | undefined {
 /** The inverter or rectifier efficiency, in (0, 1] (default 1); in power mode it must exceed the parasitic share, or nothing would be left. */
 function conversion(reader: Reader, mode: Mode, parasiticFraction: number | undefined): number | undefined {
   if (!reader.has(OP('power-conversion-efficiency'))) return 1;
-  const read = bounded(reader, 'power-conversion-efficiency', 'fraction', 'power-conversion efficiency', (x) => x > 0 && x <= 1, 'lies in (0, 1]');
+  const read = bounded(reader, 'power-conversion-efficiency', 'fraction', 'power-conversion efficiency', (x) => x > 0 && x <= 1, 'lies in (0, 1]', 'power-conversion-efficiency');
   if (read && mode === 'power' && parasiticFraction !== undefined && read.si <= parasiticFraction) {
     reader.findings.error(read.at, `the power-conversion efficiency must exceed the parasitic load (${parasiticFraction}), or the plant would deliver no power, got ${read.text}`);
     return undefined;

@@ -15,7 +15,7 @@ const STANDARD_ATMOSPHERE_BAR = STANDARD_ATMOSPHERE_PA / PA_PER_BAR;
 import { ZERO_CELSIUS_K as ZERO_C } from '../core/units.ts';
 import type { Mode, Technology } from '../electrochem/technologies.ts';
 import { readTemperature } from './read-conditions.ts';
-import { limitProblem } from './limits.ts';
+import { withinLimit, type LimitedInput } from './limits.ts';
 import type { Path } from './diagnostics.ts';
 import type { Read, Reader } from './reader.ts';
 import type { CompressionInput, ElectricalInput, OffGasOxidant, PlantInput } from './types.ts';
@@ -32,55 +32,62 @@ const MODE_OF: Record<string, Mode> = {
   'hydrogen-compression': 'electrolysis',
 };
 
-/** A whole number of at least 1 (and at most `most`), or undefined with the error at its value. */
-function count(reader: Reader, path: Path, label: string, most = 1e6): number | undefined {
-  const read = reader.number(path, label);
-  if (!read) return undefined;
-  if (!Number.isInteger(read.si) || read.si < 1 || read.si > most) {
-    reader.findings.error(read.at, `the ${label} must be a whole number from 1 to ${most}, got ${read.text}`);
-    return undefined;
-  }
-  return read.si;
+/** The read when it lies within the input's limit of data/limits.yaml, else undefined with the error at its value. */
+function limited(reader: Reader, read: Read | undefined, input: LimitedInput, label: string): Read | undefined {
+  return read && withinLimit(reader.findings, input, label, read) ? read : undefined;
 }
 
-/** A fraction inside the range `check` allows (worded by `rule`), or undefined. */
-function share(reader: Reader, path: Path, label: string, check: (x: number) => boolean, rule: string): Read | undefined {
+/** A positive whole number within the input's limits, or undefined with the error at its value. */
+function count(reader: Reader, path: Path, label: string, input: LimitedInput): number | undefined {
+  const read = reader.number(path, label);
+  if (!read) return undefined;
+  if (!Number.isInteger(read.si) || read.si < 1) {
+    reader.findings.error(read.at, `the ${label} must be a whole number, 1 or more, got ${read.text}`);
+    return undefined;
+  }
+  return limited(reader, read, input, label)?.si;
+}
+
+/** A fraction inside the range `check` allows (worded by `rule`) and the input's limits, or undefined. */
+function share(reader: Reader, path: Path, label: string, check: (x: number) => boolean, rule: string, input: LimitedInput): Read | undefined {
   const read = reader.scalar(path, 'fraction', label);
   if (read && !check(read.si)) {
     reader.findings.error(read.at, `the ${label} ${rule}, got ${read.text}`);
     return undefined;
   }
-  return read;
+  return limited(reader, read, input, label);
 }
 
-/** A temperature at which water is liquid at 1 atm or above: from 0 °C. */
-function liquidWaterTemperature(reader: Reader, path: Path, label: string): Read | undefined {
+/** A temperature above absolute zero and within the input's limits, or undefined. */
+function temperature(reader: Reader, path: Path, label: string, input: LimitedInput): Read | undefined {
+  return limited(reader, readTemperature(reader, path, label), input, label);
+}
+
+/** A temperature at which water is liquid at 1 atm or above: from 0 °C, within the input's limits. */
+function liquidWaterTemperature(reader: Reader, path: Path, label: string, input: LimitedInput): Read | undefined {
   const read = readTemperature(reader, path, label);
   if (read && read.si < ZERO_C) {
     reader.findings.error(read.at, `the ${label} must be 0 °C or above, where the water is liquid, got ${read.text}`);
     return undefined;
   }
-  return read;
+  return limited(reader, read, input, label);
 }
 
 function electrical(reader: Reader): ElectricalInput | undefined {
   const at = (key: string) => P('electrical', key);
-  const cellsPerStack = count(reader, at('cells-per-stack'), 'number of cells per stack');
-  const stacksInSeries = count(reader, at('stacks-in-series'), 'number of stacks in series');
-  const strings = count(reader, at('strings-in-parallel'), 'number of strings in parallel');
+  const cellsPerStack = count(reader, at('cells-per-stack'), 'number of cells per stack', 'electrical-count');
+  const stacksInSeries = count(reader, at('stacks-in-series'), 'number of stacks in series', 'electrical-count');
+  const strings = count(reader, at('strings-in-parallel'), 'number of strings in parallel', 'electrical-count');
   let window: ElectricalInput['busVoltageWindowV'];
   if (reader.has(at('dc-bus-window'))) {
     if (reader.has(at('stacks-in-series'))) {
       reader.findings.error(at('dc-bus-window'), 'give stacks-in-series or dc-bus-window, not both', 'key');
       return undefined;
     }
-    const from = reader.scalar([...at('dc-bus-window'), 'from'], 'voltage', 'lowest DC bus voltage');
-    const to = reader.scalar([...at('dc-bus-window'), 'to'], 'voltage', 'highest DC bus voltage');
+    const bus = (key: 'from' | 'to', label: string) => limited(reader, reader.scalar([...at('dc-bus-window'), key], 'voltage', label), 'bus-voltage', label);
+    const from = bus('from', 'lowest DC bus voltage');
+    const to = bus('to', 'highest DC bus voltage');
     if (!from || !to) return undefined;
-    if (!(from.si > 0)) {
-      reader.findings.error(from.at, `the lowest DC bus voltage must be above zero, got ${from.text}`);
-      return undefined;
-    }
     if (!(to.si > from.si)) {
       reader.findings.error(to.at, `the DC bus window must end above where it starts (${from.text}), got ${to.text}`);
       return undefined;
@@ -108,9 +115,9 @@ function recycle(reader: Reader, tech: Technology): PlantInput['anodeRecycle'] |
     );
     return undefined;
   }
-  const ratio = share(reader, P('anode-recycle', 'ratio'), 'recycle ratio', (x) => x > 0 && x <= 0.95, 'lies above 0 and at most 0.95 (95 %)');
+  const ratio = share(reader, P('anode-recycle', 'ratio'), 'recycle ratio', (x) => x > 0 && x < 1, 'lies in (0, 1)', 'recycle-ratio');
   const tolerance = reader.has(P('anode-recycle', 'tolerance'))
-    ? share(reader, P('anode-recycle', 'tolerance'), 'recycle tolerance', (x) => x >= 1e-14 && x <= 1e-3, 'lies between 1e-14 and 1e-3')
+    ? share(reader, P('anode-recycle', 'tolerance'), 'recycle tolerance', (x) => x > 0, 'must be above zero', 'recycle-tolerance')
     : undefined;
   if (!ratio || (reader.has(P('anode-recycle', 'tolerance')) && !tolerance)) return undefined;
   return { ratio: ratio.si, tolerance: tolerance?.si ?? 1e-9 };
@@ -120,11 +127,11 @@ function oxidiser(reader: Reader): PlantInput['offGasOxidiser'] | undefined {
   const at = (key: string) => P('off-gas-oxidiser', key);
   if (!reader.has(P('off-gas-oxidiser'))) return null;
   const kind = reader.text(at('oxidant')) as OffGasOxidant['kind'] | undefined;
-  const limit = readTemperature(reader, at('material-limit'), 'material limit of the oxidiser');
+  const limit = temperature(reader, at('material-limit'), 'material limit of the oxidiser', 'oxidiser-material-limit');
   let oxidant: OffGasOxidant | undefined;
   if (kind === 'fresh-air') {
     if (!reader.has(at('air-ratio'))) reader.findings.error(at('air-ratio'), 'fresh air needs air-ratio: oxygen fed per oxygen that complete combustion of the off-gas needs, e.g. 1.5', 'missing');
-    const ratio = share(reader, at('air-ratio'), 'air ratio of the oxidiser', (x) => x > 1 && x <= 100, 'must be above 1 (more oxygen than complete combustion needs) and at most 100');
+    const ratio = share(reader, at('air-ratio'), 'air ratio of the oxidiser', (x) => x > 1, 'must be above 1 (more oxygen than complete combustion needs)', 'oxidiser-air-ratio');
     if (ratio) oxidant = { kind, airRatio: ratio.si };
   } else if (kind === 'air-electrode-exhaust') {
     if (reader.has(at('air-ratio'))) reader.findings.error(at('air-ratio'), 'air-ratio applies to fresh air; the air-electrode exhaust is burnt with the off-gas as it comes', 'key');
@@ -141,12 +148,8 @@ function heatRecovery(reader: Reader): PlantInput['heatRecovery'] | undefined {
     reader.findings.error(P('heat-recovery'), "the heat recovery cools the oxidiser's exhaust: give plant.off-gas-oxidiser too", 'key');
     return undefined;
   }
-  const exit = liquidWaterTemperature(reader, at('exhaust-exit-temperature'), 'exhaust exit temperature');
-  const approach = reader.scalar(at('minimum-approach'), 'temperature-difference', 'minimum approach temperature');
-  if (approach && !(approach.si > 0 && approach.si <= 500)) {
-    reader.findings.error(approach.at, `the minimum approach temperature must be above 0 K and at most 500 K, got ${approach.text}`);
-    return undefined;
-  }
+  const exit = liquidWaterTemperature(reader, at('exhaust-exit-temperature'), 'exhaust exit temperature', 'exhaust-exit-temperature');
+  const approach = limited(reader, reader.scalar(at('minimum-approach'), 'temperature-difference', 'minimum approach temperature'), 'minimum-approach', 'minimum approach temperature');
   const stackHeat = (reader.text(at('stack-heat')) as 'recovered' | 'rejected' | undefined) ?? 'rejected';
   if (!exit || (reader.has(at('minimum-approach')) && !approach)) return undefined;
   return { exhaustExitTemperatureK: exit.si, stackHeat, minimumApproachK: approach?.si ?? 20 };
@@ -156,8 +159,8 @@ function heatRecovery(reader: Reader): PlantInput['heatRecovery'] | undefined {
 function blower(reader: Reader, airPressureBar: number | undefined): PlantInput['airBlower'] | undefined {
   const at = (key: string) => P('air-blower', key);
   if (!reader.has(P('air-blower'))) return null;
-  const efficiency = share(reader, at('isentropic-efficiency'), 'isentropic efficiency of the blower', (x) => x > 0 && x <= 1, 'lies in (0, 1]');
-  const inlet = reader.has(at('inlet-pressure')) ? reader.scalar(at('inlet-pressure'), 'pressure', 'blower inlet pressure') : undefined;
+  const efficiency = share(reader, at('isentropic-efficiency'), 'isentropic efficiency of the blower', (x) => x > 0 && x <= 1, 'lies in (0, 1]', 'isentropic-efficiency');
+  const inlet = reader.has(at('inlet-pressure')) ? limited(reader, reader.scalar(at('inlet-pressure'), 'pressure', 'blower inlet pressure'), 'pressure', 'blower inlet pressure') : undefined;
   if (!efficiency || (reader.has(at('inlet-pressure')) && !inlet)) return undefined;
   const inletBar = inlet ? inlet.si / PA_PER_BAR : STANDARD_ATMOSPHERE_BAR;
   if (airPressureBar !== undefined && !(airPressureBar > inletBar)) {
@@ -174,20 +177,15 @@ function blower(reader: Reader, airPressureBar: number | undefined): PlantInput[
 function compression(reader: Reader, fuelPressureBar: number | undefined): CompressionInput | null | undefined {
   const at = (key: string) => P('hydrogen-compression', key);
   if (!reader.has(P('hydrogen-compression'))) return null;
-  const delivery = reader.scalar(at('delivery-pressure'), 'pressure', 'hydrogen delivery pressure');
-  const beyond = delivery && limitProblem('pressure', 'hydrogen delivery pressure', delivery);
-  if (delivery && beyond) {
-    reader.findings.error(delivery.at, beyond);
-    return undefined;
-  }
+  const delivery = limited(reader, reader.scalar(at('delivery-pressure'), 'pressure', 'hydrogen delivery pressure'), 'pressure', 'hydrogen delivery pressure');
   if (delivery && fuelPressureBar !== undefined && !(delivery.si / PA_PER_BAR > fuelPressureBar)) {
     reader.findings.error(delivery.at, `the delivery pressure must be above the hydrogen side's pressure (conditions.fuel-electrode-pressure, ${String(Number(fuelPressureBar.toPrecision(6)))} bar), got ${delivery.text}`);
     return undefined;
   }
-  const stages = count(reader, at('stages'), 'number of compression stages', 10);
-  const efficiency = share(reader, at('isentropic-efficiency'), 'isentropic efficiency', (x) => x > 0 && x <= 1, 'lies in (0, 1]');
-  const inlet = reader.has(at('inlet-temperature')) ? liquidWaterTemperature(reader, at('inlet-temperature'), 'compressor inlet temperature') : undefined;
-  const intercool = reader.has(at('intercooling-temperature')) ? liquidWaterTemperature(reader, at('intercooling-temperature'), 'intercooling temperature') : undefined;
+  const stages = count(reader, at('stages'), 'number of compression stages', 'compression-stages');
+  const efficiency = share(reader, at('isentropic-efficiency'), 'isentropic efficiency', (x) => x > 0 && x <= 1, 'lies in (0, 1]', 'isentropic-efficiency');
+  const inlet = reader.has(at('inlet-temperature')) ? liquidWaterTemperature(reader, at('inlet-temperature'), 'compressor inlet temperature', 'compressor-gas-temperature') : undefined;
+  const intercool = reader.has(at('intercooling-temperature')) ? liquidWaterTemperature(reader, at('intercooling-temperature'), 'intercooling temperature', 'compressor-gas-temperature') : undefined;
   if (!delivery || stages === undefined || !efficiency) return undefined;
   if ((reader.has(at('inlet-temperature')) && !inlet) || (reader.has(at('intercooling-temperature')) && !intercool)) return undefined;
   const inletK = inlet?.si ?? ZERO_C + 40;
@@ -209,11 +207,11 @@ export function readPlant(reader: Reader, tech: Technology, mode: Mode, conditio
   }
   const other = (key: string) => MODE_OF[key] !== undefined && MODE_OF[key] !== mode;
   const layout = electrical(reader);
-  const supply = (key: 'fuel' | 'air', label: string) => readTemperature(reader, P('feed-temperatures', key), label);
+  const supply = (key: 'fuel' | 'air', label: string) => temperature(reader, P('feed-temperatures', key), label, 'feed-temperature');
   const fuel = supply('fuel', 'fuel supply temperature');
   const air = supply('air', 'air supply temperature');
-  const water = liquidWaterTemperature(reader, P('feed-temperatures', 'water'), 'feed-water temperature');
-  const loss = share(reader, P('heat-loss'), 'heat loss', (x) => x >= 0 && x < 1, 'lies in [0, 1)');
+  const water = liquidWaterTemperature(reader, P('feed-temperatures', 'water'), 'feed-water temperature', 'feed-water-temperature');
+  const loss = share(reader, P('heat-loss'), 'heat loss', (x) => x >= 0 && x < 1, 'lies in [0, 1)', 'heat-loss');
   const values = {
     anodeRecycle: other('anode-recycle') ? null : recycle(reader, tech),
     offGasOxidiser: other('off-gas-oxidiser') ? null : oxidiser(reader),

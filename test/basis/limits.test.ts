@@ -45,7 +45,10 @@ function dimensionOf(field: string): Dimension {
   if (field.startsWith(CASE)) return dimensionOf(field.slice(CASE.length));
   if (/temperature|dew-point|\.at$|sweep\.(from|to)/.test(field) && !/rise|sensitivity/.test(field)) return 'temperature';
   if (/rise|sensitivity\.temperature/.test(field)) return 'temperature-difference';
-  if (/pressure$/.test(field) && field.startsWith('conditions')) return 'pressure';
+  if (/pressure$/.test(field) && /^(conditions|plant)\./.test(field)) return 'pressure';
+  if (/minimum-approach$/.test(field)) return 'temperature-difference';
+  if (/material-limit$/.test(field)) return 'temperature';
+  if (/dc-bus-window/.test(field)) return 'voltage';
   const byKey: Record<string, Dimension> = {
     'cell.crossover-allowance': 'voltage',
     'operating-point.current-density': 'current-density',
@@ -90,7 +93,7 @@ function caseBaseFor(field: string): { text: (value: string | number) => string;
 /** A valid basis for the field, and the path at which to write its value. */
 function baseFor(field: string): { text: (value: string | number) => string; path: string } {
   if (field.startsWith(CASE)) return caseBaseFor(field.slice(CASE.length));
-  const electrolysis = /steam-conversion|sweep-ratio|target-hydrogen|koh-mass-fraction/.test(field);
+  const electrolysis = /steam-conversion|sweep-ratio|target-hydrogen|koh-mass-fraction|hydrogen-compression/.test(field);
   const edits: Record<string, unknown> = {};
   let path = field;
   if (field === 'operating-point.air-ratio') edits['operating-point.air-utilization'] = undefined;
@@ -114,6 +117,28 @@ function baseFor(field: string): { text: (value: string | number) => string; pat
     edits['streams.air-electrode.humidity.relative-humidity'] = '60 %';
     edits['streams.air-electrode.humidity.at'] = '25 C';
   }
+  /**
+   * A block written key by key (the document model sets a mapping given whole as one value, which
+   * a later key cannot enter); `replace` removes the scaffold's block first (the scaffold has no plant section).
+   */
+  const block = (at: string, keys: Record<string, unknown>, replace = false) => {
+    if (replace) edits[at] = undefined;
+    for (const [key, value] of Object.entries(keys)) edits[`${at}.${key}`] = value;
+  };
+  if (field === 'streams.fuel-electrode.pre-reforming.inlet-temperature') block('streams.fuel-electrode.pre-reforming', { kind: 'adiabatic', 'inlet-temperature': '520 C' }, true);
+  // The plant's blocks with what each requires besides the value under test.
+  if (field.startsWith('plant.electrical.dc-bus-window.')) block('plant.electrical.dc-bus-window', { from: '600 V', to: '800 V' });
+  if (field.startsWith('plant.anode-recycle.')) block('plant.anode-recycle', { ratio: 0.6 });
+  if (field.startsWith('plant.off-gas-oxidiser.') || field.startsWith('plant.heat-recovery.')) {
+    const fresh = field.endsWith('air-ratio');
+    block('plant.off-gas-oxidiser', { oxidant: fresh ? 'fresh-air' : 'air-electrode-exhaust', ...(fresh ? { 'air-ratio': 1.5 } : {}), 'material-limit': '950 C' });
+  }
+  if (field.startsWith('plant.heat-recovery.')) block('plant.heat-recovery', { 'exhaust-exit-temperature': '90 C' });
+  if (field.startsWith('plant.air-blower.')) {
+    edits['conditions.air-electrode-pressure'] = '3 bar';
+    block('plant.air-blower', { 'isentropic-efficiency': 0.7 });
+  }
+  if (field.startsWith('plant.hydrogen-compression.')) block('plant.hydrogen-compression', { 'delivery-pressure': '30 bar', stages: 2, 'isentropic-efficiency': 0.75 });
   if (field === 'mixtures.*.composition.*') path = 'mixtures.site-natural-gas.composition.N2';
   // An inline composition is written whole, the value in it (the YAML document model sets a mapping as one value).
   const inline: Record<string, [composition: string, fixed: Record<string, number>, species: string]> = {
