@@ -82,10 +82,13 @@ describe('what the help texts say', () => {
     for (const key of keys) expect(Object.keys(schema.properties), key).toContain(key);
   });
 
-  it('reaction: 4 electrons per O2 by default (H2 + 1/2 O2 -> H2O gives 2)', async () => {
-    expect(help('reaction')).toMatch(/Electrons default to 4 per O2 consumed or produced\./);
+  it('reaction: 4 electrons per O2 by default (H2 + 1/2 O2 -> H2O gives 2), none without O2 (the shift)', async () => {
+    const text = help('reaction').replace(/\s+/g, ' ');
+    expect(text).toMatch(/Electrons default to 4 per O2 consumed or produced; a reaction without O2 \(reforming, shift\) passes none/);
     const r = JSON.parse((await run(['reaction', 'H2 + 1/2 O2 -> H2O', '--temperature', '298.15K', '--json'])).out) as { electrons: number };
     expect(r.electrons).toBe(2);
+    const shift = JSON.parse((await run(['reaction', 'CO + H2O -> CO2 + H2', '--temperature', '1000K', '--json'])).out) as { electrons: number | null };
+    expect(shift.electrons).toBeNull();
   });
 
   it('species: g = h − Ts', async () => {
