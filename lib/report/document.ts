@@ -22,7 +22,7 @@ import { inputsSection, type InputsSection } from './sections/inputs.ts';
 import { assumptionsSection, type AssumptionsSection } from './sections/assumptions.ts';
 import { blockFlowDiagram } from './flow-diagram.ts';
 import type { TrustedHtml } from './trusted-html.ts';
-import { figureTables, heatAndMaterialBalance, plantTables, streamTable, type FigureTable } from './sections/results-tables.ts';
+import { figureTables, heatAndMaterialBalanceParts, plantTables, streamTable, type FigureTable } from './sections/results-tables.ts';
 import { hazardsSection, type HazardsSection } from './sections/hazards.ts';
 import { casesSection, type CasesSection } from './sections/cases.ts';
 import { verificationSection, type VerificationSection } from './sections/verification.ts';
@@ -79,7 +79,7 @@ export interface DocumentView {
   inputs: InputsSection;
   assumptions: AssumptionsSection;
   method: MethodStep[];
-  results: { groups: LineGroup[]; figures: FigureTable[]; streams: Table; plant: FigureTable[]; balance: Table; diagram: TrustedHtml | null };
+  results: { groups: LineGroup[]; figures: FigureTable[]; streams: Table; plant: FigureTable[]; balance: Table[]; diagram: TrustedHtml | null };
   cases: CasesSection;
   figures: Figure[];
   hazards: HazardsSection;
@@ -124,7 +124,7 @@ export function documentView(input: DocumentInput, options: DocumentOptions): Do
     inputs: inputsSection(basis, results),
     assumptions: assumptionsSection(basis),
     method,
-    results: { groups: resultLines(results, basis, book), figures: figureTables(results), streams: streamTable(results), plant: plantTables(results), balance: heatAndMaterialBalance(results), diagram: blockFlowDiagram(results) },
+    results: { groups: resultLines(results, basis, book), figures: figureTables(results), streams: streamTable(results), plant: plantTables(results), balance: heatAndMaterialBalanceParts(results), diagram: blockFlowDiagram(results) },
     cases: casesSection(results, basis, book),
     figures: figures(results),
     hazards: hazardsSection(results),

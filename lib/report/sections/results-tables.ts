@@ -227,9 +227,35 @@ export function streamTable(r: Results): Table {
   return streamColumns('streams', 'Streams', r.streams, (s) => s.name);
 }
 
-/** The heat-and-material balance: every numbered stream of the plant (enthalpy flows absolute, heats of formation included). */
+/** The heat-and-material balance: every numbered stream of the plant (enthalpy flows absolute, heats of formation included), in one table (`cellbasis calc`). */
 export function heatAndMaterialBalance(r: Results): Table {
   return streamColumns('heat-and-material-balance', 'Heat-and-material balance', r.plant.streams, (s) => `${s.number}. ${s.name}`);
+}
+
+/**
+ * The most stream columns one table of the balance holds in the document: with the label column,
+ * seven fit the text column on screen (780 px) and of A4 in print (673 px) without scrolling or
+ * shrinking the page; thirteen streams in one table (the solid oxide plant) were 1089 px wide.
+ */
+const BALANCE_STREAMS_PER_TABLE = 7;
+
+/**
+ * The heat-and-material balance as the document shows it: consecutive tables of at most
+ * BALANCE_STREAMS_PER_TABLE streams each, split evenly (13 streams: 7 and 6), each listing the
+ * species of its own streams and offering its own CSV (one table, as heatAndMaterialBalance, when the streams fit).
+ */
+export function heatAndMaterialBalanceParts(r: Results): Table[] {
+  const streams = r.plant.streams;
+  const count = Math.ceil(streams.length / BALANCE_STREAMS_PER_TABLE);
+  if (count <= 1) return [heatAndMaterialBalance(r)];
+  const size = Math.ceil(streams.length / count);
+  const tables: Table[] = [];
+  for (let from = 0; from < streams.length; from += size) {
+    const part = streams.slice(from, from + size);
+    const numbers = `${part[0]!.number} to ${part[part.length - 1]!.number}`;
+    tables.push(streamColumns(`heat-and-material-balance-${tables.length + 1}`, `Heat-and-material balance, streams ${numbers}`, part, (s) => `${s.number}. ${s.name}`));
+  }
+  return tables;
 }
 
 const kW = (w: number) => formatQuantity(w / 1000, 'kW');
