@@ -402,7 +402,8 @@ function plantEquations(r: Results): EquationEntry[] {
         bus: { lhs: sym('V_\\mathrm{bus}'), symbols: { m: sym('n_\\mathrm{series}'), Vs }, rhs: (q, op) => `${q.m}${op.times}${q.Vs}` },
         current: { lhs: sym('I_\\mathrm{bus}'), symbols: { k: sym('n_\\mathrm{strings}'), Icell: sym('I_\\mathrm{cell}') }, rhs: (q, op) => `${q.k}${op.times}${q.Icell}` },
       },
-      (show) => `${show('stack')}, \\qquad ${show('bus')}, \\qquad ${show('current')}, \\qquad I_\\mathrm{stack} = I_\\mathrm{string} = I_\\mathrm{cell}`,
+      // Two lines (voltages, then currents): on one line the four relations were wider than the A4 text column.
+      (show) => `\\begin{gathered} ${show('stack')}, \\qquad ${show('bus')}, \\\\ ${show('current')}, \\qquad I_\\mathrm{stack} = I_\\mathrm{string} = I_\\mathrm{cell} \\end{gathered}`,
     ),
   ];
   if (!r.plant.power) return out;
@@ -418,7 +419,8 @@ function plantEquations(r: Results): EquationEntry[] {
         },
       },
       (show) =>
-        `${show('steam')}, \\quad \\Delta h_\\mathrm{liq} = h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{s}) - h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{w}), \\quad L = h^\\circ_\\mathrm{H_2O}(T_\\mathrm{s}) - h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{s}), \\quad \\Delta h_\\mathrm{vap} = h^\\circ_\\mathrm{H_2O}(T_\\mathrm{mix}) - h^\\circ_\\mathrm{H_2O}(T_\\mathrm{s})`,
+        // One relation a line: on one line the four were 848 px wide, more than the A4 text column (673 px), and Chromium would shrink every printed page to fit.
+        `\\begin{gathered} ${show('steam')}, \\\\ \\Delta h_\\mathrm{liq} = h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{s}) - h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{w}), \\\\ L = h^\\circ_\\mathrm{H_2O}(T_\\mathrm{s}) - h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{s}), \\\\ \\Delta h_\\mathrm{vap} = h^\\circ_\\mathrm{H_2O}(T_\\mathrm{mix}) - h^\\circ_\\mathrm{H_2O}(T_\\mathrm{s}) \\end{gathered}`,
     ),
     shown('oxidiser-balance', '\\sum_j \\dot n_j\\, h^\\circ_j(T_\\mathrm{ad}) = \\sum_{\\mathrm{off\\text{-}gas}} \\dot n_i\\, h^\\circ_i(T) + \\sum_{\\mathrm{oxidant}} \\dot n_k\\, h^\\circ_k(T_\\mathrm{ox}), \\qquad \\min G \\text{ at fixed } H, p'),
     entry('delivered-heat', {
