@@ -42,6 +42,16 @@ interface PageReport {
 /** The text column of A4 paper less the printer's 16 mm side margins (lib/publish/pdf-page.ts), CSS px; Letter's is wider. */
 const A4_COLUMN_PX = Math.round(((210 - 2 * 16) * 96) / 25.4);
 
+/**
+ * What a page of the site is. An issued revision's page (projects/<id>/rev-X/index.html) is its
+ * register page since issuing (issue 20): the revision's facts, sign-off and links to the
+ * document as issued, which the site carries beside it as rev-X/document.html, a full document.
+ */
+function kindOf(path: string): 'index' | 'register' | 'document' {
+  if (path === 'index.html') return 'index';
+  return /\/rev-[^/]+\/index\.html$/.test(path) ? 'register' : 'document';
+}
+
 describe.skipIf(!available && !process.env.CI)('the built site in Chromium, from disk', () => {
   let root: string;
   let site: string;
@@ -121,8 +131,10 @@ describe.skipIf(!available && !process.env.CI)('the built site in Chromium, from
     return report;
   }
 
-  it('opened every page: the index, four drafts and two issued revisions', () => {
-    expect([...reports.keys()].length).toBe(7);
+  it('opened every page: the index, four drafts, and of each of the two issued revisions its register page and its document', () => {
+    const pages = [...reports.keys()];
+    expect(pages.filter((p) => kindOf(p) === 'register').map((p) => p.replace(/index\.html$/, 'document.html'))).toEqual(pages.filter((p) => /\/rev-/.test(p) && kindOf(p) === 'document'));
+    expect(pages.map(kindOf).sort()).toEqual(['document', 'document', 'document', 'document', 'document', 'document', 'index', 'register', 'register']);
   });
 
   it('logs no console error and fails no request', () => {
@@ -142,7 +154,10 @@ describe.skipIf(!available && !process.env.CI)('the built site in Chromium, from
 
   it('draws every chart: each canvas has paint on it, at its fixed size', () => {
     for (const [path, r] of reports) {
-      if (path === 'index.html') continue;
+      if (kindOf(path) !== 'document') {
+        expect(r.canvases, path).toEqual([]);
+        continue;
+      }
       expect(r.canvases.length, path).toBeGreaterThanOrEqual(6);
       for (const c of r.canvases) {
         expect(c.painted, `${path} ${c.id}`).toBeGreaterThan(2000);
@@ -151,23 +166,27 @@ describe.skipIf(!available && !process.env.CI)('the built site in Chromium, from
     }
   });
 
-  it('has every section of the document, and the index its table', () => {
+  it('has every section of the document, the index its table, and a register page its title block and the revision', () => {
     for (const [path, r] of reports) {
-      if (path === 'index.html') expect(r.sections).toContain('portfolio');
+      const kind = kindOf(path);
+      if (kind === 'index') expect(r.sections).toContain('portfolio');
+      else if (kind === 'register') expect(r.sections, path).toEqual(expect.arrayContaining(['title-block', 'revision']));
       else for (const id of DOCUMENT_SECTIONS) expect(r.sections, `${path} #${id}`).toContain(id);
     }
   });
 
   it('writes the tick labels of the charts as the document writes numbers: minus sign U+2212, no thousands comma', () => {
     for (const [path, r] of reports) {
-      if (path === 'index.html') continue;
+      if (kindOf(path) !== 'document') continue;
       expect(r.ticks.length, path).toBeGreaterThan(50);
       expect(r.ticks.filter((t) => /:.*[-,]/.test(t)), path).toEqual([]);
     }
   });
 
   it('fits every table of a document into the text column on screen, so none is cut off at the right', () => {
-    for (const [path, r] of reports) if (path !== 'index.html') expect(r.overflowing, path).toEqual([]);
+    // Every page's offenders at once, not only the first page's.
+    const offenders = [...reports].filter(([path, r]) => path !== 'index.html' && r.overflowing.length > 0).map(([path, r]) => [path, r.overflowing]);
+    expect(Object.fromEntries(offenders)).toEqual({});
   });
 
   it('marks every page ready for the PDF printer', () => {
@@ -176,9 +195,10 @@ describe.skipIf(!available && !process.env.CI)('the built site in Chromium, from
 
   it('prints at full size: nothing is wider than the text column of A4, which would make Chromium shrink the whole document', () => {
     // One data table of eleven columns once made every page of a document print at 65 %.
+    const offenders = [...reports].filter(([path, r]) => path !== 'index.html' && r.printWidth.wider.length > 0).map(([path, r]) => [path, r.printWidth.wider]);
+    expect(Object.fromEntries(offenders)).toEqual({});
     for (const [path, r] of reports) {
       if (path === 'index.html') continue;
-      expect(r.printWidth.wider, path).toEqual([]);
       expect(r.printWidth.scrollWidth, path).toBeLessThanOrEqual(r.printWidth.column);
       expect(r.printWidth.column, path).toBe(A4_COLUMN_PX);
     }
