@@ -72,6 +72,8 @@ export const CALC_SECTIONS: readonly CalcSection[] = [
   { name: 'oxidiser-and-heat-recovery', title: 'Off-gas oxidiser, heat recovery and combined heat and power', standard: true, table: plantTable('oxidiser-and-heat-recovery') },
   { name: 'plant-energy-balance', title: 'Energy balance of the plant', standard: false, table: plantTable('plant-energy-balance') },
   { name: 'heat-and-material-balance', title: 'Heat-and-material balance', standard: false, table: async ({ results }) => (await resultsTables()).heatAndMaterialBalance(results) },
+  // The document splits a balance of more than seven streams into parts (lib/report/sections/results-tables.ts), each with its own CSV.
+  ...[1, 2].map((n) => ({ name: `heat-and-material-balance-${n}`, title: `Heat-and-material balance, part ${n}`, standard: false, table: async ({ results }: { results: Results }) => (await resultsTables()).heatAndMaterialBalanceParts(results).find((t) => t.name === `heat-and-material-balance-${n}`) ?? null })),
   { name: 'findings', title: 'Findings for the reviewer', standard: true, table: async ({ basis, results }) => (await summary()).findingsTable(results, basis) },
   { name: 'cell-and-feeds', title: 'The cell and its feeds', standard: false, table: async ({ basis, results }) => (await inputs()).inputsSection(basis, results).description },
   { name: 'inputs', title: 'Design inputs', standard: false, table: async ({ basis, results }) => (await inputs()).inputsSection(basis, results).values },
