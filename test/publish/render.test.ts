@@ -53,8 +53,10 @@ describe('inlineAssets', () => {
   it('keeps links to other documents such as the issued PDF', () => {
     expect(single).toContain('href="document.pdf"');
   });
-  it('matches renderStandaloneHtml', () => {
-    expect(renderStandaloneHtml(input)).toBe(single);
+  it('matches renderStandaloneHtml, whose tables carry their CSV inside the file', () => {
+    // Nothing stands beside a standalone document, so its CSV are data: URIs (tables: 'inline').
+    expect(renderStandaloneHtml(input)).toBe(inlineAssets(renderDocumentHtml(input, { assetBase: '', tables: 'inline' }), assets));
+    expect(renderStandaloneHtml(input)).not.toContain('href="tables/');
   });
   it('refuses an asset URL that leads outside the asset folder or names nothing', () => {
     writeFileSync(join(dir, 'secret.css'), 'body{}');
