@@ -34,6 +34,7 @@
  * For tests of interruption, `pauseAt` names a step (BUILD_STEPS) at which the build stops and
  * waits until it is killed; the CLI takes it from CELLBASIS_BUILD_PAUSE.
  */
+import { takeTableFileError } from './table-files.ts';
 import { existsSync, lstatSync, mkdirSync, readdirSync, readlinkSync, realpathSync, renameSync, rmSync, symlinkSync, unlinkSync } from 'node:fs';
 import { randomBytes } from 'node:crypto';
 import { basename, dirname, join, relative, resolve } from 'node:path';
@@ -220,6 +221,8 @@ async function runEleventy(output: string): Promise<void> {
     if (user) throw user;
     // A full disk, a read-only folder: said by buildSite, with the folder it concerns.
     if (fileErrorIn(error)) throw error;
+    const tableError = takeTableFileError();
+    if (tableError) throw tableError;
     throw new UserError(`the site could not be rendered: ${(error as Error).message}`, EXIT_INTERNAL);
   }
 }

@@ -7,6 +7,7 @@
  * The files are written when a page's view model is made (`withTableFiles`), which the site
  * build, Eleventy run on its own and `cellbasis serve` all do through the model's pages.
  */
+import { isFileError, type FileError } from '../core/file-errors.ts';
 import { mkdirSync, renameSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import type { DocumentView } from '../report/document.ts';
@@ -38,8 +39,24 @@ export function withTableFiles<P extends { view(): DocumentView }>(pages: readon
     ...page,
     view: () => {
       const view = page.view();
-      writeTableFiles(out, view);
+      try {
+        writeTableFiles(out, view);
+      } catch (error) {
+        // Written while a template renders, whose error wrapping loses the error's code: kept
+        // here so that the build reports a full disk or a read-only folder as such.
+        if (isFileError(error)) tableFileErrors.push(error);
+        throw error;
+      }
       return view;
     },
   }));
+}
+
+const tableFileErrors: FileError[] = [];
+
+/** The first file-system error met writing table files since the last call, or null. */
+export function takeTableFileError(): FileError | null {
+  const first = tableFileErrors[0] ?? null;
+  tableFileErrors.length = 0;
+  return first;
 }
