@@ -18,7 +18,7 @@ import { getSpecies } from '../thermo/species-data.ts';
 import { minimiseGibbs } from './gibbs-minimiser.ts';
 import { elementAmounts, elementsOfFeed, gasGibbsOverRT, systemFor } from './species-set.ts';
 import { validateFeed } from './equilibrate.ts';
-import { UserError, ConvergenceError } from '../core/errors.ts';
+import { UserError, ConvergenceError, EXIT_VALIDATION } from '../core/errors.ts';
 
 function lnK(temperatureK: number, products: [string, number][], reactants: [string, number][]): number {
   let dG = 0;
@@ -82,6 +82,26 @@ export function equilibriumCarbonActivity(feed: Readonly<Record<string, number>>
   return r.carbonActivity;
 }
 
+/** The largest steam-to-carbon ratio the limit is searched up to; far beyond any reformer's (2–4). */
+export const STEAM_TO_CARBON_SEARCH_LIMIT = 64;
+
+/**
+ * No steam-to-carbon ratio up to STEAM_TO_CARBON_SEARCH_LIMIT keeps the equilibrated gas free of
+ * carbon. A fact about the fuel, not a failure of the search: steam adds H2O, which is already
+ * fully oxidised, so it dilutes but does not remove an oxygen deficit. A fuel short of oxygen for
+ * its carbon at a low temperature (where CH4 + CO2 ⇌ 2 C + 2 H2O runs forward) keeps a_C > 1 far
+ * beyond any practical S/C, falling only as the gas is diluted.
+ */
+export class SteamLimitNotReached extends UserError {
+  constructor(readonly temperatureK: number, readonly carbonActivity: number) {
+    super(
+      `at ${temperatureK.toFixed(2)} K the equilibrated fuel gas still has carbon activity ${carbonActivity.toPrecision(3)} at a steam-to-carbon ratio of ${STEAM_TO_CARBON_SEARCH_LIMIT}: no practical steam-to-carbon ratio keeps it free of carbon`,
+      EXIT_VALIDATION,
+    );
+    this.name = 'SteamLimitNotReached';
+  }
+}
+
 export interface SteamLimit {
   /** Least S/C at which the equilibrated gas has carbon activity ≤ 1 (0 if the dry fuel is already carbon-free). */
   minimumSteamToCarbon: number;
@@ -93,7 +113,8 @@ export interface SteamLimit {
 /**
  * Minimum steam-to-carbon ratio: the root of ln a_C(S/C) = 0, where a_C is the carbon activity of
  * the gas-only equilibrium of fuel + S/C·C·H2O at T, P. a_C falls monotonically as steam is added,
- * so the root is bracketed by doubling and then found by the Illinois variant of regula falsi
+ * so the root is bracketed by doubling (up to STEAM_TO_CARBON_SEARCH_LIMIT, beyond which
+ * SteamLimitNotReached says so) and then found by the Illinois variant of regula falsi
  * (G. Dahlquist and Å. Björck, Numerical Methods, §6.2) to 1e-7 in S/C.
  */
 export function minimumSteamToCarbon(fuel: Readonly<Record<string, number>>, temperatureK: number, pressureBar: number): SteamLimit {
@@ -115,7 +136,7 @@ export function minimumSteamToCarbon(fuel: Readonly<Record<string, number>>, tem
     fLow = fHigh;
     high *= 2;
     iterations++;
-    if (high > 64) throw new ConvergenceError('steam-to-carbon limit', iterations, Math.exp(fHigh), 'carbon activity stays above 1 even at S/C = 64');
+    if (high > STEAM_TO_CARBON_SEARCH_LIMIT) throw new SteamLimitNotReached(temperatureK, Math.exp(fHigh));
     fHigh = f(high);
   }
   let side = 0;

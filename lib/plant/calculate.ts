@@ -393,6 +393,9 @@ function degradationOf({ point, inputs }: Computed): Results['degradation'] {
 /** The findings of the design point and the one the carbon margin adds when it is negative, with the assumptions that bear on them. */
 function findingsOf({ point, inputs, carbon }: Computed, basis: DesignBasis, plantFindings: readonly Finding[]): Results['findings'] {
   const found = [...point.findings, ...plantFindings];
+  for (const reason of carbon.notReached) {
+    found.push(finding('steam-to-carbon-limit-not-reached', 'critical', 'streams.fuel-electrode.steam-to-carbon', reason.message, ['streams.fuel-electrode.fuel', 'conditions.operating-temperature']));
+  }
   if (carbon.margin !== null && carbon.margin < 0) {
     found.push(
       finding(

@@ -89,6 +89,24 @@ describe('findings of the stack calculation', () => {
     expect(r.carbon.maxCarbonActivity!).toBeGreaterThan(1);
   });
 
+  it('a fuel that no practical steam keeps free of carbon: a critical finding at the steam-to-carbon field, no limit and no margin', () => {
+    // The fuel and the hand check of its carbon activity: test/equilibrium/carbon.test.ts (330 K: a_C 0.968 by hand, > 1 computed).
+    const r = calculate(
+      basisFrom('pem', 'power', {
+        'conditions.operating-temperature': '330 K',
+        'streams.fuel-electrode.composition': { H2: 0.041407, CO2: 0.93789, CH3OH: 0.020702 },
+        'operating-point.fuel-utilization': 0.3,
+      }),
+    );
+    const f = r.findings.find((x) => x.code === 'steam-to-carbon-limit-not-reached');
+    expect(f).toMatchObject({ severity: 'critical', path: 'streams.fuel-electrode.steam-to-carbon' });
+    expect(f!.message).toMatch(/^at 330\.00 K the equilibrated fuel gas still has carbon activity 1\.\d+ at a steam-to-carbon ratio of 64/);
+    expect(r.carbon.minimumSteamToCarbonStack).toBeNull();
+    expect(r.headline.minimumSteamToCarbon).toBeNull();
+    expect(r.headline.carbonMargin).toBeNull();
+    expect(resultsSchema.safeParse(r).success).toBe(true);
+  });
+
   it('heat to supply below the thermoneutral voltage is noted (info), at the voltage field', () => {
     const r = calculate(basisFrom('solid-oxide', 'electrolysis', { 'operating-point.cell-voltage': '1.20 V' }));
     expect(r.findings).toHaveLength(1);
