@@ -12,6 +12,9 @@ import { documentView } from '../../lib/report/document.ts';
 import { tablesOf } from '../../lib/report/table-links.ts';
 import { tableCsv } from '../../lib/report/table.ts';
 import { CASES, scaffoldCase } from '../helpers/scaffold-cases.ts';
+import { existsSync, readdirSync, rmSync } from 'node:fs';
+import { join } from 'node:path';
+import { projectsRoot, scaffoldText } from '../helpers/scaffold-basis.ts';
 
 /** The records of a CSV text, by csv-parse, which also checks the CRLF line ends of RFC 4180. */
 function csv(text: string): string[][] {
@@ -316,5 +319,45 @@ describe('compare tables', () => {
     expect(Number(nernst[3])).toBe(before.results.headline.meanNernst_V);
     expect(Number(nernst[4])).toBe(after.results.headline.meanNernst_V);
     expect(Number(nernst[5])).toBe(after.results.headline.meanNernst_V - before.results.headline.meanNernst_V);
+  });
+});
+
+describe('cellbasis check --csv', () => {
+  it('one record per valid basis of the portfolio: its summary and its headline numbers, unrounded, equal to calc --json', async () => {
+    const r = await run(['check', '--csv']);
+    expect(r.code).toBe(0);
+    const [head, ...rows] = csv(r.out);
+    const ids = readdirSync('projects').filter((id) => existsSync(join('projects', id, 'basis.yaml'))).sort();
+    expect(rows.map((row) => row[0])).toEqual(ids);
+    const col = (name: string) => head!.indexOf(name);
+    expect(col('Cell voltage [V]')).toBeGreaterThan(0);
+    for (const row of rows) {
+      const results = JSON.parse((await run(['calc', row[0]!, '--json'])).out);
+      expect(row[col('file')]).toBe(`projects/${row[0]}/basis.yaml`);
+      expect(Number(row[col('Cell voltage [V]')])).toBe(results.headline.cellVoltage_V);
+      expect(Number(row[col('Operating temperature [K]')])).toBe(results.conditions.temperature_K);
+      // A quantity of power mode only is empty for an electrolyser, and the other way round.
+      const production = row[col('Hydrogen production per day [kg/day]')];
+      expect(col('Hydrogen production per day [kg/day]')).toBeGreaterThan(0);
+      expect(production === '').toBe(results.technology.mode === 'power');
+    }
+    // The text of the plain check (the "valid" lines) is not mixed into the CSV.
+    expect(r.out).not.toMatch(/: valid/);
+  });
+
+  it('a basis with errors is left out of the CSV, its errors on stderr, exit 1', async () => {
+    const root = projectsRoot('check-csv', {
+      good: scaffoldText('solid-oxide', 'power', 'good'),
+      bad: scaffoldText('solid-oxide', 'power', 'bad', { 'operating-point.fuel-utilization': 1.7 }),
+    });
+    try {
+      const r = await run(['check', '--csv'], root);
+      expect(r.code).toBe(1);
+      const [, ...rows] = csv(r.out);
+      expect(rows.map((row) => row[0])).toEqual(['good']);
+      expect(r.err).toMatch(/projects\/bad\/basis\.yaml:\d+:\d+: operating-point\.fuel-utilization/);
+    } finally {
+      rmSync(root, { recursive: true, force: true });
+    }
   });
 });
