@@ -73,9 +73,12 @@ export function currentDensitySweep(point: DesignPoint, count = 25): Sweeps['cur
     try {
       cell = operatingVoltage({ ...cellRequest(point), model, currentDensityAPerM2: j });
     } catch (error) {
-      // Past the current density at which the voltage reaches zero (power) the sweep ends.
-      if (error instanceof UserError) break;
-      throw error;
+      if (!(error instanceof UserError)) throw error;
+      // Below the current density the electronic leakage alone carries (a mixed conductor in
+      // electrolysis) no water is split: the sweep starts where the cell is reachable. Past the
+      // current density at which the voltage reaches zero (power) it ends.
+      if (out.length === 0) continue;
+      break;
     }
     const v = cell.cellVoltageV;
     const current = area * j;

@@ -89,6 +89,34 @@ describe('current-density sweep', () => {
   });
 });
 
+describe('current-density sweep of a mixed conductor in electrolysis', () => {
+  // The proton-ceramic electrolysis scaffold, t_ion = 0.90: below the current density that the
+  // electronic leakage (1 − t_ion)·E/ASR alone carries, no water is split and the cell has no
+  // operating point. The sweep (1.6 × the design current density in 25 steps) must start at the
+  // first reachable step, not stop there empty (it did, and the document could not be rendered).
+  const r = calculate(basisFrom('proton-ceramic', 'electrolysis'));
+  const s = r.sweeps.currentDensity;
+  const j0 = r.operatingPoint.currentDensity_A_per_m2;
+  const step = (1.6 * j0) / 25;
+  const asr = r.electrochemistry.areaSpecificResistance_ohm_m2;
+  const t = r.electrochemistry.ionicTransferenceNumber;
+
+  it('starts at the first step past the leakage current density and runs on every step to 1.6 × the design point', () => {
+    expect(t).toBeLessThan(1);
+    expect(s.length).toBeGreaterThan(5);
+    const first = Math.round(s[0]!.currentDensity_A_per_m2 / step);
+    expect(first).toBeGreaterThan(1);
+    s.forEach((p, k) => expect(p.currentDensity_A_per_m2 / (step * (first + k))).toBeCloseTo(1, 12));
+    expect(s[s.length - 1]!.currentDensity_A_per_m2 / (1.6 * j0)).toBeCloseTo(1, 12);
+    // The step before the first is within the leakage at the highest Nernst voltage the cell
+    // sees (inlet or outlet), so it could not split water.
+    const eHigh = Math.max(r.headline.inletNernst_V, r.headline.outletNernst_V);
+    expect(step * (first - 1)).toBeLessThanOrEqual(((1 - t) * eHigh) / asr);
+    // An electrolyser's voltage rises with the current density.
+    for (let k = 1; k < s.length; k++) expect(s[k]!.cellVoltage_V).toBeGreaterThan(s[k - 1]!.cellVoltage_V);
+  });
+});
+
 describe('steam-to-carbon sweep', () => {
   it('carbon activity at the stack temperature is above 1 below the carbon-free limit and below 1 above it', () => {
     const r = calculate(basisFrom('solid-oxide', 'power'));

@@ -300,7 +300,7 @@ function polarisation(r: Results): Draft {
       y: { title: 'Cell voltage (V)' },
       series: [
         { label: 'cell voltage', points: s.map((p) => [p.currentDensity_A_per_m2 / 1e4, p.cellVoltage_V]), style: 0 },
-        { label: r.technology.mode === 'power' ? 'area-mean driving voltage at the design point, t_ion Ē_A − ΔV_x' : 'area-mean driving voltage at the design point, t_ion Ē_A', points: [[0, r.electrochemistry.effectiveNernst_V], [s[s.length - 1]!.currentDensity_A_per_m2 / 1e4, r.electrochemistry.effectiveNernst_V]], style: 2, dashed: true },
+        { label: r.technology.mode === 'power' ? 'area-mean driving voltage at the design point, t_ion Ē_A − ΔV_x' : 'area-mean driving voltage at the design point, t_ion Ē_A', points: [[0, r.electrochemistry.effectiveNernst_V], [Math.max(j, ...s.map((p) => p.currentDensity_A_per_m2 / 1e4)), r.electrochemistry.effectiveNernst_V]], style: 2, dashed: true },
         { label: 'design point', points: [[j, r.headline.cellVoltage_V]], style: 0, marker: true },
       ],
     },
