@@ -233,8 +233,11 @@ describe('cellbasis hazards', () => {
     const warning = JSON.parse((await run(['hazards', DEMO, '--json', '--severity', 'warning'])).out);
     expect(warning.cautions.map((c: { severity: string }) => c.severity).sort()).toEqual(severities.filter((s: string) => s !== 'caution').sort());
     const rows = csv((await run(['hazards', DEMO, '--csv', '--severity', 'Danger'])).out);
-    expect(rows[0]).toEqual(['Severity', 'Caution', 'Id', 'Raised by', 'Standards']);
+    // A hazard register: the caution's whole text is in the CSV (not in the text table's columns).
+    expect(rows[0]).toEqual(['Severity', 'Caution', 'Text', 'Id', 'Raised by', 'Standards']);
     expect(rows.slice(1).map((r) => r[0])).toEqual(Array(count(['danger'])).fill('danger'));
+    const dangers = full.cautions.filter((c: { severity: string }) => c.severity === 'danger');
+    expect(rows.slice(1).map((r) => r[2])).toEqual(dangers.map((c: { text: string }) => c.text));
     const text = await run(['hazards', DEMO, '--severity', 'danger']);
     expect(text.out).toMatch(/^HAZARDS\n\nInformational only/);
     for (const c of full.cautions) {

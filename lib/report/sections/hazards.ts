@@ -24,6 +24,8 @@ export interface CautionItem {
 export interface HazardsSection {
   notice: string;
   cautions: CautionItem[];
+  /** The cautions as a register, for the CSV link under the blocks (the page shows the blocks). */
+  cautionsTable: Table;
   streams: Table;
   substances: Table;
   method: { id: string; text: string }[];
@@ -120,14 +122,15 @@ function raisedBy(a: HazardAssessment, c: Caution): string {
 
 const cautionText = (head: string, get: (c: Caution) => string): RecordColumn<Caution> => ({ head, align: 'left', text: get, data: [{ name: head, unit: '', value: get }] });
 
-/** The cautions as a table (the command line's; the page shows each as a block): severity, title, id, what raised it, its standards. */
+/** The cautions as a table (the command line's, and the CSV under the page's blocks): severity, title (and, in the data, the text), id, what raised it, its standards. */
 export function cautionsTable(a: HazardAssessment, cautions: readonly Caution[] = a.cautions): Table {
   return recordsTable({
     name: 'cautions',
     title: 'Hazard cautions',
     columns: [
       cautionText('Severity', (c) => c.severity),
-      cautionText('Caution', (c) => c.title),
+      // The text is in the data (the CSV of a hazard register) but not in the command line's columns.
+      { head: 'Caution', align: 'left', text: (c) => c.title, data: [{ name: 'Caution', unit: '', value: (c) => c.title }, { name: 'Text', unit: '', value: (c) => c.text }] },
       cautionText('Id', (c) => c.id),
       cautionText('Raised by', (c) => raisedBy(a, c)),
       cautionText('Standards', (c) => c.standards.map(citation).join('; ')),
@@ -149,6 +152,7 @@ export function hazardsSection(r: Results): HazardsSection {
       raisedBy: c.triggeredBy.length ? `Raised by: ${raisedBy(a, c)}` : 'Raised by the basis itself',
       standards: c.standards.map((s) => `${citation(s)}, ${s.title}`),
     })),
+    cautionsTable: cautionsTable(a),
     streams: hazardStreamTable(a.streams),
     substances: substancesTable(a.substances),
     method: a.method,
