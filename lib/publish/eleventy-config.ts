@@ -3,7 +3,7 @@
  * from templates/, our Nunjucks environment (lib/publish/nunjucks-env.ts) as Eleventy's njk
  * library, the site model as the global data `cellbasis` (the drafts paginated by
  * templates/document.njk, the issued revisions' register pages by templates/revision.njk, the
- * portfolio shown by templates/index.njk), the assets and each issued revision's document.html
+ * portfolio shown by templates/index.njk, in the runs whose model writes the index), the assets and each issued revision's document.html
  * and document.pdf copied as they were issued, and the projects' YAML watched by the dev server.
  *
  * Under `cellbasis build` the model arrives checked in the build context; under `cellbasis
@@ -19,7 +19,7 @@ import { listProjects } from '../basis/projects.ts';
 import { ISSUED_FILES, issuedDir } from '../archive/layout.ts';
 import { readIssuedFolder } from '../archive/issued-folder.ts';
 import { UserError } from '../core/errors.ts';
-import { portfolioView } from '../report/portfolio.ts';
+import { INDEX_PATH, portfolioView } from '../report/portfolio.ts';
 import { buildContext } from './build-context.ts';
 import type { EleventyConfig } from './eleventy-api.ts';
 import { nunjucksEnvironment } from './nunjucks-env.ts';
@@ -61,10 +61,11 @@ function issuedCopies(root: string, model: SiteModel | null): Record<string, str
 }
 
 /** The model for one build: as handed over, or loaded now; while serving, problems become the index page. Each page writes its tables' CSV files as it is rendered. */
-function siteData(): SiteModel {
+function siteData(): SiteModel & { indexPages: string[] } {
   const context = buildContext();
   const model = context.model ?? loadedModel();
-  return { ...model, pages: withTableFiles(model.pages, context.output) };
+  // templates/index.njk paginates over indexPages: one page, or none in a run that leaves the index to another.
+  return { ...model, pages: withTableFiles(model.pages, context.output), indexPages: model.writesIndex === false ? [] : [INDEX_PATH] };
 }
 
 function loadedModel(): SiteModel {

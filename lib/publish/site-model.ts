@@ -59,6 +59,8 @@ export interface SiteCopy {
 
 export interface SiteModel {
   pages: PageEntry[];
+  /** Whether this run of Eleventy writes the portfolio index (default: yes; a build writes it in its first run only). */
+  writesIndex?: boolean;
   revisionPages: RevisionPageEntry[];
   copies: SiteCopy[];
   portfolio: PortfolioView;
