@@ -160,6 +160,7 @@ function plantOf(b: PlantBalance): Results['plant'] {
         inletTemperature_K: x.compression.inletTemperatureK,
         intercoolTemperature_K: x.compression.intercoolTemperatureK,
         stages: x.compression.stages,
+        stagesFrom: x.compression.stagesFrom,
         pressureRatioPerStage: x.compression.pressureRatioPerStage,
         isentropicEfficiency: x.compression.isentropicEfficiency,
         flow_mol_per_s: x.compression.flowMolPerS,

@@ -60,6 +60,7 @@
  *  - Hydrogen compression (optional): the fuel-electrode product cooled to the compressor inlet
  *    temperature, its water condensed to saturation (lib/flowsheet/heat-recovery.ts) and the rest
  *    removed by a dryer (no energy counted), then compressed in N intercooled stages of equal ratio
+ *    (N given, or the fewest that keep each stage's ratio at or below a stated maximum, stageCount)
  *    (lib/flowsheet/compression.ts: ideal gas, species data c_p(T), isentropic efficiency per stage;
  *    Çengel & Boles, Thermodynamics, ch. 7) and after-cooled to the intercooling temperature. The
  *    whole dry product is compressed, including any hydrogen fed with the steam.
@@ -78,7 +79,7 @@ import { PA_PER_BAR } from '../thermo/constants.ts';
 import { electronsOfStream } from '../electrochem/charge.ts';
 import { adiabaticEquilibrium } from '../equilibrium/adiabatic.ts';
 import { CalculationError, type CalculationInput } from '../core/errors.ts';
-import type { PlantInput } from '../basis/types.ts';
+import type { CompressionInput, PlantInput } from '../basis/types.ts';
 import { electricalLayout, type ElectricalLayout } from '../flowsheet/electrical-layout.ts';
 import { compressGas } from '../flowsheet/compression.ts';
 import { exhaustHeatRecovery } from '../flowsheet/heat-recovery.ts';
@@ -191,6 +192,7 @@ export interface ElectrolysisPlantBalance {
     inletTemperatureK: number;
     intercoolTemperatureK: number;
     stages: number;
+    stagesFrom: 'given' | 'maximum-stage-ratio';
     pressureRatioPerStage: number;
     isentropicEfficiency: number;
     flowMolPerS: number;
@@ -631,6 +633,20 @@ function powerBalance(point: DesignPoint, plant: PlantInput, layout: ElectricalL
   };
 }
 
+/**
+ * The compression stages: as given, or the fewest of equal ratio that keep each at or below r_max,
+ * N = ⌈ln(p_out/p_in) / ln r_max⌉ (at least 1; a quotient within 1e-9 of a whole number is taken as
+ * it, so that r_max equal to the ratio of N stages gives N).
+ */
+export function stageCount(stages: CompressionInput['stages'], overallRatio: number): number {
+  if ('given' in stages) return stages.given;
+  const n = Math.max(1, Math.ceil(Math.log(overallRatio) / Math.log(stages.maximumStageRatio) - 1e-9));
+  if (n > 10) {
+    throw new CalculationError(`a stage pressure ratio of at most ${stages.maximumStageRatio} needs ${n} stages to reach the delivery pressure (overall ratio ${overallRatio.toPrecision(4)}); more than 10 are never built`, 'compression-stage-ratio');
+  }
+  return n;
+}
+
 /** The balance of an electrolysis plant (the module comment's equations). */
 function electrolysisBalance(point: DesignPoint, plant: PlantInput): { balance: ElectrolysisPlantBalance; streams: PlantStream[] } {
   const inputs = point.inputs;
@@ -729,13 +745,14 @@ function electrolysisBalance(point: DesignPoint, plant: PlantInput): { balance: 
     add('product-dried', 'hydrogen product cooled and dried', c.inletTemperatureK, pFuel, dry);
     if (condensate > 0) add('product-condensate', 'condensate from the product cooler', c.inletTemperatureK, pFuel, { 'H2O(L)': condensate });
     if (dried > 0) add('dryer-water', 'water vapour removed by the dryer', c.inletTemperatureK, pFuel, { H2O: dried });
+    const stages = stageCount(c.stages, c.deliveryPressureBar / pFuel);
     const k = compressGas({
       composition: dry,
       molarFlowMolPerS: totalFlow(dry),
       inletTemperatureK: c.inletTemperatureK,
       inletPressureBar: pFuel,
       deliveryPressureBar: c.deliveryPressureBar,
-      stages: c.stages,
+      stages,
       isentropicEfficiency: c.isentropicEfficiency,
       intercoolTemperatureK: c.intercoolTemperatureK,
       deliveryTemperatureK: c.intercoolTemperatureK,
@@ -745,7 +762,8 @@ function electrolysisBalance(point: DesignPoint, plant: PlantInput): { balance: 
       deliveryPressureBar: c.deliveryPressureBar,
       inletTemperatureK: c.inletTemperatureK,
       intercoolTemperatureK: c.intercoolTemperatureK,
-      stages: c.stages,
+      stages,
+      stagesFrom: 'given' in c.stages ? 'given' : 'maximum-stage-ratio',
       pressureRatioPerStage: k.pressureRatioPerStage,
       isentropicEfficiency: c.isentropicEfficiency,
       flowMolPerS: totalFlow(dry),

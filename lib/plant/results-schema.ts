@@ -233,6 +233,7 @@ const electrolysisPlantSchema = z
         inletTemperature_K: num('compressor inlet temperature'),
         intercoolTemperature_K: num('temperature after each intercooler and the after-cooler'),
         stages: num('intercooled stages'),
+        stagesFrom: z.enum(['given', 'maximum-stage-ratio']).describe('the stages as given, or the fewest that keep each stage at or below the maximum stage ratio'),
         pressureRatioPerStage: num('(p_delivery/p_inlet)^(1/N), equal in every stage'),
         isentropicEfficiency: num('isentropic efficiency of each stage'),
         flow_mol_per_s: num('dry product gas compressed'),

@@ -7,7 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import { calculate, evaluateBasis } from '../../lib/plant/calculate.ts';
 import { loadBasisFile } from '../../lib/basis/load.ts';
-import { plantBalance } from '../../lib/plant/plant-balance.ts';
+import { plantBalance, stageCount } from '../../lib/plant/plant-balance.ts';
 import { mixtureHeatCapacityJPerK } from '../../lib/thermo/mixture.ts';
 import { getSpecies } from '../../lib/thermo/species-data.ts';
 import { BasisError } from '../../lib/basis/diagnostics.ts';
@@ -257,6 +257,27 @@ describe('the electrolysis plant of the scaffolds', () => {
     expect(electric.specificEnergy.electricHeatW).toBeCloseTo(electric.heatSuppliedW, 9);
     expect(external.specificEnergy.electricHeatW).toBe(0);
     expect(electric.specificEnergy.systemKWhPerKg - external.specificEnergy.systemKWhPerKg).toBeCloseTo(electric.heatSuppliedW / electric.specificEnergy.hydrogenKgPerS / 3.6e6, 9);
+  });
+
+  it('chooses the fewest stages that keep each at or below the maximum stage ratio', () => {
+    const { plant } = electrolysisOf('pem', { 'plant.hydrogen-compression': { 'delivery-pressure': '200 bar', 'maximum-stage-ratio': 2.5, 'isentropic-efficiency': '75 %' } });
+    const c = plant.electrolysis!.compression!;
+    // 200/30 = 6.67: two stages of 2.58 exceed 2.5, three of 1.88 do not (ln 6.67 / ln 2.5 = 2.07).
+    expect(c.stages).toBe(3);
+    expect(c.stagesFrom).toBe('maximum-stage-ratio');
+    expect(c.pressureRatioPerStage).toBeLessThanOrEqual(2.5);
+    // A maximum equal to the ratio of N stages gives N, not N + 1.
+    expect(stageCount({ maximumStageRatio: 2 }, 8)).toBe(3);
+    expect(stageCount({ maximumStageRatio: 4 }, 3)).toBe(1);
+    expect(stageCount({ given: 5 }, 3)).toBe(5);
+    expect(() => stageCount({ maximumStageRatio: 1.05 }, 100)).toThrow(/more than 10/);
+  });
+
+  it('refuses stages and a maximum stage ratio together, or neither, at the block', () => {
+    const stages = { 'delivery-pressure': '200 bar', 'isentropic-efficiency': '75 %' };
+    for (const block of [{ ...stages, stages: 2, 'maximum-stage-ratio': 3 }, stages]) {
+      expect(() => basisFrom('pem', 'electrolysis', { 'plant.hydrogen-compression': block })).toThrow(/either as stages .* or as maximum-stage-ratio/);
+    }
   });
 
   it('refuses a compressor inlet temperature above the stack temperature, at its field', () => {
