@@ -1,10 +1,32 @@
 /**
  * The worked lines of the plant around the stack: the stack, bus voltage and bus current of the
- * electrical layout, and in power mode the steam raising, the heat delivered and the total
- * efficiency of combined heat and power.
+ * electrical layout; in power mode the steam raising, the heat delivered and the total
+ * efficiency of combined heat and power; in electrolysis the steam raising, the compressor power
+ * and the electricity per kilogram of hydrogen of the whole plant.
  */
 import type { Results } from '../../plant/results-schema.ts';
 import type { LineSpec } from '../calc-line.ts';
+
+type Steam = Pick<NonNullable<NonNullable<Results['plant']['power']>['steam']>, 'water_mol_per_s' | 'liquidHeating_W' | 'evaporation_W' | 'superheating_W' | 'latentHeat_J_per_mol'>;
+
+/** The steam raised from feed water: ṅ_w (Δh_liq + L + Δh_vap), power mode or an electrolyser's steam. */
+function steamLine(steam: Steam, suffix: string, waterOrigin: string, superheatOrigin: string): LineSpec {
+  const n = steam.water_mol_per_s;
+  return {
+    id: `steam-raising${suffix}`,
+    title: suffix ? 'Steam raising from the feed water (air electrode)' : 'Steam raising from the feed water',
+    equation: 'steam-raising',
+    relation: 'steam',
+    quantities: [
+      { name: 'n', value: n, unit: 'mol/s', origin: waterOrigin },
+      { name: 'hl', value: steam.liquidHeating_W / n / 1000, unit: 'kJ/mol', origin: 'liquid heated to saturation, species data' },
+      { name: 'L', value: steam.latentHeat_J_per_mol / 1000, unit: 'kJ/mol', origin: 'latent heat at the saturation temperature, species data' },
+      { name: 'hg', value: steam.superheating_W / n / 1000, unit: 'kJ/mol', origin: superheatOrigin },
+    ],
+    value: (steam.liquidHeating_W + steam.evaporation_W + steam.superheating_W) / 1000,
+    unit: 'kW',
+  };
+}
 
 export function plantLines(r: Results): LineSpec[] {
   const e = r.plant.electrical;
@@ -46,25 +68,45 @@ export function plantLines(r: Results): LineSpec[] {
       unit: 'A',
     },
   ];
+  const x = r.plant.electrolysis;
+  if (x) {
+    for (const s of x.steam) lines.push(steamLine(s, s.electrode === 'fuel' ? '' : '-air', 'feed water the stack is fed as steam, stream table', `steam superheated to the ${s.electrode}-electrode inlet, species data`));
+    const c = x.compression;
+    if (c) {
+      lines.push({
+        id: 'compressor-power',
+        title: `Hydrogen compressor power (${c.stages} intercooled stage${c.stages === 1 ? '' : 's'})`,
+        equation: 'electrolysis-plant-energy',
+        relation: 'compressor',
+        quantities: [
+          { name: 'n', value: c.flow_mol_per_s, unit: 'mol/s', origin: 'dry product gas, stream table' },
+          { name: 'w', value: c.power_W / c.flow_mol_per_s / 1000, unit: 'kJ/mol', origin: `work of the ${c.stages} stage${c.stages === 1 ? '' : 's'} of ratio ${c.pressureRatioPerStage.toPrecision(4)}, η_s ${c.isentropicEfficiency}, species data` },
+        ],
+        value: c.power_W / 1000,
+        unit: 'kW',
+      });
+    }
+    const e = x.specificEnergy;
+    lines.push({
+      id: 'system-specific-energy',
+      title: 'Electricity per kilogram of hydrogen, the whole plant',
+      equation: 'electrolysis-plant-energy',
+      relation: 'system',
+      quantities: [
+        { name: 'P', value: (e.stackDc_W + e.conversionLoss_W + e.parasitic_W) / 1000, unit: 'kW', origin: 'AC input of the rectifier and the balance of plant, above' },
+        { name: 'Qe', value: e.electricHeat_W / 1000, unit: 'kW', origin: x.heatSupply === 'electric' ? 'heat supplied by electric heaters, duty table' : 'none: the heat comes from outside the plant' },
+        { name: 'Pc', value: e.compressor_W / 1000, unit: 'kW', origin: c ? 'compressor power, above' : 'none: no hydrogen compression' },
+        { name: 'm', value: e.hydrogen_kg_per_h, unit: 'kg/h', origin: 'net hydrogen made, above' },
+      ],
+      value: e.system_kWh_per_kg,
+      unit: 'kWh/kg',
+      note: '1 kW per kg/h is 1 kWh/kg',
+    });
+    return lines;
+  }
   const p = r.plant.power;
   if (!p) return lines;
-  if (p.steam) {
-    const n = p.steam.water_mol_per_s;
-    lines.push({
-      id: 'steam-raising',
-      title: 'Steam raising from the feed water',
-      equation: 'steam-raising',
-      relation: 'steam',
-      quantities: [
-        { name: 'n', value: n, unit: 'mol/s', origin: 'feed water at the steam-to-carbon ratio, stream table' },
-        { name: 'hl', value: p.steam.liquidHeating_W / n / 1000, unit: 'kJ/mol', origin: 'liquid heated to saturation, species data' },
-        { name: 'L', value: p.steam.latentHeat_J_per_mol / 1000, unit: 'kJ/mol', origin: 'latent heat at the saturation temperature, species data' },
-        { name: 'hg', value: p.steam.superheating_W / n / 1000, unit: 'kJ/mol', origin: 'steam superheated to the mixing temperature, species data' },
-      ],
-      value: (p.steam.liquidHeating_W + p.steam.evaporation_W + p.steam.superheating_W) / 1000,
-      unit: 'kW',
-    });
-  }
+  if (p.steam) lines.push(steamLine(p.steam, '', 'feed water at the steam-to-carbon ratio, stream table', 'steam superheated to the mixing temperature, species data'));
   if (p.heatRecovery && p.chp) {
     lines.push(
       {
