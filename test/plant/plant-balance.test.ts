@@ -138,6 +138,22 @@ describe('the hazards read the plant', () => {
   });
 });
 
+describe('the hazards read the plant cautions', () => {
+  it("caution on the oxidiser's hot outlet at its temperature, and on the compressed hydrogen at its pressure", () => {
+    const power = calculate(basisFrom('solid-oxide', 'power', FULL_PLANT));
+    const hot = power.hazards.cautions.find((c) => c.id === 'oxidiser-hot-surfaces')!;
+    const outlet = power.plant.power!.oxidiser!.outletTemperature_K - 273.15;
+    expect(hot.text).toContain(`${outlet.toFixed(0)} °C`);
+    expect(hot.text).toContain('authority having jurisdiction');
+    const electrolysis = calculate(basisFrom('pem', 'electrolysis', COMPRESSION));
+    const h2 = electrolysis.hazards.cautions.find((c) => c.id === 'hydrogen-compression')!;
+    expect(h2.text).toContain('200 bar');
+    expect(electrolysis.hazards.streams.find((s) => s.id === 'hydrogen-delivered')!.side).toBe('fuel');
+    // Without a compressor the caution has nothing to read.
+    expect(calculate(basisFrom('pem', 'electrolysis')).hazards.cautions.some((c) => c.id === 'hydrogen-compression')).toBe(false);
+  });
+});
+
 describe('findings and located errors of the plant', () => {
   it('flags an oxidiser hotter than its material limit and a blower above the parasitic allowance', () => {
     const { plant } = balanceOf('solid-oxide', { ...FULL_PLANT, 'plant.off-gas-oxidiser': { oxidant: 'air-electrode-exhaust', 'material-limit': '700 C' }, 'operating-point.parasitic-load': '0.1 %' });
