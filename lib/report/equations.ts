@@ -445,7 +445,18 @@ function plantEquations(r: Results): EquationEntry[] {
   if (!r.plant.power) return out;
   const Q = sym('Q_\\mathrm{del}');
   out.push(
-    shown('oxidiser-balance', '\\sum_j \\dot n_j\\, h^\\circ_j(T_\\mathrm{ad}) = \\sum_{\\mathrm{off\\text{-}gas}} \\dot n_i\\, h^\\circ_i(T) + \\sum_{\\mathrm{oxidant}} \\dot n_k\\, h^\\circ_k(T_\\mathrm{ox}), \\qquad \\min G \\text{ at fixed } H, p'),
+    entry('plant-duty', {
+      duty: { lhs: sym('Q'), symbols: { Hout: sym('H(T_\\mathrm{out})'), Hin: sym('H(T_\\mathrm{in})') }, rhs: (q) => `${q.Hout} - ${q.Hin}` },
+      blower: { lhs: sym('P_\\mathrm{bl}'), symbols: { n: sym('\\dot n_\\mathrm{air}'), hs: sym('\\Delta h_\\mathrm{s}'), eta: sym('\\eta_\\mathrm{s}') }, rhs: (q) => `\\frac{${q.n}\\,${q.hs}}{${q.eta}}` },
+    }),
+    entry(
+      'oxidiser-balance',
+      {
+        enthalpy: { lhs: sym('H_\\mathrm{prod}(T_\\mathrm{ad})'), symbols: { Hog: sym('H_\\mathrm{off\\text{-}gas}(T)'), Hox: sym('H_\\mathrm{oxidant}(T_\\mathrm{ox})') }, rhs: (q) => `${q.Hog} + ${q.Hox}` },
+      },
+      () =>
+        '\\sum_j \\dot n_j\\, h^\\circ_j(T_\\mathrm{ad}) = \\sum_{\\mathrm{off\\text{-}gas}} \\dot n_i\\, h^\\circ_i(T) + \\sum_{\\mathrm{oxidant}} \\dot n_k\\, h^\\circ_k(T_\\mathrm{ox}), \\qquad \\min G \\text{ at fixed } H, p',
+    ),
     entry('delivered-heat', {
       heat: { lhs: Q, symbols: { R: sym('Q_\\mathrm{rec}'), D: sym('D'), L: sym('Q_\\mathrm{loss}') }, rhs: (q) => `${q.R} - ${q.D} - ${q.L}` },
     }),

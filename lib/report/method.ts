@@ -319,6 +319,10 @@ function plant(step: Step, r: Results): void {
     )
     .eq('steam-raising')
     .text(
+      'The fuel and air are heated from their supply (or blower outlet) temperature to the temperature the next unit takes them at, each duty the enthalpy flow out less the enthalpy flow in; the air blower is one adiabatic stage whose isentropic enthalpy rise $\\Delta h_\\mathrm{s}$ follows from $s^\\circ(T_\\mathrm{s}) = s^\\circ(T_1) + R \\ln(p_2/p_1)$ (Çengel and Boles, Thermodynamics, ch. 7):',
+    )
+    .eq('plant-duty')
+    .text(
       'The fuel-electrode off-gas is burnt with its oxidant; the products leave at chemical equilibrium at the adiabatic temperature, found by minimising the Gibbs energy at fixed enthalpy and pressure:',
     )
     .eq('oxidiser-balance')

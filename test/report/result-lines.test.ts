@@ -68,6 +68,10 @@ function formulas(r: Results): Record<string, Formula> {
     'steam-raising': (n) => n.n! * (n.hl! + n.L! + n.hg!),
     'steam-raising-air': (n) => n.n! * (n.hl! + n.L! + n.hg!),
     'compressor-power': (n) => n.n! * n.w!,
+    'fuel-preheat': (n) => n.Hout! - n.Hin!,
+    'air-preheat': (n) => n.Hout! - n.Hin!,
+    'blower-power': (n) => (n.n! * n.hs!) / n.eta!,
+    'oxidiser-enthalpy': (n) => n.Hog! + n.Hox!,
     // kW over kg/h is kWh/kg.
     'system-specific-energy': (n) => (n.P! + n.Qe! + n.Pc!) / n.m!,
     'delivered-heat': (n) => n.R! - n.D! - n.L!,
@@ -124,6 +128,9 @@ function resultOf(id: string, r: Results): number | null {
     'chp-efficiency': r.plant.power?.chp?.totalEfficiencyLhv ?? null,
     'compressor-power': r.plant.electrolysis?.compression ? r.plant.electrolysis.compression.power_W / 1000 : null,
     'system-specific-energy': r.plant.electrolysis?.specificEnergy.system_kWh_per_kg ?? null,
+    'fuel-preheat': (r.plant.power?.duties.find((d) => d.id === 'fuel-preheat')?.duty_W ?? NaN) / 1000,
+    'air-preheat': (r.plant.power?.duties.find((d) => d.id === 'air-preheat')?.duty_W ?? NaN) / 1000,
+    'blower-power': r.plant.power?.blower ? r.plant.power.blower.power_W / 1000 : null,
   };
   const steam = r.plant.electrolysis?.steam.find((s) => (id === 'steam-raising' ? s.electrode === 'fuel' : id === 'steam-raising-air' && s.electrode === 'air'));
   if (steam) return (steam.liquidHeating_W + steam.evaporation_W + steam.superheating_W) / 1000;
@@ -268,7 +275,20 @@ describe('a solid oxide cell on carbon monoxide and dioxide (no hydrogen)', () =
 });
 
 /** The plant options the electrolysis scaffolds carry commented out, switched on. */
-const withPlant = (yaml: string) => yaml.replace(/^# plant:/m, 'plant:').replace(/^# {3}(feed-temperatures|heat-supply|heat-loss|hydrogen-compression)/gm, '  $1');
+const withPlant = (yaml: string) =>
+  yaml.replace(/^# plant:/m, 'plant:').replace(/^# {3}(feed-temperatures|heat-supply|heat-loss|hydrogen-compression|air-blower|off-gas-oxidiser|heat-recovery)/gm, '  $1');
+
+describe.each(['solid-oxide', 'molten-carbonate'] as const)('worked lines of the %s power plant', (technology) => {
+  const c = scaffoldCase(technology, 'power', withPlant);
+  const plant = lines(c).filter((l) => ['fuel-preheat', 'air-preheat', 'blower-power', 'oxidiser-enthalpy', 'steam-raising'].includes(l.id));
+  const f = formulas(c.results);
+
+  it('shows the fuel and air preheat, the blower power and the oxidiser balance', () => {
+    expect(plant.map((l) => l.id).sort()).toEqual(['air-preheat', 'blower-power', 'fuel-preheat', 'oxidiser-enthalpy', 'steam-raising']);
+  });
+
+  it.each(plant.map((l) => [l.id, l] as const))('%s: the numbers shown give the result shown', (id, line) => recomputes(c, f, id, line));
+});
 
 describe.each(['solid-oxide', 'pem'] as const)('worked lines of the %s electrolysis plant', (technology) => {
   const c = scaffoldCase(technology, 'electrolysis', withPlant);

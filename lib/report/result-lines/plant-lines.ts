@@ -6,6 +6,7 @@
  */
 import type { Results } from '../../plant/results-schema.ts';
 import type { LineSpec } from '../calc-line.ts';
+import { formatQuantity, formatTemperature } from '../format.ts';
 
 type Steam = Pick<NonNullable<NonNullable<Results['plant']['power']>['steam']>, 'water_mol_per_s' | 'liquidHeating_W' | 'evaporation_W' | 'superheating_W' | 'latentHeat_J_per_mol'>;
 
@@ -24,6 +25,22 @@ function steamLine(steam: Steam, suffix: string, waterOrigin: string, superheatO
       { name: 'hg', value: steam.superheating_W / n / 1000, unit: 'kJ/mol', origin: superheatOrigin },
     ],
     value: (steam.liquidHeating_W + steam.evaporation_W + steam.superheating_W) / 1000,
+    unit: 'kW',
+  };
+}
+
+/** A duty as the enthalpy flow out less the enthalpy flow in, kW. */
+function dutyLine(id: string, title: string, outW: number, inW: number, outOrigin: string, inOrigin: string): LineSpec {
+  return {
+    id,
+    title,
+    equation: 'plant-duty',
+    relation: 'duty',
+    quantities: [
+      { name: 'Hout', value: outW / 1000, unit: 'kW', origin: outOrigin },
+      { name: 'Hin', value: inW / 1000, unit: 'kW', origin: inOrigin },
+    ],
+    value: (outW - inW) / 1000,
     unit: 'kW',
   };
 }
@@ -107,6 +124,52 @@ export function plantLines(r: Results): LineSpec[] {
   const p = r.plant.power;
   if (!p) return lines;
   if (p.steam) lines.push(steamLine(p.steam, '', 'feed water at the steam-to-carbon ratio, stream table', 'steam superheated to the mixing temperature, species data'));
+  const stream = (id: string) => r.plant.streams.find((s) => s.id === id);
+  const fuelPreheat = p.duties.find((d) => d.id === 'fuel-preheat');
+  const fuelSupply = stream('fuel-supply');
+  if (fuelPreheat && fuelSupply) lines.push(dutyLine('fuel-preheat', 'Fuel heated to the mixing temperature', fuelSupply.enthalpyFlow_W + fuelPreheat.duty_W, fuelSupply.enthalpyFlow_W, 'dry fuel at the mixing temperature, species data', 'fuel supply, stream table'));
+  const airPreheat = p.duties.find((d) => d.id === 'air-preheat');
+  const airInlet = stream('air-inlet');
+  if (airPreheat && airInlet) {
+    const from = p.blower ? 'after the blower' : 'at its supply temperature';
+    lines.push(dutyLine('air-preheat', 'Air heated to the air-electrode inlet', airInlet.enthalpyFlow_W, airInlet.enthalpyFlow_W - airPreheat.duty_W, 'air-electrode inlet, stream table', `the stack's air ${from}, species data`));
+  }
+  if (p.blower) {
+    const b = p.blower;
+    lines.push({
+      id: 'blower-power',
+      title: 'Air blower power (one adiabatic stage)',
+      equation: 'plant-duty',
+      relation: 'blower',
+      quantities: [
+        { name: 'n', value: b.flow_mol_per_s, unit: 'mol/s', origin: 'air through the blower, stream table' },
+        { name: 'hs', value: (b.power_W * b.isentropicEfficiency) / b.flow_mol_per_s / 1000, unit: 'kJ/mol', origin: `isentropic enthalpy rise from ${formatQuantity(b.inletPressure_bar, 'bar')} to ${formatQuantity(b.outletPressure_bar, 'bar')}, species data` },
+        { name: 'eta', value: b.isentropicEfficiency, unit: '', origin: 'isentropic efficiency, design input' },
+      ],
+      value: b.power_W / 1000,
+      unit: 'kW',
+    });
+  }
+  const o = p.oxidiser;
+  const offGas = stream('fuel-outlet');
+  const oxidant = o && stream(o.oxidant === 'fresh-air' ? 'oxidiser-air' : 'air-outlet');
+  const products = stream('oxidiser-outlet');
+  // A liquid-water off-gas is burnt without its liquid, which the stream carries: no line for it.
+  if (o && offGas && oxidant && products && !offGas.speciesFlows_mol_per_s['H2O(L)'] && !oxidant.speciesFlows_mol_per_s['H2O(L)']) {
+    lines.push({
+      id: 'oxidiser-enthalpy',
+      title: `Off-gas oxidiser: the products hold the reactants' enthalpy at ${formatTemperature(o.outletTemperature_K)} (adiabatic)`,
+      equation: 'oxidiser-balance',
+      relation: 'enthalpy',
+      quantities: [
+        { name: 'Hog', value: offGas.enthalpyFlow_W / 1000, unit: 'kW', origin: 'fuel-electrode off-gas at the stack temperature, stream table' },
+        { name: 'Hox', value: oxidant.enthalpyFlow_W / 1000, unit: 'kW', origin: `${o.oxidant === 'fresh-air' ? 'oxidiser air' : 'air-electrode exhaust'}, stream table` },
+      ],
+      value: products.enthalpyFlow_W / 1000,
+      unit: 'kW',
+      note: `the equilibrium products have this enthalpy at ${formatTemperature(o.outletTemperature_K)}, the adiabatic outlet temperature (Gibbs minimum at fixed H and p)`,
+    });
+  }
   if (p.heatRecovery && p.chp) {
     lines.push(
       {
