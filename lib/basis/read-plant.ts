@@ -182,16 +182,21 @@ function compression(reader: Reader, fuelPressureBar: number | undefined): Compr
     reader.findings.error(delivery.at, `the delivery pressure must be above the hydrogen side's pressure (conditions.fuel-electrode-pressure, ${String(Number(fuelPressureBar.toPrecision(6)))} bar), got ${delivery.text}`);
     return undefined;
   }
-  const stages = count(reader, at('stages'), 'number of compression stages', 'compression-stages');
+  const stages = reader.has(at('stages')) ? count(reader, at('stages'), 'number of compression stages', 'compression-stages') : undefined;
+  const ratio = reader.has(at('maximum-stage-ratio')) ? limited(reader, reader.number(at('maximum-stage-ratio'), 'maximum stage pressure ratio'), 'compression-stage-ratio', 'maximum stage pressure ratio') : undefined;
+  if (reader.has(at('stages')) === reader.has(at('maximum-stage-ratio'))) {
+    reader.findings.error(P('hydrogen-compression'), 'give the compression stages either as stages (a whole number) or as maximum-stage-ratio (the stages follow from it), one of the two', 'key');
+    return undefined;
+  }
   const efficiency = share(reader, at('isentropic-efficiency'), 'isentropic efficiency', (x) => x > 0 && x <= 1, 'lies in (0, 1]', 'isentropic-efficiency');
   const inlet = reader.has(at('inlet-temperature')) ? liquidWaterTemperature(reader, at('inlet-temperature'), 'compressor inlet temperature', 'compressor-gas-temperature') : undefined;
   const intercool = reader.has(at('intercooling-temperature')) ? liquidWaterTemperature(reader, at('intercooling-temperature'), 'intercooling temperature', 'compressor-gas-temperature') : undefined;
-  if (!delivery || stages === undefined || !efficiency) return undefined;
+  if (!delivery || (stages === undefined && !ratio) || !efficiency) return undefined;
   if ((reader.has(at('inlet-temperature')) && !inlet) || (reader.has(at('intercooling-temperature')) && !intercool)) return undefined;
   const inletK = inlet?.si ?? ZERO_C + 40;
   return {
     deliveryPressureBar: delivery.si / PA_PER_BAR,
-    stages,
+    stages: stages !== undefined ? { given: stages } : { maximumStageRatio: ratio!.si },
     isentropicEfficiency: efficiency.si,
     inletTemperatureK: inletK,
     intercoolTemperatureK: intercool?.si ?? inletK,

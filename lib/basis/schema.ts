@@ -265,7 +265,11 @@ const plantSection = strict(
     'hydrogen-compression': strict(
       {
         'delivery-pressure': quantity('pressure', 'pressure the hydrogen is delivered at, e.g. "30 bar"'),
-        stages: number('compression stages, intercooled (a whole number from 1 to 10)', '2'),
+        stages: number('compression stages, intercooled (a whole number from 1 to 10); or give maximum-stage-ratio', '2').optional(),
+        'maximum-stage-ratio': number(
+          'instead of stages: the highest pressure ratio one stage may have; the stages are the fewest that keep each at or below it, N = ⌈ln(p_delivery/p_inlet) / ln r_max⌉',
+          '3',
+        ).optional(),
         'isentropic-efficiency': fraction('isentropic efficiency of each stage, in (0, 1], e.g. "75 %"'),
         'inlet-temperature': quantity('temperature', 'the product gas is cooled to this temperature and dried ahead of the first stage (default 40 C)').optional(),
         'intercooling-temperature': quantity('temperature', 'gas temperature after each intercooler and the after-cooler (default: the inlet temperature)').optional(),

@@ -176,7 +176,8 @@ export type OffGasOxidant = { kind: 'air-electrode-exhaust' } | { kind: 'fresh-a
 /** Hydrogen compression after the product cooler and dryer (electrolysis). */
 export interface CompressionInput {
   deliveryPressureBar: number;
-  stages: number;
+  /** The stages: given, or the fewest that keep each stage's pressure ratio at or below maximumStageRatio (from the stack's pressure, per case). */
+  stages: { given: number } | { maximumStageRatio: number };
   isentropicEfficiency: number;
   /** Temperature the product gas is cooled to ahead of the first stage, and between stages, K. */
   inletTemperatureK: number;

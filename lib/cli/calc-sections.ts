@@ -71,6 +71,8 @@ export const CALC_SECTIONS: readonly CalcSection[] = [
   { name: 'plant-duties', title: 'Fuel and air preparation', standard: true, table: plantTable('plant-duties') },
   { name: 'oxidiser-and-heat-recovery', title: 'Off-gas oxidiser, heat recovery and combined heat and power', standard: true, table: plantTable('oxidiser-and-heat-recovery') },
   { name: 'plant-energy-balance', title: 'Energy balance of the plant', standard: false, table: plantTable('plant-energy-balance') },
+  { name: 'electrolysis-plant', title: 'Feed preparation, heat supply, hydrogen compression and specific energy', standard: true, table: plantTable('electrolysis-plant') },
+  { name: 'electrolysis-plant-energy-balance', title: 'Energy balance of the electrolysis plant', standard: false, table: plantTable('electrolysis-plant-energy-balance') },
   { name: 'heat-and-material-balance', title: 'Heat-and-material balance', standard: false, table: async ({ results }) => (await resultsTables()).heatAndMaterialBalance(results) },
   // The document splits a balance of more than seven streams into parts (lib/report/sections/results-tables.ts), each with its own CSV.
   ...[1, 2].map((n) => ({ name: `heat-and-material-balance-${n}`, title: `Heat-and-material balance, part ${n}`, standard: false, table: async ({ results }: { results: Results }) => (await resultsTables()).heatAndMaterialBalanceParts(results).find((t) => t.name === `heat-and-material-balance-${n}`) ?? null })),
@@ -93,6 +95,7 @@ export const CALC_SECTIONS: readonly CalcSection[] = [
   { name: 'sensitivity-voltage', title: 'Sensitivity of the cell voltage (chart data)', standard: false, table: chartTable('sensitivity-voltage') },
   { name: 'sensitivity-efficiency', title: 'Sensitivity of the efficiency (chart data)', standard: false, table: chartTable('sensitivity-efficiency') },
   { name: 'sensitivity-heat', title: 'Sensitivity of the stack heat (chart data)', standard: false, table: chartTable('sensitivity-heat') },
+  { name: 'energy-flow', title: "Where the fuel's energy goes (chart data)", standard: false, table: chartTable('energy-flow') },
   { name: 'cautions', title: 'Hazard cautions', standard: false, table: async ({ results }) => (await hazards()).cautionsTable(results.hazards) },
   { name: 'hazard-streams', title: 'Hazard indicators of the streams', standard: false, table: async ({ results }) => (await hazards()).hazardStreamTable(results.hazards.streams) },
   { name: 'substances', title: 'Hazard data of the substances', standard: false, table: async ({ results }) => (await hazards()).substancesTable(results.hazards.substances) },

@@ -77,7 +77,8 @@ export type CalculationInput =
   | 'oxidiser-air-ratio'
   | 'exhaust-exit-temperature'
   | 'hydrogen-compression'
-  | 'compressor-inlet-temperature';
+  | 'compressor-inlet-temperature'
+  | 'compression-stage-ratio';
 
 /** An input that passed validation but that the calculation cannot meet: the message says why, `field` which input. */
 export class CalculationError extends UserError {

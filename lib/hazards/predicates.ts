@@ -298,6 +298,20 @@ const electrolysis: Predicate = (ctx) => {
 const technologyIs: Predicate = (ctx, params) =>
   ctx.input.technology === params.technology ? basisMatch({ technology: ctx.technologyName }) : null;
 
+/** The off-gas oxidiser's outlet, where the plant has one: its temperature, the hottest gas of the plant. */
+const oxidiserOutlet: Predicate = (ctx) =>
+  matchOf(
+    ctx.streams.filter((s) => s.id === 'oxidiser-outlet'),
+    (s) => ({ stream: s.name, temperature_C: formatCelsius(s.temperature_K) }),
+  );
+
+/** Hydrogen compressed to its delivery pressure, where the plant has a compressor: the pressure and the hydrogen partial pressure. */
+const hydrogenCompressed: Predicate = (ctx) =>
+  matchOf(
+    ctx.streams.filter((s) => s.id === 'hydrogen-delivered' && shareOf(s, 'H2')),
+    (s) => ({ stream: s.name, pressure_bar: fmt(s.pressure_bar), partialPressure_bar: fmt(s.hydrogenPartialPressure_bar) }),
+  );
+
 const unassessedSpecies: Predicate = (ctx) =>
   matchOf(
     ctx.streams.filter((s) => s.unassessed.length > 0),
@@ -321,4 +335,6 @@ export const PREDICATES: Readonly<Record<string, Predicate>> = {
   electrolysis,
   'technology-is': technologyIs,
   'unassessed-species': unassessedSpecies,
+  'oxidiser-outlet': oxidiserOutlet,
+  'hydrogen-compressed': hydrogenCompressed,
 };

@@ -26,14 +26,20 @@ import type { Results, StreamResult } from './results-schema.ts';
 import { finding, withAssumptions, type Finding } from './findings.ts';
 import { caseFindings, caseResults } from './cases.ts';
 import { envelopeOf } from './envelope.ts';
-import { plantBalance, type PlantBalance } from './plant-balance.ts';
+import { plantBalance, type PlantBalance, type PowerPlantBalance } from './plant-balance.ts';
 
 const HOUR = 3600;
 
-/** The plant section of the results: the layout, the numbered streams and the power plant's balance. */
+/** A plant's first law, for the results. */
+function energyOf(energy: PowerPlantBalance['energy']): NonNullable<Results['plant']['power']>['energyBalance'] {
+  return { in_W: energy.inW, out_W: energy.outW, residual: energy.residual, terms: energy.terms.map((t) => ({ name: t.name, value_W: t.valueW, side: t.side })) };
+}
+
+/** The plant section of the results: the layout, the numbered streams and the power or electrolysis plant's balance. */
 function plantOf(b: PlantBalance): Results['plant'] {
   const e = b.electrical;
   const q = b.power;
+  const x = b.electrolysis;
   return {
     electrical: {
       cellsPerStack: e.cellsPerStack,
@@ -115,7 +121,69 @@ function plantOf(b: PlantBalance): Results['plant'] {
         totalEfficiencyHhv: q.chp.totalHhv,
         powerToHeat: q.chp.powerToHeat,
       },
-      energyBalance: { in_W: q.energy.inW, out_W: q.energy.outW, residual: q.energy.residual, terms: q.energy.terms.map((t) => ({ name: t.name, value_W: t.valueW, side: t.side })) },
+      energyBalance: energyOf(q.energy),
+    },
+    electrolysis: x && {
+      feedWater_mol_per_s: x.feedWaterMolPerS,
+      feedWater_kg_per_h: x.feedWaterMolPerS * getSpecies('H2O(L)').molarMassKgPerMol * HOUR,
+      steam: x.steam.map((s) => ({
+        electrode: s.electrode,
+        water_mol_per_s: s.waterMolPerS,
+        saturationTemperature_K: s.saturationTemperatureK,
+        latentHeat_J_per_mol: s.latentHeatJPerMol,
+        liquidHeating_W: s.liquidHeatingW,
+        evaporation_W: s.evaporationW,
+        superheating_W: s.superheatingW,
+        to_K: s.toK,
+      })),
+      waterLoop: x.waterLoop && { makeUp_mol_per_s: x.waterLoop.makeUpMolPerS, return_mol_per_s: x.waterLoop.returnMolPerS, drain_mol_per_s: x.waterLoop.drainMolPerS },
+      duties: x.duties.map((d) => ({ id: d.id, name: d.name, duty_W: d.dutyW, from_K: d.fromK, to_K: d.toK })),
+      feedHeat_W: x.feedHeatW,
+      coolers_W: x.coolersW,
+      stackHeat_W: x.stackHeatW,
+      heatLoss_W: x.heatLossW,
+      stackHeatSupplied_W: x.stackHeatSuppliedW,
+      stackHeatRemoved_W: x.stackHeatRemovedW,
+      heatSupply: x.heatSupply,
+      heatSupplied_W: x.heatSuppliedW,
+      productCooling: x.productCooling && {
+        from_K: x.productCooling.fromK,
+        to_K: x.productCooling.toK,
+        pressure_bar: x.productCooling.pressureBar,
+        duty_W: x.productCooling.dutyW,
+        condensed_mol_per_s: x.productCooling.condensedMolPerS,
+        dried_mol_per_s: x.productCooling.driedMolPerS,
+      },
+      compression: x.compression && {
+        inletPressure_bar: x.compression.inletPressureBar,
+        deliveryPressure_bar: x.compression.deliveryPressureBar,
+        inletTemperature_K: x.compression.inletTemperatureK,
+        intercoolTemperature_K: x.compression.intercoolTemperatureK,
+        stages: x.compression.stages,
+        stagesFrom: x.compression.stagesFrom,
+        pressureRatioPerStage: x.compression.pressureRatioPerStage,
+        isentropicEfficiency: x.compression.isentropicEfficiency,
+        flow_mol_per_s: x.compression.flowMolPerS,
+        stageOutletTemperatures_K: x.compression.stageOutletTemperaturesK,
+        power_W: x.compression.powerW,
+        work_J_per_kg: x.compression.workJPerKg,
+        intercoolers_W: x.compression.intercoolersW,
+        aftercooler_W: x.compression.aftercoolerW,
+      },
+      specificEnergy: {
+        hydrogen_kg_per_h: x.specificEnergy.hydrogenKgPerS * HOUR,
+        stackDc_W: x.specificEnergy.stackDcW,
+        conversionLoss_W: x.specificEnergy.conversionLossW,
+        parasitic_W: x.specificEnergy.parasiticW,
+        electricHeat_W: x.specificEnergy.electricHeatW,
+        compressor_W: x.specificEnergy.compressorW,
+        totalElectric_W: x.specificEnergy.totalElectricW,
+        stack_kWh_per_kg: x.specificEnergy.stackKWhPerKg,
+        system_kWh_per_kg: x.specificEnergy.systemKWhPerKg,
+        systemEfficiencyLhv: x.specificEnergy.systemEfficiencyLhv,
+        systemEfficiencyHhv: x.specificEnergy.systemEfficiencyHhv,
+      },
+      energyBalance: energyOf(x.energy),
     },
   };
 }

@@ -27,9 +27,12 @@ function role(id: string, point: DesignPoint): StreamRole {
 
 /**
  * The plant's streams the hazards read beside the stack's: the off-gas oxidiser's outlet and the
- * exhaust after the heat recovery (their temperature and what is left in them: CO, unburnt fuel).
+ * exhaust after the heat recovery (their temperature and what is left in them: CO, unburnt fuel),
+ * and the compressed hydrogen an electrolysis plant delivers (its pressure). The exhaust streams
+ * belong to the air side, the hydrogen to the fuel side.
  */
-const PLANT_STREAMS = new Set(['oxidiser-outlet', 'exhaust-mixed', 'exhaust']);
+const PLANT_STREAMS = new Set(['oxidiser-outlet', 'exhaust-mixed', 'exhaust', 'hydrogen-delivered']);
+const EXHAUST_STREAMS = new Set(['oxidiser-outlet', 'exhaust-mixed', 'exhaust']);
 
 /**
  * The highest DC voltage of the array: the cells in series on the bus (stacks in series × cells
@@ -50,7 +53,7 @@ export function hazardInput(basis: DesignBasis, point: DesignPoint, plant: Plant
     .map((s) => {
       const x = gasMoleFractions(s.flows);
       const moleFractions = Object.fromEntries(Object.entries(x).filter(([, v]) => v >= 1e-12));
-      const side = s.id.startsWith('air') || PLANT_STREAMS.has(s.id) ? 'air' : 'fuel';
+      const side = s.id.startsWith('air') || EXHAUST_STREAMS.has(s.id) ? 'air' : 'fuel';
       return { id: s.id, name: s.name, temperatureK: s.temperatureK, pressureBar: s.pressureBar, moleFractions, role: role(s.id, point), side } as HazardStream;
     })
     .filter((s) => Object.keys(s.moleFractions).length > 0);

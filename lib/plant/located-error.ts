@@ -63,6 +63,7 @@ function fieldOf(basis: DesignBasis, input: CalculationInput): string {
     'exhaust-exit-temperature': 'plant.heat-recovery.exhaust-exit-temperature',
     'hydrogen-compression': 'plant.hydrogen-compression.delivery-pressure',
     'compressor-inlet-temperature': 'plant.hydrogen-compression.inlet-temperature',
+    'compression-stage-ratio': 'plant.hydrogen-compression.maximum-stage-ratio',
   };
   return fields[input];
 }

@@ -40,6 +40,35 @@
  *      H_fuel + H_water + H_air + W_blower = P_DC + Q_delivered + Q_loss + Q_rejected + H_exhaust + H_condensate
  *    evaluated from the streams independently of how the duties were chained; its residual over
  *    the LHV input is reported and must be below 1e-9.
+ *
+ * Electrolysis (the stack's inlets and outlets as the design point gives them):
+ *  - Water fed as vapour is raised from the feed water at T_w as above (liquid heating, L(T_s) at
+ *    T_s = T_sat(p) of its electrode, superheating to the electrode's inlet temperature). Water fed
+ *    as liquid circulates in a loop: the liquid leaving the stack returns to its inlet (cooled by
+ *    the loop cooler), and the make-up ṅ_mu = ṅ_L,in − ṅ_L,out (the water split and the vapour the
+ *    gases carry off) is heated from T_w to the inlet temperature. Other gases of an inlet (hydrogen
+ *    fed with the steam, sweep air) are fed from outside at the fuel or air supply temperature and
+ *    heated to the inlet temperature: no heat is recovered from the products to the feeds (a
+ *    recuperator is not modelled), so the heat supplied is an upper bound.
+ *  - Stack: Q_stack = H_in(fed) − H_out(T_stack) + P_DC (heat.ts, "as fed"); the heat lost to ambient
+ *    Q_loss = f_loss · P_AC is taken from it: Q_net = Q_stack − Q_loss. Where Q_net < 0 a water loop's
+ *    cooler first removes that much less (it returns the water at the inlet temperature), and the
+ *    rest, −Q_net, is supplied to the stack (below thermoneutral); where Q_net > 0 the stack's cooling
+ *    removes it.
+ *  - Heat supplied Q_sup = Σ (positive duties) + stack supply: by electric heaters (counted in the
+ *    electricity) or from outside the plant, as plant.heat-supply says.
+ *  - Hydrogen compression (optional): the fuel-electrode product cooled to the compressor inlet
+ *    temperature, its water condensed to saturation (lib/flowsheet/heat-recovery.ts) and the rest
+ *    removed by a dryer (no energy counted), then compressed in N intercooled stages of equal ratio
+ *    (N given, or the fewest that keep each stage's ratio at or below a stated maximum, stageCount)
+ *    (lib/flowsheet/compression.ts: ideal gas, species data c_p(T), isentropic efficiency per stage;
+ *    Çengel & Boles, Thermodynamics, ch. 7) and after-cooled to the intercooling temperature. The
+ *    whole dry product is compressed, including any hydrogen fed with the steam.
+ *  - Specific energy: e = (P_AC + P_heat,el + P_comp) / ṁ_H2 (kWh/kg), P_AC = P_DC (1/η_conv + f_BOP)
+ *    (design-point.ts), ṁ_H2 the net hydrogen made; the system efficiency is the products' LHV (HHV)
+ *    over the electricity and any heat from outside.
+ *  - First law over the plant: H_water + H_gases + P_DC + Q_sup + W_comp = H_H2 + H_O2 + H_condensate
+ *    + H_dryer + Q_coolers + Q_stack,removed + Q_loss, its residual over the electricity below 1e-9.
  */
 import { getSpecies } from '../thermo/species-data.ts';
 import { mixtureEnthalpyJ } from '../thermo/mixture.ts';
@@ -50,7 +79,7 @@ import { PA_PER_BAR } from '../thermo/constants.ts';
 import { electronsOfStream } from '../electrochem/charge.ts';
 import { adiabaticEquilibrium } from '../equilibrium/adiabatic.ts';
 import { CalculationError, type CalculationInput } from '../core/errors.ts';
-import type { PlantInput } from '../basis/types.ts';
+import type { CompressionInput, PlantInput } from '../basis/types.ts';
 import { electricalLayout, type ElectricalLayout } from '../flowsheet/electrical-layout.ts';
 import { compressGas } from '../flowsheet/compression.ts';
 import { exhaustHeatRecovery } from '../flowsheet/heat-recovery.ts';
@@ -80,8 +109,18 @@ export interface PlantDuty {
   toK: number;
 }
 
+/** Feed water raised to steam: its flow, saturation temperature and the three parts of the duty. */
+export interface SteamRaising {
+  waterMolPerS: number;
+  saturationTemperatureK: number;
+  liquidHeatingW: number;
+  evaporationW: number;
+  superheatingW: number;
+  latentHeatJPerMol: number;
+}
+
 export interface PowerPlantBalance {
-  steam: { waterMolPerS: number; saturationTemperatureK: number; liquidHeatingW: number; evaporationW: number; superheatingW: number; latentHeatJPerMol: number } | null;
+  steam: SteamRaising | null;
   mixingTemperatureK: number;
   duties: PlantDuty[];
   /** Σ of the duties: the heat the plant's heaters need net, W. */
@@ -119,10 +158,73 @@ export interface PowerPlantBalance {
   energy: { inW: number; outW: number; residual: number; terms: { name: string; valueW: number; side: 'in' | 'out' }[] };
 }
 
+/** Feed water raised to steam for one electrode of an electrolyser. */
+export interface ElectrodeSteam extends SteamRaising {
+  electrode: 'fuel' | 'air';
+  /** The electrode's inlet temperature the steam is superheated to, K. */
+  toK: number;
+}
+
+export interface ElectrolysisPlantBalance {
+  /** Liquid feed water taken into the plant at its supply temperature (the steam raised and the loop's make-up), mol/s. */
+  feedWaterMolPerS: number;
+  steam: ElectrodeSteam[];
+  /** A liquid-fed cell's water loop: the make-up and the water returned from the stack's outlets to its inlet, mol/s. */
+  waterLoop: { makeUpMolPerS: number; returnMolPerS: number; drainMolPerS: number } | null;
+  duties: PlantDuty[];
+  /** Σ of the positive duties: the heat the feed heaters and the evaporator take, W. */
+  feedHeatW: number;
+  /** Σ of the negative duties, as a positive number: the heat the coolers remove, W. */
+  coolersW: number;
+  /** Q_stack with the inlets as fed, W (negative: heat the stack absorbs). */
+  stackHeatW: number;
+  heatLossW: number;
+  /** Heat supplied to the stack (its heat demand and the losses it cannot cover), W, and the stack heat removed by its cooling, W. */
+  stackHeatSuppliedW: number;
+  stackHeatRemovedW: number;
+  heatSupply: 'electric' | 'external';
+  /** feedHeatW + stackHeatSuppliedW: the heat supplied by electric heaters or from outside, W. */
+  heatSuppliedW: number;
+  productCooling: { fromK: number; toK: number; pressureBar: number; dutyW: number; condensedMolPerS: number; driedMolPerS: number } | null;
+  compression: {
+    inletPressureBar: number;
+    deliveryPressureBar: number;
+    inletTemperatureK: number;
+    intercoolTemperatureK: number;
+    stages: number;
+    stagesFrom: 'given' | 'maximum-stage-ratio';
+    pressureRatioPerStage: number;
+    isentropicEfficiency: number;
+    flowMolPerS: number;
+    stageOutletTemperaturesK: number[];
+    powerW: number;
+    workJPerKg: number;
+    intercoolersW: number;
+    aftercoolerW: number;
+  } | null;
+  /** Net hydrogen made, kg/s, and the electricity per kg of it, with what it is made of, W. */
+  specificEnergy: {
+    hydrogenKgPerS: number;
+    stackDcW: number;
+    conversionLossW: number;
+    parasiticW: number;
+    electricHeatW: number;
+    compressorW: number;
+    totalElectricW: number;
+    stackKWhPerKg: number;
+    systemKWhPerKg: number;
+    /** Heating value of the combustibles made over the electricity and any heat from outside. */
+    systemEfficiencyLhv: number;
+    systemEfficiencyHhv: number;
+  };
+  energy: PowerPlantBalance['energy'];
+}
+
 export interface PlantBalance {
   electrical: ElectricalLayout;
   streams: PlantStream[];
   power: PowerPlantBalance | null;
+  electrolysis: ElectrolysisPlantBalance | null;
   findings: Finding[];
 }
 
@@ -198,6 +300,31 @@ function fractions(flows: Readonly<Record<string, number>>): Record<string, numb
   return Object.fromEntries(Object.entries(flows).filter(([, v]) => v / total > 1e-12).map(([k, v]) => [k, v / total]));
 }
 
+/** The first law over the plant from its terms: Σ in, Σ out and (in − out) / scale; the terms that are zero left out. */
+function firstLaw(terms: PowerPlantBalance['energy']['terms'], scaleW: number): PowerPlantBalance['energy'] {
+  const sum = (side: 'in' | 'out') => terms.filter((t) => t.side === side).reduce((a, t) => a + t.valueW, 0);
+  const inW = sum('in');
+  const outW = sum('out');
+  return { inW, outW, residual: (inW - outW) / scaleW, terms: terms.filter((t) => t.valueW !== 0) };
+}
+
+/** Feed water ṅ_w raised from the liquid at T_w to vapour at T: heated to T_s = T_sat(p) (IAPWS-IF97 region 4), evaporated with L(T_s) of the species data, superheated to T (the module comment's three parts). */
+function raiseSteam(waterMol: number, waterK: number, pressureBar: number, toK: number): SteamRaising {
+  const H = mixtureEnthalpyJ;
+  const tSat = waterSaturationTemperatureK(pressureBar * PA_PER_BAR);
+  const latent = waterLatentHeatJPerMol(tSat);
+  const liquid = { 'H2O(L)': waterMol };
+  const vapour = { H2O: waterMol };
+  return {
+    waterMolPerS: waterMol,
+    saturationTemperatureK: tSat,
+    liquidHeatingW: H(liquid, tSat) - H(liquid, waterK),
+    evaporationW: waterMol * latent,
+    superheatingW: H(vapour, toK) - H(vapour, tSat),
+    latentHeatJPerMol: latent,
+  };
+}
+
 /** The balance of a power plant (the module comment's equations). */
 function powerBalance(point: DesignPoint, plant: PlantInput, layout: ElectricalLayout, findings: Finding[]): { balance: PowerPlantBalance; streams: PlantStream[] } {
   const inputs = point.inputs;
@@ -226,21 +353,10 @@ function powerBalance(point: DesignPoint, plant: PlantInput, layout: ElectricalL
   if (recycle) add('recycle', 'recycled fuel-electrode off-gas', tStack, pFuel, recycle);
   let steam: PowerPlantBalance['steam'] = null;
   if (waterMol > 0) {
-    const tSat = waterSaturationTemperatureK(pFuel * PA_PER_BAR);
-    const latent = waterLatentHeatJPerMol(tSat);
-    const liquid = { 'H2O(L)': waterMol };
-    const vapour = { H2O: waterMol };
-    steam = {
-      waterMolPerS: waterMol,
-      saturationTemperatureK: tSat,
-      liquidHeatingW: H(liquid, tSat) - H(liquid, tWater),
-      evaporationW: waterMol * latent,
-      superheatingW: H(vapour, tMix) - H(vapour, tSat),
-      latentHeatJPerMol: latent,
-    };
-    duty('feed-water-heating', 'feed water heated to saturation', steam.liquidHeatingW, tWater, tSat);
-    duty('evaporation', 'feed water evaporated', steam.evaporationW, tSat, tSat);
-    duty('superheating', 'steam superheated to the mixing temperature', steam.superheatingW, tSat, tMix);
+    steam = raiseSteam(waterMol, tWater, pFuel, tMix);
+    duty('feed-water-heating', 'feed water heated to saturation', steam.liquidHeatingW, tWater, steam.saturationTemperatureK);
+    duty('evaporation', 'feed water evaporated', steam.evaporationW, steam.saturationTemperatureK, steam.saturationTemperatureK);
+    duty('superheating', 'steam superheated to the mixing temperature', steam.superheatingW, steam.saturationTemperatureK, tMix);
   }
   duty('fuel-preheat', 'fuel heated to the mixing temperature', H(fuel, tMix) - H(fuel, tFuel), tFuel, tMix);
   if (recycle) duty('recycle-cooling', 'recycled off-gas cooled to the mixing temperature', H(recycle, tMix) - H(recycle, tStack), tStack, tMix);
@@ -495,9 +611,7 @@ function powerBalance(point: DesignPoint, plant: PlantInput, layout: ElectricalL
   }
   if (rejectedW !== 0) terms.push({ name: 'stack heat rejected', valueW: rejectedW, side: 'out' });
   if (liquidOffGas + liquidAir > 0) terms.push({ name: 'liquid water from the stack', valueW: H({ 'H2O(L)': liquidOffGas + liquidAir }, tStack), side: 'out' });
-  const inW = terms.filter((t) => t.side === 'in').reduce((a, t) => a + t.valueW, 0);
-  const outW = terms.filter((t) => t.side === 'out').reduce((a, t) => a + t.valueW, 0);
-  const energy = { inW, outW, residual: (inW - outW) / lhv, terms: terms.filter((t) => t.valueW !== 0) };
+  const energy = firstLaw(terms, lhv);
 
   return {
     streams,
@@ -519,14 +633,230 @@ function powerBalance(point: DesignPoint, plant: PlantInput, layout: ElectricalL
   };
 }
 
-/** The plant around the stack of a design point. Electrolysis: the electrical layout and the stack's streams (the electrolysis plant's balance is not built yet). */
+/**
+ * The compression stages: as given, or the fewest of equal ratio that keep each at or below r_max,
+ * N = ⌈ln(p_out/p_in) / ln r_max⌉ (at least 1; a quotient within 1e-9 of a whole number is taken as
+ * it, so that r_max equal to the ratio of N stages gives N).
+ */
+export function stageCount(stages: CompressionInput['stages'], overallRatio: number): number {
+  if ('given' in stages) return stages.given;
+  const n = Math.max(1, Math.ceil(Math.log(overallRatio) / Math.log(stages.maximumStageRatio) - 1e-9));
+  if (n > 10) {
+    throw new CalculationError(`a stage pressure ratio of at most ${stages.maximumStageRatio} needs ${n} stages to reach the delivery pressure (overall ratio ${overallRatio.toPrecision(4)}); more than 10 are never built`, 'compression-stage-ratio');
+  }
+  return n;
+}
+
+/** The balance of an electrolysis plant (the module comment's equations). */
+function electrolysisBalance(point: DesignPoint, plant: PlantInput): { balance: ElectrolysisPlantBalance; streams: PlantStream[] } {
+  const inputs = point.inputs;
+  const tStack = inputs.temperatureK;
+  const H = mixtureEnthalpyJ;
+  const streams: PlantStream[] = [];
+  const add = (id: string, name: string, temperatureK: number, pressureBar: number, flows: Record<string, number>) => {
+    if (totalFlow(flows) > 0) streams.push({ number: streams.length + 1, id, name, temperatureK, pressureBar, flows });
+  };
+  const duties: PlantDuty[] = [];
+  const duty = (id: string, name: string, dutyW: number, fromK: number, toK: number) => duties.push({ id, name, dutyW, fromK, toK });
+  const tWater = plant.feedWaterTemperatureK;
+  const inlets = (['fuel', 'air'] as const)
+    .map((electrode) => ({ electrode, stream: point.streams.find((x) => x.id === `${electrode}-inlet`) }))
+    .filter((x): x is { electrode: 'fuel' | 'air'; stream: NonNullable<typeof x.stream> } => x.stream !== undefined);
+  const outlets = point.streams.filter((x) => x.id === 'fuel-outlet' || x.id === 'air-outlet');
+  const liquidOut = outlets.reduce((a, x) => a + (x.flows['H2O(L)'] ?? 0), 0);
+  const liquidIn = inlets.reduce((a, x) => a + (x.stream.flows['H2O(L)'] ?? 0), 0);
+  const returned = Math.min(liquidIn, liquidOut);
+  const makeUp = liquidIn - returned;
+  const drain = liquidOut - returned;
+  const steam: ElectrodeSteam[] = [];
+  const gasFeeds: { electrode: 'fuel' | 'air'; flows: Record<string, number>; temperatureK: number }[] = [];
+  const feedWaterMol = inlets.reduce((a, x) => a + (x.stream.flows.H2O ?? 0), 0) + makeUp;
+  add('feed-water', 'feed water', tWater, Math.max(...inlets.map((x) => x.stream.pressureBar)), feedWaterMol > 0 ? { 'H2O(L)': feedWaterMol } : {});
+  for (const { electrode, stream } of inlets) {
+    const side = electrode === 'fuel' ? 'fuel-electrode' : 'air-electrode';
+    const suffix = electrode === 'fuel' ? '' : '-air';
+    const vapourMol = stream.flows.H2O ?? 0;
+    const liquidMol = stream.flows['H2O(L)'] ?? 0;
+    const gases = without(without(stream.flows, 'H2O'), 'H2O(L)');
+    const tIn = stream.temperatureK;
+    if (vapourMol > 0) {
+      const s = { electrode, toK: tIn, ...raiseSteam(vapourMol, tWater, stream.pressureBar, tIn) };
+      steam.push(s);
+      duty(`feed-water-heating${suffix}`, `feed water heated to saturation (${side} steam)`, s.liquidHeatingW, tWater, s.saturationTemperatureK);
+      duty(`evaporation${suffix}`, `feed water evaporated (${side} steam)`, s.evaporationW, s.saturationTemperatureK, s.saturationTemperatureK);
+      duty(`superheating${suffix}`, `steam superheated to the ${side} inlet`, s.superheatingW, s.saturationTemperatureK, tIn);
+    }
+    if (liquidMol > 0) {
+      const own = liquidMol === liquidIn ? makeUp : (makeUp * liquidMol) / liquidIn;
+      const back = liquidMol - own;
+      duty(`make-up-heating${suffix}`, `make-up water heated to the ${side} inlet`, H({ 'H2O(L)': own }, tIn) - H({ 'H2O(L)': own }, tWater), tWater, tIn);
+      if (back > 0) duty(`loop-cooling${suffix}`, `water loop cooler (the returned water brought back to the ${side} inlet)`, H({ 'H2O(L)': back }, tIn) - H({ 'H2O(L)': back }, tStack), tStack, tIn);
+    }
+    if (totalFlow(gases) > 0) {
+      const tSupply = electrode === 'fuel' ? plant.fuelSupplyTemperatureK : plant.airSupplyTemperatureK;
+      gasFeeds.push({ electrode, flows: gases, temperatureK: tSupply });
+      add(`${electrode}-gas-supply`, electrode === 'fuel' ? 'gas fed with the steam (fuel electrode)' : 'sweep gas supply', tSupply, stream.pressureBar, gases);
+      duty(`${electrode}-gas-preheat`, `${electrode === 'fuel' ? 'gas fed with the steam' : 'sweep gas'} heated to the ${side} inlet`, H(gases, tIn) - H(gases, tSupply), tSupply, tIn);
+    }
+  }
+  for (const { stream } of inlets) add(stream.id, stream.name, stream.temperatureK, stream.pressureBar, { ...stream.flows });
+  const gasOf = (id: string) => without(point.streams.find((x) => x.id === id)?.flows ?? {}, 'H2O(L)');
+  const pFuel = inputs.fuelPressureBar;
+  const product = gasOf('fuel-outlet');
+  const oxygen = gasOf('air-outlet');
+  add('fuel-outlet', 'fuel-electrode outlet (hydrogen product)', tStack, pFuel, product);
+  add('air-outlet', 'air-electrode outlet (oxygen product)', tStack, inputs.airPressureBar, oxygen);
+  if (returned > 0) add('loop-return', 'water returned from the stack to its inlet', tStack, Math.max(...inlets.map((x) => x.stream.pressureBar)), { 'H2O(L)': returned });
+  if (drain > 0) add('stack-drain', 'liquid water drained from the stack', tStack, pFuel, { 'H2O(L)': drain });
+
+  // Stack heat: what the losses leave of it is removed by the stack's cooling, or, below zero, supplied.
+  const acInW = point.netPowerW;
+  const heatLossW = plant.heatLossFraction * acInW;
+  const stackHeatW = point.heat.asFedHeatW;
+  let stackNet = stackHeatW - heatLossW;
+  // A water loop returns its water at the inlet temperature: where the stack would need heat to warm
+  // it, the loop's cooler removes that much less (it takes out only what the stack put in).
+  const loop = duties.find((d) => d.id.startsWith('loop-cooling'));
+  if (loop && stackNet < 0) {
+    const shift = Math.min(-stackNet, -loop.dutyW);
+    loop.dutyW += shift;
+    stackNet += shift;
+  }
+  const stackHeatSuppliedW = Math.max(0, -stackNet);
+  const stackHeatRemovedW = Math.max(0, stackNet);
+
+  // Product cooled, dried and compressed.
+  let productCooling: ElectrolysisPlantBalance['productCooling'] = null;
+  let compression: ElectrolysisPlantBalance['compression'] = null;
+  let delivered = { flows: product, temperatureK: tStack, pressureBar: pFuel };
+  let condensate = 0;
+  let dried = 0;
+  const c = plant.hydrogenCompression;
+  if (c) {
+    if (!(c.inletTemperatureK < tStack)) {
+      throw new CalculationError(`the compressor inlet temperature (${(c.inletTemperatureK - 273.15).toFixed(1)} °C) must lie below the stack temperature (${(tStack - 273.15).toFixed(1)} °C): the product gas is cooled to it`, 'compressor-inlet-temperature');
+    }
+    const cooled = exhaustHeatRecovery({ flowsMolPerS: product, inletTemperatureK: tStack, exitTemperatureK: c.inletTemperatureK, pressureBar: pFuel });
+    condensate = cooled.condensedWaterMolPerS;
+    dried = cooled.exitGasMolPerS.H2O ?? 0;
+    const dry = without(cooled.exitGasMolPerS, 'H2O');
+    productCooling = { fromK: tStack, toK: c.inletTemperatureK, pressureBar: pFuel, dutyW: -cooled.heatWithCondensationW, condensedMolPerS: condensate, driedMolPerS: dried };
+    duty('product-cooling', 'hydrogen product cooled (water condensed) ahead of the dryer', -cooled.heatWithCondensationW, tStack, c.inletTemperatureK);
+    add('product-dried', 'hydrogen product cooled and dried', c.inletTemperatureK, pFuel, dry);
+    if (condensate > 0) add('product-condensate', 'condensate from the product cooler', c.inletTemperatureK, pFuel, { 'H2O(L)': condensate });
+    if (dried > 0) add('dryer-water', 'water vapour removed by the dryer', c.inletTemperatureK, pFuel, { H2O: dried });
+    const stages = stageCount(c.stages, c.deliveryPressureBar / pFuel);
+    const k = compressGas({
+      composition: dry,
+      molarFlowMolPerS: totalFlow(dry),
+      inletTemperatureK: c.inletTemperatureK,
+      inletPressureBar: pFuel,
+      deliveryPressureBar: c.deliveryPressureBar,
+      stages,
+      isentropicEfficiency: c.isentropicEfficiency,
+      intercoolTemperatureK: c.intercoolTemperatureK,
+      deliveryTemperatureK: c.intercoolTemperatureK,
+    });
+    compression = {
+      inletPressureBar: pFuel,
+      deliveryPressureBar: c.deliveryPressureBar,
+      inletTemperatureK: c.inletTemperatureK,
+      intercoolTemperatureK: c.intercoolTemperatureK,
+      stages,
+      stagesFrom: 'given' in c.stages ? 'given' : 'maximum-stage-ratio',
+      pressureRatioPerStage: k.pressureRatioPerStage,
+      isentropicEfficiency: c.isentropicEfficiency,
+      flowMolPerS: totalFlow(dry),
+      stageOutletTemperaturesK: k.stages.map((x) => x.outletTemperatureK),
+      powerW: k.powerW,
+      workJPerKg: k.workJPerKg,
+      intercoolersW: k.intercoolerDutyW,
+      aftercoolerW: k.aftercoolerDutyW,
+    };
+    if (k.intercoolerDutyW > 0) duty('intercoolers', 'compressor intercoolers', -k.intercoolerDutyW, Math.max(...k.stages.slice(0, -1).map((x) => x.outletTemperatureK)), c.intercoolTemperatureK);
+    if (k.aftercoolerDutyW > 0) duty('aftercooler', 'compressor after-cooler', -k.aftercoolerDutyW, k.stages.at(-1)!.outletTemperatureK, c.intercoolTemperatureK);
+    delivered = { flows: dry, temperatureK: k.deliveryTemperatureK, pressureBar: c.deliveryPressureBar };
+    add('hydrogen-delivered', 'hydrogen delivered', delivered.temperatureK, delivered.pressureBar, dry);
+  }
+
+  const feedHeatW = duties.reduce((a, d) => a + Math.max(0, d.dutyW), 0);
+  const coolersW = duties.reduce((a, d) => a + Math.max(0, -d.dutyW), 0);
+  const heatSuppliedW = feedHeatW + stackHeatSuppliedW;
+  const electricHeatW = plant.heatSupply === 'electric' ? heatSuppliedW : 0;
+  const externalHeatW = plant.heatSupply === 'external' ? heatSuppliedW : 0;
+  const compressorW = compression?.powerW ?? 0;
+  const e = point.electrolysis!;
+  const hydrogenKgPerS = e.hydrogenMolPerS * getSpecies('H2').molarMassKgPerMol;
+  const parasiticW = inputs.parasiticFraction * point.stackPowerW;
+  const totalElectricW = acInW + electricHeatW + compressorW;
+  const perKg = (w: number) => w / hydrogenKgPerS / 3.6e6;
+  const specificEnergy = {
+    hydrogenKgPerS,
+    stackDcW: point.stackPowerW,
+    conversionLossW: acInW - point.stackPowerW - parasiticW,
+    parasiticW,
+    electricHeatW,
+    compressorW,
+    totalElectricW,
+    stackKWhPerKg: perKg(point.stackPowerW),
+    systemKWhPerKg: perKg(totalElectricW),
+    systemEfficiencyLhv: e.productLhvW / (totalElectricW + externalHeatW),
+    systemEfficiencyHhv: e.productHhvW / (totalElectricW + externalHeatW),
+  };
+
+  // First law over the plant: feeds, electricity and heat in; products, condensate and heat out.
+  const terms: PowerPlantBalance['energy']['terms'] = [
+    { name: 'feed water', valueW: feedWaterMol > 0 ? H({ 'H2O(L)': feedWaterMol }, tWater) : 0, side: 'in' },
+    ...gasFeeds.map((g) => ({ name: g.electrode === 'fuel' ? 'gas fed with the steam' : 'sweep gas', valueW: H(g.flows, g.temperatureK), side: 'in' as const })),
+    { name: 'stack DC power', valueW: point.stackPowerW, side: 'in' },
+    { name: plant.heatSupply === 'electric' ? 'heat supplied electrically' : 'heat supplied from outside', valueW: heatSuppliedW, side: 'in' },
+    { name: 'compressor work', valueW: compressorW, side: 'in' },
+    { name: compression ? 'hydrogen delivered' : 'hydrogen product', valueW: H(delivered.flows, delivered.temperatureK), side: 'out' },
+    { name: 'oxygen product', valueW: H(oxygen, tStack), side: 'out' },
+    { name: 'condensate', valueW: condensate > 0 ? H({ 'H2O(L)': condensate }, c!.inletTemperatureK) : 0, side: 'out' },
+    { name: 'water removed by the dryer', valueW: dried > 0 ? H({ H2O: dried }, c!.inletTemperatureK) : 0, side: 'out' },
+    { name: 'liquid water drained', valueW: drain > 0 ? H({ 'H2O(L)': drain }, tStack) : 0, side: 'out' },
+    { name: 'heat removed by the coolers', valueW: coolersW, side: 'out' },
+    { name: "heat removed by the stack's cooling", valueW: stackHeatRemovedW, side: 'out' },
+    { name: 'heat lost to ambient', valueW: heatLossW, side: 'out' },
+  ];
+  const energy = firstLaw(terms, totalElectricW);
+
+  return {
+    streams,
+    balance: {
+      feedWaterMolPerS: feedWaterMol,
+      steam,
+      waterLoop: liquidIn > 0 ? { makeUpMolPerS: makeUp, returnMolPerS: returned, drainMolPerS: drain } : null,
+      duties,
+      feedHeatW,
+      coolersW,
+      stackHeatW,
+      heatLossW,
+      stackHeatSuppliedW,
+      stackHeatRemovedW,
+      heatSupply: plant.heatSupply,
+      heatSuppliedW,
+      productCooling,
+      compression,
+      specificEnergy,
+      energy,
+    },
+  };
+}
+
+/** The plant around the stack of a design point: the electrical layout, and the power plant's or the electrolysis plant's balance. */
 export function plantBalance(point: DesignPoint, plant: PlantInput): PlantBalance {
   const findings: Finding[] = [];
   const electrical = layoutOf(point, plant);
   if (point.inputs.mode === 'power' && point.inputs.fuelFeed && point.inputs.airFeed) {
     const { balance, streams } = powerBalance(point, plant, electrical, findings);
-    return { electrical, streams, power: balance, findings };
+    return { electrical, streams, power: balance, electrolysis: null, findings };
+  }
+  if (point.inputs.mode === 'electrolysis' && point.electrolysis) {
+    const { balance, streams } = electrolysisBalance(point, plant);
+    return { electrical, streams, power: null, electrolysis: balance, findings };
   }
   const streams = point.streams.map((x, k) => ({ number: k + 1, id: x.id, name: x.name, temperatureK: x.temperatureK, pressureBar: x.pressureBar, flows: { ...x.flows } }));
-  return { electrical, streams, power: null, findings };
+  return { electrical, streams, power: null, electrolysis: null, findings };
 }

@@ -180,11 +180,99 @@ const powerPlantSchema = z
   })
   .describe('power mode: the plant around the stack (lib/plant/plant-balance.ts)');
 
+const electrolysisPlantSchema = z
+  .object({
+    feedWater_mol_per_s: num('liquid feed water taken in at its supply temperature: the steam raised and the water loop\'s make-up'),
+    feedWater_kg_per_h: num('the same, kg/h'),
+    steam: z
+      .array(
+        z.object({
+          electrode: z.enum(['fuel', 'air']).describe('the electrode the steam is fed to'),
+          water_mol_per_s: num('feed water raised to steam'),
+          saturationTemperature_K: num("saturation temperature at the electrode's pressure (IAPWS-IF97 region 4)"),
+          latentHeat_J_per_mol: num('h°(H2O, gas) − h°(H2O, liquid) at the saturation temperature, species data'),
+          liquidHeating_W: num('feed water heated to saturation'),
+          evaporation_W: num('feed water evaporated at saturation'),
+          superheating_W: num("steam heated from saturation to the electrode's inlet temperature"),
+          to_K: num("the electrode's inlet temperature"),
+        }),
+      )
+      .describe('steam raised from the feed water, per electrode fed with vapour; empty for a liquid-fed cell'),
+    waterLoop: z
+      .object({
+        makeUp_mol_per_s: num('water made up: the water split and the vapour the product gases carry off'),
+        return_mol_per_s: num('liquid water returned from the stack outlets to its inlet'),
+        drain_mol_per_s: num('liquid water leaving the stack beyond what its inlet takes (drained)'),
+      })
+      .nullable()
+      .describe('a liquid-fed cell\'s water loop; null where the water is fed as steam'),
+    duties: z.array(dutySchema).describe('every heater and cooler of the feed preparation, the product cooling and the compression'),
+    feedHeat_W: num('Σ of the positive duties: the heat the feed heaters and the evaporator take'),
+    coolers_W: num('Σ of the negative duties, as a positive number: the heat the coolers remove'),
+    stackHeat_W: num('heat the stack releases with its inlets as fed (negative: it absorbs heat, below thermoneutral)'),
+    heatLoss_W: num('heat lost to ambient: plant.heat-loss × the AC input'),
+    stackHeatSupplied_W: num('heat supplied to the stack: its demand below thermoneutral and the losses, less what a water loop\'s cooler need not remove'),
+    stackHeatRemoved_W: num("stack heat left for the stack's own cooling after the losses"),
+    heatSupply: z.enum(['electric', 'external']).describe('plant.heat-supply: electric heaters (counted in the electricity) or heat from outside'),
+    heatSupplied_W: num('feed heat + stack heat supplied'),
+    productCooling: z
+      .object({
+        from_K: num('the stack temperature'),
+        to_K: num('the compressor inlet temperature'),
+        pressure_bar: num('the fuel-electrode pressure'),
+        duty_W: num('heat given to the product (negative: removed), condensation included'),
+        condensed_mol_per_s: num('water condensed to saturation at the compressor inlet temperature'),
+        dried_mol_per_s: num('water vapour left, removed by the dryer'),
+      })
+      .nullable()
+      .describe('the product cooled and dried ahead of the compressor; null without hydrogen compression'),
+    compression: z
+      .object({
+        inletPressure_bar: num('the fuel-electrode pressure'),
+        deliveryPressure_bar: num('the delivery pressure of the basis'),
+        inletTemperature_K: num('compressor inlet temperature'),
+        intercoolTemperature_K: num('temperature after each intercooler and the after-cooler'),
+        stages: num('intercooled stages'),
+        stagesFrom: z.enum(['given', 'maximum-stage-ratio']).describe('the stages as given, or the fewest that keep each stage at or below the maximum stage ratio'),
+        pressureRatioPerStage: num('(p_delivery/p_inlet)^(1/N), equal in every stage'),
+        isentropicEfficiency: num('isentropic efficiency of each stage'),
+        flow_mol_per_s: num('dry product gas compressed'),
+        stageOutletTemperatures_K: z.array(z.number()).describe('outlet temperature of each stage'),
+        power_W: num('power given to the gas, Σ over the stages (ideal gas, species data; mechanical and drive losses not included)'),
+        work_J_per_kg: num('work per kg of gas compressed'),
+        intercoolers_W: num('heat removed between the stages'),
+        aftercooler_W: num('heat removed after the last stage'),
+      })
+      .nullable()
+      .describe('hydrogen compression; null without plant.hydrogen-compression'),
+    specificEnergy: z.object({
+      hydrogen_kg_per_h: num('net hydrogen made'),
+      stackDc_W: num('stack DC power'),
+      conversionLoss_W: num('rectifier loss: P_DC (1/η − 1)'),
+      parasitic_W: num('balance-of-plant load: parasitic share × P_DC'),
+      electricHeat_W: num('heat supplied by electric heaters (0 where it comes from outside)'),
+      compressor_W: num('hydrogen compressor power'),
+      totalElectric_W: num('Σ: the electricity the plant takes'),
+      stack_kWh_per_kg: num('stack DC power per kg of hydrogen'),
+      system_kWh_per_kg: num('all the electricity per kg of hydrogen'),
+      systemEfficiencyLhv: num('LHV of the combustibles made / (electricity + heat from outside)'),
+      systemEfficiencyHhv: num('HHV of the combustibles made / (electricity + heat from outside)'),
+    }),
+    energyBalance: z.object({
+      in_W: num('Σ of the enthalpy flows, electricity and heat entering the plant'),
+      out_W: num('Σ of the enthalpy flows and heat leaving the plant'),
+      residual: num('(in − out) / the electricity: the first law over the plant, to close below 1e-9'),
+      terms: z.array(z.object({ name: z.string(), value_W: z.number(), side: z.enum(['in', 'out']) })).describe('absolute enthalpy flows (heats of formation included), work, electricity and heat'),
+    }),
+  })
+  .describe('electrolysis: the plant around the stack (lib/plant/plant-balance.ts)');
+
 const plantSchema = z
   .object({
     electrical: electricalSchema,
     streams: z.array(plantStreamSchema).describe('the numbered streams of the heat-and-material balance'),
-    power: powerPlantSchema.nullable().describe('power mode; null in electrolysis (the electrolysis plant balance is not built yet)'),
+    power: powerPlantSchema.nullable().describe('power mode; null in electrolysis'),
+    electrolysis: electrolysisPlantSchema.nullable().describe('electrolysis; null in power mode'),
   })
   .describe('the plant around the stack (the plant section of the basis, issue 18)');
 

@@ -406,11 +406,11 @@ function plantEquations(r: Results): EquationEntry[] {
       (show) => `\\begin{gathered} ${show('stack')}, \\qquad ${show('bus')}, \\\\ ${show('current')}, \\qquad I_\\mathrm{stack} = I_\\mathrm{string} = I_\\mathrm{cell} \\end{gathered}`,
     ),
   ];
-  if (!r.plant.power) return out;
-  const Q = sym('Q_\\mathrm{del}');
-  out.push(
-    entry(
-      'steam-raising',
+  const steamTo = r.plant.power ? 'T_\\mathrm{mix}' : 'T_\\mathrm{in}';
+  if (r.plant.power || r.plant.electrolysis?.steam.length) {
+    out.push(
+      entry(
+        'steam-raising',
       {
         steam: {
           lhs: sym('Q_\\mathrm{steam}'),
@@ -420,9 +420,43 @@ function plantEquations(r: Results): EquationEntry[] {
       },
       (show) =>
         // One relation a line: on one line the four were 848 px wide, more than the A4 text column (673 px), and Chromium would shrink every printed page to fit.
-        `\\begin{gathered} ${show('steam')}, \\\\ \\Delta h_\\mathrm{liq} = h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{s}) - h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{w}), \\\\ L = h^\\circ_\\mathrm{H_2O}(T_\\mathrm{s}) - h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{s}), \\\\ \\Delta h_\\mathrm{vap} = h^\\circ_\\mathrm{H_2O}(T_\\mathrm{mix}) - h^\\circ_\\mathrm{H_2O}(T_\\mathrm{s}) \\end{gathered}`,
+        `\\begin{gathered} ${show('steam')}, \\\\ \\Delta h_\\mathrm{liq} = h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{s}) - h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{w}), \\\\ L = h^\\circ_\\mathrm{H_2O}(T_\\mathrm{s}) - h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{s}), \\\\ \\Delta h_\\mathrm{vap} = h^\\circ_\\mathrm{H_2O}(${steamTo}) - h^\\circ_\\mathrm{H_2O}(T_\\mathrm{s}) \\end{gathered}`,
+      ),
+    );
+  }
+  if (r.plant.electrolysis) {
+    const Pc = sym('P_\\mathrm{comp}');
+    out.push(
+      entry(
+        'electrolysis-plant-energy',
+        {
+          system: {
+            lhs: sym('w_\\mathrm{sys}'),
+            symbols: { P: sym('P_\\mathrm{AC}'), Qe: sym('Q_\\mathrm{el}'), Pc, m: sym('\\dot m_\\mathrm{H_2}') },
+            rhs: (q) => `\\frac{${q.P} + ${q.Qe} + ${q.Pc}}{${q.m}}`,
+          },
+          compressor: { lhs: Pc, symbols: { n: sym('\\dot n_\\mathrm{c}'), w: sym('\\textstyle\\sum_k w_k', { listed: 'w_\\mathrm{c}' }) }, rhs: (q, op) => `${q.n}${op.times}${q.w}` },
+        },
+        (show) =>
+          `\\begin{gathered} ${show('system')}, \\\\ ${show('compressor')}, \\qquad w_k = \\frac{h(T_{\\mathrm{s},k}) - h(T_k)}{\\eta_\\mathrm{s}}, \\quad s^\\circ(T_{\\mathrm{s},k}) = s^\\circ(T_k) + R \\ln r, \\quad r = \\left(\\frac{p_\\mathrm{out}}{p_\\mathrm{in}}\\right)^{1/N} \\end{gathered}`,
+      ),
+    );
+  }
+  if (!r.plant.power) return out;
+  const Q = sym('Q_\\mathrm{del}');
+  out.push(
+    entry('plant-duty', {
+      duty: { lhs: sym('Q'), symbols: { Hout: sym('H(T_\\mathrm{out})'), Hin: sym('H(T_\\mathrm{in})') }, rhs: (q) => `${q.Hout} - ${q.Hin}` },
+      blower: { lhs: sym('P_\\mathrm{bl}'), symbols: { n: sym('\\dot n_\\mathrm{air}'), hs: sym('\\Delta h_\\mathrm{s}'), eta: sym('\\eta_\\mathrm{s}') }, rhs: (q) => `\\frac{${q.n}\\,${q.hs}}{${q.eta}}` },
+    }),
+    entry(
+      'oxidiser-balance',
+      {
+        enthalpy: { lhs: sym('H_\\mathrm{prod}(T_\\mathrm{ad})'), symbols: { Hog: sym('H_\\mathrm{off\\text{-}gas}(T)'), Hox: sym('H_\\mathrm{oxidant}(T_\\mathrm{ox})') }, rhs: (q) => `${q.Hog} + ${q.Hox}` },
+      },
+      () =>
+        '\\sum_j \\dot n_j\\, h^\\circ_j(T_\\mathrm{ad}) = \\sum_{\\mathrm{off\\text{-}gas}} \\dot n_i\\, h^\\circ_i(T) + \\sum_{\\mathrm{oxidant}} \\dot n_k\\, h^\\circ_k(T_\\mathrm{ox}), \\qquad \\min G \\text{ at fixed } H, p',
     ),
-    shown('oxidiser-balance', '\\sum_j \\dot n_j\\, h^\\circ_j(T_\\mathrm{ad}) = \\sum_{\\mathrm{off\\text{-}gas}} \\dot n_i\\, h^\\circ_i(T) + \\sum_{\\mathrm{oxidant}} \\dot n_k\\, h^\\circ_k(T_\\mathrm{ox}), \\qquad \\min G \\text{ at fixed } H, p'),
     entry('delivered-heat', {
       heat: { lhs: Q, symbols: { R: sym('Q_\\mathrm{rec}'), D: sym('D'), L: sym('Q_\\mathrm{loss}') }, rhs: (q) => `${q.R} - ${q.D} - ${q.L}` },
     }),

@@ -1,6 +1,7 @@
 /**
- * The block flow diagram of a power plant: one box per unit the basis has (feed preparation,
- * pre-reformer, fuel preheat, blower, air preheat, stack, off-gas oxidiser, heat recovery) and
+ * The block flow diagram of the plant: one box per unit the basis has (power: feed preparation,
+ * pre-reformer, fuel preheat, blower, air preheat, stack, off-gas oxidiser, heat recovery;
+ * electrolysis: feed preparation or water loop, preheat, stack, product cooler and dryer, compressor) and
  * one arrow per numbered stream of the heat-and-material balance, labelled with its number. Drawn
  * by the project as plain SVG in the document's style: boxes, lines, numbers, no symbols.
  */
@@ -64,8 +65,103 @@ function exitLabel(x: number, y: number, label: string): string {
   return `<text x="${x}" y="${y + 4}" font-size="10">${escapeHtml(label)}</text>`;
 }
 
-/** The diagram of the results' plant, or null where there is no power plant balance. */
+/** The SVG around the boxes, arrows and labels. */
+function svgOf(boxes: Box[], parts: string[], terminals: string[]): TrustedHtml {
+  const height = AIR_Y + H + 62;
+  const width = COL[7]! + 70;
+  return trustedHtml(
+    `<svg class="block-flow" viewBox="0 0 ${width} ${height}" width="100%" role="img" aria-label="Block flow diagram of the plant with its numbered streams" xmlns="http://www.w3.org/2000/svg">` +
+      `<defs><marker id="bfd-arrow" viewBox="0 0 10 10" refX="10" refY="5" markerWidth="7" markerHeight="7" orient="auto-start-reverse"><path d="M0,0 L10,5 L0,10 z" fill="currentColor"/></marker></defs>` +
+      boxes.map(drawBox).join('') +
+      parts.join('') +
+      terminals.join('') +
+      '</svg>',
+  );
+}
+
+/** A dashed return from a point on the stack's edge (top or bottom) to a box's edge on the same side. */
+function loopBack(fromX: number, fromY: number, toX: number, toY: number, y: number, numbers: number[]): string {
+  return `<path d="M${fromX},${fromY} L${fromX},${y} L${toX},${y} L${toX},${toY}" fill="none" stroke="currentColor" stroke-width="1.2" stroke-dasharray="4 3" marker-end="url(#bfd-arrow)"/><text x="${((fromX + toX) / 2).toFixed(1)}" y="${y + (y < toY ? -4 : 12)}" text-anchor="middle" font-size="11" font-weight="bold">${numbers.join(', ')}</text>`;
+}
+
+/**
+ * The electrolysis plant: the preparation of each electrode's feed (steam raising, a water loop's
+ * make-up and cooler, gas preheat), the stack, and the hydrogen product through its cooler and
+ * dryer to the compressor where there is one; the oxygen-side product leaves the plant.
+ */
+function electrolysisDiagram(r: Results): TrustedHtml {
+  const x = r.plant.electrolysis!;
+  const n = new Map(r.plant.streams.map((s) => [s.id, s.number]));
+  const has = (id: string) => n.has(id);
+  const num = (...ids: string[]) => ids.filter(has).map((id) => n.get(id)!);
+  const boxes: Box[] = [];
+  const parts: string[] = [];
+  const terminals: string[] = [];
+  const add = (b: Box) => (boxes.push(b), b);
+  const stack = add(box(3, FUEL_Y - 10, ['stack', '(fuel electrode', 'above, air', 'electrode below)'], AIR_Y - FUEL_Y + H + 20));
+  const waterOf = (id: string) => r.plant.streams.find((s) => s.id === id && (s.speciesFlows_mol_per_s.H2O ?? 0) + (s.speciesFlows_mol_per_s['H2O(L)'] ?? 0) > 0);
+  const sides = [
+    { id: 'fuel', y: FUEL_Y, steam: x.steam.some((s) => s.electrode === 'fuel'), gas: 'gas with the steam' },
+    { id: 'air', y: AIR_Y, steam: x.steam.some((s) => s.electrode === 'air'), gas: 'sweep gas' },
+  ];
+  const water = sides.find((side) => waterOf(`${side.id}-inlet`));
+  for (const side of sides) {
+    if (!has(`${side.id}-inlet`)) continue;
+    const loop = side === water && x.waterLoop !== null;
+    const label = side.steam ? ['feed preparation', '(steam, preheat)'] : loop ? ['water loop', '(make-up, cooler)'] : ['preheat'];
+    const prep = add(box(1, side.y, label));
+    parts.push(arrow(right(prep), { x: stack.x, y: side.y + H / 2 }, num(`${side.id}-inlet`)));
+    const gasId = `${side.id}-gas-supply`;
+    const withWater = side === water && has('feed-water');
+    if (has(gasId)) {
+      const t = terminal(0, withWater ? side.y - 14 : side.y, side.gas);
+      terminals.push(drawTerminal(t, 'start'));
+      parts.push(arrow({ x: COL[0]!, y: t.y + H / 2 }, { x: prep.x, y: prep.y + H / 2 - (withWater ? 8 : 0) }, num(gasId), true));
+    }
+    if (withWater) {
+      const t = terminal(0, has(gasId) ? side.y + 14 : side.y, 'feed water');
+      terminals.push(drawTerminal(t, 'start'));
+      parts.push(arrow({ x: COL[0]!, y: t.y + H / 2 }, { x: prep.x, y: prep.y + H / 2 + (has(gasId) ? 8 : 0) }, num('feed-water'), true));
+    }
+    if (loop && has('loop-return')) {
+      const top = side.id === 'fuel';
+      const edge = top ? stack.y : stack.y + stack.h;
+      parts.push(loopBack(stack.x + W / 2, edge, prep.x + W / 2, top ? prep.y : prep.y + H, top ? edge - 14 : edge + 14, num('loop-return')));
+    }
+  }
+  const outFuel = { x: stack.x + W, y: FUEL_Y + H / 2 };
+  const outAir = { x: stack.x + W, y: AIR_Y + H / 2 };
+  if (x.compression) {
+    const cooler = add(box(4, FUEL_Y, ['product cooler', 'and dryer']));
+    const comp = add(box(5, FUEL_Y, ['compressor', `(${x.compression.stages} stage${x.compression.stages === 1 ? '' : 's'})`]));
+    parts.push(arrow(outFuel, left(cooler), num('fuel-outlet')));
+    parts.push(arrow(right(cooler), left(comp), num('product-dried')));
+    parts.push(arrow(right(comp), { x: COL[6]!, y: FUEL_Y + H / 2 }, num('hydrogen-delivered')));
+    terminals.push(exitLabel(COL[6]! + 4, FUEL_Y + H / 2, 'hydrogen'));
+    const drops = num('product-condensate', 'dryer-water');
+    if (drops.length) {
+      parts.push(downOrUp(cooler.x + W / 2, cooler.y + H, cooler.y + H + 36, drops));
+      terminals.push(`<text x="${cooler.x + W / 2}" y="${cooler.y + H + 48}" text-anchor="middle" font-size="10">water removed</text>`);
+    }
+  } else {
+    parts.push(arrow(outFuel, { x: COL[4]!, y: outFuel.y }, num('fuel-outlet')));
+    terminals.push(exitLabel(COL[4]! + 4, outFuel.y, 'hydrogen product'));
+  }
+  if (has('air-outlet')) {
+    parts.push(arrow(outAir, { x: COL[4]!, y: outAir.y }, num('air-outlet')));
+    terminals.push(exitLabel(COL[4]! + 4, outAir.y, 'oxygen side'));
+  }
+  if (has('stack-drain')) {
+    const d = { x: stack.x + W / 2 + 20, y: stack.y + stack.h };
+    parts.push(downOrUp(d.x, d.y, d.y + 30, num('stack-drain')));
+    terminals.push(`<text x="${d.x}" y="${d.y + 42}" text-anchor="middle" font-size="10">drain</text>`);
+  }
+  return svgOf(boxes, parts, terminals);
+}
+
+/** The diagram of the results' plant, or null where there is no plant balance. */
 export function blockFlowDiagram(r: Results): TrustedHtml | null {
+  if (r.plant.electrolysis) return electrolysisDiagram(r);
   if (!r.plant.power) return null;
   const n = new Map(r.plant.streams.map((s) => [s.id, s.number]));
   const has = (id: string) => n.has(id);
@@ -145,14 +241,5 @@ export function blockFlowDiagram(r: Results): TrustedHtml | null {
     terminals.push(`<text x="${water.x}" y="${water.y + 42}" text-anchor="middle" font-size="10">liquid water</text>`);
     parts.push(downOrUp(water.x, water.y, water.y + 30, num('fuel-electrode-water', 'air-electrode-water')));
   }
-  const height = AIR_Y + H + 62;
-  const width = COL[7]! + 70;
-  const svg =
-    `<svg class="block-flow" viewBox="0 0 ${width} ${height}" width="100%" role="img" aria-label="Block flow diagram of the plant with its numbered streams" xmlns="http://www.w3.org/2000/svg">` +
-    `<defs><marker id="bfd-arrow" viewBox="0 0 10 10" refX="10" refY="5" markerWidth="7" markerHeight="7" orient="auto-start-reverse"><path d="M0,0 L10,5 L0,10 z" fill="currentColor"/></marker></defs>` +
-    boxes.map(drawBox).join('') +
-    parts.join('') +
-    terminals.join('') +
-    '</svg>';
-  return trustedHtml(svg);
+  return svgOf(boxes, parts, terminals);
 }

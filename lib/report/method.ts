@@ -292,12 +292,36 @@ function plant(step: Step, r: Results): void {
       'The cells are connected in series in a stack, the stacks in series in a string and the strings in parallel on the DC bus. Series elements carry one current and add their voltages; parallel strings share one voltage and add their currents:',
     )
     .eq('plant-layout');
+  const x = r.plant.electrolysis;
+  if (x) {
+    if (x.steam.length) {
+      step
+        .text(
+          'Every duty is the change of the absolute enthalpy flow $\\sum_i \\dot n_i h^\\circ_i(T)$ of its stream (heats of formation included, species data). The water fed as steam is heated from the feed-water temperature $T_\\mathrm{w}$ to its saturation temperature $T_\\mathrm{s}$ at the electrode pressure (IAPWS-IF97 region 4), evaporated with the latent heat of the species data, and superheated to the electrode inlet temperature $T_\\mathrm{in}$:',
+        )
+        .eq('steam-raising');
+    } else {
+      step.text(
+        'Every duty is the change of the absolute enthalpy flow $\\sum_i \\dot n_i h^\\circ_i(T)$ of its stream (heats of formation included, species data). The liquid water the stack does not split returns to its inlet through the loop cooler; the make-up (the water split and the vapour the gases carry off) is heated from the feed-water temperature to the inlet temperature.',
+      );
+    }
+    step
+      .text(
+        "Gases fed with the steam and the sweep gas are heated from their supply temperature to the inlet temperature; no heat is recovered from the products to the feeds. The heat the stack needs below thermoneutral and the losses to ambient are supplied, like the feed heat, by electric heaters or from outside, as the basis says. Where hydrogen is compressed, the product is cooled and dried and compressed in $N$ intercooled stages of equal pressure ratio, each adiabatic with the stated isentropic efficiency, the gas ideal with the species data's $c_p(T)$ (Çengel and Boles, Thermodynamics, ch. 7). The system's specific energy counts every electricity the plant takes: the rectifier's AC input with the balance of plant $P_\\mathrm{AC}$, electric heat $Q_\\mathrm{el}$ and the compressor:",
+      )
+      .eq('electrolysis-plant-energy');
+    return;
+  }
   if (!r.plant.power) return;
   step
     .text(
       'Every duty is the change of the absolute enthalpy flow $\\sum_i \\dot n_i h^\\circ_i(T)$ of its stream (heats of formation included, species data). The feed water is heated to its saturation temperature $T_\\mathrm{s}$ at the fuel-electrode pressure (IAPWS-IF97 region 4), evaporated with the latent heat of the species data, and superheated to the mixing temperature $T_\\mathrm{mix}$ of the pre-reformer inlet (else the fuel-electrode inlet):',
     )
     .eq('steam-raising')
+    .text(
+      'The fuel and air are heated from their supply (or blower outlet) temperature to the temperature the next unit takes them at, each duty the enthalpy flow out less the enthalpy flow in; the air blower is one adiabatic stage whose isentropic enthalpy rise $\\Delta h_\\mathrm{s}$ follows from $s^\\circ(T_\\mathrm{s}) = s^\\circ(T_1) + R \\ln(p_2/p_1)$ (Çengel and Boles, Thermodynamics, ch. 7):',
+    )
+    .eq('plant-duty')
     .text(
       'The fuel-electrode off-gas is burnt with its oxidant; the products leave at chemical equilibrium at the adiabatic temperature, found by minimising the Gibbs energy at fixed enthalpy and pressure:',
     )

@@ -133,11 +133,24 @@
     };
   }
 
+  function stackedConfig(spec) {
+    return {
+      type: 'bar',
+      data: {
+        labels: spec.categories,
+        datasets: spec.parts.map(function (p, i) {
+          return { label: p.label, data: p.values, backgroundColor: PALETTE[i % PALETTE.length], borderColor: '#fff', borderWidth: 1, pointStyle: 'rect', barPercentage: 0.8, categoryPercentage: 0.9 };
+        })
+      },
+      options: { indexAxis: 'y', scales: { x: Object.assign(axis(spec.x, 'bottom'), { stacked: true }), y: { stacked: true, ticks: { font: FONT, color: '#222' }, grid: { display: false } } } }
+    };
+  }
+
   function draw(script) {
     var spec = JSON.parse(script.textContent);
     var canvas = document.getElementById(script.getAttribute('data-canvas'));
     if (!canvas) throw new Error('chart canvas ' + script.getAttribute('data-canvas') + ' is missing');
-    var config = spec.kind === 'tornado' ? tornadoConfig(spec) : lineConfig(spec);
+    var config = spec.kind === 'tornado' ? tornadoConfig(spec) : spec.kind === 'stacked' ? stackedConfig(spec) : lineConfig(spec);
     config.options.animation = false;
     config.options.responsive = false;
     config.options.maintainAspectRatio = false;

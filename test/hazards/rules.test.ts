@@ -64,6 +64,9 @@ const CASES: Record<string, [HazardInput, HazardInput]> = {
   // Extra-low voltage ends at 120 V ripple-free DC (IEC 61140:2016): 121 V is above it, 120 V is not.
   'dc-voltage': [{ ...base, dcVoltage: { voltageV: 121, description: 'the stack voltage' } }, { ...base, dcVoltage: { voltageV: 120, description: 'the stack voltage' } }],
   'unassessed-species': [withStream({ SO2: 0.00001, N2: 0.99999 }), withStream({ N2: 1 })],
+  // The plant's own streams, by their ids (lib/plant/hazard-streams.ts): the oxidiser's outlet, the compressed hydrogen.
+  'oxidiser-hot-surfaces': [withStream({ CO2: 0.1, H2O: 0.2, N2: 0.7 }, { id: 'oxidiser-outlet', temperatureK: 900 + C }), withStream({ CO2: 0.1, H2O: 0.2, N2: 0.7 }, { id: 'exhaust', temperatureK: 900 + C })],
+  'hydrogen-compression': [withStream({ H2: 1 }, { id: 'hydrogen-delivered', pressureBar: 200, role: 'product' }), withStream({ H2: 1 }, { id: 'fuel-outlet', pressureBar: 200, role: 'product' })],
 };
 
 const ids = (input: HazardInput) => assessHazards(input).cautions.map((c) => c.id);

@@ -7,7 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import { calculate, evaluateBasis } from '../../lib/plant/calculate.ts';
 import { loadBasisFile } from '../../lib/basis/load.ts';
-import { plantBalance } from '../../lib/plant/plant-balance.ts';
+import { plantBalance, stageCount } from '../../lib/plant/plant-balance.ts';
 import { mixtureHeatCapacityJPerK } from '../../lib/thermo/mixture.ts';
 import { getSpecies } from '../../lib/thermo/species-data.ts';
 import { BasisError } from '../../lib/basis/diagnostics.ts';
@@ -25,8 +25,8 @@ const FULL_PLANT = {
   'plant.heat-loss': '2 %',
 };
 
-function balanceOf(technology: Parameters<typeof basisFrom>[0], edits: Record<string, unknown>) {
-  const basis = basisFrom(technology, 'power', edits);
+function balanceOf(technology: Parameters<typeof basisFrom>[0], edits: Record<string, unknown>, mode: 'power' | 'electrolysis' = 'power') {
+  const basis = basisFrom(technology, mode, edits);
   const point = evaluateBasis(basis);
   return { basis, point, plant: plantBalance(point, basis.plant) };
 }
@@ -138,6 +138,22 @@ describe('the hazards read the plant', () => {
   });
 });
 
+describe('the hazards read the plant cautions', () => {
+  it("caution on the oxidiser's hot outlet at its temperature, and on the compressed hydrogen at its pressure", () => {
+    const power = calculate(basisFrom('solid-oxide', 'power', FULL_PLANT));
+    const hot = power.hazards.cautions.find((c) => c.id === 'oxidiser-hot-surfaces')!;
+    const outlet = power.plant.power!.oxidiser!.outletTemperature_K - 273.15;
+    expect(hot.text).toContain(`${outlet.toFixed(0)} °C`);
+    expect(hot.text).toContain('authority having jurisdiction');
+    const electrolysis = calculate(basisFrom('pem', 'electrolysis', COMPRESSION));
+    const h2 = electrolysis.hazards.cautions.find((c) => c.id === 'hydrogen-compression')!;
+    expect(h2.text).toContain('200 bar');
+    expect(electrolysis.hazards.streams.find((s) => s.id === 'hydrogen-delivered')!.side).toBe('fuel');
+    // Without a compressor the caution has nothing to read.
+    expect(calculate(basisFrom('pem', 'electrolysis')).hazards.cautions.some((c) => c.id === 'hydrogen-compression')).toBe(false);
+  });
+});
+
 describe('findings and located errors of the plant', () => {
   it('flags an oxidiser hotter than its material limit and a blower above the parasitic allowance', () => {
     const { plant } = balanceOf('solid-oxide', { ...FULL_PLANT, 'plant.off-gas-oxidiser': { oxidant: 'air-electrode-exhaust', 'material-limit': '700 C' }, 'operating-point.parasitic-load': '0.1 %' });
@@ -167,5 +183,122 @@ describe('findings and located errors of the plant', () => {
     expect(caught).toBeInstanceOf(BasisError);
     expect((caught as BasisError).errors[0]!.path).toBe('plant.electrical.dc-bus-window');
     expect((caught as BasisError).errors[0]!.message).toMatch(/^the DC bus window \(600 V to 610 V\) fits no whole number of stacks in series/);
+  });
+});
+
+/** An electrolysis plant section: feed water at 12 °C, a heat loss, hydrogen compressed to 200 bar in two intercooled stages. */
+const COMPRESSION = {
+  'plant.feed-temperatures': { water: '12 C' },
+  'plant.heat-loss': '1 %',
+  'plant.hydrogen-compression': { 'delivery-pressure': '200 bar', stages: 2, 'isentropic-efficiency': '75 %' },
+};
+
+const electrolysisOf = (technology: Parameters<typeof basisFrom>[0], edits: Record<string, unknown>) => balanceOf(technology, edits, 'electrolysis');
+
+describe('the electrolysis plant balance closes', () => {
+  const electrolysis = CASES.filter(([, mode]) => mode === 'electrolysis').map(([t]) => t);
+  it.each(electrolysis)('%s, without and with compression, heat supplied electrically or from outside, to 1e-9 of the electricity', (technology) => {
+    for (const edits of [{}, COMPRESSION, { ...COMPRESSION, 'plant.heat-supply': 'external' }]) {
+      const { plant } = electrolysisOf(technology, edits);
+      // The first law over the plant, summed from the stream enthalpies (issue 18: 1e-9).
+      expect(Math.abs(plant.electrolysis!.energy.residual)).toBeLessThan(1e-9);
+      expect(plant.power).toBeNull();
+    }
+  });
+});
+
+describe('the electrolysis plant of the scaffolds', () => {
+  it('compresses the PEM hydrogen with the work an independent recomputation and the textbook formula give', () => {
+    const { plant } = electrolysisOf('pem', COMPRESSION);
+    const c = plant.electrolysis!.compression!;
+    expect(c.stages).toBe(2);
+    expect(c.pressureRatioPerStage).toBeCloseTo(Math.sqrt(200 / 30), 12);
+    // Independent recomputation (a script outside the repository, parsing the NASA Glenn
+    // 9-coefficient polynomials of H2 itself, bisection on s°(T) and h°(T)): pure H2 from 30 to
+    // 200 bar in two stages, 40 °C at each stage inlet, η_s = 0.75: 7566.56 J/mol = 3753.5 kJ/kg,
+    // each stage leaving at 443.03 K. Both computations integrate the same polynomials: 1e-4.
+    expect(c.workJPerKg / 3753.5e3 - 1).toBeLessThan(1e-4);
+    expect(c.workJPerKg / 3753.5e3 - 1).toBeGreaterThan(-1e-4);
+    for (const t of c.stageOutletTemperaturesK) expect(t).toBeCloseTo(443.03, 1);
+    // Çengel & Boles, Thermodynamics, ch. 7 (from memory): per stage w = k/(k−1) R T1 [r^((k−1)/k) − 1] / η_s,
+    // with k = 1.41 for hydrogen near 300 K (NIST Chemistry WebBook, from memory). The species data
+    // give k = 1.403 at 313 K and c_p rising slightly with T; the constant-k formula with the rounded
+    // k reads 0.23 % above the recomputation: 0.5 % bounds the rounding of k.
+    const k = 1.41;
+    const textbook = 2 * (k / (k - 1)) * 8.314462618 * c.inletTemperatureK * (c.pressureRatioPerStage ** ((k - 1) / k) - 1) / c.isentropicEfficiency;
+    expect(Math.abs((c.powerW / c.flowMolPerS) / textbook - 1)).toBeLessThan(0.005);
+    // The power is counted in the electricity per kg of hydrogen.
+    const s = plant.electrolysis!.specificEnergy;
+    expect(s.compressorW).toBe(c.powerW);
+    expect(s.systemKWhPerKg).toBeCloseTo((s.stackDcW + s.conversionLossW + s.parasiticW + s.electricHeatW + s.compressorW) / s.hydrogenKgPerS / 3.6e6, 9);
+  });
+
+  it("makes up the PEM loop's water split and the vapour its gases carry off, and its loop cooler takes the stack's heat", () => {
+    const { point, plant } = electrolysisOf('pem', COMPRESSION);
+    const x = plant.electrolysis!;
+    const vapourOut = ['fuel-outlet', 'air-outlet'].reduce((a, id) => a + (point.streams.find((s) => s.id === id)!.flows.H2O ?? 0), 0);
+    // Water balance: what the loop loses is the water split (2 H2O → 2 H2 + O2) and the vapour leaving.
+    expect(x.waterLoop!.makeUpMolPerS).toBeCloseTo(point.electrolysis!.hydrogenMolPerS + vapourOut, 9);
+    expect(x.steam).toEqual([]);
+    // Above thermoneutral (1.48 V) the stack releases heat: nothing is supplied to it.
+    expect(point.voltage.cellVoltageV).toBeGreaterThan(1.48);
+    expect(x.stackHeatSuppliedW).toBe(0);
+    const loop = x.duties.find((d) => d.id === 'loop-cooling-air')!;
+    // The loop cooler, the stack's own cooling and the losses take the stack's isothermal heat, less
+    // what warms the make-up from the inlet to the stack temperature (the inlet is all liquid water).
+    const w = x.waterLoop!;
+    const makeUpWarming = ((point.heat.inletEnthalpyIsothermalW - point.heat.inletEnthalpyAsFedW) * w.makeUpMolPerS) / (w.makeUpMolPerS + w.returnMolPerS);
+    expect(-loop.dutyW + x.stackHeatRemovedW + x.heatLossW).toBeCloseTo(point.heat.isothermalHeatW - makeUpWarming, 3);
+  });
+
+  it('raises the solid oxide steam from feed water as the steam tables do, less the ideal-gas vapour departure', () => {
+    const { plant } = electrolysisOf('solid-oxide', COMPRESSION);
+    const s = plant.electrolysis!.steam[0]!;
+    expect(s.electrode).toBe('fuel');
+    const kg = s.waterMolPerS * getSpecies('H2O').molarMassKgPerMol;
+    // Çengel & Boles, Thermodynamics, Tables A-4/A-5 (from memory): h_f(12 °C) = 50.41 kJ/kg; h_g at
+    // 1.1 bar = 2678.9 kJ/kg (2674.9 at 1.00 bar, 2684.9 at 1.25 bar, interpolated linearly). The
+    // species data's vapour is an ideal gas, ~13 kJ/kg above real saturated steam near 100 °C
+    // (lib/thermo/latent-heat.ts): the sum reads ~0.5 % high, 0.8 % covers it.
+    const ratio = (s.liquidHeatingW + s.evaporationW) / kg / ((2678.9 - 50.41) * 1000) - 1;
+    expect(ratio).toBeGreaterThan(0);
+    expect(ratio).toBeLessThan(0.008);
+    // IAPWS-IF97 saturation temperature at 0.11 MPa: 102.29 °C (IF97 region 4, from memory).
+    expect(s.saturationTemperatureK - 273.15).toBeCloseTo(102.29, 1);
+  });
+
+  it('counts heat from outside out of the electricity, and heat from electric heaters in it', () => {
+    const electric = electrolysisOf('solid-oxide', COMPRESSION).plant.electrolysis!;
+    const external = electrolysisOf('solid-oxide', { ...COMPRESSION, 'plant.heat-supply': 'external' }).plant.electrolysis!;
+    expect(electric.specificEnergy.electricHeatW).toBeCloseTo(electric.heatSuppliedW, 9);
+    expect(external.specificEnergy.electricHeatW).toBe(0);
+    expect(electric.specificEnergy.systemKWhPerKg - external.specificEnergy.systemKWhPerKg).toBeCloseTo(electric.heatSuppliedW / electric.specificEnergy.hydrogenKgPerS / 3.6e6, 9);
+  });
+
+  it('chooses the fewest stages that keep each at or below the maximum stage ratio', () => {
+    const { plant } = electrolysisOf('pem', { 'plant.hydrogen-compression': { 'delivery-pressure': '200 bar', 'maximum-stage-ratio': 2.5, 'isentropic-efficiency': '75 %' } });
+    const c = plant.electrolysis!.compression!;
+    // 200/30 = 6.67: two stages of 2.58 exceed 2.5, three of 1.88 do not (ln 6.67 / ln 2.5 = 2.07).
+    expect(c.stages).toBe(3);
+    expect(c.stagesFrom).toBe('maximum-stage-ratio');
+    expect(c.pressureRatioPerStage).toBeLessThanOrEqual(2.5);
+    // A maximum equal to the ratio of N stages gives N, not N + 1.
+    expect(stageCount({ maximumStageRatio: 2 }, 8)).toBe(3);
+    expect(stageCount({ maximumStageRatio: 4 }, 3)).toBe(1);
+    expect(stageCount({ given: 5 }, 3)).toBe(5);
+    expect(() => stageCount({ maximumStageRatio: 1.05 }, 100)).toThrow(/more than 10/);
+  });
+
+  it('refuses stages and a maximum stage ratio together, or neither, at the block', () => {
+    const stages = { 'delivery-pressure': '200 bar', 'isentropic-efficiency': '75 %' };
+    for (const block of [{ ...stages, stages: 2, 'maximum-stage-ratio': 3 }, stages]) {
+      expect(() => basisFrom('pem', 'electrolysis', { 'plant.hydrogen-compression': block })).toThrow(/either as stages .* or as maximum-stage-ratio/);
+    }
+  });
+
+  it('refuses a compressor inlet temperature above the stack temperature, at its field', () => {
+    const basis = basisFrom('pem', 'electrolysis', { 'plant.hydrogen-compression': { 'delivery-pressure': '200 bar', stages: 2, 'isentropic-efficiency': '75 %', 'inlet-temperature': '80 C' } });
+    const point = evaluateBasis(basis);
+    expect(() => locateCalculationErrors(basis, () => plantBalance(point, basis.plant))).toThrow(/compressor inlet temperature/);
   });
 });

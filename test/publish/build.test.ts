@@ -99,7 +99,12 @@ describe('a build of the demo projects', () => {
       const specs = [...html.matchAll(/<script type="application\/json" class="chart-spec"[^>]*>([^<]*)<\/script>/g)].map((m) => JSON.parse(m[1]!) as ChartSpec);
       expect(specs.length, id).toBeGreaterThanOrEqual(6);
       for (const spec of specs) {
-        const labels = spec.kind === 'line' ? [spec.x.title, spec.y.title, ...(spec.y2 ? [spec.y2.title] : []), ...spec.series.map((s) => s.label)] : [spec.x.title, spec.lowLabel, spec.highLabel, ...spec.categories];
+        const labels =
+          spec.kind === 'line'
+            ? [spec.x.title, spec.y.title, ...(spec.y2 ? [spec.y2.title] : []), ...spec.series.map((s) => s.label)]
+            : spec.kind === 'tornado'
+              ? [spec.x.title, spec.lowLabel, spec.highLabel, ...spec.categories]
+              : [spec.x.title, ...spec.parts.map((p) => p.label), ...spec.categories];
         for (const label of labels) expect(text.includes(compact(label)), `${id}: "${label}" of a ${spec.kind} chart is text in the PDF`).toBe(true);
       }
     }

@@ -181,3 +181,30 @@ it('says beside the temperature sensitivity and the stack-temperature figure tha
   // 0.8 eV × 96.485 kJ/(mol eV) = 77.19 kJ/mol (CODATA 2018 Faraday constant).
   expect(f.notes.join(' ')).toMatch(/follows the Arrhenius law of the basis, .* E_a = 77\.19 kJ\/mol and T_ref = 750 °C/);
 });
+
+describe("the figure of where the fuel's energy goes", () => {
+  it('stacks the net electricity, conversion, heat delivered, losses and the remainder to the LHV input, as the plant balance gives them', () => {
+    const text = readFileSync(join(PACKAGE_ROOT, 'projects', 'thistlemere-sofc-chp', 'basis.yaml'), 'utf8');
+    const loaded = loadBasisText(text, 'projects/thistlemere-sofc-chp/basis.yaml', 'thistlemere-sofc-chp');
+    if (!loaded.ok) throw new Error('the demo basis is invalid');
+    const r = calculate(loaded.basis);
+    const f = drawn(figures(r)).find((x) => x.id === 'fig-energy-flow')!;
+    const spec = JSON.parse(f.spec.html) as Extract<ChartSpec, { kind: 'stacked' }>;
+    expect(spec.kind).toBe('stacked');
+    const share = (label: string) => spec.parts.find((p) => p.label === label)!.values[0]!;
+    const lhv = r.efficiency.fuelLhvInput_W!;
+    // The net electricity is the net electrical efficiency on LHV; the heat delivered the CHP thermal efficiency.
+    expect(share('net electricity') / 100).toBeCloseTo(r.plant.power!.chp!.electricalEfficiencyLhv, 12);
+    expect(share('heat delivered') / 100).toBeCloseTo(r.plant.power!.chp!.thermalEfficiencyLhv, 12);
+    expect(share('lost to ambient') / 100).toBeCloseTo(r.plant.power!.heatLoss_W / lhv, 12);
+    // The parts add up to the LHV input, and every one is a real share (the remainder is not negative).
+    expect(spec.parts.reduce((a, p) => a + p.values[0]!, 0)).toBeCloseTo(100, 9);
+    for (const p of spec.parts) expect(p.values[0]!).toBeGreaterThanOrEqual(0);
+    // Its data: a CSV row per part, with the power and the share.
+    expect(csvOf(f).length).toBe(spec.parts.length + 1);
+  });
+
+  it('is not drawn in electrolysis, which has no fuel', () => {
+    expect(figures(scaffoldCase('pem', 'electrolysis').results).some((x) => x.id === 'fig-energy-flow')).toBe(false);
+  });
+});

@@ -29,7 +29,17 @@ describe('block flow diagram', () => {
     expect(svg.startsWith('<svg class="block-flow"')).toBe(true);
   });
 
-  it('draws nothing for electrolysis, which has no plant balance yet', () => {
-    expect(blockFlowDiagram(calculate(basisFrom('solid-oxide', 'electrolysis')))).toBeNull();
+  const COMPRESSION = { 'plant.hydrogen-compression': { 'delivery-pressure': '200 bar', stages: 2, 'isentropic-efficiency': '75 %' } };
+  it.each([
+    ['solid oxide, steam with hydrogen, sweep air', 'solid-oxide', {}],
+    ['solid oxide with compression', 'solid-oxide', COMPRESSION],
+    ['PEM water loop', 'pem', {}],
+    ['PEM water loop with compression', 'pem', COMPRESSION],
+    ['alkaline with compression', 'alkaline', COMPRESSION],
+  ] as const)('electrolysis, %s: draws every numbered stream once', (_name, technology, edits) => {
+    const results = calculate(basisFrom(technology, 'electrolysis', edits));
+    const svg = blockFlowDiagram(results)!.html;
+    expect(drawnNumbers(svg)).toEqual(results.plant.streams.map((s) => s.number));
+    expect(svg).toContain(Object.keys(edits).length ? '>compressor<' : '>stack<');
   });
 });

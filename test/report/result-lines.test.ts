@@ -66,6 +66,14 @@ function formulas(r: Results): Record<string, Formula> {
     'bus-voltage': (n) => n.m! * n.Vs!,
     'bus-current': (n) => n.k! * n.Icell!,
     'steam-raising': (n) => n.n! * (n.hl! + n.L! + n.hg!),
+    'steam-raising-air': (n) => n.n! * (n.hl! + n.L! + n.hg!),
+    'compressor-power': (n) => n.n! * n.w!,
+    'fuel-preheat': (n) => n.Hout! - n.Hin!,
+    'air-preheat': (n) => n.Hout! - n.Hin!,
+    'blower-power': (n) => (n.n! * n.hs!) / n.eta!,
+    'oxidiser-enthalpy': (n) => n.Hog! + n.Hox!,
+    // kW over kg/h is kWh/kg.
+    'system-specific-energy': (n) => (n.P! + n.Qe! + n.Pc!) / n.m!,
     'delivered-heat': (n) => n.R! - n.D! - n.L!,
     'chp-efficiency': (n) => (n.P! + n.Q!) / n.L!,
     'charge-basis': (n) => n.I! / n.U!,
@@ -118,12 +126,32 @@ function resultOf(id: string, r: Results): number | null {
     'steam-raising': r.plant.power?.steam ? (r.plant.power.steam.liquidHeating_W + r.plant.power.steam.evaporation_W + r.plant.power.steam.superheating_W) / 1000 : null,
     'delivered-heat': r.plant.power?.heatRecovery ? r.plant.power.heatRecovery.deliveredHeat_W / 1000 : null,
     'chp-efficiency': r.plant.power?.chp?.totalEfficiencyLhv ?? null,
+    'compressor-power': r.plant.electrolysis?.compression ? r.plant.electrolysis.compression.power_W / 1000 : null,
+    'system-specific-energy': r.plant.electrolysis?.specificEnergy.system_kWh_per_kg ?? null,
+    'fuel-preheat': (r.plant.power?.duties.find((d) => d.id === 'fuel-preheat')?.duty_W ?? NaN) / 1000,
+    'air-preheat': (r.plant.power?.duties.find((d) => d.id === 'air-preheat')?.duty_W ?? NaN) / 1000,
+    'blower-power': r.plant.power?.blower ? r.plant.power.blower.power_W / 1000 : null,
   };
+  const steam = r.plant.electrolysis?.steam.find((s) => (id === 'steam-raising' ? s.electrode === 'fuel' : id === 'steam-raising-air' && s.electrode === 'air'));
+  if (steam) return (steam.liquidHeating_W + steam.evaporation_W + steam.superheating_W) / 1000;
   if (id === 'cell-voltage') return r.electrochemistry.voltageSource === 'given' ? r.electrochemistry.areaSpecificResistance_ohm_m2 * 1e4 : h.cellVoltage_V;
   if (id === 'uniform-voltage') return r.electrochemistry.harmonicIntegral_per_V;
   if (id === 'hot-spot') return h.maxLocalCurrentDensity_A_per_m2 / 1e4;
   if (id === 'ionic-current') return r.electrochemistry.ionicCurrent_A;
   return id in table ? table[id]! : null;
+}
+
+/** The line's formula, evaluated with the numbers the line shows, gives the line's result, and that is the results' number. */
+function recomputes(c: ReturnType<typeof scaffoldCase>, f: Record<string, Formula>, id: string, line: CalcLine): void {
+  const formula = f[id];
+  expect(formula, `no formula for ${id}`).toBeDefined();
+  const recomputed = formula!(line.inputs);
+  // The products of a re-equilibrated fuel gas hold traces of dissociation products (H, OH near
+  // 1e-8) that I/2F does not count: 1e-7 relative covers them; every other line is exact.
+  const tolerance = id === 'hydrogen' && c.results.technology.fuelGasEquilibrium ? 1e-7 : 1e-9;
+  expect(Math.abs(recomputed - line.value)).toBeLessThanOrEqual(tolerance * Math.max(1, Math.abs(line.value)));
+  const stated = resultOf(id, c.results);
+  if (stated !== null) expect(line.value).toBeCloseTo(stated, 9);
 }
 
 function lines(c: ReturnType<typeof scaffoldCase>): CalcLine[] {
@@ -144,17 +172,7 @@ describe.each(CASES)('worked lines of the %s %s scaffold', (technology, mode) =>
     expect(ids).toContain(mode === 'power' ? 'fuel-flow' : 'hydrogen');
   });
 
-  it.each(all.filter((l) => l.id !== 'mean-nernst').map((l) => [l.id, l] as const))('%s: the numbers shown give the result shown', (id, line) => {
-    const formula = f[id];
-    expect(formula, `no formula for ${id}`).toBeDefined();
-    const recomputed = formula!(line.inputs);
-    // The products of a re-equilibrated fuel gas hold traces of dissociation products (H, OH near
-    // 1e-8) that I/2F does not count: 1e-7 relative covers them; every other line is exact.
-    const tolerance = id === 'hydrogen' && c.results.technology.fuelGasEquilibrium ? 1e-7 : 1e-9;
-    expect(Math.abs(recomputed - line.value)).toBeLessThanOrEqual(tolerance * Math.max(1, Math.abs(line.value)));
-    const stated = resultOf(id, c.results);
-    if (stated !== null) expect(line.value).toBeCloseTo(stated, 9);
-  });
+  it.each(all.filter((l) => l.id !== 'mean-nernst').map((l) => [l.id, l] as const))('%s: the numbers shown give the result shown', (id, line) => recomputes(c, f, id, line));
 
   it('shows every input with the digits it has, and cites an equation of the method', () => {
     for (const line of all) {
@@ -254,4 +272,35 @@ describe('a solid oxide cell on carbon monoxide and dioxide (no hydrogen)', () =
       expect(line.value).toBe(id === 'nernst-inlet' ? c.results.headline.inletNernst_V : c.results.headline.outletNernst_V);
     }
   });
+});
+
+/** The plant options the electrolysis scaffolds carry commented out, switched on. */
+const withPlant = (yaml: string) =>
+  yaml.replace(/^# plant:/m, 'plant:').replace(/^# {3}(feed-temperatures|heat-supply|heat-loss|hydrogen-compression|air-blower|off-gas-oxidiser|heat-recovery)/gm, '  $1');
+
+describe.each(['solid-oxide', 'molten-carbonate'] as const)('worked lines of the %s power plant', (technology) => {
+  const c = scaffoldCase(technology, 'power', withPlant);
+  const plant = lines(c).filter((l) => ['fuel-preheat', 'air-preheat', 'blower-power', 'oxidiser-enthalpy', 'steam-raising'].includes(l.id));
+  const f = formulas(c.results);
+
+  it('shows the fuel and air preheat, the blower power and the oxidiser balance', () => {
+    expect(plant.map((l) => l.id).sort()).toEqual(['air-preheat', 'blower-power', 'fuel-preheat', 'oxidiser-enthalpy', 'steam-raising']);
+  });
+
+  it.each(plant.map((l) => [l.id, l] as const))('%s: the numbers shown give the result shown', (id, line) => recomputes(c, f, id, line));
+});
+
+describe.each(['solid-oxide', 'pem'] as const)('worked lines of the %s electrolysis plant', (technology) => {
+  const c = scaffoldCase(technology, 'electrolysis', withPlant);
+  const plant = lines(c).filter((l) => ['steam-raising', 'compressor-power', 'system-specific-energy'].includes(l.id));
+  const f = formulas(c.results);
+
+  it('shows the compressor power and the electricity per kg of the whole plant, and the steam raised where steam is fed', () => {
+    const ids = plant.map((l) => l.id);
+    expect(ids).toContain('compressor-power');
+    expect(ids).toContain('system-specific-energy');
+    expect(ids.includes('steam-raising')).toBe(technology === 'solid-oxide');
+  });
+
+  it.each(plant.map((l) => [l.id, l] as const))('%s: the numbers shown give the result shown', (id, line) => recomputes(c, f, id, line));
 });

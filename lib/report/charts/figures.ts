@@ -5,7 +5,7 @@
  * cell with its hot spot, carbon activity against steam-to-carbon ratio (or a statement where the
  * fuel has no carbon), polarisation, heat and power against current density, the stack at other
  * temperatures, the operating cases on their curves, and a tornado per headline result of the
- * sensitivity study.
+ * sensitivity study, and where the fuel's energy goes in a plant with its balance.
  */
 import type { Results } from '../../plant/results-schema.ts';
 import { formatNumber, formatPercent } from '../format.ts';
@@ -485,6 +485,48 @@ function casesCurves(r: Results): Draft | null {
   };
 }
 
+/**
+ * Where the fuel's energy goes, as shares of its LHV input (power mode, with the plant balance):
+ * the net electricity, the inverter's and the balance of plant's share of the DC power
+ * (P_DC − P_net), the heat delivered, the heat lost to ambient, and the remainder
+ * LHV − P_DC − Q_del − Q_loss: what leaves with the exhaust (above 25 °C and as vapour, or as
+ * unburnt fuel) and the stack heat a coolant rejects. The parts add up to the LHV input by
+ * construction; the first law over the plant on absolute enthalpies is checked apart
+ * (plant.power.energyBalance).
+ */
+function energyFlow(r: Results): Draft | null {
+  const p = r.plant.power;
+  const lhv = r.efficiency.fuelLhvInput_W;
+  if (!p || !lhv) return null;
+  const net = r.headline.netPower_W;
+  const dc = r.headline.stackPower_W;
+  const delivered = p.heatRecovery?.deliveredHeat_W ?? 0;
+  const parts: { label: string; name: string; value: number }[] = [
+    { label: 'net electricity', name: 'Net AC electricity', value: net },
+    { label: 'conversion and balance of plant', name: 'Inverter loss and balance-of-plant load', value: dc - net },
+    ...(p.heatRecovery ? [{ label: 'heat delivered', name: 'Heat delivered', value: delivered }] : []),
+    ...(p.heatLoss_W ? [{ label: 'lost to ambient', name: 'Heat lost to ambient', value: p.heatLoss_W }] : []),
+    {
+      label: p.heatRecovery ? 'exhaust and heat not recovered' : 'exhaust and stack heat (no heat recovery)',
+      name: 'Remainder: exhaust and heat not recovered',
+      value: lhv - dc - delivered - p.heatLoss_W,
+    },
+  ];
+  return {
+    id: 'fig-energy-flow',
+    title: "Where the fuel's energy goes",
+    caption:
+      "Shares of the fuel's LHV input: the net electricity, what the inverter and the balance of plant take of the stack's DC power, the heat delivered and lost to ambient (with heat recovery), and the remainder, which leaves with the exhaust or is rejected by the stack's cooling.",
+    spec: { kind: 'stacked', x: { title: 'Share of the fuel LHV input (%)', min: 0, max: 100, step: 10 }, categories: ['fuel LHV input'], parts: parts.map((x) => ({ label: x.label, values: [(x.value / lhv) * 100] })) },
+    data: chartData('energy-flow', [
+      { head: 'where it goes', shown: parts.map((x) => x.label), data: { name: 'Where it goes', unit: '', values: parts.map((x) => x.name) } },
+      column('power (kW)', 'Power', 'W', parts.map((x) => x.value), kilo),
+      column('share of the fuel LHV input (%)', 'Share of the fuel LHV input', '', parts.map((x) => x.value / lhv), percent),
+    ]),
+    notes: [],
+  };
+}
+
 export function figures(r: Results): Figure[] {
   const stack = stackAgainstTemperature(r);
   const drafts: Draft[] = [
@@ -501,6 +543,8 @@ export function figures(r: Results): Figure[] {
   const cases = casesCurves(r);
   if (cases) drafts.push(cases);
   if (r.sensitivities.length) drafts.push(tornado(r, 'cellVoltage_V'), tornado(r, 'efficiency'), tornado(r, 'stackHeat_W'));
+  const energy = energyFlow(r);
+  if (energy) drafts.push(energy);
   return drafts.map((d, i): Figure => {
     if ('kind' in d && d.kind === 'statement') return { ...d, number: i + 1 };
     const drawn = d as Exclude<Draft, { kind: 'statement' }>;

@@ -2,7 +2,7 @@
  * The chart description the page carries as JSON and templates/assets/charts.js draws with
  * Chart.js: axes with titles and units, line series of [x, y] points (a style index picks colour
  * and dash from the script's own palette), marker series for the design point, and tornado bars
- * of the sensitivity study. Only numbers and our own labels go into it.
+ * of the sensitivity study, stacked horizontal bars of the energy flow. Only numbers and our own labels go into it.
  */
 export interface Axis {
   title: string;
@@ -29,4 +29,6 @@ export interface LineSeries {
 
 export type ChartSpec =
   | { kind: 'line'; x: Axis; y: Axis; y2?: Axis; series: LineSeries[] }
-  | { kind: 'tornado'; x: Axis; categories: string[]; low: number[]; high: number[]; lowLabel: string; highLabel: string };
+  | { kind: 'tornado'; x: Axis; categories: string[]; low: number[]; high: number[]; lowLabel: string; highLabel: string }
+  /** Horizontal bars of stacked parts, one bar per category; each part a value per category (the energy flow). */
+  | { kind: 'stacked'; x: Axis; categories: string[]; parts: { label: string; values: number[] }[] };

@@ -1,10 +1,49 @@
 /**
  * The worked lines of the plant around the stack: the stack, bus voltage and bus current of the
- * electrical layout, and in power mode the steam raising, the heat delivered and the total
- * efficiency of combined heat and power.
+ * electrical layout; in power mode the steam raising, the heat delivered and the total
+ * efficiency of combined heat and power; in electrolysis the steam raising, the compressor power
+ * and the electricity per kilogram of hydrogen of the whole plant.
  */
 import type { Results } from '../../plant/results-schema.ts';
 import type { LineSpec } from '../calc-line.ts';
+import { formatQuantity, formatTemperature } from '../format.ts';
+
+type Steam = Pick<NonNullable<NonNullable<Results['plant']['power']>['steam']>, 'water_mol_per_s' | 'liquidHeating_W' | 'evaporation_W' | 'superheating_W' | 'latentHeat_J_per_mol'>;
+
+/** The steam raised from feed water: ṅ_w (Δh_liq + L + Δh_vap), power mode or an electrolyser's steam. */
+function steamLine(steam: Steam, suffix: string, waterOrigin: string, superheatOrigin: string): LineSpec {
+  const n = steam.water_mol_per_s;
+  return {
+    id: `steam-raising${suffix}`,
+    title: suffix ? 'Steam raising from the feed water (air electrode)' : 'Steam raising from the feed water',
+    equation: 'steam-raising',
+    relation: 'steam',
+    quantities: [
+      { name: 'n', value: n, unit: 'mol/s', origin: waterOrigin },
+      { name: 'hl', value: steam.liquidHeating_W / n / 1000, unit: 'kJ/mol', origin: 'liquid heated to saturation, species data' },
+      { name: 'L', value: steam.latentHeat_J_per_mol / 1000, unit: 'kJ/mol', origin: 'latent heat at the saturation temperature, species data' },
+      { name: 'hg', value: steam.superheating_W / n / 1000, unit: 'kJ/mol', origin: superheatOrigin },
+    ],
+    value: (steam.liquidHeating_W + steam.evaporation_W + steam.superheating_W) / 1000,
+    unit: 'kW',
+  };
+}
+
+/** A duty as the enthalpy flow out less the enthalpy flow in, kW. */
+function dutyLine(id: string, title: string, outW: number, inW: number, outOrigin: string, inOrigin: string): LineSpec {
+  return {
+    id,
+    title,
+    equation: 'plant-duty',
+    relation: 'duty',
+    quantities: [
+      { name: 'Hout', value: outW / 1000, unit: 'kW', origin: outOrigin },
+      { name: 'Hin', value: inW / 1000, unit: 'kW', origin: inOrigin },
+    ],
+    value: (outW - inW) / 1000,
+    unit: 'kW',
+  };
+}
 
 export function plantLines(r: Results): LineSpec[] {
   const e = r.plant.electrical;
@@ -46,23 +85,89 @@ export function plantLines(r: Results): LineSpec[] {
       unit: 'A',
     },
   ];
+  const x = r.plant.electrolysis;
+  if (x) {
+    for (const s of x.steam) lines.push(steamLine(s, s.electrode === 'fuel' ? '' : '-air', 'feed water the stack is fed as steam, stream table', `steam superheated to the ${s.electrode}-electrode inlet, species data`));
+    const c = x.compression;
+    if (c) {
+      lines.push({
+        id: 'compressor-power',
+        title: `Hydrogen compressor power (${c.stages} intercooled stage${c.stages === 1 ? '' : 's'})`,
+        equation: 'electrolysis-plant-energy',
+        relation: 'compressor',
+        quantities: [
+          { name: 'n', value: c.flow_mol_per_s, unit: 'mol/s', origin: 'dry product gas, stream table' },
+          { name: 'w', value: c.power_W / c.flow_mol_per_s / 1000, unit: 'kJ/mol', origin: `work of the ${c.stages} stage${c.stages === 1 ? '' : 's'} of ratio ${c.pressureRatioPerStage.toPrecision(4)}, η_s ${c.isentropicEfficiency}, species data` },
+        ],
+        value: c.power_W / 1000,
+        unit: 'kW',
+      });
+    }
+    const e = x.specificEnergy;
+    lines.push({
+      id: 'system-specific-energy',
+      title: 'Electricity per kilogram of hydrogen, the whole plant',
+      equation: 'electrolysis-plant-energy',
+      relation: 'system',
+      quantities: [
+        { name: 'P', value: (e.stackDc_W + e.conversionLoss_W + e.parasitic_W) / 1000, unit: 'kW', origin: 'AC input of the rectifier and the balance of plant, above' },
+        { name: 'Qe', value: e.electricHeat_W / 1000, unit: 'kW', origin: x.heatSupply === 'electric' ? 'heat supplied by electric heaters, duty table' : 'none: the heat comes from outside the plant' },
+        { name: 'Pc', value: e.compressor_W / 1000, unit: 'kW', origin: c ? 'compressor power, above' : 'none: no hydrogen compression' },
+        { name: 'm', value: e.hydrogen_kg_per_h, unit: 'kg/h', origin: 'net hydrogen made, above' },
+      ],
+      value: e.system_kWh_per_kg,
+      unit: 'kWh/kg',
+      note: '1 kW per kg/h is 1 kWh/kg',
+    });
+    return lines;
+  }
   const p = r.plant.power;
   if (!p) return lines;
-  if (p.steam) {
-    const n = p.steam.water_mol_per_s;
+  if (p.steam) lines.push(steamLine(p.steam, '', 'feed water at the steam-to-carbon ratio, stream table', 'steam superheated to the mixing temperature, species data'));
+  const stream = (id: string) => r.plant.streams.find((s) => s.id === id);
+  const fuelPreheat = p.duties.find((d) => d.id === 'fuel-preheat');
+  const fuelSupply = stream('fuel-supply');
+  if (fuelPreheat && fuelSupply) lines.push(dutyLine('fuel-preheat', 'Fuel heated to the mixing temperature', fuelSupply.enthalpyFlow_W + fuelPreheat.duty_W, fuelSupply.enthalpyFlow_W, 'dry fuel at the mixing temperature, species data', 'fuel supply, stream table'));
+  const airPreheat = p.duties.find((d) => d.id === 'air-preheat');
+  const airInlet = stream('air-inlet');
+  if (airPreheat && airInlet) {
+    const from = p.blower ? 'after the blower' : 'at its supply temperature';
+    lines.push(dutyLine('air-preheat', 'Air heated to the air-electrode inlet', airInlet.enthalpyFlow_W, airInlet.enthalpyFlow_W - airPreheat.duty_W, 'air-electrode inlet, stream table', `the stack's air ${from}, species data`));
+  }
+  if (p.blower) {
+    const b = p.blower;
     lines.push({
-      id: 'steam-raising',
-      title: 'Steam raising from the feed water',
-      equation: 'steam-raising',
-      relation: 'steam',
+      id: 'blower-power',
+      title: 'Air blower power (one adiabatic stage)',
+      equation: 'plant-duty',
+      relation: 'blower',
       quantities: [
-        { name: 'n', value: n, unit: 'mol/s', origin: 'feed water at the steam-to-carbon ratio, stream table' },
-        { name: 'hl', value: p.steam.liquidHeating_W / n / 1000, unit: 'kJ/mol', origin: 'liquid heated to saturation, species data' },
-        { name: 'L', value: p.steam.latentHeat_J_per_mol / 1000, unit: 'kJ/mol', origin: 'latent heat at the saturation temperature, species data' },
-        { name: 'hg', value: p.steam.superheating_W / n / 1000, unit: 'kJ/mol', origin: 'steam superheated to the mixing temperature, species data' },
+        { name: 'n', value: b.flow_mol_per_s, unit: 'mol/s', origin: 'air through the blower, stream table' },
+        { name: 'hs', value: (b.power_W * b.isentropicEfficiency) / b.flow_mol_per_s / 1000, unit: 'kJ/mol', origin: `isentropic enthalpy rise from ${formatQuantity(b.inletPressure_bar, 'bar')} to ${formatQuantity(b.outletPressure_bar, 'bar')}, species data` },
+        { name: 'eta', value: b.isentropicEfficiency, unit: '', origin: 'isentropic efficiency, design input' },
       ],
-      value: (p.steam.liquidHeating_W + p.steam.evaporation_W + p.steam.superheating_W) / 1000,
+      value: b.power_W / 1000,
       unit: 'kW',
+    });
+  }
+  const o = p.oxidiser;
+  const offGas = stream('fuel-outlet');
+  const oxidant = o && stream(o.oxidant === 'fresh-air' ? 'oxidiser-air' : 'air-outlet');
+  const products = stream('oxidiser-outlet');
+  // A liquid-water off-gas is burnt without its liquid, which the stream carries: no line for it.
+  if (o && offGas && oxidant && products && !offGas.speciesFlows_mol_per_s['H2O(L)'] && !oxidant.speciesFlows_mol_per_s['H2O(L)']) {
+    lines.push({
+      id: 'oxidiser-enthalpy',
+      title: `Off-gas oxidiser: the products hold the reactants' enthalpy at ${formatTemperature(o.outletTemperature_K)} (adiabatic)`,
+      equation: 'oxidiser-balance',
+      relation: 'enthalpy',
+      quantities: [
+        { name: 'Hog', value: offGas.enthalpyFlow_W / 1000, unit: 'kW', origin: 'fuel-electrode off-gas at the stack temperature, stream table' },
+        { name: 'Hox', value: oxidant.enthalpyFlow_W / 1000, unit: 'kW', origin: `${o.oxidant === 'fresh-air' ? 'oxidiser air' : 'air-electrode exhaust'}, stream table` },
+      ],
+      value: products.enthalpyFlow_W / 1000,
+      unit: 'kW',
+      note: `the equilibrium products have this enthalpy at ${formatTemperature(o.outletTemperature_K)}, the adiabatic outlet temperature (Gibbs minimum at fixed H and p)`,
     });
   }
   if (p.heatRecovery && p.chp) {

@@ -304,14 +304,19 @@ function electricalLayout(r: Results): Pair[] {
 
 type PlantPower = NonNullable<Results['plant']['power']>;
 
-function duties(p: PlantPower): Pair[] {
-  const rows: Pair[] = p.duties.map((d) =>
+/** One row a duty: its name, the temperatures it takes its stream between, and the heat. */
+function dutyRows(list: PlantPower['duties']): Pair[] {
+  return list.map((d) =>
     several(`${d.name} (${formatTemperature(d.from_K)} → ${formatTemperature(d.to_K)})`, kW(d.duty_W), [
       [`${d.name}, duty`, 'W', d.duty_W],
       [`${d.name}, from`, 'K', d.from_K],
       [`${d.name}, to`, 'K', d.to_K],
     ]),
   );
+}
+
+function duties(p: PlantPower): Pair[] {
+  const rows: Pair[] = dutyRows(p.duties);
   rows.push(quantity("Net duty of the plant's heaters", p.netDuty_W, 'W', kW(p.netDuty_W)));
   if (p.steam) {
     rows.push(several('Feed water / saturation temperature', `${formatQuantity(p.steam.water_kg_per_h, 'kg/h')} / ${formatTemperature(p.steam.saturationTemperature_K)}`, [
@@ -396,12 +401,69 @@ function oxidiserAndRecovery(p: PlantPower): Pair[] {
   return rows;
 }
 
-function energyBalance(p: PlantPower): Pair[] {
-  const b = p.energyBalance;
+function energyBalance(b: PlantPower['energyBalance'], over: string): Pair[] {
   return [
     ...b.terms.map((t) => quantity(`${t.side === 'in' ? 'In' : 'Out'}: ${t.name}`, t.value_W, 'W', kW(t.value_W))),
-    quantity('Residual (in − out) / fuel LHV input', b.residual, '', formatNumber(b.residual, 2)),
+    quantity(`Residual (in − out) / ${over}`, b.residual, '', formatNumber(b.residual, 2)),
   ];
+}
+
+type PlantElectrolysis = NonNullable<Results['plant']['electrolysis']>;
+
+/** The electrolysis plant: feed preparation, heat supplied, compression and the electricity per kilogram of hydrogen. */
+function electrolysisPlant(x: PlantElectrolysis): Pair[] {
+  const rows: Pair[] = dutyRows(x.duties);
+  rows.push(quantity('Feed water', x.feedWater_kg_per_h, 'kg/h', formatQuantity(x.feedWater_kg_per_h, 'kg/h')));
+  for (const s of x.steam) rows.push(quantity(`Saturation temperature of the ${s.electrode}-electrode steam (IAPWS-IF97)`, s.saturationTemperature_K, 'K', formatTemperature(s.saturationTemperature_K)));
+  rows.push(quantity('Stack heat with the inlets as fed (negative: absorbed)', x.stackHeat_W, 'W', kW(x.stackHeat_W)));
+  rows.push(quantity('Heat lost to ambient', x.heatLoss_W, 'W', kW(x.heatLoss_W)));
+  rows.push(several('Heat supplied to the feeds / to the stack', `${kW(x.feedHeat_W)} / ${kW(x.stackHeatSupplied_W)}`, [
+    ['Heat supplied to the feeds', 'W', x.feedHeat_W],
+    ['Heat supplied to the stack', 'W', x.stackHeatSupplied_W],
+  ]));
+  rows.push({
+    label: 'Heat supplied, and from where',
+    text: `${kW(x.heatSupplied_W)}, ${x.heatSupply === 'electric' ? 'by electric heaters' : 'from outside the plant'}`,
+    data: [
+      { name: 'Heat supplied', unit: 'W', value: x.heatSupplied_W },
+      { name: 'Heat supply', unit: '', value: x.heatSupply },
+    ],
+  });
+  rows.push(several('Heat removed by the coolers / by the stack cooling', `${kW(x.coolers_W)} / ${kW(x.stackHeatRemoved_W)}`, [
+    ['Heat removed by the coolers', 'W', x.coolers_W],
+    ['Heat removed by the stack cooling', 'W', x.stackHeatRemoved_W],
+  ]));
+  const c = x.compression;
+  if (c) {
+    rows.push(several('Hydrogen compression: pressure', `${formatQuantity(c.inletPressure_bar, 'bar')} → ${formatQuantity(c.deliveryPressure_bar, 'bar')}`, [
+      ['Compressor inlet pressure', 'bar', c.inletPressure_bar],
+      ['Delivery pressure', 'bar', c.deliveryPressure_bar],
+    ]));
+    rows.push(several('Stages (ratio each) / isentropic efficiency', `${c.stages}${c.stagesFrom === 'given' ? '' : ' (from the maximum stage ratio)'} (${formatNumber(c.pressureRatioPerStage, 4)}) / ${formatPercent(c.isentropicEfficiency)}`, [
+      ['Compression stages', '', c.stages],
+      ['Pressure ratio per stage', '', c.pressureRatioPerStage],
+      ['Compressor isentropic efficiency', '', c.isentropicEfficiency],
+    ]));
+    rows.push(several('Stage outlet temperatures (inlet, intercooled to)', `${c.stageOutletTemperatures_K.map(formatTemperature).join(', ')} (${formatTemperature(c.inletTemperature_K)}, ${formatTemperature(c.intercoolTemperature_K)})`, [
+      ...c.stageOutletTemperatures_K.map((t, i): [string, string, number] => [`Stage ${i + 1} outlet temperature`, 'K', t]),
+      ['Compressor inlet temperature', 'K', c.inletTemperature_K],
+      ['Intercooling temperature', 'K', c.intercoolTemperature_K],
+    ]));
+    rows.push(several('Compressor power (work per kg)', `${kW(c.power_W)} (${formatQuantity(c.work_J_per_kg / 1000, 'kJ/kg')})`, [
+      ['Compressor power', 'W', c.power_W],
+      ['Compressor work per kg', 'J/kg', c.work_J_per_kg],
+    ]));
+  }
+  const e = x.specificEnergy;
+  rows.push(several('Electricity per kg of hydrogen: stack DC / whole plant', `${formatQuantity(e.stack_kWh_per_kg, 'kWh/kg')} / ${formatQuantity(e.system_kWh_per_kg, 'kWh/kg')}`, [
+    ['Stack DC energy per kg of hydrogen', 'kWh/kg', e.stack_kWh_per_kg],
+    ['Plant electricity per kg of hydrogen', 'kWh/kg', e.system_kWh_per_kg],
+  ]));
+  rows.push(several('Plant efficiency, LHV / HHV (electricity and heat from outside)', `${formatPercent(e.systemEfficiencyLhv)} / ${formatPercent(e.systemEfficiencyHhv)}`, [
+    ['Plant efficiency, LHV', '', e.systemEfficiencyLhv],
+    ['Plant efficiency, HHV', '', e.systemEfficiencyHhv],
+  ]));
+  return rows;
 }
 
 /** The tables of the plant around the stack. */
@@ -412,7 +474,12 @@ export function plantTables(r: Results): FigureTable[] {
     list.push(figure('plant-duties', 'plant-duties', 'Fuel and air preparation', duties(p)));
     const o = oxidiserAndRecovery(p);
     if (o.length) list.push(figure('plant-oxidiser', 'oxidiser-and-heat-recovery', 'Off-gas oxidiser, heat recovery and combined heat and power', o));
-    list.push(figure('plant-energy', 'plant-energy-balance', 'Energy balance of the plant (absolute enthalpy flows, heats of formation included)', energyBalance(p)));
+    list.push(figure('plant-energy', 'plant-energy-balance', 'Energy balance of the plant (absolute enthalpy flows, heats of formation included)', energyBalance(p.energyBalance, 'fuel LHV input')));
+  }
+  const x = r.plant.electrolysis;
+  if (x) {
+    list.push(figure('plant-electrolysis', 'electrolysis-plant', 'Feed preparation, heat supply, hydrogen compression and specific energy', electrolysisPlant(x)));
+    list.push(figure('plant-electrolysis-energy', 'electrolysis-plant-energy-balance', 'Energy balance of the plant (absolute enthalpy flows, heats of formation included)', energyBalance(x.energyBalance, 'the electricity')));
   }
   return list;
 }
