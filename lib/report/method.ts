@@ -9,6 +9,7 @@
 import type { Results } from '../plant/results-schema.ts';
 import { EquationBook, type Equation } from './equation-book.ts';
 import { electrodeReactions } from './electrode-reactions.ts';
+import { electrolyte } from '../electrochem/electrolytes.ts';
 import { equationTable, mixedConductor, type EquationEntry } from './equations.ts';
 import { sectionNumber } from './outline.ts';
 import { hotSpot } from './local-current.ts';
@@ -150,9 +151,10 @@ function fuelPath(step: Step, r: Results): void {
   }
   if (r.technology.waterPhase === 'liquid') {
     const water = electrodeReactions(r.technology.ion).waterElectrode === 'f' ? 'fuel' : 'air';
+    const pooled = electrolyte(r.technology.ion).electrolyteWater;
     step
       .text(
-        `The water is balanced at every point $u$ of the cell, not at the outlet alone: the water fed to both electrodes ${power ? 'plus the water the charge $u\\,Q_1$ has formed' : 'less the water the charge $u\\,Q_1$ has split'}, $\\dot n_\\mathrm{w}$, against the vapour $\\dot n_{\\mathrm{sat},k}$ that saturates each dry gas $k$ at the cell temperature, with $p_\\mathrm{s}$ by IAPWS-IF97 (region 4) and $a_\\mathrm{w}$ the activity of the water the gases stand over (1 for pure water). Where water is left over both gases are saturated and the rest is liquid; where it is not, all of it is vapour, shared in proportion to what saturates each gas (the membrane or electrolyte passing water freely between them):`,
+        `${pooled ? 'The water belongs to the circulating electrolyte, which every point of the cell stands over, so the water of the whole cell is balanced, at the outlet $u = U$' : 'The water is balanced at every point $u$ of the cell, not at the outlet alone (the membrane carries water across the cell, not along it)'}: the water fed to both electrodes ${power ? 'plus the water the charge $u\\,Q_1$ has formed' : 'less the water the charge $u\\,Q_1$ has split'}, $\\dot n_\\mathrm{w}$, against the vapour $\\dot n_{\\mathrm{sat},k}$ that saturates each dry gas $k$ at the cell temperature, with $p_\\mathrm{s}$ by IAPWS-IF97 (region 4) and $a_\\mathrm{w}$ the activity of the water the gases stand over (1 for pure water). Where water is left over both gases are saturated and the rest is liquid; where it is not, all of it is vapour, shared in proportion to what saturates each gas (the ${pooled ? 'electrolyte' : 'membrane'} passing water freely between them)${pooled ? ', and every point takes the vapour fractions of the outlet' : ''}:`,
       )
       .eq('water-balance')
       .text(

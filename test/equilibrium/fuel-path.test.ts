@@ -233,6 +233,8 @@ describe('fuel path: closed forms', () => {
     const pO2 = (1 - xw) * p * (o2Out / (o2Out + n2));
     const expected = hydrogenStandardVoltage(t, 'liquid') + ((R * t) / (2 * F)) * (Math.log(pH2 * Math.sqrt(pO2)) - Math.log(xw / xs));
     expect(path.outletNernstV).toBeCloseTo(expected, 9);
+    // One circulating electrolyte under the whole cell: every point's gases hold the outlet's vapour fraction.
+    for (const point of path.points) expect(point.fuelSide.H2O).toBeCloseTo(xw, 12);
   });
 
   it('molten carbonate: CO2 crosses from the air side to the fuel side at I/2F (Faraday)', () => {

@@ -13,6 +13,9 @@ describe('the method of liquid-water cells', () => {
     expect(t).not.toContain('consumed at the air electrode and formed at the fuel electrode');
     expect(t).toContain("The cell runs with the water of its potassium hydroxide electrolyte, whose activity is ");
     expect(t).toContain("(Balej's correlation, 1985)");
+    // Its water is the circulating electrolyte's: one balance for the whole cell, not one per point.
+    expect(t).toContain('The water belongs to the circulating electrolyte, which every point of the cell stands over');
+    expect(t).not.toContain('The water is balanced at every point');
   });
 
   it('a PEM cell: vapour by IAPWS-IF97, the water balanced at every point, and the Nernst voltage said to use the gases that balance gives, saturated or not', () => {
