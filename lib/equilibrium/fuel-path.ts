@@ -28,12 +28,35 @@
  * fuel feed (lib/electrochem/charge.ts). Electrolysis: Q = 2F (ṅ_H2O + ṅ_CO2) of the
  * water-electrode feed (steam, or steam and CO2, conversion; CO2 only for oxide-ion cells).
  *
- * Liquid-water cells (PEM, alkaline) keep both gases saturated with vapour at cell temperature,
- * x_H2O = a_w p_s(T)/P with p_s by IAPWS-IF97 (lib/thermo/water-saturation.ts) and a_w the
+ * Liquid-water cells (PEM, alkaline): at every point u the gases carry the vapour the local water
+ * balance gives (liquid-water.ts: the water fed plus the water formed or split by the charge u·Q,
+ * against what saturates both dry gases there). Where liquid is left, both gases are saturated,
+ * x_H2O = x_s = a_w p_s(T)/P with p_s by IAPWS-IF97 (lib/thermo/water-saturation.ts) and a_w the
  * activity of the water the gases stand over: 1 for a PEM cell's pure water, the KOH solution's
- * for an alkaline cell (Balej 1985, lib/thermo/koh-solution.ts), which also enters the Nernst
- * voltage as −RT/2F ln a_w (nernst.ts); their water balance closes through the liquid (lib/plant
- * does it).
+ * for an alkaline cell (Balej 1985, lib/thermo/koh-solution.ts), which enters E° as
+ * −RT/2F ln a_w (nernst.ts). Where the balance leaves no liquid (dry feeds near a power cell's
+ * inlet, too little water fed to an electrolyser), all the water is vapour below saturation,
+ * x_H2O < x_s, and the water of the cell reaction is that vapour: its chemical potential is
+ * μ_H2O(l, a_w) + RT ln(p_H2O/(a_w p_s)), liquid and vapour being in equilibrium at a_w p_s
+ * (the vapour pressure of a solvent, a_w = p/p*: Raoult's law as the definition of the solvent's
+ * activity, e.g. P. Atkins and J. de Paula, Physical Chemistry, ch. 5; from memory). So
+ *
+ *   E(u) = E°_l(T) − RT/2F ln a_w + RT/2F ln Q_dry(u) − RT/2F ln( p_H2O,w(u) / (a_w p_s(T)) )
+ *
+ * with p_H2O,w the vapour partial pressure at the water electrode (the one whose reaction forms or
+ * consumes the water: the air electrode of a PEM cell, the fuel electrode of an alkaline one).
+ * The last term is 0 where the gas is saturated, the E of liquid water and saturated gases;
+ * below saturation it is the gas-phase Nernst voltage E°_g + RT/2F ln(p_H2 p_O2^½/p_H2O), since
+ * E°_l = E°_g − RT/2F ln p_s/p° (the two agree within 0.1–0.3 mV at 60–100 °C, by which the
+ * species data's own vapour pressure differs from IF97's), and a gas with no vapour at all makes E unbounded at that
+ * point like a dry gas-phase inlet. The local balance, not the outlet's alone, because a gas that
+ * is saturated at the outlet may be dry near the inlet (dry hydrogen and partly humidified air
+ * into a PEM cell, whose membrane carries water across but not along the cell). Where the water
+ * belongs to a circulating aqueous electrolyte (the hydroxide ion's, electrolytes.yaml
+ * `electrolyte-water`) the gases at every point stand over the same electrolyte, which the whole
+ * cell's water balance sets: the outlet's (power mode gains water along the cell, electrolysis
+ * loses it, so the outlet holds the cell's water), and every point takes the outlet's vapour
+ * fraction of each gas, saturated wherever the outlet is.
  *
  * The mean Nernst voltage and the grid are in lib/equilibrium/path-integral.ts.
  */
@@ -44,9 +67,10 @@ import { kohWaterActivity } from '../thermo/koh-solution.ts';
 import { getSpecies } from '../thermo/species-data.ts';
 import { electronsOfStream } from '../electrochem/charge.ts';
 import { hydrogenStandardVoltage, nernstVoltage, oxygenPotentialNernstV, waterActivityVoltage } from '../electrochem/nernst.ts';
-import { activeQuotient, potentialCouple } from '../electrochem/electrolytes.ts';
+import { activeQuotient, electrolyte, potentialCouple } from '../electrochem/electrolytes.ts';
 import type { Mode, Technology } from '../electrochem/technologies.ts';
 import { minimiseGibbs } from './gibbs-minimiser.ts';
+import { liquidCellWater } from './liquid-water.ts';
 import { elementAmounts, elementsOfFeed, gasGibbsOverRT, systemFor, type ChemicalSystem } from './species-set.ts';
 import { exchangeFor, type Exchange } from './electrolyte-exchange.ts';
 import { amountsOn, layout, moleFractions, shifted, sum, toRecord, type GasLayout } from './gas-state.ts';
@@ -130,7 +154,7 @@ export interface FuelPath {
   standardVoltageV: number;
   /** Activity of the liquid water of a liquid-water cell (the KOH solution's for an alkaline cell), 1 otherwise; E° above includes −RT/2F ln a_w. */
   waterActivity: number;
-  /** Vapour mole fraction a_w p_s/P of each side for liquid-water cells (0 otherwise). */
+  /** Vapour mole fraction of each side saturated, a_w p_s/P, for liquid-water cells (0 otherwise); the path's points carry the vapour the local water balance gives. */
   vapourFractionFuel: number;
   vapourFractionAir: number;
   /** The equilibria solved, by utilization, to seed a neighbouring path (empty without fuel-gas equilibrium). */
@@ -217,8 +241,14 @@ interface State {
 class PathModel {
   readonly fuelGas: GasLayout;
   readonly airGas: GasLayout;
+  /** Vapour fraction of each gas when saturated (liquid-water cells; 0 otherwise). */
   readonly vapourFuel: number;
   readonly vapourAir: number;
+  /** Liquid-water cells: the water of both feeds, vapour and liquid, mol/s on the feed's scale. */
+  private readonly waterFed: number;
+  /** The water belongs to a circulating aqueous electrolyte (hydroxide): the gases all along stand over the electrolyte the outlet balance leaves (module comment). */
+  private readonly pooled: boolean;
+  private outletVapour: [number, number] | undefined;
   /** Activity of the liquid water the gases stand over (1 for pure water). */
   readonly waterActivity: number;
   /** An element reaches the fuel gas only through the electrolyte (a dry inlet): E(0) is unbounded. */
@@ -257,6 +287,9 @@ class PathModel {
     if (this.vapourFuel >= 1 || this.vapourAir >= 1) {
       throw new UserError(`at ${temperatureK.toFixed(2)} K water boils at the electrode pressure (vapour pressure ${pSat.toFixed(3)} bar by IAPWS-IF97): raise the pressure or lower the temperature`);
     }
+    const waterOf = (feed: Stream | null) => (feed ? (feed.H2O ?? 0) + (feed['H2O(L)'] ?? 0) : 0);
+    this.waterFed = liquid ? waterOf(request.fuelFeed) + waterOf(request.airFeed) : 0;
+    this.pooled = liquid && electrolyte(technology.ion).electrolyteWater;
     this.sign = request.mode === 'power' ? 1 : -1;
     this.exchange = exchangeFor(technology.ion);
     this.fuelChange = withoutWater(this.exchange.fuelSpecies, liquid);
@@ -294,6 +327,25 @@ class PathModel {
       this.fuelGas = layout([...Object.keys(fuelFeed ?? {}), ...Object.keys(this.fuelChange), ...(liquid ? ['H2O'] : [])]);
       this.fuelIn = amountsOn(this.fuelGas, fuelFeed);
     }
+  }
+
+  /**
+   * The vapour fraction of each gas at a point of a liquid-water cell (0, 0 for others): saturated
+   * where the local water balance (liquid-water.ts) leaves liquid, else its own vapour below that.
+   */
+  vapourAt(chargeA: number, state: State): [number, number] {
+    if (this.request.technology.waterPhase !== 'liquid') return [0, 0];
+    if (this.pooled && chargeA !== this.basisA * this.request.utilization) {
+      // One circulating electrolyte under the whole cell: every point at the outlet's saturation.
+      this.outletVapour ??= this.vapourAt(this.basisA * this.request.utilization, this.at(this.basisA * this.request.utilization));
+      return this.outletVapour;
+    }
+    const dryFuel = sum(state.fuel);
+    const dryAir = sum(state.air);
+    const split = liquidCellWater(this.request.mode, this.waterFed, chargeA, dryFuel, dryAir, this.vapourFuel, this.vapourAir);
+    if (split.saturated) return [this.vapourFuel, this.vapourAir];
+    const fraction = (vapour: number, dry: number) => (dry + vapour > 0 ? vapour / (dry + vapour) : 0);
+    return [fraction(split.fuelVapour, dryFuel), fraction(split.airVapour, dryAir)];
   }
 
   /**
@@ -419,12 +471,21 @@ export function fuelPath(request: FuelPathRequest): FuelPath {
     });
     const nernstV = potentialForm
       ? oxygenPotentialNernstV(technology.ion, temperatureK, fuel.state.coupleLnBar, airP)
-      : nernstVoltage(technology.ion, technology.waterPhase, temperatureK, fuelP, airP, e0);
+      : nernstVoltage(technology.ion, technology.waterPhase, temperatureK, fuelP, airP, e0) + unsaturatedVoltage(fuel, air);
     return Number.isNaN(nernstV) ? Infinity : nernstV;
+  };
+  // Liquid-water cells: −RT/2F ln(p_H2O,w / (a_w p_s)) of the water electrode's gas (module comment), 0 where it is saturated.
+  const waterSide = technology.waterElectrode === 'fuel' ? { gas: model.fuelGas, key: 'xFuel' as const, saturated: model.vapourFuel } : { gas: model.airGas, key: 'xAir' as const, saturated: model.vapourAir };
+  const waterIndex = waterSide.gas.index.get('H2O');
+  const unsaturatedVoltage = (fuel: { xFuel: Float64Array }, air: { xAir: Float64Array }): number => {
+    if (technology.waterPhase !== 'liquid' || waterIndex === undefined) return 0;
+    const x = (waterSide.key === 'xFuel' ? fuel.xFuel : air.xAir)[waterIndex]!;
+    return x === waterSide.saturated ? 0 : waterActivityVoltage(temperatureK, x / waterSide.saturated);
   };
   const evaluate = (utilization: number): Evaluated => {
     const state = model.at(utilization * basisA);
-    const point = { utilization, value: 0, state, xFuel: moleFractions(model.fuelGas, state.fuel, model.vapourFuel), xAir: moleFractions(model.airGas, state.air, model.vapourAir) };
+    const [vapourFuel, vapourAir] = model.vapourAt(utilization * basisA, state);
+    const point = { utilization, value: 0, state, xFuel: moleFractions(model.fuelGas, state.fuel, vapourFuel), xAir: moleFractions(model.airGas, state.air, vapourAir) };
     point.value = nernstOf(point, point);
     return point;
   };

@@ -13,7 +13,7 @@ import { unitFeeds, type UnitFeeds } from './unit-feeds.ts';
 import { voltageModelAt, type CellVoltageRequest, type OperatingVoltage } from './voltage.ts';
 import { agedVoltage, type AgedCell } from './degradation.ts';
 import { sizeStack, type Sizing } from './sizing.ts';
-import { liquidCellWater, type WaterSplit } from './water-balance.ts';
+import { liquidCellWater, type WaterSplit } from '../equilibrium/liquid-water.ts';
 import { heatBalance, coolingAirMolPerS, type HeatBalance } from './heat.ts';
 import { electrolysisEfficiency, powerEfficiency, type ElectrolysisEfficiency, type PowerEfficiency } from './efficiency.ts';
 import { gasFlow, scaled, totalFlow, type Stream } from './streams.ts';

@@ -109,18 +109,37 @@ function electrodeEquations(r: Results): EquationEntry[] {
 /** The name of the partial pressure a quotient term substitutes: p_H2_f. */
 export const pressureName = (t: QuotientTerm) => `p_${t.species}_${t.electrode}`;
 
-/** The Nernst equation of this cell: its quotient from the electrolyte's reactions, water terms dropped with liquid water. */
+/** The name of the vapour pressure of a liquid-water cell's water, a_w p_s(T), in the Nernst equation. */
+export const WATER_SATURATION = 'p_wsat';
+
+/**
+ * The water vapour term of a liquid-water cell's Nernst equation: the water's activity
+ * p_H2O,w/(a_w p_s) at the electrode whose reaction forms or consumes it (1 where the gas is
+ * saturated), lib/equilibrium/fuel-path.ts; null for a gas-phase cell.
+ */
+export function liquidWaterTerm(r: Results): QuotientTerm | null {
+  if (r.technology.waterPhase !== 'liquid') return null;
+  return { species: 'H2O', electrode: electrodeReactions(r.technology.ion).waterElectrode, power: -1, water: true };
+}
+
+/** The Nernst equation of this cell: its quotient from the electrolyte's reactions; with liquid water, the water's activity p_H2O/p_w^sat in place of its pressure. */
 function nernstEquation(r: Results): EquationEntry {
   const terms = activeQuotient(r.technology.ion, r.technology.waterPhase);
-  const pressures = Object.fromEntries(terms.map((t) => [pressureName(t), sym(texPressure(t.species, t.electrode))]));
+  const water = liquidWaterTerm(r);
+  const pressures = Object.fromEntries([...terms, ...(water ? [water] : [])].map((t) => [pressureName(t), sym(texPressure(t.species, t.electrode))]));
+  const saturation: Record<string, Symbol> = water ? { [WATER_SATURATION]: sym('p_\\mathrm{w}^\\mathrm{sat}', { ofT: true }) } : {};
   const E0 = sym('E^\\circ', { ofT: true });
   return entry(
     'nernst',
     {
       voltage: {
         lhs: sym('E'),
-        symbols: { E0, R: sym('R'), T, F, ...pressures },
-        rhs: (q, op) => `${q.E0} + \\frac{${q.R}${op.times}${q.T}}{2${op.times}${q.F}}\\,\\ln ${quotientTex(terms, (t) => q[pressureName(t)]!, op.times)}`,
+        symbols: { E0, R: sym('R'), T, F, ...pressures, ...saturation },
+        rhs: (q, op) => {
+          const quotient = quotientTex(terms, (t) => q[pressureName(t)]!, op.times);
+          const activity = water ? `${op.times}\\frac{${q[WATER_SATURATION]}}{${q[pressureName(water)]}}` : '';
+          return `${q.E0} + \\frac{${q.R}${op.times}${q.T}}{2${op.times}${q.F}}\\,\\ln ${water ? `\\left(${quotient}${activity}\\right)` : quotient}`;
+        },
       },
       standard: { lhs: E0, symbols: { dG: sym('\\Delta G^\\circ', { ofT: true }), F }, rhs: (q, op) => `-\\frac{${q.dG}}{2${op.times}${q.F}}` },
     },
@@ -498,10 +517,28 @@ function caseEquations(r: Results): EquationEntry[] {
   return out;
 }
 
+/**
+ * The water of a liquid-water cell at a point u of the path (lib/equilibrium/liquid-water.ts): the
+ * water fed and formed (split) against the vapour that saturates both dry gases, and the vapour
+ * fraction each gas then carries.
+ */
+function liquidWaterEquations(r: Results): EquationEntry[] {
+  if (r.technology.waterPhase !== 'liquid') return [];
+  const sign = r.technology.mode === 'power' ? '+' : '-';
+  return [
+    shown(
+      'water-balance',
+      `\\begin{gathered} \\dot n_\\mathrm{w}(u) = \\dot n_\\mathrm{w,fed} ${sign} \\frac{u\\,Q_1}{2\\,F}, \\qquad \\dot n_{\\mathrm{sat},k}(u) = \\dot n_{\\mathrm{dry},k}(u)\\,\\frac{x_{\\mathrm{s},k}}{1 - x_{\\mathrm{s},k}}, \\quad x_{\\mathrm{s},k} = \\frac{p_\\mathrm{w}^\\mathrm{sat}(T)}{P_k}, \\quad p_\\mathrm{w}^\\mathrm{sat}(T) = a_\\mathrm{w}\\,p_\\mathrm{s}(T) \\\\ ` +
+        `x_{\\mathrm{H_2O},k}(u) = \\begin{cases} x_{\\mathrm{s},k} & \\text{if } \\dot n_\\mathrm{w} \\ge \\sum_k \\dot n_{\\mathrm{sat},k} \\text{ (saturated, the rest liquid)} \\\\ \\dfrac{\\phi\\,\\dot n_{\\mathrm{sat},k}}{\\dot n_{\\mathrm{dry},k} + \\phi\\,\\dot n_{\\mathrm{sat},k}}, \\quad \\phi = \\dfrac{\\dot n_\\mathrm{w}}{\\sum_k \\dot n_{\\mathrm{sat},k}} & \\text{otherwise (all vapour, no liquid)} \\end{cases} \\end{gathered}`,
+    ),
+  ];
+}
+
 export function equationTable(r: Results): Map<string, EquationEntry> {
   const all = [
     ...electrodeEquations(r),
     nernstEquation(r),
+    ...liquidWaterEquations(r),
     ...oxygenPotentialEquations(r),
     ...temperatureEquations(),
     ...voltageEquations(r),

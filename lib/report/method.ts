@@ -9,6 +9,7 @@
 import type { Results } from '../plant/results-schema.ts';
 import { EquationBook, type Equation } from './equation-book.ts';
 import { electrodeReactions } from './electrode-reactions.ts';
+import { electrolyte } from '../electrochem/electrolytes.ts';
 import { equationTable, mixedConductor, type EquationEntry } from './equations.ts';
 import { sectionNumber } from './outline.ts';
 import { hotSpot } from './local-current.ts';
@@ -81,9 +82,9 @@ function nernst(step: Step, r: Results): void {
     .eq('chemical-potential')
     .text(
       liquid && r.fuelPath.waterActivity === 1
-        ? 'The cell runs with liquid water, whose activity is 1: its chemical potential is the standard one of liquid water, so no water pressure appears and $E^\\circ$ is that of liquid water. Putting the chemical potentials into Eq. {{gibbs-voltage}} gives the Nernst equation of this cell, each pressure in bar:'
+        ? 'The cell runs with liquid water. Where liquid water is present the gas over it is saturated, its vapour pressure $p_\\mathrm{w}^\\mathrm{sat}(T) = p_\\mathrm{s}(T)$ of IAPWS-IF97, and the water has the standard chemical potential of liquid water, so $E^\\circ$ is that of liquid water. Where the water balance of the cell (Eq. {{water-balance}}) leaves no liquid, the water is vapour below that pressure; liquid and vapour being in equilibrium at $p_\\mathrm{w}^\\mathrm{sat}$, its chemical potential is that of the liquid plus $RT \\ln(p_\\mathrm{H_2O}/p_\\mathrm{w}^\\mathrm{sat})$, the activity of a solvent by its vapour pressure. Putting the chemical potentials into Eq. {{gibbs-voltage}} gives the Nernst equation of this cell, each pressure in bar; its last factor is 1 wherever the gas is saturated:'
         : liquid
-          ? `The cell runs with the water of its potassium hydroxide electrolyte, whose activity is $a_\\mathrm{w} = ${formatNumber(r.fuelPath.waterActivity)}$ at the cell temperature (Balej's correlation, 1985): its chemical potential is the standard one of liquid water plus $RT \\ln a_\\mathrm{w}$, so no water pressure appears and $E^\\circ$ is that of liquid water less $\\tfrac{RT}{2F} \\ln a_\\mathrm{w}$, $${formatNumber(r.fuelPath.standardVoltage_V, 5)}\\,\\mathrm{V}$ here, which the results use as $E^\\circ$ of the equation below. Putting the chemical potentials into Eq. {{gibbs-voltage}} gives the Nernst equation of this cell, each pressure in bar:`
+          ? `The cell runs with the water of its potassium hydroxide electrolyte, whose activity is $a_\\mathrm{w} = ${formatNumber(r.fuelPath.waterActivity)}$ at the cell temperature (Balej's correlation, 1985): its chemical potential is the standard one of liquid water plus $RT \\ln a_\\mathrm{w}$, and $E^\\circ$ below is that of liquid water less $\\tfrac{RT}{2F} \\ln a_\\mathrm{w}$, $${formatNumber(r.fuelPath.standardVoltage_V, 5)}\\,\\mathrm{V}$ here. The gas over the electrolyte is saturated at $p_\\mathrm{w}^\\mathrm{sat}(T) = a_\\mathrm{w}\\,p_\\mathrm{s}(T)$ where the water balance of the cell (Eq. {{water-balance}}) leaves liquid; where it does not, the water is vapour below that pressure and its chemical potential is lower by $RT \\ln(p_\\mathrm{H_2O}/p_\\mathrm{w}^\\mathrm{sat})$. Putting the chemical potentials into Eq. {{gibbs-voltage}} gives the Nernst equation of this cell, each pressure in bar; its last factor is 1 wherever the gas is saturated:`
         : `Putting the chemical potentials into Eq. {{gibbs-voltage}} gives the Nernst equation of this cell, each pressure in bar (water ${reactions.waterElectrode === 'f' ? 'at the fuel electrode' : 'at the air electrode'}, where the ${reactions.ionName} reaction forms it):`,
     )
     .eq('nernst');
@@ -149,9 +150,16 @@ function fuelPath(step: Step, r: Results): void {
     step.text('Only hydrogen reacts at the fuel electrode; the other species pass through unchanged.');
   }
   if (r.technology.waterPhase === 'liquid') {
-    step.text(
-      'Both gases are taken as saturated with water vapour at the cell temperature, $x_\\mathrm{H_2O} = a_\\mathrm{w}\\,p_\\mathrm{sat}(T)/P$, with $p_\\mathrm{sat}$ by IAPWS-IF97 (region 4) and $a_\\mathrm{w}$ the activity of the water they stand over (1 for pure water); the rest of the water is liquid. The Nernst voltage is evaluated with these saturated gases. Where the water balance leaves too little water to saturate both outlets (the heat and water table says so), the gases leaving are drier than this and their own Nernst voltage is higher than the one shown.',
-    );
+    const water = electrodeReactions(r.technology.ion).waterElectrode === 'f' ? 'fuel' : 'air';
+    const pooled = electrolyte(r.technology.ion).electrolyteWater;
+    step
+      .text(
+        `${pooled ? 'The water belongs to the circulating electrolyte, which every point of the cell stands over, so the water of the whole cell is balanced, at the outlet $u = U$' : 'The water is balanced at every point $u$ of the cell, not at the outlet alone (the membrane carries water across the cell, not along it)'}: the water fed to both electrodes ${power ? 'plus the water the charge $u\\,Q_1$ has formed' : 'less the water the charge $u\\,Q_1$ has split'}, $\\dot n_\\mathrm{w}$, against the vapour $\\dot n_{\\mathrm{sat},k}$ that saturates each dry gas $k$ at the cell temperature, with $p_\\mathrm{s}$ by IAPWS-IF97 (region 4) and $a_\\mathrm{w}$ the activity of the water the gases stand over (1 for pure water). Where water is left over both gases are saturated and the rest is liquid; where it is not, all of it is vapour, shared in proportion to what saturates each gas (the ${pooled ? 'electrolyte' : 'membrane'} passing water freely between them)${pooled ? ', and every point takes the vapour fractions of the outlet' : ''}:`,
+      )
+      .eq('water-balance')
+      .text(
+        `The document uses these gases, saturated or not as the balance gives them, at every point: their partial pressures enter Eq. {{nernst}}, the water's with its vapour at the ${water} electrode, where the reaction ${power ? 'forms' : 'consumes'} it. A gas drier than saturated has the higher Nernst voltage of its own composition; a gas with no vapour at all (dry feeds at the inlet) makes it unbounded there, as for a dry gas-phase inlet. The outlet point is the water of the heat and water table, vapour and liquid as it leaves.`,
+      );
   }
   if (r.fuelPath.inlet === 'limit') {
     step.text(

@@ -277,14 +277,15 @@ describe('a case that cannot run is a finding of that case', () => {
     // The greatest power the message names lies below the target and above rated.
     const most = Number(/the most they deliver at this operating point is ([\d.]+) kW/.exec(c.findings[0]!.message)![1]);
     // Maximum power transfer of a source E behind a resistance ASR: j* = E/(2 ASR), p* = E²/(4 ASR)
-    // per area (any circuits text); N A (1 − f) p* = 533 × 300 cm2 × 0.92 × 1.16176²/(4 × 0.48176 ohm cm2)
-    // = 103.03 kW at 1.2057 A/cm2 (hand, from the sizing case's effective Nernst voltage and resistance).
+    // per area (any circuits text); N A (1 − f) p* = 533 × 300 cm2 × 0.92 × 1.16493²/(4 × 0.48493 ohm cm2)
+    // = 102.92 kW at 1.2011 A/cm2 (hand, from the sizing case's effective Nernst voltage and resistance;
+    // the scaffold's humid air leaves the inlet below saturation, whose own Nernst voltage is higher).
     // 0.2 %: the message's four figures, and E varies a little along the hydrogen path.
     const e = results.electrochemistry.effectiveNernst_V;
     const asr = results.electrochemistry.areaSpecificResistance_ohm_m2;
     const pStar = ((e * e) / (4 * asr)) * 533 * 0.03 * 0.92;
     expect(results.headline.cells).toBe(533);
-    expect(pStar / 1000).toBeCloseTo(103.03, 1);
+    expect(pStar / 1000).toBeCloseTo(102.92, 1);
     expect(Math.abs(most * 1000 - pStar) / pStar).toBeLessThan(2e-3);
     const at = Number(/at ([\d.]+) A\/cm2/.exec(c.findings[0]!.message)![1]);
     expect(Math.abs(at * 1e4 - e / (2 * asr)) / (e / (2 * asr))).toBeLessThan(2e-3);

@@ -64,7 +64,11 @@ describe.each(CASES)('the method of the %s %s scaffold', (technology, mode) => {
     expect(book.has('fuel-balance') && book.has('air-balance') && book.has('balance-sum') && book.has('gibbs-voltage') && book.has('nernst')).toBe(true);
     const nernst = book.get('nernst').html.html;
     const waterTerm = /p_\{\\mathrm\{H_\{2\}O\}/.test(nernst);
-    expect(waterTerm).toBe(c.results.technology.waterPhase === 'gas' && c.results.technology.ion !== 'hydroxide');
+    // Gas-phase cells carry the water's pressure where the ion's reactions form it at an electrode;
+    // liquid-water cells its activity p_H2O/p_w^sat (1 where the gas is saturated), issue 17 item 2.
+    const liquid = c.results.technology.waterPhase === 'liquid';
+    expect(waterTerm).toBe(liquid || c.results.technology.ion !== 'hydroxide');
+    expect(nernst.includes('\\mathrm{sat}')).toBe(liquid);
     if (c.results.technology.ion === 'carbonate') expect(nernst).toContain('CO_{2}');
   });
   it('gives the temperature dependence from the NASA polynomials and ΔG° = ΔH° − TΔS°', () => {

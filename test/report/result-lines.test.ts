@@ -27,6 +27,9 @@ function nernst(n: Record<string, number>, r: Results): number {
   if (ion === 'oxide' && !liquid) lnQ -= Math.log(p('p_H2O_f'));
   if (ion === 'proton' && !liquid) lnQ -= Math.log(p('p_H2O_a'));
   if (ion === 'carbonate') lnQ += Math.log(p('p_CO2_a')) - Math.log(p('p_H2O_f')) - Math.log(p('p_CO2_f'));
+  // Liquid-water cells: the water's activity p_H2O/p_w,sat at the electrode whose reaction forms it
+  // (air for the proton, fuel for the hydroxide ion), 1 where the gas is saturated.
+  if (liquid) lnQ += Math.log(p('p_wsat')) - Math.log(p(ion === 'proton' ? 'p_H2O_a' : 'p_H2O_f'));
   return n.E0! + ((n.R! * n.T!) / (2 * n.F!)) * lnQ;
 }
 
@@ -192,7 +195,8 @@ it.each(CASES)('the Nernst lines of the %s %s scaffold put a multiplication sign
     // The LaTeX source KaTeX keeps in its MathML annotation; the substituted quotient follows the second \ln.
     const tex = /<annotation encoding="application\/x-tex">([^<]*)<\/annotation>/.exec(line.math.html)![1]!;
     const substituted = tex.split('\\ln ')[2]!;
-    expect(substituted, line.id).toMatch(/^\\frac\{|^[\d{]/);
+    // (A liquid-water cell's quotient is bracketed with the water's activity: \left(…\right).)
+    expect(substituted, line.id).toMatch(/^\\frac\{|^[\d{]|^\\left\(/);
     // A number (or a {number}^{1/2}) followed by another with only a thin space between: two pressures read as one.
     expect(substituted, `${line.id}: ${substituted}`).not.toMatch(/[\d}]\\,[\d{]/);
     if (Object.keys(line.inputs).filter((k) => k.startsWith('p_')).length > 1) expect(substituted, line.id).toContain('\\times');
@@ -303,4 +307,24 @@ describe.each(['solid-oxide', 'pem'] as const)('worked lines of the %s electroly
   });
 
   it.each(plant.map((l) => [l.id, l] as const))('%s: the numbers shown give the result shown', (id, line) => recomputes(c, f, id, line));
+});
+
+it('the Nernst lines of a PEM cell put in the water vapour the water balance gives: below saturation at the humid-air inlet, saturated at the outlet (issue 17 item 2)', () => {
+  // The PEM power scaffold feeds dry hydrogen and air of 60 °C dew point into a 70 °C cell at
+  // 1.5 bar: at the inlet no water has formed, so the gases are drier than saturated; at the outlet
+  // liquid water is left. p_w,sat at 70 °C: 31.20 kPa (IAPWS-IF97; steam tables, e.g. Çengel and
+  // Boles, Table A-4, 31.202 kPa; from memory), to the 4 digits quoted: 1e-4 bar.
+  const c = scaffoldCase('pem', 'power');
+  const byId = new Map(lines(c).map((l) => [l.id, l]));
+  const inlet = byId.get('nernst-inlet')!;
+  const outlet = byId.get('nernst-outlet')!;
+  for (const line of [inlet, outlet]) expect(Math.abs(line.inputs.p_wsat! - 0.31202)).toBeLessThan(1e-4);
+  const points = c.results.fuelPath.points;
+  const p = c.results.conditions.airPressure_bar;
+  expect(inlet.inputs.p_H2O_a).toBe(points[0]!.airSide.H2O! * p);
+  expect(inlet.inputs.p_H2O_a!).toBeLessThan(0.6 * inlet.inputs.p_wsat!);
+  expect(outlet.inputs.p_H2O_a).toBe(points[points.length - 1]!.airSide.H2O! * p);
+  expect(outlet.inputs.p_H2O_a! / outlet.inputs.p_wsat!).toBeCloseTo(1, 12);
+  // The quantity list says where the water's pressure comes from.
+  expect(inlet.quantities.some((q) => q.origin.includes('vapour mole fraction of the water balance at this point'))).toBe(true);
 });

@@ -6,11 +6,12 @@
  * resistance), the cell voltage in the area-mean form, and the highest local current density.
  */
 import type { Results } from '../../plant/results-schema.ts';
-import { FARADAY_C_PER_MOL as F } from '../../thermo/constants.ts';
+import { FARADAY_C_PER_MOL as F, PA_PER_BAR } from '../../thermo/constants.ts';
 import { activeQuotient, type QuotientTerm } from '../../electrochem/electrolytes.ts';
 import type { LineSpec, QuantitySpec } from '../calc-line.ts';
 import type { EquationBook } from '../equation-book.ts';
-import { coupleQuotient, pressureName } from '../equations.ts';
+import { coupleQuotient, liquidWaterTerm, pressureName, WATER_SATURATION } from '../equations.ts';
+import { waterSaturationPressurePa } from '../../thermo/water-saturation.ts';
 import { formatNumber } from '../format.ts';
 import { hotSpot } from '../local-current.ts';
 import { sectionNumber } from '../outline.ts';
@@ -80,7 +81,7 @@ function pressuresAt(r: Results, point: Results['fuelPath']['points'][number], w
       name,
       value: (side[term.species] ?? 0) * total,
       unit: 'bar',
-      origin: `${fuel ? 'fuel' : 'air'}-electrode gas at the ${where}: mole fraction × ${fuel ? 'fuel' : 'air'}-electrode pressure`,
+      origin: `${fuel ? 'fuel' : 'air'}-electrode gas at the ${where}: ${term.water && r.technology.waterPhase === 'liquid' ? 'vapour mole fraction of the water balance at this point' : 'mole fraction'} × ${fuel ? 'fuel' : 'air'}-electrode pressure`,
     });
   }
   return pressures;
@@ -92,7 +93,8 @@ export function nernstLine(r: Results, book: EquationBook, where: 'inlet' | 'out
   const point = where === 'inlet' ? points[0]! : points[points.length - 1]!;
   const value = where === 'inlet' ? r.headline.inletNernst_V : r.headline.outletNernst_V;
   const couple = r.fuelPath.nernstForm === 'oxygen-potential';
-  const terms = couple ? coupleQuotient(r) : activeQuotient(r.technology.ion, r.technology.waterPhase);
+  const water = couple ? null : liquidWaterTerm(r);
+  const terms = couple ? coupleQuotient(r) : [...activeQuotient(r.technology.ion, r.technology.waterPhase), ...(water ? [water] : [])];
   const inlet = inletText(r);
   const T: QuantitySpec = { name: 'T', value: r.conditions.temperature_K, unit: 'K', origin: 'operating temperature, design input' };
   const aw = r.fuelPath.waterActivity;
@@ -104,10 +106,22 @@ export function nernstLine(r: Results, book: EquationBook, where: 'inlet' | 'out
     equation: couple ? 'nernst-oxygen' : 'nernst',
     relation: 'voltage',
     lhs: where === 'inlet' ? 'E_\\mathrm{in}' : 'E_\\mathrm{out}',
-    quantities: [...standard, constR, T, constF, ...pressuresAt(r, point, where, terms, couple)],
+    quantities: [...standard, constR, T, constF, ...pressuresAt(r, point, where, terms, couple), ...(water ? [waterSaturation(r)] : [])],
     value,
     unit: 'V',
     ...(where === 'inlet' && inlet.note ? { note: inlet.note } : {}),
+  };
+}
+
+/** The vapour pressure of a liquid-water cell's water at T, a_w p_s(T), against which the Nernst line takes the water's activity. */
+function waterSaturation(r: Results): QuantitySpec {
+  const aw = r.fuelPath.waterActivity;
+  const pSatBar = waterSaturationPressurePa(r.conditions.temperature_K) / PA_PER_BAR;
+  return {
+    name: WATER_SATURATION,
+    value: aw * pSatBar,
+    unit: 'bar',
+    origin: `vapour pressure of the cell's water at T: IAPWS-IF97 region 4${aw === 1 ? '' : `, × a_w = ${Number(aw.toPrecision(4))}`} (the gas's own vapour pressure equals it where the water balance leaves liquid)`,
   };
 }
 

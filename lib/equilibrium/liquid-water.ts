@@ -1,10 +1,18 @@
 /**
- * Water leaving a liquid-water cell (PEM, alkaline): both outlet gases saturated with vapour at
- * cell temperature, n_vap = n_dry · x_v / (1 − x_v) with x_v = p_sat / P, and the rest of the
- * water as liquid:
- *   liquid out = water in + water formed (power: I/2F) − water split (electrolysis: I/2F) − vapour out
- * Where too little water is left to saturate both gases, the gases leave unsaturated (the water
- * is shared in proportion) and a warning says the membrane or electrolyte would dry out.
+ * The water of a liquid-water cell (PEM, alkaline) at one point of the cell: the water fed to both
+ * electrodes plus the water the charge passed so far has formed (power: I/2F) or split
+ * (electrolysis: −I/2F), against the vapour that would saturate both dry gases there at cell
+ * temperature, n_sat = n_dry · x_s / (1 − x_s) with x_s = a_w p_s(T) / P (p_s by IAPWS-IF97,
+ * a_w the activity of the water the gases stand over):
+ *
+ *   W(q) = W_fed ± q/2F
+ *   W(q) ≥ n_sat,f + n_sat,a:  both gases saturated, liquid = W(q) − n_sat,f − n_sat,a
+ *   W(q) < n_sat,f + n_sat,a:  no liquid; all the water is vapour, shared in proportion to n_sat
+ *
+ * (Dalton's law with the vapour pressure of the water as the most vapour a gas can hold; the
+ * sharing in proportion, the membrane or electrolyte passing water freely between the sides, is
+ * this project's assumption.) The fuel path applies it at every point of a co-flow cell, where the
+ * gases at u have met the charge u·Q (fuel-path.ts); the plant at the outlet, q = I.
  */
 import { FARADAY_C_PER_MOL as F } from '../thermo/constants.ts';
 import type { Mode } from '../electrochem/technologies.ts';
