@@ -28,7 +28,7 @@
  */
 import { parse as parseYaml } from 'yaml';
 import type { Assumption, DesignBasis, InputRecord, Reference } from '../basis/types.ts';
-import type { Results } from '../plant/results-schema.ts';
+import type { ComparableResults, HeadlineNumbers } from '../plant/comparable-results.ts';
 import { childPath, diffTrees, treeText, type Tree } from './tree-diff.ts';
 import { sameWithinRounding } from './tolerance.ts';
 import { HEADLINE_QUANTITIES, formatChange, formatValue } from './headline-quantities.ts';
@@ -40,7 +40,8 @@ export interface RevisionSide {
   /** Its issued status, or "draft, not issued" for the working draft; "" when not known. */
   status?: string;
   basis: DesignBasis;
-  results: Results;
+  /** Today's results (the draft's), or an issued revision's as far as comparisons read them (issued-results.ts). */
+  results: ComparableResults;
   /** The YAML text of the basis, for the structural diff of the fields that are not inputs. */
   source?: string;
 }
@@ -137,7 +138,14 @@ export interface RevisionChanges {
   results: ResultChange[];
   cases: CaseChange[];
   envelope: EnvelopeChange[];
+  /**
+   * What could not be compared because one side's results do not carry it (results issued by
+   * another version of cellbasis): "highest carbon activity: not in the results of revision A".
+   */
+  notCompared: string[];
+  /** One line per change, then one per part not compared ("not compared: ..."). */
   summary: string[];
+  /** No change in anything both sides carry. */
   unchanged: boolean;
 }
 
@@ -287,11 +295,24 @@ function referenceChanges(a: Reference[], b: Reference[]): ReferenceChange[] {
   return out;
 }
 
-function resultChanges(a: Results['headline'] | null, b: Results['headline'] | null): ResultChange[] {
+/** Where one side's results lack what the other's carry: the comparison's record of it. */
+interface Sides {
+  a: string;
+  b: string;
+  /** Told each quantity or part that only one side carries. */
+  missing: (what: string, side: string) => void;
+}
+
+function resultChanges(a: HeadlineNumbers | null, b: HeadlineNumbers | null, sides: Sides, prefix = ''): ResultChange[] {
   const out: ResultChange[] = [];
   for (const q of HEADLINE_QUANTITIES) {
     const old = a ? a[q.key] : null;
     const next = b ? b[q.key] : null;
+    // A headline number the results of one side do not carry (another version wrote them) is not compared.
+    if (old === undefined || next === undefined) {
+      if (old !== next) sides.missing(`${prefix}${q.label}`, old === undefined ? sides.a : sides.b);
+      continue;
+    }
     if (old === null && next === null) continue;
     if (old !== null && next !== null && sameWithinRounding(old, next)) continue;
     const delta = old !== null && next !== null ? next - old : null;
@@ -305,10 +326,18 @@ function resultChanges(a: Results['headline'] | null, b: Results['headline'] | n
   return out;
 }
 
-/** The cases of two results by id (results issued before cases existed have none). */
-function caseChanges(a: Results, b: Results): CaseChange[] {
-  const before = a.cases ?? [];
-  const after = new Map((b.cases ?? []).map((c) => [c.id, c]));
+/** Whether both sides carry a part of the results (cases, envelope); tells `sides` when only one does. */
+function bothCarry(a: unknown, b: unknown, what: string, sides: Sides): boolean {
+  if (a === undefined && b !== undefined) sides.missing(what, sides.a);
+  if (b === undefined && a !== undefined) sides.missing(what, sides.b);
+  return a !== undefined && b !== undefined;
+}
+
+/** The cases of two results by id (not compared where the results of one side carry none: issued before cases existed). */
+function caseChanges(a: ComparableResults, b: ComparableResults, sides: Sides): CaseChange[] {
+  if (!bothCarry(a.cases, b.cases, 'operating cases', sides)) return [];
+  const before = a.cases!;
+  const after = new Map(b.cases!.map((c) => [c.id, c]));
   const out: CaseChange[] = [];
   for (const old of before) {
     const next = after.get(old.id);
@@ -317,24 +346,27 @@ function caseChanges(a: Results, b: Results): CaseChange[] {
       continue;
     }
     const words: string[] = [];
+    const both = (part: string, x: unknown, y: unknown) => bothCarry(x, y, `case ${old.id}: ${part}`, sides);
     if (old.title !== next.title) words.push(`title "${old.title}" → "${next.title}"`);
-    if (old.purpose !== next.purpose) words.push(`purpose "${old.purpose}" → "${next.purpose}"`);
-    if (old.sizing !== next.sizing) words.push(next.sizing ? 'now the sizing case' : 'no longer the sizing case');
-    if (old.ran !== next.ran) words.push(next.ran ? 'now runs' : 'no longer runs on the sizing hardware');
+    if (both('purpose', old.purpose, next.purpose) && old.purpose !== next.purpose) words.push(`purpose "${old.purpose}" → "${next.purpose}"`);
+    if (both('whether it is the sizing case', old.sizing, next.sizing) && old.sizing !== next.sizing) words.push(next.sizing ? 'now the sizing case' : 'no longer the sizing case');
+    if (both('whether it runs', old.ran, next.ran) && old.ran !== next.ran) words.push(next.ran ? 'now runs' : 'no longer runs on the sizing hardware');
     // The sizing case's numbers are the top-level results, compared there.
-    const results = old.sizing && next.sizing ? [] : resultChanges(old.headline, next.headline);
+    const results =
+      (old.sizing && next.sizing) || !both('headline numbers', old.headline, next.headline) ? [] : resultChanges(old.headline!, next.headline!, sides, `case ${old.id}: `);
     words.push(...results.map((r) => r.text));
     if (words.length) out.push({ id: old.id, kind: 'changed', results, text: `case ${old.id}: ${words.join('; ')}` });
   }
   const ids = new Set(before.map((c) => c.id));
-  for (const next of b.cases ?? []) if (!ids.has(next.id)) out.push({ id: next.id, kind: 'added', results: [], text: `case ${next.id} added: ${next.title}` });
+  for (const next of b.cases!) if (!ids.has(next.id)) out.push({ id: next.id, kind: 'added', results: [], text: `case ${next.id} added: ${next.title}` });
   return out;
 }
 
-/** The envelope of two results by quantity: a governing value or case that changed. */
-function envelopeChanges(a: Results, b: Results): EnvelopeChange[] {
-  const before = a.envelope ?? [];
-  const after = new Map((b.envelope ?? []).map((e) => [e.id, e]));
+/** The envelope of two results by quantity: a governing value or case that changed (not compared where one side carries none). */
+function envelopeChanges(a: ComparableResults, b: ComparableResults, sides: Sides): EnvelopeChange[] {
+  if (!bothCarry(a.envelope, b.envelope, 'the envelope', sides)) return [];
+  const before = a.envelope!;
+  const after = new Map(b.envelope!.map((e) => [e.id, e]));
   const shown = (value: number, unit: string) => `${sig(value, 4)}${unit === '1' ? '' : ` ${unit}`}`;
   const out: EnvelopeChange[] = [];
   for (const old of before) {
@@ -354,7 +386,7 @@ function envelopeChanges(a: Results, b: Results): EnvelopeChange[] {
     });
   }
   const ids = new Set(before.map((e) => e.id));
-  for (const next of b.envelope ?? []) {
+  for (const next of b.envelope!) {
     if (!ids.has(next.id)) out.push({ id: next.id, kind: 'added', new: { value: next.value, case: next.case }, text: `envelope: ${next.quantity} ${shown(next.value, next.unit)} (case ${next.case}) added` });
   }
   return out;
@@ -365,10 +397,12 @@ export function compareRevisions(a: RevisionSide, b: RevisionSide): RevisionChan
   const fields = fieldChanges(a, b);
   const assumptions = assumptionChanges(a.basis.assumptions, b.basis.assumptions);
   const references = referenceChanges(a.basis.references, b.basis.references);
-  const results = resultChanges(a.results.headline, b.results.headline);
-  const cases = caseChanges(a.results, b.results);
-  const envelope = envelopeChanges(a.results, b.results);
-  const summary = [...inputs, ...fields, ...assumptions, ...references, ...results, ...cases, ...envelope].map((c) => c.text);
+  const notCompared: string[] = [];
+  const sides: Sides = { a: a.revision, b: b.revision, missing: (what, side) => notCompared.push(`${what}: not in the results of revision ${side}`) };
+  const results = resultChanges(a.results.headline, b.results.headline, sides);
+  const cases = caseChanges(a.results, b.results, sides);
+  const envelope = envelopeChanges(a.results, b.results, sides);
+  const changed = [...inputs, ...fields, ...assumptions, ...references, ...results, ...cases, ...envelope].map((c) => c.text);
   return {
     from: { revision: a.revision, status: a.status ?? '' },
     to: { revision: b.revision, status: b.status ?? '' },
@@ -379,7 +413,8 @@ export function compareRevisions(a: RevisionSide, b: RevisionSide): RevisionChan
     results,
     cases,
     envelope,
-    summary,
-    unchanged: summary.length === 0,
+    notCompared,
+    summary: [...changed, ...notCompared.map((n) => `not compared: ${n}`)],
+    unchanged: changed.length === 0,
   };
 }

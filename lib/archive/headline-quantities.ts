@@ -3,10 +3,8 @@
  * and how it is written: voltages in V with changes in mV, powers in kW, efficiencies in % with
  * changes in percentage points, flows as computed. Formatting only; no arithmetic on meaning.
  */
-import type { Results } from '../plant/results-schema.ts';
+import type { HeadlineKey } from '../plant/comparable-results.ts';
 import { sig } from '../core/plain-text.ts';
-
-type HeadlineKey = { [K in keyof Results['headline']]: Results['headline'][K] extends number | null ? K : never }[keyof Results['headline']];
 
 export type Style = 'voltage' | 'power' | 'fraction' | 'count' | 'current' | 'plain';
 

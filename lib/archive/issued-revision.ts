@@ -1,18 +1,20 @@
 /**
  * Reading one issued revision back as the documents and comparisons use it: its manifest, the
  * basis as issued (text and validated basis) and the results as issued (never recomputed here;
- * the audit recomputes). Problems become UserErrors naming the file and advising an audit. A
+ * the audit recomputes), of which only what comparisons need is read, tolerant of the results
+ * format of the version that issued it (issued-results.ts). Problems become UserErrors naming the file and advising an audit. A
  * revision of manifest format 1 carries the revision and status in its basis; they are read past
  * (the audit checks them against the manifest).
  */
 import { loadBasisText } from '../basis/load.ts';
 import { formatDiagnostic } from '../basis/diagnostics.ts';
 import type { DesignBasis } from '../basis/types.ts';
-import { resultsSchema, type Results } from '../plant/results-schema.ts';
+import type { ComparableResults } from '../plant/comparable-results.ts';
 import { EXIT_VALIDATION, UserError } from '../core/errors.ts';
 import { FORMER_MANIFEST_FORMAT, ISSUED_FILES, issuedDir, type IssueManifest } from './layout.ts';
 import { parseManifest } from './manifest.ts';
 import { readIssuedFile } from './issued-files.ts';
+import { readIssuedResults } from './issued-results.ts';
 
 export interface IssuedRevision {
   revision: string;
@@ -22,7 +24,8 @@ export interface IssuedRevision {
   manifestBytes: Buffer;
   basisText: string;
   basis: DesignBasis;
-  results: Results;
+  /** The results as issued, as far as comparisons read them (issued-results.ts): never checked against today's results schema. */
+  results: ComparableResults;
 }
 
 function damaged(display: string, id: string, detail: string): UserError {
@@ -57,11 +60,7 @@ export function readIssuedRevision(cwd: string, projectId: string, revision: str
     if (error instanceof UserError) throw error;
     throw damaged(`${display}/${ISSUED_FILES.results}`, projectId, `is not JSON (${(error as Error).message.split('\n')[0]})`);
   }
-  const checked = resultsSchema.safeParse(raw);
-  if (!checked.success) {
-    const issue = checked.error.issues[0]!;
-    throw damaged(`${display}/${ISSUED_FILES.results}`, projectId, `is not a cellbasis results file: ${issue.path.length ? `${issue.path.join('.')}: ` : ''}${issue.message}`);
-  }
-  const results: Results = checked.data;
-  return { revision, display, manifest: parsed.manifest, manifestBytes, basisText, basis: loaded.basis, results };
+  const results = readIssuedResults(raw);
+  if (!results.ok) throw damaged(`${display}/${ISSUED_FILES.results}`, projectId, `field ${results.field}: ${results.problem}`);
+  return { revision, display, manifest: parsed.manifest, manifestBytes, basisText, basis: loaded.basis, results: results.results };
 }

@@ -11,7 +11,7 @@
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import type { DesignBasis } from '../basis/types.ts';
-import type { Results } from '../plant/results-schema.ts';
+import type { ComparableResults } from '../plant/comparable-results.ts';
 import { ISSUED_FILES, issuedDir, type IssueManifest } from '../archive/layout.ts';
 import { readIssuedFolder, temporaryNote } from '../archive/issued-folder.ts';
 import { readIssuedRevision } from '../archive/issued-revision.ts';
@@ -26,7 +26,8 @@ export interface IssuedRevision {
   /** SHA-256 of manifest.json, as the register page shows it. */
   manifestSha256: string;
   basis: DesignBasis;
-  results: Results;
+  /** As far as the change summaries read them (lib/archive/issued-results.ts). */
+  results: ComparableResults;
   /** Absolute paths of the issued document.html and document.pdf, or null where the revision has none. */
   html: string | null;
   pdf: string | null;

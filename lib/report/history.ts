@@ -6,7 +6,7 @@
  * entries hold null without it.
  */
 import type { DesignBasis } from '../basis/types.ts';
-import type { Results } from '../plant/results-schema.ts';
+import type { ComparableResults } from '../plant/comparable-results.ts';
 import { compareRevisions, type IssueStatus } from '../basis/revisions.ts';
 import type { SignatureFacts } from './revision.ts';
 
@@ -27,7 +27,8 @@ export interface IssuedFacts {
 export interface RevisionData {
   revision: string;
   basis: DesignBasis;
-  results: Results;
+  /** The draft's results, or an issued revision's as far as comparisons read them. */
+  results: ComparableResults;
 }
 
 /** Readable lines saying what changed from `previous` to `current` (lib/archive/compare.ts provides one). */

@@ -10,12 +10,13 @@ import { ISSUE_TIMEOUT, basisPath, issue, issuedPath, PROJECT, removeWorkspace, 
 import { renderScaffold } from '../../lib/basis/scaffolds.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
 import { calculate } from '../../lib/plant/calculate.ts';
+import type { Results } from '../../lib/plant/results-schema.ts';
 import { compareRevisions, type RevisionSide } from '../../lib/archive/compare.ts';
 import { edit } from '../helpers/basis-text.ts';
 
 const BASE = renderScaffold('solid-oxide', 'power', 'demo', '2026-11-30');
 
-function side(text: string, revision = 'A'): RevisionSide {
+function side(text: string, revision = 'A'): Omit<RevisionSide, 'results'> & { results: Results } {
   const loaded = loadBasisText(text, 'projects/demo/basis.yaml', 'demo', { formerRevisionKeys: true });
   if (!loaded.ok) throw new Error(loaded.errors.map((e) => e.message).join('\n'));
   return { revision, basis: loaded.basis, results: calculate(loaded.basis), source: text };

@@ -2,7 +2,8 @@
  * `cellbasis compare ID REV_A REV_B [--section NAME]... [--csv | --json]`: what changed from one
  * revision to another (either may be `draft`, the working basis): inputs as written, other
  * fields, assumptions, references, headline results, operating cases and the envelope
- * (lib/archive/compare.ts). A readable table, with --csv the changed inputs or headline results
+ * (lib/archive/compare.ts), and what it could not compare because the results of one revision,
+ * issued by another version of cellbasis, do not carry it. A readable table, with --csv the changed inputs or headline results
  * as CSV, or with --json the RevisionChanges object.
  */
 import type { Command } from '../command.ts';
@@ -79,6 +80,12 @@ function sections(changes: RevisionChanges): string {
   return out.join('\n');
 }
 
+/** What the results of one side do not carry (issued by another version of cellbasis), so was not compared. */
+function notCompared(changes: RevisionChanges): string {
+  if (!changes.notCompared.length) return '';
+  return `${changes.unchanged ? '' : '\n'}not compared (the results of one revision do not carry it)\n${changes.notCompared.map((n) => `  ${n}\n`).join('')}`;
+}
+
 function withSource(text: string | undefined, source: string | undefined): string {
   if (text === undefined) return '(none)';
   return source ? `${text} [${source}]` : text;
@@ -118,6 +125,7 @@ export const compareCommand: Command = {
       return 0;
     }
     if (args.values.csv) {
+      for (const n of changes.notCompared) note(`not compared: ${n}`);
       printTable(io, args, changeTable(changes, chosen?.[0] ?? 'results'));
       return 0;
     }
@@ -126,7 +134,8 @@ export const compareCommand: Command = {
       io.out(chosen.map((name) => tableText(changeTable(changes, name))).join('\n'));
       return 0;
     }
-    io.out(changes.unchanged ? 'no changes\n' : sections(changes));
+    const nothing = changes.notCompared.length ? 'no changes in what both revisions carry\n' : 'no changes\n';
+    io.out(`${changes.unchanged ? nothing : sections(changes)}${notCompared(changes)}`);
     return 0;
   },
 };
