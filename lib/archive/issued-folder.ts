@@ -12,12 +12,13 @@
  * revisions from readIssuedFolder and words a temporary folder with temporaryNote, so that a
  * killed or running issue is recognised the same way everywhere and never taken for a revision.
  */
-import { lstatSync, readdirSync, readFileSync, unlinkSync, writeFileSync } from 'node:fs';
+import { lstatSync, readdirSync, unlinkSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { EXIT_USAGE, EXIT_VALIDATION, UserError } from '../core/errors.ts';
 import { FORMER_SIGNATURE_FILE, ISSUED_FILES, SIGN_OFF_ROLES, issuedRoot, signatureFile } from './layout.ts';
 import { compareRevisions, isRevision } from '../basis/revisions.ts';
 import { fileSystemError } from './file-errors.ts';
+import { readRegularFile } from '../core/read-file.ts';
 
 export const TEMP_PREFIX = '.tmp-';
 export const LOCK_FILE = '.issue-lock';
@@ -85,7 +86,15 @@ export function isIssueTemporary(root: string, name: string): boolean {
 function lockHolder(path: string, display: string): number | null {
   const stat = lstatSync(path, { throwIfNoEntry: false });
   if (!stat) return null;
-  const text = stat.isFile() && stat.size <= 24 ? readFileSync(path, 'utf8') : '';
+  let text = '';
+  try {
+    // Through the bounded reader: a FIFO or a device put there is refused before it is opened, never waited on.
+    text = readRegularFile(path, { maxBytes: 24, what: 'issue lock', followLinks: false }).toString('utf8');
+  } catch (error) {
+    if (!(error instanceof UserError)) throw error;
+    // Gone since the lstat: released meanwhile.
+    if (!lstatSync(path, { throwIfNoEntry: false })) return null;
+  }
   if (!/^\d+\n$/.test(text)) {
     throw new UserError(`issue: ${display}/issued/${LOCK_FILE} is not a lock that cellbasis issue wrote; nothing was changed: remove it yourself if no issue runs`, EXIT_VALIDATION);
   }

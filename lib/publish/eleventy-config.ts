@@ -13,11 +13,11 @@
  * Eleventy's output folder must be a site folder of cellbasis (lib/publish/site-marker.ts: new,
  * empty or marked) and is marked before anything is written into it.
  */
-import { existsSync } from 'node:fs';
 import { dirname, join, relative, resolve } from 'node:path';
 import { listProjects } from '../basis/projects.ts';
 import { ISSUED_FILES, issuedDir } from '../archive/layout.ts';
 import { readIssuedFolder } from '../archive/issued-folder.ts';
+import { issuedFileToCopy } from '../archive/issued-files.ts';
 import { UserError } from '../core/errors.ts';
 import { INDEX_PATH, portfolioView } from '../report/portfolio.ts';
 import { buildContext } from './build-context.ts';
@@ -53,7 +53,9 @@ function issuedCopies(root: string, model: SiteModel | null): Record<string, str
     for (const rev of revisions) {
       for (const name of [ISSUED_FILES.html, ISSUED_FILES.pdf]) {
         const from = join(issuedDir(root, id, rev), name);
-        if (existsSync(from)) copies[from] = `${dirname(revisionPagePath(id, rev))}/${name}`;
+        // A file that is no regular file or too large is not copied; the model's load reports it.
+        const state = issuedFileToCopy(issuedDir(root, id, rev), `projects/${id}/issued/${rev}`, name);
+        if (state.present && state.problem === null) copies[from] = `${dirname(revisionPagePath(id, rev))}/${name}`;
       }
     }
   }

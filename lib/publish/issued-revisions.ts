@@ -4,17 +4,19 @@
  * warning and skipped, as the audit and compare do), each with its manifest, the basis and
  * results as issued (for the revision history's change summaries; never recalculated) and the
  * paths of its document.html and document.pdf, which the site copies as they were issued: an
- * issued revision is never rendered again. A project whose revisions lie in the former folder is
+ * issued revision is never rendered again. Those two are copied, not read, so each is first
+ * checked to be a regular file within its size limit (lib/archive/issued-files.ts): a named pipe
+ * or a device there is an error naming it, never a copy that waits or never ends. A project whose revisions lie in the former folder is
  * an error naming the command that moves them. Problems are collected, not thrown, so a site
  * build reports all of them.
  */
-import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import type { DesignBasis } from '../basis/types.ts';
 import type { ComparableResults } from '../plant/comparable-results.ts';
 import { ISSUED_FILES, issuedDir, type IssueManifest } from '../archive/layout.ts';
 import { readIssuedFolder, temporaryNote } from '../archive/issued-folder.ts';
 import { readIssuedRevision } from '../archive/issued-revision.ts';
+import { issuedFileToCopy } from '../archive/issued-files.ts';
 import { formerLayoutProblem } from '../archive/former-layout.ts';
 import { sha256Hex } from '../archive/hash.ts';
 import { UserError } from '../core/errors.ts';
@@ -67,7 +69,12 @@ export function readIssuedRevisions(root: string, projectId: string, problems: S
       continue;
     }
     const dir = issuedDir(root, projectId, revision);
-    const file = (name: string) => (existsSync(join(dir, name)) ? join(dir, name) : null);
+    // Copied, not read: refused before the copy opens it when it is no regular file or too large.
+    const checked = [ISSUED_FILES.html, ISSUED_FILES.pdf].map((name) => ({ name, ...issuedFileToCopy(dir, read.display, name) }));
+    const refused = checked.filter((c) => c.present && c.problem !== null);
+    for (const c of refused) if (c.present && c.problem) problems.errors.push(`${c.problem}; run cellbasis audit ${projectId} for the full report`);
+    if (refused.length) continue;
+    const file = (name: string) => (checked.find((c) => c.name === name)!.present ? join(dir, name) : null);
     out.push({
       revision,
       manifest: read.manifest,
