@@ -131,6 +131,6 @@ export async function auditProject(cwd: string, project: string, options: AuditO
     const kind = lstatSync(join(issuedRoot(cwd, project), name)).isDirectory() ? 'a folder not named as a revision' : 'not a revision folder';
     lines.push({ subject: `projects/${project} issued/${name}`, project, revision: null, signed: '', problems: [finding(`${kind}; only cellbasis issue writes here`)], notes: [] });
   }
-  const notes = folder.temporary.map((name) => temporaryNote(project, name));
+  const notes = folder.temporary.map((name) => temporaryNote(cwd, project, name));
   return { lines, notes };
 }

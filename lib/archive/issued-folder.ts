@@ -60,13 +60,18 @@ export function readIssuedFolder(cwd: string, projectId: string): IssuedFolder {
 
 /**
  * What a temporary folder is, in the words every reader uses: an issue running now (its process
- * alive), or left by an issue run that was killed (the next issue removes it).
+ * alive), one that ended since the folder was listed (its folder gone: renamed into the revision,
+ * which this reading does not show), or left by an issue run that was killed (the next issue
+ * removes it).
  */
-export function temporaryNote(projectId: string, name: string): string {
+export function temporaryNote(cwd: string, projectId: string, name: string): string {
   const match = TEMP_NAME.exec(name);
   const shown = `projects/${projectId}/issued/${name}`;
   if (match && processAlive(Number(match[2])) && Number(match[2]) !== process.pid) {
     return `${shown}: revision ${match[1]} is being issued now (process ${match[2]}); not a revision until that run ends`;
+  }
+  if (match && !lstatSync(join(issuedRoot(cwd, projectId), name), { throwIfNoEntry: false })) {
+    return `${shown}: revision ${match[1]} was being issued while the archive was read (process ${match[2]}, ended since); not shown here: read it again to see it`;
   }
   return `${shown}: left by an interrupted issue run, not a revision; the next cellbasis issue of this project removes it`;
 }

@@ -29,7 +29,7 @@ export function readRevisionSide(cwd: string, project: string, which: string, wa
   projectBasisPath(project, cwd);
   refuseFormerLayout(cwd, project);
   const folder = readIssuedFolder(cwd, project);
-  for (const name of folder.temporary) note?.(temporaryNote(project, name));
+  for (const name of folder.temporary) note?.(temporaryNote(cwd, project, name));
   if (which === DRAFT) {
     const working = readWorkingBasis(cwd, project, warn);
     const revision = nextRevision(lastRevision(folder));

@@ -52,7 +52,7 @@ export function readIssuedRevisions(root: string, projectId: string, problems: S
     problems.error(`projects/${projectId}/issued`, error.message);
     return [];
   }
-  for (const name of folder.temporary) problems.warning(temporaryNote(projectId, name));
+  for (const name of folder.temporary) problems.warning(temporaryNote(root, projectId, name));
   for (const name of folder.other) problems.error(`projects/${projectId}/issued/${name}`, 'is not an issued revision (A, B, ... or 0, 1, ...); only cellbasis issue writes here (cellbasis audit says more)');
   const out: IssuedRevision[] = [];
   for (const revision of folder.revisions) {
