@@ -17,10 +17,14 @@
  *   - cases by id: added, removed, and changed (title, purpose, whether it ran, its headline
  *     numbers as above: "case turndown: cell voltage 0.8724 V → 0.8690 V (...)"); the sizing
  *     case's numbers are the results above and are not repeated;
- *   - envelope values by quantity: added, removed, and a changed value or governing case.
+ *   - envelope values by quantity: added, removed, and a changed value or governing case;
+ *   - notCompared: what the results of one side do not carry, a headline number or the cases or
+ *     envelope of results issued by another version of cellbasis (issued-results.ts reads only
+ *     these parts of an issued results.json): "highest carbon activity: not in the results of
+ *     revision A"; the rest is compared.
  *
- * `summary` holds one readable line per change, in that order; `unchanged` is true when there is
- * none. Usage (site build, revision history):
+ * `summary` holds one readable line per change, in that order, then one per part not compared
+ * ("not compared: ..."); `unchanged` is true when nothing both sides carry changed. Usage (site build, revision history):
  *
  *   const changes = compareRevisions({ revision: 'A', basis: basisA, results: resultsA, source: yamlA },
  *                                    { revision: 'B', basis: basisB, results: resultsB, source: yamlB });
