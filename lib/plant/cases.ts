@@ -15,7 +15,8 @@
  *
  * So each case's results are exactly those of a basis written with the case's values, the
  * sizing case's cell count, active area and resistance, and that current density (the tests
- * check this). A case that cannot run there (no current density meets its target, a voltage
+ * check this). Its plant (calculate.ts casePlant) is that basis's plant with the sizing case's
+ * electrical layout (cells per stack, stacks in series, strings in parallel) given. A case that cannot run there (no current density meets its target, a voltage
  * beyond the reversible limit, a fuel that cannot reach its utilization) is a critical finding
  * of that case, `case-cannot-run`, with its figures null; the basis still calculates.
  *
@@ -33,7 +34,7 @@ import { currentDensityForTarget } from './case-load.ts';
 import { locateCalculationErrors } from './located-error.ts';
 import { finding, withAssumptions, type Finding } from './findings.ts';
 import type { CaseResult } from './results-schema.ts';
-import type { PointResults } from './calculate.ts';
+import type { CasePointResults } from './calculate.ts';
 
 /** The hardware the sizing case fixes. */
 export interface Hardware {
@@ -127,14 +128,14 @@ function curveOf(point: DesignPoint, efficiency: number, jMax: number): CaseResu
   return out;
 }
 
-function efficiencyOf(results: PointResults): number {
+function efficiencyOf(results: CasePointResults): number {
   return results.efficiency.electricalEfficiencyLhvNet ?? results.efficiency.electrolysisEfficiencyLhv!;
 }
 
 /** The case's figures, or nulls where it cannot run. */
 type Figures = Omit<CaseResult, 'id' | 'title' | 'purpose' | 'sizing' | 'load' | 'overrides' | 'curve'> & { point: DesignPoint | null };
 
-function ranFigures(results: PointResults, point: DesignPoint, resistance: CaseResult['resistance']): Figures {
+function ranFigures(results: CasePointResults, point: DesignPoint, resistance: CaseResult['resistance']): Figures {
   return { ran: true, resistance, ...results, point };
 }
 
@@ -153,19 +154,20 @@ function notRun(c: OperatingCase, path: string, message: string): Figures {
     carbon: null,
     supply: null,
     degradation: null,
+    plant: null,
     findings: placed,
     point: null,
   };
 }
 
-type Assemble = (point: DesignPoint, basis: DesignBasis, carbon?: ReturnType<typeof carbonMargin>) => PointResults;
+type Assemble = (point: DesignPoint, basis: DesignBasis, carbon?: ReturnType<typeof carbonMargin>) => CasePointResults;
 
 /**
  * Every case of the basis, in its order: the sizing case from its evaluated point and results,
  * every other case on its hardware. `assemble` makes the sections of a point's results
  * (calculate.ts pointResults).
  */
-export function caseResults(cases: readonly OperatingCase[], sizing: DesignPoint, sizingResults: PointResults, assemble: Assemble): CaseResult[] {
+export function caseResults(cases: readonly OperatingCase[], sizing: DesignPoint, sizingResults: CasePointResults, assemble: Assemble): CaseResult[] {
   const hardware = hardwareOf(sizing);
   const stages = new Map<string, UnitStage>([[stageKey(sizing.inputs), { unit: sizing.unit, path: sizing.path }]]);
   const carbons = new Map<string, ReturnType<typeof carbonMargin>>();
@@ -183,7 +185,7 @@ export function caseResults(cases: readonly OperatingCase[], sizing: DesignPoint
       load: c.load,
       overrides: c.overrides.map((o) => ({ path: o.path, text: o.text, source: o.source ?? null })),
       ...f,
-      curve: point && f.ran ? curveOf(point, efficiencyOf(f as PointResults), jMax) : [],
+      curve: point && f.ran ? curveOf(point, efficiencyOf(f as CasePointResults), jMax) : [],
     };
   });
 }
