@@ -6,7 +6,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { parseDocument } from 'yaml';
-import { calculate } from '../../lib/plant/calculate.ts';
+import { calculate, casePlant, evaluateBasis } from '../../lib/plant/calculate.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
 import type { DesignBasis } from '../../lib/basis/types.ts';
 import type { CaseResult, Results } from '../../lib/plant/results-schema.ts';
@@ -288,6 +288,23 @@ describe('the envelope', () => {
   it('every quantity of lib/plant/data/envelope.yaml names a number of a case\'s results (checked at load)', () => {
     const ids = ENVELOPE_QUANTITIES.map((q) => q.id);
     for (const wanted of ['air-flow', 'fuel-flow', 'water-flow', 'stack-heat', 'dc-current', 'dc-voltage-highest', 'dc-voltage-lowest', 'carbon-margin', 'cell-voltage-lowest', 'hydrogen-most', 'hydrogen-least']) expect(ids).toContain(wanted);
+  });
+});
+
+describe('a case whose plant cannot be balanced keeps its stack results, with a finding', () => {
+  it('a layout that installs fewer cells than the case needs: critical case-plant-cannot-run at plant.electrical, plant null, no throw', () => {
+    const basis = load(demoText('thistlemere-sofc-chp', {}), 'thistlemere-sofc-chp');
+    const point = evaluateBasis(basis);
+    const layout = thistlemere.plant.electrical;
+    // One string of 10 stacks of 80 cells installs 800 cells, fewer than the demo's; the layout reader refuses it.
+    expect(layout.requiredCells).toBeGreaterThan(800);
+    const shortLayout = { ...layout, stringsInParallel: 1 } as unknown as Parameters<typeof casePlant>[2];
+    const got = casePlant(point, basis, shortLayout);
+    expect(got.plant).toBeNull();
+    expect(got.findings).toHaveLength(1);
+    expect(got.findings[0]!.code).toBe('case-plant-cannot-run');
+    expect(got.findings[0]!.severity).toBe('critical');
+    expect(got.findings[0]!.path).toMatch(/^plant\.electrical/);
   });
 });
 
