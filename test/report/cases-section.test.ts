@@ -36,6 +36,9 @@ function formula(id: string, n: Record<string, number>, power: boolean): number 
   if (id.endsWith('-cooling-air') || id.endsWith('-cooling-water')) return ((n.Q! * n.M!) / n.dh!) * 3600;
   if (id.endsWith('-steam-raising')) return (n.n! * (n.hl! + n.L! + n.hg!));
   if (id.endsWith('-delivered-heat')) return n.R! - n.D! - n.L!;
+  // A duty is the enthalpy change of its stream; the adiabatic oxidiser's products hold the reactants' enthalpy.
+  if (id.endsWith('-fuel-preheat') || id.endsWith('-air-preheat')) return n.Hout! - n.Hin!;
+  if (id.endsWith('-oxidiser-enthalpy')) return n.Hog! + n.Hox!;
   if (id.endsWith('-degradation')) return n.V0 !== undefined ? n.V0 * (1 + (power ? -1 : 1) * n.r! * n.t!) : n.R0! * (1 + n.r! * n.t!);
   if (id.endsWith('-cell-current')) return n.j! * n.A!;
   if (id.endsWith('-stack-power')) return (n.V! * n.I!) / 1000;
@@ -65,6 +68,7 @@ function resultOf(id: string, c: CaseResult): number {
   if (id.endsWith('-cooling-water')) return c.heat!.coolingWater_kg_per_h!;
   if (id.endsWith('-steam-raising')) return c.plant!.power!.steam!.duty_W / 1000;
   if (id.endsWith('-delivered-heat')) return c.plant!.power!.heatRecovery!.deliveredHeat_W / 1000;
+  if (id.endsWith('-fuel-preheat') || id.endsWith('-air-preheat')) return c.plant!.power!.duties.find((d) => id.endsWith(`-${d.id}`))!.duty_W / 1000;
   return NaN;
 }
 

@@ -346,6 +346,10 @@ const GOVERNING_LINES: Readonly<Record<string, readonly string[]>> = {
   'hydrogen-least': ['hydrogen'],
   'steam-raising': ['steam-raising'],
   'heat-delivered': ['delivered-heat'],
+  // Lines of the plant's duties and oxidiser (plant-lines.ts), where it writes them.
+  'fuel-preheat': ['fuel-preheat'],
+  'air-preheat': ['air-preheat'],
+  'oxidiser-temperature': ['oxidiser-enthalpy'],
 };
 
 /** The groups of section 6 whose lines read only the case's own sections (not the sizing case's fuel path). */
