@@ -16,7 +16,7 @@ import type { DesignBasis } from '../basis/types.ts';
 import { toolVersion } from '../core/version.ts';
 import { designInputs } from './design-inputs.ts';
 import { evaluateDesignPoint, type DesignPoint } from './design-point.ts';
-import { carbonMargin } from './carbon-margin.ts';
+import { carbonMargin, type CarbonLimits } from './carbon-margin.ts';
 import { currentDensitySweep, stackTemperatureSweep, steamToCarbonSweep, temperatureSweep } from './sweeps.ts';
 import { sensitivities } from './sensitivity.ts';
 import { hazardInput } from './hazard-streams.ts';
@@ -583,10 +583,12 @@ function calculateResults(basis: DesignBasis): Results {
   const sizingBasis = sizingCase?.basis ?? basis;
   const point = evaluateBasis(sizingBasis);
   const plant = locateCalculationErrors(sizingBasis, () => plantBalance(point, sizingBasis.plant));
-  const own = pointResults(point, sizingBasis, undefined, plant.findings);
+  // The least carbon-free S/C of a fuel at a temperature, found once for the sizing case and every case that shares it.
+  const limits: CarbonLimits = new Map();
+  const own = pointResults(point, sizingBasis, carbonMargin(point, limits), plant.findings);
   const findings = sizingCase ? caseFindings(own.findings, sizingCase) : own.findings;
   const plantResults = plantOf(plant);
-  const cases = basis.cases.length ? caseResults(basis.cases, point, { ...own, findings, plant: plantResults }, casePointResults(plant.electrical)) : [];
+  const cases = basis.cases.length ? caseResults(basis.cases, point, { ...own, findings, plant: plantResults }, casePointResults(plant.electrical), limits) : [];
   const inputs = point.inputs;
   const tech = inputs.technology;
   return {
