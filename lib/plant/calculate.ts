@@ -16,7 +16,7 @@ import type { DesignBasis } from '../basis/types.ts';
 import { toolVersion } from '../core/version.ts';
 import { designInputs } from './design-inputs.ts';
 import { evaluateDesignPoint, type DesignPoint } from './design-point.ts';
-import { carbonMargin } from './carbon-margin.ts';
+import { carbonMargin, type CarbonLimits } from './carbon-margin.ts';
 import { currentDensitySweep, stackTemperatureSweep, steamToCarbonSweep, temperatureSweep } from './sweeps.ts';
 import { sensitivities } from './sensitivity.ts';
 import { hazardInput } from './hazard-streams.ts';
@@ -27,6 +27,7 @@ import { finding, withAssumptions, type Finding } from './findings.ts';
 import { caseFindings, caseResults } from './cases.ts';
 import { envelopeOf } from './envelope.ts';
 import { plantBalance, type PlantBalance, type PowerPlantBalance } from './plant-balance.ts';
+import { BasisError } from '../basis/diagnostics.ts';
 
 const HOUR = 3600;
 
@@ -36,7 +37,7 @@ function energyOf(energy: PowerPlantBalance['energy']): NonNullable<Results['pla
 }
 
 /** The plant section of the results: the layout, the numbered streams and the power or electrolysis plant's balance. */
-function plantOf(b: PlantBalance): Results['plant'] {
+export function plantOf(b: PlantBalance): Results['plant'] {
   const e = b.electrical;
   const q = b.power;
   const x = b.electrolysis;
@@ -73,6 +74,7 @@ function plantOf(b: PlantBalance): Results['plant'] {
         liquidHeating_W: q.steam.liquidHeatingW,
         evaporation_W: q.steam.evaporationW,
         superheating_W: q.steam.superheatingW,
+        duty_W: q.steam.liquidHeatingW + q.steam.evaporationW + q.steam.superheatingW,
       },
       duties: q.duties.map((d) => ({ id: d.id, name: d.name, duty_W: d.dutyW, from_K: d.fromK, to_K: d.toK })),
       netDuty_W: q.netDutyW,
@@ -343,6 +345,7 @@ function operatingPointOf({ point, inputs, o2Consumed, o2Fed }: Computed): Resul
     totalActiveArea_m2: inputs.activeAreaM2 * point.sizing.cells,
     cellsFrom: point.sizing.from,
     parasiticFraction: inputs.parasiticFraction,
+    conversionEfficiency: inputs.conversionEfficiency,
     airUtilization: o2Consumed && o2Fed ? o2Consumed / o2Fed : null,
     airRatio: o2Consumed && o2Fed ? o2Fed / o2Consumed : null,
     oxygenConsumed_mol_per_s: o2Consumed,
@@ -478,13 +481,61 @@ function findingsOf({ point, inputs, carbon }: Computed, basis: DesignBasis, pla
   return withAssumptions(found, basis);
 }
 
+/**
+ * The plant of a case on the sizing case's hardware: its electrical layout fixed (the sizing
+ * case's cells per stack, stacks in series and strings in parallel, whether given or derived from
+ * the DC bus window), the plant blocks' design choices those of the basis, each block then
+ * balanced at the case's own flows and temperatures (plant-balance.ts). A case whose bus voltage
+ * leaves the DC bus window is a finding of the case; a case whose plant cannot be balanced (the
+ * off-gas too lean to burn, an exhaust that cannot reach its exit temperature...) keeps its stack
+ * results, its plant null, with the reason as a critical finding `case-plant-cannot-run`.
+ */
+export function casePlant(point: DesignPoint, basis: DesignBasis, layout: PlantBalance['electrical']): { plant: PlantBalance | null; findings: Finding[] } {
+  const window = basis.plant.electrical.busVoltageWindowV;
+  const electrical = { cellsPerStack: layout.cellsPerStack, stacksInSeries: layout.stacksInSeries, stringsInParallel: layout.stringsInParallel };
+  let plant: PlantBalance;
+  try {
+    const balanced = locateCalculationErrors(basis, () => plantBalance(point, { ...basis.plant, electrical }));
+    // The layout is the sizing case's: it says where that came from (given, or the bus window).
+    plant = { ...balanced, electrical: { ...balanced.electrical, stacksInSeriesFrom: layout.stacksInSeriesFrom, stringsInParallelFrom: layout.stringsInParallelFrom } };
+  } catch (error) {
+    if (!(error instanceof BasisError)) throw error;
+    const e = error.errors[0]!;
+    return { plant: null, findings: [finding('case-plant-cannot-run', 'critical', e.path, `the plant around the stack cannot be balanced at this case: ${error.errors.map((d) => d.message).join('; ')}`)] };
+  }
+  const findings = [...plant.findings];
+  const bus = plant.electrical.busVoltageV;
+  if (window && (bus < window.minV * (1 - 1e-12) || bus > window.maxV * (1 + 1e-12))) {
+    findings.push(
+      finding(
+        'dc-bus-outside-window',
+        'critical',
+        'plant.electrical.dc-bus-window',
+        `the DC bus voltage of this case, ${bus.toPrecision(4)} V (${layout.stacksInSeries} stacks in series of ${layout.cellsPerStack} cells at ${point.voltage.cellVoltageV.toPrecision(4)} V), lies outside the bus window ${window.minV} V to ${window.maxV} V`,
+        ['operating-point'],
+      ),
+    );
+  }
+  return { plant, findings };
+}
+
+/** A case's sections with its plant (casePlant), as cases.ts assembles them. */
+export type CasePointResults = PointResults & { plant: Results['plant'] | null };
+
+/** The sections of a case on the sizing case's layout: its point results and its plant. */
+export function casePointResults(layout: PlantBalance['electrical']) {
+  return (point: DesignPoint, basis: DesignBasis, carbon?: ReturnType<typeof carbonMargin>): CasePointResults => {
+    const own = casePlant(point, basis, layout);
+    return { ...pointResults(point, basis, carbon, own.findings), plant: own.plant && plantOf(own.plant) };
+  };
+}
+
 /** The sections of the results that every operating point has (the sizing case and every other case). */
 export type PointResults = Pick<Results, 'conditions' | 'headline' | 'electrochemistry' | 'operatingPoint' | 'streams' | 'efficiency' | 'heat' | 'carbon' | 'supply' | 'degradation' | 'findings'>;
 
 /**
  * The sections of one operating point; `carbon` is its carbon margin when already found (a case on
- * the same fuel gas); `plantFindings` those of the plant balance, which is built for the sizing
- * case only.
+ * the same fuel gas); `plantFindings` those of its plant balance.
  */
 export function pointResults(point: DesignPoint, basis: DesignBasis, carbon?: ReturnType<typeof carbonMargin>, plantFindings: readonly Finding[] = []): PointResults {
   const c = computed(point, carbon);
@@ -532,9 +583,12 @@ function calculateResults(basis: DesignBasis): Results {
   const sizingBasis = sizingCase?.basis ?? basis;
   const point = evaluateBasis(sizingBasis);
   const plant = locateCalculationErrors(sizingBasis, () => plantBalance(point, sizingBasis.plant));
-  const own = pointResults(point, sizingBasis, undefined, plant.findings);
+  // The least carbon-free S/C of a fuel at a temperature, found once for the sizing case and every case that shares it.
+  const limits: CarbonLimits = new Map();
+  const own = pointResults(point, sizingBasis, carbonMargin(point, limits), plant.findings);
   const findings = sizingCase ? caseFindings(own.findings, sizingCase) : own.findings;
-  const cases = basis.cases.length ? caseResults(basis.cases, point, { ...own, findings }, pointResults) : [];
+  const plantResults = plantOf(plant);
+  const cases = basis.cases.length ? caseResults(basis.cases, point, { ...own, findings, plant: plantResults }, casePointResults(plant.electrical), limits) : [];
   const inputs = point.inputs;
   const tech = inputs.technology;
   return {
@@ -577,7 +631,7 @@ function calculateResults(basis: DesignBasis): Results {
       steamToCarbon: steamToCarbonSweep(point),
     },
     sensitivities: sensitivities(point, basis.sensitivity),
-    plant: plantOf(plant),
+    plant: plantResults,
     hazards: assessHazards(hazardInput(sizingBasis, point, plant)),
     findings,
     cases,

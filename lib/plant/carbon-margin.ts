@@ -16,18 +16,34 @@ export type CarbonMargin = Results['carbon'] & {
   notReached: SteamLimitNotReached[];
 };
 
+/**
+ * The least carbon-free S/C of a dry fuel at a temperature and pressure, or why steam alone cannot
+ * reach it, by `JSON.stringify([dry, T, p])`. It depends on nothing else, so the operating cases
+ * of one basis share it (the same fuel at the same temperature in several cases): a root search
+ * of carbon activities, each a Gibbs minimisation, found once. Made per calculation, not kept.
+ */
+export type CarbonLimits = Map<string, number | SteamLimitNotReached>;
+
 /** The least carbon-free S/C at T, or null with the reason kept where steam alone cannot reach it. */
-function limitAt(dry: Readonly<Record<string, number>>, temperatureK: number, pressureBar: number, notReached: SteamLimitNotReached[]): number | null {
-  try {
-    return minimumSteamToCarbon(dry, temperatureK, pressureBar).minimumSteamToCarbon;
-  } catch (error) {
-    if (!(error instanceof SteamLimitNotReached)) throw error;
-    notReached.push(error);
-    return null;
+function limitAt(dry: Readonly<Record<string, number>>, temperatureK: number, pressureBar: number, notReached: SteamLimitNotReached[], limits: CarbonLimits): number | null {
+  const key = JSON.stringify([dry, temperatureK, pressureBar]);
+  let found = limits.get(key);
+  if (found === undefined) {
+    try {
+      found = minimumSteamToCarbon(dry, temperatureK, pressureBar).minimumSteamToCarbon;
+    } catch (error) {
+      if (!(error instanceof SteamLimitNotReached)) throw error;
+      found = error;
+    }
+    limits.set(key, found);
   }
+  if (typeof found === 'number') return found;
+  notReached.push(found);
+  return null;
 }
 
-export function carbonMargin(point: DesignPoint): CarbonMargin {
+/** The carbon margin of the point; `limits` holds the least S/C already found for a fuel, temperature and pressure (and takes the new ones). */
+export function carbonMargin(point: DesignPoint, limits: CarbonLimits = new Map()): CarbonMargin {
   const inputs = point.inputs;
   const dry = inputs.mode === 'power' ? inputs.dryFuel : null;
   const none = { steamToCarbon: null, minimumSteamToCarbonStack: null, minimumSteamToCarbonPreReformer: null, preReformerCarbonActivity: null, inletCarbonActivity: null, maxCarbonActivity: null, minimum: null, margin: null, notReached: [] };
@@ -36,10 +52,10 @@ export function carbonMargin(point: DesignPoint): CarbonMargin {
     return pathHasCarbon ? { ...none, maxCarbonActivity: point.path.maxCarbonActivity, inletCarbonActivity: point.path.points[0]!.carbonActivity } : none;
   }
   const notReached: SteamLimitNotReached[] = [];
-  const stack = limitAt(dry, inputs.temperatureK, inputs.fuelPressureBar, notReached);
+  const stack = limitAt(dry, inputs.temperatureK, inputs.fuelPressureBar, notReached, limits);
   // The pre-reformer's outlet temperature: stated, or solved for an adiabatic one.
   const preT = point.unit.preReformer?.outletTemperatureK ?? null;
-  const pre = preT === null ? null : limitAt(dry, preT, inputs.fuelPressureBar, notReached);
+  const pre = preT === null ? null : limitAt(dry, preT, inputs.fuelPressureBar, notReached, limits);
   // No margin where a limit is out of reach: the finding of the calculation says why.
   const minimum = notReached.length ? null : Math.max(stack!, pre ?? 0);
   const preActivity = preT === null ? null : equilibriumCarbonActivity(point.unit.preReformer!.feed, preT, inputs.fuelPressureBar);

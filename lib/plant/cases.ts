@@ -15,25 +15,28 @@
  *
  * So each case's results are exactly those of a basis written with the case's values, the
  * sizing case's cell count, active area and resistance, and that current density (the tests
- * check this). A case that cannot run there (no current density meets its target, a voltage
+ * check this). Its plant (calculate.ts casePlant) is that basis's plant with the sizing case's
+ * electrical layout (cells per stack, stacks in series, strings in parallel) given. A case that cannot run there (no current density meets its target, a voltage
  * beyond the reversible limit, a fuel that cannot reach its utilization) is a critical finding
  * of that case, `case-cannot-run`, with its figures null; the basis still calculates.
  *
  * Cases that share the fuel gas (the same feeds, utilization, temperature and pressures) share
- * its fuel path and carbon margin, which do not depend on the load or the resistance: they are
- * evaluated once and reused, which gives the same numbers as evaluating them again.
+ * its fuel path and carbon margin, which do not depend on the load or the resistance, and cases
+ * on the same dry fuel at the same temperature and pressure (the sizing case among them) share
+ * its least carbon-free steam-to-carbon ratio, whatever their air side: each is evaluated once and
+ * reused, which gives the same numbers as evaluating it again.
  */
 import type { DesignBasis, OperatingCase } from '../basis/types.ts';
 import { BasisError } from '../basis/diagnostics.ts';
 import { UserError } from '../core/errors.ts';
 import { designInputs, type DesignInputs } from './design-inputs.ts';
 import { cellVoltageOf, evaluateDesignPoint, unitStage, type DesignPoint, type UnitStage } from './design-point.ts';
-import { carbonMargin } from './carbon-margin.ts';
+import { carbonMargin, type CarbonLimits } from './carbon-margin.ts';
 import { currentDensityForTarget } from './case-load.ts';
 import { locateCalculationErrors } from './located-error.ts';
 import { finding, withAssumptions, type Finding } from './findings.ts';
 import type { CaseResult } from './results-schema.ts';
-import type { PointResults } from './calculate.ts';
+import type { CasePointResults } from './calculate.ts';
 
 /** The hardware the sizing case fixes. */
 export interface Hardware {
@@ -127,14 +130,14 @@ function curveOf(point: DesignPoint, efficiency: number, jMax: number): CaseResu
   return out;
 }
 
-function efficiencyOf(results: PointResults): number {
+function efficiencyOf(results: CasePointResults): number {
   return results.efficiency.electricalEfficiencyLhvNet ?? results.efficiency.electrolysisEfficiencyLhv!;
 }
 
 /** The case's figures, or nulls where it cannot run. */
 type Figures = Omit<CaseResult, 'id' | 'title' | 'purpose' | 'sizing' | 'load' | 'overrides' | 'curve'> & { point: DesignPoint | null };
 
-function ranFigures(results: PointResults, point: DesignPoint, resistance: CaseResult['resistance']): Figures {
+function ranFigures(results: CasePointResults, point: DesignPoint, resistance: CaseResult['resistance']): Figures {
   return { ran: true, resistance, ...results, point };
 }
 
@@ -153,24 +156,26 @@ function notRun(c: OperatingCase, path: string, message: string): Figures {
     carbon: null,
     supply: null,
     degradation: null,
+    plant: null,
     findings: placed,
     point: null,
   };
 }
 
-type Assemble = (point: DesignPoint, basis: DesignBasis, carbon?: ReturnType<typeof carbonMargin>) => PointResults;
+type Assemble = (point: DesignPoint, basis: DesignBasis, carbon?: ReturnType<typeof carbonMargin>) => CasePointResults;
 
 /**
  * Every case of the basis, in its order: the sizing case from its evaluated point and results,
  * every other case on its hardware. `assemble` makes the sections of a point's results
- * (calculate.ts pointResults).
+ * (calculate.ts casePointResults); `limits` the least carbon-free steam-to-carbon ratios already
+ * found (the sizing case's), which the cases share and add to.
  */
-export function caseResults(cases: readonly OperatingCase[], sizing: DesignPoint, sizingResults: PointResults, assemble: Assemble): CaseResult[] {
+export function caseResults(cases: readonly OperatingCase[], sizing: DesignPoint, sizingResults: CasePointResults, assemble: Assemble, limits: CarbonLimits = new Map()): CaseResult[] {
   const hardware = hardwareOf(sizing);
   const stages = new Map<string, UnitStage>([[stageKey(sizing.inputs), { unit: sizing.unit, path: sizing.path }]]);
   const carbons = new Map<string, ReturnType<typeof carbonMargin>>();
   const sizingResistance = { from: 'case' as const, beginningOfLife_ohm_m2: hardware.resistanceOhmM2, referenceTemperature_K: hardware.temperatureK };
-  const figures = cases.map((c): Figures => (c.sizing ? ranFigures(sizingResults, sizing, sizingResistance) : runCase(c, hardware, stages, carbons, assemble)));
+  const figures = cases.map((c): Figures => (c.sizing ? ranFigures(sizingResults, sizing, sizingResistance) : runCase(c, hardware, stages, carbons, limits, assemble)));
   // The curves span the current densities of all the cases that ran, a quarter beyond the highest.
   const jMax = 1.25 * Math.max(...figures.map((f) => f.operatingPoint?.currentDensity_A_per_m2 ?? 0));
   return cases.map((c, k) => {
@@ -183,12 +188,12 @@ export function caseResults(cases: readonly OperatingCase[], sizing: DesignPoint
       load: c.load,
       overrides: c.overrides.map((o) => ({ path: o.path, text: o.text, source: o.source ?? null })),
       ...f,
-      curve: point && f.ran ? curveOf(point, efficiencyOf(f as PointResults), jMax) : [],
+      curve: point && f.ran ? curveOf(point, efficiencyOf(f as CasePointResults), jMax) : [],
     };
   });
 }
 
-function runCase(c: OperatingCase, hardware: Hardware, stages: Map<string, UnitStage>, carbons: Map<string, ReturnType<typeof carbonMargin>>, assemble: Assemble): Figures {
+function runCase(c: OperatingCase, hardware: Hardware, stages: Map<string, UnitStage>, carbons: Map<string, ReturnType<typeof carbonMargin>>, limits: CarbonLimits, assemble: Assemble): Figures {
   let inputs = caseInputs(c, hardware);
   const resistance: CaseResult['resistance'] = ownResistance(c)
     ? null
@@ -219,7 +224,7 @@ function runCase(c: OperatingCase, hardware: Hardware, stages: Map<string, UnitS
   const key = carbonKey(inputs);
   let carbon = carbons.get(key);
   if (!carbon) {
-    carbon = carbonMargin(point);
+    carbon = carbonMargin(point, limits);
     carbons.set(key, carbon);
   }
   const results = assemble(point, c.basis, carbon);

@@ -5,7 +5,9 @@
  *
  *   value = max_k x_k  (or min_k x_k),  case = the first k that reaches it,
  *
- * where x_k is the case's number at the path (null where it does not apply). On values equal to
+ * where x_k is the case's number at the path (null where it does not apply). A path is dotted
+ * keys; a key written name[id] takes, from the array at name, the element whose id is id (the
+ * plant's duties: plant.power.duties[air-preheat].duty_W). On values equal to
  * rounding (within 1e-12 of each other, relative) the earlier case in the order of the basis
  * governs, the sizing case first. A quantity null in every case is left out. Pure: a layer above
  * that adds sections to the cases (the plant balance) calls it again with its own rows.
@@ -17,7 +19,7 @@ import { resultsSchema, type CaseResult, type EnvelopeRow } from './results-sche
 const quantitySchema = z.strictObject({
   id: z.string().regex(/^[a-z][a-z0-9-]*$/),
   quantity: z.string().min(1),
-  path: z.string().regex(/^[A-Za-z_0-9]+(\.[A-Za-z_0-9]+)+$/),
+  path: z.string().regex(/^[A-Za-z_0-9]+(\.[A-Za-z_0-9]+(\[[a-z][a-z0-9-]*\])?)+$/),
   unit: z.string(),
   governs: z.enum(['max', 'min']),
   sizes: z.string().min(1),
@@ -25,15 +27,30 @@ const quantitySchema = z.strictObject({
 
 export type EnvelopeQuantity = z.infer<typeof quantitySchema>;
 
+/** A key of a path: its name and, for name[id], the id of the array element it takes. */
+function keyOf(segment: string): { name: string; id: string | null } {
+  const m = /^([^[]+)(?:\[([^\]]+)\])?$/.exec(segment)!;
+  return { name: m[1]!, id: m[2] ?? null };
+}
+
 /** The schema a dotted path names in the results of a case, or null where it names none. */
 function schemaAt(path: string): z.ZodType | null {
   let current: z.ZodType = resultsSchema.shape.cases.element;
-  for (const key of path.split('.')) {
+  const unwrap = () => {
     while (current instanceof z.ZodNullable || current instanceof z.ZodOptional) current = current.unwrap() as z.ZodType;
+  };
+  for (const segment of path.split('.')) {
+    const { name, id } = keyOf(segment);
+    unwrap();
     if (!(current instanceof z.ZodObject)) return null;
-    const next = (current.shape as Record<string, z.ZodType>)[key];
+    const next = (current.shape as Record<string, z.ZodType>)[name];
     if (!next) return null;
     current = next;
+    if (id !== null) {
+      unwrap();
+      if (!(current instanceof z.ZodArray)) return null;
+      current = current.element as z.ZodType;
+    }
   }
   return current;
 }
@@ -60,9 +77,11 @@ export const ENVELOPE_QUANTITIES: readonly EnvelopeQuantity[] = (() => {
 /** The number at a dotted path of a case's results, or null. */
 export function valueAt(result: unknown, path: string): number | null {
   let current = result;
-  for (const key of path.split('.')) {
+  for (const segment of path.split('.')) {
+    const { name, id } = keyOf(segment);
     if (current === null || typeof current !== 'object') return null;
-    current = (current as Record<string, unknown>)[key];
+    current = (current as Record<string, unknown>)[name];
+    if (id !== null) current = Array.isArray(current) ? current.find((item: unknown) => (item as { id?: unknown } | null)?.id === id) : undefined;
   }
   return typeof current === 'number' ? current : null;
 }

@@ -112,6 +112,7 @@ const powerPlantSchema = z
         liquidHeating_W: num('feed water heated to saturation'),
         evaporation_W: num('feed water evaporated at saturation'),
         superheating_W: num('steam heated from saturation to the mixing temperature'),
+        duty_W: num('the steam raising duty: liquid heating + evaporation + superheating'),
       })
       .nullable()
       .describe('steam raising; null without steam addition'),
@@ -360,6 +361,7 @@ const designResultsSchema = z
       totalActiveArea_m2: num('cells × active area'),
       cellsFrom: z.enum(['cells', 'power', 'hydrogen']).describe('what set the cell count'),
       parasiticFraction: num('balance-of-plant share of the gross DC output (power mode)'),
+      conversionEfficiency: num('η of the power conversion: inverter (power mode, P_AC = η P_DC) or rectifier (electrolysis, P_AC = P_DC / η)'),
       airUtilization: nullableNum('O2 consumed / O2 fed (power mode)'),
       airRatio: nullableNum('O2 fed / O2 consumed (power mode)'),
       oxygenConsumed_mol_per_s: nullableNum('power mode: I/4F'),
@@ -527,6 +529,9 @@ const caseResultSchema = z
     carbon: point.carbon.nullable(),
     supply: supplySchema.nullable(),
     degradation: degradationSchema,
+    plant: plantSchema
+      .nullable()
+      .describe('the plant around the stack at this case, on the sizing case\'s electrical layout (cells per stack, stacks in series, strings in parallel) with the plant blocks of the basis; null where the case cannot run or its plant cannot be balanced (a finding says why)'),
     findings: z.array(findingSchema),
     curve: z
       .array(

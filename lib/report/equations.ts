@@ -495,15 +495,42 @@ function plantEquations(r: Results): EquationEntry[] {
 function caseEquations(r: Results): EquationEntry[] {
   const out: EquationEntry[] = [];
   const power = r.technology.mode === 'power';
-  const [N, j, A, V, f, M] = ['N', 'j', 'A', 'V', 'f_\\mathrm{par}', 'M_\\mathrm{H_2}'].map((s) => sym(s)) as Symbol[];
+  const [N, j, A, V, f, M, eta] = ['N', 'j', 'A', 'V', 'f_\\mathrm{par}', 'M_\\mathrm{H_2}', '\\eta_\\mathrm{conv}'].map((s) => sym(s)) as Symbol[];
   if (r.cases.some((c) => c.load === 'target-power' || c.load === 'target-hydrogen')) {
+    // The plant's AC power per unit of stack DC power (design-point.ts plantPowerShare): η − f delivered, 1/η + f drawn.
     const relations: Record<string, Relation> = power
-      ? { power: { lhs: sym('P_\\mathrm{net}'), symbols: { N: N!, j: j!, A: A!, V: V!, f: f! }, rhs: (q, op) => `${q.N}${op.times}${q.j}${op.times}${q.A}${op.times}${q.V}${op.times}(1 - ${q.f})` } }
+      ? { power: { lhs: sym('P_\\mathrm{net}'), symbols: { N: N!, j: j!, A: A!, V: V!, eta: eta!, f: f! }, rhs: (q, op) => `${q.N}${op.times}${q.j}${op.times}${q.A}${op.times}${q.V}${op.times}${op.open}${q.eta} - ${q.f}${op.close}` } }
       : {
-          power: { lhs: sym('P'), symbols: { N: N!, j: j!, A: A!, V: V! }, rhs: (q, op) => `${q.N}${op.times}${q.j}${op.times}${q.A}${op.times}${q.V}` },
+          power: { lhs: sym('P_\\mathrm{in}'), symbols: { N: N!, j: j!, A: A!, V: V!, eta: eta!, f: f! }, rhs: (q, op) => `${q.N}${op.times}${q.j}${op.times}${q.A}${op.times}${q.V}${op.times}${op.open}\\frac{1}{${q.eta}} + ${q.f}${op.close}` },
           hydrogen: { lhs: sym('\\dot m_\\mathrm{H_2}'), symbols: { N: N!, j: j!, A: A!, M: M!, F }, rhs: (q, op) => `\\frac{${q.N}${op.times}${q.j}${op.times}${q.A}${op.times}${q.M}}{2${op.times}${q.F}}` },
         };
     out.push(entry('case-load', relations));
+  }
+  if (r.cases.length) {
+    const governed = (id: string) => r.envelope.some((e) => e.id === id);
+    if (governed('dc-power')) {
+      out.push(entry('case-bus-power', { power: { lhs: sym('P_\\mathrm{DC}'), symbols: { Vbus: sym('V_\\mathrm{bus}'), Ibus: sym('I_\\mathrm{bus}') }, rhs: (q, op) => `${q.Vbus}${op.times}${q.Ibus}` } }));
+    }
+    if (governed('water-flow')) {
+      const Mw = sym('M_\\mathrm{H_2O}');
+      out.push(
+        entry(
+          'case-water',
+          power
+            ? { steam: { lhs: sym('\\dot m_\\mathrm{w}'), symbols: { n: sym('\\dot n_\\mathrm{feed}'), x: sym('x_\\mathrm{H_2O}'), xd: sym('x_\\mathrm{d}'), M: Mw }, rhs: (q, op) => `${q.n}${op.times}\\frac{${q.x} - ${q.xd}}{1 - ${q.xd}}${op.times}${q.M}` } }
+            : { water: { lhs: sym('\\dot m_\\mathrm{w}'), symbols: { n: sym('\\dot n_\\mathrm{w}'), M: Mw }, rhs: (q, op) => `${q.n}${op.times}${q.M}` } },
+        ),
+      );
+    }
+    if (governed('cooling-air') || governed('cooling-water')) {
+      out.push(
+        entry(
+          'case-coolant',
+          { mass: { lhs: sym('\\dot m_\\mathrm{c}'), symbols: { Q: sym('Q'), M: sym('M_\\mathrm{c}'), dh: sym('\\Delta h_\\mathrm{c}') }, rhs: (q, op) => `\\frac{${q.Q}${op.times}${q.M}}{${q.dh}}` } },
+          (show) => `${show('mass')}, \\qquad \\Delta h_\\mathrm{c} = \\sum_i x_i \\left[h^\\circ_i(T) - h^\\circ_i(T - \\Delta T)\\right]`,
+        ),
+      );
+    }
   }
   if (r.degradation || r.cases.some((c) => c.degradation)) {
     const [V0, rate, t, R0] = [sym('V_0'), sym('r'), sym('t'), sym('\\mathrm{ASR}_0')];

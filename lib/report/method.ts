@@ -362,6 +362,23 @@ function cases(step: Step, r: Results, table: ReadonlyMap<string, EquationEntry>
       )
       .eq('case-load');
   }
+  if (table.has('case-bus-power')) {
+    step.text('The DC power at the bus of a case is that of the sizing case\'s layout carrying the case\'s cell voltage and current:').eq('case-bus-power');
+  }
+  if (table.has('case-water')) {
+    step
+      .text(
+        r.technology.mode === 'power'
+          ? 'The water a case raises to steam is the steam added to its dry fuel: with $x_\\mathrm{H_2O}$ the steam\'s mole fraction in the fuel feed of $\\dot n_\\mathrm{feed}$ and $x_\\mathrm{d}$ the water\'s mole fraction in the dry fuel,'
+          : 'The water a case feeds is the water, vapour and liquid, of the water electrode\'s inlet:',
+      )
+      .eq('case-water');
+  }
+  if (table.has('case-coolant')) {
+    step
+      .text('The coolant of a case (air, or the water loop) takes up the stack heat $Q$ warming by the allowed rise $\\Delta T$ to the stack temperature $T$; with $M_\\mathrm{c}$ its molar mass and $x_i$ its mole fractions,')
+      .eq('case-coolant');
+  }
   if (table.has('degradation')) {
     step
       .text('At the end of life the cell voltage (at the same current density) or the area-specific resistance has changed in proportion to the operating time $t$ at the stated rate $r$, a linear law (common practice, no source):')

@@ -6,7 +6,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { parseDocument } from 'yaml';
-import { calculate } from '../../lib/plant/calculate.ts';
+import { calculate, casePlant, evaluateBasis } from '../../lib/plant/calculate.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
 import type { DesignBasis } from '../../lib/basis/types.ts';
 import type { CaseResult, Results } from '../../lib/plant/results-schema.ts';
@@ -82,19 +82,50 @@ describe('each case equals a basis of its own on the sizing case\'s hardware', (
       ),
     );
 
+  /** The values each case of the CHP demo overrides, as a basis of its own writes them. */
+  const thistlemereEdits: Record<string, Record<string, unknown>> = {
+    turndown: {},
+    'end-of-life': {
+      'operating-point.degradation': { rate: { value: '0.3 %/kh', source: 'R3' }, of: 'cell-voltage', 'operating-time': { value: '40000 h', source: 'R5' } },
+      'operating-point.air-utilization': { value: 0.12, source: 'test' },
+    },
+    'winter-gas': { 'streams.fuel-electrode.composition': 'winter-gas' },
+  };
+
   it.each(['turndown', 'end-of-life', 'winter-gas'])('thistlemere-sofc-chp, case %s', (id) => {
     const c = caseOf(thistlemere, id);
     expect(c.ran).toBe(true);
-    const edits: Record<string, Record<string, unknown>> = {
-      turndown: {},
-      'end-of-life': {
-        'operating-point.degradation': { rate: { value: '0.3 %/kh', source: 'R3' }, of: 'cell-voltage', 'operating-time': { value: '40000 h', source: 'R5' } },
-        'operating-point.air-utilization': { value: 0.12, source: 'test' },
-      },
-      'winter-gas': { 'streams.fuel-electrode.composition': 'winter-gas' },
-    };
-    const own = separate(thistlemere, c, 'thistlemere-sofc-chp', edits[id]!);
+    const own = separate(thistlemere, c, 'thistlemere-sofc-chp', thistlemereEdits[id]!);
     for (const s of sections) expectSameNumbers(c[s], own[s], SAME, `${id}.${s}`);
+  });
+
+  // The plant of a case runs on the sizing case's electrical layout: the separate basis states
+  // that layout (cells per stack, stacks in series, strings in parallel) where the demo derives
+  // it from its DC bus window, and the case's values; its whole plant section (layout, numbered
+  // streams, duties, oxidiser, heat recovery, CHP, energy balance) must then be the case's.
+  it.each(['turndown', 'end-of-life', 'winter-gas'])('thistlemere-sofc-chp, case %s: its plant is that of the separate basis on the sizing layout', (id) => {
+    const c = caseOf(thistlemere, id);
+    const layout = thistlemere.plant.electrical;
+    expect(layout.stacksInSeriesFrom).toBe('bus-voltage-window');
+    const own = separate(thistlemere, c, 'thistlemere-sofc-chp', {
+      ...thistlemereEdits[id]!,
+      'plant.electrical': { 'cells-per-stack': layout.cellsPerStack, 'stacks-in-series': layout.stacksInSeries, 'strings-in-parallel': layout.stringsInParallel },
+    });
+    expect(c.plant).not.toBeNull();
+    expect(c.plant!.power).not.toBeNull();
+    expectSameNumbers(c.plant, { ...own.plant, electrical: { ...own.plant.electrical, stacksInSeriesFrom: 'bus-voltage-window', stringsInParallelFrom: layout.stringsInParallelFrom } }, SAME, `${id}.plant`);
+    // The case's own current: the bus carries the strings' currents, each the case's cell current (Kirchhoff).
+    expect(c.plant!.electrical.busCurrent_A).toBeCloseTo(layout.stringsInParallel * c.headline!.cellCurrent_A, 9);
+  });
+
+  it('a case whose bus voltage leaves the DC bus window is a critical finding of that case, not a failure of the basis (end of life: 10 stacks of 80 cells below 600 V)', () => {
+    const c = caseOf(thistlemere, 'end-of-life');
+    const bus = c.plant!.electrical.busVoltage_V;
+    // Series voltages add (Kirchhoff): 10 × 80 × V_cell.
+    expect(bus).toBeCloseTo(10 * 80 * c.headline!.cellVoltage_V, 9);
+    expect(bus).toBeLessThan(600);
+    expect(c.findings.find((f) => f.code === 'dc-bus-outside-window')?.severity).toBe('critical');
+    expect(caseOf(thistlemere, 'rated').findings.some((f) => f.code === 'dc-bus-outside-window')).toBe(false);
   });
 
   it.each(['turndown', 'end-of-life'])('kestrelford-pem-electrolyser, case %s (the sizing case gives a voltage: the hardware is the resistance it implies)', (id) => {
@@ -107,6 +138,9 @@ describe('each case equals a basis of its own on the sizing case\'s hardware', (
     if (id === 'end-of-life') edits['operating-point.degradation'] = { rate: { value: '0.2 %/kh', source: 'R2' }, of: 'cell-voltage', 'operating-time': { value: '60000 h', source: 'R2' } };
     const own = separate(kestrelford, c, 'kestrelford-pem-electrolyser', edits);
     for (const s of sections) expectSameNumbers(c[s], own[s], SAME, `${id}.${s}`);
+    // Its plant (the layout and the stack's streams in electrolysis) on the sizing layout.
+    expectSameNumbers(c.plant!.electrical, { ...own.plant.electrical, stacksInSeriesFrom: kestrelford.plant.electrical.stacksInSeriesFrom, stringsInParallelFrom: kestrelford.plant.electrical.stringsInParallelFrom }, SAME, `${id}.plant.electrical`);
+    expectSameNumbers(c.plant!.streams, own.plant.streams, SAME, `${id}.plant.streams`);
   });
 
   it('the sizing case is the top level', () => {
@@ -254,6 +288,23 @@ describe('the envelope', () => {
   it('every quantity of lib/plant/data/envelope.yaml names a number of a case\'s results (checked at load)', () => {
     const ids = ENVELOPE_QUANTITIES.map((q) => q.id);
     for (const wanted of ['air-flow', 'fuel-flow', 'water-flow', 'stack-heat', 'dc-current', 'dc-voltage-highest', 'dc-voltage-lowest', 'carbon-margin', 'cell-voltage-lowest', 'hydrogen-most', 'hydrogen-least']) expect(ids).toContain(wanted);
+  });
+});
+
+describe('a case whose plant cannot be balanced keeps its stack results, with a finding', () => {
+  it('a layout that installs fewer cells than the case needs: critical case-plant-cannot-run at plant.electrical, plant null, no throw', () => {
+    const basis = load(demoText('thistlemere-sofc-chp', {}), 'thistlemere-sofc-chp');
+    const point = evaluateBasis(basis);
+    const layout = thistlemere.plant.electrical;
+    // One string of 10 stacks of 80 cells installs 800 cells, fewer than the demo's; the layout reader refuses it.
+    expect(layout.requiredCells).toBeGreaterThan(800);
+    const shortLayout = { ...layout, stringsInParallel: 1 } as unknown as Parameters<typeof casePlant>[2];
+    const got = casePlant(point, basis, shortLayout);
+    expect(got.plant).toBeNull();
+    expect(got.findings).toHaveLength(1);
+    expect(got.findings[0]!.code).toBe('case-plant-cannot-run');
+    expect(got.findings[0]!.severity).toBe('critical');
+    expect(got.findings[0]!.path).toMatch(/^plant\.electrical/);
   });
 });
 

@@ -4,11 +4,15 @@
  * value marked in words; the envelope, each sizing quantity with its governing value and the case
  * that sets it; and the worked lines of each case that is not the sizing case (the load it meets,
  * its degradation, and the lines of every value it governs). The sizing case's own lines are
- * those of the results section.
+ * those of the results section, with here those of its governing values that section has not
+ * (the DC power at the bus, the water fed, the coolant).
  */
 import type { DesignBasis } from '../../basis/types.ts';
 import type { CaseResult, EnvelopeRow, Results } from '../../plant/results-schema.ts';
 import { getSpecies } from '../../thermo/species-data.ts';
+import { valueAt } from '../../plant/envelope.ts';
+import { technology } from '../../electrochem/technologies.ts';
+import { enthalpyFlowW, massFlowKgPerS } from '../../plant/streams.ts';
 import { calcLine, type LineSpec } from '../calc-line.ts';
 import type { EquationBook } from '../equation-book.ts';
 import { formatNumber } from '../format.ts';
@@ -46,9 +50,10 @@ interface Shown {
 export const CASE_ROWS: readonly Shown[] = [
   { path: 'operatingPoint.currentDensity_A_per_m2', si: 'A/m2', label: 'Current density', factor: 1e-4, unit: 'A/cm²' },
   { path: 'headline.cellVoltage_V', si: 'V', label: 'Cell voltage', factor: 1, unit: 'V' },
-  { path: 'headline.stackVoltage_V', si: 'V', label: 'Series voltage of all cells (N × V; not a terminal voltage)', factor: 1, unit: 'V' },
-  { path: 'headline.cellCurrent_A', si: 'A', label: 'Cell current (that of one stack and one string)', factor: 1, unit: 'A' },
-  { path: 'headline.stackPower_W', si: 'W', label: 'Stack DC power', factor: 1e-3, unit: 'kW' },
+  { path: 'plant.electrical.busVoltage_V', si: 'V', label: 'DC bus voltage (that of one string)', factor: 1, unit: 'V' },
+  { path: 'plant.electrical.stringCurrent_A', si: 'A', label: 'String current (that of one stack and one cell)', factor: 1, unit: 'A' },
+  { path: 'plant.electrical.busCurrent_A', si: 'A', label: 'DC bus current (the strings in parallel)', factor: 1, unit: 'A' },
+  { path: 'plant.electrical.dcPower_W', si: 'W', label: 'DC power at the bus', factor: 1e-3, unit: 'kW' },
   { path: 'headline.netPower_W', si: 'W', label: 'Net power', factor: 1e-3, unit: 'kW', mode: 'power' },
   { path: 'headline.hydrogenProduction_kg_per_h', si: 'kg/h', label: 'Hydrogen production', factor: 1, unit: 'kg/h' },
   { path: 'headline.electricalEfficiencyLhv', si: '', label: 'Net electrical efficiency, LHV', factor: 100, unit: '%' },
@@ -63,15 +68,19 @@ export const CASE_ROWS: readonly Shown[] = [
   { path: 'heat.coolingWater_kg_per_h', si: 'kg/h', label: 'Water loop to carry the stack heat', factor: 1, unit: 'kg/h' },
   { path: 'headline.maxLocalCurrentDensity_A_per_m2', si: 'A/m2', label: 'Highest local current density', factor: 1e-4, unit: 'A/cm²' },
   { path: 'headline.carbonMargin', si: '', label: 'Carbon margin (S/C above the least carbon-free)', factor: 1, unit: '' },
+  { path: 'plant.power.oxidiser.outletTemperature_K', si: 'K', label: 'Off-gas oxidiser outlet temperature', factor: 1, unit: 'K' },
+  { path: 'plant.power.steam.duty_W', si: 'W', label: 'Steam raising duty', factor: 1e-3, unit: 'kW' },
+  { path: 'plant.power.duties[pre-reformer].duty_W', si: 'W', label: 'Pre-reformer duty', factor: 1e-3, unit: 'kW' },
+  { path: 'plant.power.duties[fuel-preheat].duty_W', si: 'W', label: 'Fuel preheat duty', factor: 1e-3, unit: 'kW' },
+  { path: 'plant.power.duties[reformed-gas-heating].duty_W', si: 'W', label: 'Reformed-gas heating duty', factor: 1e-3, unit: 'kW' },
+  { path: 'plant.power.duties[air-preheat].duty_W', si: 'W', label: 'Air preheat duty', factor: 1e-3, unit: 'kW' },
+  { path: 'plant.power.heatRecovery.heatWithCondensation_W', si: 'W', label: 'Heat recovered from the exhaust', factor: 1e-3, unit: 'kW' },
+  { path: 'plant.power.heatRecovery.deliveredHeat_W', si: 'W', label: 'Heat delivered', factor: 1e-3, unit: 'kW' },
   { path: 'degradation.fraction', si: '', label: 'Degradation r t', factor: 100, unit: '%' },
 ];
 
-/** The number at a dotted path of a case's results, or null. */
-function at(c: unknown, path: string): number | null {
-  let v = c;
-  for (const key of path.split('.')) v = v !== null && typeof v === 'object' ? (v as Record<string, unknown>)[key] : undefined;
-  return typeof v === 'number' ? v : null;
-}
+/** The number at a path of a case's results (envelope.ts), or null. */
+const at = valueAt;
 
 function shownValue(row: Shown, x: number): string {
   return `${formatNumber(x * row.factor, row.digits ?? 4)}${row.unit ? ` ${row.unit}` : ''}`;
@@ -167,6 +176,7 @@ function asResults(r: Results, c: CaseResult): Results {
     carbon: c.carbon!,
     supply: c.supply!,
     degradation: c.degradation,
+    plant: c.plant ?? r.plant,
     findings: c.findings,
   };
 }
@@ -199,19 +209,96 @@ function loadLine(r: Results, c: CaseResult): LineSpec | null {
     };
   }
   const V = { name: 'V', value: h.cellVoltage_V, unit: 'V', origin: 'cell voltage of the case at j' };
-  return r.technology.mode === 'power'
-    ? {
-        id,
-        title: `Case ${c.id}: net power of the sizing cells at the solved current density`,
-        equation: 'case-load',
-        relation: 'power',
-        quantities: [...common, V, { name: 'f', value: o.parasiticFraction, unit: '', origin: 'parasitic load, design input' }],
-        conversion: ' \\times 10^{-3}',
-        value: h.netPower_W! / 1000,
-        unit: 'kW',
-        note: 'equal to the target of the case: the current density is the root of this relation',
-      }
-    : { id, title: `Case ${c.id}: power input of the sizing cells at the solved current density`, equation: 'case-load', relation: 'power', quantities: [...common, V], conversion: ' \\times 10^{-3}', value: h.stackPower_W / 1000, unit: 'kW' };
+  const eta = { name: 'eta', value: o.conversionEfficiency, unit: '', origin: `power-conversion efficiency (${r.technology.mode === 'power' ? 'inverter' : 'rectifier'}), design input` };
+  const f = { name: 'f', value: o.parasiticFraction, unit: '', origin: 'parasitic load, design input' };
+  const power = r.technology.mode === 'power';
+  return {
+    id,
+    title: `Case ${c.id}: ${power ? 'net power' : 'power input'} of the sizing cells at the solved current density`,
+    equation: 'case-load',
+    relation: 'power',
+    quantities: [...common, V, eta, f],
+    conversion: ' \\times 10^{-3}',
+    // netPower_W: power mode, what the plant delivers; electrolysis, what it draws (design-point.ts plantPowerShare).
+    value: h.netPower_W / 1000,
+    unit: 'kW',
+    note: 'equal to the target of the case: the current density is the root of this relation',
+  };
+}
+
+/** The DC power at the bus of a case (the sizing layout at the case's cell voltage and current). */
+function busPowerLine(c: CaseResult): LineSpec | null {
+  const e = c.plant?.electrical;
+  if (!e) return null;
+  return {
+    id: `case-${c.id}-dc-power`,
+    title: `Case ${c.id}: DC power at the bus`,
+    equation: 'case-bus-power',
+    relation: 'power',
+    quantities: [
+      { name: 'Vbus', value: e.busVoltage_V, unit: 'V', origin: `bus voltage: ${e.stacksInSeries} stacks in series of ${e.cellsPerStack} cells at the case's cell voltage` },
+      { name: 'Ibus', value: e.busCurrent_A, unit: 'A', origin: `bus current: ${e.stringsInParallel} strings at the case's cell current` },
+    ],
+    conversion: ' \\times 10^{-3}',
+    value: e.dcPower_W / 1000,
+    unit: 'kW',
+  };
+}
+
+/** The water a case feeds: power mode, the steam added to its dry fuel; electrolysis, the water of the water electrode's inlet. */
+function waterLine(r: Results, basis: DesignBasis, c: CaseResult): LineSpec | null {
+  const water = c.supply?.water_kg_per_h ?? null;
+  if (water === null) return null;
+  const M = { name: 'M', value: getSpecies('H2O').molarMassKgPerMol, unit: 'kg/mol', origin: 'species data' };
+  const line = { id: `case-${c.id}-water-flow`, title: `Case ${c.id}: ${r.technology.mode === 'power' ? 'steam added to the fuel' : 'water fed to the stack'}`, equation: 'case-water', conversion: ' \\times 3600\\,\\mathrm{s/h}', value: water, unit: 'kg/h' };
+  if (r.technology.mode === 'power') {
+    const feed = c.streams.find((s) => s.id === 'fuel-feed') ?? c.streams.find((s) => s.id === 'fuel-inlet');
+    const dry = basis.fuelElectrode?.composition;
+    if (!feed || !dry) return null;
+    return {
+      ...line,
+      relation: 'steam',
+      quantities: [
+        { name: 'n', value: feed.flow_mol_per_s, unit: 'mol/s', origin: `fuel feed with its steam (${feed.name}), stream table of the case` },
+        { name: 'x', value: feed.moleFractions.H2O ?? 0, unit: '', origin: 'steam mole fraction of the fuel feed, stream table of the case' },
+        { name: 'xd', value: dry.H2O ?? 0, unit: '', origin: 'water mole fraction of the dry fuel, design input' },
+        M,
+      ],
+    };
+  }
+  const inlet = c.streams.find((s) => s.id === (technology(basis.cell.technology).waterElectrode === 'fuel' ? 'fuel-inlet' : 'air-inlet'));
+  if (!inlet) return null;
+  const n = (inlet.speciesFlows_mol_per_s.H2O ?? 0) + (inlet.speciesFlows_mol_per_s['H2O(L)'] ?? 0);
+  return { ...line, relation: 'water', quantities: [{ name: 'n', value: n, unit: 'mol/s', origin: `water, vapour and liquid, of the ${inlet.name}, stream table of the case` }, M] };
+}
+
+/** The coolant that carries a case's stack heat at the allowed rise: air (cooling-air) or the water loop (cooling-water). */
+function coolantLine(r: Results, c: CaseResult, which: 'cooling-air' | 'cooling-water'): LineSpec | null {
+  const heat = c.heat;
+  const value = which === 'cooling-air' ? heat?.coolingAir_kg_per_h : heat?.coolingWater_kg_per_h;
+  if (!heat || value === null || value === undefined) return null;
+  const air = c.streams.find((s) => s.id === 'air-inlet');
+  const composition: Record<string, number> | null = which === 'cooling-water' ? { 'H2O(L)': 1 } : air ? air.moleFractions : null;
+  if (!composition) return null;
+  const t = c.conditions!.temperature_K;
+  const rise = heat.allowedAirTemperatureRise_K;
+  // Δh_c and M_c of one mole of the coolant: the enthalpy and mass of its composition (species data).
+  const dh = enthalpyFlowW(composition, t) - enthalpyFlowW(composition, t - rise);
+  const coolant = which === 'cooling-air' ? 'air' : 'the water loop';
+  return {
+    id: `case-${c.id}-${which}`,
+    title: `Case ${c.id}: ${coolant} to carry the stack heat at a rise of ${formatNumber(rise, 4)} K`,
+    equation: 'case-coolant',
+    relation: 'mass',
+    quantities: [
+      { name: 'Q', value: heat.isothermalHeat_W / 1000, unit: 'kW', origin: 'stack heat of the case (isothermal boundary)' },
+      { name: 'M', value: massFlowKgPerS(composition), unit: 'kg/mol', origin: `molar mass of ${coolant}, species data` },
+      { name: 'dh', value: dh / 1000, unit: 'kJ/mol', origin: `enthalpy rise of ${coolant} from ${formatNumber(t - rise, 5)} K to ${formatNumber(t, 5)} K, species data` },
+    ],
+    conversion: ' \\times 3600\\,\\mathrm{s/h}',
+    value,
+    unit: 'kg/h',
+  };
 }
 
 /** The line of the case's degradation. */
@@ -245,8 +332,11 @@ function degradationLine(c: CaseResult): LineSpec | null {
 
 /** The worked lines of section 6 that derive each envelope quantity (by envelope id). */
 const GOVERNING_LINES: Readonly<Record<string, readonly string[]>> = {
-  'dc-current': ['cell-current'],
-  'dc-power': ['stack-power'],
+  'dc-current': ['bus-current'],
+  'string-current': ['cell-current'],
+  'dc-voltage-highest': ['stack-voltage', 'bus-voltage'],
+  'dc-voltage-lowest': ['stack-voltage', 'bus-voltage'],
+  'cell-voltage-lowest': ['cell-voltage'],
   'stack-heat': ['heat-balance'],
   'air-flow': ['air-flow'],
   'fuel-flow': ['fuel-flow'],
@@ -254,19 +344,46 @@ const GOVERNING_LINES: Readonly<Record<string, readonly string[]>> = {
   'carbon-margin': ['carbon-margin'],
   'hydrogen-most': ['hydrogen'],
   'hydrogen-least': ['hydrogen'],
+  'steam-raising': ['steam-raising'],
+  'heat-delivered': ['delivered-heat'],
+  // Lines of the plant's duties and oxidiser (plant-lines.ts), where it writes them.
+  'fuel-preheat': ['fuel-preheat'],
+  'air-preheat': ['air-preheat'],
+  'oxidiser-temperature': ['oxidiser-enthalpy'],
 };
 
 /** The groups of section 6 whose lines read only the case's own sections (not the sizing case's fuel path). */
-const CASE_GROUPS = new Set(['results-size', 'results-flows', 'results-heat', 'results-carbon']);
+const CASE_GROUPS = new Set(['results-size', 'results-flows', 'results-heat', 'results-carbon', 'results-plant']);
+/** Lines of other groups that read only the case's own sections: the cell voltage from its resistance (area-mean form). */
+const CASE_LINES = new Set(['cell-voltage']);
 
+/** The lines this module writes for the envelope quantities section 6 has no line for, by envelope id. */
+function ownGoverningLines(r: Results, basis: DesignBasis, c: CaseResult, ids: ReadonlySet<string>): LineSpec[] {
+  const lines: (LineSpec | null)[] = [];
+  if (ids.has('dc-power')) lines.push(busPowerLine(c));
+  if (ids.has('water-flow')) lines.push(waterLine(r, basis, c));
+  if (ids.has('cooling-air')) lines.push(coolantLine(r, c, 'cooling-air'));
+  if (ids.has('cooling-water')) lines.push(coolantLine(r, c, 'cooling-water'));
+  return lines.filter((l): l is LineSpec => l !== null);
+}
+
+/**
+ * The worked lines of a case: its load, its degradation and the lines of every value it governs.
+ * The sizing case's section-6 lines are its own; it gets here only the lines section 6 has not.
+ */
 function caseLines(r: Results, basis: DesignBasis, c: CaseResult, book: EquationBook): LineGroup {
-  const own = [loadLine(r, c), degradationLine(c)].filter((s): s is LineSpec => s !== null).map((s) => calcLine(s, book));
-  const wanted = new Set(r.envelope.filter((e) => e.case === c.id).flatMap((e) => GOVERNING_LINES[e.id] ?? []));
+  const governs = new Set(r.envelope.filter((e) => e.case === c.id).map((e) => e.id));
   const caseBasis = basis.cases.find((k) => k.id === c.id)?.basis ?? basis;
+  const ownGoverning = ownGoverningLines(r, caseBasis, c, governs);
+  if (c.sizing) return { id: `cases-${c.id}`, title: `Case ${c.id}: ${c.title} (sizing case)`, lines: ownGoverning.map((s) => calcLine(s, book)) };
+  const own = [loadLine(r, c), degradationLine(c), ...ownGoverning].filter((s): s is LineSpec => s !== null).map((s) => calcLine(s, book));
+  const wanted = new Set([...governs].flatMap((id) => GOVERNING_LINES[id] ?? []));
+  // An aged cell voltage is V₀ (1 ∓ r t), the degradation line above; the area-mean form gives V₀.
+  if (c.degradation?.of === 'cell-voltage') wanted.delete('cell-voltage');
+  const groups = new Set([...CASE_GROUPS].filter((g) => g !== 'results-plant' || c.plant !== null));
   const governing = wanted.size
     ? resultLines(asResults(r, c), caseBasis, book)
-        .filter((g) => CASE_GROUPS.has(g.id))
-        .flatMap((g) => g.lines)
+        .flatMap((g) => g.lines.filter((l) => groups.has(g.id) || CASE_LINES.has(l.id)))
         .filter((l) => wanted.has(l.id))
         .map((l) => ({ ...l, id: `case-${c.id}-${l.id}`, title: `Case ${c.id}: ${l.title.charAt(0).toLowerCase()}${l.title.slice(1)}` }))
     : [];
@@ -289,6 +406,6 @@ export function casesSection(r: Results, basis: DesignBasis, book: EquationBook)
       : 'The basis defines one operating point, its base values, which is the sizing case of the sections above.',
     ...(caseTables(r) ?? { definitions: null, comparison: null, envelope: null }),
     legend: '"highest" or "lowest" beside a number: this case sets the governing value of the quantity in the envelope below.',
-    lines: cases.filter((c) => !c.sizing && c.ran).map((c) => caseLines(r, basis, c, book)).filter((g) => g.lines.length > 0),
+    lines: cases.filter((c) => c.ran).map((c) => caseLines(r, basis, c, book)).filter((g) => g.lines.length > 0),
   };
 }
