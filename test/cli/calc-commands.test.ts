@@ -52,8 +52,9 @@ describe('cellbasis calc', () => {
     // Half the power on the same cells: the least fuel at half load, the highest stack voltage there too (less current, less resistive loss).
     // The envelope is the document's table: quantity, governed by its highest or lowest, the value, the case that sets it.
     expect(r.out).toMatch(/\nfuel supplied \(least\)\s+lowest\s+[\d.]+ kg\/h\s+half\s/);
-    expect(r.out).toMatch(/\nstack DC voltage \(highest\)\s+highest\s+[\d.]+ V\s+half\s/);
-    expect(r.out).toMatch(/\nDC current of the stack \(its cells in series\)\s+highest\s+[\d.]+ A\s+rated\s/);
+    // The DC rows are the bus's (the electrical layout), not the series voltage of all the cells.
+    expect(r.out).toMatch(/\nDC bus voltage \(highest; the voltage of one string\)\s+highest\s+[\d.]+ V\s+half\s/);
+    expect(r.out).toMatch(/\nDC bus current \(the strings in parallel\)\s+highest\s+[\d.]+ A\s+rated\s/);
   });
 
   it('a cell voltage above the outlet Nernst voltage is located at operating-point.cell-voltage, exit 1', async () => {
