@@ -9,7 +9,7 @@ import { loadBasisText } from '../lib/basis/load.ts';
 import { casePointResults, evaluateBasis, plantOf, pointResults } from '../lib/plant/calculate.ts';
 import { carbonMargin, type CarbonLimits } from '../lib/plant/carbon-margin.ts';
 import { plantBalance } from '../lib/plant/plant-balance.ts';
-import { caseResults } from '../lib/plant/cases.ts';
+import { caseResults, cellVoltageRange, stageCases } from '../lib/plant/cases.ts';
 import { quantile, type Row } from './measure.ts';
 
 const RUNS = 15;
@@ -27,16 +27,17 @@ export function benchCases(): Row[] {
     if (others === 0) continue;
     const sizing = basis.cases.find((c) => c.sizing)!.basis;
     const point = evaluateBasis(sizing);
-    const plant = plantBalance(point, sizing.plant);
-    // As calculate.ts: the sizing case's carbon limits found first, which the cases share.
+    // As calculate.ts: the cases' points, the layout over their cell voltages, then each case's sections and plant.
     const sizingLimits: CarbonLimits = new Map();
+    const plant = plantBalance(point, sizing.plant, cellVoltageRange(point, stageCases(basis.cases, point, new Map())));
     const own = { ...pointResults(point, sizing, carbonMargin(point, sizingLimits), plant.findings), plant: plantOf(plant) };
     const assemble = casePointResults(plant.electrical);
-    caseResults(basis.cases, point, own, assemble, new Map(sizingLimits)); // warm-up
+    const all = () => caseResults(stageCases(basis.cases, point, new Map(sizingLimits)), point, own, assemble);
+    all(); // warm-up
     const times: number[] = [];
     for (let k = 0; k < RUNS; k++) {
       const t0 = performance.now();
-      caseResults(basis.cases, point, own, assemble, new Map(sizingLimits));
+      all();
       times.push((performance.now() - t0) / others);
     }
     times.sort((a, b) => a - b);

@@ -24,7 +24,7 @@ import { locateCalculationErrors } from './located-error.ts';
 import { enthalpyFlowW, gasFlow, gasMoleFractions, massFlowKgPerS, normalVolumeM3PerS, totalFlow, type Stream } from './streams.ts';
 import type { Results, StreamResult } from './results-schema.ts';
 import { finding, withAssumptions, type Finding } from './findings.ts';
-import { caseFindings, caseResults } from './cases.ts';
+import { caseFindings, caseResults, cellVoltageRange, stageCases } from './cases.ts';
 import { envelopeOf } from './envelope.ts';
 import { plantBalance, type PlantBalance, type PowerPlantBalance } from './plant-balance.ts';
 import { BasisError } from '../basis/diagnostics.ts';
@@ -485,13 +485,13 @@ function findingsOf({ point, inputs, carbon }: Computed, basis: DesignBasis, pla
  * The plant of a case on the sizing case's hardware: its electrical layout fixed (the sizing
  * case's cells per stack, stacks in series and strings in parallel, whether given or derived from
  * the DC bus window), the plant blocks' design choices those of the basis, each block then
- * balanced at the case's own flows and temperatures (plant-balance.ts). A case whose bus voltage
- * leaves the DC bus window is a finding of the case; a case whose plant cannot be balanced (the
+ * balanced at the case's own flows and temperatures (plant-balance.ts). The layout was made for
+ * the cell voltages of every case (a bus window fitting none of them refuses the basis at the
+ * window), so no case leaves the window; a case whose plant cannot be balanced (the
  * off-gas too lean to burn, an exhaust that cannot reach its exit temperature...) keeps its stack
  * results, its plant null, with the reason as a critical finding `case-plant-cannot-run`.
  */
 export function casePlant(point: DesignPoint, basis: DesignBasis, layout: PlantBalance['electrical']): { plant: PlantBalance | null; findings: Finding[] } {
-  const window = basis.plant.electrical.busVoltageWindowV;
   const electrical = { cellsPerStack: layout.cellsPerStack, stacksInSeries: layout.stacksInSeries, stringsInParallel: layout.stringsInParallel };
   let plant: PlantBalance;
   try {
@@ -503,20 +503,8 @@ export function casePlant(point: DesignPoint, basis: DesignBasis, layout: PlantB
     const e = error.errors[0]!;
     return { plant: null, findings: [finding('case-plant-cannot-run', 'critical', e.path, `the plant around the stack cannot be balanced at this case: ${error.errors.map((d) => d.message).join('; ')}`)] };
   }
-  const findings = [...plant.findings];
-  const bus = plant.electrical.busVoltageV;
-  if (window && (bus < window.minV * (1 - 1e-12) || bus > window.maxV * (1 + 1e-12))) {
-    findings.push(
-      finding(
-        'dc-bus-outside-window',
-        'critical',
-        'plant.electrical.dc-bus-window',
-        `the DC bus voltage of this case, ${bus.toPrecision(4)} V (${layout.stacksInSeries} stacks in series of ${layout.cellsPerStack} cells at ${point.voltage.cellVoltageV.toPrecision(4)} V), lies outside the bus window ${window.minV} V to ${window.maxV} V`,
-        ['operating-point'],
-      ),
-    );
-  }
-  return { plant, findings };
+  // No case leaves the DC bus window: the sizing layout was made for every case's cell voltage.
+  return { plant, findings: [...plant.findings] };
 }
 
 /** A case's sections with its plant (casePlant), as cases.ts assembles them. */
@@ -582,13 +570,15 @@ function calculateResults(basis: DesignBasis): Results {
   const sizingCase = basis.cases.find((k) => k.sizing);
   const sizingBasis = sizingCase?.basis ?? basis;
   const point = evaluateBasis(sizingBasis);
-  const plant = locateCalculationErrors(sizingBasis, () => plantBalance(point, sizingBasis.plant));
   // The least carbon-free S/C of a fuel at a temperature, found once for the sizing case and every case that shares it.
   const limits: CarbonLimits = new Map();
+  // Every case's point first: the electrical layout must hold the bus over all their cell voltages.
+  const staged = stageCases(basis.cases, point, limits);
+  const plant = locateCalculationErrors(sizingBasis, () => plantBalance(point, sizingBasis.plant, cellVoltageRange(point, staged)));
   const own = pointResults(point, sizingBasis, carbonMargin(point, limits), plant.findings);
   const findings = sizingCase ? caseFindings(own.findings, sizingCase) : own.findings;
   const plantResults = plantOf(plant);
-  const cases = basis.cases.length ? caseResults(basis.cases, point, { ...own, findings, plant: plantResults }, casePointResults(plant.electrical), limits) : [];
+  const cases = basis.cases.length ? caseResults(staged, point, { ...own, findings, plant: plantResults }, casePointResults(plant.electrical)) : [];
   const inputs = point.inputs;
   const tech = inputs.technology;
   return {

@@ -164,21 +164,51 @@ function notRun(c: OperatingCase, path: string, message: string): Figures {
 
 type Assemble = (point: DesignPoint, basis: DesignBasis, carbon?: ReturnType<typeof carbonMargin>) => CasePointResults;
 
+/** A case's point on the sizing case's hardware, before its sections are made (stageCases); null for the sizing case and a case that cannot run, whose figures are then given or to come. */
+export interface StagedCase {
+  case: OperatingCase;
+  run: { point: DesignPoint; carbon: ReturnType<typeof carbonMargin>; resistance: CaseResult['resistance']; inputs: DesignInputs } | null;
+  notRun: Figures | null;
+}
+
 /**
- * Every case of the basis, in its order: the sizing case from its evaluated point and results,
- * every other case on its hardware. `assemble` makes the sections of a point's results
- * (calculate.ts casePointResults); `limits` the least carbon-free steam-to-carbon ratios already
- * found (the sizing case's), which the cases share and add to.
+ * Phase one of the cases: each case's design point on the sizing case's hardware (`sizing`),
+ * and its carbon margin. The plant around the stack is laid out for every case's cell voltage
+ * (calculate.ts: the lowest and highest of them size the string against the DC bus window), so
+ * the points come before any case's plant. `limits` are the least carbon-free steam-to-carbon
+ * ratios found so far, which the cases share with the sizing case and add to.
  */
-export function caseResults(cases: readonly OperatingCase[], sizing: DesignPoint, sizingResults: CasePointResults, assemble: Assemble, limits: CarbonLimits = new Map()): CaseResult[] {
+export function stageCases(cases: readonly OperatingCase[], sizing: DesignPoint, limits: CarbonLimits = new Map()): StagedCase[] {
   const hardware = hardwareOf(sizing);
   const stages = new Map<string, UnitStage>([[stageKey(sizing.inputs), { unit: sizing.unit, path: sizing.path }]]);
   const carbons = new Map<string, ReturnType<typeof carbonMargin>>();
+  return cases.map((c) => (c.sizing ? { case: c, run: null, notRun: null } : stageCase(c, hardware, stages, carbons, limits)));
+}
+
+/** The cell voltages the sizing point and the cases that run reach: the range the electrical layout must hold on its bus, V. */
+export function cellVoltageRange(sizing: DesignPoint, staged: readonly StagedCase[]): { minV: number; maxV: number } {
+  const voltages = [sizing.voltage.cellVoltageV, ...staged.flatMap((s) => (s.run ? [s.run.point.voltage.cellVoltageV] : []))];
+  return { minV: Math.min(...voltages), maxV: Math.max(...voltages) };
+}
+
+/**
+ * Every case of the basis, in its order (phase two): the sizing case from its evaluated point
+ * and results, every other case from its staged point, its sections made by `assemble`
+ * (calculate.ts casePointResults, with the plant on the sizing case's layout).
+ */
+export function caseResults(staged: readonly StagedCase[], sizing: DesignPoint, sizingResults: CasePointResults, assemble: Assemble): CaseResult[] {
+  const hardware = hardwareOf(sizing);
   const sizingResistance = { from: 'case' as const, beginningOfLife_ohm_m2: hardware.resistanceOhmM2, referenceTemperature_K: hardware.temperatureK };
-  const figures = cases.map((c): Figures => (c.sizing ? ranFigures(sizingResults, sizing, sizingResistance) : runCase(c, hardware, stages, carbons, limits, assemble)));
+  const figures = staged.map((s): Figures => {
+    if (s.case.sizing) return ranFigures(sizingResults, sizing, sizingResistance);
+    if (!s.run) return s.notRun!;
+    const { point, carbon, resistance, inputs } = s.run;
+    const results = assemble(point, s.case.basis, carbon);
+    return ranFigures({ ...results, findings: caseFindings(results.findings, s.case) }, point, resistance ?? { from: 'case', beginningOfLife_ohm_m2: point.degradation?.beginningOfLifeResistanceOhmM2 ?? point.voltage.areaSpecificResistanceOhmM2, referenceTemperature_K: inputs.temperatureK });
+  });
   // The curves span the current densities of all the cases that ran, a quarter beyond the highest.
   const jMax = 1.25 * Math.max(...figures.map((f) => f.operatingPoint?.currentDensity_A_per_m2 ?? 0));
-  return cases.map((c, k) => {
+  return staged.map(({ case: c }, k) => {
     const { point, ...f } = figures[k]!;
     return {
       id: c.id,
@@ -193,7 +223,7 @@ export function caseResults(cases: readonly OperatingCase[], sizing: DesignPoint
   });
 }
 
-function runCase(c: OperatingCase, hardware: Hardware, stages: Map<string, UnitStage>, carbons: Map<string, ReturnType<typeof carbonMargin>>, limits: CarbonLimits, assemble: Assemble): Figures {
+function stageCase(c: OperatingCase, hardware: Hardware, stages: Map<string, UnitStage>, carbons: Map<string, ReturnType<typeof carbonMargin>>, limits: CarbonLimits): StagedCase {
   let inputs = caseInputs(c, hardware);
   const resistance: CaseResult['resistance'] = ownResistance(c)
     ? null
@@ -217,8 +247,8 @@ function runCase(c: OperatingCase, hardware: Hardware, stages: Map<string, UnitS
       return evaluateDesignPoint(inputs, stage);
     });
   } catch (error) {
-    if (error instanceof TargetNotMet) return notRun(c, error.path, error.message);
-    if (error instanceof BasisError) return notRun(c, error.errors[0]!.path, error.errors.map((e) => e.message).join('; '));
+    if (error instanceof TargetNotMet) return { case: c, run: null, notRun: notRun(c, error.path, error.message) };
+    if (error instanceof BasisError) return { case: c, run: null, notRun: notRun(c, error.errors[0]!.path, error.errors.map((e) => e.message).join('; ')) };
     throw error;
   }
   const key = carbonKey(inputs);
@@ -227,8 +257,7 @@ function runCase(c: OperatingCase, hardware: Hardware, stages: Map<string, UnitS
     carbon = carbonMargin(point, limits);
     carbons.set(key, carbon);
   }
-  const results = assemble(point, c.basis, carbon);
-  return ranFigures({ ...results, findings: caseFindings(results.findings, c) }, point, resistance ?? { from: 'case', beginningOfLife_ohm_m2: point.degradation?.beginningOfLifeResistanceOhmM2 ?? point.voltage.areaSpecificResistanceOhmM2, referenceTemperature_K: inputs.temperatureK });
+  return { case: c, run: { point, carbon, resistance, inputs }, notRun: null };
 }
 
 /** A target no current density meets on the hardware, at the target's field. */

@@ -248,8 +248,13 @@ function layoutError(error: unknown, windowGiven: boolean): never {
   throw new CalculationError(`${labels[error.field] ?? error.field} ${error.problem}`, fields[error.field] ?? 'cells');
 }
 
-/** Cells per stack (default all in one), stacks in series (given, from the bus window, else 1), strings (given, else enough). */
-function layoutOf(point: DesignPoint, plant: PlantInput): ElectricalLayout {
+/**
+ * Cells per stack (default all in one), stacks in series (given, from the bus window, else 1),
+ * strings (given, else enough); the bus over `cellVoltageRangeV`, the cell voltages of every
+ * operating case on this hardware (default the point's alone), so that a string sized by the bus
+ * window holds it at the lowest cell voltage (end of life, full load) and the highest (turndown).
+ */
+function layoutOf(point: DesignPoint, plant: PlantInput, cellVoltageRangeV?: { minV: number; maxV: number }): ElectricalLayout {
   const e = plant.electrical;
   const cells = point.sizing.cells;
   try {
@@ -259,6 +264,7 @@ function layoutOf(point: DesignPoint, plant: PlantInput): ElectricalLayout {
       cellsPerStack: e.cellsPerStack ?? cells,
       cellVoltageV: point.voltage.cellVoltageV,
       cellCurrentA: point.cellCurrentA,
+      ...(cellVoltageRangeV ? { cellVoltageRangeV } : {}),
       ...(e.busVoltageWindowV ? { busVoltageWindowV: e.busVoltageWindowV } : { stacksInSeries: e.stacksInSeries ?? 1 }),
       ...(e.stringsInParallel !== undefined ? { stringsInParallel: e.stringsInParallel } : {}),
       conversionEfficiency: point.inputs.conversionEfficiency,
@@ -846,9 +852,9 @@ function electrolysisBalance(point: DesignPoint, plant: PlantInput): { balance: 
 }
 
 /** The plant around the stack of a design point: the electrical layout, and the power plant's or the electrolysis plant's balance. */
-export function plantBalance(point: DesignPoint, plant: PlantInput): PlantBalance {
+export function plantBalance(point: DesignPoint, plant: PlantInput, cellVoltageRangeV?: { minV: number; maxV: number }): PlantBalance {
   const findings: Finding[] = [];
-  const electrical = layoutOf(point, plant);
+  const electrical = layoutOf(point, plant, cellVoltageRangeV);
   if (point.inputs.mode === 'power' && point.inputs.fuelFeed && point.inputs.airFeed) {
     const { balance, streams } = powerBalance(point, plant, electrical, findings);
     return { electrical, streams, power: balance, electrolysis: null, findings };

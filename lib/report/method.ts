@@ -300,6 +300,17 @@ function plant(step: Step, r: Results): void {
       'The cells are connected in series in a stack, the stacks in series in a string and the strings in parallel on the DC bus. Series elements carry one current and add their voltages; parallel strings share one voltage and add their currents:',
     )
     .eq('plant-layout');
+  const e = r.plant.electrical;
+  if (e.stacksInSeriesFrom === 'bus-voltage-window') {
+    // The cell voltages the layout holds on the bus: the sizing point's and every case's that ran.
+    const volts = [r.headline.cellVoltage_V, ...r.cases.flatMap((c) => (c.ran && c.headline ? [c.headline.cellVoltage_V] : []))];
+    const low = Math.min(...volts);
+    const high = Math.max(...volts);
+    const over = r.cases.length ? ` of every operating case (${formatNumber(low)} V to ${formatNumber(high)} V)` : ` (${formatNumber(low)} V)`;
+    step.text(
+      `The stacks in series come from the DC bus window: the fewest that keep the bus at or above the window's minimum at the lowest cell voltage${over}, $N_\\mathrm{series} = \\lceil V_\\mathrm{bus,min} / (N_\\mathrm{cells/stack}\\, V_\\mathrm{cell,min}) \\rceil = ${formatNumber(e.stacksInSeries)}$, the bus then reaching ${formatNumber(e.stacksInSeries * e.cellsPerStack * high)} V at the highest, within the window (matching a string to the DC input range of its inverter or rectifier: common practice, no source).`,
+    );
+  }
   const x = r.plant.electrolysis;
   if (x) {
     if (x.steam.length) {

@@ -8,6 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { parseDocument } from 'yaml';
 import { calculate, casePlant, evaluateBasis } from '../../lib/plant/calculate.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
+import { BasisError } from '../../lib/basis/diagnostics.ts';
 import type { DesignBasis } from '../../lib/basis/types.ts';
 import type { CaseResult, Results } from '../../lib/plant/results-schema.ts';
 import { ENVELOPE_QUANTITIES, envelopeOf, valueAt } from '../../lib/plant/envelope.ts';
@@ -118,14 +119,40 @@ describe('each case equals a basis of its own on the sizing case\'s hardware', (
     expect(c.plant!.electrical.busCurrent_A).toBeCloseTo(layout.stringsInParallel * c.headline!.cellCurrent_A, 9);
   });
 
-  it('a case whose bus voltage leaves the DC bus window is a critical finding of that case, not a failure of the basis (end of life: 10 stacks of 80 cells below 600 V)', () => {
-    const c = caseOf(thistlemere, 'end-of-life');
-    const bus = c.plant!.electrical.busVoltage_V;
-    // Series voltages add (Kirchhoff): 10 × 80 × V_cell.
-    expect(bus).toBeCloseTo(10 * 80 * c.headline!.cellVoltage_V, 9);
-    expect(bus).toBeLessThan(600);
-    expect(c.findings.find((f) => f.code === 'dc-bus-outside-window')?.severity).toBe('critical');
-    expect(caseOf(thistlemere, 'rated').findings.some((f) => f.code === 'dc-bus-outside-window')).toBe(false);
+  it('the string is sized over every case\'s cell voltage against the DC bus window: the fewest stacks in series that hold the lowest case at its minimum (12 of 80 cells)', () => {
+    const layout = thistlemere.plant.electrical;
+    const volts = thistlemere.cases.filter((c) => c.ran).map((c) => c.headline!.cellVoltage_V);
+    const lowest = Math.min(...volts);
+    // N = ⌈V_bus,min / (N_cells/stack · V_cell,min)⌉ (matching a string to the inverter's DC input
+    // range, common practice, no source); by hand 600 / (80 × 0.66768 V at end of life) = 11.23.
+    expect(lowest).toBeCloseTo(0.66768, 4);
+    expect(layout.stacksInSeries).toBe(Math.ceil(600 / (80 * lowest)));
+    expect(layout.stacksInSeries).toBe(12);
+    for (const c of thistlemere.cases) {
+      // Series voltages add (Kirchhoff): 12 × 80 × V_cell, inside the window at every case.
+      const bus = c.plant!.electrical.busVoltage_V;
+      expect(bus).toBeCloseTo(12 * 80 * c.headline!.cellVoltage_V, 9);
+      expect(bus).toBeGreaterThanOrEqual(600);
+      expect(bus).toBeLessThanOrEqual(850);
+    }
+    // Sized at the rated point alone it would be 10 stacks (600 / (80 × 0.7825 V) = 9.58), and the end of life would fall to 534 V.
+    expect(Math.ceil(600 / (80 * caseOf(thistlemere, 'rated').headline!.cellVoltage_V))).toBe(10);
+  });
+
+  it('a DC bus window that no whole number of stacks fits over the cases\' cell voltages refuses the basis at the window', () => {
+    // 12 stacks hold the end of life (0.668 V) at 641 V but put the turndown (0.872 V) at 837 V, above 700 V.
+    const text = readFileSync(new URL('../../projects/thistlemere-sofc-chp/basis.yaml', import.meta.url), 'utf8').replace('dc-bus-window: { from: "600 V", to: "850 V" }', 'dc-bus-window: { from: "600 V", to: "700 V" }');
+    expect(text).toContain('to: "700 V"');
+    let thrown: unknown;
+    try {
+      calculate(load(text, 'thistlemere-sofc-chp'));
+    } catch (error) {
+      thrown = error;
+    }
+    expect(thrown).toBeInstanceOf(BasisError);
+    const [e] = (thrown as BasisError).errors;
+    expect(e!.path).toBe('plant.electrical.dc-bus-window');
+    expect(e!.message).toMatch(/fits no whole number of stacks in series: 12 stacks in series of 80 cells.*give a bus of 641\.0 V to 837\.5 V/);
   });
 
   it.each(['turndown', 'end-of-life'])('kestrelford-pem-electrolyser, case %s (the sizing case gives a voltage: the hardware is the resistance it implies)', (id) => {
