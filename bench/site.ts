@@ -141,7 +141,7 @@ async function pdfTimes(root: string, count: number): Promise<{ one: number; two
   const drafts = model.drafts.slice(0, count);
   const site = join(root, 'site');
   const job = (printer: Parameters<Parameters<typeof withPdfPrinter>[0]>[0], d: (typeof drafts)[number]) =>
-    printer.print(join(site, d.pagePath), documentPdfMeta({ basis: d.basis, results: d.results, revision: d.revision }, { date: new Date('2026-11-30T00:00:00Z') }));
+    printer.print(join(site, d.pagePath), documentPdfMeta({ ...d.document(), revision: d.revision }, { date: new Date('2026-11-30T00:00:00Z') }));
   const one = await timed(() => withPdfPrinter(async (p) => { for (const d of drafts) await job(p, d); }, { pages: 1 }));
   // As the build prints (lib/publish/draft-pdfs.ts): PRINT_LANES Chromiums, each every lanes-th draft.
   const lanes = Array.from({ length: PRINT_LANES }, (_, lane) => drafts.filter((_d, i) => i % PRINT_LANES === lane));

@@ -122,17 +122,41 @@ async function inThreads(jobs: { index: number; basis: DesignBasis }[], count: n
 }
 
 export async function calculateAll(jobs: CalculationJob[], options: BatchOptions = {}): Promise<CalculationOutcome[]> {
+  return (await runBatch(jobs, options, true)) as CalculationOutcome[];
+}
+
+/** A job that did not give results: its diagnostics or message. */
+export type CalculationFailure = Extract<CalculationOutcome, { ok: false }>;
+
+/**
+ * Every job's results put into the cache, none kept in memory: for a build of many projects,
+ * whose pages read each project's results from the cache when they are rendered, so that the
+ * results of all the projects are never held at once (a cached entry is not even read here).
+ * Returns each job's failure, or null where its results are in the cache (or could not be
+ * written there: the reader then calculates them again).
+ */
+export async function calculateIntoCache(jobs: CalculationJob[], cache: ResultsCache, options: Omit<BatchOptions, 'cache'> = {}): Promise<(CalculationFailure | null)[]> {
+  // Array.from, not map: the entries found in the cache were never set, and map skips such holes.
+  return Array.from(await runBatch(jobs, { ...options, cache }, false), (o) => (o && !o.ok ? o : null));
+}
+
+/** The jobs' outcomes; with `keep` false, results that went into the cache are not kept (undefined). */
+async function runBatch(jobs: CalculationJob[], options: BatchOptions, keep: boolean): Promise<(CalculationOutcome | undefined)[]> {
   const outcomes: (CalculationOutcome | undefined)[] = new Array(jobs.length);
   const keys = jobs.map((j) => resultsKey(j.text, j.basis.id, j.basis.file));
   let done = 0;
   const report = (index: number, outcome: CalculationOutcome) => {
-    outcomes[index] = outcome;
     if (outcome.ok && !outcome.cached && options.cache) options.cache.put(keys[index]!, outcome.results);
+    outcomes[index] = keep || !outcome.ok || !options.cache ? outcome : undefined;
     options.onProgress?.(++done, jobs.length);
   };
   const pending: { index: number; basis: DesignBasis }[] = [];
   jobs.forEach((job, index) => {
-    const hit = options.cache?.get(keys[index]!);
+    if (!keep && options.cache?.has(keys[index]!)) {
+      options.onProgress?.(++done, jobs.length);
+      return;
+    }
+    const hit = keep ? options.cache?.get(keys[index]!) : undefined;
     if (hit) report(index, { ok: true, results: hit, cached: true });
     else pending.push({ index, basis: job.basis });
   });
@@ -142,5 +166,5 @@ export async function calculateAll(jobs: CalculationJob[], options: BatchOptions
   const count = Math.min(alsoHere ? cores - 1 : cores, Math.floor(pending.length / (options.jobsPerWorker ?? PER_WORKER)));
   if (count >= 1) await inThreads(pending, count, alsoHere, report);
   else for (const job of pending) report(job.index, calculateHere(job.basis));
-  return outcomes as CalculationOutcome[];
+  return outcomes;
 }

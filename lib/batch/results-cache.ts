@@ -11,7 +11,7 @@
  * guards against damage, not against someone who may write the cache and rewrites the hash too.
  */
 import { createHash } from 'node:crypto';
-import { lstatSync, mkdirSync, renameSync, unlinkSync, writeFileSync } from 'node:fs';
+import { existsSync, lstatSync, mkdirSync, renameSync, unlinkSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { EXIT_VALIDATION, UserError } from '../core/errors.ts';
 import { readRegularFile } from '../core/read-file.ts';
@@ -77,6 +77,11 @@ export class ResultsCache {
     } catch {
       return undefined;
     }
+  }
+
+  /** Whether an entry of the key is stored (not read nor verified: get() does that when it is read). */
+  has(key: string): boolean {
+    return existsSync(join(this.dir, `${key}.json`));
   }
 
   put(key: string, results: Results): void {

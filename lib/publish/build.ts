@@ -45,7 +45,7 @@ import { fileErrorIn, fileErrorReason } from '../core/file-errors.ts';
 import { readBasisFile } from '../basis/load.ts';
 import { realLocation, issuedFolderAt, within } from '../archive/layout.ts';
 import { processAlive } from '../archive/issued-folder.ts';
-import { calculateAll, type CalculationJob, type CalculationOutcome } from '../batch/batch.ts';
+import { calculateIntoCache, type CalculationJob, type CalculationOutcome } from '../batch/batch.ts';
 import { ResultsCache } from '../batch/results-cache.ts';
 import { ChromiumMissingError, chromiumMissingMessage, findChromium } from './chromium.ts';
 import { printDrafts } from './draft-pdfs.ts';
@@ -276,7 +276,10 @@ function checkOutput(root: string, out: string): void {
   if (issued) throw new UserError(`build: --out would replace the issued revisions in ${relative(root, issued)}; only cellbasis issue writes there`);
 }
 
-/** Every project's results, from the cache or calculated (in worker threads when there are many). */
+/**
+ * Every project's results calculated (in worker threads when there are many) into the results
+ * cache, where the pages read them as they are rendered; the failures, by project id.
+ */
 async function precompute(root: string, options: BuildOptions): Promise<Map<string, CalculationOutcome>> {
   const jobs: { id: string; job: CalculationJob }[] = [];
   for (const id of listProjects(root)) {
@@ -290,11 +293,12 @@ async function precompute(root: string, options: BuildOptions): Promise<Map<stri
     }
     if (read.result.ok && read.bytes) jobs.push({ id, job: { basis: read.result.basis, text: read.bytes } });
   }
-  const outcomes = await calculateAll(
+  const failures = await calculateIntoCache(
     jobs.map((j) => j.job),
-    { cache: new ResultsCache(root), onProgress: (done, total) => options.onProgress?.('calculate', done, total) },
+    new ResultsCache(root),
+    { onProgress: (done, total) => options.onProgress?.('calculate', done, total) },
   );
-  return new Map(jobs.map((j, i) => [j.id, outcomes[i]!]));
+  return new Map(jobs.flatMap((j, i) => (failures[i] ? [[j.id, failures[i]!] as const] : [])));
 }
 
 export async function buildSite(options: BuildOptions): Promise<BuildReport> {

@@ -31,8 +31,8 @@ export const PRINT_LANES = 2;
 
 export interface DraftPage {
   pagePath: string;
-  basis: DesignBasis;
-  results: Results;
+  /** The draft's basis and results, made when asked for (the site model does not keep them). */
+  document(): { basis: DesignBasis; results: Results };
   /** The draft's date as its page shows it (lib/publish/source-date.ts), null when undated. */
   date: string | null;
   /** Which revision the page is: the draft of the next one (lib/report/revision.ts). */
@@ -76,7 +76,7 @@ export async function printDrafts(root: string, site: string, drafts: DraftPage[
   const work = drafts.map((d) => {
     const page = join(site, d.pagePath);
     // The date the page shows (never the clock); an undated draft prints as of 1970-01-01.
-    const meta = documentPdfMeta({ basis: d.basis, results: d.results, revision: d.revision }, { date: new Date(`${d.date ?? '1970-01-01'}T00:00:00Z`) });
+    const meta = documentPdfMeta({ ...d.document(), revision: d.revision }, { date: new Date(`${d.date ?? '1970-01-01'}T00:00:00Z`) });
     return { page, target: join(dirname(page), 'document.pdf'), meta, cached: join(cacheDir, `${keyOf(inputs, readFileSync(page), meta)}.pdf`) };
   });
   let done = 0;

@@ -67,7 +67,20 @@ export interface SiteModel {
   /** Warnings of the bases and the calculation, as file:line:col: warning: ... lines. */
   warnings: string[];
   /** Each working draft's page with its basis and results (to print it). */
-  drafts: { id: string; pagePath: string; basis: DesignBasis; results: Results; date: string | null; revision: RevisionContext }[];
+  drafts: DraftEntry[];
+}
+
+/**
+ * A working draft's page, to print it: its basis and results are made again when asked for
+ * (`document()`), the results read from the results cache, so that a model of many projects
+ * does not hold the results of all of them at once.
+ */
+export interface DraftEntry {
+  id: string;
+  pagePath: string;
+  date: string | null;
+  revision: RevisionContext;
+  document(): { basis: DesignBasis; results: Results };
 }
 
 export interface SiteOptions {
@@ -141,6 +154,27 @@ function draftResults(loader: ProjectLoader, id: string, basis: DesignBasis, byt
 }
 
 /**
+ * The draft's results again, when its page is rendered or printed: read from the results cache,
+ * where they were put when they were calculated, so that the model does not keep them (the
+ * memory of a build is then independent of the number of projects). Where the cache holds no
+ * entry (a folder it cannot write), the results are kept instead; an entry that no longer reads
+ * back (removed meanwhile) is calculated again, as the same bytes give the same results.
+ */
+function resultsAgain(loader: ProjectLoader, basis: DesignBasis, key: string, results: Results): () => Results {
+  return loader.cache.has(key) ? fromCache(loader, basis, key) : kept(results);
+}
+
+// Two functions, not two arrows in one: arrows made in one function share its variables, and the
+// cache reader would hold the results it exists to let go.
+function fromCache(loader: ProjectLoader, basis: DesignBasis, key: string): () => Results {
+  return () => loader.cache.get(key) ?? calculate(basis);
+}
+
+function kept(results: Results): () => Results {
+  return () => results;
+}
+
+/**
  * The register page of each issued revision, and the copies of its document and PDF as issued;
  * the history's entries give each its change summary against the revision before.
  */
@@ -205,6 +239,7 @@ export function loadProjectPages(loader: ProjectLoader, id: string, problems: Si
   if (!loaded.ok || !bytes) return none;
   const results = draftResults(loader, id, loaded.basis, bytes, problems);
   if (!results) return none;
+  const again = resultsAgain(loader, loaded.basis, resultsKey(bytes, id, shown), results);
   problems.findings(everyFinding(results).map((f) => formatFinding(loaded.basis, f)));
   const draftPath = draftPagePath(id);
   const sources = new Map<DesignBasis, string>(issued.map((s) => [s.basis, s.source]));
@@ -226,10 +261,10 @@ export function loadProjectPages(loader: ProjectLoader, id: string, problems: Si
   };
   const register = issuedPages(id, issued, history, draftRevision);
   return {
-    pages: [{ pagePath: draftPath, view: () => documentView({ basis: loaded.basis, results, revision: draft, history }, { ...pageOptions(draftPath), checks }) }],
+    pages: [{ pagePath: draftPath, view: () => documentView({ basis: loaded.basis, results: again(), revision: draft, history }, { ...pageOptions(draftPath), checks }) }],
     revisionPages: register.pages,
     copies: register.copies,
-    draft: { id, pagePath: draftPath, basis: loaded.basis, results, date, revision: draft },
+    draft: { id, pagePath: draftPath, date, revision: draft, document: () => ({ basis: loaded.basis, results: again() }) },
     portfolio: {
       id,
       basis: loaded.basis,

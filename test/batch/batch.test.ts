@@ -6,7 +6,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { writeSyntheticProjects } from '../../bench/synthetic.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
-import { calculateAll, type CalculationJob } from '../../lib/batch/batch.ts';
+import { calculateAll, calculateIntoCache, type CalculationJob } from '../../lib/batch/batch.ts';
 import { calculate } from '../../lib/plant/calculate.ts';
 import { ResultsCache, resultsKey } from '../../lib/batch/results-cache.ts';
 
@@ -35,6 +35,26 @@ describe('batch calculation', () => {
     // Workers and this thread sharing the queue: the same, in job order.
     const shared = await calculateAll(list, { workers: 2, jobsPerWorker: 1 });
     expect(JSON.stringify(shared)).toBe(JSON.stringify(outcomes));
+  }, 120_000);
+
+  it('into the cache: every result stored as a calculation here gives it, failures returned, nothing kept; a second run reads no entry', async () => {
+    const { root, list } = jobs(3);
+    // The third job fails: a cell voltage above its Nernst voltage (a located calculation error).
+    const bad = loadBasisText(readFileSync(join(root, 'projects/p0003/basis.yaml'), 'utf8').replace(/area-specific-resistance: .*/, 'cell-voltage: 1.6 V'), 'projects/p0003/basis.yaml', 'p0003');
+    if (!bad.ok) throw new Error(bad.errors.map((e) => e.message).join('; '));
+    const failing = { basis: bad.basis, text: 'changed' };
+    const cache = new ResultsCache(root);
+    const failures = await calculateIntoCache([list[0]!, list[1]!, failing], cache, { workers: 1 });
+    expect(failures.slice(0, 2)).toEqual([null, null]);
+    expect(failures[2]?.ok).toBe(false);
+    for (const job of list.slice(0, 2)) {
+      expect(JSON.stringify(cache.get(resultsKey(job.text, job.basis.id, job.basis.file)))).toBe(JSON.stringify(calculate(job.basis)));
+    }
+    // A second run finds the entries by name and reads none of them: an entry emptied is not noticed here (get() verifies it where the results are read).
+    let progress = 0;
+    const again = await calculateIntoCache(list.slice(0, 2), cache, { workers: 1, onProgress: () => progress++ });
+    expect(again).toEqual([null, null]);
+    expect(progress).toBe(2);
   }, 120_000);
 
   it('a second run is served from the cache; another basis text is a miss', async () => {
