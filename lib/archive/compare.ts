@@ -43,7 +43,15 @@ export interface RevisionSide {
   revision: string;
   /** Its issued status, or "draft, not issued" for the working draft; "" when not known. */
   status?: string;
-  basis: DesignBasis;
+  /**
+   * The validated basis; null for an issued revision whose basis.yaml today's loader does not
+   * read (issued by an earlier version of cellbasis, lib/archive/issued-revision.ts). Without it
+   * the inputs, assumptions and references are compared as YAML fields (its `source`), and a
+   * note says so.
+   */
+  basis: DesignBasis | null;
+  /** Why today's loader does not read the basis (with basis null), for that note. */
+  basisProblem?: string;
   /** Today's results (the draft's), or an issued revision's as far as comparisons read them (issued-results.ts). */
   results: ComparableResults;
   /** The YAML text of the basis, for the structural diff of the fields that are not inputs. */
@@ -144,7 +152,9 @@ export interface RevisionChanges {
   envelope: EnvelopeChange[];
   /**
    * What could not be compared because one side's results do not carry it (results issued by
-   * another version of cellbasis): "highest carbon activity: not in the results of revision A".
+   * another version of cellbasis): "highest carbon activity: not in the results of revision A";
+   * and, for a side whose basis today's loader does not read, that its inputs, assumptions and
+   * references are compared as YAML fields instead.
    */
   notCompared: string[];
   /** One line per change, then one per part not compared ("not compared: ..."). */
@@ -218,9 +228,9 @@ function selfAndAncestors(path: string): string[] {
   return out;
 }
 
-/** Whether a path is an input, lies below one, or is handled by its own section. */
-function coveredBy(inputPaths: Set<string>): (path: string) => boolean {
-  return (path) => selfAndAncestors(path).some((p) => inputPaths.has(p) || OWN_SECTIONS.has(p));
+/** Whether a path is an input, lies below one, or is handled by its own section (none of them when a side has no validated basis). */
+function coveredBy(inputPaths: Set<string>, ownSections: boolean): (path: string) => boolean {
+  return (path) => selfAndAncestors(path).some((p) => inputPaths.has(p) || (ownSections && OWN_SECTIONS.has(p)));
 }
 
 /** A subtree with the covered paths removed; undefined when nothing is left. */
@@ -239,10 +249,17 @@ function prune(value: Tree, path: string, covered: (path: string) => boolean): T
   return Object.keys(out).length ? out : undefined;
 }
 
+/** A side's YAML tree: its text parsed, else the projection of its basis (a side has one or the other). */
+function treeOf(side: RevisionSide, useSource: boolean): Tree {
+  if (useSource || !side.basis) return parseYaml(side.source ?? '') as Tree;
+  return projection(side.basis);
+}
+
 function fieldChanges(a: RevisionSide, b: RevisionSide): FieldChange[] {
-  const trees: [Tree, Tree] =
-    a.source !== undefined && b.source !== undefined ? [parseYaml(a.source) as Tree, parseYaml(b.source) as Tree] : [projection(a.basis), projection(b.basis)];
-  const covered = coveredBy(new Set([...a.basis.inputs, ...b.basis.inputs].map((r) => r.path)));
+  const useSource = a.source !== undefined && b.source !== undefined;
+  const trees: [Tree, Tree] = [treeOf(a, useSource), treeOf(b, useSource)];
+  // Inputs, assumptions and references have their own comparisons only when both bases validate.
+  const covered = a.basis && b.basis ? coveredBy(new Set([...a.basis.inputs, ...b.basis.inputs].map((r) => r.path)), true) : coveredBy(new Set(), false);
   const out: FieldChange[] = [];
   for (const d of diffTrees(trees[0], trees[1], { skip: covered })) {
     const old = d.old === undefined ? undefined : prune(d.old, d.path, covered);
@@ -396,12 +413,18 @@ function envelopeChanges(a: ComparableResults, b: ComparableResults, sides: Side
   return out;
 }
 
+/** The note for a side whose basis does not validate today: what is compared instead. */
+function unreadBasisNote(side: RevisionSide): string {
+  return `design inputs, assumptions and references one by one: the basis of revision ${side.revision} does not load with this version of cellbasis (${side.basisProblem ?? 'not read'}); they are compared as fields of its YAML`;
+}
+
 export function compareRevisions(a: RevisionSide, b: RevisionSide): RevisionChanges {
-  const inputs = inputChanges(a.basis.inputs, b.basis.inputs);
+  const both = a.basis && b.basis ? { a: a.basis, b: b.basis } : null;
+  const inputs = both ? inputChanges(both.a.inputs, both.b.inputs) : [];
   const fields = fieldChanges(a, b);
-  const assumptions = assumptionChanges(a.basis.assumptions, b.basis.assumptions);
-  const references = referenceChanges(a.basis.references, b.basis.references);
-  const notCompared: string[] = [];
+  const assumptions = both ? assumptionChanges(both.a.assumptions, both.b.assumptions) : [];
+  const references = both ? referenceChanges(both.a.references, both.b.references) : [];
+  const notCompared: string[] = [a, b].filter((side) => !side.basis).map(unreadBasisNote);
   const sides: Sides = { a: a.revision, b: b.revision, missing: (what, side) => notCompared.push(`${what}: not in the results of revision ${side}`) };
   const results = resultChanges(a.results.headline, b.results.headline, sides);
   const cases = caseChanges(a.results, b.results, sides);

@@ -217,7 +217,7 @@ async function pause(options: IssueOptions, step: IssueStep): Promise<void> {
 /** Whether the basis changed from the revision before, the sign-off aside (a change of the sign-off alone is not a change the sign-off must cover). */
 function changedSince(previous: IssuedRevision, working: { text: string; basis: DesignBasis }, results: Results): boolean {
   const changes = compareRevisions(
-    { revision: previous.revision, basis: previous.basis, results: previous.results, source: previous.basisText },
+    { revision: previous.revision, basis: previous.basis, ...(previous.basisProblem ? { basisProblem: previous.basisProblem } : {}), results: previous.results, source: previous.basisText },
     { revision: 'draft', basis: working.basis, results, source: working.text },
   );
   return changes.inputs.length + changes.assumptions.length + changes.references.length + changes.results.length > 0 || changes.fields.some((f) => !f.path.startsWith('document.sign-off'));

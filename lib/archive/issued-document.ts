@@ -15,18 +15,19 @@ import type { IssueDocumentInput } from './issue.ts';
 
 export function issuedDocumentInput(input: IssueDocumentInput): DocumentInput {
   const { basis, results, manifest } = input;
-  const sources = new Map<string, string>(input.previous.map((p) => [p.revision, p.basisText]));
-  sources.set(manifest.revision, input.basisText);
   const issued: IssuedRevisionRecord[] = [
-    ...input.previous.map((p) => ({ revision: p.revision, basis: p.basis, results: p.results, manifest: p.manifest, path: null })),
-    { revision: manifest.revision, basis, results, manifest, path: null },
+    ...input.previous.map((p) => ({
+      revision: p.revision,
+      basis: p.basis,
+      ...(p.basisProblem ? { basisProblem: p.basisProblem } : {}),
+      source: p.basisText,
+      results: p.results,
+      manifest: p.manifest,
+      path: null,
+    })),
+    { revision: manifest.revision, basis, source: input.basisText, results, manifest, path: null },
   ];
-  const history = revisionHistory({
-    issued,
-    draft: null,
-    changeSummary: (before, after) =>
-      compareRevisions({ ...before, source: sources.get(before.revision) }, { ...after, source: sources.get(after.revision) }).summary,
-  });
+  const history = revisionHistory({ issued, draft: null, changeSummary: (before, after) => compareRevisions(before, after).summary });
   const revision: RevisionContext = {
     kind: 'issued',
     revision: manifest.revision,

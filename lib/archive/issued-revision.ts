@@ -1,6 +1,6 @@
 /**
  * Reading one issued revision back as the documents and comparisons use it: its manifest, the
- * basis as issued (text and validated basis) and the results as issued (never recomputed here;
+ * basis as issued (text, and the basis validated by today's loader where it still reads it) and the results as issued (never recomputed here;
  * the audit recomputes), of which only what comparisons need is read, tolerant of the results
  * format of the version that issued it (issued-results.ts). Problems become UserErrors naming the file and advising an audit. A
  * revision of manifest format 1 carries the revision and status in its basis; they are read past
@@ -23,7 +23,14 @@ export interface IssuedRevision {
   manifest: IssueManifest;
   manifestBytes: Buffer;
   basisText: string;
-  basis: DesignBasis;
+  /**
+   * The basis as issued, validated by today's loader; null when today's loader does not read it
+   * (a revision issued by an earlier version whose basis format has changed since): the revision
+   * stays readable, its pages are the issued files and comparisons work on `basisText`.
+   */
+  basis: DesignBasis | null;
+  /** Today's loader's first objection to the issued basis (with basis null), else null. */
+  basisProblem: string | null;
   /** The results as issued, as far as comparisons read them (issued-results.ts): never checked against today's results schema. */
   results: ComparableResults;
 }
@@ -52,7 +59,9 @@ export function readIssuedRevision(cwd: string, projectId: string, revision: str
   if (!parsed.ok) throw damaged(display, projectId, parsed.problems[0]!);
   const basisText = read(ISSUED_FILES.basis).toString('utf8');
   const loaded = loadIssuedBasis(basisText, `${display}/${ISSUED_FILES.basis}`, projectId, parsed.manifest);
-  if (!loaded.ok) throw damaged(display, projectId, `the issued basis has errors: ${formatDiagnostic(loaded.errors[0]!)}`);
+  // Not damage: its bytes are the audit's to check (hash and signature); an issued basis that
+  // today's format rejects is read as text only.
+  const basisProblem = loaded.ok ? null : formatDiagnostic(loaded.errors[0]!);
   let raw: unknown;
   try {
     raw = JSON.parse(read(ISSUED_FILES.results).toString('utf8'));
@@ -62,5 +71,5 @@ export function readIssuedRevision(cwd: string, projectId: string, revision: str
   }
   const results = readIssuedResults(raw);
   if (!results.ok) throw damaged(`${display}/${ISSUED_FILES.results}`, projectId, `field ${results.field}: ${results.problem}`);
-  return { revision, display, manifest: parsed.manifest, manifestBytes, basisText, basis: loaded.basis, results: results.results };
+  return { revision, display, manifest: parsed.manifest, manifestBytes, basisText, basis: loaded.ok ? loaded.basis : null, basisProblem, results: results.results };
 }

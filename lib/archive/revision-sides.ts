@@ -42,5 +42,5 @@ export function readRevisionSide(cwd: string, project: string, which: string, wa
     throw new UserError(`revision ${which} of projects/${project} is not issued (${issued}; "draft" is the working basis)`, EXIT_USAGE);
   }
   const rev = readIssuedRevision(cwd, project, which);
-  return { revision: which, status: rev.manifest.status, basis: rev.basis, results: rev.results, source: rev.basisText, label: `revision ${which} (${rev.manifest.status} on ${rev.manifest.issuedOn})` };
+  return { revision: which, status: rev.manifest.status, basis: rev.basis, ...(rev.basisProblem ? { basisProblem: rev.basisProblem } : {}), results: rev.results, source: rev.basisText, label: `revision ${which} (${rev.manifest.status} on ${rev.manifest.issuedOn})` };
 }

@@ -27,7 +27,9 @@ export interface IssuedRevision {
   manifest: IssueManifest;
   /** SHA-256 of manifest.json, as the register page shows it. */
   manifestSha256: string;
-  basis: DesignBasis;
+  /** Null where today's loader does not read the issued basis (`basisProblem` says why; a warning of the site names it). */
+  basis: DesignBasis | null;
+  basisProblem: string | null;
   /** As far as the change summaries read them (lib/archive/issued-results.ts). */
   results: ComparableResults;
   /** Absolute paths of the issued document.html and document.pdf, or null where the revision has none. */
@@ -68,6 +70,9 @@ export function readIssuedRevisions(root: string, projectId: string, problems: S
       problems.error(`${read.display}/${ISSUED_FILES.manifest}`, `names revision ${read.manifest.revision}, but lies in the folder of revision ${revision}`);
       continue;
     }
+    if (read.basisProblem) {
+      problems.warning(`${read.display}/${ISSUED_FILES.basis}: does not load with this version of cellbasis (${read.basisProblem}); its issued page and PDF are shown as issued, and its change summary compares the YAML field by field (cellbasis audit ${projectId} checks the revision)`);
+    }
     const dir = issuedDir(root, projectId, revision);
     // Copied, not read: refused before the copy opens it when it is no regular file or too large.
     const checked = [ISSUED_FILES.html, ISSUED_FILES.pdf].map((name) => ({ name, ...issuedFileToCopy(dir, read.display, name) }));
@@ -80,6 +85,7 @@ export function readIssuedRevisions(root: string, projectId: string, problems: S
       manifest: read.manifest,
       manifestSha256: sha256Hex(read.manifestBytes),
       basis: read.basis,
+      basisProblem: read.basisProblem,
       results: read.results,
       html: file(ISSUED_FILES.html),
       pdf: file(ISSUED_FILES.pdf),

@@ -10,6 +10,7 @@
  * portfolio).
  */
 import { join, posix } from 'node:path';
+import { parse as parseYaml } from 'yaml';
 import { compareRevisions } from '../archive/compare.ts';
 import type { DesignBasis } from '../basis/types.ts';
 import { projectsProblemText, scanProjects } from '../basis/projects.ts';
@@ -97,9 +98,19 @@ function pageOptions(path: string) {
   return { pagePath: path, assetBase: `${rootPrefix(path)}${ASSET_DIR}/`, indexHref: relativeHref(path, INDEX_PATH) };
 }
 
-/** The change summary of lib/archive/compare.ts, with each basis's YAML text for the structural diff. */
-function compareWith(sources: Map<DesignBasis, string>): ChangeSummary {
-  return (before, after) => compareRevisions({ ...before, source: sources.get(before.basis) }, { ...after, source: sources.get(after.basis) }).summary;
+/** The change summary of lib/archive/compare.ts; each revision carries its basis's YAML text for the structural diff. */
+const compareWith: ChangeSummary = (before, after) => compareRevisions(before, after).summary;
+
+/**
+ * A text field of an issued basis's `document` block: from the validated basis, or read from its
+ * YAML where today's loader does not read it ("" when absent or not text).
+ */
+function issuedDocumentText(s: IssuedRevision, field: 'client' | 'site'): string {
+  if (s.basis) return s.basis.document[field] ?? '';
+  const tree: unknown = parseYaml(s.source);
+  const document = typeof tree === 'object' && tree !== null ? (tree as Record<string, unknown>)['document'] : undefined;
+  const value = typeof document === 'object' && document !== null ? (document as Record<string, unknown>)[field] : undefined;
+  return typeof value === 'string' ? value : '';
 }
 
 /** What one project contributes to the site. */
@@ -197,8 +208,8 @@ function issuedPages(id: string, issued: IssuedRevision[], history: RevisionHist
           projectId: id,
           number: m.documentNumber,
           title: m.title,
-          client: s.basis.document.client,
-          site: s.basis.document.site,
+          client: issuedDocumentText(s, 'client'),
+          site: issuedDocumentText(s, 'site'),
           revision: s.revision,
           manifest: { status: m.status, issuedOn: m.issuedOn, note: m.note, signOff: m.signOff, signatures: m.signatures, toolVersion: m.tool.version, chromium: m.pdf?.chromium ?? null },
           manifestSha256: s.manifestSha256,
@@ -242,14 +253,20 @@ export function loadProjectPages(loader: ProjectLoader, id: string, problems: Si
   const again = resultsAgain(loader, loaded.basis, resultsKey(bytes, id, shown), results);
   problems.findings(everyFinding(results).map((f) => formatFinding(loaded.basis, f)));
   const draftPath = draftPagePath(id);
-  const sources = new Map<DesignBasis, string>(issued.map((s) => [s.basis, s.source]));
-  sources.set(loaded.basis, Buffer.from(bytes).toString('utf8'));
   const last = issued[issued.length - 1];
   const draftRevision = nextRevision(last?.revision ?? null);
   const history = revisionHistory({
-    issued: issued.map((s) => ({ revision: s.revision, basis: s.basis, results: s.results, manifest: s.manifest, path: revisionPagePath(id, s.revision) })),
-    draft: { revision: draftRevision, basis: loaded.basis, results, path: draftPath },
-    changeSummary: options.changeSummary ?? compareWith(sources),
+    issued: issued.map((s) => ({
+      revision: s.revision,
+      basis: s.basis,
+      ...(s.basisProblem ? { basisProblem: s.basisProblem } : {}),
+      source: s.source,
+      results: s.results,
+      manifest: s.manifest,
+      path: revisionPagePath(id, s.revision),
+    })),
+    draft: { revision: draftRevision, basis: loaded.basis, source: Buffer.from(bytes).toString('utf8'), results, path: draftPath },
+    changeSummary: options.changeSummary ?? compareWith,
   });
   const date = draftDate(loaded.basis, options.env);
   const draft: RevisionContext = {

@@ -26,7 +26,15 @@ export interface IssuedFacts {
 /** A revision's content as the comparison needs it: the basis and results as issued (or of the draft). */
 export interface RevisionData {
   revision: string;
-  basis: DesignBasis;
+  /**
+   * The validated basis; null for an issued revision whose basis.yaml today's loader does not
+   * read (written by an earlier version of cellbasis): its comparison then works on the YAML.
+   */
+  basis: DesignBasis | null;
+  /** Why today's loader does not read an issued basis (with basis null). */
+  basisProblem?: string;
+  /** The basis.yaml as text, for the structural comparison of its fields. */
+  source?: string;
   /** The draft's results, or an issued revision's as far as comparisons read them. */
   results: ComparableResults;
 }
@@ -40,8 +48,9 @@ export interface IssuedRevisionRecord extends RevisionData {
   path: string | null;
 }
 
-/** The working draft: `revision` is the one it becomes when next issued. */
+/** The working draft: `revision` is the one it becomes when next issued; its basis always validates. */
 export interface DraftRecord extends RevisionData {
+  basis: DesignBasis;
   path: string | null;
 }
 

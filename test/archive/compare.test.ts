@@ -11,12 +11,13 @@ import { renderScaffold } from '../../lib/basis/scaffolds.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
 import { calculate } from '../../lib/plant/calculate.ts';
 import type { Results } from '../../lib/plant/results-schema.ts';
+import type { DesignBasis } from '../../lib/basis/types.ts';
 import { compareRevisions, type RevisionSide } from '../../lib/archive/compare.ts';
 import { edit } from '../helpers/basis-text.ts';
 
 const BASE = renderScaffold('solid-oxide', 'power', 'demo', '2026-11-30');
 
-function side(text: string, revision = 'A'): Omit<RevisionSide, 'results'> & { results: Results } {
+function side(text: string, revision = 'A'): Omit<RevisionSide, 'results' | 'basis'> & { basis: DesignBasis; results: Results } {
   const loaded = loadBasisText(text, 'projects/demo/basis.yaml', 'demo', { formerRevisionKeys: true });
   if (!loaded.ok) throw new Error(loaded.errors.map((e) => e.message).join('\n'));
   return { revision, basis: loaded.basis, results: calculate(loaded.basis), source: text };
@@ -92,6 +93,31 @@ describe('compareRevisions', () => {
     const { source: _a, ...a } = side(BASE);
     const { source: _b, ...b } = side(edit(BASE, ['  title: 250 kW', '  title: 260 kW']));
     expect(compareRevisions(a, b).fields.map((c) => c.path)).toEqual(['document.title']);
+  });
+
+  it('compares the YAML of a revision whose basis today\'s loader does not read, and says what it could not compare one by one', () => {
+    // As a revision issued by an earlier version would be after a key was renamed: no validated
+    // basis, only its text (lib/archive/issued-revision.ts). The temperature change and the new
+    // reference then appear as changes of YAML fields, the inputs and references lists are empty.
+    const changed = edit(BASE, ['value: "800 C", source: A1', 'value: "780 C", source: A1']);
+    const a = { ...side(BASE), basis: null, basisProblem: 'projects/demo/issued/A/basis.yaml:12:3: conditions.stack-temp: unknown field' };
+    const b = side(changed, 'B');
+    const changes = compareRevisions(a, b);
+    expect(changes.inputs).toEqual([]);
+    expect(changes.assumptions).toEqual([]);
+    expect(changes.references).toEqual([]);
+    expect(changes.fields.map((f) => f.text)).toEqual(['conditions.operating-temperature.value: 800 C → 780 C']);
+    expect(changes.notCompared).toEqual([
+      'design inputs, assumptions and references one by one: the basis of revision A does not load with this version of cellbasis (projects/demo/issued/A/basis.yaml:12:3: conditions.stack-temp: unknown field); they are compared as fields of its YAML',
+    ]);
+    expect(changes.summary).toContain('conditions.operating-temperature.value: 800 C → 780 C');
+    expect(changes.unchanged).toBe(false);
+    // The results are still compared: both sides carry them.
+    expect(changes.results.map((r) => r.key)).toContain('meanNernst_V');
+    // The same text on both sides: no field changes, only the note.
+    const same = compareRevisions(a, { ...side(BASE, 'B') });
+    expect(same.fields).toEqual([]);
+    expect(same.unchanged).toBe(true);
   });
 
   it('reports added, removed and changed cases and the envelope values they move', () => {

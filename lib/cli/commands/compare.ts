@@ -3,7 +3,8 @@
  * revision to another (either may be `draft`, the working basis): inputs as written, other
  * fields, assumptions, references, headline results, operating cases and the envelope
  * (lib/archive/compare.ts), and what it could not compare because the results of one revision,
- * issued by another version of cellbasis, do not carry it. A readable table, with --csv the changed inputs or headline results
+ * issued by another version of cellbasis, do not carry it, or its basis no longer loads (its
+ * YAML is then compared field by field). A readable table, with --csv the changed inputs or headline results
  * as CSV, or with --json the RevisionChanges object.
  */
 import type { Command } from '../command.ts';
@@ -83,7 +84,7 @@ function sections(changes: RevisionChanges): string {
 /** What the results of one side do not carry (issued by another version of cellbasis), so was not compared. */
 function notCompared(changes: RevisionChanges): string {
   if (!changes.notCompared.length) return '';
-  return `${changes.unchanged ? '' : '\n'}not compared (the results of one revision do not carry it)\n${changes.notCompared.map((n) => `  ${n}\n`).join('')}`;
+  return `${changes.unchanged ? '' : '\n'}not compared (one revision does not carry it, or this version does not read it)\n${changes.notCompared.map((n) => `  ${n}\n`).join('')}`;
 }
 
 function withSource(text: string | undefined, source: string | undefined): string {
