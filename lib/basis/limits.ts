@@ -209,9 +209,20 @@ const REASONS: Partial<Record<LimitedInput, [below: string, above: string]>> = {
 export function limitProblem(input: LimitedInput, label: string, read: { si: number; text: string }): string | undefined {
   const { fromSI, toSI, from, to } = limit(input);
   const [below, above] = REASONS[input] ?? [BEYOND, BEYOND];
-  if (fromSI !== undefined && read.si < fromSI) return `the ${label} ${read.text} is below ${from}, ${below}`;
-  if (toSI !== undefined && read.si > toSI) return `the ${label} ${read.text} is above ${to}, ${above}`;
+  const shown = (written: string | undefined, si: number) => limitAsWritten(input, read.text, written, si);
+  if (fromSI !== undefined && read.si < fromSI) return `the ${label} ${read.text} is below ${shown(from, fromSI)}, ${below}`;
+  if (toSI !== undefined && read.si > toSI) return `the ${label} ${read.text} is above ${shown(to, toSI)}, ${above}`;
   return undefined;
+}
+
+/**
+ * The limit as data/limits.yaml writes it, followed by the same limit in percent where the
+ * value was written in percent and the limit is a plain fraction, so that a message never sets
+ * "10 %" against "0.3" alone: `is below 0.3 (30 %)`.
+ */
+function limitAsWritten(input: LimitedInput, valueText: string, written: string | undefined, si: number): string {
+  if (DIMENSIONS[input] !== 'fraction' || !/%\s*$/.test(valueText) || written === undefined || /%/.test(written)) return String(written);
+  return `${written} (${Number((si * 100).toPrecision(12))} %)`;
 }
 
 /** The air utilization's limit, the inverse of the air ratio's: `the air utilization 1e-6 is below 0.001 (an air ratio of 1000), ...`. */
