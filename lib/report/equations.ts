@@ -532,6 +532,34 @@ function caseEquations(r: Results): EquationEntry[] {
       );
     }
   }
+  if (r.cases.length) {
+    // The mass flows the envelope sizes by, from the molar flows of the case's stream table (species data's molar masses).
+    const governed = (...ids: string[]) => r.envelope.some((e) => ids.includes(e.id));
+    const mass: Record<string, Relation> = {};
+    if (governed('air-flow')) mass.air = { lhs: sym('\\dot m_\\mathrm{air}'), symbols: { n: sym('\\dot n_\\mathrm{air}'), M: sym('M_\\mathrm{air}') }, rhs: (q, op) => `${q.n}${op.times}${q.M}` };
+    if (power && governed('fuel-flow', 'fuel-flow-least')) {
+      mass.fuel = { lhs: sym('\\dot m_\\mathrm{fuel}'), symbols: { n: sym('\\dot n_\\mathrm{feed}'), x: sym('x_\\mathrm{H_2O}'), xd: sym('x_\\mathrm{d}'), M: sym('M_\\mathrm{d}') }, rhs: (q, op) => `${q.n}${op.times}\\frac{1 - ${q.x}}{1 - ${q.xd}}${op.times}${q.M}` };
+    }
+    if (!power && governed('hydrogen-most', 'hydrogen-least')) mass.hydrogen = { lhs: sym('\\dot m_\\mathrm{H_2}'), symbols: { n: sym('\\dot n_\\mathrm{H_2}'), M: M! }, rhs: (q, op) => `${q.n}${op.times}${q.M}` };
+    if (!power && governed('water-split')) {
+      mass.split = { lhs: sym('\\dot m_\\mathrm{split}'), symbols: { nin: sym('\\dot n_\\mathrm{w,in}'), nout: sym('\\dot n_\\mathrm{w,out}'), M: sym('M_\\mathrm{H_2O}') }, rhs: (q, op) => `${op.open}${q.nin} - ${q.nout}${op.close}${op.times}${q.M}` };
+    }
+    if (Object.keys(mass).length) out.push(entry('case-mass', mass));
+    if (governed('heat-recovered')) {
+      out.push(
+        entry('case-heat-recovered', {
+          heat: { lhs: sym('Q_\\mathrm{rec}'), symbols: { Hex: sym('H_\\mathrm{ex}(T_\\mathrm{in})'), Hg: sym('H_\\mathrm{gas}(T_\\mathrm{exit})'), Hc: sym('H_\\mathrm{cond}(T_\\mathrm{exit})') }, rhs: (q) => `${q.Hex} - ${q.Hg} - ${q.Hc}` },
+        }),
+      );
+    }
+    if (!power && governed('heat-demand')) {
+      out.push(
+        entry('case-heat-demand', {
+          demand: { lhs: sym('Q_\\mathrm{dem}'), symbols: { Hout: sym('H_\\mathrm{out}'), Hin: sym('H_\\mathrm{in}'), W: sym('W_\\mathrm{in}') }, rhs: (q) => `${q.Hout} - ${q.Hin} - ${q.W}` },
+        }),
+      );
+    }
+  }
   if (r.degradation || r.cases.some((c) => c.degradation)) {
     const [V0, rate, t, R0] = [sym('V_0'), sym('r'), sym('t'), sym('\\mathrm{ASR}_0')];
     out.push(

@@ -390,6 +390,23 @@ function cases(step: Step, r: Results, table: ReadonlyMap<string, EquationEntry>
       .text('The coolant of a case (air, or the water loop) takes up the stack heat $Q$ warming by the allowed rise $\\Delta T$ to the stack temperature $T$; with $M_\\mathrm{c}$ its molar mass and $x_i$ its mole fractions,')
       .eq('case-coolant');
   }
+  if (table.has('case-mass')) {
+    step
+      .text(
+        r.technology.mode === 'power'
+          ? 'The mass flows the envelope takes are those of the case\'s stream table: the air at the air-electrode inlet, $\\dot n_\\mathrm{air}$ of mean molar mass $M_\\mathrm{air}$, and the dry fuel in the fuel feed of $\\dot n_\\mathrm{feed}$ (its steam, beyond the dry fuel\'s own water, taken off), $M_\\mathrm{d}$ the dry fuel\'s mean molar mass:'
+          : 'The mass flows the envelope takes are those of the case\'s stream table: the hydrogen made, and the water split, the water of the stack\'s inlets less that of its outlets:',
+      )
+      .eq('case-mass');
+  }
+  if (table.has('case-heat-recovered')) {
+    step
+      .text('The heat recovered from the exhaust of a case is the enthalpy the exhaust brings in less that of the gas and the condensate leaving at the exit temperature (enthalpy is a state function, so where the water condenses does not matter):')
+      .eq('case-heat-recovered');
+  }
+  if (table.has('case-heat-demand')) {
+    step.text('Below the thermoneutral voltage an electrolysis stack takes heat: the heat to supply is the enthalpy balance of the stack with its sign reversed,').eq('case-heat-demand');
+  }
   if (table.has('degradation')) {
     step
       .text('At the end of life the cell voltage (at the same current density) or the area-specific resistance has changed in proportion to the operating time $t$ at the stated rate $r$, a linear law (common practice, no source):')

@@ -11,6 +11,7 @@ import type { CaseResult, Results } from '../../lib/plant/results-schema.ts';
 import { ENVELOPE_QUANTITIES } from '../../lib/plant/envelope.ts';
 import { documentView } from '../../lib/report/document.ts';
 import { CASE_ROWS } from '../../lib/report/sections/cases.ts';
+import { formatTemperature } from '../../lib/report/format.ts';
 import { renderDocumentHtml } from '../../lib/publish/render.ts';
 import type { RevisionContext } from '../../lib/report/revision.ts';
 
@@ -39,6 +40,17 @@ function formula(id: string, n: Record<string, number>, power: boolean): number 
   // A duty is the enthalpy change of its stream; the adiabatic oxidiser's products hold the reactants' enthalpy.
   if (id.endsWith('-fuel-preheat') || id.endsWith('-air-preheat')) return n.Hout! - n.Hin!;
   if (id.endsWith('-oxidiser-enthalpy')) return n.Hog! + n.Hox!;
+  // Mass flows from the molar flows of the case's streams: ṁ = ṅ M, the dry fuel ṅ (1 − x)/(1 − x_d) M_d, the water split (ṅ_in − ṅ_out) M, per hour.
+  if (id.endsWith('-air-mass') || id.endsWith('-hydrogen-mass')) return n.n! * n.M! * 3600;
+  if (id.endsWith('-fuel-mass')) return ((n.n! * (1 - n.x!)) / (1 - n.xd!)) * n.M! * 3600;
+  if (id.endsWith('-water-split')) return (n.nin! - n.nout!) * n.M! * 3600;
+  if (id.endsWith('-pre-reformer-duty') || id.endsWith('-reformed-gas-heating')) return n.Hout! - n.Hin!;
+  // The exhaust's enthalpy in less its gas and condensate out at the exit temperature.
+  if (id.endsWith('-heat-recovered')) return n.Hex! - n.Hg! - n.Hc!;
+  // Below thermoneutral the stack takes −(H_in − H_out + W).
+  if (id.endsWith('-heat-demand')) return n.Hout! - n.Hin! - n.W!;
+  // The local current at the terminals where E is highest (power) or lowest (electrolysis): (t E − ΔV_x − V)/ASR or (V − t E)/ASR, A/cm² with ASR in Ω cm².
+  if (id.endsWith('-local-current')) return power ? ((n.t ?? 1) * n.E! - (n.dV ?? 0) - n.V!) / n.ASR! : (n.V! - (n.t ?? 1) * n.E!) / n.ASR!;
   if (id.endsWith('-degradation')) return n.V0 !== undefined ? n.V0 * (1 + (power ? -1 : 1) * n.r! * n.t!) : n.R0! * (1 + n.r! * n.t!);
   if (id.endsWith('-cell-current')) return n.j! * n.A!;
   if (id.endsWith('-stack-power')) return (n.V! * n.I!) / 1000;
@@ -69,10 +81,81 @@ function resultOf(id: string, c: CaseResult): number {
   if (id.endsWith('-steam-raising')) return c.plant!.power!.steam!.duty_W / 1000;
   if (id.endsWith('-delivered-heat')) return c.plant!.power!.heatRecovery!.deliveredHeat_W / 1000;
   if (id.endsWith('-fuel-preheat') || id.endsWith('-air-preheat')) return c.plant!.power!.duties.find((d) => id.endsWith(`-${d.id}`))!.duty_W / 1000;
+  if (id.endsWith('-air-mass')) return c.supply!.air_kg_per_h!;
+  if (id.endsWith('-fuel-mass')) return c.supply!.fuel_kg_per_h!;
+  if (id.endsWith('-hydrogen-mass')) return h.hydrogenProduction_kg_per_h!;
+  if (id.endsWith('-water-split')) return c.supply!.waterSplit_kg_per_h!;
+  if (id.endsWith('-pre-reformer-duty')) return c.plant!.power!.duties.find((d) => d.id === 'pre-reformer')!.duty_W / 1000;
+  if (id.endsWith('-reformed-gas-heating')) return c.plant!.power!.duties.find((d) => d.id === 'reformed-gas-heating')!.duty_W / 1000;
+  if (id.endsWith('-heat-recovered')) return c.plant!.power!.heatRecovery!.heatWithCondensation_W / 1000;
+  if (id.endsWith('-heat-demand')) return c.heat!.heatDemand_W! / 1000;
+  if (id.endsWith('-local-current')) return h.maxLocalCurrentDensity_A_per_m2 / 1e4;
   return NaN;
 }
 
-describe.each(['thistlemere-sofc-chp', 'kestrelford-pem-electrolyser', 'corrin-beck-mcfc-biogas'])('the cases section of %s', (id) => {
+/**
+ * The worked lines (by the end of their ids) that state each envelope quantity, and the factor from
+ * the results' unit to the line's (W to kW, A/m² to A/cm²).
+ */
+const ROW_LINES: Record<string, { lines: string[]; factor: number }> = {
+  'air-flow': { lines: ['air-mass'], factor: 1 },
+  'cooling-air': { lines: ['cooling-air'], factor: 1 },
+  'fuel-flow': { lines: ['fuel-mass'], factor: 1 },
+  'fuel-flow-least': { lines: ['fuel-mass'], factor: 1 },
+  'water-flow': { lines: ['water-flow'], factor: 1 },
+  'water-split': { lines: ['water-split'], factor: 1 },
+  'cooling-water': { lines: ['cooling-water'], factor: 1 },
+  'stack-heat': { lines: ['heat-balance'], factor: 1e-3 },
+  'heat-demand': { lines: ['heat-demand'], factor: 1e-3 },
+  'dc-current': { lines: ['bus-current'], factor: 1 },
+  'string-current': { lines: ['cell-current'], factor: 1 },
+  'dc-power': { lines: ['dc-power'], factor: 1e-3 },
+  'dc-voltage-highest': { lines: ['bus-voltage'], factor: 1 },
+  'dc-voltage-lowest': { lines: ['bus-voltage'], factor: 1 },
+  'cell-voltage-lowest': { lines: ['cell-voltage', 'degradation'], factor: 1 },
+  'local-current-density': { lines: ['hot-spot', 'local-current'], factor: 1e-4 },
+  'carbon-margin': { lines: ['carbon-margin'], factor: 1 },
+  'hydrogen-most': { lines: ['hydrogen-mass'], factor: 1 },
+  'hydrogen-least': { lines: ['hydrogen-mass'], factor: 1 },
+  'steam-raising': { lines: ['steam-raising'], factor: 1e-3 },
+  'pre-reformer-duty': { lines: ['pre-reformer-duty'], factor: 1e-3 },
+  'fuel-preheat': { lines: ['fuel-preheat'], factor: 1e-3 },
+  'reformed-gas-heating': { lines: ['reformed-gas-heating'], factor: 1e-3 },
+  'air-preheat': { lines: ['air-preheat'], factor: 1e-3 },
+  'heat-recovered': { lines: ['heat-recovered'], factor: 1e-3 },
+  'heat-delivered': { lines: ['delivered-heat'], factor: 1e-3 },
+};
+
+describe.each(['thistlemere-sofc-chp', 'kestrelford-pem-electrolyser', 'corrin-beck-mcfc-biogas', 'hob-tor-pem-backup'])('the envelope of %s', (id) => {
+  const { basis, results } = demo(id);
+  const view = documentView({ basis, results, revision: draft, history: [] }, { assetBase: './', checks: [] });
+  it('has, for every governing value, a worked line of its case that states that number', () => {
+    expect(results.envelope.length).toBeGreaterThan(0);
+    for (const e of results.envelope) {
+      const c = results.cases.find((k) => k.id === e.case)!;
+      const own = view.cases.lines.find((g) => g.id === `cases-${c.id}`)?.lines ?? [];
+      // The sizing case's lines are those of section 6 and, for what that section has not, its group here.
+      const lines = c.sizing ? [...own, ...view.results.groups.flatMap((g) => g.lines)] : own;
+      if (e.id === 'oxidiser-temperature') {
+        // An implicit line: the temperature is the one at which the products hold the reactants' enthalpy, stated in its title.
+        const line = lines.find((l) => l.id.endsWith('oxidiser-enthalpy'));
+        expect(line?.title, e.id).toContain(formatTemperature(e.value));
+        continue;
+      }
+      if (e.id === 'cell-voltage-lowest' && c.electrochemistry!.voltageSource === 'given') {
+        // A given cell voltage is a design input, not derived: its line solves the resistance from it.
+        expect(c.headline!.cellVoltage_V).toBe(e.value);
+        continue;
+      }
+      const row = ROW_LINES[e.id];
+      expect(row, `no line is named for the envelope row ${e.id}`).toBeDefined();
+      const found = lines.filter((l) => row!.lines.some((w) => l.id === w || l.id.endsWith(`-${w}`)) && Math.abs(l.value - e.value * row!.factor) <= 1e-9 * Math.abs(e.value * row!.factor));
+      expect(found.length, `${e.id} (case ${e.case}): ${lines.map((l) => l.id).join(', ')}`).toBeGreaterThan(0);
+    }
+  });
+});
+
+describe.each(['thistlemere-sofc-chp', 'kestrelford-pem-electrolyser', 'corrin-beck-mcfc-biogas', 'hob-tor-pem-backup'])('the cases section of %s', (id) => {
   const { basis, results } = demo(id);
   const view = documentView({ basis, results, revision: draft, history: [] }, { assetBase: './', checks: [] });
   const section = view.cases;

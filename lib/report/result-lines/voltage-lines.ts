@@ -177,9 +177,18 @@ function cellVoltageLines(r: Results, book: EquationBook): LineSpec[] {
 /** The highest local current density: the local current of the terminals where it peaks (the inlet, the hot spot). */
 function hotSpotLine(r: Results, book: EquationBook): LineSpec {
   const { index, point } = hotSpot(r);
-  const pool = voltagePool(r, book);
   const at = index === 0 ? `the inlet${r.fuelPath.inlet === 'first-increment' ? ' (first increment)' : ''}` : `u = ${Number(point.utilization.toPrecision(4))}`;
-  const E: QuantitySpec = { name: 'E', value: point.nernst_V, unit: 'V', origin: `Nernst voltage at ${at}, the ${r.technology.mode === 'power' ? 'highest' : 'lowest'} along the cell` };
+  return localCurrentLine(r, book, point.nernst_V, at);
+}
+
+/**
+ * The local current density at the terminals where the Nernst voltage is `nernstV` (at `at`), as
+ * the highest along the cell: i = (t E − ΔV_x − V)/ASR in power mode, (V − t E)/ASR in electrolysis,
+ * with the voltages and resistance of `r` (a case's, whose hot spot is its inlet).
+ */
+export function localCurrentLine(r: Results, book: EquationBook, nernstV: number, at: string): LineSpec {
+  const pool = voltagePool(r, book);
+  const E: QuantitySpec = { name: 'E', value: nernstV, unit: 'V', origin: `Nernst voltage at ${at}, the ${r.technology.mode === 'power' ? 'highest' : 'lowest'} along the cell` };
   return {
     id: 'hot-spot',
     title: `Highest local current density, at ${at} (the hot spot)`,

@@ -5,7 +5,10 @@
  * that sets it; and the worked lines of each case that is not the sizing case (the load it meets,
  * its degradation, and the lines of every value it governs). The sizing case's own lines are
  * those of the results section, with here those of its governing values that section has not
- * (the DC power at the bus, the water fed, the coolant).
+ * (the DC power at the bus, the water fed, the coolant, the mass flows of air, dry fuel, hydrogen
+ * and water split, the pre-reformer and reformed-gas duties, the heat recovered, the heat to
+ * supply). Every governing value of the envelope thus has a line that states its number (a test
+ * checks each row of every demo).
  */
 import type { DesignBasis } from '../../basis/types.ts';
 import type { CaseResult, EnvelopeRow, Results } from '../../plant/results-schema.ts';
@@ -18,6 +21,7 @@ import type { EquationBook } from '../equation-book.ts';
 import { formatNumber } from '../format.ts';
 import { resultLines, type LineGroup } from '../result-lines.ts';
 import { constF } from '../result-lines/common.ts';
+import { localCurrentLine } from '../result-lines/voltage-lines.ts';
 import { crossTable, recordsTable, type Table } from '../table.ts';
 
 export interface CasesSection {
@@ -330,6 +334,163 @@ function degradationLine(c: CaseResult): LineSpec | null {
   };
 }
 
+/** A case's line, named after the case: its id prefixed with the case's, its title led by the case. */
+function forCase<L extends { id: string; title: string }>(c: CaseResult, line: L, what = line.id): L {
+  return { ...line, id: `case-${c.id}-${what}`, title: `Case ${c.id}: ${line.title.charAt(0).toLowerCase()}${line.title.slice(1)}` };
+}
+
+const HOUR = ' \\times 3600\\,\\mathrm{s/h}';
+
+/** A mass flow of the envelope from the molar flows of the case's stream table, kg/h (the results' supply and headline). */
+function massLines(r: Results, basis: DesignBasis, c: CaseResult, ids: ReadonlySet<string>): LineSpec[] {
+  const lines: LineSpec[] = [];
+  const stream = (id: string) => c.streams.find((s) => s.id === id);
+  const molar = (x: Readonly<Record<string, number>>) => Object.entries(x).reduce((a, [k, v]) => a + v * getSpecies(k).molarMassKgPerMol, 0);
+  const air = stream('air-inlet');
+  if (ids.has('air-flow') && air && c.supply?.air_kg_per_h != null) {
+    lines.push({
+      id: `case-${c.id}-air-mass`,
+      title: `Case ${c.id}: air supplied, by mass`,
+      equation: 'case-mass',
+      relation: 'air',
+      quantities: [
+        { name: 'n', value: air.flow_mol_per_s, unit: 'mol/s', origin: `${air.name}, stream table of the case` },
+        { name: 'M', value: molar(air.moleFractions), unit: 'kg/mol', origin: 'mean molar mass of that air, species data' },
+      ],
+      conversion: HOUR,
+      value: c.supply.air_kg_per_h,
+      unit: 'kg/h',
+    });
+  }
+  const dry = basis.fuelElectrode?.composition;
+  const feed = stream('fuel-feed') ?? stream('fuel-inlet');
+  if ((ids.has('fuel-flow') || ids.has('fuel-flow-least')) && r.technology.mode === 'power' && dry && feed && c.supply?.fuel_kg_per_h != null) {
+    lines.push({
+      id: `case-${c.id}-fuel-mass`,
+      title: `Case ${c.id}: dry fuel supplied, by mass`,
+      equation: 'case-mass',
+      relation: 'fuel',
+      quantities: [
+        { name: 'n', value: feed.flow_mol_per_s, unit: 'mol/s', origin: `fuel feed with its steam (${feed.name}), stream table of the case` },
+        { name: 'x', value: feed.moleFractions.H2O ?? 0, unit: '', origin: 'steam mole fraction of the fuel feed, stream table of the case' },
+        { name: 'xd', value: dry.H2O ?? 0, unit: '', origin: 'water mole fraction of the dry fuel, design input' },
+        { name: 'M', value: molar(dry), unit: 'kg/mol', origin: 'mean molar mass of the dry fuel, species data' },
+      ],
+      conversion: HOUR,
+      value: c.supply.fuel_kg_per_h,
+      unit: 'kg/h',
+    });
+  }
+  const h2 = c.efficiency?.hydrogenProduction_mol_per_s;
+  if ((ids.has('hydrogen-most') || ids.has('hydrogen-least')) && r.technology.mode !== 'power' && h2 != null && !c.efficiency?.carbonMonoxideProduction_mol_per_s && c.headline?.hydrogenProduction_kg_per_h != null) {
+    lines.push({
+      id: `case-${c.id}-hydrogen-mass`,
+      title: `Case ${c.id}: hydrogen made, by mass`,
+      equation: 'case-mass',
+      relation: 'hydrogen',
+      quantities: [
+        { name: 'n', value: h2, unit: 'mol/s', origin: "hydrogen made, I_ion/2F (Faraday's law)" },
+        { name: 'M', value: getSpecies('H2').molarMassKgPerMol, unit: 'kg/mol', origin: 'species data' },
+      ],
+      conversion: HOUR,
+      value: c.headline.hydrogenProduction_kg_per_h,
+      unit: 'kg/h',
+    });
+  }
+  if (ids.has('water-split') && r.technology.mode !== 'power' && c.supply?.waterSplit_kg_per_h != null) {
+    const water = (ids: readonly string[]) => c.streams.filter((s) => ids.includes(s.id)).reduce((a, s) => a + (s.speciesFlows_mol_per_s.H2O ?? 0) + (s.speciesFlows_mol_per_s['H2O(L)'] ?? 0), 0);
+    lines.push({
+      id: `case-${c.id}-water-split`,
+      title: `Case ${c.id}: water split`,
+      equation: 'case-mass',
+      relation: 'split',
+      quantities: [
+        { name: 'nin', value: water(['fuel-inlet', 'air-inlet']), unit: 'mol/s', origin: "water, vapour and liquid, of the stack's inlets, stream table of the case" },
+        { name: 'nout', value: water(['fuel-outlet', 'air-outlet']), unit: 'mol/s', origin: "water, vapour and liquid, of the stack's outlets, stream table of the case" },
+        { name: 'M', value: getSpecies('H2O').molarMassKgPerMol, unit: 'kg/mol', origin: 'species data' },
+      ],
+      conversion: HOUR,
+      value: c.supply.waterSplit_kg_per_h,
+      unit: 'kg/h',
+    });
+  }
+  return lines;
+}
+
+/** The pre-reformer's duty and the reformed gas heated to the stack, from the enthalpy flows of the case's plant streams. */
+function reformerLines(c: CaseResult, ids: ReadonlySet<string>): LineSpec[] {
+  const p = c.plant?.power;
+  if (!p) return [];
+  const stream = (id: string) => c.plant!.streams.find((s) => s.id === id);
+  const duty = (id: string) => p.duties.find((d) => d.id === id);
+  const feed = stream('pre-reformer-feed');
+  const outlet = stream('pre-reformer-outlet');
+  const inlet = stream('fuel-inlet');
+  const lines: LineSpec[] = [];
+  const line = (what: string, title: string, d: { duty_W: number }, out: { enthalpyFlow_W: number; name: string }, into: { enthalpyFlow_W: number; name: string }): LineSpec => ({
+    id: `case-${c.id}-${what}`,
+    title: `Case ${c.id}: ${title}`,
+    equation: 'plant-duty',
+    relation: 'duty',
+    quantities: [
+      { name: 'Hout', value: out.enthalpyFlow_W / 1000, unit: 'kW', origin: `${out.name}, plant stream table of the case` },
+      { name: 'Hin', value: into.enthalpyFlow_W / 1000, unit: 'kW', origin: `${into.name}, plant stream table of the case` },
+    ],
+    value: d.duty_W / 1000,
+    unit: 'kW',
+  });
+  const pre = duty('pre-reformer');
+  // An adiabatic pre-reformer has no duty: its outlet holds the feed's enthalpy, and the line would show only that balance.
+  if (ids.has('pre-reformer-duty') && pre && feed && outlet && pre.duty_W !== 0) lines.push(line('pre-reformer-duty', 'pre-reformer duty (held at its temperature)', pre, outlet, feed));
+  const heating = duty('reformed-gas-heating');
+  if (ids.has('reformed-gas-heating') && heating && outlet && inlet) lines.push(line('reformed-gas-heating', 'reformed gas heated to the fuel-electrode inlet', heating, inlet, outlet));
+  return lines;
+}
+
+/** The heat recovered from a case's exhaust (with condensation): the enthalpy in less the gas and condensate out. */
+function heatRecoveredLine(c: CaseResult): LineSpec | null {
+  const p = c.plant?.power;
+  const hr = p?.heatRecovery;
+  if (!p || !hr) return null;
+  const stream = (id: string) => c.plant!.streams.find((s) => s.id === id);
+  const entering = stream('exhaust-mixed') ?? stream('oxidiser-outlet');
+  const exit = stream('exhaust');
+  if (!entering || !exit) return null;
+  const condensate = stream('condensate');
+  return {
+    id: `case-${c.id}-heat-recovered`,
+    title: `Case ${c.id}: heat recovered from the exhaust, with condensation`,
+    equation: 'case-heat-recovered',
+    relation: 'heat',
+    quantities: [
+      { name: 'Hex', value: entering.enthalpyFlow_W / 1000, unit: 'kW', origin: `${entering.name} entering the heat recovery, plant stream table of the case` },
+      { name: 'Hg', value: exit.enthalpyFlow_W / 1000, unit: 'kW', origin: `${exit.name} at the exit temperature, plant stream table of the case` },
+      { name: 'Hc', value: (condensate?.enthalpyFlow_W ?? 0) / 1000, unit: 'kW', origin: condensate ? 'condensate at the exit temperature, plant stream table of the case' : 'none: no water condenses' },
+    ],
+    value: hr.heatWithCondensation_W / 1000,
+    unit: 'kW',
+  };
+}
+
+/** The heat an electrolysis case takes below the thermoneutral voltage: its enthalpy balance with the sign reversed. */
+function heatDemandLine(c: CaseResult): LineSpec | null {
+  const heat = c.heat;
+  if (!heat || heat.heatDemand_W == null) return null;
+  return {
+    id: `case-${c.id}-heat-demand`,
+    title: `Case ${c.id}: heat to supply to the stack (below the thermoneutral voltage)`,
+    equation: 'case-heat-demand',
+    relation: 'demand',
+    quantities: [
+      { name: 'Hout', value: heat.outletEnthalpy_W / 1000, unit: 'kW', origin: 'outlet streams (stream table of the case)' },
+      { name: 'Hin', value: heat.inletEnthalpyIsothermal_W / 1000, unit: 'kW', origin: 'inlet streams at the stack temperature' },
+      { name: 'W', value: heat.electricWorkIn_W / 1000, unit: 'kW', origin: 'the stack power input' },
+    ],
+    value: heat.heatDemand_W / 1000,
+    unit: 'kW',
+  };
+}
+
 /** The worked lines of section 6 that derive each envelope quantity (by envelope id). */
 const GOVERNING_LINES: Readonly<Record<string, readonly string[]>> = {
   'dc-current': ['bus-current'],
@@ -358,12 +519,17 @@ const CASE_GROUPS = new Set(['results-size', 'results-flows', 'results-heat', 'r
 const CASE_LINES = new Set(['cell-voltage']);
 
 /** The lines this module writes for the envelope quantities section 6 has no line for, by envelope id. */
-function ownGoverningLines(r: Results, basis: DesignBasis, c: CaseResult, ids: ReadonlySet<string>): LineSpec[] {
+function ownGoverningLines(r: Results, basis: DesignBasis, c: CaseResult, ids: ReadonlySet<string>, book: EquationBook): LineSpec[] {
   const lines: (LineSpec | null)[] = [];
   if (ids.has('dc-power')) lines.push(busPowerLine(c));
   if (ids.has('water-flow')) lines.push(waterLine(r, basis, c));
   if (ids.has('cooling-air')) lines.push(coolantLine(r, c, 'cooling-air'));
   if (ids.has('cooling-water')) lines.push(coolantLine(r, c, 'cooling-water'));
+  lines.push(...massLines(r, basis, c, ids), ...reformerLines(c, ids));
+  if (ids.has('heat-recovered')) lines.push(heatRecoveredLine(c));
+  if (ids.has('heat-demand')) lines.push(heatDemandLine(c));
+  // The sizing case's hot spot is a line of section 6 (its fuel path); a case's is at its inlet, whose Nernst voltage it reports.
+  if (ids.has('local-current-density') && !c.sizing) lines.push(forCase(c, localCurrentLine(asResults(r, c), book, c.headline!.inletNernst_V, 'the inlet'), 'local-current'));
   return lines.filter((l): l is LineSpec => l !== null);
 }
 
@@ -374,7 +540,7 @@ function ownGoverningLines(r: Results, basis: DesignBasis, c: CaseResult, ids: R
 function caseLines(r: Results, basis: DesignBasis, c: CaseResult, book: EquationBook): LineGroup {
   const governs = new Set(r.envelope.filter((e) => e.case === c.id).map((e) => e.id));
   const caseBasis = basis.cases.find((k) => k.id === c.id)?.basis ?? basis;
-  const ownGoverning = ownGoverningLines(r, caseBasis, c, governs);
+  const ownGoverning = ownGoverningLines(r, caseBasis, c, governs, book);
   if (c.sizing) return { id: `cases-${c.id}`, title: `Case ${c.id}: ${c.title} (sizing case)`, lines: ownGoverning.map((s) => calcLine(s, book)) };
   const own = [loadLine(r, c), degradationLine(c), ...ownGoverning].filter((s): s is LineSpec => s !== null).map((s) => calcLine(s, book));
   const wanted = new Set([...governs].flatMap((id) => GOVERNING_LINES[id] ?? []));
@@ -385,7 +551,7 @@ function caseLines(r: Results, basis: DesignBasis, c: CaseResult, book: Equation
     ? resultLines(asResults(r, c), caseBasis, book)
         .flatMap((g) => g.lines.filter((l) => groups.has(g.id) || CASE_LINES.has(l.id)))
         .filter((l) => wanted.has(l.id))
-        .map((l) => ({ ...l, id: `case-${c.id}-${l.id}`, title: `Case ${c.id}: ${l.title.charAt(0).toLowerCase()}${l.title.slice(1)}` }))
+        .map((l) => forCase(c, l))
     : [];
   return { id: `cases-${c.id}`, title: `Case ${c.id}: ${c.title}`, lines: [...own, ...governing] };
 }
