@@ -20,8 +20,9 @@
  * beyond the reversible limit, a fuel that cannot reach its utilization) is a critical finding
  * of that case, `case-cannot-run`, with its figures null; the basis still calculates.
  *
- * Cases that share the fuel gas (the same feeds, utilization, temperature and pressures) share
- * its fuel path and carbon margin, which do not depend on the load or the resistance, and cases
+ * Cases that share the fuel path's inputs (the same feeds, utilization, temperature and pressures:
+ * StageMemo) share its fuel path and carbon margin, which do not depend on the load or the
+ * resistance, and cases
  * on the same dry fuel at the same temperature and pressure (the sizing case among them) share
  * its least carbon-free steam-to-carbon ratio, whatever their air side: each is evaluated once and
  * reused, which gives the same numbers as evaluating it again.
@@ -30,7 +31,9 @@ import type { DesignBasis, OperatingCase } from '../basis/types.ts';
 import { BasisError } from '../basis/diagnostics.ts';
 import { UserError } from '../core/errors.ts';
 import { designInputs, type DesignInputs } from './design-inputs.ts';
-import { cellVoltageOf, evaluateDesignPoint, unitStage, type DesignPoint, type UnitStage } from './design-point.ts';
+import { cellVoltageOf, evaluateDesignPoint, fuelPathRequest, type DesignPoint, type UnitStage } from './design-point.ts';
+import { unitFeeds, type UnitFeeds } from './unit-feeds.ts';
+import { fuelPath, type FuelPath, type FuelPathRequest } from '../equilibrium/fuel-path.ts';
 import { carbonMargin, type CarbonLimits } from './carbon-margin.ts';
 import { currentDensityForTarget } from './case-load.ts';
 import { locateCalculationErrors } from './located-error.ts';
@@ -73,14 +76,66 @@ export function caseInputs(c: OperatingCase, hardware: Hardware): DesignInputs {
   return inputs;
 }
 
-/** What the fuel path and the unit feeds depend on: cases with the same key share them. */
-function stageKey(i: DesignInputs): string {
-  return JSON.stringify([i.technology.id, i.mode, i.temperatureK, i.fuelPressureBar, i.airPressureBar, i.utilization, i.air, i.fuelFeed, i.airFeed, i.preReforming, i.intervals, i.refineV]);
+/** Every field of the design inputs that unit-feeds.ts reads: cases with the same key have the same unit feeds. */
+function feedsKey(i: DesignInputs): string {
+  return JSON.stringify([i.technology.id, i.mode, i.temperatureK, i.fuelPressureBar, i.utilization, i.air, i.fuelFeed, i.airFeed, i.anodeRecycle, i.preReforming]);
 }
 
-/** What the carbon margin depends on beyond the fuel path. */
-function carbonKey(i: DesignInputs): string {
-  return JSON.stringify([stageKey(i), i.dryFuel, i.steamToCarbon ?? null]);
+/** The whole request of a fuel path (technology by its id; JSON numbers round-trip exactly): requests with the same key are the same request. */
+function pathKey(request: FuelPathRequest): string {
+  const { technology, seeds: _seeds, ...rest } = request;
+  return JSON.stringify([technology.id, rest]);
+}
+
+/**
+ * The unit feeds and fuel paths of one calculation, each kept under everything it is computed
+ * from (feedsKey: the inputs unit-feeds.ts reads; pathKey: the fuel path's whole request), so that
+ * a case whose inputs to them equal an earlier one's (the sizing case's first) takes that result
+ * instead of solving the equilibria again: a case that changes only its load, its air-electrode
+ * inlet temperature, the ambient or the degradation, for one. Both functions are pure, so the
+ * results are the same bytes as when each is computed again (a test checks). A case that changes
+ * the air ratio changes the air-electrode gas along the path, so the Nernst voltage of its fuel
+ * path: it is computed again. A request with seeds (a neighbouring path's equilibria to start
+ * from) is not kept, since its result depends on them. `reuse: false` computes every stage.
+ */
+export class StageMemo {
+  private readonly feeds = new Map<string, UnitFeeds>();
+  private readonly paths = new Map<string, FuelPath>();
+  /** The fuel paths solved (not taken from the memo). */
+  solved = 0;
+
+  constructor(private readonly reuse = true) {}
+
+  /** Keeps a stage already evaluated (the sizing case's) under its inputs. */
+  keep(inputs: DesignInputs, stage: UnitStage): void {
+    if (!this.reuse) return;
+    this.feeds.set(feedsKey(inputs), stage.unit);
+    const request = fuelPathRequest(inputs, stage.unit);
+    if (!request.seeds) this.paths.set(pathKey(request), stage.path);
+  }
+
+  stage(inputs: DesignInputs): UnitStage {
+    const fKey = feedsKey(inputs);
+    let unit = this.reuse ? this.feeds.get(fKey) : undefined;
+    if (!unit) {
+      unit = unitFeeds(inputs);
+      if (this.reuse) this.feeds.set(fKey, unit);
+    }
+    const request = fuelPathRequest(inputs, unit);
+    const key = this.reuse && !request.seeds ? pathKey(request) : null;
+    let path = key === null ? undefined : this.paths.get(key);
+    if (!path) {
+      path = fuelPath(request);
+      this.solved++;
+      if (key !== null) this.paths.set(key, path);
+    }
+    return { unit, path };
+  }
+}
+
+/** What the carbon margin depends on: the fuel path and the unit feeds (the pre-reformer's), the dry fuel and the steam added. */
+function carbonKey(i: DesignInputs, stage: UnitStage): string {
+  return JSON.stringify([feedsKey(i), pathKey(fuelPathRequest(i, stage.unit)), i.dryFuel, i.steamToCarbon ?? null]);
 }
 
 /** A finding's paths where the case's file places them: a field the case overrides, at its override. */
@@ -178,9 +233,9 @@ export interface StagedCase {
  * the points come before any case's plant. `limits` are the least carbon-free steam-to-carbon
  * ratios found so far, which the cases share with the sizing case and add to.
  */
-export function stageCases(cases: readonly OperatingCase[], sizing: DesignPoint, limits: CarbonLimits = new Map()): StagedCase[] {
+export function stageCases(cases: readonly OperatingCase[], sizing: DesignPoint, limits: CarbonLimits = new Map(), stages: StageMemo = new StageMemo()): StagedCase[] {
   const hardware = hardwareOf(sizing);
-  const stages = new Map<string, UnitStage>([[stageKey(sizing.inputs), { unit: sizing.unit, path: sizing.path }]]);
+  stages.keep(sizing.inputs, { unit: sizing.unit, path: sizing.path });
   const carbons = new Map<string, ReturnType<typeof carbonMargin>>();
   return cases.map((c) => (c.sizing ? { case: c, run: null, notRun: null } : stageCase(c, hardware, stages, carbons, limits)));
 }
@@ -223,7 +278,7 @@ export function caseResults(staged: readonly StagedCase[], sizing: DesignPoint, 
   });
 }
 
-function stageCase(c: OperatingCase, hardware: Hardware, stages: Map<string, UnitStage>, carbons: Map<string, ReturnType<typeof carbonMargin>>, limits: CarbonLimits): StagedCase {
+function stageCase(c: OperatingCase, hardware: Hardware, stages: StageMemo, carbons: Map<string, ReturnType<typeof carbonMargin>>, limits: CarbonLimits): StagedCase {
   let inputs = caseInputs(c, hardware);
   const resistance: CaseResult['resistance'] = ownResistance(c)
     ? null
@@ -231,12 +286,7 @@ function stageCase(c: OperatingCase, hardware: Hardware, stages: Map<string, Uni
   let point: DesignPoint;
   try {
     point = locateCalculationErrors(c.basis, () => {
-      const key = stageKey(inputs);
-      let stage = stages.get(key);
-      if (!stage) {
-        stage = unitStage(inputs);
-        stages.set(key, stage);
-      }
+      const stage = stages.stage(inputs);
       if (c.load === 'target-power' || c.load === 'target-hydrogen') {
         const size = c.basis.operatingPoint.size;
         const value = size.kind === 'power' ? size.powerW : size.kind === 'hydrogen' ? size.kgPerS : NaN;
@@ -251,7 +301,7 @@ function stageCase(c: OperatingCase, hardware: Hardware, stages: Map<string, Uni
     if (error instanceof BasisError) return { case: c, run: null, notRun: notRun(c, error.errors[0]!.path, error.errors.map((e) => e.message).join('; ')) };
     throw error;
   }
-  const key = carbonKey(inputs);
+  const key = carbonKey(inputs, point);
   let carbon = carbons.get(key);
   if (!carbon) {
     carbon = carbonMargin(point, limits);

@@ -7,7 +7,7 @@
  * numbers, which the sensitivity study relies on.
  */
 import { getSpecies } from '../thermo/species-data.ts';
-import { fuelPath, type FuelPath } from '../equilibrium/fuel-path.ts';
+import { fuelPath, type FuelPath, type FuelPathRequest } from '../equilibrium/fuel-path.ts';
 import type { DesignInputs } from './design-inputs.ts';
 import { unitFeeds, type UnitFeeds } from './unit-feeds.ts';
 import { voltageModelAt, type CellVoltageRequest, type OperatingVoltage } from './voltage.ts';
@@ -90,7 +90,12 @@ export function cellRequest({ inputs, path }: Pick<DesignPoint, 'inputs' | 'path
 
 /** The fuel path on the unit scale of `unit`. */
 function unitPath(inputs: DesignInputs, unit: UnitFeeds): FuelPath {
-  return fuelPath({
+  return fuelPath(fuelPathRequest(inputs, unit));
+}
+
+/** What the fuel path on the unit scale of `unit` is computed from: all of it (fuel-path.ts is pure in it). */
+export function fuelPathRequest(inputs: DesignInputs, unit: UnitFeeds): FuelPathRequest {
+  return {
     technology: inputs.technology,
     mode: inputs.mode,
     temperatureK: inputs.temperatureK,
@@ -103,7 +108,7 @@ function unitPath(inputs: DesignInputs, unit: UnitFeeds): FuelPath {
     intervals: inputs.intervals,
     refineV: inputs.refineV,
     ...(inputs.seeds ? { seeds: inputs.seeds } : {}),
-  });
+  };
 }
 
 /**

@@ -6,7 +6,10 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { parseDocument } from 'yaml';
-import { calculate, casePlant, evaluateBasis } from '../../lib/plant/calculate.ts';
+import { calculate, casePlant, casePointResults, evaluateBasis, plantOf, pointResults } from '../../lib/plant/calculate.ts';
+import { caseResults, cellVoltageRange, stageCases, StageMemo } from '../../lib/plant/cases.ts';
+import { carbonMargin, type CarbonLimits } from '../../lib/plant/carbon-margin.ts';
+import { plantBalance } from '../../lib/plant/plant-balance.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
 import { BasisError } from '../../lib/basis/diagnostics.ts';
 import type { DesignBasis } from '../../lib/basis/types.ts';
@@ -176,6 +179,53 @@ describe('each case equals a basis of its own on the sizing case\'s hardware', (
     expect(rated.headline).toEqual(thistlemere.headline);
     expect(rated.streams).toEqual(thistlemere.streams);
     expect(rated.findings).toEqual(thistlemere.findings);
+  });
+});
+
+describe('a case whose fuel path has the inputs of an earlier case\'s takes that fuel path (StageMemo)', () => {
+  // The CHP demo with three more cases that leave the fuel path's inputs as the sizing case's: a
+  // hotter air-electrode inlet, a cold ambient and a lower load. Of the demo's own cases, the
+  // end of life changes the air utilization (the air-electrode gas along the path, so the Nernst
+  // voltage) and the winter gas the fuel: those two fuel paths are solved, no other.
+  const doc = parseDocument(readFileSync(new URL('../../projects/thistlemere-sofc-chp/basis.yaml', import.meta.url), 'utf8'));
+  const more: Record<string, unknown> = {
+    'hot-air': { title: 'Hot air inlet', purpose: 'test: the air-electrode inlet 20 K hotter', overrides: { conditions: { 'air-inlet-temperature': { value: '680 C', source: 'test' } } } },
+    'cold-day': { title: 'Cold day', purpose: 'test: a cold ambient', overrides: { conditions: { 'ambient-temperature': { value: '-10 C', source: 'test' } } } },
+    'half-load': { title: 'Half load', purpose: 'test: 100 kW', overrides: { 'operating-point': { 'target-power': { value: '100 kW', source: 'test' } } } },
+  };
+  for (const [id, c] of Object.entries(more)) doc.setIn(['cases', id], doc.createNode(c));
+  const basis = load(doc.toString(), 'thistlemere-sofc-chp');
+  const sizing = basis.cases.find((c) => c.sizing)!.basis;
+  const point = evaluateBasis(sizing);
+
+  /** Every case's results, as calculate.ts makes them, with the memo given. */
+  const all = (memo: StageMemo) => {
+    const limits: CarbonLimits = new Map();
+    const staged = stageCases(basis.cases, point, limits, memo);
+    const plant = plantBalance(point, sizing.plant, cellVoltageRange(point, staged));
+    const own = { ...pointResults(point, sizing, carbonMargin(point, new Map()), plant.findings), plant: plantOf(plant) };
+    return { staged, cases: caseResults(staged, point, own, casePointResults(plant.electrical)) };
+  };
+  const reused = new StageMemo();
+  const shared = all(reused);
+  const solvedAgain = new StageMemo(false);
+  const fresh = all(solvedAgain);
+
+  it('solves only the fuel paths whose inputs differ from every earlier case\'s: end of life (air utilization) and winter gas', () => {
+    expect(basis.cases.map((c) => c.id)).toEqual(['rated', 'turndown', 'end-of-life', 'winter-gas', 'hot-air', 'cold-day', 'half-load']);
+    expect(shared.cases.every((c) => c.ran)).toBe(true);
+    expect(reused.solved).toBe(2);
+    expect(solvedAgain.solved).toBe(6);
+    for (const id of ['turndown', 'hot-air', 'cold-day', 'half-load']) expect(shared.staged.find((s) => s.case.id === id)!.run!.point.path, id).toBe(point.path);
+    for (const id of ['end-of-life', 'winter-gas']) expect(shared.staged.find((s) => s.case.id === id)!.run!.point.path, id).not.toBe(point.path);
+  });
+
+  it('gives the same bytes as solving every fuel path again', () => {
+    expect(JSON.stringify(shared.cases)).toBe(JSON.stringify(fresh.cases));
+    // And the cases differ where they should: the hot air's preheat duty, the cold day's efficiency basis, the half load's current.
+    const at = (id: string) => shared.cases.find((c) => c.id === id)!;
+    expect(at('hot-air').plant!.power!.duties.find((d) => d.id === 'air-preheat')!.duty_W).toBeGreaterThan(at('rated').plant!.power!.duties.find((d) => d.id === 'air-preheat')!.duty_W);
+    expect(at('half-load').operatingPoint!.currentDensity_A_per_m2).toBeLessThan(at('rated').operatingPoint!.currentDensity_A_per_m2);
   });
 });
 
