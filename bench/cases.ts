@@ -1,7 +1,7 @@
 /**
  * Calculation time per operating case: for each demo project with cases, the work of its cases
- * beyond the sizing case (lib/plant/cases.ts: each case on the sizing hardware, its target's
- * current density solved, its results, plant balance and curve), divided by the number of those cases; the
+ * beyond the sizing case (lib/plant/cases.ts: each case on the installed hardware, its target's
+ * current density solved, the layout found with them, its results, plant balance and curve), divided by the number of those cases; the
  * median over repeated runs (one core), in CPU time (process.cpuUsage, user and system: on a machine
  * shared with other work the wall time also counts the time the process waited) and in wall time.
  */
@@ -10,7 +10,7 @@ import { loadBasisText } from '../lib/basis/load.ts';
 import { casePointResults, evaluateBasis, plantOf, pointResults } from '../lib/plant/calculate.ts';
 import { carbonMargin, type CarbonLimits } from '../lib/plant/carbon-margin.ts';
 import { plantBalance } from '../lib/plant/plant-balance.ts';
-import { caseResults, cellVoltageRange, stageCases } from '../lib/plant/cases.ts';
+import { caseResults, layoutCases } from '../lib/plant/cases.ts';
 import { quantile, type Row } from './measure.ts';
 
 const RUNS = 15;
@@ -28,12 +28,17 @@ export function benchCases(): Row[] {
     if (others === 0) continue;
     const sizing = basis.cases.find((c) => c.sizing)!.basis;
     const point = evaluateBasis(sizing);
-    // As calculate.ts: the cases' points, the layout over their cell voltages, then each case's sections and plant.
+    // As calculate.ts: the cases' points on the cells installed and the layout over their cell voltages
+    // (layoutCases: a second round where the whole stacks install more cells than the sizing case needs), then each case's sections and plant.
     const sizingLimits: CarbonLimits = new Map();
-    const plant = plantBalance(point, sizing.plant, cellVoltageRange(point, stageCases(basis.cases, point, new Map())));
+    const layout = (range: { minV: number; maxV: number }) => plantBalance(point, sizing.plant, range);
+    const { plant } = layoutCases(basis.cases, point, new Map(), layout);
     const own = { ...pointResults(point, sizing, carbonMargin(point, sizingLimits), plant.findings), plant: plantOf(plant) };
     const assemble = casePointResults(plant.electrical);
-    const all = () => caseResults(stageCases(basis.cases, point, new Map(sizingLimits)), point, own, assemble);
+    const all = () => {
+      const laid = layoutCases(basis.cases, point, new Map(sizingLimits), layout);
+      return caseResults(laid.staged, point, own, assemble);
+    };
     all(); // warm-up
     const times: number[] = [];
     const cpu: number[] = [];

@@ -24,7 +24,7 @@ import { locateCalculationErrors } from './located-error.ts';
 import { enthalpyFlowW, gasFlow, gasMoleFractions, massFlowKgPerS, normalVolumeM3PerS, totalFlow, type Stream } from './streams.ts';
 import type { Results, StreamResult } from './results-schema.ts';
 import { finding, withAssumptions, type Finding } from './findings.ts';
-import { caseFindings, caseResults, cellVoltageRange, stageCases } from './cases.ts';
+import { caseFindings, caseResults, layoutCases } from './cases.ts';
 import { envelopeOf } from './envelope.ts';
 import { plantBalance, type PlantBalance, type PowerPlantBalance } from './plant-balance.ts';
 import { BasisError } from '../basis/diagnostics.ts';
@@ -572,9 +572,8 @@ function calculateResults(basis: DesignBasis): Results {
   const point = evaluateBasis(sizingBasis);
   // The least carbon-free S/C of a fuel at a temperature, found once for the sizing case and every case that shares it.
   const limits: CarbonLimits = new Map();
-  // Every case's point first: the electrical layout must hold the bus over all their cell voltages.
-  const staged = stageCases(basis.cases, point, limits);
-  const plant = locateCalculationErrors(sizingBasis, () => plantBalance(point, sizingBasis.plant, cellVoltageRange(point, staged)));
+  // Every case's point first, on the cells installed: the electrical layout must hold the bus over all their cell voltages (cases.ts layoutCases).
+  const { staged, plant } = locateCalculationErrors(sizingBasis, () => layoutCases(basis.cases, point, limits, (range) => plantBalance(point, sizingBasis.plant, range)));
   const own = pointResults(point, sizingBasis, carbonMargin(point, limits), plant.findings);
   const findings = sizingCase ? caseFindings(own.findings, sizingCase) : own.findings;
   const plantResults = plantOf(plant);

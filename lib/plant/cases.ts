@@ -6,7 +6,9 @@
  * Every other case is its own basis (the base values with its overrides, lib/basis/read-cases.ts)
  * evaluated with that hardware:
  *
- *   cells N and active area A     from the sizing case;
+ *   cells N                       those installed: the whole stacks of the sizing case's layout
+ *                                 (N_inst ≥ the N_req the sizing case needs; layoutCases);
+ *   active area A                 from the sizing case;
  *   resistance                    the sizing case's, unless the case gives its own cell-voltage or
  *                                 area-specific-resistance; its degradation on top;
  *   current density               the case's (its own, or the base current density when it states
@@ -14,7 +16,7 @@
  *                                 current density at which the N cells meet it (case-load.ts).
  *
  * So each case's results are exactly those of a basis written with the case's values, the
- * sizing case's cell count, active area and resistance, and that current density (the tests
+ * installed cell count, the sizing case's active area and resistance, and that current density (the tests
  * check this). Its plant (calculate.ts casePlant) is that basis's plant with the sizing case's
  * electrical layout (cells per stack, stacks in series, strings in parallel) given. A case that cannot run there (no current density meets its target, a voltage
  * beyond the reversible limit, a fuel that cannot reach its utilization) is a critical finding
@@ -29,7 +31,7 @@
  */
 import type { DesignBasis, OperatingCase } from '../basis/types.ts';
 import { BasisError } from '../basis/diagnostics.ts';
-import { UserError } from '../core/errors.ts';
+import { CalculationError, UserError } from '../core/errors.ts';
 import { designInputs, type DesignInputs } from './design-inputs.ts';
 import { cellVoltageOf, evaluateDesignPoint, fuelPathRequest, type DesignPoint, type UnitStage } from './design-point.ts';
 import { unitFeeds, type UnitFeeds } from './unit-feeds.ts';
@@ -233,11 +235,54 @@ export interface StagedCase {
  * the points come before any case's plant. `limits` are the least carbon-free steam-to-carbon
  * ratios found so far, which the cases share with the sizing case and add to.
  */
-export function stageCases(cases: readonly OperatingCase[], sizing: DesignPoint, limits: CarbonLimits = new Map(), stages: StageMemo = new StageMemo()): StagedCase[] {
-  const hardware = hardwareOf(sizing);
+export function stageCases(cases: readonly OperatingCase[], sizing: DesignPoint, limits: CarbonLimits = new Map(), stages: StageMemo = new StageMemo(), installedCells = sizing.sizing.cells): StagedCase[] {
+  const hardware = { ...hardwareOf(sizing), cells: installedCells };
   stages.keep(sizing.inputs, { unit: sizing.unit, path: sizing.path });
   const carbons = new Map<string, ReturnType<typeof carbonMargin>>();
   return cases.map((c) => (c.sizing ? { case: c, run: null, notRun: null } : stageCase(c, hardware, stages, carbons, limits)));
+}
+
+/** What `layoutCases` needs of the plant laid out over a cell-voltage range: the cells its whole stacks install, and how they are arranged. */
+export interface LaidOut {
+  electrical: { installedCells: number; cellsPerStack: number; stacksInSeries: number; stringsInParallel: number };
+}
+
+/** The most layouts `layoutCases` tries before it gives up: in practice the second is the first again. */
+const LAYOUT_ROUNDS = 4;
+
+/**
+ * The cases on the installed hardware, and the plant laid out for them. The sizing case finds the
+ * cells it needs, N_req, at its own design point; the layout installs whole stacks, N_inst ≥ N_req
+ * (electrical-layout.ts); every other case runs on the N_inst cells installed, so that its stack,
+ * its flows and its DC bus count the same cells (its target met by N_inst cells: j = what N_inst
+ * cells deliver it at). The layout sizes the string over the cases' cell voltages, which depend on
+ * the cells they run on, so the two are solved together: stage on N_req, lay out, stage again on
+ * the cells that layout installs, until the layout installs the cells the cases ran on (the
+ * second round, as a rule). Each layout holds the bus over the cell voltages of every round so far
+ * (a range that only widens), so the fewest stacks in series only grow and the rounds cannot
+ * cycle: more cells raise the lowest cell voltage, and a layout over that alone could take a
+ * stack fewer in series, install fewer cells, and lower it again. The cases of a later round
+ * share the fuel paths of the first (StageMemo). Refused at the DC bus window if the layouts do
+ * not settle within a few rounds.
+ */
+export function layoutCases<P extends LaidOut>(cases: readonly OperatingCase[], sizing: DesignPoint, limits: CarbonLimits, layout: (range: { minV: number; maxV: number }) => P): { staged: StagedCase[]; plant: P } {
+  const stages = new StageMemo();
+  let cells = sizing.sizing.cells;
+  let range: { minV: number; maxV: number } | null = null;
+  const seen: string[] = [];
+  for (let round = 0; round < LAYOUT_ROUNDS; round++) {
+    // The least carbon-free ratios do not depend on the cells: every round shares (and adds to) the same.
+    const staged = stageCases(cases, sizing, limits, stages, cells);
+    // The range of every round so far: it only widens, so the fewest stacks in series only grow and the layouts cannot cycle.
+    const own = cellVoltageRange(sizing, staged);
+    range = range ? { minV: Math.min(range.minV, own.minV), maxV: Math.max(range.maxV, own.maxV) } : own;
+    const plant = layout(range);
+    const e = plant.electrical;
+    if (e.installedCells === cells || !cases.some((c) => !c.sizing)) return { staged, plant };
+    seen.push(`${e.stacksInSeries} × ${e.stringsInParallel} stacks of ${e.cellsPerStack} cells (${e.installedCells} cells)`);
+    cells = e.installedCells;
+  }
+  throw new CalculationError(`the electrical layout does not settle over the cases' cell voltages on the cells it installs: ${seen.join(', then ')}; widen the window or state the stacks in series`, 'dc-bus-window');
 }
 
 /** The cell voltages the sizing point and the cases that run reach: the range the electrical layout must hold on its bus, V. */

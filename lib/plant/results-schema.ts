@@ -83,7 +83,7 @@ const electricalSchema = z
     stringsInParallel: z.number().int(),
     stackCount: z.number().int(),
     requiredCells: z.number().int().describe('cells the design point needs (headline.cells)'),
-    installedCells: z.number().int().describe('stacks × cells per stack, at least the cells required; the balance is evaluated on the cells required'),
+    installedCells: z.number().int().describe('stacks × cells per stack, at least the cells required; the sizing case (the top level) is evaluated on the cells required, every other case on the cells installed'),
     stacksInSeriesFrom: z.enum(['given', 'bus-voltage-window']),
     stringsInParallelFrom: z.enum(['given', 'required-cells']),
     stackVoltage_V: num('terminal voltage of one stack: cells per stack × cell voltage'),
@@ -509,7 +509,7 @@ const caseResultSchema = z
     sizing: z.boolean().describe('the case that fixes the hardware; its results are the top-level results'),
     load: z
       .enum(['sizing', 'current-density', 'target-power', 'target-hydrogen'])
-      .describe('how the case states its load: the sizing case as any basis does; its current density; or a target met on the cells of the sizing case by solving for the current density'),
+      .describe('how the case states its load: the sizing case as any basis does; its current density; or a target met on the cells installed (the sizing case\'s layout) by solving for the current density'),
     overrides: z.array(z.object({ path: z.string(), text: z.string(), source: z.string().nullable() })).describe('the values the case changes, as written'),
     ran: z.boolean().describe('false when the case cannot run at its load on the hardware of the sizing case (a finding says why); its figures are then null'),
     resistance: z

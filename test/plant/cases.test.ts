@@ -76,7 +76,8 @@ describe('each case equals a basis of its own on the sizing case\'s hardware', (
     calculate(
       load(
         demoText(id, {
-          'operating-point.cells': results.headline.cells,
+          // The cells a case runs on: those installed (whole stacks), which the sizing case's count rounds up to.
+          'operating-point.cells': results.plant.electrical.installedCells,
           'operating-point.current-density': `${c.operatingPoint!.currentDensity_A_per_m2} A/m2`,
           'operating-point.target-power': undefined,
           'operating-point.target-hydrogen': undefined,
@@ -127,8 +128,8 @@ describe('each case equals a basis of its own on the sizing case\'s hardware', (
     const volts = thistlemere.cases.filter((c) => c.ran).map((c) => c.headline!.cellVoltage_V);
     const lowest = Math.min(...volts);
     // N = ⌈V_bus,min / (N_cells/stack · V_cell,min)⌉ (matching a string to the inverter's DC input
-    // range, common practice, no source); by hand 600 / (80 × 0.66768 V at end of life) = 11.23.
-    expect(lowest).toBeCloseTo(0.66768, 4);
+    // range, common practice, no source); by hand 600 / (80 × 0.67589 V at end of life, on the 6720 cells installed) = 11.10.
+    expect(lowest).toBeCloseTo(0.67589, 4);
     expect(layout.stacksInSeries).toBe(Math.ceil(600 / (80 * lowest)));
     expect(layout.stacksInSeries).toBe(12);
     for (const c of thistlemere.cases) {
@@ -140,6 +141,28 @@ describe('each case equals a basis of its own on the sizing case\'s hardware', (
     }
     // Sized at the rated point alone it would be 10 stacks (600 / (80 × 0.7825 V) = 9.58), and the end of life would fall to 534 V.
     expect(Math.ceil(600 / (80 * caseOf(thistlemere, 'rated').headline!.cellVoltage_V))).toBe(10);
+  });
+
+  it('the cases and the layout settle together where more cells would allow a stack fewer in series (a layout over the last round alone would cycle)', () => {
+    // With an inverter of 95 % (a figure chosen for the test) the rated point needs more cells, and
+    // the fewest stacks in series over the cases on those cells alternate: 12 × 8 stacks of 80
+    // (7680 cells) lift the end-of-life voltage so that 11 would do, whose 11 × 8 (7040 cells)
+    // lower it so that 12 are needed again. Over the range of every round the layout keeps 12.
+    const text = readFileSync(new URL('../../projects/thistlemere-sofc-chp/basis.yaml', import.meta.url), 'utf8').replace(
+      '  parasitic-load: { value: "6 %", source: A4 }\n',
+      '  parasitic-load: { value: "6 %", source: A4 }\n  power-conversion-efficiency: { value: "95 %", source: test }\n',
+    );
+    expect(text).toContain('power-conversion-efficiency');
+    const results = calculate(load(text, 'thistlemere-sofc-chp'));
+    const e = results.plant.electrical;
+    expect([e.stacksInSeries, e.stringsInParallel, e.cellsPerStack]).toEqual([12, 8, 80]);
+    expect(e.installedCells).toBe(7680);
+    for (const c of results.cases.filter((k) => !k.sizing)) {
+      expect(c.headline!.cells, c.id).toBe(7680);
+      // Every case on the installed cells inside the window 600 V to 850 V (12 × 80 × V_cell).
+      expect(c.plant!.electrical.busVoltage_V).toBeGreaterThanOrEqual(600);
+      expect(c.plant!.electrical.busVoltage_V).toBeLessThanOrEqual(850);
+    }
   });
 
   it('a DC bus window that no whole number of stacks fits over the cases\' cell voltages refuses the basis at the window', () => {
@@ -234,12 +257,19 @@ describe('a case meets the load it states on the cells of the sizing case', () =
     for (const id of ['turndown', 'end-of-life', 'winter-gas']) {
       const c = caseOf(thistlemere, id);
       const h = c.headline!;
-      expect(h.cells).toBe(thistlemere.headline.cells);
+      // The cells installed: 7 strings of 12 stacks of 80 cells = 6720 by hand, more than the 6421 the rated point needs.
+      expect(thistlemere.headline.cells).toBe(6421);
+      expect(h.cells).toBe(7 * 12 * 80);
       const target = id === 'turndown' ? 60e3 : 200e3;
       // The stack is one string of cells: its voltage N V, its current j A.
       expect(h.stackVoltage_V * h.cellCurrent_A * (1 - 0.06)).toBeCloseTo(target, 6);
       // The root is found to 1e-12 of j; 1e-9 of the power is far above that and far below any reading.
       expect(Math.abs(h.netPower_W! - target) / target).toBeLessThan(1e-9);
+      // Stack and bus count the same cells: P_DC = P / (η − f) = 200 kW / (1 − 0.06) = 212.77 kW by hand (60 kW: 63.83 kW), the stack's N V j A.
+      const e = c.plant!.electrical;
+      expect(Math.abs(e.dcPower_W - target / 0.94) / (target / 0.94)).toBeLessThan(1e-9);
+      expect(Math.abs(e.dcPower_W - h.stackPower_W) / h.stackPower_W).toBeLessThan(1e-12);
+      expect(e.installedCells).toBe(h.cells);
     }
   });
 

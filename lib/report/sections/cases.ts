@@ -93,8 +93,8 @@ function shownValue(row: Shown, x: number): string {
 const LOAD_TEXT: Record<CaseResult['load'], string> = {
   sizing: 'sizing case: fixes the hardware',
   'current-density': 'its current density',
-  'target-power': 'its target power, met on the sizing cells',
-  'target-hydrogen': 'its target hydrogen, met on the sizing cells',
+  'target-power': 'its target power, met on the installed cells',
+  'target-hydrogen': 'its target hydrogen, met on the installed cells',
 };
 
 function definitions(cases: readonly CaseResult[]): Table {
@@ -185,13 +185,13 @@ function asResults(r: Results, c: CaseResult): Results {
   };
 }
 
-/** The line of the load a target case meets on the sizing cells. */
+/** The line of the load a target case meets on the installed cells. */
 function loadLine(r: Results, c: CaseResult): LineSpec | null {
   if (c.load !== 'target-power' && c.load !== 'target-hydrogen') return null;
   const h = c.headline!;
   const o = c.operatingPoint!;
   const common = [
-    { name: 'N', value: h.cells, unit: '', origin: 'cell count of the sizing case' },
+    { name: 'N', value: h.cells, unit: '', origin: "cells installed: the whole stacks of the sizing case's layout" },
     { name: 'j', value: o.currentDensity_A_per_m2, unit: 'A/m2', origin: 'current density that meets the target (solved)' },
     { name: 'A', value: o.activeArea_m2, unit: 'm2', origin: 'active area of the sizing case' },
   ];
@@ -202,7 +202,7 @@ function loadLine(r: Results, c: CaseResult): LineSpec | null {
     const ionic = { name: 'j', value: c.electrochemistry!.ionicCurrentDensity_A_per_m2, unit: 'A/m2', origin: 'ionic current density at the solved current density (the current that splits water)' };
     return {
       id,
-      title: `Case ${c.id}: hydrogen the sizing cells make at the solved current density`,
+      title: `Case ${c.id}: hydrogen the installed cells make at the solved current density`,
       equation: 'case-load',
       relation: 'hydrogen',
       quantities: [common[0]!, ionic, common[2]!, { name: 'M', value: getSpecies('H2').molarMassKgPerMol, unit: 'kg/mol', origin: 'species data' }, constF],
@@ -218,7 +218,7 @@ function loadLine(r: Results, c: CaseResult): LineSpec | null {
   const power = r.technology.mode === 'power';
   return {
     id,
-    title: `Case ${c.id}: ${power ? 'net power' : 'power input'} of the sizing cells at the solved current density`,
+    title: `Case ${c.id}: ${power ? 'net power' : 'power input'} of the installed cells at the solved current density`,
     equation: 'case-load',
     relation: 'power',
     quantities: [...common, V, eta, f],
@@ -568,7 +568,7 @@ export function casesSection(r: Results, basis: DesignBasis, book: EquationBook)
   return {
     present: cases.length > 0,
     intro: cases.length
-      ? `The basis defines ${cases.length} operating cases. Case ${sizing?.id ?? ''} is the sizing case: its cell count, active area and cell resistance are the hardware on which every other case runs at its own load, and its results are those of the sections above. Each governing value is marked "highest" or "lowest" beside its number.`
+      ? `The basis defines ${cases.length} operating cases. Case ${sizing?.id ?? ''} is the sizing case: it finds the cells needed at its design point, and its results are those of the sections above; the plant installs them as whole stacks, and every other case runs at its own load on the cells installed, with the sizing case's active area and cell resistance. Each governing value is marked "highest" or "lowest" beside its number.`
       : 'The basis defines one operating point, its base values, which is the sizing case of the sections above.',
     ...(caseTables(r) ?? { definitions: null, comparison: null, envelope: null }),
     legend: '"highest" or "lowest" beside a number: this case sets the governing value of the quantity in the envelope below.',
