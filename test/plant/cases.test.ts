@@ -192,8 +192,30 @@ describe('each case equals a basis of its own on the sizing case\'s hardware', (
     const own = separate(kestrelford, c, 'kestrelford-pem-electrolyser', edits);
     for (const s of sections) expectSameNumbers(c[s], own[s], SAME, `${id}.${s}`);
     // Its plant (the layout and the stack's streams in electrolysis) on the sizing layout.
-    expectSameNumbers(c.plant!.electrical, { ...own.plant.electrical, stacksInSeriesFrom: kestrelford.plant.electrical.stacksInSeriesFrom, stringsInParallelFrom: kestrelford.plant.electrical.stringsInParallelFrom }, SAME, `${id}.plant.electrical`);
-    expectSameNumbers(c.plant!.streams, own.plant.streams, SAME, `${id}.plant.streams`);
+    // Its whole plant (the layout, the streams, the electrolysis balance: water loop, duties, compression, specific energy) on the sizing layout.
+    expect(c.plant!.electrolysis).not.toBeNull();
+    expectSameNumbers(c.plant, { ...own.plant, electrical: { ...own.plant.electrical, stacksInSeriesFrom: kestrelford.plant.electrical.stacksInSeriesFrom, stringsInParallelFrom: kestrelford.plant.electrical.stringsInParallelFrom } }, SAME, `${id}.plant`);
+  });
+
+  // The molten carbonate demo: a leaner and a richer biogas and a half load, each with its whole
+  // plant (layout, streams, duties, oxidiser, the energy balance) that of a basis of its own.
+  const corrin = demo('corrin-beck-mcfc-biogas');
+  const corrinEdits: Record<string, Record<string, unknown>> = {
+    'lean-gas': { 'streams.fuel-electrode.composition': 'lean-biogas' },
+    'rich-gas': { 'streams.fuel-electrode.composition': 'rich-biogas' },
+    'low-gas-production': {},
+  };
+  it.each(['lean-gas', 'rich-gas', 'low-gas-production'])('corrin-beck-mcfc-biogas, case %s, with its plant', (id) => {
+    const c = caseOf(corrin, id);
+    expect(c.ran).toBe(true);
+    // The sizing case gives a cell voltage: the hardware is the resistance it implies, which the separate basis states.
+    expect(c.resistance?.from).toBe('sizing-case');
+    const resistance = { 'operating-point.cell-voltage': undefined, 'operating-point.area-specific-resistance': `${c.resistance!.beginningOfLife_ohm_m2} ohm m2` };
+    const own = separate(corrin, c, 'corrin-beck-mcfc-biogas', { ...resistance, ...corrinEdits[id]! });
+    for (const s of sections) expectSameNumbers(c[s], own[s], SAME, `${id}.${s}`);
+    expect(c.plant!.power).not.toBeNull();
+    const layout = corrin.plant.electrical;
+    expectSameNumbers(c.plant, { ...own.plant, electrical: { ...own.plant.electrical, stacksInSeriesFrom: layout.stacksInSeriesFrom, stringsInParallelFrom: layout.stringsInParallelFrom } }, SAME, `${id}.plant`);
   });
 
   it('the sizing case is the top level', () => {
