@@ -51,12 +51,11 @@ function inletRemark(r: Results): string {
   return '';
 }
 
-function headlinePairs(r: Results): Pair[] {
+/** The stack's conditions, voltages and currents: the rows every document's headline begins with. */
+function stackPairs(r: Results): Pair[] {
   const h = r.headline;
-  const power = r.technology.mode === 'power';
-  const notes = efficiencyBasisNotes(r);
   const c = r.conditions;
-  const rows: Pair[] = [
+  return [
     quantity('Operating temperature', c.temperature_K, 'K', formatTemperature(c.temperature_K)),
     {
       label: 'Fuel-electrode / air-electrode pressure',
@@ -101,72 +100,91 @@ function headlinePairs(r: Results): Pair[] {
       ],
     },
   ];
-  if (power) {
+}
+
+/** A power cell's stack and net power, net electrical efficiency and thermodynamic limit. */
+function powerPairs(r: Results): Pair[] {
+  const h = r.headline;
+  const notes = efficiencyBasisNotes(r);
+  const rows: Pair[] = [];
+  rows.push({
+    label: 'Stack DC power / net power',
+    text: `${formatPower(h.stackPower_W)} / ${formatPower(h.netPower_W)}`,
+    data: [
+      { name: 'Stack DC power', unit: 'W', value: h.stackPower_W },
+      { name: 'Net power', unit: 'W', value: h.netPower_W },
+    ],
+  });
+  if (h.electricalEfficiencyLhv !== null && h.electricalEfficiencyHhv !== null) {
     rows.push({
-      label: 'Stack DC power / net power',
-      text: `${formatPower(h.stackPower_W)} / ${formatPower(h.netPower_W)}`,
+      label: 'Net electrical efficiency, LHV / HHV',
+      text: `${formatPercent(h.electricalEfficiencyLhv)} / ${formatPercent(h.electricalEfficiencyHhv)}`,
       data: [
-        { name: 'Stack DC power', unit: 'W', value: h.stackPower_W },
-        { name: 'Net power', unit: 'W', value: h.netPower_W },
+        { name: 'Net electrical efficiency, LHV', unit: '', value: h.electricalEfficiencyLhv },
+        { name: 'Net electrical efficiency, HHV', unit: '', value: h.electricalEfficiencyHhv },
       ],
     });
-    if (h.electricalEfficiencyLhv !== null && h.electricalEfficiencyHhv !== null) {
-      rows.push({
-        label: 'Net electrical efficiency, LHV / HHV',
-        text: `${formatPercent(h.electricalEfficiencyLhv)} / ${formatPercent(h.electricalEfficiencyHhv)}`,
-        data: [
-          { name: 'Net electrical efficiency, LHV', unit: '', value: h.electricalEfficiencyLhv },
-          { name: 'Net electrical efficiency, HHV', unit: '', value: h.electricalEfficiencyHhv },
-        ],
-      });
-    }
-    if (h.thermodynamicLimitLhv !== null && h.thermodynamicLimitHhv !== null) {
-      const why = notes.thermodynamicLimitLhv ?? notes.thermodynamicLimitHhv;
-      rows.push({
-        label: 'Thermodynamic limit at T, LHV / HHV',
-        text: `${formatPercent(h.thermodynamicLimitLhv)} / ${formatPercent(h.thermodynamicLimitHhv)}${why ? ` (${why})` : ''}`,
-        data: [
-          { name: 'Thermodynamic limit at T, LHV', unit: '', value: h.thermodynamicLimitLhv },
-          { name: 'Thermodynamic limit at T, HHV', unit: '', value: h.thermodynamicLimitHhv },
-        ],
-      });
-    }
-  } else {
-    rows.push(quantity('Stack power input', h.stackPower_W, 'W', formatPower(h.stackPower_W)));
-    if (h.hydrogenProduction_kg_per_h !== null && h.hydrogenProduction_kg_per_day !== null) {
-      rows.push({
-        label: 'Hydrogen production',
-        text: `${formatQuantity(h.hydrogenProduction_kg_per_h, 'kg/h')} (${formatQuantity(h.hydrogenProduction_kg_per_day, 'kg/day')})`,
-        data: [
-          { name: 'Hydrogen production', unit: 'kg/h', value: h.hydrogenProduction_kg_per_h },
-          { name: 'Hydrogen production per day', unit: 'kg/day', value: h.hydrogenProduction_kg_per_day },
-        ],
-      });
-    }
-    const e = r.efficiency;
-    if (h.specificEnergy_kWh_per_kg !== null && e.electrolysisEfficiencyLhv !== null && e.electrolysisEfficiencyHhv !== null) {
-      const why = notes.electrolysisEfficiencyHhv ?? notes.electrolysisEfficiencyLhv;
-      rows.push({
-        label: 'Specific electric energy / efficiency over electricity alone, LHV / HHV',
-        text: `${formatQuantity(h.specificEnergy_kWh_per_kg, 'kWh/kg')} / ${formatPercent(e.electrolysisEfficiencyLhv)} / ${formatPercent(e.electrolysisEfficiencyHhv)}${why ? ` (HHV ${why})` : ''}`,
-        data: [
-          { name: 'Specific electric energy', unit: 'kWh/kg', value: h.specificEnergy_kWh_per_kg },
-          { name: 'Efficiency over electricity alone, LHV', unit: '', value: e.electrolysisEfficiencyLhv },
-          { name: 'Efficiency over electricity alone, HHV', unit: '', value: e.electrolysisEfficiencyHhv },
-        ],
-      });
-    }
-    if (e.heatInclusiveEfficiencyLhv !== null && e.heatInclusiveEfficiencyHhv !== null) {
-      rows.push({
-        label: 'Efficiency with the heat supplied counted, LHV / HHV',
-        text: `${formatPercent(e.heatInclusiveEfficiencyLhv)} / ${formatPercent(e.heatInclusiveEfficiencyHhv)}`,
-        data: [
-          { name: 'Efficiency with the heat supplied counted, LHV', unit: '', value: e.heatInclusiveEfficiencyLhv },
-          { name: 'Efficiency with the heat supplied counted, HHV', unit: '', value: e.heatInclusiveEfficiencyHhv },
-        ],
-      });
-    }
   }
+  if (h.thermodynamicLimitLhv !== null && h.thermodynamicLimitHhv !== null) {
+    const why = notes.thermodynamicLimitLhv ?? notes.thermodynamicLimitHhv;
+    rows.push({
+      label: 'Thermodynamic limit at T, LHV / HHV',
+      text: `${formatPercent(h.thermodynamicLimitLhv)} / ${formatPercent(h.thermodynamicLimitHhv)}${why ? ` (${why})` : ''}`,
+      data: [
+        { name: 'Thermodynamic limit at T, LHV', unit: '', value: h.thermodynamicLimitLhv },
+        { name: 'Thermodynamic limit at T, HHV', unit: '', value: h.thermodynamicLimitHhv },
+      ],
+    });
+  }
+  return rows;
+}
+
+/** An electrolyser's power input, hydrogen production and efficiencies. */
+function electrolysisPairs(r: Results): Pair[] {
+  const h = r.headline;
+  const notes = efficiencyBasisNotes(r);
+  const rows: Pair[] = [];
+  rows.push(quantity('Stack power input', h.stackPower_W, 'W', formatPower(h.stackPower_W)));
+  if (h.hydrogenProduction_kg_per_h !== null && h.hydrogenProduction_kg_per_day !== null) {
+    rows.push({
+      label: 'Hydrogen production',
+      text: `${formatQuantity(h.hydrogenProduction_kg_per_h, 'kg/h')} (${formatQuantity(h.hydrogenProduction_kg_per_day, 'kg/day')})`,
+      data: [
+        { name: 'Hydrogen production', unit: 'kg/h', value: h.hydrogenProduction_kg_per_h },
+        { name: 'Hydrogen production per day', unit: 'kg/day', value: h.hydrogenProduction_kg_per_day },
+      ],
+    });
+  }
+  const e = r.efficiency;
+  if (h.specificEnergy_kWh_per_kg !== null && e.electrolysisEfficiencyLhv !== null && e.electrolysisEfficiencyHhv !== null) {
+    const why = notes.electrolysisEfficiencyHhv ?? notes.electrolysisEfficiencyLhv;
+    rows.push({
+      label: 'Specific electric energy / efficiency over electricity alone, LHV / HHV',
+      text: `${formatQuantity(h.specificEnergy_kWh_per_kg, 'kWh/kg')} / ${formatPercent(e.electrolysisEfficiencyLhv)} / ${formatPercent(e.electrolysisEfficiencyHhv)}${why ? ` (HHV ${why})` : ''}`,
+      data: [
+        { name: 'Specific electric energy', unit: 'kWh/kg', value: h.specificEnergy_kWh_per_kg },
+        { name: 'Efficiency over electricity alone, LHV', unit: '', value: e.electrolysisEfficiencyLhv },
+        { name: 'Efficiency over electricity alone, HHV', unit: '', value: e.electrolysisEfficiencyHhv },
+      ],
+    });
+  }
+  if (e.heatInclusiveEfficiencyLhv !== null && e.heatInclusiveEfficiencyHhv !== null) {
+    rows.push({
+      label: 'Efficiency with the heat supplied counted, LHV / HHV',
+      text: `${formatPercent(e.heatInclusiveEfficiencyLhv)} / ${formatPercent(e.heatInclusiveEfficiencyHhv)}`,
+      data: [
+        { name: 'Efficiency with the heat supplied counted, LHV', unit: '', value: e.heatInclusiveEfficiencyLhv },
+        { name: 'Efficiency with the heat supplied counted, HHV', unit: '', value: e.heatInclusiveEfficiencyHhv },
+      ],
+    });
+  }
+  return rows;
+}
+
+/** The stack's heat, its air and, for a carbon-bearing fuel, the steam-to-carbon margin and carbon activity. */
+function heatAndCarbonPairs(r: Results): Pair[] {
+  const h = r.headline;
+  const rows: Pair[] = [];
   rows.push({
     label: h.stackHeat_W >= 0 ? 'Stack heat released (isothermal)' : 'Stack heat needed (isothermal)',
     text: formatPower(Math.abs(h.stackHeat_W)),
@@ -187,6 +205,12 @@ function headlinePairs(r: Results): Pair[] {
     });
   }
   if (h.maxCarbonActivity !== null) rows.push(quantity('Highest carbon activity on the fuel path in the stack (stack temperature)', h.maxCarbonActivity, '', formatNumber(h.maxCarbonActivity)));
+  return rows;
+}
+
+/** The plant around the stack: the electrical layout, the off-gas oxidiser and the heat delivered. */
+function plantPairs(r: Results): Pair[] {
+  const rows: Pair[] = [];
   const e = r.plant.electrical;
   rows.push({
     label: 'Stacks (cells each × in series × strings) / DC bus',
@@ -223,6 +247,12 @@ function headlinePairs(r: Results): Pair[] {
     });
   }
   return rows;
+}
+
+/** The headline rows in the order a review reads them: the stack, its power or production, its heat, the plant. */
+function headlinePairs(r: Results): Pair[] {
+  const modePairs = r.technology.mode === 'power' ? powerPairs(r) : electrolysisPairs(r);
+  return [...stackPairs(r), ...modePairs, ...heatAndCarbonPairs(r), ...plantPairs(r)];
 }
 
 /** The headline numbers a review reads first. */
