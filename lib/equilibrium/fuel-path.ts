@@ -74,7 +74,7 @@ import { liquidCellWater } from './liquid-water.ts';
 import { elementAmounts, elementsOfFeed, gasGibbsOverRT, systemFor, type ChemicalSystem } from './species-set.ts';
 import { exchangeFor, type Exchange } from './electrolyte-exchange.ts';
 import { amountsOn, layout, moleFractions, shifted, sum, toRecord, type GasLayout } from './gas-state.ts';
-import { integrateAlongUtilization, type Profile, type Sample } from './path-integral.ts';
+import { integrateAlongUtilization, type PathIntegral, type Profile, type Sample } from './path-integral.ts';
 import { CalculationError, ConvergenceError, UserError } from '../core/errors.ts';
 
 export interface FuelPathRequest {
@@ -445,6 +445,54 @@ interface Evaluated extends Sample {
   xAir: Float64Array;
 }
 
+/** E of a fuel-side state and an air-side state (the same point, or the inlet's limit); NaN (a species of the quotient absent) as +∞. */
+type NernstOf = (fuel: { state: State; xFuel: Float64Array }, air: { xAir: Float64Array }) => number;
+
+/**
+ * The Nernst voltage of a point of the path: the oxygen-potential form wherever the fuel gas is
+ * equilibrated and holds the elements of the ion's couple, else the quotient of the ion's
+ * electrode reactions over the partial pressures p_i = x_i p at E°(T) (module comment), plus the
+ * term of a liquid-water cell's unsaturated water electrode (waterElectrodeVoltage).
+ */
+function nernstOfPoints(request: FuelPathRequest, model: PathModel, e0: number): NernstOf {
+  const { technology, temperatureK } = request;
+  const pf = request.fuelPressureBar;
+  const pa = request.airPressureBar;
+  const fuelP: Record<string, number> = {};
+  const airP: Record<string, number> = {};
+  const nernstSpecies = [...new Set([...activeQuotient(technology.ion, technology.waterPhase).map((t) => t.species), ...(potentialCouple(technology.ion) ?? []).map((t) => t.species)])];
+  const fIdx = nernstSpecies.map((s) => model.fuelGas.index.get(s));
+  const aIdx = nernstSpecies.map((s) => model.airGas.index.get(s));
+  const unsaturatedVoltage = waterElectrodeVoltage(request, model);
+  return (fuel, air) => {
+    nernstSpecies.forEach((s, k) => {
+      fuelP[s] = fIdx[k] === undefined ? 0 : fuel.xFuel[fIdx[k]!]! * pf;
+      airP[s] = aIdx[k] === undefined ? 0 : air.xAir[aIdx[k]!]! * pa;
+    });
+    const nernstV = model.coupleDefined
+      ? oxygenPotentialNernstV(technology.ion, temperatureK, fuel.state.coupleLnBar, airP)
+      : nernstVoltage(technology.ion, technology.waterPhase, temperatureK, fuelP, airP, e0) + unsaturatedVoltage(fuel, air);
+    return Number.isNaN(nernstV) ? Infinity : nernstV;
+  };
+}
+
+/** Liquid-water cells: −RT/2F ln(p_H2O,w / (a_w p_s)) of the water electrode's gas (module comment), 0 where it is saturated and for other cells. */
+function waterElectrodeVoltage(request: FuelPathRequest, model: PathModel): (fuel: { xFuel: Float64Array }, air: { xAir: Float64Array }) => number {
+  const { technology, temperatureK } = request;
+  const waterSide = technology.waterElectrode === 'fuel' ? { gas: model.fuelGas, key: 'xFuel' as const, saturated: model.vapourFuel } : { gas: model.airGas, key: 'xAir' as const, saturated: model.vapourAir };
+  const waterIndex = waterSide.gas.index.get('H2O');
+  return (fuel, air) => {
+    if (technology.waterPhase !== 'liquid' || waterIndex === undefined) return 0;
+    const x = (waterSide.key === 'xFuel' ? fuel.xFuel : air.xAir)[waterIndex]!;
+    return x === waterSide.saturated ? 0 : waterActivityVoltage(temperatureK, x / waterSide.saturated);
+  };
+}
+
+/**
+ * The fuel path at the request's utilization (module comment): E°(T) with the water activity's
+ * −RT/2F ln a_w, each point's gases and Nernst voltage, Ē = (1/U_f) ∫₀^U_f E dU over the grid of
+ * path-integral.ts, and the inlet as inletOf reports it.
+ */
 export function fuelPath(request: FuelPathRequest): FuelPath {
   if (!(request.utilization > 0 && request.utilization < 1)) {
     throw new CalculationError(`utilization must lie strictly between 0 and 1, got ${request.utilization}`, 'utilization');
@@ -453,35 +501,7 @@ export function fuelPath(request: FuelPathRequest): FuelPath {
   const model = new PathModel(request, basisA);
   const { technology, temperatureK } = request;
   const e0 = hydrogenStandardVoltage(temperatureK, technology.waterPhase) + waterActivityVoltage(temperatureK, model.waterActivity);
-  const pf = request.fuelPressureBar;
-  const pa = request.airPressureBar;
-  const fuelP: Record<string, number> = {};
-  const airP: Record<string, number> = {};
-  // The oxygen-potential form wherever the fuel gas is equilibrated and holds the elements of the ion's couple (module comment).
-  const potentialForm = model.coupleDefined;
-  const nernstSpecies = [...new Set([...activeQuotient(technology.ion, technology.waterPhase).map((t) => t.species), ...(potentialCouple(technology.ion) ?? []).map((t) => t.species)])];
-  const fIdx = nernstSpecies.map((s) => model.fuelGas.index.get(s));
-  const aIdx = nernstSpecies.map((s) => model.airGas.index.get(s));
-
-  /** E of a fuel-side state and an air-side state (the same point, or the inlet's limit); NaN (a species of the quotient absent) as +∞. */
-  const nernstOf = (fuel: { state: State; xFuel: Float64Array }, air: { xAir: Float64Array }): number => {
-    nernstSpecies.forEach((s, k) => {
-      fuelP[s] = fIdx[k] === undefined ? 0 : fuel.xFuel[fIdx[k]!]! * pf;
-      airP[s] = aIdx[k] === undefined ? 0 : air.xAir[aIdx[k]!]! * pa;
-    });
-    const nernstV = potentialForm
-      ? oxygenPotentialNernstV(technology.ion, temperatureK, fuel.state.coupleLnBar, airP)
-      : nernstVoltage(technology.ion, technology.waterPhase, temperatureK, fuelP, airP, e0) + unsaturatedVoltage(fuel, air);
-    return Number.isNaN(nernstV) ? Infinity : nernstV;
-  };
-  // Liquid-water cells: −RT/2F ln(p_H2O,w / (a_w p_s)) of the water electrode's gas (module comment), 0 where it is saturated.
-  const waterSide = technology.waterElectrode === 'fuel' ? { gas: model.fuelGas, key: 'xFuel' as const, saturated: model.vapourFuel } : { gas: model.airGas, key: 'xAir' as const, saturated: model.vapourAir };
-  const waterIndex = waterSide.gas.index.get('H2O');
-  const unsaturatedVoltage = (fuel: { xFuel: Float64Array }, air: { xAir: Float64Array }): number => {
-    if (technology.waterPhase !== 'liquid' || waterIndex === undefined) return 0;
-    const x = (waterSide.key === 'xFuel' ? fuel.xFuel : air.xAir)[waterIndex]!;
-    return x === waterSide.saturated ? 0 : waterActivityVoltage(temperatureK, x / waterSide.saturated);
-  };
+  const nernstOf = nernstOfPoints(request, model, e0);
   const evaluate = (utilization: number): Evaluated => {
     const state = model.at(utilization * basisA);
     const [vapourFuel, vapourAir] = model.vapourAt(utilization * basisA, state);
@@ -489,12 +509,18 @@ export function fuelPath(request: FuelPathRequest): FuelPath {
     point.value = nernstOf(point, point);
     return point;
   };
-
   const result = integrateAlongUtilization(evaluate, request.utilization, Math.max(20, Math.round(request.intervals ?? 120)), request.refineV ?? 1e-3);
-  const all = result.all as Evaluated[];
+  const inlet = inletOf(result.points, result.all, model.seeded, nernstOf);
+  return reportedPath(request, model, basisA, e0, result, inlet);
+}
+
+/** The path as reported: its points with the species that reach 1e-5 anywhere, the inlet and outlet gases, the mean and the largest errors. */
+function reportedPath(request: FuelPathRequest, model: PathModel, basisA: number, e0: number, result: PathIntegral<Evaluated>, inlet: ReturnType<typeof inletOf>): FuelPath {
+  const { technology } = request;
+  const potentialForm = model.coupleDefined;
+  const all = result.all;
   const first = result.points[0]!;
   const last = result.points[result.points.length - 1]!;
-  const inlet = inletOf(result.points as Evaluated[], all, model.seeded, nernstOf);
   const points = inlet.points;
 
   // Species worth reporting along the path: those that reach 1e-5 anywhere.
