@@ -268,74 +268,94 @@ function voltageEquations(r: Results): EquationEntry[] {
   ];
 }
 
+/** The current the flows follow: I_ion for a mixed conductor (electronic leakage carries no ions), else the stack current I. */
+const ionicCurrent = (r: Results): Symbol => (mixedConductor(r) ? sym('I_\\mathrm{ion}') : sym('I'));
+
+/** Oxygen by Faraday's law: four charges per O2. */
+const oxygenFlow = (Iion: Symbol): Relation => ({ lhs: sym('\\dot n_\\mathrm{O_2}'), symbols: { I: Iion, F }, rhs: (q, op) => `\\frac{${q.I}}{4${op.times}${q.F}}` });
+
 /**
  * Current, cell count, and the flows by Faraday's law. The flows follow the ionic current: for a
  * mixed conductor I_ion = N A (j ± i_e), the electronic leakage i_e carrying no ions; for a pure
  * ionic conductor it is the stack current I.
  */
 function faradayEquations(r: Results): EquationEntry[] {
+  const flows = r.technology.mode === 'power' ? fuelCellFlowEquations(r) : electrolysisFlowEquations(r);
+  return [currentEquation(r), ...cellCountEquation(r), ...flows];
+}
+
+/** The cell and stack current, the stack power P = N V I_cell and, for a mixed conductor, the ionic current. */
+function currentEquation(r: Results): EquationEntry {
   const power = r.technology.mode === 'power';
   const mixed = mixedConductor(r);
-  const [j, A, N, V, I, Icell, f, Q1, Uf, Fz] = ['j', 'A', 'N', 'V', 'I', 'I_\\mathrm{cell}', 'f_\\mathrm{par}', 'Q_1', 'U_\\mathrm{f}', '\\bar{z}'].map((s) => sym(s)) as Symbol[];
-  const Iion = mixed ? sym('I_\\mathrm{ion}') : I!;
-  const P = sym('P');
-  const eta = sym('\\eta_\\mathrm{conv}');
-  const oxygen: Relation = { lhs: sym('\\dot n_\\mathrm{O_2}'), symbols: { I: Iion, F }, rhs: (q, op) => `\\frac{${q.I}}{4${op.times}${q.F}}` };
+  const [j, A, N, V, I, Icell] = ['j', 'A', 'N', 'V', 'I', 'I_\\mathrm{cell}'].map((s) => sym(s)) as Symbol[];
   const current: Record<string, Relation> = {
     cell: { lhs: Icell!, symbols: { j: j!, A: A! }, rhs: (q, op) => `${q.j}${op.times}${q.A}` },
     stack: { lhs: I!, symbols: { N: N!, Icell: Icell! }, rhs: (q, op) => `${q.N}${op.times}${q.Icell}` },
-    power: { lhs: P, symbols: { V: V!, I: I! }, rhs: (q, op) => `${q.V}${op.times}${q.I}` },
+    power: { lhs: sym('P'), symbols: { V: V!, I: I! }, rhs: (q, op) => `${q.V}${op.times}${q.I}` },
   };
   if (mixed) {
     current.ionic = {
-      lhs: Iion,
+      lhs: ionicCurrent(r),
       symbols: { N: N!, A: A!, j: j!, t: sym('t_\\mathrm{ion}'), V: V!, ASR: sym('\\mathrm{ASR}') },
       rhs: (q, op) => `${q.N}${op.times}${q.A}${op.times}\\left(${q.j} ${power ? '+' : '-'} \\frac{${op.open}1 - ${q.t}${op.close}${op.times}${q.V}}{${q.ASR}}\\right)`,
     };
   }
-  const out: EquationEntry[] = [
-    entry('current', current, (show) => `${show('cell')}, \\qquad ${show('stack')}, \\qquad P = N\\,V\\,I_\\mathrm{cell} = ${show('power', 'rhs')}${mixed ? `, \\qquad I_\\mathrm{ion} = N A\\,(j ${power ? '+' : '-'} i_e) = ${show('ionic', 'rhs')}` : ''}`),
-  ];
+  return entry('current', current, (show) => `${show('cell')}, \\qquad ${show('stack')}, \\qquad P = N\\,V\\,I_\\mathrm{cell} = ${show('power', 'rhs')}${mixed ? `, \\qquad I_\\mathrm{ion} = N A\\,(j ${power ? '+' : '-'} i_e) = ${show('ionic', 'rhs')}` : ''}`);
+}
+
+/** The cell count where a target sets it: from the target power (delivered η − f, or drawn 1/η + f, per unit of stack power) or hydrogen; none where the basis gives it. */
+function cellCountEquation(r: Results): EquationEntry[] {
+  const [N, V, Icell, f, eta] = ['N', 'V', 'I_\\mathrm{cell}', 'f_\\mathrm{par}', '\\eta_\\mathrm{conv}'].map((s) => sym(s)) as Symbol[];
   const target = sym('P_\\mathrm{target}');
   if (r.operatingPoint.cellsFrom === 'power') {
-    out.push(
+    return [
       entry('cells', {
-        count: power
-          ? { lhs: N!, symbols: { P: target, V: V!, Icell: Icell!, eta: eta, f: f! }, rhs: (q, op) => `\\left\\lceil \\frac{${q.P}}{${q.V}${op.times}${q.Icell}${op.times}(${q.eta} - ${q.f})} \\right\\rceil` }
-          : { lhs: N!, symbols: { P: target, V: V!, Icell: Icell!, eta, f: f! }, rhs: (q, op) => `\\left\\lceil \\frac{${q.P}}{${q.V}${op.times}${q.Icell}${op.times}(1/${q.eta} + ${q.f})} \\right\\rceil` },
+        count: r.technology.mode === 'power'
+          ? { lhs: N!, symbols: { P: target, V: V!, Icell: Icell!, eta: eta!, f: f! }, rhs: (q, op) => `\\left\\lceil \\frac{${q.P}}{${q.V}${op.times}${q.Icell}${op.times}(${q.eta} - ${q.f})} \\right\\rceil` }
+          : { lhs: N!, symbols: { P: target, V: V!, Icell: Icell!, eta: eta!, f: f! }, rhs: (q, op) => `\\left\\lceil \\frac{${q.P}}{${q.V}${op.times}${q.Icell}${op.times}(1/${q.eta} + ${q.f})} \\right\\rceil` },
       }),
-    );
-  } else if (r.operatingPoint.cellsFrom === 'hydrogen') {
-    out.push(entry('cells', { count: { lhs: N!, symbols: { m: sym('\\dot m_\\mathrm{target}'), mc: sym('\\dot m_\\mathrm{cell}') }, rhs: (q) => `\\left\\lceil \\frac{${q.m}}{${q.mc}} \\right\\rceil` } }));
+    ];
   }
-  if (power) {
-    const nFuel = sym('\\dot n_\\mathrm{fuel}');
-    out.push(
-      entry(
-        'charge-basis',
-        {
-          charge: { lhs: Q1!, symbols: { I: Iion, U: Uf! }, rhs: (q) => `\\frac{${q.I}}{${q.U}}` },
-          utilization: { lhs: Uf!, symbols: { I: Iion, Q: Q1! }, rhs: (q) => `\\frac{${q.I}}{${q.Q}}` },
-          fuel: { lhs: nFuel, symbols: { I: Iion, U: Uf!, F, z: Fz! }, rhs: (q, op) => `\\frac{${q.I}}{${q.U}${op.times}${q.F}${op.times}${q.z}}` },
-        },
-        (show) => `Q_1 = F \\sum_i \\dot n_i\\, z_i = F\\,\\dot n_\\mathrm{fuel}\\,\\bar{z}, \\qquad ${show('utilization')} \\quad\\Longrightarrow\\quad ${show('fuel')}`,
-      ),
-      entry('oxygen', {
-        oxygen,
-        air: { lhs: sym('\\dot n_\\mathrm{air}'), symbols: { nO2: sym('\\dot n_\\mathrm{O_2}'), x: sym('x_\\mathrm{O_2}'), U: sym('U_\\mathrm{air}') }, rhs: (q, op) => `\\frac{${q.nO2}}{${q.x}${op.times}${q.U}}` },
-      }),
-      entry('net-power', { net: { lhs: sym('P_\\mathrm{net}'), symbols: { P, eta, f: f! }, rhs: (q, op) => `${q.P}${op.times}(${q.eta} - ${q.f})` } }),
-    );
-  } else {
-    out.push(
-      entry(
-        'production',
-        { hydrogen: { lhs: sym('\\dot n_\\mathrm{H_2} + \\dot n_\\mathrm{CO}'), symbols: { I: Iion, F }, rhs: (q, op) => `\\frac{${q.I}}{2${op.times}${q.F}}` }, oxygen },
-        (show) => `${show('hydrogen')}, \\qquad ${show('oxygen')}, \\qquad X = \\frac{${Iion.tex}}{Q_1}, \\quad Q_1 = 2\\,F\\,(\\dot n_\\mathrm{H_2O} + \\dot n_\\mathrm{CO_2})`,
-      ),
-    );
+  if (r.operatingPoint.cellsFrom === 'hydrogen') {
+    return [entry('cells', { count: { lhs: N!, symbols: { m: sym('\\dot m_\\mathrm{target}'), mc: sym('\\dot m_\\mathrm{cell}') }, rhs: (q) => `\\left\\lceil \\frac{${q.m}}{${q.mc}} \\right\\rceil` } })];
   }
-  return out;
+  return [];
+}
+
+/** A fuel cell's fuel by its charge of complete oxidation at the utilization, its oxygen and air, and its net power. */
+function fuelCellFlowEquations(r: Results): EquationEntry[] {
+  const Iion = ionicCurrent(r);
+  const [Q1, Uf, Fz, f] = ['Q_1', 'U_\\mathrm{f}', '\\bar{z}', 'f_\\mathrm{par}'].map((s) => sym(s)) as Symbol[];
+  const nFuel = sym('\\dot n_\\mathrm{fuel}');
+  return [
+    entry(
+      'charge-basis',
+      {
+        charge: { lhs: Q1!, symbols: { I: Iion, U: Uf! }, rhs: (q) => `\\frac{${q.I}}{${q.U}}` },
+        utilization: { lhs: Uf!, symbols: { I: Iion, Q: Q1! }, rhs: (q) => `\\frac{${q.I}}{${q.Q}}` },
+        fuel: { lhs: nFuel, symbols: { I: Iion, U: Uf!, F, z: Fz! }, rhs: (q, op) => `\\frac{${q.I}}{${q.U}${op.times}${q.F}${op.times}${q.z}}` },
+      },
+      (show) => `Q_1 = F \\sum_i \\dot n_i\\, z_i = F\\,\\dot n_\\mathrm{fuel}\\,\\bar{z}, \\qquad ${show('utilization')} \\quad\\Longrightarrow\\quad ${show('fuel')}`,
+    ),
+    entry('oxygen', {
+      oxygen: oxygenFlow(Iion),
+      air: { lhs: sym('\\dot n_\\mathrm{air}'), symbols: { nO2: sym('\\dot n_\\mathrm{O_2}'), x: sym('x_\\mathrm{O_2}'), U: sym('U_\\mathrm{air}') }, rhs: (q, op) => `\\frac{${q.nO2}}{${q.x}${op.times}${q.U}}` },
+    }),
+    entry('net-power', { net: { lhs: sym('P_\\mathrm{net}'), symbols: { P: sym('P'), eta: sym('\\eta_\\mathrm{conv}'), f: f! }, rhs: (q, op) => `${q.P}${op.times}(${q.eta} - ${q.f})` } }),
+  ];
+}
+
+/** An electrolyser's hydrogen (and CO) and oxygen by Faraday's law, and its conversion against the feed's charge. */
+function electrolysisFlowEquations(r: Results): EquationEntry[] {
+  const Iion = ionicCurrent(r);
+  return [
+    entry(
+      'production',
+      { hydrogen: { lhs: sym('\\dot n_\\mathrm{H_2} + \\dot n_\\mathrm{CO}'), symbols: { I: Iion, F }, rhs: (q, op) => `\\frac{${q.I}}{2${op.times}${q.F}}` }, oxygen: oxygenFlow(Iion) },
+      (show) => `${show('hydrogen')}, \\qquad ${show('oxygen')}, \\qquad X = \\frac{${Iion.tex}}{Q_1}, \\quad Q_1 = 2\\,F\\,(\\dot n_\\mathrm{H_2O} + \\dot n_\\mathrm{CO_2})`,
+    ),
+  ];
 }
 
 /** Efficiencies of a fuel cell, or of an electrolyser. */
@@ -369,7 +389,7 @@ function heatEquations(r: Results): EquationEntry[] {
   const Hout = sym('\\sum_\\mathrm{out} \\dot n_i\\, h_i(T)', { listed: 'H_\\mathrm{out}' });
   const mixed = mixedConductor(r);
   const [I, Vtn, V] = [sym('I'), sym('V_\\mathrm{tn,eff}'), sym('V')];
-  const Iion = mixed ? sym('I_\\mathrm{ion}') : I;
+  const Iion = ionicCurrent(r);
   // The reactions release V_tn,eff per ionic charge; the terminals carry the electric work I V.
   const heat: Relation = mixed
     ? power
@@ -411,59 +431,70 @@ function carbonEquations(): EquationEntry[] {
 
 /** The plant around the stack: the electrical layout, and in power mode the steam raising, the oxidiser's energy balance, the heat delivered and the CHP efficiency. */
 function plantEquations(r: Results): EquationEntry[] {
-  const Vc = sym('V');
-  const Vs = sym('V_\\mathrm{stack}');
-  const out: EquationEntry[] = [
-    entry(
-      'plant-layout',
-      {
-        stack: { lhs: Vs, symbols: { n: sym('n_\\mathrm{cells}'), V: Vc }, rhs: (q, op) => `${q.n}${op.times}${q.V}` },
-        bus: { lhs: sym('V_\\mathrm{bus}'), symbols: { m: sym('n_\\mathrm{series}'), Vs }, rhs: (q, op) => `${q.m}${op.times}${q.Vs}` },
-        current: { lhs: sym('I_\\mathrm{bus}'), symbols: { k: sym('n_\\mathrm{strings}'), Icell: sym('I_\\mathrm{cell}') }, rhs: (q, op) => `${q.k}${op.times}${q.Icell}` },
-      },
-      // Two lines (voltages, then currents): on one line the four relations were wider than the A4 text column.
-      (show) => `\\begin{gathered} ${show('stack')}, \\qquad ${show('bus')}, \\\\ ${show('current')}, \\qquad I_\\mathrm{stack} = I_\\mathrm{string} = I_\\mathrm{cell} \\end{gathered}`,
-    ),
+  const steamRaised = r.plant.power || r.plant.electrolysis?.steam.length;
+  return [
+    layoutEquation(),
+    ...(steamRaised ? [steamRaisingEquation(r)] : []),
+    ...(r.plant.electrolysis ? [electrolysisPlantEquation()] : []),
+    ...(r.plant.power ? powerPlantEquations() : []),
   ];
+}
+
+/** The electrical layout: the stack and bus voltage of cells and stacks in series, the bus current of the strings in parallel. */
+function layoutEquation(): EquationEntry {
+  const Vs = sym('V_\\mathrm{stack}');
+  return entry(
+    'plant-layout',
+    {
+      stack: { lhs: Vs, symbols: { n: sym('n_\\mathrm{cells}'), V: sym('V') }, rhs: (q, op) => `${q.n}${op.times}${q.V}` },
+      bus: { lhs: sym('V_\\mathrm{bus}'), symbols: { m: sym('n_\\mathrm{series}'), Vs }, rhs: (q, op) => `${q.m}${op.times}${q.Vs}` },
+      current: { lhs: sym('I_\\mathrm{bus}'), symbols: { k: sym('n_\\mathrm{strings}'), Icell: sym('I_\\mathrm{cell}') }, rhs: (q, op) => `${q.k}${op.times}${q.Icell}` },
+    },
+    // Two lines (voltages, then currents): on one line the four relations were wider than the A4 text column.
+    (show) => `\\begin{gathered} ${show('stack')}, \\qquad ${show('bus')}, \\\\ ${show('current')}, \\qquad I_\\mathrm{stack} = I_\\mathrm{string} = I_\\mathrm{cell} \\end{gathered}`,
+  );
+}
+
+/** Steam raised from water: the liquid heated to saturation, the latent heat, the vapour heated on (to the fuel's mixing point in power mode, the stack inlet in electrolysis). */
+function steamRaisingEquation(r: Results): EquationEntry {
   const steamTo = r.plant.power ? 'T_\\mathrm{mix}' : 'T_\\mathrm{in}';
-  if (r.plant.power || r.plant.electrolysis?.steam.length) {
-    out.push(
-      entry(
-        'steam-raising',
-      {
-        steam: {
-          lhs: sym('Q_\\mathrm{steam}'),
-          symbols: { n: sym('\\dot n_\\mathrm{w}'), hl: sym('\\Delta h_\\mathrm{liq}'), L: sym('L(T_\\mathrm{s})'), hg: sym('\\Delta h_\\mathrm{vap}') },
-          rhs: (q, op) => `${q.n}${op.times}${op.open}${q.hl} + ${q.L} + ${q.hg}${op.close}`,
-        },
+  return entry(
+    'steam-raising',
+    {
+      steam: {
+        lhs: sym('Q_\\mathrm{steam}'),
+        symbols: { n: sym('\\dot n_\\mathrm{w}'), hl: sym('\\Delta h_\\mathrm{liq}'), L: sym('L(T_\\mathrm{s})'), hg: sym('\\Delta h_\\mathrm{vap}') },
+        rhs: (q, op) => `${q.n}${op.times}${op.open}${q.hl} + ${q.L} + ${q.hg}${op.close}`,
       },
-      (show) =>
-        // One relation a line: on one line the four were 848 px wide, more than the A4 text column (673 px), and Chromium would shrink every printed page to fit.
-        `\\begin{gathered} ${show('steam')}, \\\\ \\Delta h_\\mathrm{liq} = h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{s}) - h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{w}), \\\\ L = h^\\circ_\\mathrm{H_2O}(T_\\mathrm{s}) - h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{s}), \\\\ \\Delta h_\\mathrm{vap} = h^\\circ_\\mathrm{H_2O}(${steamTo}) - h^\\circ_\\mathrm{H_2O}(T_\\mathrm{s}) \\end{gathered}`,
-      ),
-    );
-  }
-  if (r.plant.electrolysis) {
-    const Pc = sym('P_\\mathrm{comp}');
-    out.push(
-      entry(
-        'electrolysis-plant-energy',
-        {
-          system: {
-            lhs: sym('w_\\mathrm{sys}'),
-            symbols: { P: sym('P_\\mathrm{AC}'), Qe: sym('Q_\\mathrm{el}'), Pc, m: sym('\\dot m_\\mathrm{H_2}') },
-            rhs: (q) => `\\frac{${q.P} + ${q.Qe} + ${q.Pc}}{${q.m}}`,
-          },
-          compressor: { lhs: Pc, symbols: { n: sym('\\dot n_\\mathrm{c}'), w: sym('\\textstyle\\sum_k w_k', { listed: 'w_\\mathrm{c}' }) }, rhs: (q, op) => `${q.n}${op.times}${q.w}` },
-        },
-        (show) =>
-          `\\begin{gathered} ${show('system')}, \\\\ ${show('compressor')}, \\qquad w_k = \\frac{h(T_{\\mathrm{s},k}) - h(T_k)}{\\eta_\\mathrm{s}}, \\quad s^\\circ(T_{\\mathrm{s},k}) = s^\\circ(T_k) + R \\ln r, \\quad r = \\left(\\frac{p_\\mathrm{out}}{p_\\mathrm{in}}\\right)^{1/N} \\end{gathered}`,
-      ),
-    );
-  }
-  if (!r.plant.power) return out;
+    },
+    (show) =>
+      // One relation a line: on one line the four were 848 px wide, more than the A4 text column (673 px), and Chromium would shrink every printed page to fit.
+      `\\begin{gathered} ${show('steam')}, \\\\ \\Delta h_\\mathrm{liq} = h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{s}) - h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{w}), \\\\ L = h^\\circ_\\mathrm{H_2O}(T_\\mathrm{s}) - h^\\circ_\\mathrm{H_2O(l)}(T_\\mathrm{s}), \\\\ \\Delta h_\\mathrm{vap} = h^\\circ_\\mathrm{H_2O}(${steamTo}) - h^\\circ_\\mathrm{H_2O}(T_\\mathrm{s}) \\end{gathered}`,
+  );
+}
+
+/** An electrolysis plant's specific energy per kilogram of hydrogen, with the staged compressor's isentropic work per stage. */
+function electrolysisPlantEquation(): EquationEntry {
+  const Pc = sym('P_\\mathrm{comp}');
+  return entry(
+    'electrolysis-plant-energy',
+    {
+      system: {
+        lhs: sym('w_\\mathrm{sys}'),
+        symbols: { P: sym('P_\\mathrm{AC}'), Qe: sym('Q_\\mathrm{el}'), Pc, m: sym('\\dot m_\\mathrm{H_2}') },
+        rhs: (q) => `\\frac{${q.P} + ${q.Qe} + ${q.Pc}}{${q.m}}`,
+      },
+      compressor: { lhs: Pc, symbols: { n: sym('\\dot n_\\mathrm{c}'), w: sym('\\textstyle\\sum_k w_k', { listed: 'w_\\mathrm{c}' }) }, rhs: (q, op) => `${q.n}${op.times}${q.w}` },
+    },
+    (show) =>
+      `\\begin{gathered} ${show('system')}, \\\\ ${show('compressor')}, \\qquad w_k = \\frac{h(T_{\\mathrm{s},k}) - h(T_k)}{\\eta_\\mathrm{s}}, \\quad s^\\circ(T_{\\mathrm{s},k}) = s^\\circ(T_k) + R \\ln r, \\quad r = \\left(\\frac{p_\\mathrm{out}}{p_\\mathrm{in}}\\right)^{1/N} \\end{gathered}`,
+  );
+}
+
+/** A power plant's duties and blower, the off-gas oxidiser's adiabatic balance, the heat delivered and the CHP efficiency. */
+function powerPlantEquations(): EquationEntry[] {
   const Q = sym('Q_\\mathrm{del}');
-  out.push(
+  return [
     entry('plant-duty', {
       duty: { lhs: sym('Q'), symbols: { Hout: sym('H(T_\\mathrm{out})'), Hin: sym('H(T_\\mathrm{in})') }, rhs: (q) => `${q.Hout} - ${q.Hin}` },
       blower: { lhs: sym('P_\\mathrm{bl}'), symbols: { n: sym('\\dot n_\\mathrm{air}'), hs: sym('\\Delta h_\\mathrm{s}'), eta: sym('\\eta_\\mathrm{s}') }, rhs: (q) => `\\frac{${q.n}\\,${q.hs}}{${q.eta}}` },
@@ -482,11 +513,9 @@ function plantEquations(r: Results): EquationEntry[] {
     entry('chp-efficiency', {
       chp: { lhs: sym('\\eta_\\mathrm{CHP}'), symbols: { P: sym('P_\\mathrm{net}'), Q, L: sym('\\dot n_\\mathrm{fuel}\\,\\mathrm{LHV}') }, rhs: (q) => `\\frac{${q.P} + ${q.Q}}{${q.L}}` },
     }),
-  );
-  return out;
+  ];
 }
 
-/** Every equation a document of these results can number, by key. */
 /**
  * The operating cases, where the basis has them: the load a case meets on the sizing case's N
  * cells of area A (the current density j its solve finds), and the linear degradation law at
@@ -589,6 +618,7 @@ function liquidWaterEquations(r: Results): EquationEntry[] {
   ];
 }
 
+/** Every equation a document of these results can number, by key. */
 export function equationTable(r: Results): Map<string, EquationEntry> {
   const all = [
     ...electrodeEquations(r),
