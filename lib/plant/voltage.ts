@@ -209,68 +209,93 @@ function solveVoltage(cell: Cell, asr: number, limit: number): number {
   return solveMonotone(g, limit, hi, true);
 }
 
-/** The cell voltage, or the resistance implied by a given voltage, by (1) or (2). */
-export function operatingVoltage(request: CellVoltageRequest): OperatingVoltage {
-  const cell = new Cell(request);
-  const { mode, model, currentDensityAPerM2: j, utilization: u } = request;
+/**
+ * The resistance a given cell voltage implies by (1): ASR = (U/I(V) ∓ (1 − t) V)/j. A voltage the
+ * reversible limit leaves unreachable, or one whose electronic leakage exceeds the ionic current
+ * at any resistance, is refused at the field that gives it.
+ */
+function impliedResistance(cell: Cell, v: number, limit: number): number {
+  const { mode, model, currentDensityAPerM2: j, utilization: u } = cell.request;
   const t = cell.t;
-  const limit = cell.reversibleLimitV();
-  let v: number;
-  let asr: number;
-  if (model.kind === 'given') {
-    v = model.cellVoltageV;
-    const reachable = cell.power ? v < limit : v > limit;
-    const integral = reachable ? cell.integral(v) : null;
-    if (!integral) {
-      const where = cell.power
-        ? `not below the lowest Nernst voltage available along the cell, ${t < 1 || cell.dV > 0 ? 'E − ΔV_x/t_ion = ' : ''}${fmt(limit)} V`
-        : `not above the highest Nernst voltage along the cell, ${fmt(limit)} V`;
-      throw new CalculationError(
-        `the cell voltage ${fmt(v)} V is ${where}: the local current would reverse before ${utilizationText(mode, u)} is reached (${mode === 'power' ? 'lower the cell voltage or the fuel utilization' : 'raise the cell voltage or lower the steam conversion'})`,
-        voltageField(model),
-      );
-    }
-    asr = cell.resistanceTimesJ(v, integral) / j;
-    if (!(asr > 0)) {
-      // Power mode with t < 1: the leakage (1 − t) V/ASR exceeds the ionic current at any resistance.
-      const h = (x: number) => {
-        const i = cell.integral(x);
-        if (!i) return { value: -(1 - t) * x, slope: -1 };
-        return { value: u / i.first - (1 - t) * x, slope: -(u * t * i.second) / (i.first * i.first) - (1 - t) };
-      };
-      const highest = solveMonotone(h, 0, limit, false);
-      throw new CalculationError(
-        `the cell voltage ${fmt(v)} V leaves no net current: with an ionic transference number of ${t} the electronic leakage at this voltage exceeds the ionic current at any resistance (the implied area-specific resistance would be ${(asr * 1e4).toPrecision(4)} ohm cm2); below ${fmt(highest)} V a net current flows`,
-        voltageField(model),
-      );
-    }
-  } else {
-    asr = model.ohmM2;
-    v = solveVoltage(cell, asr, limit);
-    if (cell.power && !(v > 0)) {
-      throw new CalculationError(`the resistance gives a cell voltage of ${fmt(v)} V at this current density: lower the current density or the area-specific resistance`, voltageField(model));
-    }
+  const reachable = cell.power ? v < limit : v > limit;
+  const integral = reachable ? cell.integral(v) : null;
+  if (!integral) {
+    const where = cell.power
+      ? `not below the lowest Nernst voltage available along the cell, ${t < 1 || cell.dV > 0 ? 'E − ΔV_x/t_ion = ' : ''}${fmt(limit)} V`
+      : `not above the highest Nernst voltage along the cell, ${fmt(limit)} V`;
+    throw new CalculationError(
+      `the cell voltage ${fmt(v)} V is ${where}: the local current would reverse before ${utilizationText(mode, u)} is reached (${mode === 'power' ? 'lower the cell voltage or the fuel utilization' : 'raise the cell voltage or lower the steam conversion'})`,
+      voltageField(model),
+    );
   }
+  const asr = cell.resistanceTimesJ(v, integral) / j;
+  if (!(asr > 0)) {
+    // Power mode with t < 1: the leakage (1 − t) V/ASR exceeds the ionic current at any resistance.
+    const h = (x: number) => {
+      const i = cell.integral(x);
+      if (!i) return { value: -(1 - t) * x, slope: -1 };
+      return { value: u / i.first - (1 - t) * x, slope: -(u * t * i.second) / (i.first * i.first) - (1 - t) };
+    };
+    const highest = solveMonotone(h, 0, limit, false);
+    throw new CalculationError(
+      `the cell voltage ${fmt(v)} V leaves no net current: with an ionic transference number of ${t} the electronic leakage at this voltage exceeds the ionic current at any resistance (the implied area-specific resistance would be ${(asr * 1e4).toPrecision(4)} ohm cm2); below ${fmt(highest)} V a net current flows`,
+      voltageField(model),
+    );
+  }
+  return asr;
+}
+
+/** The cell voltage and resistance: the given voltage with the resistance it implies, or the voltage (1) or (2) gives at the given resistance. */
+function voltageAndResistance(cell: Cell, limit: number): { v: number; asr: number } {
+  const { model } = cell.request;
+  if (model.kind === 'given') return { v: model.cellVoltageV, asr: impliedResistance(cell, model.cellVoltageV, limit) };
+  const asr = model.ohmM2;
+  const v = solveVoltage(cell, asr, limit);
+  if (cell.power && !(v > 0)) {
+    throw new CalculationError(`the resistance gives a cell voltage of ${fmt(v)} V at this current density: lower the current density or the area-specific resistance`, voltageField(model));
+  }
+  return { v, asr };
+}
+
+/** The voltage and its integral ∫du/y: a root at the limit to rounding moves to the nearest voltage inside it (power: below; electrolysis: above). */
+function insideLimit(cell: Cell, solvedV: number, limit: number): { v: number; integral: ReciprocalIntegral } {
+  let v = solvedV;
   let integral = cell.integral(v);
-  // A root at the limit to rounding: the nearest voltage inside it (power: below; electrolysis: above).
   for (let step = 1e-15; !integral && step < 1e-6; step *= 10) {
     v = cell.power ? limit - step * Math.max(1, Math.abs(limit)) : limit + step * Math.max(1, Math.abs(limit));
     integral = cell.integral(v);
   }
   if (!integral) throw new Error(`the cell voltage ${v} V lies outside the reversible limit ${limit} V`);
+  return { v, integral };
+}
+
+/** The local current density i(u) = (t E − ΔV_x − V)/ASR (power) or (V − t E)/ASR at the reported points, with the share of the area up to each. */
+function localCurrents(cell: Cell, v: number, asr: number, integral: ReciprocalIntegral): LocalPoint[] {
+  const t = cell.t;
+  const samples = new Map<number, number>();
+  cell.request.profile.utilization.forEach((x, k) => samples.set(x, integral.cumulative[k]!));
+  return cell.request.points.map((p) => ({
+    utilization: p.utilization,
+    areaFraction: p.utilization === 0 ? 0 : samples.get(p.utilization)! / integral.first,
+    currentDensityAPerM2: cell.power ? (t * p.nernstV - cell.dV - v) / asr : (v - t * p.nernstV) / asr,
+  }));
+}
+
+/** The cell voltage and resistance, or the resistance implied by a given voltage, by (1) or (2), with the area means and the local current density along the cell. */
+export function operatingVoltage(request: CellVoltageRequest): OperatingVoltage {
+  const cell = new Cell(request);
+  const { model, currentDensityAPerM2: j, utilization: u } = request;
+  const t = cell.t;
+  const limit = cell.reversibleLimitV();
+  const { v: solvedV, asr } = voltageAndResistance(cell, limit);
+  const { v, integral } = insideLimit(cell, solvedV, limit);
   const [a, b] = cell.coefficients(v);
   // Ē_A = ∫E du/y / ∫du/y with y = aE + b: ∫E/y du = (U − b I)/a.
   const areaMeanNernstV = (u - b * integral.first) / a / integral.first;
   const leakage = ((1 - t) * v) / asr;
   const ionic = cell.power ? j + leakage : j - leakage;
   const effectiveNernstV = cell.power ? t * areaMeanNernstV - cell.dV : t * areaMeanNernstV;
-  const samples = new Map<number, number>();
-  request.profile.utilization.forEach((x, k) => samples.set(x, integral.cumulative[k]!));
-  const local = request.points.map((p) => ({
-    utilization: p.utilization,
-    areaFraction: p.utilization === 0 ? 0 : samples.get(p.utilization)! / integral.first,
-    currentDensityAPerM2: cell.power ? (t * p.nernstV - cell.dV - v) / asr : (v - t * p.nernstV) / asr,
-  }));
+  const local = localCurrents(cell, v, asr, integral);
   return {
     cellVoltageV: v,
     effectiveNernstV,
