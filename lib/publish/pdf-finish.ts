@@ -23,13 +23,29 @@ import { PDF_LIB_WHOLE, setPdfProperties, type PdfMeta } from '../core/pdf-prope
 export function renumberStructureIds(pdf: PDFDocument): number {
   const root = pdf.catalog.lookupMaybe(PDFName.of('StructTreeRoot'), PDFDict);
   if (!root) return 0;
-  const [ID, K, A, HEADERS] = ['ID', 'K', 'A', 'Headers'].map((n) => PDFName.of(n)) as [PDFName, PDFName, PDFName, PDFName];
-  const elements: { ref: PDFRef; dict: PDFDict }[] = [];
+  const { elements, renamed, seen } = renameStructureElements(pdf, root);
+  if (elements.length === 0) return 0;
+  for (const dict of seen) renameHeaders(pdf, dict.get(PDFName.of('A')), renamed);
+  rebuildIdTree(pdf, root, elements);
+  return elements.length;
+}
+
+interface StructureElement {
+  ref: PDFRef;
+  dict: PDFDict;
+}
+
+/** The object a reference points to, or the value itself. */
+const resolved = (pdf: PDFDocument, value: unknown) => (value instanceof PDFRef ? pdf.context.lookup(value) : value);
+
+/** Renames each element with an /ID, in the order the tree lists them; returns them, the old name to the new, and every dictionary of the tree. */
+function renameStructureElements(pdf: PDFDocument, root: PDFDict): { elements: StructureElement[]; renamed: Map<string, string>; seen: Set<PDFDict> } {
+  const [ID, K] = [PDFName.of('ID'), PDFName.of('K')];
+  const elements: StructureElement[] = [];
   const renamed = new Map<string, string>();
   const seen = new Set<PDFDict>();
-  const lookup = (value: unknown) => (value instanceof PDFRef ? pdf.context.lookup(value) : value);
   const walk = (kid: unknown): void => {
-    const value = lookup(kid);
+    const value = resolved(pdf, kid);
     if (value instanceof PDFArray) {
       for (let i = 0; i < value.size(); i++) walk(value.get(i));
       return;
@@ -46,40 +62,42 @@ export function renumberStructureIds(pdf: PDFDocument): number {
     walk(value.get(K));
   };
   walk(root.get(K));
-  if (elements.length === 0) return 0;
+  return { elements, renamed, seen };
+}
 
-  const renameHeaders = (attributes: unknown): void => {
-    const value = lookup(attributes);
-    if (value instanceof PDFArray) {
-      for (let i = 0; i < value.size(); i++) renameHeaders(value.get(i));
-      return;
-    }
-    if (!(value instanceof PDFDict)) return;
-    const headers = lookup(value.get(HEADERS));
-    if (!(headers instanceof PDFArray)) return;
-    for (let i = 0; i < headers.size(); i++) {
-      const header = headers.get(i);
-      const name = header instanceof PDFString || header instanceof PDFHexString ? renamed.get(header.decodeText()) : undefined;
-      if (name) headers.set(i, PDFString.of(name));
-    }
-  };
-  for (const dict of seen) renameHeaders(dict.get(A));
+/** Points the /Headers of an element's attributes (a dictionary, or an array of them) to the new names. */
+function renameHeaders(pdf: PDFDocument, attributes: unknown, renamed: ReadonlyMap<string, string>): void {
+  const value = resolved(pdf, attributes);
+  if (value instanceof PDFArray) {
+    for (let i = 0; i < value.size(); i++) renameHeaders(pdf, value.get(i), renamed);
+    return;
+  }
+  if (!(value instanceof PDFDict)) return;
+  const headers = resolved(pdf, value.get(PDFName.of('Headers')));
+  if (!(headers instanceof PDFArray)) return;
+  for (let i = 0; i < headers.size(); i++) {
+    const header = headers.get(i);
+    const name = header instanceof PDFString || header instanceof PDFHexString ? renamed.get(header.decodeText()) : undefined;
+    if (name) headers.set(i, PDFString.of(name));
+  }
+}
 
+/** Deletes the old /IDTree with its kids and sets one sorted /Names array of the renamed elements in its place. */
+function rebuildIdTree(pdf: PDFDocument, root: PDFDict, elements: readonly StructureElement[]): void {
   const deleteTree = (node: unknown): void => {
-    const value = lookup(node);
+    const value = resolved(pdf, node);
     if (node instanceof PDFRef) pdf.context.delete(node);
     if (!(value instanceof PDFDict)) return;
-    const kids = lookup(value.get(PDFName.of('Kids')));
+    const kids = resolved(pdf, value.get(PDFName.of('Kids')));
     if (kids instanceof PDFArray) for (let i = 0; i < kids.size(); i++) deleteTree(kids.get(i));
   };
   deleteTree(root.get(PDFName.of('IDTree')));
   const names = pdf.context.obj([]);
   for (const { ref, dict } of elements) {
-    names.push(dict.get(ID)!);
+    names.push(dict.get(PDFName.of('ID'))!);
     names.push(ref);
   }
   root.set(PDFName.of('IDTree'), pdf.context.register(pdf.context.obj({ Names: names })));
-  return elements.length;
 }
 
 /**
