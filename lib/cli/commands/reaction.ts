@@ -5,14 +5,56 @@
  */
 import type { Command } from '../command.ts';
 import { JSON_OPTION, requireString, optionalString } from '../command.ts';
-import { chemicalProperties, inferredElectrons, reactionProperties } from '../../electrochem/reaction.ts';
-import { parseEquation } from '../../electrochem/equation.ts';
+import { chemicalProperties, inferredElectrons, reactionProperties, type ChemicalProperties, type ReactionProperties } from '../../electrochem/reaction.ts';
+import { parseEquation, type Equation } from '../../electrochem/equation.ts';
 import { temperatureOption } from '../values.ts';
 import { json, sig } from '../../core/plain-text.ts';
 import { UserError } from '../../core/errors.ts';
 import { kelvinWithCelsius } from '../../core/temperature-text.ts';
 import { pairsTable, quantity, type Pair } from '../../report/table.ts';
 import { CSV_OPTION, checkOutputOptions, printTable } from '../table-output.ts';
+
+/** The electrons of --electrons: a positive number, or undefined where the option is not given. */
+function electronsOption(text: string | undefined): number | undefined {
+  if (text === undefined) return undefined;
+  const given = Number(text);
+  if (!(given > 0) || !Number.isFinite(given)) throw new UserError(`--electrons: expected a positive number, got "${text}"`);
+  return given;
+}
+
+/** The rows every reaction gets: ΔH°, ΔS°, ΔG° and K, in bar to the power of the change in gas moles. */
+function chemicalRows(equation: Equation, c: ChemicalProperties, electrons: number | null): Pair[] {
+  const gasMoles = equation.terms.filter((t) => t.species.phase === 'gas').reduce((sum, t) => sum + t.nu, 0);
+  const kUnit = Math.abs(gasMoles) < 1e-12 ? '' : `bar^${Number(gasMoles.toPrecision(12))}`;
+  return [
+    quantity('reaction', c.reaction, '', c.reaction),
+    quantity('temperature', c.temperature_K, 'K', kelvinWithCelsius(c.temperature_K, sig)),
+    quantity('electrons n', electrons, '', electrons === null ? 'none: a chemical reaction (no O2; give --electrons N for a cell reaction)' : sig(electrons)),
+    quantity('ΔH°', c.deltaH_J_per_mol, 'J/mol', `${sig(c.deltaH_J_per_mol / 1000)} kJ/mol`),
+    quantity('ΔS°', c.deltaS_J_per_mol_K, 'J/(mol K)', `${sig(c.deltaS_J_per_mol_K)} J/(mol K)`),
+    quantity('ΔG°', c.deltaG_J_per_mol, 'J/mol', `${sig(c.deltaG_J_per_mol / 1000)} kJ/mol`),
+    quantity(
+      'equilibrium constant K',
+      c.equilibriumConstant,
+      kUnit,
+      c.equilibriumConstant === null ? 'beyond double precision (see log10 K)' : `${sig(c.equilibriumConstant)}${kUnit ? ` ${kUnit}` : ''} (pressures in bar)`,
+    ),
+    quantity('log10 K', c.log10EquilibriumConstant, '', sig(c.log10EquilibriumConstant)),
+  ];
+}
+
+/** Where electrons pass, the direction and the reversible and thermoneutral voltages; else which side equilibrium favours. */
+function cellRows(c: ChemicalProperties, cell: ReactionProperties | null): Pair[] {
+  if (!cell) {
+    return [quantity('at equilibrium', c.deltaG_J_per_mol < 0 ? 'products favoured' : 'reactants favoured', '', `${c.deltaG_J_per_mol < 0 ? 'products' : 'reactants'} favoured at 1 bar (ΔG° ${c.deltaG_J_per_mol < 0 ? '< 0' : '≥ 0'})`)];
+  }
+  return [
+    quantity('direction', cell.direction, '', `${cell.direction} (ΔG° ${cell.direction === 'galvanic' ? '< 0' : '> 0'})`),
+    quantity(cell.direction === 'galvanic' ? 'reversible voltage |ΔG°|/nF' : 'minimum voltage |ΔG°|/nF', cell.reversibleVoltage_V, 'V', `${sig(cell.reversibleVoltage_V, 5)} V`),
+    quantity('thermoneutral voltage |ΔH°|/nF', cell.thermoneutralVoltage_V, 'V', `${sig(cell.thermoneutralVoltage_V, 5)} V`),
+    quantity('dE/dT', cell.dEdT_V_per_K, 'V/K', `${sig(cell.dEdT_V_per_K * 1000, 4)} mV/K`),
+  ];
+}
 
 export const reactionCommand: Command = {
   name: 'reaction',
@@ -35,18 +77,11 @@ export const reactionCommand: Command = {
   run(args, io) {
     checkOutputOptions(args, 'reaction');
     const temperatureK = temperatureOption(requireString(args, 'temperature', 'reaction'));
-    const electronsText = optionalString(args, 'electrons');
-    let given: number | undefined;
-    if (electronsText !== undefined) {
-      given = Number(electronsText);
-      if (!(given > 0) || !Number.isFinite(given)) throw new UserError(`--electrons: expected a positive number, got "${electronsText}"`);
-    }
+    const given = electronsOption(optionalString(args, 'electrons'));
     const equation = parseEquation(args.positionals[0]!);
     const c = chemicalProperties(equation, temperatureK);
     const electrons = inferredElectrons(equation, given);
     const cell = electrons === null ? null : reactionProperties(equation, temperatureK, electrons);
-    const gasMoles = equation.terms.filter((t) => t.species.phase === 'gas').reduce((sum, t) => sum + t.nu, 0);
-    const kUnit = Math.abs(gasMoles) < 1e-12 ? '' : `bar^${Number(gasMoles.toPrecision(12))}`;
     if (args.values.json) {
       io.out(
         json({
@@ -65,32 +100,7 @@ export const reactionCommand: Command = {
       );
       return 0;
     }
-    const rows: Pair[] = [
-      quantity('reaction', c.reaction, '', c.reaction),
-      quantity('temperature', temperatureK, 'K', kelvinWithCelsius(temperatureK, sig)),
-      quantity('electrons n', electrons, '', electrons === null ? 'none: a chemical reaction (no O2; give --electrons N for a cell reaction)' : sig(electrons)),
-      quantity('ΔH°', c.deltaH_J_per_mol, 'J/mol', `${sig(c.deltaH_J_per_mol / 1000)} kJ/mol`),
-      quantity('ΔS°', c.deltaS_J_per_mol_K, 'J/(mol K)', `${sig(c.deltaS_J_per_mol_K)} J/(mol K)`),
-      quantity('ΔG°', c.deltaG_J_per_mol, 'J/mol', `${sig(c.deltaG_J_per_mol / 1000)} kJ/mol`),
-      quantity(
-        'equilibrium constant K',
-        c.equilibriumConstant,
-        kUnit,
-        c.equilibriumConstant === null ? 'beyond double precision (see log10 K)' : `${sig(c.equilibriumConstant)}${kUnit ? ` ${kUnit}` : ''} (pressures in bar)`,
-      ),
-      quantity('log10 K', c.log10EquilibriumConstant, '', sig(c.log10EquilibriumConstant)),
-    ];
-    if (cell) {
-      rows.push(
-        quantity('direction', cell.direction, '', `${cell.direction} (ΔG° ${cell.direction === 'galvanic' ? '< 0' : '> 0'})`),
-        quantity(cell.direction === 'galvanic' ? 'reversible voltage |ΔG°|/nF' : 'minimum voltage |ΔG°|/nF', cell.reversibleVoltage_V, 'V', `${sig(cell.reversibleVoltage_V, 5)} V`),
-        quantity('thermoneutral voltage |ΔH°|/nF', cell.thermoneutralVoltage_V, 'V', `${sig(cell.thermoneutralVoltage_V, 5)} V`),
-        quantity('dE/dT', cell.dEdT_V_per_K, 'V/K', `${sig(cell.dEdT_V_per_K * 1000, 4)} mV/K`),
-      );
-    } else {
-      rows.push(quantity('at equilibrium', c.deltaG_J_per_mol < 0 ? 'products favoured' : 'reactants favoured', '', `${c.deltaG_J_per_mol < 0 ? 'products' : 'reactants'} favoured at 1 bar (ΔG° ${c.deltaG_J_per_mol < 0 ? '< 0' : '≥ 0'})`));
-    }
-    printTable(io, args, pairsTable('reaction', 'Reaction', rows));
+    printTable(io, args, pairsTable('reaction', 'Reaction', [...chemicalRows(equation, c, electrons), ...cellRows(c, cell)]));
     return 0;
   },
 };
