@@ -4,6 +4,7 @@
  * the standards it cites, the indicators of every stream and the hazard data of the substances,
  * each value with its source, and the method notes.
  */
+import { ZERO_CELSIUS_K } from '../../core/units.ts';
 import { citation } from '../../hazards/standards.ts';
 import type { Caution, HazardAssessment, StreamIndicators, SubstanceRow } from '../../hazards/types.ts';
 import type { Results } from '../../plant/results-schema.ts';
@@ -62,7 +63,7 @@ const INDICATORS: CrossRow<StreamIndicators>[] = [
   indicator('Temperature class below it (IEC 60079-0)', (s) => (s.autoignition ? (s.autoignition.temperatureClass ? `${s.autoignition.temperatureClass} (${formatFixed(s.autoignition.maxSurface_C!, 0)} °C)` : 'none') : ''), [
     { name: 'Temperature class below it (IEC 60079-0)', unit: '', value: (s) => s.autoignition?.temperatureClass ?? null },
     // The results give the class's maximum surface temperature in °C, as the standard states it; the data is in K like every temperature.
-    { name: 'Maximum surface temperature of that class', unit: 'K', value: (s) => (s.autoignition?.maxSurface_C == null ? null : s.autoignition.maxSurface_C + 273.15) },
+    { name: 'Maximum surface temperature of that class', unit: 'K', value: (s) => (s.autoignition?.maxSurface_C == null ? null : s.autoignition.maxSurface_C + ZERO_CELSIUS_K) },
   ]),
 ];
 
