@@ -10,7 +10,7 @@ import { diffTrees, treeText, type Tree } from './tree-diff.ts';
 import { sameWithinRounding } from './tolerance.ts';
 
 /** At most this many differences are listed; the count says how many more there are. */
-export const MAX_LISTED = 25;
+const MAX_LISTED = 25;
 
 const NOT_COMPARED = new Set(['tool.version', 'speciesData_sha256']);
 

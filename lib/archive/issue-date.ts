@@ -16,7 +16,7 @@ export interface IssueDate {
 }
 
 /** A YYYY-MM-DD that names a real calendar day, as 00:00 UTC; undefined otherwise. */
-export function parseDay(text: string): Date | undefined {
+function parseDay(text: string): Date | undefined {
   const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(text);
   if (!m) return undefined;
   const date = new Date(Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3])));

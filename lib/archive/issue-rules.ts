@@ -26,7 +26,7 @@ import { EXIT_VALIDATION, UserError } from '../core/errors.ts';
 import type { IssueManifest, SignOffRole } from './layout.ts';
 
 /** The roles each status requires, in sign-off order. */
-export const REQUIRED_ROLES: Record<IssueStatus, readonly SignOffRole[]> = {
+const REQUIRED_ROLES: Record<IssueStatus, readonly SignOffRole[]> = {
   'issued for review': ['prepared'],
   'issued for approval': ['prepared', 'checked'],
   approved: ['prepared', 'checked', 'approved'],
@@ -132,7 +132,7 @@ function approvalRules(req: IssueRequest, out: IssueVerdict): void {
  * document itself says the design must change before it is issued), and any finding the results
  * mark as critical.
  */
-export function errorFindings(req: Pick<IssueRequest, 'results' | 'failedChecks'>): string[] {
+function errorFindings(req: Pick<IssueRequest, 'results' | 'failedChecks'>): string[] {
   const out: string[] = [];
   if (req.failedChecks > 0) out.push(`${req.failedChecks} check${req.failedChecks === 1 ? '' : 's'} of the calculation library against published values fail (cellbasis check lists them)`);
   // Findings with a severity, where the results carry them: the critical ones forbid approval.

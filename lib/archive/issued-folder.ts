@@ -20,7 +20,7 @@ import { compareRevisions, isRevision } from '../basis/revisions.ts';
 import { fileSystemError } from './file-errors.ts';
 import { readRegularFile } from '../core/read-file.ts';
 
-export const TEMP_PREFIX = '.tmp-';
+const TEMP_PREFIX = '.tmp-';
 export const LOCK_FILE = '.issue-lock';
 
 const TEMP_NAME = /^\.tmp-(.+)-(\d+)$/;

@@ -17,7 +17,7 @@ import { quoted } from '../core/quote.ts';
 import { EXIT_USAGE, UserError } from '../core/errors.ts';
 
 /** A key name: lower-case letters, digits, ".", "_" and "-", starting with a letter or digit; at most 64. */
-export const KEY_NAME = /^[a-z0-9][a-z0-9._-]{0,63}$/;
+const KEY_NAME = /^[a-z0-9][a-z0-9._-]{0,63}$/;
 
 /** Why a key name is refused, or undefined. */
 export function keyNameProblem(name: string): string | undefined {

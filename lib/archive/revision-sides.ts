@@ -17,7 +17,7 @@ import { nextRevision, revisionProblem } from '../basis/revisions.ts';
 import { readWorkingBasis } from './working-basis.ts';
 import { refuseFormerLayout } from './former-layout.ts';
 
-export const DRAFT = 'draft';
+const DRAFT = 'draft';
 
 export interface LabelledSide extends RevisionSide {
   /** "revision B (issued for review on 2026-11-30)" or "draft of revision C (working basis)". */

@@ -13,7 +13,7 @@ import { readRegularFile } from '../core/read-file.ts';
 import { EXIT_USAGE, UserError } from '../core/errors.ts';
 
 /** A key file is some 120 bytes; anything past this is no key of ours. */
-export const MAX_KEY_BYTES = 16 * 1024;
+const MAX_KEY_BYTES = 16 * 1024;
 
 /** A signature file: 88 characters of base64 and a newline. */
 export const MAX_SIGNATURE_BYTES = 1024;

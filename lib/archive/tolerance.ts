@@ -13,8 +13,8 @@
  * rounding residue (the element-balance error, about 1e-16) or trace amounts next to zero,
  * whose relative difference means nothing.
  */
-export const RELATIVE_TOLERANCE = 1e-12;
-export const ABSOLUTE_FLOOR = 1e-15;
+const RELATIVE_TOLERANCE = 1e-12;
+const ABSOLUTE_FLOOR = 1e-15;
 
 export function sameWithinRounding(a: number, b: number): boolean {
   if (Object.is(a, b)) return true;

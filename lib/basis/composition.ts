@@ -37,7 +37,7 @@ function shown(sum: number): string {
  * Reads a mapping of species to mole fractions. `label` names the composition in the inputs
  * table, e.g. "fuel-electrode feed"; `source` is the source written with it.
  */
-export function readFractions(reader: Reader, path: Path, label: string, source?: string): Omit<Composition, 'origin'> | undefined {
+function readFractions(reader: Reader, path: Path, label: string, source?: string): Omit<Composition, 'origin'> | undefined {
   const keys = reader.keys(path);
   if (keys.length === 0) {
     reader.findings.error(path, 'the composition is empty; give species and mole fractions, such as { H2: 0.97, H2O: 0.03 }');

@@ -11,7 +11,7 @@ import { quoted } from '../core/quote.ts';
 import { UserError, EXIT_USAGE } from '../core/errors.ts';
 import { kindOf } from '../core/read-file.ts';
 
-export const PROJECT_ID = /^[a-z0-9][a-z0-9._-]{0,63}$/;
+const PROJECT_ID = /^[a-z0-9][a-z0-9._-]{0,63}$/;
 
 export const BASIS_FILE = 'basis.yaml';
 

@@ -25,7 +25,7 @@ import { interpret, type InterpretedBasis } from './interpret.ts';
 import type { CaseLoad, CaseOverride, DesignBasis, Diagnostic, InputRecord, OperatingCase } from './types.ts';
 
 /** The id of the base values when they are the sizing case (no case is marked sizing). */
-export const BASE_CASE_ID = 'base';
+const BASE_CASE_ID = 'base';
 
 /** The sections a case overrides, and how deep a key lies in each (streams: electrode, then key). */
 const SECTIONS = ['conditions', 'streams', 'operating-point'] as const;

@@ -18,7 +18,7 @@ export const ISSUE_STATUSES: readonly IssueStatus[] = ['issued for review', 'iss
 
 const LETTERS = 'ABCDEFGHJKLMNPRTUVWY'.split('');
 
-export const REVISION_PATTERN = /^(?:[A-HJ-NPRT-WY]{1,2}|0|[1-9][0-9]{0,2})$/;
+const REVISION_PATTERN = /^(?:[A-HJ-NPRT-WY]{1,2}|0|[1-9][0-9]{0,2})$/;
 
 export function isRevision(text: string): boolean {
   return REVISION_PATTERN.test(text);

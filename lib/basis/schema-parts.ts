@@ -22,7 +22,7 @@ export function describeValue(value: unknown): string {
 }
 
 /** The message for a string that is not a quantity of the dimension (parseQuantity's own words). */
-export function quantityMessage(input: unknown, dimension: Dimension): string {
+function quantityMessage(input: unknown, dimension: Dimension): string {
   if (typeof input === 'string' || (typeof input === 'number' && Number.isFinite(input))) {
     try {
       parseQuantity(input, dimension);
@@ -35,7 +35,7 @@ export function quantityMessage(input: unknown, dimension: Dimension): string {
 }
 
 /** The message for a key the schema does not know: did-you-mean, else the keys it accepts. */
-export function unknownKeyMessage(key: string, known: readonly string[]): string {
+function unknownKeyMessage(key: string, known: readonly string[]): string {
   const near = didYouMean(key, known);
   return near ? `unknown key${near}` : `unknown key; expected ${quotedList(known)}`;
 }

@@ -321,7 +321,7 @@ const reference = strict({
 });
 
 /** A case id: the key of a case under `cases:`, also its name in the results and the document. */
-export const CASE_ID = /^[a-z][a-z0-9-]{0,39}$/;
+const CASE_ID = /^[a-z][a-z0-9-]{0,39}$/;
 
 /**
  * What a case may change: any value of conditions, streams and operating-point, written exactly as

@@ -90,7 +90,7 @@ function headlineVoltages(basis: DesignBasis): SummaryRow[] {
 }
 
 /** The row sources, in the order their rows are shown. */
-export const summaryRowSources: readonly ((basis: DesignBasis) => SummaryRow[])[] = [
+const summaryRowSources: readonly ((basis: DesignBasis) => SummaryRow[])[] = [
   (b) => rows(b, feedNames(b.cell.technology, b.cell.mode)),
   headlineVoltages,
 ];

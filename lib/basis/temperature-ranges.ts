@@ -15,7 +15,7 @@ import type { Electrode } from './stream-rules.ts';
 import type { Technology } from '../electrochem/technologies.ts';
 
 /** Half-width of the default temperature sweep, K (common practice, no source). */
-export const DEFAULT_SWEEP_HALF_WIDTH_K = 150;
+const DEFAULT_SWEEP_HALF_WIDTH_K = 150;
 
 export interface Feed {
   electrode: Electrode;
@@ -71,7 +71,7 @@ export function checkSpeciesRanges(reader: Reader, feeds: readonly Feed[], uses:
 }
 
 /** The species of the cell reaction H2 + ½ O2 → H2O, with liquid water for the cells that run with it. */
-export function reactionSpecies(tech: Technology): string[] {
+function reactionSpecies(tech: Technology): string[] {
   return ['H2', 'O2', tech.waterPhase === 'liquid' ? 'H2O(L)' : 'H2O'];
 }
 

@@ -10,7 +10,7 @@
 import { CST, Lexer } from 'yaml';
 
 /** Deepest nesting of lists and mappings accepted; a basis needs five (a sourced value in a sign-off). */
-export const MAX_DEPTH = 32;
+const MAX_DEPTH = 32;
 
 export interface TokenProblem {
   offset: number;

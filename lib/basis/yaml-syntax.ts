@@ -13,10 +13,10 @@ import { characterText, invisibleCharacters, reorderingCharacters } from '../cor
 import { quoted } from '../core/quote.ts';
 
 /** Aliases (*name) a basis may expand; a handful is all a basis needs, and it stops alias bombs. */
-export const MAX_ALIASES = 50;
+const MAX_ALIASES = 50;
 
 /** Longest key accepted: keys are names (sections, species, mixtures), and messages repeat them. */
-export const MAX_KEY_CHARACTERS = 200;
+const MAX_KEY_CHARACTERS = 200;
 
 /** The document tree and its plain data, or the syntax errors that stopped the reading. */
 export type ParsedYaml =

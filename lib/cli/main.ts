@@ -75,7 +75,7 @@ function endQuietlyOnClosedPipes(): void {
   }
 }
 
-export const processIo = (): Io => {
+const processIo = (): Io => {
   endQuietlyOnClosedPipes();
   return {
     out: (t) => process.stdout.write(t),

@@ -6,7 +6,7 @@
 import type { Io } from './command.ts';
 
 /** Steps of fewer items than this report nothing: they end before a bar would help. */
-export const FEW = 6;
+const FEW = 6;
 
 export function progressReporter(io: Io, quiet: boolean, now: () => number = () => performance.now()): (step: string, done: number, total: number) => void {
   const started = new Map<string, number>();

@@ -2,7 +2,7 @@
 import { parseQuantity, UnitError, type Dimension } from '../core/units.ts';
 import { UserError } from '../core/errors.ts';
 
-export function quantityOption(text: string, dimension: Dimension, option: string): number {
+function quantityOption(text: string, dimension: Dimension, option: string): number {
   try {
     return parseQuantity(text, dimension).si;
   } catch (error) {

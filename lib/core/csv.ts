@@ -13,7 +13,7 @@
 export type CsvValue = number | string | boolean | null;
 
 /** The text of one field, quoted where RFC 4180 requires it. */
-export function csvField(value: CsvValue): string {
+function csvField(value: CsvValue): string {
   if (value === null) return '';
   if (typeof value === 'boolean') return value ? 'true' : 'false';
   if (typeof value === 'number') {

@@ -39,7 +39,7 @@ export interface PdfMeta {
 }
 
 /** The producer a PDF names: the cellbasis version, and the Chromium that printed it. */
-export function producerName(chromiumVersion: string): string {
+function producerName(chromiumVersion: string): string {
   return `cellbasis ${toolVersion()} (Chromium ${chromiumVersion})`;
 }
 

@@ -7,7 +7,7 @@
 import { visibleText } from './visible-text.ts';
 
 /** Most characters of a written value a message repeats. */
-export const MAX_QUOTED_CHARACTERS = 60;
+const MAX_QUOTED_CHARACTERS = 60;
 
 /** `"800 degrees"`; a longer text as its beginning and its length: `"root:x:0:0:…" (2,345 characters)`. */
 export function quoted(text: string): string {

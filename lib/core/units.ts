@@ -56,7 +56,7 @@ export const SI_UNIT: Record<Dimension, string> = {
 };
 
 /** What a value of each dimension looks like, for messages. */
-export const EXAMPLE: Record<Dimension, string> = {
+const EXAMPLE: Record<Dimension, string> = {
   temperature: '"800 C" or "1073.15 K"',
   'temperature-difference': '"100 K"',
   pressure: '"1.2 bar", "120 kPa" or "0.2 barg"',

@@ -44,14 +44,6 @@ export function invisibleCharacters(text: string): { char: string; index: number
   return [...text.matchAll(INVISIBLE)].map((m) => ({ char: m[0], index: m.index }));
 }
 
-/** Whether the text holds a character a reader cannot see. */
-export function hasInvisible(text: string): boolean {
-  INVISIBLE.lastIndex = 0;
-  const found = INVISIBLE.test(text);
-  INVISIBLE.lastIndex = 0;
-  return found;
-}
-
 /** The text with every character a reader cannot see written as an escape: `R1\u200B`. A plain text is returned as it is. */
 export function visibleText(text: string): string {
   return text.replace(INVISIBLE, escape);

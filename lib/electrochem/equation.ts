@@ -44,7 +44,7 @@ function formatCoefficient(value: number): string {
 }
 
 /** Element totals Σ ν_i a_ij of the equation (zero for a balanced one). */
-export function elementImbalance(terms: readonly Term[]): Map<string, number> {
+function elementImbalance(terms: readonly Term[]): Map<string, number> {
   const totals = new Map<string, number>();
   for (const { species, nu } of terms) {
     for (const [element, count] of Object.entries(species.formula)) {

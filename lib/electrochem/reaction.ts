@@ -46,7 +46,7 @@ export function inferredElectrons(equation: Equation, override?: number): number
 }
 
 /** The electrons of inferredElectrons, which a voltage needs: a reaction without them is refused. */
-export function electronsOf(equation: Equation, override?: number): number {
+function electronsOf(equation: Equation, override?: number): number {
   const n = inferredElectrons(equation, override);
   if (n === null) {
     throw new UserError(`equation "${equation.text}" has no O2, so the electrons transferred cannot be inferred; give them with --electrons N`);
@@ -94,12 +94,12 @@ export function chemicalProperties(equation: Equation, temperatureK: number): Ch
 }
 
 /** Σ ν_i h_i(T), J/mol of reaction as written. */
-export function reactionEnthalpy(terms: readonly Term[], temperatureK: number): number {
+function reactionEnthalpy(terms: readonly Term[], temperatureK: number): number {
   return terms.reduce((sum, t) => sum + t.nu * enthalpy(t.species, temperatureK), 0);
 }
 
 /** Σ ν_i s_i(T), J/(mol K) of reaction as written. */
-export function reactionEntropy(terms: readonly Term[], temperatureK: number): number {
+function reactionEntropy(terms: readonly Term[], temperatureK: number): number {
   return terms.reduce((sum, t) => sum + t.nu * entropy(t.species, temperatureK), 0);
 }
 
@@ -127,7 +127,7 @@ export function evaluateReaction(text: string, temperatureK: number, electrons?:
 }
 
 /** ΔG° = ΔH° − TΔS°, J/mol of reaction as written. */
-export function reactionGibbsEnergy(terms: readonly Term[], temperatureK: number): number {
+function reactionGibbsEnergy(terms: readonly Term[], temperatureK: number): number {
   return reactionEnthalpy(terms, temperatureK) - temperatureK * reactionEntropy(terms, temperatureK);
 }
 

@@ -12,7 +12,7 @@ export const TECHNOLOGY_IDS = ['solid-oxide', 'proton-ceramic', 'pem', 'ht-pem',
 export type TechnologyId = (typeof TECHNOLOGY_IDS)[number];
 
 /** Other names a basis or the command line may give a technology by. */
-export const TECHNOLOGY_ALIASES: Readonly<Record<string, TechnologyId>> = { 'phosphoric-acid': 'ht-pem' };
+const TECHNOLOGY_ALIASES: Readonly<Record<string, TechnologyId>> = { 'phosphoric-acid': 'ht-pem' };
 
 /** Technology names a basis may give: the technology ids, then their aliases. */
 export const TECHNOLOGY_NAMES: readonly [TechnologyId, ...string[]] = [...TECHNOLOGY_IDS, ...Object.keys(TECHNOLOGY_ALIASES)];

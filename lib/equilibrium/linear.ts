@@ -15,7 +15,7 @@
  * Solves in place: `a` is row-major size×size and is destroyed; `r` receives the solution.
  * Returns the smallest |pivot| relative to the largest entry, or 0 when singular.
  */
-export function solveInPlace(a: Float64Array, r: Float64Array, size: number): number {
+function solveInPlace(a: Float64Array, r: Float64Array, size: number): number {
   let scale = 0;
   for (let i = 0; i < size * size; i++) scale = Math.max(scale, Math.abs(a[i]!));
   if (!(scale > 0)) return 0;

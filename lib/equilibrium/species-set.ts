@@ -59,7 +59,7 @@ export function systemFor(elements: Iterable<string>, only?: readonly string[]):
 }
 
 /** The element of its own that an inert species is given: "[N2]". */
-export function inertElement(label: string): string {
+function inertElement(label: string): string {
   return `[${label}]`;
 }
 

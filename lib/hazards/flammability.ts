@@ -51,7 +51,7 @@ function entries(composition: Composition): [string, number][] {
 }
 
 /** The combustibles of a composition (species with a lower flammable limit in the hazard data). */
-export function combustiblesOf(composition: Composition): Combustible[] {
+function combustiblesOf(composition: Composition): Combustible[] {
   return entries(composition)
     .filter(([label, x]) => x > 0 && findSubstance(label)?.combustible === true)
     .map(([label, fraction]) => ({ label, fraction }));
@@ -108,7 +108,7 @@ export function limitingOxygen(combustibles: readonly Combustible[]): LimitingOx
 }
 
 /** Oxygen mole fraction of air (substances.yaml, O2 entry). */
-export function airOxygenFraction(): number {
+function airOxygenFraction(): number {
   return substance('O2').inAir_percent!.value / 100;
 }
 

@@ -35,13 +35,8 @@ function table(): z.infer<typeof File> {
 }
 
 /** The classes from the least to the most demanding (T1 first). */
-export function temperatureClasses(): readonly TemperatureClass[] {
+function temperatureClasses(): readonly TemperatureClass[] {
   return table().classes;
-}
-
-/** Where the class table comes from. */
-export function temperatureClassSource(): string {
-  return table().source;
 }
 
 /**

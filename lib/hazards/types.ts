@@ -101,7 +101,7 @@ const streamFlammabilitySchema = z.object({
 
 export type StreamFlammability = z.infer<typeof streamFlammabilitySchema>;
 
-export const INSIDE_RANGE_FINDINGS = [
+const INSIDE_RANGE_FINDINGS = [
   'no combustibles',
   'no oxidant',
   'too lean',

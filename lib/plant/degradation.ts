@@ -26,7 +26,7 @@ export interface AgedCell {
 }
 
 /** r t of a degradation. */
-export function degradedFraction(degradation: Degradation): number {
+function degradedFraction(degradation: Degradation): number {
   return degradation.ratePerS * degradation.operatingTimeS;
 }
 

@@ -132,7 +132,6 @@ export function cellVoltageOf(inputs: DesignInputs, path: FuelPath): { voltage: 
 
 /** The cell's voltage and currents, the cell count, and the stack's currents, scale (stack flows per unit flow, from the ionic current) and power. */
 function stackSize(inputs: DesignInputs, path: FuelPath) {
-  const power = inputs.mode === 'power';
   const { voltage, aged } = cellVoltageOf(inputs, path);
   const cellCurrentA = inputs.currentDensityAPerM2 * inputs.activeAreaM2;
   const cellIonicCurrentA = voltage.ionicCurrentDensityAPerM2 * inputs.activeAreaM2;

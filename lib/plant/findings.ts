@@ -24,7 +24,7 @@
 import { z } from 'zod';
 import type { DesignBasis } from '../basis/types.ts';
 
-export const FINDING_SEVERITIES = ['critical', 'warning', 'info'] as const;
+const FINDING_SEVERITIES = ['critical', 'warning', 'info'] as const;
 export type FindingSeverity = (typeof FINDING_SEVERITIES)[number];
 
 export const findingSchema = z
@@ -40,7 +40,7 @@ export const findingSchema = z
 
 export type Finding = z.infer<typeof findingSchema>;
 
-export const CONTRADICTED = 'assumption-contradicted';
+const CONTRADICTED = 'assumption-contradicted';
 
 /** A finding, its assumptions still to be linked by `withAssumptions`. */
 export function finding(code: string, severity: FindingSeverity, path: string, message: string, related: readonly string[] = []): Finding {

@@ -8,7 +8,7 @@ import type { DesignBasis, Diagnostic } from '../basis/types.ts';
 import { CalculationError, UserError, type CalculationInput } from '../core/errors.ts';
 import type { Finding } from './findings.ts';
 
-export function locatedDiagnostic(basis: DesignBasis, path: string, message: string, severity: Diagnostic['severity'] = 'error'): Diagnostic {
+function locatedDiagnostic(basis: DesignBasis, path: string, message: string, severity: Diagnostic['severity'] = 'error'): Diagnostic {
   // The value itself, else the nearest written parent (a default has no position of its own).
   let at = basis.positions[`${path}.value`] ?? basis.positions[path];
   let probe = path;
@@ -29,7 +29,7 @@ export function formatFinding(basis: DesignBasis, f: Finding): string {
   return `${at.file}:${at.line}:${at.column}: ${f.severity}: ${f.path}: ${f.message} [${f.code}${assumptions}]`;
 }
 
-export function locatedError(basis: DesignBasis, path: string, message: string): BasisError {
+function locatedError(basis: DesignBasis, path: string, message: string): BasisError {
   return new BasisError([locatedDiagnostic(basis, path, message)]);
 }
 

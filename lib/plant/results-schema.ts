@@ -15,7 +15,7 @@ const num = (description: string) => z.number().describe(description);
 const nullableNum = (description: string) => z.number().nullable().describe(description);
 const fractions = z.record(z.string(), z.number()).describe('mole fractions by species label');
 
-export const streamSchema = z
+const streamSchema = z
   .object({
     id: z.string().describe('stream id: fuel-feed, pre-reformer-outlet, fuel-inlet, fuel-outlet, air-inlet, air-outlet'),
     name: z.string(),

@@ -87,7 +87,7 @@ function combined(a: Readonly<Record<string, number>>, b: Readonly<Record<string
 }
 
 /** The recycled off-gas for a fresh feed, by the element balance of the loop (module comment), mol/s. */
-export function recycledOffGas(inputs: DesignInputs, fresh: Readonly<Record<string, number>>): Record<string, number> {
+function recycledOffGas(inputs: DesignInputs, fresh: Readonly<Record<string, number>>): Record<string, number> {
   const r = inputs.anodeRecycle!.ratio;
   const U = inputs.utilization;
   const d = exchangeFor(inputs.technology.ion).fuelElements;

@@ -7,7 +7,7 @@ import { accessSync, constants } from 'node:fs';
 import { chromium, type Browser } from 'playwright-core';
 import { EXIT_VALIDATION, UserError } from '../core/errors.ts';
 
-export const DEFAULT_CHROMIUM = '/usr/bin/chromium';
+const DEFAULT_CHROMIUM = '/usr/bin/chromium';
 
 /**
  * Chromium off the network altogether, not only the pages: Chromium makes requests of its own

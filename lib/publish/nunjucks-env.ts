@@ -36,7 +36,7 @@ function trusted(value: unknown): unknown {
   return new nunjucks.runtime.SafeString(value.html);
 }
 
-export function createEnvironment(): NunjucksEnvironment {
+function createEnvironment(): NunjucksEnvironment {
   const loader = new nunjucks.FileSystemLoader([join(TEMPLATES_DIR, '_includes'), TEMPLATES_DIR]);
   const env = new nunjucks.Environment(loader, { autoescape: true, throwOnUndefined: true, trimBlocks: true, lstripBlocks: true });
   env.addFilter('trusted', trusted);

@@ -20,7 +20,7 @@ import { PDF_LIB_WHOLE, setPdfProperties, type PdfMeta } from '../core/pdf-prope
  * as one sorted /Names array (§7.9.6) in place of the old one, so the bytes depend on the page
  * alone. Returns how many were renamed.
  */
-export function renumberStructureIds(pdf: PDFDocument): number {
+function renumberStructureIds(pdf: PDFDocument): number {
   const root = pdf.catalog.lookupMaybe(PDFName.of('StructTreeRoot'), PDFDict);
   if (!root) return 0;
   const { elements, renamed, seen } = renameStructureElements(pdf, root);
@@ -109,7 +109,7 @@ function rebuildIdTree(pdf: PDFDocument, root: PDFDict, elements: readonly Struc
  * sits beside its page, so a viewer resolving it against the PDF's own location reaches the
  * same file); other URIs are left as they are. Returns how many were rewritten.
  */
-export function relativiseFileLinks(pdf: PDFDocument, pageUrl: string): number {
+function relativiseFileLinks(pdf: PDFDocument, pageUrl: string): number {
   if (!/^file:/i.test(pageUrl)) return 0;
   const pageDir = posix.dirname(fileURLToPath(pageUrl).split(sep).join('/'));
   const [ANNOTS, A, S, URI] = ['Annots', 'A', 'S', 'URI'].map((n) => PDFName.of(n)) as [PDFName, PDFName, PDFName, PDFName];

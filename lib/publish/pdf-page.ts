@@ -8,11 +8,11 @@ import type { PdfMeta } from '../core/pdf-properties.ts';
 import { escapeHtml } from '../report/trusted-html.ts';
 
 /** Paper size and margins, mm. The header and footer stand in the top and bottom margins. */
-export const PAPER = {
+const PAPER = {
   A4: { width: 210, height: 297 },
   Letter: { width: 215.9, height: 279.4 },
 } as const;
-export const MARGIN_MM = { top: 20, bottom: 18, side: 16 };
+const MARGIN_MM = { top: 20, bottom: 18, side: 16 };
 const CSS_PX_PER_MM = 96 / 25.4;
 export const DEVICE_SCALE = 2;
 

@@ -27,7 +27,7 @@ import { inlineAssets } from './inline-assets.ts';
 import { writeSiteAssets } from './write-assets.ts';
 
 /** The template every document page is rendered with, in the site and on its own. */
-export const DOCUMENT_TEMPLATE = 'document-page.njk';
+const DOCUMENT_TEMPLATE = 'document-page.njk';
 
 /** Renders a prepared view model: the step the site build and renderDocumentHtml share. */
 export function renderView(doc: DocumentView): string {

@@ -8,7 +8,7 @@ import type { DesignBasis } from '../basis/types.ts';
 import { UserError } from '../core/errors.ts';
 
 /** SOURCE_DATE_EPOCH as a date (YYYY-MM-DD, UTC), or null when it is not set. */
-export function sourceDateEpoch(env: NodeJS.ProcessEnv = process.env): string | null {
+function sourceDateEpoch(env: NodeJS.ProcessEnv = process.env): string | null {
   const raw = env.SOURCE_DATE_EPOCH;
   if (raw === undefined || raw === '') return null;
   if (!/^\d{1,12}$/.test(raw)) throw new UserError(`SOURCE_DATE_EPOCH must be a whole number of seconds since 1970-01-01, got "${raw}"`);

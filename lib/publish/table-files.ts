@@ -15,7 +15,7 @@ import { tableCsv } from '../report/table.ts';
 import { tableFilePath, tablesOf } from '../report/table-links.ts';
 
 /** The CSV files a page links: site path and text, for every table linked to a file. */
-export function tableFiles(view: DocumentView): { path: string; text: string }[] {
+function tableFiles(view: DocumentView): { path: string; text: string }[] {
   return tablesOf(view)
     .filter((t) => t.csv !== undefined && !t.csv.href.startsWith('data:'))
     .map((t) => ({ path: tableFilePath(view.pagePath, t), text: tableCsv(t) }));

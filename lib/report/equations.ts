@@ -26,7 +26,7 @@ export interface Ops {
   close: string;
 }
 
-export const SYMBOLS: Ops = { times: '\\,', open: '\\left(', close: '\\right)' };
+const SYMBOLS: Ops = { times: '\\,', open: '\\left(', close: '\\right)' };
 export const NUMBERS: Ops = { times: '\\times', open: '(', close: ')' };
 
 /** A symbol: its LaTeX; `ofT` where the method writes it as a function of temperature (ΔH°(T)); `listed` where a worked line names the number by a shorter symbol than the equation writes out. */
@@ -77,7 +77,7 @@ export function symbolicLhs(relation: Relation, form: 'method' | 'line'): string
 }
 
 /** `lhs = rhs` as the method writes it. */
-export function methodForm(relation: Relation): string {
+function methodForm(relation: Relation): string {
   return `${symbolicLhs(relation, 'method')} = ${symbolicRhs(relation, 'method')}`;
 }
 

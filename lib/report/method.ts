@@ -428,7 +428,7 @@ function resolveCitations(steps: MethodStep[], book: EquationBook): void {
 }
 
 /** Whether the carbon equations apply: a fuel with carbon on the fuel path. */
-export function hasCarbon(r: Results): boolean {
+function hasCarbon(r: Results): boolean {
   return r.carbon.maxCarbonActivity !== null || r.carbon.minimumSteamToCarbonStack !== null;
 }
 

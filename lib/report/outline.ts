@@ -4,7 +4,7 @@
  * summary stands in the body). Numbers and letters are taken from here wherever a text refers to
  * another section, so they cannot drift apart.
  */
-export const OUTLINE = [
+const OUTLINE = [
   { id: 'purpose', title: 'Purpose and scope' },
   { id: 'summary', title: 'Summary of results and conclusions' },
   { id: 'inputs', title: 'Design inputs' },
@@ -35,7 +35,7 @@ export function outline(): OutlineEntry[] {
   return OUTLINE.map((s, i) => ({ id: s.id, number: i + 1, title: s.title }));
 }
 
-export const APPENDICES = [{ id: 'checks', title: 'Checks of the calculation library against published values' }] as const;
+const APPENDICES = [{ id: 'checks', title: 'Checks of the calculation library against published values' }] as const;
 
 export type AppendixId = (typeof APPENDICES)[number]['id'];
 

@@ -13,9 +13,9 @@ import { tableCsv, type Table } from './table.ts';
 export type TableLinks = 'files' | 'inline';
 
 /** The folder beside a page that holds the CSV files of its tables. */
-export const TABLE_FOLDER = 'tables';
+const TABLE_FOLDER = 'tables';
 
-export function isTable(value: unknown): value is Table {
+function isTable(value: unknown): value is Table {
   if (typeof value !== 'object' || value === null) return false;
   const t = value as Partial<Table>;
   return typeof t.name === 'string' && Array.isArray(t.head) && Array.isArray(t.rows) && typeof t.data === 'object' && t.data !== null && Array.isArray(t.data.columns);

@@ -13,9 +13,6 @@ export const FARADAY_C_PER_MOL = 96485.33212331001;
 /** Molar gas constant R = N_A·k_B, J/(mol K) (exact). */
 export const GAS_CONSTANT_J_PER_MOL_K = 8.31446261815324;
 
-/** Standard-state pressure of the NASA Glenn data (and of every logarithm here), bar. */
-export const STANDARD_PRESSURE_BAR = 1;
-
 /** Pascals per bar (definition). */
 export const PA_PER_BAR = 1e5;
 
@@ -30,7 +27,7 @@ export const STANDARD_ATMOSPHERE_PA = 101325;
  * Molar volume of an ideal gas there: R·T/p = 0.022413969... m³/mol (CODATA 2018 lists
  * 22.413 969 54 L/mol at 273.15 K and 101.325 kPa).
  */
-export const NORMAL_TEMPERATURE_K: number = ZERO_CELSIUS_K;
-export const NORMAL_PRESSURE_PA = STANDARD_ATMOSPHERE_PA;
+const NORMAL_TEMPERATURE_K: number = ZERO_CELSIUS_K;
+const NORMAL_PRESSURE_PA = STANDARD_ATMOSPHERE_PA;
 export const NORMAL_MOLAR_VOLUME_M3_PER_MOL =
   (GAS_CONSTANT_J_PER_MOL_K * NORMAL_TEMPERATURE_K) / NORMAL_PRESSURE_PA;

@@ -17,7 +17,7 @@ import { TemperatureRangeError, UserError } from '../core/errors.ts';
 /** Tolerance on a record's range, K: the published ranges are given to 0.001 K. */
 const RANGE_SLACK_K = 1e-6;
 
-export function intervalAt(species: Species, temperatureK: number): NasaInterval {
+function intervalAt(species: Species, temperatureK: number): NasaInterval {
   if (!(temperatureK >= species.lowK - RANGE_SLACK_K && temperatureK <= species.highK + RANGE_SLACK_K)) {
     throw new TemperatureRangeError(species.label, temperatureK, species.lowK, species.highK);
   }
@@ -48,7 +48,7 @@ export function hOverRT(species: Species, temperatureK: number): number {
 }
 
 /** s/R (dimensionless) at the 1 bar standard state. */
-export function sOverR(species: Species, temperatureK: number): number {
+function sOverR(species: Species, temperatureK: number): number {
   const { a, b2 } = intervalAt(species, temperatureK);
   const [a1, a2, a3, a4, a5, a6, a7] = a;
   const t = temperatureK;
@@ -105,7 +105,7 @@ export function speciesProperties(species: Species, temperatureK: number): Speci
  * Property of formation at T: X_f(T) = x_species(T) − Σ_e (n_e / atoms_e) x_ref,e(T), with each
  * element in its reference state (H2, O2, N2, C(gr), Ar, He), as tabulated in NIST-JANAF.
  */
-export function formationProperty(
+function formationProperty(
   species: Species,
   temperatureK: number,
   property: (s: Species, t: number) => number,

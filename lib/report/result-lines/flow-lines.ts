@@ -12,7 +12,7 @@ import type { LineSpec, QuantitySpec } from '../calc-line.ts';
 import { constF } from './common.ts';
 
 /** Σ x_i z_i of the dry fuel: electrons per mole of fuel on complete oxidation. */
-export function meanCharge(dry: Readonly<Record<string, number>>): number {
+function meanCharge(dry: Readonly<Record<string, number>>): number {
   let z = 0;
   for (const [species, x] of Object.entries(dry)) z += x * electronsPerMolecule(getSpecies(species));
   return z;

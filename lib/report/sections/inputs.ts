@@ -20,7 +20,7 @@ export interface InputsSection {
 }
 
 /** "R1: citation", "A2: assumption text", or the justification as written. */
-export function resolveSource(basis: DesignBasis, source: string | undefined): string {
+function resolveSource(basis: DesignBasis, source: string | undefined): string {
   if (source === undefined) return 'not stated';
   const id = source.trim();
   const reference = basis.references.find((r) => r.id === id);

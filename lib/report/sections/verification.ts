@@ -67,7 +67,7 @@ const SUMMARY_COLUMNS: RecordColumn<CheckGroup>[] = [
 ];
 
 /** The checks counted by group, for the body of the document (the full table is an appendix). */
-export function verificationSummaryTable(checks: readonly CheckResult[]): Table {
+function verificationSummaryTable(checks: readonly CheckResult[]): Table {
   const prefixOf = (c: CheckResult) => c.check.id.replace(/-.*$/, '');
   const groups: CheckGroup[] = [...new Set(checks.map(prefixOf))].map((prefix) => {
     const group = checks.filter((c) => prefixOf(c) === prefix);
