@@ -161,7 +161,7 @@ function stackSize(inputs: DesignInputs, path: FuelPath) {
  * from the AC side, P_net = P_DC (η − f). Electrolysis: the rectifier draws P_DC/η and the
  * balance of plant f P_DC more, P_in = P_DC (1/η + f). With η = 1 and f = 0 both are P_DC.
  */
-export function plantPowerShare(inputs: Pick<DesignInputs, 'mode' | 'conversionEfficiency' | 'parasiticFraction'>): number {
+function plantPowerShare(inputs: Pick<DesignInputs, 'mode' | 'conversionEfficiency' | 'parasiticFraction'>): number {
   return inputs.mode === 'power' ? inputs.conversionEfficiency - inputs.parasiticFraction : 1 / inputs.conversionEfficiency + inputs.parasiticFraction;
 }
 

@@ -3,14 +3,10 @@
 // as functions of their own are what the next change reuses. Each function, method and arrow
 // function is found by a real parser (@babel/parser with its TypeScript plugin), so one written in
 // a string, a comment or a template is never counted and none is missed.
-import { readdirSync, readFileSync, statSync } from 'node:fs';
-import { join, relative } from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { parse } from '@babel/parser';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-
-const ROOT = fileURLToPath(new URL('../../', import.meta.url));
-const LIB = join(ROOT, 'lib');
+import { isNode, parseSource, ROOT, sourceFiles, walk, type Node } from './sources.ts';
 
 /** The longest function, in lines from its first to its last (both counted), that needs no reason. */
 const MAX_LINES = 60;
@@ -18,18 +14,6 @@ const MAX_LINES = 60;
 const MARKER = 'Long because:';
 /** The fewest characters a reason after the marker takes (a word or two is no reason). */
 const MIN_REASON = 20;
-
-interface Comment {
-  type: 'CommentBlock' | 'CommentLine';
-  value: string;
-}
-
-interface Node {
-  type: string;
-  loc?: { start: { line: number }; end: { line: number } } | null;
-  leadingComments?: Comment[] | null;
-  [key: string]: unknown;
-}
 
 interface LongFunction {
   /** Path from the repository's root, with / between folders. */
@@ -44,12 +28,8 @@ interface LongFunction {
 const FUNCTION_TYPES = new Set(['FunctionDeclaration', 'FunctionExpression', 'ArrowFunctionExpression', 'ObjectMethod', 'ClassMethod', 'ClassPrivateMethod']);
 /** Nodes that carry the doc comment of a function they hold (`export function`, `const f = () =>`, `{ f: () => }`, a class field). */
 const COMMENT_HOLDERS = new Set(['ExportNamedDeclaration', 'ExportDefaultDeclaration', 'VariableDeclaration', 'VariableDeclarator', 'ObjectProperty', 'ClassProperty', 'ClassPrivateProperty', 'TSExportAssignment']);
-const SKIPPED_KEYS = new Set(['loc', 'start', 'end', 'range', 'extra', 'leadingComments', 'trailingComments', 'innerComments', 'comments', 'tokens']);
 
-function isNode(value: unknown): value is Node {
-  return typeof value === 'object' && value !== null && typeof (value as Node).type === 'string';
-}
-
+/** The name of an identifier, private name or literal key, or null for a computed one. */
 function keyName(key: unknown): string | null {
   if (!isNode(key)) return null;
   if (key.type === 'Identifier' || key.type === 'PrivateName') return key.type === 'PrivateName' ? `#${(key.id as Node).name as string}` : (key.name as string);
@@ -58,7 +38,7 @@ function keyName(key: unknown): string | null {
 }
 
 /** The name a reader knows a function by: its own, the variable, property or method it is assigned to, or where it is passed. */
-function functionName(node: Node, parents: Node[]): string {
+function functionName(node: Node, parents: readonly Node[]): string {
   const own = keyName(node.id) ?? (node.type === 'ObjectMethod' || node.type.startsWith('Class') ? keyName(node.key) : null);
   if (own) return own;
   const parent = parents[parents.length - 1];
@@ -75,7 +55,7 @@ function functionName(node: Node, parents: Node[]): string {
 }
 
 /** The doc comment (`/** ... *\/`) written just before the function or the declaration that holds it, or null. */
-function docComment(node: Node, parents: Node[]): string | null {
+function docComment(node: Node, parents: readonly Node[]): string | null {
   const holders = [node];
   for (let k = parents.length - 1; k >= 0 && COMMENT_HOLDERS.has(parents[k]!.type); k--) holders.push(parents[k]!);
   for (const holder of holders) {
@@ -97,35 +77,17 @@ function reasonOf(doc: string | null): string | null {
 
 /** Every function of a source longer than `MAX_LINES`, with its name and the reason its doc comment gives. */
 function longFunctions(source: string, file: string): LongFunction[] {
-  const typescript = /\.m?ts$/.test(file);
-  const ast = parse(source, { sourceType: 'module', plugins: typescript ? ['typescript'] : [], errorRecovery: false });
   const found: LongFunction[] = [];
-  const visit = (node: Node, parents: Node[]) => {
-    if (FUNCTION_TYPES.has(node.type) && node.loc) {
-      const lines = node.loc.end.line - node.loc.start.line + 1;
-      if (lines > MAX_LINES) found.push({ file, line: node.loc.start.line, name: functionName(node, parents), lines, reason: reasonOf(docComment(node, parents)) });
-    }
-    const inner = [...parents, node];
-    for (const [key, value] of Object.entries(node)) {
-      if (SKIPPED_KEYS.has(key)) continue;
-      if (Array.isArray(value)) for (const item of value) if (isNode(item)) visit(item, inner);
-      if (isNode(value)) visit(value, inner);
-    }
-  };
-  visit(ast.program as unknown as Node, []);
+  walk(parseSource(source, file), (node, parents) => {
+    if (!FUNCTION_TYPES.has(node.type) || !node.loc) return;
+    const lines = node.loc.end.line - node.loc.start.line + 1;
+    if (lines > MAX_LINES) found.push({ file, line: node.loc.start.line, name: functionName(node, parents), lines, reason: reasonOf(docComment(node, parents)) });
+  });
   return found;
 }
 
-function sourceFiles(dir: string): string[] {
-  return readdirSync(dir).flatMap((name) => {
-    const path = join(dir, name);
-    if (statSync(path).isDirectory()) return sourceFiles(path);
-    return /\.(ts|mts|js|mjs)$/.test(name) && !name.endsWith('.d.ts') ? [path] : [];
-  });
-}
-
 describe('function length in lib/', () => {
-  const all = sourceFiles(LIB).flatMap((path) => longFunctions(readFileSync(path, 'utf8'), relative(ROOT, path).split('\\').join('/')));
+  const all = sourceFiles('lib').flatMap((file) => longFunctions(readFileSync(join(ROOT, file), 'utf8'), file));
 
   it(`has no function over ${MAX_LINES} lines whose doc comment does not say why ("${MARKER} ...")`, () => {
     const offenders = all.filter((f) => f.reason === null).map((f) => `${f.file}:${f.line} ${f.name} (${f.lines} lines)`);
