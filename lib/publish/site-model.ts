@@ -25,7 +25,7 @@ import { formatFinding } from '../plant/located-error.ts';
 import { everyFinding } from '../plant/findings.ts';
 import { runAllChecks } from '../verification/checks.ts';
 import { documentView, type DocumentView } from '../report/document.ts';
-import { revisionHistory, type ChangeSummary, type RevisionHistoryEntry } from '../report/history.ts';
+import { revisionHistory, type ChangeSummary, type DraftRecord, type RevisionHistoryEntry } from '../report/history.ts';
 import { draftPagePath, relativeHref, revisionPagePath, rootPrefix } from '../report/links.ts';
 import { INDEX_PATH, portfolioView, type PortfolioProject, type PortfolioView } from '../report/portfolio.ts';
 import type { RevisionContext } from '../report/revision.ts';
@@ -227,6 +227,23 @@ function issuedPages(id: string, issued: IssuedRevision[], history: RevisionHist
   return { pages, copies };
 }
 
+/** A project's revision history: each issued revision with its page, then the working draft, each compared with the one before by `changeSummary`. */
+function projectHistory(id: string, issued: readonly IssuedRevision[], draft: DraftRecord, changeSummary: ChangeSummary): RevisionHistoryEntry[] {
+  return revisionHistory({
+    issued: issued.map((s) => ({
+      revision: s.revision,
+      basis: s.basis,
+      ...(s.basisProblem ? { basisProblem: s.basisProblem } : {}),
+      source: s.source,
+      results: s.results,
+      manifest: s.manifest,
+      path: revisionPagePath(id, s.revision),
+    })),
+    draft,
+    changeSummary,
+  });
+}
+
 /**
  * One project: its working draft and issued revisions as document views, and its portfolio row.
  * Problems go to `problems`; a project with an error contributes no pages.
@@ -255,19 +272,7 @@ export function loadProjectPages(loader: ProjectLoader, id: string, problems: Si
   const draftPath = draftPagePath(id);
   const last = issued[issued.length - 1];
   const draftRevision = nextRevision(last?.revision ?? null);
-  const history = revisionHistory({
-    issued: issued.map((s) => ({
-      revision: s.revision,
-      basis: s.basis,
-      ...(s.basisProblem ? { basisProblem: s.basisProblem } : {}),
-      source: s.source,
-      results: s.results,
-      manifest: s.manifest,
-      path: revisionPagePath(id, s.revision),
-    })),
-    draft: { revision: draftRevision, basis: loaded.basis, source: Buffer.from(bytes).toString('utf8'), results, path: draftPath },
-    changeSummary: options.changeSummary ?? compareWith,
-  });
+  const history = projectHistory(id, issued, { revision: draftRevision, basis: loaded.basis, source: Buffer.from(bytes).toString('utf8'), results, path: draftPath }, options.changeSummary ?? compareWith);
   const date = draftDate(loaded.basis, options.env);
   const draft: RevisionContext = {
     kind: 'draft',
