@@ -307,7 +307,7 @@ export interface UnitStage {
   path: FuelPath;
 }
 
-export function unitStage(inputs: DesignInputs): UnitStage {
+function unitStage(inputs: DesignInputs): UnitStage {
   const unit = unitFeeds(inputs);
   return { unit, path: unitPath(inputs, unit) };
 }
