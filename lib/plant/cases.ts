@@ -52,7 +52,7 @@ export interface Hardware {
   temperatureK: number;
 }
 
-export function hardwareOf(point: DesignPoint): Hardware {
+function hardwareOf(point: DesignPoint): Hardware {
   return {
     cells: point.sizing.cells,
     activeAreaM2: point.inputs.activeAreaM2,
@@ -67,7 +67,7 @@ function ownResistance(c: OperatingCase): boolean {
 }
 
 /** The design inputs of a case on the hardware, at the current density its basis states. */
-export function caseInputs(c: OperatingCase, hardware: Hardware): DesignInputs {
+function caseInputs(c: OperatingCase, hardware: Hardware): DesignInputs {
   const own = designInputs(c.basis);
   const inputs: DesignInputs = { ...own, size: { kind: 'cells', cells: hardware.cells }, activeAreaM2: hardware.activeAreaM2 };
   delete inputs.statedCells;

@@ -522,73 +522,91 @@ function powerPlantEquations(): EquationEntry[] {
  * the end of life (common practice, no source), V = V₀ (1 ∓ r t) or ASR = ASR₀ (1 + r t).
  */
 function caseEquations(r: Results): EquationEntry[] {
-  const out: EquationEntry[] = [];
   const power = r.technology.mode === 'power';
+  return [...caseLoadEquations(r, power), ...(r.cases.length ? [...caseDutyEquations(r, power), ...caseMassEquations(r, power)] : []), ...degradationEquations(r, power)];
+}
+
+/** The load a case meets: P = N j A V (η − f) in power mode, P = N j A V (1/η + f) and ṁ_H2 = N j A M/(2F) in electrolysis. */
+function caseLoadEquations(r: Results, power: boolean): EquationEntry[] {
+  if (!r.cases.some((c) => c.load === 'target-power' || c.load === 'target-hydrogen')) return [];
   const [N, j, A, V, f, M, eta] = ['N', 'j', 'A', 'V', 'f_\\mathrm{par}', 'M_\\mathrm{H_2}', '\\eta_\\mathrm{conv}'].map((s) => sym(s)) as Symbol[];
-  if (r.cases.some((c) => c.load === 'target-power' || c.load === 'target-hydrogen')) {
-    // The plant's AC power per unit of stack DC power (design-point.ts plantPowerShare): η − f delivered, 1/η + f drawn.
-    const relations: Record<string, Relation> = power
-      ? { power: { lhs: sym('P_\\mathrm{net}'), symbols: { N: N!, j: j!, A: A!, V: V!, eta: eta!, f: f! }, rhs: (q, op) => `${q.N}${op.times}${q.j}${op.times}${q.A}${op.times}${q.V}${op.times}${op.open}${q.eta} - ${q.f}${op.close}` } }
-      : {
-          power: { lhs: sym('P_\\mathrm{in}'), symbols: { N: N!, j: j!, A: A!, V: V!, eta: eta!, f: f! }, rhs: (q, op) => `${q.N}${op.times}${q.j}${op.times}${q.A}${op.times}${q.V}${op.times}${op.open}\\frac{1}{${q.eta}} + ${q.f}${op.close}` },
-          hydrogen: { lhs: sym('\\dot m_\\mathrm{H_2}'), symbols: { N: N!, j: j!, A: A!, M: M!, F }, rhs: (q, op) => `\\frac{${q.N}${op.times}${q.j}${op.times}${q.A}${op.times}${q.M}}{2${op.times}${q.F}}` },
-        };
-    out.push(entry('case-load', relations));
+  // The plant's AC power per unit of stack DC power (design-point.ts plantPowerShare): η − f delivered, 1/η + f drawn.
+  const relations: Record<string, Relation> = power
+    ? { power: { lhs: sym('P_\\mathrm{net}'), symbols: { N: N!, j: j!, A: A!, V: V!, eta: eta!, f: f! }, rhs: (q, op) => `${q.N}${op.times}${q.j}${op.times}${q.A}${op.times}${q.V}${op.times}${op.open}${q.eta} - ${q.f}${op.close}` } }
+    : {
+        power: { lhs: sym('P_\\mathrm{in}'), symbols: { N: N!, j: j!, A: A!, V: V!, eta: eta!, f: f! }, rhs: (q, op) => `${q.N}${op.times}${q.j}${op.times}${q.A}${op.times}${q.V}${op.times}${op.open}\\frac{1}{${q.eta}} + ${q.f}${op.close}` },
+        hydrogen: { lhs: sym('\\dot m_\\mathrm{H_2}'), symbols: { N: N!, j: j!, A: A!, M: M!, F }, rhs: (q, op) => `\\frac{${q.N}${op.times}${q.j}${op.times}${q.A}${op.times}${q.M}}{2${op.times}${q.F}}` },
+      };
+  return [entry('case-load', relations)];
+}
+
+/** The governing DC power (P = V_bus I_bus), water or steam and coolant flows of a case, where a case governs them. */
+function caseDutyEquations(r: Results, power: boolean): EquationEntry[] {
+  const out: EquationEntry[] = [];
+  const governed = (id: string) => r.envelope.some((e) => e.id === id);
+  if (governed('dc-power')) {
+    out.push(entry('case-bus-power', { power: { lhs: sym('P_\\mathrm{DC}'), symbols: { Vbus: sym('V_\\mathrm{bus}'), Ibus: sym('I_\\mathrm{bus}') }, rhs: (q, op) => `${q.Vbus}${op.times}${q.Ibus}` } }));
   }
-  if (r.cases.length) {
-    const governed = (id: string) => r.envelope.some((e) => e.id === id);
-    if (governed('dc-power')) {
-      out.push(entry('case-bus-power', { power: { lhs: sym('P_\\mathrm{DC}'), symbols: { Vbus: sym('V_\\mathrm{bus}'), Ibus: sym('I_\\mathrm{bus}') }, rhs: (q, op) => `${q.Vbus}${op.times}${q.Ibus}` } }));
-    }
-    if (governed('water-flow')) {
-      const Mw = sym('M_\\mathrm{H_2O}');
-      out.push(
-        entry(
-          'case-water',
-          power
-            ? { steam: { lhs: sym('\\dot m_\\mathrm{w}'), symbols: { n: sym('\\dot n_\\mathrm{feed}'), x: sym('x_\\mathrm{H_2O}'), xd: sym('x_\\mathrm{d}'), M: Mw }, rhs: (q, op) => `${q.n}${op.times}\\frac{${q.x} - ${q.xd}}{1 - ${q.xd}}${op.times}${q.M}` } }
-            : { water: { lhs: sym('\\dot m_\\mathrm{w}'), symbols: { n: sym('\\dot n_\\mathrm{w}'), M: Mw }, rhs: (q, op) => `${q.n}${op.times}${q.M}` } },
-        ),
-      );
-    }
-    if (governed('cooling-air') || governed('cooling-water')) {
-      out.push(
-        entry(
-          'case-coolant',
-          { mass: { lhs: sym('\\dot m_\\mathrm{c}'), symbols: { Q: sym('Q'), M: sym('M_\\mathrm{c}'), dh: sym('\\Delta h_\\mathrm{c}') }, rhs: (q, op) => `\\frac{${q.Q}${op.times}${q.M}}{${q.dh}}` } },
-          (show) => `${show('mass')}, \\qquad \\Delta h_\\mathrm{c} = \\sum_i x_i \\left[h^\\circ_i(T) - h^\\circ_i(T - \\Delta T)\\right]`,
-        ),
-      );
-    }
+  if (governed('water-flow')) {
+    const Mw = sym('M_\\mathrm{H_2O}');
+    out.push(
+      entry(
+        'case-water',
+        power
+          ? { steam: { lhs: sym('\\dot m_\\mathrm{w}'), symbols: { n: sym('\\dot n_\\mathrm{feed}'), x: sym('x_\\mathrm{H_2O}'), xd: sym('x_\\mathrm{d}'), M: Mw }, rhs: (q, op) => `${q.n}${op.times}\\frac{${q.x} - ${q.xd}}{1 - ${q.xd}}${op.times}${q.M}` } }
+          : { water: { lhs: sym('\\dot m_\\mathrm{w}'), symbols: { n: sym('\\dot n_\\mathrm{w}'), M: Mw }, rhs: (q, op) => `${q.n}${op.times}${q.M}` } },
+      ),
+    );
   }
-  if (r.cases.length) {
-    // The mass flows the envelope sizes by, from the molar flows of the case's stream table (species data's molar masses).
-    const governed = (...ids: string[]) => r.envelope.some((e) => ids.includes(e.id));
-    const mass: Record<string, Relation> = {};
-    if (governed('air-flow')) mass.air = { lhs: sym('\\dot m_\\mathrm{air}'), symbols: { n: sym('\\dot n_\\mathrm{air}'), M: sym('M_\\mathrm{air}') }, rhs: (q, op) => `${q.n}${op.times}${q.M}` };
-    if (power && governed('fuel-flow', 'fuel-flow-least')) {
-      mass.fuel = { lhs: sym('\\dot m_\\mathrm{fuel}'), symbols: { n: sym('\\dot n_\\mathrm{feed}'), x: sym('x_\\mathrm{H_2O}'), xd: sym('x_\\mathrm{d}'), M: sym('M_\\mathrm{d}') }, rhs: (q, op) => `${q.n}${op.times}\\frac{1 - ${q.x}}{1 - ${q.xd}}${op.times}${q.M}` };
-    }
-    if (!power && governed('hydrogen-most', 'hydrogen-least')) mass.hydrogen = { lhs: sym('\\dot m_\\mathrm{H_2}'), symbols: { n: sym('\\dot n_\\mathrm{H_2}'), M: M! }, rhs: (q, op) => `${q.n}${op.times}${q.M}` };
-    if (!power && governed('water-split')) {
-      mass.split = { lhs: sym('\\dot m_\\mathrm{split}'), symbols: { nin: sym('\\dot n_\\mathrm{w,in}'), nout: sym('\\dot n_\\mathrm{w,out}'), M: sym('M_\\mathrm{H_2O}') }, rhs: (q, op) => `${op.open}${q.nin} - ${q.nout}${op.close}${op.times}${q.M}` };
-    }
-    if (Object.keys(mass).length) out.push(entry('case-mass', mass));
-    if (governed('heat-recovered')) {
-      out.push(
-        entry('case-heat-recovered', {
-          heat: { lhs: sym('Q_\\mathrm{rec}'), symbols: { Hex: sym('H_\\mathrm{ex}(T_\\mathrm{in})'), Hg: sym('H_\\mathrm{gas}(T_\\mathrm{exit})'), Hc: sym('H_\\mathrm{cond}(T_\\mathrm{exit})') }, rhs: (q) => `${q.Hex} - ${q.Hg} - ${q.Hc}` },
-        }),
-      );
-    }
-    if (!power && governed('heat-demand')) {
-      out.push(
-        entry('case-heat-demand', {
-          demand: { lhs: sym('Q_\\mathrm{dem}'), symbols: { Hout: sym('H_\\mathrm{out}'), Hin: sym('H_\\mathrm{in}'), W: sym('W_\\mathrm{in}') }, rhs: (q) => `${q.Hout} - ${q.Hin} - ${q.W}` },
-        }),
-      );
-    }
+  if (governed('cooling-air') || governed('cooling-water')) {
+    out.push(
+      entry(
+        'case-coolant',
+        { mass: { lhs: sym('\\dot m_\\mathrm{c}'), symbols: { Q: sym('Q'), M: sym('M_\\mathrm{c}'), dh: sym('\\Delta h_\\mathrm{c}') }, rhs: (q, op) => `\\frac{${q.Q}${op.times}${q.M}}{${q.dh}}` } },
+        (show) => `${show('mass')}, \\qquad \\Delta h_\\mathrm{c} = \\sum_i x_i \\left[h^\\circ_i(T) - h^\\circ_i(T - \\Delta T)\\right]`,
+      ),
+    );
   }
+  return out;
+}
+
+/** The mass flows the envelope sizes by (ṅ M from the case's stream table), the heat recovered and the heat demand, where a case governs them. */
+function caseMassEquations(r: Results, power: boolean): EquationEntry[] {
+  const out: EquationEntry[] = [];
+  const M = sym('M_\\mathrm{H_2}');
+  // The mass flows the envelope sizes by, from the molar flows of the case's stream table (species data's molar masses).
+  const governed = (...ids: string[]) => r.envelope.some((e) => ids.includes(e.id));
+  const mass: Record<string, Relation> = {};
+  if (governed('air-flow')) mass.air = { lhs: sym('\\dot m_\\mathrm{air}'), symbols: { n: sym('\\dot n_\\mathrm{air}'), M: sym('M_\\mathrm{air}') }, rhs: (q, op) => `${q.n}${op.times}${q.M}` };
+  if (power && governed('fuel-flow', 'fuel-flow-least')) {
+    mass.fuel = { lhs: sym('\\dot m_\\mathrm{fuel}'), symbols: { n: sym('\\dot n_\\mathrm{feed}'), x: sym('x_\\mathrm{H_2O}'), xd: sym('x_\\mathrm{d}'), M: sym('M_\\mathrm{d}') }, rhs: (q, op) => `${q.n}${op.times}\\frac{1 - ${q.x}}{1 - ${q.xd}}${op.times}${q.M}` };
+  }
+  if (!power && governed('hydrogen-most', 'hydrogen-least')) mass.hydrogen = { lhs: sym('\\dot m_\\mathrm{H_2}'), symbols: { n: sym('\\dot n_\\mathrm{H_2}'), M: M! }, rhs: (q, op) => `${q.n}${op.times}${q.M}` };
+  if (!power && governed('water-split')) {
+    mass.split = { lhs: sym('\\dot m_\\mathrm{split}'), symbols: { nin: sym('\\dot n_\\mathrm{w,in}'), nout: sym('\\dot n_\\mathrm{w,out}'), M: sym('M_\\mathrm{H_2O}') }, rhs: (q, op) => `${op.open}${q.nin} - ${q.nout}${op.close}${op.times}${q.M}` };
+  }
+  if (Object.keys(mass).length) out.push(entry('case-mass', mass));
+  if (governed('heat-recovered')) {
+    out.push(
+      entry('case-heat-recovered', {
+        heat: { lhs: sym('Q_\\mathrm{rec}'), symbols: { Hex: sym('H_\\mathrm{ex}(T_\\mathrm{in})'), Hg: sym('H_\\mathrm{gas}(T_\\mathrm{exit})'), Hc: sym('H_\\mathrm{cond}(T_\\mathrm{exit})') }, rhs: (q) => `${q.Hex} - ${q.Hg} - ${q.Hc}` },
+      }),
+    );
+  }
+  if (!power && governed('heat-demand')) {
+    out.push(
+      entry('case-heat-demand', {
+        demand: { lhs: sym('Q_\\mathrm{dem}'), symbols: { Hout: sym('H_\\mathrm{out}'), Hin: sym('H_\\mathrm{in}'), W: sym('W_\\mathrm{in}') }, rhs: (q) => `${q.Hout} - ${q.Hin} - ${q.W}` },
+      }),
+    );
+  }
+  return out;
+}
+
+/** The linear degradation law at the end of life (common practice, no source): V = V₀ (1 ∓ r t) or ASR = ASR₀ (1 + r t). */
+function degradationEquations(r: Results, power: boolean): EquationEntry[] {
+  const out: EquationEntry[] = [];
+  const V = sym('V');
   if (r.degradation || r.cases.some((c) => c.degradation)) {
     const [V0, rate, t, R0] = [sym('V_0'), sym('r'), sym('t'), sym('\\mathrm{ASR}_0')];
     out.push(

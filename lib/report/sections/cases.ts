@@ -343,78 +343,94 @@ const HOUR = ' \\times 3600\\,\\mathrm{s/h}';
 
 /** A mass flow of the envelope from the molar flows of the case's stream table, kg/h (the results' supply and headline). */
 function massLines(r: Results, basis: DesignBasis, c: CaseResult, ids: ReadonlySet<string>): LineSpec[] {
-  const lines: LineSpec[] = [];
-  const stream = (id: string) => c.streams.find((s) => s.id === id);
-  const molar = (x: Readonly<Record<string, number>>) => Object.entries(x).reduce((a, [k, v]) => a + v * getSpecies(k).molarMassKgPerMol, 0);
-  const air = stream('air-inlet');
-  if (ids.has('air-flow') && air && c.supply?.air_kg_per_h != null) {
-    lines.push({
-      id: `case-${c.id}-air-mass`,
-      title: `Case ${c.id}: air supplied, by mass`,
-      equation: 'case-mass',
-      relation: 'air',
-      quantities: [
-        { name: 'n', value: air.flow_mol_per_s, unit: 'mol/s', origin: `${air.name}, stream table of the case` },
-        { name: 'M', value: molar(air.moleFractions), unit: 'kg/mol', origin: 'mean molar mass of that air, species data' },
-      ],
-      conversion: HOUR,
-      value: c.supply.air_kg_per_h,
-      unit: 'kg/h',
-    });
-  }
+  const lines = [airMassLine(c, ids), fuelMassLine(r, basis, c, ids), hydrogenMassLine(r, c, ids), waterSplitLine(r, c, ids)];
+  return lines.filter((line): line is LineSpec => line !== null);
+}
+
+/** A case's stream by its id. */
+function caseStream(c: CaseResult, id: string) {
+  return c.streams.find((s) => s.id === id);
+}
+
+/** The mean molar mass of a composition, kg/mol (species data). */
+function meanMolarMass(x: Readonly<Record<string, number>>): number {
+  return Object.entries(x).reduce((a, [k, v]) => a + v * getSpecies(k).molarMassKgPerMol, 0);
+}
+
+function airMassLine(c: CaseResult, ids: ReadonlySet<string>): LineSpec | null {
+  const air = caseStream(c, 'air-inlet');
+  if (!ids.has('air-flow') || !air || c.supply?.air_kg_per_h == null) return null;
+  return {
+    id: `case-${c.id}-air-mass`,
+    title: `Case ${c.id}: air supplied, by mass`,
+    equation: 'case-mass',
+    relation: 'air',
+    quantities: [
+      { name: 'n', value: air.flow_mol_per_s, unit: 'mol/s', origin: `${air.name}, stream table of the case` },
+      { name: 'M', value: meanMolarMass(air.moleFractions), unit: 'kg/mol', origin: 'mean molar mass of that air, species data' },
+    ],
+    conversion: HOUR,
+    value: c.supply.air_kg_per_h,
+    unit: 'kg/h',
+  };
+}
+
+function fuelMassLine(r: Results, basis: DesignBasis, c: CaseResult, ids: ReadonlySet<string>): LineSpec | null {
   const dry = basis.fuelElectrode?.composition;
-  const feed = stream('fuel-feed') ?? stream('fuel-inlet');
-  if ((ids.has('fuel-flow') || ids.has('fuel-flow-least')) && r.technology.mode === 'power' && dry && feed && c.supply?.fuel_kg_per_h != null) {
-    lines.push({
-      id: `case-${c.id}-fuel-mass`,
-      title: `Case ${c.id}: dry fuel supplied, by mass`,
-      equation: 'case-mass',
-      relation: 'fuel',
-      quantities: [
-        { name: 'n', value: feed.flow_mol_per_s, unit: 'mol/s', origin: `fuel feed with its steam (${feed.name}), stream table of the case` },
-        { name: 'x', value: feed.moleFractions.H2O ?? 0, unit: '', origin: 'steam mole fraction of the fuel feed, stream table of the case' },
-        { name: 'xd', value: dry.H2O ?? 0, unit: '', origin: 'water mole fraction of the dry fuel, design input' },
-        { name: 'M', value: molar(dry), unit: 'kg/mol', origin: 'mean molar mass of the dry fuel, species data' },
-      ],
-      conversion: HOUR,
-      value: c.supply.fuel_kg_per_h,
-      unit: 'kg/h',
-    });
-  }
+  const feed = caseStream(c, 'fuel-feed') ?? caseStream(c, 'fuel-inlet');
+  if (!(ids.has('fuel-flow') || ids.has('fuel-flow-least')) || r.technology.mode !== 'power' || !dry || !feed || c.supply?.fuel_kg_per_h == null) return null;
+  return {
+    id: `case-${c.id}-fuel-mass`,
+    title: `Case ${c.id}: dry fuel supplied, by mass`,
+    equation: 'case-mass',
+    relation: 'fuel',
+    quantities: [
+      { name: 'n', value: feed.flow_mol_per_s, unit: 'mol/s', origin: `fuel feed with its steam (${feed.name}), stream table of the case` },
+      { name: 'x', value: feed.moleFractions.H2O ?? 0, unit: '', origin: 'steam mole fraction of the fuel feed, stream table of the case' },
+      { name: 'xd', value: dry.H2O ?? 0, unit: '', origin: 'water mole fraction of the dry fuel, design input' },
+      { name: 'M', value: meanMolarMass(dry), unit: 'kg/mol', origin: 'mean molar mass of the dry fuel, species data' },
+    ],
+    conversion: HOUR,
+    value: c.supply.fuel_kg_per_h,
+    unit: 'kg/h',
+  };
+}
+
+function hydrogenMassLine(r: Results, c: CaseResult, ids: ReadonlySet<string>): LineSpec | null {
   const h2 = c.efficiency?.hydrogenProduction_mol_per_s;
-  if ((ids.has('hydrogen-most') || ids.has('hydrogen-least')) && r.technology.mode !== 'power' && h2 != null && !c.efficiency?.carbonMonoxideProduction_mol_per_s && c.headline?.hydrogenProduction_kg_per_h != null) {
-    lines.push({
-      id: `case-${c.id}-hydrogen-mass`,
-      title: `Case ${c.id}: hydrogen made, by mass`,
-      equation: 'case-mass',
-      relation: 'hydrogen',
-      quantities: [
-        { name: 'n', value: h2, unit: 'mol/s', origin: "hydrogen made, I_ion/2F (Faraday's law)" },
-        { name: 'M', value: getSpecies('H2').molarMassKgPerMol, unit: 'kg/mol', origin: 'species data' },
-      ],
-      conversion: HOUR,
-      value: c.headline.hydrogenProduction_kg_per_h,
-      unit: 'kg/h',
-    });
-  }
-  if (ids.has('water-split') && r.technology.mode !== 'power' && c.supply?.waterSplit_kg_per_h != null) {
-    const water = (ids: readonly string[]) => c.streams.filter((s) => ids.includes(s.id)).reduce((a, s) => a + (s.speciesFlows_mol_per_s.H2O ?? 0) + (s.speciesFlows_mol_per_s['H2O(L)'] ?? 0), 0);
-    lines.push({
-      id: `case-${c.id}-water-split`,
-      title: `Case ${c.id}: water split`,
-      equation: 'case-mass',
-      relation: 'split',
-      quantities: [
-        { name: 'nin', value: water(['fuel-inlet', 'air-inlet']), unit: 'mol/s', origin: "water, vapour and liquid, of the stack's inlets, stream table of the case" },
-        { name: 'nout', value: water(['fuel-outlet', 'air-outlet']), unit: 'mol/s', origin: "water, vapour and liquid, of the stack's outlets, stream table of the case" },
-        { name: 'M', value: getSpecies('H2O').molarMassKgPerMol, unit: 'kg/mol', origin: 'species data' },
-      ],
-      conversion: HOUR,
-      value: c.supply.waterSplit_kg_per_h,
-      unit: 'kg/h',
-    });
-  }
-  return lines;
+  if (!(ids.has('hydrogen-most') || ids.has('hydrogen-least')) || r.technology.mode === 'power' || h2 == null || c.efficiency?.carbonMonoxideProduction_mol_per_s || c.headline?.hydrogenProduction_kg_per_h == null) return null;
+  return {
+    id: `case-${c.id}-hydrogen-mass`,
+    title: `Case ${c.id}: hydrogen made, by mass`,
+    equation: 'case-mass',
+    relation: 'hydrogen',
+    quantities: [
+      { name: 'n', value: h2, unit: 'mol/s', origin: "hydrogen made, I_ion/2F (Faraday's law)" },
+      { name: 'M', value: getSpecies('H2').molarMassKgPerMol, unit: 'kg/mol', origin: 'species data' },
+    ],
+    conversion: HOUR,
+    value: c.headline.hydrogenProduction_kg_per_h,
+    unit: 'kg/h',
+  };
+}
+
+function waterSplitLine(r: Results, c: CaseResult, ids: ReadonlySet<string>): LineSpec | null {
+  if (!ids.has('water-split') || r.technology.mode === 'power' || c.supply?.waterSplit_kg_per_h == null) return null;
+  const water = (streams: readonly string[]) => c.streams.filter((s) => streams.includes(s.id)).reduce((a, s) => a + (s.speciesFlows_mol_per_s.H2O ?? 0) + (s.speciesFlows_mol_per_s['H2O(L)'] ?? 0), 0);
+  return {
+    id: `case-${c.id}-water-split`,
+    title: `Case ${c.id}: water split`,
+    equation: 'case-mass',
+    relation: 'split',
+    quantities: [
+      { name: 'nin', value: water(['fuel-inlet', 'air-inlet']), unit: 'mol/s', origin: "water, vapour and liquid, of the stack's inlets, stream table of the case" },
+      { name: 'nout', value: water(['fuel-outlet', 'air-outlet']), unit: 'mol/s', origin: "water, vapour and liquid, of the stack's outlets, stream table of the case" },
+      { name: 'M', value: getSpecies('H2O').molarMassKgPerMol, unit: 'kg/mol', origin: 'species data' },
+    ],
+    conversion: HOUR,
+    value: c.supply.waterSplit_kg_per_h,
+    unit: 'kg/h',
+  };
 }
 
 /** The pre-reformer's duty and the reformed gas heated to the stack, from the enthalpy flows of the case's plant streams. */
