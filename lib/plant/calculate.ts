@@ -22,189 +22,17 @@ import { sensitivities } from './sensitivity.ts';
 import { hazardInput } from './hazard-streams.ts';
 import { locateCalculationErrors } from './located-error.ts';
 import { enthalpyFlowW, gasFlow, gasMoleFractions, massFlowKgPerS, normalVolumeM3PerS, totalFlow, type Stream } from './streams.ts';
-import type { Results, StreamResult } from './results-schema.ts';
+import type { Results } from './results-schema.ts';
+import { plantOf, streamResult } from './plant-results.ts';
+
+export { plantOf };
 import { finding, withAssumptions, type Finding } from './findings.ts';
 import { caseFindings, caseResults, layoutCases } from './cases.ts';
 import { envelopeOf } from './envelope.ts';
-import { plantBalance, type PlantBalance, type PowerPlantBalance } from './plant-balance.ts';
+import { plantBalance, type PlantBalance } from './plant-balance.ts';
 import { BasisError } from '../basis/diagnostics.ts';
 
 const HOUR = 3600;
-
-/** A plant's first law, for the results. */
-function energyOf(energy: PowerPlantBalance['energy']): NonNullable<Results['plant']['power']>['energyBalance'] {
-  return { in_W: energy.inW, out_W: energy.outW, residual: energy.residual, terms: energy.terms.map((t) => ({ name: t.name, value_W: t.valueW, side: t.side })) };
-}
-
-/** The plant section of the results: the layout, the numbered streams and the power or electrolysis plant's balance. */
-export function plantOf(b: PlantBalance): Results['plant'] {
-  const e = b.electrical;
-  const q = b.power;
-  const x = b.electrolysis;
-  return {
-    electrical: {
-      cellsPerStack: e.cellsPerStack,
-      stacksInSeries: e.stacksInSeries,
-      stringsInParallel: e.stringsInParallel,
-      stackCount: e.stackCount,
-      requiredCells: e.requiredCells,
-      installedCells: e.installedCells,
-      stacksInSeriesFrom: e.stacksInSeriesFrom,
-      stringsInParallelFrom: e.stringsInParallelFrom,
-      stackVoltage_V: e.stackVoltageV,
-      stackCurrent_A: e.stackCurrentA,
-      stackPower_W: e.stackPowerW,
-      stringVoltage_V: e.stringVoltageV,
-      stringCurrent_A: e.stringCurrentA,
-      busVoltage_V: e.busVoltageV,
-      busCurrent_A: e.busCurrentA,
-      dcPower_W: e.dcPowerW,
-      conversionEfficiency: e.conversionEfficiency,
-      acPower_W: e.acPowerW,
-      conversionLoss_W: e.conversionLossW,
-    },
-    streams: b.streams.map((s) => ({ number: s.number, ...streamResult(s) })),
-    power: q && {
-      mixingTemperature_K: q.mixingTemperatureK,
-      steam: q.steam && {
-        water_mol_per_s: q.steam.waterMolPerS,
-        water_kg_per_h: q.steam.waterMolPerS * getSpecies('H2O(L)').molarMassKgPerMol * HOUR,
-        saturationTemperature_K: q.steam.saturationTemperatureK,
-        latentHeat_J_per_mol: q.steam.latentHeatJPerMol,
-        liquidHeating_W: q.steam.liquidHeatingW,
-        evaporation_W: q.steam.evaporationW,
-        superheating_W: q.steam.superheatingW,
-        duty_W: q.steam.liquidHeatingW + q.steam.evaporationW + q.steam.superheatingW,
-      },
-      duties: q.duties.map((d) => ({ id: d.id, name: d.name, duty_W: d.dutyW, from_K: d.fromK, to_K: d.toK })),
-      netDuty_W: q.netDutyW,
-      blower: q.blower && {
-        inletPressure_bar: q.blower.inletPressureBar,
-        outletPressure_bar: q.blower.outletPressureBar,
-        inletTemperature_K: q.blower.inletTemperatureK,
-        outletTemperature_K: q.blower.outletTemperatureK,
-        flow_mol_per_s: q.blower.flowMolPerS,
-        isentropicEfficiency: q.blower.isentropicEfficiency,
-        power_W: q.blower.powerW,
-        parasiticAllowance_W: q.blower.parasiticAllowanceW,
-      },
-      stackHeat_W: q.stackHeatW,
-      stackHeatTo: q.stackHeatTo,
-      airExhaustTemperature_K: q.airExhaustTemperatureK,
-      oxidiser: q.oxidiser && {
-        oxidant: q.oxidiser.oxidant,
-        airRatio: q.oxidiser.airRatio,
-        freshAir_mol_per_s: q.oxidiser.freshAirMolPerS,
-        outletTemperature_K: q.oxidiser.outletTemperatureK,
-        materialLimit_K: q.oxidiser.materialLimitK,
-        pressure_bar: q.oxidiser.pressureBar,
-        moleFractions: q.oxidiser.moleFractions,
-        carbonMonoxide_ppm: q.oxidiser.carbonMonoxidePpm,
-        heatReleased_W: q.oxidiser.heatReleasedW,
-        energyBalanceError: q.oxidiser.energyBalanceError,
-      },
-      heatRecovery: q.heatRecovery && {
-        inletTemperature_K: q.heatRecovery.inletTemperatureK,
-        exitTemperature_K: q.heatRecovery.exitTemperatureK,
-        dewPoint_K: q.heatRecovery.dewPointK,
-        heatWithoutCondensation_W: q.heatRecovery.heatWithoutCondensationW,
-        heatWithCondensation_W: q.heatRecovery.heatWithCondensationW,
-        latentHeat_W: q.heatRecovery.latentHeatW,
-        condensate_kg_per_h: q.heatRecovery.condensedWaterKgPerS * HOUR,
-        deliveredHeat_W: q.heatRecovery.deliveredHeatW,
-      },
-      heatLoss_W: q.heatLossW,
-      chp: q.chp && {
-        netPower_W: q.chp.netPowerW,
-        deliveredHeat_W: q.chp.deliveredHeatW,
-        electricalEfficiencyLhv: q.chp.electricalLhv,
-        thermalEfficiencyLhv: q.chp.thermalLhv,
-        totalEfficiencyLhv: q.chp.totalLhv,
-        totalEfficiencyHhv: q.chp.totalHhv,
-        powerToHeat: q.chp.powerToHeat,
-      },
-      energyBalance: energyOf(q.energy),
-    },
-    electrolysis: x && {
-      feedWater_mol_per_s: x.feedWaterMolPerS,
-      feedWater_kg_per_h: x.feedWaterMolPerS * getSpecies('H2O(L)').molarMassKgPerMol * HOUR,
-      steam: x.steam.map((s) => ({
-        electrode: s.electrode,
-        water_mol_per_s: s.waterMolPerS,
-        saturationTemperature_K: s.saturationTemperatureK,
-        latentHeat_J_per_mol: s.latentHeatJPerMol,
-        liquidHeating_W: s.liquidHeatingW,
-        evaporation_W: s.evaporationW,
-        superheating_W: s.superheatingW,
-        to_K: s.toK,
-      })),
-      waterLoop: x.waterLoop && { makeUp_mol_per_s: x.waterLoop.makeUpMolPerS, return_mol_per_s: x.waterLoop.returnMolPerS, drain_mol_per_s: x.waterLoop.drainMolPerS },
-      duties: x.duties.map((d) => ({ id: d.id, name: d.name, duty_W: d.dutyW, from_K: d.fromK, to_K: d.toK })),
-      feedHeat_W: x.feedHeatW,
-      coolers_W: x.coolersW,
-      stackHeat_W: x.stackHeatW,
-      heatLoss_W: x.heatLossW,
-      stackHeatSupplied_W: x.stackHeatSuppliedW,
-      stackHeatRemoved_W: x.stackHeatRemovedW,
-      heatSupply: x.heatSupply,
-      heatSupplied_W: x.heatSuppliedW,
-      productCooling: x.productCooling && {
-        from_K: x.productCooling.fromK,
-        to_K: x.productCooling.toK,
-        pressure_bar: x.productCooling.pressureBar,
-        duty_W: x.productCooling.dutyW,
-        condensed_mol_per_s: x.productCooling.condensedMolPerS,
-        dried_mol_per_s: x.productCooling.driedMolPerS,
-      },
-      compression: x.compression && {
-        inletPressure_bar: x.compression.inletPressureBar,
-        deliveryPressure_bar: x.compression.deliveryPressureBar,
-        inletTemperature_K: x.compression.inletTemperatureK,
-        intercoolTemperature_K: x.compression.intercoolTemperatureK,
-        stages: x.compression.stages,
-        stagesFrom: x.compression.stagesFrom,
-        pressureRatioPerStage: x.compression.pressureRatioPerStage,
-        isentropicEfficiency: x.compression.isentropicEfficiency,
-        flow_mol_per_s: x.compression.flowMolPerS,
-        stageOutletTemperatures_K: x.compression.stageOutletTemperaturesK,
-        power_W: x.compression.powerW,
-        work_J_per_kg: x.compression.workJPerKg,
-        intercoolers_W: x.compression.intercoolersW,
-        aftercooler_W: x.compression.aftercoolerW,
-      },
-      specificEnergy: {
-        hydrogen_kg_per_h: x.specificEnergy.hydrogenKgPerS * HOUR,
-        stackDc_W: x.specificEnergy.stackDcW,
-        conversionLoss_W: x.specificEnergy.conversionLossW,
-        parasitic_W: x.specificEnergy.parasiticW,
-        electricHeat_W: x.specificEnergy.electricHeatW,
-        compressor_W: x.specificEnergy.compressorW,
-        totalElectric_W: x.specificEnergy.totalElectricW,
-        stack_kWh_per_kg: x.specificEnergy.stackKWhPerKg,
-        system_kWh_per_kg: x.specificEnergy.systemKWhPerKg,
-        systemEfficiencyLhv: x.specificEnergy.systemEfficiencyLhv,
-        systemEfficiencyHhv: x.specificEnergy.systemEfficiencyHhv,
-      },
-      energyBalance: energyOf(x.energy),
-    },
-  };
-}
-
-function streamResult(s: Stream): StreamResult {
-  return {
-    id: s.id,
-    name: s.name,
-    temperature_K: s.temperatureK,
-    pressure_bar: s.pressureBar,
-    flow_mol_per_s: totalFlow(s.flows),
-    gasFlow_mol_per_s: gasFlow(s.flows),
-    massFlow_kg_per_h: massFlowKgPerS(s.flows) * HOUR,
-    normalVolume_Nm3_per_h: normalVolumeM3PerS(s.flows) * HOUR,
-    enthalpyFlow_W: enthalpyFlowW(s.flows, s.temperatureK),
-    moleFractions: gasMoleFractions(s.flows),
-    speciesFlows_mol_per_s: { ...s.flows },
-  };
-}
 
 /** Combustibles of a dry fuel other than H2 (a pure-hydrogen fuel has none). */
 function onlyHydrogen(dry: Readonly<Record<string, number>> | null): boolean {
@@ -561,6 +389,37 @@ function conditionsOf({ inputs }: Computed): Results['conditions'] {
   };
 }
 
+/** The points along the fuel path with their local Nernst voltage, area fraction, current density and carbon activity. */
+function fuelPathOf(point: DesignPoint): Results['fuelPath'] {
+  return {
+    points: point.path.points.map((p, k) => ({
+      utilization: p.utilization,
+      nernst_V: p.nernstV,
+      areaFraction: point.voltage.local[k]!.areaFraction,
+      currentDensity_A_per_m2: point.voltage.local[k]!.currentDensityAPerM2,
+      carbonActivity: p.carbonActivity,
+      fuelSide: p.fuelSide,
+      airSide: p.airSide,
+      fuelCouple_bar: p.fuelCoupleBar,
+    })),
+    inlet: point.path.inlet,
+    inletUtilization: point.path.inletUtilization,
+    nernstForm: point.path.nernstForm,
+    standardVoltage_V: point.path.standardVoltageV,
+    waterActivity: point.path.waterActivity,
+  };
+}
+
+/** The chart sweeps of the sizing point over the basis's sweep range. */
+function sweepsOf(point: DesignPoint, sizingBasis: DesignBasis): Results['sweeps'] {
+  return {
+    temperature: temperatureSweep(point, sizingBasis.conditions.sweepFromK, sizingBasis.conditions.sweepToK),
+    currentDensity: currentDensitySweep(point),
+    stackTemperature: stackTemperatureSweep(point, sizingBasis.conditions.sweepFromK, sizingBasis.conditions.sweepToK),
+    steamToCarbon: steamToCarbonSweep(point),
+  };
+}
+
 /**
  * The results of the basis: those of its sizing case (the basis itself, or the case marked
  * sizing with its overrides) at the top level, as a basis without cases has them, and every case
@@ -596,29 +455,8 @@ function calculateResults(basis: DesignBasis): Results {
     carbon: own.carbon,
     supply: own.supply,
     degradation: own.degradation,
-    fuelPath: {
-      points: point.path.points.map((p, k) => ({
-        utilization: p.utilization,
-        nernst_V: p.nernstV,
-        areaFraction: point.voltage.local[k]!.areaFraction,
-        currentDensity_A_per_m2: point.voltage.local[k]!.currentDensityAPerM2,
-        carbonActivity: p.carbonActivity,
-        fuelSide: p.fuelSide,
-        airSide: p.airSide,
-        fuelCouple_bar: p.fuelCoupleBar,
-      })),
-      inlet: point.path.inlet,
-      inletUtilization: point.path.inletUtilization,
-      nernstForm: point.path.nernstForm,
-      standardVoltage_V: point.path.standardVoltageV,
-      waterActivity: point.path.waterActivity,
-    },
-    sweeps: {
-      temperature: temperatureSweep(point, sizingBasis.conditions.sweepFromK, sizingBasis.conditions.sweepToK),
-      currentDensity: currentDensitySweep(point),
-      stackTemperature: stackTemperatureSweep(point, sizingBasis.conditions.sweepFromK, sizingBasis.conditions.sweepToK),
-      steamToCarbon: steamToCarbonSweep(point),
-    },
+    fuelPath: fuelPathOf(point),
+    sweeps: sweepsOf(point, sizingBasis),
     sensitivities: sensitivities(point, basis.sensitivity),
     plant: plantResults,
     hazards: assessHazards(hazardInput(sizingBasis, point, plant)),

@@ -84,6 +84,85 @@ function loopBack(fromX: number, fromY: number, toX: number, toY: number, y: num
   return `<path d="M${fromX},${fromY} L${fromX},${y} L${toX},${y} L${toX},${toY}" fill="none" stroke="currentColor" stroke-width="1.2" stroke-dasharray="4 3" marker-end="url(#bfd-arrow)"/><text x="${((fromX + toX) / 2).toFixed(1)}" y="${y + (y < toY ? -4 : 12)}" text-anchor="middle" font-size="11" font-weight="bold">${numbers.join(', ')}</text>`;
 }
 
+/** A diagram being drawn: the stream numbers by id, and the boxes, arrows and labels so far, in drawing order. */
+interface Drawing {
+  has: (id: string) => boolean;
+  num: (...ids: string[]) => number[];
+  boxes: Box[];
+  parts: string[];
+  terminals: string[];
+  add: (b: Box) => Box;
+}
+
+function drawing(r: Results): Drawing {
+  const n = new Map(r.plant.streams.map((s) => [s.id, s.number]));
+  const has = (id: string) => n.has(id);
+  const boxes: Box[] = [];
+  return {
+    has,
+    num: (...ids: string[]) => ids.filter(has).map((id) => n.get(id)!),
+    boxes,
+    parts: [],
+    terminals: [],
+    add: (b: Box) => (boxes.push(b), b),
+  };
+}
+
+/** The stack box, spanning the fuel line above and the air line below, in a column. */
+function stackBox(d: Drawing, col: number): Box {
+  return d.add(box(col, FUEL_Y - 10, ['stack', '(fuel electrode', 'above, air', 'electrode below)'], AIR_Y - FUEL_Y + H + 20));
+}
+
+type Electrolysis = NonNullable<Results['plant']['electrolysis']>;
+
+/** One electrode's feed preparation (steam raising, a water loop's make-up and cooler, gas preheat) with the feeds into it and its inlet to the stack. */
+function electrolysisFeedSide(d: Drawing, x: Electrolysis, stack: Box, side: { id: string; y: number; steam: boolean; gas: string }, isWaterSide: boolean): void {
+  const { has, num, parts, terminals } = d;
+  const loop = isWaterSide && x.waterLoop !== null;
+  const label = side.steam ? ['feed preparation', '(steam, preheat)'] : loop ? ['water loop', '(make-up, cooler)'] : ['preheat'];
+  const prep = d.add(box(1, side.y, label));
+  parts.push(arrow(right(prep), { x: stack.x, y: side.y + H / 2 }, num(`${side.id}-inlet`)));
+  const gasId = `${side.id}-gas-supply`;
+  const withWater = isWaterSide && has('feed-water');
+  if (has(gasId)) {
+    const t = terminal(0, withWater ? side.y - 14 : side.y, side.gas);
+    terminals.push(drawTerminal(t, 'start'));
+    parts.push(arrow({ x: COL[0]!, y: t.y + H / 2 }, { x: prep.x, y: prep.y + H / 2 - (withWater ? 8 : 0) }, num(gasId), true));
+  }
+  if (withWater) {
+    const t = terminal(0, has(gasId) ? side.y + 14 : side.y, 'feed water');
+    terminals.push(drawTerminal(t, 'start'));
+    parts.push(arrow({ x: COL[0]!, y: t.y + H / 2 }, { x: prep.x, y: prep.y + H / 2 + (has(gasId) ? 8 : 0) }, num('feed-water'), true));
+  }
+  if (loop && has('loop-return')) {
+    const top = side.id === 'fuel';
+    const edge = top ? stack.y : stack.y + stack.h;
+    parts.push(loopBack(stack.x + W / 2, edge, prep.x + W / 2, top ? prep.y : prep.y + H, top ? edge - 14 : edge + 14, num('loop-return')));
+  }
+}
+
+/** The hydrogen product: through its cooler and dryer to the compressor where there is one, else straight out. */
+function hydrogenProductPath(d: Drawing, x: Electrolysis, stack: Box): void {
+  const { num, parts, terminals } = d;
+  const outFuel = { x: stack.x + W, y: FUEL_Y + H / 2 };
+  if (!x.compression) {
+    parts.push(arrow(outFuel, { x: COL[4]!, y: outFuel.y }, num('fuel-outlet')));
+    terminals.push(exitLabel(COL[4]! + 4, outFuel.y, 'hydrogen product'));
+    return;
+  }
+  const cooler = d.add(box(4, FUEL_Y, ['product cooler', 'and dryer']));
+  const comp = d.add(box(5, FUEL_Y, ['compressor', `(${x.compression.stages} stage${x.compression.stages === 1 ? '' : 's'})`]));
+  parts.push(arrow(outFuel, left(cooler), num('fuel-outlet')));
+  parts.push(arrow(right(cooler), left(comp), num('product-dried')));
+  parts.push(arrow(right(comp), { x: COL[6]!, y: FUEL_Y + H / 2 }, num('hydrogen-delivered')));
+  terminals.push(exitLabel(COL[6]! + 4, FUEL_Y + H / 2, 'hydrogen'));
+  const drops = num('product-condensate', 'dryer-water');
+  if (drops.length) {
+    parts.push(downOrUp(cooler.x + W / 2, cooler.y + H, cooler.y + H + 36, drops));
+    terminals.push(`<text x="${cooler.x + W / 2}" y="${cooler.y + H + 48}" text-anchor="middle" font-size="10">water removed</text>`);
+  }
+}
+
 /**
  * The electrolysis plant: the preparation of each electrode's feed (steam raising, a water loop's
  * make-up and cooler, gas preheat), the stack, and the hydrogen product through its cooler and
@@ -91,95 +170,49 @@ function loopBack(fromX: number, fromY: number, toX: number, toY: number, y: num
  */
 function electrolysisDiagram(r: Results): TrustedHtml {
   const x = r.plant.electrolysis!;
-  const n = new Map(r.plant.streams.map((s) => [s.id, s.number]));
-  const has = (id: string) => n.has(id);
-  const num = (...ids: string[]) => ids.filter(has).map((id) => n.get(id)!);
-  const boxes: Box[] = [];
-  const parts: string[] = [];
-  const terminals: string[] = [];
-  const add = (b: Box) => (boxes.push(b), b);
-  const stack = add(box(3, FUEL_Y - 10, ['stack', '(fuel electrode', 'above, air', 'electrode below)'], AIR_Y - FUEL_Y + H + 20));
+  const d = drawing(r);
+  const { has, num, parts, terminals } = d;
+  const stack = stackBox(d, 3);
   const waterOf = (id: string) => r.plant.streams.find((s) => s.id === id && (s.speciesFlows_mol_per_s.H2O ?? 0) + (s.speciesFlows_mol_per_s['H2O(L)'] ?? 0) > 0);
   const sides = [
     { id: 'fuel', y: FUEL_Y, steam: x.steam.some((s) => s.electrode === 'fuel'), gas: 'gas with the steam' },
     { id: 'air', y: AIR_Y, steam: x.steam.some((s) => s.electrode === 'air'), gas: 'sweep gas' },
   ];
   const water = sides.find((side) => waterOf(`${side.id}-inlet`));
-  for (const side of sides) {
-    if (!has(`${side.id}-inlet`)) continue;
-    const loop = side === water && x.waterLoop !== null;
-    const label = side.steam ? ['feed preparation', '(steam, preheat)'] : loop ? ['water loop', '(make-up, cooler)'] : ['preheat'];
-    const prep = add(box(1, side.y, label));
-    parts.push(arrow(right(prep), { x: stack.x, y: side.y + H / 2 }, num(`${side.id}-inlet`)));
-    const gasId = `${side.id}-gas-supply`;
-    const withWater = side === water && has('feed-water');
-    if (has(gasId)) {
-      const t = terminal(0, withWater ? side.y - 14 : side.y, side.gas);
-      terminals.push(drawTerminal(t, 'start'));
-      parts.push(arrow({ x: COL[0]!, y: t.y + H / 2 }, { x: prep.x, y: prep.y + H / 2 - (withWater ? 8 : 0) }, num(gasId), true));
-    }
-    if (withWater) {
-      const t = terminal(0, has(gasId) ? side.y + 14 : side.y, 'feed water');
-      terminals.push(drawTerminal(t, 'start'));
-      parts.push(arrow({ x: COL[0]!, y: t.y + H / 2 }, { x: prep.x, y: prep.y + H / 2 + (has(gasId) ? 8 : 0) }, num('feed-water'), true));
-    }
-    if (loop && has('loop-return')) {
-      const top = side.id === 'fuel';
-      const edge = top ? stack.y : stack.y + stack.h;
-      parts.push(loopBack(stack.x + W / 2, edge, prep.x + W / 2, top ? prep.y : prep.y + H, top ? edge - 14 : edge + 14, num('loop-return')));
-    }
-  }
-  const outFuel = { x: stack.x + W, y: FUEL_Y + H / 2 };
+  for (const side of sides) if (has(`${side.id}-inlet`)) electrolysisFeedSide(d, x, stack, side, side === water);
+  hydrogenProductPath(d, x, stack);
   const outAir = { x: stack.x + W, y: AIR_Y + H / 2 };
-  if (x.compression) {
-    const cooler = add(box(4, FUEL_Y, ['product cooler', 'and dryer']));
-    const comp = add(box(5, FUEL_Y, ['compressor', `(${x.compression.stages} stage${x.compression.stages === 1 ? '' : 's'})`]));
-    parts.push(arrow(outFuel, left(cooler), num('fuel-outlet')));
-    parts.push(arrow(right(cooler), left(comp), num('product-dried')));
-    parts.push(arrow(right(comp), { x: COL[6]!, y: FUEL_Y + H / 2 }, num('hydrogen-delivered')));
-    terminals.push(exitLabel(COL[6]! + 4, FUEL_Y + H / 2, 'hydrogen'));
-    const drops = num('product-condensate', 'dryer-water');
-    if (drops.length) {
-      parts.push(downOrUp(cooler.x + W / 2, cooler.y + H, cooler.y + H + 36, drops));
-      terminals.push(`<text x="${cooler.x + W / 2}" y="${cooler.y + H + 48}" text-anchor="middle" font-size="10">water removed</text>`);
-    }
-  } else {
-    parts.push(arrow(outFuel, { x: COL[4]!, y: outFuel.y }, num('fuel-outlet')));
-    terminals.push(exitLabel(COL[4]! + 4, outFuel.y, 'hydrogen product'));
-  }
   if (has('air-outlet')) {
     parts.push(arrow(outAir, { x: COL[4]!, y: outAir.y }, num('air-outlet')));
     terminals.push(exitLabel(COL[4]! + 4, outAir.y, 'oxygen side'));
   }
   if (has('stack-drain')) {
-    const d = { x: stack.x + W / 2 + 20, y: stack.y + stack.h };
-    parts.push(downOrUp(d.x, d.y, d.y + 30, num('stack-drain')));
-    terminals.push(`<text x="${d.x}" y="${d.y + 42}" text-anchor="middle" font-size="10">drain</text>`);
+    const drain = { x: stack.x + W / 2 + 20, y: stack.y + stack.h };
+    parts.push(downOrUp(drain.x, drain.y, drain.y + 30, num('stack-drain')));
+    terminals.push(`<text x="${drain.x}" y="${drain.y + 42}" text-anchor="middle" font-size="10">drain</text>`);
   }
-  return svgOf(boxes, parts, terminals);
+  return svgOf(d.boxes, parts, terminals);
 }
 
-/** The diagram of the results' plant, or null where there is no plant balance. */
-export function blockFlowDiagram(r: Results): TrustedHtml | null {
-  if (r.plant.electrolysis) return electrolysisDiagram(r);
-  if (!r.plant.power) return null;
-  const n = new Map(r.plant.streams.map((s) => [s.id, s.number]));
-  const has = (id: string) => n.has(id);
-  const num = (...ids: string[]) => ids.filter(has).map((id) => n.get(id)!);
-  const parts: string[] = [];
-  const boxes: Box[] = [];
-  const terminals: string[] = [];
-  const add = (b: Box) => (boxes.push(b), b);
+/** The boxes of a power plant, in drawing order; those of absent units null. */
+function powerBoxes(d: Drawing) {
+  const prep = d.add(box(1, FUEL_Y, ['feed preparation', '(steam, preheat)']));
+  const pre = d.has('pre-reformer-feed') ? d.add(box(2, FUEL_Y, ['pre-reformer'])) : null;
+  const fuelHeat = pre ? d.add(box(3, FUEL_Y, ['fuel preheat'])) : null;
+  const blower = d.has('blower-outlet') ? d.add(box(1, AIR_Y, ['air blower'])) : null;
+  const airHeat = d.add(box(2, AIR_Y, ['air preheat']));
+  const stack = stackBox(d, 4);
+  const ox = d.has('oxidiser-outlet') ? d.add(box(5, MID_Y, ['off-gas', 'oxidiser'])) : null;
+  const hr = d.has('exhaust') ? d.add(box(6, MID_Y, ['heat recovery'])) : null;
+  return { prep, pre, fuelHeat, blower, airHeat, stack, ox, hr };
+}
 
-  const prep = add(box(1, FUEL_Y, ['feed preparation', '(steam, preheat)']));
-  const pre = has('pre-reformer-feed') ? add(box(2, FUEL_Y, ['pre-reformer'])) : null;
-  const fuelHeat = pre ? add(box(3, FUEL_Y, ['fuel preheat'])) : null;
-  const blower = has('blower-outlet') ? add(box(1, AIR_Y, ['air blower'])) : null;
-  const airHeat = add(box(2, AIR_Y, ['air preheat']));
-  const stack = add(box(4, FUEL_Y - 10, ['stack', '(fuel electrode', 'above, air', 'electrode below)'], AIR_Y - FUEL_Y + H + 20));
-  const ox = has('oxidiser-outlet') ? add(box(5, MID_Y, ['off-gas', 'oxidiser'])) : null;
-  const hr = has('exhaust') ? add(box(6, MID_Y, ['heat recovery'])) : null;
+type PowerBoxes = ReturnType<typeof powerBoxes>;
 
+/** The feeds into the power plant and the fuel and air lines up to the stack, with the recycle above. */
+function powerFeedLines(d: Drawing, b: PowerBoxes): void {
+  const { has, num, parts, terminals } = d;
+  const { prep, pre, fuelHeat, blower, airHeat, stack } = b;
   const fuelIn = terminal(0, FUEL_Y - 14, 'fuel');
   const waterIn = terminal(0, FUEL_Y + 14, 'feed water');
   const airIn = terminal(0, AIR_Y, 'air');
@@ -210,36 +243,57 @@ export function blockFlowDiagram(r: Results): TrustedHtml | null {
       `<path d="M${stack.x + W / 2},${stack.y} L${stack.x + W / 2},${top} L${prep.x + W / 2},${top} L${prep.x + W / 2},${prep.y}" fill="none" stroke="currentColor" stroke-width="1.2" stroke-dasharray="4 3" marker-end="url(#bfd-arrow)"/><text x="${((stack.x + prep.x + W) / 2).toFixed(1)}" y="${top - 4}" text-anchor="middle" font-size="11" font-weight="bold">${num('recycle').join(', ')}</text>`,
     );
   }
+}
+
+/** The stack's outlets: into the off-gas oxidiser and the heat recovery where there are, else out of the plant. */
+function powerOutletLines(d: Drawing, b: PowerBoxes): void {
+  const { has, num, parts, terminals } = d;
+  const { stack, ox, hr } = b;
   const stackOutFuel = { x: stack.x + W, y: FUEL_Y + H / 2 };
   const stackOutAir = { x: stack.x + W, y: AIR_Y + H / 2 };
-  if (ox) {
-    parts.push(arrow(stackOutFuel, { x: ox.x, y: ox.y + 12 }, num('fuel-outlet')));
-    parts.push(arrow(stackOutAir, { x: ox.x, y: ox.y + H - 12 }, num('air-outlet')));
-    if (has('oxidiser-air')) {
-      parts.push(downOrUp(ox.x + W / 2, AIR_Y + H + 20, ox.y + H, num('oxidiser-air')));
-      terminals.push(`<text x="${ox.x + W / 2}" y="${AIR_Y + H + 32}" text-anchor="middle" font-size="10">air from the blower</text>`);
-    }
-    if (hr) {
-      parts.push(arrow(right(ox), left(hr), num('oxidiser-outlet', 'exhaust-mixed')));
-      terminals.push(exitLabel(COL[7]! + 4, hr.y + 12, 'exhaust'));
-      parts.push(arrow({ x: hr.x + W, y: hr.y + 12 }, { x: COL[7]!, y: hr.y + 12 }, num('exhaust')));
-      if (has('condensate')) {
-        terminals.push(exitLabel(COL[7]! + 4, hr.y + H - 10, 'condensate'));
-        parts.push(arrow({ x: hr.x + W, y: hr.y + H - 10 }, { x: COL[7]!, y: hr.y + H - 10 }, num('condensate')));
-      }
-    } else {
-      terminals.push(exitLabel(COL[6]! + 4, ox.y + H / 2, 'exhaust'));
-      parts.push(arrow(right(ox), { x: COL[6]!, y: ox.y + H / 2 }, num('oxidiser-outlet', 'exhaust-mixed')));
-    }
-  } else {
+  if (!ox) {
     terminals.push(exitLabel(COL[5]! + 4, stackOutFuel.y, 'off-gas'), exitLabel(COL[5]! + 4, stackOutAir.y, 'air exhaust'));
     parts.push(arrow(stackOutFuel, { x: COL[5]!, y: stackOutFuel.y }, num('fuel-outlet')));
     parts.push(arrow(stackOutAir, { x: COL[5]!, y: stackOutAir.y }, num('air-outlet')));
+    return;
   }
-  if (has('fuel-electrode-water') || has('air-electrode-water')) {
-    const water = { x: stack.x + W / 2, y: stack.y + stack.h };
-    terminals.push(`<text x="${water.x}" y="${water.y + 42}" text-anchor="middle" font-size="10">liquid water</text>`);
-    parts.push(downOrUp(water.x, water.y, water.y + 30, num('fuel-electrode-water', 'air-electrode-water')));
+  parts.push(arrow(stackOutFuel, { x: ox.x, y: ox.y + 12 }, num('fuel-outlet')));
+  parts.push(arrow(stackOutAir, { x: ox.x, y: ox.y + H - 12 }, num('air-outlet')));
+  if (has('oxidiser-air')) {
+    parts.push(downOrUp(ox.x + W / 2, AIR_Y + H + 20, ox.y + H, num('oxidiser-air')));
+    terminals.push(`<text x="${ox.x + W / 2}" y="${AIR_Y + H + 32}" text-anchor="middle" font-size="10">air from the blower</text>`);
   }
-  return svgOf(boxes, parts, terminals);
+  if (!hr) {
+    terminals.push(exitLabel(COL[6]! + 4, ox.y + H / 2, 'exhaust'));
+    parts.push(arrow(right(ox), { x: COL[6]!, y: ox.y + H / 2 }, num('oxidiser-outlet', 'exhaust-mixed')));
+    return;
+  }
+  parts.push(arrow(right(ox), left(hr), num('oxidiser-outlet', 'exhaust-mixed')));
+  terminals.push(exitLabel(COL[7]! + 4, hr.y + 12, 'exhaust'));
+  parts.push(arrow({ x: hr.x + W, y: hr.y + 12 }, { x: COL[7]!, y: hr.y + 12 }, num('exhaust')));
+  if (has('condensate')) {
+    terminals.push(exitLabel(COL[7]! + 4, hr.y + H - 10, 'condensate'));
+    parts.push(arrow({ x: hr.x + W, y: hr.y + H - 10 }, { x: COL[7]!, y: hr.y + H - 10 }, num('condensate')));
+  }
+}
+
+/** The power plant: feed preparation, pre-reformer, fuel preheat, blower, air preheat, stack, off-gas oxidiser, heat recovery. */
+function powerDiagram(r: Results): TrustedHtml {
+  const d = drawing(r);
+  const b = powerBoxes(d);
+  powerFeedLines(d, b);
+  powerOutletLines(d, b);
+  if (d.has('fuel-electrode-water') || d.has('air-electrode-water')) {
+    const water = { x: b.stack.x + W / 2, y: b.stack.y + b.stack.h };
+    d.terminals.push(`<text x="${water.x}" y="${water.y + 42}" text-anchor="middle" font-size="10">liquid water</text>`);
+    d.parts.push(downOrUp(water.x, water.y, water.y + 30, d.num('fuel-electrode-water', 'air-electrode-water')));
+  }
+  return svgOf(d.boxes, d.parts, d.terminals);
+}
+
+/** The diagram of the results' plant, or null where there is no plant balance. */
+export function blockFlowDiagram(r: Results): TrustedHtml | null {
+  if (r.plant.electrolysis) return electrolysisDiagram(r);
+  if (!r.plant.power) return null;
+  return powerDiagram(r);
 }

@@ -45,9 +45,10 @@ function dutyLine(id: string, title: string, outW: number, inW: number, outOrigi
   };
 }
 
-export function plantLines(r: Results): LineSpec[] {
+/** The stack, bus voltage and bus current of the electrical layout. */
+function layoutLines(r: Results): LineSpec[] {
   const e = r.plant.electrical;
-  const lines: LineSpec[] = [
+  return [
     {
       id: 'stack-voltage',
       title: 'Terminal voltage of one stack',
@@ -85,46 +86,64 @@ export function plantLines(r: Results): LineSpec[] {
       unit: 'A',
     },
   ];
-  const x = r.plant.electrolysis;
-  if (x) {
-    for (const s of x.steam) lines.push(steamLine(s, s.electrode === 'fuel' ? '' : '-air', 'feed water the stack is fed as steam, stream table', `steam superheated to the ${s.electrode}-electrode inlet, species data`));
-    const c = x.compression;
-    if (c) {
-      lines.push({
-        id: 'compressor-power',
-        title: `Hydrogen compressor power (${c.stages} intercooled stage${c.stages === 1 ? '' : 's'})`,
-        equation: 'electrolysis-plant-energy',
-        relation: 'compressor',
-        quantities: [
-          { name: 'n', value: c.flow_mol_per_s, unit: 'mol/s', origin: 'dry product gas, stream table' },
-          { name: 'w', value: c.power_W / c.flow_mol_per_s / 1000, unit: 'kJ/mol', origin: `work of the ${c.stages} stage${c.stages === 1 ? '' : 's'} of ratio ${c.pressureRatioPerStage.toPrecision(4)}, η_s ${c.isentropicEfficiency}, species data` },
-        ],
-        value: c.power_W / 1000,
-        unit: 'kW',
-      });
-    }
-    const e = x.specificEnergy;
-    lines.push({
-      id: 'system-specific-energy',
-      title: 'Electricity per kilogram of hydrogen, the whole plant',
-      equation: 'electrolysis-plant-energy',
-      relation: 'system',
-      quantities: [
-        { name: 'P', value: (e.stackDc_W + e.conversionLoss_W + e.parasitic_W) / 1000, unit: 'kW', origin: 'AC input of the rectifier and the balance of plant, above' },
-        { name: 'Qe', value: e.electricHeat_W / 1000, unit: 'kW', origin: x.heatSupply === 'electric' ? 'heat supplied by electric heaters, duty table' : 'none: the heat comes from outside the plant' },
-        { name: 'Pc', value: e.compressor_W / 1000, unit: 'kW', origin: c ? 'compressor power, above' : 'none: no hydrogen compression' },
-        { name: 'm', value: e.hydrogen_kg_per_h, unit: 'kg/h', origin: 'net hydrogen made, above' },
-      ],
-      value: e.system_kWh_per_kg,
-      unit: 'kWh/kg',
-      note: '1 kW per kg/h is 1 kWh/kg',
-    });
-    return lines;
-  }
-  const p = r.plant.power;
-  if (!p) return lines;
-  if (p.steam) lines.push(steamLine(p.steam, '', 'feed water at the steam-to-carbon ratio, stream table', 'steam superheated to the mixing temperature, species data'));
-  const stream = (id: string) => r.plant.streams.find((s) => s.id === id);
+}
+
+/** The hydrogen compressor's power, ṅ w. */
+function compressorLine(c: NonNullable<NonNullable<Results['plant']['electrolysis']>['compression']>): LineSpec {
+  return {
+    id: 'compressor-power',
+    title: `Hydrogen compressor power (${c.stages} intercooled stage${c.stages === 1 ? '' : 's'})`,
+    equation: 'electrolysis-plant-energy',
+    relation: 'compressor',
+    quantities: [
+      { name: 'n', value: c.flow_mol_per_s, unit: 'mol/s', origin: 'dry product gas, stream table' },
+      { name: 'w', value: c.power_W / c.flow_mol_per_s / 1000, unit: 'kJ/mol', origin: `work of the ${c.stages} stage${c.stages === 1 ? '' : 's'} of ratio ${c.pressureRatioPerStage.toPrecision(4)}, η_s ${c.isentropicEfficiency}, species data` },
+    ],
+    value: c.power_W / 1000,
+    unit: 'kW',
+  };
+}
+
+/** The electricity per kilogram of hydrogen of the whole plant. */
+function systemEnergyLine(x: NonNullable<Results['plant']['electrolysis']>): LineSpec {
+  const c = x.compression;
+  const e = x.specificEnergy;
+  return {
+    id: 'system-specific-energy',
+    title: 'Electricity per kilogram of hydrogen, the whole plant',
+    equation: 'electrolysis-plant-energy',
+    relation: 'system',
+    quantities: [
+      { name: 'P', value: (e.stackDc_W + e.conversionLoss_W + e.parasitic_W) / 1000, unit: 'kW', origin: 'AC input of the rectifier and the balance of plant, above' },
+      { name: 'Qe', value: e.electricHeat_W / 1000, unit: 'kW', origin: x.heatSupply === 'electric' ? 'heat supplied by electric heaters, duty table' : 'none: the heat comes from outside the plant' },
+      { name: 'Pc', value: e.compressor_W / 1000, unit: 'kW', origin: c ? 'compressor power, above' : 'none: no hydrogen compression' },
+      { name: 'm', value: e.hydrogen_kg_per_h, unit: 'kg/h', origin: 'net hydrogen made, above' },
+    ],
+    value: e.system_kWh_per_kg,
+    unit: 'kWh/kg',
+    note: '1 kW per kg/h is 1 kWh/kg',
+  };
+}
+
+/** The electrolysis plant: its steam raising, the compressor power and the specific energy. */
+function electrolysisLines(x: NonNullable<Results['plant']['electrolysis']>): LineSpec[] {
+  const lines = x.steam.map((s) => steamLine(s, s.electrode === 'fuel' ? '' : '-air', 'feed water the stack is fed as steam, stream table', `steam superheated to the ${s.electrode}-electrode inlet, species data`));
+  if (x.compression) lines.push(compressorLine(x.compression));
+  lines.push(systemEnergyLine(x));
+  return lines;
+}
+
+type PowerPlant = NonNullable<Results['plant']['power']>;
+
+/** A numbered stream of the plant by its id. */
+function plantStream(r: Results, id: string) {
+  return r.plant.streams.find((s) => s.id === id);
+}
+
+/** The fuel and air preheat duties as enthalpy flows out less in. */
+function preheatLines(r: Results, p: PowerPlant): LineSpec[] {
+  const lines: LineSpec[] = [];
+  const stream = (id: string) => plantStream(r, id);
   const fuelPreheat = p.duties.find((d) => d.id === 'fuel-preheat');
   const fuelSupply = stream('fuel-supply');
   if (fuelPreheat && fuelSupply) lines.push(dutyLine('fuel-preheat', 'Fuel heated to the mixing temperature', fuelSupply.enthalpyFlow_W + fuelPreheat.duty_W, fuelSupply.enthalpyFlow_W, 'dry fuel at the mixing temperature, species data', 'fuel supply, stream table'));
@@ -134,29 +153,36 @@ export function plantLines(r: Results): LineSpec[] {
     const from = p.blower ? 'after the blower' : 'at its supply temperature';
     lines.push(dutyLine('air-preheat', 'Air heated to the air-electrode inlet', airInlet.enthalpyFlow_W, airInlet.enthalpyFlow_W - airPreheat.duty_W, 'air-electrode inlet, stream table', `the stack's air ${from}, species data`));
   }
-  if (p.blower) {
-    const b = p.blower;
-    lines.push({
-      id: 'blower-power',
-      title: 'Air blower power (one adiabatic stage)',
-      equation: 'plant-duty',
-      relation: 'blower',
-      quantities: [
-        { name: 'n', value: b.flow_mol_per_s, unit: 'mol/s', origin: 'air through the blower, stream table' },
-        { name: 'hs', value: (b.power_W * b.isentropicEfficiency) / b.flow_mol_per_s / 1000, unit: 'kJ/mol', origin: `isentropic enthalpy rise from ${formatQuantity(b.inletPressure_bar, 'bar')} to ${formatQuantity(b.outletPressure_bar, 'bar')}, species data` },
-        { name: 'eta', value: b.isentropicEfficiency, unit: '', origin: 'isentropic efficiency, design input' },
-      ],
-      value: b.power_W / 1000,
-      unit: 'kW',
-    });
-  }
+  return lines;
+}
+
+/** The air blower's power, ṅ Δh_s / η_s. */
+function blowerLine(b: NonNullable<PowerPlant['blower']>): LineSpec {
+  return {
+    id: 'blower-power',
+    title: 'Air blower power (one adiabatic stage)',
+    equation: 'plant-duty',
+    relation: 'blower',
+    quantities: [
+      { name: 'n', value: b.flow_mol_per_s, unit: 'mol/s', origin: 'air through the blower, stream table' },
+      { name: 'hs', value: (b.power_W * b.isentropicEfficiency) / b.flow_mol_per_s / 1000, unit: 'kJ/mol', origin: `isentropic enthalpy rise from ${formatQuantity(b.inletPressure_bar, 'bar')} to ${formatQuantity(b.outletPressure_bar, 'bar')}, species data` },
+      { name: 'eta', value: b.isentropicEfficiency, unit: '', origin: 'isentropic efficiency, design input' },
+    ],
+    value: b.power_W / 1000,
+    unit: 'kW',
+  };
+}
+
+/** The oxidiser's adiabatic balance: the products hold the reactants' enthalpy; none for a liquid-water off-gas. */
+function oxidiserLine(r: Results, p: PowerPlant): LineSpec | null {
+  const stream = (id: string) => plantStream(r, id);
   const o = p.oxidiser;
   const offGas = stream('fuel-outlet');
   const oxidant = o && stream(o.oxidant === 'fresh-air' ? 'oxidiser-air' : 'air-outlet');
   const products = stream('oxidiser-outlet');
   // A liquid-water off-gas is burnt without its liquid, which the stream carries: no line for it.
   if (o && offGas && oxidant && products && !offGas.speciesFlows_mol_per_s['H2O(L)'] && !oxidant.speciesFlows_mol_per_s['H2O(L)']) {
-    lines.push({
+    return {
       id: 'oxidiser-enthalpy',
       title: `Off-gas oxidiser: the products hold the reactants' enthalpy at ${formatTemperature(o.outletTemperature_K)} (adiabatic)`,
       equation: 'oxidiser-balance',
@@ -168,37 +194,54 @@ export function plantLines(r: Results): LineSpec[] {
       value: products.enthalpyFlow_W / 1000,
       unit: 'kW',
       note: `the equilibrium products have this enthalpy at ${formatTemperature(o.outletTemperature_K)}, the adiabatic outlet temperature (Gibbs minimum at fixed H and p)`,
-    });
+    };
   }
-  if (p.heatRecovery && p.chp) {
-    lines.push(
-      {
-        id: 'delivered-heat',
-        title: 'Heat delivered by the heat recovery',
-        equation: 'delivered-heat',
-        relation: 'heat',
-        quantities: [
-          { name: 'R', value: p.heatRecovery.heatWithCondensation_W / 1000, unit: 'kW', origin: 'exhaust cooled to the exit temperature, with condensation' },
-          { name: 'D', value: p.netDuty_W / 1000, unit: 'kW', origin: "net duty of the plant's heaters, duty table" },
-          { name: 'L', value: p.heatLoss_W / 1000, unit: 'kW', origin: 'heat loss, design input × fuel LHV input' },
-        ],
-        value: p.heatRecovery.deliveredHeat_W / 1000,
-        unit: 'kW',
-      },
-      {
-        id: 'chp-efficiency',
-        title: 'Total efficiency of combined heat and power (LHV)',
-        equation: 'chp-efficiency',
-        relation: 'chp',
-        quantities: [
-          { name: 'P', value: p.chp.netPower_W / 1000, unit: 'kW', origin: 'net AC power, above' },
-          { name: 'Q', value: p.chp.deliveredHeat_W / 1000, unit: 'kW', origin: 'heat delivered, above' },
-          { name: 'L', value: r.efficiency.fuelLhvInput_W! / 1000, unit: 'kW', origin: 'fuel LHV input, efficiency figures' },
-        ],
-        value: p.chp.totalEfficiencyLhv,
-        unit: '',
-      },
-    );
-  }
-  return lines;
+  return null;
+}
+
+/** The heat delivered by the heat recovery and the total CHP efficiency. */
+function heatRecoveryLines(r: Results, p: PowerPlant): LineSpec[] {
+  if (!p.heatRecovery || !p.chp) return [];
+  return [
+    {
+      id: 'delivered-heat',
+      title: 'Heat delivered by the heat recovery',
+      equation: 'delivered-heat',
+      relation: 'heat',
+      quantities: [
+        { name: 'R', value: p.heatRecovery.heatWithCondensation_W / 1000, unit: 'kW', origin: 'exhaust cooled to the exit temperature, with condensation' },
+        { name: 'D', value: p.netDuty_W / 1000, unit: 'kW', origin: "net duty of the plant's heaters, duty table" },
+        { name: 'L', value: p.heatLoss_W / 1000, unit: 'kW', origin: 'heat loss, design input × fuel LHV input' },
+      ],
+      value: p.heatRecovery.deliveredHeat_W / 1000,
+      unit: 'kW',
+    },
+    {
+      id: 'chp-efficiency',
+      title: 'Total efficiency of combined heat and power (LHV)',
+      equation: 'chp-efficiency',
+      relation: 'chp',
+      quantities: [
+        { name: 'P', value: p.chp.netPower_W / 1000, unit: 'kW', origin: 'net AC power, above' },
+        { name: 'Q', value: p.chp.deliveredHeat_W / 1000, unit: 'kW', origin: 'heat delivered, above' },
+        { name: 'L', value: r.efficiency.fuelLhvInput_W! / 1000, unit: 'kW', origin: 'fuel LHV input, efficiency figures' },
+      ],
+      value: p.chp.totalEfficiencyLhv,
+      unit: '',
+    },
+  ];
+}
+
+/** The worked lines of the plant: the layout's, then the electrolysis plant's or the power plant's. */
+export function plantLines(r: Results): LineSpec[] {
+  const lines = layoutLines(r);
+  if (r.plant.electrolysis) return [...lines, ...electrolysisLines(r.plant.electrolysis)];
+  const p = r.plant.power;
+  if (!p) return lines;
+  if (p.steam) lines.push(steamLine(p.steam, '', 'feed water at the steam-to-carbon ratio, stream table', 'steam superheated to the mixing temperature, species data'));
+  lines.push(...preheatLines(r, p));
+  if (p.blower) lines.push(blowerLine(p.blower));
+  const oxidiser = oxidiserLine(r, p);
+  if (oxidiser) lines.push(oxidiser);
+  return [...lines, ...heatRecoveryLines(r, p)];
 }

@@ -1,0 +1,238 @@
+/**
+ * The balance of an electrolysis plant (the stack's inlets and outlets as the design point gives them):
+ *  - Water fed as vapour is raised from the feed water at T_w (steam-raising.ts: liquid heating,
+ *    L(T_s) at T_s = T_sat(p) of its electrode, superheating to the electrode's inlet temperature).
+ *    Water fed as liquid circulates in a loop: the liquid leaving the stack returns to its inlet
+ *    (cooled by the loop cooler), and the make-up ṅ_mu = ṅ_L,in − ṅ_L,out (the water split and the
+ *    vapour the gases carry off) is heated from T_w to the inlet temperature. Other gases of an
+ *    inlet (hydrogen fed with the steam, sweep air) are fed from outside at the fuel or air supply
+ *    temperature and heated to the inlet temperature: no heat is recovered from the products to
+ *    the feeds (a recuperator is not modelled), so the heat supplied is an upper bound.
+ *  - Stack: Q_stack = H_in(fed) − H_out(T_stack) + P_DC (heat.ts, "as fed"); the heat lost to ambient
+ *    Q_loss = f_loss · P_AC is taken from it: Q_net = Q_stack − Q_loss. Where Q_net < 0 a water loop's
+ *    cooler first removes that much less (it returns the water at the inlet temperature), and the
+ *    rest, −Q_net, is supplied to the stack (below thermoneutral); where Q_net > 0 the stack's cooling
+ *    removes it.
+ *  - Heat supplied Q_sup = Σ (positive duties) + stack supply: by electric heaters (counted in the
+ *    electricity) or from outside the plant, as plant.heat-supply says.
+ *  - Hydrogen compression (optional): hydrogen-compression.ts.
+ *  - Specific energy: e = (P_AC + P_heat,el + P_comp) / ṁ_H2 (kWh/kg), P_AC = P_DC (1/η_conv + f_BOP)
+ *    (design-point.ts), ṁ_H2 the net hydrogen made; the system efficiency is the products' LHV (HHV)
+ *    over the electricity and any heat from outside.
+ *  - First law over the plant: H_water + H_gases + P_DC + Q_sup + W_comp = H_H2 + H_O2 + H_condensate
+ *    + H_dryer + Q_coolers + Q_stack,removed + Q_loss, its residual over the electricity below 1e-9.
+ */
+import { getSpecies } from '../thermo/species-data.ts';
+import { mixtureEnthalpyJ } from '../thermo/mixture.ts';
+import type { PlantInput } from '../basis/types.ts';
+import type { DesignPoint } from './design-point.ts';
+import { totalFlow, type Stream } from './streams.ts';
+import type { ElectrodeSteam, ElectrolysisPlantBalance, PlantDuty, PlantStream, PowerPlantBalance } from './plant-balance-types.ts';
+import { firstLaw, PlantSheet, without } from './plant-sheet.ts';
+import { raiseSteam } from './steam-raising.ts';
+import { hydrogenDelivery, type HydrogenDelivery } from './hydrogen-compression.ts';
+
+const H = mixtureEnthalpyJ;
+
+type Electrode = 'fuel' | 'air';
+
+/** A gas other than water fed to an inlet from outside (hydrogen with the steam, sweep air). */
+interface GasFeed {
+  electrode: Electrode;
+  flows: Record<string, number>;
+  temperatureK: number;
+}
+
+/** The feeds of the stack's inlets: the feed water, the steam raised, the water loop and the gases fed from outside. */
+interface ElectrolysisFeeds {
+  inlets: { electrode: Electrode; stream: Stream }[];
+  feedWaterMol: number;
+  steam: ElectrodeSteam[];
+  gasFeeds: GasFeed[];
+  liquidIn: number;
+  makeUp: number;
+  returned: number;
+  drain: number;
+}
+
+/** The water split between the loop's return, its make-up and the drain, mol/s (the module comment). */
+function waterLoop(inlets: ElectrolysisFeeds['inlets'], outlets: Stream[]) {
+  const liquidOut = outlets.reduce((a, x) => a + (x.flows['H2O(L)'] ?? 0), 0);
+  const liquidIn = inlets.reduce((a, x) => a + (x.stream.flows['H2O(L)'] ?? 0), 0);
+  const returned = Math.min(liquidIn, liquidOut);
+  return { liquidIn, returned, makeUp: liquidIn - returned, drain: liquidOut - returned };
+}
+
+/** One inlet's feed preparation: its steam raised, its share of the loop's make-up and return, its gases preheated. */
+function electrodeFeed(point: DesignPoint, plant: PlantInput, inlet: ElectrolysisFeeds['inlets'][number], loop: ReturnType<typeof waterLoop>, sheet: PlantSheet, steam: ElectrodeSteam[], gasFeeds: GasFeed[]): void {
+  const { electrode, stream } = inlet;
+  const tWater = plant.feedWaterTemperatureK;
+  const tStack = point.inputs.temperatureK;
+  const side = electrode === 'fuel' ? 'fuel-electrode' : 'air-electrode';
+  const suffix = electrode === 'fuel' ? '' : '-air';
+  const vapourMol = stream.flows.H2O ?? 0;
+  const liquidMol = stream.flows['H2O(L)'] ?? 0;
+  const gases = without(without(stream.flows, 'H2O'), 'H2O(L)');
+  const tIn = stream.temperatureK;
+  if (vapourMol > 0) {
+    const s = { electrode, toK: tIn, ...raiseSteam(vapourMol, tWater, stream.pressureBar, tIn) };
+    steam.push(s);
+    sheet.duty(`feed-water-heating${suffix}`, `feed water heated to saturation (${side} steam)`, s.liquidHeatingW, tWater, s.saturationTemperatureK);
+    sheet.duty(`evaporation${suffix}`, `feed water evaporated (${side} steam)`, s.evaporationW, s.saturationTemperatureK, s.saturationTemperatureK);
+    sheet.duty(`superheating${suffix}`, `steam superheated to the ${side} inlet`, s.superheatingW, s.saturationTemperatureK, tIn);
+  }
+  if (liquidMol > 0) {
+    const own = liquidMol === loop.liquidIn ? loop.makeUp : (loop.makeUp * liquidMol) / loop.liquidIn;
+    const back = liquidMol - own;
+    sheet.duty(`make-up-heating${suffix}`, `make-up water heated to the ${side} inlet`, H({ 'H2O(L)': own }, tIn) - H({ 'H2O(L)': own }, tWater), tWater, tIn);
+    if (back > 0) sheet.duty(`loop-cooling${suffix}`, `water loop cooler (the returned water brought back to the ${side} inlet)`, H({ 'H2O(L)': back }, tIn) - H({ 'H2O(L)': back }, tStack), tStack, tIn);
+  }
+  if (totalFlow(gases) > 0) {
+    const tSupply = electrode === 'fuel' ? plant.fuelSupplyTemperatureK : plant.airSupplyTemperatureK;
+    gasFeeds.push({ electrode, flows: gases, temperatureK: tSupply });
+    sheet.add(`${electrode}-gas-supply`, electrode === 'fuel' ? 'gas fed with the steam (fuel electrode)' : 'sweep gas supply', tSupply, stream.pressureBar, gases);
+    sheet.duty(`${electrode}-gas-preheat`, `${electrode === 'fuel' ? 'gas fed with the steam' : 'sweep gas'} heated to the ${side} inlet`, H(gases, tIn) - H(gases, tSupply), tSupply, tIn);
+  }
+}
+
+/** The feeds of every inlet, and the inlets' own streams (the module comment). */
+function electrolysisFeeds(point: DesignPoint, plant: PlantInput, sheet: PlantSheet): ElectrolysisFeeds {
+  const inlets = (['fuel', 'air'] as const)
+    .map((electrode) => ({ electrode, stream: point.streams.find((x) => x.id === `${electrode}-inlet`) }))
+    .filter((x): x is { electrode: Electrode; stream: NonNullable<typeof x.stream> } => x.stream !== undefined);
+  const outlets = point.streams.filter((x) => x.id === 'fuel-outlet' || x.id === 'air-outlet');
+  const loop = waterLoop(inlets, outlets);
+  const feedWaterMol = inlets.reduce((a, x) => a + (x.stream.flows.H2O ?? 0), 0) + loop.makeUp;
+  sheet.add('feed-water', 'feed water', plant.feedWaterTemperatureK, Math.max(...inlets.map((x) => x.stream.pressureBar)), feedWaterMol > 0 ? { 'H2O(L)': feedWaterMol } : {});
+  const steam: ElectrodeSteam[] = [];
+  const gasFeeds: GasFeed[] = [];
+  for (const inlet of inlets) electrodeFeed(point, plant, inlet, loop, sheet, steam, gasFeeds);
+  for (const { stream } of inlets) sheet.add(stream.id, stream.name, stream.temperatureK, stream.pressureBar, { ...stream.flows });
+  return { inlets, feedWaterMol, steam, gasFeeds, ...loop };
+}
+
+/** The stack's gas outlets (its liquid water apart), with the loop's return and drain streams. */
+function electrolysisOutlets(point: DesignPoint, feeds: ElectrolysisFeeds, sheet: PlantSheet): { product: Record<string, number>; oxygen: Record<string, number> } {
+  const inputs = point.inputs;
+  const tStack = inputs.temperatureK;
+  const gasOf = (id: string) => without(point.streams.find((x) => x.id === id)?.flows ?? {}, 'H2O(L)');
+  const product = gasOf('fuel-outlet');
+  const oxygen = gasOf('air-outlet');
+  sheet.add('fuel-outlet', 'fuel-electrode outlet (hydrogen product)', tStack, inputs.fuelPressureBar, product);
+  sheet.add('air-outlet', 'air-electrode outlet (oxygen product)', tStack, inputs.airPressureBar, oxygen);
+  if (feeds.returned > 0) sheet.add('loop-return', 'water returned from the stack to its inlet', tStack, Math.max(...feeds.inlets.map((x) => x.stream.pressureBar)), { 'H2O(L)': feeds.returned });
+  if (feeds.drain > 0) sheet.add('stack-drain', 'liquid water drained from the stack', tStack, inputs.fuelPressureBar, { 'H2O(L)': feeds.drain });
+  return { product, oxygen };
+}
+
+/**
+ * The stack heat: what the losses leave of it is removed by the stack's cooling, or, below zero,
+ * supplied. A water loop returns its water at the inlet temperature: where the stack would need
+ * heat to warm it, the loop's cooler removes that much less (it takes out only what the stack put
+ * in); that loop duty is changed in place.
+ */
+function stackHeatBalance(point: DesignPoint, plant: PlantInput, duties: PlantDuty[]) {
+  const heatLossW = plant.heatLossFraction * point.netPowerW;
+  const stackHeatW = point.heat.asFedHeatW;
+  let stackNet = stackHeatW - heatLossW;
+  const loop = duties.find((d) => d.id.startsWith('loop-cooling'));
+  if (loop && stackNet < 0) {
+    const shift = Math.min(-stackNet, -loop.dutyW);
+    loop.dutyW += shift;
+    stackNet += shift;
+  }
+  return { heatLossW, stackHeatW, stackHeatSuppliedW: Math.max(0, -stackNet), stackHeatRemovedW: Math.max(0, stackNet) };
+}
+
+/** The electricity per kilogram of hydrogen and the system efficiencies (the module comment). */
+function specificEnergyOf(point: DesignPoint, plant: PlantInput, heatSuppliedW: number, compressorW: number): ElectrolysisPlantBalance['specificEnergy'] {
+  const inputs = point.inputs;
+  const acInW = point.netPowerW;
+  const electricHeatW = plant.heatSupply === 'electric' ? heatSuppliedW : 0;
+  const externalHeatW = plant.heatSupply === 'external' ? heatSuppliedW : 0;
+  const e = point.electrolysis!;
+  const hydrogenKgPerS = e.hydrogenMolPerS * getSpecies('H2').molarMassKgPerMol;
+  const parasiticW = inputs.parasiticFraction * point.stackPowerW;
+  const totalElectricW = acInW + electricHeatW + compressorW;
+  const perKg = (w: number) => w / hydrogenKgPerS / 3.6e6;
+  return {
+    hydrogenKgPerS,
+    stackDcW: point.stackPowerW,
+    conversionLossW: acInW - point.stackPowerW - parasiticW,
+    parasiticW,
+    electricHeatW,
+    compressorW,
+    totalElectricW,
+    stackKWhPerKg: perKg(point.stackPowerW),
+    systemKWhPerKg: perKg(totalElectricW),
+    systemEfficiencyLhv: e.productLhvW / (totalElectricW + externalHeatW),
+    systemEfficiencyHhv: e.productHhvW / (totalElectricW + externalHeatW),
+  };
+}
+
+/** The first law over the electrolysis plant (the module comment), scaled by the electricity. */
+function electrolysisEnergyBalance(
+  point: DesignPoint,
+  plant: PlantInput,
+  feeds: ElectrolysisFeeds,
+  oxygen: Record<string, number>,
+  h2: HydrogenDelivery,
+  heat: { heatSuppliedW: number; coolersW: number; stackHeatRemovedW: number; heatLossW: number },
+  totalElectricW: number,
+): PowerPlantBalance['energy'] {
+  const tStack = point.inputs.temperatureK;
+  const compressorK = plant.hydrogenCompression?.inletTemperatureK ?? tStack;
+  const { feedWaterMol, drain } = feeds;
+  const terms: PowerPlantBalance['energy']['terms'] = [
+    { name: 'feed water', valueW: feedWaterMol > 0 ? H({ 'H2O(L)': feedWaterMol }, plant.feedWaterTemperatureK) : 0, side: 'in' },
+    ...feeds.gasFeeds.map((g) => ({ name: g.electrode === 'fuel' ? 'gas fed with the steam' : 'sweep gas', valueW: H(g.flows, g.temperatureK), side: 'in' as const })),
+    { name: 'stack DC power', valueW: point.stackPowerW, side: 'in' },
+    { name: plant.heatSupply === 'electric' ? 'heat supplied electrically' : 'heat supplied from outside', valueW: heat.heatSuppliedW, side: 'in' },
+    { name: 'compressor work', valueW: h2.compression?.powerW ?? 0, side: 'in' },
+    { name: h2.compression ? 'hydrogen delivered' : 'hydrogen product', valueW: H(h2.delivered.flows, h2.delivered.temperatureK), side: 'out' },
+    { name: 'oxygen product', valueW: H(oxygen, tStack), side: 'out' },
+    { name: 'condensate', valueW: h2.condensateMolPerS > 0 ? H({ 'H2O(L)': h2.condensateMolPerS }, compressorK) : 0, side: 'out' },
+    { name: 'water removed by the dryer', valueW: h2.driedMolPerS > 0 ? H({ H2O: h2.driedMolPerS }, compressorK) : 0, side: 'out' },
+    { name: 'liquid water drained', valueW: drain > 0 ? H({ 'H2O(L)': drain }, tStack) : 0, side: 'out' },
+    { name: 'heat removed by the coolers', valueW: heat.coolersW, side: 'out' },
+    { name: "heat removed by the stack's cooling", valueW: heat.stackHeatRemovedW, side: 'out' },
+    { name: 'heat lost to ambient', valueW: heat.heatLossW, side: 'out' },
+  ];
+  return firstLaw(terms, totalElectricW);
+}
+
+/** The balance of an electrolysis plant (the module comment's blocks, feeds to products). */
+export function electrolysisBalance(point: DesignPoint, plant: PlantInput): { balance: ElectrolysisPlantBalance; streams: PlantStream[] } {
+  const sheet = new PlantSheet();
+  const feeds = electrolysisFeeds(point, plant, sheet);
+  const { product, oxygen } = electrolysisOutlets(point, feeds, sheet);
+  const stack = stackHeatBalance(point, plant, sheet.duties);
+  const h2 = hydrogenDelivery(point, plant, product, sheet);
+  const duties = sheet.duties;
+  const feedHeatW = duties.reduce((a, d) => a + Math.max(0, d.dutyW), 0);
+  const coolersW = duties.reduce((a, d) => a + Math.max(0, -d.dutyW), 0);
+  const heatSuppliedW = feedHeatW + stack.stackHeatSuppliedW;
+  const specificEnergy = specificEnergyOf(point, plant, heatSuppliedW, h2.compression?.powerW ?? 0);
+  const energy = electrolysisEnergyBalance(point, plant, feeds, oxygen, h2, { heatSuppliedW, coolersW, stackHeatRemovedW: stack.stackHeatRemovedW, heatLossW: stack.heatLossW }, specificEnergy.totalElectricW);
+  return {
+    streams: sheet.streams,
+    balance: {
+      feedWaterMolPerS: feeds.feedWaterMol,
+      steam: feeds.steam,
+      waterLoop: feeds.liquidIn > 0 ? { makeUpMolPerS: feeds.makeUp, returnMolPerS: feeds.returned, drainMolPerS: feeds.drain } : null,
+      duties,
+      feedHeatW,
+      coolersW,
+      stackHeatW: stack.stackHeatW,
+      heatLossW: stack.heatLossW,
+      stackHeatSuppliedW: stack.stackHeatSuppliedW,
+      stackHeatRemovedW: stack.stackHeatRemovedW,
+      heatSupply: plant.heatSupply,
+      heatSuppliedW,
+      productCooling: h2.productCooling,
+      compression: h2.compression,
+      specificEnergy,
+      energy,
+    },
+  };
+}
