@@ -134,6 +134,7 @@ const BASE_FIELDS: Readonly<Record<string, LimitedInput | PhysicsRule>> = {
   'plant.hydrogen-compression.isentropic-efficiency': 'isentropic-efficiency',
   'plant.hydrogen-compression.inlet-temperature': 'compressor-gas-temperature',
   'plant.hydrogen-compression.intercooling-temperature': 'compressor-gas-temperature',
+  'plant.recuperator.minimum-approach': 'minimum-approach',
   'sensitivity.temperature': 'sensitivity-temperature',
   'sensitivity.pressure': 'sensitivity-pressure',
   'sensitivity.utilization': 'sensitivity-utilization',

@@ -7,7 +7,7 @@
  * recycle), are refused at their key. What only the calculation can judge (an exit temperature
  * above the exhaust's, a window no string fits) is refused by it, at the same fields
  * (lib/plant/located-error.ts). Defaults: feeds at the ambient temperature, no recycle, no
- * oxidiser, no heat recovery, no heat loss, electric heat supply, no compression.
+ * oxidiser, no heat recovery, no heat loss, electric heat supply, no compression, no recuperator.
  */
 import { PA_PER_BAR, STANDARD_ATMOSPHERE_PA } from '../thermo/constants.ts';
 
@@ -30,6 +30,7 @@ const MODE_OF: Record<string, Mode> = {
   'air-blower': 'power',
   'heat-supply': 'electrolysis',
   'hydrogen-compression': 'electrolysis',
+  recuperator: 'electrolysis',
 };
 
 /** The read when it lies within the input's limit of data/limits.yaml, else undefined with the error at its value. */
@@ -203,6 +204,17 @@ function compression(reader: Reader, fuelPressureBar: number | undefined): Compr
   };
 }
 
+/** The feed recuperator: cells fed with steam only (its cold side is gas); the least approach within its limits. */
+function recuperator(reader: Reader, tech: Technology): PlantInput['recuperator'] | undefined {
+  if (!reader.has(P('recuperator'))) return null;
+  if (tech.waterPhase !== 'gas') {
+    reader.findings.error(P('recuperator'), `the recuperator heats the steam and sweep gas of cells fed with steam (solid-oxide, proton-ceramic) with their hot outlets; ${tech.id} cells are fed liquid water`, 'key');
+    return undefined;
+  }
+  const approach = limited(reader, reader.scalar(P('recuperator', 'minimum-approach'), 'temperature-difference', 'minimum approach temperature of the recuperator'), 'minimum-approach', 'minimum approach temperature of the recuperator');
+  return approach ? { minimumApproachK: approach.si } : undefined;
+}
+
 /** The `plant:` section with its defaults; undefined when a block written in it is wrong. */
 export function readPlant(reader: Reader, tech: Technology, mode: Mode, conditions: { ambientTemperatureK: number; fuelPressureBar?: number; airPressureBar?: number }): PlantInput | undefined {
   for (const [key, only] of Object.entries(MODE_OF)) {
@@ -223,6 +235,7 @@ export function readPlant(reader: Reader, tech: Technology, mode: Mode, conditio
     heatRecovery: other('heat-recovery') ? null : heatRecovery(reader),
     airBlower: other('air-blower') ? null : blower(reader, conditions.airPressureBar),
     hydrogenCompression: other('hydrogen-compression') ? null : compression(reader, conditions.fuelPressureBar),
+    recuperator: other('recuperator') ? null : recuperator(reader, tech),
   };
   const failed = (key: string, read: unknown) => reader.has(P(...key.split('.'))) && read === undefined;
   if (
@@ -248,5 +261,6 @@ export function readPlant(reader: Reader, tech: Technology, mode: Mode, conditio
     heatLossFraction: loss?.si ?? 0,
     heatSupply: mode === 'electrolysis' ? ((reader.text(P('heat-supply')) as 'electric' | 'external' | undefined) ?? 'electric') : 'electric',
     hydrogenCompression: values.hydrogenCompression!,
+    recuperator: values.recuperator!,
   };
 }

@@ -276,8 +276,14 @@ const plantSection = strict(
       },
       'electrolysis: the hydrogen product cooled, dried and compressed in intercooled stages (ideal gas, species data)',
     ).optional(),
+    recuperator: strict(
+      {
+        'minimum-approach': quantity('temperature-difference', 'least temperature difference between the hot outlets and the feeds anywhere in the exchanger, e.g. "25 K"'),
+      },
+      "electrolysis fed with steam: a counter-flow recuperator in which the stack's hot outlets (hydrogen product and oxygen side) heat the steam after the evaporator and the sweep gas towards the stack inlet; the heaters supply only the rest",
+    ).optional(),
   },
-  'the plant around the stack: electrical layout, feed preparation, off-gas oxidiser, anode recycle, heat recovery, hydrogen compression. Absent blocks are left out of the plant balance',
+  'the plant around the stack: electrical layout, feed preparation, off-gas oxidiser, anode recycle, heat recovery, hydrogen compression, feed recuperator. Absent blocks are left out of the plant balance',
 );
 
 const sensitivitySection = strict(

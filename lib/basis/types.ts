@@ -203,6 +203,8 @@ export interface PlantInput {
   /** Electrolysis: where the heat of the feed heaters and of the stack below thermoneutral comes from. */
   heatSupply: 'electric' | 'external';
   hydrogenCompression: CompressionInput | null;
+  /** Electrolysis fed with steam: the stack's hot gas outlets heat the gaseous feeds in a counter-flow recuperator with this least approach, K. */
+  recuperator: { minimumApproachK: number } | null;
 }
 
 export interface Sensitivity {

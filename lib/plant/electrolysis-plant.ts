@@ -6,8 +6,11 @@
  *    (cooled by the loop cooler), and the make-up ṅ_mu = ṅ_L,in − ṅ_L,out (the water split and the
  *    vapour the gases carry off) is heated from T_w to the inlet temperature. Other gases of an
  *    inlet (hydrogen fed with the steam, sweep air) are fed from outside at the fuel or air supply
- *    temperature and heated to the inlet temperature: no heat is recovered from the products to
- *    the feeds (a recuperator is not modelled), so the heat supplied is an upper bound.
+ *    temperature and heated to the inlet temperature.
+ *  - Recuperator (optional, recuperator.ts): the stack's gas outlets heat the gaseous feeds (the
+ *    steam from saturation, the gases from their supply temperature) in counter-flow; each feed's
+ *    heater then supplies only H_i(T_in) − H_i(T*), and the products leave at the hot outlet T_ho.
+ *    Without it no heat is recovered from the products to the feeds.
  *  - Stack: Q_stack = H_in(fed) − H_out(T_stack) + P_DC (heat.ts, "as fed"); the heat lost to ambient
  *    Q_loss = f_loss · P_AC is taken from it: Q_net = Q_stack − Q_loss. Where Q_net < 0 a water loop's
  *    cooler first removes that much less (it returns the water at the inlet temperature), and the
@@ -31,6 +34,7 @@ import type { ElectrodeSteam, ElectrolysisPlantBalance, PlantDuty, PlantStream, 
 import { firstLaw, PlantSheet, without } from './plant-sheet.ts';
 import { raiseSteam } from './steam-raising.ts';
 import { hydrogenDelivery, type HydrogenDelivery } from './hydrogen-compression.ts';
+import { recuperate, type ColdFeed, type HotOutlet } from './recuperator.ts';
 
 const H = mixtureEnthalpyJ;
 
@@ -49,6 +53,8 @@ interface ElectrolysisFeeds {
   feedWaterMol: number;
   steam: ElectrodeSteam[];
   gasFeeds: GasFeed[];
+  /** The gaseous feeds a recuperator could heat: the steam after the evaporator, the gases from their supply. */
+  coldFeeds: ColdFeed[];
   liquidIn: number;
   makeUp: number;
   returned: number;
@@ -64,7 +70,7 @@ function waterLoop(inlets: ElectrolysisFeeds['inlets'], outlets: Stream[]) {
 }
 
 /** One inlet's feed preparation: its steam raised, its share of the loop's make-up and return, its gases preheated. */
-function electrodeFeed(point: DesignPoint, plant: PlantInput, inlet: ElectrolysisFeeds['inlets'][number], loop: ReturnType<typeof waterLoop>, sheet: PlantSheet, steam: ElectrodeSteam[], gasFeeds: GasFeed[]): void {
+function electrodeFeed(point: DesignPoint, plant: PlantInput, inlet: ElectrolysisFeeds['inlets'][number], loop: ReturnType<typeof waterLoop>, sheet: PlantSheet, steam: ElectrodeSteam[], gasFeeds: GasFeed[], coldFeeds: ColdFeed[]): void {
   const { electrode, stream } = inlet;
   const tWater = plant.feedWaterTemperatureK;
   const tStack = point.inputs.temperatureK;
@@ -80,6 +86,7 @@ function electrodeFeed(point: DesignPoint, plant: PlantInput, inlet: Electrolysi
     sheet.duty(`feed-water-heating${suffix}`, `feed water heated to saturation (${side} steam)`, s.liquidHeatingW, tWater, s.saturationTemperatureK);
     sheet.duty(`evaporation${suffix}`, `feed water evaporated (${side} steam)`, s.evaporationW, s.saturationTemperatureK, s.saturationTemperatureK);
     sheet.duty(`superheating${suffix}`, `steam superheated to the ${side} inlet`, s.superheatingW, s.saturationTemperatureK, tIn);
+    coldFeeds.push({ dutyId: `superheating${suffix}`, id: `${electrode}-steam`, name: `steam (${side})`, flows: { H2O: vapourMol }, fromK: s.saturationTemperatureK, targetK: tIn, pressureBar: stream.pressureBar });
   }
   if (liquidMol > 0) {
     const own = liquidMol === loop.liquidIn ? loop.makeUp : (loop.makeUp * liquidMol) / loop.liquidIn;
@@ -90,6 +97,7 @@ function electrodeFeed(point: DesignPoint, plant: PlantInput, inlet: Electrolysi
   if (totalFlow(gases) > 0) {
     const tSupply = electrode === 'fuel' ? plant.fuelSupplyTemperatureK : plant.airSupplyTemperatureK;
     gasFeeds.push({ electrode, flows: gases, temperatureK: tSupply });
+    coldFeeds.push({ dutyId: `${electrode}-gas-preheat`, id: `${electrode}-gas`, name: electrode === 'fuel' ? 'gas fed with the steam' : 'sweep gas', flows: gases, fromK: tSupply, targetK: tIn, pressureBar: stream.pressureBar });
     sheet.add(`${electrode}-gas-supply`, electrode === 'fuel' ? 'gas fed with the steam (fuel electrode)' : 'sweep gas supply', tSupply, stream.pressureBar, gases);
     sheet.duty(`${electrode}-gas-preheat`, `${electrode === 'fuel' ? 'gas fed with the steam' : 'sweep gas'} heated to the ${side} inlet`, H(gases, tIn) - H(gases, tSupply), tSupply, tIn);
   }
@@ -106,9 +114,10 @@ function electrolysisFeeds(point: DesignPoint, plant: PlantInput, sheet: PlantSh
   sheet.add('feed-water', 'feed water', plant.feedWaterTemperatureK, Math.max(...inlets.map((x) => x.stream.pressureBar)), feedWaterMol > 0 ? { 'H2O(L)': feedWaterMol } : {});
   const steam: ElectrodeSteam[] = [];
   const gasFeeds: GasFeed[] = [];
-  for (const inlet of inlets) electrodeFeed(point, plant, inlet, loop, sheet, steam, gasFeeds);
+  const coldFeeds: ColdFeed[] = [];
+  for (const inlet of inlets) electrodeFeed(point, plant, inlet, loop, sheet, steam, gasFeeds, coldFeeds);
   for (const { stream } of inlets) sheet.add(stream.id, stream.name, stream.temperatureK, stream.pressureBar, { ...stream.flows });
-  return { inlets, feedWaterMol, steam, gasFeeds, ...loop };
+  return { inlets, feedWaterMol, steam, gasFeeds, coldFeeds, ...loop };
 }
 
 /** The stack's gas outlets (its liquid water apart), with the loop's return and drain streams. */
@@ -123,6 +132,30 @@ function electrolysisOutlets(point: DesignPoint, feeds: ElectrolysisFeeds, sheet
   if (feeds.returned > 0) sheet.add('loop-return', 'water returned from the stack to its inlet', tStack, Math.max(...feeds.inlets.map((x) => x.stream.pressureBar)), { 'H2O(L)': feeds.returned });
   if (feeds.drain > 0) sheet.add('stack-drain', 'liquid water drained from the stack', tStack, inputs.fuelPressureBar, { 'H2O(L)': feeds.drain });
   return { product, oxygen };
+}
+
+/**
+ * The recuperator (recuperator.ts), where the basis has one: the stack's gas outlets heat the
+ * gaseous feeds; each feed's heater then takes it only from where the recuperator leaves it to the
+ * stack inlet (its duty changed in place), and the products leave at the recuperator's hot outlet.
+ */
+function feedRecuperator(point: DesignPoint, plant: PlantInput, feeds: ElectrolysisFeeds, gas: { product: Record<string, number>; oxygen: Record<string, number> }, sheet: PlantSheet): ElectrolysisPlantBalance['recuperator'] {
+  const r = plant.recuperator;
+  if (!r || feeds.coldFeeds.length === 0) return null;
+  const inputs = point.inputs;
+  const outlets: HotOutlet[] = [
+    { id: 'fuel-outlet', name: 'hydrogen product', flows: gas.product, pressureBar: inputs.fuelPressureBar },
+    { id: 'air-outlet', name: 'oxygen side', flows: gas.oxygen, pressureBar: inputs.airPressureBar },
+  ].filter((o) => totalFlow(o.flows) > 0);
+  const rec = recuperate(outlets, inputs.temperatureK, feeds.coldFeeds, r.minimumApproachK);
+  for (const f of rec.feeds) {
+    const heater = sheet.duties.find((d) => d.id === f.dutyId)!;
+    heater.dutyW = H(f.flows, f.targetK) - H(f.flows, f.toK);
+    heater.fromK = f.toK;
+    sheet.add(`${f.id}-recuperated`, `${f.name} after the recuperator`, f.toK, f.pressureBar, f.flows);
+  }
+  for (const o of rec.outlets) sheet.add(`${o.id}-recuperated`, `${o.name} after the recuperator`, rec.hotOutletK, o.pressureBar, o.flows);
+  return rec;
 }
 
 /**
@@ -175,7 +208,7 @@ function electrolysisEnergyBalance(
   point: DesignPoint,
   plant: PlantInput,
   feeds: ElectrolysisFeeds,
-  oxygen: Record<string, number>,
+  oxygen: { flows: Record<string, number>; temperatureK: number },
   h2: HydrogenDelivery,
   heat: { heatSuppliedW: number; coolersW: number; stackHeatRemovedW: number; heatLossW: number },
   totalElectricW: number,
@@ -190,7 +223,7 @@ function electrolysisEnergyBalance(
     { name: plant.heatSupply === 'electric' ? 'heat supplied electrically' : 'heat supplied from outside', valueW: heat.heatSuppliedW, side: 'in' },
     { name: 'compressor work', valueW: h2.compression?.powerW ?? 0, side: 'in' },
     { name: h2.compression ? 'hydrogen delivered' : 'hydrogen product', valueW: H(h2.delivered.flows, h2.delivered.temperatureK), side: 'out' },
-    { name: 'oxygen product', valueW: H(oxygen, tStack), side: 'out' },
+    { name: 'oxygen product', valueW: H(oxygen.flows, oxygen.temperatureK), side: 'out' },
     { name: 'condensate', valueW: h2.condensateMolPerS > 0 ? H({ 'H2O(L)': h2.condensateMolPerS }, compressorK) : 0, side: 'out' },
     { name: 'water removed by the dryer', valueW: h2.driedMolPerS > 0 ? H({ H2O: h2.driedMolPerS }, compressorK) : 0, side: 'out' },
     { name: 'liquid water drained', valueW: drain > 0 ? H({ 'H2O(L)': drain }, tStack) : 0, side: 'out' },
@@ -206,14 +239,16 @@ export function electrolysisBalance(point: DesignPoint, plant: PlantInput): { ba
   const sheet = new PlantSheet();
   const feeds = electrolysisFeeds(point, plant, sheet);
   const { product, oxygen } = electrolysisOutlets(point, feeds, sheet);
+  const recuperator = feedRecuperator(point, plant, feeds, { product, oxygen }, sheet);
+  const productsK = recuperator?.hotOutletK ?? point.inputs.temperatureK;
   const stack = stackHeatBalance(point, plant, sheet.duties);
-  const h2 = hydrogenDelivery(point, plant, product, sheet);
+  const h2 = hydrogenDelivery(point, plant, product, productsK, sheet);
   const duties = sheet.duties;
   const feedHeatW = duties.reduce((a, d) => a + Math.max(0, d.dutyW), 0);
   const coolersW = duties.reduce((a, d) => a + Math.max(0, -d.dutyW), 0);
   const heatSuppliedW = feedHeatW + stack.stackHeatSuppliedW;
   const specificEnergy = specificEnergyOf(point, plant, heatSuppliedW, h2.compression?.powerW ?? 0);
-  const energy = electrolysisEnergyBalance(point, plant, feeds, oxygen, h2, { heatSuppliedW, coolersW, stackHeatRemovedW: stack.stackHeatRemovedW, heatLossW: stack.heatLossW }, specificEnergy.totalElectricW);
+  const energy = electrolysisEnergyBalance(point, plant, feeds, { flows: oxygen, temperatureK: productsK }, h2, { heatSuppliedW, coolersW, stackHeatRemovedW: stack.stackHeatRemovedW, heatLossW: stack.heatLossW }, specificEnergy.totalElectricW);
   return {
     streams: sheet.streams,
     balance: {
@@ -229,6 +264,7 @@ export function electrolysisBalance(point: DesignPoint, plant: PlantInput): { ba
       stackHeatRemovedW: stack.stackHeatRemovedW,
       heatSupply: plant.heatSupply,
       heatSuppliedW,
+      recuperator,
       productCooling: h2.productCooling,
       compression: h2.compression,
       specificEnergy,

@@ -43,7 +43,7 @@ export function stageCount(stages: CompressionInput['stages'], overallRatio: num
 /** The product cooled to the compressor inlet, its water condensed, the rest dried off. */
 function productCooling(product: Record<string, number>, fromK: number, c: NonNullable<PlantInput['hydrogenCompression']>, pFuel: number, sheet: PlantSheet) {
   if (!(c.inletTemperatureK < fromK)) {
-    throw new CalculationError(`the compressor inlet temperature (${(c.inletTemperatureK - 273.15).toFixed(1)} °C) must lie below the stack temperature (${(fromK - 273.15).toFixed(1)} °C): the product gas is cooled to it`, 'compressor-inlet-temperature');
+    throw new CalculationError(`the compressor inlet temperature (${(c.inletTemperatureK - 273.15).toFixed(1)} °C) must lie below the temperature the product gas comes at (${(fromK - 273.15).toFixed(1)} °C, the stack's or after the recuperator): it is cooled to it`, 'compressor-inlet-temperature');
   }
   const cooled = exhaustHeatRecovery({ flowsMolPerS: product, inletTemperatureK: fromK, exitTemperatureK: c.inletTemperatureK, pressureBar: pFuel });
   const condensate = cooled.condensedWaterMolPerS;
@@ -57,9 +57,9 @@ function productCooling(product: Record<string, number>, fromK: number, c: NonNu
   return { cooling, dry, condensate, dried };
 }
 
-/** The product as delivered: at the stack outlet without compression, else cooled, dried and compressed (the module comment). */
-export function hydrogenDelivery(point: DesignPoint, plant: PlantInput, product: Record<string, number>, sheet: PlantSheet): HydrogenDelivery {
-  const tStack = point.inputs.temperatureK;
+/** The product as delivered (it comes at productK: the stack's, or after a recuperator): as it comes without compression, else cooled, dried and compressed (the module comment). */
+export function hydrogenDelivery(point: DesignPoint, plant: PlantInput, product: Record<string, number>, productK: number, sheet: PlantSheet): HydrogenDelivery {
+  const tStack = productK;
   const pFuel = point.inputs.fuelPressureBar;
   const c = plant.hydrogenCompression;
   if (!c) return { productCooling: null, compression: null, delivered: { flows: product, temperatureK: tStack, pressureBar: pFuel }, condensateMolPerS: 0, driedMolPerS: 0 };

@@ -4,6 +4,7 @@
  */
 import type { ElectricalLayout } from '../flowsheet/electrical-layout.ts';
 import type { Finding } from './findings.ts';
+import type { Recuperation } from './recuperator.ts';
 
 /** A numbered stream of the heat-and-material balance. */
 export interface PlantStream {
@@ -100,6 +101,8 @@ export interface ElectrolysisPlantBalance {
   heatSupply: 'electric' | 'external';
   /** feedHeatW + stackHeatSuppliedW: the heat supplied by electric heaters or from outside, W. */
   heatSuppliedW: number;
+  /** The feed recuperator (recuperator.ts), where the basis has one. */
+  recuperator: Recuperation | null;
   productCooling: { fromK: number; toK: number; pressureBar: number; dutyW: number; condensedMolPerS: number; driedMolPerS: number } | null;
   compression: {
     inletPressureBar: number;

@@ -128,6 +128,21 @@ function powerResult(q: PowerPlantBalance): NonNullable<PlantResults['power']> {
   };
 }
 
+/** The feed recuperator, for the results. */
+function recuperatorResult(r: NonNullable<ElectrolysisPlantBalance['recuperator']>): NonNullable<NonNullable<PlantResults['electrolysis']>['recuperator']> {
+  return {
+    minimumApproach_K: r.minimumApproachK,
+    duty_W: r.dutyW,
+    hotInlet_K: r.hotInletK,
+    hotOutlet_K: r.hotOutletK,
+    coldOutlet_K: r.coldOutletK,
+    smallestApproach_K: r.smallestApproachK,
+    limitedBy: r.limitedBy,
+    hotDewPoint_K: r.hotDewPointK,
+    feeds: r.feeds.map((f) => ({ id: f.id, name: f.name, from_K: f.fromK, to_K: f.toK, target_K: f.targetK, duty_W: f.dutyW })),
+  };
+}
+
 /** The electrolysis plant's balance, for the results. */
 /** The hydrogen compression, for the results. */
 function compressionResult(c: NonNullable<ElectrolysisPlantBalance['compression']>): NonNullable<NonNullable<PlantResults['electrolysis']>['compression']> {
@@ -190,6 +205,7 @@ function electrolysisResult(x: ElectrolysisPlantBalance): NonNullable<PlantResul
     stackHeatRemoved_W: x.stackHeatRemovedW,
     heatSupply: x.heatSupply,
     heatSupplied_W: x.heatSuppliedW,
+    recuperator: x.recuperator && recuperatorResult(x.recuperator),
     productCooling: x.productCooling && {
       from_K: x.productCooling.fromK,
       to_K: x.productCooling.toK,

@@ -216,9 +216,34 @@ const electrolysisPlantSchema = z
     stackHeatRemoved_W: num("stack heat left for the stack's own cooling after the losses"),
     heatSupply: z.enum(['electric', 'external']).describe('plant.heat-supply: electric heaters (counted in the electricity) or heat from outside'),
     heatSupplied_W: num('feed heat + stack heat supplied'),
+    recuperator: z
+      .object({
+        minimumApproach_K: num('least temperature difference allowed between the two sides, plant.recuperator.minimum-approach'),
+        duty_W: num("heat the stack's hot outlets give the feeds"),
+        hotInlet_K: num('the stack temperature, at which the outlets enter'),
+        hotOutlet_K: num('the temperature the hydrogen product and the oxygen side leave at'),
+        coldOutlet_K: num('the temperature the feeds leave at (each at most its stack inlet temperature)'),
+        smallestApproach_K: num('the least temperature difference found over the exchanger (at or above the minimum approach)'),
+        limitedBy: z.enum(['minimum-approach', 'feeds-at-target', 'dew-point']).describe("what bounds the duty: the minimum approach (a pinch), every feed at its stack inlet temperature, or the hot side's dew point"),
+        hotDewPoint_K: nullableNum("the highest dew point of the hot outlets (no water condenses in the recuperator); null without water vapour"),
+        feeds: z
+          .array(
+            z.object({
+              id: z.string().describe('fuel-steam, fuel-gas, air-steam or air-gas'),
+              name: z.string(),
+              from_K: num('the feed as it enters: the steam at saturation after the evaporator, a gas at its supply temperature'),
+              to_K: num('the feed as it leaves the recuperator'),
+              target_K: num("the electrode's inlet temperature, which its heater then brings it to"),
+              duty_W: num('heat this feed takes in the recuperator'),
+            }),
+          )
+          .describe('the feeds heated'),
+      })
+      .nullable()
+      .describe('the feed recuperator (counter-flow, composite curves; lib/plant/recuperator.ts); null without plant.recuperator'),
     productCooling: z
       .object({
-        from_K: num('the stack temperature'),
+        from_K: num('the temperature the product comes at: the stack temperature, or after the recuperator'),
         to_K: num('the compressor inlet temperature'),
         pressure_bar: num('the fuel-electrode pressure'),
         duty_W: num('heat given to the product (negative: removed), condensation included'),

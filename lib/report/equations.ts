@@ -436,6 +436,7 @@ function plantEquations(r: Results): EquationEntry[] {
     layoutEquation(),
     ...(steamRaised ? [steamRaisingEquation(r)] : []),
     ...(r.plant.electrolysis ? [electrolysisPlantEquation()] : []),
+    ...(r.plant.electrolysis?.recuperator ? [recuperatorEquation()] : []),
     ...(r.plant.power ? powerPlantEquations() : []),
   ];
 }
@@ -488,6 +489,15 @@ function electrolysisPlantEquation(): EquationEntry {
     },
     (show) =>
       `\\begin{gathered} ${show('system')}, \\\\ ${show('compressor')}, \\qquad w_k = \\frac{h(T_{\\mathrm{s},k}) - h(T_k)}{\\eta_\\mathrm{s}}, \\quad s^\\circ(T_{\\mathrm{s},k}) = s^\\circ(T_k) + R \\ln r, \\quad r = \\left(\\frac{p_\\mathrm{out}}{p_\\mathrm{in}}\\right)^{1/N} \\end{gathered}`,
+  );
+}
+
+/** The feed recuperator (lib/plant/recuperator.ts): its duty from the hot outlets, bounded by the least approach over the composite curves. */
+function recuperatorEquation(): EquationEntry {
+  return entry(
+    'recuperator-duty',
+    { duty: { lhs: sym('Q_\\mathrm{rec}'), symbols: { Hs: sym('H_\\mathrm{hot}(T_\\mathrm{stack})'), Hr: sym('H_\\mathrm{hot}(T_\\mathrm{ho})') }, rhs: (q) => `${q.Hs} - ${q.Hr}` } },
+    (show) => `\\begin{gathered} ${show('duty')}, \\\\ T_\\mathrm{h}(c) - T_\\mathrm{c}(c) \\ge \\Delta T_\\mathrm{min} \\text{ for every } c \\in [0, Q_\\mathrm{rec}] \\end{gathered}`,
   );
 }
 

@@ -1,7 +1,7 @@
 /**
  * The block flow diagram of the plant: one box per unit the basis has (power: feed preparation,
  * pre-reformer, fuel preheat, blower, air preheat, stack, off-gas oxidiser, heat recovery;
- * electrolysis: feed preparation or water loop, preheat, stack, product cooler and dryer, compressor) and
+ * electrolysis: feed preparation or water loop, preheat, stack, recuperator, product cooler and dryer, compressor) and
  * one arrow per numbered stream of the heat-and-material balance, labelled with its number. Drawn
  * by the project as plain SVG in the document's style: boxes, lines, numbers, no symbols.
  */
@@ -141,21 +141,41 @@ function electrolysisFeedSide(d: Drawing, x: Electrolysis, stack: Box, side: { i
   }
 }
 
-/** The hydrogen product: through its cooler and dryer to the compressor where there is one, else straight out. */
-function hydrogenProductPath(d: Drawing, x: Electrolysis, stack: Box): void {
-  const { num, parts, terminals } = d;
+/**
+ * The feed recuperator between the stack and the products' exits: the hot outlets pass through it,
+ * and the feeds it heats return (dashed, under the air line) to the feed preparation, whose heaters
+ * take them on to the stack. Where the hydrogen and the oxygen side leave it, or the stack without it.
+ */
+function recuperatorPath(d: Drawing, stack: Box): { fuel: { x: number; y: number; id: string }; air: { x: number; y: number; id: string }; shift: number } {
+  const { has, num, parts, terminals } = d;
   const outFuel = { x: stack.x + W, y: FUEL_Y + H / 2 };
+  const outAir = { x: stack.x + W, y: AIR_Y + H / 2 };
+  if (!has('fuel-outlet-recuperated') && !has('air-outlet-recuperated')) return { fuel: { ...outFuel, id: 'fuel-outlet' }, air: { ...outAir, id: 'air-outlet' }, shift: 0 };
+  const rec = d.add(box(4, MID_Y, ['recuperator']));
+  if (has('fuel-outlet')) parts.push(arrow(outFuel, { x: rec.x, y: rec.y + 12 }, num('fuel-outlet')));
+  if (has('air-outlet')) parts.push(arrow(outAir, { x: rec.x, y: rec.y + H - 12 }, num('air-outlet')));
+  const feeds = num('fuel-steam-recuperated', 'fuel-gas-recuperated', 'air-steam-recuperated', 'air-gas-recuperated');
+  const back = AIR_Y + H + 26;
+  parts.push(loopBack(rec.x + W / 2, rec.y + H, COL[1]! + W / 2, AIR_Y + H, back, feeds));
+  terminals.push(`<text x="${((rec.x + COL[1]! + W) / 2).toFixed(1)}" y="${back + 24}" text-anchor="middle" font-size="10">feeds heated by the recuperator</text>`);
+  return { fuel: { x: rec.x + W, y: rec.y + 12, id: 'fuel-outlet-recuperated' }, air: { x: rec.x + W, y: rec.y + H - 12, id: 'air-outlet-recuperated' }, shift: 1 };
+}
+
+/** The hydrogen product: through its cooler and dryer to the compressor where there is one, else straight out. */
+function hydrogenProductPath(d: Drawing, x: Electrolysis, from: { x: number; y: number; id: string }, shift: number): void {
+  const { num, parts, terminals } = d;
+  const outFuel = from;
   if (!x.compression) {
-    parts.push(arrow(outFuel, { x: COL[4]!, y: outFuel.y }, num('fuel-outlet')));
-    terminals.push(exitLabel(COL[4]! + 4, outFuel.y, 'hydrogen product'));
+    parts.push(arrow(outFuel, { x: COL[4 + shift]!, y: FUEL_Y + H / 2 }, num(from.id)));
+    terminals.push(exitLabel(COL[4 + shift]! + 4, FUEL_Y + H / 2, 'hydrogen product'));
     return;
   }
-  const cooler = d.add(box(4, FUEL_Y, ['product cooler', 'and dryer']));
-  const comp = d.add(box(5, FUEL_Y, ['compressor', `(${x.compression.stages} stage${x.compression.stages === 1 ? '' : 's'})`]));
-  parts.push(arrow(outFuel, left(cooler), num('fuel-outlet')));
+  const cooler = d.add(box(4 + shift, FUEL_Y, ['product cooler', 'and dryer']));
+  const comp = d.add(box(5 + shift, FUEL_Y, ['compressor', `(${x.compression.stages} stage${x.compression.stages === 1 ? '' : 's'})`]));
+  parts.push(arrow(outFuel, left(cooler), num(from.id)));
   parts.push(arrow(right(cooler), left(comp), num('product-dried')));
-  parts.push(arrow(right(comp), { x: COL[6]!, y: FUEL_Y + H / 2 }, num('hydrogen-delivered')));
-  terminals.push(exitLabel(COL[6]! + 4, FUEL_Y + H / 2, 'hydrogen'));
+  parts.push(arrow(right(comp), { x: COL[6 + shift]!, y: FUEL_Y + H / 2 }, num('hydrogen-delivered')));
+  terminals.push(exitLabel(COL[6 + shift]! + 4, FUEL_Y + H / 2, 'hydrogen'));
   const drops = num('product-condensate', 'dryer-water');
   if (drops.length) {
     parts.push(downOrUp(cooler.x + W / 2, cooler.y + H, cooler.y + H + 36, drops));
@@ -180,11 +200,11 @@ function electrolysisDiagram(r: Results): TrustedHtml {
   ];
   const water = sides.find((side) => waterOf(`${side.id}-inlet`));
   for (const side of sides) if (has(`${side.id}-inlet`)) electrolysisFeedSide(d, x, stack, side, side === water);
-  hydrogenProductPath(d, x, stack);
-  const outAir = { x: stack.x + W, y: AIR_Y + H / 2 };
-  if (has('air-outlet')) {
-    parts.push(arrow(outAir, { x: COL[4]!, y: outAir.y }, num('air-outlet')));
-    terminals.push(exitLabel(COL[4]! + 4, outAir.y, 'oxygen side'));
+  const out = recuperatorPath(d, stack);
+  hydrogenProductPath(d, x, out.fuel, out.shift);
+  if (has(out.air.id)) {
+    parts.push(arrow(out.air, { x: COL[4 + out.shift]!, y: AIR_Y + H / 2 }, num(out.air.id)));
+    terminals.push(exitLabel(COL[4 + out.shift]! + 4, AIR_Y + H / 2, 'oxygen side'));
   }
   if (has('stack-drain')) {
     const drain = { x: stack.x + W / 2 + 20, y: stack.y + stack.h };

@@ -93,7 +93,7 @@ function caseBaseFor(field: string): { text: (value: string | number) => string;
 /** A valid basis for the field, and the path at which to write its value. */
 function baseFor(field: string): { text: (value: string | number) => string; path: string } {
   if (field.startsWith(CASE)) return caseBaseFor(field.slice(CASE.length));
-  const electrolysis = /steam-conversion|sweep-ratio|target-hydrogen|koh-mass-fraction|hydrogen-compression/.test(field);
+  const electrolysis = /steam-conversion|sweep-ratio|target-hydrogen|koh-mass-fraction|hydrogen-compression|recuperator/.test(field);
   const edits: Record<string, unknown> = {};
   let path = field;
   if (field === 'operating-point.air-ratio') edits['operating-point.air-utilization'] = undefined;

@@ -125,9 +125,37 @@ function systemEnergyLine(x: NonNullable<Results['plant']['electrolysis']>): Lin
   };
 }
 
-/** The electrolysis plant: its steam raising, the compressor power and the specific energy. */
-function electrolysisLines(x: NonNullable<Results['plant']['electrolysis']>): LineSpec[] {
+/**
+ * The recuperator's duty from the hot outlets' enthalpy flows: as they leave the stack less as
+ * they leave the recuperator (the feeds take the same, composite curves of recuperator.ts).
+ */
+function recuperatorLine(r: Results, rec: NonNullable<NonNullable<Results['plant']['electrolysis']>['recuperator']>): LineSpec | null {
+  const ids = ['fuel-outlet', 'air-outlet'];
+  const before = r.plant.streams.filter((s) => ids.includes(s.id));
+  const after = r.plant.streams.filter((s) => ids.some((id) => s.id === `${id}-recuperated`));
+  if (before.length === 0 || before.length !== after.length) return null;
+  const sum = (list: typeof before) => list.reduce((a, s) => a + s.enthalpyFlow_W, 0);
+  const numbers = (list: typeof before) => list.map((s) => s.number).join(' and ');
+  return {
+    id: 'recuperator-duty',
+    title: "Recuperator duty: the heat the stack's hot outlets give up to the feeds",
+    equation: 'recuperator-duty',
+    relation: 'duty',
+    quantities: [
+      { name: 'Hs', value: sum(before) / 1000, unit: 'kW', origin: `the hot outlets at the stack temperature, stream${before.length > 1 ? 's' : ''} ${numbers(before)}` },
+      { name: 'Hr', value: sum(after) / 1000, unit: 'kW', origin: `the same after the recuperator at ${formatTemperature(rec.hotOutlet_K)}, stream${after.length > 1 ? 's' : ''} ${numbers(after)}` },
+    ],
+    value: rec.duty_W / 1000,
+    unit: 'kW',
+    note: `the feeds take it and leave at ${formatTemperature(rec.coldOutlet_K)}; the least temperature difference over the exchanger is ${formatQuantity(rec.smallestApproach_K, 'K')} (minimum approach ${formatQuantity(rec.minimumApproach_K, 'K')})`,
+  };
+}
+
+/** The electrolysis plant: its steam raising, the recuperator, the compressor power and the specific energy. */
+function electrolysisLines(r: Results, x: NonNullable<Results['plant']['electrolysis']>): LineSpec[] {
   const lines = x.steam.map((s) => steamLine(s, s.electrode === 'fuel' ? '' : '-air', 'feed water the stack is fed as steam, stream table', `steam superheated to the ${s.electrode}-electrode inlet, species data`));
+  const recuperator = x.recuperator && recuperatorLine(r, x.recuperator);
+  if (recuperator) lines.push(recuperator);
   if (x.compression) lines.push(compressorLine(x.compression));
   lines.push(systemEnergyLine(x));
   return lines;
@@ -235,7 +263,7 @@ function heatRecoveryLines(r: Results, p: PowerPlant): LineSpec[] {
 /** The worked lines of the plant: the layout's, then the electrolysis plant's or the power plant's. */
 export function plantLines(r: Results): LineSpec[] {
   const lines = layoutLines(r);
-  if (r.plant.electrolysis) return [...lines, ...electrolysisLines(r.plant.electrolysis)];
+  if (r.plant.electrolysis) return [...lines, ...electrolysisLines(r, r.plant.electrolysis)];
   const p = r.plant.power;
   if (!p) return lines;
   if (p.steam) lines.push(steamLine(p.steam, '', 'feed water at the steam-to-carbon ratio, stream table', 'steam superheated to the mixing temperature, species data'));

@@ -410,11 +410,63 @@ function energyBalance(b: PlantPower['energyBalance'], over: string): Pair[] {
 
 type PlantElectrolysis = NonNullable<Results['plant']['electrolysis']>;
 
+/** The hydrogen compression's rows: pressures, stages, stage outlet temperatures, power; none without it. */
+function compressionRows(c: PlantElectrolysis['compression']): Pair[] {
+  if (!c) return [];
+  const rows: Pair[] = [];
+  rows.push(several('Hydrogen compression: pressure', `${formatQuantity(c.inletPressure_bar, 'bar')} → ${formatQuantity(c.deliveryPressure_bar, 'bar')}`, [
+    ['Compressor inlet pressure', 'bar', c.inletPressure_bar],
+    ['Delivery pressure', 'bar', c.deliveryPressure_bar],
+  ]));
+  rows.push(several('Stages (ratio each) / isentropic efficiency', `${c.stages}${c.stagesFrom === 'given' ? '' : ' (from the maximum stage ratio)'} (${formatNumber(c.pressureRatioPerStage, 4)}) / ${formatPercent(c.isentropicEfficiency)}`, [
+    ['Compression stages', '', c.stages],
+    ['Pressure ratio per stage', '', c.pressureRatioPerStage],
+    ['Compressor isentropic efficiency', '', c.isentropicEfficiency],
+  ]));
+  rows.push(several('Stage outlet temperatures (inlet, intercooled to)', `${c.stageOutletTemperatures_K.map(formatTemperature).join(', ')} (${formatTemperature(c.inletTemperature_K)}, ${formatTemperature(c.intercoolTemperature_K)})`, [
+    ...c.stageOutletTemperatures_K.map((t, i): [string, string, number] => [`Stage ${i + 1} outlet temperature`, 'K', t]),
+    ['Compressor inlet temperature', 'K', c.inletTemperature_K],
+    ['Intercooling temperature', 'K', c.intercoolTemperature_K],
+  ]));
+  rows.push(several('Compressor power (work per kg)', `${kW(c.power_W)} (${formatQuantity(c.work_J_per_kg / 1000, 'kJ/kg')})`, [
+    ['Compressor power', 'W', c.power_W],
+    ['Compressor work per kg', 'J/kg', c.work_J_per_kg],
+  ]));
+  return rows;
+}
+
+const RECUPERATOR_LIMIT: Record<NonNullable<PlantElectrolysis['recuperator']>['limitedBy'], string> = {
+  'minimum-approach': 'the minimum approach (a pinch)',
+  'feeds-at-target': 'every feed at its stack inlet temperature',
+  'dew-point': "the hot outlets' dew point",
+};
+
+/** The feed recuperator's rows: duty and approach, the temperatures of both sides, what limits it; none without it. */
+function recuperatorRows(r: PlantElectrolysis['recuperator']): Pair[] {
+  if (!r) return [];
+  return [
+    several('Recuperator duty (minimum approach)', `${kW(r.duty_W)} (${formatQuantity(r.minimumApproach_K, 'K')})`, [
+      ['Recuperator duty', 'W', r.duty_W],
+      ['Recuperator minimum approach', 'K', r.minimumApproach_K],
+    ]),
+    several('Recuperator: hot outlets in / out', `${formatTemperature(r.hotInlet_K)} / ${formatTemperature(r.hotOutlet_K)}`, [
+      ['Recuperator hot side in', 'K', r.hotInlet_K],
+      ['Recuperator hot side out', 'K', r.hotOutlet_K],
+    ]),
+    several('Recuperator: feeds out (least approach found)', `${formatTemperature(r.coldOutlet_K)} (${formatQuantity(r.smallestApproach_K, 'K')})`, [
+      ['Recuperator feeds out', 'K', r.coldOutlet_K],
+      ['Recuperator least approach found', 'K', r.smallestApproach_K],
+    ]),
+    { label: 'Recuperator duty limited by', text: RECUPERATOR_LIMIT[r.limitedBy], data: [{ name: 'Recuperator duty limited by', unit: '', value: r.limitedBy }] },
+  ];
+}
+
 /** The electrolysis plant: feed preparation, heat supplied, compression and the electricity per kilogram of hydrogen. */
 function electrolysisPlant(x: PlantElectrolysis): Pair[] {
   const rows: Pair[] = dutyRows(x.duties);
   rows.push(quantity('Feed water', x.feedWater_kg_per_h, 'kg/h', formatQuantity(x.feedWater_kg_per_h, 'kg/h')));
   for (const s of x.steam) rows.push(quantity(`Saturation temperature of the ${s.electrode}-electrode steam (IAPWS-IF97)`, s.saturationTemperature_K, 'K', formatTemperature(s.saturationTemperature_K)));
+  rows.push(...recuperatorRows(x.recuperator));
   rows.push(quantity('Stack heat with the inlets as fed (negative: absorbed)', x.stackHeat_W, 'W', kW(x.stackHeat_W)));
   rows.push(quantity('Heat lost to ambient', x.heatLoss_W, 'W', kW(x.heatLoss_W)));
   rows.push(several('Heat supplied to the feeds / to the stack', `${kW(x.feedHeat_W)} / ${kW(x.stackHeatSupplied_W)}`, [
@@ -433,27 +485,7 @@ function electrolysisPlant(x: PlantElectrolysis): Pair[] {
     ['Heat removed by the coolers', 'W', x.coolers_W],
     ['Heat removed by the stack cooling', 'W', x.stackHeatRemoved_W],
   ]));
-  const c = x.compression;
-  if (c) {
-    rows.push(several('Hydrogen compression: pressure', `${formatQuantity(c.inletPressure_bar, 'bar')} → ${formatQuantity(c.deliveryPressure_bar, 'bar')}`, [
-      ['Compressor inlet pressure', 'bar', c.inletPressure_bar],
-      ['Delivery pressure', 'bar', c.deliveryPressure_bar],
-    ]));
-    rows.push(several('Stages (ratio each) / isentropic efficiency', `${c.stages}${c.stagesFrom === 'given' ? '' : ' (from the maximum stage ratio)'} (${formatNumber(c.pressureRatioPerStage, 4)}) / ${formatPercent(c.isentropicEfficiency)}`, [
-      ['Compression stages', '', c.stages],
-      ['Pressure ratio per stage', '', c.pressureRatioPerStage],
-      ['Compressor isentropic efficiency', '', c.isentropicEfficiency],
-    ]));
-    rows.push(several('Stage outlet temperatures (inlet, intercooled to)', `${c.stageOutletTemperatures_K.map(formatTemperature).join(', ')} (${formatTemperature(c.inletTemperature_K)}, ${formatTemperature(c.intercoolTemperature_K)})`, [
-      ...c.stageOutletTemperatures_K.map((t, i): [string, string, number] => [`Stage ${i + 1} outlet temperature`, 'K', t]),
-      ['Compressor inlet temperature', 'K', c.inletTemperature_K],
-      ['Intercooling temperature', 'K', c.intercoolTemperature_K],
-    ]));
-    rows.push(several('Compressor power (work per kg)', `${kW(c.power_W)} (${formatQuantity(c.work_J_per_kg / 1000, 'kJ/kg')})`, [
-      ['Compressor power', 'W', c.power_W],
-      ['Compressor work per kg', 'J/kg', c.work_J_per_kg],
-    ]));
-  }
+  rows.push(...compressionRows(x.compression));
   const e = x.specificEnergy;
   rows.push(several('Electricity per kg of hydrogen: stack DC / whole plant', `${formatQuantity(e.stack_kWh_per_kg, 'kWh/kg')} / ${formatQuantity(e.system_kWh_per_kg, 'kWh/kg')}`, [
     ['Stack DC energy per kg of hydrogen', 'kWh/kg', e.stack_kWh_per_kg],
