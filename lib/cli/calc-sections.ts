@@ -96,6 +96,7 @@ export const CALC_SECTIONS: readonly CalcSection[] = [
   { name: 'sensitivity-efficiency', title: 'Sensitivity of the efficiency (chart data)', standard: false, table: chartTable('sensitivity-efficiency') },
   { name: 'sensitivity-heat', title: 'Sensitivity of the stack heat (chart data)', standard: false, table: chartTable('sensitivity-heat') },
   { name: 'energy-flow', title: "Where the fuel's energy goes (chart data)", standard: false, table: chartTable('energy-flow') },
+  { name: 'electrolysis-energy-flow', title: "Where the electrolysis plant's electricity and heat go (chart data)", standard: false, table: chartTable('electrolysis-energy-flow') },
   { name: 'cautions', title: 'Hazard cautions', standard: false, table: async ({ results }) => (await hazards()).cautionsTable(results.hazards) },
   { name: 'hazard-streams', title: 'Hazard indicators of the streams', standard: false, table: async ({ results }) => (await hazards()).hazardStreamTable(results.hazards.streams) },
   { name: 'substances', title: 'Hazard data of the substances', standard: false, table: async ({ results }) => (await hazards()).substancesTable(results.hazards.substances) },

@@ -208,3 +208,33 @@ describe("the figure of where the fuel's energy goes", () => {
     expect(figures(scaffoldCase('pem', 'electrolysis').results).some((x) => x.id === 'fig-energy-flow')).toBe(false);
   });
 });
+
+describe("the figure of where an electrolysis plant's electricity and heat go", () => {
+  it('stacks the products on LHV and HHV, compression, balance of plant, stack heat, coolers, losses and the remainder to the plant input', () => {
+    const text = readFileSync(join(PACKAGE_ROOT, 'projects', 'kestrelford-pem-electrolyser', 'basis.yaml'), 'utf8');
+    const loaded = loadBasisText(text, 'projects/kestrelford-pem-electrolyser/basis.yaml', 'kestrelford-pem-electrolyser');
+    if (!loaded.ok) throw new Error('the demo basis is invalid');
+    const r = calculate(loaded.basis);
+    const x = r.plant.electrolysis!;
+    const f = drawn(figures(r)).find((d) => d.id === 'fig-electrolysis-energy-flow')!;
+    const spec = JSON.parse(f.spec.html) as Extract<ChartSpec, { kind: 'stacked' }>;
+    const share = (label: string) => spec.parts.find((p) => p.label === label)!.values[0]! / 100;
+    // The products' LHV share is the plant's LHV efficiency (its heat comes electrically here).
+    expect(x.heatSupply).toBe('electric');
+    expect(share('products, LHV')).toBeCloseTo(x.specificEnergy.systemEfficiencyLhv, 12);
+    // HHV/LHV of hydrogen: 285.83/241.83 kJ/mol at 25 °C (NIST-JANAF formation enthalpies of liquid
+    // and gaseous water, from memory), so HHV − LHV is 0.182 of the LHV (3 digits: the species data
+    // agree with the tables to better than 0.05 %).
+    expect(share('products, HHV − LHV') / share('products, LHV')).toBeCloseTo(0.182, 3);
+    expect(share('compression')).toBeCloseTo(x.specificEnergy.compressor_W / x.specificEnergy.totalElectric_W, 12);
+    expect(share('stack heat removed')).toBeCloseTo(x.stackHeatRemoved_W / x.specificEnergy.totalElectric_W, 12);
+    // The parts add up to the input by construction, and the remainder (sensible heat out) is a real share.
+    expect(spec.parts.reduce((a, p) => a + p.values[0]!, 0)).toBeCloseTo(100, 9);
+    for (const p of spec.parts) expect(p.values[0]!).toBeGreaterThanOrEqual(0);
+    expect(csvOf(f).length).toBe(spec.parts.length + 1);
+  });
+
+  it('is not drawn in power mode, whose figure is the fuel\'s', () => {
+    expect(figures(scaffoldCase('solid-oxide', 'power').results).some((d) => d.id === 'fig-electrolysis-energy-flow')).toBe(false);
+  });
+});

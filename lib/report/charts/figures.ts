@@ -5,7 +5,7 @@
  * cell with its hot spot, carbon activity against steam-to-carbon ratio (or a statement where the
  * fuel has no carbon), polarisation, heat and power against current density, the stack at other
  * temperatures, the operating cases on their curves, and a tornado per headline result of the
- * sensitivity study, and where the fuel's energy goes in a plant with its balance.
+ * sensitivity study, and where the fuel's energy (power) or the input's (electrolysis) goes in a plant with its balance.
  */
 import type { Results } from '../../plant/results-schema.ts';
 import { formatNumber, formatPercent } from '../format.ts';
@@ -527,6 +527,56 @@ function energyFlow(r: Results): Draft | null {
   };
 }
 
+/**
+ * Where an electrolysis plant's input goes, as shares of it (with the plant balance): the input
+ * I = P_AC + Q_el + P_comp + Q_ext (the electricity the plant takes and any heat from outside) is
+ * split into the chemical energy of the products on LHV, the HHV − LHV of the same (the
+ * condensation heat of the water they would form), the compressor work (it leaves as heat in
+ * its intercoolers and after-cooler), the rectifier's loss, the balance-of-plant load, the stack
+ * heat its cooling removes, the other coolers (the water loop, the product cooler), the heat lost
+ * to ambient, and the remainder I − Σ of those: the sensible heat the products and condensate
+ * carry out above the feeds' (and the small difference between the compression coolers and the
+ * work). The parts add up to I by construction; the first law over the plant on absolute
+ * enthalpies is checked apart (plant.electrolysis.energyBalance).
+ */
+function electrolysisEnergyFlow(r: Results): Draft | null {
+  const x = r.plant.electrolysis;
+  const lhv = r.efficiency.productLhv_W;
+  const hhv = r.efficiency.productHhv_W;
+  if (!x || lhv === null || hhv === null) return null;
+  const e = x.specificEnergy;
+  const external = x.heatSupply === 'external' ? x.heatSupplied_W : 0;
+  const input = e.totalElectric_W + external;
+  const compressionCoolers = x.compression ? x.compression.intercoolers_W + x.compression.aftercooler_W : 0;
+  const named: { label: string; name: string; value: number }[] = [
+    { label: 'products, LHV', name: 'Chemical energy of the products, LHV', value: lhv },
+    { label: 'products, HHV − LHV', name: 'Chemical energy of the products, HHV less LHV', value: hhv - lhv },
+    ...(e.compressor_W ? [{ label: 'compression', name: 'Hydrogen compressor work', value: e.compressor_W }] : []),
+    ...(e.conversionLoss_W ? [{ label: 'rectifier loss', name: 'Rectifier loss', value: e.conversionLoss_W }] : []),
+    ...(e.parasitic_W ? [{ label: 'balance of plant', name: 'Balance-of-plant load', value: e.parasitic_W }] : []),
+    ...(x.stackHeatRemoved_W ? [{ label: 'stack heat removed', name: "Stack heat removed by the stack's cooling", value: x.stackHeatRemoved_W }] : []),
+    ...(x.coolers_W - compressionCoolers ? [{ label: 'water loop and product coolers', name: 'Heat removed by the water loop and product coolers', value: x.coolers_W - compressionCoolers }] : []),
+    ...(x.heatLoss_W ? [{ label: 'lost to ambient', name: 'Heat lost to ambient', value: x.heatLoss_W }] : []),
+  ];
+  const parts = [
+    ...named,
+    { label: 'sensible heat of the products', name: 'Remainder: sensible heat the products carry out above the feeds', value: input - named.reduce((a, p) => a + p.value, 0) },
+  ];
+  const over = external ? 'the electricity and the heat from outside' : 'the electricity';
+  return {
+    id: 'fig-electrolysis-energy-flow',
+    title: "Where the plant's electricity and heat go",
+    caption: `Shares of the plant's input (${over}): the chemical energy of the products on LHV and the HHV − LHV of the same, the compressor work, what the rectifier and the balance of plant take, the stack heat its cooling removes, the other coolers, the heat lost to ambient, and the remainder, the sensible heat the products carry out above the feeds'.`,
+    spec: { kind: 'stacked', x: { title: `Share of the plant input (%)`, min: 0, max: 100, step: 10 }, categories: ['plant input'], parts: parts.map((p) => ({ label: p.label, values: [(p.value / input) * 100] })) },
+    data: chartData('electrolysis-energy-flow', [
+      { head: 'where it goes', shown: parts.map((p) => p.label), data: { name: 'Where it goes', unit: '', values: parts.map((p) => p.name) } },
+      column('power (kW)', 'Power', 'W', parts.map((p) => p.value), kilo),
+      column('share of the plant input (%)', 'Share of the plant input', '', parts.map((p) => p.value / input), percent),
+    ]),
+    notes: [],
+  };
+}
+
 export function figures(r: Results): Figure[] {
   const stack = stackAgainstTemperature(r);
   const drafts: Draft[] = [
@@ -543,7 +593,7 @@ export function figures(r: Results): Figure[] {
   const cases = casesCurves(r);
   if (cases) drafts.push(cases);
   if (r.sensitivities.length) drafts.push(tornado(r, 'cellVoltage_V'), tornado(r, 'efficiency'), tornado(r, 'stackHeat_W'));
-  const energy = energyFlow(r);
+  const energy = energyFlow(r) ?? electrolysisEnergyFlow(r);
   if (energy) drafts.push(energy);
   return drafts.map((d, i): Figure => {
     if ('kind' in d && d.kind === 'statement') return { ...d, number: i + 1 };
