@@ -8,6 +8,7 @@
  * after-cooled to the intercooling temperature. The whole dry product is compressed, including any
  * hydrogen fed with the steam.
  */
+import { ZERO_CELSIUS_K } from '../core/units.ts';
 import { CalculationError } from '../core/errors.ts';
 import type { CompressionInput, PlantInput } from '../basis/types.ts';
 import { compressGas } from '../flowsheet/compression.ts';
@@ -43,7 +44,7 @@ export function stageCount(stages: CompressionInput['stages'], overallRatio: num
 /** The product cooled to the compressor inlet, its water condensed, the rest dried off. */
 function productCooling(product: Record<string, number>, fromK: number, c: NonNullable<PlantInput['hydrogenCompression']>, pFuel: number, sheet: PlantSheet) {
   if (!(c.inletTemperatureK < fromK)) {
-    throw new CalculationError(`the compressor inlet temperature (${(c.inletTemperatureK - 273.15).toFixed(1)} °C) must lie below the temperature the product gas comes at (${(fromK - 273.15).toFixed(1)} °C, the stack's or after the recuperator): it is cooled to it`, 'compressor-inlet-temperature');
+    throw new CalculationError(`the compressor inlet temperature (${(c.inletTemperatureK - ZERO_CELSIUS_K).toFixed(1)} °C) must lie below the temperature the product gas comes at (${(fromK - ZERO_CELSIUS_K).toFixed(1)} °C, the stack's or after the recuperator): it is cooled to it`, 'compressor-inlet-temperature');
   }
   const cooled = exhaustHeatRecovery({ flowsMolPerS: product, inletTemperatureK: fromK, exitTemperatureK: c.inletTemperatureK, pressureBar: pFuel });
   const condensate = cooled.condensedWaterMolPerS;

@@ -6,6 +6,7 @@
  * fresh air, the air-electrode exhaust joins the products ahead of the heat recovery (adiabatic
  * mixing, no reaction): H_mix(T) = H_products(T_ad) + H_exhaust(T_exh).
  */
+import { ZERO_CELSIUS_K } from '../core/units.ts';
 import { mixtureEnthalpyJ } from '../thermo/mixture.ts';
 import { temperatureAtEnthalpyK } from '../thermo/mixture-temperature.ts';
 import { adiabaticEquilibrium } from '../equilibrium/adiabatic.ts';
@@ -38,7 +39,7 @@ function oxidiserFindings(oxidiser: NonNullable<PowerPlantBalance['oxidiser']>, 
         'oxidiser-above-material-limit',
         'critical',
         'plant.off-gas-oxidiser.material-limit',
-        `the oxidiser's adiabatic outlet temperature ${(oxidiser.outletTemperatureK - 273.15).toFixed(0)} °C exceeds its material limit ${(oxidiser.materialLimitK - 273.15).toFixed(0)} °C`,
+        `the oxidiser's adiabatic outlet temperature ${(oxidiser.outletTemperatureK - ZERO_CELSIUS_K).toFixed(0)} °C exceeds its material limit ${(oxidiser.materialLimitK - ZERO_CELSIUS_K).toFixed(0)} °C`,
         ['operating-point.fuel-utilization', 'plant.off-gas-oxidiser.oxidant'],
       ),
     );

@@ -63,6 +63,22 @@ function dutiesResult(duties: PowerPlantBalance['duties']): NonNullable<PlantRes
   return duties.map((d) => ({ id: d.id, name: d.name, duty_W: d.dutyW, from_K: d.fromK, to_K: d.toK }));
 }
 
+/** The off-gas oxidiser, for the results. */
+function oxidiserResult(o: NonNullable<PowerPlantBalance['oxidiser']>): NonNullable<NonNullable<PlantResults['power']>['oxidiser']> {
+  return {
+    oxidant: o.oxidant,
+    airRatio: o.airRatio,
+    freshAir_mol_per_s: o.freshAirMolPerS,
+    outletTemperature_K: o.outletTemperatureK,
+    materialLimit_K: o.materialLimitK,
+    pressure_bar: o.pressureBar,
+    moleFractions: o.moleFractions,
+    carbonMonoxide_ppm: o.carbonMonoxidePpm,
+    heatReleased_W: o.heatReleasedW,
+    energyBalanceError: o.energyBalanceError,
+  };
+}
+
 /** The power plant's balance, for the results. */
 function powerResult(q: PowerPlantBalance): NonNullable<PlantResults['power']> {
   return {
@@ -92,18 +108,7 @@ function powerResult(q: PowerPlantBalance): NonNullable<PlantResults['power']> {
     stackHeat_W: q.stackHeatW,
     stackHeatTo: q.stackHeatTo,
     airExhaustTemperature_K: q.airExhaustTemperatureK,
-    oxidiser: q.oxidiser && {
-      oxidant: q.oxidiser.oxidant,
-      airRatio: q.oxidiser.airRatio,
-      freshAir_mol_per_s: q.oxidiser.freshAirMolPerS,
-      outletTemperature_K: q.oxidiser.outletTemperatureK,
-      materialLimit_K: q.oxidiser.materialLimitK,
-      pressure_bar: q.oxidiser.pressureBar,
-      moleFractions: q.oxidiser.moleFractions,
-      carbonMonoxide_ppm: q.oxidiser.carbonMonoxidePpm,
-      heatReleased_W: q.oxidiser.heatReleasedW,
-      energyBalanceError: q.oxidiser.energyBalanceError,
-    },
+    oxidiser: q.oxidiser && oxidiserResult(q.oxidiser),
     heatRecovery: q.heatRecovery && {
       inletTemperature_K: q.heatRecovery.inletTemperatureK,
       exitTemperature_K: q.heatRecovery.exitTemperatureK,

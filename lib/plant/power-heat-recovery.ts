@@ -8,6 +8,7 @@
  *    power-to-heat ratio P_net/Q_delivered (e.g. Larminie & Dicks, 2nd ed., §2.5 and ch. 9 for
  *    the definitions).
  */
+import { ZERO_CELSIUS_K } from '../core/units.ts';
 import { CalculationError } from '../core/errors.ts';
 import type { PlantInput } from '../basis/types.ts';
 import { exhaustHeatRecovery } from '../flowsheet/heat-recovery.ts';
@@ -44,7 +45,7 @@ function heatRecoveryFindings(plant: PlantInput, exhaust: OxidiserExhaust, recov
         'exhaust-too-cold-for-preheat',
         'warning',
         'plant.heat-recovery.minimum-approach',
-        `the oxidiser's exhaust (${(exhaust.temperatureK - 273.15).toFixed(0)} °C) is not ${hr.minimumApproachK} K hotter than the hottest feed it must heat (${(claims.hottestFeedK - 273.15).toFixed(0)} °C): the preheat needs another heat source`,
+        `the oxidiser's exhaust (${(exhaust.temperatureK - ZERO_CELSIUS_K).toFixed(0)} °C) is not ${hr.minimumApproachK} K hotter than the hottest feed it must heat (${(claims.hottestFeedK - ZERO_CELSIUS_K).toFixed(0)} °C): the preheat needs another heat source`,
         ['conditions.fuel-inlet-temperature', 'conditions.air-inlet-temperature'],
       ),
     );

@@ -103,6 +103,33 @@ function nernst(step: Step, r: Results): void {
   if (r.fuelPath.nernstForm === 'oxygen-potential') oxygenPotential(step, r);
 }
 
+/** The electrolysis plant's method: steam raising or the water loop, the recuperator, the feed and stack heat, compression and the specific energy. */
+function electrolysisPlant(step: Step, x: NonNullable<Results['plant']['electrolysis']>): void {
+  if (x.steam.length) {
+    step
+      .text(
+        'Every duty is the change of the absolute enthalpy flow $\\sum_i \\dot n_i h^\\circ_i(T)$ of its stream (heats of formation included, species data). The water fed as steam is heated from the feed-water temperature $T_\\mathrm{w}$ to its saturation temperature $T_\\mathrm{s}$ at the electrode pressure (IAPWS-IF97 region 4), evaporated with the latent heat of the species data, and superheated to the electrode inlet temperature $T_\\mathrm{in}$:',
+      )
+      .eq('steam-raising');
+  } else {
+    step.text(
+      'Every duty is the change of the absolute enthalpy flow $\\sum_i \\dot n_i h^\\circ_i(T)$ of its stream (heats of formation included, species data). The liquid water the stack does not split returns to its inlet through the loop cooler; the make-up (the water split and the vapour the gases carry off) is heated from the feed-water temperature to the inlet temperature.',
+    );
+  }
+  if (x.recuperator) {
+    step
+      .text(
+        "A counter-flow recuperator lets the stack's hot outlets (the hydrogen product and the oxygen side, leaving it at one temperature $T_\\mathrm{ho}$) heat the steam after the evaporator and the gases fed from outside towards the inlet temperature; its heaters supply only the rest. Its duty is the largest that keeps the hot side at least the minimum approach $\\Delta T_\\mathrm{min}$ above the cold side everywhere along the composite curves of the two sides (absolute enthalpies of the species data; checked at the feeds' inlet and target temperatures and between), capped where every feed reaches its inlet temperature or the hot side its dew point (no water condenses in it):",
+      )
+      .eq('recuperator-duty');
+  }
+  step
+    .text(
+      `Gases fed with the steam and the sweep gas are heated from their supply temperature to the inlet temperature${x.recuperator ? ' (through the recuperator)' : '; no heat is recovered from the products to the feeds'}. The heat the stack needs below thermoneutral and the losses to ambient are supplied, like the feed heat, by electric heaters or from outside, as the basis says. Where hydrogen is compressed, the product is cooled and dried and compressed in $N$ intercooled stages of equal pressure ratio, each adiabatic with the stated isentropic efficiency, the gas ideal with the species data's $c_p(T)$ (Çengel and Boles, Thermodynamics, ch. 7). The system's specific energy counts every electricity the plant takes: the rectifier's AC input with the balance of plant $P_\\mathrm{AC}$, electric heat $Q_\\mathrm{el}$ and the compressor:`,
+    )
+    .eq('electrolysis-plant-energy');
+}
+
 /** The Nernst equation of a fuel gas without hydrogen, from the ion's couple across the electrolyte. */
 function oxygenPotential(step: Step, r: Results): void {
   const reactions = electrodeReactions(r.technology.ion);
@@ -313,29 +340,7 @@ function plant(step: Step, r: Results): void {
   }
   const x = r.plant.electrolysis;
   if (x) {
-    if (x.steam.length) {
-      step
-        .text(
-          'Every duty is the change of the absolute enthalpy flow $\\sum_i \\dot n_i h^\\circ_i(T)$ of its stream (heats of formation included, species data). The water fed as steam is heated from the feed-water temperature $T_\\mathrm{w}$ to its saturation temperature $T_\\mathrm{s}$ at the electrode pressure (IAPWS-IF97 region 4), evaporated with the latent heat of the species data, and superheated to the electrode inlet temperature $T_\\mathrm{in}$:',
-        )
-        .eq('steam-raising');
-    } else {
-      step.text(
-        'Every duty is the change of the absolute enthalpy flow $\\sum_i \\dot n_i h^\\circ_i(T)$ of its stream (heats of formation included, species data). The liquid water the stack does not split returns to its inlet through the loop cooler; the make-up (the water split and the vapour the gases carry off) is heated from the feed-water temperature to the inlet temperature.',
-      );
-    }
-    if (x.recuperator) {
-      step
-        .text(
-          "A counter-flow recuperator lets the stack's hot outlets (the hydrogen product and the oxygen side, leaving it at one temperature $T_\\mathrm{ho}$) heat the steam after the evaporator and the gases fed from outside towards the inlet temperature; its heaters supply only the rest. Its duty is the largest that keeps the hot side at least the minimum approach $\\Delta T_\\mathrm{min}$ above the cold side everywhere along the composite curves of the two sides (absolute enthalpies of the species data; checked at the feeds' inlet and target temperatures and between), capped where every feed reaches its inlet temperature or the hot side its dew point (no water condenses in it):",
-        )
-        .eq('recuperator-duty');
-    }
-    step
-      .text(
-        `Gases fed with the steam and the sweep gas are heated from their supply temperature to the inlet temperature${x.recuperator ? ' (through the recuperator)' : '; no heat is recovered from the products to the feeds'}. The heat the stack needs below thermoneutral and the losses to ambient are supplied, like the feed heat, by electric heaters or from outside, as the basis says. Where hydrogen is compressed, the product is cooled and dried and compressed in $N$ intercooled stages of equal pressure ratio, each adiabatic with the stated isentropic efficiency, the gas ideal with the species data's $c_p(T)$ (Çengel and Boles, Thermodynamics, ch. 7). The system's specific energy counts every electricity the plant takes: the rectifier's AC input with the balance of plant $P_\\mathrm{AC}$, electric heat $Q_\\mathrm{el}$ and the compressor:`,
-      )
-      .eq('electrolysis-plant-energy');
+    electrolysisPlant(step, x);
     return;
   }
   if (!r.plant.power) return;
