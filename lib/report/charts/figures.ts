@@ -17,8 +17,8 @@ import { speciesText } from '../species-text.ts';
 import { ZERO_CELSIUS_K } from '../../core/units.ts';
 import { hotSpot } from '../local-current.ts';
 
-export const CHART_WIDTH = 640;
-export const CHART_HEIGHT = 300;
+const CHART_WIDTH = 640;
+const CHART_HEIGHT = 300;
 
 export interface DrawnFigure {
   kind: 'chart';
@@ -79,7 +79,6 @@ function temperatureAxis(r: Results): Axis {
 
 function voltagesAgainstTemperature(r: Results): Draft {
   const s = r.sweeps.temperature;
-  const t = s.map((p) => C(p.temperature_K));
   const fuel = s.some((p) => p.fuelReversibleVoltage_V !== null);
   const series: LineSeries[] = [
     { label: 'reversible voltage E° (H₂)', points: s.map((p) => [C(p.temperature_K), p.reversibleVoltage_V]), style: 0 },
