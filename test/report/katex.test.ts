@@ -2,7 +2,8 @@
 // rendering), untrusted commands are refused, and an expression is rendered once however many
 // pages use it.
 import { describe, expect, it } from 'vitest';
-import { renderTex, texCacheStats } from '../../lib/report/katex-render.ts';
+import katex from 'katex';
+import { katexOptions, renderTex, texCacheStats } from '../../lib/report/katex-render.ts';
 import { EquationBook } from '../../lib/report/equation-book.ts';
 import { methodSection } from '../../lib/report/method.ts';
 import { documentView } from '../../lib/report/document.ts';
@@ -19,7 +20,7 @@ describe('renderTex', () => {
     expect(() => renderTex('\\htmlClass{x}{y}')).toThrow(/KaTeX cannot render/);
   });
   it('renders an expression once and serves it from the cache after that', () => {
-    const tex = `E = ${Math.PI.toFixed(9)}`;
+    const tex = '\\frac{\\pi}{\\sqrt{e}}\\,\\mathrm{cached}';
     const before = texCacheStats().renders;
     const first = renderTex(tex, true);
     const second = renderTex(tex, true);
@@ -27,6 +28,14 @@ describe('renderTex', () => {
     expect(texCacheStats().renders).toBe(before + 1);
     renderTex(tex, false);
     expect(texCacheStats().renders).toBe(before + 2);
+  });
+  it('renders an expression of a structure already learnt without KaTeX, as KaTeX would', () => {
+    const first = renderTex(`E = ${Math.PI.toFixed(9)}\\,\\mathrm{V}`, true);
+    const after = texCacheStats().renders;
+    const second = renderTex(`E = ${Math.E.toFixed(9)}\\,\\mathrm{V}`, true);
+    expect(texCacheStats().renders).toBe(after);
+    expect(first.html).toContain('3.141592654');
+    expect(second.html).toBe(katex.renderToString(`E = ${Math.E.toFixed(9)}\\,\\mathrm{V}`, katexOptions(true)));
   });
   it('writes species labels as formulas and refuses anything else', () => {
     expect(texSpecies('CH4')).toBe('\\mathrm{CH_{4}}');
