@@ -1,7 +1,8 @@
 /**
  * Site benchmarks on synthetic projects: the full HTML build (cold: empty caches; warm: results
- * from the cache), a bare Eleventy site of the same number of trivial pages built in the same run
- * (the yardstick of the 1.5× target), PDF printing per document (one browser, and two side by
+ * from the cache, also per document in wall and processor time, target ≤ 8 ms), a bare Eleventy
+ * site of the same number of trivial pages built in the same run (the yardstick of the 1.5×
+ * target), Eleventy writing the very pages the build wrote (the floor, target ≤ 3×), PDF printing per document (one browser, and two side by
  * side as the build prints), the time from saving a changed basis to its rebuilt page under `cellbasis serve`,
  * and the peak memory (RSS) of a full build, measured in a child process.
  */
@@ -158,10 +159,16 @@ export async function benchSite(counts: number[]): Promise<Row[]> {
     try {
       const ids = writeSyntheticProjects(root, n);
       const cold = await timed(() => buildSite({ root, pdf: false }));
+      // Processor time of this process (all its threads) beside the wall time: on a shared machine the wall time says little.
+      const cpu0 = process.cpuUsage();
       const warm = await timed(() => buildSite({ root, pdf: false }));
+      const cpu = process.cpuUsage(cpu0);
+      const warmCpu = (cpu.user + cpu.system) / 1000;
       const bare = await bareEleventy(n);
       rows.push({ section, measure: 'full HTML build, cold (calculation included)', value: seconds(cold) });
       rows.push({ section, measure: 'full HTML build, results cached', value: seconds(warm) });
+      const perDocument = warm / n;
+      rows.push({ section, measure: 'results cached: per document, wall (processor time)', value: `${perDocument.toFixed(1)} ms (${(warmCpu / n).toFixed(1)} ms)`, target: '≤ 8 ms', verdict: perDocument <= 8 ? 'met' : 'MISSED' });
       rows.push({ section, measure: `bare Eleventy, ${n} trivial pages`, value: seconds(bare) });
       // The target is stated for the full build; both ratios are shown, the cold one with the calculation in it.
       const coldRatio = cold / bare;
