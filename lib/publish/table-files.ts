@@ -12,11 +12,11 @@ import { mkdirSync, renameSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import type { DocumentView } from '../report/document.ts';
 import { tableCsv } from '../report/table.ts';
-import { tableFilePath, tablesOf } from '../report/table-links.ts';
+import { linkedTables, tableFilePath } from '../report/table-links.ts';
 
 /** The CSV files a page links: site path and text, for every table linked to a file. */
 function tableFiles(view: DocumentView): { path: string; text: string }[] {
-  return tablesOf(view)
+  return linkedTables(view)
     .filter((t) => t.csv !== undefined && !t.csv.href.startsWith('data:'))
     .map((t) => ({ path: tableFilePath(view.pagePath, t), text: tableCsv(t) }));
 }

@@ -59,12 +59,21 @@ export function tableFilePath(pagePath: string, t: Table): string {
   return `${folder}${TABLE_FOLDER}/${t.name}.csv`;
 }
 
+/** The tables linkTables found in each view, so that the site writing their files need not walk the view again. */
+const linked = new WeakMap<object, Table[]>();
+
+/** Every table of a view model whose tables were linked (linkTables), else found now (tablesOf). */
+export function linkedTables(view: object): Table[] {
+  return linked.get(view) ?? tablesOf(view);
+}
+
 /**
  * Gives every table of `view` its CSV link; `download` is the name a browser saves it under,
  * `<prefix>-<name>.csv`. Returns the tables.
  */
 export function linkTables(view: object, mode: TableLinks, prefix: string): Table[] {
   const tables = tablesOf(view);
+  linked.set(view, tables);
   for (const t of tables) {
     t.csv = {
       href: mode === 'files' ? `${TABLE_FOLDER}/${t.name}.csv` : `data:text/csv;charset=utf-8,${encodeURIComponent(tableCsv(t))}`,
