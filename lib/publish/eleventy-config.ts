@@ -97,7 +97,8 @@ export default function configureSite(eleventyConfig: EleventyConfig): void {
     if (outputMode === 'fs') claimSiteFolder(resolve(directories.output), 'eleventy', relative(process.cwd(), resolve(directories.output)) || '.');
   });
   eleventyConfig.addGlobalData('cellbasis', siteData);
-  for (const asset of siteAssets()) eleventyConfig.addPassthroughCopy({ [asset.from]: `${ASSET_DIR}/${asset.to}` });
+  // A build of many pages runs Eleventy once per group of pages: the assets (some 60 files) are copied in its first run only.
+  if (context.model?.writesIndex !== false) for (const asset of siteAssets()) eleventyConfig.addPassthroughCopy({ [asset.from]: `${ASSET_DIR}/${asset.to}` });
   for (const [from, to] of Object.entries(issuedCopies(context.root, context.model))) eleventyConfig.addPassthroughCopy({ [from]: to });
   eleventyConfig.addWatchTarget(join(context.root, 'projects', '**', '*.yaml'));
   eleventyConfig.addWatchTarget(join(context.root, 'projects', '**', '*.json'));
