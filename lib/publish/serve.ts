@@ -44,9 +44,9 @@ import { claimSiteFolder } from './site-marker.ts';
 import { writeTableFiles } from './table-files.ts';
 import { watchTree, type TreeWatch } from './folder-watch.ts';
 
-export const DEFAULT_HOST = '127.0.0.1';
+const DEFAULT_HOST = '127.0.0.1';
 /** How many ports after the one asked for are tried when it is taken. */
-export const PORT_TRIES = 10;
+const PORT_TRIES = 10;
 
 export interface ServeOptions {
   root: string;
