@@ -55,7 +55,7 @@ import { setBuildContext } from './build-context.ts';
 import { notOursError, removeOwnFolder, siteFolderProblem, SYMBOLIC_LINK, writeSiteMarker } from './site-marker.ts';
 import { createEleventy } from './eleventy-api.ts';
 import { ELEVENTY_CONFIG, TEMPLATES_DIR } from './paths.ts';
-import { loadSiteModel, type SiteOptions } from './site-model.ts';
+import { loadSiteModel, type SiteModel, type SiteOptions } from './site-model.ts';
 
 /** Document pages rendered by one Eleventy run (the first run also writes the index, the register pages and the issued copies). */
 const PAGES_PER_RUN = 25;
@@ -277,6 +277,61 @@ function checkOutput(root: string, out: string): void {
 }
 
 /**
+ * Renders the model's pages into `fresh`, PAGES_PER_RUN a run of Eleventy: Eleventy keeps every
+ * page it renders until its run ends, so a run per PAGES_PER_RUN pages bounds the memory of a
+ * large site (500 documents of about 0.7 MB each). Progress counts each page as its view model is
+ * made, just before Nunjucks renders it. Every page must then be on disk.
+ */
+async function renderPages(root: string, fresh: string, model: SiteModel, options: BuildOptions): Promise<void> {
+  // Progress counts each page as its view model is made, just before Nunjucks renders it.
+  let viewed = 0;
+  const counted = model.pages.map((page) => ({
+    ...page,
+    view: () => {
+      const view = page.view();
+      viewed = Math.min(viewed + 1, model.pages.length);
+      options.onProgress?.('render', viewed, model.pages.length);
+      return view;
+    },
+  }));
+  for (let start = 0; start === 0 || start < model.pages.length; start += PAGES_PER_RUN) {
+    // The issued revisions' register pages and the files copied as issued go with the first run.
+    const first = start === 0;
+    setBuildContext({
+      root,
+      output: fresh,
+      mode: 'build',
+      model: { ...model, pages: counted.slice(start, start + PAGES_PER_RUN), revisionPages: first ? model.revisionPages : [], copies: first ? model.copies : [], writesIndex: first },
+    });
+    await runEleventy(fresh);
+    collectGarbage();
+  }
+  if (viewed < model.pages.length || model.pages.length === 0) options.onProgress?.('render', model.pages.length, model.pages.length);
+  for (const page of [...model.pages.map((p) => p.pagePath), ...model.revisionPages.map((p) => p.pagePath), ...model.copies.map((c) => c.to), 'index.html']) {
+    if (!existsSync(join(fresh, page))) throw new UserError(`the build did not write ${page}`, EXIT_INTERNAL);
+  }
+}
+
+/**
+ * Moves the complete build into place at `out`: renamed complete, linked, and the link renamed
+ * over `out` (a folder already there moved aside first), each step a pause point of the tests.
+ */
+async function swapIntoPlace(root: string, out: string, names: ReturnType<typeof buildNames>, options: BuildOptions): Promise<void> {
+  renameSync(names.fresh, names.complete);
+  await pause(options, 'completed');
+  symlinkSync(basename(names.complete), names.link, 'dir');
+  await pause(options, 'linked');
+  // What stands at `out` may have changed while the build ran.
+  checkReplaceable(root, out);
+  const existing = lstatSync(out, { throwIfNoEntry: false });
+  if (existing && !existing.isSymbolicLink()) {
+    renameSync(out, names.aside);
+    await pause(options, 'moved-aside');
+  }
+  renameSync(names.link, out);
+}
+
+/**
  * Every project's results calculated (in worker threads when there are many) into the results
  * cache, where the pages read them as they are rendered; the failures, by project id.
  */
@@ -321,50 +376,11 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
   try {
     writeSiteMarker(fresh);
     await pause(options, 'temp-created');
-    // Eleventy keeps every page it renders until its run ends; a run per PAGES_PER_RUN pages
-    // bounds the memory of a large site (500 documents of about 0.7 MB each).
-    // Progress counts each page as its view model is made, just before Nunjucks renders it.
-    let viewed = 0;
-    const counted = model.pages.map((page) => ({
-      ...page,
-      view: () => {
-        const view = page.view();
-        viewed = Math.min(viewed + 1, model.pages.length);
-        options.onProgress?.('render', viewed, model.pages.length);
-        return view;
-      },
-    }));
-    for (let start = 0; start === 0 || start < model.pages.length; start += PAGES_PER_RUN) {
-      // The issued revisions' register pages and the files copied as issued go with the first run.
-      const first = start === 0;
-      setBuildContext({
-        root,
-        output: fresh,
-        mode: 'build',
-        model: { ...model, pages: counted.slice(start, start + PAGES_PER_RUN), revisionPages: first ? model.revisionPages : [], copies: first ? model.copies : [], writesIndex: first },
-      });
-      await runEleventy(fresh);
-      collectGarbage();
-    }
-    if (viewed < model.pages.length || model.pages.length === 0) options.onProgress?.('render', model.pages.length, model.pages.length);
-    for (const page of [...model.pages.map((p) => p.pagePath), ...model.revisionPages.map((p) => p.pagePath), ...model.copies.map((c) => c.to), 'index.html']) {
-      if (!existsSync(join(fresh, page))) throw new UserError(`the build did not write ${page}`, EXIT_INTERNAL);
-    }
+    await renderPages(root, fresh, model, options);
     await pause(options, 'rendered');
     if (printing) await printDrafts(root, fresh, model.drafts, (done, total) => options.onProgress?.('print', done, total));
     await pause(options, 'printed');
-    renameSync(fresh, names.complete);
-    await pause(options, 'completed');
-    symlinkSync(basename(names.complete), names.link, 'dir');
-    await pause(options, 'linked');
-    // What stands at `out` may have changed while the build ran.
-    checkReplaceable(root, out);
-    const existing = lstatSync(out, { throwIfNoEntry: false });
-    if (existing && !existing.isSymbolicLink()) {
-      renameSync(out, names.aside);
-      await pause(options, 'moved-aside');
-    }
-    renameSync(names.link, out);
+    await swapIntoPlace(root, out, names, options);
   } catch (error) {
     for (const path of [fresh, names.complete, names.link]) rmSync(path, { recursive: true, force: true });
     if (existsSync(names.aside) && !lstatSync(out, { throwIfNoEntry: false })) renameSync(names.aside, out);

@@ -245,6 +245,21 @@ export async function serveSite(options: ServeOptions): Promise<RunningServer> {
   claimSiteFolder(out, 'serve', relative(root, out) || '.');
   const site = new IncrementalSite(root, out);
   site.all();
+  const { dev, port } = await startDevServer(out, host, options.port);
+  const stopWatching = rebuildOnChange(root, site, dev);
+  return {
+    port,
+    host,
+    url: `http://${host.includes(':') ? `[${host}]` : host}:${port}/`,
+    async stop() {
+      stopWatching();
+      await dev.close();
+    },
+  };
+}
+
+/** Eleventy's dev server over `out` (static files and live reload), every request checked before it sees it; listening on `host`. */
+async function startDevServer(out: string, host: string, wanted: number): Promise<{ dev: DevServer; port: number }> {
   // Eleventy's dev server (a CommonJS package without type declarations): static files and live reload.
   const devServer = createRequire(import.meta.url)('@11ty/eleventy-dev-server') as { getServer(name: string, dir: string, options: Record<string, unknown>): DevServer };
   const dev = devServer.getServer('cellbasis', out, {
@@ -265,8 +280,14 @@ export async function serveSite(options: ServeOptions): Promise<RunningServer> {
       answer(res, 500, 'The server could not answer this request');
     }
   };
-  const port = await listen(dev, host, options.port);
+  return { dev, port: await listen(dev, host, wanted) };
+}
 
+/**
+ * Watches the projects and the templates and renders what changed: a changed project's pages and
+ * the index, or the whole site when a template changed; returns the function that stops watching.
+ */
+function rebuildOnChange(root: string, site: IncrementalSite, dev: DevServer): () => void {
   // Changes are collected for a short moment (an editor saves in several writes), then rendered.
   const pending = new Set<string>();
   let templates = false;
@@ -303,14 +324,8 @@ export async function serveSite(options: ServeOptions): Promise<RunningServer> {
       schedule();
     }),
   ];
-  return {
-    port,
-    host,
-    url: `http://${host.includes(':') ? `[${host}]` : host}:${port}/`,
-    async stop() {
-      for (const w of watchers) w.close();
-      if (timer) clearTimeout(timer);
-      await dev.close();
-    },
+  return () => {
+    for (const w of watchers) w.close();
+    if (timer) clearTimeout(timer);
   };
 }
