@@ -13,7 +13,7 @@ import { join, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { writeSyntheticProjects } from './synthetic.ts';
 import { createEleventy } from '../lib/publish/eleventy-api.ts';
-import { buildSite } from '../lib/publish/build.ts';
+import { buildSite, PAGES_PER_RUN } from '../lib/publish/build.ts';
 import { withPdfPrinter } from '../lib/publish/pdf.ts';
 import { findChromium } from '../lib/publish/chromium.ts';
 import { documentPdfMeta } from '../lib/report/pdf-meta.ts';
@@ -66,16 +66,22 @@ async function finishedPagesEleventy(site: string): Promise<{ ms: number; pages:
   const dir = mkdtempSync(join(tmpdir(), 'cellbasis-bench-floor-'));
   try {
     mkdirSync(join(dir, 'in'));
-    const pages = htmlPages(site).map((path) => ({ permalink: path.split(sep).join('/'), html: readFileSync(join(site, path), 'utf8') }));
-    writeFileSync(join(dir, 'in', 'pages.11tydata.json'), JSON.stringify({ pages }));
     writeFileSync(join(dir, 'in', 'pages.njk'), '---\npagination:\n  data: pages\n  size: 1\n  alias: page_\npermalink: "{{ page_.permalink }}"\n---\n{{ page_.html | safe }}');
     writeFileSync(join(dir, 'eleventy.config.mjs'), 'export default function () {}\n');
-    const eleventy = createEleventy(join(dir, 'in'), join(dir, 'out'), { configPath: join(dir, 'eleventy.config.mjs'), quietMode: true });
-    eleventy.disableLogger();
-    const ms = await timed(() => eleventy.write());
-    const sample = pages[0];
-    if (sample && readFileSync(join(dir, 'out', sample.permalink), 'utf8') !== sample.html) throw new Error(`the floor did not write ${sample.permalink} unchanged`);
-    return { ms, pages: pages.length };
+    // Run by run, PAGES_PER_RUN pages each, as the build renders them: all the pages of 2 000
+    // documents (about 1.4 GB) in one data file would not fit in a JavaScript string.
+    const paths = htmlPages(site).map((path) => path.split(sep).join('/'));
+    let ms = 0;
+    for (let start = 0; start < paths.length; start += PAGES_PER_RUN) {
+      const pages = paths.slice(start, start + PAGES_PER_RUN).map((permalink) => ({ permalink, html: readFileSync(join(site, permalink), 'utf8') }));
+      writeFileSync(join(dir, 'in', 'pages.11tydata.json'), JSON.stringify({ pages }));
+      const eleventy = createEleventy(join(dir, 'in'), join(dir, 'out'), { configPath: join(dir, 'eleventy.config.mjs'), quietMode: true });
+      eleventy.disableLogger();
+      ms += await timed(() => eleventy.write());
+      const sample = pages[0];
+      if (sample && readFileSync(join(dir, 'out', sample.permalink), 'utf8') !== sample.html) throw new Error(`the floor did not write ${sample.permalink} unchanged`);
+    }
+    return { ms, pages: paths.length };
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }
@@ -190,13 +196,14 @@ export async function benchSite(counts: number[]): Promise<Row[]> {
       }
       if (findChromium()) {
         const { one, two } = await pdfTimes(root, Math.min(n, 6));
-        rows.push({ section, measure: 'PDF per document, one browser reused', value: seconds(one), target: '≤ 1.5 s', verdict: one <= 1500 ? 'met' : 'MISSED' });
-        rows.push({ section, measure: `PDF per document, ${PRINT_LANES} Chromiums side by side (as the build prints)`, value: seconds(two), target: '≤ 1.5 s', verdict: two <= 1500 ? 'met' : 'MISSED' });
+        // Issue 23: 1.0 s a document with the build's lanes.
+        rows.push({ section, measure: 'PDF per document, one browser reused', value: seconds(one) });
+        rows.push({ section, measure: `PDF per document, ${PRINT_LANES} Chromiums side by side (as the build prints)`, value: seconds(two), target: '≤ 1.0 s', verdict: two <= 1000 ? 'met' : 'MISSED' });
       } else {
         rows.push({ section, measure: 'PDF per document', value: 'not measured: no Chromium' });
       }
       const latency = await watchLatency(root, ids[Math.floor(ids.length / 2)]!);
-      rows.push({ section, measure: 'saved basis to rebuilt page (cellbasis serve)', value: seconds(latency), target: '≤ 1 s', verdict: latency <= 1000 ? 'met' : 'MISSED' });
+      rows.push({ section, measure: 'saved basis to rebuilt page (cellbasis serve)', value: seconds(latency), target: '≤ 0.3 s', verdict: latency <= 300 ? 'met' : 'MISSED' });
     } finally {
       rmSync(root, { recursive: true, force: true });
     }

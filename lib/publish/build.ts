@@ -58,7 +58,7 @@ import { ELEVENTY_CONFIG, TEMPLATES_DIR } from './paths.ts';
 import { loadSiteModel, type SiteModel, type SiteOptions } from './site-model.ts';
 
 /** Document pages rendered by one Eleventy run (the first run also writes the index, the register pages and the issued copies). */
-const PAGES_PER_RUN = 25;
+export const PAGES_PER_RUN = 25;
 
 /**
  * A full garbage collection, between Eleventy runs. V8 sets the heap it lets grow before its
