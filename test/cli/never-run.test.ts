@@ -66,8 +66,9 @@ describe('nothing in a basis runs', () => {
     'cellbasis new refuses the id %j and writes nothing',
     async (id) => {
       const root = mkdtempSync(join(tmpdir(), 'cellbasis-new-hostile-'));
-      // /tmp/pwned as it was (whatever else on the machine may have put there): no command may make or touch it.
-      const pwned = () => lstatSync(join(tmpdir(), 'pwned'), { bigint: true, throwIfNoEntry: false })?.ctimeNs ?? null;
+      // /tmp/pwned and pwned in the temporary folder as they were (whatever else on the machine may
+      // have put there): no command may make or touch either.
+      const pwned = () => ['/tmp/pwned', join(tmpdir(), 'pwned')].map((path) => lstatSync(path, { bigint: true, throwIfNoEntry: false })?.ctimeNs ?? null).join(' ');
       const before = pwned();
       const r = await run(['new', id, '--technology', 'pem'], root);
       expect(r.code).toBe(2);
