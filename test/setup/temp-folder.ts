@@ -3,7 +3,7 @@
 // did not remove theirs, so each run of the suite left some ten thousand folders in the system's
 // temporary folder. os.tmpdir() reads TMPDIR at every call, and the commands the tests start
 // inherit it, so their folders go there too.
-import { mkdtempSync, rmSync } from 'node:fs';
+import { chmodSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll } from 'vitest';
@@ -12,6 +12,10 @@ import { afterAll } from 'vitest';
 const system = process.env.CELLBASIS_SYSTEM_TMPDIR ?? tmpdir();
 process.env.CELLBASIS_SYSTEM_TMPDIR = system;
 const own = mkdtempSync(join(system, 'cellbasis-test-'));
+// Open to everyone with the sticky bit, as the system's temporary folder is: the tests that run
+// commands as another user (issued-untouched.test.ts, as nobody) must reach the folders they make
+// in it, and those commands (tsx's cache among them) write temporary files of their own there.
+chmodSync(own, 0o1777);
 process.env.TMPDIR = own;
 
 afterAll(() => {
