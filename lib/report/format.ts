@@ -112,6 +112,15 @@ export function formatPower(watts: number, digits = 4): string {
   return Math.abs(watts) >= 1000 ? formatQuantity(watts / 1000, 'kW', digits) : formatQuantity(watts, 'W', digits);
 }
 
+/**
+ * The text with its first letter small, for a title continued after a lead ("Case rated: net
+ * power"); an acronym stays as it is ("DC bus voltage", "LHV efficiency").
+ */
+export function uncapitalised(text: string): string {
+  const second = text.charAt(1);
+  return second !== '' && second === second.toUpperCase() && second !== second.toLowerCase() ? text : text.charAt(0).toLowerCase() + text.slice(1);
+}
+
 /** The text with its first letter a capital, for a name that starts a table row ("Water feed (oxygen electrode)"). */
 export function capitalised(text: string): string {
   return text.charAt(0).toUpperCase() + text.slice(1);

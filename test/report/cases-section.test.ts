@@ -220,6 +220,25 @@ it('the load line of a target-power case carries the power-conversion efficiency
   // Without η the line would have stated (1 − f)/(η − f) = 1.056 times the target.
   expect((n.N! * n.j! * n.A! * n.V! * (1 - 0.06)) / 1000).toBeGreaterThan(63);
   expect(String(line.math)).toContain('0.95');
+  expect(line.quantities.find((q) => q.origin.startsWith('power-conversion efficiency'))!.origin).toBe('power-conversion efficiency (inverter), design input');
+});
+
+it('says where η comes from when the basis leaves it out: the CHP demo counts its inverter loss in the 6 % parasitic load (assumption A4), so η is 1 by default, not a design input', () => {
+  const { basis, results } = demo('thistlemere-sofc-chp');
+  expect(basis.inputs.some((i) => i.path === 'operating-point.power-conversion-efficiency')).toBe(false);
+  const view = documentView({ basis, results, revision: draft, history: [] }, { assetBase: './', checks: [] });
+  const lines = [...view.cases.lines.flatMap((g) => g.lines), ...view.results.groups.flatMap((g) => g.lines)];
+  const etas = lines.flatMap((l) => l.quantities.filter((q) => q.origin.startsWith('power-conversion efficiency')));
+  expect(etas.length).toBeGreaterThan(0);
+  for (const q of etas) expect(q.origin).toBe('power-conversion efficiency (inverter): not in the basis, taken as 1 (its loss counted in the parasitic load)');
+});
+
+it('keeps an acronym whole where a case leads a line title: "Case turndown: DC bus voltage", never "dC"', () => {
+  const { basis, results } = demo('thistlemere-sofc-chp');
+  const view = documentView({ basis, results, revision: draft, history: [] }, { assetBase: './', checks: [] });
+  const titles = view.cases.lines.flatMap((g) => g.lines).map((l) => l.title);
+  expect(titles.some((t) => t.startsWith('Case turndown: DC bus voltage'))).toBe(true);
+  for (const t of titles) expect(t).not.toMatch(/: [a-z][A-Z]/);
 });
 
 it('the per-case table can show every quantity of the envelope', () => {

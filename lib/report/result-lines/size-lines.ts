@@ -5,6 +5,7 @@
 import type { DesignBasis } from '../../basis/types.ts';
 import type { Results } from '../../plant/results-schema.ts';
 import type { LineSpec, QuantitySpec } from '../calc-line.ts';
+import { conversionEfficiency } from './common.ts';
 
 /** The quantities several lines of the group put in: the cell voltage, the cell current and the cell count. */
 function sizeQuantities(r: Results): { V: QuantitySpec; Icell: QuantitySpec; N: QuantitySpec } {
@@ -26,7 +27,7 @@ function cellsLine(r: Results, basis: DesignBasis): LineSpec | null {
   if (op.cellsFrom === 'power' && size.kind === 'power') {
     const target: QuantitySpec = { name: 'P', value: size.powerW, unit: 'W', origin: 'target power, design input' };
     const plantShares: QuantitySpec[] = [
-      { name: 'eta', value: r.plant.electrical.conversionEfficiency, unit: '', origin: 'power-conversion efficiency, design input' },
+      conversionEfficiency(basis, r.plant.electrical.conversionEfficiency),
       { name: 'f', value: op.parasiticFraction, unit: '', origin: 'parasitic load, design input' },
     ];
     return r.technology.mode === 'power'
@@ -47,7 +48,7 @@ function cellsLine(r: Results, basis: DesignBasis): LineSpec | null {
 }
 
 /** The stack current and power, and the net power of a fuel cell. */
-function stackLines(r: Results): LineSpec[] {
+function stackLines(r: Results, basis: DesignBasis): LineSpec[] {
   const h = r.headline;
   const power = r.technology.mode === 'power';
   const { V, Icell, N } = sizeQuantities(r);
@@ -71,7 +72,7 @@ function stackLines(r: Results): LineSpec[] {
       relation: 'net',
       quantities: [
         { name: 'P', value: h.stackPower_W / 1000, unit: 'kW', origin: 'stack DC power, above' },
-        { name: 'eta', value: r.plant.electrical.conversionEfficiency, unit: '', origin: 'power-conversion efficiency, design input' },
+        conversionEfficiency(basis, r.plant.electrical.conversionEfficiency),
         { name: 'f', value: r.operatingPoint.parasiticFraction, unit: '', origin: 'parasitic load, design input' },
       ],
       value: h.netPower_W / 1000,
@@ -122,5 +123,5 @@ export function sizeLines(r: Results, basis: DesignBasis): LineSpec[] {
     unit: 'A',
   };
   const cells = cellsLine(r, basis);
-  return [cellCurrent, ...(cells ? [cells] : []), ...stackLines(r), ...ionicLines(r)];
+  return [cellCurrent, ...(cells ? [cells] : []), ...stackLines(r, basis), ...ionicLines(r)];
 }

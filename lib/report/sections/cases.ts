@@ -18,9 +18,9 @@ import { technology } from '../../electrochem/technologies.ts';
 import { enthalpyFlowW, massFlowKgPerS } from '../../plant/streams.ts';
 import { calcLine, type LineSpec } from '../calc-line.ts';
 import type { EquationBook } from '../equation-book.ts';
-import { formatNumber } from '../format.ts';
+import { formatNumber, uncapitalised } from '../format.ts';
 import { resultLines, type LineGroup } from '../result-lines.ts';
-import { constF } from '../result-lines/common.ts';
+import { constF, conversionEfficiency } from '../result-lines/common.ts';
 import { localCurrentLine } from '../result-lines/voltage-lines.ts';
 import { crossTable, recordsTable, type Table } from '../table.ts';
 
@@ -186,7 +186,7 @@ function asResults(r: Results, c: CaseResult): Results {
 }
 
 /** The line of the load a target case meets on the installed cells. */
-function loadLine(r: Results, c: CaseResult): LineSpec | null {
+function loadLine(r: Results, basis: DesignBasis, c: CaseResult): LineSpec | null {
   if (c.load !== 'target-power' && c.load !== 'target-hydrogen') return null;
   const h = c.headline!;
   const o = c.operatingPoint!;
@@ -213,7 +213,8 @@ function loadLine(r: Results, c: CaseResult): LineSpec | null {
     };
   }
   const V = { name: 'V', value: h.cellVoltage_V, unit: 'V', origin: 'cell voltage of the case at j' };
-  const eta = { name: 'eta', value: o.conversionEfficiency, unit: '', origin: `power-conversion efficiency (${r.technology.mode === 'power' ? 'inverter' : 'rectifier'}), design input` };
+  // The case's own basis: a case may state the efficiency the base leaves out.
+  const eta = conversionEfficiency(basis.cases.find((k) => k.id === c.id)?.basis ?? basis, o.conversionEfficiency);
   const f = { name: 'f', value: o.parasiticFraction, unit: '', origin: 'parasitic load, design input' };
   const power = r.technology.mode === 'power';
   return {
@@ -336,7 +337,7 @@ function degradationLine(c: CaseResult): LineSpec | null {
 
 /** A case's line, named after the case: its id prefixed with the case's, its title led by the case. */
 function forCase<L extends { id: string; title: string }>(c: CaseResult, line: L, what = line.id): L {
-  return { ...line, id: `case-${c.id}-${what}`, title: `Case ${c.id}: ${line.title.charAt(0).toLowerCase()}${line.title.slice(1)}` };
+  return { ...line, id: `case-${c.id}-${what}`, title: `Case ${c.id}: ${uncapitalised(line.title)}` };
 }
 
 const HOUR = ' \\times 3600\\,\\mathrm{s/h}';
@@ -558,7 +559,7 @@ function caseLines(r: Results, basis: DesignBasis, c: CaseResult, book: Equation
   const caseBasis = basis.cases.find((k) => k.id === c.id)?.basis ?? basis;
   const ownGoverning = ownGoverningLines(r, caseBasis, c, governs, book);
   if (c.sizing) return { id: `cases-${c.id}`, title: `Case ${c.id}: ${c.title} (sizing case)`, lines: ownGoverning.map((s) => calcLine(s, book)) };
-  const own = [loadLine(r, c), degradationLine(c), ...ownGoverning].filter((s): s is LineSpec => s !== null).map((s) => calcLine(s, book));
+  const own = [loadLine(r, basis, c), degradationLine(c), ...ownGoverning].filter((s): s is LineSpec => s !== null).map((s) => calcLine(s, book));
   const wanted = new Set([...governs].flatMap((id) => GOVERNING_LINES[id] ?? []));
   // An aged cell voltage is V₀ (1 ∓ r t), the degradation line above; the area-mean form gives V₀.
   if (c.degradation?.of === 'cell-voltage') wanted.delete('cell-voltage');

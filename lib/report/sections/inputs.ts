@@ -132,6 +132,7 @@ const GROUPS: [string, string][] = [
   ['mixtures', 'Compositions defined by the project'],
   ['streams', 'Streams'],
   ['operating-point', 'Operating point'],
+  ['plant', 'The plant around the stack'],
   ['sensitivity', 'Sensitivity steps'],
 ];
 
