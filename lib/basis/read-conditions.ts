@@ -22,8 +22,8 @@ export function kelvinText(kelvin: number): string {
 }
 
 /** A temperature input, refused at or below absolute zero. */
-export function readTemperature(reader: Reader, path: Path, label: string): Read | undefined {
-  const read = reader.scalar(path, 'temperature', label);
+export function readTemperature(reader: Reader, path: Path, label: string, givenSource?: string): Read | undefined {
+  const read = reader.scalar(path, 'temperature', label, givenSource);
   if (!read) return undefined;
   if (read.si <= 0) {
     reader.findings.error(read.at, `${read.text} is at or below absolute zero (${String(Number(read.si.toFixed(2)))} K)`);

@@ -112,7 +112,9 @@ function voltage(reader: Reader): VoltageModel | undefined {
 function resistanceLaw(reader: Reader, voltage: VoltageModel | undefined): ResistanceLaw | null | undefined {
   const at = OP('resistance-temperature-law');
   if (!reader.has(at)) return null;
-  const energy = reader.scalar([...at, 'activation-energy'], 'molar-energy', 'activation energy of the resistance');
+  // The law's one source stands for both of its values in the inputs table.
+  const source = reader.source([...at, 'source']);
+  const energy = reader.scalar([...at, 'activation-energy'], 'molar-energy', 'activation energy of the resistance', source);
   if (energy) {
     const beyond = energy.si < 0 ? `the activation energy is 0 or more (a resistance that rises with temperature is not modelled), got ${energy.text}` : limitProblem('activation-energy', 'activation energy', energy);
     if (beyond) {
@@ -120,7 +122,6 @@ function resistanceLaw(reader: Reader, voltage: VoltageModel | undefined): Resis
       return undefined;
     }
   }
-  const source = reader.source([...at, 'source']);
   let reference: number | undefined;
   if (reader.has([...at, 'reference-temperature'])) {
     if (voltage?.kind === 'given') {
@@ -131,7 +132,7 @@ function resistanceLaw(reader: Reader, voltage: VoltageModel | undefined): Resis
       );
       return undefined;
     }
-    const read = readTemperature(reader, [...at, 'reference-temperature'], 'reference temperature of the resistance');
+    const read = readTemperature(reader, [...at, 'reference-temperature'], 'reference temperature of the resistance', source);
     if (!read || !withinLimit(reader.findings, 'resistance-reference-temperature', 'reference temperature of the resistance', read)) return undefined;
     reference = read.si;
   }

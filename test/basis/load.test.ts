@@ -1,6 +1,6 @@
 // The validated DesignBasis: SI conversion, defaults, steam addition, inputs in file order,
 // what each technology and mode hands to the calculation, and the loader API.
-import { mkdirSync, mkdtempSync, truncateSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, truncateSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -100,6 +100,15 @@ describe('written forms', () => {
     const { basis } = valid(edit(BASE, ['operating-temperature: "800 C"', 'operating-temperature: { value: "1073.15 K", source: R1 }']));
     expect(basis.conditions.temperatureK).toBe(1073.15);
     expect(basis.inputs[0]).toMatchObject({ path: 'conditions.operating-temperature', text: '1073.15 K', source: 'R1' });
+  });
+
+  it('a block with one source (the resistance law) gives it to each of its values in the inputs table', () => {
+    const text = readFileSync(new URL('../../projects/thistlemere-sofc-chp/basis.yaml', import.meta.url), 'utf8');
+    expect(text).toContain('resistance-temperature-law: { activation-energy: "0.65 eV", reference-temperature: "750 C", source: R3 }');
+    const { basis } = valid(text);
+    const law = basis.inputs.filter((i) => i.path.startsWith('operating-point.resistance-temperature-law.'));
+    expect(law.map((i) => i.path)).toEqual(['operating-point.resistance-temperature-law.activation-energy', 'operating-point.resistance-temperature-law.reference-temperature']);
+    for (const i of law) expect(i.source).toBe('R3');
   });
 
   it('a gauge pressure is referred to 1 atm (NIST SP 811: atm = 101 325 Pa)', () => {
