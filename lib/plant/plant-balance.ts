@@ -50,11 +50,11 @@ function layoutError(error: unknown, windowGiven: boolean): never {
  * operating case on this hardware (default the point's alone), so that a string sized by the bus
  * window holds it at the lowest cell voltage (end of life, full load) and the highest (turndown).
  */
-function layoutOf(point: DesignPoint, plant: PlantInput, cellVoltageRangeV?: { minV: number; maxV: number }): ElectricalLayout {
+function layoutOf(point: DesignPoint, plant: PlantInput, cellVoltageRangeV?: { minV: number; maxV: number }): PlantBalance['electrical'] {
   const e = plant.electrical;
   const cells = point.sizing.cells;
   try {
-    return electricalLayout({
+    const layout = electricalLayout({
       mode: point.inputs.mode,
       requiredCells: cells,
       cellsPerStack: e.cellsPerStack ?? cells,
@@ -65,9 +65,21 @@ function layoutOf(point: DesignPoint, plant: PlantInput, cellVoltageRangeV?: { m
       ...(e.stringsInParallel !== undefined ? { stringsInParallel: e.stringsInParallel } : {}),
       conversionEfficiency: point.inputs.conversionEfficiency,
     });
+    return { ...layout, currentDensityAPerM2: point.inputs.currentDensityAPerM2 };
   } catch (error) {
     layoutError(error, e.busVoltageWindowV !== undefined);
   }
+}
+
+/**
+ * The sizing case's layout (`layout`: cells per stack, stacks in series and strings in parallel,
+ * found over the cases' cell voltages) carrying the cell voltage and current of a point on the
+ * cells it installs (the sizing case at its load on them, cases.ts installedPoint): the bus, DC
+ * and AC power of the installed cells, and the cells the sizing calculation required.
+ */
+export function installedLayout(point: DesignPoint, plant: PlantInput, layout: PlantBalance['electrical']): PlantBalance['electrical'] {
+  const fixed = layoutOf(point, { ...plant, electrical: { cellsPerStack: layout.cellsPerStack, stacksInSeries: layout.stacksInSeries, stringsInParallel: layout.stringsInParallel } });
+  return { ...fixed, requiredCells: layout.requiredCells, stacksInSeriesFrom: layout.stacksInSeriesFrom, stringsInParallelFrom: layout.stringsInParallelFrom };
 }
 
 /** The plant around the stack of a design point: the electrical layout, and the power plant's or the electrolysis plant's balance. */
