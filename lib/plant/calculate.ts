@@ -29,7 +29,7 @@ export { plantOf };
 import { finding, withAssumptions, type Finding } from './findings.ts';
 import { caseFindings, caseResults, layoutCases } from './cases.ts';
 import { envelopeOf } from './envelope.ts';
-import { installedLayout, plantBalance, type PlantBalance } from './plant-balance.ts';
+import { installedLayout, plantBalance, plantOverRanges, type PlantBalance } from './plant-balance.ts';
 import { BasisError } from '../basis/diagnostics.ts';
 
 const HOUR = 3600;
@@ -432,7 +432,7 @@ function calculateResults(basis: DesignBasis): Results {
   // The least carbon-free S/C of a fuel at a temperature, found once for the sizing case and every case that shares it.
   const limits: CarbonLimits = new Map();
   // Every case's point first, on the cells installed, and the sizing case on them: the electrical layout must hold the bus over all their cell voltages (cases.ts layoutCases).
-  const { staged, installed, plant } = locateCalculationErrors(sizingBasis, () => layoutCases(basis.cases, point, limits, (range) => plantBalance(point, sizingBasis.plant, range)));
+  const { staged, installed, plant } = locateCalculationErrors(sizingBasis, () => layoutCases(basis.cases, point, limits, plantOverRanges(point, sizingBasis.plant)));
   const carbon = carbonMargin(point, limits);
   const own = pointResults(point, sizingBasis, carbon, plant.findings);
   const findings = sizingCase ? caseFindings(own.findings, sizingCase) : own.findings;

@@ -135,6 +135,8 @@ function pathKey(request: FuelPathRequest): string {
 export class StageMemo {
   private readonly feeds = new Map<string, UnitFeeds>();
   private readonly paths = new Map<string, FuelPath>();
+  /** The carbon margins found, by what they depend on (carbonKey): every round of layoutCases shares them. */
+  readonly carbons = new Map<string, ReturnType<typeof carbonMargin>>();
   /** The fuel paths solved (not taken from the memo). */
   solved = 0;
 
@@ -270,8 +272,7 @@ export interface StagedCase {
 export function stageCases(cases: readonly OperatingCase[], sizing: DesignPoint, limits: CarbonLimits = new Map(), stages: StageMemo = new StageMemo(), installedCells = sizing.sizing.cells): StagedCase[] {
   const hardware = { ...hardwareOf(sizing), cells: installedCells };
   stages.keep(sizing.inputs, { unit: sizing.unit, path: sizing.path });
-  const carbons = new Map<string, ReturnType<typeof carbonMargin>>();
-  return cases.map((c) => (c.sizing ? { case: c, run: null, notRun: null } : stageCase(c, hardware, stages, carbons, limits)));
+  return cases.map((c) => (c.sizing ? { case: c, run: null, notRun: null } : stageCase(c, hardware, stages, stages.carbons, limits)));
 }
 
 /** What `layoutCases` needs of the plant laid out over a cell-voltage range: the cells its whole stacks install, and how they are arranged. */

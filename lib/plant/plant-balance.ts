@@ -84,16 +84,35 @@ export function installedLayout(point: DesignPoint, plant: PlantInput, layout: P
 
 /** The plant around the stack of a design point: the electrical layout, and the power plant's or the electrolysis plant's balance. */
 export function plantBalance(point: DesignPoint, plant: PlantInput, cellVoltageRangeV?: { minV: number; maxV: number }): PlantBalance {
-  const findings: Finding[] = [];
   const electrical = layoutOf(point, plant, cellVoltageRangeV);
+  return { electrical, ...plantBlocks(point, plant) };
+}
+
+/**
+ * `plantBalance` over one cell-voltage range after another (cases.ts layoutCases lays the plant
+ * out a round at a time): only the electrical layout depends on the range, so the blocks are
+ * balanced once, on the first call, and every layout shares them.
+ */
+export function plantOverRanges(point: DesignPoint, plant: PlantInput): (cellVoltageRangeV: { minV: number; maxV: number }) => PlantBalance {
+  let blocks: Omit<PlantBalance, 'electrical'> | null = null;
+  return (range) => {
+    const electrical = layoutOf(point, plant, range);
+    blocks ??= plantBlocks(point, plant);
+    return { electrical, ...blocks };
+  };
+}
+
+/** The power plant's or the electrolysis plant's balance of a design point, with its findings. */
+function plantBlocks(point: DesignPoint, plant: PlantInput): Omit<PlantBalance, 'electrical'> {
+  const findings: Finding[] = [];
   if (point.inputs.mode === 'power' && point.inputs.fuelFeed && point.inputs.airFeed) {
     const { balance, streams } = powerBalance(point, plant, findings);
-    return { electrical, streams, power: balance, electrolysis: null, findings };
+    return { streams, power: balance, electrolysis: null, findings };
   }
   if (point.inputs.mode === 'electrolysis' && point.electrolysis) {
     const { balance, streams } = electrolysisBalance(point, plant);
-    return { electrical, streams, power: null, electrolysis: balance, findings };
+    return { streams, power: null, electrolysis: balance, findings };
   }
   const streams = point.streams.map((x, k) => ({ number: k + 1, id: x.id, name: x.name, temperatureK: x.temperatureK, pressureBar: x.pressureBar, flows: { ...x.flows } }));
-  return { electrical, streams, power: null, electrolysis: null, findings };
+  return { streams, power: null, electrolysis: null, findings };
 }
