@@ -118,7 +118,7 @@ function powerLines(r: Results): LineSpec[] {
       relation: 'ac',
       quantities: [
         { name: 'P', value: e.dcPower_W / 1000, unit: 'kW', origin: 'DC power at the bus, above' },
-        { name: 'eta', value: e.conversionEfficiency, unit: '', origin: `${power ? 'inverter' : 'rectifier'} efficiency, design input` },
+        { name: 'eta', value: e.conversionEfficiency, unit: '', origin: `${power ? 'inverter' : 'rectifier'} efficiency, as in the lines above (1 where the basis counts its loss in the parasitic load)` },
       ],
       value: e.acPower_W / 1000,
       unit: 'kW',
