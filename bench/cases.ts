@@ -7,9 +7,9 @@
  */
 import { readdirSync, readFileSync } from 'node:fs';
 import { loadBasisText } from '../lib/basis/load.ts';
-import { casePointResults, evaluateBasis, plantOf, pointResults } from '../lib/plant/calculate.ts';
+import { casePointResults, evaluateBasis } from '../lib/plant/calculate.ts';
 import { carbonMargin, type CarbonLimits } from '../lib/plant/carbon-margin.ts';
-import { plantBalance } from '../lib/plant/plant-balance.ts';
+import { plantOverRanges } from '../lib/plant/plant-balance.ts';
 import { caseResults, layoutCases } from '../lib/plant/cases.ts';
 import { quantile, type Row } from './measure.ts';
 
@@ -31,13 +31,10 @@ export function benchCases(): Row[] {
     // As calculate.ts: the cases' points on the cells installed and the layout over their cell voltages
     // (layoutCases: a second round where the whole stacks install more cells than the sizing case needs), then each case's sections and plant.
     const sizingLimits: CarbonLimits = new Map();
-    const layout = (range: { minV: number; maxV: number }) => plantBalance(point, sizing.plant, range);
-    const { plant } = layoutCases(basis.cases, point, new Map(), layout);
-    const own = { ...pointResults(point, sizing, carbonMargin(point, sizingLimits), plant.findings), plant: plantOf(plant) };
-    const assemble = casePointResults(plant.electrical);
+    const carbon = carbonMargin(point, sizingLimits);
     const all = () => {
-      const laid = layoutCases(basis.cases, point, new Map(sizingLimits), layout);
-      return caseResults(laid.staged, point, own, assemble);
+      const laid = layoutCases(basis.cases, point, new Map(sizingLimits), plantOverRanges(point, sizing.plant));
+      return caseResults(laid.staged, point, { point: laid.installed, carbon }, casePointResults(laid.plant.electrical));
     };
     all(); // warm-up
     const times: number[] = [];

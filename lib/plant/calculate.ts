@@ -29,7 +29,7 @@ export { plantOf };
 import { finding, withAssumptions, type Finding } from './findings.ts';
 import { caseFindings, caseResults, layoutCases } from './cases.ts';
 import { envelopeOf } from './envelope.ts';
-import { plantBalance, type PlantBalance } from './plant-balance.ts';
+import { installedLayout, plantBalance, plantOverRanges, type PlantBalance } from './plant-balance.ts';
 import { BasisError } from '../basis/diagnostics.ts';
 
 const HOUR = 3600;
@@ -324,8 +324,8 @@ export function casePlant(point: DesignPoint, basis: DesignBasis, layout: PlantB
   let plant: PlantBalance;
   try {
     const balanced = locateCalculationErrors(basis, () => plantBalance(point, { ...basis.plant, electrical }));
-    // The layout is the sizing case's: it says where that came from (given, or the bus window).
-    plant = { ...balanced, electrical: { ...balanced.electrical, stacksInSeriesFrom: layout.stacksInSeriesFrom, stringsInParallelFrom: layout.stringsInParallelFrom } };
+    // The layout is the sizing case's: it says where that came from (given, or the bus window) and the cells the sizing calculation required.
+    plant = { ...balanced, electrical: { ...balanced.electrical, requiredCells: layout.requiredCells, stacksInSeriesFrom: layout.stacksInSeriesFrom, stringsInParallelFrom: layout.stringsInParallelFrom } };
   } catch (error) {
     if (!(error instanceof BasisError)) throw error;
     const e = error.errors[0]!;
@@ -431,12 +431,14 @@ function calculateResults(basis: DesignBasis): Results {
   const point = evaluateBasis(sizingBasis);
   // The least carbon-free S/C of a fuel at a temperature, found once for the sizing case and every case that shares it.
   const limits: CarbonLimits = new Map();
-  // Every case's point first, on the cells installed: the electrical layout must hold the bus over all their cell voltages (cases.ts layoutCases).
-  const { staged, plant } = locateCalculationErrors(sizingBasis, () => layoutCases(basis.cases, point, limits, (range) => plantBalance(point, sizingBasis.plant, range)));
-  const own = pointResults(point, sizingBasis, carbonMargin(point, limits), plant.findings);
+  // Every case's point first, on the cells installed, and the sizing case on them: the electrical layout must hold the bus over all their cell voltages (cases.ts layoutCases).
+  const { staged, installed, plant } = locateCalculationErrors(sizingBasis, () => layoutCases(basis.cases, point, limits, plantOverRanges(point, sizingBasis.plant)));
+  const carbon = carbonMargin(point, limits);
+  const own = pointResults(point, sizingBasis, carbon, plant.findings);
   const findings = sizingCase ? caseFindings(own.findings, sizingCase) : own.findings;
-  const plantResults = plantOf(plant);
-  const cases = basis.cases.length ? caseResults(staged, point, { ...own, findings, plant: plantResults }, casePointResults(plant.electrical)) : [];
+  // The bus is that of the installed cells at the sizing case's load (cases.ts installedPoint), never the required cells' current on the installed strings.
+  const plantResults = plantOf({ ...plant, electrical: locateCalculationErrors(sizingBasis, () => installedLayout(installed, sizingBasis.plant, plant.electrical)) });
+  const cases = basis.cases.length ? caseResults(staged, point, { point: installed, carbon }, casePointResults(plant.electrical)) : [];
   const inputs = point.inputs;
   const tech = inputs.technology;
   return {

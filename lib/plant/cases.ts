@@ -68,14 +68,46 @@ function ownResistance(c: OperatingCase): boolean {
 
 /** The design inputs of a case on the hardware, at the current density its basis states. */
 function caseInputs(c: OperatingCase, hardware: Hardware): DesignInputs {
-  const own = designInputs(c.basis);
+  return onHardware(designInputs(c.basis), hardware, ownResistance(c));
+}
+
+/** Inputs on the hardware: its cells and active area, and its resistance unless the inputs give their own. */
+function onHardware(own: DesignInputs, hardware: Hardware, ownResistance: boolean): DesignInputs {
   const inputs: DesignInputs = { ...own, size: { kind: 'cells', cells: hardware.cells }, activeAreaM2: hardware.activeAreaM2 };
   delete inputs.statedCells;
-  if (!ownResistance(c)) {
+  if (!ownResistance) {
     inputs.voltage = { kind: 'area-specific-resistance', ohmM2: hardware.resistanceOhmM2 };
     if (own.resistanceLaw) inputs.resistanceLaw = { ...own.resistanceLaw, referenceTemperatureK: hardware.temperatureK };
   }
   return inputs;
+}
+
+/**
+ * The sizing case on the installed hardware: the N_inst cells the layout installs (whole stacks,
+ * N_inst ≥ N_req), with the sizing case's active area and resistance, at the sizing case's load.
+ * Where N_inst = N_req the sizing point is itself on the installed hardware: it is that point.
+ * Otherwise a sizing case that sizes its cells from a target (power or hydrogen) runs at the
+ * current density at which the N_inst cells meet that target (case-load.ts), below its design
+ * current density; one whose cells are given runs at its own current density. The sizing calculation (N_req = ⌈target / what one cell delivers at the
+ * design current density⌉, sizing.ts) stays the top level of the results; this is the point the
+ * plant is built for and the sizing case's entry among the cases, its bus and its envelope
+ * values, so that no number of a case counts the required cells against the installed ones.
+ */
+export function installedPoint(sizing: DesignPoint, cells: number, stages: StageMemo = new StageMemo()): DesignPoint {
+  if (cells === sizing.sizing.cells) return sizing;
+  const from = sizing.sizing.from;
+  const hardware = { ...hardwareOf(sizing), cells };
+  let inputs = onHardware(sizing.inputs, hardware, false);
+  const stage = stages.stage(inputs);
+  if (from !== 'cells') {
+    const size = sizing.inputs.size;
+    const value = size.kind === 'power' ? size.powerW : size.kind === 'hydrogen' ? size.kgPerS : NaN;
+    const solved = currentDensityForTarget(inputs, stage.path, cells, from, value);
+    // N_inst ≥ N_req cells meet the target at the design current density, so a current density at or below it meets it on the installed cells.
+    if (!solved.ok) throw new CalculationError(`the cells installed cannot meet the target of the sizing case: ${solved.message}`, 'cells');
+    inputs = { ...inputs, currentDensityAPerM2: solved.currentDensityAPerM2 };
+  }
+  return evaluateDesignPoint(inputs, stage);
 }
 
 /** Every field of the design inputs that unit-feeds.ts reads: cases with the same key have the same unit feeds. */
@@ -103,6 +135,8 @@ function pathKey(request: FuelPathRequest): string {
 export class StageMemo {
   private readonly feeds = new Map<string, UnitFeeds>();
   private readonly paths = new Map<string, FuelPath>();
+  /** The carbon margins found, by what they depend on (carbonKey): every round of layoutCases shares them. */
+  readonly carbons = new Map<string, ReturnType<typeof carbonMargin>>();
   /** The fuel paths solved (not taken from the memo). */
   solved = 0;
 
@@ -238,8 +272,7 @@ export interface StagedCase {
 export function stageCases(cases: readonly OperatingCase[], sizing: DesignPoint, limits: CarbonLimits = new Map(), stages: StageMemo = new StageMemo(), installedCells = sizing.sizing.cells): StagedCase[] {
   const hardware = { ...hardwareOf(sizing), cells: installedCells };
   stages.keep(sizing.inputs, { unit: sizing.unit, path: sizing.path });
-  const carbons = new Map<string, ReturnType<typeof carbonMargin>>();
-  return cases.map((c) => (c.sizing ? { case: c, run: null, notRun: null } : stageCase(c, hardware, stages, carbons, limits)));
+  return cases.map((c) => (c.sizing ? { case: c, run: null, notRun: null } : stageCase(c, hardware, stages, stages.carbons, limits)));
 }
 
 /** What `layoutCases` needs of the plant laid out over a cell-voltage range: the cells its whole stacks install, and how they are arranged. */
@@ -250,57 +283,76 @@ export interface LaidOut {
 /** The most layouts `layoutCases` tries before it gives up: in practice the second is the first again. */
 const LAYOUT_ROUNDS = 4;
 
+/** A cell-voltage range, V. */
+type Range = { minV: number; maxV: number };
+
 /**
- * The cases on the installed hardware, and the plant laid out for them. The sizing case finds the
- * cells it needs, N_req, at its own design point; the layout installs whole stacks, N_inst ≥ N_req
- * (electrical-layout.ts); every other case runs on the N_inst cells installed, so that its stack,
- * its flows and its DC bus count the same cells (its target met by N_inst cells: j = what N_inst
- * cells deliver it at). The layout sizes the string over the cases' cell voltages, which depend on
- * the cells they run on, so the two are solved together: stage on N_req, lay out, stage again on
- * the cells that layout installs, until the layout installs the cells the cases ran on (the
- * second round, as a rule). Each layout holds the bus over the cell voltages of every round so far
- * (a range that only widens), so the fewest stacks in series only grow and the rounds cannot
- * cycle: more cells raise the lowest cell voltage, and a layout over that alone could take a
- * stack fewer in series, install fewer cells, and lower it again. The cases of a later round
- * share the fuel paths of the first (StageMemo). Refused at the DC bus window if the layouts do
- * not settle within a few rounds.
+ * The cases on the installed hardware, the sizing case on it (installedPoint), and the plant laid
+ * out for them. The sizing case finds the cells it needs, N_req, at its own design point; the
+ * layout installs whole stacks, N_inst ≥ N_req (electrical-layout.ts); every case runs on the
+ * N_inst cells installed, so that its stack, its flows and its DC bus count the same cells (its
+ * target met by N_inst cells: j = what N_inst cells deliver it at). The layout sizes the string
+ * over the cases' cell voltages, which depend on the cells they run on, so the two are solved
+ * together: stage on N_req, lay out, stage again on the cells that layout installs, until the
+ * layout installs the cells the cases ran on (the second round, as a rule). Starting from N_req
+ * finds the fewest cells that settle: more than one layout can hold its own cases (on more
+ * cells the cases' lowest cell voltage is higher and may take a stack fewer in series), and a
+ * start from a larger guess can settle on a larger one. Each layout
+ * holds the bus over the cell voltages of every round so far (a range that only widens), so the
+ * fewest stacks in series only grow and the rounds cannot cycle: more cells raise the lowest cell
+ * voltage, and a layout over that alone could take a stack fewer in series, install fewer cells,
+ * and lower it again. The cases of a later round share the fuel paths of the first (StageMemo).
+ * Refused at the DC bus window if the layouts do not settle within a few rounds.
  */
-export function layoutCases<P extends LaidOut>(cases: readonly OperatingCase[], sizing: DesignPoint, limits: CarbonLimits, layout: (range: { minV: number; maxV: number }) => P): { staged: StagedCase[]; plant: P } {
+export function layoutCases<P extends LaidOut>(
+  cases: readonly OperatingCase[],
+  sizing: DesignPoint,
+  limits: CarbonLimits,
+  layout: (range: Range) => P,
+): { staged: StagedCase[]; installed: DesignPoint; plant: P } {
   const stages = new StageMemo();
+  let range: Range | null = null;
   let cells = sizing.sizing.cells;
-  let range: { minV: number; maxV: number } | null = null;
   const seen: string[] = [];
   for (let round = 0; round < LAYOUT_ROUNDS; round++) {
     // The least carbon-free ratios do not depend on the cells: every round shares (and adds to) the same.
     const staged = stageCases(cases, sizing, limits, stages, cells);
+    const installed = installedPoint(sizing, cells, stages);
     // The range of every round so far: it only widens, so the fewest stacks in series only grow and the layouts cannot cycle.
-    const own = cellVoltageRange(sizing, staged);
+    const own = cellVoltageRange(sizing, staged, installed);
     range = range ? { minV: Math.min(range.minV, own.minV), maxV: Math.max(range.maxV, own.maxV) } : own;
     const plant = layout(range);
     const e = plant.electrical;
-    if (e.installedCells === cells || !cases.some((c) => !c.sizing)) return { staged, plant };
+    if (e.installedCells === cells) return { staged, installed, plant };
     seen.push(`${e.stacksInSeries} × ${e.stringsInParallel} stacks of ${e.cellsPerStack} cells (${e.installedCells} cells)`);
     cells = e.installedCells;
   }
   throw new CalculationError(`the electrical layout does not settle over the cases' cell voltages on the cells it installs: ${seen.join(', then ')}; widen the window or state the stacks in series`, 'dc-bus-window');
 }
 
-/** The cell voltages the sizing point and the cases that run reach: the range the electrical layout must hold on its bus, V. */
-export function cellVoltageRange(sizing: DesignPoint, staged: readonly StagedCase[]): { minV: number; maxV: number } {
-  const voltages = [sizing.voltage.cellVoltageV, ...staged.flatMap((s) => (s.run ? [s.run.point.voltage.cellVoltageV] : []))];
+/**
+ * The cell voltages the sizing point, the sizing case on the installed cells and the cases that
+ * run reach: the range the electrical layout must hold on its bus, V.
+ */
+export function cellVoltageRange(sizing: DesignPoint, staged: readonly StagedCase[], installed: DesignPoint = sizing): Range {
+  const voltages = [sizing.voltage.cellVoltageV, installed.voltage.cellVoltageV, ...staged.flatMap((s) => (s.run ? [s.run.point.voltage.cellVoltageV] : []))];
   return { minV: Math.min(...voltages), maxV: Math.max(...voltages) };
 }
 
 /**
- * Every case of the basis, in its order (phase two): the sizing case from its evaluated point
- * and results, every other case from its staged point, its sections made by `assemble`
+ * Every case of the basis, in its order (phase two): the sizing case on the installed hardware
+ * (`installed`, layoutCases; its carbon margin that of the sizing point, whose fuel path it
+ * shares), every other case from its staged point, each with its sections made by `assemble`
  * (calculate.ts casePointResults, with the plant on the sizing case's layout).
  */
-export function caseResults(staged: readonly StagedCase[], sizing: DesignPoint, sizingResults: CasePointResults, assemble: Assemble): CaseResult[] {
+export function caseResults(staged: readonly StagedCase[], sizing: DesignPoint, installed: { point: DesignPoint; carbon: ReturnType<typeof carbonMargin> }, assemble: Assemble): CaseResult[] {
   const hardware = hardwareOf(sizing);
   const sizingResistance = { from: 'case' as const, beginningOfLife_ohm_m2: hardware.resistanceOhmM2, referenceTemperature_K: hardware.temperatureK };
   const figures = staged.map((s): Figures => {
-    if (s.case.sizing) return ranFigures(sizingResults, sizing, sizingResistance);
+    if (s.case.sizing) {
+      const results = assemble(installed.point, s.case.basis, installed.carbon);
+      return ranFigures({ ...results, findings: caseFindings(results.findings, s.case) }, installed.point, sizingResistance);
+    }
     if (!s.run) return s.notRun!;
     const { point, carbon, resistance, inputs } = s.run;
     const results = assemble(point, s.case.basis, carbon);

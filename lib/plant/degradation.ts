@@ -45,5 +45,5 @@ export function agedVoltage(request: CellVoltageRequest, degradation: Degradatio
       ? ({ kind: 'area-specific-resistance', ohmM2: fresh.areaSpecificResistanceOhmM2 * (1 + fraction) } as const)
       : ({ kind: 'given', cellVoltageV: fresh.cellVoltageV * (1 + sign * fraction) } as const);
   // The source stays what the basis gives at the beginning of life.
-  return { voltage: { ...operatingVoltage({ ...request, model }), source: fresh.source }, aged };
+  return { voltage: operatingVoltage({ ...request, model }, fresh.source), aged };
 }

@@ -139,7 +139,8 @@ export interface ElectrolysisPlantBalance {
 }
 
 export interface PlantBalance {
-  electrical: ElectricalLayout;
+  /** The layout with the current density of the point whose cell current it carries, A/m². */
+  electrical: ElectricalLayout & { currentDensityAPerM2: number };
   streams: PlantStream[];
   power: PowerPlantBalance | null;
   electrolysis: ElectrolysisPlantBalance | null;

@@ -50,11 +50,11 @@ function layoutError(error: unknown, windowGiven: boolean): never {
  * operating case on this hardware (default the point's alone), so that a string sized by the bus
  * window holds it at the lowest cell voltage (end of life, full load) and the highest (turndown).
  */
-function layoutOf(point: DesignPoint, plant: PlantInput, cellVoltageRangeV?: { minV: number; maxV: number }): ElectricalLayout {
+function layoutOf(point: DesignPoint, plant: PlantInput, cellVoltageRangeV?: { minV: number; maxV: number }): PlantBalance['electrical'] {
   const e = plant.electrical;
   const cells = point.sizing.cells;
   try {
-    return electricalLayout({
+    const layout = electricalLayout({
       mode: point.inputs.mode,
       requiredCells: cells,
       cellsPerStack: e.cellsPerStack ?? cells,
@@ -65,23 +65,54 @@ function layoutOf(point: DesignPoint, plant: PlantInput, cellVoltageRangeV?: { m
       ...(e.stringsInParallel !== undefined ? { stringsInParallel: e.stringsInParallel } : {}),
       conversionEfficiency: point.inputs.conversionEfficiency,
     });
+    return { ...layout, currentDensityAPerM2: point.inputs.currentDensityAPerM2 };
   } catch (error) {
     layoutError(error, e.busVoltageWindowV !== undefined);
   }
 }
 
+/**
+ * The sizing case's layout (`layout`: cells per stack, stacks in series and strings in parallel,
+ * found over the cases' cell voltages) carrying the cell voltage and current of a point on the
+ * cells it installs (the sizing case at its load on them, cases.ts installedPoint): the bus, DC
+ * and AC power of the installed cells, and the cells the sizing calculation required.
+ */
+export function installedLayout(point: DesignPoint, plant: PlantInput, layout: PlantBalance['electrical']): PlantBalance['electrical'] {
+  const fixed = layoutOf(point, { ...plant, electrical: { cellsPerStack: layout.cellsPerStack, stacksInSeries: layout.stacksInSeries, stringsInParallel: layout.stringsInParallel } });
+  return { ...fixed, requiredCells: layout.requiredCells, stacksInSeriesFrom: layout.stacksInSeriesFrom, stringsInParallelFrom: layout.stringsInParallelFrom };
+}
+
 /** The plant around the stack of a design point: the electrical layout, and the power plant's or the electrolysis plant's balance. */
 export function plantBalance(point: DesignPoint, plant: PlantInput, cellVoltageRangeV?: { minV: number; maxV: number }): PlantBalance {
-  const findings: Finding[] = [];
   const electrical = layoutOf(point, plant, cellVoltageRangeV);
+  return { electrical, ...plantBlocks(point, plant) };
+}
+
+/**
+ * `plantBalance` over one cell-voltage range after another (cases.ts layoutCases lays the plant
+ * out a round at a time): only the electrical layout depends on the range, so the blocks are
+ * balanced once, on the first call, and every layout shares them.
+ */
+export function plantOverRanges(point: DesignPoint, plant: PlantInput): (cellVoltageRangeV: { minV: number; maxV: number }) => PlantBalance {
+  let blocks: Omit<PlantBalance, 'electrical'> | null = null;
+  return (range) => {
+    const electrical = layoutOf(point, plant, range);
+    blocks ??= plantBlocks(point, plant);
+    return { electrical, ...blocks };
+  };
+}
+
+/** The power plant's or the electrolysis plant's balance of a design point, with its findings. */
+function plantBlocks(point: DesignPoint, plant: PlantInput): Omit<PlantBalance, 'electrical'> {
+  const findings: Finding[] = [];
   if (point.inputs.mode === 'power' && point.inputs.fuelFeed && point.inputs.airFeed) {
     const { balance, streams } = powerBalance(point, plant, findings);
-    return { electrical, streams, power: balance, electrolysis: null, findings };
+    return { streams, power: balance, electrolysis: null, findings };
   }
   if (point.inputs.mode === 'electrolysis' && point.electrolysis) {
     const { balance, streams } = electrolysisBalance(point, plant);
-    return { electrical, streams, power: null, electrolysis: balance, findings };
+    return { streams, power: null, electrolysis: balance, findings };
   }
   const streams = point.streams.map((x, k) => ({ number: k + 1, id: x.id, name: x.name, temperatureK: x.temperatureK, pressureBar: x.pressureBar, flows: { ...x.flows } }));
-  return { electrical, streams, power: null, electrolysis: null, findings };
+  return { streams, power: null, electrolysis: null, findings };
 }

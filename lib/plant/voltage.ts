@@ -281,8 +281,14 @@ function localCurrents(cell: Cell, v: number, asr: number, integral: ReciprocalI
   }));
 }
 
-/** The cell voltage and resistance, or the resistance implied by a given voltage, by (1) or (2), with the area means and the local current density along the cell. */
-export function operatingVoltage(request: CellVoltageRequest): OperatingVoltage {
+/**
+ * The cell voltage and resistance, or the resistance implied by a given voltage, by (1) or (2),
+ * with the area means and the local current density along the cell; `source` in place of the
+ * model's where the caller states it (an aged cell keeps the source of the new one). The local
+ * current densities are found when first read: a root search over the current density reads only
+ * the voltage, and the same numbers come out either way.
+ */
+export function operatingVoltage(request: CellVoltageRequest, source?: OperatingVoltage['source']): OperatingVoltage {
   const cell = new Cell(request);
   const { model, currentDensityAPerM2: j, utilization: u } = request;
   const t = cell.t;
@@ -295,18 +301,23 @@ export function operatingVoltage(request: CellVoltageRequest): OperatingVoltage 
   const leakage = ((1 - t) * v) / asr;
   const ionic = cell.power ? j + leakage : j - leakage;
   const effectiveNernstV = cell.power ? t * areaMeanNernstV - cell.dV : t * areaMeanNernstV;
-  const local = localCurrents(cell, v, asr, integral);
+  let local: LocalPoint[] | null = null;
+  const localOf = () => (local ??= localCurrents(cell, v, asr, integral));
   return {
     cellVoltageV: v,
     effectiveNernstV,
     areaMeanNernstV,
     openCircuitV: t * request.inletNernstV - cell.dV,
     areaSpecificResistanceOhmM2: asr,
-    source: model.kind === 'given' ? 'given' : 'area-specific-resistance',
+    source: source ?? (model.kind === 'given' ? 'given' : 'area-specific-resistance'),
     harmonicIntegralPerV: integral.first,
     ionicCurrentDensityAPerM2: ionic,
     leakageCurrentDensityAPerM2: leakage,
-    local,
-    maxLocalCurrentDensityAPerM2: Math.max(...local.map((p) => p.currentDensityAPerM2)),
+    get local() {
+      return localOf();
+    },
+    get maxLocalCurrentDensityAPerM2() {
+      return Math.max(...localOf().map((p) => p.currentDensityAPerM2));
+    },
   };
 }

@@ -433,7 +433,7 @@ function carbonEquations(): EquationEntry[] {
 function plantEquations(r: Results): EquationEntry[] {
   const steamRaised = r.plant.power || r.plant.electrolysis?.steam.length;
   return [
-    layoutEquation(),
+    layoutEquation(r.technology.mode === 'power'),
     ...(steamRaised ? [steamRaisingEquation(r)] : []),
     ...(r.plant.electrolysis ? [electrolysisPlantEquation()] : []),
     ...(r.plant.electrolysis?.recuperator ? [recuperatorEquation()] : []),
@@ -441,18 +441,30 @@ function plantEquations(r: Results): EquationEntry[] {
   ];
 }
 
-/** The electrical layout: the stack and bus voltage of cells and stacks in series, the bus current of the strings in parallel. */
-function layoutEquation(): EquationEntry {
+/**
+ * The electrical layout: the cells installed in whole stacks, the cell current at the current
+ * density the bus carries, the stack and bus voltage of cells and stacks in series, the bus
+ * current of the strings in parallel, the DC power and the converter's AC power.
+ */
+function layoutEquation(power: boolean): EquationEntry {
   const Vs = sym('V_\\mathrm{stack}');
+  const [m, k, n, Icell, Vbus, Ibus, Pdc, eta] = ['n_\\mathrm{series}', 'n_\\mathrm{strings}', 'n_\\mathrm{cells}', 'I_\\mathrm{cell}', 'V_\\mathrm{bus}', 'I_\\mathrm{bus}', 'P_\\mathrm{DC}', '\\eta_\\mathrm{conv}'].map((x) => sym(x)) as Symbol[];
   return entry(
     'plant-layout',
     {
-      stack: { lhs: Vs, symbols: { n: sym('n_\\mathrm{cells}'), V: sym('V') }, rhs: (q, op) => `${q.n}${op.times}${q.V}` },
-      bus: { lhs: sym('V_\\mathrm{bus}'), symbols: { m: sym('n_\\mathrm{series}'), Vs }, rhs: (q, op) => `${q.m}${op.times}${q.Vs}` },
-      current: { lhs: sym('I_\\mathrm{bus}'), symbols: { k: sym('n_\\mathrm{strings}'), Icell: sym('I_\\mathrm{cell}') }, rhs: (q, op) => `${q.k}${op.times}${q.Icell}` },
+      installed: { lhs: sym('N_\\mathrm{inst}'), symbols: { m: m!, k: k!, n: n! }, rhs: (q, op) => `${q.m}${op.times}${q.k}${op.times}${q.n}` },
+      cell: { lhs: Icell!, symbols: { j: sym('j'), A: sym('A') }, rhs: (q, op) => `${q.j}${op.times}${q.A}` },
+      stack: { lhs: Vs, symbols: { n: n!, V: sym('V') }, rhs: (q, op) => `${q.n}${op.times}${q.V}` },
+      bus: { lhs: Vbus!, symbols: { m: m!, Vs }, rhs: (q, op) => `${q.m}${op.times}${q.Vs}` },
+      current: { lhs: Ibus!, symbols: { k: k!, Icell: Icell! }, rhs: (q, op) => `${q.k}${op.times}${q.Icell}` },
+      dc: { lhs: Pdc!, symbols: { Vbus: Vbus!, Ibus: Ibus! }, rhs: (q, op) => `${q.Vbus}${op.times}${q.Ibus}` },
+      ac: power
+        ? { lhs: sym('P_\\mathrm{AC}'), symbols: { P: Pdc!, eta: eta! }, rhs: (q, op) => `${q.eta}${op.times}${q.P}` }
+        : { lhs: sym('P_\\mathrm{AC}'), symbols: { P: Pdc!, eta: eta! }, rhs: (q) => `\\frac{${q.P}}{${q.eta}}` },
     },
-    // Two lines (voltages, then currents): on one line the four relations were wider than the A4 text column.
-    (show) => `\\begin{gathered} ${show('stack')}, \\qquad ${show('bus')}, \\\\ ${show('current')}, \\qquad I_\\mathrm{stack} = I_\\mathrm{string} = I_\\mathrm{cell} \\end{gathered}`,
+    // Lines of two relations each: on one line they were wider than the A4 text column.
+    (show) =>
+      `\\begin{gathered} ${show('installed')}, \\qquad ${show('cell')}, \\\\ ${show('stack')}, \\qquad ${show('bus')}, \\\\ ${show('current')}, \\qquad I_\\mathrm{stack} = I_\\mathrm{string} = I_\\mathrm{cell}, \\\\ ${show('dc')}, \\qquad ${show('ac')} \\end{gathered}`,
   );
 }
 
@@ -538,7 +550,8 @@ function caseEquations(r: Results): EquationEntry[] {
 
 /** The load a case meets: P = N j A V (η − f) in power mode, P = N j A V (1/η + f) and ṁ_H2 = N j A M/(2F) in electrolysis. */
 function caseLoadEquations(r: Results, power: boolean): EquationEntry[] {
-  if (!r.cases.some((c) => c.load === 'target-power' || c.load === 'target-hydrogen')) return [];
+  // A target case, or the sizing case run on more cells than it required (its target met at a current density of its own).
+  if (!r.cases.some((c) => c.load === 'target-power' || c.load === 'target-hydrogen' || (c.sizing && c.ran && c.headline!.cells !== r.headline.cells && r.operatingPoint.cellsFrom !== 'cells'))) return [];
   const [N, j, A, V, f, M, eta] = ['N', 'j', 'A', 'V', 'f_\\mathrm{par}', 'M_\\mathrm{H_2}', '\\eta_\\mathrm{conv}'].map((s) => sym(s)) as Symbol[];
   // The plant's AC power per unit of stack DC power (design-point.ts plantPowerShare): η − f delivered, 1/η + f drawn.
   const relations: Record<string, Relation> = power

@@ -68,6 +68,12 @@ function formulas(r: Results): Record<string, Formula> {
     'stack-voltage': (n) => n.n! * n.V!,
     'bus-voltage': (n) => n.m! * n.Vs!,
     'bus-current': (n) => n.k! * n.Icell!,
+    // Whole stacks: strings of stacks in series, n cells each (Kirchhoff's laws for the rest of the layout).
+    'installed-cells': (n) => n.m! * n.k! * n.n!,
+    'installed-cell-current': (n) => n.j! * n.A!,
+    'dc-power': (n) => n.Vbus! * n.Ibus! / 1000,
+    // The inverter delivers η P_DC; the rectifier draws P_DC / η (definition of the conversion efficiency).
+    'ac-power': (n) => (power ? n.eta! * n.P! : n.P! / n.eta!),
     'steam-raising': (n) => n.n! * (n.hl! + n.L! + n.hg!),
     'steam-raising-air': (n) => n.n! * (n.hl! + n.L! + n.hg!),
     'compressor-power': (n) => n.n! * n.w!,
@@ -126,6 +132,10 @@ function resultOf(id: string, r: Results): number | null {
     'stack-voltage': r.plant.electrical.stackVoltage_V,
     'bus-voltage': r.plant.electrical.busVoltage_V,
     'bus-current': r.plant.electrical.busCurrent_A,
+    'installed-cells': r.plant.electrical.installedCells,
+    'installed-cell-current': r.plant.electrical.cellCurrent_A,
+    'dc-power': r.plant.electrical.dcPower_W / 1000,
+    'ac-power': r.plant.electrical.acPower_W / 1000,
     'steam-raising': r.plant.power?.steam ? (r.plant.power.steam.liquidHeating_W + r.plant.power.steam.evaporation_W + r.plant.power.steam.superheating_W) / 1000 : null,
     'delivered-heat': r.plant.power?.heatRecovery ? r.plant.power.heatRecovery.deliveredHeat_W / 1000 : null,
     'chp-efficiency': r.plant.power?.chp?.totalEfficiencyLhv ?? null,

@@ -45,10 +45,94 @@ function dutyLine(id: string, title: string, outW: number, inW: number, outOrigi
   };
 }
 
-/** The stack, bus voltage and bus current of the electrical layout. */
+/** The stacks in series of a string, and where that number comes from. */
+function series(e: Results['plant']['electrical']): LineSpec['quantities'][number] {
+  return { name: 'm', value: e.stacksInSeries, unit: '', origin: e.stacksInSeriesFrom === 'given' ? 'stacks in series, design input' : 'stacks in series, from the DC bus window' };
+}
+
+/**
+ * The cells the layout installs and the point its bus carries: the whole stacks, and the cell
+ * current of the installed cells at the load of the point (the sizing case at its load on the
+ * installed cells, at the top level; the case, for a case).
+ */
+function installedLines(r: Results): LineSpec[] {
+  const e = r.plant.electrical;
+  const sizing = r.headline.cells === e.requiredCells && e.installedCells !== e.requiredCells;
+  return [
+    {
+      id: 'installed-cells',
+      title: 'Cells installed: whole stacks, strings of stacks in series',
+      equation: 'plant-layout',
+      relation: 'installed',
+      quantities: [
+        series(e),
+        { name: 'k', value: e.stringsInParallel, unit: '', origin: e.stringsInParallelFrom === 'given' ? 'strings in parallel, design input' : `strings in parallel, the fewest whose stacks hold the ${e.requiredCells} cells required` },
+        { name: 'n', value: e.cellsPerStack, unit: '', origin: 'cells per stack, design input (default: all cells in one stack)' },
+      ],
+      value: e.installedCells,
+      unit: '',
+      note: `the sizing calculation requires ${e.requiredCells} cells`,
+    },
+    {
+      id: 'installed-cell-current',
+      title: sizing ? "Cell current of the installed cells at the sizing case's load" : 'Cell current of the installed cells',
+      equation: 'plant-layout',
+      relation: 'cell',
+      quantities: [
+        {
+          name: 'j',
+          value: e.currentDensity_A_per_m2,
+          unit: 'A/m2',
+          origin: sizing ? `current density at which the ${e.installedCells} installed cells meet the sizing case's load (solved)` : 'current density of the installed cells, above',
+        },
+        { name: 'A', value: r.operatingPoint.activeArea_m2, unit: 'm2', origin: 'active area of a cell, design input' },
+      ],
+      value: e.cellCurrent_A,
+      unit: 'A',
+    },
+  ];
+}
+
+/** The DC power at the bus and the AC power of the converter. */
+function powerLines(r: Results): LineSpec[] {
+  const e = r.plant.electrical;
+  const power = r.technology.mode === 'power';
+  return [
+    {
+      id: 'dc-power',
+      title: 'DC power at the bus (every installed cell)',
+      equation: 'plant-layout',
+      relation: 'dc',
+      quantities: [
+        { name: 'Vbus', value: e.busVoltage_V, unit: 'V', origin: 'bus voltage, above' },
+        { name: 'Ibus', value: e.busCurrent_A, unit: 'A', origin: 'bus current, above' },
+      ],
+      conversion: ' \\times 10^{-3}',
+      value: e.dcPower_W / 1000,
+      unit: 'kW',
+    },
+    {
+      id: 'ac-power',
+      title: power ? 'AC power delivered by the inverter' : 'AC power drawn by the rectifier',
+      equation: 'plant-layout',
+      relation: 'ac',
+      quantities: [
+        { name: 'P', value: e.dcPower_W / 1000, unit: 'kW', origin: 'DC power at the bus, above' },
+        { name: 'eta', value: e.conversionEfficiency, unit: '', origin: `${power ? 'inverter' : 'rectifier'} efficiency, as in the lines above (1 where the basis counts its loss in the parasitic load)` },
+      ],
+      value: e.acPower_W / 1000,
+      unit: 'kW',
+    },
+  ];
+}
+
+/** The cells installed, the stack and bus voltage, the bus current and the DC and AC power of the electrical layout. */
 function layoutLines(r: Results): LineSpec[] {
   const e = r.plant.electrical;
+  const [installed, cell] = installedLines(r);
   return [
+    installed!,
+    cell!,
     {
       id: 'stack-voltage',
       title: 'Terminal voltage of one stack',
@@ -56,7 +140,7 @@ function layoutLines(r: Results): LineSpec[] {
       relation: 'stack',
       quantities: [
         { name: 'n', value: e.cellsPerStack, unit: '', origin: 'cells per stack, design input (default: all cells in one stack)' },
-        { name: 'V', value: r.headline.cellVoltage_V, unit: 'V', origin: 'cell voltage, above' },
+        { name: 'V', value: e.cellVoltage_V, unit: 'V', origin: 'cell voltage of the installed cells at that current density' },
       ],
       value: e.stackVoltage_V,
       unit: 'V',
@@ -67,7 +151,7 @@ function layoutLines(r: Results): LineSpec[] {
       equation: 'plant-layout',
       relation: 'bus',
       quantities: [
-        { name: 'm', value: e.stacksInSeries, unit: '', origin: e.stacksInSeriesFrom === 'given' ? 'stacks in series, design input' : 'stacks in series, from the DC bus window' },
+        series(e),
         { name: 'Vs', value: e.stackVoltage_V, unit: 'V', origin: 'stack voltage, above' },
       ],
       value: e.busVoltage_V,
@@ -80,11 +164,12 @@ function layoutLines(r: Results): LineSpec[] {
       relation: 'current',
       quantities: [
         { name: 'k', value: e.stringsInParallel, unit: '', origin: e.stringsInParallelFrom === 'given' ? 'strings in parallel, design input' : 'strings in parallel, enough for the cells required' },
-        { name: 'Icell', value: r.headline.cellCurrent_A, unit: 'A', origin: 'cell current, above' },
+        { name: 'Icell', value: e.cellCurrent_A, unit: 'A', origin: 'cell current of the installed cells, above' },
       ],
       value: e.busCurrent_A,
       unit: 'A',
     },
+    ...powerLines(r),
   ];
 }
 

@@ -91,7 +91,7 @@ function shownValue(row: Shown, x: number): string {
 }
 
 const LOAD_TEXT: Record<CaseResult['load'], string> = {
-  sizing: 'sizing case: fixes the hardware',
+  sizing: 'sizing case: fixes the hardware, and runs at its own load on the cells installed',
   'current-density': 'its current density',
   'target-power': 'its target power, met on the installed cells',
   'target-hydrogen': 'its target hydrogen, met on the installed cells',
@@ -185,9 +185,25 @@ function asResults(r: Results, c: CaseResult): Results {
   };
 }
 
-/** The line of the load a target case meets on the installed cells. */
+/**
+ * Whether the case is the sizing case run at a current density of its own on the installed cells:
+ * its target met by more cells than the sizing calculation required (cases.ts installedPoint).
+ */
+function installedSizing(r: Results, c: CaseResult): boolean {
+  return c.sizing && c.ran && c.headline!.cells !== r.headline.cells;
+}
+
+/** What a case's load is met by solving for: a target of power or hydrogen, or none. */
+function solvedTarget(r: Results, c: CaseResult): 'target-power' | 'target-hydrogen' | null {
+  if (c.load === 'target-power' || c.load === 'target-hydrogen') return c.load;
+  if (!installedSizing(r, c) || r.operatingPoint.cellsFrom === 'cells') return null;
+  return r.operatingPoint.cellsFrom === 'hydrogen' ? 'target-hydrogen' : 'target-power';
+}
+
+/** The line of the load a target case (or the sizing case on the installed cells) meets on the installed cells. */
 function loadLine(r: Results, basis: DesignBasis, c: CaseResult): LineSpec | null {
-  if (c.load !== 'target-power' && c.load !== 'target-hydrogen') return null;
+  const load = solvedTarget(r, c);
+  if (load === null) return null;
   const h = c.headline!;
   const o = c.operatingPoint!;
   const common = [
@@ -196,7 +212,7 @@ function loadLine(r: Results, basis: DesignBasis, c: CaseResult): LineSpec | nul
     { name: 'A', value: o.activeArea_m2, unit: 'm2', origin: 'active area of the sizing case' },
   ];
   const id = `case-${c.id}-load`;
-  if (c.load === 'target-hydrogen' && h.hydrogenProduction_kg_per_h !== null) {
+  if (load === 'target-hydrogen' && h.hydrogenProduction_kg_per_h !== null) {
     // Every two electrons of the ionic current make one H₂ where nothing else is reduced (no co-electrolysis).
     if (c.efficiency!.carbonMonoxideProduction_mol_per_s) return null;
     const ionic = { name: 'j', value: c.electrochemistry!.ionicCurrentDensity_A_per_m2, unit: 'A/m2', origin: 'ionic current density at the solved current density (the current that splits water)' };
@@ -546,7 +562,7 @@ function ownGoverningLines(r: Results, basis: DesignBasis, c: CaseResult, ids: R
   if (ids.has('heat-recovered')) lines.push(heatRecoveredLine(c));
   if (ids.has('heat-demand')) lines.push(heatDemandLine(c));
   // The sizing case's hot spot is a line of section 6 (its fuel path); a case's is at its inlet, whose Nernst voltage it reports.
-  if (ids.has('local-current-density') && !c.sizing) lines.push(forCase(c, localCurrentLine(asResults(r, c), book, c.headline!.inletNernst_V, 'the inlet'), 'local-current'));
+  if (ids.has('local-current-density') && (!c.sizing || installedSizing(r, c))) lines.push(forCase(c, localCurrentLine(asResults(r, c), book, c.headline!.inletNernst_V, 'the inlet'), 'local-current'));
   return lines.filter((l): l is LineSpec => l !== null);
 }
 
@@ -558,7 +574,8 @@ function caseLines(r: Results, basis: DesignBasis, c: CaseResult, book: Equation
   const governs = new Set(r.envelope.filter((e) => e.case === c.id).map((e) => e.id));
   const caseBasis = basis.cases.find((k) => k.id === c.id)?.basis ?? basis;
   const ownGoverning = ownGoverningLines(r, caseBasis, c, governs, book);
-  if (c.sizing) return { id: `cases-${c.id}`, title: `Case ${c.id}: ${c.title} (sizing case)`, lines: ownGoverning.map((s) => calcLine(s, book)) };
+  // The sizing case on the cells the sizing calculation required is the point of section 6, whose lines are its own.
+  if (c.sizing && !installedSizing(r, c)) return { id: `cases-${c.id}`, title: `Case ${c.id}: ${c.title} (sizing case)`, lines: ownGoverning.map((s) => calcLine(s, book)) };
   const own = [loadLine(r, basis, c), degradationLine(c), ...ownGoverning].filter((s): s is LineSpec => s !== null).map((s) => calcLine(s, book));
   const wanted = new Set([...governs].flatMap((id) => GOVERNING_LINES[id] ?? []));
   // An aged cell voltage is V₀ (1 ∓ r t), the degradation line above; the area-mean form gives V₀.
@@ -570,7 +587,7 @@ function caseLines(r: Results, basis: DesignBasis, c: CaseResult, book: Equation
         .filter((l) => wanted.has(l.id))
         .map((l) => forCase(c, l))
     : [];
-  return { id: `cases-${c.id}`, title: `Case ${c.id}: ${c.title}`, lines: [...own, ...governing] };
+  return { id: `cases-${c.id}`, title: `Case ${c.id}: ${c.title}${c.sizing ? ' (sizing case, on the cells installed)' : ''}`, lines: [...own, ...governing] };
 }
 
 /** The tables of the cases (what `calc --section cases|case-comparison|envelope` prints), or null where the basis has none. */
@@ -585,7 +602,7 @@ export function casesSection(r: Results, basis: DesignBasis, book: EquationBook)
   return {
     present: cases.length > 0,
     intro: cases.length
-      ? `The basis defines ${cases.length} operating cases. Case ${sizing?.id ?? ''} is the sizing case: it finds the cells needed at its design point, and its results are those of the sections above; the plant installs them as whole stacks, and every other case runs at its own load on the cells installed, with the sizing case's active area and cell resistance. Each governing value is marked "highest" or "lowest" beside its number.`
+      ? `The basis defines ${cases.length} operating cases. Case ${sizing?.id ?? ''} is the sizing case: it finds the cells needed at its design current density (the sizing calculation, whose results are those of the sections above), and the plant installs them as whole stacks. Every case runs at its own load on the cells installed, with the sizing case's active area and cell resistance, the sizing case too: its column below, its envelope values and the DC bus of section 6 are the installed plant at its load${sizing && installedSizing(r, sizing) ? `, ${sizing.headline!.cells} cells at ${formatNumber(sizing.operatingPoint!.currentDensity_A_per_m2 / 1e4, 4)} A/cm² where the sizing calculation required ${r.headline.cells} at ${formatNumber(r.operatingPoint.currentDensity_A_per_m2 / 1e4, 4)} A/cm²` : ', which is the point of the sections above where the stacks install exactly the cells required'}. Each governing value is marked "highest" or "lowest" beside its number.`
       : 'The basis defines one operating point, its base values, which is the sizing case of the sections above.',
     ...(caseTables(r) ?? { definitions: null, comparison: null, envelope: null }),
     legend: '"highest" or "lowest" beside a number: this case sets the governing value of the quantity in the envelope below.',
