@@ -27,7 +27,7 @@ import { runAllChecks } from '../verification/checks.ts';
 import { documentView, type DocumentView } from '../report/document.ts';
 import { revisionHistory, type ChangeSummary, type DraftRecord, type RevisionHistoryEntry } from '../report/history.ts';
 import { draftPagePath, relativeHref, revisionPagePath, rootPrefix } from '../report/links.ts';
-import { INDEX_PATH, portfolioView, type PortfolioProject, type PortfolioView } from '../report/portfolio.ts';
+import { INDEX_PATH, portfolioResults, portfolioView, type PortfolioProject, type PortfolioView } from '../report/portfolio.ts';
 import type { RevisionContext } from '../report/revision.ts';
 import { revisionPageView, type RevisionPageView } from '../report/revision-page.ts';
 import { nextRevision } from '../basis/revisions.ts';
@@ -290,7 +290,8 @@ export function loadProjectPages(loader: ProjectLoader, id: string, problems: Si
     portfolio: {
       id,
       basis: loaded.basis,
-      results,
+      // Only what the index row reads: the model keeps this row until the index is made.
+      results: portfolioResults(results),
       draftPath,
       issued: last ? { revision: last.revision, status: last.manifest.status, issuedOn: last.manifest.issuedOn, path: revisionPagePath(id, last.revision) } : null,
       draftRevision,

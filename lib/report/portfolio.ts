@@ -14,10 +14,26 @@ import { relativeHref } from './links.ts';
 
 export const INDEX_PATH = 'index.html';
 
+/**
+ * The part of a project's results its index row reads. A site model keeps only this for each
+ * project until the index is made (`portfolioResults`), not the whole results (about 170 kB a
+ * project in memory), so that the model of a large portfolio stays small.
+ */
+export interface PortfolioResults {
+  technology: Pick<Results['technology'], 'name' | 'mode'>;
+  headline: Results['headline'];
+  hazards: Pick<Results['hazards'], 'cautions'>;
+}
+
+/** What the index row of a project needs of its results, taken out of them (the rest may then be let go). */
+export function portfolioResults(results: Results): PortfolioResults {
+  return { technology: { name: results.technology.name, mode: results.technology.mode }, headline: results.headline, hazards: { cautions: results.hazards.cautions } };
+}
+
 export interface PortfolioProject {
   id: string;
   basis: DesignBasis;
-  results: Results;
+  results: PortfolioResults;
   draftPath: string;
   issued: { revision: string; status: IssueStatus; issuedOn: string; path: string } | null;
   /** The revision the working draft becomes when next issued. */
