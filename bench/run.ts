@@ -7,6 +7,7 @@ import { benchEquilibrium } from './equilibrium.ts';
 import { benchCalc } from './calc.ts';
 import { benchCases } from './cases.ts';
 import { benchSite } from './site.ts';
+import { benchPdf } from './pdf.ts';
 import { printTable, type Row } from './measure.ts';
 
 const sections: Record<string, () => Promise<Row[]> | Row[]> = {
@@ -15,6 +16,7 @@ const sections: Record<string, () => Promise<Row[]> | Row[]> = {
   calc: () => benchCalc(SIZES),
   cases: benchCases,
   site: () => benchSite(SIZES),
+  pdf: () => benchPdf(SIZES.filter((n) => n <= 500)),
 };
 
 /** N of the calculation and site benchmarks: 10, 100, 500 and 2000, or BENCH_SIZES=10,100 for a shorter run. */

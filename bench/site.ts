@@ -2,9 +2,8 @@
  * Site benchmarks on synthetic projects: the full HTML build (cold: empty caches; warm: results
  * from the cache, also per document in wall and processor time, target ≤ 8 ms), a bare Eleventy
  * site of the same number of trivial pages built in the same run (the yardstick of the 1.5×
- * target), Eleventy writing the very pages the build wrote (the floor, target ≤ 3×), PDF printing per document (one browser, and two side by
- * side as the build prints), the time from saving a changed basis to its rebuilt page under `cellbasis serve`,
- * and the peak memory (RSS) of a full build, measured in a child process.
+ * target), Eleventy writing the very pages the build wrote (the floor, target ≤ 3×), the time from saving a changed basis to its rebuilt page under `cellbasis serve`,
+ * and the peak memory (RSS) of a full build, measured in a child process. PDFs: bench/pdf.ts.
  */
 import { spawn } from 'node:child_process';
 import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
@@ -14,11 +13,6 @@ import { fileURLToPath } from 'node:url';
 import { writeSyntheticProjects } from './synthetic.ts';
 import { createEleventy } from '../lib/publish/eleventy-api.ts';
 import { buildSite, PAGES_PER_RUN } from '../lib/publish/build.ts';
-import { withPdfPrinter } from '../lib/publish/pdf.ts';
-import { findChromium } from '../lib/publish/chromium.ts';
-import { documentPdfMeta } from '../lib/report/pdf-meta.ts';
-import { loadSiteModel } from '../lib/publish/site-model.ts';
-import { PRINT_LANES } from '../lib/publish/draft-pdfs.ts';
 import { serveSite } from '../lib/publish/serve.ts';
 import type { Row } from './measure.ts';
 
@@ -143,19 +137,6 @@ async function watchLatency(root: string, id: string): Promise<number> {
   }
 }
 
-async function pdfTimes(root: string, count: number): Promise<{ one: number; two: number }> {
-  const model = loadSiteModel(root);
-  const drafts = model.drafts.slice(0, count);
-  const site = join(root, 'site');
-  const job = (printer: Parameters<Parameters<typeof withPdfPrinter>[0]>[0], d: (typeof drafts)[number]) =>
-    printer.print(join(site, d.pagePath), documentPdfMeta({ ...d.document(), revision: d.revision }, { date: new Date('2026-11-30T00:00:00Z') }));
-  const one = await timed(() => withPdfPrinter(async (p) => { for (const d of drafts) await job(p, d); }, { pages: 1 }));
-  // As the build prints (lib/publish/draft-pdfs.ts): PRINT_LANES Chromiums, each every lanes-th draft.
-  const lanes = Array.from({ length: PRINT_LANES }, (_, lane) => drafts.filter((_d, i) => i % PRINT_LANES === lane));
-  const two = await timed(() => Promise.all(lanes.map((part) => withPdfPrinter(async (p) => { for (const d of part) await job(p, d); }, { pages: 1 }))));
-  return { one: one / drafts.length, two: two / drafts.length };
-}
-
 export async function benchSite(counts: number[]): Promise<Row[]> {
   const rows: Row[] = [];
   const rssByCount = new Map<number, number>();
@@ -193,14 +174,6 @@ export async function benchSite(counts: number[]): Promise<Row[]> {
       if (reference !== undefined && n > 100) {
         const growth = rss / reference - 1;
         rows.push({ section, measure: 'peak memory against N = 100', value: `${growth >= 0 ? '+' : ''}${(growth * 100).toFixed(0)} %`, target: '≤ +15 %', verdict: growth <= 0.15 ? 'met' : 'MISSED' });
-      }
-      if (findChromium()) {
-        const { one, two } = await pdfTimes(root, Math.min(n, 6));
-        // Issue 23: 1.0 s a document with the build's lanes.
-        rows.push({ section, measure: 'PDF per document, one browser reused', value: seconds(one) });
-        rows.push({ section, measure: `PDF per document, ${PRINT_LANES} Chromiums side by side (as the build prints)`, value: seconds(two), target: '≤ 1.0 s', verdict: two <= 1000 ? 'met' : 'MISSED' });
-      } else {
-        rows.push({ section, measure: 'PDF per document', value: 'not measured: no Chromium' });
       }
       const latency = await watchLatency(root, ids[Math.floor(ids.length / 2)]!);
       rows.push({ section, measure: 'saved basis to rebuilt page (cellbasis serve)', value: seconds(latency), target: '≤ 0.3 s', verdict: latency <= 300 ? 'met' : 'MISSED' });

@@ -15,7 +15,7 @@ import { announceChromiumSkip, describeWithChromium } from '../helpers/chromium.
 import { compact, pageTexts, pdfAttachments, pdfInfo } from '../helpers/pdf-inspect.ts';
 import { ISSUE_TIMEOUT, approvable, basisPath, issue, issuedPath, keygen, PROJECT, removeWorkspace, workspace } from '../helpers/archive-workspace.ts';
 import { treeDigest } from '../helpers/tree-digest.ts';
-import { pdfLayoutDigest } from '../helpers/site.ts';
+import { pdfLayoutMismatch } from '../helpers/site.ts';
 
 announceChromiumSkip('the issue tests');
 
@@ -135,12 +135,14 @@ describeWithChromium('issue', () => {
       expect(same('manifest.json'), 'manifest.json').toBe(true);
       return;
     }
-    // Chromium under heavy load has placed a glyph a fraction of a unit apart (a clean CI run of
-    // 4 Dec 2026): the same page then gives a PDF whose bytes, and so the manifest's hash of it,
-    // differ. The README says so; what must hold is the same layout to a whole unit, and a
-    // manifest that differs in that hash alone.
+    // Chromium under heavy load has placed a glyph one layout unit (1/64 px) apart (clean CI runs
+    // of 4 Dec 2026): the same page then gives a PDF whose bytes, and so the manifest's hash of
+    // it, differ. The printer now lays a page out once, for print only (lib/publish/pdf.ts,
+    // SCREEN_HELD), which took away the timing the layout depended on; should a print still
+    // differ, what must hold is the same layout to within 1/8 unit (a whole-unit digest failed
+    // when the glyph stood at a half unit), and a manifest that differs in that hash alone.
     const pdf = (root: string) => readFileSync(issuedPath(root, 'A', 'document.pdf'));
-    expect(pdfLayoutDigest(pdf(other))).toBe(pdfLayoutDigest(pdf(cwd)));
+    expect(pdfLayoutMismatch(pdf(other), pdf(cwd))).toBeNull();
     const withoutPdf = (root: string) => {
       const m = JSON.parse(readFileSync(issuedPath(root, 'A', 'manifest.json'), 'utf8'));
       delete m.files['document.pdf'];

@@ -120,29 +120,23 @@ export async function issuedDemoRoot(): Promise<string> {
 }
 
 /**
- * A digest of a PDF that ignores where Chromium puts each glyph to a fraction of a unit: the
- * content streams are inflated and every number in them rounded to a whole unit, and /Length
- * values and the cross-reference offsets (table or stream) are left out; everything else counts byte for byte. Under heavy load one print in about
- * a hundred in a stress run of our own placed one glyph 1/8 unit lower (a text matrix of
- * 6541.125 against 6541); a torn or other document still differs.
+ * A PDF as the layout comparisons read it: the text outside its streams and each stream's body
+ * (inflated when it is Flate-compressed), /Length values and the cross-reference offsets (table
+ * or stream) left out, since a stream one byte longer shifts them.
  */
-export function pdfLayoutDigest(bytes: Buffer): string {
-  const hash = createHash('sha256');
+function layoutParts(bytes: Buffer): { text: string; stream: boolean }[] {
+  const parts: { text: string; stream: boolean }[] = [];
   const text = bytes.toString('latin1');
   const streamStart = /\/Length (\d+)([^]*?)>>\s*stream\r?\n/g;
   let from = 0;
   for (let m = streamStart.exec(text); m; m = streamStart.exec(text)) {
     const length = Number(m[1]);
     const start = m.index + m[0].length;
-    hash.update(text.slice(from, m.index) + m[2]);
-    // A cross-reference stream (§7.5.8) holds byte offsets, which a longer stream shifts, as
-    // the xref table below does: its body is left out.
-    const dictionary = text.slice(text.lastIndexOf('<<', m.index), start);
-    if (/\/Type\s*\/XRef\b/.test(dictionary)) {
-      from = start + length;
-      streamStart.lastIndex = from;
-      continue;
-    }
+    parts.push({ text: text.slice(from, m.index) + m[2], stream: false });
+    from = start + length;
+    streamStart.lastIndex = from;
+    // A cross-reference stream (§7.5.8) holds byte offsets: its body is left out.
+    if (/\/Type\s*\/XRef\b/.test(text.slice(text.lastIndexOf('<<', m.index), start))) continue;
     let body = bytes.subarray(start, start + length);
     if (/\/FlateDecode/.test(text.slice(Math.max(0, m.index - 200), start))) {
       try {
@@ -151,14 +145,59 @@ export function pdfLayoutDigest(bytes: Buffer): string {
         // not a whole deflate stream: counted as it is
       }
     }
-    // Numbers rounded; hex and literal strings (the glyphs shown) kept as they are.
-    hash.update(body.toString('latin1').replace(/<[0-9A-Fa-f\s]*>|\((?:\\.|[^\\)])*\)|-?\d*\.\d+|-?\d+/g, (t) => (/^[<(]/.test(t) ? t : String(Math.round(Number(t))))));
-    from = start + length;
-    streamStart.lastIndex = from;
+    parts.push({ text: body.toString('latin1'), stream: true });
   }
-  // The cross-reference table and startxref give byte offsets, which a longer stream shifts.
-  hash.update(text.slice(from).replace(/\bxref\r?\n[^]*?trailer/, 'xref trailer').replace(/startxref\s+\d+/, 'startxref'));
+  // The cross-reference table and startxref give byte offsets.
+  parts.push({ text: text.slice(from).replace(/\bxref\r?\n[^]*?trailer/, 'xref trailer').replace(/startxref\s+\d+/, 'startxref'), stream: false });
+  return parts;
+}
+
+/** Hex and literal strings (the glyphs shown), numbers, and what lies between them. */
+const LAYOUT_TOKEN = /<[0-9A-Fa-f\s]*>|\((?:\\.|[^\\)])*\)|-?\d*\.\d+|-?\d+/g;
+
+/**
+ * A digest of a PDF that ignores where Chromium puts each glyph to a fraction of a unit: every
+ * number in a stream of layoutParts rounded to a whole unit; everything else counts byte for byte. Under
+ * heavy load one print in about a hundred in a stress run of our own placed one glyph 1/8 unit
+ * lower (a text matrix of 6541.125 against 6541); a torn or other document still differs. A
+ * number that lies near a half unit can still round both ways: to compare two prints, use
+ * pdfLayoutMismatch.
+ */
+export function pdfLayoutDigest(bytes: Buffer): string {
+  const hash = createHash('sha256');
+  for (const { text, stream } of layoutParts(bytes)) hash.update(stream ? text.replace(LAYOUT_TOKEN, (t) => (/^[<(]/.test(t) ? t : String(Math.round(Number(t))))) : text);
   return hash.digest('hex');
+}
+
+/**
+ * Where two PDFs differ in more than where a glyph or line stands to within `toleranceUnits`
+ * (every number in a stream of layoutParts compared with that tolerance, everything else byte
+ * for byte), or
+ * null when they do not. Two prints of the same page have differed by one layout unit (1/64 CSS
+ * px, 0.0156 in Chromium's content streams: a text matrix of 11478 against 11478.0156); a
+ * whole-unit digest (pdfLayoutDigest) tells those apart when the value lies at a half unit, which
+ * failed a CI run. The default tolerance, 1/8 unit, is eight layout units and far below anything
+ * a reader could see; a moved line or another glyph still differs.
+ */
+export function pdfLayoutMismatch(a: Buffer, b: Buffer, toleranceUnits = 0.125): string | null {
+  const [pa, pb] = [layoutParts(a), layoutParts(b)];
+  if (pa.length !== pb.length) return `${pa.length} against ${pb.length} parts`;
+  for (let i = 0; i < pa.length; i++) {
+    const [a, b] = [pa[i]!, pb[i]!];
+    if (!a.stream || !b.stream) {
+      if (a.text !== b.text) return `part ${i}: ${a.text.slice(0, 80)} against ${b.text.slice(0, 80)}`;
+      continue;
+    }
+    const [ta, tb] = [a.text.match(LAYOUT_TOKEN) ?? [], b.text.match(LAYOUT_TOKEN) ?? []];
+    const [ra, rb] = [a.text.replace(LAYOUT_TOKEN, '#'), b.text.replace(LAYOUT_TOKEN, '#')];
+    if (ra !== rb || ta.length !== tb.length) return `part ${i}: ${ra.slice(0, 80)} against ${rb.slice(0, 80)}`;
+    for (let k = 0; k < ta.length; k++) {
+      const [x, y] = [ta[k]!, tb[k]!];
+      const isString = /^[<(]/.test(x) || /^[<(]/.test(y);
+      if (isString ? x !== y : Math.abs(Number(x) - Number(y)) > toleranceUnits) return `part ${i}, token ${k}: ${x} against ${y}`;
+    }
+  }
+  return null;
 }
 
 /** treeDigest, with each PDF digested by pdfLayoutDigest: for sites whose drafts are printed anew. */
