@@ -8,7 +8,7 @@
  *           document.html has nothing beside it).
  * A table added to the view is linked and written without more work.
  */
-import { tableCsv, type Table } from './table.ts';
+import { tableCsv, tableHtml, type Table } from './table.ts';
 
 export type TableLinks = 'files' | 'inline';
 
@@ -32,7 +32,8 @@ export function tablesOf(view: unknown): Table[] {
   const found: Table[] = [];
   const seen = new Set<unknown>();
   const visit = (value: unknown): void => {
-    if (seen.has(value)) return;
+    // Numbers and strings (most of a view: charts' data) hold no table.
+    if (typeof value !== 'object' || value === null || seen.has(value)) return;
     if (isTable(value)) {
       seen.add(value);
       found.push(value);
@@ -68,8 +69,8 @@ export function linkedTables(view: object): Table[] {
 }
 
 /**
- * Gives every table of `view` its CSV link; `download` is the name a browser saves it under,
- * `<prefix>-<name>.csv`. Returns the tables.
+ * Gives every table of `view` its CSV link (`download` is the name a browser saves it under,
+ * `<prefix>-<name>.csv`) and its rows as HTML for the page (tableHtml). Returns the tables.
  */
 export function linkTables(view: object, mode: TableLinks, prefix: string): Table[] {
   const tables = tablesOf(view);
@@ -80,6 +81,7 @@ export function linkTables(view: object, mode: TableLinks, prefix: string): Tabl
       download: `${prefix}-${t.name}.csv`,
       text: `Download as CSV: ${t.title}`,
     };
+    t.html = tableHtml(t);
   }
   return tables;
 }

@@ -40,5 +40,9 @@ export function isTrustedHtml(value: unknown): value is TrustedHtml {
  * a user's text in a rendered page (the audit, for the note of an issued revision) finds it as the page has it.
  */
 export function escapeHtml(text: string): string {
-  return text.replace(/[&<>"'\\]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;', '\\': '&#92;' })[c]!);
+  return SPECIAL.test(text) ? text.replace(SPECIALS, (c) => ENTITIES[c]!) : text;
 }
+
+const ENTITIES: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;', '\\': '&#92;' };
+const SPECIAL = /[&<>"'\\]/;
+const SPECIALS = /[&<>"'\\]/g;
