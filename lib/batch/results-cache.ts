@@ -10,6 +10,7 @@
  * large or no regular file is a miss: calculated (or printed) again and written anew. The hash
  * guards against damage, not against someone who may write the cache and rewrites the hash too.
  */
+import { isAscii } from 'node:buffer';
 import { createHash } from 'node:crypto';
 import { existsSync, lstatSync, mkdirSync, renameSync, unlinkSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -62,6 +63,15 @@ export function resultsKey(basisBytes: string | Uint8Array, id: string, file: st
   return createHash('sha256').update(libraryFingerprint()).update('\0').update(id).update('\0').update(file).update('\0').update(basisBytes).digest('hex');
 }
 
+/** JSON of a value in ASCII: every character beyond it written as its \\u escape (JSON.parse gives the same value back). */
+function asciiJson(value: unknown): string {
+  const json = JSON.stringify(value);
+  return NON_ASCII.test(json) ? json.replace(NON_ASCII_ALL, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`) : json;
+}
+
+const NON_ASCII = /[^\u0000-\u007f]/;
+const NON_ASCII_ALL = /[^\u0000-\u007f]/g;
+
 export class ResultsCache {
   private readonly dir: string;
 
@@ -73,7 +83,10 @@ export class ResultsCache {
     const body = readCacheEntry(join(this.dir, `${key}.json`));
     if (!body) return undefined;
     try {
-      return JSON.parse(body.toString('utf8')) as Results;
+      // Entries are written in ASCII (asciiJson): read as one-byte text, which decodes and
+      // parses at about twice the speed of UTF-8 text with a few non-ASCII characters (°, Δ, ·)
+      // in it. An entry of an earlier writer may hold UTF-8, and is read as such.
+      return JSON.parse(body.toString(isAscii(body) ? 'latin1' : 'utf8')) as Results;
     } catch {
       return undefined;
     }
@@ -86,6 +99,6 @@ export class ResultsCache {
 
   put(key: string, results: Results): void {
     mkdirSync(this.dir, { recursive: true });
-    writeCacheEntry(join(this.dir, `${key}.json`), JSON.stringify(results));
+    writeCacheEntry(join(this.dir, `${key}.json`), asciiJson(results));
   }
 }

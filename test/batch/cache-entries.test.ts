@@ -35,6 +35,23 @@ describe('cache entries are verified before they are trusted', () => {
     expect(cache.get(key)).toBeUndefined();
   });
 
+  it('an entry is written in ASCII and reads back the same results, as does an entry written in UTF-8', () => {
+    const { root, dir } = cacheRoot();
+    const cache = new ResultsCache(root);
+    // Results text carries non-ASCII characters (degree signs, Greek letters, middle dots); so does this one, beyond U+FFFF too.
+    const text = 'ΔG at 80 °C · 𝜂';
+    const withText = { ...results, project: { ...results.project, title: text } };
+    expect(JSON.stringify(results)).toMatch(/[^\u0000-\u007f]/);
+    cache.put(key, withText);
+    const bytes = readFileSync(join(dir, `${key}.json`));
+    expect(bytes.every((b) => b < 0x80)).toBe(true);
+    expect(cache.get(key)).toEqual(withText);
+    // An entry an earlier version wrote, in UTF-8, is read as UTF-8.
+    writeCacheEntry(join(dir, `${key}.json`), JSON.stringify(withText));
+    expect(readFileSync(join(dir, `${key}.json`)).some((b) => b >= 0x80)).toBe(true);
+    expect(cache.get(key)).toEqual(withText);
+  });
+
   it('an entry of the old format (bare JSON), torn, empty or with a bad header is a miss', () => {
     const { root, dir } = cacheRoot();
     const cache = new ResultsCache(root);
