@@ -12,7 +12,7 @@ import { formatNumber, formatPercent, formatTrimmed, texNumber } from './format.
 import { renderTex } from './katex-render.ts';
 import { texValue } from './tex.ts';
 import { unitTex, unitText } from './units.ts';
-import type { TrustedHtml } from './trusted-html.ts';
+import { escapeHtml, trustedHtml, type TrustedHtml } from './trusted-html.ts';
 
 export interface CalcQuantity {
   symbol: TrustedHtml;
@@ -31,6 +31,8 @@ export interface CalcLine {
   /** The result with its unit: "0.9893 V". */
   result: string;
   quantities: CalcQuantity[];
+  /** The quantities as the rows of the line's table of where each number comes from (symbol, value, origin), as HTML. */
+  quantityRows: TrustedHtml;
   /** A remark on how the line is evaluated, or "". */
   note: string;
   inputs: Record<string, number>;
@@ -70,6 +72,16 @@ export interface LineSpec {
 
 const SUBSTITUTION_DIGITS = 6;
 
+/**
+ * The rows of a line's table of quantities as HTML, the text escaped as the templates'
+ * autoescaping does: made here, not by a Nunjucks loop per quantity in the workedLine macro.
+ */
+function quantityRows(quantities: readonly CalcQuantity[]): TrustedHtml {
+  let html = '';
+  for (const q of quantities) html += `<tr><td class="sym">${q.symbol.html}</td><td class="num">${escapeHtml(q.value)}</td><td class="txt">${escapeHtml(q.origin)}</td></tr>`;
+  return trustedHtml(html);
+}
+
 export function calcLine(spec: LineSpec, book: EquationBook): CalcLine {
   const equation = book.get(spec.equation);
   const relation = equation.entry.relations[spec.relation];
@@ -89,20 +101,22 @@ export function calcLine(spec: LineSpec, book: EquationBook): CalcLine {
   const substituted = `${relation.rhs(numbers, NUMBERS)}${spec.conversion ?? ''}`;
   // A relation that equates two expressions shows both with the numbers put in: lhs(numbers) = rhs(numbers) = result.
   const substitutedLhs = relation.lhsOf ? relation.lhsOf(numbers, NUMBERS) : '';
+  const quantities = spec.quantities.map((q): CalcQuantity => {
+    const symbol = relation.symbols[q.name]!;
+    return {
+      symbol: renderTex(symbol.listed ?? symbolTex(symbol, 'line')),
+      value: `${formatTrimmed(q.value, q.digits ?? SUBSTITUTION_DIGITS)}${q.unit ? ` ${unitText(q.unit)}` : ''}`,
+      origin: q.origin,
+    };
+  });
   return {
     id: spec.id,
     title: spec.title,
     equation: { number: equation.number, anchor: equation.anchor },
     math: renderTex(`\\begin{aligned} ${lhs} &= ${symbolicRhs(relation, 'line')} \\\\ ${substitutedLhs} &= ${substituted} = ${resultTex} \\end{aligned}`, true),
     result: spec.percent ? formatPercent(spec.value) : `${formatNumber(spec.value, digits)}${spec.unit ? ` ${unitText(spec.unit)}` : ''}`,
-    quantities: spec.quantities.map((q) => {
-      const symbol = relation.symbols[q.name]!;
-      return {
-        symbol: renderTex(symbol.listed ?? symbolTex(symbol, 'line')),
-        value: `${formatTrimmed(q.value, q.digits ?? SUBSTITUTION_DIGITS)}${q.unit ? ` ${unitText(q.unit)}` : ''}`,
-        origin: q.origin,
-      };
-    }),
+    quantities,
+    quantityRows: quantityRows(quantities),
     note: spec.note ?? '',
     inputs,
     value: spec.value,

@@ -13,10 +13,12 @@ import { electrolyte } from '../electrochem/electrolytes.ts';
 import { equationTable, mixedConductor, type EquationEntry } from './equations.ts';
 import { sectionNumber } from './outline.ts';
 import { hotSpot } from './local-current.ts';
-import { prose, type Paragraph } from './prose.ts';
+import { paragraphHtml, prose, type Paragraph } from './prose.ts';
+import type { TrustedHtml } from './trusted-html.ts';
 import { formatNumber } from './format.ts';
 
-export type MethodBlock = { kind: 'paragraph'; paragraph: Paragraph } | { kind: 'equation'; equation: Equation };
+/** A paragraph (its segments, and its HTML once its citations are resolved, which the page shows) or a numbered equation. */
+export type MethodBlock = { kind: 'paragraph'; paragraph: Paragraph; html?: TrustedHtml } | { kind: 'equation'; equation: Equation };
 
 export interface MethodStep {
   id: string;
@@ -427,7 +429,7 @@ function cases(step: Step, r: Results, table: ReadonlyMap<string, EquationEntry>
   step.text('The envelope takes, for each quantity that sizes equipment, the largest or the smallest value over the cases that ran and names the case that sets it.');
 }
 
-/** Replaces {{key}} in a step's text with the equation number (our own markers in our own text). */
+/** Replaces {{key}} in a step's text with the equation number (our own markers in our own text), then makes each paragraph's HTML. */
 function resolveCitations(steps: MethodStep[], book: EquationBook): void {
   for (const step of steps) {
     for (const block of step.blocks) {
@@ -435,6 +437,7 @@ function resolveCitations(steps: MethodStep[], book: EquationBook): void {
       for (const segment of block.paragraph) {
         if (segment.text !== undefined) segment.text = segment.text.replace(/\{\{([a-z-]+)\}\}/g, (_, key: string) => String(book.get(key).number));
       }
+      block.html = paragraphHtml(block.paragraph);
     }
   }
 }

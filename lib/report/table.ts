@@ -227,7 +227,7 @@ const cellClass = (align: Align | undefined): string => (align === 'right' ? 'nu
  * The header cells and the body rows of a table as HTML, every text escaped as the templates'
  * autoescaping does (escapeHtml): what the dataTable macro showed with a Nunjucks loop per row
  * and per cell, made here in one pass because those loops were the largest part of a page's
- * render (each iteration a scope of its own in Nunjucks). test/report/table-html.test.ts checks it
+ * render (each iteration a scope of its own in Nunjucks). test/report/view-html.test.ts checks it
  * byte for byte against that loop. A body row is indented by four spaces and ends in a newline.
  */
 export function tableHtml(t: Table): TableHtml {

@@ -1,9 +1,11 @@
-// A document's tables reach the page as HTML made by lib/report/table.ts (tableHtml), no longer
-// by a Nunjucks loop per row and per cell in the dataTable macro. The reference is that loop
-// itself, kept here exactly as templates/_includes/macros.njk had it, rendered with the site's
-// own Nunjucks environment (autoescaping on): every table of the document of every demo
-// (projects/*) and of two scaffolds must come out byte for byte the same, and so must tables
-// made to hold every character the escaping changes, group rows, flags and empty bodies.
+// A document's tables, the method's paragraphs and the worked lines' quantities reach the page as
+// HTML made in lib/report (tableHtml, paragraphHtml, a line's quantityRows), no longer by Nunjucks
+// loops over rows, cells, segments and quantities in the macros. The reference is those loops
+// themselves, kept here exactly as templates/_includes/macros.njk had them, rendered with the
+// site's own Nunjucks environment (autoescaping on): every table, paragraph and worked line of
+// the document of every demo (projects/*) and of two scaffolds must come out byte for byte the
+// same, and so must tables made to hold every character the escaping changes, group rows, flags
+// and empty bodies.
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -13,6 +15,9 @@ import { calculate } from '../../lib/plant/calculate.ts';
 import { documentView } from '../../lib/report/document.ts';
 import { tableHtml, type Table } from '../../lib/report/table.ts';
 import { linkedTables } from '../../lib/report/table-links.ts';
+import { paragraphHtml, type Paragraph } from '../../lib/report/prose.ts';
+import type { CalcLine } from '../../lib/report/calc-line.ts';
+import type { DocumentView } from '../../lib/report/document.ts';
 import { nunjucksEnvironment } from '../../lib/publish/nunjucks-env.ts';
 import { PACKAGE_ROOT } from '../../lib/publish/paths.ts';
 import { basisFrom } from '../helpers/scaffold-basis.ts';
@@ -35,20 +40,33 @@ const byTableHtml = (t: Table): string => {
   return `<thead><tr>${html.head.html}</tr></thead>\n  <tbody>\n${html.body.html}  </tbody>`;
 };
 
-function tablesOfDocument(basis: DesignBasis): Table[] {
-  const view = documentView({ basis, results: calculate(basis), revision: { kind: 'draft', revision: 'A', lastIssued: null, date: null }, history: [] }, { assetBase: '../../assets/' });
-  return linkedTables(view);
+/** The paragraph macro and the quantities loop of the workedLine macro before paragraphHtml and quantityRows, verbatim. */
+const PARAGRAPH_LOOP = `{% for s in segments %}{% if s.math %}{{ s.math | trusted }}{% else %}{{ s.text }}{% endif %}{% endfor %}`;
+const QUANTITY_LOOP = `{% for q in line.quantities %}<tr><td class="sym">{{ q.symbol | trusted }}</td><td class="num">{{ q.value }}</td><td class="txt">{{ q.origin }}</td></tr>{% endfor %}`;
+
+function viewOf(basis: DesignBasis): DocumentView {
+  return documentView({ basis, results: calculate(basis), revision: { kind: 'draft', revision: 'A', lastIssued: null, date: null }, history: [] }, { assetBase: '../../assets/' });
+}
+
+let demoViews: DocumentView[] | undefined;
+
+/** The views of every demo and of two scaffolds, made once for the tests of this file. */
+function views(): DocumentView[] {
+  demoViews ??= [
+    ...readdirSync(join(PACKAGE_ROOT, 'projects')).map((id) => {
+      const loaded = loadBasisText(readFileSync(join(PACKAGE_ROOT, 'projects', id, 'basis.yaml'), 'utf8'), `projects/${id}/basis.yaml`, id);
+      if (!loaded.ok) throw new Error(`${id}: ${loaded.errors.map((e) => e.message).join('; ')}`);
+      return viewOf(loaded.basis);
+    }),
+    viewOf(basisFrom('solid-oxide', 'power')),
+    viewOf(basisFrom('pem', 'electrolysis')),
+  ];
+  return demoViews;
 }
 
 describe('tables as HTML (tableHtml)', () => {
   it('are byte for byte what the Nunjucks loop made, for every table of every demo and of two scaffolds', () => {
-    const tables: Table[] = [];
-    for (const id of readdirSync(join(PACKAGE_ROOT, 'projects'))) {
-      const loaded = loadBasisText(readFileSync(join(PACKAGE_ROOT, 'projects', id, 'basis.yaml'), 'utf8'), `projects/${id}/basis.yaml`, id);
-      if (!loaded.ok) throw new Error(`${id}: ${loaded.errors.map((e) => e.message).join('; ')}`);
-      tables.push(...tablesOfDocument(loaded.basis));
-    }
-    tables.push(...tablesOfDocument(basisFrom('solid-oxide', 'power')), ...tablesOfDocument(basisFrom('pem', 'electrolysis')));
+    const tables = views().flatMap((v) => linkedTables(v));
     // Some thirty tables a document: a handful would mean the views were not searched.
     expect(tables.length).toBeGreaterThan(100);
     expect(tables.some((t) => t.rows.some((r) => r.group))).toBe(true);
@@ -74,5 +92,20 @@ describe('tables as HTML (tableHtml)', () => {
     const t = { name: 'a', title: 'A', head: ['x'], align: ['left'], rows: [{ cells: [undefined] }], data: { columns: [], rows: [] } } as unknown as Table;
     expect(() => tableHtml(t)).toThrow(/a table cell is undefined/);
     expect(() => byLoop(t)).toThrow();
+  });
+
+  it('method paragraphs and worked lines’ quantities are byte for byte what the Nunjucks loops made', () => {
+    const env = nunjucksEnvironment();
+    const paragraphs: { paragraph: Paragraph; html: string }[] = [];
+    const lines: CalcLine[] = [];
+    for (const v of views()) {
+      for (const b of v.method.flatMap((s) => s.blocks)) if (b.kind === 'paragraph') paragraphs.push({ paragraph: b.paragraph, html: b.html!.html });
+      lines.push(...v.results.groups.flatMap((g) => g.lines), ...v.cases.lines.flatMap((g) => g.lines));
+    }
+    expect(paragraphs.length).toBeGreaterThan(200);
+    expect(paragraphs.some((p) => p.paragraph.some((s) => s.math)) && paragraphs.some((p) => /[&<>"']/.test(p.paragraph.map((s) => s.text ?? '').join('')))).toBe(true);
+    expect(lines.length).toBeGreaterThan(100);
+    expect(paragraphs.filter((p) => p.html !== env.renderString(PARAGRAPH_LOOP, { segments: p.paragraph }) || paragraphHtml(p.paragraph).html !== p.html)).toEqual([]);
+    expect(lines.filter((l) => l.quantityRows.html !== env.renderString(QUANTITY_LOOP, { line: l })).map((l) => l.id)).toEqual([]);
   });
 });
