@@ -2,7 +2,8 @@
  * A disk cache of results: `.cellbasis-cache/results/<key>.json` under the working folder, keyed by
  * SHA-256 of the basis bytes, the project id, the file name and the library fingerprint
  * (lib/batch/fingerprint.ts). Entries are written to a temporary file and renamed, so a killed
- * build never leaves a torn entry.
+ * build never leaves a torn entry. A results entry is JSON in ASCII (every other character as its
+ * \u escape), which is read back about twice as fast as UTF-8 text.
  *
  * An entry is trusted only once verified: it starts with a line holding the SHA-256 of what
  * follows (`cellbasis-cache sha256=<hex>`), and is read through the bounded reader (no link, no
