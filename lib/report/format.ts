@@ -22,13 +22,14 @@ interface Parts {
 /** Rounds to `digits` significant digits and splits into sign, digits and exponent. */
 function parts(value: number, digits: number): Parts {
   if (!Number.isFinite(value)) throw new Error(`cannot format ${value} as a number of the document`);
-  const negative = value < 0 && Number(Math.abs(value).toPrecision(digits)) !== 0;
   const magnitude = Math.abs(value);
+  // Rounded once, for the sign (a value that rounds to zero has none) and the fixed notation.
+  const rounded = Number(magnitude.toPrecision(digits));
+  const negative = value < 0 && rounded !== 0;
   if (magnitude === 0) return { negative: false, digits: '0', exponent: null };
   // A whole number (a cell count, a current of 40 A) is written in full.
   if (Number.isInteger(magnitude) && magnitude < 1e9) return { negative, digits: String(magnitude), exponent: null };
   if (magnitude >= 1e-3 && magnitude < 1e9) {
-    const rounded = Number(magnitude.toPrecision(digits));
     const places = Math.max(0, digits - 1 - Math.floor(Math.log10(rounded)));
     return { negative, digits: rounded.toFixed(places), exponent: null };
   }
@@ -37,9 +38,12 @@ function parts(value: number, digits: number): Parts {
 }
 
 function grouped(digits: string, separator: string): string {
-  const [whole, fraction] = digits.split('.');
-  const body = whole!.length > 4 ? whole!.replace(/\B(?=(\d{3})+(?!\d))/g, separator) : whole!;
-  return fraction === undefined ? body : `${body}.${fraction}`;
+  const point = digits.indexOf('.');
+  const whole = point < 0 ? digits : digits.slice(0, point);
+  // Most numbers of a document have four digits or fewer before the point: nothing to group.
+  if (whole.length <= 4) return digits;
+  const body = whole.replace(/\B(?=(\d{3})+(?!\d))/g, separator);
+  return point < 0 ? body : `${body}${digits.slice(point)}`;
 }
 
 function plainText(p: Parts): string {
