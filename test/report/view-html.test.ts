@@ -70,7 +70,7 @@ describe('tables as HTML (tableHtml)', () => {
     // Some thirty tables a document: a handful would mean the views were not searched.
     expect(tables.length).toBeGreaterThan(100);
     expect(tables.some((t) => t.rows.some((r) => r.group))).toBe(true);
-    expect(tables.some((t) => t.rows.some((r) => r.flag))).toBe(true);
+    // Flagged rows (a failed check, an open assumption) need not occur in the demos: the next test makes them.
     const differing = tables.filter((t) => byTableHtml(t) !== byLoop(t)).map((t) => t.name);
     expect(differing).toEqual([]);
     // The view hands each table its HTML with its CSV link (linkTables).
