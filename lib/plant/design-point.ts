@@ -211,6 +211,15 @@ function stackStreams(inputs: DesignInputs, unit: UnitFeeds, path: FuelPath, sca
 }
 
 /**
+ * The share a short coolant carries, in whole percent; just short of all of it with one decimal,
+ * rounded down, so that a finding never reads "carries only 100 %" (it is raised above 0.01 % short).
+ */
+function shortShare(fraction: number): string {
+  const whole = (fraction * 100).toFixed(0);
+  return whole === '100' ? (Math.floor(fraction * 1000) / 10).toFixed(1) : whole;
+}
+
+/**
  * Power mode: the air that would carry the stack's heat at the allowed rise (air cools the stack
  * in high-temperature cells; low-temperature cells have a liquid coolant), with a finding where
  * the air fed falls short.
@@ -225,7 +234,7 @@ function coolingAir(inputs: DesignInputs, heat: HeatBalance, airInletFlows: Reco
         'cooling-air-short',
         'warning',
         inputs.air.kind === 'ratio' ? 'operating-point.air-ratio' : 'operating-point.air-utilization',
-        `the air fed (${fed.toPrecision(4)} mol/s) carries only ${((fed / air) * 100).toFixed(0)} % of the stack heat at a ${inputs.allowedAirTemperatureRiseK} K rise; ${air.toPrecision(4)} mol/s of air would be needed, or another heat sink`,
+        `the air fed (${fed.toPrecision(4)} mol/s) carries only ${shortShare(fed / air)} % of the stack heat at a ${inputs.allowedAirTemperatureRiseK} K rise; ${air.toPrecision(4)} mol/s of air would be needed, or another heat sink`,
         ['conditions.allowed-air-temperature-rise'],
       ),
     );
@@ -293,7 +302,7 @@ function coolingWater(inputs: DesignInputs, streams: ReturnType<typeof stackStre
         'water-loop-short',
         'warning',
         utilizationFieldOf(inputs),
-        `the water fed (${kgPerH(waterFed)} t/h, ${(1 / inputs.utilization).toPrecision(3)} times the water split) carries only ${((waterFed / needed) * 100).toFixed(0)} % of the stack heat (${(heat.isothermalHeatW / 1000).toPrecision(4)} kW) at a ${inputs.allowedAirTemperatureRiseK} K rise; ${kgPerH(needed)} t/h would be needed, or another heat sink`,
+        `the water fed (${kgPerH(waterFed)} t/h, ${(1 / inputs.utilization).toPrecision(3)} times the water split) carries only ${shortShare(waterFed / needed)} % of the stack heat (${(heat.isothermalHeatW / 1000).toPrecision(4)} kW) at a ${inputs.allowedAirTemperatureRiseK} K rise; ${kgPerH(needed)} t/h would be needed, or another heat sink`,
         ['conditions.allowed-air-temperature-rise'],
       ),
     );

@@ -71,6 +71,16 @@ describe('findings of the stack calculation', () => {
     expect('notes' in r).toBe(false);
   });
 
+  it('says a loop just short of the heat carries 99.8 %, never "only 100 %"', () => {
+    // Water fed ∝ 1 / steam-conversion: the share at 0.05 sets the conversion at which 99.85 % is carried.
+    const at = (conversion: number) => calculate(basisFrom('pem', 'electrolysis', { 'operating-point.steam-conversion': conversion }));
+    const first = at(0.05);
+    const share = first.supply.water_kg_per_h / first.heat.coolingWater_kg_per_h!;
+    const r = at((0.05 * share) / 0.9985);
+    const loop = r.findings.find((f) => f.code === 'water-loop-short')!;
+    expect(loop.message).toContain('carries only 99.8 % of the stack heat');
+  });
+
   it('air that cannot carry the stack heat, with its air utilization taken from a confirmed assumption', () => {
     const r = calculate(
       basisFrom('solid-oxide', 'power', {
