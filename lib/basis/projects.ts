@@ -144,44 +144,69 @@ function missingBasis(folder: string, name: string): string | undefined {
  * leads outside projects/ is an error; a file is a warning. Names starting with "." (.git,
  * .DS_Store: the files of other tools) are passed over.
  */
-export function scanProjects(cwd: string): { ids: string[]; problems: ProjectsProblem[] } {
+export function scanProjects(cwd: string): ProjectsScan {
   const projects = join(cwd, 'projects');
   if (!existsSync(projects)) return { ids: [], problems: [] };
+  const names = readdirSync(projects).filter((name) => !name.startsWith('.'));
+  return collect(names.map((name) => projectEntry(projects, name)));
+}
+
+/** What scanProjects finds in projects/. */
+export interface ProjectsScan {
+  ids: string[];
+  problems: ProjectsProblem[];
+}
+
+/** One entry of projects/: a project's id, or the problem that makes it none. */
+type ProjectEntry = { name: string; id: string } | { name: string; problem: ProjectsProblem };
+
+/** The ids and problems of `entries`, in the order of their names. */
+function collect(entries: ProjectEntry[]): ProjectsScan {
   const ids: string[] = [];
   const problems: ProjectsProblem[] = [];
-  const error = (name: string, message: string) => problems.push({ severity: 'error', path: `projects/${name}`, message });
-  for (const entry of readdirSync(projects, { withFileTypes: true }).sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0))) {
-    const { name } = entry;
-    if (name.startsWith('.')) continue;
-    const folder = join(projects, name);
-    const escaping = escape(projects, folder, `projects/${name}`);
-    if (escaping) {
-      problems.push({ severity: 'error', path: `projects/${name}`, message: escaping.replace(`projects/${name} `, '') });
-      continue;
-    }
-    if (!statSync(folder, { throwIfNoEntry: false })?.isDirectory()) {
-      problems.push({ severity: 'warning', path: `projects/${name}`, message: 'is not a folder, and each entry of projects/ is a project folder; it is left out: move it elsewhere' });
-      continue;
-    }
-    const badName = projectIdProblem(name);
-    if (badName) {
-      const like = idLike(name);
-      error(name, `is no project: the folder's name is no project id (${badName.replace(/^project id "[^"]*" /, '')}); rename the folder${like ? `, to ${like} for instance` : ''}`);
-      continue;
-    }
-    const missing = missingBasis(folder, name);
-    if (missing) {
-      error(name, `is no project: it ${missing}`);
-      continue;
-    }
-    const basisEscape = escape(projects, join(folder, BASIS_FILE), `projects/${name}`);
-    if (basisEscape) {
-      error(name, basisEscape.replace(`projects/${name} `, ''));
-      continue;
-    }
-    ids.push(name);
+  for (const entry of entries.sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0))) {
+    if ('id' in entry) ids.push(entry.id);
+    else problems.push(entry.problem);
   }
   return { ids, problems };
+}
+
+/** What the entry `name` of projects/ is (see scanProjects). */
+function projectEntry(projects: string, name: string): ProjectEntry {
+  const path = `projects/${name}`;
+  const problem = (severity: 'error' | 'warning', message: string): ProjectEntry => ({ name, problem: { severity, path, message } });
+  const folder = join(projects, name);
+  const escaping = escape(projects, folder, path);
+  if (escaping) return problem('error', escaping.replace(`${path} `, ''));
+  if (!statSync(folder, { throwIfNoEntry: false })?.isDirectory()) {
+    return problem('warning', 'is not a folder, and each entry of projects/ is a project folder; it is left out: move it elsewhere');
+  }
+  const badName = projectIdProblem(name);
+  if (badName) {
+    const like = idLike(name);
+    return problem('error', `is no project: the folder's name is no project id (${badName.replace(/^project id "[^"]*" /, '')}); rename the folder${like ? `, to ${like} for instance` : ''}`);
+  }
+  const missing = missingBasis(folder, name);
+  if (missing) return problem('error', `is no project: it ${missing}`);
+  const basisEscape = escape(projects, join(folder, BASIS_FILE), path);
+  if (basisEscape) return problem('error', basisEscape.replace(`${path} `, ''));
+  return { name, id: name };
+}
+
+/**
+ * `previous` (a scanProjects of `cwd`) with the entries `names` of projects/ looked at again, the
+ * others as they were: what scanProjects would find when only those entries' contents changed
+ * (a saved, deleted or broken basis.yaml), at the cost of those entries rather than of all.
+ * A name no longer in projects/ is left out.
+ */
+export function rescanProjects(cwd: string, previous: ProjectsScan, names: ReadonlySet<string>): ProjectsScan {
+  const projects = join(cwd, 'projects');
+  const kept: ProjectEntry[] = [
+    ...previous.ids.filter((id) => !names.has(id)).map((id) => ({ name: id, id })),
+    ...previous.problems.map((problem) => ({ name: problem.path.slice('projects/'.length), problem })).filter((e) => !names.has(e.name)),
+  ];
+  const again = [...names].filter((name) => !name.startsWith('.') && lstatSync(join(projects, name), { throwIfNoEntry: false }));
+  return collect([...kept, ...again.map((name) => projectEntry(projects, name))]);
 }
 
 /** A problem of projects/ as one line: `projects/Bad_Name is no project: ...`, `warning: projects/notes.txt is not a folder, ...`. */

@@ -29,7 +29,7 @@ import { copyFileSync, mkdirSync, renameSync, rmSync, writeFileSync } from 'node
 import type { IncomingMessage, Server, ServerResponse } from 'node:http';
 import { dirname, join, relative, resolve, sep } from 'node:path';
 import { createRequire } from 'node:module';
-import { projectsProblemText, scanProjects } from '../basis/projects.ts';
+import { projectsProblemText, rescanProjects, scanProjects, type ProjectsScan } from '../basis/projects.ts';
 import { UserError, EXIT_VALIDATION } from '../core/errors.ts';
 import { fileProblem } from '../core/file-errors.ts';
 import { portfolioView, type PortfolioProject } from '../report/portfolio.ts';
@@ -98,6 +98,8 @@ function copyAtomically(from: string, path: string): void {
 class IncrementalSite {
   private readonly projects = new Map<string, ProjectState>();
   private loader: ProjectLoader;
+  /** projects/ as last listed: a change inside some projects' folders looks at those entries only. */
+  private scan: ProjectsScan = { ids: [], problems: [] };
 
   constructor(
     private readonly root: string,
@@ -145,10 +147,11 @@ class IncrementalSite {
     rmSync(join(this.out, 'projects', id), { recursive: true, force: true });
   }
 
-  /** Renders the portfolio index from the current state; returns its file. */
-  index(): string {
-    const { ids, problems } = scanProjects(this.root);
-    for (const id of [...this.projects.keys()]) if (!ids.includes(id)) this.forget(id);
+  /** Renders the portfolio index from the current state and `scan`, projects/ as it is now; returns its file. */
+  index(scan: ProjectsScan): string {
+    const { ids, problems } = scan;
+    const present = new Set(ids);
+    for (const id of [...this.projects.keys()]) if (!present.has(id)) this.forget(id);
     const states = ids.map((id) => this.projects.get(id)).filter((s): s is ProjectState => s !== undefined);
     const errors = [...problems.filter((p) => p.severity === 'error').map(projectsProblemText), ...states.flatMap((s) => s.errors)];
     const portfolio = portfolioView(
@@ -164,8 +167,19 @@ class IncrementalSite {
   all(): string[] {
     this.loader = projectLoader(this.root);
     writeSiteAssets(join(this.out, ASSET_DIR));
-    const files = scanProjects(this.root).ids.flatMap((id) => this.project(id));
-    return [...files, this.index()];
+    const scan = this.listProjects(null);
+    const files = scan.ids.flatMap((id) => this.project(id));
+    return [...files, this.index(scan)];
+  }
+
+  /**
+   * projects/ as it is now: listed again in full (`changed` null, when an entry of projects/
+   * itself came, went or was renamed), or with only the entries `changed` looked at again, when
+   * only what is inside those project folders changed.
+   */
+  listProjects(changed: ReadonlySet<string> | null): ProjectsScan {
+    this.scan = changed ? rescanProjects(this.root, this.scan, changed) : scanProjects(this.root);
+    return this.scan;
   }
 }
 
@@ -290,21 +304,27 @@ async function startDevServer(out: string, host: string, wanted: number): Promis
 function rebuildOnChange(root: string, site: IncrementalSite, dev: DevServer): () => void {
   // Changes are collected for a short moment (an editor saves in several writes), then rendered.
   const pending = new Set<string>();
+  // Whether an entry of projects/ itself (or projects/) came, went or was renamed: then it is listed again in full.
+  let listing = false;
   let templates = false;
   let timer: NodeJS.Timeout | null = null;
   const flush = () => {
     timer = null;
     const ids = [...pending];
     const all = templates;
+    const full = listing;
     pending.clear();
     templates = false;
+    listing = false;
     try {
       // Only the projects there are now: a folder renamed away, or to a name that is no id, has none.
-      const projects = new Set(scanProjects(root).ids);
-      const files = all ? site.all() : [...ids.filter((id) => projects.has(id)).flatMap((id) => site.project(id)), site.index()];
+      // projects/ is listed once a rebuild, for the changed projects and the index alike.
+      const scan = all ? null : site.listProjects(full ? null : new Set(ids));
+      const files = !scan ? site.all() : [...ids.filter((id) => scan.ids.includes(id)).flatMap((id) => site.project(id)), site.index(scan)];
       dev.reloadFiles(files, false);
     } catch (error) {
-      // A file that vanished mid-render, a full disk: said, and the next change tries again.
+      // A file that vanished mid-render, a full disk: said, and the next change tries again, listing projects/ in full.
+      listing = true;
       const problem = error instanceof UserError ? error : fileProblem(error, (p) => relative(root, p) || '.');
       process.stderr.write(`serve: the site could not be rebuilt: ${problem ? problem.message : (error as Error).message}\n`);
     }
@@ -314,8 +334,9 @@ function rebuildOnChange(root: string, site: IncrementalSite, dev: DevServer): (
   };
   const watchers: TreeWatch[] = [
     watchTree(join(root, 'projects'), (path) => {
-      if (path.endsWith('.tmp')) return;
       const id = projectOf(root, path);
+      if (id === null || path === join(root, 'projects', id)) listing = true;
+      if (path.endsWith('.tmp')) return;
       if (id) pending.add(id);
       schedule();
     }),

@@ -170,6 +170,19 @@ describe('what happens to projects never stops it', () => {
     writeFileSync(basisFile(root, ID), good);
     expect(await until(`/projects/${ID}/`, (h) => h.includes(TITLE))).toContain(TITLE);
   }, 60_000);
+
+  it('a basis deleted from its folder makes the folder no project on the index, and written again a project again', async () => {
+    // A change inside a project's folder looks at that entry of projects/ again, not at them all:
+    // that entry must still change from a project to no project and back.
+    rmSync(basisFile(root, ID));
+    const index = await until('/', (h) => h.includes(`projects/${ID} is no project`));
+    expect(index).toContain(`projects/${ID} is no project: it holds no basis.yaml`);
+    expect(index).not.toContain(TITLE);
+    expect((await get(`/projects/${ID}/`)).status).toBe(404);
+    writeFileSync(basisFile(root, ID), good);
+    expect(await until('/', (h) => h.includes(TITLE) && !h.includes('is no project'))).toContain(TITLE);
+    expect(await until(`/projects/${ID}/`, (h) => h.includes(TITLE))).toContain(TITLE);
+  }, 60_000);
 });
 
 describe('a taken port', () => {
