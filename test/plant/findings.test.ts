@@ -75,7 +75,7 @@ describe('findings of the stack calculation', () => {
     // Water fed ∝ 1 / steam-conversion: the share at 0.05 sets the conversion at which 99.85 % is carried.
     const at = (conversion: number) => calculate(basisFrom('pem', 'electrolysis', { 'operating-point.steam-conversion': conversion }));
     const first = at(0.05);
-    const share = first.supply.water_kg_per_h / first.heat.coolingWater_kg_per_h!;
+    const share = first.supply.water_kg_per_h! / first.heat.coolingWater_kg_per_h!;
     const r = at((0.05 * share) / 0.9985);
     const loop = r.findings.find((f) => f.code === 'water-loop-short')!;
     expect(loop.message).toContain('carries only 99.8 % of the stack heat');
