@@ -14,7 +14,7 @@ import { PA_PER_BAR, STANDARD_ATMOSPHERE_PA } from '../thermo/constants.ts';
 const STANDARD_ATMOSPHERE_BAR = STANDARD_ATMOSPHERE_PA / PA_PER_BAR;
 import { ZERO_CELSIUS_K as ZERO_C } from '../core/units.ts';
 import type { Mode, Technology } from '../electrochem/technologies.ts';
-import { readTemperature } from './read-conditions.ts';
+import { kelvinText, readTemperature } from './read-conditions.ts';
 import { withinLimit, type LimitedInput } from './limits.ts';
 import type { Path } from './diagnostics.ts';
 import type { Read, Reader } from './reader.ts';
@@ -185,22 +185,29 @@ function compression(reader: Reader, fuelPressureBar: number | undefined): Compr
   }
   const stages = reader.has(at('stages')) ? count(reader, at('stages'), 'number of compression stages', 'compression-stages') : undefined;
   const ratio = reader.has(at('maximum-stage-ratio')) ? limited(reader, reader.number(at('maximum-stage-ratio'), 'maximum stage pressure ratio'), 'compression-stage-ratio', 'maximum stage pressure ratio') : undefined;
-  if (reader.has(at('stages')) === reader.has(at('maximum-stage-ratio'))) {
-    reader.findings.error(P('hydrogen-compression'), 'give the compression stages either as stages (a whole number) or as maximum-stage-ratio (the stages follow from it), one of the two', 'key');
+  const discharge = reader.has(at('maximum-discharge-temperature')) ? limited(reader, readTemperature(reader, at('maximum-discharge-temperature'), 'maximum discharge temperature'), 'compressor-discharge-temperature', 'maximum discharge temperature') : undefined;
+  if (reader.has(at('stages')) ? reader.has(at('maximum-stage-ratio')) : !reader.has(at('maximum-stage-ratio')) && !reader.has(at('maximum-discharge-temperature'))) {
+    reader.findings.error(P('hydrogen-compression'), 'give the compression stages either as stages (a whole number) or by a rule they follow from: maximum-stage-ratio, maximum-discharge-temperature or both; stages and maximum-stage-ratio not together', 'key');
     return undefined;
   }
   const efficiency = share(reader, at('isentropic-efficiency'), 'isentropic efficiency', (x) => x > 0 && x <= 1, 'lies in (0, 1]', 'isentropic-efficiency');
   const inlet = reader.has(at('inlet-temperature')) ? liquidWaterTemperature(reader, at('inlet-temperature'), 'compressor inlet temperature', 'compressor-gas-temperature') : undefined;
   const intercool = reader.has(at('intercooling-temperature')) ? liquidWaterTemperature(reader, at('intercooling-temperature'), 'intercooling temperature', 'compressor-gas-temperature') : undefined;
-  if (!delivery || (stages === undefined && !ratio) || !efficiency) return undefined;
-  if ((reader.has(at('inlet-temperature')) && !inlet) || (reader.has(at('intercooling-temperature')) && !intercool)) return undefined;
+  const unread = (key: string, read: unknown) => reader.has(at(key)) && !read;
+  if (!delivery || !efficiency || ['stages', 'maximum-stage-ratio', 'maximum-discharge-temperature', 'inlet-temperature', 'intercooling-temperature'].some((key, i) => unread(key, [stages, ratio, discharge, inlet, intercool][i]))) return undefined;
   const inletK = inlet?.si ?? ZERO_C + 40;
+  const intercoolK = intercool?.si ?? inletK;
+  if (discharge && !(discharge.si > Math.max(inletK, intercoolK))) {
+    reader.findings.error(discharge.at, `the maximum discharge temperature must lie above the temperatures the stages take the gas at (inlet ${kelvinText(inletK)}, intercooled to ${kelvinText(intercoolK)}), got ${discharge.text}`);
+    return undefined;
+  }
   return {
     deliveryPressureBar: delivery.si / PA_PER_BAR,
-    stages: stages !== undefined ? { given: stages } : { maximumStageRatio: ratio!.si },
+    stages: stages !== undefined ? { given: stages } : { maximumStageRatio: ratio?.si ?? null },
+    maximumDischargeTemperatureK: discharge?.si ?? null,
     isentropicEfficiency: efficiency.si,
     inletTemperatureK: inletK,
-    intercoolTemperatureK: intercool?.si ?? inletK,
+    intercoolTemperatureK: intercoolK,
   };
 }
 

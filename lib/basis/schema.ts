@@ -265,10 +265,14 @@ const plantSection = strict(
     'hydrogen-compression': strict(
       {
         'delivery-pressure': quantity('pressure', 'pressure the hydrogen is delivered at, e.g. "30 bar"'),
-        stages: number('compression stages, intercooled (a whole number from 1 to 10); or give maximum-stage-ratio', '2').optional(),
+        stages: number('compression stages, intercooled (a whole number from 1 to 10); or give maximum-stage-ratio and/or maximum-discharge-temperature', '2').optional(),
         'maximum-stage-ratio': number(
           'instead of stages: the highest pressure ratio one stage may have; the stages are the fewest that keep each at or below it, N = ⌈ln(p_delivery/p_inlet) / ln r_max⌉',
           '3',
+        ).optional(),
+        'maximum-discharge-temperature': quantity(
+          'temperature',
+          'the highest temperature a stage may discharge the gas at, e.g. "135 C": without stages, the stages are the fewest that keep every stage at or below it (and at or below maximum-stage-ratio where given); with stages given, a stage above it is a finding',
         ).optional(),
         'isentropic-efficiency': fraction('isentropic efficiency of each stage, in (0, 1], e.g. "75 %"'),
         'inlet-temperature': quantity('temperature', 'the product gas is cooled to this temperature and dried ahead of the first stage (default 40 C)').optional(),

@@ -176,8 +176,14 @@ export type OffGasOxidant = { kind: 'air-electrode-exhaust' } | { kind: 'fresh-a
 /** Hydrogen compression after the product cooler and dryer (electrolysis). */
 export interface CompressionInput {
   deliveryPressureBar: number;
-  /** The stages: given, or the fewest that keep each stage's pressure ratio at or below maximumStageRatio (from the stack's pressure, per case). */
-  stages: { given: number } | { maximumStageRatio: number };
+  /**
+   * The stages: given, or the fewest that keep each stage's pressure ratio at or below
+   * maximumStageRatio (where stated) and each stage's discharge at or below
+   * maximumDischargeTemperatureK (where stated), from the stack's pressure, per case.
+   */
+  stages: { given: number } | { maximumStageRatio: number | null };
+  /** The highest temperature a stage may discharge the gas at, K: a rule for the stages, or a check on the stages given; null where not stated. */
+  maximumDischargeTemperatureK: number | null;
   isentropicEfficiency: number;
   /** Temperature the product gas is cooled to ahead of the first stage, and between stages, K. */
   inletTemperatureK: number;

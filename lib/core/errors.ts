@@ -78,7 +78,8 @@ export type CalculationInput =
   | 'exhaust-exit-temperature'
   | 'hydrogen-compression'
   | 'compressor-inlet-temperature'
-  | 'compression-stage-ratio';
+  | 'compression-stage-ratio'
+  | 'compression-discharge-temperature';
 
 /** An input that passed validation but that the calculation cannot meet: the message says why, `field` which input. */
 export class CalculationError extends UserError {

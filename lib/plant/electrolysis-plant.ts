@@ -34,6 +34,7 @@ import type { ElectrodeSteam, ElectrolysisPlantBalance, PlantDuty, PlantStream, 
 import { firstLaw, PlantSheet, without } from './plant-sheet.ts';
 import { raiseSteam } from './steam-raising.ts';
 import { hydrogenDelivery, type HydrogenDelivery } from './hydrogen-compression.ts';
+import type { Finding } from './findings.ts';
 import { recuperate, type ColdFeed, type HotOutlet } from './recuperator.ts';
 
 const H = mixtureEnthalpyJ;
@@ -235,14 +236,14 @@ function electrolysisEnergyBalance(
 }
 
 /** The balance of an electrolysis plant (the module comment's blocks, feeds to products). */
-export function electrolysisBalance(point: DesignPoint, plant: PlantInput): { balance: ElectrolysisPlantBalance; streams: PlantStream[] } {
+export function electrolysisBalance(point: DesignPoint, plant: PlantInput, findings: Finding[]): { balance: ElectrolysisPlantBalance; streams: PlantStream[] } {
   const sheet = new PlantSheet();
   const feeds = electrolysisFeeds(point, plant, sheet);
   const { product, oxygen } = electrolysisOutlets(point, feeds, sheet);
   const recuperator = feedRecuperator(point, plant, feeds, { product, oxygen }, sheet);
   const productsK = recuperator?.hotOutletK ?? point.inputs.temperatureK;
   const stack = stackHeatBalance(point, plant, sheet.duties);
-  const h2 = hydrogenDelivery(point, plant, product, productsK, sheet);
+  const h2 = hydrogenDelivery(point, plant, product, productsK, sheet, findings);
   const duties = sheet.duties;
   const feedHeatW = duties.reduce((a, d) => a + Math.max(0, d.dutyW), 0);
   const coolersW = duties.reduce((a, d) => a + Math.max(0, -d.dutyW), 0);

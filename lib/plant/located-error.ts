@@ -64,6 +64,7 @@ function fieldOf(basis: DesignBasis, input: CalculationInput): string {
     'hydrogen-compression': 'plant.hydrogen-compression.delivery-pressure',
     'compressor-inlet-temperature': 'plant.hydrogen-compression.inlet-temperature',
     'compression-stage-ratio': 'plant.hydrogen-compression.maximum-stage-ratio',
+    'compression-discharge-temperature': 'plant.hydrogen-compression.maximum-discharge-temperature',
   };
   return fields[input];
 }

@@ -6,6 +6,9 @@ import type { ElectricalLayout } from '../flowsheet/electrical-layout.ts';
 import type { Finding } from './findings.ts';
 import type { Recuperation } from './recuperator.ts';
 
+/** Where a hydrogen compression's stage count comes from: the basis, or the rule that sets it. */
+export type StagesFrom = 'given' | 'maximum-stage-ratio' | 'maximum-discharge-temperature';
+
 /** A numbered stream of the heat-and-material balance. */
 export interface PlantStream {
   number: number;
@@ -110,11 +113,14 @@ export interface ElectrolysisPlantBalance {
     inletTemperatureK: number;
     intercoolTemperatureK: number;
     stages: number;
-    stagesFrom: 'given' | 'maximum-stage-ratio';
+    stagesFrom: StagesFrom;
     pressureRatioPerStage: number;
     isentropicEfficiency: number;
     flowMolPerS: number;
     stageOutletTemperaturesK: number[];
+    /** The discharge temperature the stages are held at or checked against, K, and whose it is (the basis's, or the reference's citation). */
+    dischargeLimitK: number;
+    dischargeLimitSource: string;
     powerW: number;
     workJPerKg: number;
     intercoolersW: number;

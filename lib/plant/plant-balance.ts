@@ -110,7 +110,7 @@ function plantBlocks(point: DesignPoint, plant: PlantInput): Omit<PlantBalance, 
     return { streams, power: balance, electrolysis: null, findings };
   }
   if (point.inputs.mode === 'electrolysis' && point.electrolysis) {
-    const { balance, streams } = electrolysisBalance(point, plant);
+    const { balance, streams } = electrolysisBalance(point, plant, findings);
     return { streams, power: null, electrolysis: balance, findings };
   }
   const streams = point.streams.map((x, k) => ({ number: k + 1, id: x.id, name: x.name, temperatureK: x.temperatureK, pressureBar: x.pressureBar, flows: { ...x.flows } }));

@@ -165,6 +165,8 @@ function compressionResult(c: NonNullable<ElectrolysisPlantBalance['compression'
     isentropicEfficiency: c.isentropicEfficiency,
     flow_mol_per_s: c.flowMolPerS,
     stageOutletTemperatures_K: c.stageOutletTemperaturesK,
+    dischargeLimit_K: c.dischargeLimitK,
+    dischargeLimitSource: c.dischargeLimitSource,
     power_W: c.powerW,
     work_J_per_kg: c.workJPerKg,
     intercoolers_W: c.intercoolersW,

@@ -262,11 +262,15 @@ const electrolysisPlantSchema = z
         inletTemperature_K: num('compressor inlet temperature'),
         intercoolTemperature_K: num('temperature after each intercooler and the after-cooler'),
         stages: num('intercooled stages'),
-        stagesFrom: z.enum(['given', 'maximum-stage-ratio']).describe('the stages as given, or the fewest that keep each stage at or below the maximum stage ratio'),
+        stagesFrom: z
+          .enum(['given', 'maximum-stage-ratio', 'maximum-discharge-temperature'])
+          .describe('the stages as given, or the fewest that keep each stage at or below the maximum stage ratio and the maximum discharge temperature of the basis, named by the rule that set their number'),
         pressureRatioPerStage: num('(p_delivery/p_inlet)^(1/N), equal in every stage'),
         isentropicEfficiency: num('isentropic efficiency of each stage'),
         flow_mol_per_s: num('dry product gas compressed'),
         stageOutletTemperatures_K: z.array(z.number()).describe('outlet temperature of each stage'),
+        dischargeLimit_K: num('the discharge temperature the stages are held at (stages from a rule) or checked against: the basis\'s maximum, or where it states none the reference\'s for the gas'),
+        dischargeLimitSource: z.string().describe('whose limit it is: "the basis", or the standard and service it is taken from'),
         power_W: num('power given to the gas, Σ over the stages (ideal gas, species data; mechanical and drive losses not included)'),
         work_J_per_kg: num('work per kg of gas compressed'),
         intercoolers_W: num('heat removed between the stages'),

@@ -289,11 +289,56 @@ describe('the electrolysis plant of the scaffolds', () => {
     expect(() => stageCount({ maximumStageRatio: 1.05 }, 100)).toThrow(/more than 10/);
   });
 
-  it('refuses stages and a maximum stage ratio together, or neither, at the block', () => {
+  it('refuses stages and a maximum stage ratio together, or neither a count nor a rule, at the block', () => {
     const stages = { 'delivery-pressure': '200 bar', 'isentropic-efficiency': '75 %' };
     for (const block of [{ ...stages, stages: 2, 'maximum-stage-ratio': 3 }, stages]) {
-      expect(() => basisFrom('pem', 'electrolysis', { 'plant.hydrogen-compression': block })).toThrow(/either as stages .* or as maximum-stage-ratio/);
+      expect(() => basisFrom('pem', 'electrolysis', { 'plant.hydrogen-compression': block })).toThrow(/either as stages .* or by a rule they follow from/);
     }
+  });
+
+  // The stages held to a discharge temperature, against the constant-c_p form of the same stage
+  // (Çengel and Boles, Thermodynamics, ch. 7): T_out = T_in [1 + (r^((γ−1)/γ) − 1) / η_s], with
+  // γ = 1.404 for hydrogen near 350 K (c_p ≈ 28.9 J/(mol K), NIST-JANAF H2 table, from memory).
+  // 30 → 200 bar from 40 °C at η_s = 75 %: two stages (r = 2.582) discharge at about 444 K
+  // (171 °C), three (r = 1.882) at about 397 K (123 °C), four (r = 1.607) at about 374 K. The
+  // species data's c_p(T) moves these by about 1 K (the stage test below holds them to 0.3 %),
+  // so each limit below lies 4 K or more from the temperature that decides it.
+  const block = { 'delivery-pressure': '200 bar', 'isentropic-efficiency': '75 %' };
+  const constantCpOutletK = (stages: number) => 313.15 * (1 + (((200 / 30) ** (1 / stages)) ** (0.404 / 1.404) - 1) / 0.75);
+  it('chooses the fewest stages whose hottest discharge stays within the maximum discharge temperature', () => {
+    expect(constantCpOutletK(2)).toBeCloseTo(444.2, 0);
+    expect(constantCpOutletK(3)).toBeCloseTo(396.5, 0);
+    const at = (limit: string, ratio?: number) => electrolysisOf('pem', { 'plant.hydrogen-compression': { ...block, 'maximum-discharge-temperature': limit, ...(ratio ? { 'maximum-stage-ratio': ratio } : {}) } }).plant.electrolysis!.compression!;
+    const api = at('135 C');
+    expect(api.stages).toBe(3);
+    expect(api.stagesFrom).toBe('maximum-discharge-temperature');
+    expect(Math.max(...api.stageOutletTemperaturesK)).toBeLessThanOrEqual(408.15);
+    expect(api.dischargeLimitK).toBe(408.15);
+    expect(api.dischargeLimitSource).toBe('the basis');
+    expect(at('175 C').stages).toBe(2);
+    expect(at('120 C').stages).toBe(4);
+    // Both rules: the ratio's three stages already discharge within 175 °C, so the ratio sets N.
+    const both = at('175 C', 2.5);
+    expect([both.stages, both.stagesFrom]).toEqual([3, 'maximum-stage-ratio']);
+    // A limit ten stages cannot keep: refused at its field (10 stages of r = 1.209 still reach ~337 K).
+    const basis = basisFrom('pem', 'electrolysis', { 'plant.hydrogen-compression': { ...block, 'maximum-discharge-temperature': '45 C' } });
+    expect(() => locateCalculationErrors(basis, () => plantBalance(evaluateBasis(basis), basis.plant))).toThrow(/maximum-discharge-temperature: ten stages still discharge at 6\d\.\d °C/);
+  });
+
+  it('warns where a stage discharges above the basis\'s limit or, where it states none, above API 618\'s for hydrogen', () => {
+    const findingsOf = (edits: Record<string, unknown>) => electrolysisOf('pem', { 'plant.hydrogen-compression': { ...block, ...edits } }).plant.findings.filter((f) => f.code === 'compressor-discharge-hot');
+    const stated = findingsOf({ stages: 2, 'maximum-discharge-temperature': '135 C' });
+    expect(stated).toHaveLength(1);
+    expect(stated[0]).toMatchObject({ severity: 'warning', path: 'plant.hydrogen-compression.stages', related: ['plant.hydrogen-compression.maximum-discharge-temperature'] });
+    expect(stated[0]!.message).toMatch(/^stage 1 of the hydrogen compressor discharges at \d+\.\d °C, above 135\.0 °C, the maximum discharge temperature of the basis/);
+    // The temperature it names is the two-stage discharge above (444 K by constant c_p; 3 K allows the c_p(T) difference).
+    expect(Math.abs(Number(/discharges at (\d+\.\d) °C/.exec(stated[0]!.message)![1]) + 273.15 - constantCpOutletK(2))).toBeLessThan(3);
+    // None stated: hydrogen (2 g/mol) is hydrogen-rich service, whose limit API 618 sets at 135 °C.
+    const reference = findingsOf({ stages: 2 });
+    expect(reference).toHaveLength(1);
+    expect(reference[0]!.message).toMatch(/above 135\.0 °C, the limit of API 618 \(5th edition, 2007\), hydrogen-rich service .*from memory/);
+    expect(findingsOf({ stages: 3 })).toEqual([]);
+    expect(findingsOf({ stages: 2, 'maximum-discharge-temperature': '180 C' })).toEqual([]);
   });
 
   it('refuses a compressor inlet temperature above the stack temperature, at its field', () => {

@@ -124,6 +124,7 @@ const ROW_LINES: Record<string, { lines: string[]; factor: number }> = {
   'air-preheat': { lines: ['air-preheat'], factor: 1e-3 },
   'heat-recovered': { lines: ['heat-recovered'], factor: 1e-3 },
   'heat-delivered': { lines: ['delivered-heat'], factor: 1e-3 },
+  'compressor-power': { lines: ['compressor-power'], factor: 1e-3 },
 };
 
 describe.each(['thistlemere-sofc-chp', 'kestrelford-pem-electrolyser', 'corrin-beck-mcfc-biogas', 'hob-tor-pem-backup'])('the envelope of %s', (id) => {

@@ -80,6 +80,7 @@ export const CASE_ROWS: readonly Shown[] = [
   { path: 'plant.power.duties[air-preheat].duty_W', si: 'W', label: 'Air preheat duty', factor: 1e-3, unit: 'kW' },
   { path: 'plant.power.heatRecovery.heatWithCondensation_W', si: 'W', label: 'Heat recovered from the exhaust', factor: 1e-3, unit: 'kW' },
   { path: 'plant.power.heatRecovery.deliveredHeat_W', si: 'W', label: 'Heat delivered', factor: 1e-3, unit: 'kW' },
+  { path: 'plant.electrolysis.compression.power_W', si: 'W', label: 'Hydrogen compressor power', factor: 1e-3, unit: 'kW', mode: 'electrolysis' },
   { path: 'degradation.fraction', si: '', label: 'Degradation r t', factor: 100, unit: '%' },
 ];
 
@@ -544,6 +545,7 @@ const GOVERNING_LINES: Readonly<Record<string, readonly string[]>> = {
   'fuel-preheat': ['fuel-preheat'],
   'air-preheat': ['air-preheat'],
   'oxidiser-temperature': ['oxidiser-enthalpy'],
+  'compressor-power': ['compressor-power'],
 };
 
 /** The groups of section 6 whose lines read only the case's own sections (not the sizing case's fuel path). */

@@ -410,6 +410,13 @@ function energyBalance(b: PlantPower['energyBalance'], over: string): Pair[] {
 
 type PlantElectrolysis = NonNullable<Results['plant']['electrolysis']>;
 
+/** How the stage count came about, after the count. */
+const STAGES_FROM: Record<NonNullable<PlantElectrolysis['compression']>['stagesFrom'], string> = {
+  given: '',
+  'maximum-stage-ratio': ' (from the maximum stage ratio)',
+  'maximum-discharge-temperature': ' (from the maximum discharge temperature)',
+};
+
 /** The hydrogen compression's rows: pressures, stages, stage outlet temperatures, power; none without it. */
 function compressionRows(c: PlantElectrolysis['compression']): Pair[] {
   if (!c) return [];
@@ -418,7 +425,7 @@ function compressionRows(c: PlantElectrolysis['compression']): Pair[] {
     ['Compressor inlet pressure', 'bar', c.inletPressure_bar],
     ['Delivery pressure', 'bar', c.deliveryPressure_bar],
   ]));
-  rows.push(several('Stages (ratio each) / isentropic efficiency', `${c.stages}${c.stagesFrom === 'given' ? '' : ' (from the maximum stage ratio)'} (${formatNumber(c.pressureRatioPerStage, 4)}) / ${formatPercent(c.isentropicEfficiency)}`, [
+  rows.push(several('Stages (ratio each) / isentropic efficiency', `${c.stages}${STAGES_FROM[c.stagesFrom]} (${formatNumber(c.pressureRatioPerStage, 4)}) / ${formatPercent(c.isentropicEfficiency)}`, [
     ['Compression stages', '', c.stages],
     ['Pressure ratio per stage', '', c.pressureRatioPerStage],
     ['Compressor isentropic efficiency', '', c.isentropicEfficiency],
@@ -427,6 +434,11 @@ function compressionRows(c: PlantElectrolysis['compression']): Pair[] {
     ...c.stageOutletTemperatures_K.map((t, i): [string, string, number] => [`Stage ${i + 1} outlet temperature`, 'K', t]),
     ['Compressor inlet temperature', 'K', c.inletTemperature_K],
     ['Intercooling temperature', 'K', c.intercoolTemperature_K],
+  ]));
+  const hottestK = Math.max(...c.stageOutletTemperatures_K);
+  rows.push(several('Hottest stage discharge / limit (whose)', `${formatTemperature(hottestK)} / ${formatTemperature(c.dischargeLimit_K)} (${c.dischargeLimitSource})${hottestK > c.dischargeLimit_K ? ': ABOVE the limit, see the findings' : ''}`, [
+    ['Hottest stage discharge temperature', 'K', hottestK],
+    ['Discharge temperature limit', 'K', c.dischargeLimit_K],
   ]));
   rows.push(several('Compressor power (work per kg)', `${kW(c.power_W)} (${formatQuantity(c.work_J_per_kg / 1000, 'kJ/kg')})`, [
     ['Compressor power', 'W', c.power_W],
