@@ -226,6 +226,22 @@ function ignoreLateCopyErrors(): void {
   });
 }
 
+/**
+ * Waits until no file-system request of this process has been in flight for three looks in a
+ * row, 10 ms apart (at most some 10 s). A run of Eleventy that fails on one file ends at once
+ * while its other writes and copies go on: each creates its folders as it goes, so one finishing
+ * after the failed build has removed its folder would make that folder again (a full disk left
+ * `<out>.<pid>-<random>.build.tmp` behind on a loaded machine). The build removes its folder only
+ * once they are done.
+ */
+async function fileWorkSettled(): Promise<void> {
+  const busy = () => process.getActiveResourcesInfo().some((kind) => kind.startsWith('FSReq'));
+  for (let quiet = 0, looks = 0; quiet < 3 && looks < 1000; looks++) {
+    await new Promise((done) => setTimeout(done, 10));
+    quiet = busy() ? 0 : quiet + 1;
+  }
+}
+
 async function runEleventy(output: string): Promise<void> {
   const eleventy = createEleventy(TEMPLATES_DIR, output, { configPath: ELEVENTY_CONFIG, quietMode: true });
   eleventy.disableLogger();
@@ -382,6 +398,7 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
     await pause(options, 'printed');
     await swapIntoPlace(root, out, names, options);
   } catch (error) {
+    await fileWorkSettled();
     for (const path of [fresh, names.complete, names.link]) rmSync(path, { recursive: true, force: true });
     if (existsSync(names.aside) && !lstatSync(out, { throwIfNoEntry: false })) renameSync(names.aside, out);
     const problem = error instanceof UserError ? null : fileErrorIn(error);
