@@ -6,6 +6,13 @@
  * portfolio shown by templates/index.njk, in the runs whose model writes the index), the assets and each issued revision's document.html
  * and document.pdf copied as they were issued, and the projects' YAML watched by the dev server.
  *
+ * The issued files are copied by this module, not by Eleventy's passthrough copy, before the run
+ * writes anything: each is opened once, without following a link and without waiting on a FIFO,
+ * checked to be a regular file within its size limit on the open file (readIssuedFile), and its
+ * bytes written into the site. A passthrough copy opens the file by its name later, so a file
+ * swapped for a FIFO after the site's check would hang the build, and one swapped for a link
+ * would copy what it points to.
+ *
  * Under `cellbasis build` the model arrives checked in the build context; under `cellbasis
  * serve` and `npx @11ty/eleventy` it is loaded on every build, and while serving a failed load
  * shows its problems on the index page instead of stopping the server.
@@ -13,11 +20,12 @@
  * Eleventy's output folder must be a site folder of cellbasis (lib/publish/site-marker.ts: new,
  * empty or marked) and is marked before anything is written into it.
  */
-import { dirname, join, relative, resolve } from 'node:path';
+import { lstatSync, mkdirSync, writeFileSync } from 'node:fs';
+import { basename, dirname, join, relative, resolve } from 'node:path';
 import { listProjects } from '../basis/projects.ts';
 import { ISSUED_FILES, issuedDir } from '../archive/layout.ts';
 import { readIssuedFolder } from '../archive/issued-folder.ts';
-import { issuedFileToCopy } from '../archive/issued-files.ts';
+import { issuedFileToCopy, readIssuedFile } from '../archive/issued-files.ts';
 import { UserError } from '../core/errors.ts';
 import { INDEX_PATH, portfolioView } from '../report/portfolio.ts';
 import { buildContext } from './build-context.ts';
@@ -62,6 +70,22 @@ function issuedCopies(root: string, model: SiteModel | null): Record<string, str
   return copies;
 }
 
+/**
+ * Writes each issued file into the site as read through one checked open of it (the module
+ * comment). Under serve the site stays between runs: a copy already there at the size of the
+ * issued file is kept (an issued file never changes; the audit checks its digest).
+ */
+function copyIssuedFiles(root: string, output: string, copies: Record<string, string>): void {
+  for (const [from, to] of Object.entries(copies)) {
+    const target = join(output, to);
+    const there = lstatSync(target, { throwIfNoEntry: false });
+    if (there?.isFile() && there.size === lstatSync(from, { throwIfNoEntry: false })?.size) continue;
+    const bytes = readIssuedFile(dirname(from), relative(root, dirname(from)), basename(from));
+    mkdirSync(dirname(target), { recursive: true });
+    writeFileSync(target, bytes);
+  }
+}
+
 /** The model for one build: as handed over, or loaded now; while serving, problems become the index page. Each page writes its tables' CSV files as it is rendered. */
 function siteData(): SiteModel & { indexPages: string[] } {
   const context = buildContext();
@@ -94,12 +118,14 @@ export default function configureSite(eleventyConfig: EleventyConfig): void {
   eleventyConfig.setQuietMode(true);
   // Eleventy writes into its output folder in place: only into one of ours (missing, empty or marked), which it marks first.
   eleventyConfig.on('eleventy.before', ({ directories, outputMode }) => {
-    if (outputMode === 'fs') claimSiteFolder(resolve(directories.output), 'eleventy', relative(process.cwd(), resolve(directories.output)) || '.');
+    if (outputMode !== 'fs') return;
+    const output = resolve(directories.output);
+    claimSiteFolder(output, 'eleventy', relative(process.cwd(), output) || '.');
+    copyIssuedFiles(context.root, output, issuedCopies(context.root, context.model));
   });
   eleventyConfig.addGlobalData('cellbasis', siteData);
   // A build of many pages runs Eleventy once per group of pages: the assets (some 60 files) are copied in its first run only.
   if (context.model?.writesIndex !== false) for (const asset of siteAssets()) eleventyConfig.addPassthroughCopy({ [asset.from]: `${ASSET_DIR}/${asset.to}` });
-  for (const [from, to] of Object.entries(issuedCopies(context.root, context.model))) eleventyConfig.addPassthroughCopy({ [from]: to });
   eleventyConfig.addWatchTarget(join(context.root, 'projects', '**', '*.yaml'));
   eleventyConfig.addWatchTarget(join(context.root, 'projects', '**', '*.json'));
   eleventyConfig.addWatchTarget(join(TEMPLATES_DIR, 'assets', '*'));
