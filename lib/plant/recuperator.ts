@@ -196,7 +196,7 @@ function profile(feeds: readonly ColdFeed[], hot: Record<string, number>, hotInl
   return { hotOutletK, top, smallestApproachK: smallest };
 }
 
-/** The largest duty in [0, cap] that keeps the minimum approach (bisection to 1e-9 of the cap; feasibility falls as the duty grows), and what limits it. */
+/** The largest duty in [0, cap] that keeps the minimum approach (to 1e-9 K: at the cold-end cap the approach is ΔT_min only to rounding), by bisection to 1e-9 of the cap (feasibility falls as the duty grows), and what limits it. */
 function largestDuty(feeds: readonly ColdFeed[], hot: Record<string, number>, hotInletK: number, minimumApproachK: number, caps: { coldMax: number; dewCap: number; coldEndCap: number }): { dutyW: number; limitedBy: Recuperation['limitedBy'] } {
   const feasible = (q: number) => profile(feeds, hot, hotInletK, q).smallestApproachK >= minimumApproachK - 1e-9;
   const cap = Math.min(caps.coldMax, caps.dewCap, caps.coldEndCap);
