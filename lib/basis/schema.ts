@@ -284,7 +284,7 @@ const plantSection = strict(
       {
         'minimum-approach': quantity('temperature-difference', 'least temperature difference between the hot outlets and the feeds anywhere in the exchanger, e.g. "25 K"'),
       },
-      "electrolysis fed with steam: a counter-flow recuperator in which the stack's hot outlets (hydrogen product and oxygen side) heat the steam after the evaporator and the sweep gas towards the stack inlet; the heaters supply only the rest",
+      "electrolysis fed with steam: a counter-flow recuperator in which the stack's hot outlets (hydrogen product and oxygen side) heat the feed water from its supply temperature (liquid heating, evaporation, superheating) and the sweep gas towards the stack inlet; the water heater, evaporator, superheater and gas heaters supply only the rest",
     ).optional(),
   },
   'the plant around the stack: electrical layout, feed preparation, off-gas oxidiser, anode recycle, heat recovery, hydrogen compression, feed recuperator. Absent blocks are left out of the plant balance',

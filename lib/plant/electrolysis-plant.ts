@@ -7,9 +7,11 @@
  *    vapour the gases carry off) is heated from T_w to the inlet temperature. Other gases of an
  *    inlet (hydrogen fed with the steam, sweep air) are fed from outside at the fuel or air supply
  *    temperature and heated to the inlet temperature.
- *  - Recuperator (optional, recuperator.ts): the stack's gas outlets heat the gaseous feeds (the
- *    steam from saturation, the gases from their supply temperature) in counter-flow; each feed's
- *    heater then supplies only H_i(T_in) − H_i(T*), and the products leave at the hot outlet T_ho.
+ *  - Recuperator (optional, recuperator.ts): the stack's gas outlets heat the feeds in counter-flow
+ *    (the feed water from T_w through its evaporation at T_s, the gases from their supply
+ *    temperature); each feed's heaters then supply only H_i(T_in) − H_i(T*, x*), the rest from
+ *    where the recuperator leaves it (the feed water's water heater, evaporator and superheater by
+ *    steam-raising.ts's second set), and the products leave at the hot outlet T_ho.
  *    Without it no heat is recovered from the products to the feeds.
  *  - Stack: Q_stack = H_in(fed) − H_out(T_stack) + P_DC (heat.ts, "as fed"); the heat lost to ambient
  *    Q_loss = f_loss · P_AC is taken from it: Q_net = Q_stack − Q_loss. Where Q_net < 0 a water loop's
@@ -32,10 +34,10 @@ import type { DesignPoint } from './design-point.ts';
 import { totalFlow, type Stream } from './streams.ts';
 import type { ElectrodeSteam, ElectrolysisPlantBalance, PlantDuty, PlantStream, PowerPlantBalance } from './plant-balance-types.ts';
 import { firstLaw, PlantSheet, without } from './plant-sheet.ts';
-import { raiseSteam } from './steam-raising.ts';
+import { raiseSteam, steamHeatersAfter } from './steam-raising.ts';
 import { hydrogenDelivery, type HydrogenDelivery } from './hydrogen-compression.ts';
 import type { Finding } from './findings.ts';
-import { recuperate, type ColdFeed, type HotOutlet } from './recuperator.ts';
+import { recuperate, type ColdFeed, type HotOutlet, type RecuperatedFeed } from './recuperator.ts';
 
 const H = mixtureEnthalpyJ;
 
@@ -48,14 +50,17 @@ interface GasFeed {
   temperatureK: number;
 }
 
+/** A feed a recuperator could heat, with the ids of the duties that heat it without one, in order from its inlet. */
+type HeatedFeed = ColdFeed & { heaterIds: string[] };
+
 /** The feeds of the stack's inlets: the feed water, the steam raised, the water loop and the gases fed from outside. */
 interface ElectrolysisFeeds {
   inlets: { electrode: Electrode; stream: Stream }[];
   feedWaterMol: number;
   steam: ElectrodeSteam[];
   gasFeeds: GasFeed[];
-  /** The gaseous feeds a recuperator could heat: the steam after the evaporator, the gases from their supply. */
-  coldFeeds: ColdFeed[];
+  /** The feeds a recuperator could heat: the feed water from its supply (to steam), the gases from theirs. */
+  coldFeeds: HeatedFeed[];
   liquidIn: number;
   makeUp: number;
   returned: number;
@@ -71,7 +76,7 @@ function waterLoop(inlets: ElectrolysisFeeds['inlets'], outlets: Stream[]) {
 }
 
 /** One inlet's feed preparation: its steam raised, its share of the loop's make-up and return, its gases preheated. */
-function electrodeFeed(point: DesignPoint, plant: PlantInput, inlet: ElectrolysisFeeds['inlets'][number], loop: ReturnType<typeof waterLoop>, sheet: PlantSheet, steam: ElectrodeSteam[], gasFeeds: GasFeed[], coldFeeds: ColdFeed[]): void {
+function electrodeFeed(point: DesignPoint, plant: PlantInput, inlet: ElectrolysisFeeds['inlets'][number], loop: ReturnType<typeof waterLoop>, sheet: PlantSheet, steam: ElectrodeSteam[], gasFeeds: GasFeed[], coldFeeds: HeatedFeed[]): void {
   const { electrode, stream } = inlet;
   const tWater = plant.feedWaterTemperatureK;
   const tStack = point.inputs.temperatureK;
@@ -87,7 +92,8 @@ function electrodeFeed(point: DesignPoint, plant: PlantInput, inlet: Electrolysi
     sheet.duty(`feed-water-heating${suffix}`, `feed water heated to saturation (${side} steam)`, s.liquidHeatingW, tWater, s.saturationTemperatureK);
     sheet.duty(`evaporation${suffix}`, `feed water evaporated (${side} steam)`, s.evaporationW, s.saturationTemperatureK, s.saturationTemperatureK);
     sheet.duty(`superheating${suffix}`, `steam superheated to the ${side} inlet`, s.superheatingW, s.saturationTemperatureK, tIn);
-    coldFeeds.push({ dutyId: `superheating${suffix}`, id: `${electrode}-steam`, name: `steam (${side})`, flows: { H2O: vapourMol }, fromK: s.saturationTemperatureK, targetK: tIn, pressureBar: stream.pressureBar });
+    const heaterIds = [`feed-water-heating${suffix}`, `evaporation${suffix}`, `superheating${suffix}`];
+    coldFeeds.push({ heaterIds, id: `${electrode}-steam`, name: `feed water for the ${side} steam`, flows: { H2O: vapourMol }, fromK: tWater, targetK: tIn, saturationK: s.saturationTemperatureK, pressureBar: stream.pressureBar });
   }
   if (liquidMol > 0) {
     const own = liquidMol === loop.liquidIn ? loop.makeUp : (loop.makeUp * liquidMol) / loop.liquidIn;
@@ -98,7 +104,7 @@ function electrodeFeed(point: DesignPoint, plant: PlantInput, inlet: Electrolysi
   if (totalFlow(gases) > 0) {
     const tSupply = electrode === 'fuel' ? plant.fuelSupplyTemperatureK : plant.airSupplyTemperatureK;
     gasFeeds.push({ electrode, flows: gases, temperatureK: tSupply });
-    coldFeeds.push({ dutyId: `${electrode}-gas-preheat`, id: `${electrode}-gas`, name: electrode === 'fuel' ? 'gas fed with the steam' : 'sweep gas', flows: gases, fromK: tSupply, targetK: tIn, pressureBar: stream.pressureBar });
+    coldFeeds.push({ heaterIds: [`${electrode}-gas-preheat`], id: `${electrode}-gas`, name: electrode === 'fuel' ? 'gas fed with the steam' : 'sweep gas', flows: gases, fromK: tSupply, targetK: tIn, saturationK: null, pressureBar: stream.pressureBar });
     sheet.add(`${electrode}-gas-supply`, electrode === 'fuel' ? 'gas fed with the steam (fuel electrode)' : 'sweep gas supply', tSupply, stream.pressureBar, gases);
     sheet.duty(`${electrode}-gas-preheat`, `${electrode === 'fuel' ? 'gas fed with the steam' : 'sweep gas'} heated to the ${side} inlet`, H(gases, tIn) - H(gases, tSupply), tSupply, tIn);
   }
@@ -115,7 +121,7 @@ function electrolysisFeeds(point: DesignPoint, plant: PlantInput, sheet: PlantSh
   sheet.add('feed-water', 'feed water', plant.feedWaterTemperatureK, Math.max(...inlets.map((x) => x.stream.pressureBar)), feedWaterMol > 0 ? { 'H2O(L)': feedWaterMol } : {});
   const steam: ElectrodeSteam[] = [];
   const gasFeeds: GasFeed[] = [];
-  const coldFeeds: ColdFeed[] = [];
+  const coldFeeds: HeatedFeed[] = [];
   for (const inlet of inlets) electrodeFeed(point, plant, inlet, loop, sheet, steam, gasFeeds, coldFeeds);
   for (const { stream } of inlets) sheet.add(stream.id, stream.name, stream.temperatureK, stream.pressureBar, { ...stream.flows });
   return { inlets, feedWaterMol, steam, gasFeeds, coldFeeds, ...loop };
@@ -136,9 +142,28 @@ function electrolysisOutlets(point: DesignPoint, feeds: ElectrolysisFeeds, sheet
 }
 
 /**
+ * A feed's heaters after the recuperator (their duties and start temperatures changed in place):
+ * a gas's preheater from T* to the inlet, H(T_in) − H(T*); the feed water's water heater,
+ * evaporator and superheater from where the recuperator leaves it (steam-raising.ts).
+ */
+function heatersAfter(sheet: PlantSheet, feed: HeatedFeed, out: RecuperatedFeed): void {
+  const heater = (i: number) => sheet.duties.find((d) => d.id === feed.heaterIds[i])!;
+  if (out.saturationK === null) {
+    heater(0).dutyW = H(out.flows, out.targetK) - H(out.flows, out.toK);
+    heater(0).fromK = out.toK;
+    return;
+  }
+  const rest = steamHeatersAfter(feed.flows.H2O ?? 0, out.saturationK, out.toK, out.flows.H2O ?? 0, out.targetK);
+  Object.assign(heater(0), { dutyW: rest.liquidHeatingW, fromK: rest.liquidFromK });
+  heater(1).dutyW = rest.evaporationW;
+  Object.assign(heater(2), { dutyW: rest.superheatingW, fromK: rest.vapourFromK });
+}
+
+/**
  * The recuperator (recuperator.ts), where the basis has one: the stack's gas outlets heat the
- * gaseous feeds; each feed's heater then takes it only from where the recuperator leaves it to the
- * stack inlet (its duty changed in place), and the products leave at the recuperator's hot outlet.
+ * feeds (the feed water from its supply temperature, the gases from theirs); each feed's heaters
+ * then take it only from where the recuperator leaves it to the stack inlet, and the products
+ * leave at the recuperator's hot outlet.
  */
 function feedRecuperator(point: DesignPoint, plant: PlantInput, feeds: ElectrolysisFeeds, gas: { product: Record<string, number>; oxygen: Record<string, number> }, sheet: PlantSheet): ElectrolysisPlantBalance['recuperator'] {
   const r = plant.recuperator;
@@ -149,12 +174,10 @@ function feedRecuperator(point: DesignPoint, plant: PlantInput, feeds: Electroly
     { id: 'air-outlet', name: 'oxygen side', flows: gas.oxygen, pressureBar: inputs.airPressureBar },
   ].filter((o) => totalFlow(o.flows) > 0);
   const rec = recuperate(outlets, inputs.temperatureK, feeds.coldFeeds, r.minimumApproachK);
-  for (const f of rec.feeds) {
-    const heater = sheet.duties.find((d) => d.id === f.dutyId)!;
-    heater.dutyW = H(f.flows, f.targetK) - H(f.flows, f.toK);
-    heater.fromK = f.toK;
+  rec.feeds.forEach((f, i) => {
+    heatersAfter(sheet, feeds.coldFeeds[i]!, f);
     sheet.add(`${f.id}-recuperated`, `${f.name} after the recuperator`, f.toK, f.pressureBar, f.flows);
-  }
+  });
   for (const o of rec.outlets) sheet.add(`${o.id}-recuperated`, `${o.name} after the recuperator`, rec.hotOutletK, o.pressureBar, o.flows);
   return rec;
 }

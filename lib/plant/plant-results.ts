@@ -147,7 +147,7 @@ function recuperatorResult(r: NonNullable<ElectrolysisPlantBalance['recuperator'
     smallestApproach_K: r.smallestApproachK,
     limitedBy: r.limitedBy,
     hotDewPoint_K: r.hotDewPointK,
-    feeds: r.feeds.map((f) => ({ id: f.id, name: f.name, from_K: f.fromK, to_K: f.toK, target_K: f.targetK, duty_W: f.dutyW })),
+    feeds: r.feeds.map((f) => ({ id: f.id, name: f.name, from_K: f.fromK, to_K: f.toK, vapourFraction: f.vapourFraction, target_K: f.targetK, duty_W: f.dutyW })),
   };
 }
 

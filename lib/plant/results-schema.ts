@@ -222,21 +222,22 @@ const electrolysisPlantSchema = z
     recuperator: z
       .object({
         minimumApproach_K: num('least temperature difference allowed between the two sides, plant.recuperator.minimum-approach'),
-        duty_W: num("heat the stack's hot outlets give the feeds"),
+        duty_W: num("heat the stack's hot outlets give the feeds: the feed water from its supply temperature (liquid heating, evaporation, superheating) and the gases"),
         hotInlet_K: num('the stack temperature, at which the outlets enter'),
         hotOutlet_K: num('the temperature the hydrogen product and the oxygen side leave at'),
-        coldOutlet_K: num('the temperature the feeds leave at (each at most its stack inlet temperature)'),
+        coldOutlet_K: num('the temperature the feeds leave at (each at most its stack inlet temperature): below, at or above the saturation temperature of the feed water, which leaves it liquid, partly evaporated or superheated'),
         smallestApproach_K: num('the least temperature difference found over the exchanger (at or above the minimum approach)'),
         limitedBy: z.enum(['minimum-approach', 'feeds-at-target', 'dew-point']).describe("what bounds the duty: the minimum approach (a pinch), every feed at its stack inlet temperature, or the hot side's dew point"),
         hotDewPoint_K: nullableNum("the highest dew point of the hot outlets (no water condenses in the recuperator); null without water vapour"),
         feeds: z
           .array(
             z.object({
-              id: z.string().describe('fuel-steam, fuel-gas, air-steam or air-gas'),
+              id: z.string().describe('fuel-steam or air-steam (the feed water raised to that electrode\'s steam), fuel-gas or air-gas'),
               name: z.string(),
-              from_K: num('the feed as it enters: the steam at saturation after the evaporator, a gas at its supply temperature'),
+              from_K: num('the feed as it enters: the feed water (liquid) or a gas at its supply temperature'),
               to_K: num('the feed as it leaves the recuperator'),
-              target_K: num("the electrode's inlet temperature, which its heater then brings it to"),
+              vapourFraction: nullableNum('the fraction of the feed water evaporated as it leaves (0 liquid, 1 vapour; between at its saturation temperature); null for a gas'),
+              target_K: num("the electrode's inlet temperature, which its heaters then bring it to (the feed water: the water heater, evaporator and superheater, each from where the recuperator leaves it)"),
               duty_W: num('heat this feed takes in the recuperator'),
             }),
           )

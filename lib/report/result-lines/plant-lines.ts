@@ -6,7 +6,7 @@
  */
 import type { Results } from '../../plant/results-schema.ts';
 import type { LineSpec } from '../calc-line.ts';
-import { formatQuantity, formatTemperature } from '../format.ts';
+import { formatPercent, formatQuantity, formatTemperature } from '../format.ts';
 
 type Steam = Pick<NonNullable<NonNullable<Results['plant']['power']>['steam']>, 'water_mol_per_s' | 'liquidHeating_W' | 'evaporation_W' | 'superheating_W' | 'latentHeat_J_per_mol'>;
 
@@ -210,11 +210,28 @@ function systemEnergyLine(x: NonNullable<Results['plant']['electrolysis']>): Lin
   };
 }
 
+type Recuperator = NonNullable<NonNullable<Results['plant']['electrolysis']>['recuperator']>;
+
+/** How the feed water leaves the recuperator: liquid, partly evaporated or as steam (empty without feed water). */
+function waterStateText(rec: Recuperator): string {
+  const water = rec.feeds.filter((f) => f.vapourFraction !== null);
+  if (water.length === 0) return '';
+  const state = (x: number) => (x === 0 ? 'liquid' : x === 1 ? 'as steam' : `${formatPercent(x)} evaporated`);
+  return `, the feed water ${[...new Set(water.map((f) => state(f.vapourFraction!)))].join(' and ')}`;
+}
+
+/** The share of a steam raising the recuperator supplies, for its worked line's note (none without a recuperator). */
+function steamRecuperatedNote(rec: Recuperator | null, electrode: string): string | undefined {
+  const water = rec?.feeds.find((f) => f.id === `${electrode}-steam`);
+  if (!water) return undefined;
+  return `the recuperator supplies ${formatQuantity(water.duty_W / 1000, 'kW')} of it, from the supply temperature to ${formatTemperature(water.to_K)}${waterStateText({ ...rec!, feeds: [water] })}; the water heater, evaporator and superheater the rest (duty table)`;
+}
+
 /**
  * The recuperator's duty from the hot outlets' enthalpy flows: as they leave the stack less as
  * they leave the recuperator (the feeds take the same, composite curves of recuperator.ts).
  */
-function recuperatorLine(r: Results, rec: NonNullable<NonNullable<Results['plant']['electrolysis']>['recuperator']>): LineSpec | null {
+function recuperatorLine(r: Results, rec: Recuperator): LineSpec | null {
   const ids = ['fuel-outlet', 'air-outlet'];
   const before = r.plant.streams.filter((s) => ids.includes(s.id));
   const after = r.plant.streams.filter((s) => ids.some((id) => s.id === `${id}-recuperated`));
@@ -232,13 +249,17 @@ function recuperatorLine(r: Results, rec: NonNullable<NonNullable<Results['plant
     ],
     value: rec.duty_W / 1000,
     unit: 'kW',
-    note: `the feeds take it and leave at ${formatTemperature(rec.coldOutlet_K)}; the least temperature difference over the exchanger is ${formatQuantity(rec.smallestApproach_K, 'K')} (minimum approach ${formatQuantity(rec.minimumApproach_K, 'K')})`,
+    note: `the feeds take it and leave at ${formatTemperature(rec.coldOutlet_K)}${waterStateText(rec)}; the least temperature difference over the exchanger is ${formatQuantity(rec.smallestApproach_K, 'K')} (minimum approach ${formatQuantity(rec.minimumApproach_K, 'K')})`,
   };
 }
 
 /** The electrolysis plant: its steam raising, the recuperator, the compressor power and the specific energy. */
 function electrolysisLines(r: Results, x: NonNullable<Results['plant']['electrolysis']>): LineSpec[] {
-  const lines = x.steam.map((s) => steamLine(s, s.electrode === 'fuel' ? '' : '-air', 'feed water the stack is fed as steam, stream table', `steam superheated to the ${s.electrode}-electrode inlet, species data`));
+  const lines = x.steam.map((s) => {
+    const line = steamLine(s, s.electrode === 'fuel' ? '' : '-air', 'feed water the stack is fed as steam, stream table', `steam superheated to the ${s.electrode}-electrode inlet, species data`);
+    const note = steamRecuperatedNote(x.recuperator, s.electrode);
+    return note ? { ...line, note } : line;
+  });
   const recuperator = x.recuperator && recuperatorLine(r, x.recuperator);
   if (recuperator) lines.push(recuperator);
   if (x.compression) lines.push(compressorLine(x.compression));

@@ -453,6 +453,13 @@ const RECUPERATOR_LIMIT: Record<NonNullable<PlantElectrolysis['recuperator']>['l
   'dew-point': "the hot outlets' dew point",
 };
 
+/** The feed water as it leaves the recuperator, where the basis feeds it: liquid, partly evaporated or steam. */
+function waterLeaving(r: NonNullable<PlantElectrolysis['recuperator']>): string {
+  const x = r.feeds.find((f) => f.vapourFraction !== null)?.vapourFraction;
+  if (x === undefined || x === null) return '';
+  return x === 0 ? ', the water liquid' : x === 1 ? ', the water as steam' : `, the water ${formatPercent(x)} evaporated`;
+}
+
 /** The feed recuperator's rows: duty and approach, the temperatures of both sides, what limits it; none without it. */
 function recuperatorRows(r: PlantElectrolysis['recuperator']): Pair[] {
   if (!r) return [];
@@ -465,7 +472,7 @@ function recuperatorRows(r: PlantElectrolysis['recuperator']): Pair[] {
       ['Recuperator hot side in', 'K', r.hotInlet_K],
       ['Recuperator hot side out', 'K', r.hotOutlet_K],
     ]),
-    several('Recuperator: feeds out (least approach found)', `${formatTemperature(r.coldOutlet_K)} (${formatQuantity(r.smallestApproach_K, 'K')})`, [
+    several('Recuperator: feeds out (least approach found)', `${formatTemperature(r.coldOutlet_K)}${waterLeaving(r)} (${formatQuantity(r.smallestApproach_K, 'K')})`, [
       ['Recuperator feeds out', 'K', r.coldOutlet_K],
       ['Recuperator least approach found', 'K', r.smallestApproach_K],
     ]),
