@@ -131,17 +131,7 @@ interface Pair {
   second: number;
 }
 
-/**
- * ∫_{u0}^{u1} du/y and du/y² for y linear in u from y0 to y1 (both > 0), exactly:
- * ∫ du/y = Δu · ln(y1/y0)/(y1 − y0) and ∫ du/y² = Δu/(y0 y1).
- */
-function linearPair(du: number, y0: number, y1: number): Pair {
-  const d = (y1 - y0) / y0;
-  const lnRatio = Math.abs(d) < 1e-8 ? 1 - d / 2 + (d * d) / 3 : Math.log1p(d) / d;
-  return { first: (du * lnRatio) / y0, second: du / (y0 * y1) };
-}
-
-/** The same for y = A + B ln u through (u0, y0) and (u1, y1): ∫ e^s ds/y(s), s = ln u, by 8-point Gauss-Legendre. */
+/** ∫_{u0}^{u1} du/y and du/y² for y = A + B ln u through (u0, y0) and (u1, y1): ∫ e^s ds/y(s), s = ln u, by 8-point Gauss-Legendre. */
 function logPair(u0: number, u1: number, y0: number, y1: number): Pair {
   const s0 = Math.log(u0);
   const s1 = Math.log(u1);
@@ -170,42 +160,70 @@ function tailPair(m: number, ym: number, slope: number): Pair {
   return { first: (m / ym) * (1 + r + 2 * r * r), second: (m / (ym * ym)) * (1 + 2 * r) };
 }
 
-export interface ReciprocalIntegral {
-  /** ∫_0^U du/y and ∫_0^U du/y² with y = a E(u) + b. */
+/** ∫_0^U du/y and ∫_0^U du/y² with y = a E(u) + b. */
+export interface ReciprocalSums {
   first: number;
   second: number;
+}
+
+export interface ReciprocalIntegral extends ReciprocalSums {
   /** ∫_0^{u_k} du/y at each sample of the profile. */
   cumulative: Float64Array;
 }
 
 /**
  * ∫_0^U du/(a E(u) + b) and ∫_0^U du/(a E(u) + b)² over the profile's model of E(u) (linear, or
- * α + β ln u, between samples; the log tail below the first sample), exact on linear intervals.
- * y = a E + b must be positive at every sample; null where it is not.
+ * α + β ln u, between samples; the log tail below the first sample), exact on linear intervals:
+ * for y linear in u from y0 to y1 (both > 0) over Δu, ∫ du/y = Δu · ln(y1/y0)/(y1 − y0) (as
+ * Δu · ln(1 + d)/d / y0, d = (y1 − y0)/y0, by its series 1 − d/2 + d²/3 where |d| < 1e-8) and
+ * ∫ du/y² = Δu/(y0 y1). y = a E + b must be positive at every sample; null where it is not.
+ * `cumulative`, where given, receives ∫_0^{u_k} du/y at each sample. One pass and no arrays of
+ * its own: a cell-voltage root search calls it some ten times a solve.
  */
-export function reciprocalIntegral(profile: Profile, a: number, b: number): ReciprocalIntegral | null {
-  const { utilization: u, value: e } = profile;
+function accumulate(profile: Profile, a: number, b: number, cumulative: Float64Array | null): ReciprocalSums | null {
+  const { utilization: u, value: e, logIntervals } = profile;
   const n = u.length;
-  const y = new Float64Array(n);
-  for (let k = 0; k < n; k++) {
-    y[k] = a * e[k]! + b;
-    if (!(y[k]! > 0)) return null;
-  }
-  const cumulative = new Float64Array(n);
+  let y0 = a * e[0]! + b;
+  if (!(y0 > 0)) return null;
   let first = 0;
   let second = 0;
   if (profile.logTail) {
-    const slope = (y[1]! - y[0]!) / Math.log(u[1]! / u[0]!);
-    const tail = tailPair(u[0]!, y[0]!, slope);
+    const y1 = a * e[1]! + b;
+    if (!(y1 > 0)) return null;
+    const slope = (y1 - y0) / Math.log(u[1]! / u[0]!);
+    const tail = tailPair(u[0]!, y0, slope);
     first = tail.first;
     second = tail.second;
   }
-  cumulative[0] = first;
+  if (cumulative) cumulative[0] = first;
   for (let k = 1; k < n; k++) {
-    const part = k <= profile.logIntervals ? logPair(u[k - 1]!, u[k]!, y[k - 1]!, y[k]!) : linearPair(u[k]! - u[k - 1]!, y[k - 1]!, y[k]!);
-    first += part.first;
-    second += part.second;
-    cumulative[k] = first;
+    const y1 = a * e[k]! + b;
+    if (!(y1 > 0)) return null;
+    if (k <= logIntervals) {
+      const part = logPair(u[k - 1]!, u[k]!, y0, y1);
+      first += part.first;
+      second += part.second;
+    } else {
+      const du = u[k]! - u[k - 1]!;
+      const d = (y1 - y0) / y0;
+      const lnRatio = Math.abs(d) < 1e-8 ? 1 - d / 2 + (d * d) / 3 : Math.log1p(d) / d;
+      first += (du * lnRatio) / y0;
+      second += du / (y0 * y1);
+    }
+    if (cumulative) cumulative[k] = first;
+    y0 = y1;
   }
-  return { first, second, cumulative };
+  return { first, second };
+}
+
+/** ∫_0^U du/y and du/y² over the profile (accumulate); null where y = a E + b is not positive at every sample. */
+export function reciprocalSums(profile: Profile, a: number, b: number): ReciprocalSums | null {
+  return accumulate(profile, a, b, null);
+}
+
+/** The same with ∫_0^{u_k} du/y at each sample of the profile. */
+export function reciprocalIntegral(profile: Profile, a: number, b: number): ReciprocalIntegral | null {
+  const cumulative = new Float64Array(profile.utilization.length);
+  const sums = accumulate(profile, a, b, cumulative);
+  return sums && { first: sums.first, second: sums.second, cumulative };
 }

@@ -38,7 +38,7 @@
 import type { Mode } from '../electrochem/technologies.ts';
 import type { ResistanceLaw, VoltageModel } from '../basis/types.ts';
 import { GAS_CONSTANT_J_PER_MOL_K as R } from '../thermo/constants.ts';
-import { reciprocalIntegral, type Profile, type ReciprocalIntegral } from '../equilibrium/path-integral.ts';
+import { reciprocalIntegral, reciprocalSums, type Profile, type ReciprocalIntegral, type ReciprocalSums } from '../equilibrium/path-integral.ts';
 import { CalculationError, type CalculationInput } from '../core/errors.ts';
 
 /**
@@ -122,6 +122,12 @@ class Cell {
     return reciprocalIntegral(this.request.profile, a, b);
   }
 
+  /** The integral's two sums alone, for the root searches (the same numbers). */
+  sums(v: number): ReciprocalSums | null {
+    const [a, b] = this.coefficients(v);
+    return reciprocalSums(this.request.profile, a, b);
+  }
+
   /** The voltage at which the ionic current reaches zero somewhere on the path: min(E − ΔV_x/t) (power) or max E (electrolysis). */
   reversibleLimitV(): number {
     const e = this.request.profile.value;
@@ -132,7 +138,7 @@ class Cell {
   }
 
   /** j ASR as (1) or (2) gives it at voltage v: U/I ∓ (1 − t) v. */
-  resistanceTimesJ(v: number, integral: ReciprocalIntegral): number {
+  resistanceTimesJ(v: number, integral: ReciprocalSums): number {
     const u = this.request.utilization;
     return this.power ? u / integral.first - (1 - this.t) * v : u / integral.first + (1 - this.t) * v;
   }
@@ -174,7 +180,7 @@ function solveVoltage(cell: Cell, asr: number, limit: number): number {
   const t = cell.t;
   // g(V) = U/I(V) − j ASR ∓ (1 − t) V; dI/dV = ±t ∫du/y².
   const g = (v: number) => {
-    const integral = cell.integral(v);
+    const integral = cell.sums(v);
     // At the limit to rounding (the ionic driving voltage no longer positive at some sample) U/I is 0.
     if (!integral) return { value: -j * asr + (cell.power ? -(1 - t) * v : (1 - t) * v), slope: cell.power ? -1 : 1 };
     const dI = (cell.power ? t : -t) * integral.second;
@@ -218,7 +224,7 @@ function impliedResistance(cell: Cell, v: number, limit: number): number {
   const { mode, model, currentDensityAPerM2: j, utilization: u } = cell.request;
   const t = cell.t;
   const reachable = cell.power ? v < limit : v > limit;
-  const integral = reachable ? cell.integral(v) : null;
+  const integral = reachable ? cell.sums(v) : null;
   if (!integral) {
     const where = cell.power
       ? `not below the lowest Nernst voltage available along the cell, ${t < 1 || cell.dV > 0 ? 'E − ΔV_x/t_ion = ' : ''}${fmt(limit)} V`
@@ -232,7 +238,7 @@ function impliedResistance(cell: Cell, v: number, limit: number): number {
   if (!(asr > 0)) {
     // Power mode with t < 1: the leakage (1 − t) V/ASR exceeds the ionic current at any resistance.
     const h = (x: number) => {
-      const i = cell.integral(x);
+      const i = cell.sums(x);
       if (!i) return { value: -(1 - t) * x, slope: -1 };
       return { value: u / i.first - (1 - t) * x, slope: -(u * t * i.second) / (i.first * i.first) - (1 - t) };
     };
