@@ -69,7 +69,8 @@ import { electronsOfStream } from '../electrochem/charge.ts';
 import { hydrogenStandardVoltage, nernstVoltage, oxygenPotentialNernstV, waterActivityVoltage } from '../electrochem/nernst.ts';
 import { activeQuotient, electrolyte, potentialCouple } from '../electrochem/electrolytes.ts';
 import type { Mode, Technology } from '../electrochem/technologies.ts';
-import { minimiseGibbs } from './gibbs-minimiser.ts';
+import { minimiseGibbs, type MinimiserResult } from './gibbs-minimiser.ts';
+import { EquilibriumMemo } from './equilibrium-memo.ts';
 import { liquidCellWater } from './liquid-water.ts';
 import { elementAmounts, elementsOfFeed, gasGibbsOverRT, systemFor, type ChemicalSystem } from './species-set.ts';
 import { exchangeFor, type Exchange } from './electrolyte-exchange.ts';
@@ -274,8 +275,11 @@ class PathModel {
   readonly solved: Solution[] = [];
   private readonly seeds: readonly Solution[];
   private readonly basisA: number;
+  /** This path's equilibria (kept unless it starts from seeds), and those of earlier paths it may take (equilibrium-memo.ts). */
+  readonly equilibria: EquilibriumMemo | null = null;
+  private readonly earlier: EquilibriumMemo[] = [];
 
-  constructor(private readonly request: FuelPathRequest, basisA: number) {
+  constructor(private readonly request: FuelPathRequest, basisA: number, earlier: readonly EquilibriumMemo[] = []) {
     const { technology, temperatureK } = request;
     this.basisA = basisA;
     this.seeds = request.seeds ?? [];
@@ -308,6 +312,10 @@ class PathModel {
       this.system = system;
       this.gRT = gasGibbsOverRT(system, temperatureK);
       this.gGraphite = system.graphite ? gOverRT(system.graphite, temperatureK) : 0;
+      if (!request.seeds) {
+        this.equilibria = new EquilibriumMemo(system, this.gRT, Math.log(request.fuelPressureBar), this.gGraphite);
+        this.earlier = this.equilibria.compatible(earlier);
+      }
       this.hasHydrogen = system.elements.includes('H');
       this.couple = (potentialCouple(technology.ion) ?? []).map(({ species }) => {
         const s = getSpecies(species);
@@ -365,6 +373,15 @@ class PathModel {
     return seeded;
   }
 
+  /** The fuel gas's equilibrium at utilization u: an earlier path's answer to the same question, or solved (and kept). */
+  private equilibrium(u: number, b: Float64Array, warm: Float64Array | undefined): MinimiserResult {
+    const taken = this.equilibria?.take(this.earlier, u, b, warm);
+    if (taken) return taken;
+    const r = minimiseGibbs(this.system!, this.gRT!, Math.log(this.request.fuelPressureBar), b, this.gGraphite, warm ? { warmStart: warm } : {});
+    this.equilibria?.keep(u, b, warm, r);
+    return r;
+  }
+
   private remember(u: number, ln: Float64Array): void {
     let k = this.solved.length;
     while (k > 0 && this.solved[k - 1]!.utilization > u) k--;
@@ -390,7 +407,7 @@ class PathModel {
       const warm = this.predict(u);
       let r;
       try {
-        r = minimiseGibbs(this.system, this.gRT!, Math.log(this.request.fuelPressureBar), b, this.gGraphite, warm ? { warmStart: warm } : {});
+        r = this.equilibrium(u, b, warm);
       } catch (error) {
         if (!(error instanceof ConvergenceError)) throw error;
         const held = this.system.elements.map((e, i) => `${e} ${b[i]!.toPrecision(4)}`).join(', ');
@@ -491,14 +508,16 @@ function waterElectrodeVoltage(request: FuelPathRequest, model: PathModel): (fue
 /**
  * The fuel path at the request's utilization (module comment): E°(T) with the water activity's
  * −RT/2F ln a_w, each point's gases and Nernst voltage, Ē = (1/U_f) ∫₀^U_f E dU over the grid of
- * path-integral.ts, and the inlet as inletOf reports it.
+ * path-integral.ts, and the inlet as inletOf reports it. `earlier`: paths of the same calculation
+ * whose fuel-gas equilibria this one may take where it asks the same question (equilibrium-memo.ts:
+ * the same numbers as solving it again).
  */
-export function fuelPath(request: FuelPathRequest): FuelPath {
+export function fuelPath(request: FuelPathRequest, earlier: readonly FuelPath[] = []): FuelPath {
   if (!(request.utilization > 0 && request.utilization < 1)) {
     throw new CalculationError(`utilization must lie strictly between 0 and 1, got ${request.utilization}`, 'utilization');
   }
   const basisA = chargeBasis(request);
-  const model = new PathModel(request, basisA);
+  const model = new PathModel(request, basisA, earlier.flatMap((p) => equilibriaOf.get(p) ?? []));
   const { technology, temperatureK } = request;
   const e0 = hydrogenStandardVoltage(temperatureK, technology.waterPhase) + waterActivityVoltage(temperatureK, model.waterActivity);
   const nernstOf = nernstOfPoints(request, model, e0);
@@ -511,7 +530,18 @@ export function fuelPath(request: FuelPathRequest): FuelPath {
   };
   const result = integrateAlongUtilization(evaluate, request.utilization, Math.max(20, Math.round(request.intervals ?? 120)), request.refineV ?? 1e-3);
   const inlet = inletOf(result.points, result.all, model.seeded, nernstOf);
-  return reportedPath(request, model, basisA, e0, result, inlet);
+  const path = reportedPath(request, model, basisA, e0, result, inlet);
+  if (model.equilibria) equilibriaOf.set(path, model.equilibria);
+  return path;
+}
+
+/** The equilibria each fuel path solved (PathModel.equilibria), for later paths of the same calculation that are given it (fuelPath's `earlier`). */
+const equilibriaOf = new WeakMap<FuelPath, EquilibriumMemo>();
+
+/** How many fuel-gas equilibria a path solved and how many it took from earlier paths; null for a path that keeps none (no fuel-gas equilibrium, or solved from seeds). */
+export function equilibriumCounts(path: FuelPath): { solved: number; taken: number } | null {
+  const memo = equilibriaOf.get(path);
+  return memo ? { solved: memo.solved, taken: memo.taken } : null;
 }
 
 /** The path as reported: its points with the species that reach 1e-5 anywhere, the inlet and outlet gases, the mean and the largest errors. */

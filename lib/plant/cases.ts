@@ -129,7 +129,8 @@ function pathKey(request: FuelPathRequest): string {
  * inlet temperature, the ambient or the degradation, for one. Both functions are pure, so the
  * results are the same bytes as when each is computed again (a test checks). A case that changes
  * the air ratio changes the air-electrode gas along the path, so the Nernst voltage of its fuel
- * path: it is computed again. A request with seeds (a neighbouring path's equilibria to start
+ * path: it is computed again, but its fuel gas is the one an earlier path equilibrated, and it
+ * takes those equilibria from the paths already found (fuel-path.ts `earlier`). A request with seeds (a neighbouring path's equilibria to start
  * from) is not kept, since its result depends on them. `reuse: false` computes every stage.
  */
 export class StageMemo {
@@ -161,7 +162,8 @@ export class StageMemo {
     const key = this.reuse && !request.seeds ? pathKey(request) : null;
     let path = key === null ? undefined : this.paths.get(key);
     if (!path) {
-      path = fuelPath(request);
+      // The fuel paths already found lend it their fuel-gas equilibria where it asks the same (a case that changes only the air side).
+      path = fuelPath(request, this.reuse ? [...this.paths.values()] : []);
       this.solved++;
       if (key !== null) this.paths.set(key, path);
     }

@@ -3,7 +3,7 @@
 // equation integrated by hand for a dry-hydrogen feed) and for the conservation of each element
 // across the electrolyte, in power mode and in steam and co-electrolysis.
 import { describe, expect, it } from 'vitest';
-import { fuelPath } from '../../lib/equilibrium/fuel-path.ts';
+import { equilibriumCounts, fuelPath } from '../../lib/equilibrium/fuel-path.ts';
 import { technology } from '../../lib/electrochem/technologies.ts';
 import { hydrogenStandardVoltage } from '../../lib/electrochem/nernst.ts';
 import { FARADAY_C_PER_MOL as F, GAS_CONSTANT_J_PER_MOL_K as R } from '../../lib/thermo/constants.ts';
@@ -381,5 +381,42 @@ describe('fuel path: proton conductors take only hydrogen from the fuel', () => 
     expect(atoms(path.fuelOutlet, 'H')).toBeCloseTo(9 - path.currentA / F, 9);
     expect(atoms(path.fuelOutlet, 'C')).toBeCloseTo(1, 12);
     expect(atoms(path.fuelOutlet, 'O')).toBeCloseTo(2.5, 12);
+  });
+});
+
+describe('a fuel path takes the fuel-gas equilibria of an earlier path where it asks the same (equilibrium-memo.ts)', () => {
+  // Methane and steam into a solid oxide cell: the air side changes the Nernst voltage along the
+  // path but not the fuel gas, whose equilibrium at each point depends only on the fuel feed and
+  // the oxygen the charge has carried across (Faraday's law). The minimiser is pure in what it is
+  // given, so an answer taken must be the one solving gives, to the last bit.
+  const request = { technology: technology('solid-oxide'), mode: 'power' as const, temperatureK: 1073.15, fuelPressureBar: 1.1, airPressureBar: 1.1, fuelFeed: { CH4: 1, H2O: 2.5 }, airFeed: air(8), utilization: 0.8 };
+  const first = fuelPath(request);
+  const leaner = { ...request, airFeed: air(2) };
+  const alone = fuelPath(leaner);
+  const after = fuelPath(leaner, [first]);
+
+  it('solves every equilibrium of a path given no earlier one, and takes those of a path that changes only the air where it asks the same', () => {
+    const own = equilibriumCounts(alone)!;
+    expect(own.taken).toBe(0);
+    const shared = equilibriumCounts(after)!;
+    // Every equilibrium asked is taken or solved: as many as alone.
+    expect(shared.taken + shared.solved).toBe(own.solved);
+    // The inlet and the 120 intervals of the base grid (path-integral.ts) are asked in the same order, each seeded
+    // from the same neighbours, before any refinement: all taken. Refinement halves where E changes by more than
+    // 1 mV, which a fourfold change of the air can move, and there the path solves its own.
+    expect(shared.taken).toBeGreaterThanOrEqual(121);
+    // The CHP demo's end of life, whose air changes less (air utilization 0.12 against the rated case's), takes them all (test/plant/cases.test.ts).
+  });
+
+  it('gives the same bytes as solving them, and the air still changes the Nernst voltage', () => {
+    expect(JSON.stringify(after)).toBe(JSON.stringify(alone));
+    // Less oxygen on the air side: a lower oxygen potential there, so a lower E at the outlet (Nernst).
+    expect(alone.outletNernstV).toBeLessThan(first.outletNernstV);
+  });
+
+  it('takes none where the fuel differs (more steam) and none for a path solved from seeds', () => {
+    const wetter = fuelPath({ ...request, fuelFeed: { CH4: 1, H2O: 3 } }, [first]);
+    expect(equilibriumCounts(wetter)!.taken).toBe(0);
+    expect(equilibriumCounts(fuelPath({ ...leaner, seeds: first.solutions }, [first]))).toBeNull();
   });
 });

@@ -10,6 +10,7 @@ import { calculate, casePlant, casePointResults, evaluateBasis, plantOf, pointRe
 import { caseResults, cellVoltageRange, installedPoint, stageCases, StageMemo } from '../../lib/plant/cases.ts';
 import { carbonMargin, type CarbonLimits } from '../../lib/plant/carbon-margin.ts';
 import { plantBalance } from '../../lib/plant/plant-balance.ts';
+import { equilibriumCounts } from '../../lib/equilibrium/fuel-path.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
 import { BasisError } from '../../lib/basis/diagnostics.ts';
 import type { DesignBasis } from '../../lib/basis/types.ts';
@@ -323,6 +324,17 @@ describe('a case whose fuel path has the inputs of an earlier case\'s takes that
     expect(solvedAgain.solved).toBe(6);
     for (const id of ['turndown', 'hot-air', 'cold-day', 'half-load']) expect(shared.staged.find((s) => s.case.id === id)!.run!.point.path, id).toBe(point.path);
     for (const id of ['end-of-life', 'winter-gas']) expect(shared.staged.find((s) => s.case.id === id)!.run!.point.path, id).not.toBe(point.path);
+  });
+
+  it('the end of life, whose fuel gas is the rated case\'s, takes every fuel-gas equilibrium of its path from the rated path; the winter gas takes none', () => {
+    const pathOf = (r: typeof shared, id: string) => r.staged.find((s) => s.case.id === id)!.run!.point.path;
+    const endOfLife = equilibriumCounts(pathOf(shared, 'end-of-life'))!;
+    // Its air side refines two intervals fewer than the rated path's (163 equilibria against 165), each asked as the rated path asked it.
+    expect(endOfLife.solved).toBe(0);
+    expect(endOfLife.taken).toBeGreaterThan(120);
+    expect(equilibriumCounts(pathOf(shared, 'winter-gas'))!.taken).toBe(0);
+    // Without the memo the end of life solves them all itself.
+    expect(equilibriumCounts(pathOf(fresh, 'end-of-life'))).toEqual({ solved: endOfLife.taken, taken: 0 });
   });
 
   it('gives the same bytes as solving every fuel path again', () => {
