@@ -21,20 +21,25 @@
 import type { FuelPath } from '../equilibrium/fuel-path.ts';
 import { UserError } from '../core/errors.ts';
 import type { DesignInputs } from './design-inputs.ts';
-import { cellVoltageOf, deliveredPerCell } from './design-point.ts';
+import { cellVoltageOf, deliveredPerCell, type CellVoltage } from './design-point.ts';
 
 /** The most a current density of a basis may be (lib/basis/data/limits.yaml: 1000 A/cm²), A/m². */
 const HIGHEST_CURRENT_DENSITY = 1e7;
 
 const GROWTH = 1.25;
 
-export type TargetSolution = { ok: true; currentDensityAPerM2: number } | { ok: false; message: string };
+/**
+ * The current density found, with the cell's voltage there on the inputs given (cellVoltageOf)
+ * where the search computed it (it ends on its root, as a rule), or why none meets the target.
+ */
+export type TargetSolution = { ok: true; currentDensityAPerM2: number; cell?: CellVoltage } | { ok: false; message: string };
 
-/** What `cells` cells deliver of the target's quantity at current density j; null where the cell has no voltage there. */
-function deliveredAt(inputs: DesignInputs, path: FuelPath, cells: number, target: 'power' | 'hydrogen', j: number): number | null {
+/** What `cells` cells deliver of the target's quantity at current density j, with the cell's voltage there; null where the cell has no voltage there. */
+function deliveredAt(inputs: DesignInputs, path: FuelPath, cells: number, target: 'power' | 'hydrogen', j: number): { value: number; cell: CellVoltage } | null {
   const at = { ...inputs, currentDensityAPerM2: j };
   try {
-    return cells * deliveredPerCell(at, path, cellVoltageOf(at, path).voltage, target);
+    const cell = cellVoltageOf(at, path);
+    return { value: cells * deliveredPerCell(at, path, cell.voltage, target), cell };
   } catch (error) {
     // Past the current density at which the voltage reaches zero (power mode) the cell delivers nothing.
     if (error instanceof UserError) return null;
@@ -133,22 +138,29 @@ function fromGuess(base: number, value: number, delivered: (j: number) => number
  * input, or kg/s of hydrogen), or why none does.
  */
 export function currentDensityForTarget(inputs: DesignInputs, path: FuelPath, cells: number, target: 'power' | 'hydrogen', value: number): TargetSolution {
-  const delivered = (j: number) => deliveredAt(inputs, path, cells, target, j);
+  // The cell at the last current density tried: the root, where the search ends on it, needs it again (evaluateDesignPoint).
+  let last: { j: number; cell: CellVoltage } | null = null;
+  const delivered = (j: number) => {
+    const at = deliveredAt(inputs, path, cells, target, j);
+    last = at && { j, cell: at.cell };
+    return at && at.value;
+  };
   const f = (j: number) => (delivered(j) ?? -Infinity) - value;
+  const found = (j: number): TargetSolution => (last?.j === j ? { ok: true, currentDensityAPerM2: j, cell: last.cell } : { ok: true, currentDensityAPerM2: j });
   const guessed = fromGuess(inputs.currentDensityAPerM2, value, delivered, f);
-  if (typeof guessed === 'number') return { ok: true, currentDensityAPerM2: guessed };
+  if (typeof guessed === 'number') return found(guessed);
   let lo = guessed.start;
   let fLo = f(lo);
   // Below the first step: halve until the cells deliver less than the target (they deliver nothing at j → 0).
   while (fLo >= 0) {
-    if (fLo === 0) return { ok: true, currentDensityAPerM2: lo };
+    if (fLo === 0) return found(lo);
     lo /= 2;
     fLo = f(lo);
   }
   let before = lo / GROWTH;
   for (let hi = lo * GROWTH; hi <= HIGHEST_CURRENT_DENSITY * GROWTH; hi *= GROWTH) {
     const fHi = f(hi);
-    if (fHi >= 0) return { ok: true, currentDensityAPerM2: fHi === 0 ? hi : illinois(f, lo, fLo, hi, fHi) };
+    if (fHi >= 0) return found(fHi === 0 ? hi : illinois(f, lo, fLo, hi, fHi));
     if (inputs.mode === 'power' && fHi <= fLo) {
       // Past the greatest power without reaching the target: it lies between `before` and `hi`.
       const most = greatest((j) => delivered(j) ?? 0, before, hi);

@@ -33,7 +33,7 @@ import type { DesignBasis, OperatingCase } from '../basis/types.ts';
 import { BasisError } from '../basis/diagnostics.ts';
 import { CalculationError, UserError } from '../core/errors.ts';
 import { designInputs, type DesignInputs } from './design-inputs.ts';
-import { cellVoltageOf, evaluateDesignPoint, fuelPathRequest, type DesignPoint, type UnitStage } from './design-point.ts';
+import { cellRequest, cellVoltageOf, evaluateDesignPoint, fuelPathRequest, type DesignPoint, type UnitStage } from './design-point.ts';
 import { unitFeeds, type UnitFeeds } from './unit-feeds.ts';
 import { fuelPath, type FuelPath, type FuelPathRequest } from '../equilibrium/fuel-path.ts';
 import { carbonMargin, type CarbonLimits } from './carbon-margin.ts';
@@ -106,6 +106,7 @@ export function installedPoint(sizing: DesignPoint, cells: number, stages: Stage
     // N_inst ≥ N_req cells meet the target at the design current density, so a current density at or below it meets it on the installed cells.
     if (!solved.ok) throw new CalculationError(`the cells installed cannot meet the target of the sizing case: ${solved.message}`, 'cells');
     inputs = { ...inputs, currentDensityAPerM2: solved.currentDensityAPerM2 };
+    return evaluateDesignPoint(inputs, stage, solved.cell);
   }
   return evaluateDesignPoint(inputs, stage);
 }
@@ -130,8 +131,9 @@ function pathKey(request: FuelPathRequest): string {
  * results are the same bytes as when each is computed again (a test checks). A case that changes
  * the air ratio changes the air-electrode gas along the path, so the Nernst voltage of its fuel
  * path: it is computed again, but its fuel gas is the one an earlier path equilibrated, and it
- * takes those equilibria from the paths already found (fuel-path.ts `earlier`). A request with seeds (a neighbouring path's equilibria to start
- * from) is not kept, since its result depends on them. `reuse: false` computes every stage.
+ * takes those equilibria from the paths already found (fuel-path.ts `earlier`). A request with
+ * seeds (a neighbouring path's equilibria to start from) is not kept, since its result depends on
+ * them. `reuse: false` computes every stage.
  */
 export class StageMemo {
   private readonly feeds = new Map<string, UnitFeeds>();
@@ -189,6 +191,52 @@ export function caseFindings(findings: readonly Finding[], c: OperatingCase): Fi
 /** Points of a case's curve: each is a uniform-voltage solve (about 1.5 ms), and the curves are smooth. */
 const CURVE_POINTS = 12;
 
+/** A curve's cells: the voltage and ionic current density at each of its current densities, up to the first where the cell has none. */
+type CurveCells = { j: number; cellVoltageV: number; ionicCurrentDensityAPerM2: number }[];
+
+/**
+ * The curves' cells found in one calculation, by fuel path (the same object: the same E(u)) and by
+ * everything else cellVoltageOf reads of the inputs held along a curve (curveKey): cases whose
+ * curves have the same inputs (a turndown on the rated case's hardware, gas and law) solve them
+ * once, and take the same numbers as solving them again.
+ */
+type CurveMemo = Map<FuelPath, Map<string, CurveCells>>;
+
+/**
+ * Every input of a curve's cells but its fuel path: the cell request (design-point.ts cellRequest:
+ * mode, voltage model at the temperature, utilization, transference number, crossover) without
+ * the path's fields and the current density, which the curve sets, with the degradation
+ * (cellVoltageOf) and the highest current density.
+ */
+function curveKey(held: DesignInputs, path: FuelPath, jMax: number): string {
+  const { profile: _profile, points: _points, inletNernstV: _inlet, currentDensityAPerM2: _j, ...rest } = cellRequest({ inputs: held, path });
+  return JSON.stringify([rest, held.degradation ?? null, jMax]);
+}
+
+/** The cells of a curve (curveOf), from the memo where the same curve was solved before. */
+function curveCells(held: DesignInputs, path: FuelPath, jMax: number, memo: CurveMemo): CurveCells {
+  const key = curveKey(held, path, jMax);
+  let byKey = memo.get(path);
+  if (!byKey) memo.set(path, (byKey = new Map()));
+  const known = byKey.get(key);
+  if (known) return known;
+  const out: CurveCells = [];
+  for (let k = 1; k <= CURVE_POINTS; k++) {
+    const j = (jMax * k) / CURVE_POINTS;
+    let voltage;
+    try {
+      voltage = cellVoltageOf({ ...held, currentDensityAPerM2: j }, path).voltage;
+    } catch (error) {
+      if (error instanceof UserError) break;
+      throw error;
+    }
+    if (!(voltage.cellVoltageV > 0)) break;
+    out.push({ j, cellVoltageV: voltage.cellVoltageV, ionicCurrentDensityAPerM2: voltage.ionicCurrentDensityAPerM2 });
+  }
+  byKey.set(key, out);
+  return out;
+}
+
 /**
  * The case's cell voltage and efficiency against current density, its fuel path, utilization and
  * resistance held (degradation included), over (0, jMax]. The efficiency follows from the case's
@@ -198,7 +246,7 @@ const CURVE_POINTS = 12;
  * A current density at which the cell has no voltage ends the curve. A case whose voltage is
  * given runs along the curve on the resistance that voltage implies.
  */
-function curveOf(point: DesignPoint, efficiency: number, jMax: number): CaseResult['curve'] {
+function curveOf(point: DesignPoint, efficiency: number, jMax: number, memo: CurveMemo): CaseResult['curve'] {
   const power = point.inputs.mode === 'power';
   const ratio = (j: number, v: number, ionic: number) => (power ? (j * v) / ionic : ionic / (j * v));
   const own = ratio(point.inputs.currentDensityAPerM2, point.voltage.cellVoltageV, point.voltage.ionicCurrentDensityAPerM2);
@@ -207,20 +255,11 @@ function curveOf(point: DesignPoint, efficiency: number, jMax: number): CaseResu
     point.inputs.voltage.kind === 'given'
       ? { ...point.inputs, voltage: { kind: 'area-specific-resistance', ohmM2: point.degradation?.beginningOfLifeResistanceOhmM2 ?? point.voltage.areaSpecificResistanceOhmM2 } }
       : point.inputs;
-  const out: CaseResult['curve'] = [];
-  for (let k = 1; k <= CURVE_POINTS; k++) {
-    const j = (jMax * k) / CURVE_POINTS;
-    let voltage;
-    try {
-      voltage = cellVoltageOf({ ...held, currentDensityAPerM2: j }, point.path).voltage;
-    } catch (error) {
-      if (error instanceof UserError) break;
-      throw error;
-    }
-    if (!(voltage.cellVoltageV > 0)) break;
-    out.push({ currentDensity_A_per_m2: j, cellVoltage_V: voltage.cellVoltageV, efficiency: (efficiency * ratio(j, voltage.cellVoltageV, voltage.ionicCurrentDensityAPerM2)) / own });
-  }
-  return out;
+  return curveCells(held, point.path, jMax, memo).map((c) => ({
+    currentDensity_A_per_m2: c.j,
+    cellVoltage_V: c.cellVoltageV,
+    efficiency: (efficiency * ratio(c.j, c.cellVoltageV, c.ionicCurrentDensityAPerM2)) / own,
+  }));
 }
 
 function efficiencyOf(results: CasePointResults): number {
@@ -362,6 +401,7 @@ export function caseResults(staged: readonly StagedCase[], sizing: DesignPoint, 
   });
   // The curves span the current densities of all the cases that ran, a quarter beyond the highest.
   const jMax = 1.25 * Math.max(...figures.map((f) => f.operatingPoint?.currentDensity_A_per_m2 ?? 0));
+  const curves: CurveMemo = new Map();
   return staged.map(({ case: c }, k) => {
     const { point, ...f } = figures[k]!;
     return {
@@ -372,7 +412,7 @@ export function caseResults(staged: readonly StagedCase[], sizing: DesignPoint, 
       load: c.load,
       overrides: c.overrides.map((o) => ({ path: o.path, text: o.text, source: o.source ?? null })),
       ...f,
-      curve: point && f.ran ? curveOf(point, efficiencyOf(f as CasePointResults), jMax) : [],
+      curve: point && f.ran ? curveOf(point, efficiencyOf(f as CasePointResults), jMax, curves) : [],
     };
   });
 }
@@ -392,6 +432,7 @@ function stageCase(c: OperatingCase, hardware: Hardware, stages: StageMemo, carb
         const solved = currentDensityForTarget(inputs, stage.path, hardware.cells, c.load === 'target-power' ? 'power' : 'hydrogen', value);
         if (!solved.ok) throw new TargetNotMet(`operating-point.${c.load}`, solved.message);
         inputs = { ...inputs, currentDensityAPerM2: solved.currentDensityAPerM2 };
+        return evaluateDesignPoint(inputs, stage, solved.cell);
       }
       return evaluateDesignPoint(inputs, stage);
     });

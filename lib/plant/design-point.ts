@@ -125,14 +125,21 @@ export function deliveredPerCell(inputs: DesignInputs, path: FuelPath, voltage: 
   return unitHydrogen * (cellIonicCurrentA / path.currentA) * getSpecies('H2').molarMassKgPerMol;
 }
 
+/** The cell's voltage after any degradation, and the cell before it. */
+export type CellVoltage = { voltage: OperatingVoltage; aged: AgedCell | null };
+
 /** The cell's voltage (after any degradation) at the inputs' current density. */
-export function cellVoltageOf(inputs: DesignInputs, path: FuelPath): { voltage: OperatingVoltage; aged: AgedCell | null } {
+export function cellVoltageOf(inputs: DesignInputs, path: FuelPath): CellVoltage {
   return agedVoltage(cellRequest({ inputs, path }), inputs.degradation);
 }
 
-/** The cell's voltage and currents, the cell count, and the stack's currents, scale (stack flows per unit flow, from the ionic current) and power. */
-function stackSize(inputs: DesignInputs, path: FuelPath) {
-  const { voltage, aged } = cellVoltageOf(inputs, path);
+/**
+ * The cell's voltage and currents, the cell count, and the stack's currents, scale (stack flows per
+ * unit flow, from the ionic current) and power; `cell` is cellVoltageOf of these inputs and path
+ * where the caller has it already (a target's root search ends on it).
+ */
+function stackSize(inputs: DesignInputs, path: FuelPath, cell: CellVoltage = cellVoltageOf(inputs, path)) {
+  const { voltage, aged } = cell;
   const cellCurrentA = inputs.currentDensityAPerM2 * inputs.activeAreaM2;
   const cellIonicCurrentA = voltage.ionicCurrentDensityAPerM2 * inputs.activeAreaM2;
   const cellPowerW = voltage.cellVoltageV * cellCurrentA;
@@ -340,13 +347,17 @@ function recycleResidual(inputs: DesignInputs, unit: UnitFeeds, path: FuelPath):
   return { ratio, residual: worst };
 }
 
-/** The design point; `stage` is the unit stage of the same inputs when already evaluated (cases that share one). */
-export function evaluateDesignPoint(inputs: DesignInputs, stage: UnitStage = unitStage(inputs)): DesignPoint {
+/**
+ * The design point; `stage` is the unit stage of the same inputs when already evaluated (cases that
+ * share one), `cell` the cell's voltage at these inputs on its path when already found (the same
+ * numbers: cellVoltageOf is pure in them).
+ */
+export function evaluateDesignPoint(inputs: DesignInputs, stage: UnitStage = unitStage(inputs), cell?: CellVoltage): DesignPoint {
   const power = inputs.mode === 'power';
   const findings: Finding[] = [];
   const { unit, path } = stage;
   const recycle = recycleResidual(inputs, unit, path);
-  const size = stackSize(inputs, path);
+  const size = stackSize(inputs, path, cell);
   const { voltage, sizing, totalCurrentA, ionicCurrentA, scale, stackPowerW, netPowerW } = size;
   const streams = stackStreams(inputs, unit, path, scale, ionicCurrentA, findings);
   const t = inputs.temperatureK;

@@ -11,6 +11,8 @@ import { caseResults, cellVoltageRange, installedPoint, stageCases, StageMemo } 
 import { carbonMargin, type CarbonLimits } from '../../lib/plant/carbon-margin.ts';
 import { plantBalance } from '../../lib/plant/plant-balance.ts';
 import { equilibriumCounts } from '../../lib/equilibrium/fuel-path.ts';
+import { currentDensityForTarget } from '../../lib/plant/case-load.ts';
+import { cellVoltageOf } from '../../lib/plant/design-point.ts';
 import { loadBasisText } from '../../lib/basis/load.ts';
 import { BasisError } from '../../lib/basis/diagnostics.ts';
 import type { DesignBasis } from '../../lib/basis/types.ts';
@@ -347,6 +349,18 @@ describe('a case whose fuel path has the inputs of an earlier case\'s takes that
 });
 
 describe('a case meets the load it states on the cells of the sizing case', () => {
+  it('the target search hands back the cell at its root: the numbers of solving the cell there again (evaluateDesignPoint takes it)', () => {
+    const basis = load(readFileSync(new URL('../../projects/thistlemere-sofc-chp/basis.yaml', import.meta.url), 'utf8'), 'thistlemere-sofc-chp');
+    const point = evaluateBasis(basis.cases.find((c) => c.sizing)!.basis);
+    const solved = currentDensityForTarget(point.inputs, point.path, point.sizing.cells, 'power', 60e3);
+    if (!solved.ok) throw new Error(solved.message);
+    expect(solved.cell).toBeDefined();
+    const again = cellVoltageOf({ ...point.inputs, currentDensityAPerM2: solved.currentDensityAPerM2 }, point.path);
+    expect(JSON.stringify(solved.cell)).toBe(JSON.stringify(again));
+    // 60 kW on the cells that meet 200 kW at the design current density: below it.
+    expect(solved.currentDensityAPerM2).toBeLessThan(point.inputs.currentDensityAPerM2);
+  });
+
   it('target power: net power N V j A (1 − f) equals the target (definition of net power; f = 6 % by A4 of the demo)', () => {
     for (const id of ['turndown', 'end-of-life', 'winter-gas']) {
       const c = caseOf(thistlemere, id);
