@@ -264,19 +264,24 @@ function voltageAndResistance(cell: Cell, limit: number): { v: number; asr: numb
 }
 
 /** The voltage and its integral ∫du/y: a root at the limit to rounding moves to the nearest voltage inside it (power: below; electrolysis: above). */
-function insideLimit(cell: Cell, solvedV: number, limit: number): { v: number; integral: ReciprocalIntegral } {
+function insideLimit(cell: Cell, solvedV: number, limit: number): { v: number; integral: ReciprocalSums } {
   let v = solvedV;
-  let integral = cell.integral(v);
+  let integral = cell.sums(v);
   for (let step = 1e-15; !integral && step < 1e-6; step *= 10) {
     v = cell.power ? limit - step * Math.max(1, Math.abs(limit)) : limit + step * Math.max(1, Math.abs(limit));
-    integral = cell.integral(v);
+    integral = cell.sums(v);
   }
   if (!integral) throw new Error(`the cell voltage ${v} V lies outside the reversible limit ${limit} V`);
   return { v, integral };
 }
 
-/** The local current density i(u) = (t E − ΔV_x − V)/ASR (power) or (V − t E)/ASR at the reported points, with the share of the area up to each. */
-function localCurrents(cell: Cell, v: number, asr: number, integral: ReciprocalIntegral): LocalPoint[] {
+/**
+ * The local current density i(u) = (t E − ΔV_x − V)/ASR (power) or (V − t E)/ASR at the reported
+ * points, with the share of the area up to each (the running integral at v, which insideLimit
+ * found positive there: the same sums, term for term).
+ */
+function localCurrents(cell: Cell, v: number, asr: number): LocalPoint[] {
+  const integral = cell.integral(v)!;
   const t = cell.t;
   const samples = new Map<number, number>();
   cell.request.profile.utilization.forEach((x, k) => samples.set(x, integral.cumulative[k]!));
@@ -308,7 +313,7 @@ export function operatingVoltage(request: CellVoltageRequest, source?: Operating
   const ionic = cell.power ? j + leakage : j - leakage;
   const effectiveNernstV = cell.power ? t * areaMeanNernstV - cell.dV : t * areaMeanNernstV;
   let local: LocalPoint[] | null = null;
-  const localOf = () => (local ??= localCurrents(cell, v, asr, integral));
+  const localOf = () => (local ??= localCurrents(cell, v, asr));
   return {
     cellVoltageV: v,
     effectiveNernstV,
