@@ -96,20 +96,26 @@ function normalised(system: ChemicalSystem, bMol: Float64Array): { b: Float64Arr
 /**
  * The gas-only equilibrium from the first start that converges: the warm start if given, then
  * the scarcest-element start, then RP-1311's uniform start, each but the last within RESTART_AFTER
- * iterations; a run that cannot converge (EquilibriumFailure) is not tried again.
+ * iterations; a run that cannot converge (EquilibriumFailure) is not tried again. Each start is
+ * made when it is tried (most runs converge from the first).
  */
 function gasOnly(system: ChemicalSystem, gRT: Float64Array, lnP: number, b: Float64Array, gGraphiteRT: number, options: MinimiserOptions, maxIterations: number): Attempt {
   const ns = system.gas.length;
-  const starts: Float64Array[] = [];
-  if (options.warmStart && options.warmStart.length === ns) starts.push(options.warmStart.slice());
-  const scarcest = new Float64Array(ns);
-  initialEstimate(system, b, scarcest);
-  starts.push(scarcest, uniformEstimate(ns));
+  const starts: (() => Float64Array)[] = [];
+  const warm = options.warmStart;
+  if (warm && warm.length === ns) starts.push(() => warm.slice());
+  const scarcest = () => {
+    const ln = new Float64Array(ns);
+    initialEstimate(system, b, ln);
+    return ln;
+  };
+  starts.push(scarcest, () => uniformEstimate(ns));
   let failure: ConvergenceError | undefined;
   let spent = 0;
-  for (const [k, ln] of starts.entries()) {
+  for (const [k, start] of starts.entries()) {
     const budget = k === starts.length - 1 ? maxIterations - spent : Math.min(RESTART_AFTER, maxIterations - spent);
     if (budget <= 0) break;
+    const ln = start();
     try {
       return iterate(system, gRT, lnP, b, ln, Math.log(sumExp(ln)), false, gGraphiteRT, 0, budget, spent);
     } catch (error) {
