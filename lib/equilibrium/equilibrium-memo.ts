@@ -9,7 +9,9 @@
  * The minimiser (gibbs-minimiser.ts minimiseGibbs) is pure in what it is given: the chemical
  * system, g°/RT of its species at T, ln P, the element amounts and the start. An answer is taken
  * only where all of them are the same, bit for bit (Object.is on every number), so the path gets
- * the numbers solving would give; the arrays are copied, so that no path shares another's.
+ * the numbers solving would give. The memo keeps the path's own arrays (a fuel path makes the
+ * element amounts and the start afresh for each equilibrium and changes neither them nor the
+ * answer afterwards), and a path that takes an answer gets copies, so that no path shares another's.
  */
 import type { ChemicalSystem } from './species-set.ts';
 import type { MinimiserResult } from './gibbs-minimiser.ts';
@@ -72,7 +74,7 @@ export class EquilibriumMemo {
   keep(u: number, b: Float64Array, warm: Float64Array | undefined, result: MinimiserResult): void {
     this.solved++;
     const at = this.kept.get(u);
-    const entry = { b: b.slice(), warm: warm?.slice(), result: { ...result, n: result.n.slice(), lnScaled: result.lnScaled.slice(), pi: result.pi.slice() } };
+    const entry = { b, warm, result };
     if (at) at.push(entry);
     else this.kept.set(u, [entry]);
   }
