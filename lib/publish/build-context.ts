@@ -17,9 +17,9 @@ export interface BuildContext {
   /**
    * Whether the output folder is a build's fresh folder, which no one sees before the build
    * renames it complete and which a failed or killed build removes whole: files may be written
-   * into it in place, without a temporary name each.
+   * into it in place, without a temporary name each. Absent: false, each file through a temporary name.
    */
-  unseen: boolean;
+  unseen?: boolean;
   /** The model, loaded before Eleventy runs (build); null to load it on every build (serve, npx). */
   model: SiteModel | null;
 }
@@ -35,5 +35,5 @@ export function setBuildContext(context: BuildContext | null): void {
 }
 
 export function buildContext(): BuildContext {
-  return (globalThis as Holder)[KEY] ?? { root: process.cwd(), output: 'site', mode: 'build', unseen: false, model: null };
+  return (globalThis as Holder)[KEY] ?? { root: process.cwd(), output: 'site', mode: 'build', model: null };
 }
