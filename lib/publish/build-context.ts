@@ -14,6 +14,12 @@ export interface BuildContext {
   /** The folder Eleventy writes. */
   output: string;
   mode: 'build' | 'serve';
+  /**
+   * Whether the output folder is a build's fresh folder, which no one sees before the build
+   * renames it complete and which a failed or killed build removes whole: files may be written
+   * into it in place, without a temporary name each. Absent: false, each file through a temporary name.
+   */
+  unseen?: boolean;
   /** The model, loaded before Eleventy runs (build); null to load it on every build (serve, npx). */
   model: SiteModel | null;
 }

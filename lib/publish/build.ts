@@ -317,6 +317,7 @@ async function renderPages(root: string, fresh: string, model: SiteModel, option
       root,
       output: fresh,
       mode: 'build',
+      unseen: true,
       model: { ...model, pages: counted.slice(start, start + PAGES_PER_RUN), revisionPages: first ? model.revisionPages : [], copies: first ? model.copies : [], writesIndex: first },
     });
     await runEleventy(fresh);

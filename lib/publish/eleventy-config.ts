@@ -91,7 +91,7 @@ function siteData(): SiteModel & { indexPages: string[] } {
   const context = buildContext();
   const model = context.model ?? loadedModel();
   // templates/index.njk paginates over indexPages: one page, or none in a run that leaves the index to another.
-  return { ...model, pages: withTableFiles(model.pages, context.output), indexPages: model.writesIndex === false ? [] : [INDEX_PATH] };
+  return { ...model, pages: withTableFiles(model.pages, context.output, context.unseen === true), indexPages: model.writesIndex === false ? [] : [INDEX_PATH] };
 }
 
 function loadedModel(): SiteModel {

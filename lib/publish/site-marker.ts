@@ -13,7 +13,7 @@
  *   writeSiteMarker(dir)                     marks a folder cellbasis has just made
  *   removeOwnFolder(path): boolean           removes a folder of ours (marked: all of it; empty: rmdir), leaves anything else
  */
-import { lstatSync, mkdirSync, readdirSync, readFileSync, readlinkSync, rmdirSync, rmSync, statSync, writeFileSync, type Stats } from 'node:fs';
+import { lstatSync, mkdirSync, readdirSync, readFileSync, readlinkSync, rmdirSync, rmSync, statSync, unlinkSync, writeFileSync, type Stats } from 'node:fs';
 import { join } from 'node:path';
 import { EXIT_VALIDATION, UserError } from '../core/errors.ts';
 
@@ -93,6 +93,30 @@ export function claimSiteFolder(path: string, command: string, shown: string): v
 }
 
 /**
+ * Removes the folder `dir` and everything in it, links unfollowed (a link is removed, never what
+ * it points to), by the types its listing gives: Node's rmSync asks lstat of every entry and
+ * tries rmdir on each file first, which made removing the previous build's site (some 30 files a
+ * document) a tenth of a cached build. `last`, a name in `dir`, goes after everything else: the
+ * site marker, so that a folder whose removal is cut short (the process killed) still carries it
+ * and is removed by the next build instead of being kept as someone else's. Anything unexpected
+ * on the way (an entry gone or added meanwhile) is left to rmSync, which finishes the removal.
+ */
+function removeTree(dir: string, last?: string): void {
+  try {
+    for (const entry of readdirSync(dir, { withFileTypes: true })) {
+      if (entry.name === last) continue;
+      const path = join(dir, entry.name);
+      if (entry.isDirectory()) removeTree(path);
+      else unlinkSync(path);
+    }
+    if (last !== undefined) unlinkSync(join(dir, last));
+    rmdirSync(dir);
+  } catch {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+/**
  * Removes a folder cellbasis made: one carrying the marker whole, an empty one with rmdir (which
  * fails rather than lose a file added meanwhile). Returns false, removing nothing, for anything
  * else (a symbolic link included: the caller unlinks a link of its own).
@@ -105,6 +129,6 @@ export function removeOwnFolder(path: string): boolean {
     return true;
   }
   if (markerProblem(path)) return false;
-  rmSync(path, { recursive: true, force: true });
+  removeTree(path, SITE_MARKER);
   return true;
 }

@@ -95,9 +95,23 @@ export function columnHeader(c: DataColumn): string {
   return c.unit === '' ? c.name : `${c.name} [${c.unit}]`;
 }
 
+/**
+ * A table's HTML and CSV, kept by the rows and data they were made from, so that tables sharing
+ * them (the same checks in every document of a build, lib/report/sections/verification.ts) have
+ * them made once. A table is never changed once made (only its link and HTML are set on it), and
+ * the entries go with the rows and data.
+ */
+const htmlMade = new WeakMap<readonly TableRow[], { head: readonly string[]; align: readonly Align[]; html: TableHtml }>();
+const csvMade = new WeakMap<TableData, string>();
+
 /** The table's data as a CSV file (lib/core/csv.ts): the header row names each column with its unit. */
 export function tableCsv(t: Table): string {
-  return csvText(t.data.columns.map(columnHeader), t.data.rows);
+  let text = csvMade.get(t.data);
+  if (text === undefined) {
+    text = csvText(t.data.columns.map(columnHeader), t.data.rows);
+    csvMade.set(t.data, text);
+  }
+  return text;
 }
 
 /** One number, text or flag of a row of a pairs or cross table, with the column it takes in the data. */
@@ -231,6 +245,15 @@ const cellClass = (align: Align | undefined): string => (align === 'right' ? 'nu
  * byte for byte against that loop. A body row is indented by four spaces and ends in a newline.
  */
 export function tableHtml(t: Table): TableHtml {
+  const made = htmlMade.get(t.rows);
+  if (made && made.head === t.head && made.align === t.align) return made.html;
+  const html = rowsHtml(t);
+  htmlMade.set(t.rows, { head: t.head, align: t.align, html });
+  return html;
+}
+
+/** tableHtml's work: the header cells and the body rows, escaped. */
+function rowsHtml(t: Table): TableHtml {
   let head = '';
   t.head.forEach((h, i) => (head += `<th scope="col" class="${cellClass(t.align[i])}">${escapeHtml(shown(h))}</th>`));
   const classes = t.align.map(cellClass);

@@ -114,15 +114,37 @@ const COLUMNS: RecordColumn<CheckResult>[] = [
   },
 ];
 
+/**
+ * The tables and counts of each set of checks, made once: a site build hands the same checks to
+ * every document, whose tables were made again for each of them. A document gets tables of its
+ * own that share the rows (linking gives each document's tables their own CSV link) and, through
+ * the shared rows and data, their HTML and CSV made once (lib/report/table.ts).
+ */
+const madeFor = new WeakMap<readonly CheckResult[], Omit<VerificationSection, 'ranBy'>>();
+
+function checksMade(checks: readonly CheckResult[]): Omit<VerificationSection, 'ranBy'> {
+  let made = madeFor.get(checks);
+  if (!made) {
+    made = {
+      table: recordsTable({ name: 'verification', title: 'Checks against published values', columns: COLUMNS, groups: [{ items: checks }], flag: (c) => !c.pass }),
+      summary: verificationSummaryTable(checks),
+      appendix: appendixLetter('checks'),
+      passed: checks.filter((c) => c.pass).length,
+      failed: checks.filter((c) => !c.pass).length,
+      fromMemory: checks.filter((c) => c.check.memory).length,
+    };
+    madeFor.set(checks, made);
+  }
+  return made;
+}
+
 export function verificationSection(checks: readonly CheckResult[], toolVersion: string, resultsToolVersion: string): VerificationSection {
   const same = toolVersion === resultsToolVersion;
+  const made = checksMade(checks);
   return {
-    table: recordsTable({ name: 'verification', title: 'Checks against published values', columns: COLUMNS, groups: [{ items: checks }], flag: (c) => !c.pass }),
-    summary: verificationSummaryTable(checks),
-    appendix: appendixLetter('checks'),
-    passed: checks.filter((c) => c.pass).length,
-    failed: checks.filter((c) => !c.pass).length,
-    fromMemory: checks.filter((c) => c.check.memory).length,
+    ...made,
+    table: { ...made.table },
+    summary: { ...made.summary },
     ranBy: same
       ? `Run by cellbasis ${toolVersion}, the version that calculated this document.`
       : `Run by cellbasis ${toolVersion}; these results were calculated by cellbasis ${resultsToolVersion}.`,
