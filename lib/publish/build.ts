@@ -400,7 +400,9 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
     await swapIntoPlace(root, out, names, options);
   } catch (error) {
     await fileWorkSettled();
-    for (const path of [fresh, names.complete, names.link]) rmSync(path, { recursive: true, force: true });
+    // Its own folders go marker last (a kill meanwhile leaves a marked folder the next build removes); the rest, or what is not as expected, by rmSync.
+    for (const path of [fresh, names.complete]) if (!removeOwnFolder(path)) rmSync(path, { recursive: true, force: true });
+    rmSync(names.link, { recursive: true, force: true });
     if (existsSync(names.aside) && !lstatSync(out, { throwIfNoEntry: false })) renameSync(names.aside, out);
     const problem = error instanceof UserError ? null : fileErrorIn(error);
     if (problem) {
