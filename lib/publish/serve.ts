@@ -32,7 +32,7 @@ import { createRequire } from 'node:module';
 import { projectsProblemText, rescanProjects, scanProjects, type ProjectsScan } from '../basis/projects.ts';
 import { UserError, EXIT_VALIDATION } from '../core/errors.ts';
 import { fileProblem } from '../core/file-errors.ts';
-import { portfolioView, type PortfolioProject } from '../report/portfolio.ts';
+import { portfolioView, type PortfolioEntry } from '../report/portfolio.ts';
 import { loadProjectPages, projectLoader, type ProjectLoader } from './site-model.ts';
 import { SiteProblems } from './site-problems.ts';
 import { renderView } from './render.ts';
@@ -74,7 +74,7 @@ interface DevServer {
 }
 
 interface ProjectState {
-  portfolio: PortfolioProject | null;
+  portfolio: PortfolioEntry | null;
   errors: string[];
   warnings: string[];
 }
@@ -105,7 +105,7 @@ class IncrementalSite {
     private readonly root: string,
     private readonly out: string,
   ) {
-    this.loader = projectLoader(root);
+    this.loader = projectLoader(root, { keepDrafts: true });
   }
 
   /** Renders one project's pages and copies its issued PDFs; returns the files written. */
@@ -155,7 +155,7 @@ class IncrementalSite {
     const states = ids.map((id) => this.projects.get(id)).filter((s): s is ProjectState => s !== undefined);
     const errors = [...problems.filter((p) => p.severity === 'error').map(projectsProblemText), ...states.flatMap((s) => s.errors)];
     const portfolio = portfolioView(
-      states.map((s) => s.portfolio).filter((p): p is PortfolioProject => p !== null),
+      states.map((s) => s.portfolio).filter((p): p is PortfolioEntry => p !== null),
       ...(errors.length ? [errors] : []),
     );
     const file = join(this.out, 'index.html');
@@ -165,7 +165,7 @@ class IncrementalSite {
 
   /** Every page and the assets. */
   all(): string[] {
-    this.loader = projectLoader(this.root);
+    this.loader = projectLoader(this.root, { keepDrafts: true });
     writeSiteAssets(join(this.out, ASSET_DIR));
     const scan = this.listProjects(null);
     const files = scan.ids.flatMap((id) => this.project(id));

@@ -27,7 +27,7 @@ import { runAllChecks } from '../verification/checks.ts';
 import { documentView, type DocumentView } from '../report/document.ts';
 import { revisionHistory, type ChangeSummary, type DraftRecord, type RevisionHistoryEntry } from '../report/history.ts';
 import { draftPagePath, relativeHref, revisionPagePath, rootPrefix } from '../report/links.ts';
-import { INDEX_PATH, portfolioResults, portfolioView, type PortfolioProject, type PortfolioView } from '../report/portfolio.ts';
+import { INDEX_PATH, portfolioEntry, portfolioView, type PortfolioEntry, type PortfolioView } from '../report/portfolio.ts';
 import type { RevisionContext } from '../report/revision.ts';
 import { revisionPageView, type RevisionPageView } from '../report/revision-page.ts';
 import { nextRevision } from '../basis/revisions.ts';
@@ -73,8 +73,8 @@ export interface SiteModel {
 
 /**
  * A working draft's page, to print it: its basis and results are made again when asked for
- * (`document()`), the results read from the results cache, so that a model of many projects
- * does not hold the results of all of them at once.
+ * (`document()`), the basis read from its file again and the results from the results cache,
+ * so that a model of many projects holds neither for any of them.
  */
 export interface DraftEntry {
   id: string;
@@ -92,10 +92,27 @@ export interface SiteOptions {
   results?: ReadonlyMap<string, CalculationOutcome>;
   /** Whether the build prints each draft to projects/<id>/document.pdf (the page links it). */
   draftPdfs?: boolean;
+  /**
+   * Keep each draft's basis and results for its page and PDF, instead of reading them again when
+   * they are made: for the dev server, which renders a project's pages at once and then lets
+   * them go (a build keeps none: see documentAgain).
+   */
+  keepDrafts?: boolean;
 }
 
 function pageOptions(path: string) {
   return { pagePath: path, assetBase: `${rootPrefix(path)}${ASSET_DIR}/`, indexHref: relativeHref(path, INDEX_PATH) };
+}
+
+/**
+ * A copy of plain data (strings, numbers, arrays, objects) that holds only itself. V8 keeps a
+ * string cut from another together with that other: a row's title, a signatory's name or a date
+ * read from a basis kept the whole text of the basis alive (about 6 kB a project; a heap snapshot
+ * of the model of 400 synthetic projects held all 400 texts), and the model keeps what it is
+ * given until the build ends. A structured clone writes every string anew.
+ */
+function detached<T>(value: T): T {
+  return structuredClone(value);
 }
 
 /** The change summary of lib/archive/compare.ts; each revision carries its basis's YAML text for the structural diff. */
@@ -119,7 +136,7 @@ export interface ProjectPages {
   revisionPages: RevisionPageEntry[];
   copies: SiteCopy[];
   draft: SiteModel['drafts'][number] | null;
-  portfolio: PortfolioProject | null;
+  portfolio: PortfolioEntry | null;
 }
 
 /** The shared inputs of loading projects: the verification table and the results cache. */
@@ -165,24 +182,40 @@ function draftResults(loader: ProjectLoader, id: string, basis: DesignBasis, byt
 }
 
 /**
- * The draft's results again, when its page is rendered or printed: read from the results cache,
- * where they were put when they were calculated, so that the model does not keep them (the
- * memory of a build is then independent of the number of projects). Where the cache holds no
- * entry (a folder it cannot write), the results are kept instead; an entry that no longer reads
- * back (removed meanwhile) is calculated again, as the same bytes give the same results.
+ * The draft's basis and results again, when its page is rendered or printed, so that the model
+ * keeps neither (the memory of a build is then independent of the number of projects; the
+ * validated basis alone is some 30 kB a project in memory). The basis is read from its file
+ * again and must still be the one the model was made from (`key`, its results key): a basis
+ * saved while the site is built stops the build, which is then run again, rather than give a page
+ * that the checks, the index row and the warnings were not made from. The results are read from
+ * the results cache, where they were put when they were calculated; where the cache holds no
+ * entry (a folder it cannot write) they are kept (`kept`) instead, and an entry that no longer
+ * reads back (removed meanwhile) is calculated again, as the same bytes give the same results.
  */
-function resultsAgain(loader: ProjectLoader, basis: DesignBasis, key: string, results: Results): () => Results {
-  return loader.cache.has(key) ? fromCache(loader, basis, key) : kept(results);
+function documentAgain(loader: ProjectLoader, id: string, key: string, kept: Results | null): () => { basis: DesignBasis; results: Results } {
+  return () => {
+    const shown = `projects/${id}/basis.yaml`;
+    const read = readBasisFile(join(loader.root, 'projects', id, 'basis.yaml'), { id, displayPath: shown });
+    if (!read.bytes || !read.result.ok || resultsKey(read.bytes, id, shown) !== key) {
+      throw new UserError(`${shown} changed while the site was made from it; nothing was made of the new text: run the build again`);
+    }
+    const basis = read.result.basis;
+    return { basis, results: kept ?? loader.cache.get(key) ?? calculate(basis) };
+  };
 }
 
-// Two functions, not two arrows in one: arrows made in one function share its variables, and the
-// cache reader would hold the results it exists to let go.
-function fromCache(loader: ProjectLoader, basis: DesignBasis, key: string): () => Results {
-  return () => loader.cache.get(key) ?? calculate(basis);
+// Module functions, not arrows inside loadProjectPages: arrows made in one function share its
+// variables, and a page's view would hold the basis and results it exists to let go.
+function keptDocument(basis: DesignBasis, results: Results): () => { basis: DesignBasis; results: Results } {
+  return () => ({ basis, results });
 }
 
-function kept(results: Results): () => Results {
-  return () => results;
+function draftPage(pagePath: string, document: () => { basis: DesignBasis; results: Results }, revision: RevisionContext, history: RevisionHistoryEntry[], checks: ProjectLoader['checks']): PageEntry {
+  return { pagePath, view: () => documentView({ ...document(), revision, history }, { ...pageOptions(pagePath), checks }) };
+}
+
+function revisionPage(pagePath: string, input: Parameters<typeof revisionPageView>[0]): RevisionPageEntry {
+  return { pagePath, view: () => revisionPageView(input) };
 }
 
 /**
@@ -201,28 +234,27 @@ function issuedPages(id: string, issued: IssuedRevision[], history: RevisionHist
     const entry = history.find((h) => h.kind === 'issued' && h.revision === s.revision);
     const before = issued[i - 1];
     const m = s.manifest;
-    pages.push({
-      pagePath,
-      view: () =>
-        revisionPageView({
-          projectId: id,
-          number: m.documentNumber,
-          title: m.title,
-          client: issuedDocumentText(s, 'client'),
-          site: issuedDocumentText(s, 'site'),
-          revision: s.revision,
-          manifest: { status: m.status, issuedOn: m.issuedOn, note: m.note, signOff: m.signOff, signatures: m.signatures, toolVersion: m.tool.version, chromium: m.pdf?.chromium ?? null },
-          manifestSha256: s.manifestSha256,
-          previous: before ? { revision: before.revision, changes: entry?.changes ?? [] } : null,
-          supersededBy: next ? { revision: next.revision, issuedOn: next.manifest.issuedOn, path: revisionPagePath(id, next.revision) } : null,
-          pagePath,
-          draftPath: draftPagePath(id),
-          hasDocument: s.html !== null,
-          hasPdf: s.pdf !== null,
-          indexPath: INDEX_PATH,
-          draftRevision,
-        }),
-    });
+    // Made now, of a few strings: the page's view holds these, not the revision's basis and results.
+    pages.push(
+      revisionPage(pagePath, detached({
+        projectId: id,
+        number: m.documentNumber,
+        title: m.title,
+        client: issuedDocumentText(s, 'client'),
+        site: issuedDocumentText(s, 'site'),
+        revision: s.revision,
+        manifest: { status: m.status, issuedOn: m.issuedOn, note: m.note, signOff: m.signOff, signatures: m.signatures, toolVersion: m.tool.version, chromium: m.pdf?.chromium ?? null },
+        manifestSha256: s.manifestSha256,
+        previous: before ? { revision: before.revision, changes: entry?.changes ?? [] } : null,
+        supersededBy: next ? { revision: next.revision, issuedOn: next.manifest.issuedOn, path: revisionPagePath(id, next.revision) } : null,
+        pagePath,
+        draftPath: draftPagePath(id),
+        hasDocument: s.html !== null,
+        hasPdf: s.pdf !== null,
+        indexPath: INDEX_PATH,
+        draftRevision,
+      })),
+    );
   });
   return { pages, copies };
 }
@@ -267,36 +299,39 @@ export function loadProjectPages(loader: ProjectLoader, id: string, problems: Si
   if (!loaded.ok || !bytes) return none;
   const results = draftResults(loader, id, loaded.basis, bytes, problems);
   if (!results) return none;
-  const again = resultsAgain(loader, loaded.basis, resultsKey(bytes, id, shown), results);
   problems.findings(everyFinding(results).map((f) => formatFinding(loaded.basis, f)));
   const draftPath = draftPagePath(id);
   const last = issued[issued.length - 1];
   const draftRevision = nextRevision(last?.revision ?? null);
-  const history = projectHistory(id, issued, { revision: draftRevision, basis: loaded.basis, source: Buffer.from(bytes).toString('utf8'), results, path: draftPath }, options.changeSummary ?? compareWith);
-  const date = draftDate(loaded.basis, options.env);
-  const draft: RevisionContext = {
+  const history = detached(projectHistory(id, issued, { revision: draftRevision, basis: loaded.basis, source: Buffer.from(bytes).toString('utf8'), results, path: draftPath }, options.changeSummary ?? compareWith));
+  const date = detached(draftDate(loaded.basis, options.env));
+  const draft: RevisionContext = detached({
     kind: 'draft',
     revision: draftRevision,
     lastIssued: last ? { revision: last.revision, status: last.manifest.status, issuedOn: last.manifest.issuedOn } : null,
     date,
     pdfHref: options.draftPdfs ? 'document.pdf' : null,
-  };
+  });
   const register = issuedPages(id, issued, history, draftRevision);
+  const key = resultsKey(bytes, id, shown);
+  const document = options.keepDrafts ? keptDocument(loaded.basis, results) : documentAgain(loader, id, key, loader.cache.has(key) ? null : results);
   return {
-    pages: [{ pagePath: draftPath, view: () => documentView({ basis: loaded.basis, results: again(), revision: draft, history }, { ...pageOptions(draftPath), checks }) }],
+    pages: [draftPage(draftPath, document, draft, history, checks)],
     revisionPages: register.pages,
     copies: register.copies,
-    draft: { id, pagePath: draftPath, date, revision: draft, document: () => ({ basis: loaded.basis, results: again() }) },
-    portfolio: {
-      id,
-      basis: loaded.basis,
-      // Only what the index row reads: the model keeps this row until the index is made.
-      results: portfolioResults(results),
-      draftPath,
-      issued: last ? { revision: last.revision, status: last.manifest.status, issuedOn: last.manifest.issuedOn, path: revisionPagePath(id, last.revision) } : null,
-      draftRevision,
-      revisionsIssued: issued.length,
-    },
+    draft: { id, pagePath: draftPath, date, revision: draft, document },
+    // The index row, formatted now: the model keeps it, not the basis and results it is made from.
+    portfolio: detached(
+      portfolioEntry({
+        id,
+        basis: loaded.basis,
+        results,
+        draftPath,
+        issued: last ? { revision: last.revision, status: last.manifest.status, issuedOn: last.manifest.issuedOn, path: revisionPagePath(id, last.revision) } : null,
+        draftRevision,
+        revisionsIssued: issued.length,
+      }),
+    ),
   };
 }
 
@@ -307,7 +342,7 @@ export function loadSiteModel(root: string, options: SiteOptions = {}): SiteMode
   const pages: PageEntry[] = [];
   const revisionPages: RevisionPageEntry[] = [];
   const copies: SiteCopy[] = [];
-  const projects: PortfolioProject[] = [];
+  const projects: PortfolioEntry[] = [];
   const drafts: SiteModel['drafts'] = [];
   const scanned = scanProjects(root);
   for (const problem of scanned.problems) (problem.severity === 'error' ? problems.errors : problems.warnings).push(projectsProblemText(problem));

@@ -14,20 +14,11 @@ import { relativeHref } from './links.ts';
 
 export const INDEX_PATH = 'index.html';
 
-/**
- * The part of a project's results its index row reads. A site model keeps only this for each
- * project until the index is made (`portfolioResults`), not the whole results (about 170 kB a
- * project in memory), so that the model of a large portfolio stays small.
- */
+/** The part of a project's results its index row reads (the whole results satisfy it). */
 export interface PortfolioResults {
   technology: Pick<Results['technology'], 'name' | 'mode'>;
   headline: Results['headline'];
   hazards: Pick<Results['hazards'], 'cautions'>;
-}
-
-/** What the index row of a project needs of its results, taken out of them (the rest may then be let go). */
-export function portfolioResults(results: Results): PortfolioResults {
-  return { technology: { name: results.technology.name, mode: results.technology.mode }, headline: results.headline, hazards: { cautions: results.hazards.cautions } };
 }
 
 export interface PortfolioProject {
@@ -74,6 +65,22 @@ function together(text: string): string {
   return text.replace(/ (?=[A-Za-z%°Ω×])/g, '\u00a0').replace(/× /g, '×\u00a0');
 }
 
+/**
+ * What the index keeps of a project: its row, formatted, and how many revisions it has issued.
+ * A site model keeps only this for each project until the index is made, not the basis and
+ * results the row is made from (some 30 kB a project in memory), so that the model of a large
+ * portfolio stays small; the dev server keeps each project's entry and makes again only the
+ * entry of the project that changed.
+ */
+export interface PortfolioEntry {
+  row: PortfolioRow;
+  revisionsIssued: number;
+}
+
+export function portfolioEntry(p: PortfolioProject): PortfolioEntry {
+  return { row: row(p), revisionsIssued: p.revisionsIssued };
+}
+
 function row(p: PortfolioProject): PortfolioRow {
   const r = p.results;
   const h = r.headline;
@@ -107,14 +114,14 @@ function row(p: PortfolioProject): PortfolioRow {
   };
 }
 
-export function portfolioView(projects: readonly PortfolioProject[], problems: string[] = []): PortfolioView {
+export function portfolioView(projects: readonly PortfolioEntry[], problems: string[] = []): PortfolioView {
   const issued = projects.reduce((n, p) => n + p.revisionsIssued, 0);
-  const open = projects.reduce((n, p) => n + p.basis.assumptions.filter((a) => a.open).length, 0);
+  const open = projects.reduce((n, p) => n + p.row.openCount, 0);
   return {
     pageTitle: 'Design bases',
     // No charts on the index: only our script, which marks the page ready for printing.
     assets: { stylesheets: assetLinks('assets/').stylesheets, scripts: [`assets/${ASSETS.chartsScript}`] },
-    rows: projects.map(row),
+    rows: projects.map((p) => p.row),
     summary: `${projects.length} design bases, ${issued} issued revision${issued === 1 ? '' : 's'}, ${open} open assumption${open === 1 ? '' : 's'} in the working drafts.`,
     problems,
   };

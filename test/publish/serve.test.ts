@@ -66,3 +66,26 @@ it('serves each page byte for byte as cellbasis build writes it (one renderer fo
     expect(await page(path), path).toBe(readFileSync(join(built, path), 'utf8'));
   }
 }, 120_000);
+
+it('after a save that changes a project’s numbers, serves the index byte for byte as a full build writes it (only that row made again)', async () => {
+  const before = await until('', (h) => h.includes('8 kW PEM backup power unit') && !h.includes('The last build failed'));
+  const good = readFileSync(basisFile(root, ID), 'utf8');
+  const changed = good.replace('current-density: { value: "0.65 A/cm2", source: R2 }', 'current-density: { value: "0.55 A/cm2", source: R2 }');
+  expect(changed, 'the demo basis still states its current density this way').not.toBe(good);
+  try {
+    writeFileSync(basisFile(root, ID), changed);
+    // The row's numbers (cell voltage, output, heat) move with the current density: the index changes.
+    const after = await until('', (h) => h !== before && h.includes('8 kW PEM backup power unit'));
+    expect(after).not.toBe(before);
+    const row = (html: string, id: string) => new RegExp(`<tr id="project-${id}">[\\s\\S]*?</tr>`).exec(html)?.[0];
+    expect(row(before, ID)).toBeDefined();
+    expect(row(after, ID), 'the changed project’s row').not.toBe(row(before, ID));
+    expect(row(after, OTHER), 'the other project’s row').toBe(row(before, OTHER));
+    const built = join(root, 'built-after-save');
+    await buildSite({ root, out: built, pdf: false });
+    expect(after).toBe(readFileSync(join(built, 'index.html'), 'utf8'));
+  } finally {
+    writeFileSync(basisFile(root, ID), good);
+    await until('', (h) => h === before);
+  }
+}, 120_000);
