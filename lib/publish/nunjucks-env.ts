@@ -4,7 +4,8 @@
  * its site page are rendered by the same code. Autoescaping is on and undefined output throws;
  * the only way to insert unescaped HTML is the `trusted` filter, which accepts nothing but the
  * TrustedHtml values lib/report makes (KaTeX of our own LaTeX, chart JSON, CSS strings) and throws
- * on any other value, user text included.
+ * on any other value, user text included. The `portfolioRow` filter inserts a row of the
+ * portfolio index as this environment rendered it, escaped, from templates/_includes/portfolio-row.njk.
  *
  * Nunjucks is Eleventy's own copy (resolved from @11ty/eleventy), so the environment is of the
  * version Eleventy drives; the few members used here are typed below.
@@ -36,10 +37,30 @@ function trusted(value: unknown): unknown {
   return new nunjucks.runtime.SafeString(value.html);
 }
 
+/**
+ * Each row of the portfolio index rendered once for each row object: the dev server keeps every
+ * project's row and makes again only the row of the project saved, so the index of 2 000
+ * projects re-renders one row a save, not all of them. The row's own template is rendered by
+ * the same environment (autoescaped) as the page around it was, so the index is byte for byte
+ * the one a full build writes.
+ */
+const renderedRows = new WeakMap<object, unknown>();
+
+function portfolioRow(env: NunjucksEnvironment, row: object): unknown {
+  let html = renderedRows.get(row);
+  if (html === undefined) {
+    // The template's last line ends in a newline, which the loop around it writes itself.
+    html = new nunjucks.runtime.SafeString(env.render('portfolio-row.njk', { r: row }).replace(/\n$/, ''));
+    renderedRows.set(row, html);
+  }
+  return html;
+}
+
 function createEnvironment(): NunjucksEnvironment {
   const loader = new nunjucks.FileSystemLoader([join(TEMPLATES_DIR, '_includes'), TEMPLATES_DIR]);
   const env = new nunjucks.Environment(loader, { autoescape: true, throwOnUndefined: true, trimBlocks: true, lstripBlocks: true });
   env.addFilter('trusted', trusted);
+  env.addFilter('portfolioRow', (row: object) => portfolioRow(env, row));
   return env;
 }
 
