@@ -28,9 +28,21 @@ const METHOD_SOURCES: ReferenceItem[] = [
   { id: 'M6', citation: 'ASME Y14.35, Revision of Engineering Drawings and Associated Documents', citedBy: 'revision identifiers' },
 ];
 
+/**
+ * Whether a source text cites a reference: its id as a whole token, at the start ("R3") or
+ * inside a sentence ("R3, reciprocating compressor"; "set by the 7 K rise of R3"). A token
+ * ends where no letter, digit or underscore follows, nor a "." or "-" joined to one, so R1
+ * does not cite inside R10 or R1.2.
+ */
+function cites(text: string | undefined, id: string): boolean {
+  if (text === undefined) return false;
+  const escaped = id.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+  return new RegExp(`(?<![\\p{L}\\p{N}_.-])${escaped}(?![\\p{L}\\p{N}_]|[.-][\\p{L}\\p{N}])`, 'u').test(text);
+}
+
 function citers(basis: DesignBasis, id: string): string {
-  const inputs = basis.inputs.filter((i) => i.source?.trim() === id).map((i) => i.label);
-  const assumptions = basis.assumptions.filter((a) => a.reference === id).map((a) => `assumption ${a.id}`);
+  const inputs = basis.inputs.filter((i) => cites(i.source, id)).map((i) => i.label);
+  const assumptions = basis.assumptions.filter((a) => cites(a.reference, id)).map((a) => `assumption ${a.id}`);
   const list = [...assumptions, ...inputs];
   return list.length ? list.join('; ') : 'listed in the basis';
 }
