@@ -2,11 +2,14 @@
  * The block flow diagram of the plant: one box per unit the basis has (power: feed preparation,
  * pre-reformer, fuel preheat, blower, air preheat, stack, off-gas oxidiser, heat recovery;
  * electrolysis: feed preparation or water loop, preheat, stack, recuperator, product cooler and dryer, compressor) and
- * one arrow per numbered stream of the heat-and-material balance, labelled with its number. Drawn
- * by the project as plain SVG in the document's style: boxes, lines, numbers, no symbols.
+ * one arrow per numbered stream of the heat-and-material balance, labelled with its number. Where a
+ * recuperator takes the electrolysis feeds, they run from the plant's edge into its cold side and
+ * out of it to the heaters and the stack, and the products through its hot side. Drawn by the
+ * project as plain SVG in the document's style: boxes, lines, numbers, no symbols.
  */
 import type { Results } from '../plant/results-schema.ts';
 import { escapeHtml, trustedHtml, type TrustedHtml } from './trusted-html.ts';
+import { formatCelsius, formatPercent } from './format.ts';
 
 interface Box {
   x: number;
@@ -35,11 +38,16 @@ function terminal(col: number, y: number, label: string): Box {
 const right = (b: Box) => ({ x: b.x + b.w, y: b.y + b.h / 2 });
 const left = (b: Box) => ({ x: b.x, y: b.y + b.h / 2 });
 
+/** The path data of a line through the points: "M10.0,63.0 L130.0,63.0". */
+function pathData(points: readonly { x: number; y: number }[]): string {
+  return points.map((p, i) => `${i ? 'L' : 'M'}${p.x.toFixed(1)},${p.y.toFixed(1)}`).join(' ');
+}
+
 /** An arrow from one point to another, horizontal, then vertical, then horizontal, with the stream number on its first leg. */
 function arrow(from: { x: number; y: number }, to: { x: number; y: number }, numbers: number[], labelOnLastLeg = false): string {
   const xm = from.y === to.y ? to.x : (from.x + to.x) / 2;
   const points = from.y === to.y ? [from, to] : [from, { x: xm, y: from.y }, { x: xm, y: to.y }, to];
-  const d = points.map((p, i) => `${i ? 'L' : 'M'}${p.x.toFixed(1)},${p.y.toFixed(1)}`).join(' ');
+  const d = pathData(points);
   const straight = from.y === to.y;
   const lx = straight ? (from.x + to.x) / 2 : labelOnLastLeg ? (xm + to.x) / 2 : (from.x + xm) / 2;
   const ly = straight || !labelOnLastLeg ? from.y : to.y;
@@ -65,9 +73,8 @@ function exitLabel(x: number, y: number, label: string): string {
   return `<text x="${x}" y="${y + 4}" font-size="10">${escapeHtml(label)}</text>`;
 }
 
-/** The SVG around the boxes, arrows and labels. */
-function svgOf(boxes: Box[], parts: string[], terminals: string[]): TrustedHtml {
-  const height = AIR_Y + H + 62;
+/** The SVG around the boxes, arrows and labels (taller where a recuperator's feeds run below the air line). */
+function svgOf(boxes: Box[], parts: string[], terminals: string[], height = AIR_Y + H + 62): TrustedHtml {
   const width = COL[7]! + 70;
   return trustedHtml(
     `<svg class="block-flow" viewBox="0 0 ${width} ${height}" width="100%" role="img" aria-label="Block flow diagram of the plant with its numbered streams" xmlns="http://www.w3.org/2000/svg">` +
@@ -115,13 +122,18 @@ function stackBox(d: Drawing, col: number): Box {
 
 type Electrolysis = NonNullable<Results['plant']['electrolysis']>;
 
-/** One electrode's feed preparation (steam raising, a water loop's make-up and cooler, gas preheat) with the feeds into it and its inlet to the stack. */
-function electrolysisFeedSide(d: Drawing, x: Electrolysis, stack: Box, side: { id: string; y: number; steam: boolean; gas: string }, isWaterSide: boolean): void {
+/**
+ * One electrode's feed preparation (steam raising, a water loop's make-up and cooler, gas preheat) with its inlet to the stack
+ * and, unless a recuperator takes them first (recuperatorFeeds), the feeds into it from the plant's edge.
+ */
+function electrolysisFeedSide(d: Drawing, x: Electrolysis, stack: Box, side: FeedSide, isWaterSide: boolean): Box {
   const { has, num, parts, terminals } = d;
   const loop = isWaterSide && x.waterLoop !== null;
-  const label = side.steam ? ['feed preparation', '(steam, preheat)'] : loop ? ['water loop', '(make-up, cooler)'] : ['preheat'];
+  const recuperated = x.recuperator !== null;
+  const label = side.steam ? [recuperated ? 'feed heaters' : 'feed preparation', '(steam, preheat)'] : loop ? ['water loop', '(make-up, cooler)'] : ['preheat'];
   const prep = d.add(box(1, side.y, label));
   parts.push(arrow(right(prep), { x: stack.x, y: side.y + H / 2 }, num(`${side.id}-inlet`)));
+  if (recuperated) return prep;
   const gasId = `${side.id}-gas-supply`;
   const withWater = isWaterSide && has('feed-water');
   if (has(gasId)) {
@@ -139,26 +151,80 @@ function electrolysisFeedSide(d: Drawing, x: Electrolysis, stack: Box, side: { i
     const edge = top ? stack.y : stack.y + stack.h;
     parts.push(loopBack(stack.x + W / 2, edge, prep.x + W / 2, top ? prep.y : prep.y + H, top ? edge - 14 : edge + 14, num('loop-return')));
   }
+  return prep;
 }
 
 /**
- * The feed recuperator between the stack and the products' exits: the hot outlets pass through it,
- * and the feeds it heats return (dashed, under the air line) to the feed preparation, whose heaters
- * take them on to the stack. Where the hydrogen and the oxygen side leave it, or the stack without it.
+ * The feed recuperator between the stack and the products' exits: the hot outlets pass through it.
+ * Where the hydrogen and the oxygen side leave it (or the stack without it), and the box.
  */
-function recuperatorPath(d: Drawing, stack: Box): { fuel: { x: number; y: number; id: string }; air: { x: number; y: number; id: string }; shift: number } {
-  const { has, num, parts, terminals } = d;
+function recuperatorPath(d: Drawing, x: Electrolysis, stack: Box): { fuel: { x: number; y: number; id: string }; air: { x: number; y: number; id: string }; shift: number; rec: Box | null } {
+  const { has, num, parts } = d;
   const outFuel = { x: stack.x + W, y: FUEL_Y + H / 2 };
   const outAir = { x: stack.x + W, y: AIR_Y + H / 2 };
-  if (!has('fuel-outlet-recuperated') && !has('air-outlet-recuperated')) return { fuel: { ...outFuel, id: 'fuel-outlet' }, air: { ...outAir, id: 'air-outlet' }, shift: 0 };
+  if (x.recuperator === null) return { fuel: { ...outFuel, id: 'fuel-outlet' }, air: { ...outAir, id: 'air-outlet' }, shift: 0, rec: null };
   const rec = d.add(box(4, MID_Y, ['recuperator']));
   if (has('fuel-outlet')) parts.push(arrow(outFuel, { x: rec.x, y: rec.y + 12 }, num('fuel-outlet')));
   if (has('air-outlet')) parts.push(arrow(outAir, { x: rec.x, y: rec.y + H - 12 }, num('air-outlet')));
-  const feeds = num('fuel-steam-recuperated', 'fuel-gas-recuperated', 'air-steam-recuperated', 'air-gas-recuperated');
-  const back = AIR_Y + H + 26;
-  parts.push(loopBack(rec.x + W / 2, rec.y + H, COL[1]! + W / 2, AIR_Y + H, back, feeds));
-  terminals.push(`<text x="${((rec.x + COL[1]! + W) / 2).toFixed(1)}" y="${back + 24}" text-anchor="middle" font-size="10">feeds heated by the recuperator</text>`);
-  return { fuel: { x: rec.x + W, y: rec.y + 12, id: 'fuel-outlet-recuperated' }, air: { x: rec.x + W, y: rec.y + H - 12, id: 'air-outlet-recuperated' }, shift: 1 };
+  return { fuel: { x: rec.x + W, y: rec.y + 12, id: 'fuel-outlet-recuperated' }, air: { x: rec.x + W, y: rec.y + H - 12, id: 'air-outlet-recuperated' }, shift: 1, rec };
+}
+
+/** An electrode's feed side of the electrolysis diagram: its row, whether it is fed steam, and the name of the gas fed with it. */
+interface FeedSide {
+  id: 'fuel' | 'air';
+  y: number;
+  steam: boolean;
+  gas: string;
+}
+
+/** A stream along the points (horizontal and vertical legs), its arrow at the last, its numbers at `label`. */
+function route(points: { x: number; y: number }[], numbers: number[], label: { x: number; y: number }): string {
+  return `<path d="${pathData(points)}" fill="none" stroke="currentColor" stroke-width="1.2" marker-end="url(#bfd-arrow)"/><text x="${label.x.toFixed(1)}" y="${(label.y - 5).toFixed(1)}" text-anchor="middle" font-size="11" font-weight="bold">${numbers.join(', ')}</text>`;
+}
+
+/** Below the air line, where the recuperator's feeds run: out of it to each side's heaters, then, a row each, into it from the plant's edge. */
+const REC_OUT_Y = { air: AIR_Y + H + 22, fuel: AIR_Y + H + 48 };
+const REC_IN_Y = AIR_Y + H + 78;
+const REC_ROW = 22;
+/** Where the numbers of the lines below the air line stand: between the heaters and the stack. */
+const REC_LABEL_X = (COL[1]! + W + COL[3]!) / 2;
+
+/** How the feed water leaves the recuperator, for the note beside its stream: "steam", "water 28.29 % evaporated", "water". */
+function feedWaterState(vapourFraction: number): string {
+  return vapourFraction === 1 ? 'steam' : vapourFraction === 0 ? 'water' : `water ${formatPercent(vapourFraction)} evaporated`;
+}
+
+/**
+ * The recuperator's cold side: the feed water and the gases enter it from the plant's edge (below
+ * the air line, a row each, named as the heat-and-material balance names them), and leave it for
+ * each side's heaters (the fuel side's round the left edge into its heaters, the air side's up into
+ * its own), which take them on to the stack. The feed water leaving it is noted with its state and
+ * its temperature as the balance writes it. Returns the height the drawing needs.
+ */
+function recuperatorFeeds(d: Drawing, r: Results, recuperator: NonNullable<Electrolysis['recuperator']>, rec: Box, heaters: Map<FeedSide, Box>): number {
+  const { num, parts, terminals } = d;
+  for (const [side, heater] of heaters) {
+    const numbers = num(`${side.id}-steam-recuperated`, `${side.id}-gas-recuperated`);
+    if (!numbers.length) continue;
+    // The air side's line leaves nearer the stack and runs higher, so the two never cross.
+    const y = REC_OUT_Y[side.id];
+    const x0 = rec.x + (side.id === 'air' ? 16 : 34);
+    const into = side.id === 'air' ? [{ x: heater.x + W / 2, y }, { x: heater.x + W / 2, y: heater.y + H }] : [{ x: COL[1]! - 20, y }, { x: COL[1]! - 20, y: heater.y + H / 2 }, left(heater)];
+    parts.push(route([{ x: x0, y: rec.y + H }, { x: x0, y }, ...into], numbers, { x: REC_LABEL_X, y }));
+    const water = r.plant.streams.find((s) => s.id === `${side.id}-steam-recuperated`);
+    const fraction = recuperator.feeds.find((f) => f.id === `${side.id}-steam`)?.vapourFraction;
+    if (water && fraction != null) terminals.push(`<text x="${COL[3]! + 10}" y="${y + 12}" font-size="10">${water.number}: ${escapeHtml(feedWaterState(fraction))}, ${formatCelsius(water.temperature_K)} °C</text>`);
+  }
+  const ids = ['feed-water', ...[...heaters.keys()].map((side) => `${side.id}-gas-supply`)];
+  const feeds = r.plant.streams.filter((s) => ids.includes(s.id)).sort((a, b) => ids.indexOf(a.id) - ids.indexOf(b.id));
+  // Each feed a row lower and a little further right than the one before, so that no two cross.
+  feeds.forEach((f, k) => {
+    const y = REC_IN_Y + k * REC_ROW;
+    const x = rec.x + 58 + k * 16;
+    terminals.push(`<text x="${COL[0]}" y="${y - 6}" font-size="10">${escapeHtml(f.name)}</text>`);
+    parts.push(route([{ x: COL[0]!, y }, { x, y }, { x, y: rec.y + H }], num(f.id), { x: REC_LABEL_X, y }));
+  });
+  return REC_IN_Y + (feeds.length - 1) * REC_ROW + 16;
 }
 
 /** The hydrogen product: through its cooler and dryer to the compressor where there is one, else straight out. */
@@ -194,13 +260,15 @@ function electrolysisDiagram(r: Results): TrustedHtml {
   const { has, num, parts, terminals } = d;
   const stack = stackBox(d, 3);
   const waterOf = (id: string) => r.plant.streams.find((s) => s.id === id && (s.speciesFlows_mol_per_s.H2O ?? 0) + (s.speciesFlows_mol_per_s['H2O(L)'] ?? 0) > 0);
-  const sides = [
+  const sides: FeedSide[] = [
     { id: 'fuel', y: FUEL_Y, steam: x.steam.some((s) => s.electrode === 'fuel'), gas: 'gas with the steam' },
     { id: 'air', y: AIR_Y, steam: x.steam.some((s) => s.electrode === 'air'), gas: 'sweep gas' },
   ];
   const water = sides.find((side) => waterOf(`${side.id}-inlet`));
-  for (const side of sides) if (has(`${side.id}-inlet`)) electrolysisFeedSide(d, x, stack, side, side === water);
-  const out = recuperatorPath(d, stack);
+  const heaters = new Map<FeedSide, Box>();
+  for (const side of sides) if (has(`${side.id}-inlet`)) heaters.set(side, electrolysisFeedSide(d, x, stack, side, side === water));
+  const out = recuperatorPath(d, x, stack);
+  const height = out.rec && x.recuperator ? recuperatorFeeds(d, r, x.recuperator, out.rec, heaters) : undefined;
   hydrogenProductPath(d, x, out.fuel, out.shift);
   if (has(out.air.id)) {
     parts.push(arrow(out.air, { x: COL[4 + out.shift]!, y: AIR_Y + H / 2 }, num(out.air.id)));
@@ -211,7 +279,7 @@ function electrolysisDiagram(r: Results): TrustedHtml {
     parts.push(downOrUp(drain.x, drain.y, drain.y + 30, num('stack-drain')));
     terminals.push(`<text x="${drain.x}" y="${drain.y + 42}" text-anchor="middle" font-size="10">drain</text>`);
   }
-  return svgOf(d.boxes, parts, terminals);
+  return svgOf(d.boxes, parts, terminals, height);
 }
 
 /** The boxes of a power plant, in drawing order; those of absent units null. */

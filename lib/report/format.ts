@@ -1,4 +1,5 @@
 import { kelvinWithCelsius } from '../core/temperature-text.ts';
+import { ZERO_CELSIUS_K } from '../core/units.ts';
 /**
  * Number formatting for the design document: a fixed number of significant digits, the true
  * minus sign (U+2212), whole numbers in full, digits grouped in threes by a narrow no-break space from 10 000 up, and a
@@ -109,6 +110,11 @@ export function formatPercent(fraction: number, digits = 4): string {
 /** A temperature in kelvin and degrees Celsius: "1073.15 K (800.0 °C)". */
 export function formatTemperature(kelvin: number): string {
   return kelvinWithCelsius(kelvin, (k) => formatFixed(k, 2), (c) => formatFixed(c, 1));
+}
+
+/** A temperature in degrees Celsius to 0.1, without its unit, as the stream tables and the flow diagram write it: "111.3". */
+export function formatCelsius(kelvin: number): string {
+  return formatFixed(kelvin - ZERO_CELSIUS_K, 1);
 }
 
 /** Power or heat flow in kW (W below 1 kW): "250.0 kW", "−19.54 kW", "640.0 W". */

@@ -5,10 +5,9 @@
  */
 import { efficiencyBasisNotes } from '../efficiency-basis.ts';
 import type { Results, StreamResult } from '../../plant/results-schema.ts';
-import { formatFixed, formatInteger, formatNumber, formatPercent, formatPower, formatQuantity, formatTemperature } from '../format.ts';
+import { formatCelsius, formatInteger, formatNumber, formatPercent, formatPower, formatQuantity, formatTemperature } from '../format.ts';
 import { crossTable, pairsTable, quantity, textPair, type CrossRow, type Pair, type Table } from '../table.ts';
 import { speciesText } from '../species-text.ts';
-import { ZERO_CELSIUS_K } from '../../core/units.ts';
 
 export interface FigureTable {
   id: string;
@@ -201,7 +200,7 @@ function streamRow(label: string, name: string, unit: string, value: (s: StreamR
 /** One column per stream with its state, flows, enthalpy flow and gas composition; in the data a row per stream. */
 function streamColumns<S extends StreamResult>(name: string, title: string, streams: readonly S[], heading: (s: S) => string): Table {
   const rows: CrossRow<StreamResult>[] = [
-    streamRow('Temperature, °C', 'Temperature', 'K', (s) => s.temperature_K, (s) => formatFixed(s.temperature_K - ZERO_CELSIUS_K, 1)),
+    streamRow('Temperature, °C', 'Temperature', 'K', (s) => s.temperature_K, (s) => formatCelsius(s.temperature_K)),
     streamRow('Pressure, bar', 'Pressure', 'bar', (s) => s.pressure_bar, (s) => formatNumber(s.pressure_bar)),
     streamRow('Molar flow, mol/s', 'Molar flow', 'mol/s', (s) => s.flow_mol_per_s, (s) => formatNumber(s.flow_mol_per_s)),
     streamRow('Mass flow, kg/h', 'Mass flow', 'kg/h', (s) => s.massFlow_kg_per_h, (s) => formatNumber(s.massFlow_kg_per_h)),
