@@ -32,9 +32,42 @@ const nunjucks = fromEleventy('nunjucks') as NunjucksModule;
 
 let shared: NunjucksEnvironment | undefined;
 
+/** While a page renders in parts (renderParts): the HTML the trusted filter was given, in order; else null. */
+let inserted: string[] | null = null;
+
+/** What stands for the `n`th inserted HTML in the text Nunjucks makes while a page renders in parts. */
+const MARK = '\u0000';
+
 function trusted(value: unknown): unknown {
   if (!isTrustedHtml(value)) throw new Error(`the trusted filter was given ${typeof value === 'string' ? 'a plain string' : typeof value}; only HTML made by lib/report may be inserted unescaped`);
-  return new nunjucks.runtime.SafeString(value.html);
+  if (inserted === null) return new nunjucks.runtime.SafeString(value.html);
+  inserted.push(value.html);
+  return new nunjucks.runtime.SafeString(`${MARK}${inserted.length - 1}${MARK}`);
+}
+
+/**
+ * A template rendered as the texts that, joined, are exactly what `env.render` returns: the
+ * text Nunjucks makes around the HTML of the `trusted` filter, and that HTML, in order. A page
+ * rendered as one string is one string of some 0.95 million characters (two bytes each, as the
+ * page holds characters beyond Latin-1), built by Nunjucks as a chain of pieces and copied into
+ * fresh memory when it is first read; its parts, each far smaller, are encoded one after the
+ * other without that copy (lib/publish/render.ts). Where the page's own text holds the mark (a
+ * NUL character in text from a basis), the marks cannot be told apart and the page is rendered
+ * again as one string.
+ */
+export function renderParts(env: NunjucksEnvironment, name: string, context: object): string[] {
+  const parts: string[] = [];
+  inserted = parts;
+  let text: string;
+  try {
+    text = env.render(name, context);
+  } finally {
+    inserted = null;
+  }
+  const pieces = text.split(MARK);
+  if (pieces.length !== 2 * parts.length + 1 || pieces.some((piece, i) => i % 2 === 1 && piece !== String((i - 1) / 2))) return [env.render(name, context)];
+  for (let i = 1; i < pieces.length; i += 2) pieces[i] = parts[(i - 1) / 2]!;
+  return pieces;
 }
 
 /**
@@ -49,8 +82,15 @@ const renderedRows = new WeakMap<object, unknown>();
 function portfolioRow(env: NunjucksEnvironment, row: object): unknown {
   let html = renderedRows.get(row);
   if (html === undefined) {
-    // The template's last line ends in a newline, which the loop around it writes itself.
-    html = new nunjucks.runtime.SafeString(env.render('portfolio-row.njk', { r: row }).replace(/\n$/, ''));
+    // Kept for later renders, so made whole even inside a render in parts.
+    const outer = inserted;
+    inserted = null;
+    try {
+      // The template's last line ends in a newline, which the loop around it writes itself.
+      html = new nunjucks.runtime.SafeString(env.render('portfolio-row.njk', { r: row }).replace(/\n$/, ''));
+    } finally {
+      inserted = outer;
+    }
     renderedRows.set(row, html);
   }
   return html;

@@ -35,7 +35,7 @@ import { fileProblem } from '../core/file-errors.ts';
 import { portfolioView, type PortfolioEntry } from '../report/portfolio.ts';
 import { loadProjectPages, projectLoader, type ProjectLoader } from './site-model.ts';
 import { SiteProblems } from './site-problems.ts';
-import { renderView } from './render.ts';
+import { renderViewBytes } from './render.ts';
 import { nunjucksEnvironment } from './nunjucks-env.ts';
 import { writeSiteAssets } from './write-assets.ts';
 import { ASSET_DIR } from './site-assets.ts';
@@ -124,7 +124,7 @@ class IncrementalSite {
     const files = pages.pages.flatMap((entry) => {
       const file = join(this.out, entry.pagePath);
       const view = entry.view();
-      writeAtomically(file, renderView(view));
+      renderViewBytes(view, (bytes) => writeAtomically(file, bytes));
       return [file, ...writeTableFiles(this.out, view)];
     });
     for (const entry of pages.revisionPages) {

@@ -4,10 +4,12 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { renderDocumentHtml, renderStandaloneHtml } from '../../lib/publish/render.ts';
+import { renderDocumentHtml, renderStandaloneHtml, renderView, renderViewBytes } from '../../lib/publish/render.ts';
+import { nunjucksEnvironment, renderParts } from '../../lib/publish/nunjucks-env.ts';
+import { documentView, type DocumentView } from '../../lib/report/document.ts';
 import { inlineAssets } from '../../lib/publish/inline-assets.ts';
 import { writeSiteAssets } from '../../lib/publish/write-assets.ts';
-import { scaffoldCase } from '../helpers/scaffold-cases.ts';
+import { CASES, scaffoldCase } from '../helpers/scaffold-cases.ts';
 import { HAZARD_NOTICE } from '../../lib/hazards/notice.ts';
 import { escapeHtml } from '../../lib/report/trusted-html.ts';
 
@@ -62,5 +64,29 @@ describe('inlineAssets', () => {
     writeFileSync(join(dir, 'secret.css'), 'body{}');
     expect(() => inlineAssets('<link rel="stylesheet" href="../secret.css">', assets)).toThrow(/outside the asset folder/);
     expect(() => inlineAssets('<script src="missing.js"></script>', assets)).toThrow(/not in the asset folder/);
+  });
+});
+
+describe('renderViewBytes', () => {
+  const view = (c: { basis: typeof input.basis; results: typeof input.results }) => documentView({ ...input, basis: c.basis, results: c.results }, { assetBase: '../../assets/' });
+  const bytesOf = (doc: DocumentView) => {
+    let copy = Buffer.alloc(0);
+    renderViewBytes(doc, (bytes) => (copy = Buffer.from(bytes)));
+    return copy;
+  };
+  it.each(CASES)('gives the UTF-8 bytes of renderView, the page rendered in parts (%s %s)', (technology, mode) => {
+    const doc = view(scaffoldCase(technology, mode));
+    const parts = renderParts(nunjucksEnvironment(), 'document-page.njk', { doc });
+    // Each piece of trusted HTML is a part of its own, between the text around it.
+    expect(parts.length).toBeGreaterThan(100);
+    expect(parts.join('')).toBe(renderView(doc));
+    expect(bytesOf(doc).equals(Buffer.from(renderView(doc), 'utf8'))).toBe(true);
+  });
+  it('gives them as well where the page text holds the NUL that marks the parts, by rendering it whole', () => {
+    const doc = view(c);
+    const marked = { ...doc, pageTitle: `${doc.pageTitle} \u00000\u0000 \u0000` };
+    expect(renderParts(nunjucksEnvironment(), 'document-page.njk', { doc: marked })).toEqual([renderView(marked)]);
+    expect(bytesOf(marked).equals(Buffer.from(renderView(marked), 'utf8'))).toBe(true);
+    expect(bytesOf(marked).includes('\u00000\u0000')).toBe(true);
   });
 });
