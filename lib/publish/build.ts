@@ -35,7 +35,7 @@
  * waits until it is killed; the CLI takes it from CELLBASIS_BUILD_PAUSE.
  */
 import { takeTableFileError } from './table-files.ts';
-import { existsSync, lstatSync, mkdirSync, readdirSync, readlinkSync, realpathSync, renameSync, rmSync, symlinkSync, unlinkSync } from 'node:fs';
+import { existsSync, lstatSync, mkdirSync, readdirSync, readlinkSync, realpathSync, renameSync, rmSync, symlinkSync, unlinkSync, writeFileSync } from 'node:fs';
 import { randomBytes } from 'node:crypto';
 import { setFlagsFromString } from 'node:v8';
 import { runInNewContext } from 'node:vm';
@@ -57,7 +57,9 @@ import { setBuildContext } from './build-context.ts';
 import { notOursError, removeOwnFolder, siteFolderProblem, SYMBOLIC_LINK, writeSiteMarker } from './site-marker.ts';
 import { createEleventy } from './eleventy-api.ts';
 import { ELEVENTY_CONFIG, TEMPLATES_DIR } from './paths.ts';
-import { loadSiteModel, type SiteModel, type SiteOptions } from './site-model.ts';
+import { loadSiteModel, type PageEntry, type SiteModel, type SiteOptions } from './site-model.ts';
+import { writeTableFiles } from './table-files.ts';
+import { renderViewBytes } from './render.ts';
 
 /** Document pages rendered by one Eleventy run (the first run also writes the index, the register pages and the issued copies). */
 export const PAGES_PER_RUN = 25;
@@ -295,37 +297,41 @@ function checkOutput(root: string, out: string): void {
 }
 
 /**
- * Renders the model's pages into `fresh`, PAGES_PER_RUN a run of Eleventy: Eleventy keeps every
- * page it renders until its run ends, so a run per PAGES_PER_RUN pages bounds the memory of a
- * large site (500 documents of about 0.7 MB each). Progress counts each page as its view model is
- * made, just before Nunjucks renders it. Every page must then be on disk.
+ * Writes each working draft's page and its tables' CSV files into `fresh` as the site model loads
+ * its project (SiteOptions.onDraftPage), with the basis and results the load holds: a page made
+ * from the model afterwards read, parsed and validated its basis and read its results again. Each
+ * page is written as bytes (renderViewBytes) and its view let go; a full collection follows every
+ * PAGES_PER_RUN pages (see collectGarbage). Returns the function the model calls and a count.
  */
-async function renderPages(root: string, fresh: string, model: SiteModel, options: BuildOptions): Promise<void> {
-  // Progress counts each page as its view model is made, just before Nunjucks renders it.
-  let viewed = 0;
-  const counted = model.pages.map((page) => ({
-    ...page,
-    view: () => {
+function draftPageWriter(fresh: string, expected: number, options: BuildOptions): { write: (page: PageEntry) => void; written: () => number } {
+  let written = 0;
+  const write = (page: PageEntry) => {
+    try {
       const view = page.view();
-      viewed = Math.min(viewed + 1, model.pages.length);
-      options.onProgress?.('render', viewed, model.pages.length);
-      return view;
-    },
-  }));
-  for (let start = 0; start === 0 || start < model.pages.length; start += PAGES_PER_RUN) {
-    // The issued revisions' register pages and the files copied as issued go with the first run.
-    const first = start === 0;
-    setBuildContext({
-      root,
-      output: fresh,
-      mode: 'build',
-      unseen: true,
-      model: { ...model, pages: counted.slice(start, start + PAGES_PER_RUN), revisionPages: first ? model.revisionPages : [], copies: first ? model.copies : [], writesIndex: first },
-    });
-    await runEleventy(fresh);
-    collectGarbage();
-  }
-  if (viewed < model.pages.length || model.pages.length === 0) options.onProgress?.('render', model.pages.length, model.pages.length);
+      written++;
+      options.onProgress?.('render', Math.min(written, expected), expected);
+      writeTableFiles(fresh, view, true);
+      const file = join(fresh, ...page.pagePath.split('/'));
+      mkdirSync(dirname(file), { recursive: true });
+      renderViewBytes(view, (bytes) => writeFileSync(file, bytes));
+    } catch (error) {
+      if (error instanceof UserError || fileErrorIn(error)) throw error;
+      throw new UserError(`the site could not be rendered: ${(error as Error).message}`, EXIT_INTERNAL);
+    }
+    if (written % PAGES_PER_RUN === 0) collectGarbage();
+  };
+  return { write, written: () => written };
+}
+
+/**
+ * Renders with Eleventy what the drafts' pages leave (the portfolio index, the issued revisions'
+ * register pages, the files copied as issued and the assets), in one run; every page must then be
+ * on disk.
+ */
+async function renderRest(root: string, fresh: string, model: SiteModel): Promise<void> {
+  setBuildContext({ root, output: fresh, mode: 'build', unseen: true, model: { ...model, pages: [], writesIndex: true } });
+  await runEleventy(fresh);
+  collectGarbage();
   for (const page of [...model.pages.map((p) => p.pagePath), ...model.revisionPages.map((p) => p.pagePath), ...model.copies.map((c) => c.to), 'index.html']) {
     if (!existsSync(join(fresh, page))) throw new UserError(`the build did not write ${page}`, EXIT_INTERNAL);
   }
@@ -397,17 +403,21 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
   const printing = options.pdf ?? chromium !== null;
   if (printing && chromium === null) throw new ChromiumMissingError();
   const results = options.results ?? (await precompute(root, options));
-  const model = loadSiteModel(root, { ...options, results, draftPdfs: printing });
-  // What calculating and reading the projects left behind goes before the pages are rendered.
-  collectGarbage();
   mkdirSync(dirname(out), { recursive: true });
   const names = buildNames(out);
   const fresh = names.fresh;
   mkdirSync(fresh);
+  let model: SiteModel;
   try {
     writeSiteMarker(fresh);
     await pause(options, 'temp-created');
-    await renderPages(root, fresh, model, options);
+    // Each draft's page is written as its project loads; a project with an error stops the pages, and the load then throws with every problem.
+    const pages = draftPageWriter(fresh, listProjects(root).length, options);
+    model = loadSiteModel(root, { ...options, results, draftPdfs: printing, onDraftPage: pages.write });
+    if (pages.written() < model.pages.length || model.pages.length === 0) options.onProgress?.('render', model.pages.length, model.pages.length);
+    // What calculating and reading the projects left behind goes before the rest is rendered.
+    collectGarbage();
+    await renderRest(root, fresh, model);
     await pause(options, 'rendered');
     if (printing) await printDrafts(root, fresh, model.drafts, (done, total) => options.onProgress?.('print', done, total));
     await pause(options, 'printed');

@@ -98,6 +98,13 @@ export interface SiteOptions {
    * them go (a build keeps none: see documentAgain).
    */
   keepDrafts?: boolean;
+  /**
+   * Given each working draft's page as soon as its project is loaded, over the basis and results
+   * the load holds (the build renders it then, and so reads, parses and validates each basis and
+   * reads each result once); not given once any project has an error (there will be no site).
+   * The model's own pages read both again when they are rendered.
+   */
+  onDraftPage?: (page: PageEntry) => void;
 }
 
 function pageOptions(path: string) {
@@ -137,6 +144,8 @@ export interface ProjectPages {
   copies: SiteCopy[];
   draft: SiteModel['drafts'][number] | null;
   portfolio: PortfolioEntry | null;
+  /** The draft's page over the basis and results the load holds, to render at once and let go (onDraftPage); null with no draft. */
+  current: PageEntry | null;
 }
 
 /** The shared inputs of loading projects: the verification table and the results cache. */
@@ -282,7 +291,7 @@ function projectHistory(id: string, issued: readonly IssuedRevision[], draft: Dr
  */
 export function loadProjectPages(loader: ProjectLoader, id: string, problems: SiteProblems): ProjectPages {
   const { root, options, checks } = loader;
-  const none: ProjectPages = { pages: [], revisionPages: [], copies: [], draft: null, portfolio: null };
+  const none: ProjectPages = { pages: [], revisionPages: [], copies: [], draft: null, portfolio: null, current: null };
   const shown = `projects/${id}/basis.yaml`;
   let read;
   try {
@@ -317,6 +326,7 @@ export function loadProjectPages(loader: ProjectLoader, id: string, problems: Si
   const document = options.keepDrafts ? keptDocument(loaded.basis, results) : documentAgain(loader, id, key, loader.cache.has(key) ? null : results);
   return {
     pages: [draftPage(draftPath, document, draft, history, checks)],
+    current: draftPage(draftPath, keptDocument(loaded.basis, results), draft, history, checks),
     revisionPages: register.pages,
     copies: register.copies,
     draft: { id, pagePath: draftPath, date, revision: draft, document },
@@ -348,6 +358,7 @@ export function loadSiteModel(root: string, options: SiteOptions = {}): SiteMode
   for (const problem of scanned.problems) (problem.severity === 'error' ? problems.errors : problems.warnings).push(projectsProblemText(problem));
   for (const id of scanned.ids) {
     const project = loadProjectPages(loader, id, problems);
+    if (project.current && options.onDraftPage && problems.errors.length === 0) options.onDraftPage(project.current);
     pages.push(...project.pages);
     revisionPages.push(...project.revisionPages);
     copies.push(...project.copies);
