@@ -29,6 +29,12 @@ const ZERO_WIDTH = new Set([CST.DOCUMENT, CST.FLOW_END, CST.SCALAR]);
  * tokens alone (quotes and comments are the lexer's business), before the parser sees them.
  */
 export function flowDepthProblem(text: string): TokenProblem | undefined {
+  // Each level opens with a [ or a { of the text: with no more of them than MAX_DEPTH, the text
+  // cannot nest deeper, and lexing it (a third of the parser's work) is spared.
+  let opening = 0;
+  for (let i = text.indexOf('['); i >= 0 && opening <= MAX_DEPTH; i = text.indexOf('[', i + 1)) opening++;
+  for (let i = text.indexOf('{'); i >= 0 && opening <= MAX_DEPTH; i = text.indexOf('{', i + 1)) opening++;
+  if (opening <= MAX_DEPTH) return undefined;
   let offset = 0;
   let depth = 0;
   for (const token of new Lexer().lex(text)) {
