@@ -1,8 +1,9 @@
 /**
- * `cellbasis build`: the whole site, written atomically. The projects are loaded and checked
- * first (any error: nothing is written); Eleventy then renders into a fresh folder beside the
- * target, and only when every page and file is written does the target switch to it, in one
- * rename. A failed build leaves the previous site exactly as it was.
+ * `cellbasis build`: the whole site, written atomically, into a fresh folder beside the target:
+ * each draft's page as its project is loaded and checked, then, by Eleventy, the index and the
+ * rest; a project with any error stops the pages and fails the build, the fresh folder removed.
+ * Only when every page and file is written does the target switch to it, in one rename. A failed
+ * build leaves the previous site exactly as it was.
  *
  *   buildSite({ root, out }): Promise<BuildReport>
  *     root  the folder holding projects/ (the command's working folder)
@@ -61,16 +62,18 @@ import { loadSiteModel, type PageEntry, type SiteModel, type SiteOptions } from 
 import { writeTableFiles } from './table-files.ts';
 import { renderViewBytes } from './render.ts';
 
-/** Document pages rendered by one Eleventy run (the first run also writes the index, the register pages and the issued copies). */
+/** Document pages the build writes between two full garbage collections (bench/site.ts hands Eleventy as many finished pages a run). */
 export const PAGES_PER_RUN = 25;
 
 /**
- * A full garbage collection, between Eleventy runs. V8 sets the heap it lets grow before its
- * next full collection from the live size at its last one, and the live size in the middle of
- * a run (a run's pages and views) is large: left alone, the heap of a build of 300 documents
- * rose run by run to about 940 MiB though at most one run's pages were alive at a time (capping
- * the heap at 450 MiB changed nothing but the memory). Collecting when a run ends, with nothing
- * of it alive, keeps the heap at one run's size whatever the number of documents. The `gc`
+ * A full garbage collection, every PAGES_PER_RUN pages and before Eleventy's run. V8 sets the
+ * heap it lets grow before its next full collection from the live size at its last one, and when
+ * Eleventy rendered the pages, 25 a run, the live size in the middle of a run was large: left
+ * alone, the heap of a build of 300 documents rose run by run to about 940 MiB though at most one
+ * run's pages were alive at a time (capping the heap at 450 MiB changed nothing but the memory).
+ * Collecting with none of them alive keeps the heap at that size whatever the number of
+ * documents. (Pages are now written one at a time; a build of 100 without these collections
+ * peaked at 408-452 MiB against 313-419 MiB with them, at the same processor time.) The `gc`
  * function is Node's own (--expose-gc), reached at run time through V8's flags.
  */
 const collectGarbage: () => void = (() => {
