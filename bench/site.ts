@@ -62,8 +62,9 @@ async function finishedPagesEleventy(site: string): Promise<{ ms: number; pages:
     mkdirSync(join(dir, 'in'));
     writeFileSync(join(dir, 'in', 'pages.njk'), '---\npagination:\n  data: pages\n  size: 1\n  alias: page_\npermalink: "{{ page_.permalink }}"\n---\n{{ page_.html | safe }}');
     writeFileSync(join(dir, 'eleventy.config.mjs'), 'export default function () {}\n');
-    // Run by run, PAGES_PER_RUN pages each, as the build renders them: all the pages of 2 000
-    // documents (about 1.4 GB) in one data file would not fit in a JavaScript string.
+    // Run by run, PAGES_PER_RUN pages each (as many as the build writes between two full
+    // collections): all the pages of 2 000 documents (about 1.4 GB) in one data file would not
+    // fit in a JavaScript string.
     const paths = htmlPages(site).map((path) => path.split(sep).join('/'));
     let ms = 0;
     for (let start = 0; start < paths.length; start += PAGES_PER_RUN) {
