@@ -6,18 +6,34 @@
  * exception.
  */
 import { availableParallelism } from 'node:os';
-import { Worker } from 'node:worker_threads';
+import { Worker, type ResourceLimits } from 'node:worker_threads';
 import { calculate } from '../plant/calculate.ts';
 import { BasisError } from '../basis/diagnostics.ts';
 import type { DesignBasis, Diagnostic } from '../basis/types.ts';
 import { UserError } from '../core/errors.ts';
 import type { Results } from '../plant/results-schema.ts';
 import { resultsKey, type ResultsCache } from './results-cache.ts';
+import { heapBound } from './collect-garbage.ts';
 
 export interface CalculationJob {
   basis: DesignBasis;
   /** The bytes of the basis file (the cache key covers them). */
   text: string | Uint8Array;
+}
+
+/**
+ * A job whose basis is validated only when its turn comes (`load`; undefined when the basis does
+ * not load: the job is then left out, neither calculated nor a failure, its problems being named
+ * by whoever loads it again). A batch of them holds the bytes of the bases waiting (about 6 kB
+ * each) instead of their validated form: about 45 kB of heap each, 88 MiB for 2 000 projects,
+ * which V8 then multiplied by letting the heap grow to some 2.5 times what was alive.
+ */
+export interface DeferredJob {
+  id: string;
+  /** The basis file as shown, relative to the root (the cache key covers it). */
+  file: string;
+  text: string | Uint8Array;
+  load: () => DesignBasis | undefined;
 }
 
 export type CalculationOutcome =
@@ -40,6 +56,8 @@ export interface BatchOptions {
   alsoHere?: boolean;
   /** Called after each job completes. */
   onProgress?: (done: number, total: number) => void;
+  /** The heap limits of each worker thread (default WORKER_LIMITS); tests set tiny ones to make a worker run out of memory. */
+  workerLimits?: ResourceLimits;
 }
 
 /**
@@ -49,6 +67,23 @@ export interface BatchOptions {
  * this thread idle, 100 projects 0.6 s against 1.3 s).
  */
 const PER_WORKER = 150;
+
+/**
+ * The heap limits of a calculation worker. Left to itself V8 sizes a worker's heap as it would a
+ * whole program's and collects late. Measured 5 December 2026 (one worker calculating the four
+ * demos and 100 bench/synthetic.ts projects, this thread idle, the process's peak RSS by
+ * `resourceUsage().maxRSS`, load average about 10): no limits 280 MiB; old space 128 MB 237 MiB;
+ * these limits 219 MiB; old space 64 MB with a young generation of 8 MB 210 MiB; processor time
+ * 5.6-7.6 s in all of them (the spread of the runs). What a worker needs: with the old space
+ * capped at 22 MB it still calculated the largest demo (the solid oxide CHP with its operating
+ * cases), at 16-20 MB it died loading the library, at 24 MB it calculated the 500 synthetic
+ * projects and the demos but nearly twice as slowly (collecting all the time), and at 48 MB the
+ * 104 projects took twice the processor time of 64 MB or more. 96 MB is four times the need and
+ * clear of that slowdown; the young generation at 16 MB (its default is 3 × 16 MB of
+ * semi-spaces) cost no measurable time. A worker that runs out all the same loses nothing: its
+ * job is calculated in this thread (inThreads).
+ */
+const WORKER_LIMITS: ResourceLimits = { maxOldGenerationSizeMb: 96, maxYoungGenerationSizeMb: 16 };
 
 function outcomeOf(reply: WorkerReply): CalculationOutcome {
   switch (reply.kind) {
@@ -74,55 +109,89 @@ function calculateHere(basis: DesignBasis): CalculationOutcome {
 }
 
 /**
- * Runs the jobs from one queue: `count` workers, and this thread between their messages (one
- * job at a time, yielding after each so that the workers' replies are taken as they come).
+ * How far this thread's heap may grow past what was alive at its last full collection before
+ * the batch collects again (heapBound), checked after each job. Every job passes through this
+ * thread (a worker's results are written to the cache here, else the job is calculated here),
+ * and left to itself V8 let the heap grow to about 2.5 times what was alive: in a cold build of
+ * 2 000 projects the heap in use swung between 150 and 470 MiB (5 December 2026, peak RSS 883
+ * MiB). Measured the same day on the calculation alone of 500 bench/synthetic.ts projects (one
+ * worker and this thread, load average 5-7): a slack of 64 MiB peaked at 286-297 MiB of RSS for
+ * 27-34 s of processor time, 48 MiB at 272-274 MiB for 31 s, 32 MiB at 247-254 MiB for 40 s
+ * (a full collection every few jobs): 48 MiB is where the memory still fell for little time.
  */
-async function inThreads(jobs: { index: number; basis: DesignBasis }[], count: number, alsoHere: boolean, report: (index: number, outcome: CalculationOutcome) => void): Promise<void> {
-  const queue = [...jobs];
+const HEAP_SLACK_BYTES = 48 * 1024 * 1024;
+
+/** A job whose basis is loaded, ready to calculate. */
+interface Ready {
+  index: number;
+  basis: DesignBasis;
+}
+
+/**
+ * Runs the jobs from one queue (`take` gives the next, loaded, or undefined when none is left):
+ * `count` workers, and this thread between their messages (one job at a time, yielding after
+ * each so that the workers' replies are taken as they come). A worker that runs out of heap
+ * (ERR_WORKER_OUT_OF_MEMORY, past `limits`) is not started again: the job it held is
+ * calculated in this thread once the others are done, with whatever the queue still holds, so
+ * no project is lost and the outcome is the one this thread gives (the same calculation). Any
+ * other death of a worker stops the batch with an internal error naming the project.
+ */
+async function inThreads(take: () => Ready | undefined, count: number, alsoHere: boolean, limits: ResourceLimits, report: (index: number, outcome: CalculationOutcome) => void): Promise<void> {
   const entry = new URL('./calc-worker-entry.mjs', import.meta.url);
+  const orphans: Ready[] = [];
   let failure: unknown;
   const run = (worker: Worker) =>
     new Promise<void>((resolve, reject) => {
+      let held: Ready | undefined;
+      const fail = (error: unknown) => {
+        failure ??= error;
+        reject(error);
+      };
       const next = () => {
-        const job = failure === undefined ? queue.shift() : undefined;
-        if (!job) {
-          resolve();
-          return;
-        }
-        worker.postMessage({ job: job.index, basis: job.basis });
+        held = failure === undefined ? take() : undefined;
+        if (held) worker.postMessage({ job: held.index, basis: held.basis });
+        else resolve();
       };
       worker.on('message', (reply: WorkerReply) => {
+        held = undefined;
         try {
           report(reply.job, outcomeOf(reply));
         } catch (error) {
-          failure ??= error;
-          reject(error);
+          fail(error);
           return;
         }
         next();
       });
-      worker.on('error', (error) => {
-        failure ??= error;
-        reject(error);
+      worker.on('error', (error: NodeJS.ErrnoException) => {
+        if (error.code !== 'ERR_WORKER_OUT_OF_MEMORY') fail(error);
+        else {
+          if (held) orphans.push(held);
+          held = undefined;
+          resolve();
+        }
+      });
+      worker.on('exit', (code) => {
+        if (held) fail(new Error(`internal error: a calculation worker stopped (exit code ${code}) while calculating ${held.basis.file}`));
       });
       next();
     });
   const here = async () => {
-    for (let job = queue.shift(); job && failure === undefined; job = queue.shift()) {
+    for (let job = take(); job && failure === undefined; job = take()) {
       report(job.index, calculateHere(job.basis));
       await new Promise((resolve) => setImmediate(resolve));
     }
   };
-  const workers = Array.from({ length: count }, () => new Worker(entry));
+  const workers = Array.from({ length: count }, () => new Worker(entry, { resourceLimits: limits }));
   try {
     await Promise.all([...(alsoHere ? [here()] : []), ...workers.map(run)]);
   } finally {
     await Promise.all(workers.map((w) => w.terminate()));
   }
+  for (let job = orphans.shift() ?? take(); job; job = orphans.shift() ?? take()) report(job.index, calculateHere(job.basis));
 }
 
 export async function calculateAll(jobs: CalculationJob[], options: BatchOptions = {}): Promise<CalculationOutcome[]> {
-  return (await runBatch(jobs, options, true)) as CalculationOutcome[];
+  return (await runBatch(jobs.map(deferred), options, true)) as CalculationOutcome[];
 }
 
 /** A job that did not give results: its diagnostics or message. */
@@ -133,24 +202,32 @@ export type CalculationFailure = Extract<CalculationOutcome, { ok: false }>;
  * whose pages read each project's results from the cache when they are rendered, so that the
  * results of all the projects are never held at once (a cached entry is not even read here).
  * Returns each job's failure, or null where its results are in the cache (or could not be
- * written there: the reader then calculates them again).
+ * written there: the reader then calculates them again) or its basis did not load.
  */
-export async function calculateIntoCache(jobs: CalculationJob[], cache: ResultsCache, options: Omit<BatchOptions, 'cache'> = {}): Promise<(CalculationFailure | null)[]> {
+export async function calculateIntoCache(jobs: (CalculationJob | DeferredJob)[], cache: ResultsCache, options: Omit<BatchOptions, 'cache'> = {}): Promise<(CalculationFailure | null)[]> {
   // Array.from, not map: the entries found in the cache were never set, and map skips such holes.
-  return Array.from(await runBatch(jobs, { ...options, cache }, false), (o) => (o && !o.ok ? o : null));
+  return Array.from(await runBatch(jobs.map(deferred), { ...options, cache }, false), (o) => (o && !o.ok ? o : null));
+}
+
+function deferred(job: CalculationJob | DeferredJob): DeferredJob {
+  if ('load' in job) return job;
+  const { basis, text } = job;
+  return { id: basis.id, file: basis.file, text, load: () => basis };
 }
 
 /** The jobs' outcomes; with `keep` false, results that went into the cache are not kept (undefined). */
-async function runBatch(jobs: CalculationJob[], options: BatchOptions, keep: boolean): Promise<(CalculationOutcome | undefined)[]> {
+async function runBatch(jobs: DeferredJob[], options: BatchOptions, keep: boolean): Promise<(CalculationOutcome | undefined)[]> {
   const outcomes: (CalculationOutcome | undefined)[] = new Array(jobs.length);
-  const keys = jobs.map((j) => resultsKey(j.text, j.basis.id, j.basis.file));
+  const keys = jobs.map((j) => resultsKey(j.text, j.id, j.file));
   let done = 0;
-  const report = (index: number, outcome: CalculationOutcome) => {
-    if (outcome.ok && !outcome.cached && options.cache) options.cache.put(keys[index]!, outcome.results);
-    outcomes[index] = keep || !outcome.ok || !options.cache ? outcome : undefined;
+  const bound = heapBound(HEAP_SLACK_BYTES);
+  const report = (index: number, outcome: CalculationOutcome | undefined) => {
+    if (outcome?.ok && !outcome.cached && options.cache) options.cache.put(keys[index]!, outcome.results);
+    outcomes[index] = keep || !outcome?.ok || !options.cache ? outcome : undefined;
     options.onProgress?.(++done, jobs.length);
+    bound();
   };
-  const pending: { index: number; basis: DesignBasis }[] = [];
+  const pending: number[] = [];
   jobs.forEach((job, index) => {
     if (!keep && options.cache?.has(keys[index]!)) {
       options.onProgress?.(++done, jobs.length);
@@ -158,13 +235,24 @@ async function runBatch(jobs: CalculationJob[], options: BatchOptions, keep: boo
     }
     const hit = keep ? options.cache?.get(keys[index]!) : undefined;
     if (hit) report(index, { ok: true, results: hit, cached: true });
-    else pending.push({ index, basis: job.basis });
+    else pending.push(index);
   });
+  // The next job, its basis loaded when it is taken; one that does not load counts as done.
+  let taken = 0;
+  const take = (): Ready | undefined => {
+    while (taken < pending.length) {
+      const index = pending[taken++]!;
+      const basis = jobs[index]!.load();
+      if (basis) return { index, basis };
+      report(index, undefined);
+    }
+    return undefined;
+  };
   // This thread takes a core; workers go on the others.
   const cores = Math.max(1, options.workers ?? availableParallelism());
   const alsoHere = options.alsoHere ?? true;
   const count = Math.min(alsoHere ? cores - 1 : cores, Math.floor(pending.length / (options.jobsPerWorker ?? PER_WORKER)));
-  if (count >= 1) await inThreads(pending, count, alsoHere, report);
-  else for (const job of pending) report(job.index, calculateHere(job.basis));
+  if (count >= 1) await inThreads(take, count, alsoHere, options.workerLimits ?? WORKER_LIMITS, report);
+  else for (let job = take(); job; job = take()) report(job.index, calculateHere(job.basis));
   return outcomes;
 }

@@ -38,8 +38,6 @@
 import { takeTableFileError } from './table-files.ts';
 import { existsSync, lstatSync, mkdirSync, readdirSync, readlinkSync, realpathSync, renameSync, rmSync, symlinkSync, unlinkSync, writeFileSync } from 'node:fs';
 import { randomBytes } from 'node:crypto';
-import { setFlagsFromString } from 'node:v8';
-import { runInNewContext } from 'node:vm';
 import { basename, dirname, join, relative, resolve } from 'node:path';
 import { listProjects } from '../basis/projects.ts';
 import { fileErrorIn, fileErrorReason } from '../core/file-errors.ts';
@@ -48,7 +46,8 @@ import { MAX_BASIS_BYTES } from '../basis/source-text.ts';
 import { readRegularFile } from '../core/read-file.ts';
 import { realLocation, issuedFolderAt, within } from '../archive/layout.ts';
 import { processAlive } from '../archive/issued-folder.ts';
-import { calculateIntoCache, type CalculationJob, type CalculationOutcome } from '../batch/batch.ts';
+import { collectGarbage } from '../batch/collect-garbage.ts';
+import { calculateIntoCache, type CalculationOutcome, type DeferredJob } from '../batch/batch.ts';
 import { ResultsCache, resultsKey } from '../batch/results-cache.ts';
 import { ChromiumMissingError, chromiumMissingMessage, findChromium } from './chromium.ts';
 import { printDrafts } from './draft-pdfs.ts';
@@ -62,24 +61,19 @@ import { loadSiteModel, type PageEntry, type SiteModel, type SiteOptions } from 
 import { writeTableFiles } from './table-files.ts';
 import { renderViewBytes } from './render.ts';
 
-/** Document pages the build writes between two full garbage collections (bench/site.ts hands Eleventy as many finished pages a run). */
-export const PAGES_PER_RUN = 25;
-
 /**
- * A full garbage collection, every PAGES_PER_RUN pages and before Eleventy's run. V8 sets the
+ * Document pages the build writes between two full garbage collections (bench/site.ts hands
+ * Eleventy as many finished pages a run). A full collection (collectGarbage,
+ * lib/batch/collect-garbage.ts) follows every PAGES_PER_RUN pages and Eleventy's run. V8 sets the
  * heap it lets grow before its next full collection from the live size at its last one, and when
  * Eleventy rendered the pages, 25 a run, the live size in the middle of a run was large: left
  * alone, the heap of a build of 300 documents rose run by run to about 940 MiB though at most one
  * run's pages were alive at a time (capping the heap at 450 MiB changed nothing but the memory).
  * Collecting with none of them alive keeps the heap at that size whatever the number of
  * documents. (Pages are now written one at a time; a build of 100 without these collections
- * peaked at 408-452 MiB against 313-419 MiB with them, at the same processor time.) The `gc`
- * function is Node's own (--expose-gc), reached at run time through V8's flags.
+ * peaked at 408-452 MiB against 313-419 MiB with them, at the same processor time.)
  */
-const collectGarbage: () => void = (() => {
-  setFlagsFromString('--expose-gc');
-  return runInNewContext('gc') as () => void;
-})();
+export const PAGES_PER_RUN = 25;
 
 /** The steps of a build, in order, where `pauseAt` may stop it (moved-aside only where `out` is a real folder). */
 export const BUILD_STEPS = ['temp-created', 'rendered', 'printed', 'completed', 'linked', 'moved-aside', 'swapped'] as const;
@@ -304,7 +298,7 @@ function checkOutput(root: string, out: string): void {
  * its project (SiteOptions.onDraftPage), with the basis and results the load holds: a page made
  * from the model afterwards read, parsed and validated its basis and read its results again. Each
  * page is written as bytes (renderViewBytes) and its view let go; a full collection follows every
- * PAGES_PER_RUN pages (see collectGarbage). Returns the function the model calls and a count.
+ * PAGES_PER_RUN pages (see there). Returns the function the model calls and a count.
  */
 function draftPageWriter(fresh: string, expected: number, options: BuildOptions): { write: (page: PageEntry) => void; written: () => number } {
   let written = 0;
@@ -364,15 +358,17 @@ async function swapIntoPlace(root: string, out: string, names: ReturnType<typeof
  * cache, where the pages read them as they are rendered; the failures, by project id. A basis
  * whose results the cache holds (the key covers its bytes) is not loaded here: the site model
  * loads and checks every basis anyway, and loading each twice cost a build of 2 000 cached
- * projects some 2 000 needless parses.
+ * projects some 2 000 needless parses. The others are loaded one at a time as the calculation
+ * takes them (`DeferredJob`): holding all of them validated at once was 88 MiB of heap at 2 000
+ * projects, and V8 let the heap grow to some 2.5 times that.
  */
 async function precompute(root: string, options: BuildOptions): Promise<Map<string, CalculationOutcome>> {
   const cache = new ResultsCache(root);
-  const jobs: { id: string; job: CalculationJob }[] = [];
+  const jobs: DeferredJob[] = [];
   let cached = 0;
   for (const id of listProjects(root)) {
     const shown = `projects/${id}/basis.yaml`;
-    let bytes;
+    let bytes: Buffer;
     try {
       bytes = readRegularFile(join(root, 'projects', id, 'basis.yaml'), { maxBytes: MAX_BASIS_BYTES, what: 'design basis', shown });
     } catch (error) {
@@ -382,17 +378,17 @@ async function precompute(root: string, options: BuildOptions): Promise<Map<stri
     }
     if (cache.has(resultsKey(bytes, id, shown))) cached++;
     else {
-      const loaded = loadBasisText(bytes, shown, id);
-      if (loaded.ok) jobs.push({ id, job: { basis: loaded.basis, text: bytes } });
+      const text = bytes;
+      const load = () => {
+        const loaded = loadBasisText(text, shown, id);
+        return loaded.ok ? loaded.basis : undefined;
+      };
+      jobs.push({ id, file: shown, text, load });
     }
   }
   const total = cached + jobs.length;
   if (cached) options.onProgress?.('calculate', cached, total);
-  const failures = await calculateIntoCache(
-    jobs.map((j) => j.job),
-    cache,
-    { onProgress: (done) => options.onProgress?.('calculate', cached + done, total) },
-  );
+  const failures = await calculateIntoCache(jobs, cache, { onProgress: (done) => options.onProgress?.('calculate', cached + done, total) });
   return new Map(jobs.flatMap((j, i) => (failures[i] ? [[j.id, failures[i]!] as const] : [])));
 }
 
@@ -406,6 +402,8 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
   const printing = options.pdf ?? chromium !== null;
   if (printing && chromium === null) throw new ChromiumMissingError();
   const results = options.results ?? (await precompute(root, options));
+  // What the calculation left goes before the projects are read again for the model and the pages.
+  collectGarbage();
   mkdirSync(dirname(out), { recursive: true });
   const names = buildNames(out);
   const fresh = names.fresh;

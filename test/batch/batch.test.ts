@@ -37,6 +37,36 @@ describe('batch calculation', () => {
     expect(JSON.stringify(shared)).toBe(JSON.stringify(outcomes));
   }, 120_000);
 
+  it('a worker that runs out of heap loses no project: its job and the rest are calculated here, the same results in job order', async () => {
+    const { list } = jobs(4);
+    // A heap of 8 MB is too small for the library itself (a worker needs some 22 MB to calculate
+    // the largest demo, measured 5 December 2026): each worker dies of ERR_WORKER_OUT_OF_MEMORY
+    // holding the job it was given, and this thread, which was given none, calculates every job.
+    const progress: number[] = [];
+    const outcomes = await calculateAll(list, { workers: 2, jobsPerWorker: 1, alsoHere: false, workerLimits: { maxOldGenerationSizeMb: 8 }, onProgress: (done) => progress.push(done) });
+    expect(outcomes).toHaveLength(4);
+    // Over the jobs, not the outcomes: forEach would skip the hole a lost job leaves.
+    list.forEach((job, i) => {
+      const o = outcomes[i];
+      expect(o?.ok).toBe(true);
+      if (o?.ok) expect(JSON.stringify(o.results)).toBe(JSON.stringify(calculate(job.basis)));
+    });
+    expect(progress).toEqual([1, 2, 3, 4]);
+  }, 120_000);
+
+  it('into the cache: a deferred job is loaded when taken, and one whose basis does not load is left out (neither calculated nor a failure)', async () => {
+    const { root, list } = jobs(2);
+    const cache = new ResultsCache(root);
+    const loads: string[] = [];
+    const deferred = list.map(({ basis, text }) => ({ id: basis.id, file: basis.file, text, load: () => (loads.push(basis.id), basis) }));
+    const broken = { id: 'broken', file: 'projects/broken/basis.yaml', text: 'x', load: () => (loads.push('broken'), undefined) };
+    const failures = await calculateIntoCache([deferred[0]!, broken, deferred[1]!], cache, { workers: 1 });
+    expect(failures).toEqual([null, null, null]);
+    expect(loads).toEqual([list[0]!.basis.id, 'broken', list[1]!.basis.id]);
+    for (const job of list) expect(JSON.stringify(cache.get(resultsKey(job.text, job.basis.id, job.basis.file)))).toBe(JSON.stringify(calculate(job.basis)));
+    expect(cache.has(resultsKey('x', 'broken', broken.file))).toBe(false);
+  }, 120_000);
+
   it('into the cache: every result stored as a calculation here gives it, failures returned, nothing kept; a second run reads no entry', async () => {
     const { root, list } = jobs(3);
     // The third job fails: a cell voltage above its Nernst voltage (a located calculation error).
