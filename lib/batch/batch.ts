@@ -58,6 +58,8 @@ export interface BatchOptions {
   onProgress?: (done: number, total: number) => void;
   /** The heap limits of each worker thread (default WORKER_LIMITS); tests set tiny ones to make a worker run out of memory. */
   workerLimits?: ResourceLimits;
+  /** Told, in a line naming the project, when a worker runs out of heap and its work goes to this thread (a build shows it as a warning). */
+  onNotice?: (line: string) => void;
 }
 
 /**
@@ -131,12 +133,13 @@ interface Ready {
  * Runs the jobs from one queue (`take` gives the next, loaded, or undefined when none is left):
  * `count` workers, and this thread between their messages (one job at a time, yielding after
  * each so that the workers' replies are taken as they come). A worker that runs out of heap
- * (ERR_WORKER_OUT_OF_MEMORY, past `limits`) is not started again: the job it held is
+ * (ERR_WORKER_OUT_OF_MEMORY, past `options.workerLimits`) is not started again, and `options.onNotice` told: the job it held is
  * calculated in this thread once the others are done, with whatever the queue still holds, so
  * no project is lost and the outcome is the one this thread gives (the same calculation). Any
  * other death of a worker stops the batch with an internal error naming the project.
  */
-async function inThreads(take: () => Ready | undefined, count: number, alsoHere: boolean, limits: ResourceLimits, report: (index: number, outcome: CalculationOutcome) => void): Promise<void> {
+async function inThreads(take: () => Ready | undefined, count: number, options: BatchOptions, report: (index: number, outcome: CalculationOutcome) => void): Promise<void> {
+  const limits = options.workerLimits ?? WORKER_LIMITS;
   const entry = new URL('./calc-worker-entry.mjs', import.meta.url);
   const orphans: Ready[] = [];
   let failure: unknown;
@@ -166,6 +169,7 @@ async function inThreads(take: () => Ready | undefined, count: number, alsoHere:
         if (error.code !== 'ERR_WORKER_OUT_OF_MEMORY') fail(error);
         else {
           if (held) orphans.push(held);
+          options.onNotice?.(`a calculation worker ran out of its ${limits.maxOldGenerationSizeMb ?? '(default)'} MB heap${held ? ` calculating ${held.basis.file}` : ''}; ${held ? 'that project and ' : ''}the projects left were calculated in the main thread instead (the same results, more slowly)`);
           held = undefined;
           resolve();
         }
@@ -183,7 +187,7 @@ async function inThreads(take: () => Ready | undefined, count: number, alsoHere:
   };
   const workers = Array.from({ length: count }, () => new Worker(entry, { resourceLimits: limits }));
   try {
-    await Promise.all([...(alsoHere ? [here()] : []), ...workers.map(run)]);
+    await Promise.all([...(options.alsoHere ?? true ? [here()] : []), ...workers.map(run)]);
   } finally {
     await Promise.all(workers.map((w) => w.terminate()));
   }
@@ -252,7 +256,7 @@ async function runBatch(jobs: DeferredJob[], options: BatchOptions, keep: boolea
   const cores = Math.max(1, options.workers ?? availableParallelism());
   const alsoHere = options.alsoHere ?? true;
   const count = Math.min(alsoHere ? cores - 1 : cores, Math.floor(pending.length / (options.jobsPerWorker ?? PER_WORKER)));
-  if (count >= 1) await inThreads(take, count, alsoHere, options.workerLimits ?? WORKER_LIMITS, report);
+  if (count >= 1) await inThreads(take, count, options, report);
   else for (let job = take(); job; job = take()) report(job.index, calculateHere(job.basis));
   return outcomes;
 }

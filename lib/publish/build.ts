@@ -360,9 +360,10 @@ async function swapIntoPlace(root: string, out: string, names: ReturnType<typeof
  * loads and checks every basis anyway, and loading each twice cost a build of 2 000 cached
  * projects some 2 000 needless parses. The others are loaded one at a time as the calculation
  * takes them (`DeferredJob`): holding all of them validated at once was 88 MiB of heap at 2 000
- * projects, and V8 let the heap grow to some 2.5 times that.
+ * projects, and V8 let the heap grow to some 2.5 times that. A worker that ran out of heap, its
+ * work done in this thread instead, is told in `notices` (a warning of the build's report).
  */
-async function precompute(root: string, options: BuildOptions): Promise<Map<string, CalculationOutcome>> {
+async function precompute(root: string, options: BuildOptions, notices: string[]): Promise<Map<string, CalculationOutcome>> {
   const cache = new ResultsCache(root);
   const jobs: DeferredJob[] = [];
   let cached = 0;
@@ -388,7 +389,7 @@ async function precompute(root: string, options: BuildOptions): Promise<Map<stri
   }
   const total = cached + jobs.length;
   if (cached) options.onProgress?.('calculate', cached, total);
-  const failures = await calculateIntoCache(jobs, cache, { onProgress: (done) => options.onProgress?.('calculate', cached + done, total) });
+  const failures = await calculateIntoCache(jobs, cache, { onProgress: (done) => options.onProgress?.('calculate', cached + done, total), onNotice: (line) => notices.push(`warning: ${line}`) });
   return new Map(jobs.flatMap((j, i) => (failures[i] ? [[j.id, failures[i]!] as const] : [])));
 }
 
@@ -401,7 +402,8 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
   const chromium = findChromium();
   const printing = options.pdf ?? chromium !== null;
   if (printing && chromium === null) throw new ChromiumMissingError();
-  const results = options.results ?? (await precompute(root, options));
+  const notices: string[] = [];
+  const results = options.results ?? (await precompute(root, options, notices));
   // What the calculation left goes before the projects are read again for the model and the pages.
   collectGarbage();
   mkdirSync(dirname(out), { recursive: true });
@@ -440,6 +442,6 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
   }
   await pause(options, 'swapped');
   removeLeftovers(out);
-  const warnings = printing ? model.warnings : [...model.warnings, `no PDFs were printed: ${options.pdf === false ? 'HTML only was asked for' : chromiumMissingMessage()}`];
+  const warnings = printing ? [...notices, ...model.warnings] : [...notices, ...model.warnings, `no PDFs were printed: ${options.pdf === false ? 'HTML only was asked for' : chromiumMissingMessage()}`];
   return { out, documents: model.pages.length + model.revisionPages.length, pdfs: printing ? model.drafts.length : 0, warnings, leftovers };
 }

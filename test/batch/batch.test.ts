@@ -43,7 +43,8 @@ describe('batch calculation', () => {
     // the largest demo, measured 5 December 2026): each worker dies of ERR_WORKER_OUT_OF_MEMORY
     // holding the job it was given, and this thread, which was given none, calculates every job.
     const progress: number[] = [];
-    const outcomes = await calculateAll(list, { workers: 2, jobsPerWorker: 1, alsoHere: false, workerLimits: { maxOldGenerationSizeMb: 8 }, onProgress: (done) => progress.push(done) });
+    const notices: string[] = [];
+    const outcomes = await calculateAll(list, { workers: 2, jobsPerWorker: 1, alsoHere: false, workerLimits: { maxOldGenerationSizeMb: 8 }, onProgress: (done) => progress.push(done), onNotice: (line) => notices.push(line) });
     expect(outcomes).toHaveLength(4);
     // Over the jobs, not the outcomes: forEach would skip the hole a lost job leaves.
     list.forEach((job, i) => {
@@ -52,6 +53,12 @@ describe('batch calculation', () => {
       if (o?.ok) expect(JSON.stringify(o.results)).toBe(JSON.stringify(calculate(job.basis)));
     });
     expect(progress).toEqual([1, 2, 3, 4]);
+    // Each worker's death is told, naming its heap and the project it held, which is one of the jobs.
+    expect(notices).toHaveLength(2);
+    for (const line of notices) {
+      expect(line).toMatch(/^a calculation worker ran out of its 8 MB heap calculating (\S+); that project and the projects left were calculated in the main thread instead/);
+      expect(list.map((j) => j.basis.file)).toContain(/calculating (\S+);/.exec(line)![1]);
+    }
   }, 120_000);
 
   it('into the cache: a deferred job is loaded when taken, and one whose basis does not load is left out (neither calculated nor a failure)', async () => {
