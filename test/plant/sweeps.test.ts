@@ -51,6 +51,38 @@ describe('temperature sweep', () => {
   });
 });
 
+describe('temperature sweep in electrolysis: the limit runs the other way', () => {
+  // An electrolyser needs at least ΔG(T) of electric work per mole of water split, so the bound on
+  // its efficiency over electricity alone is heating value / ΔG(T), above 100 %: at 25 °C with
+  // liquid water E_rev = 1.229 V and V_tn = 1.481 V, so HHV/ΔG = 1.481/1.229 = 1.205 (facts of
+  // the trade: NIST-JANAF ΔfG° −237.13 and ΔfH° −285.83 kJ/mol of H2O(l); Larminie & Dicks,
+  // Fuel Cell Systems Explained, 2nd ed., §2.3). The fuel cell's −ΔG/HHV (83 %) bounds nothing here.
+  it('a PEM electrolysis basis from 25 °C: HHV/ΔG(T) and LHV/ΔG(T) of hydrogen at every T, 120.5 % HHV at 25 °C, above the design point', () => {
+    const r = calculate(basisFrom('pem', 'electrolysis', { 'conditions.temperature-sweep': { from: '25 C', to: '90 C' } }));
+    const sweep = r.sweeps.temperature;
+    expect(sweep[0]!.temperature_K).toBeCloseTo(298.15, 9);
+    const LHV_H2 = -(h('H2O', 298.15) - h('H2', 298.15) - 0.5 * h('O2', 298.15));
+    for (const p of sweep) {
+      const t = p.temperature_K;
+      const split = -(g('H2O(L)', t) - g('H2', t) - 0.5 * g('O2', t));
+      expect(p.electrolysisLimitHhv!).toBeCloseTo(HHV_H2 / split, 12);
+      expect(p.electrolysisLimitLhv!).toBeCloseTo(LHV_H2 / split, 12);
+      expect(p.electrolysisLimitHhv!).toBeGreaterThan(r.efficiency.electrolysisEfficiencyHhv!);
+      expect(p.electrolysisLimitLhv!).toBeGreaterThan(r.efficiency.electrolysisEfficiencyLhv!);
+    }
+    // 1.481/1.229 to the third decimal of the textbook voltages: ±0.002.
+    expect(Math.abs(sweep[0]!.electrolysisLimitHhv! - 1.481 / 1.229)).toBeLessThan(0.002);
+  });
+
+  it('a power basis has no electrolysis limit', () => {
+    const r = calculate(basisFrom('pem', 'power'));
+    for (const p of r.sweeps.temperature) {
+      expect(p.electrolysisLimitLhv).toBeNull();
+      expect(p.electrolysisLimitHhv).toBeNull();
+    }
+  });
+});
+
 describe('current-density sweep', () => {
   // The proton-ceramic scaffold: a resistance of 0.5 ohm cm2 and t_ion = 0.95.
   const basis = basisFrom('proton-ceramic', 'power');

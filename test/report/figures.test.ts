@@ -67,6 +67,24 @@ it('the voltage chart carries the sweep of the results unchanged', () => {
   expect(rev.points.map((p) => p[1])).toEqual(c.results.sweeps.temperature.map((p) => p.reversibleVoltage_V));
 });
 
+it('draws an electrolyser\'s efficiency limit as heating value over ΔG of splitting (above its design point), not the fuel cell\'s −ΔG/HHV or Carnot', () => {
+  // A reversible electrolyser needs ΔG(T) of electric work: its efficiency over electricity alone is
+  // HHV/ΔG, 1.481/1.229 = 120 % at 25 °C (textbook E_rev and V_tn of liquid water, Larminie & Dicks,
+  // 2nd ed., §2.3); the fuel cell's −ΔG/HHV (83 %) and the Carnot efficiency bound no electrolyser.
+  const c = scaffoldCase('pem', 'electrolysis');
+  const f = drawn(figures(c.results)).find((x) => x.id === 'fig-efficiency-temperature')!;
+  const spec = JSON.parse(f.spec.html) as Extract<ChartSpec, { kind: 'line' }>;
+  const labels = spec.series.map((s) => s.label);
+  expect(labels.some((l) => /Carnot/.test(l))).toBe(false);
+  expect(labels.some((l) => /limit of hydrogen/.test(l))).toBe(false);
+  const hhv = spec.series.find((s) => s.label === 'reversible electrolyser, HHV')!;
+  expect(hhv.points.map((p) => p[1])).toEqual(c.results.sweeps.temperature.map((p) => p.electrolysisLimitHhv! * 100));
+  const design = spec.series.find((s) => s.marker)!;
+  const lhv = spec.series.find((s) => s.label === 'reversible electrolyser, LHV')!;
+  for (const p of lhv.points) expect(p[1]).toBeGreaterThan(design.points[0]![1]);
+  expect(f.caption).toMatch(/ΔG\(T\) of splitting water/);
+});
+
 it('says that a fuel without carbon has no carbon curve, and still draws six charts', () => {
   const c = scaffoldCase('pem', 'power');
   const list = figures(c.results);

@@ -113,19 +113,28 @@ function limitsAgainstTemperature(r: Results): Draft {
     series.push({ label, points: s.filter((p) => get(p) !== null).map((p) => [C(p.temperature_K), pct(get(p)!)]), style, dashed });
     columns.push(column(`${label} (%)`, label, '', s.map(get), pct));
   };
-  add('limit of the fuel, LHV', (p) => p.limitLhv, 0);
-  add('limit of the fuel, HHV', (p) => p.limitHhv, 2);
-  add('limit of hydrogen, HHV', (p) => p.hydrogenLimitHhv, 1, true);
-  add('Carnot, 1 − T₀/T', (p) => p.carnot, 3);
+  const power = r.technology.mode === 'power';
+  if (power) {
+    add('limit of the fuel, LHV', (p) => p.limitLhv, 0);
+    add('limit of the fuel, HHV', (p) => p.limitHhv, 2);
+    add('limit of hydrogen, HHV', (p) => p.hydrogenLimitHhv, 1, true);
+    add('Carnot, 1 − T₀/T', (p) => p.carnot, 3);
+  } else {
+    // An electrolyser is bounded the other way: it needs at least ΔG(T) of electric work (lib/plant/sweeps.ts).
+    add('reversible electrolyser, LHV', (p) => p.electrolysisLimitLhv ?? null, 0);
+    add('reversible electrolyser, HHV', (p) => p.electrolysisLimitHhv ?? null, 2);
+  }
   const td = C(r.conditions.temperature_K);
-  const eff = r.technology.mode === 'power' ? r.headline.electricalEfficiencyLhv : r.efficiency.electrolysisEfficiencyLhv;
-  if (eff !== null) series.push({ label: r.technology.mode === 'power' ? 'design point: net electrical efficiency (LHV)' : 'design point: electrolysis efficiency (LHV)', points: [[td, pct(eff)]], style: 0, marker: true });
+  const eff = power ? r.headline.electricalEfficiencyLhv : r.efficiency.electrolysisEfficiencyLhv;
+  if (eff !== null) series.push({ label: power ? 'design point: net electrical efficiency (LHV)' : 'design point: electrolysis efficiency over electricity alone (LHV)', points: [[td, pct(eff)]], style: 0, marker: true });
   const [lo, hi] = span(series.flatMap((x) => x.points.map((p) => p[1])));
-  series.push(vertical(td, Math.max(0, lo - 5), Math.min(105, hi + 5), 'operating temperature'));
+  series.push(vertical(td, Math.max(0, lo - 5), power ? Math.min(105, hi + 5) : hi + 5, 'operating temperature'));
   return {
     id: 'fig-efficiency-temperature',
     title: 'Efficiency limits against temperature',
-    caption: `Thermodynamic limits −ΔG(T)/heating value and the Carnot efficiency between T and ${formatNumber(C(r.conditions.ambientTemperature_K), 3)} °C, with the design point.`,
+    caption: power
+      ? `Thermodynamic limits −ΔG(T)/heating value and the Carnot efficiency between T and ${formatNumber(C(r.conditions.ambientTemperature_K), 3)} °C, with the design point.`
+      : 'The efficiency over electricity alone of a reversible electrolyser, the heating value of hydrogen over ΔG(T) of splitting water (no cell needs less electric work than ΔG; above 100 % where the heat TΔS comes from the surroundings), with the design point. The fuel-cell limit −ΔG/HHV and the Carnot efficiency bound no electrolyser and are not drawn.',
     spec: { kind: 'line', x: temperatureAxis(r), y: { title: 'Efficiency (%)' }, series },
     data: chartData('efficiency-temperature', columns),
     notes: [],
