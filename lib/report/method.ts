@@ -313,8 +313,10 @@ function heat(step: Step, r: Results): void {
     .eq('heat-balance')
     .text(
       mixedConductor(r)
-        ? 'The reactions run at the rate of the ionic current: dividing the enthalpy they release by $I_\\mathrm{ion}$ gives the effective thermoneutral voltage of the actual gases, and the heat is what they release less the electric work at the terminals:'
-        : 'Dividing the enthalpy the reactions release by the current gives the effective thermoneutral voltage of the actual gases, and the heat in terms of voltages:',
+        ? power
+          ? 'The reactions run at the rate of the ionic current: dividing the enthalpy they release by $I_\\mathrm{ion}$ gives the effective thermoneutral voltage of the actual gases, and the heat is what they release less the electric work at the terminals:'
+          : 'The reactions run at the rate of the ionic current: dividing the enthalpy they absorb by $I_\\mathrm{ion}$ gives the effective thermoneutral voltage of the actual gases, and the heat is the electric work at the terminals less what they absorb:'
+        : `Dividing the enthalpy the reactions ${power ? 'release' : 'absorb'} by the current gives the effective thermoneutral voltage of the actual gases, and the heat in terms of voltages:`,
     )
     .eq('heat-voltage')
     .text(power ? 'A positive $Q$ must be removed from the stack.' : 'A positive $Q$ must be removed; a negative one (operation below the thermoneutral voltage) must be supplied to hold the stack temperature.');
