@@ -168,8 +168,8 @@ function fuelPath(step: Step, r: Results): void {
   const power = r.technology.mode === 'power';
   step.text(
     power
-      ? 'Along the cell the fuel is used up: at a fraction $u$ of the fuel utilization $U_\\mathrm{f}$ the electrolyte has carried the charge $u\\,Q_1$, moving what its ion carries from one gas to the other, and the local Nernst voltage of Eq. {{nernst}} falls from inlet to outlet.'
-      : 'Along the cell the feed is converted: at a fraction $u$ of the conversion $X$ the electrolyte has carried the charge $u\\,Q_1$, and the local Nernst voltage of Eq. {{nernst}} rises from inlet to outlet as the product builds up.',
+      ? 'Along the cell the fuel is used up: where the utilization has reached $u$ ($0 \\le u \\le U_\\mathrm{f}$, the outlet at $u = U_\\mathrm{f}$) the electrolyte has carried the charge $u\\,Q_1$, the share $u$ of the charge of the whole feed, moving what its ion carries from one gas to the other, and the local Nernst voltage of Eq. {{nernst}} falls from inlet to outlet.'
+      : 'Along the cell the feed is converted: where the conversion has reached $u$ ($0 \\le u \\le X$, the outlet at $u = X$) the electrolyte has carried the charge $u\\,Q_1$, the share $u$ of the charge of the whole feed, and the local Nernst voltage of Eq. {{nernst}} rises from inlet to outlet as the product builds up.',
   );
   if (r.technology.fuelGasEquilibrium) {
     step.text(
