@@ -12,6 +12,8 @@ import { FARADAY_C_PER_MOL as F, GAS_CONSTANT_J_PER_MOL_K as R } from '../../lib
 import { enthalpy, gibbs } from '../../lib/thermo/properties.ts';
 import { getSpecies } from '../../lib/thermo/species-data.ts';
 import { basisFrom } from '../helpers/scaffold-basis.ts';
+import { readFileSync } from 'node:fs';
+import { loadBasisText } from '../../lib/basis/load.ts';
 
 const h = (name: string, t: number) => enthalpy(getSpecies(name), t);
 const g = (name: string, t: number) => gibbs(getSpecies(name), t);
@@ -228,5 +230,22 @@ describe('sensitivities', () => {
     expect(Math.abs(e.high! - predicted(t + 25))).toBeLessThan(1e-8);
     expect(Math.abs(e.low! - predicted(t - 25))).toBeLessThan(1e-8);
     expect(e.high!).toBeLessThan(e.base - 5e-3);
+  });
+});
+
+describe('sensitivity of a small conversion', () => {
+  // One-at-a-time sensitivity (common practice, no source): the low case lies below the base and
+  // the high case above it. The electrolyser demo's conversion of 0.007 with the basis's step of
+  // ±0.02 has no room below; its low case used to be clamped to 0.01, above the base.
+  it('keeps the low case of the electrolyser demo below its conversion of 0.007 and the high case above', () => {
+    const loaded = loadBasisText(readFileSync(new URL('../../projects/kestrelford-pem-electrolyser/basis.yaml', import.meta.url), 'utf8'), 'projects/kestrelford-pem-electrolyser/basis.yaml', 'kestrelford-pem-electrolyser');
+    if (!loaded.ok) throw new Error('basis');
+    const r = calculate(loaded.basis);
+    const s = r.sensitivities.find((x) => x.path === 'operating-point.steam-conversion')!;
+    expect(r.electrochemistry.utilization).toBe(0.007);
+    expect(Number(s.low)).toBeGreaterThan(0);
+    expect(Number(s.low)).toBeLessThan(0.007);
+    expect(Number(s.high)).toBeCloseTo(0.027, 12);
+    expect(s.note).toBeNull();
   });
 });
