@@ -261,3 +261,15 @@ describe("the figure of where an electrolysis plant's electricity and heat go", 
     expect(figures(scaffoldCase('solid-oxide', 'power').results).some((d) => d.id === 'fig-electrolysis-energy-flow')).toBe(false);
   });
 });
+
+it('calls the electrolyser\'s path coordinate its conversion, not a fuel utilization, in every figure', () => {
+  // An electrolyser has no fuel to utilize: its path runs over the conversion of the feed (steam-conversion of the basis).
+  const c = scaffoldCase('pem', 'electrolysis');
+  for (const f of drawn(figures(c.results))) {
+    const spec = JSON.parse(f.spec.html) as ChartSpec;
+    const words = [f.caption, ...(spec.kind === 'line' ? spec.series.map((s) => s.label) : [])].join(' ');
+    expect(words, f.id).not.toMatch(/utilization/);
+  }
+  const composition = drawn(figures(c.results)).find((f) => f.id === 'fig-composition-path')!;
+  expect(composition.caption).toMatch(/design conversion marked/);
+});

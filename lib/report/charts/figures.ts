@@ -141,10 +141,10 @@ function limitsAgainstTemperature(r: Results): Draft {
   };
 }
 
-function pathAxis(r: Results): { title: string; label: string; name: string } {
+function pathAxis(r: Results): { title: string; label: string; name: string; design: string } {
   return r.technology.mode === 'power'
-    ? { title: 'Fuel utilization (%)', label: 'fuel utilization (%)', name: 'Fuel utilization' }
-    : { title: 'Conversion of the feed (%)', label: 'conversion (%)', name: 'Conversion of the feed' };
+    ? { title: 'Fuel utilization (%)', label: 'fuel utilization (%)', name: 'Fuel utilization', design: 'design utilization' }
+    : { title: 'Conversion of the feed (%)', label: 'conversion (%)', name: 'Conversion of the feed', design: 'design conversion' };
 }
 
 function nernstAlongPath(r: Results): Draft {
@@ -157,7 +157,7 @@ function nernstAlongPath(r: Results): Draft {
     { label: 'charge-mean Nernst voltage Ē', points: [[0, r.headline.meanNernst_V], [uEnd, r.headline.meanNernst_V]], style: 2, dashed: true },
     { label: 'area-mean Nernst voltage Ē_A', points: [[0, r.electrochemistry.areaMeanNernst_V], [uEnd, r.electrochemistry.areaMeanNernst_V]], style: 3, dashed: true },
     { label: 'cell voltage', points: [[0, r.headline.cellVoltage_V], [uEnd, r.headline.cellVoltage_V]], style: 1 },
-    { label: 'design point: outlet at the design utilization', points: [[uEnd, r.headline.outletNernst_V]], style: 0, marker: true },
+    { label: `design point: outlet at the ${axis.design}`, points: [[uEnd, r.headline.outletNernst_V]], style: 0, marker: true },
   ];
   return {
     id: 'fig-nernst-path',
@@ -235,7 +235,7 @@ function compositionAlongPath(r: Results): Draft {
     ...air.map((k, i): LineSeries => ({ label: `${speciesText(k)}, air electrode`, points: p.map((x) => [x.utilization * 100, (x.airSide[k] ?? 0) * 100]), style: fuel.length + i, dashed: true })),
   ];
   const uEnd = r.electrochemistry.utilization * 100;
-  series.push(vertical(uEnd, 0, 100, 'design utilization'));
+  series.push(vertical(uEnd, 0, 100, axis.design));
   // On the page a species absent from a point reads 0; in the data it is an empty field, as the results hold no number for it.
   const side = (k: string, where: 'fuelSide' | 'airSide', label: string): ChartColumn => ({
     head: `${speciesText(k)} ${label} side (mol %)`,
@@ -246,7 +246,7 @@ function compositionAlongPath(r: Results): Draft {
   return {
     id: 'fig-composition-path',
     title: 'Gas composition along the fuel path',
-    caption: `Mole fractions of the species that reach 1 % (solid: fuel electrode${r.technology.fuelGasEquilibrium ? ', equilibrated' : ''}; dashed: air electrode), with the design utilization marked.`,
+    caption: `Mole fractions of the species that reach 1 % (solid: fuel electrode${r.technology.fuelGasEquilibrium ? ', equilibrated' : ''}; dashed: air electrode), with the ${axis.design} marked.`,
     spec: { kind: 'line', x: { title: axis.title, min: 0, max: uEnd }, y: { title: 'Mole fraction (%)', min: 0, max: 100 }, series },
     data: chartData('composition-path', columns),
     notes: [],
@@ -301,7 +301,7 @@ function polarisation(r: Results): Draft {
   return {
     id: 'fig-polarisation',
     title: 'Cell voltage against current density',
-    caption: `The uniform-voltage cell at the design utilization and area-specific resistance (${formatNumber(r.electrochemistry.areaSpecificResistance_ohm_m2 * 1e4)} Ω cm²), the voltage solved again at each current density; the dashed line is the area-mean driving voltage at the design point.`,
+    caption: `The uniform-voltage cell at the ${pathAxis(r).design} and area-specific resistance (${formatNumber(r.electrochemistry.areaSpecificResistance_ohm_m2 * 1e4)} Ω cm²), the voltage solved again at each current density; the dashed line is the area-mean driving voltage at the design point.`,
     spec: {
       kind: 'line',
       x: jAxis(),
