@@ -30,6 +30,17 @@ interface Perturbation {
 
 const fmt = (x: number, digits = 4) => String(Number(x.toPrecision(digits)));
 
+/**
+ * A utilization or conversion moved by `delta`, kept inside (0.01, 0.99) without crossing to the
+ * other side of `base`: a step larger than the room left (a conversion of 0.007 stepped by 0.02)
+ * goes half way to the bound instead, so the low case stays below the base and the high above it.
+ */
+function steppedFraction(base: number, delta: number): number {
+  const moved = base + delta;
+  if (delta < 0) return Math.max(moved, Math.min(0.01, base / 2));
+  return Math.min(moved, Math.max(0.99, (1 + base) / 2));
+}
+
 function perturbations(step: Sensitivity, inputs: DesignInputs): Perturbation[] {
   const list: Perturbation[] = [
     {
@@ -50,7 +61,7 @@ function perturbations(step: Sensitivity, inputs: DesignInputs): Perturbation[] 
       input: conversionName(inputs.technology, inputs.mode),
       path: inputs.mode === 'power' ? 'operating-point.fuel-utilization' : 'operating-point.steam-conversion',
       step: `±${fmt(step.utilization)}`,
-      apply: (i, s) => ({ ...i, utilization: Math.min(0.99, Math.max(0.01, i.utilization + s * step.utilization)) }),
+      apply: (i, s) => ({ ...i, utilization: steppedFraction(i.utilization, s * step.utilization) }),
       show: (i) => fmt(i.utilization, 3),
     },
     {

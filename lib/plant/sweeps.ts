@@ -2,7 +2,11 @@
  * The curves of the design document's charts:
  * - temperature: E_rev = −ΔG°/2F and V_tn = −ΔH°/2F of H2 + ½O2 → H2O, the actual fuel's
  *   −ΔG°/zF, the thermodynamic efficiency limits −ΔG(T)/LHV and −ΔG(T)/HHV of the fuel and of
- *   hydrogen, and the Carnot limit 1 − T_cold/T (Larminie & Dicks, §2.3-2.4);
+ *   hydrogen, and the Carnot limit 1 − T_cold/T (Larminie & Dicks, §2.3-2.4); in electrolysis the
+ *   bound runs the other way: no cell splits water with less electric work than ΔG(T) of the
+ *   splitting, so the efficiency over electricity alone of a reversible electrolyser is
+ *   LHV/ΔG(T) and HHV/ΔG(T) of hydrogen (heat TΔS taken from the surroundings; Larminie & Dicks,
+ *   §2.3, the same ΔG read backwards);
  * - current density: V(j) of the uniform-voltage cell (voltage.ts) at the design utilization and
  *   resistance (E(u) does not depend on j at fixed utilization), P = N A j V,
  *   Q = N A (j_ion V_tn − j V) (power) or N A (j V − j_ion V_tn) (electrolysis), with the design
@@ -44,6 +48,7 @@ export function temperatureSweep(point: DesignPoint, fromK: number, toK: number,
   const fuelElectrons = dryFuel ? electronsOfStream(dryFuel) : 0;
   const hv = dryFuel ? streamHeatingValueW(dryFuel) : null;
   const h2 = heatingValue(getSpecies('H2'));
+  const electrolysis = inputs.mode !== 'power';
   const fuelOk = (t: number) => !!dryFuel && Object.keys(dryFuel).every((k) => inRange(getSpecies(k), t));
   return linspace(low, high, count).map((t) => {
     const hydrogen = evaluateReaction(`H2 + 1/2 O2 -> ${water.label}`, t);
@@ -56,6 +61,8 @@ export function temperatureSweep(point: DesignPoint, fromK: number, toK: number,
       limitLhv: dG !== null && hv ? dG / hv.lhvJPerMol : null,
       limitHhv: dG !== null && hv ? dG / hv.hhvJPerMol : null,
       hydrogenLimitHhv: -hydrogen.deltaG_J_per_mol / h2.hhvJPerMol,
+      electrolysisLimitLhv: electrolysis ? h2.lhvJPerMol / -hydrogen.deltaG_J_per_mol : null,
+      electrolysisLimitHhv: electrolysis ? h2.hhvJPerMol / -hydrogen.deltaG_J_per_mol : null,
       carnot: 1 - inputs.ambientTemperatureK / t,
     };
   });

@@ -70,6 +70,11 @@ export interface LineSpec {
   note?: string;
 }
 
+/** A line with the origins of some of its quantities replaced, by quantity name (an operating case's numbers reusing a line of section 6). */
+export function withOrigins(line: LineSpec, origins: Readonly<Record<string, string>>): LineSpec {
+  return { ...line, quantities: line.quantities.map((q) => (origins[q.name] === undefined ? q : { ...q, origin: origins[q.name]! })) };
+}
+
 const SUBSTITUTION_DIGITS = 6;
 
 /**

@@ -168,8 +168,8 @@ function fuelPath(step: Step, r: Results): void {
   const power = r.technology.mode === 'power';
   step.text(
     power
-      ? 'Along the cell the fuel is used up: at a fraction $u$ of the fuel utilization $U_\\mathrm{f}$ the electrolyte has carried the charge $u\\,Q_1$, moving what its ion carries from one gas to the other, and the local Nernst voltage of Eq. {{nernst}} falls from inlet to outlet.'
-      : 'Along the cell the feed is converted: at a fraction $u$ of the conversion $X$ the electrolyte has carried the charge $u\\,Q_1$, and the local Nernst voltage of Eq. {{nernst}} rises from inlet to outlet as the product builds up.',
+      ? 'Along the cell the fuel is used up: where the utilization has reached $u$ ($0 \\le u \\le U_\\mathrm{f}$, the outlet at $u = U_\\mathrm{f}$) the electrolyte has carried the charge $u\\,Q_1$, the share $u$ of the charge of the whole feed, moving what its ion carries from one gas to the other, and the local Nernst voltage of Eq. {{nernst}} falls from inlet to outlet.'
+      : 'Along the cell the feed is converted: where the conversion has reached $u$ ($0 \\le u \\le X$, the outlet at $u = X$) the electrolyte has carried the charge $u\\,Q_1$, the share $u$ of the charge of the whole feed, and the local Nernst voltage of Eq. {{nernst}} rises from inlet to outlet as the product builds up.',
   );
   if (r.technology.fuelGasEquilibrium) {
     step.text(
@@ -313,8 +313,10 @@ function heat(step: Step, r: Results): void {
     .eq('heat-balance')
     .text(
       mixedConductor(r)
-        ? 'The reactions run at the rate of the ionic current: dividing the enthalpy they release by $I_\\mathrm{ion}$ gives the effective thermoneutral voltage of the actual gases, and the heat is what they release less the electric work at the terminals:'
-        : 'Dividing the enthalpy the reactions release by the current gives the effective thermoneutral voltage of the actual gases, and the heat in terms of voltages:',
+        ? power
+          ? 'The reactions run at the rate of the ionic current: dividing the enthalpy they release by $I_\\mathrm{ion}$ gives the effective thermoneutral voltage of the actual gases, and the heat is what they release less the electric work at the terminals:'
+          : 'The reactions run at the rate of the ionic current: dividing the enthalpy they absorb by $I_\\mathrm{ion}$ gives the effective thermoneutral voltage of the actual gases, and the heat is the electric work at the terminals less what they absorb:'
+        : `Dividing the enthalpy the reactions ${power ? 'release' : 'absorb'} by the current gives the effective thermoneutral voltage of the actual gases, and the heat in terms of voltages:`,
     )
     .eq('heat-voltage')
     .text(power ? 'A positive $Q$ must be removed from the stack.' : 'A positive $Q$ must be removed; a negative one (operation below the thermoneutral voltage) must be supplied to hold the stack temperature.');

@@ -8,7 +8,7 @@
  */
 import type { DesignBasis } from '../basis/types.ts';
 import type { Results } from '../plant/results-schema.ts';
-import { calcLine, type CalcLine, type LineSpec } from './calc-line.ts';
+import { calcLine, withOrigins, type CalcLine, type LineSpec } from './calc-line.ts';
 import type { EquationBook } from './equation-book.ts';
 import { nernstLine, standardLines, voltageLines } from './result-lines/voltage-lines.ts';
 import { sizeLines } from './result-lines/size-lines.ts';
@@ -24,9 +24,13 @@ export interface LineGroup {
   lines: CalcLine[];
 }
 
-/** The worked lines of section 6, in groups. */
-export function resultLines(r: Results, basis: DesignBasis, book: EquationBook): LineGroup[] {
-  const build = (specs: (LineSpec | null)[]) => specs.filter((s): s is LineSpec => s !== null).map((s) => calcLine(s, book));
+/**
+ * The worked lines of section 6, in groups. `origins` replaces, by quantity name, where a number
+ * is said to come from: an operating case reuses these lines, and its current density or
+ * resistance is not the design input the sizing calculation's lines name (sections/cases.ts).
+ */
+export function resultLines(r: Results, basis: DesignBasis, book: EquationBook, origins: Readonly<Record<string, string>> = {}): LineGroup[] {
+  const build = (specs: (LineSpec | null)[]) => specs.filter((s): s is LineSpec => s !== null).map((s) => calcLine(withOrigins(s, origins), book));
   const groups: LineGroup[] = [
     { id: 'results-voltage', title: 'Voltages', lines: build([...standardLines(r, book), nernstLine(r, book, 'inlet'), nernstLine(r, book, 'outlet'), ...voltageLines(r, book)]) },
     { id: 'results-size', title: 'Current, size and power', lines: build(sizeLines(r, basis)) },

@@ -12,6 +12,8 @@ import { FARADAY_C_PER_MOL as F, GAS_CONSTANT_J_PER_MOL_K as R } from '../../lib
 import { enthalpy, gibbs } from '../../lib/thermo/properties.ts';
 import { getSpecies } from '../../lib/thermo/species-data.ts';
 import { basisFrom } from '../helpers/scaffold-basis.ts';
+import { readFileSync } from 'node:fs';
+import { loadBasisText } from '../../lib/basis/load.ts';
 
 const h = (name: string, t: number) => enthalpy(getSpecies(name), t);
 const g = (name: string, t: number) => gibbs(getSpecies(name), t);
@@ -48,6 +50,38 @@ describe('temperature sweep', () => {
     }
     // The methane-rich fuel's limit −ΔG/LHV stays near 1 (ΔS of CH4 + 2 O2 → CO2 + 2 H2O is near 0), far above hydrogen's.
     for (const p of r.sweeps.temperature) expect(p.limitLhv!).toBeGreaterThan(0.97);
+  });
+});
+
+describe('temperature sweep in electrolysis: the limit runs the other way', () => {
+  // An electrolyser needs at least ΔG(T) of electric work per mole of water split, so the bound on
+  // its efficiency over electricity alone is heating value / ΔG(T), above 100 %: at 25 °C with
+  // liquid water E_rev = 1.229 V and V_tn = 1.481 V, so HHV/ΔG = 1.481/1.229 = 1.205 (facts of
+  // the trade: NIST-JANAF ΔfG° −237.13 and ΔfH° −285.83 kJ/mol of H2O(l); Larminie & Dicks,
+  // Fuel Cell Systems Explained, 2nd ed., §2.3). The fuel cell's −ΔG/HHV (83 %) bounds nothing here.
+  it('a PEM electrolysis basis from 25 °C: HHV/ΔG(T) and LHV/ΔG(T) of hydrogen at every T, 120.5 % HHV at 25 °C, above the design point', () => {
+    const r = calculate(basisFrom('pem', 'electrolysis', { 'conditions.temperature-sweep': { from: '25 C', to: '90 C' } }));
+    const sweep = r.sweeps.temperature;
+    expect(sweep[0]!.temperature_K).toBeCloseTo(298.15, 9);
+    const LHV_H2 = -(h('H2O', 298.15) - h('H2', 298.15) - 0.5 * h('O2', 298.15));
+    for (const p of sweep) {
+      const t = p.temperature_K;
+      const split = -(g('H2O(L)', t) - g('H2', t) - 0.5 * g('O2', t));
+      expect(p.electrolysisLimitHhv!).toBeCloseTo(HHV_H2 / split, 12);
+      expect(p.electrolysisLimitLhv!).toBeCloseTo(LHV_H2 / split, 12);
+      expect(p.electrolysisLimitHhv!).toBeGreaterThan(r.efficiency.electrolysisEfficiencyHhv!);
+      expect(p.electrolysisLimitLhv!).toBeGreaterThan(r.efficiency.electrolysisEfficiencyLhv!);
+    }
+    // 1.481/1.229 to the third decimal of the textbook voltages: ±0.002.
+    expect(Math.abs(sweep[0]!.electrolysisLimitHhv! - 1.481 / 1.229)).toBeLessThan(0.002);
+  });
+
+  it('a power basis has no electrolysis limit', () => {
+    const r = calculate(basisFrom('pem', 'power'));
+    for (const p of r.sweeps.temperature) {
+      expect(p.electrolysisLimitLhv).toBeNull();
+      expect(p.electrolysisLimitHhv).toBeNull();
+    }
   });
 });
 
@@ -196,5 +230,22 @@ describe('sensitivities', () => {
     expect(Math.abs(e.high! - predicted(t + 25))).toBeLessThan(1e-8);
     expect(Math.abs(e.low! - predicted(t - 25))).toBeLessThan(1e-8);
     expect(e.high!).toBeLessThan(e.base - 5e-3);
+  });
+});
+
+describe('sensitivity of a small conversion', () => {
+  // One-at-a-time sensitivity (common practice, no source): the low case lies below the base and
+  // the high case above it. The electrolyser demo's conversion of 0.007 with the basis's step of
+  // ±0.02 has no room below; its low case used to be clamped to 0.01, above the base.
+  it('keeps the low case of the electrolyser demo below its conversion of 0.007 and the high case above', () => {
+    const loaded = loadBasisText(readFileSync(new URL('../../projects/kestrelford-pem-electrolyser/basis.yaml', import.meta.url), 'utf8'), 'projects/kestrelford-pem-electrolyser/basis.yaml', 'kestrelford-pem-electrolyser');
+    if (!loaded.ok) throw new Error('basis');
+    const r = calculate(loaded.basis);
+    const s = r.sensitivities.find((x) => x.path === 'operating-point.steam-conversion')!;
+    expect(r.electrochemistry.utilization).toBe(0.007);
+    expect(Number(s.low)).toBeGreaterThan(0);
+    expect(Number(s.low)).toBeLessThan(0.007);
+    expect(Number(s.high)).toBeCloseTo(0.027, 12);
+    expect(s.note).toBeNull();
   });
 });

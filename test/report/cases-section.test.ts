@@ -278,3 +278,34 @@ it('draws each case on its own curve: the operating point lies between the curve
     }
   }
 });
+
+// A number a worked line calls a "design input" must be the basis's own (the basis files of the
+// demos are the source): an operating case's current density is solved for its target, not given,
+// and a resistance implied by the sizing case's given cell voltage is not a design input either.
+describe.each(['thistlemere-sofc-chp', 'kestrelford-pem-electrolyser', 'corrin-beck-mcfc-biogas', 'hob-tor-pem-backup'])('the case lines of %s', (id) => {
+  const { basis, results } = demo(id);
+  const view = documentView({ basis, results, revision: draft, history: [] }, { assetBase: './', checks: [] });
+  const quantities = view.cases.lines.flatMap((g) => g.lines).flatMap((l) => l.quantities.map((q) => ({ line: l.id, ...q })));
+  const number = (text: string) => Number(text.replace(/[\s\u2009\u202f]/g, '').replace('−', '-').match(/^-?[\d.]+(e-?\d+)?/)![0]);
+
+  it('call a current density or resistance a design input only where it is the basis value', () => {
+    const j = results.operatingPoint.currentDensity_A_per_m2;
+    const given = results.electrochemistry.voltageSource === 'given';
+    for (const q of quantities) {
+      if (/^current density, design input$/.test(q.origin)) {
+        const shown = number(q.value) * (q.value.includes('A/cm') ? 1e4 : 1);
+        expect(Math.abs(shown - j) / j, `${q.line}: ${q.value}`).toBeLessThan(1e-4);
+      }
+      if (/^design input/.test(q.origin) && q.value.includes('Ω cm')) expect(given, `${q.line}: ${q.value} ${q.origin}`).toBe(false);
+    }
+  });
+});
+
+it('the electrolyser\'s turndown line names its solved current density and the resistance implied at sizing', () => {
+  const { basis, results } = demo('kestrelford-pem-electrolyser');
+  const view = documentView({ basis, results, revision: draft, history: [] }, { assetBase: './', checks: [] });
+  const line = view.cases.lines.flatMap((g) => g.lines).find((l) => l.id === 'case-turndown-cell-voltage')!;
+  const origins = line.quantities.map((q) => q.origin);
+  expect(origins).toContain("current density that meets the case's target on the installed cells (solved: the load line above)");
+  expect(origins).toContain("the sizing case's, implied by its given cell voltage (section 6)");
+});

@@ -67,6 +67,24 @@ it('the voltage chart carries the sweep of the results unchanged', () => {
   expect(rev.points.map((p) => p[1])).toEqual(c.results.sweeps.temperature.map((p) => p.reversibleVoltage_V));
 });
 
+it('draws an electrolyser\'s efficiency limit as heating value over ΔG of splitting (above its design point), not the fuel cell\'s −ΔG/HHV or Carnot', () => {
+  // A reversible electrolyser needs ΔG(T) of electric work: its efficiency over electricity alone is
+  // HHV/ΔG, 1.481/1.229 = 120 % at 25 °C (textbook E_rev and V_tn of liquid water, Larminie & Dicks,
+  // 2nd ed., §2.3); the fuel cell's −ΔG/HHV (83 %) and the Carnot efficiency bound no electrolyser.
+  const c = scaffoldCase('pem', 'electrolysis');
+  const f = drawn(figures(c.results)).find((x) => x.id === 'fig-efficiency-temperature')!;
+  const spec = JSON.parse(f.spec.html) as Extract<ChartSpec, { kind: 'line' }>;
+  const labels = spec.series.map((s) => s.label);
+  expect(labels.some((l) => /Carnot/.test(l))).toBe(false);
+  expect(labels.some((l) => /limit of hydrogen/.test(l))).toBe(false);
+  const hhv = spec.series.find((s) => s.label === 'reversible electrolyser, HHV')!;
+  expect(hhv.points.map((p) => p[1])).toEqual(c.results.sweeps.temperature.map((p) => p.electrolysisLimitHhv! * 100));
+  const design = spec.series.find((s) => s.marker)!;
+  const lhv = spec.series.find((s) => s.label === 'reversible electrolyser, LHV')!;
+  for (const p of lhv.points) expect(p[1]).toBeGreaterThan(design.points[0]![1]);
+  expect(f.caption).toMatch(/ΔG\(T\) of splitting water/);
+});
+
 it('says that a fuel without carbon has no carbon curve, and still draws six charts', () => {
   const c = scaffoldCase('pem', 'power');
   const list = figures(c.results);
@@ -242,4 +260,16 @@ describe("the figure of where an electrolysis plant's electricity and heat go", 
   it('is not drawn in power mode, whose figure is the fuel\'s', () => {
     expect(figures(scaffoldCase('solid-oxide', 'power').results).some((d) => d.id === 'fig-electrolysis-energy-flow')).toBe(false);
   });
+});
+
+it('calls the electrolyser\'s path coordinate its conversion, not a fuel utilization, in every figure', () => {
+  // An electrolyser has no fuel to utilize: its path runs over the conversion of the feed (steam-conversion of the basis).
+  const c = scaffoldCase('pem', 'electrolysis');
+  for (const f of drawn(figures(c.results))) {
+    const spec = JSON.parse(f.spec.html) as ChartSpec;
+    const words = [f.caption, ...(spec.kind === 'line' ? spec.series.map((s) => s.label) : [])].join(' ');
+    expect(words, f.id).not.toMatch(/utilization/);
+  }
+  const composition = drawn(figures(c.results)).find((f) => f.id === 'fig-composition-path')!;
+  expect(composition.caption).toMatch(/design conversion marked/);
 });

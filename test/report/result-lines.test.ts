@@ -338,3 +338,23 @@ it('the Nernst lines of a PEM cell put in the water vapour the water balance giv
   // The quantity list says where the water's pressure comes from.
   expect(inlet.quantities.some((q) => q.origin.includes('vapour mole fraction of the water balance at this point'))).toBe(true);
 });
+
+// The fuel path's u is the utilization (or conversion) reached, the share of the feed's charge Q₁
+// passed, so the outlet is at u = U_f and carries U_f Q₁ = I (Faraday's law, methods note); the
+// method must not call u "a fraction of the fuel utilization", which would put the outlet at u = 1.
+describe.each([
+  ['solid-oxide', 'power'],
+  ['pem', 'electrolysis'],
+] as const)('the fuel path of the %s %s method', (technology, mode) => {
+  it('defines u as the utilization reached, the outlet at u = U_f', () => {
+    const c = scaffoldCase(technology, mode);
+    const points = c.results.fuelPath.points;
+    expect(points[points.length - 1]!.utilization).toBeCloseTo(c.results.electrochemistry.utilization, 12);
+    expect(c.results.electrochemistry.utilization * c.results.electrochemistry.chargeBasis_A).toBeCloseTo(c.results.electrochemistry.ionicCurrent_A, 6);
+    const step = methodSection(c.results, new EquationBook(), 5).find((s) => s.id === 'method-path')!;
+    const text = step.blocks.flatMap((b) => (b.kind === 'paragraph' ? b.paragraph.map((p) => p.text ?? p.math.html) : [])).join(' ');
+    expect(text).not.toMatch(/fraction/);
+    expect(text).toMatch(/has reached/);
+    expect(text).toMatch(mode === 'power' ? /u = U_\\mathrm\{f\}/ : /u = X/);
+  });
+});

@@ -113,29 +113,38 @@ function limitsAgainstTemperature(r: Results): Draft {
     series.push({ label, points: s.filter((p) => get(p) !== null).map((p) => [C(p.temperature_K), pct(get(p)!)]), style, dashed });
     columns.push(column(`${label} (%)`, label, '', s.map(get), pct));
   };
-  add('limit of the fuel, LHV', (p) => p.limitLhv, 0);
-  add('limit of the fuel, HHV', (p) => p.limitHhv, 2);
-  add('limit of hydrogen, HHV', (p) => p.hydrogenLimitHhv, 1, true);
-  add('Carnot, 1 − T₀/T', (p) => p.carnot, 3);
+  const power = r.technology.mode === 'power';
+  if (power) {
+    add('limit of the fuel, LHV', (p) => p.limitLhv, 0);
+    add('limit of the fuel, HHV', (p) => p.limitHhv, 2);
+    add('limit of hydrogen, HHV', (p) => p.hydrogenLimitHhv, 1, true);
+    add('Carnot, 1 − T₀/T', (p) => p.carnot, 3);
+  } else {
+    // An electrolyser is bounded the other way: it needs at least ΔG(T) of electric work (lib/plant/sweeps.ts).
+    add('reversible electrolyser, LHV', (p) => p.electrolysisLimitLhv ?? null, 0);
+    add('reversible electrolyser, HHV', (p) => p.electrolysisLimitHhv ?? null, 2);
+  }
   const td = C(r.conditions.temperature_K);
-  const eff = r.technology.mode === 'power' ? r.headline.electricalEfficiencyLhv : r.efficiency.electrolysisEfficiencyLhv;
-  if (eff !== null) series.push({ label: r.technology.mode === 'power' ? 'design point: net electrical efficiency (LHV)' : 'design point: electrolysis efficiency (LHV)', points: [[td, pct(eff)]], style: 0, marker: true });
+  const eff = power ? r.headline.electricalEfficiencyLhv : r.efficiency.electrolysisEfficiencyLhv;
+  if (eff !== null) series.push({ label: power ? 'design point: net electrical efficiency (LHV)' : 'design point: electrolysis efficiency over electricity alone (LHV)', points: [[td, pct(eff)]], style: 0, marker: true });
   const [lo, hi] = span(series.flatMap((x) => x.points.map((p) => p[1])));
-  series.push(vertical(td, Math.max(0, lo - 5), Math.min(105, hi + 5), 'operating temperature'));
+  series.push(vertical(td, Math.max(0, lo - 5), power ? Math.min(105, hi + 5) : hi + 5, 'operating temperature'));
   return {
     id: 'fig-efficiency-temperature',
     title: 'Efficiency limits against temperature',
-    caption: `Thermodynamic limits −ΔG(T)/heating value and the Carnot efficiency between T and ${formatNumber(C(r.conditions.ambientTemperature_K), 3)} °C, with the design point.`,
+    caption: power
+      ? `Thermodynamic limits −ΔG(T)/heating value and the Carnot efficiency between T and ${formatNumber(C(r.conditions.ambientTemperature_K), 3)} °C, with the design point.`
+      : 'The efficiency over electricity alone of a reversible electrolyser, the heating value of hydrogen over ΔG(T) of splitting water (no cell needs less electric work than ΔG; above 100 % where the heat TΔS comes from the surroundings), with the design point. The fuel-cell limit −ΔG/HHV and the Carnot efficiency bound no electrolyser and are not drawn.',
     spec: { kind: 'line', x: temperatureAxis(r), y: { title: 'Efficiency (%)' }, series },
     data: chartData('efficiency-temperature', columns),
     notes: [],
   };
 }
 
-function pathAxis(r: Results): { title: string; label: string; name: string } {
+function pathAxis(r: Results): { title: string; label: string; name: string; design: string } {
   return r.technology.mode === 'power'
-    ? { title: 'Fuel utilization (%)', label: 'fuel utilization (%)', name: 'Fuel utilization' }
-    : { title: 'Conversion of the feed (%)', label: 'conversion (%)', name: 'Conversion of the feed' };
+    ? { title: 'Fuel utilization (%)', label: 'fuel utilization (%)', name: 'Fuel utilization', design: 'design utilization' }
+    : { title: 'Conversion of the feed (%)', label: 'conversion (%)', name: 'Conversion of the feed', design: 'design conversion' };
 }
 
 function nernstAlongPath(r: Results): Draft {
@@ -148,7 +157,7 @@ function nernstAlongPath(r: Results): Draft {
     { label: 'charge-mean Nernst voltage Ē', points: [[0, r.headline.meanNernst_V], [uEnd, r.headline.meanNernst_V]], style: 2, dashed: true },
     { label: 'area-mean Nernst voltage Ē_A', points: [[0, r.electrochemistry.areaMeanNernst_V], [uEnd, r.electrochemistry.areaMeanNernst_V]], style: 3, dashed: true },
     { label: 'cell voltage', points: [[0, r.headline.cellVoltage_V], [uEnd, r.headline.cellVoltage_V]], style: 1 },
-    { label: 'design point: outlet at the design utilization', points: [[uEnd, r.headline.outletNernst_V]], style: 0, marker: true },
+    { label: `design point: outlet at the ${axis.design}`, points: [[uEnd, r.headline.outletNernst_V]], style: 0, marker: true },
   ];
   return {
     id: 'fig-nernst-path',
@@ -226,7 +235,7 @@ function compositionAlongPath(r: Results): Draft {
     ...air.map((k, i): LineSeries => ({ label: `${speciesText(k)}, air electrode`, points: p.map((x) => [x.utilization * 100, (x.airSide[k] ?? 0) * 100]), style: fuel.length + i, dashed: true })),
   ];
   const uEnd = r.electrochemistry.utilization * 100;
-  series.push(vertical(uEnd, 0, 100, 'design utilization'));
+  series.push(vertical(uEnd, 0, 100, axis.design));
   // On the page a species absent from a point reads 0; in the data it is an empty field, as the results hold no number for it.
   const side = (k: string, where: 'fuelSide' | 'airSide', label: string): ChartColumn => ({
     head: `${speciesText(k)} ${label} side (mol %)`,
@@ -237,7 +246,7 @@ function compositionAlongPath(r: Results): Draft {
   return {
     id: 'fig-composition-path',
     title: 'Gas composition along the fuel path',
-    caption: `Mole fractions of the species that reach 1 % (solid: fuel electrode${r.technology.fuelGasEquilibrium ? ', equilibrated' : ''}; dashed: air electrode), with the design utilization marked.`,
+    caption: `Mole fractions of the species that reach 1 % (solid: fuel electrode${r.technology.fuelGasEquilibrium ? ', equilibrated' : ''}; dashed: air electrode), with the ${axis.design} marked.`,
     spec: { kind: 'line', x: { title: axis.title, min: 0, max: uEnd }, y: { title: 'Mole fraction (%)', min: 0, max: 100 }, series },
     data: chartData('composition-path', columns),
     notes: [],
@@ -292,7 +301,7 @@ function polarisation(r: Results): Draft {
   return {
     id: 'fig-polarisation',
     title: 'Cell voltage against current density',
-    caption: `The uniform-voltage cell at the design utilization and area-specific resistance (${formatNumber(r.electrochemistry.areaSpecificResistance_ohm_m2 * 1e4)} Ω cm²), the voltage solved again at each current density; the dashed line is the area-mean driving voltage at the design point.`,
+    caption: `The uniform-voltage cell at the ${pathAxis(r).design} and area-specific resistance (${formatNumber(r.electrochemistry.areaSpecificResistance_ohm_m2 * 1e4)} Ω cm²), the voltage solved again at each current density; the dashed line is the area-mean driving voltage at the design point.`,
     spec: {
       kind: 'line',
       x: jAxis(),

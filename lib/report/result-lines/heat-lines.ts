@@ -1,6 +1,8 @@
 /**
  * The worked lines of the stack's heat: from the voltages (the reactions at the rate of the ionic
- * current, the electric work at the terminals) and from the enthalpy balance.
+ * current, the electric work at the terminals) and from the enthalpy balance. V_tn,eff is the
+ * enthalpy the reactions release per charge in power mode, (H_in − H_out)/I, and the enthalpy
+ * they absorb in electrolysis, (H_out − H_in)/I (equations.ts 'heat-voltage').
  */
 import type { Results } from '../../plant/results-schema.ts';
 import type { LineSpec, QuantitySpec } from '../calc-line.ts';
@@ -12,7 +14,7 @@ export function heatLines(r: Results): LineSpec[] {
   const heat = r.heat;
   const I: QuantitySpec = { name: 'I', value: h.totalCurrent_A, unit: 'A', origin: 'sum of the cell currents, above' };
   const Iion: QuantitySpec = { name: 'Iion', value: r.electrochemistry.ionicCurrent_A, unit: 'A', origin: 'ionic current, above' };
-  const Vtn: QuantitySpec = { name: 'Vtn', value: r.electrochemistry.effectiveThermoneutralVoltage_V, unit: 'V', origin: `enthalpy released by the reactions over the ${mixed ? 'ionic ' : ''}current` };
+  const Vtn: QuantitySpec = { name: 'Vtn', value: r.electrochemistry.effectiveThermoneutralVoltage_V, unit: 'V', origin: `enthalpy ${power ? 'released' : 'absorbed'} by the reactions over the ${mixed ? 'ionic ' : ''}current` };
   const V: QuantitySpec = { name: 'V', value: h.cellVoltage_V, unit: 'V', origin: 'cell voltage, above' };
   return [
     {

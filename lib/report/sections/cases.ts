@@ -16,7 +16,7 @@ import { getSpecies } from '../../thermo/species-data.ts';
 import { valueAt } from '../../plant/envelope.ts';
 import { technology } from '../../electrochem/technologies.ts';
 import { enthalpyFlowW, massFlowKgPerS } from '../../plant/streams.ts';
-import { calcLine, type LineSpec } from '../calc-line.ts';
+import { calcLine, withOrigins, type LineSpec } from '../calc-line.ts';
 import type { EquationBook } from '../equation-book.ts';
 import { formatNumber, uncapitalised } from '../format.ts';
 import { resultLines, type LineGroup } from '../result-lines.ts';
@@ -192,6 +192,26 @@ function asResults(r: Results, c: CaseResult): Results {
  */
 function installedSizing(r: Results, c: CaseResult): boolean {
   return c.sizing && c.ran && c.headline!.cells !== r.headline.cells;
+}
+
+/**
+ * Where a case's current density and resistance come from, by quantity name, for the lines of
+ * section 6 it reuses: there they are the design inputs of the sizing calculation; a case's
+ * current density is solved for its target, and its resistance is the sizing hardware's (given,
+ * or implied by the sizing case's given voltage), aged where the case degrades.
+ */
+function caseOrigins(r: Results, c: CaseResult): Record<string, string> {
+  const origins: Record<string, string> = { ASR: caseResistanceOrigin(r, c) };
+  if (solvedTarget(r, c) !== null) origins.j = "current density that meets the case's target on the installed cells (solved: the load line above)";
+  return origins;
+}
+
+function caseResistanceOrigin(r: Results, c: CaseResult): string {
+  const e = r.electrochemistry;
+  if (c.degradation?.of === 'cell-voltage') return "implied by the case's aged cell voltage (the degradation line above)";
+  const hardware = e.voltageSource === 'given' ? "the sizing case's, implied by its given cell voltage (section 6)" : "the sizing case's, design input";
+  const law = e.resistanceLaw ? `, at the case's temperature by its Arrhenius law` : '';
+  return `${hardware}${law}${c.degradation ? ', aged by the degradation line above' : ''}`;
 }
 
 /** What a case's load is met by solving for: a target of power or hydrogen, or none. */
@@ -564,7 +584,7 @@ function ownGoverningLines(r: Results, basis: DesignBasis, c: CaseResult, ids: R
   if (ids.has('heat-recovered')) lines.push(heatRecoveredLine(c));
   if (ids.has('heat-demand')) lines.push(heatDemandLine(c));
   // The sizing case's hot spot is a line of section 6 (its fuel path); a case's is at its inlet, whose Nernst voltage it reports.
-  if (ids.has('local-current-density') && (!c.sizing || installedSizing(r, c))) lines.push(forCase(c, localCurrentLine(asResults(r, c), book, c.headline!.inletNernst_V, 'the inlet'), 'local-current'));
+  if (ids.has('local-current-density') && (!c.sizing || installedSizing(r, c))) lines.push(forCase(c, withOrigins(localCurrentLine(asResults(r, c), book, c.headline!.inletNernst_V, 'the inlet'), caseOrigins(r, c)), 'local-current'));
   return lines.filter((l): l is LineSpec => l !== null);
 }
 
@@ -584,7 +604,7 @@ function caseLines(r: Results, basis: DesignBasis, c: CaseResult, book: Equation
   if (c.degradation?.of === 'cell-voltage') wanted.delete('cell-voltage');
   const groups = new Set([...CASE_GROUPS].filter((g) => g !== 'results-plant' || c.plant !== null));
   const governing = wanted.size
-    ? resultLines(asResults(r, c), caseBasis, book)
+    ? resultLines(asResults(r, c), caseBasis, book, caseOrigins(r, c))
         .flatMap((g) => g.lines.filter((l) => groups.has(g.id) || CASE_LINES.has(l.id)))
         .filter((l) => wanted.has(l.id))
         .map((l) => forCase(c, l))

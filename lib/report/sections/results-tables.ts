@@ -33,7 +33,13 @@ function electrochemistry(r: Results): Pair[] {
     quantity('Standard voltage E° at T (Nernst equation)', e.standardVoltage_V, 'V', formatQuantity(e.standardVoltage_V, 'V', 5)),
     quantity('Thermoneutral voltage of H₂ + ½O₂ → H₂O at T', e.thermoneutralVoltage_V, 'V', formatQuantity(e.thermoneutralVoltage_V, 'V', 5)),
     quantity('Effective thermoneutral voltage of the actual gases', e.effectiveThermoneutralVoltage_V, 'V', formatQuantity(e.effectiveThermoneutralVoltage_V, 'V', 5)),
-    quantity(power ? 'Effective mean Nernst voltage (transference number × Ē − crossover allowance)' : 'Mean Nernst voltage Ē', e.effectiveNernst_V, 'V', formatQuantity(e.effectiveNernst_V, 'V', 5)),
+    // effectiveNernst_V is t Ē_A ∓ ΔV_x of the area-mean Nernst voltage (Eq. 16: V = it ∓ j ASR), not of the charge mean Ē.
+    quantity(
+      power ? 'Area-mean driving voltage (transference number × area-mean Nernst voltage Ē_A − crossover allowance)' : 'Area-mean driving voltage (transference number × area-mean Nernst voltage Ē_A)',
+      e.effectiveNernst_V,
+      'V',
+      formatQuantity(e.effectiveNernst_V, 'V', 5),
+    ),
     {
       label: 'Area-specific resistance',
       text: `${formatQuantity(e.areaSpecificResistance_ohm_m2 * 1e4, 'Ω cm²')} (${e.voltageSource === 'given' ? 'implied by the given voltage' : 'given'})`,
