@@ -80,6 +80,7 @@ export const CASE_ROWS: readonly Shown[] = [
   { path: 'plant.power.duties[air-preheat].duty_W', si: 'W', label: 'Air preheat duty', factor: 1e-3, unit: 'kW' },
   { path: 'plant.power.heatRecovery.heatWithCondensation_W', si: 'W', label: 'Heat recovered from the exhaust', factor: 1e-3, unit: 'kW' },
   { path: 'plant.power.heatRecovery.deliveredHeat_W', si: 'W', label: 'Heat delivered', factor: 1e-3, unit: 'kW' },
+  { path: 'plant.power.blower.power_W', si: 'W', label: 'Air blower power', factor: 1e-3, unit: 'kW', mode: 'power' },
   { path: 'plant.electrolysis.compression.power_W', si: 'W', label: 'Hydrogen compressor power', factor: 1e-3, unit: 'kW', mode: 'electrolysis' },
   { path: 'degradation.fraction', si: '', label: 'Degradation r t', factor: 100, unit: '%' },
 ];
@@ -546,6 +547,7 @@ const GOVERNING_LINES: Readonly<Record<string, readonly string[]>> = {
   'air-preheat': ['air-preheat'],
   'oxidiser-temperature': ['oxidiser-enthalpy'],
   'compressor-power': ['compressor-power'],
+  'blower-power': ['blower-power'],
 };
 
 /** The groups of section 6 whose lines read only the case's own sections (not the sizing case's fuel path). */
