@@ -170,6 +170,29 @@ describe('findings and located errors of the plant', () => {
     expect(balanceOf('solid-oxide', FULL_PLANT).plant.findings.map((f) => f.code)).not.toContain('air-feed-above-saturation');
   });
 
+  it('names a supersaturated air supply as such in every plant, with or without heat recovery, also below 0 °C', () => {
+    // The carbonate demo's cathode gas (11.8 % H2O at 1.07 bar: 12.6 kPa) is "supplied" at the
+    // 10 °C ambient, where water's saturation pressure is 1.228 kPa (IAPWS-IF97, the NIST steam
+    // tables give 1.2282 kPa at 10 °C). The PEM backup's humidified air (dew point 50 °C: its
+    // vapour pressure is p_s(50 °C) = 12.35 kPa, NIST steam tables) is "supplied" at the -5 °C
+    // design ambient, where saturation over water or ice lies below p_s(0 °C) = 0.6112 kPa
+    // (IAPWS-IF97; p_s rises with T). Neither plant has heat recovery, so no finding is raised;
+    // the stream table showed both states as a plain "air supply", which they cannot be.
+    const supplyOf = (id: string) => {
+      const loaded = loadBasisFile(`projects/${id}/basis.yaml`);
+      if (!loaded.ok) throw new Error(`${id} does not load`);
+      return calculate(loaded.basis).plant.streams.find((s) => s.id === 'air-supply')!;
+    };
+    for (const id of ['corrin-beck-mcfc-biogas', 'hob-tor-pem-backup']) {
+      const supply = supplyOf(id);
+      const waterPa = supply.moleFractions.H2O! * supply.pressure_bar * 1e5;
+      expect(waterPa, id).toBeGreaterThan(id === 'hob-tor-pem-backup' ? 611.2 : 1228.2);
+      expect(supply.name, id).toContain('supersaturated');
+    }
+    // The CHP's air (70 % humidity at 15 °C) is below saturation at its 15 °C supply.
+    expect(supplyOf('thistlemere-sofc-chp').name).toBe('air supply');
+  });
+
   it('refuses a DC bus window no string fits, at its field', () => {
     // 60 cells of ~0.8 V make a ~48 V stack: 13 stacks give ~624 V, above a 600-610 V window.
     const basis = basisFrom('solid-oxide', 'power', { 'plant.electrical': { 'cells-per-stack': 60, 'dc-bus-window': { from: '600 V', to: '610 V' } } });
