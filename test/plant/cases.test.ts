@@ -525,6 +525,31 @@ describe('the envelope', () => {
     }
   });
 
+  it("sizes the electrolyser's heaters and coolers by the largest heat any case supplies or removes", () => {
+    // Heaters and the cooling-water system are rated for the largest duty of any case (common
+    // practice, no source). At turndown the stack runs below the thermoneutral voltage and the
+    // heat it needs is supplied on top of the make-up water's heating: 31.2 kW against 22.65 kW
+    // at the rated point (recomputed from the cases' duty tables: 3.39 kW of make-up heating and
+    // 27.83 kW to the stack), so turndown, not the rated case, governs the heaters; the end-of-life
+    // stack releases the most heat to the loop (697.7 kW of coolers against 452.5 kW).
+    const rows = Object.fromEntries(kestrelford.envelope!.map((e) => [e.id, e]));
+    const ran = kestrelford.cases!.filter((c) => c.ran && c.plant?.electrolysis);
+    const most = (f: (c: CaseResult) => number) => ran.reduce((a, c) => (f(c) > f(a) ? c : a));
+    const heat = most((c) => c.plant!.electrolysis!.heatSupplied_W);
+    const cool = most((c) => c.plant!.electrolysis!.coolers_W);
+    expect(rows['heat-supplied']).toMatchObject({ value: heat.plant!.electrolysis!.heatSupplied_W, case: 'turndown' });
+    expect(rows['coolers']).toMatchObject({ value: cool.plant!.electrolysis!.coolers_W, case: 'end-of-life' });
+    // Each is the sum of its parts in the case's duty table: the positive duties and the stack's supply; the negative duties.
+    for (const c of ran) {
+      const x = c.plant!.electrolysis!;
+      const positive = x.duties.reduce((a, d) => a + Math.max(0, d.duty_W), 0);
+      const negative = x.duties.reduce((a, d) => a + Math.max(0, -d.duty_W), 0);
+      expect(x.heatSupplied_W, c.id).toBeCloseTo(positive + x.stackHeatSupplied_W, 6);
+      expect(x.coolers_W, c.id).toBeCloseTo(negative, 6);
+    }
+    expect(rows['heat-supplied']!.value).toBeGreaterThan(rows['heat-supplied']!.sizingValue!);
+  });
+
   it('every quantity of lib/plant/data/envelope.yaml names a number of a case\'s results (checked at load)', () => {
     const ids = ENVELOPE_QUANTITIES.map((q) => q.id);
     for (const wanted of ['air-flow', 'fuel-flow', 'water-flow', 'stack-heat', 'dc-current', 'dc-voltage-highest', 'dc-voltage-lowest', 'carbon-margin', 'cell-voltage-lowest', 'hydrogen-most', 'hydrogen-least']) expect(ids).toContain(wanted);
