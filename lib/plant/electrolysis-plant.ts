@@ -15,9 +15,10 @@
  *    Without it no heat is recovered from the products to the feeds.
  *  - Stack: Q_stack = H_in(fed) − H_out(T_stack) + P_DC (heat.ts, "as fed"); the heat lost to ambient
  *    Q_loss = f_loss · P_AC is taken from it: Q_net = Q_stack − Q_loss. Where Q_net < 0 a water loop's
- *    cooler first removes that much less (it returns the water at the inlet temperature), and the
- *    rest, −Q_net, is supplied to the stack (below thermoneutral); where Q_net > 0 the stack's cooling
- *    removes it.
+ *    cooler first removes that much less, so that the water it returns brings the stack the heat it
+ *    lacks (the cooler then leaves it at T_r, H_back(T_r) = H_back(T_stack) + Q_cooler, above the
+ *    inlet temperature, and says so), and the rest, −Q_net, is supplied to the stack (below
+ *    thermoneutral); where Q_net > 0 the stack's cooling removes it.
  *  - Heat supplied Q_sup = Σ (positive duties) + stack supply: by electric heaters (counted in the
  *    electricity) or from outside the plant, as plant.heat-supply says.
  *  - Hydrogen compression (optional): hydrogen-compression.ts.
@@ -28,6 +29,7 @@
  *    + H_dryer + Q_coolers + Q_stack,removed + Q_loss, its residual over the electricity below 1e-9.
  */
 import { getSpecies } from '../thermo/species-data.ts';
+import { temperatureAtEnthalpyK } from '../thermo/mixture-temperature.ts';
 import { mixtureEnthalpyJ } from '../thermo/mixture.ts';
 import type { PlantInput } from '../basis/types.ts';
 import type { DesignPoint } from './design-point.ts';
@@ -184,9 +186,10 @@ function feedRecuperator(point: DesignPoint, plant: PlantInput, feeds: Electroly
 
 /**
  * The stack heat: what the losses leave of it is removed by the stack's cooling, or, below zero,
- * supplied. A water loop returns its water at the inlet temperature: where the stack would need
- * heat to warm it, the loop's cooler removes that much less (it takes out only what the stack put
- * in); that loop duty is changed in place.
+ * supplied. Where the stack would need heat to warm the loop's water, the loop's cooler removes
+ * that much less (it takes out only what the stack put in), so the water it returns is warmer than
+ * the inlet: that loop duty, its end temperature and its name are changed in place (the module
+ * comment).
  */
 function stackHeatBalance(point: DesignPoint, plant: PlantInput, duties: PlantDuty[]) {
   const heatLossW = plant.heatLossFraction * point.netPowerW;
@@ -195,10 +198,18 @@ function stackHeatBalance(point: DesignPoint, plant: PlantInput, duties: PlantDu
   const loop = duties.find((d) => d.id.startsWith('loop-cooling'));
   if (loop && stackNet < 0) {
     const shift = Math.min(-stackNet, -loop.dutyW);
-    loop.dutyW += shift;
+    if (shift > 0) coolLess(loop, shift);
     stackNet += shift;
   }
   return { heatLossW, stackHeatW, stackHeatSuppliedW: Math.max(0, -stackNet), stackHeatRemovedW: Math.max(0, stackNet) };
+}
+
+/** The loop cooler removing `shiftW` less: the temperature it now returns the water at, from the returned water's enthalpy, and a name that says why. */
+function coolLess(loop: PlantDuty, shiftW: number): void {
+  const back = { 'H2O(L)': loop.dutyW / (H({ 'H2O(L)': 1 }, loop.toK) - H({ 'H2O(L)': 1 }, loop.fromK)) };
+  loop.dutyW += shiftW;
+  loop.toK = temperatureAtEnthalpyK(back, H(back, loop.fromK) + loop.dutyW, loop.toK);
+  loop.name = `${loop.name}, cooling ${(shiftW / 1000).toPrecision(4)} kW less: the water it returns warmer than the inlet brings the stack the heat it lacks with its losses`;
 }
 
 /** The electricity per kilogram of hydrogen and the system efficiencies (the module comment). */

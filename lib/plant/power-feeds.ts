@@ -163,25 +163,43 @@ function airBlower(point: DesignPoint, plant: PlantInput, airTotal: Record<strin
 }
 
 /**
- * Water vapour above saturation at the air's supply state cannot reach the plant as vapour (IF97
- * p_s(T), from 0 °C up); it matters to the numbers where the heat recovery condenses it.
+ * The vapour pressure of the air feed at its supply state, and the most saturation allows there,
+ * where the first exceeds the second (else null): such a feed cannot reach the plant as vapour.
+ * The saturation pressure is IF97's p_s(T) from 0 °C up; below it, p_s(0 °C) bounds the vapour
+ * pressure over water or ice from above (it rises with T), so a partial pressure above that bound
+ * is above saturation at the colder supply temperature too.
  */
-function airSaturationFinding(plant: PlantInput, airTotal: Record<string, number>, supplyBar: number, findings: Finding[]): void {
+function supersaturation(plant: PlantInput, airTotal: Record<string, number>, supplyBar: number): { waterPa: number; saturationPa: number; belowZero: boolean } | null {
   const tAir = plant.airSupplyTemperatureK;
   const waterPa = ((airTotal.H2O ?? 0) / totalFlow(airTotal)) * supplyBar * PA_PER_BAR;
   const { lowK, highK } = saturationRange();
-  if (plant.heatRecovery && waterPa > 0 && tAir >= lowK && tAir < highK && waterPa > waterSaturationPressurePa(tAir)) {
-    findings.push(
-      finding(
-        'air-feed-above-saturation',
-        'warning',
-        'streams.air-electrode.composition',
-        `the air-electrode feed holds more water vapour (${(waterPa / 1000).toPrecision(3)} kPa) than saturation allows at its supply temperature (${(waterSaturationPressurePa(tAir) / 1000).toPrecision(3)} kPa): it cannot be a feed from outside as stated (a gas recycled within the plant, such as a carbonate cathode's burnt anode gas, is not modelled as such), and its water condensing in the heat recovery overstates the heat delivered`,
-        ['plant.feed-temperatures.air'],
-      ),
-    );
-  }
+  if (!(waterPa > 0) || tAir >= highK) return null;
+  const saturationPa = waterSaturationPressurePa(Math.max(tAir, lowK));
+  return waterPa > saturationPa ? { waterPa, saturationPa, belowZero: tAir < lowK } : null;
 }
+
+/**
+ * A supersaturated air feed (supersaturation above) matters to the numbers where the heat recovery
+ * condenses its water: a finding then. Without heat recovery the stream table says it in the
+ * supply stream's name (airSupply).
+ */
+function airSaturationFinding(plant: PlantInput, excess: NonNullable<ReturnType<typeof supersaturation>>, findings: Finding[]): void {
+  if (!plant.heatRecovery) return;
+  const kPa = (x: number) => (x / 1000).toPrecision(3);
+  const allowed = excess.belowZero ? `less than ${kPa(excess.saturationPa)} kPa, the saturation pressure at 0 °C, below which it lies` : `${kPa(excess.saturationPa)} kPa`;
+  findings.push(
+    finding(
+      'air-feed-above-saturation',
+      'warning',
+      'streams.air-electrode.composition',
+      `the air-electrode feed holds more water vapour (${kPa(excess.waterPa)} kPa) than saturation allows at its supply temperature (${allowed}): it cannot be a feed from outside as stated (a gas recycled within the plant, such as a carbonate cathode's burnt anode gas, is not modelled as such), and its water condensing in the heat recovery overstates the heat delivered`,
+      ['plant.feed-temperatures.air'],
+    ),
+  );
+}
+
+/** The name of an air supply whose water could not be vapour at its supply state: what the stream table shows is not a state the air can be in. */
+const SUPERSATURATED_SUPPLY = 'air supply (supersaturated: its humidifier or recycle is not modelled)';
 
 /** The air side up to the air-electrode inlet: stack air and any fresh oxidiser air, the blower, the preheat (the module comment). */
 export function airSupply(point: DesignPoint, plant: PlantInput, offGas: Record<string, number>, sheet: PlantSheet, findings: Finding[]): AirFeeds {
@@ -197,8 +215,9 @@ export function airSupply(point: DesignPoint, plant: PlantInput, offGas: Record<
   const blower = airBlower(point, plant, airTotal, findings);
   const tBlown = blower ? blower.outletTemperatureK : tAir;
   const supplyBar = plant.airBlower?.inletPressureBar ?? pAir;
-  airSaturationFinding(plant, airTotal, supplyBar, findings);
-  sheet.add('air-supply', 'air supply', tAir, supplyBar, airTotal);
+  const excess = supersaturation(plant, airTotal, supplyBar);
+  if (excess) airSaturationFinding(plant, excess, findings);
+  sheet.add('air-supply', excess ? SUPERSATURATED_SUPPLY : 'air supply', tAir, supplyBar, airTotal);
   if (blower) sheet.add('blower-outlet', 'air after the blower', tBlown, pAir, airTotal);
   sheet.duty('air-preheat', 'air heated to the air-electrode inlet', H(stackAir, inputs.airInletTemperatureK) - H(stackAir, tBlown), tBlown, inputs.airInletTemperatureK);
   sheet.add('air-inlet', 'air-electrode inlet', inputs.airInletTemperatureK, pAir, stackAir);

@@ -313,7 +313,7 @@ export function loadProjectPages(loader: ProjectLoader, id: string, problems: Si
   const last = issued[issued.length - 1];
   const draftRevision = nextRevision(last?.revision ?? null);
   const history = detached(projectHistory(id, issued, { revision: draftRevision, basis: loaded.basis, source: Buffer.from(bytes).toString('utf8'), results, path: draftPath }, options.changeSummary ?? compareWith));
-  const date = detached(draftDate(loaded.basis, options.env));
+  const date = detached(draftDate(loaded.basis, options.env, last?.manifest.issuedOn ?? null));
   const draft: RevisionContext = detached({
     kind: 'draft',
     revision: draftRevision,

@@ -1,8 +1,10 @@
 /**
  * The date a working draft is shown with, so that two builds of the same inputs give the same
  * bytes: SOURCE_DATE_EPOCH (seconds since 1970, the reproducible-builds convention) when set,
- * else the latest sign-off date of the basis, else none. The clock is never read. Issued
- * revisions always show their issue date.
+ * else the latest sign-off date of the basis or the issue date of the revision issued last,
+ * whichever is later (a draft of the next revision is never dated before the revision it follows:
+ * the sign-offs of a basis that kept the last revision's dates predate it), else none. The clock
+ * is never read. Issued revisions always show their issue date.
  */
 import type { DesignBasis } from '../basis/types.ts';
 import { UserError } from '../core/errors.ts';
@@ -15,11 +17,10 @@ function sourceDateEpoch(env: NodeJS.ProcessEnv = process.env): string | null {
   return new Date(Number(raw) * 1000).toISOString().slice(0, 10);
 }
 
-export function draftDate(basis: DesignBasis, env: NodeJS.ProcessEnv = process.env): string | null {
+export function draftDate(basis: DesignBasis, env: NodeJS.ProcessEnv = process.env, lastIssuedOn: string | null = null): string | null {
   const epoch = sourceDateEpoch(env);
   if (epoch) return epoch;
-  const dates = Object.values(basis.document.signOff)
-    .map((s) => s?.date)
+  const dates = [...Object.values(basis.document.signOff).map((s) => s?.date), lastIssuedOn]
     .filter((d): d is string => typeof d === 'string')
     .sort();
   return dates[dates.length - 1] ?? null;

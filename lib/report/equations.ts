@@ -616,6 +616,14 @@ function caseMassEquations(r: Results, power: boolean): EquationEntry[] {
       }),
     );
   }
+  if (!power && governed('heat-supplied', 'coolers')) {
+    out.push(
+      entry('case-plant-heat', {
+        supplied: { lhs: sym('Q_\\mathrm{sup}'), symbols: { Qf: sym('Q_\\mathrm{feeds}'), Qs: sym('Q_\\mathrm{stack}') }, rhs: (q) => `${q.Qf} + ${q.Qs}` },
+        removed: { lhs: sym('Q_\\mathrm{cool}'), symbols: { Ql: sym('Q_\\mathrm{loop}'), Qo: sym('Q_\\mathrm{other}') }, rhs: (q) => `${q.Ql} + ${q.Qo}` },
+      }),
+    );
+  }
   if (!power && governed('heat-demand')) {
     out.push(
       entry('case-heat-demand', {

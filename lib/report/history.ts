@@ -8,7 +8,7 @@
 import type { DesignBasis } from '../basis/types.ts';
 import type { ComparableResults } from '../plant/comparable-results.ts';
 import { compareRevisions, type IssueStatus } from '../basis/revisions.ts';
-import type { SignatureFacts } from './revision.ts';
+import { draftSignOffDate, type SignatureFacts } from './revision.ts';
 
 /**
  * What the history shows of an issued revision, as its manifest records it (lib/archive/layout.ts
@@ -80,9 +80,10 @@ function signatory(list: IssuedFacts['signOff'], role: Role): string {
   return s ? `${s.name}${s.date ? `, ${s.date}` : ''}` : '';
 }
 
-function draftSignatory(basis: DesignBasis, role: Role): string {
+function draftSignatory(basis: DesignBasis, role: Role, last: IssuedRevisionRecord | undefined): string {
   const s = basis.document.signOff[role];
-  return s ? `${s.name}${s.date ? `, ${s.date}` : ''}` : '';
+  const lastIssued = last ? { revision: last.revision, status: last.manifest.status, issuedOn: last.manifest.issuedOn } : null;
+  return s ? `${s.name}${s.date ? `, ${draftSignOffDate(s.date, lastIssued)}` : ''}` : '';
 }
 
 /** Issued revisions in issue order, then the draft; superseded marks every issued one but the last. */
@@ -111,9 +112,9 @@ export function revisionHistory(input: { issued: readonly IssuedRevisionRecord[]
       status: null,
       date: '',
       note: '',
-      prepared: draftSignatory(d.basis, 'prepared'),
-      checked: draftSignatory(d.basis, 'checked'),
-      approved: draftSignatory(d.basis, 'approved'),
+      prepared: draftSignatory(d.basis, 'prepared', last),
+      checked: draftSignatory(d.basis, 'checked', last),
+      approved: draftSignatory(d.basis, 'approved', last),
       signatures: [],
       superseded: false,
       path: d.path,

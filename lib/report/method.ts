@@ -423,6 +423,11 @@ function cases(step: Step, r: Results, table: ReadonlyMap<string, EquationEntry>
   if (table.has('case-heat-demand')) {
     step.text('Below the thermoneutral voltage an electrolysis stack takes heat: the heat to supply is the enthalpy balance of the stack with its sign reversed,').eq('case-heat-demand');
   }
+  if (table.has('case-plant-heat')) {
+    step
+      .text("The heat a case supplies is what its feeds' heaters give (the positive duties of its duty table) and, below the thermoneutral voltage, what its stack takes with its losses; the heat its coolers remove is the sum of its negative duties, the water-loop cooler and the others (product cooler, compressor inter- and after-coolers):")
+      .eq('case-plant-heat');
+  }
   if (table.has('degradation')) {
     step
       .text('At the end of life the cell voltage (at the same current density) or the area-specific resistance has changed in proportion to the operating time $t$ at the stated rate $r$, a linear law (common practice, no source):')

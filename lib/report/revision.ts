@@ -99,3 +99,12 @@ export function revisionDate(revision: RevisionContext): string | null {
 export function shortFingerprint(fingerprint: string): string {
   return fingerprint.slice(0, 16).replace(/(.{4})(?=.)/g, '$1 ');
 }
+
+/**
+ * A draft's sign-off date as the page writes it: a date before the revision issued last was
+ * issued belongs to that revision's sign-off, kept in the basis, not to this draft, and says so
+ * (the issue refuses it, or notes it, when the basis changed since: lib/archive/issue-rules.ts).
+ */
+export function draftSignOffDate(date: string, lastIssued: IssuedSummary | null): string {
+  return lastIssued && date && date < lastIssued.issuedOn ? `${date} (before revision ${lastIssued.revision} was issued, ${lastIssued.issuedOn})` : date;
+}

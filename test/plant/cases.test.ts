@@ -502,6 +502,54 @@ describe('the envelope', () => {
     expect(envelopeOf([at('a', null, true, true)], [quantity])).toEqual([]);
   });
 
+  it("sizes the CHP's air blower drive by the largest blower power of any case (end of life), checked by the isentropic-compression formula", () => {
+    // The blower's drive is rated for the largest power any case asks of it, not only the
+    // largest air flow (the envelope's provenance: common practice, no source). Independent
+    // check of each case's power: one adiabatic stage of an ideal gas of constant cp,
+    // P = ṁ cp T1 [(p2/p1)^(R/cp) − 1] / η_s (Çengel and Boles, Thermodynamics, ch. 7), with dry
+    // air's cp = 1.005 kJ/(kg K) and R = 0.2870 kJ/(kg K) at 300 K (Çengel and Boles, Table A-2).
+    // Tolerance 1.5 %: the air holds 1.1 % water vapour (cp and R of the mixture a little higher)
+    // and cp(T) varies by less than 0.1 % over the 10 K the air warms; the formula gives 0.42 %
+    // below the code in every case.
+    const row = thistlemere.envelope!.find((e) => e.id === 'blower-power');
+    expect(row, 'blower-power in the envelope').toBeDefined();
+    const ran = thistlemere.cases!.filter((c) => c.ran && c.plant?.power?.blower);
+    const powers = ran.map((c) => c.plant!.power!.blower!.power_W);
+    expect(row!.value).toBe(Math.max(...powers));
+    expect(row!.case).toBe('end-of-life');
+    for (const c of ran) {
+      const b = c.plant!.power!.blower!;
+      const massKgPerS = c.supply!.air_kg_per_h! / 3600;
+      const formula = (massKgPerS * 1005 * b.inletTemperature_K * ((b.outletPressure_bar / b.inletPressure_bar) ** (287.0 / 1005) - 1)) / b.isentropicEfficiency;
+      expect(Math.abs(b.power_W / formula - 1), c.id).toBeLessThan(0.015);
+    }
+  });
+
+  it("sizes the electrolyser's heaters and coolers by the largest heat any case supplies or removes", () => {
+    // Heaters and the cooling-water system are rated for the largest duty of any case (common
+    // practice, no source). At turndown the stack runs below the thermoneutral voltage and the
+    // heat it needs is supplied on top of the make-up water's heating: 31.2 kW against 22.65 kW
+    // at the rated point (recomputed from the cases' duty tables: 3.39 kW of make-up heating and
+    // 27.83 kW to the stack), so turndown, not the rated case, governs the heaters; the end-of-life
+    // stack releases the most heat to the loop (697.7 kW of coolers against 452.5 kW).
+    const rows = Object.fromEntries(kestrelford.envelope!.map((e) => [e.id, e]));
+    const ran = kestrelford.cases!.filter((c) => c.ran && c.plant?.electrolysis);
+    const most = (f: (c: CaseResult) => number) => ran.reduce((a, c) => (f(c) > f(a) ? c : a));
+    const heat = most((c) => c.plant!.electrolysis!.heatSupplied_W);
+    const cool = most((c) => c.plant!.electrolysis!.coolers_W);
+    expect(rows['heat-supplied']).toMatchObject({ value: heat.plant!.electrolysis!.heatSupplied_W, case: 'turndown' });
+    expect(rows['coolers']).toMatchObject({ value: cool.plant!.electrolysis!.coolers_W, case: 'end-of-life' });
+    // Each is the sum of its parts in the case's duty table: the positive duties and the stack's supply; the negative duties.
+    for (const c of ran) {
+      const x = c.plant!.electrolysis!;
+      const positive = x.duties.reduce((a, d) => a + Math.max(0, d.duty_W), 0);
+      const negative = x.duties.reduce((a, d) => a + Math.max(0, -d.duty_W), 0);
+      expect(x.heatSupplied_W, c.id).toBeCloseTo(positive + x.stackHeatSupplied_W, 6);
+      expect(x.coolers_W, c.id).toBeCloseTo(negative, 6);
+    }
+    expect(rows['heat-supplied']!.value).toBeGreaterThan(rows['heat-supplied']!.sizingValue!);
+  });
+
   it('every quantity of lib/plant/data/envelope.yaml names a number of a case\'s results (checked at load)', () => {
     const ids = ENVELOPE_QUANTITIES.map((q) => q.id);
     for (const wanted of ['air-flow', 'fuel-flow', 'water-flow', 'stack-heat', 'dc-current', 'dc-voltage-highest', 'dc-voltage-lowest', 'carbon-margin', 'cell-voltage-lowest', 'hydrogen-most', 'hydrogen-least']) expect(ids).toContain(wanted);

@@ -170,6 +170,53 @@ describe('findings and located errors of the plant', () => {
     expect(balanceOf('solid-oxide', FULL_PLANT).plant.findings.map((f) => f.code)).not.toContain('air-feed-above-saturation');
   });
 
+  it('names a supersaturated air supply as such in every plant, with or without heat recovery, also below 0 °C', () => {
+    // The carbonate demo's cathode gas (11.8 % H2O at 1.07 bar: 12.6 kPa) is "supplied" at the
+    // 10 °C ambient, where water's saturation pressure is 1.228 kPa (IAPWS-IF97, the NIST steam
+    // tables give 1.2282 kPa at 10 °C). The PEM backup's humidified air (dew point 50 °C: its
+    // vapour pressure is p_s(50 °C) = 12.35 kPa, NIST steam tables) is "supplied" at the -5 °C
+    // design ambient, where saturation over water or ice lies below p_s(0 °C) = 0.6112 kPa
+    // (IAPWS-IF97; p_s rises with T). Neither plant has heat recovery, so no finding is raised;
+    // the stream table showed both states as a plain "air supply", which they cannot be.
+    const supplyOf = (id: string) => {
+      const loaded = loadBasisFile(`projects/${id}/basis.yaml`);
+      if (!loaded.ok) throw new Error(`${id} does not load`);
+      return calculate(loaded.basis).plant.streams.find((s) => s.id === 'air-supply')!;
+    };
+    for (const id of ['corrin-beck-mcfc-biogas', 'hob-tor-pem-backup']) {
+      const supply = supplyOf(id);
+      const waterPa = supply.moleFractions.H2O! * supply.pressure_bar * 1e5;
+      expect(waterPa, id).toBeGreaterThan(id === 'hob-tor-pem-backup' ? 611.2 : 1228.2);
+      expect(supply.name, id).toContain('supersaturated');
+    }
+    // The CHP's air (70 % humidity at 15 °C) is below saturation at its 15 °C supply.
+    expect(supplyOf('thistlemere-sofc-chp').name).toBe('air supply');
+  });
+
+  it("states the electrolyser's loop cooler with the temperature it returns the water at: its duty is the returned water's ṁ cp ΔT", () => {
+    // Where the stack lacks heat (with its losses) the loop cooler removes that much less, so the
+    // water it returns is warmer than the stack inlet. The duty row said 65 → 58 °C for 404.1 kW
+    // at the rated point, while 815.5 mol/s of water cooled by 7 K gives 430.2 kW: the row's
+    // temperatures and its duty disagreed by the 26.1 kW the stack lacked. Check of every case:
+    // |Q| = ṅ M cp (T_from − T_to) with the returned flow of the case's stream table and cp of
+    // liquid water 4.185 kJ/(kg K) at 60 °C (Çengel and Boles, Thermodynamics, Table A-3);
+    // tolerance 0.5 %: cp varies by less than 0.1 % between 58 and 65 °C.
+    const loaded = loadBasisFile('projects/kestrelford-pem-electrolyser/basis.yaml');
+    if (!loaded.ok) throw new Error('the demo basis is invalid');
+    const r = calculate(loaded.basis);
+    for (const c of r.cases.filter((k) => k.ran)) {
+      const loop = c.plant!.electrolysis!.duties.find((d) => d.id === 'loop-cooling-air')!;
+      const back = c.plant!.streams.find((s) => s.id === 'loop-return')!;
+      const handW = back.flow_mol_per_s * 0.018015 * 4185 * (loop.from_K - loop.to_K);
+      expect(Math.abs(-loop.duty_W - handW), c.id).toBeLessThanOrEqual(0.005 * handW + 1);
+      // The water returns no colder than the stack inlet (58 °C) and no hotter than the stack (65 °C).
+      expect(loop.to_K, c.id).toBeGreaterThanOrEqual(331.15 - 1e-9);
+      expect(loop.to_K, c.id).toBeLessThanOrEqual(338.15 + 1e-9);
+    }
+    const rated = r.cases.find((k) => k.id === 'rated')!.plant!.electrolysis!.duties.find((d) => d.id === 'loop-cooling-air')!;
+    expect(rated.name).toContain('cooling 26.08 kW less');
+  });
+
   it('refuses a DC bus window no string fits, at its field', () => {
     // 60 cells of ~0.8 V make a ~48 V stack: 13 stacks give ~624 V, above a 600-610 V window.
     const basis = basisFrom('solid-oxide', 'power', { 'plant.electrical': { 'cells-per-stack': 60, 'dc-bus-window': { from: '600 V', to: '610 V' } } });

@@ -59,6 +59,11 @@ function formula(id: string, n: Record<string, number>, power: boolean): number 
   if (id.endsWith('-hydrogen')) return n.I! / (2 * n.F!);
   if (id.endsWith('-heat-balance')) return n.Hin! - n.Hout! + n.W!;
   if (id.endsWith('-carbon-margin')) return n.sc! - Math.max(n.st!, n.pr ?? -Infinity);
+  // One adiabatic stage: P = ṅ Δh_s / η_s, kW with Δh_s in kJ/mol.
+  if (id.endsWith('-blower-power')) return (n.n! * n.hs!) / n.eta!;
+  // The heat supplied: the feeds' heaters and the stack's supply; removed: the loop cooler and the others.
+  if (id.endsWith('-heat-supplied')) return n.Qf! + n.Qs!;
+  if (id.endsWith('-coolers')) return n.Ql! + n.Qo!;
   throw new Error(`no formula for ${id}`);
 }
 
@@ -90,6 +95,9 @@ function resultOf(id: string, c: CaseResult): number {
   if (id.endsWith('-heat-recovered')) return c.plant!.power!.heatRecovery!.heatWithCondensation_W / 1000;
   if (id.endsWith('-heat-demand')) return c.heat!.heatDemand_W! / 1000;
   if (id.endsWith('-local-current')) return h.maxLocalCurrentDensity_A_per_m2 / 1e4;
+  if (id.endsWith('-blower-power')) return c.plant!.power!.blower!.power_W / 1000;
+  if (id.endsWith('-heat-supplied')) return c.plant!.electrolysis!.heatSupplied_W / 1000;
+  if (id.endsWith('-coolers')) return c.plant!.electrolysis!.coolers_W / 1000;
   return NaN;
 }
 
@@ -125,6 +133,9 @@ const ROW_LINES: Record<string, { lines: string[]; factor: number }> = {
   'heat-recovered': { lines: ['heat-recovered'], factor: 1e-3 },
   'heat-delivered': { lines: ['delivered-heat'], factor: 1e-3 },
   'compressor-power': { lines: ['compressor-power'], factor: 1e-3 },
+  'blower-power': { lines: ['blower-power'], factor: 1e-3 },
+  'heat-supplied': { lines: ['heat-supplied'], factor: 1e-3 },
+  coolers: { lines: ['coolers'], factor: 1e-3 },
 };
 
 describe.each(['thistlemere-sofc-chp', 'kestrelford-pem-electrolyser', 'corrin-beck-mcfc-biogas', 'hob-tor-pem-backup'])('the envelope of %s', (id) => {

@@ -18,7 +18,8 @@ export const buildCommand: Command = {
   details:
     'Renders each projects/<id>/basis.yaml as its working draft, each issued revision as its own page, and the\n' +
     'portfolio index, into a fresh folder beside site/; site/ (a link) is switched to it only when everything was written.\n' +
-    'Pages are reproducible: the draft date is SOURCE_DATE_EPOCH when set, else the latest sign-off date.\n' +
+    'Pages are reproducible: the draft date is SOURCE_DATE_EPOCH when set, else the latest sign-off date or the last\n' +
+    'issue date, whichever is later.\n' +
     'Each draft is also printed beside its page, to site/projects/<id>/document.pdf (DIR/projects/<id>/document.pdf\n' +
     'with --out), when Chromium is found (the build says so when it is not). Results and PDFs of unchanged projects\n' +
     'come from .cellbasis-cache/.',

@@ -80,6 +80,9 @@ export const CASE_ROWS: readonly Shown[] = [
   { path: 'plant.power.duties[air-preheat].duty_W', si: 'W', label: 'Air preheat duty', factor: 1e-3, unit: 'kW' },
   { path: 'plant.power.heatRecovery.heatWithCondensation_W', si: 'W', label: 'Heat recovered from the exhaust', factor: 1e-3, unit: 'kW' },
   { path: 'plant.power.heatRecovery.deliveredHeat_W', si: 'W', label: 'Heat delivered', factor: 1e-3, unit: 'kW' },
+  { path: 'plant.power.blower.power_W', si: 'W', label: 'Air blower power', factor: 1e-3, unit: 'kW', mode: 'power' },
+  { path: 'plant.electrolysis.heatSupplied_W', si: 'W', label: 'Heat supplied to the feeds and the stack', factor: 1e-3, unit: 'kW', mode: 'electrolysis' },
+  { path: 'plant.electrolysis.coolers_W', si: 'W', label: "Heat removed by the plant's coolers", factor: 1e-3, unit: 'kW', mode: 'electrolysis' },
   { path: 'plant.electrolysis.compression.power_W', si: 'W', label: 'Hydrogen compressor power', factor: 1e-3, unit: 'kW', mode: 'electrolysis' },
   { path: 'degradation.fraction', si: '', label: 'Degradation r t', factor: 100, unit: '%' },
 ];
@@ -545,6 +548,49 @@ function heatDemandLine(c: CaseResult): LineSpec | null {
   };
 }
 
+/**
+ * The heat an electrolysis case supplies (its feeds' heaters, the positive duties, and the stack's
+ * supply below the thermoneutral voltage) and the heat its coolers remove (the negative duties:
+ * the water-loop cooler and the rest), each where it governs the envelope.
+ */
+function plantHeatLines(c: CaseResult, ids: ReadonlySet<string>): LineSpec[] {
+  const x = c.plant?.electrolysis;
+  if (!x) return [];
+  const lines: LineSpec[] = [];
+  if (ids.has('heat-supplied')) {
+    lines.push({
+      id: `case-${c.id}-heat-supplied`,
+      title: `Case ${c.id}: heat supplied to the feeds and the stack`,
+      equation: 'case-plant-heat',
+      relation: 'supplied',
+      quantities: [
+        { name: 'Qf', value: x.feedHeat_W / 1000, unit: 'kW', origin: "the feeds' heaters, the positive duties of the case's duty table" },
+        { name: 'Qs', value: x.stackHeatSupplied_W / 1000, unit: 'kW', origin: 'the stack below the thermoneutral voltage, its losses included, plant balance of the case' },
+      ],
+      value: x.heatSupplied_W / 1000,
+      unit: 'kW',
+    });
+  }
+  if (ids.has('coolers')) {
+    const cooled = x.duties.filter((d) => d.duty_W < 0);
+    const loop = cooled.filter((d) => d.id.startsWith('loop-cooling')).reduce((a, d) => a - d.duty_W, 0);
+    const rest = cooled.filter((d) => !d.id.startsWith('loop-cooling')).reduce((a, d) => a - d.duty_W, 0);
+    lines.push({
+      id: `case-${c.id}-coolers`,
+      title: `Case ${c.id}: heat removed by the plant's coolers`,
+      equation: 'case-plant-heat',
+      relation: 'removed',
+      quantities: [
+        { name: 'Ql', value: loop / 1000, unit: 'kW', origin: "the water-loop cooler, duty table of the case" },
+        { name: 'Qo', value: rest / 1000, unit: 'kW', origin: "the product cooler and the compressor's inter- and after-coolers, duty table of the case" },
+      ],
+      value: x.coolers_W / 1000,
+      unit: 'kW',
+    });
+  }
+  return lines;
+}
+
 /** The worked lines of section 6 that derive each envelope quantity (by envelope id). */
 const GOVERNING_LINES: Readonly<Record<string, readonly string[]>> = {
   'dc-current': ['bus-current'],
@@ -566,6 +612,7 @@ const GOVERNING_LINES: Readonly<Record<string, readonly string[]>> = {
   'air-preheat': ['air-preheat'],
   'oxidiser-temperature': ['oxidiser-enthalpy'],
   'compressor-power': ['compressor-power'],
+  'blower-power': ['blower-power'],
 };
 
 /** The groups of section 6 whose lines read only the case's own sections (not the sizing case's fuel path). */
@@ -583,6 +630,7 @@ function ownGoverningLines(r: Results, basis: DesignBasis, c: CaseResult, ids: R
   lines.push(...massLines(r, basis, c, ids), ...reformerLines(c, ids));
   if (ids.has('heat-recovered')) lines.push(heatRecoveredLine(c));
   if (ids.has('heat-demand')) lines.push(heatDemandLine(c));
+  lines.push(...plantHeatLines(c, ids));
   // The sizing case's hot spot is a line of section 6 (its fuel path); a case's is at its inlet, whose Nernst voltage it reports.
   if (ids.has('local-current-density') && (!c.sizing || installedSizing(r, c))) lines.push(forCase(c, withOrigins(localCurrentLine(asResults(r, c), book, c.headline!.inletNernst_V, 'the inlet'), caseOrigins(r, c)), 'local-current'));
   return lines.filter((l): l is LineSpec => l !== null);

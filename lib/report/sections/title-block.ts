@@ -7,7 +7,7 @@
  */
 import type { DesignBasis } from '../../basis/types.ts';
 import type { Results } from '../../plant/results-schema.ts';
-import { revisionDate, revisionLabel, shortFingerprint, statusMarkFor, type RevisionContext, type StatusMark } from '../revision.ts';
+import { draftSignOffDate, revisionDate, revisionLabel, shortFingerprint, statusMarkFor, type RevisionContext, type StatusMark } from '../revision.ts';
 
 export interface SignOffRow {
   role: string;
@@ -54,7 +54,8 @@ export function titleBlock(basis: DesignBasis, results: Results, revision: Revis
       const s = doc.signOff[key];
       const signed = revision.kind === 'issued' ? revision.signatures.find((x) => x.role === key) : undefined;
       const signature = signed ? `Ed25519 signature of the manifest, key ${signed.key} (fingerprint ${shortFingerprint(signed.fingerprint)})` : '';
-      return { role, name: s?.name ?? '', date: s?.date ?? '', signature };
+      const date = s?.date ?? '';
+      return { role, name: s?.name ?? '', date: revision.kind === 'draft' ? draftSignOffDate(date, revision.lastIssued) : date, signature };
     }),
     pdfHref: revision.pdfHref ?? null,
     pdfLabel: revision.kind === 'issued' ? 'The issued PDF of this revision' : 'This draft as PDF (not issued)',
