@@ -116,9 +116,14 @@ class TooLarge extends Error {
  * Reads a basis file once (lib/core/read-file.ts: a FIFO, a device or a folder is refused before
  * it is opened, exit 2 since the argument names no basis; never more than the size limit is read,
  * whatever the size said) and checks it: the result and the bytes it was made from, so that a
- * caller keying a cache or quoting the text uses the very bytes that were checked.
+ * caller keying a cache or quoting the text uses the very bytes that were checked. `check` loads
+ * the bytes instead of loadBasisText (the site's loads go through a cache of checked bases,
+ * lib/batch/basis-cache.ts).
  */
-export function readBasisFile(path: string, options: { id?: string; displayPath?: string } & LoadOptions = {}): { result: LoadResult; bytes?: Buffer } {
+export function readBasisFile(
+  path: string,
+  options: { id?: string; displayPath?: string; check?: (bytes: Buffer, file: string, id: string) => LoadResult } & LoadOptions = {},
+): { result: LoadResult; bytes?: Buffer } {
   const file = options.displayPath ?? path;
   const id = options.id ?? path.split(/[\\/]/).slice(-2, -1)[0] ?? 'basis';
   let bytes: Buffer;
@@ -134,7 +139,7 @@ export function readBasisFile(path: string, options: { id?: string; displayPath?
     if (error instanceof TooLarge) return { result: failed([error.diagnostic]) };
     throw error;
   }
-  return { result: loadBasisText(bytes, file, id, options), bytes };
+  return { result: options.check ? options.check(bytes, file, id) : loadBasisText(bytes, file, id, options), bytes };
 }
 
 /** Reads and checks a basis file; the id defaults to the name of its folder. */

@@ -65,9 +65,23 @@ export function resultsKey(basisBytes: string | Uint8Array, id: string, file: st
 }
 
 /** JSON of a value in ASCII: every character beyond it written as its \\u escape (JSON.parse gives the same value back). */
-function asciiJson(value: unknown): string {
+export function asciiJson(value: unknown): string {
   const json = JSON.stringify(value);
   return NON_ASCII.test(json) ? json.replace(NON_ASCII_ALL, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`) : json;
+}
+
+/** The value of a JSON cache entry whose hash holds (readCacheEntry), or undefined. */
+export function readJsonEntry(target: string): unknown {
+  const body = readCacheEntry(target);
+  if (!body) return undefined;
+  try {
+    // Entries are written in ASCII (asciiJson): read as one-byte text, which decodes and parses
+    // at about twice the speed of UTF-8 text with a few non-ASCII characters (°, Δ, ·) in it. An
+    // entry of an earlier writer may hold UTF-8, and is read as such.
+    return JSON.parse(body.toString(isAscii(body) ? 'latin1' : 'utf8'));
+  } catch {
+    return undefined;
+  }
 }
 
 const NON_ASCII = /[^\u0000-\u007f]/;
@@ -81,16 +95,7 @@ export class ResultsCache {
   }
 
   get(key: string): Results | undefined {
-    const body = readCacheEntry(join(this.dir, `${key}.json`));
-    if (!body) return undefined;
-    try {
-      // Entries are written in ASCII (asciiJson): read as one-byte text, which decodes and
-      // parses at about twice the speed of UTF-8 text with a few non-ASCII characters (°, Δ, ·)
-      // in it. An entry of an earlier writer may hold UTF-8, and is read as such.
-      return JSON.parse(body.toString(isAscii(body) ? 'latin1' : 'utf8')) as Results;
-    } catch {
-      return undefined;
-    }
+    return readJsonEntry(join(this.dir, `${key}.json`)) as Results | undefined;
   }
 
   /** Whether an entry of the key is stored (not read nor verified: get() does that when it is read). */

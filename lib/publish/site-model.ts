@@ -21,6 +21,7 @@ import { calculate } from '../plant/calculate.ts';
 import type { CalculationOutcome } from '../batch/batch.ts';
 import type { Results } from '../plant/results-schema.ts';
 import { ResultsCache, resultsKey } from '../batch/results-cache.ts';
+import { BasisCache, loadThroughCache } from '../batch/basis-cache.ts';
 import { formatFinding } from '../plant/located-error.ts';
 import { everyFinding } from '../plant/findings.ts';
 import { runAllChecks } from '../verification/checks.ts';
@@ -148,16 +149,17 @@ export interface ProjectPages {
   current: PageEntry | null;
 }
 
-/** The shared inputs of loading projects: the verification table and the results cache. */
+/** The shared inputs of loading projects: the verification table, the results cache and the cache of checked bases. */
 export interface ProjectLoader {
   root: string;
   options: SiteOptions;
   checks: ReturnType<typeof runAllChecks>;
   cache: ResultsCache;
+  bases: BasisCache;
 }
 
 export function projectLoader(root: string, options: SiteOptions = {}): ProjectLoader {
-  return { root, options, checks: runAllChecks(), cache: new ResultsCache(root) };
+  return { root, options, checks: runAllChecks(), cache: new ResultsCache(root), bases: new BasisCache(root) };
 }
 
 /**
@@ -295,7 +297,7 @@ export function loadProjectPages(loader: ProjectLoader, id: string, problems: Si
   const shown = `projects/${id}/basis.yaml`;
   let read;
   try {
-    read = readBasisFile(join(root, 'projects', id, 'basis.yaml'), { id, displayPath: shown });
+    read = readBasisFile(join(root, 'projects', id, 'basis.yaml'), { id, displayPath: shown, check: (bytes, file) => loadThroughCache(loader.bases, bytes, file, id) });
   } catch (error) {
     // A basis that cannot be read (gone, a FIFO, unreadable): one problem of the site, not the end of it.
     if (!(error instanceof UserError)) throw error;
