@@ -23,7 +23,8 @@
  * missing; a build that finds `out` missing and such a folder of a process that no longer runs
  * renames it back first. Every build removes the folders and links of this naming that builds
  * killed before their end left behind (those of processes no longer running), never the one
- * `out` shows.
+ * `out` shows; a complete build then removes the cache entries no project uses any more
+ * (lib/publish/cache-unused.ts).
  *
  * Nothing cellbasis did not make is replaced, renamed or removed (lib/publish/site-marker.ts):
  * each build folder carries the site marker from the moment it is made, `out` must be missing,
@@ -52,6 +53,7 @@ import { ResultsCache, resultsKey } from '../batch/results-cache.ts';
 import { ChromiumMissingError, chromiumMissingMessage, findChromium } from './chromium.ts';
 import { printDrafts } from './draft-pdfs.ts';
 import { removeCacheLeftovers } from './cache-leftovers.ts';
+import { removeUnusedCacheEntries, type UsedKeys } from './cache-unused.ts';
 import { UserError, EXIT_INTERNAL, EXIT_VALIDATION } from '../core/errors.ts';
 import { setBuildContext } from './build-context.ts';
 import { notOursError, removeOwnFolder, siteFolderProblem, SYMBOLIC_LINK, writeSiteMarker } from './site-marker.ts';
@@ -88,6 +90,8 @@ export interface BuildReport {
   warnings: string[];
   /** Leftovers of builds killed before their end: the folders and links removed, and the site put back as `out`. */
   leftovers: Leftovers;
+  /** Cache entries no project uses any more, removed after the build (lib/publish/cache-unused.ts): how many, and their size. */
+  unusedCache: { entries: number; bytes: number };
 }
 
 export interface Leftovers {
@@ -363,7 +367,7 @@ async function swapIntoPlace(root: string, out: string, names: ReturnType<typeof
  * projects, and V8 let the heap grow to some 2.5 times that. A worker that ran out of heap, its
  * work done in this thread instead, is told in `notices` (a warning of the build's report).
  */
-async function precompute(root: string, options: BuildOptions, notices: string[]): Promise<Map<string, CalculationOutcome>> {
+async function precompute(root: string, options: BuildOptions, notices: string[], keys: Set<string>): Promise<Map<string, CalculationOutcome>> {
   const cache = new ResultsCache(root);
   const jobs: DeferredJob[] = [];
   let cached = 0;
@@ -377,7 +381,9 @@ async function precompute(root: string, options: BuildOptions, notices: string[]
       if (error instanceof UserError) continue;
       throw error;
     }
-    if (cache.has(resultsKey(bytes, id, shown))) cached++;
+    const key = resultsKey(bytes, id, shown);
+    keys.add(key);
+    if (cache.has(key)) cached++;
     else {
       const text = bytes;
       const load = () => {
@@ -394,6 +400,7 @@ async function precompute(root: string, options: BuildOptions, notices: string[]
 }
 
 export async function buildSite(options: BuildOptions): Promise<BuildReport> {
+  const startedMs = Date.now();
   const root = resolve(options.root);
   const out = resolve(options.out ?? join(root, 'site'));
   checkOutput(root, out);
@@ -403,7 +410,10 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
   const printing = options.pdf ?? chromium !== null;
   if (printing && chromium === null) throw new ChromiumMissingError();
   const notices: string[] = [];
-  const results = options.results ?? (await precompute(root, options, notices));
+  // The keys of the results and checked bases of every project as read here, and of the PDFs printed or copied.
+  const keys = new Set<string>();
+  const results = options.results ?? (await precompute(root, options, notices, keys));
+  let pdfKeys: Set<string> | undefined;
   // What the calculation left goes before the projects are read again for the model and the pages.
   collectGarbage();
   mkdirSync(dirname(out), { recursive: true });
@@ -422,7 +432,7 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
     collectGarbage();
     await renderRest(root, fresh, model);
     await pause(options, 'rendered');
-    if (printing) await printDrafts(root, fresh, model.drafts, (done, total) => options.onProgress?.('print', done, total));
+    if (printing) pdfKeys = await printDrafts(root, fresh, model.drafts, (done, total) => options.onProgress?.('print', done, total));
     await pause(options, 'printed');
     await swapIntoPlace(root, out, names, options);
   } catch (error) {
@@ -442,6 +452,9 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
   }
   await pause(options, 'swapped');
   removeLeftovers(out);
+  // Given its results (options.results), the build did not read every basis: it removes nothing then.
+  const used: UsedKeys = options.results ? {} : { results: keys, bases: keys, ...(pdfKeys ? { pdf: pdfKeys } : {}) };
+  const unusedCache = removeUnusedCacheEntries(root, used, startedMs);
   const warnings = printing ? [...notices, ...model.warnings] : [...notices, ...model.warnings, `no PDFs were printed: ${options.pdf === false ? 'HTML only was asked for' : chromiumMissingMessage()}`];
-  return { out, documents: model.pages.length + model.revisionPages.length, pdfs: printing ? model.drafts.length : 0, warnings, leftovers };
+  return { out, documents: model.pages.length + model.revisionPages.length, pdfs: printing ? model.drafts.length : 0, warnings, leftovers, unusedCache };
 }

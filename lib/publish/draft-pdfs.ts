@@ -69,7 +69,8 @@ export function printInputs(site: string): string {
   return hash.digest('hex');
 }
 
-export async function printDrafts(root: string, site: string, drafts: DraftPage[], onProgress?: (done: number, total: number) => void): Promise<void> {
+/** Prints (or copies from the cache) each draft's PDF beside its page; returns the keys of the cache entries it used. */
+export async function printDrafts(root: string, site: string, drafts: DraftPage[], onProgress?: (done: number, total: number) => void): Promise<Set<string>> {
   const cacheDir = join(root, CACHE_DIR, 'pdf');
   mkdirSync(cacheDir, { recursive: true });
   const inputs = printInputs(site);
@@ -77,8 +78,10 @@ export async function printDrafts(root: string, site: string, drafts: DraftPage[
     const page = join(site, d.pagePath);
     // The date the page shows (never the clock); an undated draft prints as of 1970-01-01.
     const meta = documentPdfMeta({ ...d.document(), revision: d.revision }, { date: new Date(`${d.date ?? '1970-01-01'}T00:00:00Z`) });
-    return { page, target: join(dirname(page), 'document.pdf'), meta, cached: join(cacheDir, `${keyOf(inputs, readFileSync(page), meta)}.pdf`) };
+    const key = keyOf(inputs, readFileSync(page), meta);
+    return { page, target: join(dirname(page), 'document.pdf'), meta, key, cached: join(cacheDir, `${key}.pdf`) };
   });
+  const used = new Set(work.map((w) => w.key));
   let done = 0;
   const report = () => onProgress?.(++done, work.length);
   const missing: typeof work = [];
@@ -92,7 +95,7 @@ export async function printDrafts(root: string, site: string, drafts: DraftPage[
     writeFileSync(w.target, cached);
     report();
   }
-  if (missing.length === 0) return;
+  if (missing.length === 0) return used;
   // Each lane a Chromium of its own, printing every lanes-th draft in turn; after a failure no
   // lane starts another print, and the first error is thrown once every Chromium has closed.
   const lanes = Math.max(1, Math.min(PRINT_LANES, availableParallelism(), missing.length));
@@ -117,4 +120,5 @@ export async function printDrafts(root: string, site: string, drafts: DraftPage[
   );
   const rejected = outcomes.find((o): o is PromiseRejectedResult => o.status === 'rejected');
   if (rejected) throw rejected.reason;
+  return used;
 }

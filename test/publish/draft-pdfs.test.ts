@@ -2,7 +2,7 @@
 // not printed again; but a PDF depends on more than its page's bytes, and its key must say so.
 // A stylesheet changed alone left every page's bytes as they were, so builds served the PDFs
 // printed with the old stylesheet (found when a print-CSS fix did not show in the PDFs).
-import { cpSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { cpSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, expect, it } from 'vitest';
@@ -50,7 +50,7 @@ it('digests every asset the pages load: a changed byte, an added or a renamed as
 });
 
 describeWithChromium('draft PDFs from the cache', () => {
-  it('copies an unchanged draft and prints a changed one, one cache entry per PDF printed', async () => {
+  it('copies an unchanged draft and prints a changed one, one cache entry per PDF printed, the changed draft\'s old PDF removed', async () => {
     const root = demoRoot(['hob-tor-pem-backup', 'kestrelford-pem-electrolyser']);
     made.push(root);
     const cache = join(root, CACHE_DIR, 'pdf');
@@ -66,8 +66,13 @@ describeWithChromium('draft PDFs from the cache', () => {
     expect(readFileSync(pdf).equals(bytes)).toBe(true);
     const file = basisFile(root, 'hob-tor-pem-backup');
     writeFileSync(file, readFileSync(file, 'utf8').replace('title: 8 kW PEM backup power unit', 'title: 8.5 kW PEM backup power unit'));
+    // Written an hour before this build, as entries of earlier days are (lib/publish/cache-unused.ts keeps what was written since the build started).
+    const hourAgo = new Date(Date.now() - 3_600_000);
+    for (const n of first) utimesSync(join(cache, n), hourAgo, hourAgo);
     await buildSite({ root, env: EPOCH });
-    expect(readdirSync(cache).length, 'the changed draft printed anew').toBe(3);
+    const third = readdirSync(cache).sort();
     expect(readFileSync(pdf).equals(bytes)).toBe(false);
+    expect(third, 'the changed draft printed anew and the PDF of its old page removed; the unchanged one kept').toHaveLength(2);
+    expect(third.filter((n) => first.includes(n)), 'the unchanged draft\'s entry').toHaveLength(1);
   }, 240_000);
 });

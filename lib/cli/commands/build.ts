@@ -60,6 +60,8 @@ export const buildCommand: Command = {
     for (const name of kept) io.err(`cellbasis: left ${shown(join(dirname(report.out), name))} in place: named as a build's leftover, but not something cellbasis made; remove it yourself if it is yours to remove\n`);
     const temps = report.leftovers.cache.length;
     if (temps) io.err(`cellbasis: removed ${temps} temporary file${temps === 1 ? '' : 's'} under .cellbasis-cache/, left by an interrupted build\n`);
+    const unused = report.unusedCache;
+    if (unused.entries) io.err(`cellbasis: removed ${unused.entries} cache entr${unused.entries === 1 ? 'y' : 'ies'} no project uses any more (${(unused.bytes / 1048576).toFixed(1)} MiB) from .cellbasis-cache/\n`);
     for (const w of report.warnings) io.err(`${w}\n`);
     const pdfs = report.pdfs ? ` and ${report.pdfs} draft PDF${report.pdfs === 1 ? '' : 's'}` : '';
     io.out(`built ${report.documents} document page${report.documents === 1 ? '' : 's'}${pdfs} and the index into ${relative(io.cwd, report.out) || '.'}/\n`);
