@@ -25,7 +25,6 @@ describe('flammability limits in air, vol %', () => {
   });
   it.each([
     ['C2H6', 3.0, 12.4],
-    ['NH3', 15, 28],
     ['CH3OH', 6.7, 36],
     ['H2S', 4.0, 44],
   ])('%s %d to %d (Zabetakis 1965, Bulletin 627, from memory)', (label, lfl, ufl) => {
@@ -39,6 +38,10 @@ describe('flammability limits in air, vol %', () => {
   it('ethanol 3.3 to 19 (NIOSH Pocket Guide, read; Zabetakis 1965 agrees, from memory)', () => {
     expect(limits('C2H5OH')).toEqual([3.3, 19]);
     expect(substance('C2H5OH').lfl_percent!.memory).toBe(false);
+  });
+  it('ammonia 15 to 28 (International Chemical Safety Card 0414, read; Zabetakis 1965 agrees, from memory)', () => {
+    expect(limits('NH3')).toEqual([15, 28]);
+    expect(substance('NH3').lfl_percent).toMatchObject({ source: 'ICSC (IPCS/ILO)', memory: false });
   });
   it('n-butane 1.6 to 8.4 (NIOSH Pocket Guide web page, npgd0068, read); Zabetakis 1965 1.8 to 8.4 listed, from memory', () => {
     expect(limits('n-C4H10')).toEqual([1.6, 8.4]);
@@ -71,7 +74,7 @@ describe('autoignition temperatures, °C: every source kept, the lowest used', (
     expect(substance('CO').autoignition_C.map((v) => [v.value, v.memory])).toEqual([[609, false], [605, true]]);
     expect(substance('CO').lowestAutoignition_C!.value).toBe(605);
   });
-  it('ammonia 690 (National Research Council, Prudent Practices 1995, read), 651 (NFPA 325) and 630 (IEC 60079-20-1), from memory; 630 used', () => {
+  it('ammonia 690 (National Research Council, Prudent Practices 1995, read), 651 (International Chemical Safety Card 0414, read) and 630 (IEC 60079-20-1, from memory); 630 used', () => {
     expect(substance('NH3').autoignition_C.map((v) => v.value)).toEqual([690, 651, 630]);
     expect(substance('NH3').lowestAutoignition_C!.value).toBe(630);
   });
