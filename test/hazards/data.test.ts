@@ -25,7 +25,6 @@ describe('flammability limits in air, vol %', () => {
   });
   it.each([
     ['C2H6', 3.0, 12.4],
-    ['CH3OH', 6.7, 36],
     ['H2S', 4.0, 44],
   ])('%s %d to %d (Zabetakis 1965, Bulletin 627, from memory)', (label, lfl, ufl) => {
     expect(limits(label)).toEqual([lfl, ufl]);
@@ -42,6 +41,12 @@ describe('flammability limits in air, vol %', () => {
   it('ammonia 15 to 28 (International Chemical Safety Card 0414, read; Zabetakis 1965 agrees, from memory)', () => {
     expect(limits('NH3')).toEqual([15, 28]);
     expect(substance('NH3').lfl_percent).toMatchObject({ source: 'ICSC (IPCS/ILO)', memory: false });
+  });
+  it('methanol 6.0 to 36.5 (National Academies Press record 11170, read; the NIOSH IDLH documentation gives the same 6.0 % LEL, read); Zabetakis 1965 6.7 to 36 listed, from memory', () => {
+    expect(limits('CH3OH')).toEqual([6.0, 36.5]);
+    expect(substance('CH3OH').lfl_percent!.memory).toBe(false);
+    expect(substance('CH3OH').alsoPublished).toContainEqual(expect.objectContaining({ lfl_percent: 6.0, memory: false }));
+    expect(substance('CH3OH').alsoPublished).toContainEqual(expect.objectContaining({ lfl_percent: 6.7, ufl_percent: 36, memory: true }));
   });
   it('n-butane 1.6 to 8.4 (NIOSH Pocket Guide web page, npgd0068, read); Zabetakis 1965 1.8 to 8.4 listed, from memory', () => {
     expect(limits('n-C4H10')).toEqual([1.6, 8.4]);
