@@ -25,10 +25,14 @@ describe('flammability limits in air, vol %', () => {
   });
   it.each([
     ['C2H6', 3.0, 12.4],
-    ['H2S', 4.0, 44],
   ])('%s %d to %d (Zabetakis 1965, Bulletin 627, from memory)', (label, lfl, ufl) => {
     expect(limits(label)).toEqual([lfl, ufl]);
     expect(substance(label).lfl_percent!.source).toMatch(/Zabetakis 1965/);
+  });
+  it('hydrogen sulfide 4.0 (NIOSH IDLH documentation 1994, read) to 44 (Zabetakis 1965, from memory); NRC Prudent Practices 1995 4.3 to 45.5 listed, read', () => {
+    expect(limits('H2S')).toEqual([4.0, 44]);
+    expect([substance('H2S').lfl_percent!.memory, substance('H2S').ufl_percent!.memory]).toEqual([false, true]);
+    expect(substance('H2S').alsoPublished).toContainEqual(expect.objectContaining({ lfl_percent: 4.3, ufl_percent: 45.5, memory: false }));
   });
   it('propane 2.1 to 9.5 (OSHA chemical database, read; Zabetakis 1965 agrees, from memory)', () => {
     expect(limits('C3H8')).toEqual([2.1, 9.5]);
