@@ -83,13 +83,13 @@ describe('cellbasis check', () => {
     expect(r.out).toMatch(/technology +solid oxide \(oxide-ion conducting\), power mode\n/);
     expect(r.out).toMatch(/operating temperature +1073\.15 K \(800 °C\)\n/);
     expect(r.out).toMatch(/open assumptions +1 of 2\n/);
-    // E° = 0.98 V at 800 °C for H2 + ½ O2 → H2O(g) (Larminie & Dicks, Fuel Cell Systems Explained, 2nd ed., Table 2.2; from memory)
+    // E° = 0.98 V at 800 °C for H2 + ½ O2 → H2O(g) (Larminie & Dicks, Fuel Cell Systems Explained, 2nd ed., Table 2.2, read in a reproduction of its p. 33 at scribd.com/document/389709165)
     const e = Number(/standard reversible voltage +([\d.]+) V/.exec(r.out)![1]);
     expect(e).toBeCloseTo(0.98, 2);
     expect(r.out).toMatch(/standard thermoneutral voltage +1\.28\d+ V\n/);
   });
 
-  it('liquid water for the cells that run with it: E° = 1.229 V at 25 °C (CODATA key values; from memory)', async () => {
+  it('liquid water for the cells that run with it: E° = 1.229 V at 25 °C (the O2/H2O standard potential of the CRC Handbook table, read in a reproduction, reference check EC-01)', async () => {
     const cwd = temp();
     await run(['new', 'el', '--technology', 'pem', '--mode', 'electrolysis'], cwd);
     const path = join(cwd, 'projects', 'el', 'basis.yaml');

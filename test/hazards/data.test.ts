@@ -25,22 +25,37 @@ describe('flammability limits in air, vol %', () => {
   });
   it.each([
     ['C2H6', 3.0, 12.4],
-    ['n-C4H10', 1.8, 8.4],
-    ['NH3', 15, 28],
-    ['CH3OH', 6.7, 36],
-    ['H2S', 4.0, 44],
   ])('%s %d to %d (Zabetakis 1965, Bulletin 627, from memory)', (label, lfl, ufl) => {
     expect(limits(label)).toEqual([lfl, ufl]);
     expect(substance(label).lfl_percent!.source).toMatch(/Zabetakis 1965/);
+  });
+  it('hydrogen sulfide 4.0 (NIOSH IDLH documentation 1994, read) to 44 (Zabetakis 1965, from memory); NRC Prudent Practices 1995 4.3 to 45.5 listed, read', () => {
+    expect(limits('H2S')).toEqual([4.0, 44]);
+    expect([substance('H2S').lfl_percent!.memory, substance('H2S').ufl_percent!.memory]).toEqual([false, true]);
+    expect(substance('H2S').alsoPublished).toContainEqual(expect.objectContaining({ lfl_percent: 4.3, ufl_percent: 45.5, memory: false }));
   });
   it('propane 2.1 to 9.5 (OSHA chemical database, read; Zabetakis 1965 agrees, from memory)', () => {
     expect(limits('C3H8')).toEqual([2.1, 9.5]);
     expect(substance('C3H8').lfl_percent).toMatchObject({ source: 'OSHA chemical database', memory: false });
   });
-  it('ethanol 3.3 to 19 (NIOSH Pocket Guide, read; Zabetakis 1965 agrees, from memory); n-butane 1.6 to 8.4 listed (NIOSH Pocket Guide web page, read)', () => {
+  it('ethanol 3.3 to 19 (NIOSH Pocket Guide, read; Zabetakis 1965 agrees, from memory)', () => {
     expect(limits('C2H5OH')).toEqual([3.3, 19]);
     expect(substance('C2H5OH').lfl_percent!.memory).toBe(false);
-    expect(substance('n-C4H10').alsoPublished).toContainEqual(expect.objectContaining({ lfl_percent: 1.6, ufl_percent: 8.4, memory: false }));
+  });
+  it('ammonia 15 to 28 (International Chemical Safety Card 0414, read; Zabetakis 1965 agrees, from memory)', () => {
+    expect(limits('NH3')).toEqual([15, 28]);
+    expect(substance('NH3').lfl_percent).toMatchObject({ source: 'ICSC (IPCS/ILO)', memory: false });
+  });
+  it('methanol 6.0 to 36.5 (National Academies Press record 11170, read; the NIOSH IDLH documentation gives the same 6.0 % LEL, read); Zabetakis 1965 6.7 to 36 listed, from memory', () => {
+    expect(limits('CH3OH')).toEqual([6.0, 36.5]);
+    expect(substance('CH3OH').lfl_percent!.memory).toBe(false);
+    expect(substance('CH3OH').alsoPublished).toContainEqual(expect.objectContaining({ lfl_percent: 6.0, memory: false }));
+    expect(substance('CH3OH').alsoPublished).toContainEqual(expect.objectContaining({ lfl_percent: 6.7, ufl_percent: 36, memory: true }));
+  });
+  it('n-butane 1.6 to 8.4 (NIOSH Pocket Guide web page, npgd0068, read); Zabetakis 1965 1.8 to 8.4 listed, from memory', () => {
+    expect(limits('n-C4H10')).toEqual([1.6, 8.4]);
+    expect(substance('n-C4H10').lfl_percent).toMatchObject({ source: 'NIOSH Pocket Guide (web)', memory: false });
+    expect(substance('n-C4H10').alsoPublished).toContainEqual(expect.objectContaining({ lfl_percent: 1.8, ufl_percent: 8.4, memory: true }));
   });
   it('nickel carbonyl LFL 2 % (NIOSH IDLH documentation 1994, read); no UFL recorded', () => {
     expect(limits('Ni(CO)4')).toEqual([2, undefined]);
@@ -64,15 +79,20 @@ describe('autoignition temperatures, °C: every source kept, the lowest used', (
   it('methane 600 (IEC 60079-20-1) and 537 (NFPA 325, historical), from memory; 537 used', () => {
     expect(substance('CH4').lowestAutoignition_C!.value).toBe(537);
   });
-  it('carbon monoxide 609 (NFPA 325) and 605 (IEC 60079-20-1), from memory; 605 used', () => {
+  it('carbon monoxide 609 (National Research Council, Prudent Practices 1995, read) and 605 (IEC 60079-20-1, from memory); 605 used', () => {
+    expect(substance('CO').autoignition_C.map((v) => [v.value, v.memory])).toEqual([[609, false], [605, true]]);
     expect(substance('CO').lowestAutoignition_C!.value).toBe(605);
+  });
+  it('ammonia 690 (National Research Council, Prudent Practices 1995, read), 651 (International Chemical Safety Card 0414, read) and 630 (IEC 60079-20-1, from memory); 630 used', () => {
+    expect(substance('NH3').autoignition_C.map((v) => v.value)).toEqual([690, 651, 630]);
+    expect(substance('NH3').lowestAutoignition_C!.value).toBe(630);
   });
   it('methanol 385 (National Research Council, Prudent Practices 1995, read) is the lowest of its three', () => {
     expect(substance('CH3OH').autoignition_C).toHaveLength(3);
     expect(substance('CH3OH').lowestAutoignition_C).toMatchObject({ value: 385, memory: false });
   });
-  it('hydrogen sulfide 260 (NFPA 325, from memory)', () => {
-    expect(substance('H2S').lowestAutoignition_C!.value).toBe(260);
+  it('hydrogen sulfide 260 (National Research Council, Prudent Practices 1995, read)', () => {
+    expect(substance('H2S').lowestAutoignition_C).toMatchObject({ value: 260, memory: false });
   });
 });
 
@@ -88,9 +108,10 @@ describe('minimum ignition energy, mJ', () => {
 });
 
 describe('exposure limits, ppm', () => {
-  it('carbon monoxide: IDLH 1200, NIOSH REL 35 TWA and 200 ceiling, OSHA PEL 50, ACGIH TLV 25 (NIOSH IDLH documentation, May 1994)', () => {
+  it('carbon monoxide: IDLH 1200 (NIOSH, as NLM Haz-Map gives it, read), NIOSH REL 35 TWA and 200 ceiling, OSHA PEL 50, ACGIH TLV 25 (NIOSH IDLH documentation, May 1994, read)', () => {
     const e = substance('CO').exposure_ppm;
     expect([e.idlh?.value, e.nioshRelTwa?.value, e.nioshRelCeiling?.value, e.oshaPelTwa?.value, e.acgihTlvTwa?.value]).toEqual([1200, 35, 200, 50, 25]);
+    expect(Object.values(e).every((v) => !v.memory)).toBe(true);
   });
   it('nickel carbonyl: OSHA PEL and NIOSH REL 0.001 TWA, IDLH 2, ACGIH TLV 0.05 (NIOSH IDLH documentation and OSHA database, read); a carcinogen', () => {
     const n = substance('Ni(CO)4');
@@ -98,17 +119,20 @@ describe('exposure limits, ppm', () => {
     expect(n.carcinogen?.value).toMatch(/carcinogen/);
     expect(n.formsOnly).toBe(true);
   });
-  it('ammonia: NIOSH REL 25 TWA and 35 STEL, OSHA PEL 50, IDLH 300 (NIOSH IDLH documentation 1994)', () => {
+  it('ammonia: NIOSH REL 25 TWA and 35 STEL, OSHA PEL 50 (NIOSH IDLH documentation 1994, read), IDLH 300 (NIOSH IDLH documentation 1994, from memory)', () => {
     const e = substance('NH3').exposure_ppm;
     expect([e.nioshRelTwa?.value, e.nioshRelStel?.value, e.oshaPelTwa?.value, e.idlh?.value]).toEqual([25, 35, 50, 300]);
   });
-  it('methanol: NIOSH REL 200 TWA and 250 STEL, OSHA PEL 200, IDLH 6000 (NIOSH IDLH documentation 1994)', () => {
+  it('methanol: NIOSH REL 200 TWA and 250 STEL, OSHA PEL 200 (NIOSH IDLH documentation 1994, read), IDLH 6000 = 10 % of its 6.0 % LEL (NIOSH, as NLM Haz-Map gives it, read)', () => {
     const e = substance('CH3OH').exposure_ppm;
     expect([e.nioshRelTwa?.value, e.nioshRelStel?.value, e.oshaPelTwa?.value, e.idlh?.value]).toEqual([200, 250, 200, 6000]);
+    expect(Object.values(e).every((v) => !v.memory)).toBe(true);
   });
-  it('hydrogen sulfide: NIOSH REL 10 ceiling, OSHA PEL 20 ceiling and 50 peak, IDLH 100 (NIOSH IDLH documentation 1994)', () => {
+  it('hydrogen sulfide: NIOSH REL 10 ceiling, OSHA PEL 20 ceiling and 50 peak (NIOSH IDLH documentation 1994, read), IDLH 100, ACGIH TLV 1 TWA and 5 STEL (PubMed Central table PMC5777517, read)', () => {
     const e = substance('H2S').exposure_ppm;
     expect([e.nioshRelCeiling?.value, e.oshaPelCeiling?.value, e.oshaPelPeak?.value, e.idlh?.value]).toEqual([10, 20, 50, 100]);
+    expect([e.acgihTlvTwa?.value, e.acgihTlvStel?.value]).toEqual([1, 5]);
+    expect(Object.values(e).every((v) => !v.memory)).toBe(true);
   });
   it('carbon dioxide: NIOSH REL 5000 TWA and 30000 STEL, OSHA PEL 5000 (NIOSH IDLH documentation 1994, read), IDLH 40000 (NIOSH Pocket Guide, read)', () => {
     const e = substance('CO2').exposure_ppm;

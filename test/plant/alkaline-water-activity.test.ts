@@ -2,7 +2,7 @@
 // vapour (issue 17 item 3). Before, a_w was 1: the alkaline electrolyser scaffold (30 wt % KOH,
 // 80 °C, 16 bar) read E = 1.24571 V. With Balej's correlation (Int. J. Hydrogen Energy 10 (1985)
 // 233-243; from memory) a_w = 0.61721 and, recomputed outside the repository with IAPWS-IF97 and
-// E°(liquid water, 80 °C) = 1.18311 V (Larminie & Dicks, Table 2.2: 1.18 V; from memory),
+// E°(liquid water, 80 °C) = 1.18311 V (Larminie & Dicks, Table 2.2: 1.18 V, read in a reproduction of its p. 33),
 // x_H2O = 0.61721 × 47.4147 kPa / 16 bar = 0.018290 and
 // E = E° + RT/2F (1.5 ln(16 − 0.29265) − ln 0.61721) = 1.25332 V.
 import { describe, expect, it } from 'vitest';

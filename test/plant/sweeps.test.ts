@@ -1,7 +1,7 @@
 // The chart sweeps and the sensitivity study of the results object, checked against formulas
 // written out here: the hydrogen cell's E_rev = −ΔG°/2F, V_tn = −ΔH°/2F and −ΔG/HHV against
 // temperature (83 % HHV at 25 °C to 62 % at 1000 °C, Larminie & Dicks, Fuel Cell Systems
-// Explained, 2nd ed., Table 2.2; from memory), the Carnot limit 1 − T_cold/T, the lumped
+// Explained, 2nd ed., Table 2.2, read in a reproduction of its p. 33 at scribd.com/document/389709165), the Carnot limit 1 − T_cold/T, the lumped
 // resistance line V = Ē_eff − j·ASR through the design point with P = N A j V and
 // Q = N A j (V_tn − V), the carbon activity against S/C on either side of the carbon-free
 // limit, and the Nernst equation for the pressure sensitivity.

@@ -78,7 +78,8 @@ describe('solid oxide cell on humidified hydrogen (power)', () => {
     const t = 1073.15;
     expect(rel(r.headline.thermodynamicLimitLhv!, minusDeltaG('H2O', t) / lhvH2)).toBeLessThan(1e-12);
     expect(rel(r.headline.thermodynamicLimitHhv!, minusDeltaG('H2O', t) / hhvH2)).toBeLessThan(1e-12);
-    // Larminie & Dicks, Fuel Cell Systems Explained, 2nd ed., Table 2.2: 66 % at 800 °C (whole percent; from memory).
+    // Larminie & Dicks, Fuel Cell Systems Explained, 2nd ed., Table 2.2: 66 % at 800 °C (whole percent; read in a
+    // reproduction of its p. 33 at scribd.com/document/389709165).
     expect(Math.abs(r.headline.thermodynamicLimitHhv! - 0.66)).toBeLessThan(0.006);
     expect(r.efficiency.carnotLimit!).toBeCloseTo(1 - 298.15 / 1073.15, 12);
     expect(r.efficiency.voltageEfficiency).toBeCloseTo(0.8 / r.headline.meanNernst_V, 12);
@@ -239,7 +240,7 @@ describe('PEM cell on dry hydrogen (power, liquid water)', () => {
     expect(r.headline.stackPower_W).toBeCloseTo(10200, 9);
     expect(rel(r.headline.electricalEfficiencyLhv!, (0.68 * 0.9 * 2 * F) / lhvH2)).toBeLessThan(1e-12);
     expect(rel(r.headline.thermodynamicLimitHhv!, minusDeltaG('H2O(L)', t) / hhvH2)).toBeLessThan(1e-12);
-    // Larminie & Dicks, Table 2.2 (whole percent; from memory): 83 % at 25 °C, 80 % at 80 °C.
+    // Larminie & Dicks, Table 2.2 (whole percent; read in a reproduction of its p. 33): 83 % at 25 °C, 80 % at 80 °C.
     expect(r.headline.thermodynamicLimitHhv!).toBeGreaterThan(0.80);
     expect(r.headline.thermodynamicLimitHhv!).toBeLessThan(0.83);
   });
@@ -451,7 +452,7 @@ describe('solid oxide cell on carbon monoxide and carbon dioxide (no hydrogen)',
     expect(rel(outlet.CO2! - inlet.CO2!, current / (2 * F))).toBeLessThan(TRACE);
   });
 
-  it('net efficiency P/(ṅ_CO · 283.0 kJ/mol), the heat of combustion of CO (NIST-JANAF: ΔfH° CO2 −393.51, CO −110.53 kJ/mol, from memory)', () => {
+  it('net efficiency P/(ṅ_CO · 283.0 kJ/mol), the heat of combustion of CO (the CODATA values as the NIST Chemistry WebBook prints them: ΔfH° CO2 −393.51, CO −110.53 kJ/mol, read; the JANAF −393.52 gives 282.99)', () => {
     const nCO = stream(r, 'fuel-inlet').speciesFlows_mol_per_s.CO!;
     // The species data give 282.98 kJ/mol; 0.05 kJ/mol covers the rounding of the tabulated values.
     expect(Math.abs(r.headline.electricalEfficiencyLhv! - r.headline.stackPower_W / (nCO * 282.98e3))).toBeLessThan((0.05 / 283) * r.headline.electricalEfficiencyLhv!);
