@@ -238,6 +238,19 @@ describe('findings and located errors of the plant', () => {
     expect(rated.name).toContain('cooling 20.85 kW less');
   });
 
+  it("states the water the electrolyser's dryer removes as vapour at a pressure it can be vapour at", () => {
+    // The demo's hydrogen is cooled to 35 °C at 31 bar, saturated there, and the dryer takes the
+    // vapour left. As pure water at 31 bar and 35 °C it would be liquid (its boiling point at
+    // 31 bar is about 236 °C, IAPWS-IF97); at its partial pressure in the wet gas it is saturated
+    // vapour: p_s(35 °C) = 5.629 kPa (IAPWS-IF97 Eq. 30 recomputed outside the project; NIST
+    // steam tables 5.629 kPa). Tolerance 1e-6 relative: the cooler's exit holds the gas at saturation.
+    const loaded = loadBasisFile('projects/kestrelford-pem-electrolyser/basis.yaml');
+    if (!loaded.ok) throw new Error('the demo basis is invalid');
+    const dryer = calculate(loaded.basis).plant.streams.find((s) => s.id === 'dryer-water')!;
+    expect(dryer.temperature_K).toBeCloseTo(308.15, 9);
+    expect(Math.abs(dryer.pressure_bar * 1e5 - 5628.62)).toBeLessThan(5628.62 * 1e-6);
+  });
+
   it('refuses a DC bus window no string fits, at its field', () => {
     // 60 cells of ~0.8 V make a ~48 V stack: 13 stacks give ~624 V, above a 600-610 V window.
     const basis = basisFrom('solid-oxide', 'power', { 'plant.electrical': { 'cells-per-stack': 60, 'dc-bus-window': { from: '600 V', to: '610 V' } } });
