@@ -15,10 +15,14 @@
  *    Without it no heat is recovered from the products to the feeds.
  *  - Stack: Q_stack = H_in(fed) − H_out(T_stack) + P_DC (heat.ts, "as fed"); the heat lost to ambient
  *    Q_loss = f_loss · P_AC is taken from it: Q_net = Q_stack − Q_loss. Where Q_net < 0 a water loop's
- *    cooler first removes that much less, so that the water it returns brings the stack the heat it
- *    lacks (the cooler then leaves it at T_r, H_back(T_r) = H_back(T_stack) + Q_cooler, above the
- *    inlet temperature, and says so), and the rest, −Q_net, is supplied to the stack (below
- *    thermoneutral); where Q_net > 0 the stack's cooling removes it.
+ *    cooler first removes up to Q_loss less: the loop's water gave that heat to ambient on its way
+ *    from the stacks (it reaches the cooler at T_c, H_back(T_c) = H_back(T_in) − Q_cooler, below the
+ *    stack temperature, and the duty says so), and the cooler still returns it at the inlet
+ *    temperature, the one the stack was computed with and the stack inlet states. Heat the stack
+ *    itself lacks to warm a loop fed more water than its heat warms by the allowed rise can only
+ *    come back with the water: the cooler removes that much less again and returns it warmer,
+ *    H_back(T_r) = H_back(T_in) + the lack (a basis that over-feeds its loop). The rest, −Q_net,
+ *    is supplied to the stack (below thermoneutral). Where Q_net > 0 the stack's cooling removes it.
  *  - Heat supplied Q_sup = Σ (positive duties) + stack supply: by electric heaters (counted in the
  *    electricity) or from outside the plant, as plant.heat-supply says.
  *  - Hydrogen compression (optional): hydrogen-compression.ts.
@@ -186,10 +190,11 @@ function feedRecuperator(point: DesignPoint, plant: PlantInput, feeds: Electroly
 
 /**
  * The stack heat: what the losses leave of it is removed by the stack's cooling, or, below zero,
- * supplied. Where the stack would need heat to warm the loop's water, the loop's cooler removes
- * that much less (it takes out only what the stack put in), so the water it returns is warmer than
- * the inlet: that loop duty, its end temperature and its name are changed in place (the module
- * comment).
+ * supplied. Where the losses take more than the stack's heat, a water loop's cooler removes up to
+ * the losses less, its water having given them up on its way, and returns the water at the inlet
+ * temperature; heat the stack itself lacks to warm its loop, up to the cooler's duty, comes back
+ * with warmer water: that loop duty, its temperatures and its name are changed in place (the
+ * module comment). The rest is supplied.
  */
 function stackHeatBalance(point: DesignPoint, plant: PlantInput, duties: PlantDuty[]) {
   const heatLossW = plant.heatLossFraction * point.netPowerW;
@@ -197,19 +202,34 @@ function stackHeatBalance(point: DesignPoint, plant: PlantInput, duties: PlantDu
   let stackNet = stackHeatW - heatLossW;
   const loop = duties.find((d) => d.id.startsWith('loop-cooling'));
   if (loop && stackNet < 0) {
-    const shift = Math.min(-stackNet, -loop.dutyW);
-    if (shift > 0) coolLess(loop, shift);
-    stackNet += shift;
+    const lostW = Math.min(-stackNet, heatLossW, -loop.dutyW);
+    const lackingW = Math.min(-stackNet - lostW, -loop.dutyW - lostW);
+    if (lostW > 0 || lackingW > 0) coolLess(loop, lostW, lackingW);
+    stackNet += lostW + lackingW;
   }
   return { heatLossW, stackHeatW, stackHeatSuppliedW: Math.max(0, -stackNet), stackHeatRemovedW: Math.max(0, stackNet) };
 }
 
-/** The loop cooler removing `shiftW` less: the temperature it now returns the water at, from the returned water's enthalpy, and a name that says why. */
-function coolLess(loop: PlantDuty, shiftW: number): void {
+/**
+ * The loop cooler removing `lostW` + `lackingW` less, from the returned water's enthalpy: the
+ * losses its water gave up on its way lower the temperature it reaches the cooler at; heat the
+ * stack itself lacks (a loop fed more water than the stack heat warms by the allowed rise) can
+ * only come back with the water, returned warmer than the inlet. Its name says which.
+ */
+function coolLess(loop: PlantDuty, lostW: number, lackingW: number): void {
   const back = { 'H2O(L)': loop.dutyW / (H({ 'H2O(L)': 1 }, loop.toK) - H({ 'H2O(L)': 1 }, loop.fromK)) };
-  loop.dutyW += shiftW;
-  loop.toK = temperatureAtEnthalpyK(back, H(back, loop.fromK) + loop.dutyW, loop.toK);
-  loop.name = `${loop.name}, cooling ${(shiftW / 1000).toPrecision(4)} kW less: the water it returns warmer than the inlet brings the stack the heat it lacks with its losses`;
+  const kW = (w: number) => (w / 1000).toPrecision(4);
+  const why: string[] = [];
+  if (lostW > 0) {
+    loop.fromK = temperatureAtEnthalpyK(back, H(back, loop.fromK) - lostW, loop.fromK);
+    why.push(`the water reaches it cooler than the stack, having given ${kW(lostW)} kW to ambient on its way (the losses the stack's heat does not cover)`);
+  }
+  if (lackingW > 0) {
+    loop.toK = temperatureAtEnthalpyK(back, H(back, loop.toK) + lackingW, loop.toK);
+    why.push(`it returns the water warmer than the inlet, bringing the stack the ${kW(lackingW)} kW it lacks to warm more water than its heat can by the allowed rise`);
+  }
+  loop.dutyW += lostW + lackingW;
+  loop.name = `${loop.name}, cooling ${kW(lostW + lackingW)} kW less: ${why.join('; ')}`;
 }
 
 /** The electricity per kilogram of hydrogen and the system efficiencies (the module comment). */

@@ -118,7 +118,9 @@ function productCooling(product: Record<string, number>, fromK: number, c: NonNu
   sheet.duty('product-cooling', 'hydrogen product cooled (water condensed) ahead of the dryer', -cooled.heatWithCondensationW, fromK, c.inletTemperatureK);
   sheet.add('product-dried', 'hydrogen product cooled and dried', c.inletTemperatureK, pFuel, dry);
   if (condensate > 0) sheet.add('product-condensate', 'condensate from the product cooler', c.inletTemperatureK, pFuel, { 'H2O(L)': condensate });
-  if (dried > 0) sheet.add('dryer-water', 'water vapour removed by the dryer', c.inletTemperatureK, pFuel, { H2O: dried });
+  // The vapour the dryer takes, at its partial pressure in the gas it is taken from (saturation at the cooler's exit): as pure water at the gas's pressure it would be liquid.
+  const vapourBar = (dried / (dried + totalFlow(dry))) * pFuel;
+  if (dried > 0) sheet.add('dryer-water', 'water vapour removed by the dryer (at its partial pressure in the wet gas)', c.inletTemperatureK, vapourBar, { H2O: dried });
   return { cooling, dry, condensate, dried };
 }
 

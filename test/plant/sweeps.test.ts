@@ -235,17 +235,18 @@ describe('sensitivities', () => {
 
 describe('sensitivity of a small conversion', () => {
   // One-at-a-time sensitivity (common practice, no source): the low case lies below the base and
-  // the high case above it. The electrolyser demo's conversion of 0.007 with the basis's step of
-  // ±0.02 has no room below; its low case used to be clamped to 0.01, above the base.
-  it('keeps the low case of the electrolyser demo below its conversion of 0.007 and the high case above', () => {
+  // the high case above it. The electrolyser demo's conversion of 0.0070855 with the basis's step
+  // of ±0.02 has no room below; its low case used to be clamped to 0.01, above the base.
+  it('keeps the low case of the electrolyser demo below its conversion of 0.0070855 and the high case above', () => {
     const loaded = loadBasisText(readFileSync(new URL('../../projects/kestrelford-pem-electrolyser/basis.yaml', import.meta.url), 'utf8'), 'projects/kestrelford-pem-electrolyser/basis.yaml', 'kestrelford-pem-electrolyser');
     if (!loaded.ok) throw new Error('basis');
     const r = calculate(loaded.basis);
     const s = r.sensitivities.find((x) => x.path === 'operating-point.steam-conversion')!;
-    expect(r.electrochemistry.utilization).toBe(0.007);
+    expect(r.electrochemistry.utilization).toBe(0.0070855);
     expect(Number(s.low)).toBeGreaterThan(0);
-    expect(Number(s.low)).toBeLessThan(0.007);
-    expect(Number(s.high)).toBeCloseTo(0.027, 12);
+    expect(Number(s.low)).toBeLessThan(0.0070855);
+    // 0.0070855 + 0.02 = 0.0270855, the table's three figures 0.0271.
+    expect(Number(s.high)).toBeCloseTo(0.0271, 12);
     expect(s.note).toBeNull();
   });
 });
