@@ -82,6 +82,19 @@ describe('the uniform-voltage cell with the activation loss', () => {
     expect(Math.abs(kineticAsr - ohmicAsr) / ohmicAsr).toBeLessThan(1e-8);
   });
 
+  it('recovers it too on a dry inlet, where E = α + β ln u near u = 0 (the logarithmic intervals and the tail below them)', () => {
+    // E(u) = 0.95 − 0.01 ln(u/0.8): six geometric decades below 1e-2, then linear intervals to U = 0.8.
+    const us = [1e-8, 1e-7, 1e-6, 1e-5, 1e-4, 1e-3, 1e-2, 0.1, 0.2, 0.4, 0.6, 0.8];
+    const e = (u: number) => 0.95 - 0.01 * Math.log(u / 0.8);
+    const points = us.map((u) => ({ utilization: u, nernstV: e(u) }));
+    const dry = { profile: { utilization: Float64Array.from(us), value: Float64Array.from(us, e), logIntervals: 6, logTail: true }, points, inletNernstV: e(us[0]!) };
+    const ohmic = operatingVoltage(fuelCell(dry));
+    const kinetic = operatingVoltage(fuelCell({ ...dry, activation: loss(0.065, 1e12) }));
+    // The tails differ at third order in β/y (≈ 0.1 here) over u < 1e-8 of U = 0.8: far below 1e-9 V.
+    expect(Math.abs(kinetic.cellVoltageV - ohmic.cellVoltageV)).toBeLessThan(1e-9);
+    expect(Math.abs(kinetic.harmonicIntegralPerV - ohmic.harmonicIntegralPerV) / ohmic.harmonicIntegralPerV).toBeLessThan(1e-8);
+  });
+
   // Recomputed independently in python (/tmp/activation/uniform.py, not in the repository): the
   // local current density by bisection of E(u) − V = i ASR + (b/ln 10) asinh(i/(2 i0)), ∫du/i and
   // ∫η du/i by composite Simpson with 4000 intervals, V and the implied ASR by bisection.
@@ -133,5 +146,18 @@ describe('the Hob Tor PEM backup unit with its activation loss', () => {
     expect(j).toBeLessThan(0.2);
     expect(standby.headline!.cellVoltage_V).toBeGreaterThan(0.8);
     expect(standby.headline!.cellVoltage_V).toBeLessThan(0.85);
+  });
+
+  // Recomputed independently in python (/tmp/activation/, not in the repository) from the fuel
+  // path's Nernst voltages (checked against the NASA Glenn data by the Nernst tests), linear
+  // between the reported points, and the loss terms: ∫du/i by composite Simpson (400 intervals),
+  // the local current by bisection, the resistance and the voltage by bisection. Simpson over the
+  // kinks of the piecewise-linear E(u) limits the agreement to about 1e-7 relative.
+  it('implies 0.199307 Ω cm² from 0.70 V at 0.65 A/cm², and runs the standby case at 0.836457 V', () => {
+    expect(Math.abs(results.electrochemistry.areaSpecificResistance_ohm_m2 * 1e4 - 0.19930714013161233) / 0.1993).toBeLessThan(1e-6);
+    expect(Math.abs(standby.headline!.cellVoltage_V - 0.836456940560593)).toBeLessThan(1e-6);
+    // The loss breakdown of the design point closes on the given voltage.
+    const e = results.electrochemistry;
+    expect(Math.abs(e.areaMeanNernst_V - e.crossoverAllowance_V - e.activationLoss!.areaMean_V - e.activationLoss!.ohmic_V - 0.7)).toBeLessThan(1e-12);
   });
 });
