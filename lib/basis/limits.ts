@@ -52,6 +52,8 @@ const DIMENSIONS = {
   'sensitivity-current-density': 'fraction',
   'activation-energy': 'molar-energy',
   'resistance-reference-temperature': 'temperature',
+  'tafel-slope': 'voltage',
+  'exchange-current-density': 'current-density',
   'degradation-rate': 'degradation-rate',
   'operating-time': 'time',
 } as const satisfies Record<string, Dimension>;
@@ -104,6 +106,8 @@ const BASE_FIELDS: Readonly<Record<string, LimitedInput | PhysicsRule>> = {
   'operating-point.area-specific-resistance': 'area-specific-resistance',
   'operating-point.resistance-temperature-law.activation-energy': 'activation-energy',
   'operating-point.resistance-temperature-law.reference-temperature': 'resistance-reference-temperature',
+  'operating-point.activation-loss.tafel-slope': 'tafel-slope',
+  'operating-point.activation-loss.exchange-current-density': 'exchange-current-density',
   'operating-point.degradation.rate': 'degradation-rate',
   'operating-point.degradation.operating-time': 'operating-time',
   'operating-point.active-area': 'active-area',

@@ -2,14 +2,14 @@
  * `operating-point:`: utilization (fuel-utilization in power mode, steam-conversion in
  * electrolysis), the air supply (air-utilization or air-ratio in power mode; sweep-ratio or
  * nothing in electrolysis), current density, the voltage model (cell-voltage or
- * area-specific-resistance, with its temperature law and degradation), active area, and the stack size: cells and/or a target. When both
+ * area-specific-resistance, with its temperature law and degradation), the activation loss, active area, and the stack size: cells and/or a target. When both
  * a cell count and a target are given, both are kept (statedCells) and the calculation checks
  * that they agree within 2 %, since only it knows the power per cell.
  */
 import type { Mode } from '../electrochem/technologies.ts';
 import type { Path } from './diagnostics.ts';
 import type { Read, Reader } from './reader.ts';
-import type { AirSupply, Degradation, DegradedQuantity, OperatingPoint, ResistanceLaw, StackSize, VoltageModel } from './types.ts';
+import type { ActivationLoss, AirSupply, Degradation, DegradedQuantity, OperatingPoint, ResistanceLaw, StackSize, VoltageModel } from './types.ts';
 import { readTemperature } from './read-conditions.ts';
 import type { Dimension } from '../core/units.ts';
 import { airUtilizationProblem, limitProblem, withinLimit, type LimitedInput } from './limits.ts';
@@ -140,6 +140,24 @@ function resistanceLaw(reader: Reader, voltage: VoltageModel | undefined): Resis
   return { activationEnergyJPerMol: energy.si, ...(reference !== undefined ? { referenceTemperatureK: reference } : {}), source };
 }
 
+/** `activation-loss`: a positive Tafel slope and exchange current density within their limits, and a source for both. */
+function activationLoss(reader: Reader): ActivationLoss | null | undefined {
+  const at = OP('activation-loss');
+  if (!reader.has(at)) return null;
+  // The one source stands for both values in the inputs table.
+  const source = reader.source([...at, 'source']);
+  const within = (key: 'tafel-slope' | 'exchange-current-density', dimension: Dimension, label: string) => {
+    const read = reader.scalar([...at, key], dimension, label, source);
+    const problem = read && (read.si > 0 ? limitProblem(key, label, read) : `the ${label} must be above zero, got ${read.text}`);
+    if (problem) reader.findings.error(read!.at, problem);
+    return problem ? undefined : read;
+  };
+  const slope = within('tafel-slope', 'voltage', 'Tafel slope');
+  const exchange = within('exchange-current-density', 'current-density', 'exchange current density');
+  if (!slope || !exchange || source === undefined) return undefined;
+  return { tafelSlopeVPerDecade: slope.si, exchangeCurrentDensityAPerM2: exchange.si, source };
+}
+
 /**
  * `degradation`: a rate and an operating time within their limits, and, for the cell voltage in
  * power mode, a loss r t below the whole voltage.
@@ -216,14 +234,16 @@ export function readOperatingPoint(reader: Reader, mode: Mode, sweep: { allowed:
   const { utilization: u, air, currentDensity, voltage: v, activeArea, size: s, parasiticFraction } = values;
   const law = resistanceLaw(reader, v);
   const aged = degradation(reader, mode);
+  const kinetic = activationLoss(reader);
   const conversionEfficiency = conversion(reader, mode, parasiticFraction);
-  if (u === undefined || !air || !currentDensity || !v || law === undefined || aged === undefined || !activeArea || !s || parasiticFraction === undefined || conversionEfficiency === undefined) return undefined;
+  if (u === undefined || !air || !currentDensity || !v || law === undefined || aged === undefined || kinetic === undefined || !activeArea || !s || parasiticFraction === undefined || conversionEfficiency === undefined) return undefined;
   return {
     utilization: u,
     air,
     currentDensityAPerM2: currentDensity.si,
     voltage: v,
     ...(law ? { resistanceLaw: law } : {}),
+    ...(kinetic ? { activationLoss: kinetic } : {}),
     ...(aged ? { degradation: aged } : {}),
     activeAreaM2: activeArea.si,
     size: s.size,

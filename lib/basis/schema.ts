@@ -177,6 +177,14 @@ const operatingPointSection = strict(
       },
       'Arrhenius law of the area-specific resistance, ASR(T) = ASR_ref exp[(E_a/R)(1/T − 1/T_ref)], used where the temperature changes (temperature sweep and sensitivity); without it the resistance is held constant there',
     ).optional(),
+    'activation-loss': strict(
+      {
+        'tafel-slope': quantity('voltage', 'Tafel slope b, the activation loss per decade of current density, e.g. "65 mV" (per decade)'),
+        'exchange-current-density': quantity('current-density', 'exchange current density i0 referred to the geometric (active) area, e.g. "1e-4 A/cm2"'),
+        source: text('where the Tafel slope and exchange current density come from: a reference id or a justification'),
+      },
+      'activation (kinetic) loss of the electrodes, one symmetric Butler-Volmer term: eta_act = (b / ln 10) asinh(i / (2 i0)), which tends to b log10(i / i0) for i >> i0; it is subtracted from the local Nernst voltage with the ohmic loss in power mode and added in electrolysis; b and i0 are held at every temperature (no temperature law); without it the cell has the ohmic loss alone',
+    ).optional(),
     degradation: strict(
       {
         rate: quantity('degradation-rate', 'loss per unit of operating time, e.g. "0.5 %/kh" (per cent per 1000 h)'),

@@ -115,6 +115,21 @@ export interface ResistanceLaw {
   source: string;
 }
 
+/**
+ * The activation (kinetic) loss of the cell's electrodes, lumped into one symmetric Butler–Volmer
+ * term at the current density i referred to the geometric area:
+ *   η_act(i) = (b / ln 10) · asinh(i / (2 i₀))
+ * b the Tafel slope (V per decade of current density), i₀ the exchange current density. Both are
+ * taken as given at every temperature of the basis (no temperature law).
+ */
+export interface ActivationLoss {
+  /** b, volts per decade of current density. */
+  tafelSlopeVPerDecade: number;
+  /** i₀, A/m² of geometric area. */
+  exchangeCurrentDensityAPerM2: number;
+  source: string;
+}
+
 /** What a degradation rate applies to. */
 export const DEGRADED_QUANTITIES = ['cell-voltage', 'area-specific-resistance'] as const;
 
@@ -149,6 +164,8 @@ export interface OperatingPoint {
   voltage: VoltageModel;
   /** How the area-specific resistance changes with temperature; absent: held constant. */
   resistanceLaw?: ResistanceLaw;
+  /** The activation loss of the electrodes; absent: none (the ohmic cell). */
+  activationLoss?: ActivationLoss;
   /** Degradation at an operating time; absent: beginning of life. */
   degradation?: Degradation;
   activeAreaM2: number;

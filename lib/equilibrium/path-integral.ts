@@ -118,7 +118,7 @@ export function integrateAlongUtilization<S extends Sample>(
 }
 
 /** Nodes and weights of 8-point Gauss-Legendre quadrature on [−1, 1] (Abramowitz & Stegun, Table 25.4). */
-const GL8: readonly (readonly [number, number])[] = [
+export const GL8: readonly (readonly [number, number])[] = [
   [0.1834346424956498, 0.3626837833783620],
   [0.5255324099163290, 0.3137066458778873],
   [0.7966664774136267, 0.2223810344533745],

@@ -11,6 +11,7 @@ import { getSpecies, speciesDataHash } from '../thermo/species-data.ts';
 import { enthalpy } from '../thermo/properties.ts';
 import { evaluateReaction } from '../electrochem/reaction.ts';
 import { waterActivityVoltage } from '../electrochem/nernst.ts';
+import { activationOverpotentialV } from './activation.ts';
 import { assessHazards } from '../hazards/assessment.ts';
 import type { DesignBasis } from '../basis/types.ts';
 import { toolVersion } from '../core/version.ts';
@@ -159,9 +160,27 @@ function electrochemistryOf({ point, inputs }: Computed): Results['electrochemis
     resistanceLaw: inputs.resistanceLaw
       ? { activationEnergy_J_per_mol: inputs.resistanceLaw.activationEnergyJPerMol, referenceTemperature_K: inputs.resistanceLaw.referenceTemperatureK!, source: inputs.resistanceLaw.source }
       : null,
+    ...activationLossOf(point, inputs),
     chargeBasis_A: point.path.chargeBasisA * point.scale,
     utilization: inputs.utilization,
     elementBalanceError: point.path.elementBalanceError,
+  };
+}
+
+/** The activation loss and the breakdown of the point's voltage, where the basis gives the loss. */
+function activationLossOf(point: DesignPoint, inputs: DesignPoint['inputs']): Pick<Results['electrochemistry'], 'activationLoss'> {
+  const loss = inputs.activationLoss;
+  const losses = point.voltage.losses;
+  if (!loss || !losses) return {};
+  return {
+    activationLoss: {
+      tafelSlope_V_per_decade: loss.tafelSlopeVPerDecade,
+      exchangeCurrentDensity_A_per_m2: loss.exchangeCurrentDensityAPerM2,
+      source: loss.source,
+      atMeanCurrentDensity_V: activationOverpotentialV(loss, inputs.currentDensityAPerM2),
+      areaMean_V: losses.activationV,
+      ohmic_V: losses.ohmicV,
+    },
   };
 }
 

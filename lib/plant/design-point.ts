@@ -85,6 +85,7 @@ export function cellRequest({ inputs, path }: Pick<DesignPoint, 'inputs' | 'path
     crossoverAllowanceV: inputs.crossoverAllowanceV,
     inletNernstV: path.inletNernstV,
     points: path.points,
+    ...(inputs.activationLoss ? { activation: inputs.activationLoss } : {}),
   };
 }
 

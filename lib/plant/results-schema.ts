@@ -368,7 +368,7 @@ const designResultsSchema = z
       effectiveThermoneutralVoltage_V: num('(H_in − H_out)/I_ion of the actual gases (power mode), (H_out − H_in)/I_ion (electrolysis)'),
       effectiveNernst_V: num('area-mean driving voltage: t_ion Ē_A − crossover allowance (power mode); t_ion Ē_A (electrolysis); V = it ∓ j·ASR'),
       areaMeanNernst_V: num('area-mean Nernst voltage Ē_A = ∫E dA/A of the uniform-voltage cell'),
-      harmonicIntegral_per_V: num('∫₀^U du/y(u), y the local ionic driving voltage t_ion E − ΔV_x − t_ion V (power) or t_ion (V − E) (electrolysis); U/∫ = j ASR + (1 − t_ion) V (power) or j ASR − (1 − t_ion) V (electrolysis)'),
+      harmonicIntegral_per_V: num('∫₀^U du/y(u), y the local ionic driving voltage t_ion E − ΔV_x − t_ion V (power) or t_ion (V − E) (electrolysis); U/∫ = j ASR + (1 − t_ion) V (power) or j ASR − (1 − t_ion) V (electrolysis); with an activation loss y = i(u) ASR, the local ohmic loss, and U/∫ = j ASR'),
       ionicCurrent_A: num('Σ of the ionic currents of the cells: the charge rate that sets the flows by Faraday\'s law'),
       ionicCurrentDensity_A_per_m2: num('mean ionic current density: j + leakage (power), j − leakage (electrolysis)'),
       leakageCurrentDensity_A_per_m2: num('electronic leakage through a mixed conductor, (1 − t_ion) V/ASR'),
@@ -384,6 +384,17 @@ const designResultsSchema = z
         })
         .nullable()
         .describe('the Arrhenius law of the resistance; null: the resistance is held constant where the temperature changes (sweep and sensitivity)'),
+      activationLoss: z
+        .object({
+          tafelSlope_V_per_decade: num('b of η_act(i) = (b/ln 10) asinh(i/(2 i₀)), the symmetric Butler–Volmer loss'),
+          exchangeCurrentDensity_A_per_m2: num('i₀, referred to the geometric (active) area'),
+          source: z.string().describe('where b and i₀ come from, as the basis states it'),
+          atMeanCurrentDensity_V: num('η_act(j) at the mean current density'),
+          areaMean_V: num('area-mean activation loss η̄_A = ∫η_act(i) dA / A over the cell: V = Ē_A − ΔV_x − η̄_A − j ASR (power), Ē_A + η̄_A + j ASR (electrolysis)'),
+          ohmic_V: num('ohmic loss j ASR'),
+        })
+        .optional()
+        .describe('the activation loss of the electrodes and the loss breakdown of the point; absent: the basis gives none (the ohmic cell)'),
       chargeBasis_A: num('charge of complete reaction of the feed (U = 1) on the stack scale'),
       utilization: num('fuel utilization (power) or steam conversion (electrolysis)'),
       elementBalanceError: num('largest relative element-balance error of the equilibria along the fuel path'),

@@ -34,9 +34,24 @@
  * ΔV_x) in power mode and V > max E in electrolysis; otherwise it reverses before the utilization
  * is reached. A given voltage outside that, a resistance giving V ≤ 0, and a mixed conductor whose
  * leakage leaves no net current are refused at the field they concern.
+ *
+ * With the activation loss of the basis (activation.ts), the local current density of a purely
+ * ionic cell (t_ion = 1; a mixed conductor with it is refused) solves instead
+ *
+ *   power:         E(u) − ΔV_x − η_act(i) − i ASR = V
+ *   electrolysis:  E(u) + η_act(i) + i ASR = V                                              (3)
+ *
+ * and the mean current density is again U / ∫₀^U du / i(u) = j. The basis gives V (then ASR is the
+ * root of that, between 0 and the resistance (1) or (2) implies without the loss: the implied
+ * resistance is what is left of the loss at the design point once the activation loss is taken
+ * out) or the ASR (then V is the root, each side monotone in V). Averaging (3) over the area gives
+ * V = Ē_A − ΔV_x − η̄_A − j ASR (power) or V = Ē_A + η̄_A + j ASR (electrolysis), with η̄_A the
+ * area-mean activation loss: the loss breakdown of the design point. Without the activation loss
+ * every number is that of (1) and (2), by the same code.
  */
 import type { Mode } from '../electrochem/technologies.ts';
-import type { ResistanceLaw, VoltageModel } from '../basis/types.ts';
+import type { ActivationLoss, ResistanceLaw, VoltageModel } from '../basis/types.ts';
+import { KineticCell, kineticIntegral, kineticSums } from './activation.ts';
 import { GAS_CONSTANT_J_PER_MOL_K as R } from '../thermo/constants.ts';
 import { reciprocalIntegral, reciprocalSums, type Profile, type ReciprocalIntegral, type ReciprocalSums } from '../equilibrium/path-integral.ts';
 import { CalculationError, type CalculationInput } from '../core/errors.ts';
@@ -70,6 +85,8 @@ export interface CellVoltageRequest {
   inletNernstV: number;
   /** The reported points of the fuel path, for the local current density along the cell. */
   points: readonly { utilization: number; nernstV: number }[];
+  /** The activation loss of the electrodes, (3); absent: none. */
+  activation?: ActivationLoss;
 }
 
 export interface LocalPoint {
@@ -99,6 +116,8 @@ export interface OperatingVoltage {
   /** The local current density at the reported points of the fuel path, and its highest value. */
   local: LocalPoint[];
   maxLocalCurrentDensityAPerM2: number;
+  /** With the activation loss: its area mean η̄_A and the ohmic loss j ASR, V. */
+  losses?: { activationV: number; ohmicV: number };
 }
 
 /** What the physics fixes once the mode and the cell are known: y(u) = a E(u) + b(V) is the ionic driving voltage. */
@@ -281,15 +300,110 @@ function insideLimit(cell: Cell, solvedV: number, limit: number): { v: number; i
  * found positive there: the same sums, term for term).
  */
 function localCurrents(cell: Cell, v: number, asr: number): LocalPoint[] {
-  const integral = cell.integral(v)!;
   const t = cell.t;
+  return localPoints(cell, cell.integral(v)!, (e) => (cell.power ? (t * e - cell.dV - v) / asr : (v - t * e) / asr));
+}
+
+/** The local points from the running integral ∫₀^u du/i and the local current density at a Nernst voltage. */
+function localPoints(cell: Cell, integral: { first: number; cumulative: Float64Array }, current: (nernstV: number) => number): LocalPoint[] {
   const samples = new Map<number, number>();
   cell.request.profile.utilization.forEach((x, k) => samples.set(x, integral.cumulative[k]!));
   return cell.request.points.map((p) => ({
     utilization: p.utilization,
     areaFraction: p.utilization === 0 ? 0 : samples.get(p.utilization)! / integral.first,
-    currentDensityAPerM2: cell.power ? (t * p.nernstV - cell.dV - v) / asr : (v - t * p.nernstV) / asr,
+    currentDensityAPerM2: current(p.nernstV),
   }));
+}
+
+/** (3) solved for V at the resistance ASR: U/∫du/i(V) − j, falling in V in power mode, rising in electrolysis. */
+function solveKineticVoltage(cell: Cell, loss: ActivationLoss, asr: number, limit: number): number {
+  const { currentDensityAPerM2: j, utilization: u, profile } = cell.request;
+  const kinetic = new KineticCell(loss, asr);
+  const g = (v: number) => {
+    const [a, b] = cell.coefficients(v);
+    const sums = kineticSums(profile, kinetic, a, b);
+    if (!sums) return { value: -j, slope: cell.power ? -1 : 1 };
+    // dy/dV = −1 (power) or +1: d∫du/i / dV = ±∫du/(i² g').
+    const dI = cell.power ? sums.perVolt : -sums.perVolt;
+    return { value: u / sums.first - j, slope: (-u * dI) / (sums.first * sums.first) };
+  };
+  let step = j * asr + kinetic.overpotential(j) + 1e-3;
+  if (cell.power) {
+    while (g(limit - step).value <= 0) step *= 2;
+    return solveMonotone(g, limit - step, limit, false);
+  }
+  while (g(limit + step).value <= 0) step *= 2;
+  return solveMonotone(g, limit, limit + step, true);
+}
+
+/**
+ * The resistance a given voltage implies by (3): the root in (0, ASR_ohm) of U/∫du/i(ASR) = j, with
+ * ASR_ohm the resistance (1) or (2) implies without the loss (its checks of the voltage apply).
+ */
+function kineticImpliedResistance(cell: Cell, loss: ActivationLoss, v: number, limit: number): number {
+  const { model, currentDensityAPerM2: j, utilization: u, profile } = cell.request;
+  const ohmic = impliedResistance(cell, v, limit);
+  const [a, b] = cell.coefficients(v);
+  const f = (asr: number) => {
+    const sums = kineticSums(profile, new KineticCell(loss, asr), a, b)!;
+    return { value: u / sums.first - j, slope: (-u * sums.perOhm) / (sums.first * sums.first) };
+  };
+  const bare = f(0).value + j;
+  if (!(bare > j)) {
+    throw new CalculationError(
+      `at the cell voltage ${fmt(v)} V the activation loss alone (Tafel slope ${(loss.tafelSlopeVPerDecade * 1e3).toPrecision(4)} mV per decade, exchange current density ${(loss.exchangeCurrentDensityAPerM2 / 1e4).toPrecision(4)} A/cm2) allows a mean current density of ${(bare / 1e4).toPrecision(4)} A/cm2, not the ${(j / 1e4).toPrecision(4)} A/cm2 of the design: no resistance is left (${cell.power ? 'lower' : 'raise'} the cell voltage or review the activation loss)`,
+      voltageField(model),
+    );
+  }
+  return solveMonotone(f, 0, ohmic, false);
+}
+
+/** The cell voltage and resistance of (3), as voltageAndResistance gives those of (1) and (2). */
+function kineticVoltageAndResistance(cell: Cell, loss: ActivationLoss, limit: number): { v: number; asr: number } {
+  const { model } = cell.request;
+  if (cell.t !== 1) {
+    throw new CalculationError(
+      `the activation loss is modelled for a purely ionic electrolyte: with an ionic transference number of ${cell.t} give no operating-point.activation-loss (or a transference number of 1)`,
+      'ionic-transference-number',
+    );
+  }
+  if (model.kind === 'given') return { v: model.cellVoltageV, asr: kineticImpliedResistance(cell, loss, model.cellVoltageV, limit) };
+  const v = solveKineticVoltage(cell, loss, model.ohmM2, limit);
+  if (cell.power && !(v > 0)) {
+    throw new CalculationError(`the resistance and the activation loss give a cell voltage of ${fmt(v)} V at this current density: lower the current density or the area-specific resistance`, voltageField(model));
+  }
+  return { v, asr: model.ohmM2 };
+}
+
+/**
+ * The operating voltage of (3): the voltage and resistance, the area means (η̄_A by the integral
+ * ∫η du/i, Ē_A from the averaged (3)) and the local current densities.
+ */
+function kineticOperatingVoltage(cell: Cell, loss: ActivationLoss, limit: number, source?: OperatingVoltage['source']): OperatingVoltage {
+  const { model, currentDensityAPerM2: j, profile } = cell.request;
+  const { v: solvedV, asr } = kineticVoltageAndResistance(cell, loss, limit);
+  const { v } = insideLimit(cell, solvedV, limit);
+  const kinetic = new KineticCell(loss, asr);
+  const [a, b] = cell.coefficients(v);
+  const integral = kineticIntegral(profile, kinetic, a, b)!;
+  const activationV = integral.overpotential / integral.first;
+  const ohmicV = j * asr;
+  const areaMeanNernstV = cell.power ? v + cell.dV + activationV + ohmicV : v - activationV - ohmicV;
+  const local = localPoints(cell, integral, (e) => kinetic.current(a * e + b));
+  return {
+    cellVoltageV: v,
+    effectiveNernstV: cell.power ? areaMeanNernstV - cell.dV : areaMeanNernstV,
+    areaMeanNernstV,
+    openCircuitV: cell.request.inletNernstV - cell.dV,
+    areaSpecificResistanceOhmM2: asr,
+    source: source ?? (model.kind === 'given' ? 'given' : 'area-specific-resistance'),
+    harmonicIntegralPerV: integral.first / asr,
+    ionicCurrentDensityAPerM2: j,
+    leakageCurrentDensityAPerM2: 0,
+    local,
+    maxLocalCurrentDensityAPerM2: Math.max(...local.map((p) => p.currentDensityAPerM2)),
+    losses: { activationV, ohmicV },
+  };
 }
 
 /**
@@ -304,6 +418,7 @@ export function operatingVoltage(request: CellVoltageRequest, source?: Operating
   const { model, currentDensityAPerM2: j, utilization: u } = request;
   const t = cell.t;
   const limit = cell.reversibleLimitV();
+  if (request.activation) return kineticOperatingVoltage(cell, request.activation, limit, source);
   const { v: solvedV, asr } = voltageAndResistance(cell, limit);
   const { v, integral } = insideLimit(cell, solvedV, limit);
   const [a, b] = cell.coefficients(v);

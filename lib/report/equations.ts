@@ -204,6 +204,14 @@ export function mixedConductor(r: Results): boolean {
   return r.electrochemistry.ionicTransferenceNumber < 1;
 }
 
+/** The charge-mean Nernst voltage (an indicator) and, in power mode, the open-circuit voltage. */
+function openCircuitEquations(power: boolean, U: Symbol): EquationEntry[] {
+  const mean = entry('mean-nernst', { mean: { lhs: sym('\\bar{E}'), symbols: { U }, rhs: (q) => `\\frac{1}{${q.U}}\\int_0^{${q.U}} E(u)\\,\\mathrm{d}u` } });
+  if (!power) return [mean];
+  const open = { lhs: sym('E_\\mathrm{oc}'), symbols: { t: sym('t_\\mathrm{ion}'), Ein: sym('E_\\mathrm{in}'), dV: sym('\\Delta V_x') }, rhs: (q: Record<string, string>, op: Ops) => `${q.t}${op.times}${q.Ein} - ${q.dV}` };
+  return [mean, entry('open-circuit', { open })];
+}
+
 /**
  * The charge-mean Nernst voltage (an indicator), the open-circuit voltage, and the cell at one
  * voltage: the local current density, the area it takes, the condition the voltage meets (the
@@ -211,6 +219,7 @@ export function mixedConductor(r: Results): boolean {
  * (t_ion = 1) is written without the leakage terms, which vanish.
  */
 function voltageEquations(r: Results): EquationEntry[] {
+  if (r.electrochemistry.activationLoss) return kineticVoltageEquations(r);
   const power = r.technology.mode === 'power';
   const mixed = mixedConductor(r);
   const U = sym(power ? 'U_\\mathrm{f}' : 'X');
@@ -247,8 +256,7 @@ function voltageEquations(r: Results): EquationEntry[] {
       };
   const u = symbolTex(U, 'method');
   return [
-    entry('mean-nernst', { mean: { lhs: sym('\\bar{E}'), symbols: { U }, rhs: (q) => `\\frac{1}{${q.U}}\\int_0^{${q.U}} E(u)\\,\\mathrm{d}u` } }),
-    ...(power ? [entry('open-circuit', { open: { lhs: sym('E_\\mathrm{oc}'), symbols: { t, Ein: sym('E_\\mathrm{in}'), dV }, rhs: (q, op) => `${q.t}${op.times}${q.Ein} - ${q.dV}` } })] : []),
+    ...openCircuitEquations(power, U),
     entry('local-current', local, (show) =>
       mixed ? `${show('ionic')}, \\qquad ${show('leakage')}, \\qquad i(u) = ${i} ${power ? '-' : '+'} i_e = ${show('terminal', 'rhs')}` : show('terminal'),
     ),
@@ -265,6 +273,65 @@ function voltageEquations(r: Results): EquationEntry[] {
       },
     }),
     entry('cell-voltage', cell, (show) => `${symbolTex(EA, 'method')} = \\frac{1}{N A}\\int E\\,\\mathrm{d}A = \\frac{\\int_0^{${u}} E(u)\\,\\mathrm{d}u / ${i}}{\\int_0^{${u}} \\mathrm{d}u / ${i}}, \\qquad ${show('voltage')}`),
+  ];
+}
+
+/** η_act(i) = (b/ln 10) arsinh(i/(2 i₀)) over the symbols of a relation, `i` the name of the current density. */
+const activationTex = (q: Record<string, string>, op: Ops, i: string) => `\\frac{${q.b}}{\\ln 10}${op.times}\\operatorname{arsinh}${op.open}\\frac{${q[i]}}{2${op.times}${q.i0}}${op.close}`;
+
+/**
+ * The cell at one voltage with the activation loss of the basis (lib/plant/activation.ts; a pure
+ * ionic conductor, t_ion = 1): the loss, the local current density as the root of the local
+ * balance, the area it takes, the condition the voltage meets, written over the local ohmic loss
+ * i(u) ASR so that its right-hand side is that of the ohmic cell, and the area-mean form with the
+ * area-mean activation loss.
+ */
+function kineticVoltageEquations(r: Results): EquationEntry[] {
+  const power = r.technology.mode === 'power';
+  const U = sym(power ? 'U_\\mathrm{f}' : 'X');
+  const [dV, j, ASR, V, b, i0] = [sym('\\Delta V_x'), sym('j'), sym('\\mathrm{ASR}'), sym('V'), sym('b'), sym('i_0')];
+  const [EA, eta] = [sym('\\bar{E}_A'), sym('\\bar{\\eta}_A')];
+  const dVOf: Record<string, Symbol> = power ? { dV } : {};
+  const u = symbolTex(U, 'method');
+  const cell: Record<string, Relation> = power
+    ? {
+        voltage: { lhs: V, symbols: { EA, dV, eta, j, ASR }, rhs: (q, op) => `${q.EA} - ${q.dV} - ${q.eta} - ${q.j}${op.times}${q.ASR}` },
+        resistance: { lhs: ASR, symbols: { EA, dV, eta, V, j }, rhs: (q) => `\\frac{${q.EA} - ${q.dV} - ${q.eta} - ${q.V}}{${q.j}}` },
+      }
+    : {
+        voltage: { lhs: V, symbols: { EA, eta, j, ASR }, rhs: (q, op) => `${q.EA} + ${q.eta} + ${q.j}${op.times}${q.ASR}` },
+        resistance: { lhs: ASR, symbols: { V, EA, eta, j }, rhs: (q) => `\\frac{${q.V} - ${q.EA} - ${q.eta}}{${q.j}}` },
+      };
+  return [
+    ...openCircuitEquations(power, U),
+    entry('activation-loss', { loss: { lhs: sym('\\eta_\\mathrm{act}'), symbols: { b, i0, i: sym('i') }, rhs: (q, op) => activationTex(q, op, 'i') } }, (show) =>
+      `${show('loss')} \\;\\longrightarrow\\; b\\,\\log_{10}\\frac{i}{i_0} \\quad (i \\gg i_0)`,
+    ),
+    entry('local-current', {
+      terminal: {
+        lhs: V,
+        symbols: { E: sym('E(u)'), ...dVOf, b, i0, i: sym('i(u)'), ASR },
+        rhs: (q, op) => (power ? `${q.E} - ${q.dV} - ${activationTex(q, op, 'i')} - ${q.i}${op.times}${q.ASR}` : `${q.E} + ${activationTex(q, op, 'i')} + ${q.i}${op.times}${q.ASR}`),
+      },
+    }),
+    shown(
+      'area-element',
+      `\\mathrm{d}A = \\frac{Q_1\\,\\mathrm{d}u}{i(u)} \\quad\\Longrightarrow\\quad N A = Q_1 \\int_0^{${u}} \\frac{\\mathrm{d}u}{i(u)}, \\qquad j = \\frac{${u}\\,Q_1}{N A} = \\frac{${u}}{\\int_0^{${u}} \\mathrm{d}u / i(u)}`,
+    ),
+    entry('uniform-voltage', {
+      balance: {
+        lhs: sym('\\mathcal{I}'),
+        symbols: { U, j, ASR },
+        lhsOf: (q, op) => `\\int_0^{${q.U}} \\frac{\\mathrm{d}u}{${q.ASR}${op.times} i(u)}`,
+        rhs: (q, op) => `\\frac{${q.U}}{${q.j}${op.times}${q.ASR}}`,
+      },
+    }),
+    entry(
+      'cell-voltage',
+      cell,
+      (show) =>
+        `${symbolTex(EA, 'method')} = \\frac{\\int_0^{${u}} E(u)\\,\\mathrm{d}u / i(u)}{\\int_0^{${u}} \\mathrm{d}u / i(u)}, \\qquad ${symbolTex(eta, 'method')} = \\frac{\\int_0^{${u}} \\eta_\\mathrm{act}(i(u))\\,\\mathrm{d}u / i(u)}{\\int_0^{${u}} \\mathrm{d}u / i(u)}, \\qquad ${show('voltage')}`,
+    ),
   ];
 }
 

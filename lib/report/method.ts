@@ -218,6 +218,10 @@ function voltage(step: Step, r: Results): void {
       )
       .eq('open-circuit');
   }
+  if (r.electrochemistry.activationLoss) {
+    kineticVoltage(step, r);
+    return;
+  }
   step.text(
     mixed
       ? `The interconnects hold the whole cell at one voltage $V$, while the Nernst voltage changes along it. The losses are lumped into one area-specific resistance ASR at the terminals; the electrolyte is a mixed conductor, an ionic path of resistance $\\mathrm{ASR}/t_\\mathrm{ion}$ with the local Nernst voltage as its source beside an electronic path of $\\mathrm{ASR}/(1 - t_\\mathrm{ion})$. At the point $u$ the ions carry $i_\\mathrm{ion}(u)$, the electrons leak $i_e$, the same everywhere since $V$ is, and the terminals carry $i(u)$:`
@@ -249,6 +253,41 @@ function voltage(step: Step, r: Results): void {
     )
     .text(
       `The highest local current density, ${hotSpot(r).index === 0 ? 'at the inlet (the hot spot of the cell), follows from Eq. {{local-current}} with the inlet Nernst voltage' : `the hot spot of the cell, follows from Eq. {{local-current}} where the Nernst voltage is ${power ? 'highest' : 'lowest'}`}; a figure of section ${sectionNumber('charts')} shows the local current density and the Nernst voltage along the cell.`,
+    );
+}
+
+/**
+ * The method's step of the cell voltage where the basis gives an activation loss
+ * (lib/plant/activation.ts): the loss, the local balance, the area, the condition and the
+ * area-mean form with the loss breakdown.
+ */
+function kineticVoltage(step: Step, r: Results): void {
+  const power = r.technology.mode === 'power';
+  const given = r.electrochemistry.voltageSource === 'given';
+  step
+    .text(
+      `The interconnects hold the whole cell at one voltage $V$, while the Nernst voltage changes along it. The basis gives the activation (kinetic) loss of the electrodes, one symmetric Butler–Volmer term with the Tafel slope $b$ and the exchange current density $i_0$ on the geometric area (O'Hayre, Cha, Colella and Prinz, Fuel Cell Fundamentals, ch. 3), held at every temperature; the other losses are lumped into one area-specific resistance ASR:`,
+    )
+    .eq('activation-loss')
+    .text(
+      `At the point $u$ the local current density is the root of the local balance, ${power ? 'the Nernst voltage less the losses' : 'the Nernst voltage plus the losses'} (both rise steadily with $i$, so the root is unique):`,
+    )
+    .eq('local-current')
+    .text('The ions carry the charge $Q_1\\,\\mathrm{d}u$ of each step of the path over the area $\\mathrm{d}A$ that their local current density needs, so the active area and the mean current density are')
+    .eq('area-element')
+    .text('The mean current density is the harmonic mean of the local one. Written over the local ohmic loss $i(u)\\,\\mathrm{ASR}$, this is the condition the cell voltage meets:')
+    .eq('uniform-voltage')
+    .text(
+      `Averaging the local balance over the area gives the cell voltage from the area-mean Nernst voltage $\\bar{E}_A$ and the area-mean activation loss $\\bar{\\eta}_A$: the loss breakdown of the design point (a table of section ${sectionNumber('results')} lists its terms):`,
+    )
+    .eq('cell-voltage')
+    .text(
+      given
+        ? 'The basis gives the cell voltage, so the resistance the design implies is the root of Eq. {{uniform-voltage}} between zero and the resistance the voltage would imply without the activation loss: what is left of the loss at the design point once the activation loss is taken out. It holds the other cases of the basis, with the activation loss at their own current density.'
+        : `The basis gives the area-specific resistance, so the cell voltage is the root of Eq. {{uniform-voltage}}, found by Newton's method kept inside its bracket, with the integral evaluated on the fuel path's own model of $E(u)$.`,
+    )
+    .text(
+      `The highest local current density, the hot spot of the cell, is the root of Eq. {{local-current}} where the Nernst voltage is ${power ? 'highest' : 'lowest'}; a figure of section ${sectionNumber('charts')} shows the local current density and the Nernst voltage along the cell.`,
     );
 }
 

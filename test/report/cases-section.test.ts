@@ -11,7 +11,7 @@ import type { CaseResult, Results } from '../../lib/plant/results-schema.ts';
 import { ENVELOPE_QUANTITIES } from '../../lib/plant/envelope.ts';
 import { documentView } from '../../lib/report/document.ts';
 import { CASE_ROWS } from '../../lib/report/sections/cases.ts';
-import { formatTemperature } from '../../lib/report/format.ts';
+import { formatNumber, formatTemperature } from '../../lib/report/format.ts';
 import { renderDocumentHtml } from '../../lib/publish/render.ts';
 import type { RevisionContext } from '../../lib/report/revision.ts';
 
@@ -50,6 +50,12 @@ function formula(id: string, n: Record<string, number>, power: boolean): number 
   // Below thermoneutral the stack takes −(H_in − H_out + W).
   if (id.endsWith('-heat-demand')) return n.Hout! - n.Hin! - n.W!;
   // The local current at the terminals where E is highest (power) or lowest (electrolysis): (t E − ΔV_x − V)/ASR or (V − t E)/ASR, A/cm² with ASR in Ω cm².
+  // With an activation loss η = (b/ln 10) asinh(i/(2 i0)) (symmetric Butler–Volmer; O'Hayre et al., Fuel Cell Fundamentals, ch. 3, from memory)
+  // the line puts i_max into the local balance and gives the cell voltage back: E − ΔV_x − η(i) − i ASR (electrolysis E + η(i) + i ASR).
+  if (id.endsWith('-local-current') && n.b !== undefined) {
+    const eta = (n.b / Math.LN10) * Math.asinh(n.i! / (2 * n.i0!));
+    return power ? n.E! - (n.dV ?? 0) - eta - n.i! * n.ASR! : n.E! + eta + n.i! * n.ASR!;
+  }
   if (id.endsWith('-local-current')) return power ? ((n.t ?? 1) * n.E! - (n.dV ?? 0) - n.V!) / n.ASR! : (n.V! - (n.t ?? 1) * n.E!) / n.ASR!;
   if (id.endsWith('-degradation')) return n.V0 !== undefined ? n.V0 * (1 + (power ? -1 : 1) * n.r! * n.t!) : n.R0! * (1 + n.r! * n.t!);
   if (id.endsWith('-cell-current')) return n.j! * n.A!;
@@ -94,7 +100,7 @@ function resultOf(id: string, c: CaseResult): number {
   if (id.endsWith('-reformed-gas-heating')) return c.plant!.power!.duties.find((d) => d.id === 'reformed-gas-heating')!.duty_W / 1000;
   if (id.endsWith('-heat-recovered')) return c.plant!.power!.heatRecovery!.heatWithCondensation_W / 1000;
   if (id.endsWith('-heat-demand')) return c.heat!.heatDemand_W! / 1000;
-  if (id.endsWith('-local-current')) return h.maxLocalCurrentDensity_A_per_m2 / 1e4;
+  if (id.endsWith('-local-current')) return c.electrochemistry!.activationLoss ? h.cellVoltage_V : h.maxLocalCurrentDensity_A_per_m2 / 1e4;
   if (id.endsWith('-blower-power')) return c.plant!.power!.blower!.power_W / 1000;
   if (id.endsWith('-heat-supplied')) return c.plant!.electrolysis!.heatSupplied_W / 1000;
   if (id.endsWith('-coolers')) return c.plant!.electrolysis!.coolers_W / 1000;
@@ -152,6 +158,12 @@ describe.each(['thistlemere-sofc-chp', 'kestrelford-pem-electrolyser', 'corrin-b
         // An implicit line: the temperature is the one at which the products hold the reactants' enthalpy, stated in its title.
         const line = lines.find((l) => l.id.endsWith('oxidiser-enthalpy'));
         expect(line?.title, e.id).toContain(formatTemperature(e.value));
+        continue;
+      }
+      if (e.id === 'local-current-density' && c.electrochemistry!.activationLoss) {
+        // With an activation loss the local current density is the root of the local balance: its line puts it in, stated in its title, and gives V back.
+        const line = lines.find((l) => l.id === 'hot-spot' || l.id.endsWith('-local-current'));
+        expect(line?.title, e.id).toContain(`i_max = ${formatNumber(e.value / 1e4, 5)} A/cm2`);
         continue;
       }
       if (e.id === 'cell-voltage-lowest' && c.electrochemistry!.voltageSource === 'given') {

@@ -48,16 +48,27 @@ function formulas(r: Results): Record<string, Formula> {
     // (1 − t) V/ASR carrying no ions; the mean ionic current density is the harmonic mean of the
     // local one, U/∫du/(t E − ΔV_x − t V) = j ASR + (1 − t) V (electrolysis: U/∫du/(t V − t E) =
     // j ASR − (1 − t) V), and averaging i over the area gives V = t Ē_A ∓ ΔV_x ∓ j ASR.
-    'uniform-voltage': (n) => n.U! / (n.j! * n.ASR! + (power ? 1 : -1) * (1 - t(n)) * n.V!),
+    // With an activation loss (t_ion = 1) the lines are written over the local ohmic loss: no V in it.
+    'uniform-voltage': (n) => n.U! / (n.j! * n.ASR! + (power ? 1 : -1) * (1 - t(n)) * (n.V ?? 0)),
+    // With an activation loss its area mean η̄_A adds to the losses (eta; 0 without).
     'cell-voltage': (n) =>
       r.electrochemistry.voltageSource === 'given'
         ? power
-          ? (t(n) * n.EA! - n.dV! - n.V!) / n.j!
-          : (n.V! - t(n) * n.EA!) / n.j!
+          ? (t(n) * n.EA! - n.dV! - (n.eta ?? 0) - n.V!) / n.j!
+          : (n.V! - t(n) * n.EA! - (n.eta ?? 0)) / n.j!
         : power
-          ? t(n) * n.EA! - n.dV! - n.j! * n.ASR!
-          : t(n) * n.EA! + n.j! * n.ASR!,
-    'hot-spot': (n) => (power ? (t(n) * n.E! - dV(n) - n.V!) / n.ASR! : (n.V! - t(n) * n.E!) / n.ASR!),
+          ? t(n) * n.EA! - n.dV! - (n.eta ?? 0) - n.j! * n.ASR!
+          : t(n) * n.EA! + (n.eta ?? 0) + n.j! * n.ASR!,
+    // The symmetric Butler–Volmer loss η = (b/ln 10) asinh(i/(2 i0)) (O'Hayre et al., Fuel Cell
+    // Fundamentals, ch. 3, from memory); with it the hot spot's line puts i_max into the local
+    // balance E − ΔV_x − η(i) − i ASR = V (electrolysis E + η(i) + i ASR = V) and gives V back.
+    'activation-loss': (n) => (n.b! / Math.LN10) * Math.asinh(n.i! / (2 * n.i0!)),
+    'hot-spot': (n) =>
+      n.b !== undefined
+        ? (power ? n.E! - dV(n) - (n.b / Math.LN10) * Math.asinh(n.i! / (2 * n.i0!)) - n.i! * n.ASR! : n.E! + (n.b / Math.LN10) * Math.asinh(n.i! / (2 * n.i0!)) + n.i! * n.ASR!)
+        : power
+          ? (t(n) * n.E! - dV(n) - n.V!) / n.ASR!
+          : (n.V! - t(n) * n.E!) / n.ASR!,
     'ionic-current': (n) => n.N! * n.A! * (n.j! + (power ? 1 : -1) * ((1 - n.t!) * n.V!) / n.ASR!),
     'cell-current': (n) => n.j! * n.A!,
     cells: (n) =>
@@ -149,7 +160,8 @@ function resultOf(id: string, r: Results): number | null {
   if (steam) return (steam.liquidHeating_W + steam.evaporation_W + steam.superheating_W) / 1000;
   if (id === 'cell-voltage') return r.electrochemistry.voltageSource === 'given' ? r.electrochemistry.areaSpecificResistance_ohm_m2 * 1e4 : h.cellVoltage_V;
   if (id === 'uniform-voltage') return r.electrochemistry.harmonicIntegral_per_V;
-  if (id === 'hot-spot') return h.maxLocalCurrentDensity_A_per_m2 / 1e4;
+  if (id === 'hot-spot') return r.electrochemistry.activationLoss ? h.cellVoltage_V : h.maxLocalCurrentDensity_A_per_m2 / 1e4;
+  if (id === 'activation-loss') return r.electrochemistry.activationLoss!.atMeanCurrentDensity_V;
   if (id === 'ionic-current') return r.electrochemistry.ionicCurrent_A;
   return id in table ? table[id]! : null;
 }
@@ -173,8 +185,15 @@ function lines(c: ReturnType<typeof scaffoldCase>): CalcLine[] {
   return resultLines(c.results, c.basis, book).flatMap((g) => g.lines);
 }
 
-describe.each(CASES)('worked lines of the %s %s scaffold', (technology, mode) => {
-  const c = scaffoldCase(technology, mode);
+/** The PEM scaffolds with an activation loss: the power cell at its given voltage, the electrolyser at a given resistance. */
+const ACTIVATION = {
+  power: (y: string) => y.replace(/^(  cell-voltage: "0\.68 V".*)$/m, '$1\n  activation-loss: { tafel-slope: "65 mV", exchange-current-density: "1e-5 A/cm2", source: "test" }'),
+  electrolysis: (y: string) =>
+    y.replace(/^  cell-voltage: "1\.90 V".*$/m, '  area-specific-resistance: "0.15 ohm cm2"\n  activation-loss: { tafel-slope: "50 mV", exchange-current-density: "1e-3 A/cm2", source: "test" }'),
+};
+
+describe.each([...CASES.map(([t, m]) => [t, m, ''] as const), ['pem', 'power', 'with an activation loss'] as const, ['pem', 'electrolysis', 'with an activation loss'] as const])('worked lines of the %s %s scaffold %s', (technology, mode, variant) => {
+  const c = variant ? scaffoldCase(technology, mode, ACTIVATION[mode]) : scaffoldCase(technology, mode);
   const all = lines(c);
   const f = formulas(c.results);
 
@@ -183,6 +202,7 @@ describe.each(CASES)('worked lines of the %s %s scaffold', (technology, mode) =>
     for (const id of ['standard-voltage', 'mean-nernst', 'uniform-voltage', 'cell-voltage', 'hot-spot', 'cell-current', 'stack-current', 'stack-power', 'oxygen', 'heat-voltage', 'heat-balance', 'eff-voltage']) expect(ids).toContain(id);
     expect(ids.some((id) => id.startsWith('nernst-'))).toBe(true);
     expect(ids).toContain(mode === 'power' ? 'fuel-flow' : 'hydrogen');
+    expect(ids.includes('activation-loss')).toBe(variant !== '');
   });
 
   it.each(all.filter((l) => l.id !== 'mean-nernst').map((l) => [l.id, l] as const))('%s: the numbers shown give the result shown', (id, line) => recomputes(c, f, id, line));

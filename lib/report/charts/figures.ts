@@ -351,10 +351,18 @@ function heatAndPower(r: Results): Draft {
 
 /**
  * What the studies at other temperatures hold the resistance to: its Arrhenius law, or its design
- * value where the basis gives none (then a colder stack shows no rise in resistance), said beside
- * every figure that varies the stack temperature.
+ * value where the basis gives none (then a colder stack shows no rise in resistance), and the
+ * activation loss held at its values, said beside every figure that varies the stack temperature.
  */
 function resistanceNote(r: Results): string {
+  const kinetic = r.electrochemistry.activationLoss
+    ? ' The activation loss keeps its Tafel slope and exchange current density at every temperature (the basis gives no temperature law for them), so it does not grow as the stack cools either.'
+    : '';
+  return `${ohmicNote(r)}${kinetic}`;
+}
+
+/** The resistance's part of resistanceNote. */
+function ohmicNote(r: Results): string {
   const law = r.electrochemistry.resistanceLaw;
   if (!law) {
     return 'The area-specific resistance is held at its design value at every temperature: the basis gives no resistance-temperature law (operating-point.resistance-temperature-law), so these figures show only the thermodynamic effect of temperature, while a real cell\'s resistance rises as it cools.';

@@ -144,7 +144,39 @@ function voltagePool(r: Results, book: EquationBook): Record<string, QuantitySpe
       origin: given ? `implied by the given voltage: the root of ${eqRef(book, 'uniform-voltage')}` : e.resistanceLaw ? 'design input, at the operating temperature by its Arrhenius law' : 'design input',
     },
     EA: { name: 'EA', value: e.areaMeanNernst_V, unit: 'V', origin: `area-mean Nernst voltage, ${eqRef(book, 'cell-voltage')}, weighted by the local current of ${eqRef(book, 'local-current')} at this V` },
+    ...activationPool(r, book),
   };
+}
+
+/** The activation loss's numbers: the Tafel slope, the exchange current density and the area-mean loss; none without the loss. */
+function activationPool(r: Results, book: EquationBook): Record<string, QuantitySpec> {
+  const a = r.electrochemistry.activationLoss;
+  if (!a) return {};
+  return {
+    b: { name: 'b', value: a.tafelSlope_V_per_decade, unit: 'V', origin: 'Tafel slope (per decade of current density), design input' },
+    i0: { name: 'i0', value: a.exchangeCurrentDensity_A_per_m2 / 1e4, unit: 'A/cm2', origin: 'exchange current density, design input' },
+    eta: { name: 'eta', value: a.areaMean_V, unit: 'V', origin: `area-mean activation loss, ${eqRef(book, 'cell-voltage')}, over the local current of ${eqRef(book, 'local-current')} at this V` },
+  };
+}
+
+/** The activation loss at the mean current density of the design, where the basis gives the loss. */
+function activationLine(r: Results, book: EquationBook): LineSpec[] {
+  const a = r.electrochemistry.activationLoss;
+  if (!a) return [];
+  const pool = voltagePool(r, book);
+  return [
+    {
+      id: 'activation-loss',
+      title: 'Activation loss at the mean current density',
+      equation: 'activation-loss',
+      relation: 'loss',
+      quantities: [pool.b!, pool.i0!, { ...pool.j!, name: 'i' }],
+      value: a.atMeanCurrentDensity_V,
+      unit: 'V',
+      digits: 6,
+      note: `its area mean over the cell, ${formatNumber(a.areaMean_V * 1000, 5)} mV, enters the cell voltage below: the local current density is highest where E is ${r.technology.mode === 'power' ? 'highest' : 'lowest'}`,
+    },
+  ];
 }
 
 /** The uniform-voltage condition with this design's numbers (both sides the same number at the solved V or the implied ASR), and the cell voltage or resistance in the area-mean form. */
@@ -189,6 +221,7 @@ function hotSpotLine(r: Results, book: EquationBook): LineSpec {
 export function localCurrentLine(r: Results, book: EquationBook, nernstV: number, at: string): LineSpec {
   const pool = voltagePool(r, book);
   const E: QuantitySpec = { name: 'E', value: nernstV, unit: 'V', origin: `Nernst voltage at ${at}, the ${r.technology.mode === 'power' ? 'highest' : 'lowest'} along the cell` };
+  if (r.electrochemistry.activationLoss) return kineticLocalCurrentLine(r, book, { ...pool, E }, at);
   return {
     id: 'hot-spot',
     title: `Highest local current density, at ${at} (the hot spot)`,
@@ -199,6 +232,26 @@ export function localCurrentLine(r: Results, book: EquationBook, nernstV: number
     value: r.headline.maxLocalCurrentDensity_A_per_m2 / 1e4,
     unit: 'A/cm2',
     note: `${formatNumber(r.headline.maxLocalCurrentDensity_A_per_m2 / r.operatingPoint.currentDensity_A_per_m2, 3)} times the mean current density`,
+  };
+}
+
+/**
+ * The highest local current density with the activation loss: the root of the local balance of
+ * the cell, shown by putting it in, with the Nernst voltage at `at`, to give back the cell voltage.
+ */
+function kineticLocalCurrentLine(r: Results, book: EquationBook, pool: Record<string, QuantitySpec>, at: string): LineSpec {
+  const iMax = r.headline.maxLocalCurrentDensity_A_per_m2;
+  const i: QuantitySpec = { name: 'i', value: iMax / 1e4, unit: 'A/cm2', origin: `highest local current density, at ${at}: the root of this balance` };
+  return {
+    id: 'hot-spot',
+    title: `Highest local current density, at ${at} (the hot spot): i_max = ${formatNumber(iMax / 1e4, 5)} A/cm2 meets the local balance`,
+    equation: 'local-current',
+    relation: 'terminal',
+    quantities: quantitiesOf(book, 'local-current', 'terminal', { ...pool, i }),
+    value: r.headline.cellVoltage_V,
+    unit: 'V',
+    digits: 6,
+    note: `${formatNumber(iMax / r.operatingPoint.currentDensity_A_per_m2, 3)} times the mean current density; the balance gives back the cell voltage`,
   };
 }
 
@@ -233,5 +286,5 @@ export function voltageLines(r: Results, book: EquationBook): LineSpec[] {
       unit: 'V',
     });
   }
-  return [...lines, ...cellVoltageLines(r, book), hotSpotLine(r, book)];
+  return [...lines, ...activationLine(r, book), ...cellVoltageLines(r, book), hotSpotLine(r, book)];
 }

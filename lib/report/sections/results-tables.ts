@@ -56,10 +56,50 @@ function electrochemistry(r: Results): Pair[] {
         { name: 'Crossover allowance', unit: 'V', value: e.crossoverAllowance_V },
       ],
     },
+    ...activationRows(r),
     quantity(power ? 'Fuel utilization' : 'Conversion of the feed', e.utilization, '', pct(e.utilization)),
     quantity('Charge of complete reaction of the feed', e.chargeBasis_A, 'A', formatQuantity(e.chargeBasis_A, 'A', 6)),
     quantity('Largest element-balance error along the fuel path', e.elementBalanceError, '', formatNumber(e.elementBalanceError, 2)),
   ]);
+}
+
+/**
+ * With an activation loss: its two values, and the breakdown of the design point's voltage into the
+ * area-mean Nernst voltage and the losses (V = Ē_A − ΔV_x − η̄_A − j ASR in power mode, Ē_A + η̄_A +
+ * j ASR in electrolysis); none without.
+ */
+function activationRows(r: Results): Pair[] {
+  const e = r.electrochemistry;
+  const a = e.activationLoss;
+  if (!a) return [];
+  const power = r.technology.mode === 'power';
+  const mv = (v: number) => formatQuantity(v * 1000, 'mV', 4);
+  return [
+    {
+      label: 'Activation loss: Tafel slope / exchange current density',
+      text: `${formatQuantity(a.tafelSlope_V_per_decade * 1000, 'mV')} per decade / ${formatQuantity(a.exchangeCurrentDensity_A_per_m2 / 1e4, 'A/cm²')}`,
+      data: [
+        { name: 'Tafel slope', unit: 'V per decade', value: a.tafelSlope_V_per_decade },
+        { name: 'Exchange current density', unit: 'A/m2', value: a.exchangeCurrentDensity_A_per_m2 },
+      ],
+    },
+    {
+      label: power
+        ? 'Loss breakdown: area-mean Nernst voltage − crossover allowance − activation loss (area mean) − ohmic loss = cell voltage'
+        : 'Loss breakdown: area-mean Nernst voltage + activation loss (area mean) + ohmic loss = cell voltage',
+      text: power
+        ? `${formatQuantity(e.areaMeanNernst_V, 'V', 5)} − ${mv(e.crossoverAllowance_V)} − ${mv(a.areaMean_V)} − ${mv(a.ohmic_V)} = ${formatQuantity(r.headline.cellVoltage_V, 'V', 5)}`
+        : `${formatQuantity(e.areaMeanNernst_V, 'V', 5)} + ${mv(a.areaMean_V)} + ${mv(a.ohmic_V)} = ${formatQuantity(r.headline.cellVoltage_V, 'V', 5)}`,
+      data: [
+        { name: 'Loss breakdown: area-mean Nernst voltage', unit: 'V', value: e.areaMeanNernst_V },
+        ...(power ? [{ name: 'Loss breakdown: crossover allowance', unit: 'V', value: e.crossoverAllowance_V }] : []),
+        { name: 'Loss breakdown: activation loss, area mean', unit: 'V', value: a.areaMean_V },
+        { name: 'Loss breakdown: activation loss at the mean current density', unit: 'V', value: a.atMeanCurrentDensity_V },
+        { name: 'Loss breakdown: ohmic loss', unit: 'V', value: a.ohmic_V },
+        { name: 'Loss breakdown: cell voltage', unit: 'V', value: r.headline.cellVoltage_V },
+      ],
+    },
+  ];
 }
 
 const CELLS_FROM: Record<Results['operatingPoint']['cellsFrom'], string> = {
