@@ -66,7 +66,7 @@ const SCRIPT = /\s*[_^]/y;
  */
 export function splitNumbers(tex: string): KatexNumbers | null {
   if (!/\d/.test(tex) || SIZED.test(tex)) return null;
-  // Plain exec loops and no closure: some thousand expressions a page come through here.
+  // Plain exec loops and no closure (tsx names each closure made): some 210 expressions a page come through here.
   BARE_ARGUMENT.lastIndex = 0;
   for (let m = BARE_ARGUMENT.exec(tex); m !== null; m = BARE_ARGUMENT.exec(tex)) if (!NO_ARGUMENT.has(m[1]!)) return null;
   const numbers: string[] = [];
