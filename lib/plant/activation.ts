@@ -61,31 +61,48 @@ export class KineticCell {
     this.i0 = loss.exchangeCurrentDensityAPerM2;
   }
 
-  /** The root i ≥ 0 of (A) at the driving voltage y ≥ 0. */
-  current(y: number): number {
+  /** η of the root the last call of current() found: a start for the next, nearby root. */
+  eta = 0;
+
+  /**
+   * The root i ≥ 0 of (A) at the driving voltage y ≥ 0, by Newton's method on h(η) from the upper
+   * bound, or from `near`, the η of a nearby root (the sample before along the path): h is convex
+   * and rising, so from a start below the root one step lands above it (within the bound) and the
+   * iterates then fall to it; near the root that takes two or three steps instead of some seven.
+   */
+  current(y: number, near = Number.NaN): number {
+    this.eta = 0;
     if (!(y > 0)) return 0;
     if (y === Infinity) return y;
     const { c, i0, asr } = this;
-    if (asr === 0) return 2 * i0 * Math.sinh(y / c);
-    let eta = Math.min(y, c * Math.asinh(y / (2 * asr * i0)));
+    if (asr === 0) return 2 * i0 * Math.sinh((this.eta = y) / c);
+    const upper = Math.min(y, c * Math.asinh(y / (2 * asr * i0)));
+    let eta = upper;
+    // cosh from sinh, √(1 + sinh²): one transcendental a step instead of two.
+    if (near > 0 && near < upper) {
+      const s = Math.sinh(near / c);
+      const value = near + 2 * asr * i0 * s - y;
+      eta = value >= 0 ? near : Math.min(upper, near - value / (1 + ((2 * asr * i0) / c) * Math.sqrt(1 + s * s)));
+    }
     for (let k = 0; k < 200; k++) {
       const s = Math.sinh(eta / c);
       const value = eta + 2 * asr * i0 * s - y;
-      const slope = 1 + ((2 * asr * i0) / c) * Math.cosh(eta / c);
+      const slope = 1 + ((2 * asr * i0) / c) * Math.sqrt(1 + s * s);
       const next = eta - value / slope;
-      // Convex and rising from an upper bound: the iterates fall to the root; a step that no longer falls is rounding.
+      // Convex and rising from above the root: the iterates fall to it; a step that no longer falls is rounding.
       if (!(next < eta) || eta - next <= 1e-16 * eta) {
         eta = Math.min(eta, Math.max(next, 0));
         break;
       }
       eta = next;
     }
+    this.eta = eta;
     return 2 * i0 * Math.sinh(eta / c);
   }
 
-  /** g'(i) = ASR + c / √(i² + 4 i₀²). */
+  /** g'(i) = ASR + c / √(i² + 4 i₀²) (by Math.sqrt: Math.hypot, which guards against overflow no current density needs, took several times as long). */
   slope(i: number): number {
-    return this.asr + this.c / Math.hypot(i, 2 * this.i0);
+    return this.asr + this.c / Math.sqrt(i * i + 4 * this.i0 * this.i0);
   }
 
   /** F(i) of the exact interval integral. */
@@ -119,8 +136,8 @@ export interface KineticIntegral extends KineticSums {
 /** The parts of one interval: du/i, du/(i² g'), du/(i g'), η du/i. */
 type Parts = [number, number, number, number];
 
-function atNode(cell: KineticCell, y: number, weight: number): Parts {
-  const i = cell.current(y);
+function atNode(cell: KineticCell, y: number, weight: number, near: number): Parts {
+  const i = cell.current(y, near);
   const g = cell.slope(i);
   return [weight / i, weight / (i * i * g), weight / (i * g), (weight * cell.overpotential(i)) / i];
 }
@@ -130,14 +147,14 @@ function add(total: Parts, part: Parts): void {
 }
 
 /** A logarithmic inlet interval, y linear in s = ln u: 8-point Gauss–Legendre in s. */
-function logInterval(cell: KineticCell, u0: number, u1: number, y0: number, y1: number): Parts {
+function logInterval(cell: KineticCell, u0: number, u1: number, y0: number, y1: number, near: number): Parts {
   const s0 = Math.log(u0);
   const s1 = Math.log(u1);
   const half = (s1 - s0) / 2;
   const mid = (s0 + s1) / 2;
   const total: Parts = [0, 0, 0, 0];
   for (const [x, w] of GL8) {
-    for (const s of [mid - half * x, mid + half * x]) add(total, atNode(cell, y0 + ((y1 - y0) * (s - s0)) / (s1 - s0), w * half * Math.exp(s)));
+    for (const s of [mid - half * x, mid + half * x]) add(total, atNode(cell, y0 + ((y1 - y0) * (s - s0)) / (s1 - s0), w * half * Math.exp(s), near));
   }
   return total;
 }
@@ -150,13 +167,13 @@ const GL3: readonly (readonly [number, number])[] = [
 ];
 
 /** A linear interval: ∫du/i exactly by F (or by the trapezoid where y hardly changes), the rest by the trapezoid, the loss by Gauss–Legendre. */
-function linearInterval(cell: KineticCell, du: number, y0: number, y1: number, i0: number, i1: number, withLoss: boolean): Parts {
+function linearInterval(cell: KineticCell, du: number, y0: number, y1: number, i0: number, i1: number, withLoss: boolean, near: number): Parts {
   const dy = y1 - y0;
   const first = Math.abs(dy) < 1e-5 * y0 ? (du * (1 / i0 + 1 / i1)) / 2 : (du * (cell.primitive(i1) - cell.primitive(i0))) / dy;
   const perVolt = (du * (1 / (i0 * i0 * cell.slope(i0)) + 1 / (i1 * i1 * cell.slope(i1)))) / 2;
   const perOhm = (du * (1 / (i0 * cell.slope(i0)) + 1 / (i1 * cell.slope(i1)))) / 2;
   let loss = 0;
-  if (withLoss) for (const [x, w] of GL3) loss += w * du * atNode(cell, y0 + dy * x, 1)[3];
+  if (withLoss) for (const [x, w] of GL3) loss += w * du * atNode(cell, y0 + dy * x, 1, near)[3];
   return [first, perVolt, perOhm, loss];
 }
 
@@ -171,6 +188,8 @@ function accumulate(profile: Profile, cell: KineticCell, a: number, b: number, c
   let y0 = a * e[0]! + b;
   if (!(y0 > 0)) return null;
   let i0 = cell.current(y0);
+  // η at the sample before: where the next sample's root search starts (KineticCell.current).
+  let eta0 = cell.eta;
   const total: Parts = [0, 0, 0, 0];
   if (profile.logTail) {
     const y1 = a * e[1]! + b;
@@ -188,11 +207,13 @@ function accumulate(profile: Profile, cell: KineticCell, a: number, b: number, c
   for (let k = 1; k < n; k++) {
     const y1 = a * e[k]! + b;
     if (!(y1 > 0)) return null;
-    const i1 = cell.current(y1);
-    add(total, k <= logIntervals ? logInterval(cell, u[k - 1]!, u[k]!, y0, y1) : linearInterval(cell, u[k]! - u[k - 1]!, y0, y1, i0, i1, cumulative !== null));
+    const i1 = cell.current(y1, eta0);
+    const eta1 = cell.eta;
+    add(total, k <= logIntervals ? logInterval(cell, u[k - 1]!, u[k]!, y0, y1, eta0) : linearInterval(cell, u[k]! - u[k - 1]!, y0, y1, i0, i1, cumulative !== null, eta0));
     if (cumulative) cumulative[k] = total[0];
     y0 = y1;
     i0 = i1;
+    eta0 = eta1;
   }
   return { first: total[0], perVolt: total[1], perOhm: total[2], overpotential: total[3] };
 }

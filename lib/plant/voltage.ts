@@ -170,8 +170,8 @@ const pct = (x: number) => `${(x * 100).toPrecision(4)} %`;
  * The root of a function that is monotone on (lo, hi) and changes sign there, by Newton's method
  * kept inside the bracket (bisection where a step leaves it), to 1e-12 V.
  */
-function solveMonotone(f: (x: number) => { value: number; slope: number }, lo: number, hi: number, increasing: boolean): number {
-  let x = (lo + hi) / 2;
+function solveMonotone(f: (x: number) => { value: number; slope: number }, lo: number, hi: number, increasing: boolean, start = (lo + hi) / 2): number {
+  let x = start > lo && start < hi ? start : (lo + hi) / 2;
   for (let k = 0; k < 200; k++) {
     const { value, slope } = f(x);
     if (value === 0) return x;
@@ -327,13 +327,15 @@ function solveKineticVoltage(cell: Cell, loss: ActivationLoss, asr: number, limi
     const dI = cell.power ? sums.perVolt : -sums.perVolt;
     return { value: u / sums.first - j, slope: (-u * dI) / (sums.first * sums.first) };
   };
-  let step = j * asr + kinetic.overpotential(j) + 1e-3;
+  // The losses at the mean current density, j ASR + η(j), below the limit: a first guess near the root, and a bracket once doubled until it holds.
+  const losses = j * asr + kinetic.overpotential(j);
+  let step = losses + 1e-3;
   if (cell.power) {
     while (g(limit - step).value <= 0) step *= 2;
-    return solveMonotone(g, limit - step, limit, false);
+    return solveMonotone(g, limit - step, limit, false, limit - losses);
   }
   while (g(limit + step).value <= 0) step *= 2;
-  return solveMonotone(g, limit, limit + step, true);
+  return solveMonotone(g, limit, limit + step, true, limit + losses);
 }
 
 /**
