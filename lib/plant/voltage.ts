@@ -391,7 +391,8 @@ function kineticOperatingVoltage(cell: Cell, loss: ActivationLoss, limit: number
   const activationV = integral.overpotential / integral.first;
   const ohmicV = j * asr;
   const areaMeanNernstV = cell.power ? v + cell.dV + activationV + ohmicV : v - activationV - ohmicV;
-  const local = localPoints(cell, integral, (e) => kinetic.current(a * e + b));
+  // Sample by sample along the path: each root search starts from the one before (KineticCell.current).
+  const local = localPoints(cell, integral, (e) => kinetic.current(a * e + b, kinetic.eta));
   return {
     cellVoltageV: v,
     effectiveNernstV: cell.power ? areaMeanNernstV - cell.dV : areaMeanNernstV,
