@@ -163,7 +163,7 @@ describe.each(['thistlemere-sofc-chp', 'kestrelford-pem-electrolyser', 'corrin-b
       if (e.id === 'local-current-density' && c.electrochemistry!.activationLoss) {
         // With an activation loss the local current density is the root of the local balance: its line puts it in, stated in its title, and gives V back.
         const line = lines.find((l) => l.id === 'hot-spot' || l.id.endsWith('-local-current'));
-        expect(line?.title, e.id).toContain(`i_max = ${formatNumber(e.value / 1e4, 5)} A/cm2`);
+        expect(line?.title, e.id).toContain(`i_max = ${formatNumber(e.value / 1e4, 5)} A/cm²`);
         continue;
       }
       if (e.id === 'cell-voltage-lowest' && c.electrochemistry!.voltageSource === 'given') {

@@ -13,6 +13,7 @@ import type { EquationBook } from '../equation-book.ts';
 import { coupleQuotient, liquidWaterTerm, pressureName, WATER_SATURATION } from '../equations.ts';
 import { waterSaturationPressurePa } from '../../thermo/water-saturation.ts';
 import { formatNumber } from '../format.ts';
+import { unitText } from '../units.ts';
 import { hotSpot } from '../local-current.ts';
 import { sectionNumber } from '../outline.ts';
 import { constF, constR, eqRef, quantitiesOf } from './common.ts';
@@ -244,7 +245,7 @@ function kineticLocalCurrentLine(r: Results, book: EquationBook, pool: Record<st
   const i: QuantitySpec = { name: 'i', value: iMax / 1e4, unit: 'A/cm2', origin: `highest local current density, at ${at}: the root of this balance` };
   return {
     id: 'hot-spot',
-    title: `Highest local current density, at ${at} (the hot spot): i_max = ${formatNumber(iMax / 1e4, 5)} A/cm2 meets the local balance`,
+    title: `Highest local current density, at ${at} (the hot spot): i_max = ${formatNumber(iMax / 1e4, 5)} ${unitText('A/cm2')} meets the local balance`,
     equation: 'local-current',
     relation: 'terminal',
     quantities: quantitiesOf(book, 'local-current', 'terminal', { ...pool, i }),
