@@ -338,7 +338,7 @@ function draftPageWriter(fresh: string, expected: number, options: BuildOptions,
     written++;
     options.onProgress?.('render', Math.min(written, expected), expected);
     try {
-      if (options.renderAll || !page.keepKey || !kept.link(page.keepKey)) {
+      if (options.renderAll || !page.keepKey || !kept.link(page.keepKey, page.pagePath)) {
         render(page);
         renderedSinceCollection++;
       }

@@ -4,8 +4,8 @@
  * random name): the basis bytes, project id and file (through the results key, which also
  * covers the calculation library), the draft's revision context and history, the page's path,
  * and the code that renders (lib/ through the library fingerprint, every file under templates/,
- * and the installed version of each package the project depends on). `draftPageKey` hashes all
- * of them.
+ * the installed version of each package package.json names and of Nunjucks, package-lock.json,
+ * and the Node.js, V8, ICU and Unicode versions). `draftPageKey` hashes all of them.
  *
  * When a build has written a draft's files it records them under that key in the cache
  * (`.cellbasis-cache/pages/<key>.json`): each file's path in the site, size, modification time
@@ -19,17 +19,19 @@
  * writers (Eleventy's run for the index, the register pages and the assets) write other paths.
  *
  *   draftPageKey(inputs): string          the key of a draft page's inputs
- *   keptPages(root, out, fresh)            { link(key): boolean, record(key, files) }
- *     link     the files of `key` linked from the site at `out` into `fresh`; false when not all could be
+ *   keptPages(root, out, fresh)            { link(key, pagePath): boolean, record(key, files), used, linked() }
+ *     link     the files of `key` (the page at pagePath and its CSV files) linked from the site at `out` into `fresh`; false when not all could be
  *     record   the files just written into `fresh` (absolute paths) recorded under `key`
  */
 import { createHash } from 'node:crypto';
-import { linkSync, lstatSync, mkdirSync, readdirSync, readFileSync, statSync, unlinkSync } from 'node:fs';
-import { dirname, join, relative, sep } from 'node:path';
+import { existsSync, linkSync, lstatSync, mkdirSync, readdirSync, readFileSync, statSync, unlinkSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { dirname, join, posix, relative, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { CACHE_DIR, readJsonEntry, writeCacheEntry } from '../batch/results-cache.ts';
 import { libraryFingerprint } from '../batch/fingerprint.ts';
 import { isFileError } from '../core/file-errors.ts';
+import { tableFolder } from '../report/table-links.ts';
 
 const REPO = fileURLToPath(new URL('../..', import.meta.url));
 const TEMPLATES = join(REPO, 'templates');
@@ -59,25 +61,56 @@ function filesUnder(dir: string): string[] {
   });
 }
 
-/** The installed version of each package package.json names (dependencies and devDependencies), or "missing". */
-function packageVersions(): string {
-  const manifest = JSON.parse(readFileSync(join(REPO, 'package.json'), 'utf8')) as { dependencies?: Record<string, string>; devDependencies?: Record<string, string> };
-  const names = Object.keys({ ...manifest.dependencies, ...manifest.devDependencies }).sort();
-  return names
-    .map((name) => {
-      try {
-        return `${name}@${(JSON.parse(readFileSync(join(REPO, 'node_modules', name, 'package.json'), 'utf8')) as { version: string }).version}`;
-      } catch {
-        return `${name}@missing`;
+/**
+ * The installed version of a package, found from where `resolve` (Node's resolution from a
+ * module) takes its entry: up to the package.json that names it; "unresolved" for a package with
+ * no entry to resolve (types only).
+ */
+function installedVersion(name: string, resolve: (name: string) => string): string {
+  try {
+    let dir = dirname(resolve(name));
+    while (dir !== dirname(dir)) {
+      const manifest = join(dir, 'package.json');
+      if (existsSync(manifest)) {
+        const { name: named, version } = JSON.parse(readFileSync(manifest, 'utf8')) as { name?: string; version?: string };
+        if (named === name) return `${name}@${version}`;
       }
-    })
-    .join('\n');
+      dir = dirname(dir);
+    }
+  } catch {
+    // no entry point: said below
+  }
+  return `${name}@unresolved`;
 }
 
-/** SHA-256 over the library fingerprint, every file under templates/ (path and bytes) and the installed packages' versions; once a process. */
+/**
+ * The packages a page may depend on: each package of package.json as this module resolves it,
+ * Nunjucks as Eleventy resolves it (nunjucks-env.ts takes Eleventy's copy, which package.json
+ * does not name), and package-lock.json whole (every other package's locked version).
+ */
+function packageVersions(): string {
+  const manifest = JSON.parse(readFileSync(join(REPO, 'package.json'), 'utf8')) as { dependencies?: Record<string, string>; devDependencies?: Record<string, string> };
+  const here = createRequire(import.meta.url);
+  const fromEleventy = createRequire(here.resolve('@11ty/eleventy'));
+  const names = Object.keys({ ...manifest.dependencies, ...manifest.devDependencies }).sort();
+  const lock = existsSync(join(REPO, 'package-lock.json')) ? createHash('sha256').update(readFileSync(join(REPO, 'package-lock.json'))).digest('hex') : 'no lock';
+  return [...names.map((name) => installedVersion(name, (n) => fileURLToPath(import.meta.resolve(n)))), installedVersion('nunjucks', (n) => fromEleventy.resolve(n)), `package-lock.json ${lock}`].join('\n');
+}
+
+/** The runtime whose number formatting, regular expressions (Unicode data) and collation a page goes through. */
+function runtimeVersions(): string {
+  const v = process.versions;
+  return `node ${v.node} v8 ${v.v8} icu ${v.icu ?? '-'} unicode ${v.unicode ?? '-'}`;
+}
+
+/**
+ * SHA-256 over the library fingerprint, the runtime, the packages (packageVersions) and every
+ * file under templates/ (path and bytes); once a process (a build is one process: a process that
+ * changed its templates between two builds would keep pages of the old ones).
+ */
 function renderingCodeFingerprint(): string {
   if (codeFingerprint) return codeFingerprint;
-  const hash = createHash('sha256').update(`${libraryFingerprint()}\n${packageVersions()}\n`);
+  const hash = createHash('sha256').update(`${libraryFingerprint()}\n${runtimeVersions()}\n${packageVersions()}\n`);
   for (const path of filesUnder(TEMPLATES).sort()) {
     hash.update(`${relative(TEMPLATES, path)}\n`);
     hash.update(readFileSync(path));
@@ -106,10 +139,18 @@ function recordPath(root: string, key: string): string {
   return join(root, CACHE_DIR, 'pages', `${key}.json`);
 }
 
-function readRecord(root: string, key: string): PageRecord | undefined {
+/**
+ * The record of `key`, if it verifies and names only the page itself and CSV files of its own
+ * tables folder (`projects/<id>/index.html`, `projects/<id>/tables/<name>.csv`): a record naming
+ * anything else (the index, an asset, a register page, which the build writes itself) is not
+ * used, so that nothing the build writes can be a link into the site it replaces.
+ */
+function readRecord(root: string, key: string, pagePath: string): PageRecord | undefined {
   const value = readJsonEntry(recordPath(root, key)) as PageRecord | undefined;
   if (!value || value.format !== RECORD_FORMAT || !Array.isArray(value.files) || value.files.length === 0) return undefined;
-  const fine = value.files.every((f) => typeof f.path === 'string' && !f.path.split('/').includes('..') && !f.path.startsWith('/') && [f.size, f.mtimeMs, f.ino].every(Number.isFinite));
+  const tables = tableFolder(pagePath);
+  const own = (path: string) => path === pagePath || (path.startsWith(tables) && path.endsWith('.csv') && !path.slice(tables.length).includes('/') && posix.normalize(path) === path);
+  const fine = value.files.every((f) => typeof f.path === 'string' && own(f.path) && [f.size, f.mtimeMs, f.ino].every(Number.isFinite));
   return fine ? value : undefined;
 }
 
@@ -130,7 +171,7 @@ function asRecorded(path: string, file: KeptFile): boolean {
 }
 
 export interface KeptPages {
-  link(key: string): boolean;
+  link(key: string, pagePath: string): boolean;
   record(key: string, files: readonly string[]): void;
   /** The keys linked or recorded in this build (the cache entries it used). */
   readonly used: ReadonlySet<string>;
@@ -142,8 +183,8 @@ export function keptPages(root: string, out: string, fresh: string): KeptPages {
   const used = new Set<string>();
   let linked = 0;
   const inSite = (site: string, file: KeptFile) => join(site, ...file.path.split('/'));
-  const link = (key: string): boolean => {
-    const record = readRecord(root, key);
+  const link = (key: string, pagePath: string): boolean => {
+    const record = readRecord(root, key, pagePath);
     if (!record || !record.files.every((file) => asRecorded(inSite(out, file), file))) return false;
     const made: string[] = [];
     const folders = new Set<string>();
@@ -154,6 +195,8 @@ export function keptPages(root: string, out: string, fresh: string): KeptPages {
         folders.add(dirname(to));
         linkSync(inSite(out, file), to);
         made.push(to);
+        // The file linked is the one checked: another process (serve) may have replaced it between the check and the link.
+        if (!asRecorded(to, file)) throw Object.assign(new Error('replaced while linked'), { code: 'ESTALE' });
       }
     } catch (error) {
       if (!systemError(error)) throw error;

@@ -9,7 +9,7 @@ import { tmpdir } from 'node:os';
 import { join, relative } from 'node:path';
 import { afterAll, expect, it } from 'vitest';
 import { buildSite } from '../../lib/publish/build.ts';
-import { draftPageKey } from '../../lib/publish/kept-pages.ts';
+import { draftPageKey, keptPages } from '../../lib/publish/kept-pages.ts';
 import { renderScaffold } from '../../lib/basis/scaffolds.ts';
 import { CACHE_DIR } from '../../lib/batch/results-cache.ts';
 import { run } from '../helpers/run-cli.ts';
@@ -129,4 +129,31 @@ it('cellbasis build says how many pages it kept, and --render-all renders them a
   const all = await run(['build', '--html-only', '--quiet', '--render-all'], root);
   expect(all.code, all.err).toBe(0);
   expect(all.err).not.toContain('kept');
+});
+
+it('uses no record that names a file beyond the page and its own tables folder (the build writes those itself)', () => {
+  const root = mkdtempSync(join(tmpdir(), 'cellbasis-kept-records-'));
+  made.push(root);
+  const old = join(root, 'old');
+  const paths = ['projects/p1/index.html', 'projects/p1/tables/streams.csv', 'projects/p2/index.html', 'index.html', 'projects/p1/tables/sub/x.csv'];
+  for (const path of paths) {
+    mkdirSync(join(old, path, '..'), { recursive: true });
+    writeFileSync(join(old, path), path);
+  }
+  // Records made as a build makes them, over the files of `old` (written there, as into a fresh folder).
+  const writer = keptPages(root, join(root, 'none'), old);
+  const at = (...names: string[]) => names.map((n) => join(old, n));
+  writer.record('a'.repeat(64), at('projects/p1/index.html', 'projects/p1/tables/streams.csv'));
+  writer.record('b'.repeat(64), at('projects/p1/index.html', 'index.html'));
+  writer.record('c'.repeat(64), at('projects/p1/index.html', 'projects/p2/index.html'));
+  writer.record('d'.repeat(64), at('projects/p1/index.html', 'projects/p1/tables/sub/x.csv'));
+  const fresh = join(root, 'fresh');
+  mkdirSync(fresh);
+  const reader = keptPages(root, old, fresh);
+  for (const key of ['b', 'c', 'd']) expect(reader.link(key.repeat(64), 'projects/p1/index.html'), key).toBe(false);
+  expect(readdirSync(fresh), 'nothing linked by a refused record').toEqual([]);
+  expect(reader.link('a'.repeat(64), 'projects/p2/index.html'), 'a record for another page').toBe(false);
+  expect(reader.link('a'.repeat(64), 'projects/p1/index.html')).toBe(true);
+  expect(readFileSync(join(fresh, 'projects/p1/tables/streams.csv'), 'utf8')).toBe('projects/p1/tables/streams.csv');
+  expect(reader.linked()).toBe(1);
 });
