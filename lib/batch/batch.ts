@@ -80,12 +80,14 @@ const PER_WORKER = 150;
  * capped at 22 MB it still calculated the largest demo (the solid oxide CHP with its operating
  * cases), at 16-20 MB it died loading the library, at 24 MB it calculated the 500 synthetic
  * projects and the demos but nearly twice as slowly (collecting all the time), and at 48 MB the
- * 104 projects took twice the processor time of 64 MB or more. 96 MB is four times the need and
- * clear of that slowdown; the young generation at 16 MB (its default is 3 × 16 MB of
- * semi-spaces) cost no measurable time. A worker that runs out all the same loses nothing: its
- * job is calculated in this thread (inThreads).
+ * 104 projects took twice the processor time of 64 MB or more. 96 MB with a young generation of
+ * 16 MB was used until 5 December 2026; now 64 MB and 8 MB, with the worker collecting its own
+ * heap whenever it grew 16 MiB (calc-worker.ts): a cold build of 500 synthetic projects peaked at
+ * 379-384 MiB against 382-393 MiB, in the same processor time (76.8 s against 77.0 s, run one after
+ * the other, load average 8-10). A worker that runs out all the same loses nothing: its job is
+ * calculated in this thread (inThreads).
  */
-const WORKER_LIMITS: ResourceLimits = { maxOldGenerationSizeMb: 96, maxYoungGenerationSizeMb: 16 };
+const WORKER_LIMITS: ResourceLimits = { maxOldGenerationSizeMb: 64, maxYoungGenerationSizeMb: 8 };
 
 function outcomeOf(reply: WorkerReply): CalculationOutcome {
   switch (reply.kind) {
@@ -122,6 +124,20 @@ function calculateHere(basis: DesignBasis): CalculationOutcome {
  * (a full collection every few jobs): 48 MiB is where the memory still fell for little time.
  */
 const HEAP_SLACK_BYTES = 48 * 1024 * 1024;
+
+/**
+ * The same slack while calculation workers run beside this thread. A worker is a second copy of
+ * the library and its loader in the process (55-65 MiB of RSS with the library loaded and no job
+ * run, measured 5 December 2026 by starting idle workers), so a cold build's peak stepped up when
+ * the batch was large enough to start one (N = 150 and more): 329-337 MiB at 100 bench/synthetic.ts
+ * projects (this thread alone), 382-393 MiB at 500 (+15-17 %, against the target of +15 % at most:
+ * memory must not depend on the number of projects). With this slack at 24 MiB, the worker's own
+ * heap bounded (calc-worker.ts) and its limits lowered (WORKER_LIMITS): 359 and 363 MiB at 500
+ * (+7-10 %), for some 10 % more processor time in the build (81-88 s against 73-77 s for the cold
+ * build of 500; runs beside other work, load average 5-10, so the figure is rough). The worker's
+ * changes alone gave 379-384 MiB; this slack alone 374 MiB.
+ */
+const SHARED_HEAP_SLACK_BYTES = 24 * 1024 * 1024;
 
 /** A job whose basis is loaded, ready to calculate. */
 interface Ready {
@@ -224,7 +240,7 @@ async function runBatch(jobs: DeferredJob[], options: BatchOptions, keep: boolea
   const outcomes: (CalculationOutcome | undefined)[] = new Array(jobs.length);
   const keys = jobs.map((j) => resultsKey(j.text, j.id, j.file));
   let done = 0;
-  const bound = heapBound(HEAP_SLACK_BYTES);
+  let bound = heapBound(HEAP_SLACK_BYTES);
   const report = (index: number, outcome: CalculationOutcome | undefined) => {
     if (outcome?.ok && !outcome.cached && options.cache) options.cache.put(keys[index]!, outcome.results);
     outcomes[index] = keep || !outcome?.ok || !options.cache ? outcome : undefined;
@@ -256,7 +272,11 @@ async function runBatch(jobs: DeferredJob[], options: BatchOptions, keep: boolea
   const cores = Math.max(1, options.workers ?? availableParallelism());
   const alsoHere = options.alsoHere ?? true;
   const count = Math.min(alsoHere ? cores - 1 : cores, Math.floor(pending.length / (options.jobsPerWorker ?? PER_WORKER)));
-  if (count >= 1) await inThreads(take, count, options, report);
-  else for (let job = take(); job; job = take()) report(job.index, calculateHere(job.basis));
+  if (count >= 1) {
+    bound = heapBound(SHARED_HEAP_SLACK_BYTES);
+    await inThreads(take, count, options, report);
+  } else {
+    for (let job = take(); job; job = take()) report(job.index, calculateHere(job.basis));
+  }
   return outcomes;
 }

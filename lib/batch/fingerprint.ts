@@ -1,6 +1,7 @@
 /**
- * A fingerprint of the calculation library: SHA-256 over the tool version and every source and
- * data file under lib/ (sorted by path). Cached results are keyed by it, so a changed equation,
+ * A fingerprint of the calculation library: SHA-256 over the tool version and every file under
+ * lib/ (sorted by path; every kind, so that a script, a data table or a text of a kind added
+ * later is covered too). Cached results are keyed by it, so a changed equation,
  * coefficient or hazard table never serves a stale result, whether or not the version was raised.
  */
 import { createHash } from 'node:crypto';
@@ -10,7 +11,6 @@ import { fileURLToPath } from 'node:url';
 import { toolVersion } from '../core/version.ts';
 
 const LIB = fileURLToPath(new URL('..', import.meta.url));
-const KINDS = /\.(ts|yaml|yml|json|inp|txt)$/;
 
 let fingerprint: string | undefined;
 
@@ -18,7 +18,7 @@ function files(dir: string): string[] {
   return readdirSync(dir, { withFileTypes: true }).flatMap((entry) => {
     const path = join(dir, entry.name);
     if (entry.isDirectory()) return files(path);
-    return KINDS.test(entry.name) ? [path] : [];
+    return entry.isFile() ? [path] : [];
   });
 }
 

@@ -48,12 +48,14 @@ import { readRegularFile } from '../core/read-file.ts';
 import { realLocation, issuedFolderAt, within } from '../archive/layout.ts';
 import { processAlive } from '../archive/issued-folder.ts';
 import { collectGarbage } from '../batch/collect-garbage.ts';
+import { getHeapStatistics } from 'node:v8';
 import { calculateIntoCache, type CalculationOutcome, type DeferredJob } from '../batch/batch.ts';
 import { ResultsCache, resultsKey } from '../batch/results-cache.ts';
 import { ChromiumMissingError, chromiumMissingMessage, findChromium } from './chromium.ts';
 import { printDrafts } from './draft-pdfs.ts';
 import { removeCacheLeftovers } from './cache-leftovers.ts';
 import { removeUnusedCacheEntries, type UsedKeys } from './cache-unused.ts';
+import { keptPages, type KeptPages } from './kept-pages.ts';
 import { UserError, EXIT_INTERNAL, EXIT_VALIDATION } from '../core/errors.ts';
 import { setBuildContext } from './build-context.ts';
 import { notOursError, removeOwnFolder, siteFolderProblem, SYMBOLIC_LINK, writeSiteMarker } from './site-marker.ts';
@@ -77,6 +79,16 @@ import { renderViewBytes } from './render.ts';
  */
 export const PAGES_PER_RUN = 25;
 
+/**
+ * Pages kept from the site replaced (lib/publish/kept-pages.ts) leave little garbage (their
+ * project's results read, a few strings), and a full collection of the build's heap (some 86 MB
+ * alive) took 125-175 ms (5 December 2026, `--trace-gc`, load average about 6): one every
+ * PAGES_PER_RUN kept pages cost about 6 ms a page, as much as the rest of keeping it. Between
+ * rendered pages the build collects when the heap in use has grown this much since its last
+ * full collection, as V8 would have let it grow anyway.
+ */
+const KEPT_PAGES_HEAP_SLACK_BYTES = 64 * 1024 * 1024;
+
 /** The steps of a build, in order, where `pauseAt` may stop it (moved-aside only where `out` is a real folder). */
 export const BUILD_STEPS = ['temp-created', 'rendered', 'printed', 'completed', 'linked', 'moved-aside', 'swapped'] as const;
 export type BuildStep = (typeof BUILD_STEPS)[number];
@@ -92,6 +104,8 @@ export interface BuildReport {
   leftovers: Leftovers;
   /** Cache entries no project uses any more, removed after the build (lib/publish/cache-unused.ts): how many, and their size. */
   unusedCache: { entries: number; bytes: number };
+  /** Draft pages whose files were kept from the site replaced, unchanged, instead of rendered (lib/publish/kept-pages.ts). */
+  keptPages: number;
 }
 
 export interface Leftovers {
@@ -269,6 +283,8 @@ export interface BuildOptions extends SiteOptions {
   out?: string;
   /** Print each working draft to PDF (default: when Chromium is found). */
   pdf?: boolean;
+  /** Render every draft's page, keeping none from the site replaced even where its inputs are unchanged (lib/publish/kept-pages.ts); the pages are still recorded for the next build. */
+  renderAll?: boolean;
   /** Progress of the build's long steps: calculation and printing. */
   onProgress?: (step: 'calculate' | 'render' | 'print', done: number, total: number) => void;
   /** Stop at this step and wait to be killed (tests). */
@@ -300,26 +316,40 @@ function checkOutput(root: string, out: string): void {
 /**
  * Writes each working draft's page and its tables' CSV files into `fresh` as the site model loads
  * its project (SiteOptions.onDraftPage), with the basis and results the load holds: a page made
- * from the model afterwards read, parsed and validated its basis and read its results again. Each
- * page is written as bytes (renderViewBytes) and its view let go; a full collection follows every
- * PAGES_PER_RUN pages (see there). Returns the function the model calls and a count.
+ * from the model afterwards read, parsed and validated its basis and read its results again. A
+ * draft whose inputs are those of a page the site being replaced holds unchanged has its files
+ * linked from there (`kept`, unless options.renderAll); every other page is written as bytes
+ * (renderViewBytes), recorded for the next build, and its view let go. A full collection follows
+ * every PAGES_PER_RUN pages rendered (see there). Returns the function the model calls and a count.
  */
-function draftPageWriter(fresh: string, expected: number, options: BuildOptions): { write: (page: PageEntry) => void; written: () => number } {
+function draftPageWriter(fresh: string, expected: number, options: BuildOptions, kept: KeptPages): { write: (page: PageEntry) => void; written: () => number } {
   let written = 0;
+  const render = (page: PageEntry) => {
+    const view = page.view();
+    const files = writeTableFiles(fresh, view, true);
+    const file = join(fresh, ...page.pagePath.split('/'));
+    mkdirSync(dirname(file), { recursive: true });
+    renderViewBytes(view, (bytes) => writeFileSync(file, bytes));
+    if (page.keepKey) kept.record(page.keepKey, [file, ...files]);
+  };
+  let renderedSinceCollection = 0;
+  let heapAfterCollection = getHeapStatistics().used_heap_size;
   const write = (page: PageEntry) => {
+    written++;
+    options.onProgress?.('render', Math.min(written, expected), expected);
     try {
-      const view = page.view();
-      written++;
-      options.onProgress?.('render', Math.min(written, expected), expected);
-      writeTableFiles(fresh, view, true);
-      const file = join(fresh, ...page.pagePath.split('/'));
-      mkdirSync(dirname(file), { recursive: true });
-      renderViewBytes(view, (bytes) => writeFileSync(file, bytes));
+      if (options.renderAll || !page.keepKey || !kept.link(page.keepKey, page.pagePath)) {
+        render(page);
+        renderedSinceCollection++;
+      }
     } catch (error) {
       if (error instanceof UserError || fileErrorIn(error)) throw error;
       throw new UserError(`the site could not be rendered: ${(error as Error).message}`, EXIT_INTERNAL);
     }
-    if (written % PAGES_PER_RUN === 0) collectGarbage();
+    if (renderedSinceCollection < PAGES_PER_RUN && getHeapStatistics().used_heap_size - heapAfterCollection < KEPT_PAGES_HEAP_SLACK_BYTES) return;
+    collectGarbage();
+    renderedSinceCollection = 0;
+    heapAfterCollection = getHeapStatistics().used_heap_size;
   };
   return { write, written: () => written };
 }
@@ -420,12 +450,13 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
   const names = buildNames(out);
   const fresh = names.fresh;
   mkdirSync(fresh);
+  const kept = keptPages(root, out, fresh); // unchanged drafts' files, linked from the site at `out` as it stands (draftPageWriter)
   let model: SiteModel;
   try {
     writeSiteMarker(fresh);
     await pause(options, 'temp-created');
     // Each draft's page is written as its project loads; a project with an error stops the pages, and the load then throws with every problem.
-    const pages = draftPageWriter(fresh, listProjects(root).length, options);
+    const pages = draftPageWriter(fresh, listProjects(root).length, options, kept);
     model = loadSiteModel(root, { ...options, results, draftPdfs: printing, onDraftPage: pages.write });
     if (pages.written() < model.pages.length || model.pages.length === 0) options.onProgress?.('render', model.pages.length, model.pages.length);
     // What calculating and reading the projects left behind goes before the rest is rendered.
@@ -453,8 +484,8 @@ export async function buildSite(options: BuildOptions): Promise<BuildReport> {
   await pause(options, 'swapped');
   removeLeftovers(out);
   // Given its results (options.results), the build did not read every basis: it removes nothing then.
-  const used: UsedKeys = options.results ? {} : { results: keys, bases: keys, ...(pdfKeys ? { pdf: pdfKeys } : {}) };
+  const used: UsedKeys = options.results ? {} : { results: keys, bases: keys, ...(pdfKeys ? { pdf: pdfKeys } : {}), pages: kept.used };
   const unusedCache = removeUnusedCacheEntries(root, used, startedMs);
   const warnings = printing ? [...notices, ...model.warnings] : [...notices, ...model.warnings, `no PDFs were printed: ${options.pdf === false ? 'HTML only was asked for' : chromiumMissingMessage()}`];
-  return { out, documents: model.pages.length + model.revisionPages.length, pdfs: printing ? model.drafts.length : 0, warnings, leftovers, unusedCache };
+  return { out, documents: model.pages.length + model.revisionPages.length, pdfs: printing ? model.drafts.length : 0, warnings, leftovers, unusedCache, keptPages: kept.linked() };
 }

@@ -12,7 +12,7 @@ import { processAlive } from '../archive/issued-folder.ts';
 import { CACHE_DIR } from '../batch/results-cache.ts';
 
 /** The cache folders whose entries are written through `<entry>.<pid>.tmp`, with their entries' extension. */
-export const ENTRY_EXTENSIONS = { results: 'json', bases: 'json', pdf: 'pdf' } as const;
+export const ENTRY_EXTENSIONS = { results: 'json', bases: 'json', pdf: 'pdf', pages: 'json' } as const;
 export const CACHE_FOLDERS = Object.keys(ENTRY_EXTENSIONS) as (keyof typeof ENTRY_EXTENSIONS)[];
 
 /** Removes the stale temporary files under `<root>/.cellbasis-cache/`; returns their paths relative to root. */

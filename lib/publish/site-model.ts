@@ -28,6 +28,7 @@ import { runAllChecks } from '../verification/checks.ts';
 import { documentView, type DocumentView } from '../report/document.ts';
 import { revisionHistory, type ChangeSummary, type DraftRecord, type RevisionHistoryEntry } from '../report/history.ts';
 import { draftPagePath, relativeHref, revisionPagePath, rootPrefix } from '../report/links.ts';
+import { draftPageKey } from './kept-pages.ts';
 import { INDEX_PATH, portfolioEntry, portfolioView, type PortfolioEntry, type PortfolioView } from '../report/portfolio.ts';
 import type { RevisionContext } from '../report/revision.ts';
 import { revisionPageView, type RevisionPageView } from '../report/revision-page.ts';
@@ -45,6 +46,8 @@ import { ASSET_DIR } from './site-assets.ts';
 export interface PageEntry {
   pagePath: string;
   view(): DocumentView;
+  /** A draft's page: the key of its inputs (lib/publish/kept-pages.ts), under which a build keeps its files. */
+  keepKey?: string;
 }
 
 /** The register page of an issued revision. */
@@ -328,7 +331,7 @@ export function loadProjectPages(loader: ProjectLoader, id: string, problems: Si
   const document = options.keepDrafts ? keptDocument(loaded.basis, results) : documentAgain(loader, id, key, loader.cache.has(key) ? null : results);
   return {
     pages: [draftPage(draftPath, document, draft, history, checks)],
-    current: draftPage(draftPath, keptDocument(loaded.basis, results), draft, history, checks),
+    current: { ...draftPage(draftPath, keptDocument(loaded.basis, results), draft, history, checks), keepKey: draftPageKey({ resultsKey: key, pagePath: draftPath, revision: draft, history }) },
     revisionPages: register.pages,
     copies: register.copies,
     draft: { id, pagePath: draftPath, date, revision: draft, document },

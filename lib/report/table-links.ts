@@ -56,8 +56,13 @@ export function tablesOf(view: unknown): Table[] {
 
 /** The site path of a table's CSV file beside the page at `pagePath` ("projects/x/index.html"). */
 export function tableFilePath(pagePath: string, t: Table): string {
+  return `${tableFolder(pagePath)}${t.name}.csv`;
+}
+
+/** The folder, with its closing slash, of a page's CSV files: `<page's folder>/tables/`. */
+export function tableFolder(pagePath: string): string {
   const folder = pagePath.includes('/') ? pagePath.slice(0, pagePath.lastIndexOf('/') + 1) : '';
-  return `${folder}${TABLE_FOLDER}/${t.name}.csv`;
+  return `${folder}${TABLE_FOLDER}/`;
 }
 
 /** The tables linkTables found in each view, so that the site writing their files need not walk the view again. */

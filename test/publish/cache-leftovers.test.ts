@@ -32,17 +32,19 @@ it('removes the temporary files of ended processes from every cache, and nothing
     results: [`${key('a')}.json`, `${key('b')}.json.${dead}.tmp`, `${key('c')}.json.${live}.tmp`, `${key('d')}.json.${process.pid}.tmp`, `bb.json.${dead}.tmp`],
     bases: [`${key('a')}.json`, `${key('9')}.json.${dead}.tmp`, `${key('c')}.json.${live}.tmp`],
     pdf: [`${key('e')}.pdf`, `${key('f')}.pdf.${dead}.tmp`, 'notes.tmp', `${key('f')}.json.${dead}.tmp`],
+    pages: [`${key('a')}.json`, `${key('7')}.json.${dead}.tmp`, `${key('c')}.json.${live}.tmp`],
   };
   for (const folder of CACHE_FOLDERS) {
     mkdirSync(join(root, CACHE_DIR, folder), { recursive: true });
     for (const n of names[folder]!) writeFileSync(join(root, CACHE_DIR, folder, n), 'x');
   }
   const removed = removeCacheLeftovers(root);
-  expect(removed.sort()).toEqual([join(CACHE_DIR, 'bases', `${key('9')}.json.${dead}.tmp`), join(CACHE_DIR, 'pdf', `${key('f')}.pdf.${dead}.tmp`), join(CACHE_DIR, 'results', `${key('b')}.json.${dead}.tmp`)]);
+  expect(removed.sort()).toEqual([join(CACHE_DIR, 'bases', `${key('9')}.json.${dead}.tmp`), join(CACHE_DIR, 'pages', `${key('7')}.json.${dead}.tmp`), join(CACHE_DIR, 'pdf', `${key('f')}.pdf.${dead}.tmp`), join(CACHE_DIR, 'results', `${key('b')}.json.${dead}.tmp`)]);
   // This process's own file is kept too: it may be writing it now (a second build in the same process).
   expect(readdirSync(join(root, CACHE_DIR, 'results')).sort()).toEqual([`${key('a')}.json`, `${key('c')}.json.${live}.tmp`, `${key('d')}.json.${process.pid}.tmp`, `bb.json.${dead}.tmp`].sort());
   expect(readdirSync(join(root, CACHE_DIR, 'bases')).sort()).toEqual([`${key('a')}.json`, `${key('c')}.json.${live}.tmp`].sort());
   expect(readdirSync(join(root, CACHE_DIR, 'pdf')).sort()).toEqual([`${key('e')}.pdf`, 'notes.tmp', `${key('f')}.json.${dead}.tmp`].sort());
+  expect(readdirSync(join(root, CACHE_DIR, 'pages')).sort()).toEqual([`${key('a')}.json`, `${key('c')}.json.${live}.tmp`].sort());
   expect(removeCacheLeftovers(root), 'a second pass finds nothing').toEqual([]);
 });
 

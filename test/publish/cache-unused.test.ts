@@ -59,13 +59,13 @@ it('is quiet where there is no cache', () => {
   expect(removeUnusedCacheEntries(tempRoot(), { results: new Set(), bases: new Set(), pdf: new Set() }, Date.now())).toEqual({ entries: 0, bytes: 0 });
 });
 
-it('cellbasis build: a changed basis leaves one results entry and one checked basis a project, and the build says what it removed', async () => {
+it('cellbasis build: a changed basis leaves one results entry, one checked basis and one page record a project, and the build says what it removed', async () => {
   const root = tempRoot();
   for (const id of ['p1', 'p2']) {
     mkdirSync(join(root, 'projects', id), { recursive: true });
     writeFileSync(join(root, 'projects', id, 'basis.yaml'), renderScaffold('pem', 'power', id, '2026-11-30'));
   }
-  const folders = ['results', 'bases'].map((f) => join(root, CACHE_DIR, f));
+  const folders = ['results', 'bases', 'pages'].map((f) => join(root, CACHE_DIR, f));
   const first = await run(['build', '--html-only', '--quiet'], root);
   expect(first.code, first.err).toBe(0);
   expect(first.err).not.toMatch(/no project uses/);
@@ -78,12 +78,12 @@ it('cellbasis build: a changed basis leaves one results entry and one checked ba
   const second = await run(['build', '--html-only', '--quiet'], root);
   expect(second.code, second.err).toBe(0);
   const gone = folders.reduce((sum, dir, i) => sum + before[i]!.filter((n) => !readdirSync(dir).includes(n)).length, 0);
-  expect(gone, 'the old entry of p1 in each folder').toBe(2);
+  expect(gone, 'the old entry of p1 in each folder').toBe(3);
   for (const [i, dir] of folders.entries()) {
     const after = readdirSync(dir).sort();
     expect(after, dir).toHaveLength(2);
     expect(after.filter((n) => before[i]!.includes(n)), `${dir}: p2's entry, unchanged`).toHaveLength(1);
     for (const n of after) expect(statSync(join(dir, n)).isFile()).toBe(true);
   }
-  expect(second.err).toMatch(/removed 2 cache entries no project uses any more \(\d+\.\d MiB\) from \.cellbasis-cache\//);
+  expect(second.err).toMatch(/removed 3 cache entries no project uses any more \(\d+\.\d MiB\) from \.cellbasis-cache\//);
 }, 120_000);

@@ -14,7 +14,7 @@ import { progressReporter } from '../progress.ts';
 export const buildCommand: Command = {
   name: 'build',
   summary: 'build the design-basis documents of every project into site/ (atomically)',
-  usage: 'build [--out DIR] [--html-only] [--quiet]',
+  usage: 'build [--out DIR] [--html-only] [--render-all] [--quiet]',
   details:
     'Renders each projects/<id>/basis.yaml as its working draft, each issued revision as its own page, and the\n' +
     'portfolio index, into a fresh folder beside site/; site/ (a link) is switched to it only when everything was written.\n' +
@@ -22,11 +22,14 @@ export const buildCommand: Command = {
     'issue date, whichever is later.\n' +
     'Each draft is also printed beside its page, to site/projects/<id>/document.pdf (DIR/projects/<id>/document.pdf\n' +
     'with --out), when Chromium is found (the build says so when it is not). Results and PDFs of unchanged projects\n' +
-    'come from .cellbasis-cache/.',
+    'come from .cellbasis-cache/, and a draft whose page the site being replaced holds, made from the same inputs by the\n' +
+    'same code and unchanged since, keeps that page and its CSV files (linked, not rendered again); --render-all renders\n' +
+    'every page.',
   positionals: [0, 0],
   options: [
     { name: 'out', type: 'string', value: 'DIR', description: 'write the site to DIR instead of site/' },
     { name: 'html-only', type: 'boolean', description: 'do not print the drafts to PDF' },
+    { name: 'render-all', type: 'boolean', description: 'render every draft page, keeping none from the site being replaced' },
     { name: 'quiet', type: 'boolean', description: 'no progress output (for scripts)' },
   ],
   async run(args, io) {
@@ -44,6 +47,7 @@ export const buildCommand: Command = {
         root: io.cwd,
         out: out === undefined ? join(io.cwd, 'site') : resolve(io.cwd, out),
         ...(args.values['html-only'] ? { pdf: false } : {}),
+        ...(args.values['render-all'] ? { renderAll: true } : {}),
         onProgress: progressReporter(io, args.values.quiet === true),
         ...(pauseAt && (BUILD_STEPS as readonly string[]).includes(pauseAt) ? { pauseAt, onPause: (step: string) => io.err(`cellbasis: build paused at ${step} (CELLBASIS_BUILD_PAUSE)\n`) } : {}),
       });
@@ -62,6 +66,7 @@ export const buildCommand: Command = {
     if (temps) io.err(`cellbasis: removed ${temps} temporary file${temps === 1 ? '' : 's'} under .cellbasis-cache/, left by an interrupted build\n`);
     const unused = report.unusedCache;
     if (unused.entries) io.err(`cellbasis: removed ${unused.entries} cache entr${unused.entries === 1 ? 'y' : 'ies'} no project uses any more (${(unused.bytes / 1048576).toFixed(1)} MiB) from .cellbasis-cache/\n`);
+    if (report.keptPages) io.err(`cellbasis: kept ${report.keptPages} draft page${report.keptPages === 1 ? '' : 's'} of the site replaced, unchanged (the same inputs and code); --render-all renders them again\n`);
     for (const w of report.warnings) io.err(`${w}\n`);
     const pdfs = report.pdfs ? ` and ${report.pdfs} draft PDF${report.pdfs === 1 ? '' : 's'}` : '';
     io.out(`built ${report.documents} document page${report.documents === 1 ? '' : 's'}${pdfs} and the index into ${relative(io.cwd, report.out) || '.'}/\n`);

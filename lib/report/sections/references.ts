@@ -59,6 +59,6 @@ export function referencesSection(basis: DesignBasis, hazards: HazardAssessment)
   return {
     project: basis.references.map((r) => ({ id: r.id, citation: r.citation, citedBy: citers(basis, r.id) })),
     method: METHOD_SOURCES,
-    standards: [...standards.values()].sort((a, b) => a.id.localeCompare(b.id)),
+    standards: [...standards.values()].sort((a, b) => a.id.localeCompare(b.id, 'en')),
   };
 }
