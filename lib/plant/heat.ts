@@ -6,8 +6,9 @@
  *
  * Q > 0: heat the stack releases and must reject; Q < 0: heat it needs. Two boundaries:
  * "isothermal" with every stream at the stack temperature (the heat the stack itself produces,
- * the number cooling is sized on) and "as fed" with the inlets at their own temperatures (what
- * is left after the feeds are heated in the stack). The effective thermoneutral voltage of the
+ * the number a coolant loop is sized on) and "as fed" with the inlets at their own temperatures
+ * (what is left after the feeds are heated in the stack: zero where an air-cooled stack holds
+ * its temperature, stack-heat-balance.ts). The effective thermoneutral voltage of the
  * actual gases is V_tn = (H_in − H_out)(T)/I_ion in power mode, (H_out − H_in)(T)/I_ion in
  * electrolysis, per unit of the ionic current I_ion that moves the species, so Q_iso = I_ion V_tn − I V
  * or I V − I_ion V_tn (I the current at the terminals; the two are equal but for a mixed
