@@ -242,7 +242,7 @@ function airCooledBalance(inputs: DesignInputs, heat: HeatBalance, streams: Retu
   const t = inputs.temperatureK;
   const balance = stackHeatBalance({ heat, fuelInlet, airInlet, airOutletGas: gasOnly(streams.airOut), stackTemperatureK: t });
   const airField = inputs.air.kind === 'ratio' ? 'operating-point.air-ratio' : 'operating-point.air-utilization';
-  findings.push(...stackBalanceFindings(balance, airInlet, fuelInlet, t, { airField, air: inputs.air, allowedRiseK: inputs.allowedAirTemperatureRiseK }));
+  findings.push(...stackBalanceFindings(balance, airInlet, fuelInlet, t, { airField, air: inputs.air, allowedRiseK: inputs.allowedAirTemperatureRiseK, stackTemperatureK: t }));
   return balance;
 }
 

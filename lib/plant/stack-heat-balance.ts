@@ -85,14 +85,23 @@ export interface StackBalanceFields {
   /** The air utilization or ratio as stated (power mode has one of the two). */
   air: AirSupply;
   allowedRiseK: number;
+  stackTemperatureK: number;
 }
 
 const celsius = (k: number) => `${(k - ZERO_CELSIUS_K).toFixed(1)} °C`;
 const kW = (w: number) => `${(w / 1000).toPrecision(4)} kW`;
+/** A temperature difference as written in a basis, without the digits of a unit conversion. */
+const kelvins = (k: number) => `${Number(k.toPrecision(6))}`;
+
+/** " (a rise of N K, above the allowed M K)" where an inlet at `inletK` would let the air rise more than allowed, else "". */
+function riseBeyond(inletK: number, fields: StackBalanceFields): string {
+  const rise = fields.stackTemperatureK - inletK;
+  return rise > fields.allowedRiseK * (1 + 1e-9) ? ` (a rise of ${rise.toFixed(1)} K, above the allowed ${kelvins(fields.allowedRiseK)} K)` : '';
+}
 
 /** What closes the balance, in the basis's own terms: the air flow (as its utilization or ratio) and the inlet temperature. */
 function closingText(b: StackHeatBalance, airFedMol: number, fields: StackBalanceFields): string {
-  const inlet = b.closingAirInletK === null ? null : `an air-electrode inlet temperature of ${celsius(b.closingAirInletK)} with the air fed`;
+  const inlet = b.closingAirInletK === null ? null : `an air-electrode inlet temperature of ${celsius(b.closingAirInletK)} with the air fed${riseBeyond(b.closingAirInletK, fields)}`;
   if (b.closingAirMolPerS === null || !('value' in fields.air)) return `no air flow from the stated inlet closes the balance; ${inlet ? `${inlet} does` : 'nor does any inlet temperature with the air fed'}`;
   // Utilization ∝ 1/ṅ_air, ratio ∝ ṅ_air (the O2 consumed is fixed by the current).
   const scale = b.closingAirMolPerS / airFedMol;
@@ -128,7 +137,7 @@ export function stackBalanceFindings(b: StackHeatBalance, airInlet: Stream, fuel
         'air-rise-above-allowed',
         'warning',
         'conditions.air-inlet-temperature',
-        `the air enters at ${celsius(airInlet.temperatureK)} and leaves the isothermal stack at ${celsius(t)}: a rise of ${rise.toFixed(1)} K, above the allowed ${fields.allowedRiseK} K`,
+        `the air enters at ${celsius(airInlet.temperatureK)} and leaves the isothermal stack at ${celsius(t)}: a rise of ${rise.toFixed(1)} K, above the allowed ${kelvins(fields.allowedRiseK)} K`,
         ['conditions.allowed-air-temperature-rise'],
       ),
     );

@@ -113,6 +113,17 @@ describe('one statement of the balance: the cooling air is the air that closes i
   });
 });
 
+describe('an inlet temperature that would close the balance but let the air rise beyond the allowed rise', () => {
+  it('is offered with the rise it takes; a rise equal to the allowed one (650 °C − 600 °C against 50 K) raises nothing', () => {
+    // At 0.45 the closing inlet is 595.3 °C (from the recomputation: the air fed, 25.96 mol/s, must take
+    // up 62.16 − 11.30 kW = 50.86 kW warming to 650 °C), a rise of 54.7 K.
+    const r = corrin({ ...utilization(0.45), 'conditions.allowed-air-temperature-rise': { value: '50 K', source: 'test' } });
+    expect(codes(r)).not.toContain('air-rise-above-allowed');
+    const f = r.findings.find((x) => x.code === 'cooling-air-short')!;
+    expect(f.message).toContain('an air-electrode inlet temperature of 595.3 °C with the air fed (a rise of 54.7 K, above the allowed 50 K)');
+  });
+});
+
 describe('the air-cooled demos close their stack heat balance in every case', () => {
   // The exhaust temperatures of the same Python recomputation on each case's stream table:
   // solid oxide CHP 754.506 °C (sizing calculation), rated 751.515, turndown 750.102, end of life
