@@ -86,7 +86,7 @@ const conditionsSection = strict(
     ).optional(),
     'fuel-inlet-temperature': quantity('temperature', 'fuel-electrode feed temperature at the stack inlet (default: operating temperature)').optional(),
     'air-inlet-temperature': quantity('temperature', 'air-electrode feed temperature at the stack inlet (default: operating temperature)').optional(),
-    'allowed-air-temperature-rise': quantity('temperature-difference', 'allowed temperature rise of the air through the stack, e.g. "150 K" (default 100 K)').optional(),
+    'allowed-air-temperature-rise': quantity('temperature-difference', 'allowed temperature rise of the air through the stack, e.g. "150 K" (default 100 K): the most an air-cooled stack\'s air may rise (stack less air inlet temperature); the rise a liquid-fed electrolyser\'s water loop is sized on').optional(),
     'fuel-electrode-pressure': quantity('pressure', 'fuel-electrode gas pressure, absolute unless the unit says gauge (barg, bar(g), psig, kPa(g))'),
     'air-electrode-pressure': quantity('pressure', 'air-electrode gas pressure, absolute unless the unit says gauge'),
     'ambient-temperature': quantity('temperature', 'ambient (cold-sink) temperature for the Carnot comparison (default 25 C)').optional(),

@@ -231,7 +231,7 @@ function efficiencyOf({ point, power }: Computed): Results['efficiency'] {
 }
 
 /**
- * The heat balance, the cooling air and, for pure hydrogen with gaseous water, the cross-check:
+ * The heat balance, the air-cooled stack's balance with its feeds as fed and its cooling air, and, for pure hydrogen with gaseous water, the cross-check:
  * the isothermal heat must equal I (−ΔH(T)/2F − V).
  */
 function heatOf({ point, inputs, power, o2Consumed }: Computed): Results['heat'] {
@@ -254,6 +254,14 @@ function heatOf({ point, inputs, power, o2Consumed }: Computed): Results['heat']
     electricWorkIn_W: point.heat.workInW,
     heatPerCell_W: point.heat.isothermalHeatW / point.sizing.cells,
     heatPerArea_W_per_m2: point.heat.isothermalHeatW / (point.sizing.cells * inputs.activeAreaM2),
+    stackBalance: point.stackBalance
+      ? {
+          fuelHeating_W: point.stackBalance.fuelHeatingW,
+          airHeating_W: point.stackBalance.airHeatingW,
+          airExhaustTemperature_K: point.stackBalance.exhaustTemperatureK,
+          closingAirInletTemperature_K: point.stackBalance.closingAirInletK,
+        }
+      : null,
     coolingAir_mol_per_s: point.coolingAirMolPerS,
     coolingAir_kg_per_h: coolingKgPerH,
     coolingAirRatio: coolingRatio,

@@ -14,7 +14,8 @@ import { voltageModelAt, type CellVoltageRequest, type OperatingVoltage } from '
 import { agedVoltage, type AgedCell } from './degradation.ts';
 import { sizeStack, type Sizing } from './sizing.ts';
 import { liquidCellWater, type WaterSplit } from '../equilibrium/liquid-water.ts';
-import { heatBalance, coolingAirMolPerS, type HeatBalance } from './heat.ts';
+import { heatBalance, coolantMolPerS, type HeatBalance } from './heat.ts';
+import { stackHeatBalance, stackBalanceFindings, type StackHeatBalance } from './stack-heat-balance.ts';
 import { electrolysisEfficiency, powerEfficiency, type ElectrolysisEfficiency, type PowerEfficiency } from './efficiency.ts';
 import { gasFlow, scaled, totalFlow, type Stream } from './streams.ts';
 import { finding, type Finding } from './findings.ts';
@@ -46,7 +47,9 @@ export interface DesignPoint {
   streams: Stream[];
   water: WaterSplit | null;
   heat: HeatBalance;
-  /** Power mode: air for the allowed temperature rise, mol/s, and its ratio to the air fed. */
+  /** Power mode, air-cooled cells: the stack heat balance with the feeds at their inlet temperatures (stack-heat-balance.ts), else null. */
+  stackBalance: StackHeatBalance | null;
+  /** Its air flow that closes the balance at the stated air inlet temperature, mol/s (null where none does, or the cells are not air-cooled). */
   coolingAirMolPerS: number | null;
   /** Electrolysis fed liquid water at its water electrode: the water that carries the stack heat at the allowed rise, mol/s. */
   coolingWaterMolPerS: number | null;
@@ -228,26 +231,25 @@ function shortShare(fraction: number): string {
 }
 
 /**
- * Power mode: the air that would carry the stack's heat at the allowed rise (air cools the stack
- * in high-temperature cells; low-temperature cells have a liquid coolant), with a finding where
- * the air fed falls short.
+ * Power mode, air-cooled cells (the high-temperature ones; low-temperature cells have a liquid
+ * coolant): the stack heat balance with the feeds at their inlet temperatures
+ * (stack-heat-balance.ts), whose closing air flow is the cooling air, with its findings.
  */
-function coolingAir(inputs: DesignInputs, heat: HeatBalance, airInletFlows: Record<string, number> | null, findings: Finding[]): number | null {
-  if (!inputs.airFeed || !inputs.technology.fuelGasEquilibrium) return null;
-  const air = coolingAirMolPerS(heat.isothermalHeatW, inputs.airFeed, inputs.temperatureK, inputs.allowedAirTemperatureRiseK);
-  const fed = airInletFlows ? totalFlow(airInletFlows) : 0;
-  if (air > fed * 1.0001) {
-    findings.push(
-      finding(
-        'cooling-air-short',
-        'warning',
-        inputs.air.kind === 'ratio' ? 'operating-point.air-ratio' : 'operating-point.air-utilization',
-        `the air fed (${fed.toPrecision(4)} mol/s) carries only ${shortShare(fed / air)} % of the stack heat at a ${inputs.allowedAirTemperatureRiseK} K rise; ${air.toPrecision(4)} mol/s of air would be needed, or another heat sink`,
-        ['conditions.allowed-air-temperature-rise'],
-      ),
-    );
-  }
-  return air;
+function airCooledBalance(inputs: DesignInputs, heat: HeatBalance, streams: ReturnType<typeof stackStreams>, findings: Finding[]): StackHeatBalance | null {
+  const airInlet = streams.inlets.find((s) => s.id === 'air-inlet');
+  if (!airInlet || !inputs.technology.fuelGasEquilibrium) return null;
+  const fuelInlet = streams.inlets.find((s) => s.id === 'fuel-inlet') ?? null;
+  const t = inputs.temperatureK;
+  const balance = stackHeatBalance({ heat, fuelInlet, airInlet, airOutletGas: gasOnly(streams.airOut), stackTemperatureK: t });
+  const airField = inputs.air.kind === 'ratio' ? 'operating-point.air-ratio' : 'operating-point.air-utilization';
+  findings.push(...stackBalanceFindings(balance, airInlet, fuelInlet, t, { airField, air: inputs.air, allowedRiseK: inputs.allowedAirTemperatureRiseK, stackTemperatureK: t }));
+  return balance;
+}
+
+/** A stream's gas, its liquid water left out. */
+function gasOnly(flows: Readonly<Record<string, number>>): Record<string, number> {
+  const { ['H2O(L)']: _liquid, ...gas } = flows;
+  return gas;
 }
 
 /** Σ outlets − Σ inlets of each species, mol/s. */
@@ -302,7 +304,7 @@ function coolingWater(inputs: DesignInputs, streams: ReturnType<typeof stackStre
   const waterFeed = tech.waterElectrode === 'fuel' ? streams.fuelInletFlows : streams.airInletFlows;
   const waterFed = waterFeed?.['H2O(L)'] ?? 0;
   if (!(tech.waterPhase === 'liquid' && waterFed > 0 && heat.isothermalHeatW > 0)) return null;
-  const needed = coolingAirMolPerS(heat.isothermalHeatW, { 'H2O(L)': 1 }, inputs.temperatureK, inputs.allowedAirTemperatureRiseK);
+  const needed = coolantMolPerS(heat.isothermalHeatW, { 'H2O(L)': 1 }, inputs.temperatureK, inputs.allowedAirTemperatureRiseK);
   if (needed > waterFed * 1.0001) {
     const kgPerH = (mol: number) => ((mol * getSpecies('H2O(L)').molarMassKgPerMol * 3600) / 1000).toPrecision(4);
     findings.push(
@@ -363,7 +365,7 @@ export function evaluateDesignPoint(inputs: DesignInputs, stage: UnitStage = uni
   const streams = stackStreams(inputs, unit, path, scale, ionicCurrentA, findings);
   const t = inputs.temperatureK;
   const heat = heatBalance(inputs.mode, streams.inlets, streams.outlets, t, stackPowerW, ionicCurrentA);
-  const cooling = power ? coolingAir(inputs, heat, streams.airInletFlows, findings) : null;
+  const stackBalance = power ? airCooledBalance(inputs, heat, streams, findings) : null;
   const powerEff = power
     ? powerEfficiency(unit.fuelRaw ? scaled(unit.fuelRaw, scale) : {}, t, inputs.ambientTemperatureK, inputs.technology.waterPhase, voltage.cellVoltageV, path.meanNernstV, stackPowerW, netPowerW)
     : null;
@@ -398,7 +400,8 @@ export function evaluateDesignPoint(inputs: DesignInputs, stage: UnitStage = uni
     streams: [...streams.extra, ...streams.inlets, ...streams.outlets],
     water: streams.waterSplit,
     heat,
-    coolingAirMolPerS: cooling,
+    stackBalance,
+    coolingAirMolPerS: stackBalance?.closingAirMolPerS ?? null,
     coolingWaterMolPerS: waterLoop,
     power: powerEff,
     electrolysis,

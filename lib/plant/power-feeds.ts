@@ -12,12 +12,12 @@
  *    the oxidiser burns with air of its own, is λ times the O2 complete combustion of the off-gas
  *    needs, Σ ṅ_i z_i / 4 (lib/electrochem/charge.ts), and passes the same blower.
  *  - Stack: Q_stack = H_in(T_in) − H_out(T_stack) − P_DC (heat.ts, "as fed"). Cells cooled by
- *    their air (the high-temperature cells) reject it into the air-electrode exhaust, which
- *    leaves at the temperature where H_exh(T) = H_out,air(T_stack) + Q_stack; other cells
- *    reject it to their coolant (recovered as heat, or rejected, as the basis says).
+ *    their air (the high-temperature cells) reject it into the air-electrode exhaust, at the
+ *    temperature the stack heat balance gives it (stack-heat-balance.ts: the stack's one
+ *    statement of it, with its findings where the exhaust leaves off the stack temperature);
+ *    other cells reject it to their coolant (recovered as heat, or rejected, as the basis says).
  */
 import { mixtureEnthalpyJ } from '../thermo/mixture.ts';
-import { temperatureAtEnthalpyK } from '../thermo/mixture-temperature.ts';
 import { saturationRange, waterSaturationPressurePa } from '../thermo/water-saturation.ts';
 import { PA_PER_BAR } from '../thermo/constants.ts';
 import { electronsOfStream } from '../electrochem/charge.ts';
@@ -240,8 +240,8 @@ export function stackOutlets(point: DesignPoint, plant: PlantInput, offGas: Pick
   const liquidAir = airOutletAll['H2O(L)'] ?? 0;
   const airOutlet = without(airOutletAll, 'H2O(L)');
   const stackHeatW = point.heat.asFedHeatW;
-  const airCooled = inputs.technology.fuelGasEquilibrium;
-  const airExhaustK = airCooled ? temperatureAtEnthalpyK(airOutlet, H(airOutlet, tStack) + stackHeatW, tStack) : tStack;
+  const airCooled = point.stackBalance !== null;
+  const airExhaustK = point.stackBalance ? point.stackBalance.exhaustTemperatureK : tStack;
   const stackHeatTo: PowerPlantBalance['stackHeatTo'] = airCooled ? 'air-electrode exhaust' : (plant.heatRecovery?.stackHeat ?? 'rejected');
   sheet.add('fuel-outlet', recycled ? 'fuel-electrode off-gas to the oxidiser (after the recycle is taken)' : 'fuel-electrode off-gas', tStack, inputs.fuelPressureBar, offGas.offGasFlows);
   sheet.add('air-outlet', 'air-electrode exhaust', airExhaustK, inputs.airPressureBar, airOutletAll);

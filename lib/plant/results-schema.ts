@@ -446,7 +446,16 @@ const designResultsSchema = z
       electricWorkIn_W: num('−P (power mode), +P (electrolysis)'),
       heatPerCell_W: num('isothermal heat per cell'),
       heatPerArea_W_per_m2: num('isothermal heat per unit active area'),
-      coolingAir_mol_per_s: nullableNum('air for the allowed temperature rise to carry the isothermal heat (power mode)'),
+      stackBalance: z
+        .object({
+          fuelHeating_W: num('heat that brings the fuel-electrode feed from its inlet temperature to the stack temperature'),
+          airHeating_W: num('heat that brings the air-electrode feed from its inlet temperature to the stack temperature; asFedHeat_W = isothermalHeat_W − fuelHeating_W − airHeating_W'),
+          airExhaustTemperature_K: num('the air-electrode exhaust carrying asFedHeat_W: at the stack temperature where the balance closes'),
+          closingAirInletTemperature_K: nullableNum('the air-electrode inlet temperature at which the air fed closes the balance (asFedHeat_W = 0); null where none in the species data\'s range does'),
+        })
+        .nullable()
+        .describe('power mode, air-cooled cells (solid oxide, proton ceramic, molten carbonate): the stack heat balance with the feeds at their inlet temperatures'),
+      coolingAir_mol_per_s: nullableNum('power mode, air-cooled cells: the air of the feed composition that, fed at the air-electrode inlet temperature and leaving at the stack temperature, carries the isothermal heat less the fuel feed\'s heating (closes the stack balance); null where no air flow does (the air entering on the wrong side of the stack temperature for the heat to carry)'),
       coolingAir_kg_per_h: nullableNum('the same, kg/h'),
       coolingAirRatio: nullableNum('cooling air over the air that the O2 consumed needs (λ for cooling)'),
       coolingWater_kg_per_h: nullableNum('electrolysis fed liquid water: the water that carries the isothermal heat at the allowed rise (the water loop)'),

@@ -475,7 +475,14 @@ function heatEquations(r: Results): EquationEntry[] {
       },
     ),
   ];
-  out.push(shown('cooling-air', '\\dot n_\\mathrm{air,cool} = \\frac{Q}{h_\\mathrm{air}(T) - h_\\mathrm{air}(T - \\Delta T)}'));
+  if (r.heat.stackBalance) {
+    const [Q, dHf, dHa] = [sym('Q'), sym('\\Delta H_\\mathrm{fuel}'), sym('\\Delta H_\\mathrm{air}')];
+    const dha = sym('h_\\mathrm{air}(T) - h_\\mathrm{air}(T_\\mathrm{a})', { listed: '\\Delta h_\\mathrm{air}' });
+    out.push(
+      entry('heat-as-fed', { fed: { lhs: sym('Q_\\mathrm{fed}'), symbols: { Q, dHf, dHa }, rhs: (q) => `${q.Q} - ${q.dHf} - ${q.dHa}` } }, (show) => `${show('fed')}, \\qquad \\Delta H_\\mathrm{fuel} = \\sum_\\mathrm{fuel\\,in} \\dot n_i \\left[h_i(T) - h_i(T_\\mathrm{f})\\right], \\quad \\Delta H_\\mathrm{air} = \\dot n_\\mathrm{air} \\left[h_\\mathrm{air}(T) - h_\\mathrm{air}(T_\\mathrm{a})\\right]`),
+      entry('cooling-air', { air: { lhs: sym('\\dot n_\\mathrm{air,close}'), symbols: { Q, dHf, dha }, rhs: (q) => `\\frac{${q.Q} - ${q.dHf}}{${q.dha}}` } }),
+    );
+  }
   return out;
 }
 
@@ -653,7 +660,7 @@ function caseDutyEquations(r: Results, power: boolean): EquationEntry[] {
       entry(
         'case-coolant',
         { mass: { lhs: sym('\\dot m_\\mathrm{c}'), symbols: { Q: sym('Q'), M: sym('M_\\mathrm{c}'), dh: sym('\\Delta h_\\mathrm{c}') }, rhs: (q, op) => `\\frac{${q.Q}${op.times}${q.M}}{${q.dh}}` } },
-        (show) => `${show('mass')}, \\qquad \\Delta h_\\mathrm{c} = \\sum_i x_i \\left[h^\\circ_i(T) - h^\\circ_i(T - \\Delta T)\\right]`,
+        (show) => `${show('mass')}, \\qquad \\Delta h_\\mathrm{c} = \\sum_i x_i \\left[h^\\circ_i(T) - h^\\circ_i(T_\\mathrm{c})\\right]`,
       ),
     );
   }

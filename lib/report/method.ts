@@ -16,6 +16,7 @@ import { hotSpot } from './local-current.ts';
 import { paragraphHtml, prose, type Paragraph } from './prose.ts';
 import type { TrustedHtml } from './trusted-html.ts';
 import { formatNumber } from './format.ts';
+import { EXHAUST_TOLERANCE_K } from '../plant/stack-heat-balance.ts';
 
 /** A paragraph (its segments, and its HTML once its citations are resolved, which the page shows) or a numbered equation. */
 export type MethodBlock = { kind: 'paragraph'; paragraph: Paragraph; html?: TrustedHtml } | { kind: 'equation'; equation: Equation };
@@ -347,7 +348,7 @@ function heat(step: Step, r: Results): void {
   const power = r.technology.mode === 'power';
   step
     .text(
-      'The heat the stack releases follows from an energy balance over it, with every stream at the stack temperature (the isothermal boundary on which cooling is sized) and the enthalpies of the species data, heats of formation included, so that reforming and shift inside the stack are accounted for:',
+      'The heat the stack releases follows from an energy balance over it, with every stream at the stack temperature (the isothermal boundary) and the enthalpies of the species data, heats of formation included, so that reforming and shift inside the stack are accounted for:',
     )
     .eq('heat-balance')
     .text(
@@ -359,8 +360,13 @@ function heat(step: Step, r: Results): void {
     )
     .eq('heat-voltage')
     .text(power ? 'A positive $Q$ must be removed from the stack.' : 'A positive $Q$ must be removed; a negative one (operation below the thermoneutral voltage) must be supplied to hold the stack temperature.');
-  if (r.heat.coolingAir_mol_per_s !== null) {
-    step.text('Where air cools the stack, the air needed to carry the heat with an allowed temperature rise $\\Delta T$ (leaving at the stack temperature) is').eq('cooling-air');
+  if (r.heat.stackBalance) {
+    step
+      .text(
+        `Air cools this stack: its feeds enter at their stated inlet temperatures $T_\\mathrm{f}$ and $T_\\mathrm{a}$, and an isothermal stack holds its temperature only where the heat it releases is exactly what brings them to it, $Q_\\mathrm{fed} = 0$ (the heat with the inlets as fed, the as-fed boundary). The air-electrode exhaust carries any rest, leaving above the stack temperature where the air cannot carry the heat and below it where the stack cannot heat its feeds; a finding is raised where it leaves more than ${EXHAUST_TOLERANCE_K} K off:`,
+      )
+      .eq('heat-as-fed');
+    if (r.heat.coolingAir_mol_per_s !== null) step.text('The air of the feed composition that closes the balance, entering at $T_\\mathrm{a}$ and leaving at the stack temperature, is the cooling air; the allowed air temperature rise bounds $T - T_\\mathrm{a}$:').eq('cooling-air');
   }
 }
 
@@ -442,7 +448,7 @@ function cases(step: Step, r: Results, table: ReadonlyMap<string, EquationEntry>
   }
   if (table.has('case-coolant')) {
     step
-      .text('The coolant of a case (air, or the water loop) takes up the stack heat $Q$ warming by the allowed rise $\\Delta T$ to the stack temperature $T$; with $M_\\mathrm{c}$ its molar mass and $x_i$ its mole fractions,')
+      .text('The coolant of a case takes up the heat $Q$ warming from $T_\\mathrm{c}$ to the stack temperature $T$: the air of an air-cooled stack the stack heat less what brings the fuel feed to $T$, from its stated inlet temperature $T_\\mathrm{c} = T_\\mathrm{a}$ (the air that closes the stack heat balance); the water loop the stack heat, by the allowed rise, $T_\\mathrm{c} = T - \\Delta T$. With $M_\\mathrm{c}$ its molar mass and $x_i$ its mole fractions,')
       .eq('case-coolant');
   }
   if (table.has('case-mass')) {

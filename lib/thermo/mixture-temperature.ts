@@ -49,6 +49,13 @@ export function temperatureAtEnthalpyK(amounts: Amounts, enthalpyJ: number, gues
   return solveRising(amounts, (t) => mixtureEnthalpyJ(amounts, t) - enthalpyJ, (t) => mixtureHeatCapacityJPerK(amounts, t), guessK, 'enthalpy');
 }
 
+/** The same, or null where no temperature in the species data's range gives this enthalpy (a figure that is only reported, never needed). */
+export function temperatureAtEnthalpyInRangeK(amounts: Amounts, enthalpyJ: number, guessK: number): number | null {
+  const { lowK, highK } = range(amounts);
+  if (mixtureEnthalpyJ(amounts, lowK) > enthalpyJ || mixtureEnthalpyJ(amounts, highK) < enthalpyJ) return null;
+  return temperatureAtEnthalpyK(amounts, enthalpyJ, guessK);
+}
+
 /** T, K, at which Σ n_i s°_i(T) = entropyJPerK (standard entropies at 1 bar). */
 export function temperatureAtStandardEntropyK(amounts: Amounts, entropyJPerK: number, guessK: number): number {
   return solveRising(

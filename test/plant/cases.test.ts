@@ -94,8 +94,9 @@ describe('each case equals a basis of its own on the sizing case\'s hardware', (
   const thistlemereEdits: Record<string, Record<string, unknown>> = {
     // The sizing case among the cases is the installed plant at its load: the 200 kW target met by the cells installed.
     rated: {},
-    turndown: {},
+    turndown: { 'conditions.air-inlet-temperature': { value: '691 C', source: 'test' } },
     'end-of-life': {
+      'conditions.air-inlet-temperature': { value: '648 C', source: 'test' },
       'operating-point.degradation': { rate: { value: '0.3 %/kh', source: 'R3' }, of: 'cell-voltage', 'operating-time': { value: '40000 h', source: 'R5' } },
       'operating-point.air-utilization': { value: 0.12, source: 'test' },
     },
@@ -213,7 +214,7 @@ describe('each case equals a basis of its own on the sizing case\'s hardware', (
   const corrinEdits: Record<string, Record<string, unknown>> = {
     'lean-gas': { 'streams.fuel-electrode.composition': 'lean-biogas' },
     'rich-gas': { 'streams.fuel-electrode.composition': 'rich-biogas' },
-    'low-gas-production': {},
+    'low-gas-production': { 'conditions.air-inlet-temperature': { value: '628 C', source: 'test' }, 'operating-point.air-utilization': { value: 0.3, source: 'test' } },
   };
   it.each(['lean-gas', 'rich-gas', 'low-gas-production'])('corrin-beck-mcfc-biogas, case %s, with its plant', (id) => {
     const c = caseOf(corrin, id);

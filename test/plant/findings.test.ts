@@ -94,8 +94,10 @@ describe('findings of the stack calculation', () => {
 
   it('steam-to-carbon below the carbon-free minimum: carbon on the fuel path and the margin, both critical', () => {
     const r = calculate(basisFrom('solid-oxide', 'power', { 'streams.fuel-electrode.steam-to-carbon': 0.3 }));
-    expect(codes(r.findings)).toEqual(['carbon-deposition', 'steam-to-carbon-below-minimum']);
-    expect(r.findings.every((f) => f.severity === 'critical')).toBe(true);
+    const critical = r.findings.filter((f) => f.severity === 'critical');
+    expect(codes(critical)).toEqual(['carbon-deposition', 'steam-to-carbon-below-minimum']);
+    // The rest is the stack heat balance of this changed feed (its own findings are tested in stack-heat-balance.test.ts).
+    expect(codes(r.findings.filter((f) => f.severity !== 'critical')).every((c) => ['stack-heat-short', 'cooling-air-short'].includes(c))).toBe(true);
     expect(r.carbon.maxCarbonActivity!).toBeGreaterThan(1);
   });
 

@@ -112,6 +112,11 @@ function formulas(r: Results): Record<string, Formula> {
       return (power ? ionic * n.Vtn! - n.I! * n.V! : n.I! * n.V! - ionic * n.Vtn!) / 1000;
     },
     'heat-balance': (n) => n.Hin! - n.Hout! + n.W!,
+    // An air-cooled stack with its feeds as fed: Q_fed = Q − ΔH_fuel − ΔH_air, and the air that makes it zero,
+    // ṅ = (Q − ΔH_fuel)/Δh_air (kW over kJ/mol is mol/s); lib/plant/stack-heat-balance.ts, checked
+    // against an independent recomputation in test/plant/stack-heat-balance.test.ts.
+    'heat-as-fed': (n) => n.Q! - n.dHf! - n.dHa!,
+    'cooling-air': (n) => (n.Q! - n.dHf!) / n.dha!,
     'carbon-margin': (n) => n.sc! - Math.max(n.st!, n.pr ?? -Infinity),
   };
 }
@@ -134,6 +139,8 @@ function resultOf(id: string, r: Results): number | null {
     'charge-basis': r.electrochemistry.chargeBasis_A,
     'heat-voltage': h.stackHeat_W / 1000,
     'heat-balance': h.stackHeat_W / 1000,
+    'heat-as-fed': r.heat.asFedHeat_W / 1000,
+    'cooling-air': r.heat.coolingAir_mol_per_s,
     'eff-electrical': h.electricalEfficiencyLhv,
     'eff-voltage': r.efficiency.voltageEfficiency,
     'eff-carnot': r.efficiency.carnotLimit,

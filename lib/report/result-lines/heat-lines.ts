@@ -2,10 +2,50 @@
  * The worked lines of the stack's heat: from the voltages (the reactions at the rate of the ionic
  * current, the electric work at the terminals) and from the enthalpy balance. V_tn,eff is the
  * enthalpy the reactions release per charge in power mode, (H_in − H_out)/I, and the enthalpy
- * they absorb in electrolysis, (H_out − H_in)/I (equations.ts 'heat-voltage').
+ * they absorb in electrolysis, (H_out − H_in)/I (equations.ts 'heat-voltage'). An air-cooled
+ * stack adds its balance with the feeds at their inlet temperatures and the air that closes it
+ * (lib/plant/stack-heat-balance.ts).
  */
 import type { Results } from '../../plant/results-schema.ts';
 import type { LineSpec, QuantitySpec } from '../calc-line.ts';
+import { formatNumber, formatTemperature } from '../format.ts';
+
+/** An air-cooled stack: Q_fed = Q − ΔH_fuel − ΔH_air, and the air of the feed's composition that makes it zero. */
+function stackBalanceLines(r: Results): LineSpec[] {
+  const b = r.heat.stackBalance;
+  if (!b) return [];
+  const t = r.conditions.temperature_K;
+  const stream = (id: string) => r.streams.find((s) => s.id === id);
+  const fuel = stream('fuel-inlet');
+  const air = stream('air-inlet')!;
+  const Q: QuantitySpec = { name: 'Q', value: r.heat.isothermalHeat_W / 1000, unit: 'kW', origin: 'stack heat, isothermal boundary, above' };
+  const dHf: QuantitySpec = { name: 'dHf', value: b.fuelHeating_W / 1000, unit: 'kW', origin: fuel ? `fuel-electrode inlet from ${formatTemperature(fuel.temperature_K)} to ${formatTemperature(t)}, species data` : 'no fuel-electrode feed' };
+  const lines: LineSpec[] = [
+    {
+      id: 'heat-as-fed',
+      title: 'Stack heat balance with the feeds at their inlet temperatures (zero: the stack holds its temperature)',
+      equation: 'heat-as-fed',
+      relation: 'fed',
+      quantities: [Q, dHf, { name: 'dHa', value: b.airHeating_W / 1000, unit: 'kW', origin: `air-electrode inlet from ${formatTemperature(air.temperature_K)} to ${formatTemperature(t)}, species data` }],
+      value: r.heat.asFedHeat_W / 1000,
+      unit: 'kW',
+      note: `The air-electrode exhaust carries the rest: it leaves at ${formatTemperature(b.airExhaustTemperature_K)}.`,
+    },
+  ];
+  if (r.heat.coolingAir_mol_per_s !== null) {
+    lines.push({
+      id: 'cooling-air',
+      title: 'Air that closes the stack heat balance at the stated inlet temperature',
+      equation: 'cooling-air',
+      relation: 'air',
+      quantities: [Q, dHf, { name: 'dha', value: b.airHeating_W / air.flow_mol_per_s / 1000, unit: 'kJ/mol', origin: `one mole of the air-electrode feed from ${formatTemperature(air.temperature_K)} to ${formatTemperature(t)}, species data` }],
+      value: r.heat.coolingAir_mol_per_s,
+      unit: 'mol/s',
+      note: `The air fed is ${formatNumber(air.flow_mol_per_s, 5)} mol/s (stream table).`,
+    });
+  }
+  return lines;
+}
 
 export function heatLines(r: Results): LineSpec[] {
   const power = r.technology.mode === 'power';
@@ -45,5 +85,6 @@ export function heatLines(r: Results): LineSpec[] {
       value: heat.isothermalHeat_W / 1000,
       unit: 'kW',
     },
+    ...stackBalanceLines(r),
   ];
 }

@@ -65,7 +65,7 @@ export const CASE_ROWS: readonly Shown[] = [
   { path: 'headline.stackHeat_W', si: 'W', label: 'Stack heat released', factor: 1e-3, unit: 'kW' },
   { path: 'heat.heatDemand_W', si: 'W', label: 'Heat to supply', factor: 1e-3, unit: 'kW' },
   { path: 'supply.air_kg_per_h', si: 'kg/h', label: 'Air or sweep gas supplied', factor: 1, unit: 'kg/h' },
-  { path: 'heat.coolingAir_kg_per_h', si: 'kg/h', label: 'Air to carry the stack heat', factor: 1, unit: 'kg/h' },
+  { path: 'heat.coolingAir_kg_per_h', si: 'kg/h', label: 'Air that closes the stack heat balance', factor: 1, unit: 'kg/h' },
   { path: 'supply.fuel_kg_per_h', si: 'kg/h', label: 'Fuel supplied', factor: 1, unit: 'kg/h' },
   { path: 'supply.water_kg_per_h', si: 'kg/h', label: 'Water or steam fed', factor: 1, unit: 'kg/h' },
   { path: 'supply.waterSplit_kg_per_h', si: 'kg/h', label: 'Water split', factor: 1, unit: 'kg/h' },
@@ -317,28 +317,34 @@ function waterLine(r: Results, basis: DesignBasis, c: CaseResult): LineSpec | nu
   return { ...line, relation: 'water', quantities: [{ name: 'n', value: n, unit: 'mol/s', origin: `water, vapour and liquid, of the ${inlet.name}, stream table of the case` }, M] };
 }
 
-/** The coolant that carries a case's stack heat at the allowed rise: air (cooling-air) or the water loop (cooling-water). */
+/**
+ * The coolant that carries a case's stack heat: the air of an air-cooled stack, from its inlet
+ * temperature, carrying the stack heat less the fuel feed's heating (the air that closes the
+ * stack heat balance, lib/plant/stack-heat-balance.ts), or the water loop at the allowed rise.
+ */
 function coolantLine(r: Results, c: CaseResult, which: 'cooling-air' | 'cooling-water'): LineSpec | null {
   const heat = c.heat;
   const value = which === 'cooling-air' ? heat?.coolingAir_kg_per_h : heat?.coolingWater_kg_per_h;
   if (!heat || value === null || value === undefined) return null;
   const air = c.streams.find((s) => s.id === 'air-inlet');
   const composition: Record<string, number> | null = which === 'cooling-water' ? { 'H2O(L)': 1 } : air ? air.moleFractions : null;
-  if (!composition) return null;
+  if (!composition || (which === 'cooling-air' && (!heat.stackBalance || !air))) return null;
   const t = c.conditions!.temperature_K;
-  const rise = heat.allowedAirTemperatureRise_K;
+  const from = which === 'cooling-air' ? air!.temperature_K : t - heat.allowedAirTemperatureRise_K;
+  const q = which === 'cooling-air' ? heat.isothermalHeat_W - heat.stackBalance!.fuelHeating_W : heat.isothermalHeat_W;
   // Δh_c and M_c of one mole of the coolant: the enthalpy and mass of its composition (species data).
-  const dh = enthalpyFlowW(composition, t) - enthalpyFlowW(composition, t - rise);
+  const dh = enthalpyFlowW(composition, t) - enthalpyFlowW(composition, from);
   const coolant = which === 'cooling-air' ? 'air' : 'the water loop';
+  const title = which === 'cooling-air' ? 'air that closes the stack heat balance from its inlet temperature' : `the water loop to carry the stack heat at a rise of ${formatNumber(heat.allowedAirTemperatureRise_K, 4)} K`;
   return {
     id: `case-${c.id}-${which}`,
-    title: `Case ${c.id}: ${coolant} to carry the stack heat at a rise of ${formatNumber(rise, 4)} K`,
+    title: `Case ${c.id}: ${title}`,
     equation: 'case-coolant',
     relation: 'mass',
     quantities: [
-      { name: 'Q', value: heat.isothermalHeat_W / 1000, unit: 'kW', origin: 'stack heat of the case (isothermal boundary)' },
+      { name: 'Q', value: q / 1000, unit: 'kW', origin: which === 'cooling-air' ? 'stack heat of the case (isothermal boundary) less the heat that brings its fuel feed to the stack temperature' : 'stack heat of the case (isothermal boundary)' },
       { name: 'M', value: massFlowKgPerS(composition), unit: 'kg/mol', origin: `molar mass of ${coolant}, species data` },
-      { name: 'dh', value: dh / 1000, unit: 'kJ/mol', origin: `enthalpy rise of ${coolant} from ${formatNumber(t - rise, 5)} K to ${formatNumber(t, 5)} K, species data` },
+      { name: 'dh', value: dh / 1000, unit: 'kJ/mol', origin: `enthalpy rise of ${coolant} from ${formatNumber(from, 5)} K to ${formatNumber(t, 5)} K, species data` },
     ],
     conversion: ' \\times 3600\\,\\mathrm{s/h}',
     value,

@@ -161,6 +161,23 @@ function efficiency(r: Results): Pair[] {
   ]);
 }
 
+/** An air-cooled stack's balance with its feeds as fed: what the feeds take, where the exhaust leaves, and what closes it. */
+function stackBalanceRows(r: Results): (Pair | null)[] {
+  const b = r.heat.stackBalance;
+  if (!b) return [];
+  const h = r.heat;
+  return [
+    several('Heat that brings the feeds to the stack temperature: fuel / air', `${formatPower(b.fuelHeating_W)} / ${formatPower(b.airHeating_W)}`, [
+      ['Heat that brings the fuel-electrode feed to the stack temperature', 'W', b.fuelHeating_W],
+      ['Heat that brings the air-electrode feed to the stack temperature', 'W', b.airHeating_W],
+    ]),
+    quantity('Air-electrode exhaust temperature (the stack temperature where the balance closes)', b.airExhaustTemperature_K, 'K', formatTemperature(b.airExhaustTemperature_K)),
+    h.coolingAir_kg_per_h === null ? null : quantity('Air that closes the balance at the stated inlet temperature', h.coolingAir_kg_per_h, 'kg/h', formatQuantity(h.coolingAir_kg_per_h, 'kg/h')),
+    b.closingAirInletTemperature_K === null ? null : quantity('Air-electrode inlet temperature that closes the balance with the air fed', b.closingAirInletTemperature_K, 'K', formatTemperature(b.closingAirInletTemperature_K)),
+    quantity('Allowed air temperature rise', h.allowedAirTemperatureRise_K, 'K', `${formatNumber(h.allowedAirTemperatureRise_K)} K`),
+  ];
+}
+
 function heat(r: Results): Pair[] {
   const h = r.heat;
   return present([
@@ -184,16 +201,7 @@ function heat(r: Results): Pair[] {
         { name: 'Heat per unit active area', unit: 'W/m2', value: h.heatPerArea_W_per_m2 },
       ],
     },
-    h.coolingAir_kg_per_h === null
-      ? null
-      : {
-          label: 'Cooling air for the allowed rise',
-          text: `${formatQuantity(h.coolingAir_kg_per_h, 'kg/h')} (${formatNumber(h.allowedAirTemperatureRise_K)} K rise)`,
-          data: [
-            { name: 'Cooling air for the allowed rise', unit: 'kg/h', value: h.coolingAir_kg_per_h },
-            { name: 'Allowed air temperature rise', unit: 'K', value: h.allowedAirTemperatureRise_K },
-          ],
-        },
+    ...stackBalanceRows(r),
     opt('Cooling air over the air the oxygen needs', h.coolingAirRatio, '', (v) => formatNumber(v)),
     opt('Cross-check for pure hydrogen, I(−ΔH(T)/2F − V)', h.hydrogenCrossCheck_W, 'W', (v) => formatPower(v)),
     opt('Heat to supply', h.heatDemand_W, 'W', (v) => formatPower(v)),

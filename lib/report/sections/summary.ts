@@ -271,7 +271,7 @@ function conclusions(r: Results, basis: DesignBasis, hazards: HazardAssessment, 
     out.push(`${formatInteger(h.cells)} cells at ${formatQuantity(h.cellVoltage_V, 'V')} and ${j} deliver ${formatPower(h.netPower_W)} net${eff}.`);
     out.push(
       h.stackHeat_W >= 0
-        ? `The stack releases ${formatPower(h.stackHeat_W)} of heat at the design point, to be carried away by ${r.heat.coolingAir_kg_per_h !== null ? `the air (${formatQuantity(r.heat.coolingAir_kg_per_h, 'kg/h')} for a ${formatNumber(r.heat.allowedAirTemperatureRise_K)} K rise)` : 'the cooling circuit'}.`
+        ? `The stack releases ${formatPower(h.stackHeat_W)} of heat at the design point, to be carried away by ${r.heat.coolingAir_kg_per_h !== null ? `the air (${formatQuantity(r.heat.coolingAir_kg_per_h, 'kg/h')} closes the stack heat balance from the stated inlet temperature)` : 'the cooling circuit'}.`
         : `The stack needs ${formatPower(-h.stackHeat_W)} of heat at the design point.`,
     );
   } else {
