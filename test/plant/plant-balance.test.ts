@@ -231,11 +231,12 @@ describe('findings and located errors of the plant', () => {
       expect(loop.from_K, c.id).toBeLessThanOrEqual(338.15 + 1e-9);
     }
     // Rated: the loop (0.0070855 of its water split) carries the stack's isothermal heat at the
-    // 7 K rise, so the losses, 1 % of the 2086.8 kW DC input (444 cells at 2500 A and 1.88 V), are
-    // what the cooler removes less: 20.868 kW less the 14 W the stack has over them, recomputed
-    // outside the project from NASA Glenn enthalpies (H2O(L), H2, O2, H2O) and IF97 p_s(65 °C).
+    // 7 K rise, so the losses, 1 % of the 2173.75 kW AC input (the 2086.8 kW DC of 444 cells at
+    // 2500 A and 1.88 V over the rectifier's 96 %), are what the cooler removes less: 21.7375 kW
+    // less the 14 W the stack has over them, recomputed outside the project from NASA Glenn
+    // enthalpies (H2O(L), H2, O2, H2O) and IF97 p_s(65 °C).
     const rated = r.cases.find((k) => k.id === 'rated')!.plant!.electrolysis!.duties.find((d) => d.id === 'loop-cooling-air')!;
-    expect(rated.name).toContain('cooling 20.85 kW less');
+    expect(rated.name).toContain('cooling 21.72 kW less');
   });
 
   it("states the water the electrolyser's dryer removes as vapour at a pressure it can be vapour at", () => {

@@ -245,6 +245,11 @@ describe("the figure of where an electrolysis plant's electricity and heat go", 
     // agree with the tables to better than 0.05 %).
     expect(share('products, HHV − LHV') / share('products, LHV')).toBeCloseTo(0.182, 3);
     expect(share('compression')).toBeCloseTo(x.specificEnergy.compressor_W / x.specificEnergy.totalElectric_W, 12);
+    // The rectifier and transformer lose P_DC (1/η − 1) at the demo's η = 96 % (R6 of the basis):
+    // 2086.8 kW × (1/0.96 − 1) = 86.95 kW of the 2238.17 kW of electricity, 0.03885 (recomputed
+    // outside the project from the stack DC, heater and compressor powers).
+    expect(share('rectifier loss')).toBeCloseTo((x.specificEnergy.stackDc_W * (1 / 0.96 - 1)) / x.specificEnergy.totalElectric_W, 12);
+    expect(share('rectifier loss')).toBeCloseTo(0.03885, 5);
     // The water loop carries the whole stack heat at its 7 K rise (the demo's circulation is set so), so
     // no other stack cooling is drawn and the loop cooler takes it with the product coolers.
     expect(x.stackHeatRemoved_W).toBe(0);
