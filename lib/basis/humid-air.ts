@@ -4,7 +4,8 @@
  *   at a dew point T_d:                 x_H2O = p_sat(T_d) / p
  *   at relative humidity φ at T:        x_H2O = φ · p_sat(T) / p
  * with p_sat from the IAPWS-IF97 saturation line (region 4, eq. 30; lib/thermo/water-saturation.ts)
- * and p the air-electrode pressure.
+ * and p the pressure at which the humidity is stated (read-air-stream.ts says which): the mole
+ * fraction, unlike the relative humidity, is kept when the air is compressed to the electrode.
  * The dry-air fractions are scaled by (1 − x_H2O).
  */
 import { PA_PER_BAR } from '../thermo/constants.ts';

@@ -45,6 +45,7 @@ const DIMENSIONS = {
   'crossover-allowance': 'voltage',
   'allowed-air-temperature-rise': 'temperature-difference',
   'ambient-temperature': 'temperature',
+  'ambient-pressure': 'pressure',
   'sensitivity-temperature': 'temperature-difference',
   'sensitivity-pressure': 'fraction',
   'sensitivity-utilization': 'fraction',
@@ -86,6 +87,7 @@ const BASE_FIELDS: Readonly<Record<string, LimitedInput | PhysicsRule>> = {
   'conditions.fuel-electrode-pressure': 'pressure',
   'conditions.air-electrode-pressure': 'pressure',
   'conditions.ambient-temperature': 'ambient-temperature',
+  'conditions.ambient-pressure': 'ambient-pressure',
   'mixtures.*.composition.*': 'unit-interval',
   'streams.fuel-electrode.composition.*': 'unit-interval',
   'streams.fuel-electrode.steam-to-carbon': 'steam-added',
@@ -201,6 +203,7 @@ const BEYOND = 'beyond any fuel-cell or electrolyser plant';
 /** Why a value beyond a limit is refused, below and above, where it is not that no plant is so. */
 const REASONS: Partial<Record<LimitedInput, [below: string, above: string]>> = {
   'ambient-temperature': ['colder than any site on Earth', 'hotter than any site on Earth'],
+  'ambient-pressure': ['lower than the air pressure at any site on Earth', 'higher than the air pressure at any site on Earth'],
   ...Object.fromEntries(
     (['sensitivity-temperature', 'sensitivity-pressure', 'sensitivity-utilization', 'sensitivity-steam-to-carbon', 'sensitivity-current-density'] as const).map((input) => [
       input,

@@ -1,8 +1,11 @@
 /**
  * `streams.air-electrode`: its composition, and for humid-air the humidity that completes it,
- * { dew-point } or { relative-humidity, at }, turned into a water mole fraction at the
- * air-electrode pressure (humid-air.ts). The humidity temperatures must lie within the
- * liquid-water data, where the saturation pressure is defined.
+ * { dew-point } or { relative-humidity, at }, turned into a water mole fraction at the pressure
+ * where it is stated (humid-air.ts): a dew point is that of the air fed to the electrode (a
+ * humidifier's outlet), at the air-electrode pressure; a relative humidity is that of the
+ * ambient air, at the ambient pressure (conditions.ambient-pressure, default the standard
+ * atmosphere). Compressing the air keeps its water mole fraction. The humidity temperatures must
+ * lie within the liquid-water data, where the saturation pressure is defined.
  */
 import { getSpecies } from '../thermo/species-data.ts';
 import { inRange } from '../thermo/properties.ts';
@@ -36,7 +39,13 @@ function saturationTemperature(reader: Reader, path: Path, label: string): Read 
 
 type Humidity = NonNullable<AirStream['humidity']>;
 
-function readHumidity(reader: Reader, path: Path, pressureBar: number | undefined): { humidity: Humidity; water: number; at: Path } | undefined {
+/** The pressures, bar, at which each form of the humidity is stated. */
+interface StatedAt {
+  airElectrodeBar: number | undefined;
+  ambientBar: number | undefined;
+}
+
+function readHumidity(reader: Reader, path: Path, pressures: StatedAt): { humidity: Humidity; water: number; at: Path; statedAt: string; pressureBar: number } | undefined {
   const has = (key: string) => reader.has([...path, key]);
   if (has('dew-point') && (has('relative-humidity') || has('at'))) {
     reader.findings.error([...path, has('relative-humidity') ? 'relative-humidity' : 'at'], `give the humidity as ${HUMIDITY_FORMS}, not both`, 'key');
@@ -49,8 +58,9 @@ function readHumidity(reader: Reader, path: Path, pressureBar: number | undefine
   }
   if (has('dew-point')) {
     const dew = saturationTemperature(reader, [...path, 'dew-point'], 'dew point');
+    const pressureBar = pressures.airElectrodeBar;
     if (!dew || pressureBar === undefined) return undefined;
-    return { humidity: { dewPointK: dew.si }, water: waterFractionAtDewPoint(dew.si, pressureBar), at: dew.at };
+    return { humidity: { dewPointK: dew.si }, water: waterFractionAtDewPoint(dew.si, pressureBar), at: dew.at, statedAt: 'air-electrode', pressureBar };
   }
   const rh = reader.scalar([...path, 'relative-humidity'], 'fraction', 'relative humidity');
   const at = saturationTemperature(reader, [...path, 'at'], 'relative-humidity temperature');
@@ -58,11 +68,12 @@ function readHumidity(reader: Reader, path: Path, pressureBar: number | undefine
     reader.findings.error(rh.at, `a relative humidity lies between 0 and 100 %, got ${rh.text}`);
     return undefined;
   }
+  const pressureBar = pressures.ambientBar;
   if (!rh || !at || pressureBar === undefined) return undefined;
-  return { humidity: { relativeHumidity: rh.si, atK: at.si }, water: waterFractionAtRelativeHumidity(rh.si, at.si, pressureBar), at: rh.at };
+  return { humidity: { relativeHumidity: rh.si, atK: at.si, pressureBar }, water: waterFractionAtRelativeHumidity(rh.si, at.si, pressureBar), at: rh.at, statedAt: 'ambient', pressureBar };
 }
 
-export function readAirStream(reader: Reader, path: Path, mixtures: ReadonlyMap<string, Composition>, pressureBar: number | undefined, inletK: number | undefined): AirStreamRead | undefined {
+export function readAirStream(reader: Reader, path: Path, mixtures: ReadonlyMap<string, Composition>, pressures: StatedAt, inletK: number | undefined): AirStreamRead | undefined {
   const source = reader.source([...path, 'source']);
   const composition = resolveComposition(reader, [...path, 'composition'], 'air-electrode feed', mixtures, source);
   const humidityPath = [...path, 'humidity'];
@@ -77,10 +88,11 @@ export function readAirStream(reader: Reader, path: Path, mixtures: ReadonlyMap<
     reader.findings.error(composition.at, `humid-air needs a humidity beside it: humidity: ${HUMIDITY_FORMS}`);
     return undefined;
   }
-  const humidity = readHumidity(reader, humidityPath, pressureBar);
+  const humidity = readHumidity(reader, humidityPath, pressures);
+  const pressureBar = pressures.airElectrodeBar;
   if (!humidity || pressureBar === undefined) return undefined;
   if (humidity.water >= 1) {
-    reader.findings.error(humidity.at, `this humidity needs a water partial pressure above the air-electrode pressure, ${pressureBar} bar: the air would be all steam`);
+    reader.findings.error(humidity.at, `this humidity needs a water partial pressure above the ${humidity.statedAt} pressure, ${humidity.pressureBar} bar: the air would be all steam`);
     return undefined;
   }
   const line = saturationRange();

@@ -6,7 +6,7 @@
  * (lib/thermo/water-saturation.ts). The sweep range and the species-data range checks need the
  * streams, so they follow in temperature-ranges.ts.
  */
-import { PA_PER_BAR, REFERENCE_TEMPERATURE_K } from '../thermo/constants.ts';
+import { PA_PER_BAR, REFERENCE_TEMPERATURE_K, STANDARD_ATMOSPHERE_PA } from '../thermo/constants.ts';
 import type { Mode, Technology } from '../electrochem/technologies.ts';
 import { streamRules } from './stream-rules.ts';
 import type { Path } from './diagnostics.ts';
@@ -32,8 +32,8 @@ export function readTemperature(reader: Reader, path: Path, label: string, given
   return read;
 }
 
-/** A pressure input in bar absolute, refused at or below zero absolute (a gauge value below vacuum included). */
-function readPressure(reader: Reader, path: Path, label: string): number | undefined {
+/** A pressure input in bar absolute, refused at or below zero absolute (a gauge value below vacuum included) and beyond its limit. */
+function readPressure(reader: Reader, path: Path, label: string, bound: 'pressure' | 'ambient-pressure' = 'pressure'): number | undefined {
   const read = reader.scalar(path, 'pressure', label);
   if (!read) return undefined;
   const bar = read.si / PA_PER_BAR;
@@ -47,7 +47,7 @@ function readPressure(reader: Reader, path: Path, label: string): number | undef
     );
     return undefined;
   }
-  const beyond = limitProblem('pressure', label, read);
+  const beyond = limitProblem(bound, label, read);
   if (beyond) {
     reader.findings.error(read.at, beyond);
     return undefined;
@@ -66,6 +66,13 @@ export interface ConditionsRead {
   fuelPressureBar?: number;
   airPressureBar?: number;
   ambientTemperatureK: number;
+  /**
+   * Pressure of the ambient air, bar: as written, else the standard atmosphere at sea level,
+   * 1.01325 bar (ISO 2533:1975; U.S. Standard Atmosphere 1976, p0 = 101 325 Pa). A relative
+   * humidity is converted at it, and a blower draws air at it unless its inlet pressure is
+   * given. Undefined where written but refused.
+   */
+  ambientPressureBar: number | undefined;
 }
 
 const C = (key: string): Path => ['conditions', key];
@@ -114,6 +121,7 @@ export function readConditions(reader: Reader, tech: Technology | undefined, mod
   const airInlet = readTemperature(reader, C('air-inlet-temperature'), `${rules?.['air-electrode'].short ?? 'air'} inlet temperature`);
   const fuelPressureBar = readPressure(reader, C('fuel-electrode-pressure'), 'fuel-electrode pressure');
   const airPressureBar = readPressure(reader, C('air-electrode-pressure'), 'air-electrode pressure');
+  const ambientPressureBar = reader.has(C('ambient-pressure')) ? readPressure(reader, C('ambient-pressure'), 'ambient pressure', 'ambient-pressure') : STANDARD_ATMOSPHERE_PA / PA_PER_BAR;
   if (temperature && tech?.waterPhase === 'liquid') {
     checkBelowBoiling(reader, temperature, [['fuel-electrode', fuelPressureBar], ['air-electrode', airPressureBar]]);
   }
@@ -127,5 +135,6 @@ export function readConditions(reader: Reader, tech: Technology | undefined, mod
     ...(fuelPressureBar !== undefined ? { fuelPressureBar } : {}),
     ...(airPressureBar !== undefined ? { airPressureBar } : {}),
     ambientTemperatureK: ambient?.si ?? REFERENCE_TEMPERATURE_K,
+    ambientPressureBar,
   };
 }

@@ -156,14 +156,14 @@ function heatRecovery(reader: Reader): PlantInput['heatRecovery'] | undefined {
   return { exhaustExitTemperatureK: exit.si, stackHeat, minimumApproachK: approach?.si ?? 20 };
 }
 
-/** The air blower: from its inlet pressure (default the standard atmosphere, 1.01325 bar, ISO 2533) to the air-electrode pressure. */
-function blower(reader: Reader, airPressureBar: number | undefined): PlantInput['airBlower'] | undefined {
+/** The air blower: from its inlet pressure (default the ambient pressure, itself by default the standard atmosphere, 1.01325 bar, ISO 2533) to the air-electrode pressure. */
+function blower(reader: Reader, airPressureBar: number | undefined, ambientPressureBar: number | undefined): PlantInput['airBlower'] | undefined {
   const at = (key: string) => P('air-blower', key);
   if (!reader.has(P('air-blower'))) return null;
   const efficiency = share(reader, at('isentropic-efficiency'), 'isentropic efficiency of the blower', (x) => x > 0 && x <= 1, 'lies in (0, 1]', 'isentropic-efficiency');
   const inlet = reader.has(at('inlet-pressure')) ? limited(reader, reader.scalar(at('inlet-pressure'), 'pressure', 'blower inlet pressure'), 'pressure', 'blower inlet pressure') : undefined;
   if (!efficiency || (reader.has(at('inlet-pressure')) && !inlet)) return undefined;
-  const inletBar = inlet ? inlet.si / PA_PER_BAR : STANDARD_ATMOSPHERE_BAR;
+  const inletBar = inlet ? inlet.si / PA_PER_BAR : (ambientPressureBar ?? STANDARD_ATMOSPHERE_BAR);
   if (airPressureBar !== undefined && !(airPressureBar > inletBar)) {
     reader.findings.error(
       inlet?.at ?? P('air-blower'),
@@ -223,7 +223,7 @@ function recuperator(reader: Reader, tech: Technology): PlantInput['recuperator'
 }
 
 /** The `plant:` section with its defaults; undefined when a block written in it is wrong. */
-export function readPlant(reader: Reader, tech: Technology, mode: Mode, conditions: { ambientTemperatureK: number; fuelPressureBar?: number; airPressureBar?: number }): PlantInput | undefined {
+export function readPlant(reader: Reader, tech: Technology, mode: Mode, conditions: { ambientTemperatureK: number; ambientPressureBar: number | undefined; fuelPressureBar?: number; airPressureBar?: number }): PlantInput | undefined {
   for (const [key, only] of Object.entries(MODE_OF)) {
     if (only !== mode && reader.has(P(key))) {
       reader.findings.error(P(key), `${key} belongs to ${only === 'power' ? 'power mode' : 'electrolysis'}; this basis is in ${mode === 'power' ? 'power mode' : 'electrolysis'}`, 'key');
@@ -240,7 +240,7 @@ export function readPlant(reader: Reader, tech: Technology, mode: Mode, conditio
     anodeRecycle: other('anode-recycle') ? null : recycle(reader, tech),
     offGasOxidiser: other('off-gas-oxidiser') ? null : oxidiser(reader),
     heatRecovery: other('heat-recovery') ? null : heatRecovery(reader),
-    airBlower: other('air-blower') ? null : blower(reader, conditions.airPressureBar),
+    airBlower: other('air-blower') ? null : blower(reader, conditions.airPressureBar, conditions.ambientPressureBar),
     hydrogenCompression: other('hydrogen-compression') ? null : compression(reader, conditions.fuelPressureBar),
     recuperator: other('recuperator') ? null : recuperator(reader, tech),
   };

@@ -90,6 +90,7 @@ const conditionsSection = strict(
     'fuel-electrode-pressure': quantity('pressure', 'fuel-electrode gas pressure, absolute unless the unit says gauge (barg, bar(g), psig, kPa(g))'),
     'air-electrode-pressure': quantity('pressure', 'air-electrode gas pressure, absolute unless the unit says gauge'),
     'ambient-temperature': quantity('temperature', 'ambient (cold-sink) temperature for the Carnot comparison (default 25 C)').optional(),
+    'ambient-pressure': quantity('pressure', 'pressure of the ambient air, at which a relative humidity is stated and from which a blower draws unless its inlet pressure is given (default 1.01325 bar, the standard atmosphere at sea level, ISO 2533)').optional(),
   },
   'temperatures and pressures',
 );
@@ -139,7 +140,7 @@ const airStream = strict(
     humidity: strict(
       {
         'dew-point': quantity('temperature', 'dew point of the air at the air-electrode pressure').optional(),
-        'relative-humidity': fraction('relative humidity, e.g. "60 %"').optional(),
+        'relative-humidity': fraction('relative humidity of the ambient air, e.g. "60 %", stated at the ambient pressure (conditions.ambient-pressure)').optional(),
         at: quantity('temperature', 'temperature at which the relative humidity is stated').optional(),
       },
       'humidity of humid-air: { dew-point: "15 C" } or { relative-humidity: "60 %", at: "25 C" }',
@@ -261,7 +262,7 @@ const plantSection = strict(
     'air-blower': strict(
       {
         'isentropic-efficiency': fraction('isentropic efficiency of the blower, in (0, 1], e.g. "70 %"'),
-        'inlet-pressure': quantity('pressure', 'pressure the air is drawn in at (default 1.01325 bar, the standard atmosphere)').optional(),
+        'inlet-pressure': quantity('pressure', 'pressure the air is drawn in at (default the ambient pressure, conditions.ambient-pressure)').optional(),
       },
       'power mode: the blower that raises the air from its inlet pressure to the air-electrode pressure (one adiabatic stage, ideal gas, species data); its power is reported beside the parasitic load, which it is part of',
     ).optional(),

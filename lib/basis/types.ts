@@ -92,7 +92,7 @@ export interface AirStream {
   /** Mole fractions summing to 1 (humid air includes its H2O). */
   composition: Record<string, number>;
   /** Humidity as stated, for the inputs table; the composition already includes it. */
-  humidity?: { dewPointK: number } | { relativeHumidity: number; atK: number };
+  humidity?: { dewPointK: number } | { relativeHumidity: number; atK: number; pressureBar: number };
 }
 
 export type AirSupply =

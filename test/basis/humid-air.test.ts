@@ -38,6 +38,21 @@ describe('humid air', () => {
     expect(Math.abs(air.H2O! - (0.6 * 3.1699) / 101.325)).toBeLessThan((0.6 * 0.0009) / 101.325);
   });
 
+  it('a relative humidity is converted where it is stated, at the ambient pressure, not at the 1.2 bar of the air electrode', () => {
+    // RH is by definition the vapour pressure of the ambient air over p_sat(T) there, so with
+    // Dalton's law x = RH · p_sat(T) / p_ambient, and compressing the air keeps x. The default ambient is the
+    // standard atmosphere, 101 325 Pa (ISO 2533:1975). The fixture's air electrode is at 1.2 bar,
+    // so the old conversion at the electrode gave 0.6 · 3.1699 / 120 kPa, 16 % less water.
+    const rh = edit(BASE, ['humidity: { dew-point: "15 C" }', 'humidity: { relative-humidity: "60 %", at: "25 C" }']);
+    const pSatKPa = waterSaturationPressurePa(298.15) / 1e3;
+    expect(airFeed(rh).H2O).toBeCloseTo((0.6 * pSatKPa) / 101.325, 12);
+    // 0.025 % of 3.1699 kPa plus half the last digit (as above); the old 1.2 bar answer lies 2.9e-3 away.
+    expect(Math.abs(airFeed(rh).H2O! - (0.6 * 3.1699) / 101.325)).toBeLessThan((0.6 * 0.0009) / 101.325);
+    // A site at 0.9 bar (about 900 m in the standard atmosphere): the same RH holds more water per mole.
+    const high = edit(rh, ['air-electrode-pressure: "1.2 bar"', 'air-electrode-pressure: "1.2 bar"\n  ambient-pressure: "0.9 bar"']);
+    expect(airFeed(high).H2O).toBeCloseTo((0.6 * pSatKPa) / 90, 12);
+  });
+
   it('standard dry air: O2 20.9476 %, Ar 0.934 % (U.S. Standard Atmosphere 1976; from memory), CO2 about 420 ppm, N2 the balance', () => {
     const dry = findPreset('dry-air')!.composition;
     expect(dry).toEqual({ O2: 0.209476, Ar: 0.00934, CO2: 0.00042, N2: 0.780764 });

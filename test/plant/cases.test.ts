@@ -269,10 +269,11 @@ describe('the sizing calculation at the top level, the sizing case on the instal
     expect(j).toBeLessThan(3500);
     // Independent recomputation (a script outside the repository, not the project's code): the uniform-voltage law (1) of
     // voltage.ts, U/(j ASR) = ∫ du/(E(u) − ΔV_x − V), integrated in closed form over the piecewise-linear Nernst profile of the
-    // results (fuelPath.points), ASR 0.42 Ω cm², ΔV_x 15 mV, solved by bisection for N j A V (1 − f) = 200 kW: j = 3312.1040 A/m²,
-    // V = 0.790030 V. The tolerances are the digits quoted.
-    expect(j).toBeCloseTo(3312.104, 3);
-    expect(h.cellVoltage_V).toBeCloseTo(0.79003, 6);
+    // results (fuelPath.points), ASR 0.42 Ω cm², ΔV_x 15 mV, solved by bisection for N j A V (1 − f) = 200 kW: j = 3312.2105 A/m²,
+    // V = 0.790005 V (3312.1040 and 0.790030 before the ambient humidity was converted at the ambient pressure:
+    // 1.178 % water in the air, not 1.085 %). The tolerances are the digits quoted.
+    expect(j).toBeCloseTo(3312.2105, 3);
+    expect(h.cellVoltage_V).toBeCloseTo(0.790005, 6);
   });
 
   it('the bus, the DC power and the envelope of the sizing case are those of that installed point, never the required cells (Kirchhoff: I_bus = k I_cell, V_bus = m n V, P_DC = V_bus I_bus; i = I_cell / A)', () => {
