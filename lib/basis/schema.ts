@@ -266,7 +266,7 @@ const plantSection = strict(
       },
       'power mode: the blower that raises the air from its inlet pressure to the air-electrode pressure (one adiabatic stage, ideal gas, species data); its power is reported beside the parasitic load, which it is part of',
     ).optional(),
-    'heat-loss': fraction('heat lost to ambient from the hot equipment, as a share of the fuel LHV input (power) or of the electric input (electrolysis) (default 0)').optional(),
+    'heat-loss': fraction('heat lost to ambient from the hot equipment, as a share of the fuel LHV input (power) or of the stack DC input (electrolysis; the rectifier loss is dissipated apart) (default 0)').optional(),
     'heat-supply': choice(
       ['electric', 'external'] as const,
       'electrolysis: where the heat of the feed heaters, the evaporator and the stack below thermoneutral comes from: electric heaters (counted in the specific energy) or heat from outside the plant (default electric)',

@@ -221,7 +221,7 @@ export interface PlantInput {
   heatRecovery: { exhaustExitTemperatureK: number; stackHeat: 'recovered' | 'rejected'; minimumApproachK: number } | null;
   /** Power mode: the blower that raises the air from its inlet pressure to the air-electrode pressure; null when not given. */
   airBlower: { isentropicEfficiency: number; inletPressureBar: number } | null;
-  /** Heat lost to ambient, as a fraction of the fuel's LHV input (power) or of the electric input (electrolysis). */
+  /** Heat lost to ambient, as a fraction of the fuel's LHV input (power) or of the stack's DC input (electrolysis). */
   heatLossFraction: number;
   /** Electrolysis: where the heat of the feed heaters and of the stack below thermoneutral comes from. */
   heatSupply: 'electric' | 'external';

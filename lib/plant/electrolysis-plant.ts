@@ -14,7 +14,11 @@
  *    steam-raising.ts's second set), and the products leave at the hot outlet T_ho.
  *    Without it no heat is recovered from the products to the feeds.
  *  - Stack: Q_stack = H_in(fed) − H_out(T_stack) + P_DC (heat.ts, "as fed"); the heat lost to ambient
- *    Q_loss = f_loss · P_AC is taken from it: Q_net = Q_stack − Q_loss. Where Q_net < 0 a water loop's
+ *    from the stacks, separators and piping Q_loss = f_loss · P_DC, a share of the stack's DC input,
+ *    is taken from it: Q_net = Q_stack − Q_loss. The DC input, not the AC input: the rectifier's and
+ *    transformer's loss, P_DC (1/η_conv − 1), is dissipated in the rectifier's own room and cooling,
+ *    and the balance of plant's draw where its pumps and controls stand; neither passes through the
+ *    hot water circuit whose losses f_loss counts. Where Q_net < 0 a water loop's
  *    cooler first removes up to Q_loss less: the loop's water gave that heat to ambient on its way
  *    from the stacks (it reaches the cooler at T_c, H_back(T_c) = H_back(T_in) − Q_cooler, below the
  *    stack temperature, and the duty says so), and the cooler still returns it at the inlet
@@ -197,7 +201,7 @@ function feedRecuperator(point: DesignPoint, plant: PlantInput, feeds: Electroly
  * module comment). The rest is supplied.
  */
 function stackHeatBalance(point: DesignPoint, plant: PlantInput, duties: PlantDuty[]) {
-  const heatLossW = plant.heatLossFraction * point.netPowerW;
+  const heatLossW = plant.heatLossFraction * point.stackPowerW;
   const stackHeatW = point.heat.asFedHeatW;
   let stackNet = stackHeatW - heatLossW;
   const loop = duties.find((d) => d.id.startsWith('loop-cooling'));

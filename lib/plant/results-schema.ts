@@ -214,7 +214,7 @@ const electrolysisPlantSchema = z
     feedHeat_W: num('Σ of the positive duties: the heat the feed heaters and the evaporator take'),
     coolers_W: num('Σ of the negative duties, as a positive number: the heat the coolers remove'),
     stackHeat_W: num('heat the stack releases with its inlets as fed (negative: it absorbs heat, below thermoneutral)'),
-    heatLoss_W: num('heat lost to ambient: plant.heat-loss × the AC input'),
+    heatLoss_W: num("heat lost to ambient from the stacks, separators and piping: plant.heat-loss × the stack's DC input (the rectifier's loss is dissipated in its own room)"),
     stackHeatSupplied_W: num('heat supplied to the stack: its demand below thermoneutral and the losses, less what a water loop\'s cooler need not remove'),
     stackHeatRemoved_W: num("stack heat left for the stack's own cooling after the losses"),
     heatSupply: z.enum(['electric', 'external']).describe('plant.heat-supply: electric heaters (counted in the electricity) or heat from outside'),
