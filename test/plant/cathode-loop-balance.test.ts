@@ -15,6 +15,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { loadBasisText } from '../../lib/basis/load.ts';
 import { calculate } from '../../lib/plant/calculate.ts';
+import { findPreset } from '../../lib/basis/presets.ts';
 
 const ID = 'corrin-beck-mcfc-biogas';
 
@@ -31,8 +32,8 @@ function elements(flows: Readonly<Record<string, number>>): Record<string, numbe
   return out;
 }
 
-// Dry air of the U.S. Standard Atmosphere 1976 (from memory; the dry-air preset, test/basis/humid-air.test.ts) with today's CO2.
-const DRY_AIR = { N2: 0.780764, O2: 0.209476, Ar: 0.00934, CO2: 0.00042 };
+// The burner air is the dry-air preset (lib/basis/data/presets.yaml, its source named there).
+const DRY_AIR = findPreset('dry-air')!.composition;
 
 describe('the molten carbonate demo: its cathode gas closes the mole balance of its burner and recycle (A2)', () => {
   const text = readFileSync(new URL(`../../projects/${ID}/basis.yaml`, import.meta.url), 'utf8');
