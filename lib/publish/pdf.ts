@@ -101,10 +101,13 @@ const NO_MARGIN_BOXES = `@page { ${['top-left', 'top-center', 'top-right', 'bott
  * (seen: a 1-byte difference in a content stream, 11478 against 11478.0156).
  * Print media rules still apply to the print; scripts run and charts draw as before (Chart.js is
  * given fixed canvas sizes, and the charts are drawn again at beforeprint).
+ * The same adopted sheet carries NO_MARGIN_BOXES: adopted sheets come after the page's own in
+ * the cascade, as a <style> appended after loading did, without a call to the page and a change
+ * of its DOM per print.
  */
 const SCREEN_HELD = `(() => {
   const sheet = new CSSStyleSheet();
-  sheet.replaceSync('@media screen { html { display: none !important; } }');
+  sheet.replaceSync(${JSON.stringify(`@media screen { html { display: none !important; } } ${NO_MARGIN_BOXES}`)});
   document.adoptedStyleSheets = [...document.adoptedStyleSheets, sheet];
 })();`;
 
@@ -112,22 +115,22 @@ const SCREEN_HELD = `(() => {
  * Every font the page declares, loaded before anything is measured for print: a font that
  * only print content needs (or that the browser would fetch lazily) must not arrive while the
  * pages are laid out, or the layout, and so the PDF, would depend on timing. Then two frames
- * pass.
+ * pass. Returns whether the page draws charts (a <canvas>, or `data-charts-ready` on <html>),
+ * asked in the same call to the page.
  */
-async function settleFonts(page: Page): Promise<void> {
-  await page.evaluate(async () => {
+function settleFonts(page: Page): Promise<boolean> {
+  return page.evaluate(async () => {
     await Promise.allSettled([...document.fonts].map((font) => font.load()));
     await document.fonts.ready;
     await new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve)));
+    return document.documentElement.hasAttribute('data-charts-ready') || document.querySelector('canvas') !== null;
   });
 }
 
 /** Loads a page and waits until its fonts and charts are drawn. */
 async function loadForPrint(page: Page, url: string, timeoutMs: number, chartsTimeoutMs: number): Promise<void> {
   await page.goto(url, { waitUntil: 'load', timeout: timeoutMs });
-  await page.addStyleTag({ content: NO_MARGIN_BOXES });
-  await settleFonts(page);
-  const hasCharts = await page.evaluate(() => document.documentElement.hasAttribute('data-charts-ready') || document.querySelector('canvas') !== null);
+  const hasCharts = await settleFonts(page);
   if (!hasCharts) return;
   try {
     await page.waitForFunction(() => document.documentElement.dataset.chartsReady === 'true', undefined, { timeout: chartsTimeoutMs });
