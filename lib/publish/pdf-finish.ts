@@ -4,7 +4,7 @@
  * (lib/core/pdf-properties.ts). The output has no /ID and no XMP metadata, so the same HTML and
  * meta give the same bytes on the same Chromium.
  */
-import { PDFArray, PDFDict, PDFDocument, PDFHexString, PDFName, PDFRef, PDFString } from 'pdf-lib';
+import { PDFArray, PDFDict, PDFDocument, PDFHexString, PDFName, PDFRef, PDFStreamWriter, PDFString } from 'pdf-lib';
 import { posix, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { PDF_LIB_WHOLE, setPdfProperties, type PdfMeta } from '../core/pdf-properties.ts';
@@ -142,9 +142,28 @@ export async function finishPdf(printed: Uint8Array, meta: PdfMeta, chromiumVers
   renumberStructureIds(pdf);
   relativiseFileLinks(pdf, pageUrl);
   await setPdfProperties(pdf, meta, chromiumVersion);
-  // Object streams (ISO 32000-1 §7.5.7) compress the many small objects of the tagged structure
-  // tree, which were written uncompressed: a document's PDF is 58 % smaller (1.82 MB against
-  // 0.75 MB for a demo with operating cases), and the demo archive fits its size limit again.
-  return pdf.save({ useObjectStreams: true, objectsPerTick: Infinity });
+  return savePdf(pdf);
+}
+
+/**
+ * Objects a stream of the saved PDF holds. pdf-lib's save() puts 50 in each and deflates every
+ * stream on its own (pako, in JavaScript, each stream allocating and clearing its window anew),
+ * so a 50-page draft of some 6 300 objects made 120 streams. With 200 a stream, saving such a
+ * draft takes 125–130 ms of processor time instead of 150–160 and the file is 3.5 % smaller
+ * (530 against 549 KiB; six synthetic drafts, warm, December 2026); larger streams gained no
+ * more. ISO 32000-1 §7.5.7 sets no limit on the objects a stream holds.
+ */
+export const OBJECTS_PER_STREAM = 200;
+
+/**
+ * The PDF's bytes, as pdf-lib's save() writes them (no default page, no form: a print has pages
+ * and none) but with OBJECTS_PER_STREAM objects a stream. Object streams (ISO 32000-1 §7.5.7)
+ * compress the many small objects of the tagged structure tree, which were written
+ * uncompressed: a document's PDF is 58 % smaller (1.82 MB against 0.75 MB for a demo with
+ * operating cases), and the demo archive fits its size limit again.
+ */
+async function savePdf(pdf: PDFDocument): Promise<Uint8Array> {
+  await pdf.flush();
+  return PDFStreamWriter.forContext(pdf.context, Infinity, true, OBJECTS_PER_STREAM).serializeToBuffer();
 }
 

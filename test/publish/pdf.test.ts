@@ -146,6 +146,18 @@ describeWithChromium('PDF printer', () => {
     expect(headers.filter((h) => !listed.has(h))).toEqual([]);
   });
 
+  it("switches off the margin boxes of the page's own print CSS, so the running footer is not drawn twice", async () => {
+    // CSS Paged Media margin boxes (@page { @bottom-right { ... } }), as report.css declares
+    // for printing from a browser; the printer draws its own header and footer instead.
+    const own = page(`<style>@page { @bottom-right { content: "own margin box " counter(page); } }</style>${long}`);
+    const texts = await pageTexts(await withPdfPrinter((printer) => printer.print(own, meta), { pages: 1 }));
+    expect(texts.length).toBeGreaterThan(1);
+    texts.forEach((t, i) => {
+      expect(compact(t), `page ${i + 1}`).not.toContain('ownmarginbox');
+      expect(compact(t), `page ${i + 1}`).toContain(compact(`page ${i + 1} of ${texts.length}`));
+    });
+  });
+
   it('says so when the charts never report ready, and goes on printing the pages waiting for the pool', async () => {
     const stuck = page('<canvas></canvas>', 'data-charts-ready="false"');
     const fine = page('<h1>fine</h1>');
