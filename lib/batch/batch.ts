@@ -27,8 +27,8 @@ export interface CalculationJob {
  * being named by whoever loads it again). A batch of them holds only each waiting basis's key and
  * names. Holding all of them validated at once was about 45 kB of heap each, 88 MiB for 2 000
  * projects, which V8 then multiplied by letting the heap grow to some 2.5 times what was alive;
- * holding their bytes (about 6 kB each) was the rest of the step a cold build's memory took at
- * 2 000 projects while the calculation worker started (lib/batch/basis-file-job.ts gives the figures).
+ * holding their bytes (about 6.3 kB each) kept 12 MiB through the calculation of 2 000
+ * (lib/batch/basis-file-job.ts gives the figures).
  */
 export interface DeferredJob {
   id: string;

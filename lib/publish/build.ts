@@ -406,8 +406,8 @@ function usingKey(job: DeferredJob, keys: Set<string>): DeferredJob {
  * projects some 2 000 needless parses. The others are loaded one at a time as the calculation
  * takes them (`DeferredJob`, lib/batch/basis-file-job.ts: read to be keyed, and read again at
  * their turn): holding all of them validated at once was 88 MiB of heap at 2 000 projects, and V8
- * let the heap grow to some 2.5 times that; holding their bytes was most of the step a cold
- * build's memory took at 2 000 projects while the calculation worker started. A worker that ran out of heap, its
+ * let the heap grow to some 2.5 times that; holding their bytes kept 12 MiB more through the
+ * calculation (lib/batch/basis-file-job.ts gives the figures). A worker that ran out of heap, its
  * work done in this thread instead, is told in `notices` (a warning of the build's report).
  */
 async function precompute(root: string, options: BuildOptions, notices: string[], keys: Set<string>): Promise<Map<string, CalculationOutcome>> {
