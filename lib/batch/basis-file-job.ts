@@ -4,9 +4,10 @@
  * job's turn comes the file is read again, keyed again and loaded. A waiting job is its names and
  * key, where it held the basis's bytes before (about 6.3 kB a synthetic project, 12 MiB for 2 000
  * held through the calculation). Measured 5 December 2026 on the cold build of 2 000
- * bench/synthetic.ts projects (RSS sampled every 0.25 s from outside, peak in the first 150
- * calculations, while the worker starts): with the reader's smaller buffers alone
- * (lib/core/read-file.ts) 342 MiB, with this too 326 MiB, against 381-384 MiB before either.
+ * bench/synthetic.ts projects (peak RSS by bench/site.ts's probe, beside the full bench, load
+ * average 9-13; the peak in the first 150 calculations, while the worker starts): 383 MiB before,
+ * 344 MiB with the reader's smaller buffers alone (lib/core/read-file.ts), 327 and 339 MiB (two
+ * runs) with this too, in the same processor time (310-311 s against 324 s).
  *
  * A file changed between the listing and its turn is calculated as it then reads, and its results
  * stored under the key of those bytes (`load` gives it): the cache never holds results under the
