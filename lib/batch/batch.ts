@@ -22,18 +22,26 @@ export interface CalculationJob {
 }
 
 /**
- * A job whose basis is validated only when its turn comes (`load`; undefined when the basis does
- * not load: the job is then left out, neither calculated nor a failure, its problems being named
- * by whoever loads it again). A batch of them holds the bytes of the bases waiting (about 6 kB
- * each) instead of their validated form: about 45 kB of heap each, 88 MiB for 2 000 projects,
- * which V8 then multiplied by letting the heap grow to some 2.5 times what was alive.
+ * A job whose basis is read and validated only when its turn comes (`load`; undefined when the
+ * basis does not load: the job is then left out, neither calculated nor a failure, its problems
+ * being named by whoever loads it again). A batch of them holds only each waiting basis's key and
+ * names. Holding all of them validated at once was about 45 kB of heap each, 88 MiB for 2 000
+ * projects, which V8 then multiplied by letting the heap grow to some 2.5 times what was alive;
+ * holding their bytes (about 6.3 kB each) kept 12 MiB through the calculation of 2 000
+ * (lib/batch/basis-file-job.ts gives the figures).
  */
 export interface DeferredJob {
   id: string;
   /** The basis file as shown, relative to the root (the cache key covers it). */
   file: string;
-  text: string | Uint8Array;
-  load: () => DesignBasis | undefined;
+  /** The results key of the basis as listed (resultsKey). */
+  key: string;
+  /**
+   * The basis and the results key of the very bytes it was loaded from: the listed key, or
+   * another where the file changed since it was listed (its results are then stored under the
+   * key of what was calculated, never under the listed one).
+   */
+  load: () => { basis: DesignBasis; key: string } | undefined;
 }
 
 export type CalculationOutcome =
@@ -231,14 +239,16 @@ export async function calculateIntoCache(jobs: (CalculationJob | DeferredJob)[],
 
 function deferred(job: CalculationJob | DeferredJob): DeferredJob {
   if ('load' in job) return job;
-  const { basis, text } = job;
-  return { id: basis.id, file: basis.file, text, load: () => basis };
+  const { basis } = job;
+  const key = resultsKey(job.text, basis.id, basis.file);
+  return { id: basis.id, file: basis.file, key, load: () => ({ basis, key }) };
 }
 
 /** The jobs' outcomes; with `keep` false, results that went into the cache are not kept (undefined). */
 async function runBatch(jobs: DeferredJob[], options: BatchOptions, keep: boolean): Promise<(CalculationOutcome | undefined)[]> {
   const outcomes: (CalculationOutcome | undefined)[] = new Array(jobs.length);
-  const keys = jobs.map((j) => resultsKey(j.text, j.id, j.file));
+  // Each job's key as listed, replaced by the key of the bytes its basis was loaded from when it is taken.
+  const keys = jobs.map((j) => j.key);
   let done = 0;
   let bound = heapBound(HEAP_SLACK_BYTES);
   const report = (index: number, outcome: CalculationOutcome | undefined) => {
@@ -262,8 +272,11 @@ async function runBatch(jobs: DeferredJob[], options: BatchOptions, keep: boolea
   const take = (): Ready | undefined => {
     while (taken < pending.length) {
       const index = pending[taken++]!;
-      const basis = jobs[index]!.load();
-      if (basis) return { index, basis };
+      const loaded = jobs[index]!.load();
+      if (loaded) {
+        keys[index] = loaded.key;
+        return { index, basis: loaded.basis };
+      }
       report(index, undefined);
     }
     return undefined;

@@ -42,15 +42,13 @@ import { randomBytes } from 'node:crypto';
 import { basename, dirname, join, relative, resolve } from 'node:path';
 import { listProjects } from '../basis/projects.ts';
 import { fileErrorIn, fileErrorReason } from '../core/file-errors.ts';
-import { loadBasisText } from '../basis/load.ts';
-import { MAX_BASIS_BYTES } from '../basis/source-text.ts';
-import { readRegularFile } from '../core/read-file.ts';
 import { realLocation, issuedFolderAt, within } from '../archive/layout.ts';
 import { processAlive } from '../archive/issued-folder.ts';
 import { collectGarbage } from '../batch/collect-garbage.ts';
 import { getHeapStatistics } from 'node:v8';
 import { calculateIntoCache, type CalculationOutcome, type DeferredJob } from '../batch/batch.ts';
-import { ResultsCache, resultsKey } from '../batch/results-cache.ts';
+import { ResultsCache } from '../batch/results-cache.ts';
+import { basisFileJob } from '../batch/basis-file-job.ts';
 import { ChromiumMissingError, chromiumMissingMessage, findChromium } from './chromium.ts';
 import { printDrafts } from './draft-pdfs.ts';
 import { removeCacheLeftovers } from './cache-leftovers.ts';
@@ -387,14 +385,29 @@ async function swapIntoPlace(root: string, out: string, names: ReturnType<typeof
   renameSync(names.link, out);
 }
 
+/** The job, the key of the bytes it is calculated from added to the build's keys (another than the listed one where the file changed meanwhile). */
+function usingKey(job: DeferredJob, keys: Set<string>): DeferredJob {
+  const load = job.load;
+  return {
+    ...job,
+    load: () => {
+      const loaded = load();
+      if (loaded) keys.add(loaded.key);
+      return loaded;
+    },
+  };
+}
+
 /**
  * Every project's results calculated (in worker threads when there are many) into the results
  * cache, where the pages read them as they are rendered; the failures, by project id. A basis
  * whose results the cache holds (the key covers its bytes) is not loaded here: the site model
  * loads and checks every basis anyway, and loading each twice cost a build of 2 000 cached
  * projects some 2 000 needless parses. The others are loaded one at a time as the calculation
- * takes them (`DeferredJob`): holding all of them validated at once was 88 MiB of heap at 2 000
- * projects, and V8 let the heap grow to some 2.5 times that. A worker that ran out of heap, its
+ * takes them (`DeferredJob`, lib/batch/basis-file-job.ts: read to be keyed, and read again at
+ * their turn): holding all of them validated at once was 88 MiB of heap at 2 000 projects, and V8
+ * let the heap grow to some 2.5 times that; holding their bytes kept 12 MiB more through the
+ * calculation (lib/batch/basis-file-job.ts gives the figures). A worker that ran out of heap, its
  * work done in this thread instead, is told in `notices` (a warning of the build's report).
  */
 async function precompute(root: string, options: BuildOptions, notices: string[], keys: Set<string>): Promise<Map<string, CalculationOutcome>> {
@@ -402,26 +415,17 @@ async function precompute(root: string, options: BuildOptions, notices: string[]
   const jobs: DeferredJob[] = [];
   let cached = 0;
   for (const id of listProjects(root)) {
-    const shown = `projects/${id}/basis.yaml`;
-    let bytes: Buffer;
+    let job: DeferredJob;
     try {
-      bytes = readRegularFile(join(root, 'projects', id, 'basis.yaml'), { maxBytes: MAX_BASIS_BYTES, what: 'design basis', shown });
+      job = basisFileJob(root, id);
     } catch (error) {
       // Named again, with every other problem, when the site model is loaded.
       if (error instanceof UserError) continue;
       throw error;
     }
-    const key = resultsKey(bytes, id, shown);
-    keys.add(key);
-    if (cache.has(key)) cached++;
-    else {
-      const text = bytes;
-      const load = () => {
-        const loaded = loadBasisText(text, shown, id);
-        return loaded.ok ? loaded.basis : undefined;
-      };
-      jobs.push({ id, file: shown, text, load });
-    }
+    keys.add(job.key);
+    if (cache.has(job.key)) cached++;
+    else jobs.push(usingKey(job, keys));
   }
   const total = cached + jobs.length;
   if (cached) options.onProgress?.('calculate', cached, total);

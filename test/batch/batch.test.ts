@@ -65,8 +65,11 @@ describe('batch calculation', () => {
     const { root, list } = jobs(2);
     const cache = new ResultsCache(root);
     const loads: string[] = [];
-    const deferred = list.map(({ basis, text }) => ({ id: basis.id, file: basis.file, text, load: () => (loads.push(basis.id), basis) }));
-    const broken = { id: 'broken', file: 'projects/broken/basis.yaml', text: 'x', load: () => (loads.push('broken'), undefined) };
+    const deferred = list.map(({ basis, text }) => {
+      const key = resultsKey(text, basis.id, basis.file);
+      return { id: basis.id, file: basis.file, key, load: () => (loads.push(basis.id), { basis, key }) };
+    });
+    const broken = { id: 'broken', file: 'projects/broken/basis.yaml', key: resultsKey('x', 'broken', 'projects/broken/basis.yaml'), load: () => (loads.push('broken'), undefined) };
     const failures = await calculateIntoCache([deferred[0]!, broken, deferred[1]!], cache, { workers: 1 });
     expect(failures).toEqual([null, null, null]);
     expect(loads).toEqual([list[0]!.basis.id, 'broken', list[1]!.basis.id]);

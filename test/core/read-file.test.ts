@@ -4,7 +4,7 @@
  * limit is refused by its size, and the message names the file and what it is.
  */
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, symlinkSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -33,6 +33,17 @@ describe('readRegularFile', () => {
     const exact = join(dir, 'exact');
     writeFileSync(exact, Buffer.alloc(1024, 7));
     expect(readRegularFile(exact, limits).length).toBe(1024);
+  });
+
+  it('reads a file read in several parts, and one larger than its size when opened, byte for byte', () => {
+    // Larger than the 64 KiB read at a time past the size the file had when opened.
+    const file = join(dir, 'several');
+    const bytes = Buffer.from(Array.from({ length: 200_000 }, (_, i) => (i * 7919) % 251));
+    writeFileSync(file, bytes);
+    expect(readRegularFile(file, { maxBytes: 256 * 1024, what: 'design basis' }).equals(bytes)).toBe(true);
+    // A file of the proc file system is a regular file of size 0 with text in it, as a file that grew after it was opened.
+    expect(readRegularFile('/proc/version', { maxBytes: 64 * 1024, what: 'version' }).equals(readFileSync('/proc/version'))).toBe(true);
+    expect(refusal('/proc/version', { maxBytes: 10, what: 'version' })).toBe('/proc/version: the version grew past the 10 bytes accepted while it was read');
   });
 
   it('refuses a file over the limit by its size, without reading it', () => {
