@@ -71,6 +71,9 @@ export interface PowerPlantBalance {
     airUtilization: number;
     carbonDioxideUtilization: number;
     oxygenDemandMolPerS: number;
+    burntProductsMolPerS: number;
+    takenMolPerS: number;
+    oxygenTakenMolPerS: number;
     burnerOutletTemperatureK: number;
     recycleTemperatureK: number;
     mixingTemperatureK: number;

@@ -48,16 +48,20 @@ export function cathodeGasLoop(point: DesignPoint, air: AirFeeds, offGas: Readon
   sheet.add('cathode-gas-mixed', 'burner outlet mixed with the recycle', mixK, pAir, inlet);
   sheet.duty('cathode-gas-heating', heatingW >= 0 ? 'cathode gas heated to the air-electrode inlet' : 'cathode gas cooled to the air-electrode inlet', heatingW, mixK, tIn);
   sheet.add('air-inlet', 'air-electrode inlet', tIn, pAir, inlet);
-  const take = point.streams.find((s) => s.id === 'air-inlet')!;
+  const entering = point.streams.find((s) => s.id === 'air-inlet')!;
   const outlet = point.streams.find((s) => s.id === 'air-outlet')!;
   const loop = {
     burnerAirMolPerS: totalFlow(air.airTotal),
     burnerAirKgPerS: massFlowKgPerS(air.airTotal),
     recycledShare: unit.recycledShare,
     inletOxygenFraction: inputs.cathodeLoop!.inletOxygenFraction,
-    airUtilization: (take.flows.O2! - outlet.flows.O2!) / take.flows.O2!,
-    carbonDioxideUtilization: (take.flows.CO2! - outlet.flows.CO2!) / take.flows.CO2!,
+    airUtilization: (entering.flows.O2! - outlet.flows.O2!) / entering.flows.O2!,
+    carbonDioxideUtilization: (entering.flows.CO2! - outlet.flows.CO2!) / entering.flows.CO2!,
     oxygenDemandMolPerS: unit.oxygenDemandMolPerS * point.scale,
+    // N_B: the burner's products less its air, O2 added back (B's O2 is −D).
+    burntProductsMolPerS: totalFlow(burnt) - totalFlow(air.airTotal) + unit.oxygenDemandMolPerS * point.scale,
+    takenMolPerS: totalFlow(entering.flows) - totalFlow(outlet.flows),
+    oxygenTakenMolPerS: entering.flows.O2! - outlet.flows.O2!,
     burnerOutletTemperatureK: burnerK,
     recycleTemperatureK: tExh,
     mixingTemperatureK: mixK,
