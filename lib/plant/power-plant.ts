@@ -19,7 +19,6 @@ import { airSupply, fuelPreparation, offGasOf, stackOutlets, type AirFeeds, type
 import { offGasOxidiser, type OxidiserExhaust } from './off-gas-oxidiser.ts';
 import { chpOf, exhaustRecovery, type RecoveredExhaust } from './power-heat-recovery.ts';
 import { cathodeGasLoop } from './power-cathode-loop.ts';
-import { CalculationError } from '../core/errors.ts';
 
 const H = mixtureEnthalpyJ;
 
@@ -73,7 +72,6 @@ export function powerBalance(point: DesignPoint, plant: PlantInput, findings: Fi
   const air = airSupply(point, plant, offGas.offGas, sheet, findings);
   const loop = point.unit.cathodeLoop ? cathodeGasLoop(point, air, offGas.offGas, sheet) : null;
   const outlets = stackOutlets(point, plant, offGas, feeds.recycle !== null, sheet);
-  if (loop && plant.offGasOxidiser) throw new CalculationError("the cathode-gas loop's burner burns the fuel-electrode off-gas: remove plant.off-gas-oxidiser, which would burn it a second time", 'off-gas-oxidiser');
   if (loop) sheet.add('cathode-vent', 'air-electrode exhaust leaving the cathode-gas loop', loop.exhaust.temperatureK, loop.exhaust.pressureBar, loop.exhaust.flows);
   const { oxidiser, exhaust } = loop ? { oxidiser: null, exhaust: loop.exhaust } : offGasOxidiser(point, plant, air, outlets, sheet, findings);
 
