@@ -109,13 +109,13 @@ function solveShares(request: CathodeLoopRequest, products: Record<string, numbe
   const r = (a11 * b2 - b1 * a21) / det;
   if (!(r >= 0)) {
     throw new CalculationError(
-      `no cathode-gas recycle gives ${PERCENT(x)} O2 at the air-electrode inlet with the air utilization of ${U}: the burner exhaust alone carries less (the recycle would be ${PERCENT(r)}); lower the inlet O2 fraction or raise the air utilization`,
+      `no cathode-gas recycle gives ${PERCENT(x)} O2 at the air-electrode inlet with the air utilization of ${U}: the burner exhaust alone carries less (the recycle would be ${PERCENT(r)}); lower the inlet O2 fraction or the air utilization (more O2 entering)`,
       'cathode-loop',
     );
   }
   if (!(r < 1) || !(A >= 0)) {
     throw new CalculationError(
-      `no cathode-gas recycle gives ${PERCENT(x)} O2 at the air-electrode inlet with the air utilization of ${U}: it would recycle ${Number.isFinite(r) ? PERCENT(r) : 'all'} of the exhaust; raise the inlet O2 fraction or lower the air utilization`,
+      `no cathode-gas recycle gives ${PERCENT(x)} O2 at the air-electrode inlet with the air utilization of ${U}: it would recycle ${Number.isFinite(r) ? PERCENT(r) : 'all'} of the exhaust; raise the inlet O2 fraction or the air utilization`,
       'cathode-loop',
     );
   }

@@ -69,8 +69,12 @@ describe('the cathode-gas loop of a carbonate cell', () => {
   });
 
   it('refuses an O2 fraction above what the burner exhaust alone gives (Python: 12.76 % at r = 0; 15 % needs r = −0.447)', () => {
-    expect(() => cathodeLoop(request(0.41, 0.15))).toThrow(/no cathode-gas recycle gives 15\.00 % O2 .* lower the inlet O2 fraction or raise the air utilization/);
+    expect(() => cathodeLoop(request(0.41, 0.15))).toThrow(/no cathode-gas recycle gives 15\.00 % O2 .* lower the inlet O2 fraction or the air utilization \(more O2 entering\)/);
     expect(() => cathodeLoop(request(0.41, 0.15))).toThrow(CalculationError);
+    // As the message says, less air utilization (more O2 entering) makes it feasible: Python gives
+    // r = −0.143917 at U = 0.30 and r = 0.010549 at U = 0.25 for the same 15 %.
+    expect(() => cathodeLoop(request(0.3, 0.15))).toThrow(/recycle would be -14\.39 %/);
+    expect(cathodeLoop(request(0.25, 0.15)).recycledShare).toBeCloseTo(0.010549, 6);
     // Just below the once-through fraction the recycle is small but feasible.
     expect(cathodeLoop(request(0.41, 0.1275)).recycledShare).toBeGreaterThan(0);
     expect(cathodeLoop(request(0.41, 0.1275)).recycledShare).toBeLessThan(0.005);
