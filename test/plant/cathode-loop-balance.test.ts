@@ -18,6 +18,7 @@
 // four elements (C, H, O, N) and two unknowns. The two solved from C and N must leave H and O
 // balanced too: a water knock-out or any other sink would show as a residual.
 import { readFileSync } from 'node:fs';
+import { parseDocument } from 'yaml';
 import { describe, expect, it } from 'vitest';
 import { loadBasisText } from '../../lib/basis/load.ts';
 import { calculate } from '../../lib/plant/calculate.ts';
@@ -108,6 +109,22 @@ describe('the molten carbonate demo: its cathode gas is what its burner and recy
     };
     check(loop, 642.135, 644.314, -46529.8);
     check(r.cases!.find((c) => c.id === 'low-gas-production')!.plant!.power!.cathodeLoop!, 615.542, 633.248, -3513.2);
+  });
+
+  it('humid burner air (80 % at 10 °C) adds its water to the cathode gas: half a point, as A2 says', () => {
+    // The Python recomputation with the burner air at x_w = 0.8 · 1.2282 kPa / 101.325 kPa (the
+    // saturation pressure of water at 10 °C, NIST steam tables, from memory), dry air for the rest:
+    // A = 11.78202 mol/s, r = 0.418402, H2O 20.0170 % at the inlet (19.5450 % with dry air).
+    const doc = parseDocument(text);
+    doc.deleteIn(['cases']);
+    doc.setIn(['streams', 'air-electrode', 'cathode-loop', 'burner-air'], doc.createNode({ composition: 'humid-air', humidity: { 'relative-humidity': '80 %', at: '10 C' } }));
+    const humid = loadBasisText(doc.toString(), `projects/${ID}/basis.yaml`, ID);
+    if (!humid.ok) throw new Error(ID);
+    const l = calculate(humid.basis).plant.power!.cathodeLoop!;
+    // The 5-figure saturation pressure moves x_w by 4e-5 of itself: far below these tolerances.
+    expect(Math.abs(l.burnerAir_mol_per_s - 11.78202)).toBeLessThan(1e-4);
+    expect(Math.abs(l.recycledShare - 0.418402)).toBeLessThan(1e-5);
+    expect(Math.abs(l.inletMoleFractions.H2O! - 0.20017)).toBeLessThan(1e-5);
   });
 
   it('the plant closes the first law around the loop, its cooler included', () => {
