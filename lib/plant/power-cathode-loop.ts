@@ -69,5 +69,5 @@ export function cathodeGasLoop(point: DesignPoint, air: AirFeeds, offGas: Readon
     heatingW,
     inletFlows: inlet,
   };
-  return { loop, exhaust: { flows: vent, temperatureK: tExh, pressureBar: pAir } };
+  return { loop, exhaust: { name: 'air-electrode exhaust leaving the cathode-gas loop', flows: vent, temperatureK: tExh, pressureBar: pAir } };
 }

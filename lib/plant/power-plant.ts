@@ -52,7 +52,7 @@ function powerEnergyBalance(
   } else {
     // Without heat recovery the heaters are supplied from outside the balance: their net duty is an input.
     terms.push({ name: "heaters' net duty", valueW: netDutyW, side: 'in' });
-    if (exhaust) terms.push({ name: 'oxidiser exhaust', valueW: H(exhaust.flows, exhaust.temperatureK), side: 'out' });
+    if (exhaust) terms.push({ name: exhaust.name ?? 'oxidiser exhaust', valueW: H(exhaust.flows, exhaust.temperatureK), side: 'out' });
     else {
       terms.push({ name: 'fuel-electrode off-gas', valueW: H(offGas, tStack), side: 'out' });
       terms.push({ name: 'air-electrode exhaust', valueW: H(airOutlet, airExhaustK), side: 'out' });
