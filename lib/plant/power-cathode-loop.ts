@@ -2,8 +2,9 @@
  * The plant around a carbonate cell's cathode-gas loop (its mole balance: cathode-loop.ts, solved
  * with the unit feeds): the burner takes the fuel-electrode off-gas at the stack temperature and
  * the burner air after the blower, and burns the off-gas completely (the products of the mole
- * balance; at the burner's lean mixture the equilibrium leaves only traces of CO and H2, as the
- * off-gas oxidiser's results show). Its outlet is adiabatic:
+ * balance; at the burner's lean mixture the equilibrium products the off-gas oxidiser would give,
+ * lib/equilibrium/adiabatic.ts, differ by traces: at the molten carbonate demo's rated point 7 ppm
+ * of NO and 1e-6 ppm of CO, the outlet 0.02 K cooler). Its outlet is adiabatic:
  *
  *   H_B(T_burner) = H_off-gas(T_stack) + H_air(T_blown)
  *
