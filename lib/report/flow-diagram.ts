@@ -394,7 +394,7 @@ function cathodeLoopLines(d: Drawing, b: PowerBoxes): void {
   const top = 8;
   // Down the gap between the burner's column and the stack, into the burner's right side: a fuel preheat may stand above the burner.
   const gap = (burner.x + W + stack.x) / 2;
-  parts.push(polyline([fuelOut, { x: fuelOut.x + 16, y: fuelOut.y }, { x: fuelOut.x + 16, y: top }, { x: gap, y: top }, { x: gap, y: burner.y + 12 }, { x: burner.x + W, y: burner.y + 12 }], num('fuel-outlet'), 2));
+  parts.push(polyline([fuelOut, { x: fuelOut.x + 16, y: fuelOut.y }, { x: fuelOut.x + 16, y: top }, { x: gap, y: top }, { x: gap, y: burner.y + 12 }, { x: burner.x + W, y: burner.y + 12 }], num('fuel-outlet'), 1));
   const mixerX = mixer.x + W / 2;
   parts.push(polyline([{ x: burner.x + W / 2, y: burner.y + burner.h }, { x: burner.x + W / 2, y: burner.y + burner.h + 14 }, { x: mixerX, y: burner.y + burner.h + 14 }, { x: mixerX, y: mixer.y }], num('burner-outlet'), 1));
   parts.push(arrow(right(mixer), { x: stack.x, y: AIR_Y + H / 2 }, num('cathode-gas-mixed', 'air-inlet')));
