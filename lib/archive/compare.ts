@@ -209,7 +209,11 @@ function projection(basis: DesignBasis): Tree {
     },
     streams: {
       'fuel-electrode': basis.fuelElectrode ? { composition: basis.fuelElectrode.compositionName ?? null, 'pre-reforming': basis.fuelElectrode.preReforming.kind } : null,
-      'air-electrode': basis.airElectrode ? { composition: basis.airElectrode.compositionName ?? null } : null,
+      'air-electrode': !basis.airElectrode
+        ? null
+        : basis.airElectrode.cathodeLoop
+          ? { 'cathode-loop': { 'burner-air': { composition: basis.airElectrode.compositionName ?? null } } }
+          : { composition: basis.airElectrode.compositionName ?? null },
     },
   };
 }

@@ -73,9 +73,10 @@ function readHumidity(reader: Reader, path: Path, pressures: StatedAt): { humidi
   return { humidity: { relativeHumidity: rh.si, atK: at.si, pressureBar }, water: waterFractionAtRelativeHumidity(rh.si, at.si, pressureBar), at: rh.at, statedAt: 'ambient', pressureBar };
 }
 
-export function readAirStream(reader: Reader, path: Path, mixtures: ReadonlyMap<string, Composition>, pressures: StatedAt, inletK: number | undefined): AirStreamRead | undefined {
+/** A composition at `path` (composition, source, humidity beside it), as the air-electrode feed or as a cathode loop's burner air. */
+function readAirComposition(reader: Reader, path: Path, mixtures: ReadonlyMap<string, Composition>, pressures: StatedAt, inletK: number | undefined): AirStreamRead | undefined {
   const source = reader.source([...path, 'source']);
-  const composition = resolveComposition(reader, [...path, 'composition'], 'air-electrode feed', mixtures, source);
+  const composition = resolveComposition(reader, [...path, 'composition'], path.includes('burner-air') ? 'burner air' : 'air-electrode feed', mixtures, source);
   const humidityPath = [...path, 'humidity'];
   const hasHumidity = reader.has(humidityPath);
   if (!composition) return undefined;
@@ -106,4 +107,52 @@ export function readAirStream(reader: Reader, path: Path, mixtures: ReadonlyMap<
     stream: { compositionName: composition.name ?? 'humid-air', composition: fractions, humidity: humidity.humidity },
     feed: { ...composition, fractions, speciesAt },
   };
+}
+
+const LOOP_KEYS = ['composition', 'humidity', 'source'] as const;
+
+/**
+ * `cathode-loop`: the burner air (a composition as above) and the O2 mole fraction at the
+ * air-electrode inlet, which must lie above 0 and below the burner air's (no mixing of burnt gas
+ * and exhaust is richer in O2 than the air). Whether the rest of the loop closes (a recycled
+ * share in [0, 1)) depends on the off-gas and the air utilization: the calculation checks it
+ * (lib/plant/cathode-loop.ts).
+ */
+function readCathodeLoop(reader: Reader, path: Path, mixtures: ReadonlyMap<string, Composition>, pressures: StatedAt, inletK: number | undefined): AirStreamRead | undefined {
+  for (const key of LOOP_KEYS) {
+    if (reader.has([...path, key])) reader.findings.error([...path, key], `the cathode-gas loop makes the air-electrode feed: give the burner air's ${key} under cathode-loop.burner-air, not beside the loop`, 'key');
+  }
+  const loopPath = [...path, 'cathode-loop'];
+  const burner = readAirComposition(reader, [...loopPath, 'burner-air'], mixtures, pressures, inletK);
+  const oxygen = reader.scalar([...loopPath, 'inlet-oxygen'], 'fraction', 'O2 fraction at the air-electrode inlet');
+  if (!burner || !oxygen) return undefined;
+  const air = burner.stream.composition.O2 ?? 0;
+  if (!(oxygen.si > 0 && oxygen.si < air)) {
+    reader.findings.error(oxygen.at, `the O2 fraction at the air-electrode inlet must lie above 0 and below the burner air's, ${(100 * air).toPrecision(4)} %, got ${oxygen.text}`);
+    return undefined;
+  }
+  return { stream: { ...burner.stream, cathodeLoop: { inletOxygenFraction: oxygen.si } }, feed: burner.feed };
+}
+
+/** `streams.air-electrode`: a composition, or (a carbonate cell, power mode: `loopAllowed`) the cathode-gas loop that makes it. */
+export function readAirStream(
+  reader: Reader,
+  path: Path,
+  mixtures: ReadonlyMap<string, Composition>,
+  pressures: StatedAt,
+  inletK: number | undefined,
+  loopAllowed: boolean,
+): AirStreamRead | undefined {
+  if (!reader.has([...path, 'cathode-loop'])) {
+    if (!reader.has([...path, 'composition'])) {
+      reader.findings.error([...path, 'composition'], `the air-electrode feed needs a composition${loopAllowed ? ', or a cathode-loop that makes it' : ''}`, 'missing');
+      return undefined;
+    }
+    return readAirComposition(reader, path, mixtures, pressures, inletK);
+  }
+  if (!loopAllowed) {
+    reader.findings.error([...path, 'cathode-loop'], 'a cathode-gas loop belongs to a molten carbonate cell in power mode, whose air electrode takes CO2; give a composition', 'key');
+    return undefined;
+  }
+  return readCathodeLoop(reader, path, mixtures, pressures, inletK);
 }

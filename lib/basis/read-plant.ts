@@ -124,9 +124,16 @@ function recycle(reader: Reader, tech: Technology): PlantInput['anodeRecycle'] |
   return { ratio: ratio.si, tolerance: tolerance?.si ?? 1e-9 };
 }
 
+/** Where a carbonate cell's cathode-gas loop stands (lib/basis/read-air-stream.ts): its burner is the plant's off-gas oxidiser. */
+const LOOP = ['streams', 'air-electrode', 'cathode-loop'];
+
 function oxidiser(reader: Reader): PlantInput['offGasOxidiser'] | undefined {
   const at = (key: string) => P('off-gas-oxidiser', key);
   if (!reader.has(P('off-gas-oxidiser'))) return null;
+  if (reader.has(LOOP)) {
+    reader.findings.error(P('off-gas-oxidiser'), "the cathode-gas loop's burner burns the fuel-electrode off-gas (streams.air-electrode.cathode-loop): remove plant.off-gas-oxidiser, which would burn it a second time", 'key');
+    return undefined;
+  }
   const kind = reader.text(at('oxidant')) as OffGasOxidant['kind'] | undefined;
   const limit = temperature(reader, at('material-limit'), 'material limit of the oxidiser', 'oxidiser-material-limit');
   let oxidant: OffGasOxidant | undefined;
@@ -145,7 +152,8 @@ function oxidiser(reader: Reader): PlantInput['offGasOxidiser'] | undefined {
 function heatRecovery(reader: Reader): PlantInput['heatRecovery'] | undefined {
   const at = (key: string) => P('heat-recovery', key);
   if (!reader.has(P('heat-recovery'))) return null;
-  if (!reader.has(P('off-gas-oxidiser'))) {
+  // A cathode-gas loop's burner takes the oxidiser's place: the heat recovery cools the exhaust the loop does not recycle.
+  if (!reader.has(P('off-gas-oxidiser')) && !reader.has(LOOP)) {
     reader.findings.error(P('heat-recovery'), "the heat recovery cools the oxidiser's exhaust: give plant.off-gas-oxidiser too", 'key');
     return undefined;
   }

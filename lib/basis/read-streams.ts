@@ -80,7 +80,7 @@ export function readStreams(reader: Reader, tech: Technology, mode: Mode, condit
       }
     } else {
       const inletK = conditions.airInlet?.si ?? conditions.temperature?.si;
-      const read = readAirStream(reader, path, mixtures, { airElectrodeBar: conditions.airPressureBar, ambientBar: conditions.ambientPressureBar }, inletK);
+      const read = readAirStream(reader, path, mixtures, { airElectrodeBar: conditions.airPressureBar, ambientBar: conditions.ambientPressureBar }, inletK, tech.id === 'molten-carbonate' && mode === 'power');
       if (!read) complete = false;
       else {
         feeds.push({ electrode, composition: read.feed });

@@ -133,20 +133,40 @@ const fuelStream = strict(
   'feed of the fuel electrode: the fuel in power mode; steam (+ H2, CO2) in solid-oxide electrolysis',
 );
 
+const humidity = strict(
+  {
+    'dew-point': quantity('temperature', 'dew point of the air at the air-electrode pressure').optional(),
+    'relative-humidity': fraction('relative humidity of the ambient air, e.g. "60 %", stated at the ambient pressure (conditions.ambient-pressure)').optional(),
+    at: quantity('temperature', 'temperature at which the relative humidity is stated').optional(),
+  },
+  'humidity of humid-air: { dew-point: "15 C" } or { relative-humidity: "60 %", at: "25 C" }',
+);
+
+const airComposition = composition('a mixture name, a preset name (dry-air, humid-air, oxygen, steam, liquid-water) or { species: mole fraction }');
+
+const cathodeLoop = strict(
+  {
+    'burner-air': strict(
+      {
+        composition: airComposition,
+        source: text('where the composition comes from').optional(),
+        humidity: humidity.optional(),
+      },
+      'the air the catalytic burner takes: dry-air, or humid-air with its humidity',
+    ),
+    'inlet-oxygen': fraction('O2 mole fraction of the cathode gas at the air-electrode inlet, e.g. { value: "9.4 %", source: R2 }; with the air utilization it fixes the burner air and the recycled share'),
+  },
+  'molten carbonate, power mode: the cathode gas made by the plant, the fuel-electrode off-gas burnt completely with burner air and mixed with a recycled share of the air-electrode exhaust (instead of composition)',
+);
+
 const airStream = strict(
   {
-    composition: composition('a mixture name, a preset name (dry-air, humid-air, oxygen, steam, liquid-water) or { species: mole fraction }'),
+    composition: airComposition.optional(),
     source: text('where the composition comes from').optional(),
-    humidity: strict(
-      {
-        'dew-point': quantity('temperature', 'dew point of the air at the air-electrode pressure').optional(),
-        'relative-humidity': fraction('relative humidity of the ambient air, e.g. "60 %", stated at the ambient pressure (conditions.ambient-pressure)').optional(),
-        at: quantity('temperature', 'temperature at which the relative humidity is stated').optional(),
-      },
-      'humidity of humid-air: { dew-point: "15 C" } or { relative-humidity: "60 %", at: "25 C" }',
-    ).optional(),
+    humidity: humidity.optional(),
+    'cathode-loop': cathodeLoop.optional(),
   },
-  'feed of the air electrode: air or oxygen (power); sweep air, steam or liquid water (electrolysis)',
+  'feed of the air electrode: air or oxygen (power); sweep air, steam or liquid water (electrolysis); or, for a carbonate cell, the cathode-gas loop that makes it',
 );
 
 const streamsSection = strict(

@@ -95,6 +95,12 @@ const summaryRowSources: readonly ((basis: DesignBasis) => SummaryRow[])[] = [
   headlineVoltages,
 ];
 
+/** The air-electrode feed as given, or the cathode-gas loop that makes it (its burner air and inlet O2). */
+function airFeed(stream: NonNullable<DesignBasis['airElectrode']>): string {
+  if (!stream.cathodeLoop) return composition(stream.composition);
+  return `cathode-gas loop: O2 ${num(stream.cathodeLoop.inletOxygenFraction * 100, 3)} % at the inlet; burner air ${composition(stream.composition)}`;
+}
+
 function rows(b: DesignBasis, names: ReturnType<typeof feedNames>): SummaryRow[] {
   return [
     ['project', `${b.id}: ${b.document.title}`],
@@ -103,7 +109,7 @@ function rows(b: DesignBasis, names: ReturnType<typeof feedNames>): SummaryRow[]
     ['operating temperature', temperature(b.conditions.temperatureK)],
     ['pressures', `fuel electrode ${num(b.conditions.fuelPressureBar)} bar, air electrode ${num(b.conditions.airPressureBar)} bar (absolute)`],
     [names.fuel, b.fuelElectrode ? composition(b.fuelElectrode.feed) : 'none'],
-    [names.air, b.airElectrode ? composition(b.airElectrode.composition) : 'none'],
+    [names.air, b.airElectrode ? airFeed(b.airElectrode) : 'none'],
     ...fuelTreatment(b),
     [names.conversion, `${num(b.operatingPoint.utilization * 100, 3)} %`],
     ['air supply', air(b.operatingPoint.air)],

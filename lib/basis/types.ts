@@ -93,6 +93,11 @@ export interface AirStream {
   composition: Record<string, number>;
   /** Humidity as stated, for the inputs table; the composition already includes it. */
   humidity?: { dewPointK: number } | { relativeHumidity: number; atK: number; pressureBar: number };
+  /**
+   * A carbonate cell's cathode-gas loop (streams.air-electrode.cathode-loop): the composition above
+   * is then the burner air's, and the air-electrode feed is computed (lib/plant/cathode-loop.ts).
+   */
+  cathodeLoop?: { inletOxygenFraction: number };
 }
 
 export type AirSupply =

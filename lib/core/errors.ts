@@ -65,6 +65,7 @@ export type CalculationInput =
   | 'ionic-transference-number'
   | 'pre-reforming'
   | 'anode-recycle'
+  | 'cathode-loop'
   | 'cells-per-stack'
   | 'stacks-in-series'
   | 'dc-bus-window'

@@ -22,6 +22,7 @@ import { currentDensitySweep, stackTemperatureSweep, steamToCarbonSweep, tempera
 import { sensitivities } from './sensitivity.ts';
 import { hazardInput } from './hazard-streams.ts';
 import { locateCalculationErrors } from './located-error.ts';
+import { fractions } from './plant-sheet.ts';
 import { enthalpyFlowW, gasFlow, gasMoleFractions, massFlowKgPerS, normalVolumeM3PerS, totalFlow, type Stream } from './streams.ts';
 import type { Results } from './results-schema.ts';
 import { plantOf, streamResult } from './plant-results.ts';
@@ -236,10 +237,10 @@ function efficiencyOf({ point, power }: Computed): Results['efficiency'] {
  */
 function heatOf({ point, inputs, power, o2Consumed }: Computed): Results['heat'] {
   const t = inputs.temperatureK;
-  const coolingRatio =
-    point.coolingAirMolPerS !== null && o2Consumed && inputs.airFeed?.O2 ? point.coolingAirMolPerS / (o2Consumed / inputs.airFeed.O2) : null;
-  const coolingKgPerH =
-    point.coolingAirMolPerS !== null && inputs.airFeed ? point.coolingAirMolPerS * massFlowKgPerS(inputs.airFeed) * HOUR : null;
+  // The air-electrode inlet's own composition: the basis's feed, or what a cathode-gas loop makes of it.
+  const fed = inputs.cathodeLoop && point.unit.air ? fractions(point.unit.air) : inputs.airFeed;
+  const coolingRatio = point.coolingAirMolPerS !== null && o2Consumed && fed?.O2 ? point.coolingAirMolPerS / (o2Consumed / fed.O2) : null;
+  const coolingKgPerH = point.coolingAirMolPerS !== null && fed ? point.coolingAirMolPerS * massFlowKgPerS(fed) * HOUR : null;
   // Pure hydrogen, gaseous water: the isothermal heat must equal I_ion (−ΔH(T)/2F) − I V.
   const crossCheck =
     power && inputs.technology.waterPhase === 'gas' && onlyHydrogen(inputs.dryFuel) && inputs.preReforming.kind === 'none'

@@ -113,7 +113,7 @@ export function installedPoint(sizing: DesignPoint, cells: number, stages: Stage
 
 /** Every field of the design inputs that unit-feeds.ts reads: cases with the same key have the same unit feeds. */
 function feedsKey(i: DesignInputs): string {
-  return JSON.stringify([i.technology.id, i.mode, i.temperatureK, i.fuelPressureBar, i.utilization, i.air, i.fuelFeed, i.airFeed, i.anodeRecycle, i.preReforming]);
+  return JSON.stringify([i.technology.id, i.mode, i.temperatureK, i.fuelPressureBar, i.utilization, i.air, i.fuelFeed, i.airFeed, i.cathodeLoop, i.anodeRecycle, i.preReforming]);
 }
 
 /** The whole request of a fuel path (technology by its id; JSON numbers round-trip exactly): requests with the same key are the same request. */

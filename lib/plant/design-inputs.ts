@@ -26,7 +26,10 @@ export interface DesignInputs extends OperatingPoint {
   preReforming: PreReforming;
   /** Share of the fuel-electrode off-gas returned to the fuel inlet and the tolerance its loop must close to; null without a recycle. */
   anodeRecycle: { ratio: number; tolerance: number } | null;
+  /** Air-electrode feed, mole fractions; with a cathode-gas loop, the burner air's. */
   airFeed: Record<string, number> | null;
+  /** A carbonate cell's cathode-gas loop (lib/plant/cathode-loop.ts): the air-electrode feed is made from the off-gas and the burner air (airFeed); null where the basis gives the feed. */
+  cathodeLoop: { inletOxygenFraction: number } | null;
   ionicTransferenceNumber: number;
   crossoverAllowanceV: number;
   /** Alkaline cells: mass fraction of KOH in the electrolyte (sets its water activity). */
@@ -67,6 +70,7 @@ export function designInputs(basis: DesignBasis): DesignInputs {
     preReforming: basis.fuelElectrode?.preReforming ?? { kind: 'none' },
     anodeRecycle: basis.plant.anodeRecycle,
     airFeed: airOf(basis.airElectrode),
+    cathodeLoop: basis.airElectrode?.cathodeLoop ?? null,
     ...op,
     // The law's reference is the operating temperature of the basis unless it names another.
     ...(op.resistanceLaw ? { resistanceLaw: { ...op.resistanceLaw, referenceTemperatureK: op.resistanceLaw.referenceTemperatureK ?? c.temperatureK } } : {}),

@@ -50,6 +50,7 @@ function fieldOf(basis: DesignBasis, input: CalculationInput): string {
     'ionic-transference-number': 'cell.ionic-transference-number',
     'pre-reforming': 'streams.fuel-electrode.pre-reforming',
     'anode-recycle': 'plant.anode-recycle.tolerance',
+    'cathode-loop': 'streams.air-electrode.cathode-loop.inlet-oxygen',
     'cells-per-stack': 'plant.electrical.cells-per-stack',
     'stacks-in-series': 'plant.electrical.stacks-in-series',
     'dc-bus-window': 'plant.electrical.dc-bus-window',

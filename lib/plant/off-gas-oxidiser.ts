@@ -22,6 +22,8 @@ const H = mixtureEnthalpyJ;
 
 /** The gas the heat recovery takes: the oxidiser's products (with the air-electrode exhaust where fresh air burnt the off-gas). */
 export interface OxidiserExhaust {
+  /** What the plant's energy balance calls it, where not the oxidiser's exhaust. */
+  name?: string;
   flows: Record<string, number>;
   temperatureK: number;
   pressureBar: number;

@@ -62,6 +62,25 @@ export interface PowerPlantBalance {
     heatReleasedW: number;
     energyBalanceError: number;
   } | null;
+  /** A carbonate cell's cathode-gas loop (power-cathode-loop.ts); null without one. */
+  cathodeLoop: {
+    burnerAirMolPerS: number;
+    burnerAirKgPerS: number;
+    recycledShare: number;
+    inletOxygenFraction: number;
+    airUtilization: number;
+    carbonDioxideUtilization: number;
+    oxygenDemandMolPerS: number;
+    burntProductsMolPerS: number;
+    takenMolPerS: number;
+    oxygenTakenMolPerS: number;
+    burnerOutletTemperatureK: number;
+    recycleTemperatureK: number;
+    mixingTemperatureK: number;
+    inletTemperatureK: number;
+    heatingW: number;
+    inletFlows: Record<string, number>;
+  } | null;
   heatRecovery: {
     inletTemperatureK: number;
     exitTemperatureK: number;

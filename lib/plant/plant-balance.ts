@@ -4,7 +4,8 @@
  * with a first-law balance over the plant, one module a block:
  *  - power plant (power-plant.ts): steam raising (steam-raising.ts), fuel preheat, pre-reformer,
  *    air blower and preheat, the stack's outlets (power-feeds.ts); the off-gas oxidiser
- *    (off-gas-oxidiser.ts); heat recovery and combined heat and power (power-heat-recovery.ts);
+ *    (off-gas-oxidiser.ts), or a carbonate cell's cathode-gas loop in its place
+ *    (power-cathode-loop.ts); heat recovery and combined heat and power (power-heat-recovery.ts);
  *  - electrolysis plant (electrolysis-plant.ts): feed water, steam and sweep, the water loop, the
  *    stack heat supplied or removed, the specific energy; hydrogen compression
  *    (hydrogen-compression.ts).

@@ -82,6 +82,29 @@ function oxidiserResult(o: NonNullable<PowerPlantBalance['oxidiser']>): NonNulla
   };
 }
 
+/** The cathode-gas loop, for the results. */
+function cathodeLoopResult(l: NonNullable<PowerPlantBalance['cathodeLoop']>): NonNullable<NonNullable<PlantResults['power']>['cathodeLoop']> {
+  const total = Object.values(l.inletFlows).reduce((a, b) => a + b, 0);
+  return {
+    burnerAir_mol_per_s: l.burnerAirMolPerS,
+    burnerAir_kg_per_h: l.burnerAirKgPerS * HOUR,
+    recycledShare: l.recycledShare,
+    inletOxygenFraction: l.inletOxygenFraction,
+    airUtilization: l.airUtilization,
+    carbonDioxideUtilization: l.carbonDioxideUtilization,
+    oxygenDemand_mol_per_s: l.oxygenDemandMolPerS,
+    burntProducts_mol_per_s: l.burntProductsMolPerS,
+    taken_mol_per_s: l.takenMolPerS,
+    oxygenTaken_mol_per_s: l.oxygenTakenMolPerS,
+    burnerOutletTemperature_K: l.burnerOutletTemperatureK,
+    recycleTemperature_K: l.recycleTemperatureK,
+    mixingTemperature_K: l.mixingTemperatureK,
+    inletTemperature_K: l.inletTemperatureK,
+    heating_W: l.heatingW,
+    inletMoleFractions: Object.fromEntries(Object.entries(l.inletFlows).map(([k, v]) => [k, v / total])),
+  };
+}
+
 /** The power plant's balance, for the results. */
 function powerResult(q: PowerPlantBalance): NonNullable<PlantResults['power']> {
   return {
@@ -112,6 +135,7 @@ function powerResult(q: PowerPlantBalance): NonNullable<PlantResults['power']> {
     stackHeatTo: q.stackHeatTo,
     airExhaustTemperature_K: q.airExhaustTemperatureK,
     oxidiser: q.oxidiser && oxidiserResult(q.oxidiser),
+    cathodeLoop: q.cathodeLoop && cathodeLoopResult(q.cathodeLoop),
     heatRecovery: q.heatRecovery && {
       inletTemperature_K: q.heatRecovery.inletTemperatureK,
       exitTemperature_K: q.heatRecovery.exitTemperatureK,

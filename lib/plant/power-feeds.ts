@@ -8,7 +8,8 @@
  *    the fuel-electrode inlet temperature.
  *  - Air blower: one adiabatic stage from its inlet pressure to the air-electrode pressure
  *    (lib/flowsheet/compression.ts: isentropic outlet on s°(T), work over the isentropic
- *    efficiency); air then heated to the air-electrode inlet temperature. Fresh oxidiser air, where
+ *    efficiency); air then heated to the air-electrode inlet temperature (a carbonate cell's
+ *    cathode-gas loop takes the burner air instead: power-cathode-loop.ts). Fresh oxidiser air, where
  *    the oxidiser burns with air of its own, is λ times the O2 complete combustion of the off-gas
  *    needs, Σ ṅ_i z_i / 4 (lib/electrochem/charge.ts), and passes the same blower.
  *  - Stack: Q_stack = H_in(T_in) − H_out(T_stack) − P_DC (heat.ts, "as fed"). Cells cooled by
@@ -206,19 +207,23 @@ export function airSupply(point: DesignPoint, plant: PlantInput, offGas: Record<
   const inputs = point.inputs;
   const pAir = inputs.airPressureBar;
   const stackAir = point.streams.find((x) => x.id === 'air-inlet')!.flows;
+  const loop = point.unit.cathodeLoop;
   const ox = plant.offGasOxidiser;
   const airPerMolO2 = 1 / (inputs.airFeed!.O2 ?? 1);
   const freshAir =
     ox?.oxidant.kind === 'fresh-air' ? scaled(inputs.airFeed!, ox.oxidant.airRatio * oxygenDemand(offGas) * airPerMolO2) : null;
-  const airTotal = freshAir ? plus(stackAir, freshAir) : stackAir;
+  // A cathode-gas loop takes the burner air; the loop (power-cathode-loop.ts) makes the stack's air from it.
+  const supplied = loop ? scaled(loop.burnerAir, point.scale) : stackAir;
+  const airTotal = freshAir ? plus(supplied, freshAir) : supplied;
   const tAir = plant.airSupplyTemperatureK;
   const blower = airBlower(point, plant, airTotal, findings);
   const tBlown = blower ? blower.outletTemperatureK : tAir;
   const supplyBar = plant.airBlower?.inletPressureBar ?? pAir;
   const excess = supersaturation(plant, airTotal, supplyBar);
   if (excess) airSaturationFinding(plant, excess, findings);
-  sheet.add('air-supply', excess ? SUPERSATURATED_SUPPLY : 'air supply', tAir, supplyBar, airTotal);
+  sheet.add('air-supply', excess ? SUPERSATURATED_SUPPLY : loop ? 'burner air supply' : 'air supply', tAir, supplyBar, airTotal);
   if (blower) sheet.add('blower-outlet', 'air after the blower', tBlown, pAir, airTotal);
+  if (loop) return { freshAir, airTotal, supplyK: tAir, blownK: tBlown, blower };
   sheet.duty('air-preheat', 'air heated to the air-electrode inlet', H(stackAir, inputs.airInletTemperatureK) - H(stackAir, tBlown), tBlown, inputs.airInletTemperatureK);
   sheet.add('air-inlet', 'air-electrode inlet', inputs.airInletTemperatureK, pAir, stackAir);
   return { freshAir, airTotal, supplyK: tAir, blownK: tBlown, blower };

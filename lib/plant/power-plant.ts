@@ -1,6 +1,7 @@
 /**
  * The balance of a fuel-cell (power) plant: the feeds and the stack's outlets (power-feeds.ts),
- * the off-gas oxidiser (off-gas-oxidiser.ts), the heat recovery and CHP figures
+ * the off-gas oxidiser (off-gas-oxidiser.ts) or a carbonate cell's cathode-gas loop, whose burner
+ * takes its place (power-cathode-loop.ts), the heat recovery and CHP figures
  * (power-heat-recovery.ts), and the first law over the plant boundary (feeds in, exhaust,
  * condensate, electricity and heat out):
  *   H_fuel + H_water + H_air + W_blower = P_DC + Q_delivered + Q_loss + Q_rejected + H_exhaust + H_condensate
@@ -17,6 +18,7 @@ import { firstLaw, PlantSheet } from './plant-sheet.ts';
 import { airSupply, fuelPreparation, offGasOf, stackOutlets, type AirFeeds, type FuelFeeds, type StackOutlets } from './power-feeds.ts';
 import { offGasOxidiser, type OxidiserExhaust } from './off-gas-oxidiser.ts';
 import { chpOf, exhaustRecovery, type RecoveredExhaust } from './power-heat-recovery.ts';
+import { cathodeGasLoop } from './power-cathode-loop.ts';
 
 const H = mixtureEnthalpyJ;
 
@@ -50,7 +52,7 @@ function powerEnergyBalance(
   } else {
     // Without heat recovery the heaters are supplied from outside the balance: their net duty is an input.
     terms.push({ name: "heaters' net duty", valueW: netDutyW, side: 'in' });
-    if (exhaust) terms.push({ name: 'oxidiser exhaust', valueW: H(exhaust.flows, exhaust.temperatureK), side: 'out' });
+    if (exhaust) terms.push({ name: exhaust.name ?? 'oxidiser exhaust', valueW: H(exhaust.flows, exhaust.temperatureK), side: 'out' });
     else {
       terms.push({ name: 'fuel-electrode off-gas', valueW: H(offGas, tStack), side: 'out' });
       terms.push({ name: 'air-electrode exhaust', valueW: H(airOutlet, airExhaustK), side: 'out' });
@@ -68,8 +70,10 @@ export function powerBalance(point: DesignPoint, plant: PlantInput, findings: Fi
   const feeds = fuelPreparation(point, plant, sheet);
   const offGas = offGasOf(point, plant);
   const air = airSupply(point, plant, offGas.offGas, sheet, findings);
+  const loop = point.unit.cathodeLoop ? cathodeGasLoop(point, air, offGas.offGas, sheet) : null;
   const outlets = stackOutlets(point, plant, offGas, feeds.recycle !== null, sheet);
-  const { oxidiser, exhaust } = offGasOxidiser(point, plant, air, outlets, sheet, findings);
+  if (loop) sheet.add('cathode-vent', 'air-electrode exhaust leaving the cathode-gas loop', loop.exhaust.temperatureK, loop.exhaust.pressureBar, loop.exhaust.flows);
+  const { oxidiser, exhaust } = loop ? { oxidiser: null, exhaust: loop.exhaust } : offGasOxidiser(point, plant, air, outlets, sheet, findings);
 
   const netDutyW = sheet.duties.reduce((a, d) => a + d.dutyW, 0);
   // Heat lost to ambient is counted against the recovered heat, so only where there is heat recovery.
@@ -95,6 +99,7 @@ export function powerBalance(point: DesignPoint, plant: PlantInput, findings: Fi
       stackHeatTo,
       airExhaustTemperatureK: outlets.airExhaustK,
       oxidiser,
+      cathodeLoop: loop?.loop ?? null,
       heatRecovery,
       heatLossW,
       chp: chpOf(point, heatRecovery),

@@ -150,6 +150,27 @@ const powerPlantSchema = z
         energyBalanceError: num('relative energy balance error of the adiabatic solve'),
       })
       .nullable(),
+    cathodeLoop: z
+      .object({
+        burnerAir_mol_per_s: num('A: burner air, from the mole balance of the loop'),
+        burnerAir_kg_per_h: num('the burner air as mass'),
+        recycledShare: num('r: the share of the air-electrode exhaust returned to the air-electrode inlet'),
+        inletOxygenFraction: num('the O2 mole fraction at the air-electrode inlet, from the basis'),
+        airUtilization: num('O2 the cells take over the O2 entering (from the basis; the loop meets it)'),
+        carbonDioxideUtilization: num('CO2 the cells take over the CO2 entering'),
+        oxygenDemand_mol_per_s: num('D: O2 that complete combustion of the off-gas takes from the burner air'),
+        burntProducts_mol_per_s: num('N_B: moles of the off-gas burnt completely (CO2, H2O, N2 and the noble gases), O2 not counted'),
+        taken_mol_per_s: num('c_t: O2 and CO2 the cells take from the cathode gas (I/4F + I/2F)'),
+        oxygenTaken_mol_per_s: num('c_O2: O2 the cells take (I/4F)'),
+        burnerOutletTemperature_K: num('adiabatic outlet of the burner, the off-gas burnt completely'),
+        recycleTemperature_K: num('the recycle, at the air-electrode exhaust temperature'),
+        mixingTemperature_K: num('adiabatic mixing of the burner outlet with the recycle'),
+        inletTemperature_K: num('air-electrode inlet temperature, from the basis'),
+        heating_W: num("the loop's heater (negative: cooler) from the mixing temperature to the inlet temperature"),
+        inletMoleFractions: fractions.describe('the computed air-electrode inlet'),
+      })
+      .nullable()
+      .describe("a carbonate cell's cathode-gas loop: the off-gas burnt with burner air, mixed with a recycled share of the exhaust; null without one"),
     heatRecovery: z
       .object({
         inletTemperature_K: num('exhaust temperature entering the heat recovery'),

@@ -37,6 +37,7 @@ import { adiabaticEquilibrium } from '../equilibrium/adiabatic.ts';
 import { exchangeFor } from '../equilibrium/electrolyte-exchange.ts';
 import type { DesignInputs } from './design-inputs.ts';
 import { CalculationError } from '../core/errors.ts';
+import { cathodeLoop, type CathodeLoop } from './cathode-loop.ts';
 
 export interface UnitFeeds {
   /** Fuel-electrode feed as it enters the stack (after any pre-reformer), mol/s. */
@@ -49,6 +50,8 @@ export interface UnitFeeds {
   preReformer: { feed: Record<string, number>; inletTemperatureK: number; outletTemperatureK: number; energyBalanceError: number } | null;
   /** Air-electrode feed, mol/s. */
   air: Record<string, number> | null;
+  /** The cathode-gas loop that makes the air-electrode feed (cathode-loop.ts) on this scale; null where the basis gives the feed. */
+  cathodeLoop: CathodeLoop | null;
   /** Charge for U = 1 on this scale, A. */
   chargeA: number;
   /** Where the unit feed is: which electrode's feed is 1 mol/s. */
@@ -101,6 +104,24 @@ function recycledOffGas(inputs: DesignInputs, fresh: Readonly<Record<string, num
   return Object.fromEntries(Object.entries(offGas.amounts).map(([k, v]) => [k, v * r]));
 }
 
+/**
+ * A carbonate cell's cathode-gas loop on this scale (cathode-loop.ts): the burner takes the
+ * fuel-electrode off-gas less any anode recycle, whose elements are those of the stack inlet plus
+ * what the electrolyte carried in, b_out = b_in + U z(b_in) d (module comment); the cells take the
+ * air-electrode exchange per electron times U·Q/F. The off-gas depends on the fuel side alone, the
+ * current being fixed by the fuel utilization: no iteration with the cathode gas.
+ */
+function unitCathodeLoop(inputs: DesignInputs, stackInlet: Readonly<Record<string, number>>, chargeA: number, o2Consumed: number, o2Supplied: number): CathodeLoop {
+  const exchange = exchangeFor(inputs.technology.ion);
+  const bIn = elementsOf(stackInlet);
+  const bOut = combined(bIn, exchange.fuelElements, inputs.utilization * electronsOfElements(bIn));
+  const toBurner = 1 - (inputs.anodeRecycle?.ratio ?? 0);
+  const offGasElements = Object.fromEntries(Object.entries(bOut).map(([e, v]) => [e, v * toBurner]));
+  const electrons = (inputs.utilization * chargeA) / F;
+  const take = Object.fromEntries(Object.entries(exchange.airSpecies).map(([s, v]) => [s, -v * electrons]));
+  return cathodeLoop({ offGasElements, burnerAir: inputs.airFeed!, take, airUtilization: o2Consumed / o2Supplied, inletOxygenFraction: inputs.cathodeLoop!.inletOxygenFraction });
+}
+
 const WATER = (feed: Readonly<Record<string, number>>) => (feed.H2O ?? 0) + (feed['H2O(L)'] ?? 0);
 
 export function unitFeeds(inputs: DesignInputs): UnitFeeds {
@@ -117,7 +138,9 @@ export function unitFeeds(inputs: DesignInputs): UnitFeeds {
     const xO2 = inputs.airFeed.O2 ?? 0;
     if (!(xO2 > 0)) throw new CalculationError('the air-electrode feed contains no O2', 'air-electrode-feed');
     const reformed = preReform(inputs, mixed);
-    return { fuelStackInlet: reformed.outlet, fuelRaw: raw, recycle, preReformer: reformed.preReformer, air: times(inputs.airFeed, o2Supplied / xO2), chargeA, basis: 'fuel' };
+    const loop = inputs.cathodeLoop ? unitCathodeLoop(inputs, reformed.outlet, chargeA, o2Consumed, o2Supplied) : null;
+    const air = loop ? loop.inlet : times(inputs.airFeed, o2Supplied / xO2);
+    return { fuelStackInlet: reformed.outlet, fuelRaw: raw, recycle, preReformer: reformed.preReformer, air, cathodeLoop: loop, chargeA, basis: 'fuel' };
   }
   const waterSide = tech.waterElectrode;
   // Alkaline cells hold their water in the electrolyte: a liquid-water feed stands for the make-up.
@@ -132,6 +155,6 @@ export function unitFeeds(inputs: DesignInputs): UnitFeeds {
   const produced = waterSide === 'fuel' ? (u * chargeA) / (4 * F) : (u * chargeA) / (2 * F);
   const sweep = sweepSide && inputs.air.kind === 'sweep-ratio' ? times(sweepSide, inputs.air.value * produced) : null;
   return waterSide === 'fuel'
-    ? { fuelStackInlet: { ...waterFeed }, fuelRaw: { ...waterFeed }, recycle: null, preReformer: null, air: sweep, chargeA, basis: 'fuel' }
-    : { fuelStackInlet: sweep, fuelRaw: sweep, recycle: null, preReformer: null, air: { ...waterFeed }, chargeA, basis: 'air' };
+    ? { fuelStackInlet: { ...waterFeed }, fuelRaw: { ...waterFeed }, recycle: null, preReformer: null, air: sweep, cathodeLoop: null, chargeA, basis: 'fuel' }
+    : { fuelStackInlet: sweep, fuelRaw: sweep, recycle: null, preReformer: null, air: { ...waterFeed }, cathodeLoop: null, chargeA, basis: 'air' };
 }

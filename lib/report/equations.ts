@@ -512,6 +512,7 @@ function plantEquations(r: Results): EquationEntry[] {
     ...(r.plant.electrolysis ? [electrolysisPlantEquation()] : []),
     ...(r.plant.electrolysis?.recuperator ? [recuperatorEquation()] : []),
     ...(r.plant.power ? powerPlantEquations() : []),
+    ...(r.plant.power?.cathodeLoop ? [cathodeLoopEquation()] : []),
   ];
 }
 
@@ -584,6 +585,40 @@ function recuperatorEquation(): EquationEntry {
     'recuperator-duty',
     { duty: { lhs: sym('Q_\\mathrm{rec}'), symbols: { Hs: sym('H_\\mathrm{hot}(T_\\mathrm{stack})'), Hr: sym('H_\\mathrm{hot}(T_\\mathrm{ho})') }, rhs: (q) => `${q.Hs} - ${q.Hr}` } },
     (show) => `\\begin{gathered} ${show('duty')}, \\\\ T_\\mathrm{h}(c) - T_\\mathrm{c}(c) \\ge \\Delta T_\\mathrm{min} \\text{ for every } c \\in [0, Q_\\mathrm{rec}] \\end{gathered}`,
+  );
+}
+
+/**
+ * A carbonate cell's cathode-gas loop (lib/plant/cathode-loop.ts): its mole balance, the two
+ * conditions that fix the burner air A and the recycled share r, the two rows of the balance they
+ * are solved from (O2, and the total), and the adiabatic mixing of the burner's products with the
+ * recycle (lib/plant/power-cathode-loop.ts).
+ */
+function cathodeLoopEquation(): EquationEntry {
+  const A = sym('A');
+  const r = sym('r');
+  const D = sym('D');
+  return entry(
+    'cathode-loop',
+    {
+      air: {
+        lhs: A,
+        symbols: { Q: sym('Q'), D, r, c: sym('c_\\mathrm{O_2}'), y: sym('y_\\mathrm{O_2}') },
+        rhs: (q, op) => `\\frac{${q.Q} + ${q.D} - ${q.r}${op.times}${op.open}${q.Q} - ${q.c}${op.close}}{${q.y}}`,
+      },
+      recycle: {
+        lhs: r,
+        symbols: { N: sym('N'), NB: sym('N_B'), D, A, ct: sym('c_t') },
+        rhs: (q) => `\\frac{${q.N} - ${q.NB} + ${q.D} - ${q.A}}{${q.N} - ${q.ct}}`,
+      },
+      mixing: {
+        lhs: sym('H_\\mathrm{in}(T_\\mathrm{mix})'),
+        symbols: { HB: sym('H_B(T_\\mathrm{b})'), Hr: sym('H_\\mathrm{rec}(T_\\mathrm{exh})') },
+        rhs: (q) => `${q.HB} + ${q.Hr}`,
+      },
+    },
+    (show) =>
+      `\\begin{gathered} \\dot n_\\mathrm{in} = B + A\\,y + r\\,(\\dot n_\\mathrm{in} - c) \\;\\Longrightarrow\\; \\dot n_\\mathrm{in} = \\frac{B + A\\,y - r\\,c}{1 - r}, \\\\ \\dot n_\\mathrm{in,O_2} = \\frac{c_\\mathrm{O_2}}{U_\\mathrm{air}} \\equiv Q, \\quad \\sum_i \\dot n_{\\mathrm{in},i} = \\frac{Q}{x_\\mathrm{O_2}} \\equiv N, \\\\ ${show('air')}, \\qquad ${show('recycle')}, \\\\ ${show('mixing')} \\end{gathered}`,
   );
 }
 

@@ -288,11 +288,12 @@ function powerBoxes(d: Drawing) {
   const pre = d.has('pre-reformer-feed') ? d.add(box(2, FUEL_Y, ['pre-reformer'])) : null;
   const fuelHeat = pre ? d.add(box(3, FUEL_Y, ['fuel preheat'])) : null;
   const blower = d.has('blower-outlet') ? d.add(box(1, AIR_Y, ['air blower'])) : null;
-  const airHeat = d.add(box(2, AIR_Y, ['air preheat']));
+  const loop = d.has('burner-outlet');
+  const airHeat = d.add(box(2, AIR_Y, loop ? ['cathode-gas mixer', 'and cooler'] : ['air preheat']));
   const stack = stackBox(d, 4);
-  const ox = d.has('oxidiser-outlet') ? d.add(box(5, MID_Y, ['off-gas', 'oxidiser'])) : null;
+  const ox = loop ? d.add(box(3, MID_Y, ['catalytic', 'burner'])) : d.has('oxidiser-outlet') ? d.add(box(5, MID_Y, ['off-gas', 'oxidiser'])) : null;
   const hr = d.has('exhaust') ? d.add(box(6, MID_Y, ['heat recovery'])) : null;
-  return { prep, pre, fuelHeat, blower, airHeat, stack, ox, hr };
+  return { prep, pre, fuelHeat, blower, airHeat, stack, ox, hr, loop };
 }
 
 type PowerBoxes = ReturnType<typeof powerBoxes>;
@@ -317,13 +318,16 @@ function powerFeedLines(d: Drawing, b: PowerBoxes): void {
   } else {
     parts.push(arrow(right(prep), stackFuel, num('fuel-inlet')));
   }
-  if (blower) {
+  if (b.loop) {
+    // A cathode-gas loop's air goes to its burner (cathodeLoopLines).
+    if (blower) parts.push(arrow({ x: COL[0]!, y: AIR_Y + H / 2 }, left(blower), num('air-supply')));
+  } else if (blower) {
     parts.push(arrow({ x: COL[0]!, y: AIR_Y + H / 2 }, left(blower), num('air-supply')));
     parts.push(arrow(right(blower), left(airHeat), num('blower-outlet')));
   } else {
     parts.push(arrow({ x: COL[0]!, y: AIR_Y + H / 2 }, left(airHeat), num('air-supply')));
   }
-  parts.push(arrow(right(airHeat), stackAir, num('air-inlet')));
+  if (!b.loop) parts.push(arrow(right(airHeat), stackAir, num('air-inlet')));
   if (has('recycle')) {
     // The recycle leaves the stack's top and returns to the feed preparation above the fuel line.
     const top = stack.y - 14;
@@ -365,12 +369,58 @@ function powerOutletLines(d: Drawing, b: PowerBoxes): void {
   }
 }
 
+/** A line through the points, arrowed at its end, with the stream numbers on the leg from `points[leg]` (dashed for a recycle). */
+function polyline(points: readonly { x: number; y: number }[], numbers: number[], leg: number, dashed = false): string {
+  const a = points[leg]!;
+  const b = points[leg + 1]!;
+  const label = a.y === b.y ? `<text x="${((a.x + b.x) / 2).toFixed(1)}" y="${(a.y - 5).toFixed(1)}" text-anchor="middle"` : `<text x="${(a.x + 5).toFixed(1)}" y="${((a.y + b.y) / 2 + 4).toFixed(1)}"`;
+  return `<path d="${pathData(points)}" fill="none" stroke="currentColor" stroke-width="1.2"${dashed ? ' stroke-dasharray="4 3"' : ''} marker-end="url(#bfd-arrow)"/>${label} font-size="11" font-weight="bold">${numbers.join(', ')}</text>`;
+}
+
+/**
+ * A carbonate cell's cathode-gas loop: the burner air and the off-gas (round the stack's top) into
+ * the catalytic burner, its products and the recycled exhaust (round the bottom) into the mixer and
+ * its cooler or heater, the mixture into the stack, the exhaust not recycled out of the plant or
+ * into the heat recovery.
+ */
+function cathodeLoopLines(d: Drawing, b: PowerBoxes): void {
+  const { num, parts, terminals } = d;
+  const { blower, airHeat: mixer, stack, hr } = b;
+  const burner = b.ox!;
+  const from = blower ? right(blower) : { x: COL[0]!, y: AIR_Y + H / 2 };
+  const turn = COL[2]! - 18;
+  parts.push(polyline([from, { x: turn, y: from.y }, { x: turn, y: burner.y + H / 2 }, left(burner)], num(blower ? 'blower-outlet' : 'air-supply'), blower ? 2 : 0));
+  const fuelOut = { x: stack.x + W, y: FUEL_Y + H / 2 };
+  const top = 8;
+  // Down the gap between the burner's column and the stack, into the burner's right side: a fuel preheat may stand above the burner.
+  const gap = (burner.x + W + stack.x) / 2;
+  parts.push(polyline([fuelOut, { x: fuelOut.x + 16, y: fuelOut.y }, { x: fuelOut.x + 16, y: top }, { x: gap, y: top }, { x: gap, y: burner.y + 12 }, { x: burner.x + W, y: burner.y + 12 }], num('fuel-outlet'), 1));
+  const mixerX = mixer.x + W / 2;
+  parts.push(polyline([{ x: burner.x + W / 2, y: burner.y + burner.h }, { x: burner.x + W / 2, y: burner.y + burner.h + 14 }, { x: mixerX, y: burner.y + burner.h + 14 }, { x: mixerX, y: mixer.y }], num('burner-outlet'), 1));
+  parts.push(arrow(right(mixer), { x: stack.x, y: AIR_Y + H / 2 }, num('cathode-gas-mixed', 'air-inlet')));
+  const airOut = { x: stack.x + W, y: AIR_Y + H / 2 };
+  parts.push(loopBack(airOut.x + 20, airOut.y, mixerX, mixer.y + mixer.h, AIR_Y + H + 24, num('cathode-recycle')));
+  if (hr) {
+    parts.push(arrow(airOut, left(hr), num('air-outlet', 'cathode-vent')));
+    terminals.push(exitLabel(COL[7]! + 4, hr.y + 12, 'exhaust'));
+    parts.push(arrow({ x: hr.x + W, y: hr.y + 12 }, { x: COL[7]!, y: hr.y + 12 }, num('exhaust')));
+    if (d.has('condensate')) {
+      terminals.push(exitLabel(COL[7]! + 4, hr.y + H - 10, 'condensate'));
+      parts.push(arrow({ x: hr.x + W, y: hr.y + H - 10 }, { x: COL[7]!, y: hr.y + H - 10 }, num('condensate')));
+    }
+    return;
+  }
+  terminals.push(exitLabel(COL[6]! + 4, airOut.y, 'exhaust'));
+  parts.push(arrow(airOut, { x: COL[6]!, y: airOut.y }, num('air-outlet', 'cathode-vent')));
+}
+
 /** The power plant: feed preparation, pre-reformer, fuel preheat, blower, air preheat, stack, off-gas oxidiser, heat recovery. */
 function powerDiagram(r: Results): TrustedHtml {
   const d = drawing(r);
   const b = powerBoxes(d);
   powerFeedLines(d, b);
-  powerOutletLines(d, b);
+  if (b.loop) cathodeLoopLines(d, b);
+  else powerOutletLines(d, b);
   if (d.has('fuel-electrode-water') || d.has('air-electrode-water')) {
     const water = { x: b.stack.x + W / 2, y: b.stack.y + b.stack.h };
     d.terminals.push(`<text x="${water.x}" y="${water.y + 42}" text-anchor="middle" font-size="10">liquid water</text>`);

@@ -401,16 +401,30 @@ function plant(step: Step, r: Results): void {
     .text(
       'The fuel and air are heated from their supply (or blower outlet) temperature to the temperature the next unit takes them at, each duty the enthalpy flow out less the enthalpy flow in; the air blower is one adiabatic stage whose isentropic enthalpy rise $\\Delta h_\\mathrm{s}$ follows from $s^\\circ(T_\\mathrm{s}) = s^\\circ(T_1) + R \\ln(p_2/p_1)$ (Çengel and Boles, Thermodynamics, ch. 7):',
     )
-    .eq('plant-duty')
-    .text(
-      'The fuel-electrode off-gas is burnt with its oxidant; the products leave at chemical equilibrium at the adiabatic temperature, found by minimising the Gibbs energy at fixed enthalpy and pressure:',
-    )
-    .eq('oxidiser-balance')
+    .eq('plant-duty');
+  if (r.plant.power.cathodeLoop) cathodeLoop(step);
+  else {
+    step
+      .text(
+        'The fuel-electrode off-gas is burnt with its oxidant; the products leave at chemical equilibrium at the adiabatic temperature, found by minimising the Gibbs energy at fixed enthalpy and pressure:',
+      )
+      .eq('oxidiser-balance');
+  }
+  step
     .text(
       "The exhaust is cooled to the stated exit temperature, its water condensed to saturation there where it would be supersaturated; the plant's heaters take their net duty $D$ first and the heat lost to ambient $Q_\\mathrm{loss}$ is subtracted. The heat delivered and the total efficiency of combined heat and power are",
     )
     .eq('delivered-heat')
     .eq('chp-efficiency');
+}
+
+/** A carbonate cell's cathode-gas loop, which burns the off-gas in place of the oxidiser (lib/plant/cathode-loop.ts, power-cathode-loop.ts). */
+function cathodeLoop(step: Step): void {
+  step
+    .text(
+      "The cathode gas is made by the plant: the catalytic burner burns the fuel-electrode off-gas completely (C to CO2, H to H2O, N to N2) with the burner air $A$ of composition $y$, taking the oxygen demand $D = \\sum_i \\dot n_i z_i / 4$ from it, and its products $B$ mix with the share $r$ of the air-electrode exhaust that is recycled. The cells take $c$: $I/4F$ of O2 and $I/2F$ of CO2 (the carbonate cell's air-electrode reaction, CO2 + ½ O2 + 2e⁻ → CO3²⁻). Species by species the loop conserves mass (the mole balance below); the air utilization and the O2 fraction $x_\\mathrm{O_2}$ at the inlet fix the O2 entering, $Q$, and the gas entering, $N$, and the O2 row and the sum over species of the balance ($N_B$ the moles of $B$ besides its O2, $c_t$ the cells' whole take) are two linear equations in $A$ and $r$, solved by Cramer's rule. The loop exists where $0 \\le r < 1$; an O2 fraction above what the burner's products alone carry (r < 0) is refused at the basis field. The burner's products leave at the adiabatic temperature $T_\\mathrm{b}$ of complete combustion, $H_B(T_\\mathrm{b}) = H_\\mathrm{off\\text{-}gas}(T) + H_\\mathrm{air}$, and mix adiabatically with the recycle at the air-electrode exhaust temperature (the steady-flow energy balance, Çengel and Boles, Thermodynamics, ch. 5); the loop's heater or cooler, a duty above, brings the mixture to the stated air-electrode inlet temperature. The exhaust not recycled leaves the loop:",
+    )
+    .eq('cathode-loop');
 }
 
 function carbon(step: Step): void {

@@ -64,6 +64,26 @@ function dimensionOf(field: string): Dimension {
   return byKey[field] ?? 'fraction';
 }
 
+const LOOP = 'streams.air-electrode.cathode-loop.';
+
+/** A carbonate cell's cathode-gas loop in place of the scaffold's cathode gas, for the loop's fields (its burner air humid where a humidity is under test). */
+function loopEdits(field: string): Record<string, unknown> {
+  if (!field.includes(LOOP)) return {};
+  const humid = field.includes('.humidity.');
+  const rh = humid && !field.endsWith('dew-point');
+  return {
+    'streams.air-electrode.composition': undefined,
+    [`${LOOP}burner-air.composition`]: humid ? 'humid-air' : 'dry-air',
+    ...(humid ? (rh ? { [`${LOOP}burner-air.humidity.relative-humidity`]: '60 %', [`${LOOP}burner-air.humidity.at`]: '25 C' } : { [`${LOOP}burner-air.humidity.dew-point`]: '15 C' }) : {}),
+    [`${LOOP}inlet-oxygen`]: '9.4 %',
+  };
+}
+
+/** The scaffold's technology for a field: the KOH mass fraction belongs to alkaline cells, the cathode-gas loop to carbonate ones. */
+function technologyFor(field: string): 'alkaline' | 'molten-carbonate' | 'solid-oxide' {
+  return field === 'cell.koh-mass-fraction' ? 'alkaline' : field.includes(LOOP) ? 'molten-carbonate' : 'solid-oxide';
+}
+
 /**
  * A valid basis for a case's field: the scaffold with one sizing case (which may change the
  * hardware too) whose override of the key holding the field is that key as the base's test
@@ -83,7 +103,8 @@ function caseBaseFor(field: string): { text: (value: string | number) => string;
       let at: Record<string, unknown> = overrides;
       for (const k of key.slice(0, -1)) at = (at[k] = {}) as Record<string, unknown>;
       at[key[key.length - 1]!] = held;
-      return scaffoldText('solid-oxide', electrolysis ? 'electrolysis' : 'power', 'x', {
+      return scaffoldText(technologyFor(field), electrolysis ? 'electrolysis' : 'power', 'x', {
+        ...loopEdits(field),
         cases: { c: { title: 'Case under test', purpose: 'carries the value under test', sizing: true, overrides } },
       });
     },
@@ -94,7 +115,7 @@ function caseBaseFor(field: string): { text: (value: string | number) => string;
 function baseFor(field: string): { text: (value: string | number) => string; path: string } {
   if (field.startsWith(CASE)) return caseBaseFor(field.slice(CASE.length));
   const electrolysis = /steam-conversion|sweep-ratio|target-hydrogen|koh-mass-fraction|hydrogen-compression|recuperator/.test(field);
-  const edits: Record<string, unknown> = {};
+  const edits: Record<string, unknown> = loopEdits(field);
   let path = field;
   if (field === 'operating-point.air-ratio') edits['operating-point.air-utilization'] = undefined;
   if (field === 'operating-point.area-specific-resistance') edits['operating-point.cell-voltage'] = undefined;
@@ -144,6 +165,7 @@ function baseFor(field: string): { text: (value: string | number) => string; pat
   const inline: Record<string, [composition: string, fixed: Record<string, number>, species: string]> = {
     'streams.fuel-electrode.composition.*': ['streams.fuel-electrode.composition', { CH4: 0.99 }, 'N2'],
     'streams.air-electrode.composition.*': ['streams.air-electrode.composition', { O2: 0.21, N2: 0.78 }, 'Ar'],
+    [`${LOOP}burner-air.composition.*`]: [`${LOOP}burner-air.composition`, { O2: 0.21, N2: 0.78 }, 'Ar'],
   };
   if (field === 'streams.fuel-electrode.composition.*') edits['mixtures'] = undefined;
   if (field === 'streams.air-electrode.composition.*') edits['streams.air-electrode.humidity'] = undefined;
@@ -153,12 +175,11 @@ function baseFor(field: string): { text: (value: string | number) => string; pat
   const composition = inline[field];
   if (composition) {
     const [at, fixed, species] = composition;
-    return { path: `${at}.${species}`, text: (value) => scaffoldText('solid-oxide', 'power', 'x', { ...edits, [at]: { ...fixed, [species]: written(value) } }) };
+    return { path: `${at}.${species}`, text: (value) => scaffoldText(technologyFor(field), 'power', 'x', { ...edits, [at]: { ...fixed, [species]: written(value) } }) };
   }
   return {
     path,
-    // The KOH mass fraction belongs to alkaline cells alone.
-    text: (value) => scaffoldText(field === 'cell.koh-mass-fraction' ? 'alkaline' : 'solid-oxide', electrolysis ? 'electrolysis' : 'power', 'x', { ...edits, [path]: written(value) }),
+    text: (value) => scaffoldText(technologyFor(field), electrolysis ? 'electrolysis' : 'power', 'x', { ...edits, [path]: written(value) }),
   };
 }
 

@@ -70,6 +70,9 @@ function formula(id: string, n: Record<string, number>, power: boolean): number 
   // The heat supplied: the feeds' heaters and the stack's supply; removed: the loop cooler and the others.
   if (id.endsWith('-heat-supplied')) return n.Qf! + n.Qs!;
   if (id.endsWith('-coolers')) return n.Ql! + n.Qo!;
+  // A carbonate cell's cathode-gas loop: the O2 row and the total of its mole balance (lib/plant/cathode-loop.ts).
+  if (id.endsWith('-cathode-loop-air')) return (n.Q! + n.D! - n.r! * (n.Q! - n.c!)) / n.y!;
+  if (id.endsWith('-cathode-loop-recycle')) return (n.N! - n.NB! + n.D! - n.A!) / (n.N! - n.ct!);
   throw new Error(`no formula for ${id}`);
 }
 
@@ -104,6 +107,8 @@ function resultOf(id: string, c: CaseResult): number {
   if (id.endsWith('-blower-power')) return c.plant!.power!.blower!.power_W / 1000;
   if (id.endsWith('-heat-supplied')) return c.plant!.electrolysis!.heatSupplied_W / 1000;
   if (id.endsWith('-coolers')) return c.plant!.electrolysis!.coolers_W / 1000;
+  if (id.endsWith('-cathode-loop-air')) return c.plant!.power!.cathodeLoop!.burnerAir_mol_per_s;
+  if (id.endsWith('-cathode-loop-recycle')) return c.plant!.power!.cathodeLoop!.recycledShare;
   return NaN;
 }
 
@@ -142,6 +147,9 @@ const ROW_LINES: Record<string, { lines: string[]; factor: number }> = {
   'blower-power': { lines: ['blower-power'], factor: 1e-3 },
   'heat-supplied': { lines: ['heat-supplied'], factor: 1e-3 },
   coolers: { lines: ['coolers'], factor: 1e-3 },
+  'cathode-burner-air': { lines: ['cathode-loop-air'], factor: 1 },
+  'cathode-recycle': { lines: ['cathode-loop-recycle'], factor: 1 },
+  'cathode-recycle-least': { lines: ['cathode-loop-recycle'], factor: 1 },
 };
 
 describe.each(['thistlemere-sofc-chp', 'kestrelford-pem-electrolyser', 'corrin-beck-mcfc-biogas', 'hob-tor-pem-backup'])('the envelope of %s', (id) => {

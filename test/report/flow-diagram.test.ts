@@ -18,6 +18,12 @@ const PLANT = {
   'plant.heat-recovery': { 'exhaust-exit-temperature': '40 C' },
 };
 
+/** The molten carbonate scaffold's cathode gas made by a cathode-gas loop (lib/plant/cathode-loop.ts). */
+const LOOP = {
+  'streams.air-electrode': { 'cathode-loop': { 'burner-air': { composition: 'dry-air' }, 'inlet-oxygen': '9.4 %' } },
+  'mixtures.cathode-gas': undefined,
+};
+
 const COMPRESSION = { 'plant.hydrogen-compression': { 'delivery-pressure': '200 bar', stages: 2, 'isentropic-efficiency': '75 %' } };
 
 describe('block flow diagram', () => {
@@ -25,6 +31,8 @@ describe('block flow diagram', () => {
     ['solid oxide, oxidiser on the air exhaust', 'solid-oxide', { ...PLANT, 'plant.off-gas-oxidiser': { oxidant: 'air-electrode-exhaust', 'material-limit': '1100 C' } }],
     ['solid oxide, recycle and fresh-air oxidiser', 'solid-oxide', { ...PLANT, 'plant.anode-recycle': { ratio: 0.5 }, 'plant.off-gas-oxidiser': { oxidant: 'fresh-air', 'air-ratio': 1.5, 'material-limit': '1100 C' } }],
     ['PEM without a plant section', 'pem', {}],
+    ['molten carbonate, cathode-gas loop', 'molten-carbonate', LOOP],
+    ['molten carbonate, cathode-gas loop with blower and heat recovery', 'molten-carbonate', { ...LOOP, ...PLANT }],
   ] as const)('%s: draws every numbered stream once', (_name, technology, edits) => {
     const results = calculate(basisFrom(technology, 'power', edits));
     const svg = blockFlowDiagram(results)!.html;

@@ -92,6 +92,11 @@ function formulas(r: Results): Record<string, Formula> {
     'air-preheat': (n) => n.Hout! - n.Hin!,
     'blower-power': (n) => (n.n! * n.hs!) / n.eta!,
     'oxidiser-enthalpy': (n) => n.Hog! + n.Hox!,
+    // The cathode-gas loop's O2 row and total of its mole balance, and its adiabatic mixing
+    // (the conservation of mass and the steady-flow energy balance; lib/plant/cathode-loop.ts).
+    'cathode-loop-air': (n) => (n.Q! + n.D! - n.r! * (n.Q! - n.c!)) / n.y!,
+    'cathode-loop-recycle': (n) => (n.N! - n.NB! + n.D! - n.A!) / (n.N! - n.ct!),
+    'cathode-loop-mixing': (n) => n.HB! + n.Hr!,
     // kW over kg/h is kWh/kg.
     'system-specific-energy': (n) => (n.P! + n.Qe! + n.Pc!) / n.m!,
     'delivered-heat': (n) => n.R! - n.D! - n.L!,
@@ -326,6 +331,21 @@ describe.each(['solid-oxide', 'molten-carbonate'] as const)('worked lines of the
 
   it('shows the fuel and air preheat, the blower power and the oxidiser balance', () => {
     expect(plant.map((l) => l.id).sort()).toEqual(['air-preheat', 'blower-power', 'fuel-preheat', 'oxidiser-enthalpy', 'steam-raising']);
+  });
+
+  it.each(plant.map((l) => [l.id, l] as const))('%s: the numbers shown give the result shown', (id, line) => recomputes(c, f, id, line));
+});
+
+describe('worked lines of the molten carbonate scaffold with its cathode gas made by a cathode-gas loop', () => {
+  const loop = (y: string) => y.replace(/^ {4}composition: cathode-gas .*$/m, '    cathode-loop: { burner-air: { composition: dry-air }, inlet-oxygen: "9.4 %" }');
+  const c = scaffoldCase('molten-carbonate', 'power', loop);
+  const ids = ['cathode-loop-air', 'cathode-loop-recycle', 'cathode-loop-mixing'];
+  const plant = lines(c).filter((l) => ids.includes(l.id));
+  const f = formulas(c.results);
+
+  it('shows the burner air, the recycled share and the mixing, and the air-electrode feed at the inlet O2 fraction', () => {
+    expect(plant.map((l) => l.id)).toEqual(ids);
+    expect(lines(c).find((l) => l.id === 'air-flow')!.inputs.x).toBeCloseTo(0.094, 12);
   });
 
   it.each(plant.map((l) => [l.id, l] as const))('%s: the numbers shown give the result shown', (id, line) => recomputes(c, f, id, line));

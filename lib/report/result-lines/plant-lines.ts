@@ -1,7 +1,7 @@
 /**
  * The worked lines of the plant around the stack: the stack, bus voltage and bus current of the
  * electrical layout; in power mode the steam raising, the heat delivered and the total
- * efficiency of combined heat and power; in electrolysis the steam raising, the compressor power
+ * efficiency of combined heat and power, and a carbonate cell's cathode-gas loop; in electrolysis the steam raising, the compressor power
  * and the electricity per kilogram of hydrogen of the whole plant.
  */
 import type { Results } from '../../plant/results-schema.ts';
@@ -333,6 +333,68 @@ function oxidiserLine(r: Results, p: PowerPlant): LineSpec | null {
   return null;
 }
 
+/**
+ * A carbonate cell's cathode-gas loop: the burner air from the O2 row of its mole balance, the
+ * recycled share from the total, and the adiabatic mixing of the burner's products with the recycle.
+ */
+function cathodeLoopLines(r: Results, p: PowerPlant): LineSpec[] {
+  const l = p.cathodeLoop;
+  const burner = plantStream(r, 'burner-outlet');
+  const recycle = plantStream(r, 'cathode-recycle');
+  const mixed = plantStream(r, 'cathode-gas-mixed');
+  const supply = plantStream(r, 'air-supply');
+  if (!l || !burner || !recycle || !mixed || !supply) return [];
+  const taken = l.oxygenTaken_mol_per_s;
+  const oxygenIn = taken / l.airUtilization;
+  const total = oxygenIn / l.inletOxygenFraction;
+  return [
+    {
+      id: 'cathode-loop-air',
+      title: 'Cathode-gas loop: the burner air, from the O2 balance',
+      equation: 'cathode-loop',
+      relation: 'air',
+      quantities: [
+        { name: 'Q', value: oxygenIn, unit: 'mol/s', origin: 'O2 entering the air electrode: the O2 the cells take over the air utilization' },
+        { name: 'D', value: l.oxygenDemand_mol_per_s, unit: 'mol/s', origin: 'O2 complete combustion of the off-gas takes, stream table' },
+        { name: 'r', value: l.recycledShare, unit: '', origin: 'recycled share, below' },
+        { name: 'c', value: taken, unit: 'mol/s', origin: 'O2 the cells take, I/4F' },
+        { name: 'y', value: supply.moleFractions.O2!, unit: '', origin: 'O2 fraction of the burner air, design input' },
+      ],
+      value: l.burnerAir_mol_per_s,
+      unit: 'mol/s',
+    },
+    {
+      id: 'cathode-loop-recycle',
+      title: 'Cathode-gas loop: the recycled share of the exhaust, from the total balance',
+      equation: 'cathode-loop',
+      relation: 'recycle',
+      quantities: [
+        { name: 'N', value: total, unit: 'mol/s', origin: 'gas entering the air electrode: Q over the inlet O2 fraction, design input' },
+        { name: 'NB', value: l.burntProducts_mol_per_s, unit: 'mol/s', origin: 'the off-gas burnt completely (CO2, H2O, N2), from its elements' },
+        { name: 'D', value: l.oxygenDemand_mol_per_s, unit: 'mol/s', origin: 'O2 complete combustion of the off-gas takes' },
+        { name: 'A', value: l.burnerAir_mol_per_s, unit: 'mol/s', origin: 'burner air, above' },
+        { name: 'ct', value: l.taken_mol_per_s, unit: 'mol/s', origin: 'O2 and CO2 the cells take, I/4F + I/2F' },
+      ],
+      value: l.recycledShare,
+      unit: '',
+      percent: true,
+    },
+    {
+      id: 'cathode-loop-mixing',
+      title: `Cathode-gas loop: the burner's products and the recycle mix at ${formatTemperature(l.mixingTemperature_K)} (adiabatic)`,
+      equation: 'cathode-loop',
+      relation: 'mixing',
+      quantities: [
+        { name: 'HB', value: burner.enthalpyFlow_W / 1000, unit: 'kW', origin: `burner outlet at ${formatTemperature(l.burnerOutletTemperature_K)}, stream table` },
+        { name: 'Hr', value: recycle.enthalpyFlow_W / 1000, unit: 'kW', origin: 'recycled exhaust at the exhaust temperature, stream table' },
+      ],
+      value: mixed.enthalpyFlow_W / 1000,
+      unit: 'kW',
+      note: `the mixture has this enthalpy at ${formatTemperature(l.mixingTemperature_K)}; the loop's ${l.heating_W < 0 ? 'cooler takes' : 'heater adds'} ${formatQuantity(Math.abs(l.heating_W) / 1000, 'kW')} to bring it to the air-electrode inlet at ${formatTemperature(l.inletTemperature_K)}`,
+    },
+  ];
+}
+
 /** The heat delivered by the heat recovery and the total CHP efficiency. */
 function heatRecoveryLines(r: Results, p: PowerPlant): LineSpec[] {
   if (!p.heatRecovery || !p.chp) return [];
@@ -377,5 +439,6 @@ export function plantLines(r: Results): LineSpec[] {
   if (p.blower) lines.push(blowerLine(p.blower));
   const oxidiser = oxidiserLine(r, p);
   if (oxidiser) lines.push(oxidiser);
+  lines.push(...cathodeLoopLines(r, p));
   return [...lines, ...heatRecoveryLines(r, p)];
 }

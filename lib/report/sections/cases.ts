@@ -73,6 +73,8 @@ export const CASE_ROWS: readonly Shown[] = [
   { path: 'headline.maxLocalCurrentDensity_A_per_m2', si: 'A/m2', label: 'Highest local current density', factor: 1e-4, unit: 'A/cm²' },
   { path: 'headline.carbonMargin', si: '', label: 'Carbon margin (S/C above the least carbon-free)', factor: 1, unit: '' },
   { path: 'plant.power.oxidiser.outletTemperature_K', si: 'K', label: 'Off-gas oxidiser outlet temperature', factor: 1, unit: 'K' },
+  { path: 'plant.power.cathodeLoop.burnerAir_mol_per_s', si: 'mol/s', label: 'Burner air of the cathode-gas loop', factor: 1, unit: 'mol/s' },
+  { path: 'plant.power.cathodeLoop.recycledShare', si: '', label: 'Share of the cathode exhaust recycled', factor: 100, unit: '%' },
   { path: 'plant.power.steam.duty_W', si: 'W', label: 'Steam raising duty', factor: 1e-3, unit: 'kW' },
   { path: 'plant.power.duties[pre-reformer].duty_W', si: 'W', label: 'Pre-reformer duty', factor: 1e-3, unit: 'kW' },
   { path: 'plant.power.duties[fuel-preheat].duty_W', si: 'W', label: 'Fuel preheat duty', factor: 1e-3, unit: 'kW' },
@@ -617,6 +619,9 @@ const GOVERNING_LINES: Readonly<Record<string, readonly string[]>> = {
   'fuel-preheat': ['fuel-preheat'],
   'air-preheat': ['air-preheat'],
   'oxidiser-temperature': ['oxidiser-enthalpy'],
+  'cathode-burner-air': ['cathode-loop-air'],
+  'cathode-recycle': ['cathode-loop-recycle'],
+  'cathode-recycle-least': ['cathode-loop-recycle'],
   'compressor-power': ['compressor-power'],
   'blower-power': ['blower-power'],
 };

@@ -103,7 +103,9 @@ function description(basis: DesignBasis, r: Results): Table {
   const airData = shared ? `${capital(names.air)}, air electrode` : capital(names.air);
   if (basis.fuelElectrode) rows.push(...fuelRows(basis.fuelElectrode, power, names.fuel, fuelData));
   else rows.push({ label: capital(names.fuel), text: 'none', data: [{ name: fuelData, unit: '', value: 'none' }] });
-  if (basis.airElectrode) rows.push(compositionPair(capital(names.air), basis.airElectrode.compositionName, basis.airElectrode.composition, airData));
+  // A cathode-gas loop's feed is computed (the plant section shows it); the basis gives its burner air.
+  const airLabel = basis.airElectrode?.cathodeLoop ? `${capital(names.air)}: burner air of its cathode-gas loop` : capital(names.air);
+  if (basis.airElectrode) rows.push(compositionPair(airLabel, basis.airElectrode.compositionName, basis.airElectrode.composition, airData));
   else rows.push({ label: capital(names.air), text: 'none', data: [{ name: airData, unit: '', value: 'none' }] });
   return pairsTable('cell-and-feeds', 'The cell and its feeds', rows, ['Item', 'As designed'], 'left');
 }

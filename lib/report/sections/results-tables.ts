@@ -405,8 +405,35 @@ function duties(p: PlantPower): Pair[] {
   return rows;
 }
 
+/** A carbonate cell's cathode-gas loop: its burner air, recycled share, burner, mixing, cooler or heater and the cathode inlet it makes. */
+function cathodeLoopRows(l: NonNullable<PlantPower['cathodeLoop']>): Pair[] {
+  const inlet = Object.entries(l.inletMoleFractions).sort((a, b) => b[1] - a[1]);
+  return [
+    several('Cathode-gas loop: burner air / share of the exhaust recycled', `${formatQuantity(l.burnerAir_mol_per_s, 'mol/s')} (${formatQuantity(l.burnerAir_kg_per_h, 'kg/h')}) / ${formatPercent(l.recycledShare)}`, [
+      ['Burner air', 'mol/s', l.burnerAir_mol_per_s],
+      ['Burner air', 'kg/h', l.burnerAir_kg_per_h],
+      ['Share of the air-electrode exhaust recycled', '', l.recycledShare],
+    ]),
+    several('Air utilization / CO2 utilization of the cells', `${formatPercent(l.airUtilization)} / ${formatPercent(l.carbonDioxideUtilization)}`, [
+      ['Air utilization', '', l.airUtilization],
+      ['CO2 utilization', '', l.carbonDioxideUtilization],
+    ]),
+    several('Burner outlet (adiabatic, complete combustion) / recycle / mixture', `${formatTemperature(l.burnerOutletTemperature_K)} / ${formatTemperature(l.recycleTemperature_K)} / ${formatTemperature(l.mixingTemperature_K)}`, [
+      ['Burner outlet temperature', 'K', l.burnerOutletTemperature_K],
+      ['Recycle temperature', 'K', l.recycleTemperature_K],
+      ['Mixing temperature', 'K', l.mixingTemperature_K],
+    ]),
+    quantity(`Loop ${l.heating_W < 0 ? 'cooler' : 'heater'} to the air-electrode inlet at ${formatTemperature(l.inletTemperature_K)}`, l.heating_W, 'W', kW(l.heating_W)),
+    {
+      label: 'Air-electrode inlet, mol %',
+      text: inlet.map(([k, x]) => `${speciesText(k)} ${formatNumber(x * 100, 4)}`).join(', '),
+      data: inlet.map(([k, x]) => ({ name: `Air-electrode inlet, mole fraction ${k}`, unit: 'mol/mol', value: x })),
+    },
+  ];
+}
+
 function oxidiserAndRecovery(p: PlantPower): Pair[] {
-  const rows: Pair[] = [];
+  const rows: Pair[] = p.cathodeLoop ? cathodeLoopRows(p.cathodeLoop) : [];
   const o = p.oxidiser;
   if (o) {
     const oxidant = o.oxidant === 'fresh-air' ? `fresh air, ${formatNumber(o.airRatio!)} times the oxygen complete combustion needs` : 'the air-electrode exhaust';
