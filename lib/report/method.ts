@@ -311,7 +311,7 @@ function humidityOfCases(r: Results): string {
   const own = r.cases.filter((c) => c.ran && (c.conditions?.airHumidity?.waterFraction ?? null) !== x).map((c) => c.id);
   if (!own.length) return ' Every operating case is fed air of this water fraction: none changes the humidity or the pressure it is stated at.';
   const many = own.length > 1;
-  return ` The operating case${many ? 's' : ''} ${own.join(', ')} ${many ? 'are' : 'is'} fed air of another water fraction (${many ? 'they change' : 'it changes'} the humidity or the pressure it is stated at); ${many ? 'each has its own worked line' : 'it has its own worked line'} in section ${sectionNumber('cases')}.`;
+  return ` The operating case${many ? 's' : ''} ${own.join(', ')} ${many ? 'are' : 'is'} fed air of another water fraction (${many ? 'they change' : 'it changes'} the air fed, its humidity or the pressure the humidity is stated at); the worked lines of section ${sectionNumber('cases')} give the water of ${many ? 'each one' : 'it'} fed humid air.`;
 }
 
 /**
