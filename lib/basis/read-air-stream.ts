@@ -12,12 +12,12 @@ import { inRange } from '../thermo/properties.ts';
 import { PA_PER_BAR } from '../thermo/constants.ts';
 import { saturationRange, waterSaturationPressurePa } from '../thermo/water-saturation.ts';
 import { findPreset } from './presets.ts';
-import { humidAir, waterFractionAtDewPoint, waterFractionAtRelativeHumidity } from './humid-air.ts';
+import { humidAir, humidityAtDewPoint, humidityAtRelativeHumidity } from './humid-air.ts';
 import { kelvinText, readTemperature } from './read-conditions.ts';
 import { resolveComposition, type Composition } from './composition.ts';
 import type { Path } from './diagnostics.ts';
 import type { Read, Reader } from './reader.ts';
-import type { AirStream } from './types.ts';
+import type { AirHumidity, AirStream } from './types.ts';
 
 export interface AirStreamRead {
   stream: AirStream;
@@ -37,15 +37,13 @@ function saturationTemperature(reader: Reader, path: Path, label: string): Read 
   return read;
 }
 
-type Humidity = NonNullable<AirStream['humidity']>;
-
 /** The pressures, bar, at which each form of the humidity is stated. */
 interface StatedAt {
   airElectrodeBar: number | undefined;
   ambientBar: number | undefined;
 }
 
-function readHumidity(reader: Reader, path: Path, pressures: StatedAt): { humidity: Humidity; water: number; at: Path; statedAt: string; pressureBar: number } | undefined {
+function readHumidity(reader: Reader, path: Path, pressures: StatedAt): { humidity: AirHumidity; at: Path; pressureBar: number } | undefined {
   const has = (key: string) => reader.has([...path, key]);
   if (has('dew-point') && (has('relative-humidity') || has('at'))) {
     reader.findings.error([...path, has('relative-humidity') ? 'relative-humidity' : 'at'], `give the humidity as ${HUMIDITY_FORMS}, not both`, 'key');
@@ -60,7 +58,7 @@ function readHumidity(reader: Reader, path: Path, pressures: StatedAt): { humidi
     const dew = saturationTemperature(reader, [...path, 'dew-point'], 'dew point');
     const pressureBar = pressures.airElectrodeBar;
     if (!dew || pressureBar === undefined) return undefined;
-    return { humidity: { dewPointK: dew.si }, water: waterFractionAtDewPoint(dew.si, pressureBar), at: dew.at, statedAt: 'air-electrode', pressureBar };
+    return { humidity: humidityAtDewPoint(dew.si, pressureBar), at: dew.at, pressureBar };
   }
   const rh = reader.scalar([...path, 'relative-humidity'], 'fraction', 'relative humidity');
   const at = saturationTemperature(reader, [...path, 'at'], 'relative-humidity temperature');
@@ -70,7 +68,7 @@ function readHumidity(reader: Reader, path: Path, pressures: StatedAt): { humidi
   }
   const pressureBar = pressures.ambientBar;
   if (!rh || !at || pressureBar === undefined) return undefined;
-  return { humidity: { relativeHumidity: rh.si, atK: at.si, pressureBar }, water: waterFractionAtRelativeHumidity(rh.si, at.si, pressureBar), at: rh.at, statedAt: 'ambient', pressureBar };
+  return { humidity: humidityAtRelativeHumidity(rh.si, at.si, pressureBar), at: rh.at, pressureBar };
 }
 
 /** A composition at `path` (composition, source, humidity beside it), as the air-electrode feed or as a cathode loop's burner air. */
@@ -92,16 +90,17 @@ function readAirComposition(reader: Reader, path: Path, mixtures: ReadonlyMap<st
   const humidity = readHumidity(reader, humidityPath, pressures);
   const pressureBar = pressures.airElectrodeBar;
   if (!humidity || pressureBar === undefined) return undefined;
-  if (humidity.water >= 1) {
-    reader.findings.error(humidity.at, `this humidity needs a water partial pressure above the ${humidity.statedAt} pressure, ${humidity.pressureBar} bar: the air would be all steam`);
+  const water = humidity.humidity.waterFraction;
+  if (water >= 1) {
+    reader.findings.error(humidity.at, `this humidity needs a water partial pressure above the ${humidity.humidity.pressureOf} pressure, ${humidity.pressureBar} bar: the air would be all steam`);
     return undefined;
   }
   const line = saturationRange();
-  if (inletK !== undefined && inletK >= line.lowK && inletK <= line.highK && humidity.water * pressureBar * PA_PER_BAR > waterSaturationPressurePa(inletK)) {
+  if (inletK !== undefined && inletK >= line.lowK && inletK <= line.highK && water * pressureBar * PA_PER_BAR > waterSaturationPressurePa(inletK)) {
     reader.findings.warning(humidity.at, `this much water vapour would condense at the air-electrode feed temperature, ${kelvinText(inletK)}`);
   }
   const dry = findPreset(findPreset(composition.name ?? '')?.base ?? 'dry-air')!;
-  const fractions = humidAir(dry.composition, humidity.water);
+  const fractions = humidAir(dry.composition, water);
   const speciesAt = Object.fromEntries(Object.keys(fractions).map((s) => [s, composition.at]));
   return {
     stream: { compositionName: composition.name ?? 'humid-air', composition: fractions, humidity: humidity.humidity },

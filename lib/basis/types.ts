@@ -91,13 +91,36 @@ export interface AirStream {
   compositionName?: string;
   /** Mole fractions summing to 1 (humid air includes its H2O). */
   composition: Record<string, number>;
-  /** Humidity as stated, for the inputs table; the composition already includes it. */
-  humidity?: { dewPointK: number } | { relativeHumidity: number; atK: number; pressureBar: number };
+  /** Humidity as stated and as converted (humid-air only); the composition already includes it. */
+  humidity?: AirHumidity;
   /**
    * A carbonate cell's cathode-gas loop (streams.air-electrode.cathode-loop): the composition above
-   * is then the burner air's, and the air-electrode feed is computed (lib/plant/cathode-loop.ts).
+   * (and its humidity) is then the burner air's, and the air-electrode feed is computed (lib/plant/cathode-loop.ts).
    */
   cathodeLoop?: { inletOxygenFraction: number };
+}
+
+/**
+ * The humidity of humid air as stated and what it was converted with (lib/basis/humid-air.ts):
+ * x_H2O = φ · p_sat(T) / p, by Dalton's law for an ideal gas, p_sat from the IAPWS-IF97
+ * saturation line (region 4, IAPWS R7-97). A dew point is the air fed to the electrode, saturated
+ * at T = T_d (φ = 1), at the air-electrode pressure; a relative humidity is the ambient air's, at
+ * the ambient pressure.
+ */
+export interface AirHumidity {
+  form: 'dew-point' | 'relative-humidity';
+  /** The dew point, or the temperature at which the relative humidity is stated. */
+  temperatureK: number;
+  /** φ as stated, a fraction; null for a dew point (saturated there). */
+  relativeHumidity: number | null;
+  /** p_sat(temperatureK), IAPWS-IF97 region 4. */
+  saturationPressurePa: number;
+  /** The pressure p the humidity is converted at. */
+  pressurePa: number;
+  /** Which pressure p is: the air electrode's (a dew point) or the ambient (a relative humidity). */
+  pressureOf: 'air-electrode' | 'ambient';
+  /** x_H2O of the air fed. */
+  waterFraction: number;
 }
 
 export type AirSupply =

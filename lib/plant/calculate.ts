@@ -13,7 +13,7 @@ import { evaluateReaction } from '../electrochem/reaction.ts';
 import { waterActivityVoltage } from '../electrochem/nernst.ts';
 import { activationOverpotentialV } from './activation.ts';
 import { assessHazards } from '../hazards/assessment.ts';
-import type { DesignBasis } from '../basis/types.ts';
+import type { AirHumidity, DesignBasis } from '../basis/types.ts';
 import { toolVersion } from '../core/version.ts';
 import { designInputs } from './design-inputs.ts';
 import { evaluateDesignPoint, type DesignPoint } from './design-point.ts';
@@ -385,7 +385,7 @@ export function pointResults(point: DesignPoint, basis: DesignBasis, carbon?: Re
   const c = computed(point, carbon);
   const margin = c.carbon;
   return {
-    conditions: conditionsOf(c),
+    conditions: conditionsOf(c, basis),
     headline: headlineOf(c),
     electrochemistry: electrochemistryOf(c),
     operatingPoint: operatingPointOf(c),
@@ -406,7 +406,7 @@ export function pointResults(point: DesignPoint, basis: DesignBasis, carbon?: Re
   };
 }
 
-function conditionsOf({ inputs }: Computed): Results['conditions'] {
+function conditionsOf({ inputs }: Computed, basis: DesignBasis): Results['conditions'] {
   return {
     temperature_K: inputs.temperatureK,
     fuelPressure_bar: inputs.fuelPressureBar,
@@ -414,6 +414,21 @@ function conditionsOf({ inputs }: Computed): Results['conditions'] {
     fuelInletTemperature_K: inputs.fuelInletTemperatureK,
     airInletTemperature_K: inputs.airInletTemperatureK,
     ambientTemperature_K: inputs.ambientTemperatureK,
+    airHumidity: airHumidityOf(basis.airElectrode?.humidity),
+  };
+}
+
+/** The humidity of a humid-air feed as the basis states it and converts it (lib/basis/humid-air.ts), in the results' units. */
+function airHumidityOf(h: AirHumidity | undefined): Results['conditions']['airHumidity'] {
+  if (!h) return null;
+  return {
+    form: h.form,
+    temperature_K: h.temperatureK,
+    relativeHumidity: h.relativeHumidity,
+    saturationPressure_Pa: h.saturationPressurePa,
+    pressure_Pa: h.pressurePa,
+    pressureOf: h.pressureOf,
+    waterFraction: h.waterFraction,
   };
 }
 

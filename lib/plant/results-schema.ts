@@ -31,6 +31,19 @@ const streamSchema = z
   })
   .describe('a process stream');
 
+const airHumiditySchema = z
+  .object({
+    form: z.enum(['dew-point', 'relative-humidity']).describe('how the basis states the humidity'),
+    temperature_K: num('T: the dew point, or the temperature at which the relative humidity is stated'),
+    relativeHumidity: nullableNum('φ as stated, a fraction; null for a dew point (the air saturated there, φ = 1)'),
+    saturationPressure_Pa: num('p_sat(T), IAPWS-IF97 region 4 (IAPWS R7-97, eq. 30)'),
+    pressure_Pa: num('p, the pressure the humidity is converted at'),
+    pressureOf: z.enum(['air-electrode', 'ambient']).describe('which pressure p is: the air-electrode pressure (a dew point, of the air fed) or the ambient pressure (a relative humidity, of the ambient air; conditions.ambient-pressure)'),
+    waterFraction: num("x_H2O = φ p_sat(T)/p (Dalton's law for an ideal gas), kept when the air is compressed; the dry-air fractions are scaled by 1 − x_H2O"),
+  })
+  .nullable()
+  .describe('the humidity of an air-electrode feed of humid air, as stated and as converted to its water mole fraction; null for any other feed');
+
 const pathPointSchema = z.object({
   utilization: num('fraction of the charge basis carried by the ions from the inlet'),
   nernst_V: num('local Nernst voltage'),
@@ -353,6 +366,7 @@ const designResultsSchema = z
       fuelInletTemperature_K: num('fuel-electrode feed at the stack inlet'),
       airInletTemperature_K: num('air-electrode feed at the stack inlet'),
       ambientTemperature_K: num('cold sink of the Carnot comparison'),
+      airHumidity: airHumiditySchema,
     }),
     headline: z
       .object({

@@ -413,6 +413,33 @@ function fuelCellFlowEquations(r: Results): EquationEntry[] {
   ];
 }
 
+/** The forms of humidity the air-electrode feeds of these results state, the sizing case's and every case's, in the order of the relations. */
+export function humidityForms(r: Results): ('dew-point' | 'relative-humidity')[] {
+  const stated = [r.conditions.airHumidity, ...r.cases.map((c) => c.conditions?.airHumidity)];
+  return (['relative-humidity', 'dew-point'] as const).filter((form) => stated.some((h) => h?.form === form));
+}
+
+/** The relation of the air's water fraction for a form of humidity (a key of the entry air-humidity). */
+export const HUMIDITY_RELATION = { 'relative-humidity': 'relative', 'dew-point': 'dewPoint' } as const;
+
+/**
+ * The water mole fraction of an air-electrode feed of humid air (lib/basis/humid-air.ts): its
+ * vapour pressure over the total pressure p, x_H2O = p_H2O/p (Dalton's law for an ideal gas), the
+ * vapour pressure φ p_s(T) for a relative humidity φ at T and p_s(T_d) at a dew point T_d, p_s on
+ * the IAPWS-IF97 saturation line (region 4, eq. 30; IAPWS R7-97). Both relations are in the
+ * entry (a case may state the other form); the method displays the forms the design states.
+ */
+function humidityEquations(r: Results): EquationEntry[] {
+  const forms = humidityForms(r);
+  if (!forms.length) return [];
+  const [x, p] = [sym('x_\\mathrm{H_2O}'), sym('p')];
+  const relations: Record<(typeof HUMIDITY_RELATION)[keyof typeof HUMIDITY_RELATION], Relation> = {
+    relative: { lhs: x, symbols: { phi: sym('\\varphi'), ps: sym('p_\\mathrm{s}(T)'), p }, rhs: (q, op) => `\\frac{${q.phi}${op.times}${q.ps}}{${q.p}}` },
+    dewPoint: { lhs: x, symbols: { ps: sym('p_\\mathrm{s}(T_\\mathrm{d})'), p }, rhs: (q) => `\\frac{${q.ps}}{${q.p}}` },
+  };
+  return [entry('air-humidity', relations, (show) => `x_\\mathrm{H_2O} = \\frac{p_\\mathrm{H_2O}}{p} = ${forms.map((f) => show(HUMIDITY_RELATION[f], 'rhs')).join(' \\quad\\text{or}\\quad ')}`)];
+}
+
 /** An electrolyser's hydrogen (and CO) and oxygen by Faraday's law, and its conversion against the feed's charge. */
 function electrolysisFlowEquations(r: Results): EquationEntry[] {
   const Iion = ionicCurrent(r);
@@ -786,6 +813,7 @@ export function equationTable(r: Results): Map<string, EquationEntry> {
     ...temperatureEquations(),
     ...voltageEquations(r),
     ...faradayEquations(r),
+    ...humidityEquations(r),
     ...efficiencyEquations(r),
     ...heatEquations(r),
     ...carbonEquations(),

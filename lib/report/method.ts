@@ -10,7 +10,7 @@ import type { Results } from '../plant/results-schema.ts';
 import { EquationBook, type Equation } from './equation-book.ts';
 import { electrodeReactions } from './electrode-reactions.ts';
 import { electrolyte } from '../electrochem/electrolytes.ts';
-import { equationTable, mixedConductor, type EquationEntry } from './equations.ts';
+import { equationTable, humidityForms, mixedConductor, type EquationEntry } from './equations.ts';
 import { sectionNumber } from './outline.ts';
 import { hotSpot } from './local-current.ts';
 import { paragraphHtml, prose, type Paragraph } from './prose.ts';
@@ -292,6 +292,49 @@ function kineticVoltage(step: Step, r: Results): void {
     );
 }
 
+/** What the method says of each form of humidity: the water's partial pressure, and the pressure p it is converted at. */
+const HUMIDITY_TEXT = {
+  'relative-humidity': {
+    vapour: 'for a relative humidity $\\varphi$ stated at the temperature $T$ it is $\\varphi\\,p_\\mathrm{s}(T)$',
+    pressure: 'A relative humidity is that of the ambient air, so $p$ is the ambient pressure (conditions.ambient-pressure; the standard atmosphere, 1.01325 bar, where the basis gives none).',
+  },
+  'dew-point': {
+    vapour: 'at a dew point $T_\\mathrm{d}$, where the air is saturated, it is $p_\\mathrm{s}(T_\\mathrm{d})$',
+    pressure: "A dew point is that of the air fed to the electrode (a humidifier's outlet), so $p$ is the air-electrode pressure.",
+  },
+} as const;
+
+/** Whether the operating cases are fed the sizing case's air: none, or the ids of those fed air of another water fraction. */
+function humidityOfCases(r: Results): string {
+  if (!r.cases.length) return '';
+  const x = r.conditions.airHumidity?.waterFraction ?? null;
+  const own = r.cases.filter((c) => c.ran && (c.conditions?.airHumidity?.waterFraction ?? null) !== x).map((c) => c.id);
+  if (!own.length) return ' Every operating case is fed air of this water fraction: none changes the humidity or the pressure it is stated at.';
+  const many = own.length > 1;
+  return ` The operating case${many ? 's' : ''} ${own.join(', ')} ${many ? 'are' : 'is'} fed air of another water fraction (${many ? 'they change' : 'it changes'} the air fed, its humidity or the pressure the humidity is stated at); the worked lines of section ${sectionNumber('cases')} give the water of ${many ? 'each one' : 'it'} fed humid air.`;
+}
+
+/**
+ * The water of a humid-air feed (Eq. air-humidity): Dalton's law with the IAPWS-IF97 saturation
+ * pressure, at the pressure where the humidity is stated, and whether the operating cases are
+ * fed the same air (each case is read as a basis of its own, so a case that changes that
+ * pressure or the humidity has its own fraction, worked among its lines).
+ */
+function airHumidity(step: Step, r: Results): void {
+  const forms = humidityForms(r);
+  if (!forms.length) return;
+  const loop = Boolean(r.plant?.power?.cathodeLoop);
+  const kept = loop
+    ? ' Compressing and heating the air keep its mole fractions, so $x_\\mathrm{H_2O}$ is that of the burner air as it reaches the burner; the water of the cathode gas is then the loop\'s mole balance.'
+    : ' Compressing and heating the air keep its mole fractions, so $x_\\mathrm{H_2O}$ is that of the air at the electrode.';
+  step
+    .text(
+      `${loop ? "The cathode-gas loop's burner air is humid air" : 'The air-electrode feed is humid air'}: dry air, its mole fractions scaled by $1 - x_\\mathrm{H_2O}$, and the water vapour of the humidity the basis states. By Dalton's law for an ideal gas the water's mole fraction is its partial pressure over the total pressure $p$; ${forms.map((f) => HUMIDITY_TEXT[f].vapour).join(', and ')}, with $p_\\mathrm{s}$ the saturation pressure of water on the IAPWS-IF97 saturation line (region 4, eq. 30 of the IAPWS R7-97 release):`,
+    )
+    .eq('air-humidity')
+    .text(`${forms.map((f) => HUMIDITY_TEXT[f].pressure).join(' ')}${kept}${humidityOfCases(r)}`);
+}
+
 function faraday(step: Step, r: Results): void {
   const power = r.technology.mode === 'power';
   step
@@ -324,6 +367,7 @@ function faraday(step: Step, r: Results): void {
       .text("By Faraday's law every two electrons split one molecule of water (or of carbon dioxide, in co-electrolysis), so the products and the conversion of the feed are")
       .eq('production');
   }
+  airHumidity(step, r);
 }
 
 function efficiency(step: Step, r: Results): void {

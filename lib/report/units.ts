@@ -10,6 +10,7 @@ const UNITS: Record<string, { text: string; tex: string }> = {
   mV: { text: 'mV', tex: '\\mathrm{mV}' },
   K: { text: 'K', tex: '\\mathrm{K}' },
   bar: { text: 'bar', tex: '\\mathrm{bar}' },
+  Pa: { text: 'Pa', tex: '\\mathrm{Pa}' },
   A: { text: 'A', tex: '\\mathrm{A}' },
   W: { text: 'W', tex: '\\mathrm{W}' },
   kW: { text: 'kW', tex: '\\mathrm{kW}' },

@@ -59,6 +59,25 @@ describe('humid air', () => {
     expect(Object.values(dry).reduce((a, b) => a + b, 0)).toBeCloseTo(1, 12);
   });
 
+  it('keeps what each form was converted with: T, φ, p_s(T), the pressure p and which it is, and x_H2O, the water of the composition', () => {
+    const load = (text: string) => {
+      const result = loadBasisText(text, 'projects/t/basis.yaml', 't');
+      if (!result.ok) throw new Error(JSON.stringify(result.errors));
+      return result.basis.airElectrode!;
+    };
+    const dew = load(BASE);
+    // The fixture's dew point of 15 °C, at its 1.2 bar air electrode (the pressure the dew-point form did not keep before).
+    expect(dew.humidity).toEqual({ form: 'dew-point', temperatureK: 288.15, relativeHumidity: null, saturationPressurePa: waterSaturationPressurePa(288.15), pressurePa: 120000, pressureOf: 'air-electrode', waterFraction: dew.composition.H2O });
+    const rh = load(edit(BASE, ['humidity: { dew-point: "15 C" }', 'humidity: { relative-humidity: "70 %", at: "15 C" }']));
+    expect(rh.humidity).toMatchObject({ form: 'relative-humidity', temperatureK: 288.15, pressureOf: 'ambient', waterFraction: rh.composition.H2O });
+    expect(rh.humidity!.relativeHumidity).toBeCloseTo(0.7, 12);
+    expect(rh.humidity!.pressurePa).toBeCloseTo(101325, 6);
+    // By hand, the relative humidity of the CHP demo (70 % at 15 °C, the standard atmosphere):
+    // 0.70 × 1705.8 Pa / 101 325 Pa = 1.1784 %, p_s(15 °C) = 1.7058 kPa (IAPWS-95 steam tables;
+    // from memory) to its last digit plus IF97's 0.025 % (0.48 Pa, 3.3e-6 on x).
+    expect(Math.abs(rh.humidity!.waterFraction - (0.7 * 1705.8) / 101325)).toBeLessThan(3.3e-6);
+  });
+
   it('a humidity that needs more water pressure than the electrode pressure is refused', () => {
     const text = edit(BASE, ['dew-point: "15 C"', 'dew-point: "110 C"'], ['air-electrode-pressure: "1.2 bar"', 'air-electrode-pressure: "1 bar"']);
     const result = loadBasisText(text, 'f.yaml', 't');

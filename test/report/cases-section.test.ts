@@ -14,6 +14,7 @@ import { CASE_ROWS } from '../../lib/report/sections/cases.ts';
 import { formatNumber, formatTemperature } from '../../lib/report/format.ts';
 import { renderDocumentHtml } from '../../lib/publish/render.ts';
 import type { RevisionContext } from '../../lib/report/revision.ts';
+import { scaffoldText } from '../helpers/scaffold-basis.ts';
 
 function demo(id: string): { basis: DesignBasis; results: Results } {
   const loaded = loadBasisText(readFileSync(new URL(`../../projects/${id}/basis.yaml`, import.meta.url), 'utf8'), `projects/${id}/basis.yaml`, id);
@@ -73,6 +74,8 @@ function formula(id: string, n: Record<string, number>, power: boolean): number 
   // A carbonate cell's cathode-gas loop: the O2 row and the total of its mole balance (lib/plant/cathode-loop.ts).
   if (id.endsWith('-cathode-loop-air')) return (n.Q! + n.D! - n.r! * (n.Q! - n.c!)) / n.y!;
   if (id.endsWith('-cathode-loop-recycle')) return (n.N! - n.NB! + n.D! - n.A!) / (n.N! - n.ct!);
+  // Dalton's law: the water's partial pressure over the total, φ p_s(T)/p (a dew point: φ = 1).
+  if (id.endsWith('-air-humidity')) return ((n.phi ?? 1) * n.ps!) / n.p!;
   throw new Error(`no formula for ${id}`);
 }
 
@@ -109,6 +112,7 @@ function resultOf(id: string, c: CaseResult): number {
   if (id.endsWith('-coolers')) return c.plant!.electrolysis!.coolers_W / 1000;
   if (id.endsWith('-cathode-loop-air')) return c.plant!.power!.cathodeLoop!.burnerAir_mol_per_s;
   if (id.endsWith('-cathode-loop-recycle')) return c.plant!.power!.cathodeLoop!.recycledShare;
+  if (id.endsWith('-air-humidity')) return c.conditions!.airHumidity!.waterFraction;
   return NaN;
 }
 
@@ -344,4 +348,39 @@ it('the electrolyser\'s turndown line names its solved current density and the r
   const origins = line.quantities.map((q) => q.origin);
   expect(origins).toContain("current density that meets the case's target on the installed cells (solved: the load line above)");
   expect(origins).toContain("the sizing case's, implied by its given cell voltage (section 6)");
+});
+
+describe('the water of a humid-air feed in the operating cases', () => {
+  const methodText = (view: ReturnType<typeof documentView>) => JSON.stringify(view.method);
+
+  it.each(['thistlemere-sofc-chp', 'hob-tor-pem-backup'])('%s: no case changes the humidity or its pressure, and the method says every case is fed that air', (id) => {
+    const { basis, results } = demo(id);
+    for (const c of results.cases) expect(c.conditions!.airHumidity).toEqual(results.conditions.airHumidity);
+    const view = documentView({ basis, results, revision: draft, history: [] }, { assetBase: './', checks: [] });
+    expect(methodText(view)).toContain('Every operating case is fed air of this water fraction');
+    expect(view.cases.lines.flatMap((g) => g.lines).some((l) => l.id.endsWith('-air-humidity'))).toBe(false);
+  });
+
+  it("a case that lowers the air-electrode pressure of a dew-point feed is fed more water, worked in its own line: p_s(60 °C)/1.3 bar", () => {
+    const text = scaffoldText('pem', 'power', 'demo', { cases: { 'low-pressure': { title: 'Air at 1.3 bar', purpose: 'test', overrides: { conditions: { 'air-electrode-pressure': '1.3 bar' } } } } });
+    const loaded = loadBasisText(text, 'projects/demo/basis.yaml', 'demo');
+    if (!loaded.ok) throw new Error(loaded.errors.map((e) => e.message).join('; '));
+    const results = calculate(loaded.basis);
+    const view = documentView({ basis: loaded.basis, results, revision: draft, history: [] }, { assetBase: './', checks: [] });
+    const caseLines = view.cases.lines.flatMap((g) => g.lines);
+    const line = caseLines.find((l) => l.id === 'case-low-pressure-air-humidity')!;
+    expect(line.title).toBe('Case low-pressure: water in the air-electrode feed');
+    expect(line.inputs.p).toBeCloseTo(130000, 6);
+    // By hand: p_s(60 °C) = 19.946 kPa (IAPWS-95 steam tables; from memory) over 130 kPa, to
+    // half a unit in its last digit plus IF97's 0.025 % from IAPWS-95 (from memory): 0.0055 kPa.
+    expect(Math.abs(line.value - 19.946 / 130)).toBeLessThan(0.0055 / 130);
+    expect(Math.abs(formula(line.id, line.inputs, true) - line.value)).toBeLessThanOrEqual(1e-12);
+    const c = results.cases.find((k) => k.id === 'low-pressure')!;
+    expect(line.value).toBe(resultOf(line.id, c));
+    expect(line.value).toBeCloseTo(c.streams.find((s) => s.id === 'air-inlet')!.moleFractions.H2O!, 12);
+    // The sizing case is fed the air of section 6 (p_s(60 °C)/1.5 bar): no line of its own.
+    expect(results.conditions.airHumidity!.waterFraction).toBeCloseTo(19.946 / 150, 4);
+    expect(caseLines.filter((l) => l.id.endsWith('-air-humidity'))).toHaveLength(1);
+    expect(methodText(view)).toContain('The operating case low-pressure is fed air of another water fraction');
+  });
 });

@@ -1,6 +1,7 @@
 // Each worked line of section 6 must be redoable by hand: its formula, evaluated here on the
 // numbers the line shows (line.inputs), gives the result the line states, and that result is the
 // number of the results object. The formulas below are written out independently of lib/report.
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { EquationBook } from '../../lib/report/equation-book.ts';
 import { methodSection } from '../../lib/report/method.ts';
@@ -9,6 +10,8 @@ import type { CalcLine } from '../../lib/report/calc-line.ts';
 import { formatTrimmed } from '../../lib/report/format.ts';
 import type { Results } from '../../lib/plant/results-schema.ts';
 import { CASES, scaffoldCase } from '../helpers/scaffold-cases.ts';
+import { loadBasisText } from '../../lib/basis/load.ts';
+import { calculate } from '../../lib/plant/calculate.ts';
 
 type Formula = (n: Record<string, number>) => number;
 
@@ -106,6 +109,9 @@ function formulas(r: Results): Record<string, Formula> {
     hydrogen: (n) => n.I! / (2 * n.F!),
     oxygen: (n) => n.I! / (4 * n.F!),
     'air-flow': (n) => n.nO2! / (n.x! * n.U!),
+    // Dalton's law for an ideal gas: the water's mole fraction is its partial pressure over the
+    // total, φ p_s(T)/p for a relative humidity φ at T, p_s(T_d)/p at a dew point (φ = 1).
+    'air-humidity': (n) => ((n.phi ?? 1) * n.ps!) / n.p!,
     'eff-electrical': (n) => n.P! / n.L!,
     'eff-voltage': (n) => (power ? n.V! / n.E! : n.E! / n.V!),
     'eff-carnot': (n) => 1 - n.T0! / n.T!,
@@ -152,6 +158,7 @@ function resultOf(id: string, r: Results): number | null {
     'specific-energy': h.specificEnergy_kWh_per_kg,
     'eff-electrolysis': r.efficiency.electrolysisEfficiencyLhv,
     'carbon-margin': h.carbonMargin,
+    'air-humidity': r.conditions.airHumidity?.waterFraction ?? null,
     'stack-voltage': r.plant.electrical.stackVoltage_V,
     'bus-voltage': r.plant.electrical.busVoltage_V,
     'bus-current': r.plant.electrical.busCurrent_A,
@@ -215,6 +222,8 @@ describe.each([...CASES.map(([t, m]) => [t, m, ''] as const), ['pem', 'power', '
     expect(ids.some((id) => id.startsWith('nernst-'))).toBe(true);
     expect(ids).toContain(mode === 'power' ? 'fuel-flow' : 'hydrogen');
     expect(ids.includes('activation-loss')).toBe(variant !== '');
+    // The water of a humid-air feed, for the feeds of humid air only.
+    expect(ids.includes('air-humidity')).toBe(c.basis.airElectrode?.compositionName === 'humid-air');
   });
 
   it.each(all.filter((l) => l.id !== 'mean-nernst').map((l) => [l.id, l] as const))('%s: the numbers shown give the result shown', (id, line) => recomputes(c, f, id, line));
@@ -349,6 +358,22 @@ describe('worked lines of the molten carbonate scaffold with its cathode gas mad
   });
 
   it.each(plant.map((l) => [l.id, l] as const))('%s: the numbers shown give the result shown', (id, line) => recomputes(c, f, id, line));
+
+  it("with humid burner air, the water line is the burner air's (80 % at 10 °C over the standard atmosphere), and the cathode gas carries more water", () => {
+    const humid = (y: string) => y.replace(/^ {4}composition: cathode-gas .*$/m, '    cathode-loop: { burner-air: { composition: humid-air, humidity: { relative-humidity: "80 %", at: "10 C" } }, inlet-oxygen: "9.4 %" }');
+    const h = scaffoldCase('molten-carbonate', 'power', humid);
+    const line = lines(h).find((l) => l.id === 'air-humidity')!;
+    expect(line.title).toBe("Water in the cathode-gas loop's burner air");
+    expect(line.quantities.map((q) => q.origin).join(' | ')).toContain('streams.air-electrode.cathode-loop.burner-air.humidity');
+    // p_s(10 °C) = 1.2282 kPa (IAPWS-95 steam tables; from memory), to half a unit of its last digit
+    // plus IF97's 0.025 % from IAPWS-95 (from memory): 0.36 Pa; on x, 0.8 × 0.36/101 325 = 2.9e-6.
+    expect(Math.abs(line.value - (0.8 * 1228.2) / 101325)).toBeLessThan(2.9e-6);
+    recomputes(h, formulas(h.results), line.id, line);
+    expect(lines(h).find((l) => l.id === 'air-flow')!.quantities.map((q) => q.origin)).toContain("air-electrode feed: the cathode-gas loop's inlet, its O2 fraction held at the design input (the loop's mole balance, plant section)");
+    // Conservation of mass: the loop removes no water, so the burner air's water reaches the cathode gas.
+    const water = (k: typeof c) => k.results.streams.find((s) => s.id === 'air-inlet')!.moleFractions.H2O!;
+    expect(water(h)).toBeGreaterThan(water(c));
+  });
 });
 
 describe.each(['solid-oxide', 'pem'] as const)('worked lines of the %s electrolysis plant', (technology) => {
@@ -403,5 +428,58 @@ describe.each([
     expect(text).not.toMatch(/fraction/);
     expect(text).toMatch(/has reached/);
     expect(text).toMatch(mode === 'power' ? /u = U_\\mathrm\{f\}/ : /u = X/);
+  });
+});
+
+describe('the water of a humid-air feed', () => {
+  const waterLine = (c: ReturnType<typeof scaffoldCase>) => lines(c).find((l) => l.id === 'air-humidity')!;
+  const airInlet = (c: ReturnType<typeof scaffoldCase>) => c.results.streams.find((s) => s.id === 'air-inlet')!.moleFractions.H2O!;
+
+  it('at a dew point: p_s(T_d) over the air-electrode pressure, the water of the air-inlet stream (the PEM scaffold, 60 °C at 1.5 bar)', () => {
+    const c = scaffoldCase('pem', 'power');
+    const line = waterLine(c);
+    // p_s(60 °C) = 19.946 kPa (IAPWS-95 steam tables, Wagner and Pruss 2002; Çengel and Boles, Table A-4, 19.947 kPa; from memory):
+    // half a unit in the last printed digit plus IF97's 0.025 % from IAPWS-95 (from memory), 0.0055 kPa.
+    expect(Math.abs(line.inputs.ps! / 1000 - 19.946)).toBeLessThan(0.0055);
+    expect(line.inputs.phi).toBeUndefined();
+    expect(line.inputs.p).toBe(150000);
+    expect(line.quantities.map((q) => q.origin).join(' | ')).toMatch(/the dew point, 333\.15 K \(60\.0 °C\).*\| air-electrode pressure/);
+    expect(line.value).toBeCloseTo(airInlet(c), 12);
+    // 19.946/150 = 0.13297: 13.30 % to the four digits a percentage shows.
+    expect(line.result).toBe('13.30 %');
+  });
+
+  it('at a relative humidity: φ p_s(T) over the ambient pressure, the standard atmosphere where the basis gives none (the proton-ceramic scaffold, 60 % at 25 °C)', () => {
+    const c = scaffoldCase('proton-ceramic', 'power');
+    const line = waterLine(c);
+    // p_s(25 °C) = 3.1699 kPa (IAPWS-95 steam tables; from memory), to the same tolerance as above, 0.0009 kPa.
+    expect(Math.abs(line.inputs.ps! / 1000 - 3.1699)).toBeLessThan(0.0009);
+    expect(line.inputs.phi).toBeCloseTo(0.6, 12);
+    // The standard atmosphere, 101 325 Pa (ISO 2533:1975), not the air electrode's pressure.
+    expect(line.inputs.p).toBeCloseTo(101325, 6);
+    expect(c.results.conditions.airPressure_bar * 1e5).not.toBeCloseTo(101325, 0);
+    expect(line.quantities.find((q) => q.value.endsWith('Pa') && q.origin.startsWith('ambient'))!.origin).toContain('not given, the standard atmosphere');
+    expect(line.value).toBeCloseTo(airInlet(c), 12);
+  });
+
+  it("Thistlemere's 1.178 % by hand: 0.70 × p_s(15 °C) / 101 325 Pa, p_s(15 °C) = 1705.8 Pa", () => {
+    // The CHP demo states 70 % at 15 °C and the standard atmosphere as its ambient pressure (R5).
+    // p_s(15 °C) = 1.7058 kPa (IAPWS-95 steam tables; from memory); IF97 gives 1705.74 Pa (an
+    // independent evaluation of IAPWS R7-97 eq. 30 outside the project). Tolerance: half a unit
+    // in the printed 1.7058 kPa plus IF97's 0.025 % from IAPWS-95, 0.48 Pa; on x that is 0.7 ×
+    // 0.48/101 325 = 3.3e-6, plus half a unit of the 4th decimal of the percentage.
+    const loaded = loadBasisText(readFileSync(new URL('../../projects/thistlemere-sofc-chp/basis.yaml', import.meta.url), 'utf8'), 'projects/thistlemere-sofc-chp/basis.yaml', 'thistlemere-sofc-chp');
+    if (!loaded.ok) throw new Error(loaded.errors.map((e) => e.message).join('; '));
+    const c = { name: 'thistlemere', basis: loaded.basis, results: calculate(loaded.basis) };
+    const line = waterLine(c);
+    expect(line.inputs.phi).toBeCloseTo(0.7, 12);
+    expect(Math.abs(line.inputs.ps! - 1705.8)).toBeLessThan(0.48);
+    expect(line.inputs.p).toBeCloseTo(101325, 6);
+    const hand = (0.7 * 1705.8) / 101325;
+    expect(Math.abs(line.value - hand)).toBeLessThan(3.3e-6);
+    expect(Math.abs(line.value * 100 - 1.1784)).toBeLessThan(0.00005 + 3.3e-4);
+    expect(line.result).toBe('1.178 %');
+    expect(line.quantities.find((q) => q.origin.startsWith('ambient'))!.origin).toBe('ambient pressure (conditions.ambient-pressure), design input: a relative humidity is that of the ambient air');
+    expect(line.value).toBeCloseTo(airInlet(c), 12);
   });
 });

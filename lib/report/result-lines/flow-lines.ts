@@ -10,6 +10,7 @@ import { getSpecies } from '../../thermo/species-data.ts';
 import { electronsPerMolecule } from '../../electrochem/charge.ts';
 import type { LineSpec, QuantitySpec } from '../calc-line.ts';
 import { constF } from './common.ts';
+import { humidityLine } from './humidity-lines.ts';
 
 /** Σ x_i z_i of the dry fuel: electrons per mole of fuel on complete oxidation. */
 function meanCharge(dry: Readonly<Record<string, number>>): number {
@@ -64,14 +65,22 @@ function productLines(r: Results): LineSpec[] {
   ];
 }
 
-/** The oxygen consumed (fuel cell) or produced (electrolyser), and the air-electrode feed of a fuel cell. */
-function oxygenLines(r: Results): LineSpec[] {
+/** Where the O2 fraction of the air-electrode feed comes from: the cathode-gas loop's computed inlet, humid air, or the stated composition. */
+function airOxygenOrigin(basis: DesignBasis, humid: boolean): string {
+  if (basis.airElectrode?.cathodeLoop) return "air-electrode feed: the cathode-gas loop's inlet, its O2 fraction held at the design input (the loop's mole balance, plant section)";
+  return humid ? "air-electrode feed composition, humid air: the dry air's O2 fraction times 1 − x_H2O (water in the air-electrode feed)" : 'air-electrode feed composition';
+}
+
+/** The oxygen consumed (fuel cell) or produced (electrolyser), the water of a humid-air feed, and the air-electrode feed of a fuel cell. */
+function oxygenLines(r: Results, basis: DesignBasis): LineSpec[] {
   const power = r.technology.mode === 'power';
   const oxygen = power ? r.operatingPoint.oxygenConsumed_mol_per_s : r.efficiency.oxygenProduction_mol_per_s;
   if (oxygen === null) return [];
   const lines: LineSpec[] = [
     { id: 'oxygen', title: power ? 'Oxygen consumed' : 'Oxygen produced', equation: power ? 'oxygen' : 'production', relation: 'oxygen', quantities: [ionicCurrent(r), constF], value: oxygen, unit: 'mol/s' },
   ];
+  const humidity = humidityLine(r, basis);
+  if (humidity) lines.push(humidity);
   const air = r.streams.find((s) => s.id === 'air-inlet');
   const uAir = r.operatingPoint.airUtilization;
   if (power && air && uAir !== null) {
@@ -82,7 +91,7 @@ function oxygenLines(r: Results): LineSpec[] {
       relation: 'air',
       quantities: [
         { name: 'nO2', value: oxygen, unit: 'mol/s', origin: 'oxygen consumed, above' },
-        { name: 'x', value: air.moleFractions.O2 ?? 0, unit: '', origin: 'air-electrode feed composition' },
+        { name: 'x', value: air.moleFractions.O2 ?? 0, unit: '', origin: airOxygenOrigin(basis, humidity !== null) },
         { name: 'U', value: uAir, unit: '', origin: 'air utilization (design input, or from the air ratio)' },
       ],
       value: air.flow_mol_per_s,
@@ -93,5 +102,5 @@ function oxygenLines(r: Results): LineSpec[] {
 }
 
 export function flowLines(r: Results, basis: DesignBasis): LineSpec[] {
-  return [...fuelLines(r, basis), ...productLines(r), ...oxygenLines(r)];
+  return [...fuelLines(r, basis), ...productLines(r), ...oxygenLines(r, basis)];
 }

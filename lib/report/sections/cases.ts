@@ -22,6 +22,7 @@ import { formatNumber, uncapitalised } from '../format.ts';
 import { resultLines, type LineGroup } from '../result-lines.ts';
 import { constF, conversionEfficiency } from '../result-lines/common.ts';
 import { localCurrentLine } from '../result-lines/voltage-lines.ts';
+import { humidityLine } from '../result-lines/humidity-lines.ts';
 import { crossTable, recordsTable, type Table } from '../table.ts';
 
 export interface CasesSection {
@@ -383,6 +384,19 @@ function degradationLine(c: CaseResult): LineSpec | null {
   };
 }
 
+/**
+ * The water of a case's humid-air feed, where it is not the sizing case's: each case is read as a
+ * basis of its own, so a case that changes the humidity, or the pressure it is stated at (the
+ * air-electrode pressure for a dew point, the ambient pressure for a relative humidity), is fed
+ * air of its own water fraction (lib/basis/read-air-stream.ts).
+ */
+function humidityCaseLine(r: Results, basis: DesignBasis, c: CaseResult): LineSpec | null {
+  const own = c.conditions?.airHumidity ?? null;
+  if (own === null || own.waterFraction === r.conditions.airHumidity?.waterFraction) return null;
+  const line = humidityLine(asResults(r, c), basis);
+  return line && forCase(c, line);
+}
+
 /** A case's line, named after the case: its id prefixed with the case's, its title led by the case. */
 function forCase<L extends { id: string; title: string }>(c: CaseResult, line: L, what = line.id): L {
   return { ...line, id: `case-${c.id}-${what}`, title: `Case ${c.id}: ${uncapitalised(line.title)}` };
@@ -657,7 +671,7 @@ function caseLines(r: Results, basis: DesignBasis, c: CaseResult, book: Equation
   const ownGoverning = ownGoverningLines(r, caseBasis, c, governs, book);
   // The sizing case on the cells the sizing calculation required is the point of section 6, whose lines are its own.
   if (c.sizing && !installedSizing(r, c)) return { id: `cases-${c.id}`, title: `Case ${c.id}: ${c.title} (sizing case)`, lines: ownGoverning.map((s) => calcLine(s, book)) };
-  const own = [loadLine(r, basis, c), degradationLine(c), ...ownGoverning].filter((s): s is LineSpec => s !== null).map((s) => calcLine(s, book));
+  const own = [loadLine(r, basis, c), degradationLine(c), humidityCaseLine(r, caseBasis, c), ...ownGoverning].filter((s): s is LineSpec => s !== null).map((s) => calcLine(s, book));
   const wanted = new Set([...governs].flatMap((id) => GOVERNING_LINES[id] ?? []));
   // An aged cell voltage is V₀ (1 ∓ r t), the degradation line above; the area-mean form gives V₀.
   if (c.degradation?.of === 'cell-voltage') wanted.delete('cell-voltage');
